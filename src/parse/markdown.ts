@@ -1,0 +1,242 @@
+import type { Nodes, Parent, PhrasingContent, Root, RootContent } from 'mdast';
+import remarkFrontmatter from 'remark-frontmatter';
+import remarkGfm from 'remark-gfm';
+import remarkMath from 'remark-math';
+import remarkParse from 'remark-parse';
+import { unified } from 'unified';
+import { MappedText } from './builder.js';
+import { readDirective } from './directives.js';
+import { readFrontMatter } from './frontMatter.js';
+import { normalize } from './normalize.js';
+import type { Directive, FrontMatter, ParsedDocument, Segment, SegmentKind, TablePlace } from './types.js';
+
+const processor = unified().use(remarkParse).use(remarkGfm).use(remarkFrontmatter, ['yaml']).use(remarkMath);
+
+export interface MarkdownOptions {
+  /** R Markdown / Quarto: fenced chunks with a `{lang …}` info string are source code, skipped whole. */
+  chunks?: boolean;
+}
+
+/**
+ * Markdown (CommonMark + GFM tables + YAML front matter + `$…$` math) into prose segments.
+ * Paragraphs, headings and table cells become segments (list items and block quotes are
+ * walked through to their paragraphs); fenced and indented code and inline code become
+ * `code` segments, which the extractor reads only for complete reported results; HTML
+ * blocks and comments are not prose (comments addressed to plumbline become directives).
+ */
+export function parseMarkdown(path: string, source: string, options: MarkdownOptions = {}): ParsedDocument {
+  const hadBom = source.charCodeAt(0) === 0xfeff;
+  // Parse the text after the BOM and shift every offset back by one, so spans index the
+  // file as read (columns on line 1 then count from the first visible character + 1).
+  const body = hadBom ? source.slice(1) : source;
+  const shift = hadBom ? 1 : 0;
+  const tree = processor.parse(body) as Root;
+  const walker = new Walker(body, shift, options);
+  walker.walkBlocks(tree.children);
+  return {
+    path,
+    source,
+    format: 'markdown',
+    segments: walker.segments,
+    directives: walker.finishDirectives(),
+    ...(walker.frontMatter ? { frontMatter: walker.frontMatter } : {}),
+    hadBom,
+  };
+}
+
+class Walker {
+  segments: Segment[] = [];
+  frontMatter: FrontMatter | undefined;
+  private directives: Directive[] = [];
+  private pendingDirectives: Directive[] = [];
+  private block = 0;
+  private tables = 0;
+  private section: string | undefined;
+
+  constructor(private readonly src: string, private readonly shift: number, private readonly options: MarkdownOptions) {}
+
+  walkBlocks(nodes: RootContent[]): void {
+    for (const node of nodes) this.walkBlock(node);
+  }
+
+  finishDirectives(): Directive[] {
+    for (const d of this.pendingDirectives) d.appliesToBlock = -1;
+    return this.directives;
+  }
+
+  private startBlock(): number {
+    this.block += 1;
+    for (const d of this.pendingDirectives) d.appliesToBlock = this.block;
+    this.pendingDirectives = [];
+    return this.block;
+  }
+
+  private walkBlock(node: RootContent): void {
+    switch (node.type) {
+      case 'paragraph':
+        this.phrasingSegment('paragraph', node.children, this.startBlock());
+        return;
+      case 'heading': {
+        const seg = this.phrasingSegment('heading', node.children, this.startBlock());
+        this.section = seg?.text.trim() || this.section;
+        return;
+      }
+      case 'blockquote':
+      case 'list':
+      case 'listItem':
+      case 'footnoteDefinition':
+        this.walkBlocks((node as Parent).children as RootContent[]);
+        return;
+      case 'table': {
+        const table = this.tables;
+        this.tables += 1;
+        node.children.forEach((row, r) => {
+          row.children.forEach((cell, c) => {
+            this.phrasingSegment('tableCell', cell.children, this.startBlock(), { table, row: r, column: c });
+          });
+        });
+        return;
+      }
+      case 'code': {
+        const block = this.startBlock();
+        if (this.options.chunks && /^\{/.test(node.lang ?? '')) return;
+        if (!node.position) return;
+        const text = new MappedText();
+        const start = node.position.start.offset as number;
+        const end = node.position.end.offset as number;
+        const raw = this.src.slice(start, end);
+        const inner = innerCode(raw, node.value);
+        text.pushAligned(node.value, this.src, start + inner, end);
+        this.emit('code', text, block);
+        return;
+      }
+      case 'math': {
+        if (!node.position) return;
+        const text = new MappedText();
+        text.pushAligned(node.value, this.src, node.position.start.offset as number, node.position.end.offset as number);
+        this.emit('math', text, this.startBlock());
+        return;
+      }
+      case 'html': {
+        const d = node.position ? readDirective(node.value, this.offsetSpan(node)) : undefined;
+        if (d) {
+          this.directives.push(d);
+          this.pendingDirectives.push(d);
+        }
+        return;
+      }
+      case 'yaml':
+        if (node.position) this.frontMatter = readFrontMatter(node.value, this.offsetSpan(node));
+        return;
+      default:
+        return;
+    }
+  }
+
+  private offsetSpan(node: Nodes): { start: number; end: number } {
+    return {
+      start: (node.position?.start.offset ?? 0) + this.shift,
+      end: (node.position?.end.offset ?? 0) + this.shift,
+    };
+  }
+
+  private phrasingSegment(kind: SegmentKind, children: PhrasingContent[], block: number, table?: TablePlace): Segment | undefined {
+    const text = new MappedText();
+    const codes: MappedText[] = [];
+    this.phrasing(children, text, codes);
+    const seg = this.emit(kind, text, block, table);
+    for (const code of codes) this.emit('code', code, block, table);
+    return seg;
+  }
+
+  private phrasing(children: PhrasingContent[], out: MappedText, codes: MappedText[]): void {
+    for (const node of children) {
+      const pos = node.position;
+      switch (node.type) {
+        case 'text':
+          if (pos) out.pushAligned(node.value, this.src, pos.start.offset as number, pos.end.offset as number);
+          break;
+        case 'inlineMath':
+          if (pos) {
+            const [a, b] = insideDelimiters(this.src, pos.start.offset as number, pos.end.offset as number, '$');
+            out.pushAligned(node.value, this.src, a, b);
+          }
+          break;
+        case 'inlineCode':
+          if (pos) {
+            const code = new MappedText();
+            const [a, b] = insideDelimiters(this.src, pos.start.offset as number, pos.end.offset as number, '`');
+            code.pushAligned(node.value, this.src, a, b);
+            codes.push(code);
+            // Keep word boundaries in the prose around it.
+            out.pushSynthetic(' ', pos.start.offset as number, pos.end.offset as number);
+          }
+          break;
+        case 'break':
+          if (pos) out.pushSynthetic('\n', pos.start.offset as number, pos.end.offset as number);
+          break;
+        case 'html':
+          if (pos) this.inlineHtml(node.value, pos.start.offset as number, pos.end.offset as number, out);
+          break;
+        case 'emphasis':
+        case 'strong':
+        case 'delete':
+        case 'link':
+        case 'linkReference':
+          this.phrasing(node.children, out, codes);
+          break;
+        default:
+          // images, footnote references: not prose
+          break;
+      }
+    }
+  }
+
+  /** `<sup>` reads as an exponent mark, `<br>` as a line break; other inline tags vanish. */
+  private inlineHtml(value: string, start: number, end: number, out: MappedText): void {
+    if (/^<sup\b/i.test(value)) out.pushSynthetic('^', start, end);
+    else if (/^<br\b/i.test(value)) out.pushSynthetic('\n', start, end);
+    else if (/^<\/?(?:sub|span|em|i|b|strong)\b/i.test(value)) return;
+    else if (/^<!--/.test(value)) {
+      const d = readDirective(value, { start: start + this.shift, end: end + this.shift });
+      if (d) {
+        this.directives.push(d);
+        this.pendingDirectives.push(d);
+      }
+    }
+  }
+
+  private emit(kind: SegmentKind, raw: MappedText, block: number, table?: TablePlace): Segment | undefined {
+    const text = normalize(raw);
+    if (text.text.trim() === '') return undefined;
+    const seg: Segment = {
+      id: this.segments.length,
+      block,
+      kind,
+      text: text.text,
+      starts: this.shift ? text.starts.map((o) => o + this.shift) : text.starts,
+      ends: this.shift ? text.ends.map((o) => o + this.shift) : text.ends,
+      ...(table ? { table } : {}),
+      ...(this.section !== undefined && kind !== 'heading' ? { section: this.section } : {}),
+    };
+    this.segments.push(seg);
+    return seg;
+  }
+}
+
+/** The source range inside a run of `mark` characters at both ends (inline code or math). */
+function insideDelimiters(src: string, start: number, end: number, mark: string): [number, number] {
+  let a = start;
+  let b = end;
+  while (a < b && src[a] === mark) a += 1;
+  while (b > a && src[b - 1] === mark) b -= 1;
+  return [a, b];
+}
+
+/** Offset of a fenced or indented code block's content within its raw source. */
+function innerCode(raw: string, value: string): number {
+  if (value === '') return 0;
+  const firstLine = value.split(/\r?\n/, 1)[0] as string;
+  const at = raw.indexOf(firstLine, /^ {0,3}(?:`{3,}|~{3,})/.test(raw) ? raw.search(/\r?\n/) + 1 : 0);
+  return at < 0 ? 0 : at;
+}

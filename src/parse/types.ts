@@ -1,0 +1,72 @@
+/** A half-open range of UTF-16 offsets into the original source text. */
+export interface Span {
+  start: number;
+  end: number;
+}
+
+/** 1-based line and column (column in UTF-16 code units, tabs count one), as SARIF's default. */
+export interface Position {
+  line: number;
+  column: number;
+}
+
+export type SegmentKind = 'paragraph' | 'heading' | 'tableCell' | 'code' | 'math' | 'text';
+
+export interface TablePlace {
+  /** Which table of the document (0-based). */
+  table: number;
+  /** Row within the table; row 0 is the header row. */
+  row: number;
+  column: number;
+}
+
+/**
+ * One run of prose, with a map from each of its characters back to the source. `text` has
+ * markup removed (emphasis markers, escapes, links, LaTeX text commands) and spelling
+ * variants folded (Unicode minus, superscript exponents, middle-dot decimals, no-break
+ * spaces), so the extractor sees one spelling; `starts[i]`/`ends[i]` give the source
+ * range that produced `text[i]`.
+ */
+export interface Segment {
+  id: number;
+  /** Segments from the same block (paragraph with its inline code, one table cell) share it. */
+  block: number;
+  kind: SegmentKind;
+  text: string;
+  starts: number[];
+  ends: number[];
+  table?: TablePlace;
+  /** Heading text of the section the segment sits in (nearest heading above), if any. */
+  section?: string;
+}
+
+/** An HTML comment addressed to plumbline, e.g. `<!-- plumbline quiet RULE: reason -->`. */
+export interface Directive {
+  span: Span;
+  verb: string;
+  ruleIds: string[];
+  reason: string;
+  /** The block the directive applies to (the next block after it), or -1 if none follows. */
+  appliesToBlock: number;
+}
+
+export interface FrontMatter {
+  /** Parsed YAML, or undefined when absent or malformed. */
+  data: unknown;
+  span: Span;
+  /** Parser message when the YAML could not be read. */
+  error?: string;
+}
+
+export type SourceFormat = 'markdown' | 'text';
+
+export interface ParsedDocument {
+  path: string;
+  source: string;
+  format: SourceFormat;
+  segments: Segment[];
+  directives: Directive[];
+  frontMatter?: FrontMatter;
+  /** Whether the source began with a byte-order mark (stripped before parsing). */
+  hadBom: boolean;
+}

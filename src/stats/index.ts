@@ -1,0 +1,3 @@
+export { twoSidedPFromT, oneSidedPFromT, upperTailT, twoSidedCriticalT, tDensity } from './tDistribution.js';
+export { roundingInterval, scientificRoundingInterval, lastDigitUnit } from './rounding.js';
+export { twoSidedPRange, oneSidedPRange, intervalsMeet, type Interval } from './pRange.js';
