@@ -1,0 +1,29 @@
+import type { ParsedDocument } from '../parse/types.js';
+import { sentenceStarts } from './numbers.js';
+import { findStatements, NAMES_T_TEST } from './statements.js';
+import { findTableTests } from './tables.js';
+import { findPWithoutT } from './pWithoutT.js';
+import { findTTests } from './tTests.js';
+import type { Extraction } from './types.js';
+
+export type * from './types.js';
+export { sentenceStarts } from './numbers.js';
+
+/** Every reported t-test, context statement and t-less p of a parsed document, in reading order. */
+export function extract(doc: ParsedDocument): Extraction {
+  const out: Extraction = { tests: [], statements: [], pWithoutT: [] };
+  for (const seg of doc.segments) {
+    const starts = sentenceStarts(seg.text);
+    const tests = findTTests(seg, starts);
+    out.tests.push(...tests);
+    if (seg.kind !== 'code') {
+      out.statements.push(...findStatements(seg, starts));
+      NAMES_T_TEST.lastIndex = 0;
+      if (NAMES_T_TEST.test(seg.text)) out.pWithoutT.push(...findPWithoutT(seg, starts, tests));
+    }
+  }
+  const seen = new Set(out.tests.map((t) => t.span.start));
+  for (const t of findTableTests(doc.segments)) if (!seen.has(t.span.start)) out.tests.push(t);
+  out.tests.sort((a, b) => a.span.start - b.span.start);
+  return out;
+}

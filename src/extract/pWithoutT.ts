@@ -1,0 +1,33 @@
+import type { Segment } from '../parse/types.js';
+import { sentenceOf, sourceSpan } from './numbers.js';
+import { NAMES_T_TEST } from './statements.js';
+import { findP } from './tTests.js';
+import type { PWithoutT, TTestReport } from './types.js';
+
+/**
+ * In a sentence that names a t-test ("a paired t-test showed …") but holds no t statistic,
+ * the p values given: the reader cannot check them, which the reporting rules point out.
+ */
+export function findPWithoutT(seg: Segment, starts: number[], tests: TTestReport[]): PWithoutT[] {
+  const out: PWithoutT[] = [];
+  const withT = new Set(tests.map((t) => t.sentence));
+  const done = new Set<number>();
+  for (const m of seg.text.matchAll(NAMES_T_TEST)) {
+    const sentence = sentenceOf(starts, m.index);
+    if (withT.has(sentence) || done.has(sentence)) continue;
+    done.add(sentence);
+    const from = starts[sentence] as number;
+    const to = starts[sentence + 1] ?? seg.text.length;
+    let at = from;
+    for (;;) {
+      const p = findP(seg, at, to);
+      if (!p) break;
+      out.push({ segment: seg.id, block: seg.block, p, mention: sourceSpan(seg, m.index, m.index + m[0].length) });
+      let next = at;
+      while (next < to && (seg.ends[next] as number) <= p.span.end) next += 1;
+      if (next <= at) break;
+      at = next;
+    }
+  }
+  return out;
+}

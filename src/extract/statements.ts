@@ -1,0 +1,45 @@
+import type { Segment } from '../parse/types.js';
+import { sentenceOf, sourceSpan } from './numbers.js';
+import type { ContextStatement } from './types.js';
+
+const SIDED = /(?<![\p{L}])(one|two|1|2|single)[- ]?(tailed|sided)(?![\p{L}])|(?<![\p{L}])(non-?directional|directional)(?= (?:test|hypothes|predict))/giu;
+const EQUIVALENCE = /(?<![\p{L}])(equivalence test|test of equivalence|tests? for equivalence|TOST|two one-sided|non-?inferiority|equivalence bounds?)(?![\p{L}])/giu;
+const ALPHA = new RegExp(
+  String.raw`(?<![\p{L}])(?:α|alpha|significance level|level of significance|significance threshold|significance criterion)(?: level)?(?: (?:of|was set at|set at|was set to|was|at|equal to))? ?(?:=|:)? ?(?:p ?[<≤=] ?)?(0?\.\d{1,4})(?![\d])`,
+  'giu',
+);
+const ALPHA_AS_P = new RegExp(
+  String.raw`(?<![\p{L}])(?:p|P)(?:[- ]values?)? ?[<≤] ?(0?\.\d{1,4}) (?:was|were) (?:considered|deemed|taken as|regarded as|accepted as) (?:statistically )?significant|significance (?:was )?(?:set|defined|accepted|established) (?:at|as) (?:p ?[<≤] ?)?(0?\.\d{1,4})`,
+  'giu',
+);
+
+/** Statements about tails, equivalence testing and alpha in one segment. */
+export function findStatements(seg: Segment, sentenceStarts: number[]): ContextStatement[] {
+  const out: ContextStatement[] = [];
+  const text = seg.text;
+  const base = (a: number, b: number) => ({
+    span: sourceSpan(seg, a, b),
+    segment: seg.id,
+    block: seg.block,
+    sentence: sentenceOf(sentenceStarts, a),
+    printed: text.slice(a, b),
+  });
+  for (const m of text.matchAll(SIDED)) {
+    const word = (m[1] ?? m[3] ?? '').toLowerCase();
+    const one = word === 'one' || word === '1' || word === 'single' || word === 'directional';
+    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', ...base(m.index, m.index + m[0].length) });
+  }
+  for (const m of text.matchAll(EQUIVALENCE)) {
+    out.push({ kind: 'equivalence', sidedness: 'one', ...base(m.index, m.index + m[0].length) });
+  }
+  for (const re of [ALPHA, ALPHA_AS_P]) {
+    for (const m of text.matchAll(re)) {
+      const value = Number(m[1] ?? m[2]);
+      if (value > 0 && value < 0.5) out.push({ kind: 'alpha', alpha: value, ...base(m.index, m.index + m[0].length) });
+    }
+  }
+  return out;
+}
+
+/** Sentences that name a t-test: used to spot a p given without its t. */
+export const NAMES_T_TEST = /(?<![\p{L}])t[- ]tests?(?![\p{L}])|(?<![\p{L}])(?:Student|Welch)(?:'s|’s)? t(?![\p{L}])/giu;

@@ -1,0 +1,248 @@
+import type { Segment } from '../parse/types.js';
+import { readNumber, sentenceOf, sourceSpan } from './numbers.js';
+import type { Comparison, ReportedNumber, ReportedP, ReportStyle, Sidedness, TTestReport } from './types.js';
+
+// Building blocks. Every quantifier is bounded or over a character class disjoint from what
+// follows it, so no pattern can backtrack super-linearly (checked by test/regex-safety).
+const OP = String.raw`(<=|>=|=<|=>|≤|≥|=|<|>)`;
+const T_NUM = String.raw`([-+]? ?(?:\d{1,9}(?:\.\d{1,20})?|\.\d{1,20}))`;
+const DF_NUM = String.raw`(\d{1,3}(?:,\d{3}){1,3}(?:\.\d{1,12})?|\d{1,9}(?:\.\d{1,12})?)`;
+const NOT_AFTER_WORD = String.raw`(?<![\p{L}\p{N}_'’.\-])`;
+
+/** t(28) = 2.10 · ts(22) > 4.72 · t[28] · t_{28} · t_28 · t( 3.187) */
+const BRACKETED = new RegExp(
+  String.raw`${NOT_AFTER_WORD}(ts?|T)(?: ?_?\( ?| ?_?\[ ?|_\{ ?|_)${DF_NUM} ?[)\]}]? ?${OP} ?${T_NUM}`,
+  'dgu',
+);
+/** t28 = 2.10: a subscript df flattened by PDF copying. */
+const ATTACHED = new RegExp(String.raw`${NOT_AFTER_WORD}(t)(\d{1,6}(?:\.\d{1,6})?) ?${OP} ?${T_NUM}`, 'dgu');
+/** t = 2.10 · t-value: 2.10 · t-statistic = 2.10 · t value is (2.10), df given elsewhere. */
+const LABELLED = new RegExp(
+  String.raw`${NOT_AFTER_WORD}(t|T)(?:[- ]?(?:values?|statistics?|stat|ratio|score))? ?(=|:|is|of|was) ?\(? ?${T_NUM}`,
+  'dgu',
+);
+/** df = 28 · d.f. = 28 · degrees of freedom: 28 · df(28) */
+const DF_LABEL = new RegExp(String.raw`(?<![\p{L}])(?:df|d\.f\.|degrees of freedom)(?: ?(?:=|:|is|of|was) ?| ?\()? ?\(? ?${DF_NUM}`, 'dgiu');
+/** (28 df) · 28 degrees of freedom */
+const DF_AFTER = new RegExp(String.raw`(?<![\p{L}\p{N}.,])\(?${DF_NUM}\)? (?:df|d\.f\.|degrees of freedom)(?![\p{L}])`, 'dgiu');
+
+const P_NUM = String.raw`(\d{1,12}(?:\.\d{1,20})?|\.\d{1,20})(?: ?(?:[eE] ?([-+]?\d{1,3})|[×xX*·] ?10 ?\^? ?([-+]?\d{1,3})))?`;
+/** p = .045 · P<0.05 · p-value = 0.02 · ps ≤ .0001 · p = < .001 · p (two-tailed) = .03 · p value is (0.04) */
+const P_VALUE = new RegExp(
+  String.raw`(?<![\p{L}\p{N}_])(p|P|ps|Ps)(?:[- ]?values?)?(?: ?\((?:one|two|1|2)[- ](?:tailed|sided)\))?(?:_\{?[\p{L}-]{1,20}\}?)? ?(?:(is|of|was) )?(=?<|=?>|<=|>=|≤|≥|=|:|≈|~)? ?(<|>|≤|≥)? ?\(? ?${P_NUM}`,
+  'dgu',
+);
+const NS = /^[ ,;]{0,3}\(?(n\. ?s\.?|ns|NS|n\.s)(?![\p{L}])/u;
+const SIDED_NEAR = /(one|two|1|2)[- ]?(tailed|sided)/iu;
+/** Another statistic's symbol: a p after it belongs to it, not to the t before. */
+const OTHER_STATISTIC = /(?<![\p{L}\p{N}_])(?:F ?\(|χ|chi|r ?\(|r ?=|z ?=|Z ?=|W ?=|U ?=|H ?\(|OR ?=|t ?\(|t ?=)/u;
+const VARIANT_BEFORE = /(welch|student|paired|one[- ]sample|independent)[\p{L}\s'’-]{0,30}$/iu;
+
+interface Anchor {
+  start: number;
+  /** End of t's number. */
+  end: number;
+  style: ReportStyle;
+  symbol: string;
+  tOp: Comparison;
+  t: ReportedNumber;
+  df?: ReportedNumber;
+}
+
+/** Every reported t-test in one segment. */
+export function findTTests(seg: Segment, sentenceStarts: number[]): TTestReport[] {
+  const text = seg.text;
+  if (!/[tT]/.test(text)) return [];
+  const anchors = findAnchors(seg);
+  const out: TTestReport[] = [];
+  anchors.forEach((anchor, i) => {
+    const next = anchors[i + 1];
+    const sentenceEnd = sentenceStarts[sentenceOf(sentenceStarts, anchor.start) + 1] ?? text.length;
+    const limit = Math.min(next ? next.start : text.length, sentenceEnd, anchor.end + 200);
+    const report = completeReport(seg, anchor, limit, sentenceStarts);
+    if (report) out.push(report);
+  });
+  return out;
+}
+
+function findAnchors(seg: Segment): Anchor[] {
+  const text = seg.text;
+  const found: Anchor[] = [];
+  const taken = (a: number, b: number) => found.some((f) => a < f.end && f.start < b);
+  for (const m of text.matchAll(BRACKETED)) {
+    const df = readNumber(seg, idx(m, 2), idx(m, 2) + (m[2] as string).length);
+    const t = numberFromGroup(seg, m, 4);
+    if (!df || !t) continue;
+    found.push({ start: m.index, end: m.index + m[0].length, style: 'bracketed-df', symbol: m[1] as string, tOp: comparison(m[3] as string), t, df });
+  }
+  for (const m of text.matchAll(ATTACHED)) {
+    if (taken(m.index, m.index + m[0].length)) continue;
+    const df = readNumber(seg, idx(m, 2), idx(m, 2) + (m[2] as string).length);
+    const t = numberFromGroup(seg, m, 4);
+    if (!df || !t) continue;
+    found.push({ start: m.index, end: m.index + m[0].length, style: 'attached-df', symbol: 't', tOp: comparison(m[3] as string), t, df });
+  }
+  for (const m of text.matchAll(LABELLED)) {
+    if (taken(m.index, m.index + m[0].length)) continue;
+    const t = numberFromGroup(seg, m, 3);
+    if (!t) continue;
+    const after = text.slice(m.index + m[0].length, m.index + m[0].length + 12);
+    // "t = 8.02 > 1.714" compares t with a critical value: not a reported result.
+    if (/^ ?[<>≤≥] ?[-+]?\.?\d/.test(after)) continue;
+    // "t = 2.10" directly followed by more digits or letters is something else (t = 67ms).
+    if (/^[\p{L}]/u.test(after)) continue;
+    found.push({ start: m.index, end: m.index + m[0].length, style: 'labelled-df', symbol: m[1] as string, tOp: '=', t });
+  }
+  return found.sort((a, b) => a.start - b.start);
+}
+
+function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceStarts: number[]): TTestReport | undefined {
+  const text = seg.text;
+  let df = anchor.df;
+  let end = anchor.end;
+  const windowText = text.slice(anchor.end, limit);
+  const stop = OTHER_STATISTIC.exec(windowText);
+  const windowEnd = anchor.end + (stop ? stop.index : windowText.length);
+  if (!df) {
+    df = findDf(seg, anchor.end, windowEnd);
+    if (df) end = Math.max(end, indexOfSpanEnd(seg, df));
+    // "with 23 degrees of freedom, … the t value is 8.02": a df stated earlier in the sentence
+    else df = findDf(seg, sentenceStarts[sentenceOf(sentenceStarts, anchor.start)] as number, anchor.start, true);
+  }
+  const p = findP(seg, anchor.end, windowEnd);
+  if (p) end = Math.max(end, indexOfSpanEnd(seg, p));
+  // A labelled t needs a df or a p beside it to be a reported result; an uppercase T
+  // (also Wilcoxon's statistic) needs a df; an attached df ("t14") needs a p.
+  if (anchor.style === 'labelled-df' && !df && !p) return undefined;
+  if (anchor.style === 'labelled-df' && anchor.symbol === 'T' && !df) return undefined;
+  if (anchor.style === 'attached-df' && !p) return undefined;
+  if (seg.kind === 'code' && !(df && p)) return undefined;
+  const tailText = text.slice(anchor.start, Math.min(text.length, end + 40));
+  const sided = SIDED_NEAR.exec(tailText);
+  const before = text.slice(Math.max(0, anchor.start - 60), anchor.start);
+  const variant = VARIANT_BEFORE.exec(before);
+  const report: TTestReport = {
+    id: `${seg.id}:${anchor.start}`,
+    segment: seg.id,
+    block: seg.block,
+    sentence: sentenceOf(sentenceStarts, anchor.start),
+    span: sourceSpan(seg, anchor.start, end),
+    printed: text.slice(anchor.start, end),
+    style: anchor.style,
+    plural: anchor.symbol === 'ts' || p?.printed.startsWith('ps') === true,
+    inCode: seg.kind === 'code',
+    tOp: anchor.tOp,
+    t: anchor.t,
+    ...(df ? { df } : {}),
+    ...(p ? { p } : {}),
+    ...(sided
+      ? {
+          statedSidedness: {
+            value: (/^(one|1)$/i.test(sided[1] as string) ? 'one' : 'two') as Sidedness,
+            span: sourceSpan(seg, anchor.start + sided.index, anchor.start + sided.index + sided[0].length),
+          },
+        }
+      : {}),
+    ...(variant ? { namedVariant: variantName(variant[1] as string) } : {}),
+  };
+  return report;
+}
+
+function variantName(word: string): TTestReport['namedVariant'] {
+  const w = word.toLowerCase();
+  if (w === 'welch') return 'welch';
+  if (w === 'student') return 'student';
+  if (w === 'paired') return 'paired';
+  if (w === 'independent') return 'independent';
+  return 'one-sample';
+}
+
+function findDf(seg: Segment, from: number, to: number, statedBefore = false): ReportedNumber | undefined {
+  const slice = seg.text.slice(from, to);
+  for (const re of statedBefore ? [DF_AFTER] : [DF_LABEL, DF_AFTER]) {
+    re.lastIndex = 0;
+    const m = re.exec(slice);
+    if (m) {
+      const a = from + idx(m, 1);
+      return readNumber(seg, a, a + (m[1] as string).length);
+    }
+  }
+  return undefined;
+}
+
+export function findP(seg: Segment, from: number, to: number): ReportedP | undefined {
+  const slice = seg.text.slice(from, to);
+  const ns = NS.exec(slice);
+  if (ns) {
+    const a = from + ns.index + ns[0].indexOf(ns[1] as string);
+    const b = a + (ns[1] as string).length;
+    return { kind: 'ns', op: '>', span: sourceSpan(seg, a, b), printed: seg.text.slice(a, b) };
+  }
+  P_VALUE.lastIndex = 0;
+  for (let m = P_VALUE.exec(slice); m; m = P_VALUE.exec(slice)) {
+    const word = m[2];
+    const first = m[3];
+    const second = m[4];
+    if (!first && !second && !word) continue; // "p 0.05" without a comparison is not a report
+    const op = pComparison(first ?? '=', second);
+    const numStart = from + idx(m, 5);
+    const mantissaEnd = numStart + (m[5] as string).length;
+    const exponent = Number(m[6] ?? m[7] ?? 0);
+    const numEnd = from + m.index + m[0].length;
+    const number = readNumber(seg, numStart, numEnd, exponent, mantissaEnd);
+    if (!number) continue;
+    const a = from + m.index;
+    return { kind: 'value', op, number, span: sourceSpan(seg, a, numEnd), printed: seg.text.slice(a, numEnd) };
+  }
+  return undefined;
+}
+
+function pComparison(first: string, second: string | undefined): Comparison {
+  // "p = < .001" and "p: < .001" read as the inner comparison
+  if (second && (first === '=' || first === ':')) return comparison(second);
+  if (first === '=<') return '<=';
+  if (first === '=>') return '>=';
+  if (first === ':') return '=';
+  return comparison(first);
+}
+
+function comparison(s: string): Comparison {
+  switch (s) {
+    case '<':
+      return '<';
+    case '>':
+      return '>';
+    case '<=':
+    case '=<':
+    case '≤':
+      return '<=';
+    case '>=':
+    case '=>':
+    case '≥':
+      return '>=';
+    case '≈':
+    case '~':
+      return '~';
+    default:
+      return '=';
+  }
+}
+
+function numberFromGroup(seg: Segment, m: RegExpMatchArray, group: number): ReportedNumber | undefined {
+  const g = m[group];
+  if (g === undefined) return undefined;
+  const a = idx(m, group);
+  return readNumber(seg, a, a + g.length);
+}
+
+/** Start index of capture group `g` (patterns carry the `d` flag). */
+function idx(m: RegExpMatchArray, g: number): number {
+  return m.indices?.[g]?.[0] ?? m.index ?? 0;
+}
+
+function indexOfSpanEnd(seg: Segment, part: { span: { end: number } }): number {
+  // Largest text index whose source end is within the part's span.
+  let i = seg.ends.length - 1;
+  while (i > 0 && (seg.ends[i] as number) > part.span.end) i -= 1;
+  return i + 1;
+}
