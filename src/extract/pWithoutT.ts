@@ -22,7 +22,7 @@ export function findPWithoutT(seg: Segment, starts: number[], tests: TTestReport
     for (;;) {
       const p = findP(seg, at, to);
       if (!p) break;
-      out.push({ segment: seg.id, block: seg.block, p, mention: sourceSpan(seg, m.index, m.index + m[0].length) });
+      out.push({ segment: seg.id, block: seg.block, p, mention: sourceSpan(seg, m.index, m.index + m[0].length), mentionPrinted: m[0] });
       let next = at;
       while (next < to && (seg.ends[next] as number) <= p.span.end) next += 1;
       if (next <= at) break;

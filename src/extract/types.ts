@@ -77,6 +77,8 @@ export interface PWithoutT {
   block: number;
   p: ReportedP;
   mention: Span;
+  /** The words that name the test, as printed. */
+  mentionPrinted: string;
 }
 
 export interface Extraction {

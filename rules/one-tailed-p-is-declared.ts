@@ -1,0 +1,39 @@
+import { evaluateP, fill, pPlaceholders, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+
+const messages = {
+  'undeclared-one-tailed':
+    'Reported {reported}. It matches the one-tailed p from {inputs} ({oneTailed}), not the two-tailed p ({twoTailed}), and nothing in the text says the test was one-tailed.',
+  'undeclared-one-tailed-changes-significance':
+    'Reported {reported}. It matches the one-tailed p from {inputs} ({oneTailed}), not the two-tailed p ({twoTailed}), and nothing in the text says the test was one-tailed; two-tailed, the result would be {recomputedSide} at alpha {alpha}.',
+};
+
+/** A p that only a one-tailed test gives is declared as one-tailed. */
+export const oneTailedPIsDeclared: Rule = {
+  id: 'one-tailed-p-is-declared',
+  summary: 'A p value that matches only the one-tailed reading comes with a statement that the test was one-tailed.',
+  kind: 'doubtful',
+  defaultLevel: 'note',
+  defaultOptions: {},
+  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  messages,
+  check({ document }) {
+    const out: RuleFinding[] = [];
+    for (const result of document.results) {
+      const e = evaluateP(result);
+      if (!e || e.standing !== 'one-tailed-only') continue;
+      const id = e.decisionFlips ? 'undeclared-one-tailed-changes-significance' : 'undeclared-one-tailed';
+      out.push({
+        messageId: id,
+        span: result.report.span,
+        message: fill(messages[id], pPlaceholders(result, e)),
+        reported: result.report.printed,
+        recomputed: { ...e.recomputed, quantity: 'two-tailed p' },
+        gap: e.gap,
+        check: 'If the test was one-tailed, say so (and why) where the test is described; otherwise report the two-tailed p.',
+        resultId: result.report.id,
+        block: result.report.block,
+      });
+    }
+    return out;
+  },
+};

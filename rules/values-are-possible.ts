@@ -1,0 +1,41 @@
+import { fill, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+
+const messages = {
+  'p-above-one': 'Reported {reported}: a p value cannot exceed 1 (a decimal point may be missing).',
+  'p-below-zero-bound': 'Reported {reported}: no p value lies below 0, so this bound cannot hold (a digit may be missing, e.g. p < .001).',
+  'df-not-positive': 'Reported df = {df}: degrees of freedom must be positive.',
+  'student-df-fractional':
+    "Reported df = {df} with a test the text calls Student's: Student's (pooled) t has whole-number df (n1 + n2 − 2); a fractional df comes from Welch's test.",
+};
+
+/** Reported p and df lie in the ranges they can take. */
+export const valuesArePossible: Rule = {
+  id: 'values-are-possible',
+  summary: 'Reported p lies in (0, 1] and df is positive (and whole for Student\'s test).',
+  kind: 'inconsistency',
+  defaultLevel: 'error',
+  defaultOptions: {},
+  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  messages,
+  check({ document }) {
+    const out: RuleFinding[] = [];
+    for (const result of document.results) {
+      const r = result.report;
+      const base = { reported: r.printed, resultId: r.id, block: r.block };
+      const p = r.p?.kind === 'value' ? r.p : undefined;
+      if (p?.number && p.number.value > 1) {
+        out.push({ ...base, messageId: 'p-above-one', span: p.span, message: fill(messages['p-above-one'], { reported: p.printed }), check: 'Check how the p value was copied: "043" is probably ".043".' });
+      }
+      if (p?.number && p.number.value === 0 && (p.op === '<' || p.op === '<=')) {
+        out.push({ ...base, messageId: 'p-below-zero-bound', span: p.span, message: fill(messages['p-below-zero-bound'], { reported: p.printed }), check: 'Report the bound the output supports, e.g. p < .001.' });
+      }
+      if (r.df && r.df.value <= 0) {
+        out.push({ ...base, messageId: 'df-not-positive', span: r.df.span, message: fill(messages['df-not-positive'], { df: r.df.printed }), check: 'Check the df against the sample sizes.' });
+      }
+      if (r.df && r.namedVariant === 'student' && !Number.isInteger(r.df.value)) {
+        out.push({ ...base, messageId: 'student-df-fractional', span: r.df.span, message: fill(messages['student-df-fractional'], { df: r.df.printed }), check: "Check whether Welch's or Student's test was run, and name that one." });
+      }
+    }
+    return out;
+  },
+};

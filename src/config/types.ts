@@ -1,0 +1,22 @@
+import type { LevelSetting } from '../rule-api/types.js';
+
+/** The configuration file's contents (see schema/config.schema.json). */
+export interface Config {
+  root?: boolean;
+  alpha?: number;
+  sidedness?: 'one' | 'two';
+  rules?: Record<string, LevelSetting>;
+}
+
+/** A configuration problem, with the file and place it was found at. */
+export class ConfigError extends Error {
+  constructor(
+    message: string,
+    readonly file: string,
+    readonly line?: number,
+    readonly column?: number,
+  ) {
+    super(message);
+    this.name = 'ConfigError';
+  }
+}

@@ -1,0 +1,113 @@
+import type { Config } from '../config/types.js';
+import { configProblems } from '../config/validate.js';
+import { extract } from '../extract/index.js';
+import type { ReportedNumber, Sidedness } from '../extract/types.js';
+import { link } from '../link/index.js';
+import type { DocumentSettings, Setting } from '../link/types.js';
+import { LineIndex, parseDocument } from '../parse/index.js';
+import type { ParsedDocument, Span } from '../parse/types.js';
+import { evaluateP } from '../rule-api/evaluate.js';
+import type { Level, LevelSetting } from '../rule-api/types.js';
+import { RULE_IDS, RULES } from './registry.js';
+import type { FileReport, Finding, NumberRecord, Place, ResultRecord } from './types.js';
+
+export type * from './types.js';
+export { RULES, RULE_IDS, ruleById } from './registry.js';
+
+export interface CheckOptions {
+  /** From configuration files (already merged and validated). */
+  config?: Config;
+  /** Command-line settings; they win over front matter and configuration files. */
+  alpha?: number;
+  sidedness?: Sidedness;
+  /** Read the source as this format instead of guessing from the path. */
+  format?: 'markdown' | 'rmarkdown' | 'text';
+}
+
+/**
+ * Check one document: parse → extract → link → every enabled rule → findings with
+ * positions. Never throws for anything in the document itself.
+ */
+export function checkSource(path: string, source: string, options: CheckOptions = {}): FileReport {
+  const doc = parseDocument(path, source, options.format);
+  const lines = new LineIndex(source);
+  const { settings, levels } = resolveSettings(doc, options);
+  const extraction = extract(doc);
+  const linked = link(extraction, doc.directives, settings);
+  const place = (span: Span): Place => ({ span, start: lines.position(span.start), end: lines.position(span.end) });
+
+  const findings: Finding[] = [];
+  for (const rule of RULES) {
+    const level = levels[rule.id] ?? rule.defaultLevel;
+    if (level === 'off') continue;
+    for (const f of rule.check({ document: linked, options: rule.defaultOptions })) {
+      if (f.block !== undefined && isQuieted(doc, f.block, rule.id)) continue;
+      const { block: _block, related, ...rest } = f;
+      findings.push({
+        ...rest,
+        ruleId: rule.id,
+        level: level as Level,
+        ...place(f.span),
+        ...(related ? { related: related.map((r) => ({ ...place(r.span), message: r.message })) } : {}),
+      });
+    }
+  }
+  findings.sort((a, b) => a.span.start - b.span.start || RULE_IDS.indexOf(a.ruleId) - RULE_IDS.indexOf(b.ruleId));
+
+  const num = (n: ReportedNumber): NumberRecord => ({ printed: n.printed, value: n.value, decimals: n.decimals, exponent: n.exponent, ...place(n.span) });
+  const results: ResultRecord[] = linked.results.map((r) => {
+    const e = evaluateP(r);
+    const rep = r.report;
+    return {
+      id: rep.id,
+      printed: rep.printed,
+      style: rep.style,
+      inCode: rep.inCode,
+      plural: rep.plural,
+      ...place(rep.span),
+      t: { ...num(rep.t), op: rep.tOp },
+      ...(rep.df ? { df: num(rep.df) } : {}),
+      ...(rep.p
+        ? { p: { kind: rep.p.kind, op: rep.p.op, printed: rep.p.printed, ...place(rep.p.span), ...(rep.p.number ? { number: num(rep.p.number) } : {}) } }
+        : {}),
+      sidedness: r.sidedness,
+      alpha: r.alpha,
+      ...(e ? { recomputed: { twoTailed: e.check.twoSided, oneTailed: e.check.oneSidedSame, standing: e.standing } } : {}),
+    };
+  });
+  return { path, format: doc.format, results, findings, alpha: linked.documentAlpha, sidedness: linked.documentSidedness, source };
+}
+
+function isQuieted(doc: ParsedDocument, block: number, ruleId: string): boolean {
+  return doc.directives.some((d) => d.verb === 'quiet' && d.reason !== '' && d.appliesToBlock === block && d.ruleIds.includes(ruleId));
+}
+
+/** Settings from front matter (`plumbline:` key) over configuration, under the command line. */
+function resolveSettings(doc: ParsedDocument, options: CheckOptions): { settings: DocumentSettings; levels: Record<string, LevelSetting> } {
+  const config = options.config ?? {};
+  let front: Config = {};
+  let frontMatterError: DocumentSettings['frontMatterError'];
+  const fm = doc.frontMatter;
+  if (fm?.error) frontMatterError = { message: fm.error, span: fm.span };
+  else if (fm && isRecord(fm.data) && 'plumbline' in fm.data) {
+    const problems = configProblems(fm.data.plumbline ?? {}, RULE_IDS);
+    if (problems.length > 0) frontMatterError = { message: `plumbline settings: ${problems.join('; ')}`, span: fm.span };
+    else front = (fm.data.plumbline ?? {}) as Config;
+  }
+  const pick = <T>(cli: T | undefined, fmValue: T | undefined, cfg: T | undefined): Setting<T> | undefined => {
+    if (cli !== undefined) return { value: cli, basis: 'configuration' };
+    if (fmValue !== undefined) return { value: fmValue, basis: 'front-matter', ...(fm ? { span: fm.span } : {}) };
+    if (cfg !== undefined) return { value: cfg, basis: 'configuration' };
+    return undefined;
+  };
+  const alpha = pick(options.alpha, front.alpha, config.alpha);
+  const sidedness = pick(options.sidedness, front.sidedness, config.sidedness);
+  return {
+    settings: { ...(alpha ? { alpha } : {}), ...(sidedness ? { sidedness } : {}), ...(frontMatterError ? { frontMatterError } : {}) },
+    levels: { ...config.rules, ...front.rules },
+  };
+}
+
+function isRecord(x: unknown): x is Record<string, unknown> {
+  return typeof x === 'object' && x !== null && !Array.isArray(x);
+}

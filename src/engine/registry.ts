@@ -1,0 +1,27 @@
+import { frontMatterIsReadable } from '../../rules/front-matter-is-readable.js';
+import { oneTailedPIsDeclared } from '../../rules/one-tailed-p-is-declared.js';
+import { pFollowsFromT } from '../../rules/p-follows-from-t.js';
+import { quietDirectiveHasReason } from '../../rules/quiet-directive-has-reason.js';
+import { resultIsComplete } from '../../rules/result-is-complete.js';
+import { significanceFollowsFromT } from '../../rules/significance-follows-from-t.js';
+import { valuesArePossible } from '../../rules/values-are-possible.js';
+import { zeroPIsABound } from '../../rules/zero-p-is-a-bound.js';
+import type { AnyRule } from '../rule-api/types.js';
+
+/** Every rule, in the order their findings are listed for one place. */
+export const RULES: readonly AnyRule[] = [
+  significanceFollowsFromT,
+  pFollowsFromT,
+  oneTailedPIsDeclared,
+  valuesArePossible,
+  zeroPIsABound,
+  resultIsComplete,
+  quietDirectiveHasReason,
+  frontMatterIsReadable,
+];
+
+export const RULE_IDS: readonly string[] = RULES.map((r) => r.id);
+
+export function ruleById(id: string): AnyRule | undefined {
+  return RULES.find((r) => r.id === id);
+}

@@ -1,0 +1,68 @@
+import type { Comparison, ReportStyle, Sidedness } from '../extract/types.js';
+import type { Setting } from '../link/types.js';
+import type { Position, SourceFormat, Span } from '../parse/types.js';
+import type { Gap, Level, Recomputed } from '../rule-api/types.js';
+
+/** A place in a file: offsets and 1-based line/column of both ends (end exclusive). */
+export interface Place {
+  span: Span;
+  start: Position;
+  end: Position;
+}
+
+export interface NumberRecord extends Place {
+  printed: string;
+  value: number;
+  decimals: number;
+  exponent: number;
+}
+
+/** One extracted result as the output formats show it. */
+export interface ResultRecord extends Place {
+  id: string;
+  printed: string;
+  style: ReportStyle;
+  inCode: boolean;
+  plural: boolean;
+  t: NumberRecord & { op: Comparison };
+  df?: NumberRecord;
+  p?: (Place & { kind: 'value' | 'ns'; op: Comparison; printed: string; number?: NumberRecord });
+  sidedness: Setting<Sidedness>;
+  alpha: Setting<number>;
+  /** Recomputed p ranges for this result, when t, df and p allow it. */
+  recomputed?: {
+    twoTailed: { low: number; high: number };
+    oneTailed: { low: number; high: number };
+    standing: string;
+  };
+}
+
+export interface Finding extends Place {
+  ruleId: string;
+  messageId: string;
+  level: Level;
+  message: string;
+  reported: string;
+  recomputed?: Recomputed;
+  gap?: Gap;
+  check: string;
+  related?: Array<Place & { message: string }>;
+  resultId?: string;
+}
+
+export interface FileReport {
+  path: string;
+  format: SourceFormat;
+  results: ResultRecord[];
+  findings: Finding[];
+  alpha: Setting<number>;
+  sidedness: Setting<Sidedness>;
+  /** The source text, for formatters that show the line of a finding. */
+  source: string;
+}
+
+/** A file that could not be checked at all. */
+export interface FileFailure {
+  path: string;
+  message: string;
+}

@@ -1,0 +1,38 @@
+import type { ContextStatement, PWithoutT, Sidedness, TTestReport } from '../extract/types.js';
+import type { Directive, Span } from '../parse/types.js';
+
+/** Where a setting that applies to a result came from, most specific first. */
+export type SettingBasis = 'in-report' | 'sentence' | 'equivalence-test' | 'document-text' | 'front-matter' | 'configuration' | 'default';
+
+export interface Setting<T> {
+  value: T;
+  basis: SettingBasis;
+  /** The words in the manuscript that set it, when it was set there. */
+  span?: Span;
+  printed?: string;
+}
+
+/** A reported t-test with the context that decides how to check it. */
+export interface LinkedResult {
+  report: TTestReport;
+  sidedness: Setting<Sidedness>;
+  alpha: Setting<number>;
+}
+
+export interface DocumentSettings {
+  alpha?: Setting<number>;
+  sidedness?: Setting<Sidedness>;
+  frontMatterError?: { message: string; span: Span };
+}
+
+export interface LinkedDocument {
+  results: LinkedResult[];
+  pWithoutT: PWithoutT[];
+  directives: Directive[];
+  /** Why the front matter could not be read, when it could not. */
+  frontMatterError?: { message: string; span: Span };
+  statements: ContextStatement[];
+  /** The document-wide alpha and tails that apply where a result says nothing itself. */
+  documentAlpha: Setting<number>;
+  documentSidedness: Setting<Sidedness>;
+}

@@ -1,0 +1,101 @@
+import type { LinkedResult } from '../link/types.js';
+import { checkPAgainstT, distanceBetween, sideOfAlpha, type Interval, type PConsistency, type PInterval } from '../stats/index.js';
+import { showInterval } from './format.js';
+import { describeDf, describeT, dfInterval, pInterval, pLastDigit, tInterval } from './intervals.js';
+import type { Gap, Recomputed } from './types.js';
+
+/**
+ * How a reported p stands against its t and df:
+ * - consistent: the reading that applies (two-tailed unless the text says one-tailed) fits;
+ * - one-tailed-only: nothing says one-tailed, and only a one-tailed reading fits;
+ * - one-tailed-although-two-stated / two-tailed-although-one-stated: the text names the
+ *   tails, and only the other reading fits;
+ * - mismatch: no reading fits.
+ */
+export type PStanding = 'consistent' | 'one-tailed-only' | 'one-tailed-although-two-stated' | 'two-tailed-although-one-stated' | 'mismatch';
+
+export interface PEvaluation {
+  standing: PStanding;
+  check: PConsistency;
+  reported: PInterval;
+  /** The recomputed range of the reading that applies to this result. */
+  applicable: Interval;
+  applicableName: string;
+  /** Reported and recomputed sides of alpha, and whether they disagree. */
+  reportedSide: 'below' | 'above' | 'straddles';
+  recomputedSide: 'below' | 'above' | 'straddles';
+  decisionFlips: boolean;
+  recomputed: Recomputed;
+  gap: Gap;
+}
+
+/** Assumption wording for a result's tails, saying where it came from. */
+export function describeTails(result: LinkedResult): string {
+  const where = {
+    'in-report': 'as stated beside the result',
+    sentence: 'as stated in its sentence',
+    'equivalence-test': 'an equivalence test is named beside it',
+    'document-text': 'as stated in the document',
+    'front-matter': 'set in front matter',
+    configuration: 'set in configuration',
+    default: 'by default; nothing says otherwise',
+  }[result.sidedness.basis];
+  return `${result.sidedness.value === 'one' ? 'one-tailed' : 'two-tailed'} (${where})`;
+}
+
+/** Evaluate a result's p against t and df; undefined when there is nothing to check. */
+export function evaluateP(result: LinkedResult): PEvaluation | undefined {
+  const r = result.report;
+  if (!r.p || !r.df) return undefined;
+  if (r.p.kind === 'value' && r.p.number && (r.p.number.value > 1 || (r.p.number.value <= 0 && (r.p.op === '<' || r.p.op === '<=')))) return undefined;
+  const [dfLow, dfHigh] = dfInterval(r.df);
+  if (!(dfLow > 0)) return undefined;
+  const [tLow, tHigh] = tInterval(r);
+  const alpha = result.alpha.value;
+  const reported = pInterval(r.p, alpha);
+  const check = checkPAgainstT({ tLow, tHigh, dfLow, dfHigh, reported });
+  const oneFits = check.fitsOneSidedSame || check.fitsOneSidedOpposite;
+  const explicit = result.sidedness.basis !== 'default';
+  let standing: PStanding;
+  if (result.sidedness.value === 'two') {
+    if (check.fitsTwoSided) standing = 'consistent';
+    else if (oneFits) standing = explicit ? 'one-tailed-although-two-stated' : 'one-tailed-only';
+    else standing = 'mismatch';
+  } else if (oneFits) standing = 'consistent';
+  else standing = check.fitsTwoSided ? 'two-tailed-although-one-stated' : 'mismatch';
+
+  const useOne = result.sidedness.value === 'one';
+  // For one-tailed tests the same-direction tail is the usual reading; the opposite tail
+  // (equivalence tests) is taken when it is the nearer one.
+  const applicable = useOne ? nearer(check.oneSidedSame, check.oneSidedOpposite, reported) : check.twoSided;
+  const applicableName = useOne ? 'one-tailed p' : 'two-tailed p';
+  const reportedSide = sideOfAlpha(reported.low, reported.high, alpha, reported.highOpen);
+  const recomputedSide = sideOfAlpha(applicable.low, applicable.high, alpha);
+  const decisionFlips = reportedSide !== 'straddles' && recomputedSide !== 'straddles' && reportedSide !== recomputedSide;
+  const inputs = [describeT(r), describeDf(r.df)];
+  const recomputed: Recomputed = {
+    quantity: applicableName,
+    low: applicable.low,
+    high: applicable.high,
+    inputs,
+    assumptions: [describeTails(result), `alpha ${alpha} (${result.alpha.basis === 'default' ? 'default' : result.alpha.basis.replace('-', ' ')})`],
+  };
+  const absolute = distanceBetween(applicable, reported.low, reported.high);
+  const unit = r.p.op === '=' ? pLastDigit(r.p) : undefined;
+  const pointDistance = r.p.number ? distanceBetween(applicable, r.p.number.value, r.p.number.value) : absolute;
+  const gap: Gap = unit
+    ? { absolute: pointDistance, lastDigitUnits: pointDistance / unit, roundingAllowance: unit / 2 }
+    : { absolute };
+  return { standing, check, reported, applicable, applicableName, reportedSide, recomputedSide, decisionFlips, recomputed, gap };
+}
+
+function nearer(a: Interval, b: Interval, reported: PInterval): Interval {
+  const da = distanceBetween(a, reported.low, reported.high);
+  const db = distanceBetween(b, reported.low, reported.high);
+  return db < da ? b : a;
+}
+
+/** "0.3207 to 0.3256" */
+export function showRange(i: Interval): string {
+  return showInterval(i.low, i.high);
+}

@@ -1,0 +1,28 @@
+/**
+ * Presentation of numbers in messages. p values are shown to 2 significant digits below
+ * 0.001 (as 4.1e-8) and to 4 decimals otherwise, so a reader can compare them with what
+ * was printed without drowning in digits.
+ */
+export function showNumber(x: number): string {
+  if (!Number.isFinite(x)) return String(x);
+  if (x === 0) return '0';
+  const ax = Math.abs(x);
+  if (ax < 1e-3 || ax >= 1e6) return x.toExponential(2).replace('e', 'e');
+  if (ax < 1) return trimZeros(x.toFixed(4));
+  return trimZeros(x.toFixed(3));
+}
+
+export function showInterval(low: number, high: number): string {
+  const a = showNumber(low);
+  const b = showNumber(high);
+  return a === b ? a : `${a} to ${b}`;
+}
+
+function trimZeros(s: string): string {
+  return s.includes('.') ? s.replace(/0+$/, '').replace(/\.$/, '') : s;
+}
+
+/** Fill `{name}` placeholders; a missing value is left visible as `{name}` so tests catch it. */
+export function fill(template: string, values: Record<string, string | number>): string {
+  return template.replace(/\{([a-zA-Z]{1,40})\}/g, (whole, name: string) => (name in values ? String(values[name]) : whole));
+}

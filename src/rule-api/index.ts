@@ -1,0 +1,5 @@
+export type * from './types.js';
+export { fill, showInterval, showNumber } from './format.js';
+export { describeDf, describeT, dfInterval, numberInterval, pInterval, pLastDigit, tInterval } from './intervals.js';
+export { describeTails, evaluateP, showRange, type PEvaluation, type PStanding } from './evaluate.js';
+export { pMessageId, pPlaceholders } from './pMessages.js';

@@ -1,0 +1,74 @@
+import type { ReportedNumber, ReportedP, TTestReport } from '../extract/types.js';
+import { lastDigitUnit, roundingInterval, type PInterval } from '../stats/index.js';
+import { showNumber } from './format.js';
+
+/** The interval of true values a printed number allows (its rounding interval). */
+export function numberInterval(n: ReportedNumber): [number, number] {
+  const [lo, hi] = roundingInterval(n.exponent === 0 ? n.value : n.value / 10 ** n.exponent, n.decimals);
+  const scale = 10 ** n.exponent;
+  return [lo * scale, hi * scale];
+}
+
+/** t's interval: rounding for `t = 2.10`, a half-line for bounds (`t > 4.72`, `t < 1`). */
+export function tInterval(report: TTestReport): [number, number] {
+  const [lo, hi] = numberInterval(report.t);
+  const v = report.t.value;
+  switch (report.tOp) {
+    case '<':
+    case '<=':
+      return [0, Math.abs(v)];
+    case '>':
+    case '>=':
+      return v >= 0 ? [Math.abs(v), Infinity] : [-Infinity, v];
+    default:
+      return [lo, hi];
+  }
+}
+
+/** A whole-number df is a count and exact; a fractional (Welch) df was rounded like t. */
+export function dfInterval(df: ReportedNumber): [number, number] {
+  if (df.decimals === 0 && df.exponent === 0) return [df.value, df.value];
+  return numberInterval(df);
+}
+
+/**
+ * The reported p as an interval: `= .045` → [.0445, .0455]; `< .05` → [0, .05);
+ * `≤ .01` → [0, .01]; `> .25` → (.25, 1]; `n.s.` → [alpha, 1]; `≈ x` as `= x`.
+ * Clipped to [0, 1].
+ */
+export function pInterval(p: ReportedP, alpha: number): PInterval {
+  if (p.kind === 'ns' || !p.number) return { low: alpha, high: 1, lowOpen: false, highOpen: false };
+  const v = p.number.value;
+  switch (p.op) {
+    case '<':
+      return { low: 0, high: v, lowOpen: false, highOpen: true };
+    case '<=':
+      return { low: 0, high: v, lowOpen: false, highOpen: false };
+    case '>':
+      return { low: v, high: 1, lowOpen: true, highOpen: false };
+    case '>=':
+      return { low: v, high: 1, lowOpen: false, highOpen: false };
+    default: {
+      const [lo, hi] = numberInterval(p.number);
+      return { low: Math.max(0, lo), high: Math.min(1, hi), lowOpen: false, highOpen: false };
+    }
+  }
+}
+
+/** "t = 2.10 (2.095 to 2.105)" — the printed input and the interval used. */
+export function describeT(report: TTestReport): string {
+  const [lo, hi] = tInterval(report);
+  if (report.tOp !== '=') return `t ${report.tOp} ${report.t.printed.trim()}`;
+  return `t = ${report.t.printed.trim()} (read as ${showNumber(lo)} to ${showNumber(hi)})`;
+}
+
+export function describeDf(df: ReportedNumber): string {
+  const [lo, hi] = dfInterval(df);
+  return lo === hi ? `df = ${df.printed}` : `df = ${df.printed} (read as ${showNumber(lo)} to ${showNumber(hi)})`;
+}
+
+/** The unit of the last printed digit of a reported p, when it is an `=` value. */
+export function pLastDigit(p: ReportedP): number | undefined {
+  if (p.kind !== 'value' || !p.number) return undefined;
+  return lastDigitUnit(p.number.decimals) * 10 ** p.number.exponent;
+}

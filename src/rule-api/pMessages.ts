@@ -1,0 +1,38 @@
+import type { LinkedResult } from '../link/types.js';
+import type { PEvaluation } from './evaluate.js';
+import { showRange } from './evaluate.js';
+import { showNumber } from './format.js';
+
+/** Placeholder values shared by the rules that compare p with t and df. */
+export function pPlaceholders(result: LinkedResult, e: PEvaluation): Record<string, string> {
+  const r = result.report;
+  const gap = e.gap.lastDigitUnits !== undefined
+    ? `${showNumber(e.gap.absolute)} (${showNumber(e.gap.lastDigitUnits)} units of the last printed digit; rounding allows 0.5)`
+    : showNumber(e.gap.absolute);
+  return {
+    reported: (r.p?.printed ?? '').trim(),
+    inputs: e.recomputed.inputs.join(', '),
+    quantity: e.applicableName,
+    range: showRange(e.applicable),
+    twoTailed: showRange(e.check.twoSided),
+    oneTailed: showRange(e.check.oneSidedSame),
+    oneTailedOpposite: showRange(e.check.oneSidedOpposite),
+    tails: e.recomputed.assumptions[0] ?? '',
+    alpha: String(result.alpha.value),
+    gap,
+    reportedSide: e.reportedSide === 'below' ? 'significant' : 'not significant',
+    recomputedSide: e.recomputedSide === 'below' ? 'significant' : 'not significant',
+  };
+}
+
+/** The message id for each standing a p-versus-t rule reports. */
+export function pMessageId(e: PEvaluation): 'mismatch' | 'one-tailed-although-two-stated' | 'two-tailed-although-one-stated' | undefined {
+  switch (e.standing) {
+    case 'mismatch':
+    case 'one-tailed-although-two-stated':
+    case 'two-tailed-although-one-stated':
+      return e.standing;
+    default:
+      return undefined;
+  }
+}

@@ -1,0 +1,77 @@
+import type { LinkedDocument, LinkedResult } from '../link/types.js';
+import type { Span } from '../parse/types.js';
+
+export type Level = 'error' | 'warning' | 'note';
+export type LevelSetting = Level | 'off';
+
+/** inconsistency: the numbers cannot all be true · doubtful: wrong unless an unstated assumption holds · advice */
+export type RuleKind = 'inconsistency' | 'doubtful' | 'advice';
+
+/** A value or interval plumbline recomputed, with how. */
+export interface Recomputed {
+  /** What was recomputed, e.g. "two-tailed p". */
+  quantity: string;
+  low: number;
+  high: number;
+  /** The printed inputs it was computed from, e.g. ["t = 2.10 → [2.095, 2.105]", "df = 28"]. */
+  inputs: string[];
+  /** Assumptions made, e.g. ["two-tailed (default)"]. */
+  assumptions: string[];
+}
+
+export interface Gap {
+  /** Distance between what was reported and the nearest recomputed value. */
+  absolute: number;
+  /** The same in units of the reported value's last printed digit, when it has one. */
+  lastDigitUnits?: number;
+  /** Half a unit of the last digit: what rounding alone can explain. */
+  roundingAllowance?: number;
+}
+
+/** What a rule reports: data first; the engine adds file, level and positions. */
+export interface RuleFinding {
+  messageId: string;
+  span: Span;
+  message: string;
+  /** The manuscript's text as printed. */
+  reported: string;
+  recomputed?: Recomputed;
+  gap?: Gap;
+  /** One concrete thing to check. */
+  check: string;
+  related?: Array<{ span: Span; message: string }>;
+  resultId?: string;
+  /** The block the finding sits in, for `plumbline quiet` directives. */
+  block?: number;
+}
+
+export interface RuleContext<Options> {
+  document: LinkedDocument;
+  options: Options;
+}
+
+/** A JSON Schema (draft 2020-12 subset) for a rule's options; must reject unknown keys. */
+export interface OptionsSchema {
+  type: 'object';
+  properties: Record<string, unknown>;
+  additionalProperties: false;
+}
+
+export interface Rule<Options extends object = Record<string, never>> {
+  id: string;
+  summary: string;
+  kind: RuleKind;
+  defaultLevel: LevelSetting;
+  defaultOptions: Options;
+  optionsSchema: OptionsSchema;
+  /** Message templates keyed by id; `{name}` placeholders. */
+  messages: Record<string, string>;
+  /** Pure: reads linked results, calls stats, returns findings. */
+  check(context: RuleContext<Options>): RuleFinding[];
+}
+
+/** Any rule, whatever its options: what the registry holds. */
+// eslint-style escape hatch kept internal: the registry treats options as opaque data.
+export type AnyRule = Rule<object>;
+
+export type { LinkedResult };

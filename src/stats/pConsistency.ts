@@ -1,0 +1,73 @@
+import { twoSidedPRange, type Interval } from './pRange.js';
+
+/** A reported p as an interval of true values, with open or closed ends. */
+export interface PInterval {
+  low: number;
+  high: number;
+  lowOpen: boolean;
+  highOpen: boolean;
+}
+
+export interface PConsistencyInput {
+  /** Interval of t values the printed t allows (by rounding, or by a bound such as t > 4.72). */
+  tLow: number;
+  tHigh: number;
+  dfLow: number;
+  dfHigh: number;
+  reported: PInterval;
+}
+
+export interface PConsistency {
+  /** Two-tailed p over the t/df box. */
+  twoSided: Interval;
+  /** One-tailed p in the direction of t (half the two-tailed p). */
+  oneSidedSame: Interval;
+  /** One-tailed p against the direction of t (1 − half), as equivalence tests report. */
+  oneSidedOpposite: Interval;
+  fitsTwoSided: boolean;
+  fitsOneSidedSame: boolean;
+  fitsOneSidedOpposite: boolean;
+}
+
+/**
+ * Which readings of the reported p (two-tailed; one-tailed either way) some combination of
+ * t and df within their intervals reproduces. Pure: the caller decides what counts.
+ */
+export function checkPAgainstT(input: PConsistencyInput): PConsistency {
+  const twoSided = twoSidedPRange(input.tLow, input.tHigh, input.dfLow, input.dfHigh);
+  const oneSidedSame = { low: twoSided.low / 2, high: twoSided.high / 2 };
+  const oneSidedOpposite = { low: 1 - twoSided.high / 2, high: 1 - twoSided.low / 2 };
+  return {
+    twoSided,
+    oneSidedSame,
+    oneSidedOpposite,
+    fitsTwoSided: meets(twoSided, input.reported),
+    fitsOneSidedSame: meets(oneSidedSame, input.reported),
+    fitsOneSidedOpposite: meets(oneSidedOpposite, input.reported),
+  };
+}
+
+/** Whether a closed interval meets a reported interval, honouring its open ends. */
+export function meets(range: Interval, reported: PInterval): boolean {
+  const belowHigh = range.low < reported.high || (range.low === reported.high && !reported.highOpen);
+  const aboveLow = range.high > reported.low || (range.high === reported.low && !reported.lowOpen);
+  return belowHigh && aboveLow;
+}
+
+/**
+ * The side of alpha an interval of p values lies on: 'below' when every value is < alpha,
+ * 'above' when every value is ≥ alpha, 'straddles' otherwise. (p = alpha counts as not
+ * significant: common practice, no source.)
+ */
+export function sideOfAlpha(low: number, high: number, alpha: number, highOpen = false): 'below' | 'above' | 'straddles' {
+  if (high < alpha || (high === alpha && highOpen)) return 'below';
+  if (low >= alpha) return 'above';
+  return 'straddles';
+}
+
+/** Distance between a closed interval and a point or interval (0 when they meet). */
+export function distanceBetween(range: Interval, low: number, high: number): number {
+  if (range.high < low) return low - range.high;
+  if (range.low > high) return range.low - high;
+  return 0;
+}
