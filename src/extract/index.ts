@@ -1,6 +1,9 @@
 import type { ParsedDocument } from '../parse/types.js';
 import { sentenceStarts } from './numbers.js';
-import { findStatements, NAMES_T_TEST } from './statements.js';
+import { findStatements } from './statements.js';
+
+/** Cheap pre-check (no global state) before the sentence-level search for t-less p values. */
+const MAY_NAME_T_TEST = /t[- ]tests?|(?:Student|Welch)/i;
 import { findTableTests } from './tables.js';
 import { findPWithoutT } from './pWithoutT.js';
 import { findTTests } from './tTests.js';
@@ -18,8 +21,7 @@ export function extract(doc: ParsedDocument): Extraction {
     out.tests.push(...tests);
     if (seg.kind !== 'code') {
       out.statements.push(...findStatements(seg, starts));
-      NAMES_T_TEST.lastIndex = 0;
-      if (NAMES_T_TEST.test(seg.text)) out.pWithoutT.push(...findPWithoutT(seg, starts, tests));
+      if (MAY_NAME_T_TEST.test(seg.text)) out.pWithoutT.push(...findPWithoutT(seg, starts, tests));
     }
   }
   const seen = new Set(out.tests.map((t) => t.span.start));

@@ -42,4 +42,4 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
 }
 
 /** Sentences that name a t-test: used to spot a p given without its t. */
-export const NAMES_T_TEST = /(?<![\p{L}])t[- ]tests?(?![\p{L}])|(?<![\p{L}])(?:Student|Welch)(?:'s|’s)? t(?![\p{L}])/giu;
+export const NAMES_T_TEST = /(?<![\p{L}])(?:(?:paired|unpaired|independent|one-sample|two-sample|Welch(?:'s|’s)?|Student(?:'s|’s)?)[- ](?:samples? )?)?t[- ]tests?(?![\p{L}])|(?<![\p{L}])(?:Student|Welch)(?:'s|’s)? t(?![\p{L}])/giu;

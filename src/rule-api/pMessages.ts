@@ -7,10 +7,10 @@ import { showNumber } from './format.js';
 export function pPlaceholders(result: LinkedResult, e: PEvaluation): Record<string, string> {
   const r = result.report;
   const gap = e.gap.lastDigitUnits !== undefined
-    ? `${showNumber(e.gap.absolute)} (${showNumber(e.gap.lastDigitUnits)} units of the last printed digit; rounding allows 0.5)`
+    ? `${showNumber(e.gap.absolute)} (${e.gap.lastDigitUnits.toFixed(1)} units of the last printed digit; rounding allows 0.5)`
     : showNumber(e.gap.absolute);
   return {
-    reported: (r.p?.printed ?? '').trim(),
+    reported: r.style === 'table-columns' && r.p?.number ? `p ${r.p.op} ${r.p.number.printed}` : (r.p?.printed ?? '').trim(),
     inputs: e.recomputed.inputs.join(', '),
     quantity: e.applicableName,
     range: showRange(e.applicable),

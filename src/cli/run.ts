@@ -1,0 +1,176 @@
+import { readFileSync } from 'node:fs';
+import type { Readable } from 'node:stream';
+import yargs from 'yargs';
+import { ConfigError, ConfigFinder, readConfigFile, type Config } from '../config/index.js';
+import { ruleDoc, toolVersion } from '../engine/docs.js';
+import { checkSource, RULE_IDS, RULES, ruleById, type FileFailure, type FileReport } from '../engine/index.js';
+import { countRun, formatHuman, formatJson, formatSarif, type RuleInfo, type RunReport } from '../report/index.js';
+import { describeError, expandArguments } from './files.js';
+
+export interface Io {
+  stdout: (s: string) => void;
+  stderr: (s: string) => void;
+  stdin: Readable;
+  cwd: string;
+  env: NodeJS.ProcessEnv;
+  isTTY: boolean;
+  columns?: number | undefined;
+}
+
+const FORMATS = ['human', 'json', 'sarif'] as const;
+type Format = (typeof FORMATS)[number];
+
+/** Exit codes: 0 clean, 1 findings over the limits, 2 usage, configuration or read errors. */
+export const EXIT = { clean: 0, findings: 1, trouble: 2 } as const;
+
+/** The command line, as a function of its arguments and I/O so tests can call it in-process. */
+export async function run(argv: string[], io: Io): Promise<number> {
+  let usageError: string | undefined;
+  const parser = yargs(argv)
+    .scriptName('plumbline')
+    .usage('$0 [files…]\n\nChecks the t-tests a manuscript reports: recomputes p from t and df (rounding-aware) and reports each inconsistency at its line.')
+    .command('$0 [files..]', 'check manuscripts (Markdown, R Markdown, Quarto, plain text; folders and globs)', (y) =>
+      y.positional('files', { type: 'string', array: true, describe: 'files, folders or globs; "-" reads standard input' }),
+    )
+    .command('explain <rule>', "print a rule's page", (y) => y.positional('rule', { type: 'string', demandOption: true }))
+    .command('rules', 'list the rules with their default levels')
+    .option('format', { alias: 'f', choices: FORMATS, default: 'human' as Format, describe: 'output format' })
+    .option('alpha', { type: 'number', describe: 'significance level where the text states none (default .05)' })
+    .option('tails', { choices: ['one', 'two'] as const, describe: 'tails assumed where the text says nothing (default two)' })
+    .option('max-warnings', { type: 'number', describe: 'exit 1 when more warnings than this (default: no limit)' })
+    .option('config', { alias: 'c', type: 'string', describe: 'use this configuration file instead of searching for one' })
+    .option('stdin-name', { type: 'string', default: 'stdin.md', describe: 'file name (and so format) for "-"' })
+    .option('color', { type: 'boolean', describe: 'colour the human format (default: on a terminal, unless NO_COLOR is set)' })
+    .strict()
+    .help()
+    .version(toolVersion())
+    .wrap(Math.min(100, io.columns ?? 100))
+    .exitProcess(false)
+    .fail((msg, err) => {
+      usageError = msg || err?.message || 'invalid arguments';
+    });
+
+  let parsed;
+  let helpText = '';
+  try {
+    parsed = await parser.parseAsync(argv, {}, (_err, _argv, output) => {
+      helpText = output;
+    });
+  } catch (e) {
+    usageError ??= e instanceof Error ? e.message : String(e);
+  }
+  if (usageError) {
+    io.stderr(`plumbline: ${usageError}\nRun "plumbline --help" for usage.\n`);
+    return EXIT.trouble;
+  }
+  if (helpText) {
+    io.stdout(`${helpText}\n`);
+    return EXIT.clean;
+  }
+  if (!parsed) return EXIT.trouble;
+  const command = String(parsed._[0] ?? '');
+
+  if (command === 'rules') {
+    for (const r of RULES) io.stdout(`${r.id.padEnd(30)} ${String(r.defaultLevel).padEnd(8)} ${r.summary}\n`);
+    return EXIT.clean;
+  }
+  if (command === 'explain') {
+    const id = String(parsed.rule);
+    if (!ruleById(id)) {
+      io.stderr(`plumbline: no rule "${id}". Rules: ${RULE_IDS.join(', ')}\n`);
+      return EXIT.trouble;
+    }
+    io.stdout(ruleDoc(id));
+    return EXIT.clean;
+  }
+
+  const alpha = parsed.alpha;
+  if (alpha !== undefined && !(alpha > 0 && alpha < 1)) {
+    io.stderr('plumbline: --alpha must be a number between 0 and 1 (exclusive)\n');
+    return EXIT.trouble;
+  }
+  const files = (parsed.files as string[] | undefined) ?? [];
+  if (files.length === 0) {
+    io.stderr('plumbline: name at least one file, folder or glob ("-" for standard input). Run "plumbline --help" for usage.\n');
+    return EXIT.trouble;
+  }
+
+  let explicitConfig: Config | undefined;
+  if (parsed.config) {
+    try {
+      explicitConfig = readConfigFile(parsed.config, RULE_IDS);
+    } catch (e) {
+      io.stderr(`${configMessage(e)}\n`);
+      return EXIT.trouble;
+    }
+  }
+  const finder = new ConfigFinder(RULE_IDS);
+  const reports: FileReport[] = [];
+  const failures: FileFailure[] = [];
+  const options = { ...(alpha !== undefined ? { alpha } : {}), ...(parsed.tails ? { sidedness: parsed.tails } : {}) };
+
+  const checkOne = (path: string, source: string, configPath: string) => {
+    let config: Config;
+    try {
+      config = explicitConfig ?? finder.forFile(configPath).config;
+    } catch (e) {
+      failures.push({ path, message: configMessage(e) });
+      return;
+    }
+    reports.push(checkSource(path, source, { ...options, config }));
+  };
+
+  const named = files.filter((f) => f !== '-');
+  if (files.includes('-')) {
+    const name = String(parsed['stdin-name']);
+    checkOne(name, await readAll(io.stdin), `${io.cwd}/${name}`);
+  }
+  const expansion = expandArguments(named);
+  for (const m of expansion.missing) failures.push({ path: m.path, message: m.message });
+  for (const path of expansion.files) {
+    let source: string;
+    try {
+      source = readFileSync(path, 'utf8');
+    } catch (e) {
+      failures.push({ path, message: `cannot read: ${describeError(e)}` });
+      continue;
+    }
+    checkOne(path, source, path);
+  }
+
+  const runReport: RunReport = {
+    tool: { name: 'plumbline', version: toolVersion() },
+    files: reports,
+    failures,
+    rules: RULES.map((r): RuleInfo => ({ id: r.id, summary: r.summary, kind: r.kind, defaultLevel: r.defaultLevel, doc: ruleDoc(r.id) })),
+  };
+  const format = parsed.format as Format;
+  if (format === 'json') io.stdout(formatJson(runReport));
+  else if (format === 'sarif') io.stdout(formatSarif(runReport, io.cwd));
+  else {
+    const color = parsed.color ?? (io.isTTY && !('NO_COLOR' in io.env && io.env.NO_COLOR !== ''));
+    io.stdout(formatHuman(runReport, { color, width: io.columns ?? 100 }));
+  }
+  if (format !== 'human') for (const f of failures) io.stderr(`plumbline: ${f.path}: ${f.message}\n`);
+
+  const counts = countRun(runReport);
+  const maxWarnings = parsed['max-warnings'];
+  if (failures.length > 0) return EXIT.trouble;
+  if (counts.error > 0 || (maxWarnings !== undefined && counts.warning > maxWarnings)) return EXIT.findings;
+  return EXIT.clean;
+}
+
+function configMessage(e: unknown): string {
+  if (e instanceof ConfigError) {
+    const at = e.line !== undefined ? `:${e.line}${e.column !== undefined ? `:${e.column}` : ''}` : '';
+    return `plumbline: configuration ${e.file}${at}: ${e.message}`;
+  }
+  return `plumbline: ${e instanceof Error ? e.message : String(e)}`;
+}
+
+async function readAll(stream: Readable): Promise<string> {
+  const chunks: Buffer[] = [];
+  for await (const chunk of stream) chunks.push(typeof chunk === 'string' ? Buffer.from(chunk) : (chunk as Buffer));
+  return Buffer.concat(chunks).toString('utf8');
+}
+

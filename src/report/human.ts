@@ -1,0 +1,90 @@
+import type { FileReport, Finding } from '../engine/types.js';
+import { CAUTIONS, countRun, type RunReport } from './types.js';
+import { terminalSafe } from './text.js';
+
+export interface HumanOptions {
+  color: boolean;
+  /** Terminal width for wrapping; 100 when unknown. */
+  width?: number;
+}
+
+const STYLE = {
+  error: ['\u001b[31m', '\u001b[39m'],
+  warning: ['\u001b[33m', '\u001b[39m'],
+  note: ['\u001b[36m', '\u001b[39m'],
+  dim: ['\u001b[2m', '\u001b[22m'],
+  bold: ['\u001b[1m', '\u001b[22m'],
+} as const;
+
+/**
+ * The default report: per file, each finding with its place, the source line with the
+ * statistic underlined, the message and what to check; then one summary line and the
+ * cautions. Colour only when asked for (the CLI asks on a TTY without NO_COLOR).
+ */
+export function formatHuman(run: RunReport, options: HumanOptions): string {
+  const paint = (style: keyof typeof STYLE, s: string) => (options.color ? `${STYLE[style][0]}${s}${STYLE[style][1]}` : s);
+  const width = Math.max(60, Math.min(options.width ?? 100, 160));
+  const out: string[] = [];
+  for (const file of run.files) {
+    if (file.findings.length === 0) continue;
+    out.push(paint('bold', terminalSafe(file.path)));
+    for (const f of file.findings) out.push(...findingBlock(file, f, paint, width), '');
+  }
+  for (const failure of run.failures) out.push(`${paint('error', 'cannot check')} ${terminalSafe(failure.path)}: ${terminalSafe(failure.message)}`);
+  const c = countRun(run);
+  const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
+  const summary = [
+    plural(c.files, 'file'),
+    `${plural(c.results, 'result')} found (${c.checked} with p recomputed)`,
+    paint(c.error ? 'error' : 'dim', plural(c.error, 'error')),
+    paint(c.warning ? 'warning' : 'dim', plural(c.warning, 'warning')),
+    paint(c.note ? 'note' : 'dim', plural(c.note, 'note')),
+  ];
+  if (c.failures) summary.push(paint('error', `${plural(c.failures, 'file')} not checked`));
+  out.push(summary.join(', '));
+  out.push(paint('dim', wrap(CAUTIONS.join(' '), width).join('\n')));
+  return `${out.join('\n')}\n`;
+}
+
+function findingBlock(file: FileReport, f: Finding, paint: (s: keyof typeof STYLE, t: string) => string, width: number): string[] {
+  const where = `${f.start.line}:${f.start.column}`;
+  const lines = [`  ${paint('dim', where.padEnd(8))} ${paint(f.level, f.level.padEnd(7))} ${paint('dim', f.ruleId)}`];
+  lines.push(...excerpt(file.source, f, paint));
+  for (const l of wrap(terminalSafe(f.message), width - 4)) lines.push(`    ${l}`);
+  for (const l of wrap(`check: ${terminalSafe(f.check)}`, width - 4)) lines.push(`    ${paint('dim', l)}`);
+  for (const r of f.related ?? []) lines.push(`    ${paint('dim', `see ${r.start.line}:${r.start.column}: ${terminalSafe(r.message)}`)}`);
+  return lines;
+}
+
+/** The finding's first source line, clipped around the span, with the span underlined. */
+function excerpt(source: string, f: Finding, paint: (s: keyof typeof STYLE, t: string) => string): string[] {
+  const lineStart = f.span.start - (f.start.column - 1);
+  let lineEnd = source.slice(lineStart).search(/\r\n|\r|\n/);
+  lineEnd = lineEnd < 0 ? source.length : lineStart + lineEnd;
+  const line = source.slice(lineStart, lineEnd).replace(/\t/g, ' ');
+  const from = f.start.column - 1;
+  const to = Math.min(line.length, f.start.line === f.end.line ? f.end.column - 1 : line.length);
+  const windowStart = Math.max(0, from - 40);
+  const windowEnd = Math.min(line.length, Math.max(to + 20, windowStart + 90));
+  const shown = (windowStart > 0 ? '…' : '') + line.slice(windowStart, windowEnd) + (windowEnd < line.length ? '…' : '');
+  const pad = from - windowStart + (windowStart > 0 ? 1 : 0);
+  const gutter = String(f.start.line);
+  return [
+    `    ${paint('dim', `${gutter} |`)} ${terminalSafe(shown)}`,
+    `    ${' '.repeat(gutter.length)} ${paint('dim', '|')} ${' '.repeat(pad)}${paint(f.level, '^'.repeat(Math.max(1, to - from)))}`,
+  ];
+}
+
+function wrap(text: string, width: number): string[] {
+  const words = text.split(/\s+/);
+  const lines: string[] = [];
+  let current = '';
+  for (const w of words) {
+    if (current && current.length + 1 + w.length > width) {
+      lines.push(current);
+      current = w;
+    } else current = current ? `${current} ${w}` : w;
+  }
+  if (current) lines.push(current);
+  return lines;
+}

@@ -1,0 +1,102 @@
+import { relative, sep } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import type { Log, ReportingDescriptor, Result } from 'sarif';
+import type { Finding } from '../engine/types.js';
+import { CAUTIONS, type RunReport } from './types.js';
+
+/**
+ * SARIF 2.1.0: one run; `tool.driver.rules` carry each rule's summary and its page as help;
+ * results carry ruleId, level, message and a region (1-based columns in UTF-16 code units,
+ * end column exclusive, as SARIF defines), plus the finding's data under `properties`.
+ */
+export function formatSarif(run: RunReport, cwd: string): string {
+  const rules: ReportingDescriptor[] = run.rules.map((r) => ({
+    id: r.id,
+    shortDescription: { text: r.summary },
+    fullDescription: { text: firstParagraph(r.doc, 'What it checks') ?? r.summary },
+    help: { text: r.doc, markdown: r.doc },
+    defaultConfiguration: { level: r.defaultLevel === 'off' ? 'none' : r.defaultLevel, enabled: r.defaultLevel !== 'off' },
+    properties: { kind: r.kind },
+  }));
+  const index = new Map(run.rules.map((r, i) => [r.id, i]));
+  const results: Result[] = [];
+  for (const file of run.files) {
+    const uri = artifactUri(file.path, cwd);
+    for (const f of file.findings) results.push(result(f, uri, index.get(f.ruleId)));
+  }
+  const log: Log = {
+    $schema: 'https://json.schemastore.org/sarif-2.1.0.json',
+    version: '2.1.0',
+    runs: [
+      {
+        tool: { driver: { name: run.tool.name, version: run.tool.version, semanticVersion: run.tool.version, rules } },
+        columnKind: 'utf16CodeUnits',
+        results,
+        invocations: [
+          {
+            executionSuccessful: run.failures.length === 0,
+            toolExecutionNotifications: run.failures.map((f) => ({
+              level: 'error' as const,
+              message: { text: f.message },
+              locations: [{ physicalLocation: { artifactLocation: { uri: artifactUri(f.path, cwd) } } }],
+            })),
+          },
+        ],
+        properties: { cautions: [...CAUTIONS] },
+      },
+    ],
+  };
+  return `${JSON.stringify(log, (_k, v: unknown) => (typeof v === 'number' && !Number.isFinite(v) ? null : v), 2)}\n`;
+}
+
+function result(f: Finding, uri: string, ruleIndex: number | undefined): Result {
+  return {
+    ruleId: f.ruleId,
+    ...(ruleIndex !== undefined ? { ruleIndex } : {}),
+    level: f.level,
+    message: { text: `${f.message} ${f.check}` },
+    locations: [{ physicalLocation: { artifactLocation: { uri }, region: region(f) } }],
+    ...(f.related?.length
+      ? {
+          relatedLocations: f.related.map((r, id) => ({
+            id,
+            message: { text: r.message },
+            physicalLocation: { artifactLocation: { uri }, region: region(r) },
+          })),
+        }
+      : {}),
+    properties: {
+      messageId: f.messageId,
+      reported: f.reported,
+      ...(f.recomputed ? { recomputed: f.recomputed } : {}),
+      ...(f.gap ? { gap: f.gap } : {}),
+      check: f.check,
+    },
+  };
+}
+
+function region(p: { start: { line: number; column: number }; end: { line: number; column: number }; span: { start: number; end: number } }) {
+  return {
+    startLine: p.start.line,
+    startColumn: p.start.column,
+    endLine: p.end.line,
+    endColumn: p.end.column,
+    charOffset: p.span.start,
+    charLength: p.span.end - p.span.start,
+  };
+}
+
+/** A path relative to the working folder as a relative URI; anything else as a file: URI. */
+export function artifactUri(path: string, cwd: string): string {
+  if (path === '-' || path.startsWith('<')) return encodeURI(path);
+  const rel = relative(cwd, path);
+  if (rel === '' || rel.startsWith('..') || /^[A-Za-z]:/.test(rel) || rel.startsWith(sep)) return pathToFileURL(path).href;
+  return rel.split(sep).map(encodeURIComponent).join('/');
+}
+
+function firstParagraph(markdown: string, heading: string): string | undefined {
+  const at = markdown.indexOf(`## ${heading}`);
+  if (at < 0) return undefined;
+  const rest = markdown.slice(at).split('\n').slice(1).join('\n').trim();
+  return rest.split(/\n\s*\n/)[0]?.replace(/\s+/g, ' ').trim();
+}

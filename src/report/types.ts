@@ -1,0 +1,46 @@
+import type { FileFailure, FileReport } from '../engine/types.js';
+import type { LevelSetting, RuleKind } from '../rule-api/types.js';
+
+/** What a formatter knows of a rule: its metadata and its documentation page. */
+export interface RuleInfo {
+  id: string;
+  summary: string;
+  kind: RuleKind;
+  defaultLevel: LevelSetting;
+  /** The rule's page (rules/<id>.md) as Markdown. */
+  doc: string;
+}
+
+export interface RunReport {
+  tool: { name: string; version: string };
+  files: FileReport[];
+  failures: FileFailure[];
+  rules: RuleInfo[];
+}
+
+export interface Counts {
+  files: number;
+  results: number;
+  checked: number;
+  error: number;
+  warning: number;
+  note: number;
+  failures: number;
+}
+
+/** Said in every report (README "Cautions"). */
+export const CAUTIONS: readonly string[] = [
+  'An inconsistency is a question to ask the authors, not proof of error or misconduct: the printed numbers may come from an analysis plumbline cannot see (adjusted p values, mixed models, permutation tests).',
+  'A clean run does not validate a study: plumbline checks only that the reported numbers agree with each other, not the design, the data or the choice of analysis.',
+  "Follow the journal's policy and ask for qualified statistical review before acting on a finding.",
+];
+
+export function countRun(run: RunReport): Counts {
+  const c: Counts = { files: run.files.length, results: 0, checked: 0, error: 0, warning: 0, note: 0, failures: run.failures.length };
+  for (const f of run.files) {
+    c.results += f.results.length;
+    c.checked += f.results.filter((r) => r.recomputed !== undefined).length;
+    for (const x of f.findings) c[x.level] += 1;
+  }
+  return c;
+}
