@@ -1,0 +1,91 @@
+import { describe, expect, it } from 'vitest';
+import { checkSource } from '../../src/engine/index.js';
+import { LineIndex, parseDocument } from '../../src/parse/index.js';
+
+/** Every character of every segment maps back to a source range that produces it. */
+function expectMapsBack(source: string, path = 'x.md') {
+  const doc = parseDocument(path, source);
+  for (const seg of doc.segments) {
+    expect(seg.starts).toHaveLength(seg.text.length);
+    for (let i = 0; i < seg.text.length; i += 1) {
+      const a = seg.starts[i] as number;
+      const b = seg.ends[i] as number;
+      expect(a).toBeGreaterThanOrEqual(0);
+      expect(b).toBeLessThanOrEqual(source.length);
+      expect(b).toBeGreaterThanOrEqual(a);
+    }
+  }
+  return doc;
+}
+
+const first = (source: string, path = 'x.md') => {
+  const r = checkSource(path, source);
+  expect(r.results.length, `no result in ${JSON.stringify(source)}`).toBeGreaterThan(0);
+  const res = r.results[0]!;
+  return { res, text: source.slice(res.span.start, res.span.end), lines: new LineIndex(source) };
+};
+
+describe('source positions (line and column are exact)', () => {
+  const cases: Array<{ name: string; source: string; text: string; line: number; column: number }> = [
+    { name: 'plain sentence', source: 'Recall improved, t(28) = 2.10, p = .045.\n', text: 't(28) = 2.10, p = .045', line: 1, column: 18 },
+    { name: 'emphasis around t and p', source: 'Recall improved, *t*(28) = 2.10, *p* = .045.\n', text: 't*(28) = 2.10, *p* = .045', line: 1, column: 19 },
+    { name: 'strong emphasis', source: 'So **t**(28) = 2.10, **p** = .045.\n', text: 't**(28) = 2.10, **p** = .045', line: 1, column: 6 },
+    { name: 'inline math', source: 'As before, $t(28) = 2.10, p = .045$.\n', text: 't(28) = 2.10, p = .045', line: 1, column: 13 },
+    { name: 'CRLF line ends, second line', source: 'Intro line.\r\n\r\nRecall improved, t(28) = 2.10, p = .045.\r\n', text: 't(28) = 2.10, p = .045', line: 3, column: 18 },
+    { name: 'a BOM before the first line', source: '\uFEFFRecall improved, t(28) = 2.10, p = .045.\n', text: 't(28) = 2.10, p = .045', line: 1, column: 19 },
+    { name: 'tab before the result (one column)', source: 'Recall\timproved, t(28) = 2.10, p = .045.\n', text: 't(28) = 2.10, p = .045', line: 1, column: 18 },
+    { name: 'inside a link', source: 'See [the result t(28) = 2.10, p = .045](https://example.org).\n', text: 't(28) = 2.10, p = .045', line: 1, column: 17 },
+    { name: 'after a footnote reference', source: 'Recall improved[^1], t(28) = 2.10, p = .045.\n\n[^1]: A note.\n', text: 't(28) = 2.10, p = .045', line: 1, column: 22 },
+    { name: 'wrapped across lines in a block quote', source: '> Recall improved, t(28) =\n> 2.10, p = .045.\n', text: 't(28) =\n> 2.10, p = .045', line: 1, column: 20 },
+    { name: 'in a list item', source: '- first\n- Recall improved, t(28) = 2.10, p = .045.\n', text: 't(28) = 2.10, p = .045', line: 2, column: 20 },
+    { name: 'Unicode minus and HTML superscript', source: 'Fell, t(40) = \u22125.02, p = 1.1 × 10<sup>\u22125</sup>.\n', text: 't(40) = \u22125.02, p = 1.1 × 10<sup>\u22125', line: 1, column: 7 },
+    { name: 'escaped less-than', source: 'Fell, t(40) = 5.02, p \\< .001.\n', text: 't(40) = 5.02, p \\< .001', line: 1, column: 7 },
+    { name: 'character reference for less-than', source: 'Fell, t(40) = 5.02, p &lt; .001.\n', text: 't(40) = 5.02, p &lt; .001', line: 1, column: 7 },
+    { name: 'table cell', source: '| Test | Result |\n|---|---|\n| A | t(28) = 2.10, p = .045 |\n', text: 't(28) = 2.10, p = .045', line: 3, column: 7 },
+  ];
+  it.each(cases)('$name', ({ source, text, line, column }) => {
+    expectMapsBack(source);
+    const { res, text: got } = first(source);
+    expect(got).toBe(text);
+    expect(res.start).toEqual({ line, column });
+  });
+
+  it('a CRLF file and its LF twin give the same findings at the same lines and columns', () => {
+    const lf = 'Intro.\n\nAlertness rose, t(23) = 1.12, p = .42.\n\nMore, t(46) = 0.84, p = .04.\n';
+    const crlf = lf.replace(/\n/g, '\r\n');
+    const a = checkSource('a.md', lf).findings.map((f) => [f.ruleId, f.start, f.end]);
+    const b = checkSource('b.md', crlf).findings.map((f) => [f.ruleId, f.start, f.end]);
+    expect(a.length).toBe(2);
+    expect(b).toEqual(a);
+  });
+});
+
+describe('what is not prose', () => {
+  const skipped: Array<[string, string]> = [
+    ['inline code', 'Use `t(28) = 2.10` to call it.\n'],
+    ['fenced code without a p', '```\nt(28) = 2.10\n```\n'],
+    ['an HTML comment', '<!-- t(28) = 2.10, p = .045 -->\n'],
+    ['front matter', '---\nnote: t(28) = 2.10, p = .045\n---\n\nText.\n'],
+    ['an R Markdown chunk', '```{r}\nt(28) = 2.10; p = .045\n```\n'],
+  ];
+  it.each(skipped)('%s', (_name, source) => {
+    expect(checkSource('x.Rmd', source).results).toEqual([]);
+  });
+
+  it('reads a complete result in inline code or console output', () => {
+    const r = checkSource('x.md', 'Output: `t(64) = 2.70, p = .007`.\n\n```\nt = 3.065, df = 13, p-value = 0.009039\n```\n');
+    expect(r.results.map((x) => x.printed)).toEqual(['t(64) = 2.70, p = .007', 't = 3.065, df = 13, p-value = 0.009039']);
+    expect(r.results.every((x) => x.inCode)).toBe(true);
+  });
+});
+
+describe('plain text from a PDF', () => {
+  it('joins hard wraps and undoes end-of-line hyphenation, keeping original lines', () => {
+    const source = 'The effect was signifi-\ncant, t(28) = 2.10,\np = .045, as expected.\n\nNext paragraph.\n';
+    const doc = expectMapsBack(source, 'paper.txt');
+    expect(doc.segments[0]?.text).toBe('The effect was significant, t(28) = 2.10, p = .045, as expected.');
+    const { res, lines } = first(source, 'paper.txt');
+    expect(res.start).toEqual({ line: 2, column: 7 });
+    expect(lines.position(res.p!.span.start)).toEqual({ line: 3, column: 1 });
+  });
+});

@@ -1,0 +1,3 @@
+declare module '@stdlib/stats-base-dists-t-cdf' {
+  export default function cdf(x: number, v: number): number;
+}
