@@ -3,6 +3,8 @@ import { evaluateP, fill, pPlaceholders, type Rule, type RuleFinding } from '../
 const messages = {
   'undeclared-one-tailed':
     'Reported {reported}. It matches the one-tailed p from {inputs} ({oneTailed}), not the two-tailed p ({twoTailed}), and nothing in the text says the test was one-tailed.',
+  'undeclared-one-tailed-opposite':
+    'Reported {reported}. It matches the one-tailed p against the direction of t from {inputs} ({oneTailedOpposite}), as an equivalence or non-inferiority test reports it, not the two-tailed p ({twoTailed}), and nothing beside it says the test was one-tailed.',
   'undeclared-one-tailed-changes-significance':
     'Reported {reported}. It matches the one-tailed p from {inputs} ({oneTailed}), not the two-tailed p ({twoTailed}), and nothing in the text says the test was one-tailed; two-tailed, the result would be {recomputedSide} at alpha {alpha}.',
 };
@@ -20,14 +22,16 @@ export const oneTailedPIsDeclared: Rule = {
     const out: RuleFinding[] = [];
     for (const result of document.results) {
       const e = evaluateP(result);
-      if (!e || e.standing !== 'one-tailed-only') continue;
-      const id = e.decisionFlips ? 'undeclared-one-tailed-changes-significance' : 'undeclared-one-tailed';
+      if (!e || (e.standing !== 'one-tailed-only' && e.standing !== 'one-tailed-opposite-only')) continue;
+      const id = e.standing === 'one-tailed-opposite-only'
+        ? 'undeclared-one-tailed-opposite'
+        : e.decisionFlips ? 'undeclared-one-tailed-changes-significance' : 'undeclared-one-tailed';
       out.push({
         messageId: id,
         span: result.report.span,
         message: fill(messages[id], pPlaceholders(result, e)),
         reported: result.report.printed,
-        recomputed: { ...e.recomputed, quantity: 'two-tailed p' },
+        recomputed: e.recomputed,
         gap: e.gap,
         check: 'If the test was one-tailed, say so (and why) where the test is described; otherwise report the two-tailed p.',
         resultId: result.report.id,

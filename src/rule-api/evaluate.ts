@@ -7,12 +7,14 @@ import type { Gap, Recomputed } from './types.js';
 /**
  * How a reported p stands against its t and df:
  * - consistent: the reading that applies (two-tailed unless the text says one-tailed) fits;
- * - one-tailed-only: nothing says one-tailed, and only a one-tailed reading fits;
+ * - one-tailed-only: nothing says one-tailed, and only the one-tailed p in t's direction fits;
+ * - one-tailed-opposite-only: nothing says one-tailed, and only the one-tailed p against t's
+ *   direction (1 − half, as equivalence tests report) fits an exactly printed p;
  * - one-tailed-although-two-stated / two-tailed-although-one-stated: the text names the
  *   tails, and only the other reading fits;
  * - mismatch: no reading fits.
  */
-export type PStanding = 'consistent' | 'one-tailed-only' | 'one-tailed-although-two-stated' | 'two-tailed-although-one-stated' | 'mismatch';
+export type PStanding = 'consistent' | 'one-tailed-only' | 'one-tailed-opposite-only' | 'one-tailed-although-two-stated' | 'two-tailed-although-one-stated' | 'mismatch';
 
 export interface PEvaluation {
   standing: PStanding;
@@ -54,14 +56,18 @@ export function evaluateP(result: LinkedResult): PEvaluation | undefined {
   const alpha = result.alpha.value;
   const reported = pInterval(r.p, alpha);
   const check = checkPAgainstT({ tLow, tHigh, dfLow, dfHigh, reported });
-  const oneFits = check.fitsOneSidedSame || check.fitsOneSidedOpposite;
   const explicit = result.sidedness.basis !== 'default';
   let standing: PStanding;
   if (result.sidedness.value === 'two') {
+    // Where nothing declares one tail, the opposite tail (near 1) is considered only for an
+    // exactly printed p: as a bound it would "fit" every n.s. and every p > x.
+    // An exactly printed p that equals 1 − half is still a one-tailed p (the other direction).
+    const exact = r.p.kind === 'value' && (r.p.op === '=' || r.p.op === '~');
     if (check.fitsTwoSided) standing = 'consistent';
-    else if (oneFits) standing = explicit ? 'one-tailed-although-two-stated' : 'one-tailed-only';
+    else if (check.fitsOneSidedSame) standing = explicit ? 'one-tailed-although-two-stated' : 'one-tailed-only';
+    else if (check.fitsOneSidedOpposite && exact) standing = explicit ? 'one-tailed-although-two-stated' : 'one-tailed-opposite-only';
     else standing = 'mismatch';
-  } else if (oneFits) standing = 'consistent';
+  } else if (check.fitsOneSidedSame || check.fitsOneSidedOpposite) standing = 'consistent';
   else standing = check.fitsTwoSided ? 'two-tailed-although-one-stated' : 'mismatch';
 
   const useOne = result.sidedness.value === 'one';

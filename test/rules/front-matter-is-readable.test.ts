@@ -1,0 +1,9 @@
+import { ruleTable } from './table.js';
+
+ruleTable('front-matter-is-readable', [
+  { name: 'broken YAML', markdown: '---\nplumbline: {alpha: 0.01\n---\nx.', expect: ['1:1 front-matter-unreadable'] },
+  { name: 'unknown plumbline key', markdown: '---\nplumbline:\n  alfa: 0.01\n---\nx.', expect: ['1:1 front-matter-unreadable'] },
+  { name: 'alpha out of range', markdown: '---\nplumbline:\n  alpha: 5\n---\nx.', expect: ['1:1 front-matter-unreadable'] },
+  { name: 'valid settings', markdown: '---\nplumbline:\n  alpha: 0.01\n  sidedness: two\n---\nx.', expect: [] },
+  { name: 'front matter without plumbline settings', markdown: '---\ntitle: A study\n---\nx.', expect: [] },
+]);

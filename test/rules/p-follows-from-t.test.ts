@@ -1,0 +1,30 @@
+import { ruleTable } from './table.js';
+
+// Recomputed p values quoted in names were checked with scipy.stats.t.sf (Debian python3-scipy).
+ruleTable('p-follows-from-t', [
+  { name: 'exact p that follows (two-tailed p = .0449)', markdown: 'x, t(28) = 2.10, p = .045.', expect: [] },
+  { name: 'p rounded to two decimals that follows', markdown: 'x, t(28) = 2.10, p = .04.', expect: [] },
+  { name: 'p that misses without crossing alpha (two-tailed .0449, one-tailed .0225)', markdown: 'x, t(28) = 2.10, p = .03.', expect: ['1:4 mismatch'] },
+  { name: 'inequality that holds', markdown: 'x, t(40) = 3.10, p < .01.', expect: [] },
+  { name: 'inequality that holds at the boundary of rounding (t(21) = 3.87 gives .00088)', markdown: 'x (t(21) = 3.87; p < 0.001)', expect: [] },
+  { name: 'inequality that fails without crossing alpha (t(21) = 2.87 gives .0091)', markdown: 'x (t(21) = 2.87; p < 0.001)', expect: ['1:4 mismatch'] },
+  { name: 'negative t', markdown: 'x, t(38) = −2.08, p = .044.', expect: [] },
+  { name: 'Welch df read within its rounding', markdown: "x, Welch's t(69.19) = 3.24, p = .002.", expect: [] },
+  { name: 'scientific notation that follows (t(58) = 8.124 gives 3.79e-11)', markdown: 'x, t = 8.124, df = 58, p-value = 3.789e-11', expect: [] },
+  { name: 'scientific notation off by a factor of ten', markdown: 'x, t = 8.124, df = 58, p-value = 3.789e-10', expect: ['1:4 mismatch'] },
+  { name: 'one-tailed test the text declares', markdown: 'One-tailed: x, t(30) = 1.80, p = .041.', expect: [] },
+  { name: 'one-tailed declared in the result', markdown: 'x, t(70.307) = 14.901, p < .0001, one-tailed.', expect: [] },
+  { name: 'equivalence test reports the opposite tail (p near 1)', markdown: 'The equivalence test was not significant, t(29) = -8.22, p > .999.', expect: [] },
+  { name: 'declared one-tailed but the p is the two-tailed one (t(23) = 8.02 gives 4.1e-8)', markdown: 'The test was one-tailed: t(23) = 8.02, p = 0.00000004.', expect: ['1:26 two-tailed-although-one-stated'] },
+  { name: 'document says two-tailed, p is one-tailed', markdown: 'All tests were two-tailed.\n\nx, t(30) = 2.10, p = .022.', expect: ['3:4 one-tailed-although-two-stated'] },
+  { name: 'integer t read as 3.5 to 4.5 reaches the printed p', markdown: 'x, t(999999) = 4, p = 0.0000317.', expect: [] },
+  { name: 'n.s. with a small t', markdown: 'x, t(113) = 0.56, n.s.', expect: [] },
+  { name: 'n.s. with a large t changes significance, so this rule is quiet', markdown: 'x, t(113) = 3.56, n.s.', expect: [] },
+  { name: 'bounded t and p that agree', markdown: 'both ts(22) > 4.72, ps ≤ .0001.', expect: [] },
+  { name: 'a mismatch that flips significance belongs to significance-follows-from-t', markdown: 'x, t(46) = 0.84, p = .04.', expect: [] },
+  { name: 'quieted with a reason', markdown: '<!-- plumbline quiet p-follows-from-t: Holm-adjusted -->\nx, t(23) = 1.12, p = .42.', expect: [] },
+  { name: 'a quiet comment without a reason silences nothing', markdown: '<!-- plumbline quiet p-follows-from-t -->\nx, t(23) = 1.12, p = .42.', expect: ['2:4 mismatch'] },
+  { name: 'a quiet comment applies to the next block only', markdown: '<!-- plumbline quiet p-follows-from-t: Holm-adjusted -->\nx.\n\ny, t(23) = 1.12, p = .42.', expect: ['4:4 mismatch'] },
+  { name: 'turned off in front matter', markdown: '---\nplumbline:\n  rules:\n    p-follows-from-t: "off"\n---\nx, t(23) = 1.12, p = .42.', expect: [] },
+  { name: 'turned off in configuration', markdown: 'x, t(23) = 1.12, p = .42.', options: { config: { rules: { 'p-follows-from-t': 'off' } } }, expect: [] },
+]);
