@@ -1,5 +1,5 @@
 import { readdirSync, realpathSync, statSync } from 'node:fs';
-import { join } from 'node:path';
+import { isAbsolute, join } from 'node:path';
 import { globSync } from 'tinyglobby';
 
 /** Extensions read when a folder is given. */
@@ -35,7 +35,7 @@ export function expandArguments(args: string[]): Expansion {
       stat = statSync(arg);
     } catch (e) {
       if (GLOB_CHARS.test(arg)) {
-        const matched = globSync(arg, { onlyFiles: true, dot: false, ignore: ['**/node_modules/**'] }).sort();
+        const matched = globSync(arg, { onlyFiles: true, dot: false, absolute: isAbsolute(arg), ignore: ['**/node_modules/**'] }).sort();
         if (matched.length === 0) missing.push({ path: arg, message: 'no file matches this pattern' });
         matched.forEach(add);
       } else {

@@ -89,7 +89,8 @@ export async function run(argv: string[], io: Io): Promise<number> {
     io.stderr('plumbline: --alpha must be a number between 0 and 1 (exclusive)\n');
     return EXIT.trouble;
   }
-  const files = (parsed.files as string[] | undefined) ?? [];
+  // yargs sets a lone "-" aside from the positionals; it means standard input.
+  const files = [...((parsed.files as string[] | undefined) ?? []), ...(argv.includes('-') && !((parsed.files as string[] | undefined) ?? []).includes('-') ? ['-'] : [])];
   if (files.length === 0) {
     io.stderr('plumbline: name at least one file, folder or glob ("-" for standard input). Run "plumbline --help" for usage.\n');
     return EXIT.trouble;

@@ -51,7 +51,7 @@ function findingBlock(file: FileReport, f: Finding, paint: (s: keyof typeof STYL
   const lines = [`  ${paint('dim', where.padEnd(8))} ${paint(f.level, f.level.padEnd(7))} ${paint('dim', f.ruleId)}`];
   lines.push(...excerpt(file.source, f, paint));
   for (const l of wrap(terminalSafe(f.message), width - 4)) lines.push(`    ${l}`);
-  for (const l of wrap(`check: ${terminalSafe(f.check)}`, width - 4)) lines.push(`    ${paint('dim', l)}`);
+  for (const l of wrap(`what to check: ${terminalSafe(f.check)}`, width - 4)) lines.push(`    ${paint('dim', l)}`);
   for (const r of f.related ?? []) lines.push(`    ${paint('dim', `see ${r.start.line}:${r.start.column}: ${terminalSafe(r.message)}`)}`);
   return lines;
 }
