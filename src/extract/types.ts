@@ -85,4 +85,121 @@ export interface Extraction {
   tests: TTestReport[];
   statements: ContextStatement[];
   pWithoutT: PWithoutT[];
+  summaries: GroupSummary[];
+  sampleSizes: SampleSize[];
+  intervals: IntervalReport[];
+  estimates: EstimateReport[];
+  effectSizes: EffectSizeReport[];
+  designs: DesignStatement[];
+  references: ReferenceValue[];
+  integerMeasures: IntegerStatement[];
+  counts: CountPercent[];
+}
+
+/** The kind of spread printed after a mean. */
+export type SpreadKind = 'SD' | 'SE' | 'unstated';
+
+/** A group's (or condition's) descriptives as printed: mean, spread and n, any of them missing. */
+export interface GroupSummary {
+  id: string;
+  segment: number;
+  block: number;
+  sentence: number;
+  span: Span;
+  printed: string;
+  mean?: ReportedNumber;
+  spread?: { number: ReportedNumber; kind: SpreadKind; kindSpan?: Span; printedKind?: string };
+  n?: ReportedNumber;
+  /** Up to a few words before the descriptives, e.g. "in the standing weeks". */
+  label?: string;
+  /** The numbers were printed as percentages (`59.1% ± 9.1%`). */
+  percent: boolean;
+  /** For table rows: which table and row. */
+  table?: { table: number; row: number };
+}
+
+/** A sample size printed on its own: `N = 60`, `(n = 30 per group)`, `24 participants`. */
+export interface SampleSize {
+  segment: number;
+  block: number;
+  sentence: number;
+  n: ReportedNumber;
+  scope: 'total' | 'per-group' | 'unspecified';
+  span: Span;
+  printed: string;
+}
+
+/** A confidence interval as printed: `95% CI [a, b]`. */
+export interface IntervalReport {
+  segment: number;
+  block: number;
+  sentence: number;
+  level: number;
+  low: ReportedNumber;
+  high: ReportedNumber;
+  span: Span;
+  printed: string;
+}
+
+/** An estimate printed with a label: `difference = 10.31`, `b = 2.48`, `MD = 3.1`. */
+export interface EstimateReport {
+  segment: number;
+  block: number;
+  sentence: number;
+  value: ReportedNumber;
+  span: Span;
+  printed: string;
+}
+
+/** An effect size as printed: `d = 0.53`, `Cohen's d = 0.73`, `g = 0.41`, `dz = 0.6`. */
+export interface EffectSizeReport {
+  segment: number;
+  block: number;
+  sentence: number;
+  kind: 'd' | 'g' | 'dz' | 'dav';
+  value: ReportedNumber;
+  span: Span;
+  printed: string;
+}
+
+/** Words about the design: one group measured twice, two independent groups, one sample. */
+export interface DesignStatement {
+  segment: number;
+  block: number;
+  sentence: number;
+  design: 'paired' | 'independent' | 'one-sample';
+  span: Span;
+  printed: string;
+}
+
+/** The reference value of a one-sample test: `compared with 50`, `chance (50%)`, `test value 7`. */
+export interface ReferenceValue {
+  segment: number;
+  block: number;
+  sentence: number;
+  value: ReportedNumber;
+  span: Span;
+  printed: string;
+}
+
+/** Integer-valued measures stated in the text (`a single item scored 1–7`, `number of …`). */
+export interface IntegerStatement {
+  segment: number;
+  block: number;
+  sentence: number;
+  span: Span;
+  printed: string;
+  /** Items summed or averaged, when said ("a 10-item scale"); 1 otherwise. */
+  items: number;
+}
+
+/** A count with its percentage: `12 (40%)`. */
+export interface CountPercent {
+  segment: number;
+  block: number;
+  sentence: number;
+  count: ReportedNumber;
+  percent: ReportedNumber;
+  span: Span;
+  printed: string;
 }

@@ -2,3 +2,6 @@ export { twoSidedPFromT, oneSidedPFromT, upperTailT, twoSidedCriticalT, tDensity
 export { roundingInterval, scientificRoundingInterval, lastDigitUnit } from './rounding.js';
 export { twoSidedPRange, oneSidedPRange, intervalsMeet, type Interval } from './pRange.js';
 export { checkPAgainstT, meets, sideOfAlpha, distanceBetween, type PInterval, type PConsistency, type PConsistencyInput } from './pConsistency.js';
+export { oneSampleAbsT, pairedImpliedCorrelation, studentAbsT, welchAbsT, welchDfRange, type Box } from './summaryT.js';
+export { dAverage, dFromMeansPooled, dFromTIndependent, dzFromT, hedgesCorrection } from './effectSize.js';
+export { ciHalfWidthFromT, pFromConfidenceInterval } from './confidenceInterval.js';

@@ -1,0 +1,275 @@
+import type { Segment } from '../parse/types.js';
+import { readNumber, sentenceOf, sourceSpan } from './numbers.js';
+import type {
+  CountPercent,
+  DesignStatement,
+  EffectSizeReport,
+  EstimateReport,
+  GroupSummary,
+  IntegerStatement,
+  IntervalReport,
+  ReferenceValue,
+  ReportedNumber,
+  SampleSize,
+  SpreadKind,
+} from './types.js';
+
+// Bounded building blocks (see test/regex-safety for the linearity argument).
+const NUM = String.raw`([-+]?(?:\d{1,3}(?:,\d{3}){1,3}|\d{1,12})(?:\.\d{1,12})?|[-+]?\.\d{1,12})`;
+const INT = String.raw`(\d{1,3}(?:,\d{3}){1,3}|\d{1,9})`;
+const SUFFIX = String.raw`(?:_\{[^{}\n]{1,30}\}|_[\p{L}\p{N}]{1,20}|\([\p{L}\p{N} .-]{1,30}\))?`;
+const START = String.raw`(?<![\p{L}\p{N}_])`;
+
+const MEAN = new RegExp(String.raw`${START}(?:M|Mean|mean|Avg|avg|Average|average)(?:${SUFFIX}|[A-Z]{2,20}) ?(?:=|:|of|was) ?${NUM}( ?%)?`, 'dgu');
+const SD = new RegExp(String.raw`${START}\{?(?:SD|sd|s\.d\.|S\.D\.|Std\.? ?Dev\.?|standard deviation)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
+const SE = new RegExp(String.raw`${START}\{?(?:SEM|SE|s\.e\.m\.|s\.e\.|S\.E\.|standard error(?: of the mean)?)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
+const N = new RegExp(String.raw`${START}(?:(n|N)(?:_\{[^{}\n]{1,20}\}|_?[0-9]|_[\p{L}]{1,20})?|[Ss]ample size) ?(?:=|:) ?${INT}(?: (per group|in each group|each|per condition|per arm))?(?![\d.])`, 'dgu');
+const PARTICIPANTS = new RegExp(String.raw`(?<![\p{L}\p{N}.,])${INT} (participants|patients|subjects|people|children|adults|students|staff|volunteers|respondents|women|men|infants|pairs)(?![\p{L}])`, 'dgu');
+const PLUS_MINUS = new RegExp(String.raw`${NUM}( ?%)? ?± ?${NUM}( ?%)?(?: ?\(? ?(SD|SE|SEM|s\.d\.|s\.e\.m\.|s\.e\.|standard deviations?|standard errors?)\)?)?`, 'dgu');
+const MEAN_PAREN = new RegExp(String.raw`(?<![\p{L}\p{N}_.(=])${NUM}( ?%)? ?\((?:(SD|SE|SEM|s\.d\.|s\.e\.)(?: ?=)? ?)?${NUM}( ?%)?\)`, 'dgu');
+const MEAN_PAREN_HEADER = /(?<![\p{L}])(?:M|mean|means)s? ?\((SD|SE|SEM)\)/iu;
+const CI = new RegExp(
+  String.raw`(\d{2}(?:\.\d)?) ?(?:%|percent) ?(?:CI|C\.I\.|confidence intervals?)[^\d\-+.\n]{0,18}${NUM} ?(?:,|;|to|–|—| - | |-(?=\.?\d)) ?${NUM}`,
+  'dgu',
+);
+const ESTIMATE = new RegExp(String.raw`${START}(?:mean difference|difference|MD|M_?\{?diff\}?|b|B|β|estimate|Δ) ?(?:=|:|of|was) ?${NUM}`, 'dgu');
+const EFFECT = new RegExp(String.raw`(?<![\p{L}\p{N}_'’])(?:(?:Cohen['’]s|Hedges['’]s?) ?)?(d_?\{?z\}?|d_?\{?av\}?|d|g)(?![\p{L}\p{N}′'’]) ?= ?${NUM}`, 'dgu');
+const PAIRED_WORDS = /(?<![\p{L}])(paired|pre-?test|post-?test|pre- and post|before and after|baseline and (?:at )?follow-?up|same participants|within-?subjects?|within-participants?|repeated[- ]measures?|cross-?over|matched[- ]pairs?|measured twice|each participant (?:was|completed))(?![\p{L}])/giu;
+const INDEPENDENT_WORDS = /(?<![\p{L}])(independent[- ]samples?|two independent groups|randomi[sz]ed to|randomly assigned to|between-?subjects?|between-participants?|two-sample|unpaired)(?![\p{L}])/giu;
+const ONE_SAMPLE_WORDS = /(?<![\p{L}])(one-sample|single-sample)(?![\p{L}])/giu;
+const REFERENCE = new RegExp(
+  String.raw`(?:test value|hypothesi[sz]ed (?:value|mean)|reference value|population mean|norm|benchmark|chance(?:[- ]level)?)(?: of| =| at| was| is)? ?\(? ?${NUM}( ?%)?`,
+  'dgiu',
+);
+const INTEGER_WORDS = /(?<![\p{L}])(single[- ]item|number of [\p{L}]{2,30}|counts? of [\p{L}]{2,30}|integer[- ]valued|whole numbers|(\d{1,3})-item (?:scale|measure|questionnaire|inventory)|scored (?:from )?\d{1,3} (?:to|–|-) ?\d{1,3})(?![\p{L}])/giu;
+const COUNT_PERCENT = new RegExp(String.raw`(?<![\p{L}\p{N}.,])(\d{1,6}) ?\((\d{1,3}(?:\.\d{1,3})?) ?%\)`, 'dgu');
+
+type TokenKind = 'mean' | 'sd' | 'se' | 'n' | 'pm' | 'paren';
+interface Token {
+  kind: TokenKind;
+  start: number;
+  end: number;
+  a?: ReportedNumber;
+  b?: ReportedNumber;
+  spreadKind?: SpreadKind;
+  kindSpan?: [number, number];
+  printedKind?: string;
+  percent: boolean;
+  perGroup?: boolean;
+}
+
+export interface SegmentSummaries {
+  summaries: GroupSummary[];
+  sampleSizes: SampleSize[];
+  intervals: IntervalReport[];
+  estimates: EstimateReport[];
+  effectSizes: EffectSizeReport[];
+  designs: DesignStatement[];
+  references: ReferenceValue[];
+  integerMeasures: IntegerStatement[];
+  counts: CountPercent[];
+}
+
+const group = (m: RegExpMatchArray, g: number): [number, number] | undefined => m.indices?.[g] as [number, number] | undefined;
+const num = (seg: Segment, m: RegExpMatchArray, g: number): ReportedNumber | undefined => {
+  const at = group(m, g);
+  return at ? readNumber(seg, at[0], at[1]) : undefined;
+};
+
+/** Descriptives and the other context a test is recomputed from, in one prose segment. */
+export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSummaries {
+  const text = seg.text;
+  const where = (a: number, b: number) => ({
+    segment: seg.id,
+    block: seg.block,
+    sentence: sentenceOf(sentenceStarts, a),
+    span: sourceSpan(seg, a, b),
+    printed: text.slice(a, b),
+  });
+  const tokens: Token[] = [];
+  const push = (t: Token) => {
+    if (!tokens.some((o) => t.start < o.end && o.start < t.end)) tokens.push(t);
+  };
+  for (const m of text.matchAll(PLUS_MINUS)) {
+    const a = num(seg, m, 1);
+    const b = num(seg, m, 3);
+    const k = m[5];
+    if (!a || !b) continue;
+    push({ kind: 'pm', start: m.index, end: m.index + m[0].length, a, b, spreadKind: spreadKind(k), percent: m[2] !== undefined, ...(k ? { kindSpan: group(m, 5) as [number, number], printedKind: k } : {}) });
+  }
+  const headerKind = MEAN_PAREN_HEADER.exec(text)?.[1];
+  for (const m of text.matchAll(MEAN_PAREN)) {
+    const a = num(seg, m, 1);
+    const b = num(seg, m, 4);
+    const k = m[3] ?? headerKind;
+    // "4.1 (1.2)" means nothing without a stated kind; "12 (40%)" is a count and its percentage
+    if (!a || !b || !k || m[5] !== undefined) continue;
+    push({ kind: 'paren', start: m.index, end: m.index + m[0].length, a, b, spreadKind: spreadKind(k), percent: m[2] !== undefined, printedKind: k, ...(m[3] ? { kindSpan: group(m, 3) as [number, number] } : {}) });
+  }
+  for (const [re, kind] of [[MEAN, 'mean'], [SD, 'sd'], [SE, 'se']] as const) {
+    for (const m of text.matchAll(re)) {
+      const a = num(seg, m, 1);
+      if (!a) continue;
+      push({ kind, start: m.index, end: m.index + m[0].length, a, percent: m[2] !== undefined });
+    }
+  }
+  const sampleSizes: SampleSize[] = [];
+  for (const m of text.matchAll(N)) {
+    const a = num(seg, m, 2);
+    if (!a) continue;
+    const perGroup = m[3] !== undefined;
+    const capital = m[1] === 'N';
+    push({ kind: 'n', start: m.index, end: m.index + m[0].length, a, percent: false, perGroup });
+    sampleSizes.push({ ...where(m.index, m.index + m[0].length), n: a, scope: perGroup ? 'per-group' : capital ? 'total' : 'unspecified' });
+  }
+  for (const m of text.matchAll(PARTICIPANTS)) {
+    const a = num(seg, m, 1);
+    if (a) sampleSizes.push({ ...where(m.index, m.index + m[0].length), n: a, scope: 'total' });
+  }
+  tokens.sort((x, y) => x.start - y.start);
+
+  const summaries = groupTokens(seg, tokens, sentenceStarts);
+  // "33.88% of the time (SD = 31%)": a bare number just before a lone spread is its mean.
+  for (const s of summaries) {
+    if (s.mean || !s.spread) continue;
+    const startIndex = indexOfSource(seg, s.span.start);
+    const before = text.slice(Math.max(0, startIndex - 30), startIndex);
+    const m = /(?<![\p{L}\p{N}.,])([-+]?\d{1,9}(?:\.\d{1,9})?)( ?%)?[^\d()]{0,20}\($/u.exec(before);
+    if (m) {
+      const at = startIndex - before.length + m.index;
+      const mean = readNumber(seg, at, at + (m[1] as string).length);
+      if (mean) {
+        s.mean = mean;
+        s.span = { start: mean.span.start, end: s.span.end };
+        s.percent ||= m[2] !== undefined;
+      }
+    }
+  }
+
+  const intervals: IntervalReport[] = [];
+  for (const m of text.matchAll(CI)) {
+    const low = num(seg, m, 2);
+    const high = num(seg, m, 3);
+    if (!low || !high || low.value > high.value) continue;
+    intervals.push({ ...where(m.index, m.index + m[0].length), level: Number(m[1]) / 100, low, high });
+  }
+  const estimates: EstimateReport[] = [];
+  for (const m of text.matchAll(ESTIMATE)) {
+    const value = num(seg, m, 1);
+    if (value) estimates.push({ ...where(m.index, m.index + m[0].length), value });
+  }
+  const effectSizes: EffectSizeReport[] = [];
+  for (const m of text.matchAll(EFFECT)) {
+    const value = num(seg, m, 2);
+    const k = (m[1] as string).replace(/[_{}]/g, '');
+    if (value) effectSizes.push({ ...where(m.index, m.index + m[0].length), value, kind: k === 'dz' ? 'dz' : k === 'dav' ? 'dav' : k === 'g' ? 'g' : 'd' });
+  }
+  const designs: DesignStatement[] = [];
+  for (const [re, design] of [[PAIRED_WORDS, 'paired'], [INDEPENDENT_WORDS, 'independent'], [ONE_SAMPLE_WORDS, 'one-sample']] as const) {
+    for (const m of text.matchAll(re)) designs.push({ ...where(m.index, m.index + m[0].length), design });
+  }
+  const references: ReferenceValue[] = [];
+  for (const m of text.matchAll(REFERENCE)) {
+    const value = num(seg, m, 1);
+    if (value) references.push({ ...where(m.index, m.index + m[0].length), value });
+  }
+  const integerMeasures: IntegerStatement[] = [];
+  for (const m of text.matchAll(INTEGER_WORDS)) {
+    integerMeasures.push({ ...where(m.index, m.index + m[0].length), items: m[2] ? Number(m[2]) : 1 });
+  }
+  const counts: CountPercent[] = [];
+  for (const m of text.matchAll(COUNT_PERCENT)) {
+    const count = num(seg, m, 1);
+    const percent = num(seg, m, 2);
+    if (count && percent) counts.push({ ...where(m.index, m.index + m[0].length), count, percent });
+  }
+  return { summaries, sampleSizes, intervals, estimates, effectSizes, designs, references, integerMeasures, counts };
+}
+
+function spreadKind(word: string | undefined): SpreadKind {
+  if (!word) return 'unstated';
+  return /^(sd|s\.d\.|standard deviation)/i.test(word) ? 'SD' : 'SE';
+}
+
+/**
+ * Tokens into groups: a new group starts at a second mean, a second spread or n, or at a
+ * mean that follows a closed parenthesis after the current group's mean.
+ */
+function groupTokens(seg: Segment, tokens: Token[], sentenceStarts: number[]): GroupSummary[] {
+  const out: GroupSummary[] = [];
+  let current: Token[] = [];
+  const flush = () => {
+    const s = toSummary(seg, current, sentenceStarts);
+    if (s) out.push(s);
+    current = [];
+  };
+  for (const tok of tokens) {
+    const has = (k: TokenKind[]) => current.some((c) => k.includes(c.kind));
+    const prev = current[current.length - 1];
+    const gap = prev ? seg.text.slice(prev.end, tok.start) : '';
+    const sentenceBreak = prev ? sentenceOf(sentenceStarts, prev.start) !== sentenceOf(sentenceStarts, tok.start) : false;
+    // A closed parenthesis, or one opened after other words, separates groups:
+    // "(M = 40.4, SD = 18.2) than caps (M = …" and "… 2.9 after (mean ± SEM, N = 1,024)".
+    const parenBreak = /\)/.test(gap) || /[^\s(,;:][^()]*\(/.test(gap);
+    const isMeanLike = tok.kind === 'mean' || tok.kind === 'pm' || tok.kind === 'paren';
+    const isSpread = tok.kind === 'sd' || tok.kind === 'se' || tok.kind === 'pm' || tok.kind === 'paren';
+    if (
+      prev &&
+      (sentenceBreak ||
+        parenBreak ||
+        gap.length > 60 ||
+        (isMeanLike && has(['mean', 'pm', 'paren'])) ||
+        (isSpread && has(['sd', 'se', 'pm', 'paren'])) ||
+        (tok.kind === 'n' && has(['n'])))
+    ) {
+      flush();
+    }
+    current.push(tok);
+  }
+  flush();
+  return out;
+}
+
+function toSummary(seg: Segment, tokens: Token[], sentenceStarts: number[]): GroupSummary | undefined {
+  if (tokens.length === 0) return undefined;
+  const meanTok = tokens.find((t) => t.kind === 'mean' || t.kind === 'pm' || t.kind === 'paren');
+  const spreadTok = tokens.find((t) => t.kind === 'sd' || t.kind === 'se' || t.kind === 'pm' || t.kind === 'paren');
+  const nTok = tokens.find((t) => t.kind === 'n');
+  if (!meanTok && !spreadTok) return undefined; // a lone n is a sample size, not a group
+  const first = tokens[0] as Token;
+  const last = tokens[tokens.length - 1] as Token;
+  const mean = meanTok?.a;
+  let spread: GroupSummary['spread'];
+  if (spreadTok) {
+    const number = spreadTok.kind === 'pm' || spreadTok.kind === 'paren' ? spreadTok.b : spreadTok.a;
+    const kind: SpreadKind = spreadTok.kind === 'sd' ? 'SD' : spreadTok.kind === 'se' ? 'SE' : (spreadTok.spreadKind ?? 'unstated');
+    if (number) {
+      spread = {
+        number,
+        kind,
+        ...(spreadTok.kindSpan ? { kindSpan: sourceSpan(seg, spreadTok.kindSpan[0], spreadTok.kindSpan[1]) } : {}),
+        ...(spreadTok.printedKind ? { printedKind: spreadTok.printedKind } : {}),
+      };
+    }
+  }
+  const labelText = seg.text.slice(Math.max(0, first.start - 45), first.start).replace(/[(\s,;:]+$/, '');
+  const label = labelText.split(/[;)]|, |\. /).pop()?.trim();
+  return {
+    id: `${seg.id}:${first.start}`,
+    segment: seg.id,
+    block: seg.block,
+    sentence: sentenceOf(sentenceStarts, first.start),
+    span: sourceSpan(seg, first.start, last.end),
+    printed: seg.text.slice(first.start, last.end),
+    ...(mean ? { mean } : {}),
+    ...(spread ? { spread } : {}),
+    ...(nTok?.a ? { n: nTok.a } : {}),
+    ...(label ? { label } : {}),
+    percent: tokens.some((t) => t.percent),
+  };
+}
+
+function indexOfSource(seg: Segment, offset: number): number {
+  const i = seg.starts.findIndex((s) => s >= offset);
+  return i < 0 ? seg.text.length : i;
+}
