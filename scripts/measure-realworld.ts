@@ -28,6 +28,7 @@ for (const f of readdirSync(out).filter((f) => f.endsWith('.md'))) reports.set(f
 const verbose = process.argv.includes('--verbose');
 const NUMBER_RULES = new Set(['p-follows-from-t', 'significance-follows-from-t', 'values-are-possible', 'zero-p-is-a-bound']);
 const tally: Record<string, { n: number; extracted: number; flagged: number; oneTailedNote: number }> = {};
+const summaryTally: Record<string, { n: number; flagged: number }> = {};
 for (const [id, k] of Object.entries(key)) {
   const rep = reports.get(k.file) as FileReport;
   const tValue = Math.abs(Number((k.reported.t ?? 'NaN').replace('−', '-')));
@@ -35,6 +36,13 @@ for (const [id, k] of Object.entries(key)) {
   const findings = rep.findings.filter((f) => f.start.line === k.line);
   const flagged = findings.filter((f) => NUMBER_RULES.has(f.ruleId));
   const note = findings.filter((f) => f.ruleId === 'one-tailed-p-is-declared');
+  const SUMMARY_RULES = new Set(['t-follows-from-descriptives', 'spread-kind-matches-t', 'df-follows-from-n', 'design-matches-analysis', 'paired-correlation-is-possible', 'ci-agrees-with-result']);
+  const summaryFlags = findings.filter((f) => SUMMARY_RULES.has(f.ruleId));
+  const s = (summaryTally[(k as KeyEntry & { summary_label: string }).summary_label] ??= { n: 0, flagged: 0 });
+  s.n += 1;
+  if (summaryFlags.length > 0) s.flagged += 1;
+  const summarySurprise = ((k as KeyEntry & { summary_label: string }).summary_label === 'reachable' && summaryFlags.length > 0) || ((k as KeyEntry & { summary_label: string }).summary_label === 'not-reachable' && summaryFlags.length === 0);
+  if (summarySurprise) console.log(`!! ${id} summary ${(k as KeyEntry & { summary_label: string }).summary_label}: ${summaryFlags.map((f) => `${f.ruleId}/${f.messageId}`).join(' ') || 'not flagged'}`);
   const t = (tally[k.label] ??= { n: 0, extracted: 0, flagged: 0, oneTailedNote: 0 });
   t.n += 1;
   if (results.length > 0) t.extracted += 1;
@@ -49,3 +57,5 @@ console.log('\nlabel                      cases extracted flagged one-tailed-not
 for (const [label, t] of Object.entries(tally)) {
   console.log(`${label.padEnd(26)} ${String(t.n).padStart(5)} ${String(t.extracted).padStart(9)} ${String(t.flagged).padStart(7)} ${String(t.oneTailedNote).padStart(15)}`);
 }
+console.log('\nsummary label              cases flagged (descriptives, df, design, CI rules)');
+for (const [label, t] of Object.entries(summaryTally)) console.log(`${label.padEnd(26)} ${String(t.n).padStart(5)} ${String(t.flagged).padStart(7)}`);

@@ -5,6 +5,7 @@ export interface Config {
   root?: boolean;
   alpha?: number;
   sidedness?: 'one' | 'two';
+  integerItems?: number;
   rules?: Record<string, LevelSetting>;
 }
 

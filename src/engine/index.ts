@@ -3,7 +3,7 @@ import { configProblems } from '../config/validate.js';
 import { extract } from '../extract/index.js';
 import type { ReportedNumber, Sidedness } from '../extract/types.js';
 import { link } from '../link/index.js';
-import type { DocumentSettings, Setting } from '../link/types.js';
+import type { DocumentSettings, ResultContext, Setting } from '../link/index.js';
 import { LineIndex, parseDocument } from '../parse/index.js';
 import type { ParsedDocument, Span } from '../parse/types.js';
 import { evaluateP } from '../rule-api/evaluate.js';
@@ -72,10 +72,32 @@ export function checkSource(path: string, source: string, options: CheckOptions 
         : {}),
       sidedness: r.sidedness,
       alpha: r.alpha,
+      context: contextRecord(r.context, place),
       ...(e ? { recomputed: { twoTailed: e.check.twoSided, oneTailed: e.check.oneSidedSame, standing: e.standing } } : {}),
     };
   });
   return { path, format: doc.format, results, findings, alpha: linked.documentAlpha, sidedness: linked.documentSidedness, source };
+}
+
+function contextRecord(c: ResultContext, place: (s: Span) => Place): ResultRecord['context'] {
+  const item = (x: { span: Span; printed: string }) => ({ printed: x.printed, ...place(x.span) });
+  const d = c.descriptives;
+  return {
+    design: c.design,
+    ...(d
+      ? {
+          descriptives: {
+            scope: d.scope,
+            groups: d.groups.map((g, i) => ({ ...item(g), ...(g.label ? { label: g.label } : {}), spreadKind: d.spreadKinds[i] ?? 'unstated' })),
+          },
+        }
+      : {}),
+    ...(c.unlinked ? { unlinked: c.unlinked.reason } : {}),
+    ...(c.reference ? { reference: item(c.reference) } : {}),
+    ...(c.interval ? { interval: item(c.interval) } : {}),
+    ...(c.estimate ? { estimate: item(c.estimate) } : {}),
+    effectSizes: c.effectSizes.map(item),
+  };
 }
 
 function isQuieted(doc: ParsedDocument, block: number, ruleId: string): boolean {
@@ -101,9 +123,11 @@ function resolveSettings(doc: ParsedDocument, options: CheckOptions): { settings
     return undefined;
   };
   const alpha = pick(options.alpha, front.alpha, config.alpha);
+  const items = pick(undefined, front.integerItems, config.integerItems);
+  const integerMeasure = items ? { ...items, value: { items: items.value } } : undefined;
   const sidedness = pick(options.sidedness, front.sidedness, config.sidedness);
   return {
-    settings: { ...(alpha ? { alpha } : {}), ...(sidedness ? { sidedness } : {}), ...(frontMatterError ? { frontMatterError } : {}) },
+    settings: { ...(integerMeasure ? { integerMeasure } : {}), ...(alpha ? { alpha } : {}), ...(sidedness ? { sidedness } : {}), ...(frontMatterError ? { frontMatterError } : {}) },
     levels: { ...config.rules, ...front.rules },
   };
 }

@@ -29,6 +29,20 @@ export interface ResultRecord extends Place {
   p?: (Place & { kind: 'value' | 'ns'; op: Comparison; printed: string; number?: NumberRecord });
   sidedness: Setting<Sidedness>;
   alpha: Setting<number>;
+  /** The descriptives and context joined to this result, so a reader sees which numbers were used. */
+  context: {
+    design: Setting<string>;
+    descriptives?: {
+      scope: 'sentence' | 'paragraph' | 'table';
+      groups: Array<Place & { printed: string; label?: string; spreadKind: string }>;
+    };
+    /** Why descriptives nearby were not joined (never a silent guess). */
+    unlinked?: string;
+    reference?: Place & { printed: string };
+    interval?: Place & { printed: string };
+    estimate?: Place & { printed: string };
+    effectSizes: Array<Place & { printed: string }>;
+  };
   /** Recomputed p ranges for this result, when t, df and p allow it. */
   recomputed?: {
     twoTailed: { low: number; high: number };

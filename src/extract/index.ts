@@ -28,6 +28,7 @@ export function extract(doc: ParsedDocument): Extraction {
     references: [],
     integerMeasures: [],
     counts: [],
+    tables: [],
   };
   for (const seg of doc.segments) {
     const starts = sentenceStarts(seg.text);
@@ -47,6 +48,12 @@ export function extract(doc: ParsedDocument): Extraction {
       out.counts.push(...found.counts);
       if (MAY_NAME_T_TEST.test(seg.text)) out.pWithoutT.push(...findPWithoutT(seg, starts, tests));
     }
+  }
+  for (const seg of doc.segments) {
+    if (!seg.table) continue;
+    const t = out.tables.find((x) => x.table === seg.table?.table);
+    if (t) t.lastBlock = Math.max(t.lastBlock, seg.block);
+    else out.tables.push({ table: seg.table.table, firstBlock: seg.block, lastBlock: seg.block });
   }
   const tableSummaries = findTableSummaries(doc.segments);
   const tableMeans = new Set(tableSummaries.map((t) => t.mean?.span.start));

@@ -13,7 +13,9 @@ const ALPHA_AS_P = new RegExp(
   'giu',
 );
 
-/** Statements about tails, equivalence testing and alpha in one segment. */
+const SPREAD_STATEMENT = /(?<![\p{L}])(?:mean|M)s? ?(?:±|\+\/-|plus or minus) ?(SD|SEM|SE|s\.d\.|s\.e\.m\.|s\.e\.|standard deviations?|standard errors?)(?![\p{L}])/giu;
+
+/** Statements about tails, equivalence testing, alpha and what ± stands for, in one segment. */
 export function findStatements(seg: Segment, sentenceStarts: number[]): ContextStatement[] {
   const out: ContextStatement[] = [];
   const text = seg.text;
@@ -31,6 +33,10 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
   }
   for (const m of text.matchAll(EQUIVALENCE)) {
     out.push({ kind: 'equivalence', sidedness: 'one', ...base(m.index, m.index + m[0].length) });
+  }
+  for (const m of text.matchAll(SPREAD_STATEMENT)) {
+    const sd = /^(sd|s\.d\.|standard dev)/i.test(m[1] as string);
+    out.push({ kind: 'spread', spread: sd ? 'SD' : 'SE', ...base(m.index, m.index + m[0].length) });
   }
   for (const re of [ALPHA, ALPHA_AS_P]) {
     for (const m of text.matchAll(re)) {

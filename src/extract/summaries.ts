@@ -21,20 +21,20 @@ const SUFFIX = String.raw`(?:_\{[^{}\n]{1,30}\}|_[\p{L}\p{N}]{1,20}|\([\p{L}\p{N
 const START = String.raw`(?<![\p{L}\p{N}_])`;
 
 const MEAN = new RegExp(String.raw`${START}(?:M|Mean|mean|Avg|avg|Average|average)(?:${SUFFIX}|[A-Z]{2,20}) ?(?:=|:|of|was) ?${NUM}( ?%)?`, 'dgu');
-const SD = new RegExp(String.raw`${START}\{?(?:SD|sd|s\.d\.|S\.D\.|Std\.? ?Dev\.?|standard deviation)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
-const SE = new RegExp(String.raw`${START}\{?(?:SEM|SE|s\.e\.m\.|s\.e\.|S\.E\.|standard error(?: of the mean)?)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
+const SD = new RegExp(String.raw`${START}\{?(?:SD|sd|s\.d\.|S\.D\.|Std\.? ?Dev\.?|[Ss]tandard deviation)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
+const SE = new RegExp(String.raw`${START}\{?(?:SEM|SE|s\.e\.m\.|s\.e\.|S\.E\.|[Ss]tandard error(?: of the mean)?)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
 const N = new RegExp(String.raw`${START}(?:(n|N)(?:_\{[^{}\n]{1,20}\}|_?[0-9]|_[\p{L}]{1,20})?|[Ss]ample size) ?(?:=|:) ?${INT}(?: (per group|in each group|each|per condition|per arm))?(?![\d.])`, 'dgu');
 const PARTICIPANTS = new RegExp(String.raw`(?<![\p{L}\p{N}.,])${INT} (participants|patients|subjects|people|children|adults|students|staff|volunteers|respondents|women|men|infants|pairs)(?![\p{L}])`, 'dgu');
 const PLUS_MINUS = new RegExp(String.raw`${NUM}( ?%)? ?± ?${NUM}( ?%)?(?: ?\(? ?(SD|SE|SEM|s\.d\.|s\.e\.m\.|s\.e\.|standard deviations?|standard errors?)\)?)?`, 'dgu');
 const MEAN_PAREN = new RegExp(String.raw`(?<![\p{L}\p{N}_.(=])${NUM}( ?%)? ?\((?:(SD|SE|SEM|s\.d\.|s\.e\.)(?: ?=)? ?)?${NUM}( ?%)?\)`, 'dgu');
 const MEAN_PAREN_HEADER = /(?<![\p{L}])(?:M|mean|means)s? ?\((SD|SE|SEM)\)/iu;
 const CI = new RegExp(
-  String.raw`(\d{2}(?:\.\d)?) ?(?:%|percent) ?(?:CI|C\.I\.|confidence intervals?)[^\d\-+.\n]{0,18}${NUM} ?(?:,|;|to|–|—| - | |-(?=\.?\d)) ?${NUM}`,
+  String.raw`(\d{2}(?:\.\d)?) ?(?:%|percent) ?(?:CI|C\.I\.|confidence intervals?)[^\d\-+.\n]{0,18}${NUM} ?(?:,|;|to|–|—| - | |-(?=\.?\d)) ?${NUM}(?: ?[\])])?`,
   'dgu',
 );
 const ESTIMATE = new RegExp(String.raw`${START}(?:mean difference|difference|MD|M_?\{?diff\}?|b|B|β|estimate|Δ) ?(?:=|:|of|was) ?${NUM}`, 'dgu');
 const EFFECT = new RegExp(String.raw`(?<![\p{L}\p{N}_'’])(?:(?:Cohen['’]s|Hedges['’]s?) ?)?(d_?\{?z\}?|d_?\{?av\}?|d|g)(?![\p{L}\p{N}′'’]) ?= ?${NUM}`, 'dgu');
-const PAIRED_WORDS = /(?<![\p{L}])(paired|pre-?test|post-?test|pre- and post|before and after|baseline and (?:at )?follow-?up|same participants|within-?subjects?|within-participants?|repeated[- ]measures?|cross-?over|matched[- ]pairs?|measured twice|each participant (?:was|completed))(?![\p{L}])/giu;
+const PAIRED_WORDS = /(?<![\p{L}])(paired|pre-?test|post-?test|pre- and post|before and after|baseline and (?:at )?follow-?up|same (?:participants|staff|patients|subjects|children|people|individuals|students|sample|group)|within-?subjects?|within-participants?|repeated[- ]measures?|cross-?over|matched[- ]pairs?|measured twice|each participant (?:was|completed))(?![\p{L}])/giu;
 const INDEPENDENT_WORDS = /(?<![\p{L}])(independent[- ]samples?|two independent groups|randomi[sz]ed to|randomly assigned to|between-?subjects?|between-participants?|two-sample|unpaired)(?![\p{L}])/giu;
 const ONE_SAMPLE_WORDS = /(?<![\p{L}])(one-sample|single-sample)(?![\p{L}])/giu;
 const REFERENCE = new RegExp(

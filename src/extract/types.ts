@@ -28,9 +28,11 @@ export type Sidedness = 'one' | 'two';
 
 /** A statement about tails or alpha found in the prose, with where it was said. */
 export interface ContextStatement {
-  kind: 'sidedness' | 'alpha' | 'equivalence';
+  kind: 'sidedness' | 'alpha' | 'equivalence' | 'spread';
   sidedness?: Sidedness;
   alpha?: number;
+  /** For `spread`: what "mean ± x" stands for ("values are mean ± SEM"). */
+  spread?: 'SD' | 'SE';
   span: Span;
   segment: number;
   block: number;
@@ -94,6 +96,8 @@ export interface Extraction {
   references: ReferenceValue[];
   integerMeasures: IntegerStatement[];
   counts: CountPercent[];
+  /** Blocks each table spans, so results can be joined to the table next to them. */
+  tables: Array<{ table: number; firstBlock: number; lastBlock: number }>;
 }
 
 /** The kind of spread printed after a mean. */

@@ -3,6 +3,8 @@ import type { Directive } from '../parse/types.js';
 import type { DocumentSettings, LinkedDocument, LinkedResult, Setting } from './types.js';
 
 export type * from './types.js';
+export type { DescriptiveLink, Design, ResultContext } from './descriptives.js';
+import { contextFor } from './descriptives.js';
 
 /** Default alpha when nothing sets one: .05 (common practice, no source). */
 export const DEFAULT_ALPHA = 0.05;
@@ -27,11 +29,14 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     report,
     sidedness: sidednessFor(report, extraction.statements, extraction.tests, documentSidedness),
     alpha: alphaFor(report, extraction.statements, documentAlpha),
+    context: contextFor(report, extraction),
   }));
   return {
     results,
     pWithoutT: extraction.pWithoutT,
     directives,
+    extraction,
+    ...(settings.integerMeasure ? { integerMeasure: settings.integerMeasure } : {}),
     ...(settings.frontMatterError ? { frontMatterError: settings.frontMatterError } : {}),
     statements: extraction.statements,
     documentAlpha,

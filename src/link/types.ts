@@ -1,8 +1,9 @@
-import type { ContextStatement, PWithoutT, Sidedness, TTestReport } from '../extract/types.js';
+import type { ContextStatement, Extraction, PWithoutT, Sidedness, TTestReport } from '../extract/types.js';
 import type { Directive, Span } from '../parse/types.js';
+import type { ResultContext } from './descriptives.js';
 
 /** Where a setting that applies to a result came from, most specific first. */
-export type SettingBasis = 'in-report' | 'sentence' | 'equivalence-test' | 'document-text' | 'front-matter' | 'configuration' | 'default';
+export type SettingBasis = 'in-report' | 'sentence' | 'paragraph' | 'equivalence-test' | 'document-text' | 'structure' | 'front-matter' | 'configuration' | 'default';
 
 export interface Setting<T> {
   value: T;
@@ -17,9 +18,12 @@ export interface LinkedResult {
   report: TTestReport;
   sidedness: Setting<Sidedness>;
   alpha: Setting<number>;
+  /** Descriptives, design, CI, effect sizes and sample sizes that belong with the result. */
+  context: ResultContext;
 }
 
 export interface DocumentSettings {
+  integerMeasure?: Setting<{ items: number }>;
   alpha?: Setting<number>;
   sidedness?: Setting<Sidedness>;
   frontMatterError?: { message: string; span: Span };
@@ -29,6 +33,10 @@ export interface LinkedDocument {
   results: LinkedResult[];
   pWithoutT: PWithoutT[];
   directives: Directive[];
+  /** Every extracted record, for rules that look at the whole document. */
+  extraction: Extraction;
+  /** Settings for integer-valued measures (GRIM): from front matter or configuration. */
+  integerMeasure?: Setting<{ items: number }>;
   /** Why the front matter could not be read, when it could not. */
   frontMatterError?: { message: string; span: Span };
   statements: ContextStatement[];

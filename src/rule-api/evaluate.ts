@@ -36,6 +36,8 @@ export function describeTails(result: LinkedResult): string {
   const where = {
     'in-report': 'as stated beside the result',
     sentence: 'as stated in its sentence',
+    paragraph: 'as stated in its paragraph',
+    structure: 'from the layout of the numbers',
     'equivalence-test': 'an equivalence test is named beside it',
     'document-text': 'as stated in the document',
     'front-matter': 'set in front matter',

@@ -24,5 +24,5 @@ function trimZeros(s: string): string {
 
 /** Fill `{name}` placeholders; a missing value is left visible as `{name}` so tests catch it. */
 export function fill(template: string, values: Record<string, string | number>): string {
-  return template.replace(/\{([a-zA-Z]{1,40})\}/g, (whole, name: string) => (name in values ? String(values[name]) : whole));
+  return template.replace(/\{([a-zA-Z][a-zA-Z0-9]{0,39})\}/g, (whole, name: string) => (name in values ? String(values[name]) : whole));
 }

@@ -5,3 +5,4 @@ export { checkPAgainstT, meets, sideOfAlpha, distanceBetween, type PInterval, ty
 export { oneSampleAbsT, pairedImpliedCorrelation, studentAbsT, welchAbsT, welchDfRange, type Box } from './summaryT.js';
 export { dAverage, dFromMeansPooled, dFromTIndependent, dzFromT, hedgesCorrection } from './effectSize.js';
 export { ciHalfWidthFromT, pFromConfidenceInterval } from './confidenceInterval.js';
+export { grimmerPossible, grimPossible, percentPossible } from './granularity.js';

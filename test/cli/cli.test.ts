@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { Readable } from 'node:stream';
 import { describe, expect, it } from 'vitest';
 import { run } from '../../src/cli/run.js';
+import { RULES } from '../../src/engine/index.js';
 
 interface Outcome {
   code: number;
@@ -187,7 +188,7 @@ describe('commands', () => {
   });
   it('rules lists every rule', async () => {
     const out = await cli(['rules']);
-    expect(out.stdout.split('\n').filter(Boolean)).toHaveLength(8);
+    expect(out.stdout.split('\n').filter(Boolean)).toHaveLength(RULES.length);
   });
 });
 

@@ -1,0 +1,103 @@
+import { fill, numberInterval, showInterval, tInterval, type LinkedResult, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { sideOfAlpha, twoSidedCriticalT, twoSidedPRange, type Box } from '../src/stats/index.js';
+
+const messages = {
+  'not-centred': 'Reported {ci} with estimate {estimate}: a t-based CI is centred on its estimate, but the midpoint is {mid}.',
+  'width-vs-t': 'Reported {ci} and {reported}. From the CI, SE = width / (2 × critical value) and t = estimate / SE: |t| {impliedT} with the t critical value ({tCrit}) or {impliedZ} with the normal one (1.96 for 95%); the reported |t| is {tRange}. The implied p is {impliedP} (Altman & Bland 2011).',
+  'zero-vs-p': 'Reported {ci} and {p}: a {level} CI {zero} zero exactly when p {side} {alpha}, but here it {actual}.',
+};
+
+/** Confidence interval, estimate, t and p of one result agree. */
+export const ciAgreesWithResult: Rule = {
+  id: 'ci-agrees-with-result',
+  summary: 'A confidence interval reported with a t-test is centred on the estimate, has the width t implies, and excludes zero exactly when p < alpha.',
+  kind: 'inconsistency',
+  defaultLevel: 'warning',
+  defaultOptions: {},
+  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  messages,
+  check({ document }) {
+    const out: RuleFinding[] = [];
+    for (const result of document.results) {
+      const r = result.report;
+      const ci = result.context.interval;
+      if (!ci || !r.df || r.tOp !== '=') continue;
+      const lo = numberInterval(ci.low);
+      const hi = numberInterval(ci.high);
+      const base = { span: ci.span, reported: `${ci.printed}; ${r.printed}`, resultId: r.id, block: r.block, related: [{ span: r.span, message: 'the test this interval belongs to' }] };
+      const midBox: Box = [(lo[0] + hi[0]) / 2, (lo[1] + hi[1]) / 2];
+      // The estimate: printed with a label, else from the linked means, else the midpoint.
+      const est = estimateBox(result, midBox);
+      // Intervals from profile likelihood or the bootstrap need not be exactly symmetric, so a
+      // gap up to 5% of the half-width is tolerated beyond rounding.
+      const slack = 0.05 * Math.max(0, (hi[0] - lo[1]) / 2);
+      if (est.source !== 'midpoint' && !overlapsEitherSign(est.box, [midBox[0] - slack, midBox[1] + slack])) {
+        out.push({ ...base, messageId: 'not-centred', message: fill(messages['not-centred'], { ci: ci.printed, estimate: `${est.printed} (${est.source})`, mid: showInterval(midBox[0], midBox[1]) }), check: 'Check the interval limits and the estimate against the output: one limit or the estimate may be mistyped.' });
+        continue;
+      }
+      const df = r.df.value;
+      const tCrit = twoSidedCriticalT(1 - ci.level, df);
+      const zCrit = twoSidedCriticalT(1 - ci.level, 1e9);
+      const width: Box = [Math.max(hi[0] - lo[1], Number.MIN_VALUE), hi[1] - lo[0]];
+      const absEst: Box = est.box[0] <= 0 && est.box[1] >= 0 ? [0, Math.max(-est.box[0], est.box[1])] : [Math.min(Math.abs(est.box[0]), Math.abs(est.box[1])), Math.max(Math.abs(est.box[0]), Math.abs(est.box[1]))];
+      const implied = (crit: number): Box => [(absEst[0] * 2 * crit) / width[1], (absEst[1] * 2 * crit) / width[0]];
+      const [tl, th] = tInterval(r);
+      const absT: Box = [tl <= 0 && th >= 0 ? 0 : Math.min(Math.abs(tl), Math.abs(th)), Math.max(Math.abs(tl), Math.abs(th))];
+      const meets = (a: Box) => a[0] <= absT[1] && a[1] >= absT[0];
+      const viaT = implied(tCrit);
+      const viaZ = implied(zCrit);
+      if (!meets(viaT) && !meets(viaZ)) {
+        const p = twoSidedPRange(viaT[0], viaT[1], df, df);
+        out.push({
+          ...base,
+          messageId: 'width-vs-t',
+          message: fill(messages['width-vs-t'], { ci: ci.printed, reported: r.printed, impliedT: showInterval(viaT[0], viaT[1]), tCrit: tCrit.toFixed(3), impliedZ: showInterval(viaZ[0], viaZ[1]), tRange: showInterval(absT[0], absT[1]), impliedP: showInterval(p.low, p.high) }),
+          recomputed: { quantity: '|t| implied by the CI', low: viaT[0], high: viaT[1], inputs: [ci.printed, `estimate ${est.printed} (${est.source})`, `df = ${r.df.printed}`], assumptions: [`${Math.round(ci.level * 100)}% interval from the t distribution (or the normal)`] },
+          check: 'Check the interval, the estimate and t against the output; a CI built with the SD instead of the SE is a common cause.',
+        });
+        continue;
+      }
+      const p = r.p;
+      const alpha = result.alpha.value;
+      // A Wald (normal) interval beside a t-based p may legitimately disagree about zero at small df.
+      if (p?.kind === 'value' && p.number && meets(viaT) && Math.abs(1 - ci.level - alpha) < 1e-9) {
+        const excludes = lo[0] > 0 || hi[1] < 0;
+        const includes = lo[1] < 0 && hi[0] > 0;
+        const pv = numberInterval(p.number);
+        const reportedLow = p.op === '<' || p.op === '<=' ? 0 : pv[0];
+        const reportedHigh = p.op === '>' || p.op === '>=' ? 1 : pv[1];
+        const side = sideOfAlpha(reportedLow, reportedHigh, alpha, p.op === '<');
+        if ((excludes && side === 'above') || (includes && side === 'below')) {
+          out.push({
+            ...base,
+            messageId: 'zero-vs-p',
+            message: fill(messages['zero-vs-p'], { ci: ci.printed, p: p.printed, level: `${Math.round(ci.level * 100)}%`, zero: 'excludes', side: '<', alpha, actual: excludes ? 'excludes zero and p is not below alpha' : 'includes zero and p is below alpha' }),
+            check: 'Check the interval and p against the output; they come from the same estimate and SE.',
+          });
+        }
+      }
+    }
+    return out;
+  },
+};
+
+function overlapsEitherSign(a: Box, b: Box): boolean {
+  return (a[0] <= b[1] && a[1] >= b[0]) || (-a[1] <= b[1] && -a[0] >= b[0]);
+}
+
+function estimateBox(result: LinkedResult, midpoint: Box): { box: Box; printed: string; source: string } {
+  const c = result.context;
+  if (c.estimate) return { box: numberInterval(c.estimate.value), printed: c.estimate.value.printed, source: 'as printed' };
+  const groups = c.descriptives?.groups ?? [];
+  if (groups.length === 2 && groups[0]?.mean && groups[1]?.mean) {
+    const a = numberInterval(groups[0].mean);
+    const b = numberInterval(groups[1].mean);
+    return { box: [a[0] - b[1], a[1] - b[0]], printed: `${groups[0].mean.printed} − ${groups[1].mean.printed}`, source: 'difference of the means' };
+  }
+  if (groups.length === 1 && groups[0]?.mean) {
+    const a = numberInterval(groups[0].mean);
+    const mu = c.reference?.value.value ?? 0;
+    return { box: [a[0] - mu, a[1] - mu], printed: `${groups[0].mean.printed} − ${mu}`, source: 'mean minus the reference value' };
+  }
+  return { box: midpoint, printed: showInterval(midpoint[0], midpoint[1]), source: 'midpoint' };
+}

@@ -1,0 +1,77 @@
+import { dfInterval, fill, inferDesign, numberInterval, showInterval, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { welchDfRange } from '../src/stats/index.js';
+
+const messages = {
+  'one-group': 'Reported df = {df} for one group of n = {n}; a one-sample or paired t has n − 1 = {expected} df.',
+  'student': "Reported df = {df} for two groups of n = {n1} and {n2}; Student's t has n1 + n2 − 2 = {expected} df.",
+  'paired': 'Reported df = {df} for a paired design with n = {n}; a paired t has n − 1 = {expected} df.',
+  'welch-range': "Reported df = {df} for two groups of n = {n1} and {n2}; Welch's df lies between min(n1, n2) − 1 = {low} and n1 + n2 − 2 = {high}.",
+  'welch-sds': "Reported df = {df}; the Welch–Satterthwaite df from the SDs and ns ({inputs}) is {expected}.",
+};
+
+/** The df agrees with the group sizes (and, for Welch's test, with the SDs). */
+export const dfFollowsFromN: Rule = {
+  id: 'df-follows-from-n',
+  summary: "The df agrees with the group sizes: n − 1, n1 + n2 − 2, or the Welch–Satterthwaite value from the SDs.",
+  kind: 'inconsistency',
+  defaultLevel: 'warning',
+  defaultOptions: {},
+  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  messages,
+  check({ document }) {
+    const out: RuleFinding[] = [];
+    for (const result of document.results) {
+      const r = result.report;
+      const link = result.context.descriptives;
+      if (!r.df || !link) continue;
+      const perGroup = result.context.sampleSizes.find((s) => s.scope === 'per-group')?.n.value;
+      const ns = link.groups.map((g) => g.n?.value ?? perGroup);
+      if (ns.some((n) => n === undefined)) continue;
+      const df = r.df.value;
+      const [dfLow, dfHigh] = dfInterval(r.df);
+      const base = { span: r.df.span, reported: r.printed, resultId: r.id, block: r.block };
+      const design = inferDesign(result);
+      if (ns.length === 1) {
+        const n = ns[0] as number;
+        if (Number.isInteger(df) && df !== n - 1) {
+          out.push({ ...base, messageId: 'one-group', message: fill(messages['one-group'], { df: r.df.printed, n, expected: n - 1 }), check: 'Check the df and n against the output; an n that counts excluded participants is a common cause.' });
+        }
+        continue;
+      }
+      const [n1, n2] = ns as [number, number];
+      if (design === 'paired') {
+        if (n1 === n2 && df !== n1 - 1) {
+          // df = 2n − 2 is design-matches-analysis' finding, not a df typo
+          if (df !== n1 + n2 - 2) out.push({ ...base, messageId: 'paired', message: fill(messages.paired, { df: r.df.printed, n: n1, expected: n1 - 1 }), check: 'Check the df against the number of pairs.' });
+        }
+        continue;
+      }
+      if (Number.isInteger(df)) {
+        if (df !== n1 + n2 - 2 && !(design === 'independent' && n1 === n2 && df === n1 - 1) && !(n1 === n2 && df === n1 - 1)) {
+          out.push({ ...base, messageId: 'student', message: fill(messages.student, { df: r.df.printed, n1, n2, expected: n1 + n2 - 2 }), check: 'Check the df and the group sizes against the output.' });
+        }
+        continue;
+      }
+      const low = Math.min(n1, n2) - 1;
+      const high = n1 + n2 - 2;
+      if (dfHigh < low || dfLow > high) {
+        out.push({ ...base, messageId: 'welch-range', message: fill(messages['welch-range'], { df: r.df.printed, n1, n2, low, high }), check: 'Check the df and the group sizes against the output.' });
+        continue;
+      }
+      const [g1, g2] = link.groups;
+      if (g1?.spread && g2?.spread && link.spreadKinds.every((k) => k === 'SD')) {
+        const range = welchDfRange(numberInterval(g1.spread.number), n1, numberInterval(g2.spread.number), n2);
+        if (range.high < dfLow || range.low > dfHigh) {
+          out.push({
+            ...base,
+            messageId: 'welch-sds',
+            message: fill(messages['welch-sds'], { df: r.df.printed, inputs: `${g1.printed}; ${g2.printed}`, expected: showInterval(range.low, range.high) }),
+            recomputed: { quantity: 'Welch–Satterthwaite df', low: range.low, high: range.high, inputs: [g1.printed, g2.printed], assumptions: ['spreads are SDs, as labelled'] },
+            check: 'Check the df, the SDs and the group sizes against the output.',
+          });
+        }
+      }
+    }
+    return out;
+  },
+};

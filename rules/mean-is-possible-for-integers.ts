@@ -1,0 +1,57 @@
+import { fill, numberInterval, showNumber, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { grimmerPossible, grimPossible } from '../src/stats/index.js';
+
+const messages = {
+  'grim-mean': 'Reported {reported} for {what}: a mean of {n} whole-number scores{items} is a multiple of 1/{total}, and none rounds to {mean}; the nearest possible means are {below} and {above} (GRIM).',
+  'grimmer-sd': 'Reported {reported} for {what}: with n = {n} whole-number scores and this mean, no possible sum of squares gives an SD that rounds to {sd} (GRIMMER).',
+};
+
+/** Means (and SDs) of whole-number data are ones such data can have. */
+export const meanIsPossibleForIntegers: Rule = {
+  id: 'mean-is-possible-for-integers',
+  summary: 'For whole-number data (counts, single items), each mean and SD is one that n such scores can produce (GRIM, GRIMMER).',
+  kind: 'inconsistency',
+  defaultLevel: 'warning',
+  defaultOptions: {},
+  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  messages,
+  check({ document }) {
+    const x = document.extraction;
+    const out: RuleFinding[] = [];
+    for (const g of x.summaries) {
+      if (!g.mean || !g.n || g.percent || g.mean.decimals === 0) continue;
+      // Only where the measure is declared whole-number: configuration/front matter, or the text of the same paragraph.
+      const stated = x.integerMeasures.find((s) => s.segment === g.segment);
+      const items = stated?.items ?? document.integerMeasure?.value.items;
+      if (items === undefined) continue;
+      const n = g.n.value;
+      const [lo, hi] = numberInterval(g.mean);
+      const grim = grimPossible(lo, hi, n, items);
+      const base = { reported: g.printed, block: g.block, ...(stated ? { related: [{ span: stated.span, message: 'where the text says the scores are whole numbers' }] } : {}) };
+      const what = g.label ? `"${g.label}"` : 'this group';
+      if (!grim.possible) {
+        out.push({
+          ...base,
+          messageId: 'grim-mean',
+          span: g.mean.span,
+          message: fill(messages['grim-mean'], { reported: g.printed, what, n, items: items > 1 ? ` of ${items} items` : '', total: n * items, mean: g.mean.printed, below: showNumber(grim.below), above: showNumber(grim.above) }),
+          check: 'Check the mean and n against the data: a typo in either, or an n that counts excluded cases, gives this.',
+        });
+        continue;
+      }
+      if (items === 1 && g.spread?.kind === 'SD' && g.spread.number.decimals > 0) {
+        const [sl, sh] = numberInterval(g.spread.number);
+        if (!grimmerPossible(lo, hi, sl, sh, n)) {
+          out.push({
+            ...base,
+            messageId: 'grimmer-sd',
+            span: g.spread.number.span,
+            message: fill(messages['grimmer-sd'], { reported: g.printed, what, n, sd: g.spread.number.printed }),
+            check: 'Check the SD, mean and n against the data.',
+          });
+        }
+      }
+    }
+    return out;
+  },
+};

@@ -1,0 +1,41 @@
+import { fill, numberInterval, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { percentPossible } from '../src/stats/index.js';
+
+const messages = {
+  'percent-mismatch': 'Reported {reported}: {count} of {n} is {actual}%, which does not round to {percent}% (n = {n} from "{nPrinted}").',
+};
+
+/** A count printed with its percentage agrees with the n it is a percentage of. */
+export const percentageMatchesCount: Rule = {
+  id: 'percentage-matches-count',
+  summary: 'A count printed with its percentage, such as 12 (40%), agrees with the group size in its sentence.',
+  kind: 'inconsistency',
+  defaultLevel: 'warning',
+  defaultOptions: {},
+  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  messages,
+  check({ document }) {
+    const x = document.extraction;
+    const out: RuleFinding[] = [];
+    for (const c of x.counts) {
+      // the n's of the same sentence: printed sample sizes and group sizes
+      const ns = [
+        ...x.sampleSizes.filter((s) => s.segment === c.segment && s.sentence === c.sentence).map((s) => ({ n: s.n.value, printed: s.printed })),
+        ...x.summaries.filter((g) => g.segment === c.segment && g.sentence === c.sentence && g.n).map((g) => ({ n: g.n?.value as number, printed: g.printed })),
+      ].filter((s) => s.n >= c.count.value && s.n > 0);
+      if (ns.length !== 1) continue; // none, or several to choose from: no guess
+      const only = ns[0] as { n: number; printed: string };
+      const [lo, hi] = numberInterval(c.percent);
+      if (percentPossible(c.count.value, only.n, lo, hi)) continue;
+      out.push({
+        messageId: 'percent-mismatch',
+        span: c.span,
+        message: fill(messages['percent-mismatch'], { reported: c.printed, count: c.count.printed, n: only.n, actual: ((100 * c.count.value) / only.n).toFixed(2), percent: c.percent.printed, nPrinted: only.printed }),
+        reported: c.printed,
+        check: 'Check the count, the percentage and the denominator (missing data often change it).',
+        block: c.block,
+      });
+    }
+    return out;
+  },
+};

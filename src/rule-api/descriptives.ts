@@ -1,0 +1,177 @@
+import type { GroupSummary, SpreadKind } from '../extract/types.js';
+import type { Design, LinkedResult } from '../link/index.js';
+import { oneSampleAbsT, studentAbsT, welchAbsT, welchDfRange, type Box, type Interval } from '../stats/index.js';
+import { showInterval } from './format.js';
+import { dfInterval, numberInterval, tInterval } from './intervals.js';
+
+export type Variant = 'one-sample' | 'student' | 'welch';
+export type Reading = 'as labelled' | 'spread read as SE' | 'spread read as SD';
+
+/** One way of recomputing t from the descriptives, and whether it reproduces the printed t. */
+export interface Attempt {
+  variant: Variant;
+  reading: Reading;
+  /** The group sizes used, and where they came from. */
+  ns: number[];
+  nSource: string;
+  absT: Interval;
+  fits: boolean;
+}
+
+export interface DescriptiveEvaluation {
+  groups: GroupSummary[];
+  design: Design;
+  reportedAbsT: Interval;
+  attempts: Attempt[];
+  /** Some variant reproduces t when each spread is read as it is labelled (unstated: either way). */
+  fitsAsLabelled: boolean;
+  /** Only a reading against the label reproduces t. */
+  fitsOnlyAgainstLabel: boolean;
+  /** The kinds in force for each group after document statements. */
+  kinds: SpreadKind[];
+  /** Why some combinations could not be tried (missing n, and so on). */
+  limits: string[];
+}
+
+const box = (n: { value: number; decimals: number; exponent: number; printed: string; span: { start: number; end: number } }): Box => numberInterval(n);
+const MAX_SPLITS = 5000;
+
+/**
+ * Recompute t from the descriptives linked to a result, under every reading the printed
+ * values allow: each variant the design permits (one-sample; Student and Welch for two
+ * independent groups), each spread read as labelled and, for the label-mix-up check, against
+ * it, and every split of a total N when the group sizes are not printed. Undefined when the
+ * result has no linked descriptives with means and spreads, or the design is paired (a paired
+ * t needs the SD of the differences, which is not in two groups' descriptives).
+ */
+export function evaluateDescriptives(result: LinkedResult): DescriptiveEvaluation | undefined {
+  const link = result.context.descriptives;
+  const r = result.report;
+  if (!link || r.tOp !== '=') return undefined;
+  const groups = link.groups;
+  if (!groups.every((g) => g.mean && g.spread)) return undefined;
+  const design = inferDesign(result);
+  const [tLow, tHigh] = tInterval(r);
+  const reportedAbsT: Interval = { low: tLow <= 0 && tHigh >= 0 ? 0 : Math.min(Math.abs(tLow), Math.abs(tHigh)), high: Math.max(Math.abs(tLow), Math.abs(tHigh)) };
+  const fitsT = (i: Interval) => i.low <= reportedAbsT.high && i.high >= reportedAbsT.low;
+  const attempts: Attempt[] = [];
+  const limits: string[] = [];
+  const kinds = link.spreadKinds;
+
+  const readings = (kind: SpreadKind): Array<{ reading: Reading; asSE: boolean; labelled: boolean }> => {
+    if (kind === 'SD') return [{ reading: 'as labelled', asSE: false, labelled: true }, { reading: 'spread read as SE', asSE: true, labelled: false }];
+    if (kind === 'SE') return [{ reading: 'as labelled', asSE: true, labelled: true }, { reading: 'spread read as SD', asSE: false, labelled: false }];
+    return [{ reading: 'spread read as SD', asSE: false, labelled: true }, { reading: 'spread read as SE', asSE: true, labelled: true }];
+  };
+  const sdBox = (g: GroupSummary, n: number, asSE: boolean): Box => {
+    const b = box((g.spread as NonNullable<GroupSummary['spread']>).number);
+    return asSE ? [b[0] * Math.sqrt(n), b[1] * Math.sqrt(n)] : b;
+  };
+  let labelledFit = false;
+  let againstFit = false;
+
+  if (groups.length === 1) {
+    const g = groups[0] as GroupSummary;
+    if (design === 'independent') return undefined;
+    // A one-sample test against an unstated value cannot be recomputed without guessing it.
+    if (!result.context.reference && design !== 'paired') return undefined;
+    const mu0 = result.context.reference?.value.value ?? 0;
+    const n = g.n?.value ?? (r.df && Number.isInteger(r.df.value) ? r.df.value + 1 : undefined);
+    if (!n) return undefined;
+    const nSource = g.n ? `n = ${g.n.printed}` : `n = df + 1 = ${n}`;
+    for (const rd of readings(kinds[0] ?? 'unstated')) {
+      const absT = oneSampleAbsT(box(g.mean as NonNullable<GroupSummary['mean']>), sdBox(g, n, rd.asSE), n, mu0);
+      const fits = fitsT(absT);
+      attempts.push({ variant: 'one-sample', reading: rd.reading, ns: [n], nSource, absT, fits });
+      if (fits && rd.labelled) labelledFit = true;
+      if (fits && !rd.labelled) againstFit = true;
+    }
+  } else if (groups.length === 2) {
+    if (design === 'paired' || design === 'one-sample') return undefined;
+    const [g1, g2] = groups as [GroupSummary, GroupSummary];
+    const splits = candidateSplits(result, g1, g2);
+    if (splits.pairs.length === 0) return undefined;
+    for (const rd1 of readings(kinds[0] ?? 'unstated')) {
+      for (const rd2 of readings(kinds[1] ?? 'unstated')) {
+        if (rd1.asSE !== rd2.asSE) continue; // both groups are printed the same way
+        const labelled = rd1.labelled && rd2.labelled;
+        for (const variant of ['student', 'welch'] as const) {
+          let best: Attempt | undefined;
+          for (const [n1, n2] of splits.pairs) {
+            const m1 = box(g1.mean as NonNullable<GroupSummary['mean']>);
+            const m2 = box(g2.mean as NonNullable<GroupSummary['mean']>);
+            const s1 = sdBox(g1, n1, rd1.asSE);
+            const s2 = sdBox(g2, n2, rd2.asSE);
+            const absT = variant === 'student' ? studentAbsT(m1, s1, n1, m2, s2, n2) : welchAbsT(m1, s1, n1, m2, s2, n2);
+            let fits = fitsT(absT);
+            if (fits && variant === 'welch' && r.df && !Number.isInteger(r.df.value)) {
+              const dfRange = welchDfRange(s1, n1, s2, n2);
+              const [dl, dh] = dfInterval(r.df);
+              fits = dfRange.low <= dh && dfRange.high >= dl;
+            }
+            const attempt: Attempt = { variant, reading: rd1.reading, ns: [n1, n2], nSource: splits.source, absT, fits };
+            if (!best || (fits && !best.fits) || (!best.fits && !fits && gapTo(absT, reportedAbsT) < gapTo(best.absT, reportedAbsT))) best = attempt;
+            if (fits) break;
+          }
+          if (best) {
+            attempts.push(best);
+            if (best.fits && labelled) labelledFit = true;
+            if (best.fits && !labelled) againstFit = true;
+          }
+        }
+      }
+    }
+    if (splits.truncated) limits.push(`only ${MAX_SPLITS} splits of the total tried`);
+  } else return undefined;
+
+  return { groups, design, reportedAbsT, attempts, fitsAsLabelled: labelledFit, fitsOnlyAgainstLabel: !labelledFit && againstFit, kinds, limits };
+}
+
+function gapTo(a: Interval, b: Interval): number {
+  if (a.high < b.low) return b.low - a.high;
+  if (a.low > b.high) return a.low - b.high;
+  return 0;
+}
+
+/**
+ * The design used for recomputation: the linked one; where unknown, the df decides when the
+ * group sizes are printed (n1 + n2 − 2 is independent, n − 1 paired).
+ */
+export function inferDesign(result: LinkedResult): Design {
+  const d = result.context.design.value;
+  if (d !== 'unknown') return d;
+  const groups = result.context.descriptives?.groups ?? [];
+  const df = result.report.df;
+  if (groups.length === 2 && df && groups.every((g) => g.n)) {
+    const [n1, n2] = groups.map((g) => g.n?.value as number) as [number, number];
+    if (df.value === n1 + n2 - 2) return 'independent';
+    if (n1 === n2 && df.value === n1 - 1) return 'paired';
+  }
+  return 'unknown';
+}
+
+/** Group sizes to try: printed ones; a per-group n; else every split of a total N (or of df + 2). */
+function candidateSplits(result: LinkedResult, g1: GroupSummary, g2: GroupSummary): { pairs: Array<[number, number]>; source: string; truncated: boolean } {
+  if (g1.n && g2.n) return { pairs: [[g1.n.value, g2.n.value]], source: `n = ${g1.n.printed} and ${g2.n.printed}`, truncated: false };
+  const perGroup = result.context.sampleSizes.find((s) => s.scope === 'per-group');
+  if (perGroup) return { pairs: [[perGroup.n.value, perGroup.n.value]], source: `${perGroup.n.printed} per group`, truncated: false };
+  const df = result.report.df;
+  const total = result.context.sampleSizes.find((s) => s.scope === 'total')?.n.value ?? (df && Number.isInteger(df.value) ? df.value + 2 : undefined);
+  if (!total || total < 4) return { pairs: [], source: '', truncated: false };
+  const pairs: Array<[number, number]> = [];
+  const half = Math.floor(total / 2);
+  // balanced first, then outward, so the first fitting split found is the most balanced
+  for (let k = 0; k <= half - 2 && pairs.length < MAX_SPLITS; k += 1) {
+    pairs.push([half - k, total - half + k]);
+    if (k > 0 || total % 2 === 1) pairs.push([total - half + k, half - k]);
+  }
+  const source = result.context.sampleSizes.some((s) => s.scope === 'total') ? `any split of N = ${total}` : `any split of df + 2 = ${total}`;
+  return { pairs, source, truncated: pairs.length >= MAX_SPLITS };
+}
+
+/** "Student (n = 24 and 24): |t| 2.01 to 2.05" */
+export function describeAttempt(a: Attempt): string {
+  const name = a.variant === 'student' ? "Student's pooled t" : a.variant === 'welch' ? "Welch's t" : 'one-sample t';
+  const reading = a.reading === 'as labelled' ? '' : `, ${a.reading}`;
+  return `${name} (${a.nSource}${reading}): |t| ${showInterval(a.absT.low, a.absT.high)}`;
+}
