@@ -7,6 +7,7 @@ import { significanceFollowsFromT } from '../../rules/significance-follows-from-
 import { valuesArePossible } from '../../rules/values-are-possible.js';
 import { zeroPIsABound } from '../../rules/zero-p-is-a-bound.js';
 import { ciAgreesWithResult } from '../../rules/ci-agrees-with-result.js';
+import { descriptivesLinkIsUnambiguous } from '../../rules/descriptives-link-is-unambiguous.js';
 import { designMatchesAnalysis } from '../../rules/design-matches-analysis.js';
 import { dfFollowsFromN } from '../../rules/df-follows-from-n.js';
 import { effectSizeFollows } from '../../rules/effect-size-follows.js';
@@ -35,6 +36,7 @@ export const RULES: readonly AnyRule[] = [
   meanIsPossibleForIntegers,
   percentageMatchesCount,
   spreadKindIsStated,
+  descriptivesLinkIsUnambiguous,
   resultIsComplete,
   quietDirectiveHasReason,
   frontMatterIsReadable,

@@ -24,7 +24,7 @@ const MEAN = new RegExp(String.raw`${START}(?:M|Mean|mean|Avg|avg|Average|averag
 const SD = new RegExp(String.raw`${START}\{?(?:SD|sd|s\.d\.|S\.D\.|Std\.? ?Dev\.?|[Ss]tandard deviation)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
 const SE = new RegExp(String.raw`${START}\{?(?:SEM|SE|s\.e\.m\.|s\.e\.|S\.E\.|[Ss]tandard error(?: of the mean)?)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
 const N = new RegExp(String.raw`${START}(?:(n|N)(?:_\{[^{}\n]{1,20}\}|_?[0-9]|_[\p{L}]{1,20})?|[Ss]ample size) ?(?:=|:) ?${INT}(?: (per group|in each group|each|per condition|per arm))?(?![\d.])`, 'dgu');
-const PARTICIPANTS = new RegExp(String.raw`(?<![\p{L}\p{N}.,])${INT} (participants|patients|subjects|people|children|adults|students|staff|volunteers|respondents|women|men|infants|pairs)(?![\p{L}])`, 'dgu');
+const PARTICIPANTS = new RegExp(String.raw`(?<![\p{L}\p{N}.,])${INT} (participants|patients|subjects|people|children|adults|students|staff|volunteers|respondents|women|men|infants|pairs|nurses|doctors|clinicians|workers|employees|mothers|families|households|cases)(?![\p{L}])`, 'dgu');
 const PLUS_MINUS = new RegExp(String.raw`${NUM}( ?%)? ?± ?${NUM}( ?%)?(?: ?\(? ?(SD|SE|SEM|s\.d\.|s\.e\.m\.|s\.e\.|standard deviations?|standard errors?)\)?)?`, 'dgu');
 const MEAN_PAREN = new RegExp(String.raw`(?<![\p{L}\p{N}_.(=])${NUM}( ?%)? ?\((?:(SD|SE|SEM|s\.d\.|s\.e\.)(?: ?=)? ?)?${NUM}( ?%)?\)`, 'dgu');
 const MEAN_PAREN_HEADER = /(?<![\p{L}])(?:M|mean|means)s? ?\((SD|SE|SEM)\)/iu;
@@ -34,11 +34,11 @@ const CI = new RegExp(
 );
 const ESTIMATE = new RegExp(String.raw`${START}(?:mean difference|difference|MD|M_?\{?diff\}?|b|B|β|estimate|Δ) ?(?:=|:|of|was) ?${NUM}`, 'dgu');
 const EFFECT = new RegExp(String.raw`(?<![\p{L}\p{N}_'’])(?:(?:Cohen['’]s|Hedges['’]s?) ?)?(d_?\{?z\}?|d_?\{?av\}?|d|g)(?![\p{L}\p{N}′'’]) ?= ?${NUM}`, 'dgu');
-const PAIRED_WORDS = /(?<![\p{L}])(paired|pre-?test|post-?test|pre- and post|before and after|baseline and (?:at )?follow-?up|same (?:participants|staff|patients|subjects|children|people|individuals|students|sample|group)|within-?subjects?|within-participants?|repeated[- ]measures?|cross-?over|matched[- ]pairs?|measured twice|each participant (?:was|completed))(?![\p{L}])/giu;
+const PAIRED_WORDS = /(?<![\p{L}])(paired|pre-?test|post-?test|pre- and post|before and after|baseline and (?:at )?follow-?up|same (?:participants|staff|patients|subjects|children|people|individuals|students|sample|group|nurses|workers|animals|mice|rats|raters|observers)|within-?subjects?|within-participants?|repeated[- ]measures?|cross-?over|matched[- ]pairs?|measured twice|each participant (?:was|completed))(?![\p{L}])/giu;
 const INDEPENDENT_WORDS = /(?<![\p{L}])(independent[- ]samples?|two independent groups|randomi[sz]ed to|randomly assigned to|between-?subjects?|between-participants?|two-sample|unpaired)(?![\p{L}])/giu;
 const ONE_SAMPLE_WORDS = /(?<![\p{L}])(one-sample|single-sample)(?![\p{L}])/giu;
 const REFERENCE = new RegExp(
-  String.raw`(?:test value|hypothesi[sz]ed (?:value|mean)|reference value|population mean|norm|benchmark|chance(?:[- ]level)?)(?: of| =| at| was| is)? ?\(? ?${NUM}( ?%)?`,
+  String.raw`(?:test value|hypothesi[sz]ed (?:value|mean)|reference value|population mean|norm|benchmark|target|chance(?:[- ]level)?)(?: of| =| at| was| is)? ?\(? ?${NUM}( ?%)?`,
   'dgiu',
 );
 const INTEGER_WORDS = /(?<![\p{L}])(single[- ]item|number of [\p{L}]{2,30}|counts? of [\p{L}]{2,30}|integer[- ]valued|whole numbers|(\d{1,3})-item (?:scale|measure|questionnaire|inventory)|scored (?:from )?\d{1,3} (?:to|–|-) ?\d{1,3})(?![\p{L}])/giu;
@@ -238,6 +238,9 @@ function toSummary(seg: Segment, tokens: Token[], sentenceStarts: number[]): Gro
   if (!meanTok && !spreadTok) return undefined; // a lone n is a sample size, not a group
   const first = tokens[0] as Token;
   const last = tokens[tokens.length - 1] as Token;
+  // "M = 2.39 (SD = 1.10, n = 19)": take the closing parenthesis the group opened.
+  const inner = seg.text.slice(first.start, last.end);
+  const end = (inner.match(/\(/g)?.length ?? 0) > (inner.match(/\)/g)?.length ?? 0) && seg.text[last.end] === ')' ? last.end + 1 : last.end;
   const mean = meanTok?.a;
   let spread: GroupSummary['spread'];
   if (spreadTok) {
@@ -259,8 +262,8 @@ function toSummary(seg: Segment, tokens: Token[], sentenceStarts: number[]): Gro
     segment: seg.id,
     block: seg.block,
     sentence: sentenceOf(sentenceStarts, first.start),
-    span: sourceSpan(seg, first.start, last.end),
-    printed: seg.text.slice(first.start, last.end),
+    span: sourceSpan(seg, first.start, end),
+    printed: seg.text.slice(first.start, end),
     ...(mean ? { mean } : {}),
     ...(spread ? { spread } : {}),
     ...(nTok?.a ? { n: nTok.a } : {}),

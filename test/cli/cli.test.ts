@@ -72,6 +72,30 @@ describe('the demo manuscript', () => {
   });
 });
 
+describe('the descriptives demo manuscript', () => {
+  it('finds each kind of error its invented results were written to show, and nothing else', async () => {
+    const out = await cli(['fixtures/demo/hand-hygiene.md', '--format', 'json']);
+    const report = JSON.parse(out.stdout);
+    const found = report.files[0].findings.map((f: { start: { line: number; column: number }; ruleId: string; messageId: string }) =>
+      `${f.start.line}:${f.start.column} ${f.ruleId}/${f.messageId}`);
+    expect(found).toEqual([
+      '21:54 spread-kind-matches-t/se-labelled-sd',
+      '24:40 df-follows-from-n/student',
+      '30:42 design-matches-analysis/paired-analysed-as-independent',
+      '33:23 paired-correlation-is-possible/correlation-above-one',
+      '35:62 ci-agrees-with-result/width-vs-t',
+      '39:5 mean-is-possible-for-integers/grim-mean',
+      '41:38 percentage-matches-count/percent-mismatch',
+      '43:29 spread-kind-is-stated/unstated-spread',
+      '51:1 effect-size-follows/mismatch',
+    ]);
+    // the correct results were recomputed from their descriptives, not skipped
+    const results = report.files[0].results;
+    expect(results.filter((r: { context: { descriptives?: unknown } }) => r.context.descriptives).length).toBe(7);
+    expect(results.find((r: { start: { line: number } }) => r.start.line === 50).context.descriptives.scope).toBe('table');
+  });
+});
+
 describe('exit codes', () => {
   it('0 when nothing is at error level', async () => {
     const dir = tempTree({ 'a.md': RIGHT + WRONG });
