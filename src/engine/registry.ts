@@ -1,6 +1,7 @@
 import { frontMatterIsReadable } from '../../rules/front-matter-is-readable.js';
 import { oneTailedPIsDeclared } from '../../rules/one-tailed-p-is-declared.js';
 import { pFollowsFromT } from '../../rules/p-follows-from-t.js';
+import { powerStatementFollows } from '../../rules/power-statement-follows.js';
 import { quietDirectiveHasReason } from '../../rules/quiet-directive-has-reason.js';
 import { resultIsComplete } from '../../rules/result-is-complete.js';
 import { significanceFollowsFromT } from '../../rules/significance-follows-from-t.js';
@@ -35,6 +36,7 @@ export const RULES: readonly AnyRule[] = [
   effectSizeFollows,
   meanIsPossibleForIntegers,
   percentageMatchesCount,
+  powerStatementFollows,
   spreadKindIsStated,
   descriptivesLinkIsUnambiguous,
   resultIsComplete,

@@ -4,6 +4,7 @@ import { findStatements } from './statements.js';
 
 /** Cheap pre-check (no global state) before the sentence-level search for t-less p values. */
 const MAY_NAME_T_TEST = /t[- ]tests?|(?:Student|Welch)/i;
+import { findPowerStatements } from './power.js';
 import { findSummaries } from './summaries.js';
 import { findTableSummaries, findTableTests } from './tables.js';
 import { findPWithoutT } from './pWithoutT.js';
@@ -28,6 +29,7 @@ export function extract(doc: ParsedDocument): Extraction {
     references: [],
     integerMeasures: [],
     counts: [],
+    powerStatements: [],
     tables: [],
   };
   for (const seg of doc.segments) {
@@ -46,6 +48,7 @@ export function extract(doc: ParsedDocument): Extraction {
       out.references.push(...found.references);
       out.integerMeasures.push(...found.integerMeasures);
       out.counts.push(...found.counts);
+      out.powerStatements.push(...findPowerStatements(seg, starts));
       if (MAY_NAME_T_TEST.test(seg.text)) out.pWithoutT.push(...findPWithoutT(seg, starts, tests));
     }
   }

@@ -96,6 +96,7 @@ export interface Extraction {
   references: ReferenceValue[];
   integerMeasures: IntegerStatement[];
   counts: CountPercent[];
+  powerStatements: PowerStatement[];
   /** Blocks each table spans, so results can be joined to the table next to them. */
   tables: Array<{ table: number; firstBlock: number; lastBlock: number }>;
 }
@@ -206,4 +207,22 @@ export interface CountPercent {
   percent: ReportedNumber;
   span: Span;
   printed: string;
+}
+
+/** A sample-size or power statement: `80% power to detect d = 0.5 at α = .05 needed 64 per group`. */
+export interface PowerStatement {
+  segment: number;
+  block: number;
+  sentence: number;
+  span: Span;
+  printed: string;
+  power: ReportedNumber;
+  /** The power was printed as a percentage (80%) rather than a proportion (.80). */
+  powerPercent: boolean;
+  d: ReportedNumber;
+  alpha?: number;
+  sides?: 1 | 2;
+  n?: ReportedNumber;
+  nScope: 'per-group' | 'total' | 'unspecified';
+  design: 'two-sample' | 'paired' | 'one-sample';
 }

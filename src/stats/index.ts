@@ -6,3 +6,4 @@ export { oneSampleAbsT, pairedImpliedCorrelation, studentAbsT, welchAbsT, welchD
 export { dAverage, dFromMeansPooled, dFromTIndependent, dzFromT, hedgesCorrection } from './effectSize.js';
 export { ciHalfWidthFromT, pFromConfidenceInterval } from './confidenceInterval.js';
 export { grimmerPossible, grimPossible, percentPossible } from './granularity.js';
+export { requiredN, tTestPower, type PowerDesign } from './power.js';

@@ -4,8 +4,12 @@ declare module 'jstat' {
     inv(p: number, dof: number): number;
     cdf(x: number, dof: number): number;
   }
+  interface NoncentralT {
+    cdf(x: number, dof: number, ncp: number): number;
+  }
   interface JStatStatic {
     studentt: StudentT;
+    noncentralt: NoncentralT;
   }
   const jStat: JStatStatic;
   export default jStat;

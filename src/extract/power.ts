@@ -1,0 +1,70 @@
+import type { Segment } from '../parse/types.js';
+import { readNumber, sentenceOf, sourceSpan } from './numbers.js';
+import type { PowerStatement, ReportedNumber } from './types.js';
+
+const HAS_POWER = /(?<![\p{L}])power(?![\p{L}])/iu;
+const POWER_VALUE = /(?<![\p{L}\p{N}.])(\d{1,3}(?:\.\d{1,2})?) ?% (?:statistical )?power|(?<![\p{L}])power (?:of |= ?|was |is |at )?(0?\.\d{1,3}|\d{1,3}(?:\.\d{1,2})? ?%)/diu;
+const EFFECT = /(?<![\p{L}\p{N}_'’])(?:Cohen['’]s )?d ?(?:=|of) ?([-+]?\d{0,2}\.\d{1,3}|\d{1,2})(?![\d.])/du;
+const ALPHA = /(?:α|alpha)(?: level)? ?(?:=|of|at) ?(0?\.\d{1,4})/iu;
+const SIDES = /(one|two|1|2)[- ](?:tailed|sided)/iu;
+const PER_GROUP = /(?<![\p{L}\p{N}.,])(\d{1,3}(?:,\d{3})?|\d{1,7}) (?:[\p{L}]{3,15} )?(?:per group|in each group|per arm|per condition|in each arm|each)(?![\p{L}])/diu;
+const N_PER_GROUP = /(?<![\p{L}])n ?= ?(\d{1,7}) (?:per group|in each group|per arm|each)/diu;
+const TOTAL = /(?<![\p{L}])(?:total (?:sample )?(?:size )?(?:of |N ?= ?|n ?= ?)?|N ?= ?)(\d{1,3}(?:,\d{3})?|\d{1,7})(?![\d.])/diu;
+const PEOPLE = /(?<![\p{L}\p{N}.,])(\d{1,3}(?:,\d{3})?|\d{1,7}) (?:participants|patients|subjects|people|pairs|children|adults|students|nurses|staff)(?![\p{L}])/diu;
+const PAIRED = /(?<![\p{L}])(paired|within-subjects?|repeated[- ]measures|crossover|pre-post|before and after)(?![\p{L}])/iu;
+const ONE_SAMPLE = /(?<![\p{L}])one-sample(?![\p{L}])/iu;
+
+/** Power and sample-size statements: a sentence that names power, a power value and a d. */
+export function findPowerStatements(seg: Segment, starts: number[]): PowerStatement[] {
+  if (!HAS_POWER.test(seg.text)) return [];
+  const out: PowerStatement[] = [];
+  for (let s = 0; s < starts.length; s += 1) {
+    const a = starts[s] as number;
+    const b = starts[s + 1] ?? seg.text.length;
+    const sentence = seg.text.slice(a, b);
+    if (!HAS_POWER.test(sentence)) continue;
+    const pv = POWER_VALUE.exec(sentence);
+    const d = EFFECT.exec(sentence);
+    if (!pv || !d) continue;
+    const num = (m: RegExpExecArray, g: number): ReportedNumber | undefined => {
+      const at = m.indices?.[g];
+      return at ? readNumber(seg, a + at[0], a + at[1]) : undefined;
+    };
+    const powerGroup = pv[1] !== undefined ? 1 : 2;
+    const rawPower = (pv[powerGroup] as string).replace(/ ?%$/, '');
+    const powerStart = a + (pv.indices?.[powerGroup]?.[0] ?? 0);
+    const power = readNumber(seg, powerStart, powerStart + rawPower.length);
+    const dValue = num(d, 1);
+    if (!power || !dValue) continue;
+    const percent = pv[1] !== undefined || /%$/.test(pv[2] ?? '');
+    const perGroup = N_PER_GROUP.exec(sentence) ?? PER_GROUP.exec(sentence);
+    const total = perGroup ? undefined : (TOTAL.exec(sentence) ?? PEOPLE.exec(sentence));
+    const nMatch = perGroup ?? total;
+    const n = nMatch ? num(nMatch, 1) : undefined;
+    const alpha = ALPHA.exec(sentence);
+    const sides = SIDES.exec(sentence);
+    const design = PAIRED.test(sentence) ? 'paired' : ONE_SAMPLE.test(sentence) ? 'one-sample' : 'two-sample';
+    out.push({
+      segment: seg.id,
+      block: seg.block,
+      sentence: sentenceOf(starts, a),
+      span: sourceSpan(seg, a + pv.index, Math.max(a + pv.index + pv[0].length, n ? indexAfter(seg, n) : 0, indexAfter(seg, dValue))),
+      printed: sentence.trim(),
+      power,
+      powerPercent: percent,
+      d: dValue,
+      ...(alpha ? { alpha: Number(alpha[1]) } : {}),
+      ...(sides ? { sides: /^(one|1)$/i.test(sides[1] as string) ? 1 : 2 } : {}),
+      ...(n ? { n } : {}),
+      nScope: perGroup ? 'per-group' : total && /total|N ?=/i.test(total[0]) ? 'total' : 'unspecified',
+      design,
+    } as PowerStatement);
+  }
+  return out;
+}
+
+function indexAfter(seg: Segment, n: ReportedNumber): number {
+  let i = 0;
+  while (i < seg.ends.length && (seg.ends[i] as number) <= n.span.end) i += 1;
+  return i;
+}
