@@ -6,8 +6,20 @@ export interface RuleCase {
   name: string;
   markdown: string;
   options?: CheckOptions;
-  /** `line:column messageId` for each finding of the rule, in order; [] for accepted cases. */
-  expect: string[];
+  /**
+   * Each finding of the rule, in order: `line:column messageId`, or `{ at, id }` where the
+   * finding must start at the first occurrence of the text `at`; [] for accepted cases.
+   */
+  expect: Array<string | { at: string; id: string }>;
+}
+
+/** 1-based line and column of the first occurrence of `anchor` in `text`. */
+function placeOf(text: string, anchor: string): string {
+  const i = text.indexOf(anchor);
+  if (i < 0) throw new Error(`anchor ${JSON.stringify(anchor)} not in the case`);
+  const before = text.slice(0, i);
+  const line = before.split('\n').length;
+  return `${line}:${i - before.lastIndexOf('\n')}`;
 }
 
 /** Runs a per-rule table: exactly the expected findings of `ruleId`, by place and message id. */
@@ -17,7 +29,7 @@ export function ruleTable(ruleId: string, cases: RuleCase[]): void {
       const got = checkSource('case.md', c.markdown, c.options)
         .findings.filter((f) => f.ruleId === ruleId)
         .map((f) => `${f.start.line}:${f.start.column} ${f.messageId}`);
-      expect(got).toEqual(c.expect);
+      expect(got).toEqual(c.expect.map((e) => (typeof e === 'string' ? e : `${placeOf(c.markdown, e.at)} ${e.id}`)));
     });
   });
 }

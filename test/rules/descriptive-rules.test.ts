@@ -1,0 +1,111 @@
+import { ruleTable } from './table.js';
+
+// Numbers below were computed with scipy.stats (Debian python3-scipy) from the printed
+// descriptives; each name says what the case proves.
+const A = '(M = 45.0, SD = 10.1, n = 24)';
+const B = '(M = 41.2, SD = 9.8, n = 24)';
+
+ruleTable('t-follows-from-descriptives', [
+  { name: 'Student t from the descriptives (1.32)', markdown: `Seated ${A} and standing ${B}, t(46) = 1.32, p = .19.`, expect: [] },
+  { name: 'negative t with the groups the other way round', markdown: `Standing ${B} and seated ${A}, t(46) = -1.32, p = .19.`, expect: [] },
+  { name: 'a t no variant gives', markdown: `Seated ${A} and standing ${B}, t(46) = 2.31, p = .025.`, expect: [{ at: 't(46) = 2.31', id: 'mismatch' }] },
+  { name: 'per-group n stated once', markdown: 'Seated (M = 45.0, SD = 10.1) and standing (M = 41.2, SD = 9.8; n = 24 per group), t(46) = 1.32, p = .19.', expect: [] },
+  { name: 'no n printed: every split of df + 2 is tried', markdown: 'Seated (M = 45.0, SD = 10.1) and standing (M = 41.2, SD = 9.8), t(46) = 1.32, p = .19.', expect: [] },
+  { name: 'no n printed and no split fits (randomised groups)', markdown: 'Randomised to seated (M = 45.0, SD = 10.1) or standing (M = 41.2, SD = 9.8) desks, t(46) = 4.32, p < .001.', expect: [{ at: 't(46)', id: 'mismatch' }] },
+  { name: 'no n printed, no split fits, but the design is unknown and a paired reading is possible', markdown: 'Seated (M = 45.0, SD = 10.1) and standing (M = 41.2, SD = 9.8), t(46) = 4.32, p < .001.', expect: [] },
+  { name: 'table of groups beside the test', markdown: '| Group | Mean | SD | n |\n|---|---|---|---|\n| Seated | 45.0 | 10.1 | 24 |\n| Standing | 41.2 | 9.8 | 24 |\n\nThe groups differed little, t(46) = 1.32, p = .19.', expect: [] },
+  { name: 'table of groups with a wrong t', markdown: '| Group | Mean | SD | n |\n|---|---|---|---|\n| Seated | 45.0 | 10.1 | 24 |\n| Standing | 41.2 | 9.8 | 24 |\n\nThe groups differed, t(46) = 3.32, p = .002.', expect: ['6:22 mismatch'] },
+  { name: 'one "Mean (SD)" column', markdown: '| Group | Mean (SD) | n |\n|---|---|---|\n| Seated | 45.0 (10.1) | 24 |\n| Standing | 41.2 (9.8) | 24 |\n\nThe groups differed little, t(46) = 1.32, p = .19.', expect: [] },
+  { name: 'mean ± SD stated for the document', markdown: 'Values are mean ± SD.\n\nSeated 45.0 ± 10.1 (n = 24) and standing 41.2 ± 9.8 (n = 24), t(46) = 1.32, p = .19.', expect: [] },
+  { name: 'unstated ± tried both ways', markdown: 'Seated 45.0 ± 2.06 (n = 24) and standing 41.2 ± 2.00 (n = 24), t(46) = 1.32, p = .19.', expect: [] },
+  { name: 'one sample against a stated test value', markdown: 'Above the test value of 5 (M = 5.6, SD = 1.9, n = 30), t(29) = 1.73, p = .094.', expect: [] },
+  { name: 'one sample with a wrong t', markdown: 'Above the test value of 5 (M = 5.6, SD = 1.9, n = 30), t(29) = 2.73, p = .011.', expect: [{ at: 't(29)', id: 'mismatch' }] },
+  { name: 'one sample with no stated reference value is not guessed', markdown: 'Scores were high (M = 5.6, SD = 1.9, n = 30), t(29) = 2.73, p = .011.', expect: [] },
+  { name: 'two groups of unknown design that could be paired are not flagged', markdown: 'Before (M = 45.0, SD = 10.1) and after (M = 41.2, SD = 9.8), t(23) = 3.10, p = .005.', expect: [] },
+  { name: "Welch's t named, only Student's fits", markdown: "Seated (M = 45.0, SD = 10.1, n = 10) and standing (M = 41.2, SD = 3.0, n = 40), Welch's t(48) = 2.05, p = .046.", expect: [{ at: 't(48)', id: 'named-variant-mismatch' }] },
+  { name: 'three groups and one test: not guessed', markdown: 'A (M = 40.1, SD = 9.2, n = 20), B (M = 43.0, SD = 9.9, n = 20) and C (M = 46.2, SD = 10.4, n = 20), t(38) = 9.01, p < .001.', expect: [] },
+]);
+
+ruleTable('spread-kind-matches-t', [
+  { name: 'SEs labelled SD', markdown: 'Seated (M = 45.0, SD = 2.06, n = 24) and standing (M = 41.2, SD = 2.00, n = 24), t(46) = 1.32, p = .19.', expect: [{ at: 't(46)', id: 'se-labelled-sd' }] },
+  { name: 'SDs labelled SE', markdown: `Seated (M = 45.0, SE = 10.1, n = 24) and standing (M = 41.2, SE = 9.8, n = 24), t(46) = 1.32, p = .19.`, expect: [{ at: 't(46)', id: 'sd-labelled-se' }] },
+  { name: 'SEs labelled SE', markdown: 'Seated (M = 45.0, SE = 2.06, n = 24) and standing (M = 41.2, SE = 2.00, n = 24), t(46) = 1.32, p = .19.', expect: [] },
+  { name: '± SEM stated beside each value', markdown: 'Seated 45.0 ± 2.06 SEM (n = 24) and standing 41.2 ± 2.00 SEM (n = 24), t(46) = 1.32, p = .19.', expect: [] },
+]);
+
+ruleTable('df-follows-from-n', [
+  { name: 'n1 + n2 − 2', markdown: `Seated ${A} and standing ${B}, t(46) = 1.32, p = .19.`, expect: [] },
+  { name: 'df two short', markdown: `Seated ${A} and standing ${B}, t(44) = 1.32, p = .19.`, expect: [{ at: '44) =', id: 'student' }] },
+  { name: 'one group: n − 1', markdown: 'Above the test value of 5 (M = 5.6, SD = 1.9, n = 30), t(30) = 1.73, p = .094.', expect: [{ at: '30) =', id: 'one-group' }] },
+  { name: 'Welch df within its range and matching the SDs (71.3)', markdown: "(M = 23.2, SD = 7.0, n = 40) and (M = 18.8, SD = 5.1, n = 40), Welch's t(71.3) = 3.21, p = .002.", expect: [] },
+  { name: 'Welch df above n1 + n2 − 2', markdown: "(M = 23.2, SD = 7.0, n = 40) and (M = 18.8, SD = 5.1, n = 40), Welch's t(80.5) = 3.21, p = .002.", expect: [{ at: '80.5', id: 'welch-range' }] },
+  { name: 'paired design: n − 1', markdown: 'The same staff before (M = 45.0, SD = 10.1, n = 24) and after (M = 41.2, SD = 9.8, n = 24), paired t(20) = 3.10, p = .005.', expect: [{ at: '20) =', id: 'paired' }] },
+]);
+
+ruleTable('design-matches-analysis', [
+  { name: 'crossover analysed with 2n − 2', markdown: 'In this crossover, seated weeks (M = 45.0, SD = 10.1, n = 24) and standing weeks (M = 41.2, SD = 9.8, n = 24) gave t(46) = 1.32, p = .19.', expect: [{ at: 't(46)', id: 'paired-analysed-as-independent' }] },
+  { name: 'crossover analysed as paired', markdown: 'In this crossover, seated weeks (M = 45.0, SD = 10.1, n = 24) and standing weeks (M = 41.2, SD = 9.8, n = 24) gave t(23) = 3.10, p = .005.', expect: [] },
+  { name: 'randomised groups analysed with n − 1', markdown: `Staff randomised to seated ${A} or standing ${B} desks gave t(23) = 1.32, p = .20.`, expect: [{ at: 't(23)', id: 'independent-analysed-as-paired' }] },
+  { name: 'no design words: nothing assumed', markdown: `Seated ${A} and standing ${B}, t(23) = 1.32, p = .20.`, expect: [] },
+]);
+
+ruleTable('paired-correlation-is-possible', [
+  { name: 'r above 1', markdown: 'Within-subjects: before (M = 45.0, SD = 6.0) and after (M = 41.2, SD = 12.0), t(23) = 4.50, p < .001.', expect: [{ at: 't(23)', id: 'correlation-above-one' }] },
+  { name: 'r possible', markdown: 'Within-subjects: before (M = 45.0, SD = 6.0) and after (M = 41.2, SD = 12.0), t(23) = 2.50, p = .020.', expect: [] },
+  { name: 'SEs converted to SDs before the check', markdown: 'Within-subjects: before (M = 45.0, SE = 1.22, n = 24) and after (M = 41.2, SE = 2.45, n = 24), t(23) = 2.50, p = .020.', expect: [] },
+  { name: 'independent groups are not checked', markdown: 'Randomised to two desks: (M = 45.0, SD = 6.0, n = 24) and (M = 41.2, SD = 12.0, n = 24), t(46) = 4.50, p < .001.', expect: [] },
+]);
+
+ruleTable('ci-agrees-with-result', [
+  { name: 'CI that fits t (SE from the CI gives 2.94)', markdown: 'difference = 3.8, 95% CI [1.2, 6.4], t(46) = 2.94, p = .005.', expect: [] },
+  { name: 'CI with the normal critical value (Wald)', markdown: 'b = 0.62, t(3.187) = 2.89, p = .058, 95% CI [0.20, 1.03]', expect: [] },
+  { name: 'a group CI right after its mean is not the test CI', markdown: 'Money (M = 251.73, SD = 148.89, 95% CI [198.05, 305.41]) versus buttons (M = 150.11, SD = 116.19), t(66) = 3.15, p = .002.', expect: [] },
+  { name: 'CI from the group means (difference −2, CI centred on −4)', markdown: 'First (n = 4, M = 4.00, SD = 2.45) and second (n = 3, M = 6.00, SD = 2.45), t(5) = -1.07, p = .33, 95% CI [-8.24, 0.24].', expect: [{ at: '95% CI', id: 'not-centred' }] },
+  { name: 'midpoint used when no estimate is printed', markdown: 'The difference was clear, t(23) = -8.02, p < .001, 95% CI [-18.03, 2.10].', expect: [{ at: '95% CI', id: 'width-vs-t' }] },
+  { name: '90% CI is not compared with alpha .05', markdown: 'difference = 3.8, 90% CI [0.3, 7.3], t(46) = 1.82, p = .075.', expect: [] },
+]);
+
+ruleTable('effect-size-follows', [
+  { name: 'pooled d from the means (0.38)', markdown: `Seated ${A} and standing ${B}, t(46) = 1.32, p = .19, d = 0.38.`, expect: [] },
+  { name: "Hedges' g (0.38 × J)", markdown: `Seated ${A} and standing ${B}, t(46) = 1.32, p = .19, g = 0.37.`, expect: [] },
+  { name: 'd_z for a paired test (3.49/√23)', markdown: 'Paired, t(22) = 3.49, p = .002, d = 0.73.', expect: [] },
+  { name: 'd with unknown sizes: 2t/√df', markdown: 'x, t(38) = 2.03, p = .049, d = 0.65.', expect: [] },
+  { name: 'd far from every definition', markdown: `Seated ${A} and standing ${B}, t(46) = 1.32, p = .19, d = 1.10.`, expect: [{ at: 'd = 1.10', id: 'mismatch' }] },
+  { name: 'negative d matches in size', markdown: `Standing ${B} and seated ${A}, t(46) = -1.32, p = .19, d = -0.38.`, expect: [] },
+]);
+
+ruleTable('mean-is-possible-for-integers', [
+  { name: 'impossible mean of 19 single items (hand-checked: 2.39 × 19 = 45.41, no integer rounds there)', markdown: 'The number of reminders averaged M = 2.39 (SD = 1.10, n = 19).', expect: [{ at: '2.39', id: 'grim-mean' }] },
+  { name: 'possible mean (45/19 = 2.368 → 2.37, hand-checked)', markdown: 'The number of reminders averaged M = 2.37 (SD = 1.07, n = 19).', expect: [] },
+  { name: 'k items: 3.48 × 19 × 3 = 198.36; 198/57 = 3.474 and 199/57 = 3.491, so 3.48 is impossible (hand-checked)', markdown: 'A 3-item scale (M = 3.48, SD = 1.20, n = 19).', expect: [{ at: '3.48', id: 'grim-mean' }] },
+  { name: 'on a 4-item scale 3.48 is impossible too (264/76 = 3.474, 265/76 = 3.487; hand-checked)', markdown: 'A 4-item scale (M = 3.48, SD = 1.20, n = 19).', expect: [{ at: '3.48', id: 'grim-mean' }] },
+  { name: 'on a 5-item scale 3.48 is possible (331/95 = 3.484; hand-checked)', markdown: 'A 5-item scale (M = 3.48, SD = 1.20, n = 19).', expect: [] },
+  { name: 'configuration declares whole-number data', markdown: 'Comfort (M = 3.48, SD = 1.47, n = 19).', options: { config: { integerItems: 1 } }, expect: [{ at: '3.48', id: 'grim-mean' }] },
+  { name: 'not applied to continuous measures', markdown: 'Speed in m/s (M = 3.48, SD = 1.47, n = 19).', expect: [] },
+  { name: 'not applied to percentages', markdown: 'The number of correct trials was M = 33.88% (SD = 31%, n = 19).', expect: [] },
+  { name: 'GRIMMER: SD 1.28 impossible with mean 3.47, n = 19 (possible SDs 1.26, 1.31; enumerated with Python)', markdown: 'A single item scored 1–7 (M = 3.47, SD = 1.28, n = 19).', expect: [{ at: '1.28', id: 'grimmer-sd' }] },
+]);
+
+ruleTable('percentage-matches-count', [
+  { name: '10 of 24 is 41.7%, not 40%', markdown: 'Of the 24 staff, 10 (40%) reported pain.', expect: ['1:18 percent-mismatch'] },
+  { name: '10 of 24 printed as 42%', markdown: 'Of the 24 staff, 10 (42%) reported pain.', expect: [] },
+  { name: 'group n in the sentence', markdown: 'In the poster ward (n = 32), 21 (65.6%) complied.', expect: [] },
+  { name: 'two possible denominators: no guess', markdown: 'Of 24 staff and 30 patients, 10 (40%) reported pain.', expect: [] },
+  { name: 'no denominator: no guess', markdown: 'Ten reported pain, 10 (40%).', expect: [] },
+]);
+
+ruleTable('power-statement-follows', [
+  { name: "Cohen's example: 64 per group for d = 0.5", markdown: '80% power to detect d = 0.5 at α = .05 (two-sided) needed 64 per group.', expect: [] },
+  { name: 'within one of the exact answer (393 vs 394)', markdown: '80% power to detect d = 0.2 at α = .05 needed 393 per group.', expect: [] },
+  { name: 'a total N is halved', markdown: 'A total of 128 participants gives 80% power to detect d = 0.5.', expect: [] },
+  { name: 'paired design', markdown: 'A paired design with 34 pairs gives 80% power to detect d = 0.5 at α = .05.', expect: [] },
+  { name: 'power stated for an n (power .70 with 50 per group)', markdown: 'With 50 per group we had 70% power to detect d = 0.5.', expect: [] },
+  { name: 'an n too small for the stated power', markdown: '80% power to detect d = 0.5 at α = .05 (two-sided) needed 40 per group.', expect: ['1:1 n-does-not-give-power'] },
+  { name: 'one-sided alpha makes 51 per group enough', markdown: '80% power to detect d = 0.5 at α = .05 (one-sided) needed 51 per group.', expect: [] },
+]);
+
+ruleTable('descriptives-link-is-unambiguous', [
+  { name: 'three groups and one test', markdown: 'A (M = 40.1, SD = 9.2, n = 20), B (M = 43.0, SD = 9.9, n = 20) and C (M = 46.2, SD = 10.4, n = 20), t(38) = 2.01, p = .052.', expect: [{ at: 't(38)', id: 'ambiguous-link' }] },
+  { name: 'two tests sharing a paragraph of descriptives', markdown: 'Groups: A (M = 40.1, SD = 9.2, n = 20) and B (M = 43.0, SD = 9.9, n = 20). Fatigue differed, t(38) = 0.96, p = .34. Alertness did not, t(38) = 0.51, p = .61.', expect: [{ at: 't(38) = 0.96', id: 'ambiguous-link' }, { at: 't(38) = 0.51', id: 'ambiguous-link' }] },
+  { name: 'one test with its two groups', markdown: 'A (M = 40.1, SD = 9.2, n = 20) and B (M = 43.0, SD = 9.9, n = 20), t(38) = 0.96, p = .34.', expect: [] },
+]);
