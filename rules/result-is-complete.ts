@@ -2,14 +2,13 @@ import { fill, type Rule, type RuleFinding } from '../src/rule-api/index.js';
 
 const messages = {
   'p-missing': 'Reported {reported} with no p value beside it, so the reader cannot see the result of the test.',
-  'df-missing': 'Reported {reported} with no degrees of freedom, so the p value cannot be checked against t.',
   't-missing': 'Reported {reported} for a t-test ("{mention}") without the t statistic and its df, so the p value cannot be checked.',
 };
 
 /** A reported t-test gives t, its df and p together. */
 export const resultIsComplete: Rule = {
   id: 'result-is-complete',
-  summary: 'A reported t-test gives t, its df and p together.',
+  summary: 'A reported t-test gives its p with t, and a p for a t-test comes with its t.',
   kind: 'advice',
   defaultLevel: 'note',
   defaultOptions: {},
@@ -22,9 +21,6 @@ export const resultIsComplete: Rule = {
       // "t(30) < 1" is itself a statement that the test was not significant.
       if (!r.p && r.df && r.tOp === '=') {
         out.push({ messageId: 'p-missing', span: r.span, message: fill(messages['p-missing'], { reported: r.printed }), reported: r.printed, check: 'Add the exact p value (or p < .001).', resultId: r.id, block: r.block });
-      }
-      if (r.p && !r.df) {
-        out.push({ messageId: 'df-missing', span: r.span, message: fill(messages['df-missing'], { reported: r.printed }), reported: r.printed, check: 'Add the degrees of freedom, e.g. t(28) = 2.10.', resultId: r.id, block: r.block });
       }
     }
     for (const item of document.pWithoutT) {

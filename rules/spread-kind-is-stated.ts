@@ -13,6 +13,20 @@ export const spreadKindIsStated: Rule = {
   defaultOptions: {},
   optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
   messages,
+  checklist: {
+    item: 'The kind of spread after ± (SD or SE) is stated',
+    guidelines: { sampl: 'Describe data: say whether ± is SD or SE (from memory)', 'jars-quant': 'Results: descriptive statistics (from memory)' },
+    assess(document) {
+      const x = document.extraction;
+      const pm = x.summaries.filter((g) => g.spread && (g.spread.kind === 'unstated' || g.spread.printedKind));
+      if (pm.length === 0) return [{ scope: 'document', status: 'not-applicable', detail: 'no ± values' }];
+      const statement = x.statements.find((st) => st.kind === 'spread');
+      if (statement) return [{ scope: 'document', status: 'found', span: statement.span, detail: statement.printed, block: statement.block }];
+      const unstated = pm.filter((g) => g.spread?.kind === 'unstated');
+      if (unstated.length === 0) return [{ scope: 'document', status: 'found', span: pm[0]?.span ?? { start: 0, end: 0 }, detail: 'each ± value is labelled' }];
+      return [{ scope: 'document', status: 'missing', span: unstated[0]?.span ?? { start: 0, end: 0 }, detail: `whether ± gives an SD or an SE (${unstated.length} value${unstated.length === 1 ? '' : 's'})` }];
+    },
+  },
   check({ document }) {
     const x = document.extraction;
     if (x.statements.some((s) => s.kind === 'spread')) return [];

@@ -4,7 +4,7 @@ import yargs from 'yargs';
 import { ConfigError, ConfigFinder, readConfigFile, type Config } from '../config/index.js';
 import { ruleDoc, toolVersion } from '../engine/docs.js';
 import { checkSource, RULE_IDS, RULES, ruleById, type FileFailure, type FileReport } from '../engine/index.js';
-import { countRun, formatHuman, formatJson, formatSarif, type RuleInfo, type RunReport } from '../report/index.js';
+import { countRun, formatChecklist, formatHuman, formatJson, formatSarif, type RuleInfo, type RunReport } from '../report/index.js';
 import { describeError, expandArguments } from './files.js';
 
 export interface Io {
@@ -17,7 +17,7 @@ export interface Io {
   columns?: number | undefined;
 }
 
-const FORMATS = ['human', 'json', 'sarif'] as const;
+const FORMATS = ['human', 'json', 'sarif', 'checklist'] as const;
 type Format = (typeof FORMATS)[number];
 
 /** Exit codes: 0 clean, 1 findings over the limits, 2 usage, configuration or read errors. */
@@ -40,6 +40,7 @@ export async function run(argv: string[], io: Io): Promise<number> {
     .option('max-warnings', { type: 'number', describe: 'exit 1 when more warnings than this (default: no limit)' })
     .option('config', { alias: 'c', type: 'string', describe: 'use this configuration file instead of searching for one' })
     .option('stdin-name', { type: 'string', default: 'stdin.md', describe: 'file name (and so format) for "-"' })
+    .option('checklist', { type: 'boolean', describe: 'also check the write-up against reporting guidelines (on with --format checklist)' })
     .option('color', { type: 'boolean', describe: 'colour the human format (default: on a terminal, unless NO_COLOR is set)' })
     .strict()
     .help()
@@ -108,7 +109,8 @@ export async function run(argv: string[], io: Io): Promise<number> {
   const finder = new ConfigFinder(RULE_IDS);
   const reports: FileReport[] = [];
   const failures: FileFailure[] = [];
-  const options = { ...(alpha !== undefined ? { alpha } : {}), ...(parsed.tails ? { sidedness: parsed.tails } : {}) };
+  const checklist = parsed.checklist ?? (parsed.format === 'checklist' ? true : undefined);
+  const options = { ...(alpha !== undefined ? { alpha } : {}), ...(parsed.tails ? { sidedness: parsed.tails } : {}), ...(checklist !== undefined ? { checklist } : {}) };
 
   const checkOne = (path: string, source: string, configPath: string) => {
     let config: Config;
@@ -143,11 +145,13 @@ export async function run(argv: string[], io: Io): Promise<number> {
     tool: { name: 'plumbline', version: toolVersion() },
     files: reports,
     failures,
-    rules: RULES.map((r): RuleInfo => ({ id: r.id, summary: r.summary, kind: r.kind, defaultLevel: r.defaultLevel, doc: ruleDoc(r.id) })),
+    // the pages are read only for SARIF, the one format that carries them
+    rules: RULES.map((r): RuleInfo => ({ id: r.id, summary: r.summary, kind: r.kind, defaultLevel: r.defaultLevel, doc: parsed.format === 'sarif' ? ruleDoc(r.id) : '' })),
   };
   const format = parsed.format as Format;
   if (format === 'json') io.stdout(formatJson(runReport));
   else if (format === 'sarif') io.stdout(formatSarif(runReport, io.cwd));
+  else if (format === 'checklist') io.stdout(formatChecklist(runReport));
   else {
     const color = parsed.color ?? (io.isTTY && !('NO_COLOR' in io.env && io.env.NO_COLOR !== ''));
     io.stdout(formatHuman(runReport, { color, width: io.columns ?? 100 }));

@@ -7,9 +7,9 @@ import type { DocumentSettings, ResultContext, Setting } from '../link/index.js'
 import { LineIndex, parseDocument } from '../parse/index.js';
 import type { ParsedDocument, Span } from '../parse/types.js';
 import { evaluateP } from '../rule-api/evaluate.js';
-import type { Level, LevelSetting } from '../rule-api/types.js';
+import type { Guideline, Level, LevelSetting } from '../rule-api/types.js';
 import { RULE_IDS, RULES } from './registry.js';
-import type { FileReport, Finding, NumberRecord, Place, ResultRecord } from './types.js';
+import type { ChecklistRecord, FileReport, Finding, NumberRecord, Place, ResultRecord } from './types.js';
 
 export type * from './types.js';
 export { RULES, RULE_IDS, ruleById } from './registry.js';
@@ -20,6 +20,8 @@ export interface CheckOptions {
   /** Command-line settings; they win over front matter and configuration files. */
   alpha?: number;
   sidedness?: Sidedness;
+  /** Run the reporting-checklist rules (also on with `checklist: true` in configuration). */
+  checklist?: boolean;
   /** Read the source as this format instead of guessing from the path. */
   format?: 'markdown' | 'rmarkdown' | 'text';
 }
@@ -31,15 +33,35 @@ export interface CheckOptions {
 export function checkSource(path: string, source: string, options: CheckOptions = {}): FileReport {
   const doc = parseDocument(path, source, options.format);
   const lines = new LineIndex(source);
-  const { settings, levels } = resolveSettings(doc, options);
+  const { settings, levels, guidelines, checklistOn } = resolveSettings(doc, options);
   const extraction = extract(doc);
   const linked = link(extraction, doc.directives, settings);
   const place = (span: Span): Place => ({ span, start: lines.position(span.start), end: lines.position(span.end) });
 
   const findings: Finding[] = [];
+  const checklist: ChecklistRecord[] = [];
   for (const rule of RULES) {
     const level = levels[rule.id] ?? rule.defaultLevel;
     if (level === 'off') continue;
+    if (rule.checklistOnly && !checklistOn) continue;
+    const item = checklistOn ? rule.checklist : undefined;
+    const refs = item ? Object.fromEntries(Object.entries(item.guidelines).filter(([g]) => guidelines.includes(g as Guideline))) : {};
+    // no selected guideline asks for it: a pure checklist item is then skipped altogether
+    if (rule.checklistOnly && Object.keys(refs).length === 0) continue;
+    if (item && Object.keys(refs).length > 0) {
+      checklist.push({
+        ruleId: rule.id,
+        item: item.item,
+        guidelines: refs,
+        entries: item.assess(linked).map((e) => ({
+          scope: e.scope,
+          ...(e.resultId ? { resultId: e.resultId } : {}),
+          status: e.status,
+          detail: e.detail,
+          ...(e.span ? { place: place(e.span) } : {}),
+        })),
+      });
+    }
     for (const f of rule.check({ document: linked, options: rule.defaultOptions })) {
       if (f.block !== undefined && isQuieted(doc, f.block, rule.id)) continue;
       const { block: _block, related, ...rest } = f;
@@ -76,7 +98,7 @@ export function checkSource(path: string, source: string, options: CheckOptions 
       ...(e ? { recomputed: { twoTailed: e.check.twoSided, oneTailed: e.check.oneSidedSame, standing: e.standing } } : {}),
     };
   });
-  return { path, format: doc.format, results, findings, alpha: linked.documentAlpha, sidedness: linked.documentSidedness, source };
+  return { path, format: doc.format, results, findings, checklist, guidelines, alpha: linked.documentAlpha, sidedness: linked.documentSidedness, source };
 }
 
 function contextRecord(c: ResultContext, place: (s: Span) => Place): ResultRecord['context'] {
@@ -105,7 +127,12 @@ function isQuieted(doc: ParsedDocument, block: number, ruleId: string): boolean 
 }
 
 /** Settings from front matter (`plumbline:` key) over configuration, under the command line. */
-function resolveSettings(doc: ParsedDocument, options: CheckOptions): { settings: DocumentSettings; levels: Record<string, LevelSetting> } {
+const ALL_GUIDELINES: Guideline[] = ['sampl', 'jars-quant', 'consort'];
+
+function resolveSettings(
+  doc: ParsedDocument,
+  options: CheckOptions,
+): { settings: DocumentSettings; levels: Record<string, LevelSetting>; guidelines: Guideline[]; checklistOn: boolean } {
   const config = options.config ?? {};
   let front: Config = {};
   let frontMatterError: DocumentSettings['frontMatterError'];
@@ -129,6 +156,8 @@ function resolveSettings(doc: ParsedDocument, options: CheckOptions): { settings
   return {
     settings: { ...(integerMeasure ? { integerMeasure } : {}), ...(alpha ? { alpha } : {}), ...(sidedness ? { sidedness } : {}), ...(frontMatterError ? { frontMatterError } : {}) },
     levels: { ...config.rules, ...front.rules },
+    guidelines: ((g) => (g === undefined || g === 'all' ? ALL_GUIDELINES : g))(front.guidelines ?? config.guidelines),
+    checklistOn: options.checklist ?? front.checklist ?? config.checklist ?? false,
   };
 }
 

@@ -18,6 +18,21 @@ import { percentageMatchesCount } from '../../rules/percentage-matches-count.js'
 import { spreadKindIsStated } from '../../rules/spread-kind-is-stated.js';
 import { spreadKindMatchesT } from '../../rules/spread-kind-matches-t.js';
 import { tFollowsFromDescriptives } from '../../rules/t-follows-from-descriptives.js';
+import { alphaIsStated } from '../../rules/alpha-is-stated.js';
+import { assumptionsAreChecked } from '../../rules/assumptions-are-checked.js';
+import { descriptivesWithN } from '../../rules/descriptives-with-n.js';
+import { effectSizeWithCi } from '../../rules/effect-size-with-ci.js';
+import { groupSizesSumToTotal } from '../../rules/group-sizes-sum-to-total.js';
+import { multipleComparisonsAddressed } from '../../rules/multiple-comparisons-addressed.js';
+import { noTrendWording } from '../../rules/no-trend-wording.js';
+import { pIsExact } from '../../rules/p-is-exact.js';
+import { pPrecisionIsSensible } from '../../rules/p-precision-is-sensible.js';
+import { repeatedResultAgrees } from '../../rules/repeated-result-agrees.js';
+import { sampleSizeAgreesWithDf } from '../../rules/sample-size-agrees-with-df.js';
+import { softwareIsNamed } from '../../rules/software-is-named.js';
+import { statisticHasDf } from '../../rules/statistic-has-df.js';
+import { tailsAreStated } from '../../rules/tails-are-stated.js';
+import { testIsNamed } from '../../rules/test-is-named.js';
 import type { AnyRule } from '../rule-api/types.js';
 
 /** Every rule, in the order their findings are listed for one place. */
@@ -39,7 +54,22 @@ export const RULES: readonly AnyRule[] = [
   powerStatementFollows,
   spreadKindIsStated,
   descriptivesLinkIsUnambiguous,
+  sampleSizeAgreesWithDf,
+  groupSizesSumToTotal,
+  repeatedResultAgrees,
   resultIsComplete,
+  testIsNamed,
+  tailsAreStated,
+  alphaIsStated,
+  pIsExact,
+  pPrecisionIsSensible,
+  statisticHasDf,
+  effectSizeWithCi,
+  descriptivesWithN,
+  softwareIsNamed,
+  assumptionsAreChecked,
+  multipleComparisonsAddressed,
+  noTrendWording,
   quietDirectiveHasReason,
   frontMatterIsReadable,
 ];

@@ -1,7 +1,7 @@
 import type { Comparison, ReportStyle, Sidedness } from '../extract/types.js';
 import type { Setting } from '../link/types.js';
 import type { Position, SourceFormat, Span } from '../parse/types.js';
-import type { Gap, Level, Recomputed } from '../rule-api/types.js';
+import type { Gap, Guideline, Level, Recomputed } from '../rule-api/types.js';
 
 /** A place in a file: offsets and 1-based line/column of both ends (end exclusive). */
 export interface Place {
@@ -64,11 +64,22 @@ export interface Finding extends Place {
   resultId?: string;
 }
 
+/** One checklist item for a file: the guideline items it follows and its entries. */
+export interface ChecklistRecord {
+  ruleId: string;
+  item: string;
+  guidelines: Partial<Record<Guideline, string>>;
+  entries: Array<{ scope: 'document' | 'result'; resultId?: string; status: 'found' | 'missing' | 'not-applicable'; detail: string; place?: Place }>;
+}
+
 export interface FileReport {
   path: string;
   format: SourceFormat;
   results: ResultRecord[];
   findings: Finding[];
+  /** The reporting checklist, for the guidelines selected (all by default). */
+  checklist: ChecklistRecord[];
+  guidelines: Guideline[];
   alpha: Setting<number>;
   sidedness: Setting<Sidedness>;
   /** The source text, for formatters that show the line of a finding. */

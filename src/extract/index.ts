@@ -4,6 +4,7 @@ import { findStatements } from './statements.js';
 
 /** Cheap pre-check (no global state) before the sentence-level search for t-less p values. */
 const MAY_NAME_T_TEST = /t[- ]tests?|(?:Student|Welch)/i;
+import { findMentions } from './mentions.js';
 import { findPowerStatements } from './power.js';
 import { findSummaries } from './summaries.js';
 import { findTableSummaries, findTableTests } from './tables.js';
@@ -30,6 +31,8 @@ export function extract(doc: ParsedDocument): Extraction {
     integerMeasures: [],
     counts: [],
     powerStatements: [],
+    mentions: [],
+    sections: doc.segments.map((s) => s.section),
     tables: [],
   };
   for (const seg of doc.segments) {
@@ -49,6 +52,7 @@ export function extract(doc: ParsedDocument): Extraction {
       out.integerMeasures.push(...found.integerMeasures);
       out.counts.push(...found.counts);
       out.powerStatements.push(...findPowerStatements(seg, starts));
+      out.mentions.push(...findMentions(seg, starts));
       if (MAY_NAME_T_TEST.test(seg.text)) out.pWithoutT.push(...findPWithoutT(seg, starts, tests));
     }
   }

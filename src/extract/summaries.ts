@@ -124,7 +124,8 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
   }
   for (const m of text.matchAll(PARTICIPANTS)) {
     const a = num(seg, m, 1);
-    if (a) sampleSizes.push({ ...where(m.index, m.index + m[0].length), n: a, scope: 'total' });
+    // "N = 60 staff" is one statement of the total, already read
+    if (a && !sampleSizes.some((s) => s.n.span.start === a.span.start)) sampleSizes.push({ ...where(m.index, m.index + m[0].length), n: a, scope: 'total' });
   }
   tokens.sort((x, y) => x.start - y.start);
 

@@ -97,6 +97,9 @@ export interface Extraction {
   integerMeasures: IntegerStatement[];
   counts: CountPercent[];
   powerStatements: PowerStatement[];
+  mentions: Mention[];
+  /** The heading each segment sits under (by segment id), for abstract-versus-results checks. */
+  sections: Array<string | undefined>;
   /** Blocks each table spans, so results can be joined to the table next to them. */
   tables: Array<{ table: number; firstBlock: number; lastBlock: number }>;
 }
@@ -225,4 +228,16 @@ export interface PowerStatement {
   n?: ReportedNumber;
   nScope: 'per-group' | 'total' | 'unspecified';
   design: 'two-sample' | 'paired' | 'one-sample';
+}
+
+/** Words that reporting guidelines look for. */
+export interface Mention {
+  kind: 'software' | 'assumption' | 'multiplicity' | 'trend' | 'exclusion' | 'test-name';
+  segment: number;
+  block: number;
+  sentence: number;
+  span: Span;
+  printed: string;
+  /** For software: the version printed with it. */
+  version?: string;
 }

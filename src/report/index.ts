@@ -2,3 +2,4 @@ export { formatHuman, type HumanOptions } from './human.js';
 export { formatJson, JSON_REPORT_VERSION } from './json.js';
 export { formatSarif, artifactUri } from './sarif.js';
 export { CAUTIONS, countRun, type Counts, type RuleInfo, type RunReport } from './types.js';
+export { formatChecklist } from './checklist.js';

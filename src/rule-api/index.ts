@@ -4,3 +4,5 @@ export { describeDf, describeT, dfInterval, numberInterval, pInterval, pLastDigi
 export { describeTails, evaluateP, showRange, type PEvaluation, type PStanding } from './evaluate.js';
 export { pMessageId, pPlaceholders } from './pMessages.js';
 export { describeAttempt, evaluateDescriptives, inferDesign, type Attempt, type DescriptiveEvaluation, type Reading, type Variant } from './descriptives.js';
+export { checklistRule, type ChecklistRuleSpec } from './checklist.js';
+export { documentAnchor } from './docs.js';

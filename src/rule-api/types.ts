@@ -68,6 +68,10 @@ export interface Rule<Options extends object = Record<string, never>> {
   messages: Record<string, string>;
   /** Pure: reads linked results, calls stats, returns findings. */
   check(context: RuleContext<Options>): RuleFinding[];
+  /** Present on reporting-checklist rules: their item and its per-document/per-result status. */
+  checklist?: ChecklistItem;
+  /** Runs only when the checklist is asked for (pure guideline items, no numbers). */
+  checklistOnly?: boolean;
 }
 
 /** Any rule, whatever its options: what the registry holds. */
@@ -75,3 +79,25 @@ export interface Rule<Options extends object = Record<string, never>> {
 export type AnyRule = Rule<object>;
 
 export type { LinkedResult };
+
+export type Guideline = 'sampl' | 'jars-quant' | 'consort';
+
+/** One line of the reporting checklist: an item, for the document or one result, and its status. */
+export interface ChecklistEntry {
+  scope: 'document' | 'result';
+  resultId?: string;
+  status: 'found' | 'missing' | 'not-applicable';
+  /** Where it was found; for a missing per-result item, the result. */
+  span?: Span;
+  /** What was found or what is missing, in plain words. */
+  detail: string;
+  block?: number;
+}
+
+/** What a checklist rule adds to a rule: the item, the guideline items it follows, and its assessment. */
+export interface ChecklistItem {
+  item: string;
+  /** The guideline item each selected guideline numbers it as (from memory where marked). */
+  guidelines: Partial<Record<Guideline, string>>;
+  assess(document: LinkedDocument): ChecklistEntry[];
+}

@@ -9,10 +9,16 @@ interface Example {
   expect?: string[];
 }
 
+/** The page with fenced blocks blanked out, so headings inside examples are not taken for sections. */
+function outsideFences(page: string): string {
+  return page.replace(/```[\s\S]*?```/g, (block) => block.replace(/[^\n]/g, ' '));
+}
+
 /** The fenced examples of one section of a rule page. */
 function examples(page: string, section: string): Example[] {
-  const start = page.indexOf(`\n## ${section}\n`);
-  const end = page.indexOf('\n## ', start + 4);
+  const plain = outsideFences(page);
+  const start = plain.indexOf(`\n## ${section}\n`);
+  const end = plain.indexOf('\n## ', start + 4);
   const body = page.slice(start, end < 0 ? undefined : end);
   const blocks = [...body.matchAll(/```(markdown|expect)\n([\s\S]*?)```/g)];
   const out: Example[] = [];
@@ -27,7 +33,7 @@ describe.each(RULES.map((r) => [r.id, r] as const))('rules/%s.md', (id, rule) =>
   const page = readFileSync(new URL(`../../rules/${id}.md`, import.meta.url), 'utf8');
 
   it('has the page sections in order, the summary and the default level', () => {
-    const found = [...page.matchAll(/^## (.+)$/gm)].map((m) => m[1]);
+    const found = [...outsideFences(page).matchAll(/^## (.+)$/gm)].map((m) => m[1]);
     expect(found).toEqual(SECTIONS);
     expect(page.startsWith(`# ${id}\n\n${rule.summary}\n`)).toBe(true);
     expect(page).toContain(`- Default level: ${rule.defaultLevel}`);
@@ -43,14 +49,14 @@ describe.each(RULES.map((r) => [r.id, r] as const))('rules/%s.md', (id, rule) =>
   });
 
   it.each(flagged.map((f) => [f.markdown.trim().split('\n')[0], f] as const))('flags: %s', (_title, example) => {
-    const got = checkSource('example.md', example.markdown)
+    const got = checkSource('example.md', example.markdown, { checklist: true })
       .findings.filter((f) => f.ruleId === id)
       .map((f) => `${f.start.line}:${f.start.column} ${f.messageId}`);
     expect(got).toEqual(example.expect);
   });
 
   it.each(accepted.map((a) => [a.markdown.trim().split('\n')[0], a] as const))('accepts: %s', (_title, example) => {
-    const got = checkSource('example.md', example.markdown).findings.filter((f) => f.ruleId === id);
+    const got = checkSource('example.md', example.markdown, { checklist: true }).findings.filter((f) => f.ruleId === id);
     expect(got.map((f) => f.message)).toEqual([]);
   });
 });

@@ -26,7 +26,7 @@ function placeOf(text: string, anchor: string): string {
 export function ruleTable(ruleId: string, cases: RuleCase[]): void {
   describe(ruleId, () => {
     it.each(cases)('$name', (c) => {
-      const got = checkSource('case.md', c.markdown, c.options)
+      const got = checkSource('case.md', c.markdown, { checklist: true, ...c.options })
         .findings.filter((f) => f.ruleId === ruleId)
         .map((f) => `${f.start.line}:${f.start.column} ${f.messageId}`);
       expect(got).toEqual(c.expect.map((e) => (typeof e === 'string' ? e : `${placeOf(c.markdown, e.at)} ${e.id}`)));

@@ -1,0 +1,22 @@
+import { checklistRule, type ChecklistEntry } from '../src/rule-api/index.js';
+
+/** Each result gives an effect size and a confidence interval (CONSORT 17a). */
+export const effectSizeWithCi = checklistRule({
+  id: 'effect-size-with-ci',
+  summary: 'Each result gives an effect size (a difference or a standardised d) with its confidence interval.',
+  item: 'An effect size with its confidence interval is given',
+  guidelines: { sampl: 'Report effect sizes with CIs (from memory)', 'jars-quant': 'Results: effect sizes and confidence intervals (from memory)', consort: '17a' },
+  missingMessage: 'Reported {detail}.',
+  check: 'Give the estimated difference (or d) with its 95% CI beside the test.',
+  assess(document) {
+    return document.results.map((result): ChecklistEntry => {
+      const r = result.report;
+      const c = result.context;
+      const base = { scope: 'result' as const, resultId: r.id, block: r.block };
+      const effect = c.effectSizes[0] ?? c.estimate;
+      if (c.interval && (effect || c.descriptives)) return { ...base, status: 'found', span: c.interval.span, detail: `${effect ? `${effect.printed}, ` : ''}${c.interval.printed}` };
+      const missing = c.interval ? 'an effect size' : effect ? 'a confidence interval' : 'an effect size or a confidence interval';
+      return { ...base, status: 'missing', span: r.span, detail: `${r.printed} without ${missing}` };
+    });
+  },
+});

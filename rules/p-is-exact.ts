@@ -1,0 +1,25 @@
+import { checklistRule, type ChecklistEntry } from '../src/rule-api/index.js';
+
+/** Each p is given exactly (p < .001 allowed), not as p < .05 or n.s. */
+export const pIsExact = checklistRule({
+  id: 'p-is-exact',
+  summary: 'Each p is given as an exact value (p < .001 is fine), not as a bound such as p < .05 or as n.s.',
+  item: 'An exact p is given (p < .001 allowed)',
+  guidelines: { sampl: 'Hypothesis tests: exact P values (from memory)', 'jars-quant': 'Results: exact p values (from memory)' },
+  missingMessage: 'Reported {detail}; give the exact p (or p < .001).',
+  check: 'Replace the bound or "n.s." with the exact p value from the output.',
+  assess(document) {
+    return document.results.map((result): ChecklistEntry => {
+      const r = result.report;
+      const base = { scope: 'result' as const, resultId: r.id, block: r.block };
+      const p = r.p;
+      if (!p) return { ...base, status: 'not-applicable', detail: 'no p reported (see result-is-complete)' };
+      if (r.plural) return { ...base, status: 'not-applicable', detail: 'several tests summarised by one bound' };
+      if (p.kind === 'ns') return { ...base, status: 'missing', span: p.span, detail: `"${p.printed}"` };
+      const v = p.number?.value ?? NaN;
+      if (p.op === '=' || p.op === '~') return { ...base, status: 'found', span: p.span, detail: p.printed };
+      if ((p.op === '<' || p.op === '<=') && v <= 0.001) return { ...base, status: 'found', span: p.span, detail: p.printed };
+      return { ...base, status: 'missing', span: p.span, detail: p.printed };
+    });
+  },
+});

@@ -1,0 +1,53 @@
+import { fill, inferDesign, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+
+const messages = {
+  'df-imply-other-n': 'The document states {stated} ({where}), but every t-test implies a different number analysed: {implied}. Nothing in the text mentions exclusions or missing data.',
+};
+
+const BEFORE_RESULTS = /abstract|summary|method|participant|sample|subject|design|procedure/i;
+
+/** The total N stated for the study agrees with the df of the tests, or the text says why not. */
+export const sampleSizeAgreesWithDf: Rule = {
+  id: 'sample-size-agrees-with-df',
+  summary: 'The total N stated in the abstract or methods agrees with the df the results imply, or the text explains the difference (exclusions, missing data).',
+  kind: 'doubtful',
+  defaultLevel: 'warning',
+  defaultOptions: {},
+  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  messages,
+  check({ document }) {
+    const x = document.extraction;
+    const totals = x.sampleSizes.filter((s) => s.scope === 'total' && BEFORE_RESULTS.test(x.sections[s.segment] ?? ''));
+    const stated = totals[0];
+    if (!stated || document.results.length === 0) return [];
+    if (x.mentions.some((m) => m.kind === 'exclusion')) return [];
+    // Each test implies the number analysed: df + 2 for two independent groups, df + 1 for one
+    // group or pairs; with the design unknown, either.
+    const implied = document.results
+      .filter((r) => r.report.df && Number.isInteger(r.report.df.value) && !r.report.plural)
+      .map((r) => {
+        const df = r.report.df?.value as number;
+        const d = inferDesign(r);
+        return { result: r, ns: d === 'independent' ? [df + 2] : d === 'paired' || d === 'one-sample' ? [df + 1] : [df + 1, df + 2] };
+      });
+    if (implied.length === 0) return [];
+    const N = stated.n.value;
+    // Subgroup analyses use fewer; only when no test uses the whole sample is something unexplained.
+    if (implied.some((i) => i.ns.includes(N))) return [];
+    const largest = Math.max(...implied.flatMap((i) => i.ns));
+    if (largest >= N) return [];
+    const shown = [...new Set(implied.map((i) => i.ns.join(' or ')))].slice(0, 6).join('; ');
+    const first = implied[0]?.result.report;
+    const out: RuleFinding[] = [{
+      messageId: 'df-imply-other-n',
+      span: stated.span,
+      message: fill(messages['df-imply-other-n'], { stated: stated.printed, where: x.sections[stated.segment] ?? 'before the results', implied: shown }),
+      reported: stated.printed,
+      recomputed: { quantity: 'largest number analysed (df + 1 or df + 2)', low: largest, high: largest, inputs: implied.map((i) => i.result.report.printed), assumptions: ['df + 2 for two independent groups, df + 1 for one group or pairs'] },
+      check: 'Say how many participants were analysed in each test and why some were left out (a flow diagram helps).',
+      related: first ? [{ span: first.span, message: 'the first test' }] : [],
+      block: stated.block,
+    }];
+    return out;
+  },
+};

@@ -1,0 +1,45 @@
+import type { ChecklistItem, Rule, RuleFinding } from './types.js';
+
+export interface ChecklistRuleSpec extends ChecklistItem {
+  id: string;
+  summary: string;
+  /** Message for a missing entry; `{detail}` is the entry's detail. */
+  missingMessage: string;
+  check: string;
+  defaultLevel?: 'note' | 'warning' | 'error';
+}
+
+/**
+ * A reporting-checklist rule: its findings are exactly the entries its assessment marks
+ * missing, so the checklist and the findings can never disagree.
+ */
+export function checklistRule(spec: ChecklistRuleSpec): Rule {
+  const messages = { missing: spec.missingMessage };
+  return {
+    id: spec.id,
+    summary: spec.summary,
+    kind: 'advice',
+    defaultLevel: spec.defaultLevel ?? 'note',
+    defaultOptions: {},
+    optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+    messages,
+    checklist: { item: spec.item, guidelines: spec.guidelines, assess: spec.assess },
+    checklistOnly: true,
+    check({ document }) {
+      const out: RuleFinding[] = [];
+      for (const e of spec.assess(document)) {
+        if (e.status !== 'missing' || !e.span) continue;
+        out.push({
+          messageId: 'missing',
+          span: e.span,
+          message: spec.missingMessage.replace('{detail}', e.detail),
+          reported: e.detail,
+          check: spec.check,
+          ...(e.resultId ? { resultId: e.resultId } : {}),
+          ...(e.block !== undefined ? { block: e.block } : {}),
+        });
+      }
+      return out;
+    },
+  };
+}

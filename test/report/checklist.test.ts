@@ -1,0 +1,96 @@
+import { readFileSync } from 'node:fs';
+import { Ajv2020 } from 'ajv/dist/2020.js';
+import { describe, expect, it } from 'vitest';
+import { checkSource, type FileReport } from '../../src/engine/index.js';
+import { formatChecklist, formatJson } from '../../src/report/index.js';
+
+const check = (path: string, options = {}) => checkSource(path, readFileSync(path, 'utf8'), { checklist: true, ...options });
+
+/** item id → statuses, document entries first, then per result in reading order */
+function statuses(report: FileReport): Record<string, string[]> {
+  return Object.fromEntries(report.checklist.map((c) => [c.ruleId, c.entries.map((e) => e.status)]));
+}
+
+describe('a report that meets every item (fixtures/checklist/complete.md, invented)', () => {
+  const report = check('fixtures/checklist/complete.md');
+  it('finds every item, with its place', () => {
+    expect(statuses(report)).toEqual({
+      'spread-kind-is-stated': ['not-applicable'],
+      'test-is-named': ['found', 'found'],
+      'tails-are-stated': ['found'],
+      'alpha-is-stated': ['found'],
+      'p-is-exact': ['found', 'found'],
+      'p-precision-is-sensible': ['found', 'found'],
+      'statistic-has-df': ['found', 'found'],
+      'effect-size-with-ci': ['found', 'found'],
+      'descriptives-with-n': ['found', 'found'],
+      'software-is-named': ['found'],
+      'assumptions-are-checked': ['found'],
+      'multiple-comparisons-addressed': ['not-applicable'],
+      'no-trend-wording': ['not-applicable', 'not-applicable'],
+    });
+    const software = report.checklist.find((c) => c.ruleId === 'software-is-named')?.entries[0];
+    expect(software?.place?.start).toEqual({ line: 17, column: 39 });
+    expect(software?.detail).toBe('R 4.4.1');
+  });
+  it('and gives no finding at all', () => {
+    expect(report.findings.map((f) => `${f.start.line} ${f.ruleId}/${f.messageId}`)).toEqual([]);
+    expect(report.results).toHaveLength(2);
+  });
+});
+
+describe('a report that meets none (fixtures/checklist/bare.md, invented)', () => {
+  const report = check('fixtures/checklist/bare.md');
+  it('marks every item missing where it applies', () => {
+    expect(statuses(report)).toEqual({
+      'spread-kind-is-stated': ['not-applicable'],
+      'test-is-named': ['missing', 'missing', 'missing', 'missing', 'missing'],
+      'tails-are-stated': ['missing'],
+      'alpha-is-stated': ['missing'],
+      'p-is-exact': ['missing', 'found', 'found', 'missing', 'found'],
+      'p-precision-is-sensible': ['not-applicable', 'found', 'missing', 'not-applicable', 'found'],
+      'statistic-has-df': ['found', 'found', 'found', 'found', 'missing'],
+      'effect-size-with-ci': ['missing', 'missing', 'missing', 'missing', 'missing'],
+      'descriptives-with-n': ['missing', 'missing', 'missing', 'missing', 'missing'],
+      'software-is-named': ['missing'],
+      'assumptions-are-checked': ['missing'],
+      'multiple-comparisons-addressed': ['missing'],
+      'no-trend-wording': ['not-applicable', 'missing', 'not-applicable', 'not-applicable', 'not-applicable'],
+    });
+  });
+  it('prints a Markdown checklist with line references a referee can paste', () => {
+    const md = formatChecklist({ tool: { name: 'plumbline', version: '0.0.0-test' }, files: [report], failures: [], rules: [] });
+    expect(md).toContain('# Reporting checklist: fixtures/checklist/bare.md');
+    expect(md).toContain('| Alpha (the significance level) is stated | ');
+    expect(md).toMatch(/\| The statistics software and its version are named \| .* \| \*\*missing\*\* \| line 3 \| the version of SPSS \|/);
+    expect(md).toContain('### 1. Line 5: t(23) = 2.47, p < .05');
+    expect(md).toContain('- [ ] An exact p is given (p < .001 allowed) — **missing**: p < .05');
+    expect(md).toContain('not proof of error or misconduct');
+  });
+});
+
+describe('profiles', () => {
+  it('CONSORT alone keeps only the items CONSORT asks for', () => {
+    const report = check('fixtures/checklist/bare.md', { config: { guidelines: ['consort'] } });
+    expect(report.checklist.map((c) => c.ruleId)).toEqual(['test-is-named', 'effect-size-with-ci', 'descriptives-with-n']);
+    expect(report.guidelines).toEqual(['consort']);
+  });
+  it('item levels come from configuration', () => {
+    const report = check('fixtures/checklist/bare.md', { config: { rules: { 'p-is-exact': 'error' } } });
+    expect(report.findings.filter((f) => f.ruleId === 'p-is-exact').map((f) => f.level)).toEqual(['error', 'error']);
+  });
+  it('the checklist is off unless asked for', () => {
+    const report = checkSource('x.md', readFileSync('fixtures/checklist/bare.md', 'utf8'));
+    expect(report.checklist).toEqual([]);
+    expect(report.findings.some((f) => f.ruleId === 'alpha-is-stated')).toBe(false);
+  });
+});
+
+describe('the checklist in the JSON output', () => {
+  it('validates against schema/report.schema.json', () => {
+    const validate = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
+    const data = JSON.parse(formatJson({ tool: { name: 'plumbline', version: '0' }, files: [check('fixtures/checklist/bare.md'), check('fixtures/checklist/complete.md')], failures: [], rules: [] }));
+    expect(validate(data), JSON.stringify(validate.errors?.slice(0, 3))).toBe(true);
+    expect(data.files[0].checklist.length).toBeGreaterThan(10);
+  });
+});
