@@ -4,7 +4,7 @@ import { extract } from '../extract/index.js';
 import type { ReportedNumber, Sidedness } from '../extract/types.js';
 import { link } from '../link/index.js';
 import type { DocumentSettings, ResultContext, Setting } from '../link/index.js';
-import { LineIndex, parseDocument } from '../parse/index.js';
+import { formatForPath, LineIndex, mayHoldStatistics, parseDocument } from '../parse/index.js';
 import type { ParsedDocument, Span } from '../parse/types.js';
 import { evaluateP } from '../rule-api/evaluate.js';
 import type { Guideline, Level, LevelSetting } from '../rule-api/types.js';
@@ -22,6 +22,8 @@ export interface CheckOptions {
   sidedness?: Sidedness;
   /** Run the reporting-checklist rules (also on with `checklist: true` in configuration). */
   checklist?: boolean;
+  /** Skip the Markdown parse of documents that cannot hold a statistic (default true). */
+  prefilter?: boolean;
   /** Read the source as this format instead of guessing from the path. */
   format?: 'markdown' | 'rmarkdown' | 'text';
 }
@@ -31,7 +33,10 @@ export interface CheckOptions {
  * positions. Never throws for anything in the document itself.
  */
 export function checkSource(path: string, source: string, options: CheckOptions = {}): FileReport {
-  const doc = parseDocument(path, source, options.format);
+  const doc =
+    options.prefilter === false || mayHoldStatistics(source)
+      ? parseDocument(path, source, options.format)
+      : { path, source, format: (options.format ?? formatForPath(path)) === 'text' ? ('text' as const) : ('markdown' as const), segments: [], directives: [], hadBom: source.charCodeAt(0) === 0xfeff };
   const lines = new LineIndex(source);
   const { settings, levels, guidelines, checklistOn } = resolveSettings(doc, options);
   const extraction = extract(doc);

@@ -10,6 +10,16 @@ const TREND = /(?<![\p{L}])(trend(?:ed)? (?:towards?|to) (?:significance|be sign
 const EXCLUSION = /(?<![\p{L}])(exclu\p{L}+|dropped out|drop-?outs?|withdr[ae]w\p{L}*|lost to follow-?up|missing data|incomplete data|did not complete|attrition|removed from (?:the )?analys[ie]s)(?![\p{L}])/giu;
 const TEST_NAME = /(?<![\p{L}])((?:paired|unpaired|independent|one-sample|two-sample|dependent|related)(?:[- ]samples?)? t[- ]tests?|Welch['’]?s?(?: t)?(?:[- ]tests?)?|Student['’]?s?(?: t)?(?:[- ]tests?)?|t[- ]tests? for (?:paired|independent|dependent) samples)(?![\p{L}])/giu;
 
+// Cheap literal pre-checks, so a segment runs only the patterns that can match in it.
+const MAY: Record<Mention['kind'], RegExp> = {
+  software: /SPSS|Stata|SAS|JASP|jamovi|Python|SciPy|statsmodels|Prism|Minitab|MATLAB|Excel|G\*Power|Statistica|JMP|R\b/,
+  assumption: /normal|Shapiro|Kolmogorov|Q[-–]Q|Levene|varianc|scedastic|differences/i,
+  multiplicity: /Bonferroni|Holm|id[aá]k|Hochberg|Benjamini|discovery|FDR|family|multipl|adjusted|corrected|Tukey/i,
+  trend: /trend|marginal|approach|borderline|nearly|almost|tended/i,
+  exclusion: /exclu|drop|withdr|lost to|missing|incomplete|did not complete|attrition|removed/i,
+  'test-name': /t[- ]test|Welch|Student/i,
+};
+
 /** Guideline-relevant words in one prose segment. */
 export function findMentions(seg: Segment, starts: number[]): Mention[] {
   const out: Mention[] = [];
@@ -17,7 +27,7 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
   const add = (kind: Mention['kind'], m: RegExpMatchArray, version?: string) => {
     out.push({ kind, segment: seg.id, block: seg.block, sentence: sentenceOf(starts, m.index ?? 0), span: sourceSpan(seg, m.index ?? 0, (m.index ?? 0) + m[0].length), printed: m[0], ...(version ? { version } : {}) });
   };
-  for (const m of text.matchAll(SOFTWARE)) {
+  if (MAY.software.test(text)) for (const m of text.matchAll(SOFTWARE)) {
     // "R" alone is a software name only beside words about analysis, or with a version
     const sentence = starts[sentenceOf(starts, m.index)] as number;
     const context = text.slice(sentence, starts[sentenceOf(starts, m.index) + 1] ?? text.length);
@@ -26,7 +36,7 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
     add('software', m, m[2]);
   }
   for (const [re, kind] of [[ASSUMPTION, 'assumption'], [MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion'], [TEST_NAME, 'test-name']] as const) {
-    for (const m of text.matchAll(re)) add(kind, m);
+    if (MAY[kind].test(text)) for (const m of text.matchAll(re)) add(kind, m);
   }
   return out;
 }

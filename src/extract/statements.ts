@@ -26,19 +26,19 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     sentence: sentenceOf(sentenceStarts, a),
     printed: text.slice(a, b),
   });
-  for (const m of text.matchAll(SIDED)) {
+  if (/tail|sided|directional/i.test(text)) for (const m of text.matchAll(SIDED)) {
     const word = (m[1] ?? m[3] ?? '').toLowerCase();
     const one = word === 'one' || word === '1' || word === 'single' || word === 'directional';
     out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', ...base(m.index, m.index + m[0].length) });
   }
-  for (const m of text.matchAll(EQUIVALENCE)) {
+  if (/equivalen|TOST|one-sided|inferiority/i.test(text)) for (const m of text.matchAll(EQUIVALENCE)) {
     out.push({ kind: 'equivalence', sidedness: 'one', ...base(m.index, m.index + m[0].length) });
   }
-  for (const m of text.matchAll(SPREAD_STATEMENT)) {
+  if (/±|\+\/-|plus or minus/.test(text)) for (const m of text.matchAll(SPREAD_STATEMENT)) {
     const sd = /^(sd|s\.d\.|standard dev)/i.test(m[1] as string);
     out.push({ kind: 'spread', spread: sd ? 'SD' : 'SE', ...base(m.index, m.index + m[0].length) });
   }
-  for (const re of [ALPHA, ALPHA_AS_P]) {
+  if (/α|alpha|significan|level/i.test(text)) for (const re of [ALPHA, ALPHA_AS_P]) {
     for (const m of text.matchAll(re)) {
       const value = Number(m[1] ?? m[2]);
       if (value > 0 && value < 0.5) out.push({ kind: 'alpha', alpha: value, ...base(m.index, m.index + m[0].length) });

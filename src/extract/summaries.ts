@@ -90,7 +90,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
   const push = (t: Token) => {
     if (!tokens.some((o) => t.start < o.end && o.start < t.end)) tokens.push(t);
   };
-  for (const m of text.matchAll(PLUS_MINUS)) {
+  if (text.includes('±')) for (const m of text.matchAll(PLUS_MINUS)) {
     const a = num(seg, m, 1);
     const b = num(seg, m, 3);
     const k = m[5];
@@ -98,7 +98,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     push({ kind: 'pm', start: m.index, end: m.index + m[0].length, a, b, spreadKind: spreadKind(k), percent: m[2] !== undefined, ...(k ? { kindSpan: group(m, 5) as [number, number], printedKind: k } : {}) });
   }
   const headerKind = MEAN_PAREN_HEADER.exec(text)?.[1];
-  for (const m of text.matchAll(MEAN_PAREN)) {
+  if (/\d ?%? ?\(/.test(text)) for (const m of text.matchAll(MEAN_PAREN)) {
     const a = num(seg, m, 1);
     const b = num(seg, m, 4);
     const k = m[3] ?? headerKind;
@@ -106,7 +106,8 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     if (!a || !b || !k || m[5] !== undefined) continue;
     push({ kind: 'paren', start: m.index, end: m.index + m[0].length, a, b, spreadKind: spreadKind(k), percent: m[2] !== undefined, printedKind: k, ...(m[3] ? { kindSpan: group(m, 3) as [number, number] } : {}) });
   }
-  for (const [re, kind] of [[MEAN, 'mean'], [SD, 'sd'], [SE, 'se']] as const) {
+  for (const [re, kind, may] of [[MEAN, 'mean', /\bM|mean|avg|average/i], [SD, 'sd', /sd|s\.d|std|standard dev/i], [SE, 'se', /SE|s\.e\.|S\.E\.|standard error/]] as const) {
+    if (!may.test(text)) continue;
     for (const m of text.matchAll(re)) {
       const a = num(seg, m, 1);
       if (!a) continue;
@@ -114,7 +115,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     }
   }
   const sampleSizes: SampleSize[] = [];
-  for (const m of text.matchAll(N)) {
+  if (/\b[nN](?:_\S{1,20}|\d)? ?[=:]|[Ss]ample size/.test(text)) for (const m of text.matchAll(N)) {
     const a = num(seg, m, 2);
     if (!a) continue;
     const perGroup = m[3] !== undefined;
@@ -122,7 +123,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     push({ kind: 'n', start: m.index, end: m.index + m[0].length, a, percent: false, perGroup });
     sampleSizes.push({ ...where(m.index, m.index + m[0].length), n: a, scope: perGroup ? 'per-group' : capital ? 'total' : 'unspecified' });
   }
-  for (const m of text.matchAll(PARTICIPANTS)) {
+  if (/\d (?:[a-z]{3,12})/.test(text)) for (const m of text.matchAll(PARTICIPANTS)) {
     const a = num(seg, m, 1);
     // "N = 60 staff" is one statement of the total, already read
     if (a && !sampleSizes.some((s) => s.n.span.start === a.span.start)) sampleSizes.push({ ...where(m.index, m.index + m[0].length), n: a, scope: 'total' });
@@ -148,38 +149,38 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
   }
 
   const intervals: IntervalReport[] = [];
-  for (const m of text.matchAll(CI)) {
+  if (/CI|C\.I\.|confidence interval/.test(text)) for (const m of text.matchAll(CI)) {
     const low = num(seg, m, 2);
     const high = num(seg, m, 3);
     if (!low || !high || low.value > high.value) continue;
     intervals.push({ ...where(m.index, m.index + m[0].length), level: Number(m[1]) / 100, low, high });
   }
   const estimates: EstimateReport[] = [];
-  for (const m of text.matchAll(ESTIMATE)) {
+  if (/difference|MD|diff|\b[bB] ?[=:]|β|estimate|Δ/.test(text)) for (const m of text.matchAll(ESTIMATE)) {
     const value = num(seg, m, 1);
     if (value) estimates.push({ ...where(m.index, m.index + m[0].length), value });
   }
   const effectSizes: EffectSizeReport[] = [];
-  for (const m of text.matchAll(EFFECT)) {
+  if (/\b[dg](?:_?\{?(?:z|av)\}?)? ?=/.test(text)) for (const m of text.matchAll(EFFECT)) {
     const value = num(seg, m, 2);
     const k = (m[1] as string).replace(/[_{}]/g, '');
     if (value) effectSizes.push({ ...where(m.index, m.index + m[0].length), value, kind: k === 'dz' ? 'dz' : k === 'dav' ? 'dav' : k === 'g' ? 'g' : 'd' });
   }
   const designs: DesignStatement[] = [];
-  for (const [re, design] of [[PAIRED_WORDS, 'paired'], [INDEPENDENT_WORDS, 'independent'], [ONE_SAMPLE_WORDS, 'one-sample']] as const) {
+  if (/paired|pre|post|before|baseline|same|within|repeated|cross|matched|twice|each participant|independent|randomi|randomly|between|sample/i.test(text)) for (const [re, design] of [[PAIRED_WORDS, 'paired'], [INDEPENDENT_WORDS, 'independent'], [ONE_SAMPLE_WORDS, 'one-sample']] as const) {
     for (const m of text.matchAll(re)) designs.push({ ...where(m.index, m.index + m[0].length), design });
   }
   const references: ReferenceValue[] = [];
-  for (const m of text.matchAll(REFERENCE)) {
+  if (/test value|hypothesi|reference value|population mean|norm|benchmark|target|chance/i.test(text)) for (const m of text.matchAll(REFERENCE)) {
     const value = num(seg, m, 1);
     if (value) references.push({ ...where(m.index, m.index + m[0].length), value });
   }
   const integerMeasures: IntegerStatement[] = [];
-  for (const m of text.matchAll(INTEGER_WORDS)) {
+  if (/single|number of|count|integer|whole number|-item|scored/i.test(text)) for (const m of text.matchAll(INTEGER_WORDS)) {
     integerMeasures.push({ ...where(m.index, m.index + m[0].length), items: m[2] ? Number(m[2]) : 1 });
   }
   const counts: CountPercent[] = [];
-  for (const m of text.matchAll(COUNT_PERCENT)) {
+  if (text.includes('%)') || text.includes('% )')) for (const m of text.matchAll(COUNT_PERCENT)) {
     const count = num(seg, m, 1);
     const percent = num(seg, m, 2);
     if (count && percent) counts.push({ ...where(m.index, m.index + m[0].length), count, percent });

@@ -3,6 +3,7 @@ import { parsePlainText } from './plainText.js';
 import type { ParsedDocument } from './types.js';
 
 export { LineIndex } from './lines.js';
+export { mayHoldStatistics } from './prefilter.js';
 export type * from './types.js';
 
 /** How a path is read: `.txt` as plain text, R Markdown / Quarto with their code chunks skipped. */

@@ -1,0 +1,81 @@
+/**
+ * Deterministic invented manuscripts for the benchmark (no real study, person or data):
+ * stat-dense documents (~50 KB, ~40 reported results in sentences and tables) and stat-free
+ * prose of similar size. A small seeded generator (mulberry32) makes every run identical.
+ */
+export function rng(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+const WORDS = ('the office staff worked standing afternoons fatigue rated scale weeks desks seated ward nurses prompt poster audit compliance ' +
+  'observed outcome measure pilot study invented fictional hours minutes shift session rating lower higher similar across both groups ' +
+  'protocol analysis planned sample recruited consented completed period baseline follow-up comparison reported table figure').split(' ');
+
+function sentence(next: () => number, words: number): string {
+  const out: string[] = [];
+  for (let i = 0; i < words; i += 1) out.push(WORDS[Math.floor(next() * WORDS.length)] as string);
+  const s = out.join(' ');
+  return `${s[0]?.toUpperCase()}${s.slice(1)}.`;
+}
+
+function result(next: () => number): string {
+  const df = 10 + Math.floor(next() * 80);
+  const t = (next() * 4).toFixed(2);
+  const p = (next() * 0.5 + 0.001).toFixed(3).replace(/^0/, '');
+  const m1 = (40 + next() * 10).toFixed(1);
+  const m2 = (40 + next() * 10).toFixed(1);
+  const sd1 = (5 + next() * 5).toFixed(1);
+  const sd2 = (5 + next() * 5).toFixed(1);
+  const n = Math.floor(df / 2) + 1;
+  const forms = [
+    `Fatigue differed between desks (M = ${m1}, SD = ${sd1}, n = ${n}; M = ${m2}, SD = ${sd2}, n = ${df + 2 - n}), *t*(${df}) = ${t}, *p* = ${p}, d = 0.${Math.floor(next() * 90 + 10)}.`,
+    `Alertness changed, t(${df}) = ${t}, p = ${p}, 95% CI [${(next() * 2).toFixed(2)}, ${(2 + next() * 3).toFixed(2)}].`,
+    `The ward audit gave $t(${df}) = ${t}$, $p = ${p}$.`,
+    `Ratings were ${m1} ± ${sd1} (SD) and ${m2} ± ${sd2} (SD), t = ${t}, df = ${df}, p-value = ${p}.`,
+  ];
+  return forms[Math.floor(next() * forms.length)] as string;
+}
+
+function table(next: () => number): string {
+  const rows = ['| Outcome | t | df | p |', '|---|---|---|---|'];
+  for (let i = 0; i < 4; i += 1) rows.push(`| Measure ${i + 1} | ${(next() * 3).toFixed(2)} | ${20 + Math.floor(next() * 40)} | ${(next() * 0.5 + 0.01).toFixed(3).replace(/^0/, '')} |`);
+  return rows.join('\n');
+}
+
+/** A stat-dense manuscript of about `bytes` characters with results every few sentences. */
+export function statDense(seed: number, bytes = 50_000): string {
+  const next = rng(seed);
+  const parts = [`# Invented pilot ${seed}\n`, '## Methods\n', `${sentence(next, 30)} Significance was set at α = .05.\n`, '## Results\n'];
+  let size = parts.join('\n').length;
+  let k = 0;
+  while (size < bytes) {
+    const para = k % 9 === 8 ? table(next) : k % 5 === 0 ? `${sentence(next, 18)} ${result(next)} ${sentence(next, 12)}` : `${sentence(next, 30)} ${sentence(next, 24)} ${sentence(next, 20)}`;
+    parts.push(para, '');
+    size += para.length + 2;
+    k += 1;
+  }
+  return parts.join('\n');
+}
+
+/** Stat-free prose (notes, READMEs) of about `bytes` characters: headings, lists, links, code. */
+export function statFree(seed: number, bytes = 50_000): string {
+  const next = rng(seed);
+  const parts = [`# Notes ${seed}\n`];
+  let size = parts[0]?.length ?? 0;
+  let k = 0;
+  while (size < bytes) {
+    const kind = k % 5;
+    const para = kind === 0 ? `## Section ${k}\n` : kind === 1 ? `- ${sentence(next, 8)}\n- ${sentence(next, 6)} [link](https://example.org/${k})\n` : kind === 2 ? '```\nnpm install\nnpm run build\n```\n' : `${sentence(next, 40)} ${sentence(next, 25)}\n`;
+    parts.push(para);
+    size += para.length + 1;
+    k += 1;
+  }
+  return parts.join('\n');
+}
