@@ -1,8 +1,12 @@
 #!/usr/bin/env node
+import { once } from 'node:events';
 import { run } from './run.js';
 
 process.exitCode = await run(process.argv.slice(2), {
-  stdout: (s) => process.stdout.write(s),
+  // wait for 'drain' when the pipe is full, so a batch run never buffers without bound
+  stdout: async (s) => {
+    if (!process.stdout.write(s)) await once(process.stdout, 'drain');
+  },
   stderr: (s) => process.stderr.write(s),
   stdin: process.stdin,
   cwd: process.cwd(),

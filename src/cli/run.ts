@@ -3,12 +3,16 @@ import type { Readable } from 'node:stream';
 import yargs from 'yargs';
 import { ConfigError, ConfigFinder, readConfigFile, type Config } from '../config/index.js';
 import { ruleDoc, toolVersion } from '../engine/docs.js';
-import { checkSource, RULE_IDS, RULES, ruleById, type FileFailure, type FileReport } from '../engine/index.js';
+import { RULE_IDS, RULES, ruleById, type CheckOptions, type FileFailure, type FileReport } from '../engine/index.js';
 import { countRun, formatChecklist, formatHuman, formatJson, formatSarif, type RuleInfo, type RunReport } from '../report/index.js';
 import { describeError, expandArguments } from './files.js';
+import { checkAll, type Job } from './pool.js';
+import { runBatch } from './batch.js';
+import { availableParallelism } from 'node:os';
 
 export interface Io {
-  stdout: (s: string) => void;
+  /** Write to standard output; resolves once the stream can take more (back-pressure). */
+  stdout: (s: string) => void | Promise<void>;
   stderr: (s: string) => void;
   stdin: Readable;
   cwd: string;
@@ -34,6 +38,7 @@ export async function run(argv: string[], io: Io): Promise<number> {
     )
     .command('explain <rule>', "print a rule's page", (y) => y.positional('rule', { type: 'string', demandOption: true }))
     .command('rules', 'list the rules with their default levels')
+    .command('batch', 'read paths or NDJSON documents {id, text, format?} from standard input, one per line; write one NDJSON line per document')
     .option('format', { alias: 'f', choices: FORMATS, default: 'human' as Format, describe: 'output format' })
     .option('alpha', { type: 'number', describe: 'significance level where the text states none (default .05)' })
     .option('tails', { choices: ['one', 'two'] as const, describe: 'tails assumed where the text says nothing (default two)' })
@@ -41,6 +46,7 @@ export async function run(argv: string[], io: Io): Promise<number> {
     .option('config', { alias: 'c', type: 'string', describe: 'use this configuration file instead of searching for one' })
     .option('stdin-name', { type: 'string', default: 'stdin.md', describe: 'file name (and so format) for "-"' })
     .option('checklist', { type: 'boolean', describe: 'also check the write-up against reporting guidelines (on with --format checklist)' })
+    .option('jobs', { alias: 'j', type: 'number', describe: 'worker threads for many files (default: the cores available; 1: none)' })
     .option('color', { type: 'boolean', describe: 'colour the human format (default: on a terminal, unless NO_COLOR is set)' })
     .strict()
     .help()
@@ -65,14 +71,14 @@ export async function run(argv: string[], io: Io): Promise<number> {
     return EXIT.trouble;
   }
   if (helpText) {
-    io.stdout(`${helpText}\n`);
+    await io.stdout(`${helpText}\n`);
     return EXIT.clean;
   }
   if (!parsed) return EXIT.trouble;
   const command = String(parsed._[0] ?? '');
 
   if (command === 'rules') {
-    for (const r of RULES) io.stdout(`${r.id.padEnd(30)} ${String(r.defaultLevel).padEnd(8)} ${r.summary}\n`);
+    for (const r of RULES) await io.stdout(`${r.id.padEnd(30)} ${String(r.defaultLevel).padEnd(8)} ${r.summary}\n`);
     return EXIT.clean;
   }
   if (command === 'explain') {
@@ -81,7 +87,7 @@ export async function run(argv: string[], io: Io): Promise<number> {
       io.stderr(`plumbline: no rule "${id}". Rules: ${RULE_IDS.join(', ')}\n`);
       return EXIT.trouble;
     }
-    io.stdout(ruleDoc(id));
+    await io.stdout(ruleDoc(id));
     return EXIT.clean;
   }
 
@@ -91,8 +97,8 @@ export async function run(argv: string[], io: Io): Promise<number> {
     return EXIT.trouble;
   }
   // yargs sets a lone "-" aside from the positionals; it means standard input.
-  const files = [...((parsed.files as string[] | undefined) ?? []), ...(argv.includes('-') && !((parsed.files as string[] | undefined) ?? []).includes('-') ? ['-'] : [])];
-  if (files.length === 0) {
+  const files = command === 'batch' ? [] : [...((parsed.files as string[] | undefined) ?? []), ...(argv.includes('-') && !((parsed.files as string[] | undefined) ?? []).includes('-') ? ['-'] : [])];
+  if (files.length === 0 && command !== 'batch') {
     io.stderr('plumbline: name at least one file, folder or glob ("-" for standard input). Run "plumbline --help" for usage.\n');
     return EXIT.trouble;
   }
@@ -112,21 +118,23 @@ export async function run(argv: string[], io: Io): Promise<number> {
   const checklist = parsed.checklist ?? (parsed.format === 'checklist' ? true : undefined);
   const options = { ...(alpha !== undefined ? { alpha } : {}), ...(parsed.tails ? { sidedness: parsed.tails } : {}), ...(checklist !== undefined ? { checklist } : {}) };
 
-  const checkOne = (path: string, source: string, configPath: string) => {
-    let config: Config;
+  const threads = Math.max(1, Math.floor(parsed.jobs ?? availableParallelism()));
+  const configFor = (configPath: string): Config => explicitConfig ?? finder.forFile(configPath).config;
+  const jobFor = (path: string, source: string, configPath: string, format?: CheckOptions['format']): Job => {
     try {
-      config = explicitConfig ?? finder.forFile(configPath).config;
+      return { path, source, options: { ...options, config: configFor(configPath), ...(format ? { format } : {}) } };
     } catch (e) {
-      failures.push({ path, message: configMessage(e) });
-      return;
+      return { path, error: configMessage(e) };
     }
-    reports.push(checkSource(path, source, { ...options, config }));
   };
 
+  if (command === 'batch') return runBatch(io, jobFor, threads);
+
+  const jobs: Job[] = [];
   const named = files.filter((f) => f !== '-');
   if (files.includes('-')) {
     const name = String(parsed['stdin-name']);
-    checkOne(name, await readAll(io.stdin), `${io.cwd}/${name}`);
+    jobs.push(jobFor(name, await readAll(io.stdin), `${io.cwd}/${name}`));
   }
   const expansion = expandArguments(named);
   for (const m of expansion.missing) failures.push({ path: m.path, message: m.message });
@@ -138,8 +146,12 @@ export async function run(argv: string[], io: Io): Promise<number> {
       failures.push({ path, message: `cannot read: ${describeError(e)}` });
       continue;
     }
-    checkOne(path, source, path);
+    jobs.push(jobFor(path, source, path));
   }
+  await checkAll(jobs, threads, (o, i) => {
+    if ('report' in o) reports.push(o.report);
+    else failures.push({ path: (jobs[i] as Job).path, message: o.error });
+  });
 
   const runReport: RunReport = {
     tool: { name: 'plumbline', version: toolVersion() },
@@ -149,12 +161,12 @@ export async function run(argv: string[], io: Io): Promise<number> {
     rules: RULES.map((r): RuleInfo => ({ id: r.id, summary: r.summary, kind: r.kind, defaultLevel: r.defaultLevel, doc: parsed.format === 'sarif' ? ruleDoc(r.id) : '' })),
   };
   const format = parsed.format as Format;
-  if (format === 'json') io.stdout(formatJson(runReport));
-  else if (format === 'sarif') io.stdout(formatSarif(runReport, io.cwd));
-  else if (format === 'checklist') io.stdout(formatChecklist(runReport));
+  if (format === 'json') await io.stdout(formatJson(runReport));
+  else if (format === 'sarif') await io.stdout(formatSarif(runReport, io.cwd));
+  else if (format === 'checklist') await io.stdout(formatChecklist(runReport));
   else {
     const color = parsed.color ?? (io.isTTY && !('NO_COLOR' in io.env && io.env.NO_COLOR !== ''));
-    io.stdout(formatHuman(runReport, { color, width: io.columns ?? 100 }));
+    await io.stdout(formatHuman(runReport, { color, width: io.columns ?? 100 }));
   }
   if (format !== 'human') for (const f of failures) io.stderr(`plumbline: ${f.path}: ${f.message}\n`);
 

@@ -41,56 +41,112 @@ export interface ResultContext {
 
 const sameSentence = (a: { segment: number; sentence: number }, b: { segment: number; sentence: number }) => a.segment === b.segment && a.sentence === b.sentence;
 
+/** Records grouped by the segment they were found in: every join looks only at its own segment. */
+function bySegment<T extends { segment: number }>(items: T[]): Map<number, T[]> {
+  const m = new Map<number, T[]>();
+  for (const it of items) {
+    const list = m.get(it.segment);
+    if (list) list.push(it);
+    else m.set(it.segment, [it]);
+  }
+  return m;
+}
+
 /**
- * Joins each test to the descriptives it can be recomputed from: those in its sentence;
- * else, when it is the only test of its paragraph, those in the paragraph; else, when it sits
- * right after or before a table of groups, that table. More than two groups in scope, or
- * groups a second test could claim as well, is ambiguous: nothing is joined and the reason
- * is kept, so the rules can say so.
+ * Builds the joiner for one document (indexes built once, so a document of any size is joined
+ * in linear time). The joiner links each test to the descriptives it can be recomputed from:
+ * those in its sentence; else, when it is the only test of its paragraph, those in the
+ * paragraph; else, when it sits right after or before a table of groups, that table. More than
+ * two groups in scope, or groups a second test could claim as well, is ambiguous: nothing is
+ * joined and the reason is kept, so the rules can say so.
  */
-export function contextFor(report: TTestReport, x: Extraction): ResultContext {
-  const testsInBlock = x.tests.filter((t) => t.block === report.block && t.segment === report.segment);
-  const overlapsTest = (g: GroupSummary) => x.tests.some((t) => g.span.start < t.span.end && t.span.start < g.span.end);
-  const prose = x.summaries.filter((g) => !g.table && !overlapsTest(g));
+export function contextJoiner(x: Extraction): (report: TTestReport) => ResultContext {
+  const tests = bySegment(x.tests);
+  const overlapsTest = (g: GroupSummary) => (tests.get(g.segment) ?? []).some((t) => g.span.start < t.span.end && t.span.start < g.span.end);
+  const prose = bySegment(x.summaries.filter((g) => !g.table && !overlapsTest(g)));
+  const tableRows = new Map<number, GroupSummary[]>();
+  for (const g of x.summaries) if (g.table) tableRows.set(g.table.table, [...(tableRows.get(g.table.table) ?? []), g]);
+  const testsByBlock = new Map<number, TTestReport[]>();
+  for (const t of x.tests) testsByBlock.set(t.block, [...(testsByBlock.get(t.block) ?? []), t]);
+  const references = bySegment(x.references);
+  const intervals = bySegment(x.intervals);
+  const estimates = bySegment(x.estimates);
+  const effectSizes = bySegment(x.effectSizes);
+  const sampleSizes = bySegment(x.sampleSizes);
+  const designs = bySegment(x.designs);
+  const spreadStatements = x.statements.filter((s) => s.kind === 'spread');
+  return (report) => contextFor(report, {
+    tests: tests.get(report.segment) ?? [],
+    prose: prose.get(report.segment) ?? [],
+    tableRows,
+    testsByBlock,
+    tables: x.tables,
+    references: references.get(report.segment) ?? [],
+    intervals: intervals.get(report.segment) ?? [],
+    estimates: estimates.get(report.segment) ?? [],
+    effectSizes: effectSizes.get(report.segment) ?? [],
+    sampleSizes: sampleSizes.get(report.segment) ?? [],
+    designs: designs.get(report.segment) ?? [],
+    spreadStatements,
+  });
+}
+
+interface Near {
+  /** Tests, prose descriptives and context of the report's own segment. */
+  tests: TTestReport[];
+  prose: GroupSummary[];
+  tableRows: Map<number, GroupSummary[]>;
+  testsByBlock: Map<number, TTestReport[]>;
+  tables: Extraction['tables'];
+  references: ReferenceValue[];
+  intervals: IntervalReport[];
+  estimates: EstimateReport[];
+  effectSizes: EffectSizeReport[];
+  sampleSizes: SampleSize[];
+  designs: DesignStatement[];
+  spreadStatements: Extraction['statements'];
+}
+
+function contextFor(report: TTestReport, n: Near): ResultContext {
+  const testsInBlock = n.tests.filter((t) => t.block === report.block);
   let link: DescriptiveLink | undefined;
   let unlinked: ResultContext['unlinked'];
 
-  const inSentence = prose.filter((g) => sameSentence(g, report));
+  const inSentence = n.prose.filter((g) => sameSentence(g, report));
   const testsInSentence = testsInBlock.filter((t) => t.sentence === report.sentence);
   if (inSentence.length > 0) {
-    if (inSentence.length <= 2 && testsInSentence.length === 1) link = makeLink('sentence', inSentence, x);
+    if (inSentence.length <= 2 && testsInSentence.length === 1) link = makeLink('sentence', inSentence, n.spreadStatements);
     else unlinked = { reason: `${inSentence.length} sets of descriptives and ${testsInSentence.length} tests in one sentence`, span: report.span };
   } else {
-    const inParagraph = prose.filter((g) => g.segment === report.segment && !x.tests.some((t) => sameSentence(t, g)));
+    const inParagraph = n.prose.filter((g) => !n.tests.some((t) => sameSentence(t, g)));
     if (inParagraph.length > 0) {
-      if (inParagraph.length <= 2 && testsInBlock.length === 1) link = makeLink('paragraph', inParagraph, x);
+      if (inParagraph.length <= 2 && testsInBlock.length === 1) link = makeLink('paragraph', inParagraph, n.spreadStatements);
       else unlinked = { reason: `${inParagraph.length} sets of descriptives and ${testsInBlock.length} tests in one paragraph`, span: report.span };
     } else {
-      const table = x.tables.find((t) => report.block === t.lastBlock + 1 || report.block === t.firstBlock - 1);
-      const rows = table ? x.summaries.filter((g) => g.table?.table === table.table) : [];
-      const claimants = table ? x.tests.filter((t) => t.block === table.lastBlock + 1 || t.block === table.firstBlock - 1) : [];
+      const table = n.tables.find((t) => report.block === t.lastBlock + 1 || report.block === t.firstBlock - 1);
+      const rows = table ? (n.tableRows.get(table.table) ?? []) : [];
+      const claimants = table ? [...(n.testsByBlock.get(table.lastBlock + 1) ?? []), ...(n.testsByBlock.get(table.firstBlock - 1) ?? [])] : [];
       if (rows.length > 0) {
-        if (rows.length <= 2 && claimants.length === 1) link = makeLink('table', rows, x);
+        if (rows.length <= 2 && claimants.length === 1) link = makeLink('table', rows, n.spreadStatements);
         else unlinked = { reason: `a table of ${rows.length} groups beside ${claimants.length} tests`, span: report.span };
       }
     }
   }
 
   const near = <T extends { segment: number; sentence: number }>(items: T[]) => items.filter((i) => sameSentence(i, report));
-  const inBlock = <T extends { segment: number }>(items: T[]) => items.filter((i) => i.segment === report.segment);
-  const reference = near(x.references)[0] ?? (testsInBlock.length === 1 ? inBlock(x.references)[0] : undefined);
+  const reference = near(n.references)[0] ?? (testsInBlock.length === 1 ? n.references[0] : undefined);
   // A CI printed right after a group's mean and SD is that group's CI, not the test's.
   const isGroupInterval = (i: IntervalReport) =>
-    x.summaries.some((g) => g.segment === i.segment && g.span.end <= i.span.start && i.span.start - g.span.end < 40 && !x.tests.some((t) => t.span.start >= g.span.end && t.span.end <= i.span.start));
-  const candidates = near(x.intervals).filter((i) => !isGroupInterval(i));
+    n.prose.some((g) => g.span.end <= i.span.start && i.span.start - g.span.end < 40 && !n.tests.some((t) => t.span.start >= g.span.end && t.span.end <= i.span.start));
+  const candidates = near(n.intervals).filter((i) => !isGroupInterval(i));
   const interval = candidates.find((i) => i.span.start >= report.span.start) ?? candidates[0];
-  const estimate = near(x.estimates)[0];
-  const effectSizes = near(x.effectSizes);
-  const sampleSizes = [...near(x.sampleSizes), ...inBlock(x.sampleSizes).filter((s) => !sameSentence(s, report))];
+  const estimate = near(n.estimates)[0];
+  const effectSizes = near(n.effectSizes);
+  const sampleSizes = [...near(n.sampleSizes), ...n.sampleSizes.filter((s) => !sameSentence(s, report))];
   return {
     ...(link ? { descriptives: link } : {}),
     ...(unlinked ? { unlinked } : {}),
-    design: designFor(report, x, link),
+    design: designFor(report, n.designs, link),
     ...(reference ? { reference } : {}),
     ...(interval ? { interval } : {}),
     ...(estimate ? { estimate } : {}),
@@ -99,10 +155,9 @@ export function contextFor(report: TTestReport, x: Extraction): ResultContext {
   };
 }
 
-function makeLink(scope: DescriptiveLink['scope'], groups: GroupSummary[], x: Extraction): DescriptiveLink {
+function makeLink(scope: DescriptiveLink['scope'], groups: GroupSummary[], documentKinds: Extraction['statements']): DescriptiveLink {
   const kinds: SpreadKind[] = [];
   let source: DescriptiveLink['spreadKindSource'];
-  const documentKinds = x.statements.filter((s) => s.kind === 'spread');
   for (const g of groups) {
     let kind: SpreadKind = g.spread?.kind ?? 'unstated';
     if (kind === 'unstated') {
@@ -124,7 +179,7 @@ function makeLink(scope: DescriptiveLink['scope'], groups: GroupSummary[], x: Ex
  * t(22)", "Welch's t"), design words in the sentence, then in the paragraph (when
  * they agree), then structure (one group is one-sample or differences).
  */
-function designFor(report: TTestReport, x: Extraction, link: DescriptiveLink | undefined): Setting<Design> {
+function designFor(report: TTestReport, segmentDesigns: DesignStatement[], link: DescriptiveLink | undefined): Setting<Design> {
   const named = report.namedVariant;
   if (named === 'paired') return { value: 'paired', basis: 'in-report' };
   if (named === 'welch' || named === 'student' || named === 'independent') return { value: 'independent', basis: 'in-report' };
@@ -134,9 +189,9 @@ function designFor(report: TTestReport, x: Extraction, link: DescriptiveLink | u
     if (!first || !ds.every((d) => d.design === first.design)) return undefined;
     return { value: first.design, basis, span: first.span, printed: first.printed };
   };
-  const sentence = pick(x.designs.filter((d) => sameSentence(d, report)), 'sentence');
+  const sentence = pick(segmentDesigns.filter((d) => sameSentence(d, report)), 'sentence');
   if (sentence) return sentence;
-  const paragraph = pick(x.designs.filter((d) => d.segment === report.segment), 'paragraph');
+  const paragraph = pick(segmentDesigns, 'paragraph');
   if (paragraph) return paragraph;
   // Design words elsewhere in the document are not used: a manuscript often reports paired and
   // independent comparisons side by side.

@@ -4,7 +4,7 @@ import type { DocumentSettings, LinkedDocument, LinkedResult, Setting } from './
 
 export type * from './types.js';
 export type { DescriptiveLink, Design, ResultContext } from './descriptives.js';
-import { contextFor } from './descriptives.js';
+import { contextJoiner } from './descriptives.js';
 
 /** Default alpha when nothing sets one: .05 (common practice, no source). */
 export const DEFAULT_ALPHA = 0.05;
@@ -25,11 +25,16 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const documentAlpha = agreeing(documentLevel.filter((s) => s.kind === 'alpha'), (s) => s.alpha as number)
     ?? settings.alpha ?? { value: DEFAULT_ALPHA, basis: 'default' as const };
 
+  const join = contextJoiner(extraction);
+  const statementsBySegment = new Map<number, ContextStatement[]>();
+  for (const s of extraction.statements) statementsBySegment.set(s.segment, [...(statementsBySegment.get(s.segment) ?? []), s]);
+  const testsBySegment = new Map<number, TTestReport[]>();
+  for (const t of extraction.tests) testsBySegment.set(t.segment, [...(testsBySegment.get(t.segment) ?? []), t]);
   const results: LinkedResult[] = extraction.tests.map((report) => ({
     report,
-    sidedness: sidednessFor(report, extraction.statements, extraction.tests, documentSidedness),
-    alpha: alphaFor(report, extraction.statements, documentAlpha),
-    context: contextFor(report, extraction),
+    sidedness: sidednessFor(report, statementsBySegment.get(report.segment) ?? [], testsBySegment.get(report.segment) ?? [], documentSidedness),
+    alpha: alphaFor(report, statementsBySegment.get(report.segment) ?? [], documentAlpha),
+    context: join(report),
   }));
   return {
     results,

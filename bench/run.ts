@@ -1,0 +1,115 @@
+/**
+ * npm run bench: speed and memory as ratios against baselines measured in the same run, on
+ * invented corpora generated here (bench/corpus.ts, fixed seeds). Never a timed test.
+ *
+ *   1. stat-dense: plumbline in-process ÷ bare remark-parse + remark-gfm parse   (goal ≤ 1.25)
+ *   2. stat-free: the same ratio on prose with no statistics                     (goal ≤ 0.1)
+ *   3. 400 files through the CLI: one worker ÷ all workers (a speed-up)          (goal ≥ 1.7)
+ *   4. time per MB, largest document ÷ smallest (10 KB … 10 MB)                 (goal ≤ 1.5)
+ *   5. peak RSS of a 5,000-file streaming batch, and ÷ a 50-file batch          (goal ≤ 300 MB)
+ *
+ * Prints a table and writes bench/results.json.
+ */
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { cpus, tmpdir, totalmem } from 'node:os';
+import { join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import remarkGfm from 'remark-gfm';
+import remarkParse from 'remark-parse';
+import { unified } from 'unified';
+import { checkSource } from '../src/engine/index.js';
+import { statDense, statFree } from './corpus.js';
+
+const root = resolve(fileURLToPath(new URL('.', import.meta.url)), '../..');
+const cli = join(root, 'dist/src/cli/main.js');
+const bare = unified().use(remarkParse).use(remarkGfm);
+
+/** Best of `reps` runs after one warm-up (inputs are built before, outside the timer). */
+function best(f: () => void, reps = 3): number {
+  f();
+  let t = Infinity;
+  for (let i = 0; i < reps; i += 1) {
+    const start = performance.now();
+    f();
+    t = Math.min(t, performance.now() - start);
+  }
+  return t;
+}
+
+interface Figure {
+  name: string;
+  value: number;
+  goal: string;
+  met: boolean;
+  detail: string;
+}
+const figures: Figure[] = [];
+const add = (f: Figure) => {
+  figures.push(f);
+  console.log(`${f.met ? 'met ' : 'MISS'}  ${f.name.padEnd(44)} ${f.value.toFixed(3).padStart(9)}  goal ${f.goal.padEnd(8)} ${f.detail}`);
+};
+
+// 1 and 2: in-process against the bare parse
+const dense = Array.from({ length: 20 }, (_, i) => statDense(i + 1));
+const free = Array.from({ length: 20 }, (_, i) => statFree(i + 1));
+const denseBare = best(() => dense.forEach((d) => bare.parse(d)));
+const densePl = best(() => dense.forEach((d) => checkSource('bench.md', d)));
+const resultsPerDoc = checkSource('bench.md', dense[0] as string).results.length;
+add({ name: '1 stat-dense: plumbline / bare parse', value: densePl / denseBare, goal: '<= 1.25', met: densePl / denseBare <= 1.25, detail: `${dense.length} docs of ${(dense[0]?.length ?? 0) / 1000} KB, ${resultsPerDoc} results each; bare ${(1e3 * dense.join('').length / 1e6 / denseBare).toFixed(2)} MB/s` });
+const freeBare = best(() => free.forEach((d) => bare.parse(d)));
+const freePl = best(() => free.forEach((d) => checkSource('bench.md', d)));
+add({ name: '2 stat-free: plumbline / bare parse', value: freePl / freeBare, goal: '<= 0.1', met: freePl / freeBare <= 0.1, detail: 'pre-filter skips the parse' });
+
+// 3: the CLI on 400 files, one worker against all
+const dir = mkdtempSync(join(tmpdir(), 'plumbline-bench-'));
+for (let i = 0; i < 400; i += 1) writeFileSync(join(dir, `doc${String(i).padStart(4, '0')}.md`), statDense(1000 + i, 10_000));
+const timeCli = (jobs: number) => {
+  const start = performance.now();
+  const r = spawnSync(process.execPath, [cli, dir, '--format', 'json', '--jobs', String(jobs)], { maxBuffer: 1 << 30 });
+  if (r.status !== 0 && r.status !== 1) throw new Error(`plumbline failed: ${r.stderr}`);
+  return { ms: performance.now() - start, out: r.stdout.toString() };
+};
+timeCli(1);
+const one = timeCli(1);
+const many = timeCli(cpus().length);
+add({ name: '3 batch of 400 files: 1 worker / all workers', value: one.ms / many.ms, goal: '>= 1.7', met: one.ms / many.ms >= 1.7, detail: `${cpus().length} cores; output identical: ${one.out === many.out}` });
+
+// 4: time per MB from 10 KB to 10 MB
+const sizes = [10_000, 100_000, 1_000_000, 10_000_000];
+const perMb = sizes.map((size) => {
+  const doc = statDense(7, size);
+  const reps = size >= 1e7 ? 1 : 3;
+  const pl = best(() => checkSource('big.md', doc), reps) / (doc.length / 1e6);
+  const parse = best(() => bare.parse(doc), reps) / (doc.length / 1e6);
+  return { size, pl, parse };
+});
+const scale = (perMb.at(-1)?.pl ?? 0) / (perMb[0]?.pl ?? 1);
+const remarkScale = (perMb.at(-1)?.parse ?? 0) / (perMb[0]?.parse ?? 1);
+add({ name: '4 time per MB: 10 MB doc / 10 KB doc', value: scale, goal: '<= 1.5', met: scale <= 1.5, detail: `ms/MB ${perMb.map((p) => `${p.size / 1000} KB ${p.pl.toFixed(0)}`).join(', ')}; bare remark alone ${remarkScale.toFixed(2)}` });
+
+// 5: peak RSS of streaming batches (paths on standard input, NDJSON out, discarded)
+const rss = (files: number) => {
+  const sub = join(dir, `rss-${files}`);
+  mkdirSync(sub);
+  const paths: string[] = [];
+  for (let i = 0; i < files; i += 1) {
+    const p = join(sub, `d${i}.md`);
+    writeFileSync(p, statDense(5000 + (i % 50), 10_000));
+    paths.push(p);
+  }
+  const r = spawnSync(process.execPath, ['-e', `import(${JSON.stringify(cli)}).then(() => process.on('exit', () => process.stderr.write('\\nRSS ' + process.resourceUsage().maxRSS + '\\n')))`, '--', 'batch'], {
+    input: paths.join('\n'),
+    maxBuffer: 1 << 30,
+  });
+  const m = /RSS (\d+)/.exec(r.stderr.toString());
+  return m ? Number(m[1]) / 1024 : NaN;
+};
+const small = rss(50);
+const large = rss(5000);
+add({ name: '5 peak RSS, 5,000-file batch (MB)', value: large, goal: '<= 300', met: large <= 300, detail: `50-file batch ${small.toFixed(0)} MB; ratio ${(large / small).toFixed(2)}` });
+rmSync(dir, { recursive: true, force: true });
+
+const machine = { cpus: cpus().length, cpu: cpus()[0]?.model ?? '', memoryGb: Math.round(totalmem() / 2 ** 30), node: process.version, date: new Date().toISOString().slice(0, 10) };
+writeFileSync(join(root, 'bench/results.json'), `${JSON.stringify({ machine, figures, perMb }, null, 2)}\n`);
+console.log(`\nmachine: ${machine.cpus} × ${machine.cpu}, ${machine.memoryGb} GiB, Node ${machine.node}; written to bench/results.json`);

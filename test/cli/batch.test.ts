@@ -1,0 +1,68 @@
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { statDense } from '../../bench/corpus.js';
+
+const cli = join(process.cwd(), 'dist/src/cli/main.js');
+const lines = (s: string) => s.split('\n').filter(Boolean);
+
+function corpus(n: number): { dir: string; paths: string[] } {
+  const dir = mkdtempSync(join(tmpdir(), 'plumbline-batch-'));
+  const paths: string[] = [];
+  for (let i = 0; i < n; i += 1) {
+    const p = join(dir, `doc${String(i).padStart(4, '0')}.md`);
+    writeFileSync(p, statDense(7000 + i, 3000));
+    paths.push(p);
+  }
+  return { dir, paths };
+}
+
+describe('batch mode (plumbline batch)', () => {
+  it('writes one NDJSON line per input line, in order, errors included, and a summary on stderr', () => {
+    const { paths } = corpus(3);
+    const input = [paths[0], '{"id": "inline", "text": "x, t(46) = 0.84, p = .04.\\n"}', '/nope.md', '{"id": 7, "text": 5}', '{broken', paths[1]].join('\n');
+    const r = spawnSync(process.execPath, [cli, 'batch'], { input, encoding: 'utf8' });
+    const out = lines(r.stdout).map((l) => JSON.parse(l));
+    expect(out.map((o) => o.id)).toEqual([paths[0], 'inline', '/nope.md', '7', 'line 5', paths[1]]);
+    expect(out[1].findings[0].ruleId).toBe('significance-follows-from-t');
+    expect(out[2].error).toBe('cannot read: no such file or folder');
+    expect(out[3].error).toContain('"text" must be a string');
+    expect(out[4].error).toContain('not valid JSON');
+    expect(r.stderr).toContain('plumbline batch: 6 documents');
+    expect(r.status).toBe(2);
+  });
+
+  it('gives the same lines with worker threads as without', () => {
+    const { paths } = corpus(40);
+    const one = spawnSync(process.execPath, [cli, 'batch', '--jobs', '1'], { input: paths.join('\n'), encoding: 'utf8' }).stdout;
+    const two = spawnSync(process.execPath, [cli, 'batch', '--jobs', '2'], { input: paths.join('\n'), encoding: 'utf8' }).stdout;
+    expect(lines(one)).toHaveLength(40);
+    expect(two).toBe(one);
+  });
+
+  it('the file mode output is the same with worker threads as without', () => {
+    const { dir } = corpus(30);
+    const one = spawnSync(process.execPath, [cli, dir, '--format', 'json', '--jobs', '1'], { encoding: 'utf8' }).stdout;
+    const two = spawnSync(process.execPath, [cli, dir, '--format', 'json', '--jobs', '2'], { encoding: 'utf8' }).stdout;
+    expect(JSON.parse(one).files).toHaveLength(30);
+    expect(two).toBe(one);
+  });
+
+  it('under GNU parallel (Debian package parallel), chunks merged equal the single-process output', () => {
+    const { dir, paths } = corpus(300);
+    const list = join(dir, 'paths.txt');
+    writeFileSync(list, `${paths.join('\n')}\n`);
+    // exit status 1 (error-level findings in the corpus) is expected, so spawnSync, not execFileSync
+    const single = spawnSync(process.execPath, [cli, 'batch', '--jobs', '1'], { input: paths.join('\n'), encoding: 'utf8', maxBuffer: 1 << 28 }).stdout;
+    // --pipe splits standard input into chunks of lines; --keep-order merges the outputs in input order
+    const merged = spawnSync('parallel', ['--pipe', '--keep-order', '-N', '50', '-j', '2', process.execPath, cli, 'batch', '--jobs', '1'], {
+      input: `${paths.join('\n')}\n`,
+      encoding: 'utf8',
+      maxBuffer: 1 << 28,
+    }).stdout;
+    expect(lines(merged)).toHaveLength(300);
+    expect(merged).toBe(single);
+  });
+});
