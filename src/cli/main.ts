@@ -12,5 +12,6 @@ process.exitCode = await run(process.argv.slice(2), {
   cwd: process.cwd(),
   env: process.env,
   isTTY: process.stdout.isTTY === true,
+  stderrIsTTY: process.stderr.isTTY === true,
   columns: process.stdout.columns,
 });

@@ -1,5 +1,6 @@
 import { readFileSync } from 'node:fs';
 import type { Readable } from 'node:stream';
+import { Presets, SingleBar } from 'cli-progress';
 import yargs from 'yargs';
 import { ConfigError, ConfigFinder, readConfigFile, type Config } from '../config/index.js';
 import { ruleDoc, toolVersion } from '../engine/docs.js';
@@ -18,10 +19,14 @@ export interface Io {
   cwd: string;
   env: NodeJS.ProcessEnv;
   isTTY: boolean;
+  /** Standard error is a terminal: only then is a progress bar drawn. */
+  stderrIsTTY?: boolean;
   columns?: number | undefined;
 }
 
 const FORMATS = ['human', 'json', 'sarif', 'checklist'] as const;
+/** Files from which a run on a terminal shows a progress bar. */
+const PROGRESS_FROM = 50;
 type Format = (typeof FORMATS)[number];
 
 /** Exit codes: 0 clean, 1 findings over the limits, 2 usage, configuration or read errors. */
@@ -148,10 +153,15 @@ export async function run(argv: string[], io: Io): Promise<number> {
     }
     jobs.push(jobFor(path, source, path));
   }
+  // A progress bar on standard error for long runs, only on a terminal and never in CI.
+  const bar = io.stderrIsTTY && !io.env.CI && jobs.length >= PROGRESS_FROM ? new SingleBar({ stream: process.stderr, format: 'checking {bar} {value}/{total} files', clearOnComplete: true, hideCursor: true }, Presets.shades_classic) : undefined;
+  bar?.start(jobs.length, 0);
   await checkAll(jobs, threads, (o, i) => {
     if ('report' in o) reports.push(o.report);
     else failures.push({ path: (jobs[i] as Job).path, message: o.error });
+    bar?.increment();
   });
+  bar?.stop();
 
   const runReport: RunReport = {
     tool: { name: 'plumbline', version: toolVersion() },

@@ -2,13 +2,14 @@ import type { Position } from './types.js';
 
 /**
  * Offsets of line starts, for turning source offsets into line/column. A line ends at
- * "\r\n", "\n" or a lone "\r" (CommonMark's line endings), so CRLF files map exactly.
+ * "\r\n", "\n" or a lone "\r" (CommonMark's line endings), so CRLF files map exactly. A
+ * byte-order mark is not a column: line 1 starts after it, as in editors.
  */
 export class LineIndex {
   private readonly starts: number[];
 
   constructor(text: string) {
-    const starts = [0];
+    const starts = [text.charCodeAt(0) === 0xfeff ? 1 : 0];
     for (let i = 0; i < text.length; i += 1) {
       const c = text.charCodeAt(i);
       if (c === 10) starts.push(i + 1);
@@ -29,7 +30,7 @@ export class LineIndex {
       if ((this.starts[mid] as number) <= offset) lo = mid;
       else hi = mid - 1;
     }
-    return { line: lo + 1, column: offset - (this.starts[lo] as number) + 1 };
+    return { line: lo + 1, column: Math.max(1, offset - (this.starts[lo] as number) + 1) };
   }
 
   /** Source offset where 1-based `line` starts. */

@@ -32,7 +32,7 @@ describe('source positions (line and column are exact)', () => {
     { name: 'strong emphasis', source: 'So **t**(28) = 2.10, **p** = .045.\n', text: 't**(28) = 2.10, **p** = .045', line: 1, column: 6 },
     { name: 'inline math', source: 'As before, $t(28) = 2.10, p = .045$.\n', text: 't(28) = 2.10, p = .045', line: 1, column: 13 },
     { name: 'CRLF line ends, second line', source: 'Intro line.\r\n\r\nRecall improved, t(28) = 2.10, p = .045.\r\n', text: 't(28) = 2.10, p = .045', line: 3, column: 18 },
-    { name: 'a BOM before the first line', source: '\uFEFFRecall improved, t(28) = 2.10, p = .045.\n', text: 't(28) = 2.10, p = .045', line: 1, column: 19 },
+    { name: 'a BOM before the first line (not a column)', source: '\uFEFFRecall improved, t(28) = 2.10, p = .045.\n', text: 't(28) = 2.10, p = .045', line: 1, column: 18 },
     { name: 'tab before the result (one column)', source: 'Recall\timproved, t(28) = 2.10, p = .045.\n', text: 't(28) = 2.10, p = .045', line: 1, column: 18 },
     { name: 'inside a link', source: 'See [the result t(28) = 2.10, p = .045](https://example.org).\n', text: 't(28) = 2.10, p = .045', line: 1, column: 17 },
     { name: 'after a footnote reference', source: 'Recall improved[^1], t(28) = 2.10, p = .045.\n\n[^1]: A note.\n', text: 't(28) = 2.10, p = .045', line: 1, column: 22 },
