@@ -1,11 +1,11 @@
-import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
 import { createInterface } from 'node:readline';
 import type { CheckOptions } from '../engine/index.js';
-import { describeError } from './files.js';
+import { readManuscript, type ReadOutcome } from './read.js';
 import { checkAll, type Job } from './pool.js';
 import type { Io } from './run.js';
 
-type JobFor = (path: string, source: string, configPath: string, format?: CheckOptions['format']) => Job;
+type JobFor = (path: string, source: string | ((maxBytes: number) => ReadOutcome), configPath: string, format?: CheckOptions['format']) => Job;
 
 interface Line {
   id: string;
@@ -75,9 +75,6 @@ function parseLine(text: string, n: number, cwd: string, jobFor: JobFor): Line {
     if (d.format !== undefined && !format) return { id, job: { path: id, error: `line ${n}: "format" must be markdown, rmarkdown or text` } };
     return { id, job: jobFor(id, d.text, `${cwd}/${id}`, format) };
   }
-  try {
-    return { id: text, job: jobFor(text, readFileSync(text, 'utf8'), text) };
-  } catch (e) {
-    return { id: text, job: { path: text, error: `cannot read: ${describeError(e)}` } };
-  }
+  const path = resolve(cwd, text);
+  return { id: text, job: jobFor(text, (max) => readManuscript(path, max), path) };
 }

@@ -1,5 +1,5 @@
 import { readdirSync, realpathSync, statSync } from 'node:fs';
-import { isAbsolute, join } from 'node:path';
+import { isAbsolute, join, resolve } from 'node:path';
 import { globSync } from 'tinyglobby';
 
 /** Extensions read when a folder is given. */
@@ -17,9 +17,11 @@ const GLOB_CHARS = /[*?[\]{}]/;
 /**
  * Arguments into files, in a stable order: a file as given (any extension); a folder walked
  * recursively for manuscript extensions (skipping node_modules and dot-folders, following
- * symbolic links once: a link loop is visited only once); a glob expanded.
+ * symbolic links once: a link loop is visited only once); a glob expanded. Relative
+ * arguments are taken from `cwd` and reported as given.
  */
-export function expandArguments(args: string[]): Expansion {
+export function expandArguments(args: string[], cwd = process.cwd()): Expansion {
+  const at = (p: string) => resolve(cwd, p);
   const files: string[] = [];
   const missing: Expansion['missing'] = [];
   const seen = new Set<string>();
@@ -32,10 +34,10 @@ export function expandArguments(args: string[]): Expansion {
   for (const arg of args) {
     let stat;
     try {
-      stat = statSync(arg);
+      stat = statSync(at(arg));
     } catch (e) {
       if (GLOB_CHARS.test(arg)) {
-        const matched = globSync(arg, { onlyFiles: true, dot: false, absolute: isAbsolute(arg), ignore: ['**/node_modules/**'] }).sort();
+        const matched = globSync(arg, { cwd, onlyFiles: true, dot: false, absolute: isAbsolute(arg), ignore: ['**/node_modules/**'] }).sort();
         if (matched.length === 0) missing.push({ path: arg, message: 'no file matches this pattern' });
         matched.forEach(add);
       } else {
@@ -43,16 +45,16 @@ export function expandArguments(args: string[]): Expansion {
       }
       continue;
     }
-    if (stat.isDirectory()) walk(arg, new Set(), add);
+    if (stat.isDirectory()) walk(arg, new Set(), add, at);
     else add(arg);
   }
   return { files, missing };
 }
 
-function walk(dir: string, visited: Set<string>, add: (f: string) => void): void {
+function walk(dir: string, visited: Set<string>, add: (f: string) => void, at: (p: string) => string): void {
   let real: string;
   try {
-    real = realpathSync(dir);
+    real = realpathSync(at(dir));
   } catch {
     return;
   }
@@ -60,7 +62,7 @@ function walk(dir: string, visited: Set<string>, add: (f: string) => void): void
   visited.add(real);
   let entries;
   try {
-    entries = readdirSync(dir, { withFileTypes: true });
+    entries = readdirSync(at(dir), { withFileTypes: true });
   } catch {
     return;
   }
@@ -72,14 +74,14 @@ function walk(dir: string, visited: Set<string>, add: (f: string) => void): void
     let isFile = e.isFile();
     if (e.isSymbolicLink()) {
       try {
-        const s = statSync(path);
+        const s = statSync(at(path));
         isDir = s.isDirectory();
         isFile = s.isFile();
       } catch {
         continue; // dangling link
       }
     }
-    if (isDir) walk(path, visited, add);
+    if (isDir) walk(path, visited, add, at);
     else if (isFile && isManuscript(e.name)) add(path);
   }
 }

@@ -1,4 +1,3 @@
-import { readFileSync } from 'node:fs';
 import type { Readable } from 'node:stream';
 import { Presets, SingleBar } from 'cli-progress';
 import yargs from 'yargs';
@@ -7,9 +6,13 @@ import { ruleDoc, toolVersion } from '../engine/docs.js';
 import { RULE_IDS, RULES, ruleById, type CheckOptions, type FileFailure, type FileReport } from '../engine/index.js';
 import { countRun, formatChecklist, formatHuman, formatJson, formatSarif, type RuleInfo, type RunReport } from '../report/index.js';
 import { describeError, expandArguments } from './files.js';
+import { AtomicOutput, identity } from './output.js';
+import type { ReadNote } from '../engine/index.js';
 import { checkAll, type Job } from './pool.js';
 import { runBatch } from './batch.js';
+import { DEFAULT_MAX_FILE_BYTES, decodeManuscript, readManuscript, type ReadOutcome } from './read.js';
 import { availableParallelism } from 'node:os';
+import { resolve } from 'node:path';
 
 export interface Io {
   /** Write to standard output; resolves once the stream can take more (back-pressure). */
@@ -32,10 +35,8 @@ type Format = (typeof FORMATS)[number];
 /** Exit codes: 0 clean, 1 findings over the limits, 2 usage, configuration or read errors. */
 export const EXIT = { clean: 0, findings: 1, trouble: 2 } as const;
 
-/** The command line, as a function of its arguments and I/O so tests can call it in-process. */
-export async function run(argv: string[], io: Io): Promise<number> {
-  let usageError: string | undefined;
-  const parser = yargs(argv)
+function parserFor(argv: string[], columns: number | undefined, onFail: (message: string) => void) {
+  return yargs(argv)
     .scriptName('plumbline')
     .usage('$0 [files…]\n\nChecks the t-tests a manuscript reports: recomputes p from t and df (rounding-aware) and reports each inconsistency at its line.')
     .command('$0 [files..]', 'check manuscripts (Markdown, R Markdown, Quarto, plain text; folders and globs)', (y) =>
@@ -52,16 +53,25 @@ export async function run(argv: string[], io: Io): Promise<number> {
     .option('stdin-name', { type: 'string', default: 'stdin.md', describe: 'file name (and so format) for "-"' })
     .option('checklist', { type: 'boolean', describe: 'also check the write-up against reporting guidelines (on with --format checklist)' })
     .option('jobs', { alias: 'j', type: 'number', describe: 'worker threads for many files (default: the cores available; 1: none)' })
+    .option('max-file-bytes', { type: 'number', describe: `skip files larger than this (default ${DEFAULT_MAX_FILE_BYTES}, or maxFileBytes in configuration)` })
+    .option('output', { alias: 'o', type: 'string', describe: 'write the report to this file (atomically; never over an input file)' })
     .option('color', { type: 'boolean', describe: 'colour the human format (default: on a terminal, unless NO_COLOR is set)' })
     .strict()
     .help()
     .version(toolVersion())
-    .wrap(Math.min(100, io.columns ?? 100))
+    .wrap(Math.min(100, columns ?? 100))
     .exitProcess(false)
     .fail((msg, err) => {
-      usageError = msg || err?.message || 'invalid arguments';
+      onFail(msg || err?.message || 'invalid arguments');
     });
+}
 
+/** The command line, as a function of its arguments and I/O so tests can call it in-process. */
+export async function run(argv: string[], io: Io): Promise<number> {
+  let usageError: string | undefined;
+  const parser = parserFor(argv, io.columns, (m) => {
+    usageError = m;
+  });
   let parsed;
   let helpText = '';
   try {
@@ -96,6 +106,36 @@ export async function run(argv: string[], io: Io): Promise<number> {
     return EXIT.clean;
   }
 
+  const outputPath = parsed.output;
+  if (outputPath === undefined || outputPath === '-') return check(parsed, command, argv, io);
+  let output: AtomicOutput;
+  try {
+    output = new AtomicOutput(outputPath, io.cwd);
+  } catch (e) {
+    io.stderr(`plumbline: cannot write ${outputPath}: ${describeError(e)}\n`);
+    return EXIT.trouble;
+  }
+  try {
+    const code = await check(parsed, command, argv, { ...io, stdout: (s) => output.write(s), isTTY: false }, identity(outputPath, io.cwd));
+    if (code === REFUSED) {
+      output.abort();
+      return EXIT.trouble;
+    }
+    output.commit();
+    return code;
+  } catch (e) {
+    output.abort();
+    throw e;
+  }
+}
+
+/** Returned when the run must not produce output at all (the output file is one of the inputs). */
+const REFUSED = -1;
+
+type Parsed = Awaited<ReturnType<ReturnType<typeof parserFor>['parseAsync']>>;
+
+/** Check the files (or the batch on standard input), writing the report through `io.stdout`. */
+async function check(parsed: Parsed, command: string, argv: string[], io: Io, outputIdentity?: string): Promise<number> {
   const alpha = parsed.alpha;
   if (alpha !== undefined && !(alpha > 0 && alpha < 1)) {
     io.stderr('plumbline: --alpha must be a number between 0 and 1 (exclusive)\n');
@@ -111,9 +151,9 @@ export async function run(argv: string[], io: Io): Promise<number> {
   let explicitConfig: Config | undefined;
   if (parsed.config) {
     try {
-      explicitConfig = readConfigFile(parsed.config, RULE_IDS);
+      explicitConfig = readConfigFile(resolve(io.cwd, parsed.config), RULE_IDS);
     } catch (e) {
-      io.stderr(`${configMessage(e)}\n`);
+      io.stderr(`plumbline: ${configMessage(e)}\n`);
       return EXIT.trouble;
     }
   }
@@ -125,12 +165,30 @@ export async function run(argv: string[], io: Io): Promise<number> {
 
   const threads = Math.max(1, Math.floor(parsed.jobs ?? availableParallelism()));
   const configFor = (configPath: string): Config => explicitConfig ?? finder.forFile(configPath).config;
-  const jobFor = (path: string, source: string, configPath: string, format?: CheckOptions['format']): Job => {
+  const maxFileBytes = parsed['max-file-bytes'];
+  if (maxFileBytes !== undefined && !(maxFileBytes >= 1)) {
+    io.stderr('plumbline: --max-file-bytes must be a positive number\n');
+    return EXIT.trouble;
+  }
+  /** A document into a job: its configuration found, its text read (from disk when `source` is a reader). */
+  const jobFor = (path: string, source: string | ((maxBytes: number) => ReadOutcome), configPath: string, format?: CheckOptions['format']): Job => {
+    let config: Config;
     try {
-      return { path, source, options: { ...options, config: configFor(configPath), ...(format ? { format } : {}) } };
+      config = configFor(configPath);
     } catch (e) {
       return { path, error: configMessage(e) };
     }
+    let text: string;
+    let readNotes: ReadNote[] = [];
+    if (typeof source === 'string') text = source;
+    else if (outputIdentity !== undefined && identity(path, io.cwd) === outputIdentity) return { path, error: 'not checked: this is the output file (--output), which plumbline never reads as input' };
+    else {
+      const outcome = source(maxFileBytes ?? config.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES);
+      if (!outcome.ok) return { path, error: outcome.message };
+      text = outcome.text;
+      readNotes = outcome.notes;
+    }
+    return { path, source: text, options: { ...options, config, ...(format ? { format } : {}), ...(readNotes.length > 0 ? { readNotes } : {}) } };
   };
 
   if (command === 'batch') return runBatch(io, jobFor, threads);
@@ -139,20 +197,19 @@ export async function run(argv: string[], io: Io): Promise<number> {
   const named = files.filter((f) => f !== '-');
   if (files.includes('-')) {
     const name = String(parsed['stdin-name']);
-    jobs.push(jobFor(name, await readAll(io.stdin), `${io.cwd}/${name}`));
+    const bytes = await readAll(io.stdin);
+    jobs.push(jobFor(name, (max) => decodeManuscript(bytes, max), `${io.cwd}/${name}`));
   }
-  const expansion = expandArguments(named);
-  for (const m of expansion.missing) failures.push({ path: m.path, message: m.message });
-  for (const path of expansion.files) {
-    let source: string;
-    try {
-      source = readFileSync(path, 'utf8');
-    } catch (e) {
-      failures.push({ path, message: `cannot read: ${describeError(e)}` });
-      continue;
+  const expansion = expandArguments(named, io.cwd);
+  if (outputIdentity !== undefined) {
+    const clash = expansion.files.find((f) => identity(f, io.cwd) === outputIdentity);
+    if (clash !== undefined) {
+      io.stderr(`plumbline: refusing to write the report over an input file: ${clash}\n`);
+      return REFUSED;
     }
-    jobs.push(jobFor(path, source, path));
   }
+  for (const m of expansion.missing) failures.push({ path: m.path, message: m.message });
+  for (const path of expansion.files) jobs.push(jobFor(path, (max) => readManuscript(resolve(io.cwd, path), max), resolve(io.cwd, path)));
   // A progress bar on standard error for long runs, only on a terminal and never in CI.
   const bar = io.stderrIsTTY && !io.env.CI && jobs.length >= PROGRESS_FROM ? new SingleBar({ stream: process.stderr, format: 'checking {bar} {value}/{total} files', clearOnComplete: true, hideCursor: true }, Presets.shades_classic) : undefined;
   bar?.start(jobs.length, 0);
@@ -190,14 +247,14 @@ export async function run(argv: string[], io: Io): Promise<number> {
 function configMessage(e: unknown): string {
   if (e instanceof ConfigError) {
     const at = e.line !== undefined ? `:${e.line}${e.column !== undefined ? `:${e.column}` : ''}` : '';
-    return `plumbline: configuration ${e.file}${at}: ${e.message}`;
+    return `configuration ${e.file}${at}: ${e.message}`;
   }
-  return `plumbline: ${e instanceof Error ? e.message : String(e)}`;
+  return e instanceof Error ? e.message : String(e);
 }
 
-async function readAll(stream: Readable): Promise<string> {
+async function readAll(stream: Readable): Promise<Buffer> {
   const chunks: Buffer[] = [];
   for await (const chunk of stream) chunks.push(typeof chunk === 'string' ? Buffer.from(chunk) : (chunk as Buffer));
-  return Buffer.concat(chunks).toString('utf8');
+  return Buffer.concat(chunks);
 }
 

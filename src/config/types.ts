@@ -6,6 +6,8 @@ export interface Config {
   alpha?: number;
   sidedness?: 'one' | 'two';
   integerItems?: number;
+  /** Files larger than this are skipped, said (the CLI; default 50 MiB). */
+  maxFileBytes?: number;
   guidelines?: 'all' | Array<'sampl' | 'jars-quant' | 'consort'>;
   checklist?: boolean;
   rules?: Record<string, LevelSetting>;

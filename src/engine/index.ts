@@ -5,7 +5,7 @@ import type { ReportedNumber, Sidedness } from '../extract/types.js';
 import { link } from '../link/index.js';
 import type { DocumentSettings, ResultContext, Setting } from '../link/index.js';
 import { formatForPath, LineIndex, mayHoldStatistics, parseDocument } from '../parse/index.js';
-import type { ParsedDocument, Span } from '../parse/types.js';
+import type { ParsedDocument, ReadNote, Span } from '../parse/types.js';
 import { evaluateP } from '../rule-api/evaluate.js';
 import type { Guideline, Level, LevelSetting } from '../rule-api/types.js';
 import { RULE_IDS, RULES } from './registry.js';
@@ -13,6 +13,8 @@ import type { ChecklistRecord, FileReport, Finding, NumberRecord, Place, ResultR
 
 export type * from './types.js';
 export { RULES, RULE_IDS, ruleById } from './registry.js';
+export { decodeBytes, type Decoded } from '../parse/index.js';
+export type { ReadNote } from '../parse/types.js';
 
 export interface CheckOptions {
   /** From configuration files (already merged and validated). */
@@ -26,6 +28,8 @@ export interface CheckOptions {
   prefilter?: boolean;
   /** Read the source as this format instead of guessing from the path. */
   format?: 'markdown' | 'rmarkdown' | 'text';
+  /** Notes from decoding the file's bytes (see `decodeBytes`), reported by input-is-readable. */
+  readNotes?: ReadNote[];
 }
 
 /**
@@ -38,7 +42,10 @@ export function checkSource(path: string, source: string, options: CheckOptions 
       ? parseDocument(path, source, options.format)
       : { path, source, format: (options.format ?? formatForPath(path)) === 'text' ? ('text' as const) : ('markdown' as const), segments: [], directives: [], hadBom: source.charCodeAt(0) === 0xfeff };
   const lines = new LineIndex(source);
-  const { settings, levels, guidelines, checklistOn } = resolveSettings(doc, options);
+  const resolved = resolveSettings(doc, options);
+  const { levels, guidelines, checklistOn } = resolved;
+  const readNotes = [...(options.readNotes ?? []), ...(doc.readNotes ?? [])];
+  const settings = readNotes.length > 0 ? { ...resolved.settings, readNotes } : resolved.settings;
   const extraction = extract(doc);
   const linked = link(extraction, doc.directives, settings);
   const place = (span: Span): Place => ({ span, start: lines.position(span.start), end: lines.position(span.end) });

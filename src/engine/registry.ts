@@ -1,4 +1,5 @@
 import { frontMatterIsReadable } from '../../rules/front-matter-is-readable.js';
+import { inputIsReadable } from '../../rules/input-is-readable.js';
 import { oneTailedPIsDeclared } from '../../rules/one-tailed-p-is-declared.js';
 import { pFollowsFromT } from '../../rules/p-follows-from-t.js';
 import { powerStatementFollows } from '../../rules/power-statement-follows.js';
@@ -72,6 +73,7 @@ export const RULES: readonly AnyRule[] = [
   noTrendWording,
   quietDirectiveHasReason,
   frontMatterIsReadable,
+  inputIsReadable,
 ];
 
 export const RULE_IDS: readonly string[] = RULES.map((r) => r.id);

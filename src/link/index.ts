@@ -43,6 +43,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     extraction,
     ...(settings.integerMeasure ? { integerMeasure: settings.integerMeasure } : {}),
     ...(settings.frontMatterError ? { frontMatterError: settings.frontMatterError } : {}),
+    ...(settings.readNotes ? { readNotes: settings.readNotes } : {}),
     statements: extraction.statements,
     documentAlpha,
     documentSidedness,

@@ -1,5 +1,5 @@
 import type { ContextStatement, Extraction, PWithoutT, Sidedness, TTestReport } from '../extract/types.js';
-import type { Directive, Span } from '../parse/types.js';
+import type { Directive, ReadNote, Span } from '../parse/types.js';
 import type { ResultContext } from './descriptives.js';
 
 /** Where a setting that applies to a result came from, most specific first. */
@@ -27,6 +27,7 @@ export interface DocumentSettings {
   alpha?: Setting<number>;
   sidedness?: Setting<Sidedness>;
   frontMatterError?: { message: string; span: Span };
+  readNotes?: ReadNote[];
 }
 
 export interface LinkedDocument {
@@ -39,6 +40,8 @@ export interface LinkedDocument {
   integerMeasure?: Setting<{ items: number }>;
   /** Why the front matter could not be read, when it could not. */
   frontMatterError?: { message: string; span: Span };
+  /** What could not be read as written: undecodable bytes, nesting past the parser's limits. */
+  readNotes?: ReadNote[];
   statements: ContextStatement[];
   /** The document-wide alpha and tails that apply where a result says nothing itself. */
   documentAlpha: Setting<number>;

@@ -8,7 +8,8 @@ import { MappedText } from './builder.js';
 import { readDirective } from './directives.js';
 import { readFrontMatter } from './frontMatter.js';
 import { normalize } from './normalize.js';
-import type { Directive, FrontMatter, ParsedDocument, Segment, SegmentKind, TablePlace } from './types.js';
+import { defuseDenseMarkup } from './depth.js';
+import type { Directive, FrontMatter, ParsedDocument, ReadNote, Segment, SegmentKind, TablePlace } from './types.js';
 
 const processor = unified().use(remarkParse).use(remarkGfm).use(remarkFrontmatter, ['yaml']).use(remarkMath);
 
@@ -30,9 +31,18 @@ export function parseMarkdown(path: string, source: string, options: MarkdownOpt
   // file as read (columns on line 1 then count from the first visible character + 1).
   const body = hadBom ? source.slice(1) : source;
   const shift = hadBom ? 1 : 0;
-  const tree = processor.parse(body) as Root;
-  const walker = new Walker(body, shift, options);
+  const defused = defuseDenseMarkup(body);
+  const text = defused?.text ?? body;
+  const tree = processor.parse(text) as Root;
+  const walker = new Walker(text, shift, options);
   walker.walkBlocks(tree.children);
+  const readNotes: ReadNote[] = defused
+    ? [{
+        kind: 'dense-markup',
+        message: `${defused.blocks} block${defused.blocks === 1 ? '' : 's'} made mostly of emphasis or link markup (the first at line ${defused.firstLine}) ${defused.blocks === 1 ? 'was' : 'were'} read without that markup, to keep the parse fast`,
+        span: { start: 0, end: 0 },
+      }]
+    : [];
   return {
     path,
     source,
@@ -41,6 +51,7 @@ export function parseMarkdown(path: string, source: string, options: MarkdownOpt
     directives: walker.finishDirectives(),
     ...(walker.frontMatter ? { frontMatter: walker.frontMatter } : {}),
     hadBom,
+    ...(readNotes.length > 0 ? { readNotes } : {}),
   };
 }
 

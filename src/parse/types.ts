@@ -69,4 +69,13 @@ export interface ParsedDocument {
   frontMatter?: FrontMatter;
   /** Whether the source began with a byte-order mark (stripped before parsing). */
   hadBom: boolean;
+  /** What plumbline could not read as written (undecodable bytes, nesting past the parser's limits). */
+  readNotes?: ReadNote[];
+}
+
+/** Something about reading the file that a user should know: the findings may be incomplete there. */
+export interface ReadNote {
+  kind: 'replaced-bytes' | 'deep-nesting' | 'parser-limit' | 'dense-markup';
+  message: string;
+  span: Span;
 }

@@ -1,0 +1,55 @@
+import { closeSync, fstatSync, openSync, readSync, statSync } from 'node:fs';
+import { decodeBytes } from '../engine/index.js';
+import type { ReadNote } from '../engine/index.js';
+import { describeError } from './files.js';
+
+/** Files above this size are skipped unless configured otherwise (`maxFileBytes`, `--max-file-bytes`). */
+export const DEFAULT_MAX_FILE_BYTES = 50 * 1024 * 1024;
+
+export type ReadOutcome = { ok: true; text: string; notes: ReadNote[] } | { ok: false; message: string };
+
+/**
+ * Read a manuscript from disk: refuse what is not a regular file or is over the size limit
+ * before reading it, then decode (UTF-8, UTF-16 with BOM; binary files refused).
+ */
+export function readManuscript(path: string, maxBytes = DEFAULT_MAX_FILE_BYTES): ReadOutcome {
+  let fd: number;
+  try {
+    // stat before opening: opening a FIFO or device would block or read without end
+    const s = statSync(path);
+    if (s.isDirectory()) return { ok: false, message: 'cannot read: is a folder' };
+    if (!s.isFile()) return { ok: false, message: 'skipped: not a regular file' };
+    fd = openSync(path, 'r');
+  } catch (e) {
+    return { ok: false, message: `cannot read: ${describeError(e)}` };
+  }
+  try {
+    const stat = fstatSync(fd);
+    if (stat.isDirectory()) return { ok: false, message: 'cannot read: is a folder' };
+    if (!stat.isFile()) return { ok: false, message: 'skipped: not a regular file' };
+    if (stat.size > maxBytes) return { ok: false, message: `skipped: ${stat.size} bytes is over the limit of ${maxBytes} (maxFileBytes in the configuration, or --max-file-bytes)` };
+    const bytes = Buffer.allocUnsafe(stat.size);
+    let read = 0;
+    while (read < stat.size) {
+      const n = readSync(fd, bytes, read, stat.size - read, read);
+      if (n === 0) break;
+      read += n;
+    }
+    return decoded(bytes.subarray(0, read));
+  } catch (e) {
+    return { ok: false, message: `cannot read: ${describeError(e)}` };
+  } finally {
+    closeSync(fd);
+  }
+}
+
+/** Bytes already in memory (standard input) through the same decoding and limit. */
+export function decodeManuscript(bytes: Uint8Array, maxBytes = DEFAULT_MAX_FILE_BYTES): ReadOutcome {
+  if (bytes.length > maxBytes) return { ok: false, message: `skipped: ${bytes.length} bytes is over the limit of ${maxBytes} (maxFileBytes in the configuration, or --max-file-bytes)` };
+  return decoded(bytes);
+}
+
+function decoded(bytes: Uint8Array): ReadOutcome {
+  const d = decodeBytes(bytes);
+  return d.ok ? { ok: true, text: d.text, notes: d.notes } : { ok: false, message: `skipped: ${d.reason}` };
+}
