@@ -1,8 +1,11 @@
-import { unified } from 'unified'; import remarkParse from 'remark-parse'; import remarkGfm from 'remark-gfm';
-const p = unified().use(remarkParse).use(remarkGfm);
-const prose = 'Participants in the trial walked between the two wings of the building each morning. ';
-const size = 200_000;
-const mk = (unit: string, T: number) => { let s=''; while (s.length < size) s += unit.repeat(T) + '\n\n'; return s; };
-const t = (s: string) => { const t0 = performance.now(); p.parse(s); return (performance.now()-t0) / (s.length/1e6); };
-console.log('prose ms/MB', t(mk(prose, 10)).toFixed(0));
-for (const T of [16, 32, 64, 128, 256, 512]) console.log(T, 'alt', t(mk('*a', T)).toFixed(0), 'under', t(mk('_a', T)).toFixed(0), 'nest', t(mk('*', T)+'x').toFixed(0), 'br', t(mk('[a', T)).toFixed(0), 'img', t(mk('![', T) ).toFixed(0), 'imgc', t(('!['.repeat(T)+'x'+'](u)'.repeat(T)+'\n\n').repeat(Math.ceil(size/(T*6)))).toFixed(0));
+import { check } from 'recheck';
+const NUM = String.raw`([-+]?(?:\d{1,3}(?:,\d{3}){1,3}|\d{1,12})(?:\.\d{1,12})?|[-+]?\.\d{1,12})`;
+const PM = String.raw`${NUM}( ?%)? ?± ?${NUM}( ?%)?(?: ?\(? ?(SD|SE|SEM|s\.d\.|s\.e\.m\.|s\.e\.|standard deviations?|standard errors?)\)?)?`;
+const d = await check(PM, 'gu', { timeout: 20000 });
+console.log(d.status, JSON.stringify(d).slice(0, 600));
+const re = new RegExp(PM, 'gu');
+for (const n of [1e4, 2e4, 4e4]) { const s = '0000000000'.repeat(n/10); const t0 = performance.now(); re.lastIndex = 0; re.exec(s); console.log(n, (performance.now()-t0).toFixed(1)); }
+const NUM2 = String.raw`(?<![\d.])` + NUM;
+const d2 = await check(String.raw`${NUM2}( ?%)? ?± ?${NUM}( ?%)?`, 'gu', { timeout: 20000 }); console.log('lookbehind', d2.status, JSON.stringify(d2).slice(0,300));
+const IW = String.raw`(?<![\p{L}])(single[- ]item|number of [\p{L}]{2,30}|counts? of [\p{L}]{2,30}|integer[- ]valued|whole numbers|(\d{1,3})-item (?:scale|measure|questionnaire|inventory)|scored (?:from )?\d{1,3} (?:to|–|-) ?\d{1,3})(?![\p{L}])`;
+for (const [name, src, fl] of [['iw', IW, 'giu'], ['iw no i', IW, 'gu'], ['iw letters', IW.replaceAll('[\\p{L}]{2,30}', '\\p{L}{2,30}'), 'giu'], ['iw plus', IW.replaceAll('[\\p{L}]{2,30}', '\\p{L}+'), 'giu']] as const) { const t0=Date.now(); const r = await check(src, fl, { timeout: 30000 }); console.log(name, r.status, Date.now()-t0, JSON.stringify(r).slice(0,200)); }

@@ -20,7 +20,8 @@ export function parseConfigText(text: string, file: string, knownRuleIds: readon
       const message = e instanceof Error ? e.message : String(e);
       const pos = /position (\d+)/.exec(message);
       const at = pos ? lineColumn(text, Number(pos[1])) : undefined;
-      throw new ConfigError(`invalid JSON: ${message.replace(/ in JSON at position \d+.*$/, '')}`, file, at?.line, at?.column);
+      const cut = message.search(/ in JSON at position \d/);
+      throw new ConfigError(`invalid JSON: ${cut >= 0 ? message.slice(0, cut) : message}`, file, at?.line, at?.column);
     }
   } else {
     const doc = parseYamlDocument(text, { schema: 'core', customTags: [], prettyErrors: true });

@@ -14,7 +14,7 @@ export function sourceSpan(seg: Segment, a: number, b: number): Span {
 export function readNumber(seg: Segment, a: number, b: number, exponent = 0, mantissaEnd = b): ReportedNumber | undefined {
   const raw = seg.text.slice(a, mantissaEnd);
   const cleaned = raw.replace(/[\s,]/g, '').replace(/^\+/, '');
-  if (!/^-?(?:\d+\.?\d*|\.\d+)$/.test(cleaned)) return undefined;
+  if (!/^-?(?:\d+(?:\.\d*)?|\.\d+)$/.test(cleaned)) return undefined;
   const dot = cleaned.indexOf('.');
   const decimals = dot < 0 ? 0 : cleaned.length - dot - 1;
   const mantissa = Number(cleaned);

@@ -25,7 +25,8 @@ const SD = new RegExp(String.raw`${START}\{?(?:SD|sd|s\.d\.|S\.D\.|Std\.? ?Dev\.
 const SE = new RegExp(String.raw`${START}\{?(?:SEM|SE|s\.e\.m\.|s\.e\.|S\.E\.|[Ss]tandard error(?: of the mean)?)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
 const N = new RegExp(String.raw`${START}(?:(n|N)(?:_\{[^{}\n]{1,20}\}|_?[0-9]|_[\p{L}]{1,20})?|[Ss]ample size) ?(?:=|:) ?${INT}(?: (per group|in each group|each|per condition|per arm))?(?![\d.])`, 'dgu');
 const PARTICIPANTS = new RegExp(String.raw`(?<![\p{L}\p{N}.,])${INT} (participants|patients|subjects|people|children|adults|students|staff|volunteers|respondents|women|men|infants|pairs|nurses|doctors|clinicians|workers|employees|mothers|families|households|cases)(?![\p{L}])`, 'dgu');
-const PLUS_MINUS = new RegExp(String.raw`${NUM}( ?%)? ?± ?${NUM}( ?%)?(?: ?\(? ?(SD|SE|SEM|s\.d\.|s\.e\.m\.|s\.e\.|standard deviations?|standard errors?)\)?)?`, 'dgu');
+// the look-behind starts a number only at the start of a digit run (recheck judges it linear then)
+const PLUS_MINUS = new RegExp(String.raw`(?<![\d.])${NUM}( ?%)? ?± ?${NUM}( ?%)?(?: ?\(? ?(SD|SE|SEM|s\.d\.|s\.e\.m\.|s\.e\.|standard deviations?|standard errors?)\)?)?`, 'dgu');
 const MEAN_PAREN = new RegExp(String.raw`(?<![\p{L}\p{N}_.(=])${NUM}( ?%)? ?\((?:(SD|SE|SEM|s\.d\.|s\.e\.)(?: ?=)? ?)?${NUM}( ?%)?\)`, 'dgu');
 const MEAN_PAREN_HEADER = /(?<![\p{L}])(?:M|mean|means)s? ?\((SD|SE|SEM)\)/iu;
 const CI = new RegExp(
@@ -41,7 +42,7 @@ const REFERENCE = new RegExp(
   String.raw`(?:test value|hypothesi[sz]ed (?:value|mean)|reference value|population mean|norm|benchmark|target|chance(?:[- ]level)?)(?: of| =| at| was| is)? ?\(? ?${NUM}( ?%)?`,
   'dgiu',
 );
-const INTEGER_WORDS = /(?<![\p{L}])(single[- ]item|number of [\p{L}]{2,30}|counts? of [\p{L}]{2,30}|integer[- ]valued|whole numbers|(\d{1,3})-item (?:scale|measure|questionnaire|inventory)|scored (?:from )?\d{1,3} (?:to|–|-) ?\d{1,3})(?![\p{L}])/giu;
+const INTEGER_WORDS = /(?<![\p{L}])(single[- ]item|number of \p{L}{2}\p{L}*|counts? of \p{L}{2}\p{L}*|integer[- ]valued|whole numbers|(\d{1,3})-item (?:scale|measure|questionnaire|inventory)|scored (?:from )?\d{1,3} (?:to|–|-) ?\d{1,3})(?![\p{L}])/giu;
 const COUNT_PERCENT = new RegExp(String.raw`(?<![\p{L}\p{N}.,])(\d{1,6}) ?\((\d{1,3}(?:\.\d{1,3})?) ?%\)`, 'dgu');
 
 type TokenKind = 'mean' | 'sd' | 'se' | 'n' | 'pm' | 'paren';
@@ -212,7 +213,7 @@ function groupTokens(seg: Segment, tokens: Token[], sentenceStarts: number[]): G
     const sentenceBreak = prev ? sentenceOf(sentenceStarts, prev.start) !== sentenceOf(sentenceStarts, tok.start) : false;
     // A closed parenthesis, or one opened after other words, separates groups:
     // "(M = 40.4, SD = 18.2) than caps (M = …" and "… 2.9 after (mean ± SEM, N = 1,024)".
-    const parenBreak = /\)/.test(gap) || /[^\s(,;:][^()]*\(/.test(gap);
+    const parenBreak = gap.includes(')') || wordsBeforeParenthesis(gap);
     const isMeanLike = tok.kind === 'mean' || tok.kind === 'pm' || tok.kind === 'paren';
     const isSpread = tok.kind === 'sd' || tok.kind === 'se' || tok.kind === 'pm' || tok.kind === 'paren';
     if (
@@ -257,7 +258,7 @@ function toSummary(seg: Segment, tokens: Token[], sentenceStarts: number[]): Gro
       };
     }
   }
-  const labelText = seg.text.slice(Math.max(0, first.start - 45), first.start).replace(/[(\s,;:]+$/, '');
+  const labelText = trimEndOf(seg.text.slice(Math.max(0, first.start - 45), first.start), '(,;: \t\n\r\u00a0');
   const label = labelText.split(/[;)]|, |\. /).pop()?.trim();
   return {
     id: `${seg.id}:${first.start}`,
@@ -277,4 +278,23 @@ function toSummary(seg: Segment, tokens: Token[], sentenceStarts: number[]): Gro
 function indexOfSource(seg: Segment, offset: number): number {
   const i = seg.starts.findIndex((s) => s >= offset);
   return i < 0 ? seg.text.length : i;
+}
+
+/** Whether some "(" in the text comes after a word (not only after spaces and , ; :) since the last parenthesis. */
+function wordsBeforeParenthesis(text: string): boolean {
+  for (let j = text.indexOf('('); j >= 0; j = text.indexOf('(', j + 1)) {
+    for (let k = j - 1; k >= 0; k--) {
+      const c = text[k] as string;
+      if (c === '(' || c === ')') break;
+      if (!/[\s,;:]/.test(c)) return true;
+    }
+  }
+  return false;
+}
+
+/** The text without any of these characters at its end (a loop: a trailing-run pattern is quadratic). */
+function trimEndOf(text: string, chars: string): string {
+  let end = text.length;
+  while (end > 0 && (chars.includes(text[end - 1] as string) || /\s/.test(text[end - 1] as string))) end -= 1;
+  return text.slice(0, end);
 }

@@ -37,7 +37,7 @@ export function parsePlainText(path: string, source: string): ParsedDocument {
     } else {
       para.pushSynthetic(' ', line.start - line.breakLength, line.start);
     }
-    const body = content.slice(lead).replace(/\s+$/, '');
+    const body = content.slice(lead).trimEnd();
     para.pushVerbatim(body, line.start + lead);
   }
   flush();

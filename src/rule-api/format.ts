@@ -19,7 +19,11 @@ export function showInterval(low: number, high: number): string {
 }
 
 function trimZeros(s: string): string {
-  return s.includes('.') ? s.replace(/0+$/, '').replace(/\.$/, '') : s;
+  if (!s.includes('.')) return s;
+  let end = s.length;
+  while (s[end - 1] === '0') end -= 1;
+  if (s[end - 1] === '.') end -= 1;
+  return s.slice(0, end);
 }
 
 /** Fill `{name}` placeholders; a missing value is left visible as `{name}` so tests catch it. */
