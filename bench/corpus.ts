@@ -79,3 +79,29 @@ export function statFree(seed: number, bytes = 50_000): string {
   }
   return parts.join('\n');
 }
+
+/**
+ * Adversarial documents of about `bytes` characters: one run of a pattern that stresses a
+ * scanner (our regular expressions, or the Markdown parser), between two ordinary reported
+ * results so the pre-filter cannot skip the document.
+ */
+export const ADVERSARIAL: Record<string, (bytes: number) => string> = {
+  't(': (n) => 't('.repeat(n / 2),
+  'p = .': (n) => 'p = .'.repeat(n / 5),
+  '±': (n) => '±'.repeat(n),
+  '1 ± ': (n) => '1 ± '.repeat(n / 4),
+  digits: (n) => '1234567890'.repeat(n / 10),
+  '*a': (n) => '*a'.repeat(n / 2),
+  '**': (n) => '*'.repeat(n / 2) + 'x' + '*'.repeat(n / 2),
+  $: (n) => '$x'.repeat(n / 2),
+  '| pipes': (n) => '|'.repeat(n),
+  'table rows': (n) => `| a | b |\n|---|---|\n${'| 1 | 2 |\n'.repeat(n / 10)}`,
+  '![': (n) => '!['.repeat(n / 6) + 'x' + '](u)'.repeat(n / 6),
+  'nested >': (n) => '>'.repeat(n),
+};
+
+export function adversarial(kind: string, bytes = 1_000_000): string {
+  const run = ADVERSARIAL[kind];
+  if (!run) throw new Error(`no adversarial input "${kind}"`);
+  return `Fatigue fell after the session, t(23) = 2.47, p = .021.\n\n${run(bytes)}\n\nErrors rose, t(40) = 3.10, p = .20.\n`;
+}

@@ -7,6 +7,7 @@
  *   3. 400 files through the CLI: one worker ÷ all workers (a speed-up)          (goal ≥ 1.7)
  *   4. time per MB, largest document ÷ smallest (10 KB … 10 MB)                 (goal ≤ 1.5)
  *   5. peak RSS of a 5,000-file streaming batch, and ÷ a 50-file batch          (goal ≤ 300 MB)
+ *   6. adversarial 1 MB runs (t(, p = ., ±, digits, emphasis, $, pipes, tables) ÷ ordinary text (goal ≤ 3 each)
  *
  * Prints a table and writes bench/results.json.
  */
@@ -19,7 +20,7 @@ import remarkGfm from 'remark-gfm';
 import remarkParse from 'remark-parse';
 import { unified } from 'unified';
 import { checkSource } from '../src/engine/index.js';
-import { statDense, statFree } from './corpus.js';
+import { ADVERSARIAL, adversarial, statDense, statFree } from './corpus.js';
 
 const root = resolve(fileURLToPath(new URL('.', import.meta.url)), '../..');
 const cli = join(root, 'dist/src/cli/main.js');
@@ -110,6 +111,25 @@ const large = rss(5000);
 add({ name: '5 peak RSS, 5,000-file batch (MB)', value: large, goal: '<= 300', met: large <= 300, detail: `50-file batch ${small.toFixed(0)} MB; ratio ${(large / small).toFixed(2)}` });
 rmSync(dir, { recursive: true, force: true });
 
+// 6: adversarial 1 MB runs (issue: hostile input) against ordinary text of the same size
+const ordinary = statDense(11, 1_000_000);
+const ordinaryMs = best(() => checkSource('ordinary.md', ordinary)) / (ordinary.length / 1e6);
+const ordinaryBare = best(() => bare.parse(ordinary)) / (ordinary.length / 1e6);
+const hostile = Object.keys(ADVERSARIAL).map((kind) => {
+  const doc = adversarial(kind);
+  const ms = best(() => checkSource('hostile.md', doc), 1) / (doc.length / 1e6);
+  const bareMs = best(() => bare.parse(doc), 1) / (doc.length / 1e6);
+  return { kind, ratio: ms / ordinaryMs, bareRatio: bareMs / ordinaryBare };
+});
+const worst = hostile.reduce((a, b) => (b.ratio > a.ratio ? b : a));
+add({
+  name: '6 adversarial 1 MB runs: worst / ordinary',
+  value: worst.ratio,
+  goal: '<= 3',
+  met: worst.ratio <= 3,
+  detail: `worst "${worst.kind}" (bare remark on it ${worst.bareRatio.toFixed(1)}× its ordinary); ${hostile.map((h) => `${h.kind} ${h.ratio.toFixed(2)}`).join(', ')}`,
+});
+
 const machine = { cpus: cpus().length, cpu: cpus()[0]?.model ?? '', memoryGb: Math.round(totalmem() / 2 ** 30), node: process.version, date: new Date().toISOString().slice(0, 10) };
-writeFileSync(join(root, 'bench/results.json'), `${JSON.stringify({ machine, figures, perMb }, null, 2)}\n`);
+writeFileSync(join(root, 'bench/results.json'), `${JSON.stringify({ machine, figures, perMb, hostile }, null, 2)}\n`);
 console.log(`\nmachine: ${machine.cpus} × ${machine.cpu}, ${machine.memoryGb} GiB, Node ${machine.node}; written to bench/results.json`);

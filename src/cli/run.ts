@@ -4,7 +4,7 @@ import yargs from 'yargs';
 import { ConfigError, ConfigFinder, readConfigFile, type Config } from '../config/index.js';
 import { ruleDoc, toolVersion } from '../engine/docs.js';
 import { RULE_IDS, RULES, ruleById, type CheckOptions, type FileFailure, type FileReport } from '../engine/index.js';
-import { countRun, formatChecklist, formatHuman, formatJson, formatSarif, type RuleInfo, type RunReport } from '../report/index.js';
+import { countRun, formatChecklist, formatHtml, formatHuman, formatJson, formatSarif, type RuleInfo, type RunReport } from '../report/index.js';
 import { describeError, expandArguments } from './files.js';
 import { AtomicOutput, identity } from './output.js';
 import type { ReadNote } from '../engine/index.js';
@@ -27,7 +27,7 @@ export interface Io {
   columns?: number | undefined;
 }
 
-const FORMATS = ['human', 'json', 'sarif', 'checklist'] as const;
+const FORMATS = ['human', 'json', 'sarif', 'checklist', 'html'] as const;
 /** Files from which a run on a terminal shows a progress bar. */
 const PROGRESS_FROM = 50;
 type Format = (typeof FORMATS)[number];
@@ -231,6 +231,7 @@ async function check(parsed: Parsed, command: string, argv: string[], io: Io, ou
   if (format === 'json') await io.stdout(formatJson(runReport));
   else if (format === 'sarif') await io.stdout(formatSarif(runReport, io.cwd));
   else if (format === 'checklist') await io.stdout(formatChecklist(runReport));
+  else if (format === 'html') await io.stdout(formatHtml(runReport));
   else {
     const color = parsed.color ?? (io.isTTY && !('NO_COLOR' in io.env && io.env.NO_COLOR !== ''));
     await io.stdout(formatHuman(runReport, { color, width: io.columns ?? 100 }));

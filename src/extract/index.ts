@@ -38,22 +38,22 @@ export function extract(doc: ParsedDocument): Extraction {
   for (const seg of doc.segments) {
     const starts = sentenceStarts(seg.text);
     const tests = findTTests(seg, starts);
-    out.tests.push(...tests);
+    append(out.tests, tests);
     if (seg.kind !== 'code') {
-      out.statements.push(...findStatements(seg, starts));
+      append(out.statements, findStatements(seg, starts));
       const found = findSummaries(seg, starts);
-      out.summaries.push(...found.summaries);
-      out.sampleSizes.push(...found.sampleSizes);
-      out.intervals.push(...found.intervals);
-      out.estimates.push(...found.estimates);
-      out.effectSizes.push(...found.effectSizes);
-      out.designs.push(...found.designs);
-      out.references.push(...found.references);
-      out.integerMeasures.push(...found.integerMeasures);
-      out.counts.push(...found.counts);
-      out.powerStatements.push(...findPowerStatements(seg, starts));
-      out.mentions.push(...findMentions(seg, starts));
-      if (MAY_NAME_T_TEST.test(seg.text)) out.pWithoutT.push(...findPWithoutT(seg, starts, tests));
+      append(out.summaries, found.summaries);
+      append(out.sampleSizes, found.sampleSizes);
+      append(out.intervals, found.intervals);
+      append(out.estimates, found.estimates);
+      append(out.effectSizes, found.effectSizes);
+      append(out.designs, found.designs);
+      append(out.references, found.references);
+      append(out.integerMeasures, found.integerMeasures);
+      append(out.counts, found.counts);
+      append(out.powerStatements, findPowerStatements(seg, starts));
+      append(out.mentions, findMentions(seg, starts));
+      if (MAY_NAME_T_TEST.test(seg.text)) append(out.pWithoutT, findPWithoutT(seg, starts, tests));
     }
   }
   for (const seg of doc.segments) {
@@ -70,4 +70,9 @@ export function extract(doc: ParsedDocument): Extraction {
   for (const t of findTableTests(doc.segments)) if (!seen.has(t.span.start)) out.tests.push(t);
   out.tests.sort((a, b) => a.span.start - b.span.start);
   return out;
+}
+
+/** Append without spreading into arguments (a spread of some 100,000 items overflows the stack). */
+function append<T>(to: T[], items: readonly T[]): void {
+  for (const x of items) to.push(x);
 }

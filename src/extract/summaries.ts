@@ -87,9 +87,22 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     span: sourceSpan(seg, a, b),
     printed: text.slice(a, b),
   });
+  // Tokens never overlap, so kept sorted by start their ends are sorted too: a binary search
+  // finds the one neighbour that could overlap a new token (a linear scan was quadratic).
   const tokens: Token[] = [];
   const push = (t: Token) => {
-    if (!tokens.some((o) => t.start < o.end && o.start < t.end)) tokens.push(t);
+    let lo = 0;
+    let hi = tokens.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if ((tokens[mid] as Token).start < t.start) lo = mid + 1;
+      else hi = mid;
+    }
+    const before = tokens[lo - 1];
+    const after = tokens[lo];
+    if ((before && before.end > t.start) || (after && after.start < t.end)) return;
+    if (lo === tokens.length) tokens.push(t);
+    else tokens.splice(lo, 0, t);
   };
   if (text.includes('±')) for (const m of text.matchAll(PLUS_MINUS)) {
     const a = num(seg, m, 1);

@@ -51,10 +51,11 @@ export const DENSE_MARKUP_SHARE = 0.05;
 
 const EMPHASIS = /[*_]/g;
 const BRACKETS = /[[\]!]/g;
+const DOLLARS = /\$/g;
 
 /**
- * Emphasis and link markup costs the Markdown parser some 15× the time of prose per character
- * (measured with remark-parse 11), and nested images grow faster than linearly. A document that
+ * Emphasis, link and inline-math markup costs the Markdown parser some 15× the time of prose per character
+ * (measured with remark-parse 11, remark-math 6 for `$`), and nested images grow faster than linearly. A document that
  * is mostly such markup (conversion debris, or input made to stall a CI job) has those characters
  * in its densest blocks replaced by U+200B, which has the same length (offsets are unchanged) and
  * which the normaliser drops, so statistics inside read as before. Ordinary manuscripts, with
@@ -63,7 +64,8 @@ const BRACKETS = /[[\]!]/g;
 export function defuseDenseMarkup(source: string): { text: string; firstLine: number; blocks: number } | undefined {
   const emphasis = count(source, EMPHASIS);
   const brackets = count(source, BRACKETS);
-  if (emphasis < DENSE_MARKUP_FLOOR && brackets < DENSE_MARKUP_FLOOR) return undefined;
+  const dollars = count(source, DOLLARS);
+  if (emphasis < DENSE_MARKUP_FLOOR && brackets < DENSE_MARKUP_FLOOR && dollars < DENSE_MARKUP_FLOOR) return undefined;
   const blank = /\n[ \t]*(?:\r?\n)+/g;
   let out = '';
   let from = 0;
@@ -74,6 +76,7 @@ export function defuseDenseMarkup(source: string): { text: string; firstLine: nu
     let piece = block;
     if (emphasis >= DENSE_MARKUP_FLOOR && count(block, EMPHASIS) > block.length * DENSE_MARKUP_SHARE) piece = piece.replace(EMPHASIS, '\u200b');
     if (brackets >= DENSE_MARKUP_FLOOR && count(block, BRACKETS) > block.length * DENSE_MARKUP_SHARE) piece = piece.replace(BRACKETS, '\u200b');
+    if (dollars >= DENSE_MARKUP_FLOOR && count(block, DOLLARS) > block.length * DENSE_MARKUP_SHARE) piece = piece.replace(DOLLARS, '\u200b');
     if (piece !== block) {
       blocks += 1;
       if (firstOffset < 0) firstOffset = from;

@@ -39,7 +39,7 @@ export function parseMarkdown(path: string, source: string, options: MarkdownOpt
   const readNotes: ReadNote[] = defused
     ? [{
         kind: 'dense-markup',
-        message: `${defused.blocks} block${defused.blocks === 1 ? '' : 's'} made mostly of emphasis or link markup (the first at line ${defused.firstLine}) ${defused.blocks === 1 ? 'was' : 'were'} read without that markup, to keep the parse fast`,
+        message: `${defused.blocks} block${defused.blocks === 1 ? '' : 's'} made mostly of emphasis, link or math markup (the first at line ${defused.firstLine}) ${defused.blocks === 1 ? 'was' : 'were'} read without that markup, to keep the parse fast`,
         span: { start: 0, end: 0 },
       }]
     : [];

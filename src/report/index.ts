@@ -3,3 +3,4 @@ export { formatJson, JSON_REPORT_VERSION } from './json.js';
 export { formatSarif, artifactUri } from './sarif.js';
 export { CAUTIONS, countRun, type Counts, type RuleInfo, type RunReport } from './types.js';
 export { formatChecklist } from './checklist.js';
+export { formatHtml, escapeHtml } from './html.js';

@@ -1,0 +1,107 @@
+/// <reference lib="dom" />
+/**
+ * The browser page: paste a manuscript or drop a file, see the numbers checked beside the text.
+ * Everything runs in this tab: the page loads nothing after it opens (its Content-Security-Policy
+ * forbids it), and the manuscript is kept only in the page's memory, never in storage.
+ */
+import { checkSource, RULES, type CheckOptions, type FileReport } from '../engine/index.js';
+import { cautionsHtml, escapeHtml, fileSection } from '../report/html.js';
+import { countRun } from '../report/types.js';
+
+const $ = <T extends HTMLElement>(id: string): T => {
+  const el = document.getElementById(id);
+  if (!el) throw new Error(`missing #${id}`);
+  return el as T;
+};
+
+const text = $<HTMLTextAreaElement>('manuscript');
+const name = $<HTMLInputElement>('name');
+const alpha = $<HTMLInputElement>('alpha');
+const tails = $<HTMLSelectElement>('tails');
+const checklist = $<HTMLInputElement>('checklist');
+const guidelines = $<HTMLSelectElement>('guidelines');
+const output = $<HTMLDivElement>('output');
+const status = $<HTMLParagraphElement>('status');
+const file = $<HTMLInputElement>('file');
+const drop = $<HTMLDivElement>('drop');
+
+$('cautions').innerHTML = cautionsHtml();
+
+function options(): CheckOptions {
+  const a = Number(alpha.value);
+  const g = guidelines.value;
+  return {
+    ...(alpha.value.trim() !== '' && a > 0 && a < 1 ? { alpha: a } : {}),
+    ...(tails.value === 'one' || tails.value === 'two' ? { sidedness: tails.value } : {}),
+    checklist: checklist.checked,
+    config: { guidelines: g === 'all' ? 'all' : [g as 'sampl' | 'jars-quant' | 'consort'] },
+  };
+}
+
+let timer: ReturnType<typeof setTimeout> | undefined;
+function schedule(): void {
+  if (timer !== undefined) clearTimeout(timer);
+  timer = setTimeout(check, 150);
+}
+
+function check(): void {
+  timer = undefined;
+  const a = Number(alpha.value);
+  if (alpha.value.trim() !== '' && !(a > 0 && a < 1)) {
+    status.textContent = 'Alpha must be a number between 0 and 1.';
+    return;
+  }
+  const source = text.value;
+  if (source.trim() === '') {
+    output.innerHTML = '';
+    status.textContent = 'Paste a manuscript (Markdown or plain text) or drop a .md or .txt file.';
+    return;
+  }
+  let report: FileReport;
+  try {
+    report = checkSource(name.value || 'manuscript.md', source, options());
+  } catch (e) {
+    status.textContent = `plumbline could not check this text: ${e instanceof Error ? e.message : String(e)}`;
+    return;
+  }
+  const c = countRun({ tool: { name: 'plumbline', version: '' }, files: [report], failures: [], rules: [] });
+  status.textContent = `${c.results} result${c.results === 1 ? '' : 's'} found, ${c.checked} with p recomputed; ${c.error} error${c.error === 1 ? '' : 's'}, ${c.warning} warning${c.warning === 1 ? '' : 's'}, ${c.note} note${c.note === 1 ? '' : 's'}.`;
+  // every piece of manuscript text in this HTML is escaped by the report's renderer
+  output.innerHTML = fileSection(report, 0);
+}
+
+async function load(f: File): Promise<void> {
+  if (f.size > 50 * 1024 * 1024) {
+    status.textContent = `${escapeHtml(f.name)} is larger than 50 MiB; not read.`;
+    return;
+  }
+  const bytes = new Uint8Array(await f.arrayBuffer());
+  if (bytes.includes(0) && !(bytes[0] === 0xff && bytes[1] === 0xfe) && !(bytes[0] === 0xfe && bytes[1] === 0xff)) {
+    status.textContent = `${f.name} looks like a binary file (it holds a NUL byte); not read.`;
+    return;
+  }
+  const encoding = bytes[0] === 0xff && bytes[1] === 0xfe ? 'utf-16le' : bytes[0] === 0xfe && bytes[1] === 0xff ? 'utf-16be' : 'utf-8';
+  text.value = new TextDecoder(encoding).decode(bytes);
+  name.value = f.name;
+  check();
+}
+
+for (const el of [text, alpha]) el.addEventListener('input', schedule);
+for (const el of [tails, checklist, guidelines, name]) el.addEventListener('change', check);
+file.addEventListener('change', () => {
+  const f = file.files?.[0];
+  if (f) void load(f);
+});
+drop.addEventListener('dragover', (e) => {
+  e.preventDefault();
+  drop.classList.add('over');
+});
+drop.addEventListener('dragleave', () => drop.classList.remove('over'));
+drop.addEventListener('drop', (e) => {
+  e.preventDefault();
+  drop.classList.remove('over');
+  const f = e.dataTransfer?.files[0];
+  if (f) void load(f);
+});
+$('rule-count').textContent = String(RULES.length);
+check();

@@ -1,0 +1,199 @@
+/**
+ * The HTML report and the browser page in a real browser: Debian's chromium driven by
+ * playwright-core (never a browser download). Asserted: the expected number of highlights and
+ * cards for the invented demo manuscripts, no console errors, no network request at all, and a
+ * manuscript of 36 script-injection payloads runs nothing. Screenshots go to test-output/ for
+ * people to look at. Skipped when chromium is absent, unless PLUMBLINE_REQUIRE_BROWSER=1
+ * (set by .ci/run, which installs it).
+ */
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { Readable } from 'node:stream';
+import { pathToFileURL } from 'node:url';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { run } from '../../src/cli/run.js';
+import { checkSource } from '../../src/engine/index.js';
+
+const CHROMIUM = '/usr/bin/chromium';
+const required = process.env.PLUMBLINE_REQUIRE_BROWSER === '1';
+const available = existsSync(CHROMIUM);
+if (required && !available) throw new Error(`PLUMBLINE_REQUIRE_BROWSER=1 but ${CHROMIUM} is missing`);
+const OUT = resolve('test-output/browser');
+const PAGE = resolve('dist/web/index.html');
+
+async function report(args: string[]): Promise<string> {
+  let out = '';
+  await run([...args, '--format', 'html'], { stdout: (s) => void (out += s), stderr: () => {}, stdin: Readable.from(['']), cwd: process.cwd(), env: {}, isTTY: false });
+  return out;
+}
+
+interface Watch {
+  page: Page;
+  errors: string[];
+  requests: string[];
+  dialogs: string[];
+}
+
+describe.skipIf(!available)('in chromium', () => {
+  let browser: Browser;
+  beforeAll(async () => {
+    mkdirSync(OUT, { recursive: true });
+    browser = await chromium.launch({
+      executablePath: CHROMIUM,
+      args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    });
+  }, 60_000);
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  /** A page that records console errors, page errors, dialogs and every request but the document itself. */
+  async function open(url: string): Promise<Watch> {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    const w: Watch = { page, errors: [], requests: [], dialogs: [] };
+    page.on('console', (m) => {
+      if (m.type() === 'error') w.errors.push(m.text());
+    });
+    page.on('pageerror', (e) => w.errors.push(e.message));
+    page.on('dialog', (d) => {
+      w.dialogs.push(d.message());
+      void d.dismiss();
+    });
+    page.on('request', (r) => {
+      if (r.url() !== url) w.requests.push(r.url());
+    });
+    await page.goto(url);
+    return w;
+  }
+
+  const counts = (page: Page) =>
+    page.evaluate(() => ({
+      cards: document.querySelectorAll('details.card').length,
+      highlights: new Set([...document.querySelectorAll('mark.flag[data-finding]')].map((m) => m.getAttribute('data-finding'))).size,
+      results: document.querySelectorAll('.results-list > li').length,
+      forestRows: document.querySelectorAll('svg.forest a').length,
+      strips: document.querySelectorAll('svg.pstrip').length,
+      pwned: (window as unknown as { __pwned?: unknown }).__pwned ?? null,
+    }));
+
+  it('the report for the demo manuscript shows one highlight and one card per finding, and the plots', async () => {
+    const file = 'fixtures/demo/standing-desks.md';
+    const expected = checkSource(file, readFileSync(file, 'utf8'));
+    const html = await report([file]);
+    writeFileSync(resolve(OUT, 'report.html'), html);
+    const url = pathToFileURL(resolve(OUT, 'report.html')).href;
+    const w = await open(url);
+    const c = await counts(w.page);
+    expect(c.cards).toBe(expected.findings.length);
+    expect(c.highlights).toBe(expected.findings.length);
+    expect(c.results).toBe(expected.results.length);
+    expect(c.forestRows).toBe(expected.results.filter((r) => r.recomputed && r.p?.number).length);
+    expect(c.forestRows).toBeGreaterThan(5);
+    // the cautions are in the report
+    expect(await w.page.textContent('body')).toContain('not proof of error or misconduct');
+    await w.page.screenshot({ path: resolve(OUT, 'report.png'), fullPage: true });
+    expect(w.errors).toEqual([]);
+    expect(w.requests).toEqual([]);
+    await w.page.close();
+  }, 60_000);
+
+  it('control: the detector sees a payload that does run (unescaped, without the policy)', async () => {
+    const w = await open('about:blank');
+    await w.page.setContent('<img src="data:," onerror="window.__pwned = 1"><p>x</p>');
+    await w.page.waitForFunction(() => (window as unknown as { __pwned?: unknown }).__pwned === 1, undefined, { timeout: 5_000 });
+    expect((await counts(w.page)).pwned).toBe(1);
+    await w.page.close();
+  }, 60_000);
+
+  it('the report on a manuscript of script-injection payloads runs nothing and loads nothing', async () => {
+    const html = await report(['test/fixtures/hostile/xss.md']);
+    writeFileSync(resolve(OUT, 'report-xss.html'), html);
+    const url = pathToFileURL(resolve(OUT, 'report-xss.html')).href;
+    const w = await open(url);
+    // give handlers a chance to fire: hover and click every mark, focus every element
+    await w.page.mouse.move(300, 300);
+    for (const m of await w.page.$$('mark.flag a')) await m.hover().catch(() => {});
+    await w.page.waitForTimeout(300);
+    const c = await counts(w.page);
+    expect(c.pwned).toBeNull();
+    expect(w.dialogs).toEqual([]);
+    expect(w.requests).toEqual([]);
+    // the payloads are shown as text, not parsed: no element the manuscript named exists
+    expect(await w.page.evaluate(() => document.querySelectorAll('iframe, object, embed, img, video, audio, form, input, base, link, meta[http-equiv=refresh], marquee, template, script').length)).toBe(0);
+    expect(await w.page.textContent('.manuscript')).toContain('<script>window.__pwned = 1</script>');
+    await w.page.screenshot({ path: resolve(OUT, 'report-xss.png'), fullPage: false });
+    expect(w.errors).toEqual([]);
+    await w.page.close();
+  }, 60_000);
+
+  it('the page checks pasted text in the tab: the same findings, the options apply, no request', async () => {
+    expect(existsSync(PAGE), 'dist/web/index.html is built by npm run build').toBe(true);
+    const url = pathToFileURL(PAGE).href;
+    const w = await open(url);
+    const file = 'fixtures/demo/hand-hygiene.md';
+    const text = readFileSync(file, 'utf8');
+    await w.page.fill('#manuscript', text);
+    const plain = checkSource('manuscript.md', text, { checklist: false, config: { guidelines: 'all' } });
+    await w.page.waitForFunction((n) => document.querySelectorAll('details.card').length === n, plain.findings.length, { timeout: 10_000 });
+    let c = await counts(w.page);
+    expect(c.highlights).toBe(plain.findings.length);
+    expect(c.results).toBe(plain.results.length);
+    expect(await w.page.textContent('#status')).toContain(`${plain.results.length} results found`);
+
+    // the checklist and alpha options change the findings as they would on the command line
+    await w.page.check('#checklist');
+    await w.page.fill('#alpha', '0.01');
+    const withChecklist = checkSource('manuscript.md', text, { checklist: true, alpha: 0.01, config: { guidelines: 'all' } });
+    expect(withChecklist.findings.length).not.toBe(plain.findings.length);
+    await w.page.waitForFunction((n) => document.querySelectorAll('details.card').length === n, withChecklist.findings.length, { timeout: 10_000 });
+    c = await counts(w.page);
+    expect(c.highlights).toBe(withChecklist.findings.length);
+    expect(await w.page.$$eval('table.checklist tr', (rows) => rows.length)).toBeGreaterThan(5);
+    await w.page.screenshot({ path: resolve(OUT, 'page.png'), fullPage: true });
+
+    // nothing of the manuscript is kept in storage
+    expect(await w.page.evaluate(() => [localStorage.length, sessionStorage.length])).toEqual([0, 0]);
+    expect(w.errors).toEqual([]);
+    expect(w.requests).toEqual([]);
+    await w.page.close();
+  }, 60_000);
+
+  it('the page is safe on the script-injection manuscript, pasted or dropped as a file', async () => {
+    const url = pathToFileURL(PAGE).href;
+    const w = await open(url);
+    const xss = readFileSync('test/fixtures/hostile/xss.md', 'utf8');
+    await w.page.fill('#manuscript', xss);
+    const expected = checkSource('manuscript.md', xss, { checklist: false, config: { guidelines: 'all' } });
+    await w.page.waitForFunction((n) => document.querySelectorAll('details.card').length === n, expected.findings.length, { timeout: 10_000 });
+    await w.page.setInputFiles('#file', { name: 'dropped.md', mimeType: 'text/markdown', buffer: Buffer.from(xss) });
+    await w.page.waitForFunction(() => (document.getElementById('name') as HTMLInputElement).value === 'dropped.md');
+    for (const m of await w.page.$$('mark.flag a')) await m.hover().catch(() => {});
+    await w.page.waitForTimeout(300);
+    const c = await counts(w.page);
+    expect(c.cards).toBe(expected.findings.length);
+    expect(c.pwned).toBeNull();
+    expect(w.dialogs).toEqual([]);
+    expect(await w.page.evaluate(() => document.querySelectorAll('#output iframe, #output img, #output script, #output object, #output embed, #output form, #output input').length)).toBe(0);
+    await w.page.screenshot({ path: resolve(OUT, 'page-xss.png'), fullPage: false });
+    expect(w.errors).toEqual([]);
+    expect(w.requests).toEqual([]);
+    await w.page.close();
+  }, 60_000);
+
+  it('the page forbids network loads by its Content-Security-Policy (a fetch from the page is refused)', async () => {
+    const url = pathToFileURL(PAGE).href;
+    const w = await open(url);
+    const outcome = await w.page.evaluate(async () => {
+      try {
+        await fetch('http://127.0.0.1:9/probe');
+        return 'fetched';
+      } catch (e) {
+        return `refused: ${(e as Error).name}`;
+      }
+    });
+    expect(outcome).toBe('refused: TypeError');
+    expect(w.requests).toEqual([]);
+    await w.page.close();
+  }, 60_000);
+});

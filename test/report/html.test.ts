@@ -1,0 +1,66 @@
+/**
+ * The HTML report without a browser: self-contained, escaped, one card and one highlight per
+ * finding. (The same report is opened in chromium by test/browser.) The escaping rules are
+ * those of the HTML standard for text and attribute values, common practice, no source.
+ */
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { checkSource } from '../../src/engine/index.js';
+import { escapeHtml, formatHtml } from '../../src/report/index.js';
+import { CAUTIONS, type RunReport } from '../../src/report/types.js';
+
+const runOf = (path: string, text = readFileSync(path, 'utf8'), checklist = true): RunReport => ({
+  tool: { name: 'plumbline', version: '0.0.0' },
+  files: [checkSource(path, text, { checklist })],
+  failures: [{ path: 'gone.md', message: 'no such <file>' }],
+  rules: [],
+});
+
+const OWN_TAGS = new Set(['body', 'header', 'h1', 'h2', 'h3', 'p', 'table', 'tr', 'th', 'td', 'thead', 'tbody', 'span', 'div', 'section', 'footer', 'ul', 'ol', 'li', 'strong', 'code', 'a', 'mark', 'details', 'summary', 'dl', 'dt', 'dd', 'svg', 'line', 'text', 'rect', 'circle', 'path', 'title']);
+
+describe('the HTML report', () => {
+  it('escapes the five special characters and drops control characters', () => {
+    expect(escapeHtml(`<a href="x" title='y'>&</a>\u0007\u001b[31m`)).toBe('&lt;a href=&quot;x&quot; title=&#39;y&#39;&gt;&amp;&lt;/a&gt;[31m');
+  });
+
+  it('is one file that loads nothing: a policy forbidding network loads, no script, no external reference', () => {
+    const html = formatHtml(runOf('fixtures/demo/standing-desks.md'));
+    expect(html).toContain(`<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'`);
+    expect(html).not.toMatch(/<script|<link|<img|<iframe|\bsrc=|url\(/i);
+    expect(html).not.toMatch(/https?:\/\//);
+  });
+
+  it('has one card and one highlight per finding, the summary, the cautions and the failures', () => {
+    const run = runOf('fixtures/demo/standing-desks.md');
+    const html = formatHtml(run);
+    const findings = run.files[0]!.findings.length;
+    expect(html.match(/<details class="card /g)?.length).toBe(findings);
+    expect(new Set([...html.matchAll(/data-finding="(\d+)"/g)].map((m) => m[1])).size).toBe(findings);
+    for (const c of CAUTIONS) expect(html).toContain(escapeHtml(c));
+    expect(html).toContain('no such &lt;file&gt;');
+    expect(html).toMatch(/<svg class="forest"/);
+    expect(html).toContain('<table class="checklist">');
+  });
+
+  it('shows manuscript markup as text: no payload of the hostile manuscript survives as a tag or attribute', () => {
+    const html = formatHtml(runOf('test/fixtures/hostile/xss.md'));
+    const body = html.slice(html.indexOf('<body>'));
+    expect(body).not.toMatch(/<(script|img|svg on|iframe|object|embed|form|input|base|link|meta|video|audio|marquee|template|noscript|details open ontoggle|math)[\s>/]/i);
+    // every tag in the body is one the report writes itself
+    const tags = new Set([...body.matchAll(/<([a-zA-Z][a-zA-Z0-9]*)/g)].map((m) => m[1]!.toLowerCase()));
+    expect([...tags].filter((t) => !OWN_TAGS.has(t))).toEqual([]);
+    expect(body).not.toMatch(/href="javascript:/i);
+    expect(body).toContain('&lt;script&gt;window.__pwned = 1&lt;/script&gt;');
+    expect(body).not.toContain('\u001b');
+  });
+
+  it('keeps every line of the manuscript, numbered, with CRLF line ends and a BOM handled', () => {
+    const text = '\uFEFFFirst line.\r\nFatigue fell, t(23) = 2.47, p = .21.\r\n';
+    const html = formatHtml(runOf('crlf.md', text, false));
+    expect(html).not.toContain('<span class="ln">3</span>');
+    expect(html).toContain('<span class="ln">2</span>');
+    expect(html).not.toContain('\r');
+    expect(html).not.toContain('\uFEFF');
+    expect(html).toMatch(/<mark class="flag lvl-error" data-finding="\d+"><a href="#f0-card-\d+"[^>]*><span class="result">t\(23\) = 2\.47, p = \.21/);
+  });
+});
