@@ -118,16 +118,19 @@ const ordinaryBare = best(() => bare.parse(ordinary)) / (ordinary.length / 1e6);
 const hostile = Object.keys(ADVERSARIAL).map((kind) => {
   const doc = adversarial(kind);
   const ms = best(() => checkSource('hostile.md', doc), 1) / (doc.length / 1e6);
-  const bareMs = best(() => bare.parse(doc), 1) / (doc.length / 1e6);
-  return { kind, ratio: ms / ordinaryMs, bareRatio: bareMs / ordinaryBare };
+  return { kind, ratio: ms / ordinaryMs };
 });
 const worst = hostile.reduce((a, b) => (b.ratio > a.ratio ? b : a));
+// bare remark only on the worst input, to show whose cost it is (on nested images bare remark
+// is worse than quadratic and would not finish: plumbline sets that markup aside)
+const worstDoc = adversarial(worst.kind);
+const worstBare = best(() => bare.parse(worstDoc), 1) / (worstDoc.length / 1e6) / ordinaryBare;
 add({
   name: '6 adversarial 1 MB runs: worst / ordinary',
   value: worst.ratio,
   goal: '<= 3',
   met: worst.ratio <= 3,
-  detail: `worst "${worst.kind}" (bare remark on it ${worst.bareRatio.toFixed(1)}× its ordinary); ${hostile.map((h) => `${h.kind} ${h.ratio.toFixed(2)}`).join(', ')}`,
+  detail: `worst "${worst.kind}" (bare remark on it ${worstBare.toFixed(1)}× its ordinary); ${hostile.map((h) => `${h.kind} ${h.ratio.toFixed(2)}`).join(', ')}`,
 });
 
 const machine = { cpus: cpus().length, cpu: cpus()[0]?.model ?? '', memoryGb: Math.round(totalmem() / 2 ** 30), node: process.version, date: new Date().toISOString().slice(0, 10) };
