@@ -24,10 +24,10 @@ export function readManuscript(path: string, maxBytes = DEFAULT_MAX_FILE_BYTES):
     return { ok: false, message: `cannot read: ${describeError(e)}` };
   }
   try {
+    // the size of what was opened (the path may have been replaced since the stat above)
     const stat = fstatSync(fd);
-    if (stat.isDirectory()) return { ok: false, message: 'cannot read: is a folder' };
     if (!stat.isFile()) return { ok: false, message: 'skipped: not a regular file' };
-    if (stat.size > maxBytes) return { ok: false, message: `skipped: ${stat.size} bytes is over the limit of ${maxBytes} (maxFileBytes in the configuration, or --max-file-bytes)` };
+    if (stat.size > maxBytes) return overLimit(stat.size, maxBytes);
     const bytes = Buffer.allocUnsafe(stat.size);
     let read = 0;
     while (read < stat.size) {
@@ -45,11 +45,15 @@ export function readManuscript(path: string, maxBytes = DEFAULT_MAX_FILE_BYTES):
 
 /** Bytes already in memory (standard input) through the same decoding and limit. */
 export function decodeManuscript(bytes: Uint8Array, maxBytes = DEFAULT_MAX_FILE_BYTES): ReadOutcome {
-  if (bytes.length > maxBytes) return { ok: false, message: `skipped: ${bytes.length} bytes is over the limit of ${maxBytes} (maxFileBytes in the configuration, or --max-file-bytes)` };
+  if (bytes.length > maxBytes) return overLimit(bytes.length, maxBytes);
   return decoded(bytes);
 }
 
 function decoded(bytes: Uint8Array): ReadOutcome {
   const d = decodeBytes(bytes);
   return d.ok ? { ok: true, text: d.text, notes: d.notes } : { ok: false, message: `skipped: ${d.reason}` };
+}
+
+function overLimit(size: number, maxBytes: number): ReadOutcome {
+  return { ok: false, message: `skipped: ${size} bytes is over the limit of ${maxBytes} (maxFileBytes in the configuration, or --max-file-bytes)` };
 }

@@ -225,9 +225,13 @@ function card(file: FileReport, index: number, f: Finding, n: number): string {
 
 function resultItem(file: FileReport, index: number, r: ResultRecord, n: number): string {
   const flagged = file.findings.filter((f) => f.resultId === r.id);
-  const worst = flagged.reduce<Level | undefined>((w, f) => (!w || RANK[f.level] > RANK[w] ? f.level : w), undefined);
+  const worst = worstLevel(flagged);
   const status = worst ? `<span class="lvl-${worst}"><span class="sym">${SEVERITY[worst].symbol}</span> ${flagged.length} finding${flagged.length === 1 ? '' : 's'}</span>` : r.recomputed ? 'no finding' : 'not recomputed';
   return `<li id="${anchor(index, 'r', n)}"><a href="#${anchor(index, 'L', r.start.line)}">line ${r.start.line}</a>: <code>${escapeHtml(r.printed)}</code> — ${status}${plottable(r) ? ` ${pStrip(r)}` : ''}</li>`;
+}
+
+function worstLevel(findings: Finding[]): Level | undefined {
+  return findings.reduce<Level | undefined>((w, f) => (!w || RANK[f.level] > RANK[w] ? f.level : w), undefined);
 }
 
 function checklistTable(items: ChecklistRecord[], index: number): string {
@@ -317,7 +321,7 @@ function forestPlot(file: FileReport, index: number): string {
   const body = rows
     .map(({ r, n }, k) => {
       const y = top + k * rowH + rowH / 2;
-      const flagged = file.findings.filter((f) => f.resultId === r.id).reduce<Level | undefined>((w, f) => (!w || RANK[f.level] > RANK[w] ? f.level : w), undefined);
+      const flagged = worstLevel(file.findings.filter((f) => f.resultId === r.id));
       const sym = flagged ? `<text x="4" y="${y + 4}" class="lvl-${flagged}" style="fill: var(--c)">${SEVERITY[flagged].symbol}</text>` : '';
       const text = r.printed.length > 30 ? `${r.printed.slice(0, 29)}…` : r.printed;
       return `<a href="#${anchor(index, 'r', n)}"><rect class="row" x="0" y="${y - rowH / 2}" width="${a.x0 + a.width + 10}" height="${rowH}" fill="transparent"/>${sym}<text x="18" y="${y + 4}">L${r.start.line} ${escapeHtml(text)}</text>${bar(r, a, y, 9)}${marker(r, axisX(a, r.p?.number?.value ?? 1), y)}</a>`;

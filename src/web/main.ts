@@ -4,8 +4,8 @@
  * Everything runs in this tab: the page loads nothing after it opens (its Content-Security-Policy
  * forbids it), and the manuscript is kept only in the page's memory, never in storage.
  */
-import { checkSource, RULES, type CheckOptions, type FileReport } from '../engine/index.js';
-import { cautionsHtml, escapeHtml, fileSection } from '../report/html.js';
+import { checkSource, decodeBytes, RULES, type CheckOptions, type FileReport } from '../engine/index.js';
+import { cautionsHtml, fileSection } from '../report/html.js';
 import { countRun } from '../report/types.js';
 
 const $ = <T extends HTMLElement>(id: string): T => {
@@ -72,16 +72,16 @@ function check(): void {
 
 async function load(f: File): Promise<void> {
   if (f.size > 50 * 1024 * 1024) {
-    status.textContent = `${escapeHtml(f.name)} is larger than 50 MiB; not read.`;
+    status.textContent = `${f.name} is larger than 50 MiB; not read.`;
     return;
   }
-  const bytes = new Uint8Array(await f.arrayBuffer());
-  if (bytes.includes(0) && !(bytes[0] === 0xff && bytes[1] === 0xfe) && !(bytes[0] === 0xfe && bytes[1] === 0xff)) {
-    status.textContent = `${f.name} looks like a binary file (it holds a NUL byte); not read.`;
+  // the command line's decoding: UTF-8 or UTF-16 with BOM, binary files refused
+  const decoded = decodeBytes(new Uint8Array(await f.arrayBuffer()));
+  if (!decoded.ok) {
+    status.textContent = `${f.name}: ${decoded.reason}; not read.`;
     return;
   }
-  const encoding = bytes[0] === 0xff && bytes[1] === 0xfe ? 'utf-16le' : bytes[0] === 0xfe && bytes[1] === 0xff ? 'utf-16be' : 'utf-8';
-  text.value = new TextDecoder(encoding).decode(bytes);
+  text.value = decoded.text;
   name.value = f.name;
   check();
 }
