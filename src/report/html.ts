@@ -164,8 +164,26 @@ function manuscriptHtml(file: FileReport, index: number, ordered: Finding[]): st
   for (const m of marks) if (m.end === m.start) emptyAt.set(m.start, [...(emptyAt.get(m.start) ?? []), m]);
   const flagTag = (m: (typeof marks)[number], inner: string) =>
     `<mark class="flag lvl-${m.level}" data-finding="${m.n}"><a href="#${anchor(index, 'card', m.n)}" title="${SEVERITY[m.level].word}">${inner}<span class="tag" aria-label="${SEVERITY[m.level].word}">${SEVERITY[m.level].symbol}</span></a></mark>`;
+  // a sweep over the cut points keeps the marks and results covering each piece (linear, not a scan per piece)
+  const startsAt = new Map<number, typeof marks>();
+  const endsAt = new Map<number, typeof marks>();
+  for (const m of marks) {
+    if (m.end === m.start) continue;
+    startsAt.set(m.start, [...(startsAt.get(m.start) ?? []), m]);
+    endsAt.set(m.end, [...(endsAt.get(m.end) ?? []), m]);
+  }
+  const resultDelta = new Map<number, number>();
+  for (const r of file.results) {
+    resultDelta.set(r.span.start, (resultDelta.get(r.span.start) ?? 0) + 1);
+    resultDelta.set(r.span.end, (resultDelta.get(r.span.end) ?? 0) - 1);
+  }
+  const active = new Set<(typeof marks)[number]>();
+  let inResults = 0;
   for (let k = 0; k < points.length; k++) {
     const a = points[k] as number;
+    for (const m of endsAt.get(a) ?? []) active.delete(m);
+    for (const m of startsAt.get(a) ?? []) active.add(m);
+    inResults += resultDelta.get(a) ?? 0;
     for (const m of emptyAt.get(a) ?? []) current += flagTag(m, '');
     const b = points[k + 1];
     if (b === undefined) break;
@@ -174,8 +192,8 @@ function manuscriptHtml(file: FileReport, index: number, ordered: Finding[]): st
     if (newline) piece = piece.slice(0, -1).replace(/\r$/, '');
     let html = escapeHtml(piece.replace(/\t/g, '    ').replace(/^\uFEFF/, ''));
     if (html !== '') {
-      if (file.results.some((r) => r.span.start <= a && b <= r.span.end)) html = `<span class="result">${html}</span>`;
-      const covering = marks.filter((m) => m.start <= a && b <= m.end && m.end > m.start);
+      if (inResults > 0) html = `<span class="result">${html}</span>`;
+      const covering = [...active];
       // the most severe mark outermost; each finding's first piece carries its tag
       for (const m of covering.sort((x, y) => RANK[x.level] - RANK[y.level])) {
         html = m.start === a ? flagTag(m, html) : `<mark class="flag lvl-${m.level}" data-finding="${m.n}">${html}</mark>`;
