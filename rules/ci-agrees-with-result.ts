@@ -1,4 +1,4 @@
-import { fill, numberInterval, showInterval, tInterval, type LinkedResult, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { fill, numberInterval, showInterval, tInterval, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 import { sideOfAlpha, twoSidedCriticalT, twoSidedPRange, type Box } from '../src/stats/index.js';
 
 const messages = {
@@ -14,7 +14,7 @@ export const ciAgreesWithResult: Rule = {
   kind: 'inconsistency',
   defaultLevel: 'warning',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const out: RuleFinding[] = [];

@@ -1,4 +1,4 @@
-import { fill, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { fill, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   'ambiguous-link': 'Reported {reported} near descriptives plumbline could not match to it ({reason}), so t was not recomputed from them.',
@@ -11,7 +11,7 @@ export const descriptivesLinkIsUnambiguous: Rule = {
   kind: 'advice',
   defaultLevel: 'note',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const out: RuleFinding[] = [];

@@ -1,4 +1,4 @@
-import { evaluateDescriptives, fill, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { evaluateDescriptives, fill, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   'paired-analysed-as-independent': 'Reported {reported} for a design the text describes as paired ("{words}"), but df = {df} is n1 + n2 − 2 for {n1} + {n2}: the df of two independent groups.',
@@ -13,7 +13,7 @@ export const designMatchesAnalysis: Rule = {
   kind: 'doubtful',
   defaultLevel: 'warning',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const out: RuleFinding[] = [];

@@ -1,4 +1,4 @@
-import { dfInterval, fill, inferDesign, numberInterval, showInterval, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { dfInterval, fill, inferDesign, numberInterval, showInterval, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 import { welchDfRange } from '../src/stats/index.js';
 
 const messages = {
@@ -16,7 +16,7 @@ export const dfFollowsFromN: Rule = {
   kind: 'inconsistency',
   defaultLevel: 'warning',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const out: RuleFinding[] = [];

@@ -1,4 +1,4 @@
-import { fill, inferDesign, numberInterval, showInterval, tInterval, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { fill, inferDesign, numberInterval, showInterval, tInterval, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 import { dAverage, dFromMeansPooled, dFromTIndependent, dzFromT, hedgesCorrection, type Box, type Interval } from '../src/stats/index.js';
 
 const messages = {
@@ -17,7 +17,7 @@ export const effectSizeFollows: Rule = {
   kind: 'inconsistency',
   defaultLevel: 'warning',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const out: RuleFinding[] = [];

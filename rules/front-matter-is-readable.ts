@@ -1,4 +1,4 @@
-import { fill, type Rule } from '../src/rule-api/index.js';
+import { fill, type Rule, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   'front-matter-unreadable': 'The YAML front matter could not be read ({reason}); plumbline used the configuration and defaults instead.',
@@ -11,7 +11,7 @@ export const frontMatterIsReadable: Rule = {
   kind: 'advice',
   defaultLevel: 'note',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const e = document.frontMatterError;

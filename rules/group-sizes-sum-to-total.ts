@@ -1,4 +1,4 @@
-import { fill, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { fill, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   'sum-differs': 'Reported {total} and groups of {ns} in the same paragraph: the groups add up to {sum}, not {n}{why}.',
@@ -11,7 +11,7 @@ export const groupSizesSumToTotal: Rule = {
   kind: 'doubtful',
   defaultLevel: 'warning',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const x = document.extraction;

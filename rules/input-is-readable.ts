@@ -1,4 +1,4 @@
-import { type Rule } from '../src/rule-api/index.js';
+import { type Rule, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   'bytes-replaced': 'Part of this file could not be decoded: {detail}. Results in the damaged text may be missed or misread.',
@@ -13,7 +13,7 @@ export const inputIsReadable: Rule = {
   kind: 'advice',
   defaultLevel: 'note',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     return (document.readNotes ?? []).map((n) => {

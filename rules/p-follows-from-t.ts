@@ -1,4 +1,4 @@
-import { evaluateP, fill, pMessageId, pPlaceholders, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { evaluateP, fill, pMessageId, pPlaceholders, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   mismatch:
@@ -22,7 +22,7 @@ export const pFollowsFromT: Rule = {
   kind: 'inconsistency',
   defaultLevel: 'warning',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const out: RuleFinding[] = [];

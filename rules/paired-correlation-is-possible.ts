@@ -1,4 +1,4 @@
-import { fill, inferDesign, numberInterval, showInterval, tInterval, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { fill, inferDesign, numberInterval, showInterval, tInterval, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 import { pairedImpliedCorrelation, type Box } from '../src/stats/index.js';
 
 const messages = {
@@ -13,7 +13,7 @@ export const pairedCorrelationIsPossible: Rule = {
   kind: 'inconsistency',
   defaultLevel: 'warning',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const out: RuleFinding[] = [];

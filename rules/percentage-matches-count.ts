@@ -1,4 +1,4 @@
-import { fill, numberInterval, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { fill, numberInterval, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 import { percentPossible } from '../src/stats/index.js';
 
 const messages = {
@@ -12,7 +12,7 @@ export const percentageMatchesCount: Rule = {
   kind: 'inconsistency',
   defaultLevel: 'warning',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const x = document.extraction;

@@ -1,4 +1,4 @@
-import { fill, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { fill, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   'reason-missing': 'This `plumbline quiet` comment gives no reason, so it silences nothing. Write it as <!-- plumbline quiet {rules}: why the finding does not apply -->.',
@@ -14,7 +14,7 @@ export const quietDirectiveHasReason: Rule = {
   kind: 'advice',
   defaultLevel: 'warning',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const out: RuleFinding[] = [];

@@ -1,4 +1,4 @@
-import { fill, numberInterval, type LinkedResult, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { fill, numberInterval, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   'numbers-differ': 'The abstract reports {first}, but the same comparison in "{section}" reads {second}.',
@@ -13,7 +13,7 @@ export const repeatedResultAgrees: Rule = {
   kind: 'inconsistency',
   defaultLevel: 'warning',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const x = document.extraction;

@@ -1,4 +1,4 @@
-import { fill, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { fill, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   'p-missing': 'Reported {reported} with no p value beside it, so the reader cannot see the result of the test.',
@@ -12,7 +12,7 @@ export const resultIsComplete: Rule = {
   kind: 'advice',
   defaultLevel: 'note',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const out: RuleFinding[] = [];

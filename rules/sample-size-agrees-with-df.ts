@@ -1,4 +1,4 @@
-import { fill, inferDesign, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { fill, inferDesign, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   'df-imply-other-n': 'The document states {stated} ({where}), but every t-test implies a different number analysed: {implied}. Nothing in the text mentions exclusions or missing data.',
@@ -13,7 +13,7 @@ export const sampleSizeAgreesWithDf: Rule = {
   kind: 'doubtful',
   defaultLevel: 'warning',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const x = document.extraction;

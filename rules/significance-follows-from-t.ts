@@ -1,4 +1,4 @@
-import { evaluateP, fill, pMessageId, pPlaceholders, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { evaluateP, fill, pMessageId, pPlaceholders, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   mismatch:
@@ -16,7 +16,7 @@ export const significanceFollowsFromT: Rule = {
   kind: 'inconsistency',
   defaultLevel: 'error',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const out: RuleFinding[] = [];

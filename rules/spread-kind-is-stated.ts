@@ -1,4 +1,4 @@
-import { fill, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { fill, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   'unstated-spread': 'Reported {reported}: the document never says whether the value after ± is a standard deviation or a standard error.',
@@ -11,7 +11,7 @@ export const spreadKindIsStated: Rule = {
   kind: 'advice',
   defaultLevel: 'note',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   checklist: {
     item: 'The kind of spread after ± (SD or SE) is stated',

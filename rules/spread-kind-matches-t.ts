@@ -1,4 +1,4 @@
-import { describeAttempt, evaluateDescriptives, fill, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { describeAttempt, evaluateDescriptives, fill, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   'se-labelled-sd': 'Reported {reported} with spreads labelled SD ({inputs}). Read as SDs they give {labelled}; the reported t is reproduced only if they are standard errors: {against}.',
@@ -12,7 +12,7 @@ export const spreadKindMatchesT: Rule = {
   kind: 'inconsistency',
   defaultLevel: 'warning',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const out: RuleFinding[] = [];

@@ -1,4 +1,4 @@
-import { fill, type Rule, type RuleFinding } from '../src/rule-api/index.js';
+import { fill, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   'p-above-one': 'Reported {reported}: a p value cannot exceed 1 (a decimal point may be missing).',
@@ -15,7 +15,7 @@ export const valuesArePossible: Rule = {
   kind: 'inconsistency',
   defaultLevel: 'error',
   defaultOptions: {},
-  optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+  optionsSchema: NO_OPTIONS,
   messages,
   check({ document }) {
     const out: RuleFinding[] = [];

@@ -271,7 +271,7 @@ function toSummary(seg: Segment, tokens: Token[], sentenceStarts: number[]): Gro
       };
     }
   }
-  const labelText = trimEndOf(seg.text.slice(Math.max(0, first.start - 45), first.start), '(,;: \t\n\r\u00a0');
+  const labelText = trimEndOf(seg.text.slice(Math.max(0, first.start - 45), first.start), '(,;:');
   const label = labelText.split(/[;)]|, |\. /).pop()?.trim();
   return {
     id: `${seg.id}:${first.start}`,
@@ -305,7 +305,7 @@ function wordsBeforeParenthesis(text: string): boolean {
   return false;
 }
 
-/** The text without any of these characters at its end (a loop: a trailing-run pattern is quadratic). */
+/** The text without white space or any of these characters at its end (a loop: a trailing-run pattern is quadratic). */
 function trimEndOf(text: string, chars: string): string {
   let end = text.length;
   while (end > 0 && (chars.includes(text[end - 1] as string) || /\s/.test(text[end - 1] as string))) end -= 1;

@@ -1,4 +1,4 @@
-import type { ChecklistItem, Rule, RuleFinding } from './types.js';
+import { NO_OPTIONS, type ChecklistItem, type Rule, type RuleFinding } from './types.js';
 
 export interface ChecklistRuleSpec extends ChecklistItem {
   id: string;
@@ -21,7 +21,7 @@ export function checklistRule(spec: ChecklistRuleSpec): Rule {
     kind: 'advice',
     defaultLevel: spec.defaultLevel ?? 'note',
     defaultOptions: {},
-    optionsSchema: { type: 'object', properties: {}, additionalProperties: false },
+    optionsSchema: NO_OPTIONS,
     messages,
     checklist: { item: spec.item, guidelines: spec.guidelines, assess: spec.assess },
     checklistOnly: true,

@@ -57,6 +57,9 @@ export interface OptionsSchema {
   additionalProperties: false;
 }
 
+/** The options schema of a rule that takes no options. */
+export const NO_OPTIONS: OptionsSchema = Object.freeze({ type: 'object', properties: Object.freeze({}), additionalProperties: false }) as OptionsSchema;
+
 export interface Rule<Options extends object = Record<string, never>> {
   id: string;
   summary: string;
