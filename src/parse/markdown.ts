@@ -85,10 +85,10 @@ class Walker {
   private walkBlock(node: RootContent): void {
     switch (node.type) {
       case 'paragraph':
-        this.phrasingSegment('paragraph', node.children, this.startBlock());
+        this.phrasingSegment('paragraph', node.children, this.startBlock(), undefined, node);
         return;
       case 'heading': {
-        const seg = this.phrasingSegment('heading', node.children, this.startBlock());
+        const seg = this.phrasingSegment('heading', node.children, this.startBlock(), undefined, node);
         this.section = seg?.text.trim() || this.section;
         return;
       }
@@ -103,7 +103,7 @@ class Walker {
         this.tables += 1;
         node.children.forEach((row, r) => {
           row.children.forEach((cell, c) => {
-            this.phrasingSegment('tableCell', cell.children, this.startBlock(), { table, row: r, column: c });
+            this.phrasingSegment('tableCell', cell.children, this.startBlock(), { table, row: r, column: c }, cell);
           });
         });
         return;
@@ -151,21 +151,39 @@ class Walker {
     };
   }
 
-  private phrasingSegment(kind: SegmentKind, children: PhrasingContent[], block: number, table?: TablePlace): Segment | undefined {
+  private phrasingSegment(kind: SegmentKind, children: PhrasingContent[], block: number, table?: TablePlace, within?: Nodes): Segment | undefined {
     const text = new MappedText();
     const codes: MappedText[] = [];
-    this.phrasing(children, text, codes);
+    const pos = within?.position;
+    this.phrasing(children, text, codes, { cursor: pos?.start.offset ?? 0, end: pos?.end.offset ?? this.src.length });
     const seg = this.emit(kind, text, block, table);
     for (const code of codes) this.emit('code', code, block, table);
     return seg;
   }
 
-  private phrasing(children: PhrasingContent[], out: MappedText, codes: MappedText[]): void {
+  /**
+   * `range.cursor` follows the source through the children, so that nodes a tree transform
+   * made without a position (the GFM autolink transform splits text around `www.` links that
+   * follow a non-space, leaving the pieces unplaced) are found in the source after it.
+   */
+  private phrasing(children: PhrasingContent[], out: MappedText, codes: MappedText[], range: { cursor: number; end: number }): void {
     for (const node of children) {
       const pos = node.position;
+      if (!pos) {
+        if (node.type === 'text') {
+          const at = this.src.indexOf(node.value, range.cursor);
+          if (at >= 0 && at + node.value.length <= range.end) {
+            out.pushVerbatim(node.value, at);
+            range.cursor = at + node.value.length;
+          }
+        } else if (node.type === 'link') {
+          this.phrasing(node.children, out, codes, range);
+        }
+        continue;
+      }
       switch (node.type) {
         case 'text':
-          if (pos) out.pushAligned(node.value, this.src, pos.start.offset as number, pos.end.offset as number);
+          out.pushAligned(node.value, this.src, pos.start.offset as number, pos.end.offset as number);
           break;
         case 'inlineMath':
           if (pos) {
@@ -194,12 +212,13 @@ class Walker {
         case 'delete':
         case 'link':
         case 'linkReference':
-          this.phrasing(node.children, out, codes);
+          this.phrasing(node.children, out, codes, { cursor: pos.start.offset as number, end: pos.end.offset as number });
           break;
         default:
           // images, footnote references: not prose
           break;
       }
+      range.cursor = Math.max(range.cursor, pos.end.offset as number);
     }
   }
 

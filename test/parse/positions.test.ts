@@ -37,6 +37,10 @@ describe('source positions (line and column are exact)', () => {
     { name: 'inside a link', source: 'See [the result t(28) = 2.10, p = .045](https://example.org).\n', text: 't(28) = 2.10, p = .045', line: 1, column: 17 },
     { name: 'after a footnote reference', source: 'Recall improved[^1], t(28) = 2.10, p = .045.\n\n[^1]: A note.\n', text: 't(28) = 2.10, p = .045', line: 1, column: 22 },
     { name: 'wrapped across lines in a block quote', source: '> Recall improved, t(28) =\n> 2.10, p = .045.\n', text: 't(28) =\n> 2.10, p = .045', line: 1, column: 20 },
+    // GFM's autolink transform makes the text around a `www.` link that follows a non-space
+    // without positions; the text is found in the source all the same (it was lost before).
+    { name: 'before a www. link glued to a parenthesis', source: 'Recall improved, t(28) = 2.10, p = .045 (see:www.example.org).\n', text: 't(28) = 2.10, p = .045', line: 1, column: 18 },
+    { name: 'after a www. link glued to a parenthesis', source: 'Data (x)www.example.org show t(28) = 2.10, p = .045.\n', text: 't(28) = 2.10, p = .045', line: 1, column: 30 },
     { name: 'in a list item', source: '- first\n- Recall improved, t(28) = 2.10, p = .045.\n', text: 't(28) = 2.10, p = .045', line: 2, column: 20 },
     { name: 'Unicode minus and HTML superscript', source: 'Fell, t(40) = \u22125.02, p = 1.1 × 10<sup>\u22125</sup>.\n', text: 't(40) = \u22125.02, p = 1.1 × 10<sup>\u22125', line: 1, column: 7 },
     { name: 'escaped less-than', source: 'Fell, t(40) = 5.02, p \\< .001.\n', text: 't(40) = 5.02, p \\< .001', line: 1, column: 7 },
