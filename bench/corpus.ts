@@ -96,6 +96,9 @@ export const ADVERSARIAL: Record<string, (bytes: number) => string> = {
   $: (n) => '$x'.repeat(n / 2),
   '| pipes': (n) => '|'.repeat(n),
   'table rows': (n) => `| a | b |\n|---|---|\n${'| 1 | 2 |\n'.repeat(n / 10)}`,
+  'rows, no outer pipes': (n) => `a | b\n--- | ---\n${'1 | 2\n'.repeat(n / 6)}`,
+  'rows with markup': (n) => `| a | b |\n|---|---|\n${'| *1* | \\|2 |\n'.repeat(n / 14)}`,
+  'quoted rows': (n) => `> | a | b |\n> |---|---|\n${'> | 1 | 2 |\n'.repeat(n / 12)}`,
   '![': (n) => '!['.repeat(n / 6) + 'x' + '](u)'.repeat(n / 6),
   'nested >': (n) => '>'.repeat(n),
 };

@@ -1,4 +1,4 @@
-import type { Nodes, Parent, PhrasingContent, Root, RootContent } from 'mdast';
+import type { Nodes, Parent, PhrasingContent, Root, RootContent, Table } from 'mdast';
 import remarkFrontmatter from 'remark-frontmatter';
 import remarkGfm from 'remark-gfm';
 import remarkMath from 'remark-math';
@@ -9,6 +9,7 @@ import { readDirective } from './directives.js';
 import { readFrontMatter } from './frontMatter.js';
 import { normalize } from './normalize.js';
 import { defuseDenseMarkup } from './depth.js';
+import { BULK_CHUNK_ROWS, BULK_MIN_ROWS, blankRuns, findBulkRuns, plainCells, type BulkRun } from './bulkTable.js';
 import type { Directive, FrontMatter, ParsedDocument, ReadNote, Segment, SegmentKind, TablePlace } from './types.js';
 
 const processor = unified().use(remarkParse).use(remarkGfm).use(remarkFrontmatter, ['yaml']).use(remarkMath);
@@ -16,6 +17,12 @@ const processor = unified().use(remarkParse).use(remarkGfm).use(remarkFrontmatte
 export interface MarkdownOptions {
   /** R Markdown / Quarto: fenced chunks with a `{lang …}` info string are source code, skipped whole. */
   chunks?: boolean;
+  /**
+   * Tables with at least this many rows past their head are read row by row here rather than
+   * by the Markdown parser (same segments, a fraction of the cost; see bulkTable.ts).
+   * `Infinity` turns that off (the tests compare both readings).
+   */
+  bulkRows?: number;
 }
 
 /**
@@ -33,8 +40,8 @@ export function parseMarkdown(path: string, source: string, options: MarkdownOpt
   const shift = hadBom ? 1 : 0;
   const defused = defuseDenseMarkup(body);
   const text = defused?.text ?? body;
-  const tree = processor.parse(text) as Root;
-  const walker = new Walker(text, shift, options);
+  const { tree, runs } = parseWithBulkRuns(text, options.bulkRows ?? BULK_MIN_ROWS);
+  const walker = new Walker(text, shift, options, runs);
   walker.walkBlocks(tree.children);
   const readNotes: ReadNote[] = defused
     ? [{
@@ -55,6 +62,47 @@ export function parseMarkdown(path: string, source: string, options: MarkdownOpt
   };
 }
 
+/**
+ * Parse `text` with long table runs blanked, keeping only the runs the tree confirms as the
+ * tail of a table (a run inside a fenced block or raw HTML is put back and the text parsed
+ * again; after two rounds of that, every run is put back).
+ */
+export function parseWithBulkRuns(text: string, minRows: number): { tree: Root; runs: Map<number, BulkRun> } {
+  let runs = findBulkRuns(text, minRows);
+  for (let round = 0; ; round += 1) {
+    const tree = processor.parse(blankRuns(text, runs)) as Root;
+    if (runs.length === 0) return { tree, runs: new Map() };
+    const tables = tablesByEndLine(tree);
+    const confirmed = runs.filter((run) => {
+      const t = tables.get(run.lastKeptLine);
+      const last = t?.table.children.at(-1);
+      return t !== undefined && last?.position?.start.line === run.lastKeptLine && (t.atRoot ? run.shallow : run.prefix !== undefined);
+    });
+    if (confirmed.length === runs.length) return { tree, runs: new Map(runs.map((r) => [r.lastKeptLine, r])) };
+    runs = round >= 1 ? [] : confirmed;
+  }
+}
+
+function tablesByEndLine(tree: Root): Map<number, { table: Table; atRoot: boolean }> {
+  const found = new Map<number, { table: Table; atRoot: boolean }>();
+  const visit = (nodes: readonly RootContent[], atRoot: boolean): void => {
+    for (const node of nodes) {
+      if (node.type === 'table' && node.position) found.set(node.position.end.line, { table: node, atRoot });
+      else if (node.type === 'blockquote' || node.type === 'list' || node.type === 'listItem' || node.type === 'footnoteDefinition') {
+        visit(node.children as RootContent[], false);
+      }
+    }
+  };
+  visit(tree.children, true);
+  return found;
+}
+
+function firstTable(tree: Root): Table | undefined {
+  let node: RootContent | undefined = tree.children[0];
+  while (node?.type === 'blockquote') node = node.children[0];
+  return node?.type === 'table' ? node : undefined;
+}
+
 class Walker {
   segments: Segment[] = [];
   frontMatter: FrontMatter | undefined;
@@ -64,7 +112,12 @@ class Walker {
   private tables = 0;
   private section: string | undefined;
 
-  constructor(private readonly src: string, private readonly shift: number, private readonly options: MarkdownOptions) {}
+  constructor(
+    private src: string,
+    private shift: number,
+    private readonly options: MarkdownOptions,
+    private readonly bulk: ReadonlyMap<number, BulkRun> = new Map(),
+  ) {}
 
   walkBlocks(nodes: RootContent[]): void {
     for (const node of nodes) this.walkBlock(node);
@@ -106,6 +159,8 @@ class Walker {
             this.phrasingSegment('tableCell', cell.children, this.startBlock(), { table, row: r, column: c }, cell);
           });
         });
+        const run = node.position ? this.bulk.get(node.position.end.line) : undefined;
+        if (run) this.bulkRows(run, table, node.children.length);
         return;
       }
       case 'code': {
@@ -141,6 +196,47 @@ class Walker {
         return;
       default:
         return;
+    }
+  }
+
+  /** The blanked rows of a long table, in order, as rows `firstRow`, `firstRow + 1`, … of it. */
+  private bulkRows(run: BulkRun, table: number, firstRow: number): void {
+    for (let from = 0; from < run.rows.length; from += BULK_CHUNK_ROWS) {
+      const chunk = run.rows.slice(from, from + BULK_CHUNK_ROWS);
+      const split = chunk.map((row) => plainCells(this.src, row.start, row.end));
+      if (split.every((cells) => cells !== undefined)) {
+        split.forEach((cells, i) => {
+          cells?.forEach(([a, b], c) => {
+            const text = new MappedText();
+            text.pushVerbatim(this.src.slice(a, b), a);
+            this.emit('tableCell', text, this.startBlock(), { table, row: firstRow + from + i, column: c });
+          });
+        });
+        continue;
+      }
+      // Markup in some row: the parser reads the chunk as the body of a one-column table of its
+      // own, in the same containers (a body row's cells do not depend on the head), at offsets
+      // shifted back onto the source.
+      const prefix = run.prefix ?? '';
+      const head = `${prefix}|h|\n${prefix}|-|\n`;
+      const first = chunk[0] as (typeof chunk)[number];
+      const last = chunk[chunk.length - 1] as (typeof chunk)[number];
+      const piece = head + this.src.slice(first.lineStart, last.end);
+      const rows = firstTable(processor.parse(piece) as Root)?.children.slice(1) ?? [];
+      if (rows.length !== chunk.length) throw new Error(`bulk table rows: read ${rows.length} of ${chunk.length} rows after line ${run.lastKeptLine}`);
+      const [src, shift] = [this.src, this.shift];
+      this.src = piece;
+      this.shift = shift + first.lineStart - head.length;
+      try {
+        rows.forEach((row, i) => {
+          row.children.forEach((cell, c) => {
+            this.phrasingSegment('tableCell', cell.children, this.startBlock(), { table, row: firstRow + from + i, column: c }, cell);
+          });
+        });
+      } finally {
+        this.src = src;
+        this.shift = shift;
+      }
     }
   }
 

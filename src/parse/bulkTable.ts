@@ -1,0 +1,202 @@
+/**
+ * Long GFM tables, read without the Markdown parser's per-cell machinery.
+ *
+ * micromark tokenises every table cell as its own inline document: linear, but about ten
+ * times the cost per byte of prose, so a data dump of 100,000 rows took longer than a
+ * whole ordinary manuscript of the same size many times over. Here a long run of table
+ * rows is found before parsing; all but its first few lines are blanked (replaced by spaces,
+ * line endings kept, so every other offset stays where it was); the parser reads the table
+ * head; and the blanked rows are then read here, in order, as rows of that same table.
+ *
+ * Exactness: every blanked line starts (after at most three spaces) with `|`, or holds a `|`
+ * and starts with a letter or a digit that is not a list marker, which no other block
+ * construct can start with, so in the original each was a row of the table whose last
+ * kept row the parser returns (checked against the tree after parsing; a run that is not a
+ * table there, say inside a fenced block or raw HTML, is put back and parsed as written).
+ * A row whose text has no inline markup character is split here the way GFM splits rows;
+ * a chunk holding any row with markup is handed to the parser as a small table of its own,
+ * so markup inside cells reads exactly as it would have. A property test compares both
+ * readings over generated tables.
+ */
+
+/** How many leading lines of a run the parser sees: header, delimiter row and one row. */
+const KEPT_LINES = 3;
+
+/** Rows read per chunk; a chunk with any markup row goes to the parser whole. */
+export const BULK_CHUNK_ROWS = 256;
+
+/** Default: only runs with at least this many rows past the kept lines are read here. */
+export const BULK_MIN_ROWS = 64;
+
+export interface BulkLine {
+  /** Offset of the line's first character, of its row text (after the container prefix) and of its end (before `\r\n` / `\n`). */
+  lineStart: number;
+  start: number;
+  end: number;
+}
+
+export interface BulkRun {
+  /** 1-based line number of the last line the parser sees (a table row, if verified). */
+  lastKeptLine: number;
+  /** The blanked lines, read here. */
+  rows: BulkLine[];
+  /**
+   * The container prefix (block-quote markers and indentation) all lines of the run share, or
+   * undefined when the lines differ in indentation (then the run is taken only for a table at
+   * the top level, where up to three spaces of indentation never matter).
+   */
+  prefix: string | undefined;
+  /** Whether every line's prefix is at most three spaces (what a top-level table needs). */
+  shallow: boolean;
+}
+
+/** Characters that may start inline markup (or an escape, reference, math or raw HTML) in a cell. */
+const MARKUP = /[\\`*_~$[\]!<&]/;
+
+/** End of a line's container prefix: the leading run of spaces and `>` markers. */
+function prefixEnd(text: string, start: number, end: number): number {
+  let i = start;
+  while (i < end && (text.charCodeAt(i) === 32 || text.charCodeAt(i) === 62)) i += 1;
+  return i;
+}
+
+/**
+ * Whether a prefix reads the same when it opens a document of its own: block-quote markers, and
+ * between them (or before the first) at most three spaces beyond the one a marker may take, so
+ * that no stretch of it reads as indented code. Inside a list item whose content is indented four
+ * or more, the table is left to the parser.
+ */
+function portablePrefix(prefix: string): boolean {
+  let spaces = 0;
+  for (let i = 0; i < prefix.length; i += 1) {
+    if (prefix.charCodeAt(i) === 62) {
+      spaces = 0;
+      if (prefix.charCodeAt(i + 1) === 32) i += 1; // the one optional space after `>`
+    } else if (++spaces > 3) return false;
+  }
+  return true;
+}
+
+/**
+ * Whether the text from `at` (after the container prefix) can only be a row when it follows a
+ * table row: it starts with `|`, or it holds a `|` and starts with a letter, a digit (not an
+ * ordered list marker such as `1.` or `2)`) or a non-ASCII character — nothing a block
+ * construct starts with.
+ */
+function isRowText(text: string, at: number, end: number): boolean {
+  const c = text.charCodeAt(at);
+  if (c === 124 /* | */) return true;
+  const letter = (c >= 65 && c <= 90) || (c >= 97 && c <= 122) || c >= 0x80;
+  const digit = c >= 48 && c <= 57;
+  if (!letter && !digit) return false;
+  if (digit) {
+    let i = at;
+    while (i < end && i - at < 10 && text.charCodeAt(i) >= 48 && text.charCodeAt(i) <= 57) i += 1;
+    const after = text.charCodeAt(i);
+    if ((after === 46 || after === 41) && i - at <= 9) {
+      const next = text.charCodeAt(i + 1);
+      if (i + 1 >= end || next === 32 || next === 9) return false; // `1.` / `1)` starts a list item
+    }
+  }
+  const pipe = text.indexOf('|', at);
+  return pipe >= 0 && pipe < end;
+}
+
+function isBlank(text: string, start: number, end: number): boolean {
+  for (let i = start; i < end; i += 1) {
+    const c = text.charCodeAt(i);
+    if (c !== 32 && c !== 9) return false;
+  }
+  return true;
+}
+
+/**
+ * Runs of at least `minRows` + 3 consecutive row lines (see isRowText), each followed by a
+ * blank line or the end of the text, so that the run's end is the table's end in the original
+ * too.
+ */
+export function findBulkRuns(text: string, minRows = BULK_MIN_ROWS): BulkRun[] {
+  if (!Number.isFinite(minRows)) return [];
+  const runs: BulkRun[] = [];
+  let lineNo = 0;
+  let pos = 0;
+  let run: BulkLine[] = [];
+  let runFirstLine = 0;
+  let prefix: string | undefined;
+  let shallow = true;
+  const close = (nextBlank: boolean): void => {
+    if (nextBlank && run.length >= KEPT_LINES + Math.max(1, minRows) && (shallow || (prefix !== undefined && portablePrefix(prefix)))) {
+      runs.push({ lastKeptLine: runFirstLine + KEPT_LINES - 1, rows: run.slice(KEPT_LINES), prefix, shallow });
+    }
+    run = [];
+  };
+  while (pos <= text.length) {
+    lineNo += 1;
+    const nl = text.indexOf('\n', pos);
+    const next = nl < 0 ? text.length : nl;
+    const end = next > pos && text.charCodeAt(next - 1) === 13 ? next - 1 : next;
+    const at = prefixEnd(text, pos, end);
+    if (at < end && isRowText(text, at, end)) {
+      const own = text.slice(pos, at);
+      if (run.length === 0) {
+        runFirstLine = lineNo;
+        prefix = own;
+        shallow = true;
+      } else if (own !== prefix) {
+        prefix = undefined;
+      }
+      if (own.length > 3 || own.includes('>')) shallow = false;
+      run.push({ lineStart: pos, start: at, end });
+    } else if (run.length > 0) {
+      close(isBlank(text, pos, end));
+    }
+    if (nl < 0) break;
+    pos = nl + 1;
+  }
+  if (run.length > 0) close(true);
+  return runs;
+}
+
+/** The text with the runs' rows replaced by spaces (line endings kept, offsets unchanged). */
+export function blankRuns(text: string, runs: readonly BulkRun[]): string {
+  if (runs.length === 0) return text;
+  const parts: string[] = [];
+  let at = 0;
+  for (const run of runs) {
+    for (const row of run.rows) {
+      parts.push(text.slice(at, row.lineStart), ' '.repeat(row.end - row.lineStart));
+      at = row.end;
+    }
+  }
+  parts.push(text.slice(at));
+  return parts.join('');
+}
+
+/**
+ * A row's cells as content ranges (trimmed of spaces and tabs), split as GFM splits a row
+ * (`start` is past the container prefix):
+ * an opening `|` and a closing `|` optional, cells between pipes. Undefined when the row holds a
+ * character that may start inline markup; such rows go to the parser.
+ */
+export function plainCells(text: string, start: number, end: number): Array<[number, number]> | undefined {
+  const line = text.slice(start, end);
+  if (MARKUP.test(line)) return undefined;
+  let i = start;
+  if (text.charCodeAt(i) === 124) i += 1; // past the opening pipe
+  let e = end;
+  while (e > i && (text.charCodeAt(e - 1) === 32 || text.charCodeAt(e - 1) === 9)) e -= 1;
+  if (e > i && text.charCodeAt(e - 1) === 124) e -= 1;
+  const cells: Array<[number, number]> = [];
+  let cellStart = i;
+  for (; i <= e; i += 1) {
+    if (i === e || text.charCodeAt(i) === 124) {
+      let a = cellStart;
+      let b = i;
+      while (a < b && (text.charCodeAt(a) === 32 || text.charCodeAt(a) === 9)) a += 1;
+      while (b > a && (text.charCodeAt(b - 1) === 32 || text.charCodeAt(b - 1) === 9)) b -= 1;
+      cells.push([a, b]);
+      cellStart = i + 1;
+    }
+  }
+  return cells;
+}
