@@ -13,6 +13,24 @@ import { BULK_CHUNK_ROWS, BULK_MIN_ROWS, blankRuns, findBulkRuns, plainCells, ty
 import type { Directive, FrontMatter, ParsedDocument, ReadNote, Segment, SegmentKind, TablePlace } from './types.js';
 
 const processor = unified().use(remarkParse).use(remarkGfm).use(remarkFrontmatter, ['yaml']).use(remarkMath);
+/**
+ * For a text whose first line is `---` with no closing `---` line: micromark's front-matter
+ * construct then fails, and leaves the rest of the document misread (lists and block quotes
+ * become paragraphs; seen with micromark-extension-frontmatter 2.0). Such a text is parsed
+ * without the extension, so its first line is the thematic break CommonMark makes of it.
+ */
+const withoutFrontMatter = unified().use(remarkParse).use(remarkGfm).use(remarkMath);
+
+const FENCE_LINE = /^---[ \t]*$/;
+
+/** Where a `---` first line opens front matter that is never closed, or undefined. */
+function unclosedFrontMatter(text: string): { yamlLike: boolean } | undefined {
+  const lines = text.split('\n', 3);
+  if (!FENCE_LINE.test((lines[0] ?? '').replace(/\r$/, ''))) return undefined;
+  if (/^---[ \t]*\r?$/m.test(text.slice(text.indexOf('\n') + 1))) return undefined;
+  // the line after it reads as a YAML key: the author meant front matter and forgot to close it
+  return { yamlLike: /^[A-Za-z_][\w -]{0,60}:/.test(lines[1] ?? '') };
+}
 
 export interface MarkdownOptions {
   /** R Markdown / Quarto: fenced chunks with a `{lang …}` info string are source code, skipped whole. */
@@ -40,9 +58,17 @@ export function parseMarkdown(path: string, source: string, options: MarkdownOpt
   const shift = hadBom ? 1 : 0;
   const defused = defuseDenseMarkup(body);
   const text = defused?.text ?? body;
-  const { tree, runs } = parseWithBulkRuns(text, options.bulkRows ?? BULK_MIN_ROWS);
+  const unclosed = unclosedFrontMatter(text);
+  const { tree, runs } = parseWithBulkRuns(text, options.bulkRows ?? BULK_MIN_ROWS, unclosed ? withoutFrontMatter : processor);
   const walker = new Walker(text, shift, options, runs);
   walker.walkBlocks(tree.children);
+  if (unclosed?.yamlLike) {
+    walker.frontMatter = {
+      data: undefined,
+      span: { start: shift, end: shift + 3 },
+      error: 'the opening --- on line 1 is never closed by a --- line, so the text below it was read as the manuscript',
+    };
+  }
   const readNotes: ReadNote[] = defused
     ? [{
         kind: 'dense-markup',
@@ -67,10 +93,10 @@ export function parseMarkdown(path: string, source: string, options: MarkdownOpt
  * tail of a table (a run inside a fenced block or raw HTML is put back and the text parsed
  * again; after two rounds of that, every run is put back).
  */
-export function parseWithBulkRuns(text: string, minRows: number): { tree: Root; runs: Map<number, BulkRun> } {
+export function parseWithBulkRuns(text: string, minRows: number, parser: { parse(text: string): unknown } = processor): { tree: Root; runs: Map<number, BulkRun> } {
   let runs = findBulkRuns(text, minRows);
   for (let round = 0; ; round += 1) {
-    const tree = processor.parse(blankRuns(text, runs)) as Root;
+    const tree = parser.parse(blankRuns(text, runs)) as Root;
     if (runs.length === 0) return { tree, runs: new Map() };
     const tables = tablesByEndLine(tree);
     const confirmed = runs.filter((run) => {

@@ -64,6 +64,20 @@ describe('source positions (line and column are exact)', () => {
   });
 });
 
+describe('a first line of --- that opens no front matter', () => {
+  // CommonMark reads it as a thematic break; micromark's front-matter extension, failing to find
+  // the closing fence, used to leave the lists and quotes after it read as paragraphs, and a
+  // list item holding a fenced block then swallowed the rest of the file as code.
+  it('lists, quotes and the results in them read as without it', () => {
+    const body = '- ```\n  x\n  ```\n\n  Recall improved, t(28) = 2.10, p = .045.\n\n> Errors rose, t(40) = 3.10, p = .20.\n';
+    for (const head of ['---\n\n', '---\ntitle: A study\n\n', '***\n\n']) {
+      const doc = parseDocument('x.md', head + body);
+      expect(doc.segments.filter((s) => s.kind !== 'code').map((s) => s.text)).toEqual([...(head.includes('title') ? ['title: A study'] : []), 'Recall improved, t(28) = 2.10, p = .045.', 'Errors rose, t(40) = 3.10, p = .20.']);
+      expect(checkSource('x.md', head + body).results.map((r) => r.inCode)).toEqual([false, false]);
+    }
+  });
+});
+
 describe('what is not prose', () => {
   const skipped: Array<[string, string]> = [
     ['inline code', 'Use `t(28) = 2.10` to call it.\n'],

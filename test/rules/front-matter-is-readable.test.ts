@@ -6,4 +6,7 @@ ruleTable('front-matter-is-readable', [
   { name: 'alpha out of range', markdown: '---\nplumbline:\n  alpha: 5\n---\nx.', expect: ['1:1 front-matter-unreadable'] },
   { name: 'valid settings', markdown: '---\nplumbline:\n  alpha: 0.01\n  sidedness: two\n---\nx.', expect: [] },
   { name: 'front matter without plumbline settings', markdown: '---\ntitle: A study\n---\nx.', expect: [] },
+  // an opening fence never closed: said when the next line reads as YAML; a lone rule is not front matter
+  { name: 'opening --- never closed', markdown: '---\ntitle: A study\n\nx.', expect: ['1:1 front-matter-unreadable'] },
+  { name: 'a thematic break on line 1', markdown: '---\n\nx.', expect: [] },
 ]);
