@@ -52,20 +52,29 @@ export const DENSE_MARKUP_SHARE = 0.05;
 const EMPHASIS = /[*_]/g;
 const BRACKETS = /[[\]!]/g;
 const DOLLARS = /\$/g;
+const TILDES = /~/g;
+const BACKTICKS = /`/g;
+/**
+ * Each class of markup character, counted and defused on its own. Strike-through pairs cost
+ * the parser time quadratic in their number per block, so a block with more than
+ * STRIKE_BLOCK_LIMIT tildes is defused whatever their share.
+ */
+const CLASSES = [EMPHASIS, BRACKETS, DOLLARS, TILDES, BACKTICKS];
+export const STRIKE_BLOCK_LIMIT = 4_000;
 
 /**
- * Emphasis, link and inline-math markup costs the Markdown parser some 15× the time of prose per character
- * (measured with remark-parse 11, remark-math 6 for `$`), and nested images grow faster than linearly. A document that
+ * Emphasis, link, inline-math and code-span markup costs the Markdown parser some 15× the time of prose per
+ * character (measured with remark-parse 11, remark-math 6 for `$`), nested images grow faster than linearly,
+ * and GFM strike-through (`~~`) is quadratic in the number of pairs in a block (remark-gfm 4: 1 MB of them
+ * took over 130× ordinary text). A document that
  * is mostly such markup (conversion debris, or input made to stall a CI job) has those characters
  * in its densest blocks replaced by U+200B, which has the same length (offsets are unchanged) and
  * which the normaliser drops, so statistics inside read as before. Ordinary manuscripts, with
  * fewer than DENSE_MARKUP_FLOOR such characters, are never touched.
  */
 export function defuseDenseMarkup(source: string): { text: string; firstLine: number; blocks: number } | undefined {
-  const emphasis = count(source, EMPHASIS);
-  const brackets = count(source, BRACKETS);
-  const dollars = count(source, DOLLARS);
-  if (emphasis < DENSE_MARKUP_FLOOR && brackets < DENSE_MARKUP_FLOOR && dollars < DENSE_MARKUP_FLOOR) return undefined;
+  const dense = CLASSES.filter((re) => count(source, re) >= DENSE_MARKUP_FLOOR);
+  if (dense.length === 0) return undefined;
   const blank = /\n[ \t]*(?:\r?\n)+/g;
   let out = '';
   let from = 0;
@@ -74,9 +83,10 @@ export function defuseDenseMarkup(source: string): { text: string; firstLine: nu
   const take = (to: number) => {
     const block = source.slice(from, to);
     let piece = block;
-    if (emphasis >= DENSE_MARKUP_FLOOR && count(block, EMPHASIS) > block.length * DENSE_MARKUP_SHARE) piece = piece.replace(EMPHASIS, '\u200b');
-    if (brackets >= DENSE_MARKUP_FLOOR && count(block, BRACKETS) > block.length * DENSE_MARKUP_SHARE) piece = piece.replace(BRACKETS, '\u200b');
-    if (dollars >= DENSE_MARKUP_FLOOR && count(block, DOLLARS) > block.length * DENSE_MARKUP_SHARE) piece = piece.replace(DOLLARS, '\u200b');
+    for (const re of dense) {
+      const n = count(block, re);
+      if (n > block.length * DENSE_MARKUP_SHARE || (re === TILDES && n > STRIKE_BLOCK_LIMIT)) piece = piece.replace(re, '\u200b');
+    }
     if (piece !== block) {
       blocks += 1;
       if (firstOffset < 0) firstOffset = from;
