@@ -14,22 +14,28 @@ import type { Directive, FrontMatter, ParsedDocument, ReadNote, Segment, Segment
 
 const processor = unified().use(remarkParse).use(remarkGfm).use(remarkFrontmatter, ['yaml']).use(remarkMath);
 /**
- * For a text whose first line is `---` with no closing `---` line: micromark's front-matter
- * construct then fails, and leaves the rest of the document misread (lists and block quotes
- * become paragraphs; seen with micromark-extension-frontmatter 2.0). Such a text is parsed
- * without the extension, so its first line is the thematic break CommonMark makes of it.
+ * The same without front matter, for a text whose first line of `---` opens none: when no
+ * closing `---` line follows, micromark's front-matter construct fails and leaves the rest of
+ * the document misread (lists and block quotes become paragraphs; seen with
+ * micromark-extension-frontmatter 2.0); when a blank line follows it (Pandoc's rule: front
+ * matter starts right below the fence), or the block between the fences is not a YAML mapping,
+ * it is the thematic break CommonMark makes of it and the text below is the manuscript.
  */
 const withoutFrontMatter = unified().use(remarkParse).use(remarkGfm).use(remarkMath);
 
-const FENCE_LINE = /^---[ \t]*$/;
+const FENCE_LINE = /^---[ \t]*\r?$/;
 
-/** Where a `---` first line opens front matter that is never closed, or undefined. */
-function unclosedFrontMatter(text: string): { yamlLike: boolean } | undefined {
+/** How a text opening with `---` is read: `undefined` when it does not. */
+function frontMatterOpening(text: string): { closed: boolean; blankAfter: boolean; yamlLike: boolean } | undefined {
   const lines = text.split('\n', 3);
-  if (!FENCE_LINE.test((lines[0] ?? '').replace(/\r$/, ''))) return undefined;
-  if (/^---[ \t]*\r?$/m.test(text.slice(text.indexOf('\n') + 1))) return undefined;
-  // the line after it reads as a YAML key: the author meant front matter and forgot to close it
-  return { yamlLike: /^[A-Za-z_][\w -]{0,60}:/.test(lines[1] ?? '') };
+  if (!FENCE_LINE.test(lines[0] ?? '')) return undefined;
+  const second = lines[1] ?? '';
+  return {
+    closed: /^---[ \t]*\r?$/m.test(text.slice(text.indexOf('\n') + 1)),
+    blankAfter: /^[ \t]*\r?$/.test(second),
+    // the line below reads as a YAML key: the author meant front matter
+    yamlLike: /^[A-Za-z_][\w -]{0,60}:/.test(second),
+  };
 }
 
 export interface MarkdownOptions {
@@ -58,11 +64,15 @@ export function parseMarkdown(path: string, source: string, options: MarkdownOpt
   const shift = hadBom ? 1 : 0;
   const defused = defuseDenseMarkup(body);
   const text = defused?.text ?? body;
-  const unclosed = unclosedFrontMatter(text);
-  const { tree, runs } = parseWithBulkRuns(text, options.bulkRows ?? BULK_MIN_ROWS, unclosed ? withoutFrontMatter : processor);
-  const walker = new Walker(text, shift, options, runs);
-  walker.walkBlocks(tree.children);
-  if (unclosed?.yamlLike) {
+  const opening = frontMatterOpening(text);
+  const minRows = options.bulkRows ?? BULK_MIN_ROWS;
+  let walker = walk(text, shift, options, minRows, opening && (!opening.closed || opening.blankAfter) ? withoutFrontMatter : processor);
+  const fm = walker.frontMatter;
+  if (fm && !fm.error && fm.data !== null && fm.data !== undefined && (typeof fm.data !== 'object' || Array.isArray(fm.data))) {
+    // a string or a list between two rules: prose, not settings
+    walker = walk(text, shift, options, minRows, withoutFrontMatter);
+  }
+  if (opening && !opening.closed && opening.yamlLike) {
     walker.frontMatter = {
       data: undefined,
       span: { start: shift, end: shift + 3 },
@@ -72,7 +82,7 @@ export function parseMarkdown(path: string, source: string, options: MarkdownOpt
   const readNotes: ReadNote[] = defused
     ? [{
         kind: 'dense-markup',
-        message: `${defused.blocks} block${defused.blocks === 1 ? '' : 's'} made mostly of emphasis, link or math markup (the first at line ${defused.firstLine}) ${defused.blocks === 1 ? 'was' : 'were'} read without that markup, to keep the parse fast`,
+        message: `${defused.blocks} block${defused.blocks === 1 ? '' : 's'} made mostly of emphasis, link, math, code or strike-through markup (the first at line ${defused.firstLine}) ${defused.blocks === 1 ? 'was' : 'were'} read without that markup, to keep the parse fast`,
         span: { start: 0, end: 0 },
       }]
     : [];
@@ -86,6 +96,13 @@ export function parseMarkdown(path: string, source: string, options: MarkdownOpt
     hadBom,
     ...(readNotes.length > 0 ? { readNotes } : {}),
   };
+}
+
+function walk(text: string, shift: number, options: MarkdownOptions, minRows: number, parser: { parse(text: string): unknown }): Walker {
+  const { tree, runs } = parseWithBulkRuns(text, minRows, parser);
+  const walker = new Walker(text, shift, options, runs);
+  walker.walkBlocks(tree.children);
+  return walker;
 }
 
 /**
@@ -232,9 +249,9 @@ class Walker {
       const split = chunk.map((row) => plainCells(this.src, row.start, row.end));
       if (split.every((cells) => cells !== undefined)) {
         split.forEach((cells, i) => {
-          cells?.forEach(([a, b], c) => {
+          cells?.forEach((cell, c) => {
             const text = new MappedText();
-            text.pushVerbatim(this.src.slice(a, b), a);
+            text.pushAligned(cell.value, this.src, cell.start, cell.end);
             this.emit('tableCell', text, this.startBlock(), { table, row: firstRow + from + i, column: c });
           });
         });

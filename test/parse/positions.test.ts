@@ -76,6 +76,19 @@ describe('a first line of --- that opens no front matter', () => {
       expect(checkSource('x.md', head + body).results.map((r) => r.inCode)).toEqual([false, false]);
     }
   });
+
+  // Pandoc's rule, common practice: front matter starts on the line right below the fence; and
+  // what lies between two rules is settings only when it reads as a YAML mapping.
+  it('a rule, a blank line and a later rule are not front matter; nor is prose between two rules', () => {
+    for (const doc of ['---\n\nRecall improved, t(28) = 2.10, p = .045.\n\n---\n', '---\nRecall improved, t(28) = 2.10, p = .045.\n---\n', '---\n- t(28) = 2.10, p = .045\n---\n']) {
+      const r = checkSource('x.md', doc);
+      expect(r.results.map((x) => doc.slice(x.span.start, x.span.end))).toEqual(['t(28) = 2.10, p = .045']);
+      expect(r.findings.map((f) => f.ruleId)).not.toContain('front-matter-is-readable');
+    }
+    // a mapping between the fences is front matter, its settings applied
+    const fm = checkSource('x.md', '---\nplumbline:\n  alpha: 0.01\n---\n\nRecall improved, t(28) = 2.10, p = .045.\n');
+    expect(fm.alpha.value).toBe(0.01);
+  });
 });
 
 describe('what is not prose', () => {
