@@ -103,8 +103,25 @@ export const ADVERSARIAL: Record<string, (bytes: number) => string> = {
   'nested >': (n) => '>'.repeat(n),
 };
 
+/**
+ * Further hostile runs, beyond the patterns the hostile-input goal names: markup the density
+ * guard does not set aside (HTML tags, entities, escapes, backslashes, autolinks) because it
+ * carries meaning, code spans and strike-through (set aside when dense), and a paragraph of
+ * one-character lines.
+ */
+export const FURTHER_HOSTILE: Record<string, (bytes: number) => string> = {
+  'code spans': (n) => '`1` '.repeat(n / 4),
+  '~~ strike': (n) => '~~a~~ '.repeat(n / 6),
+  'html tags': (n) => '<b>a</b> '.repeat(n / 9),
+  entities: (n) => '&amp; '.repeat(n / 6),
+  'escapes \\|': (n) => '\\| '.repeat(n / 3),
+  backslashes: (n) => '\\'.repeat(n),
+  autolinks: (n) => 'www.a.b '.repeat(n / 8),
+  'short lines': (n) => 'a\n'.repeat(n / 2),
+};
+
 export function adversarial(kind: string, bytes = 1_000_000): string {
-  const run = ADVERSARIAL[kind];
+  const run = ADVERSARIAL[kind] ?? FURTHER_HOSTILE[kind];
   if (!run) throw new Error(`no adversarial input "${kind}"`);
   return `Fatigue fell after the session, t(23) = 2.47, p = .021.\n\n${run(bytes)}\n\nErrors rose, t(40) = 3.10, p = .20.\n`;
 }

@@ -8,6 +8,8 @@
  *   4. time per MB, largest document ÷ smallest (10 KB … 10 MB)                 (goal ≤ 1.5)
  *   5. peak RSS of a 5,000-file streaming batch, and ÷ a 50-file batch          (goal ≤ 300 MB)
  *   6. adversarial 1 MB runs (t(, p = ., ±, digits, emphasis, $, pipes, tables) ÷ ordinary text (goal ≤ 3 each)
+ *   7. further hostile 1 MB runs (code spans, strike-through, HTML tags, entities, escapes,
+ *      backslashes, autolinks, one-character lines) ÷ ordinary text              (goal ≤ 3 each)
  *
  * Prints a table and writes bench/results.json.
  */
@@ -20,7 +22,7 @@ import remarkGfm from 'remark-gfm';
 import remarkParse from 'remark-parse';
 import { unified } from 'unified';
 import { checkSource } from '../src/engine/index.js';
-import { ADVERSARIAL, adversarial, statDense, statFree } from './corpus.js';
+import { ADVERSARIAL, FURTHER_HOSTILE, adversarial, statDense, statFree } from './corpus.js';
 
 const root = resolve(fileURLToPath(new URL('.', import.meta.url)), '../..');
 const cli = join(root, 'dist/src/cli/main.js');
@@ -133,6 +135,23 @@ add({
   detail: `worst "${worst.kind}" (bare remark on it ${worstBare.toFixed(1)}× its ordinary); ${hostile.map((h) => `${h.kind} ${h.ratio.toFixed(2)}`).join(', ')}`,
 });
 
+// 7: further hostile runs, the same measure
+const further = Object.keys(FURTHER_HOSTILE).map((kind) => {
+  const doc = adversarial(kind);
+  const ms = best(() => checkSource('hostile.md', doc), 1) / (doc.length / 1e6);
+  return { kind, ratio: ms / ordinaryMs };
+});
+const worstFurther = further.reduce((a, b) => (b.ratio > a.ratio ? b : a));
+const worstFurtherDoc = adversarial(worstFurther.kind);
+const worstFurtherBare = best(() => bare.parse(worstFurtherDoc), 1) / (worstFurtherDoc.length / 1e6) / ordinaryBare;
+add({
+  name: '7 further hostile 1 MB runs: worst / ordinary',
+  value: worstFurther.ratio,
+  goal: '<= 3',
+  met: worstFurther.ratio <= 3,
+  detail: `worst "${worstFurther.kind}" (bare remark on it ${worstFurtherBare.toFixed(1)}× its ordinary); ${further.map((h) => `${h.kind} ${h.ratio.toFixed(2)}`).join(', ')}`,
+});
+
 const machine = { cpus: cpus().length, cpu: cpus()[0]?.model ?? '', memoryGb: Math.round(totalmem() / 2 ** 30), node: process.version, date: new Date().toISOString().slice(0, 10) };
-writeFileSync(join(root, 'bench/results.json'), `${JSON.stringify({ machine, figures, perMb, hostile }, null, 2)}\n`);
+writeFileSync(join(root, 'bench/results.json'), `${JSON.stringify({ machine, figures, perMb, hostile, further }, null, 2)}\n`);
 console.log(`\nmachine: ${machine.cpus} × ${machine.cpu}, ${machine.memoryGb} GiB, Node ${machine.node}; written to bench/results.json`);
