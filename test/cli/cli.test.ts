@@ -2,35 +2,9 @@ import { execFileSync, spawnSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { Readable } from 'node:stream';
 import { describe, expect, it } from 'vitest';
-import { run } from '../../src/cli/run.js';
+import { cli } from './harness.js';
 import { RULES } from '../../src/engine/index.js';
-
-interface Outcome {
-  code: number;
-  stdout: string;
-  stderr: string;
-}
-
-async function cli(args: string[], options: { stdin?: string; cwd?: string; env?: NodeJS.ProcessEnv; isTTY?: boolean } = {}): Promise<Outcome> {
-  let stdout = '';
-  let stderr = '';
-  const code = await run(args, {
-    stdout: (s) => {
-      stdout += s;
-    },
-    stderr: (s) => {
-      stderr += s;
-    },
-    stdin: Readable.from([options.stdin ?? '']),
-    cwd: options.cwd ?? process.cwd(),
-    env: options.env ?? {},
-    isTTY: options.isTTY ?? false,
-    columns: 100,
-  });
-  return { code, stdout, stderr };
-}
 
 function tempTree(files: Record<string, string>): string {
   const dir = mkdtempSync(join(tmpdir(), 'plumbline-cli-'));

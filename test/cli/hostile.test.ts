@@ -9,34 +9,8 @@ import { createHash } from 'node:crypto';
 import { chmodSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
-import { Readable } from 'node:stream';
 import { describe, expect, it } from 'vitest';
-import { run } from '../../src/cli/run.js';
-
-interface Outcome {
-  code: number;
-  stdout: string;
-  stderr: string;
-}
-
-async function cli(args: string[], cwd: string, stdin: string | Buffer = ''): Promise<Outcome> {
-  let stdout = '';
-  let stderr = '';
-  const code = await run(args, {
-    stdout: (s) => {
-      stdout += s;
-    },
-    stderr: (s) => {
-      stderr += s;
-    },
-    stdin: Readable.from([stdin]),
-    cwd,
-    env: {},
-    isTTY: false,
-    columns: 100,
-  });
-  return { code, stdout, stderr };
-}
+import { cli, type Outcome } from './harness.js';
 
 function tempDir(): string {
   return mkdtempSync(join(tmpdir(), 'plumbline-hostile-'));
@@ -58,7 +32,7 @@ describe('bad input, each class', () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'a.md'), WRONG);
     writeFileSync(join(dir, 'b.md'), Buffer.from([0x74, 0x28, 0x34, 0x30, 0x29, 0x00, 0x01, 0x02]));
-    const out = await cli(['.', '-f', 'json'], dir);
+    const out = await cli(['.', '-f', 'json'], { cwd: dir });
     expect(out.code).toBe(2);
     const r = json(out);
     expect(r.files.map((f) => f.path)).toEqual(['a.md']);
@@ -70,7 +44,7 @@ describe('bad input, each class', () => {
   it('invalid UTF-8: decoded with U+FFFD, a note at the first bad byte, the results still checked', async () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'a.md'), Buffer.concat([Buffer.from('Caf'), Buffer.from([0xe9]), Buffer.from(' intake rose.\n'), Buffer.from(WRONG)]));
-    const out = await cli(['a.md', '-f', 'json'], dir);
+    const out = await cli(['a.md', '-f', 'json'], { cwd: dir });
     const f = json(out).files[0]!;
     expect(ids(f)).toEqual(['1:4 input-is-readable/bytes-replaced', '2:14 significance-follows-from-t/mismatch']);
   });
@@ -83,12 +57,12 @@ describe('bad input, each class', () => {
     be.swap16();
     writeFileSync(join(dir, 'be.md'), be);
     writeFileSync(join(dir, 'u8.md'), text);
-    const r = json(await cli(['le.md', 'be.md', 'u8.md', '-f', 'json'], dir));
+    const r = json(await cli(['le.md', 'be.md', 'u8.md', '-f', 'json'], { cwd: dir }));
     expect(r.files.map(ids)).toEqual([['2:14 significance-follows-from-t/mismatch'], ['2:14 significance-follows-from-t/mismatch'], ['2:14 significance-follows-from-t/mismatch']]);
   });
 
   it('UTF-16 from standard input is decoded the same way', async () => {
-    const r = json(await cli(['-', '-f', 'json'], tempDir(), Buffer.from(`\ufeff${WRONG}`, 'utf16le')));
+    const r = json(await cli(['-', '-f', 'json'], { cwd: tempDir(), stdin: Buffer.from(`\ufeff${WRONG}`, 'utf16le') }));
     expect(ids(r.files[0]!)).toEqual(['1:14 significance-follows-from-t/mismatch']);
   });
 
@@ -96,7 +70,7 @@ describe('bad input, each class', () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'empty.md'), '');
     writeFileSync(join(dir, 'empty.txt'), '');
-    const out = await cli(['.', '-f', 'json'], dir);
+    const out = await cli(['.', '-f', 'json'], { cwd: dir });
     expect(out.code).toBe(0);
     expect(json(out).summary).toMatchObject({ files: 2, results: 0, failures: 0 });
   });
@@ -106,11 +80,11 @@ describe('bad input, each class', () => {
     writeFileSync(join(dir, 'small.md'), WRONG);
     writeFileSync(join(dir, 'big.md'), `${'Filler prose. '.repeat(200)}\n${WRONG}`);
     writeFileSync(join(dir, '.plumbline.json'), JSON.stringify({ maxFileBytes: 1000 }));
-    const byConfig = await cli(['.', '-f', 'json'], dir);
+    const byConfig = await cli(['.', '-f', 'json'], { cwd: dir });
     expect(byConfig.code).toBe(2);
     expect(json(byConfig).files.map((f) => f.path)).toEqual(['small.md']);
     expect(json(byConfig).failures[0]).toEqual({ path: 'big.md', message: expect.stringMatching(/^skipped: 2837 bytes is over the limit of 1000/) as unknown as string });
-    const byOption = await cli(['.', '-f', 'json', '--max-file-bytes', '100000'], dir);
+    const byOption = await cli(['.', '-f', 'json', '--max-file-bytes', '100000'], { cwd: dir });
     expect(byOption.code).toBe(1);
     expect(json(byOption).files.map((f) => f.path)).toEqual(['big.md', 'small.md']);
   });
@@ -118,7 +92,7 @@ describe('bad input, each class', () => {
   it('missing files and paths through a file: exit 2, named, the rest still reported', async () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'a.md'), WRONG);
-    const out = await cli(['nope.md', 'a.md/inner.md', 'a.md', '-f', 'json'], dir);
+    const out = await cli(['nope.md', 'a.md/inner.md', 'a.md', '-f', 'json'], { cwd: dir });
     expect(out.code).toBe(2);
     const r = json(out);
     expect(r.files.map((f) => f.path)).toEqual(['a.md']);
@@ -140,7 +114,7 @@ describe('bad input, each class', () => {
       const r = spawnSync('setpriv', [`--inh-caps=${drop}`, `--bounding-set=${drop}`, process.execPath, resolve('dist/src/cli/main.js'), 'a.md', 'locked.md', '-f', 'json'], { cwd: dir, encoding: 'utf8' });
       out = { code: r.status ?? -1, stdout: r.stdout, stderr: r.stderr };
     } else {
-      out = await cli(['a.md', 'locked.md', '-f', 'json'], dir);
+      out = await cli(['a.md', 'locked.md', '-f', 'json'], { cwd: dir });
     }
     expect(out.code).toBe(2);
     expect(json(out).failures).toEqual([{ path: 'locked.md', message: 'cannot read: permission denied' }]);
@@ -154,10 +128,10 @@ describe('bad input, each class', () => {
     symlinkSync('..', join(dir, 'sub', 'up'));
     symlinkSync('loop2', join(dir, 'loop1'));
     symlinkSync('loop1', join(dir, 'loop2'));
-    const out = await cli(['.', '-f', 'json'], dir);
+    const out = await cli(['.', '-f', 'json'], { cwd: dir });
     expect(json(out).files.map((f) => f.path)).toEqual(['sub/a.md']);
     // a loop named directly is a clear error, not a hang
-    const direct = await cli(['loop1', '-f', 'json'], dir);
+    const direct = await cli(['loop1', '-f', 'json'], { cwd: dir });
     expect(direct.code).toBe(2);
     expect(json(direct).failures).toEqual([{ path: 'loop1', message: 'too many levels of symbolic links' }]);
   });
@@ -165,7 +139,7 @@ describe('bad input, each class', () => {
   it('a 10,000-file folder: every file checked, in a stable order, with worker threads', async () => {
     const dir = tempDir();
     for (let i = 0; i < 10_000; i++) writeFileSync(join(dir, `m${String(i).padStart(5, '0')}.md`), i % 1000 === 7 ? WRONG : RIGHT);
-    const out = await cli(['.', '-f', 'json', '-j', '2'], dir);
+    const out = await cli(['.', '-f', 'json', '-j', '2'], { cwd: dir });
     const r = json(out);
     expect(r.summary).toMatchObject({ files: 10_000, results: 10_000, failures: 0 });
     expect(r.files.filter((f) => f.findings.length > 0).map((f) => f.path)).toEqual(Array.from({ length: 10 }, (_, k) => `m${String(k * 1000 + 7).padStart(5, '0')}.md`));
@@ -177,7 +151,7 @@ describe('bad input, each class', () => {
     const line = `${filler}${WRONG.trim()} ${filler}${RIGHT.trim()}`;
     expect(line.length).toBeGreaterThan(2_000_000);
     writeFileSync(join(dir, 'long.md'), `${line}\n`);
-    const r = json(await cli(['long.md', '-f', 'json'], dir));
+    const r = json(await cli(['long.md', '-f', 'json'], { cwd: dir }));
     const f = r.files[0]!;
     expect(f.results.map((x) => x.start)).toEqual([
       { line: 1, column: filler.length + 14 },
@@ -191,7 +165,7 @@ describe('bad input, each class', () => {
     writeFileSync(join(dir, 'lists.md'), `${'- '.repeat(10_000)}${WRONG}`);
     writeFileSync(join(dir, 'quotes.md'), `${'>'.repeat(10_000)} ${WRONG}`);
     writeFileSync(join(dir, 'indent.md'), `${Array.from({ length: 300 }, (_, i) => `${' '.repeat(2 * i)}- level ${i}`).join('\n')}\n\n${WRONG}`);
-    const r = json(await cli(['lists.md', 'quotes.md', 'indent.md', '-f', 'json'], dir));
+    const r = json(await cli(['lists.md', 'quotes.md', 'indent.md', '-f', 'json'], { cwd: dir }));
     expect(r.files.map(ids)).toEqual([
       ['1:1 input-is-readable/read-as-plain-text', '1:20014 significance-follows-from-t/mismatch'],
       ['1:1 input-is-readable/read-as-plain-text', '1:10015 significance-follows-from-t/mismatch'],
@@ -203,14 +177,14 @@ describe('bad input, each class', () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'emph.md'), `${'*'.repeat(10_000)}x${'*'.repeat(10_000)}\n\n${WRONG}`);
     writeFileSync(join(dir, 'links.md'), `${'['.repeat(10_000)}x${']'.repeat(10_000)}\n\n${WRONG}`);
-    const r = json(await cli(['emph.md', 'links.md', '-f', 'json'], dir));
+    const r = json(await cli(['emph.md', 'links.md', '-f', 'json'], { cwd: dir }));
     for (const f of r.files) expect(ids(f).filter((x) => x.includes('significance'))).toEqual(['3:14 significance-follows-from-t/mismatch']);
   }, 60_000);
 
   it('malformed front matter: a note, and the defaults are used', async () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'a.md'), `---\nplumbline: {alpha: 0.01\n---\n${WRONG}`);
-    const r = json(await cli(['a.md', '-f', 'json'], dir));
+    const r = json(await cli(['a.md', '-f', 'json'], { cwd: dir }));
     expect(ids(r.files[0]!)).toEqual(['1:1 front-matter-is-readable/front-matter-unreadable', '4:14 significance-follows-from-t/mismatch']);
   });
 
@@ -218,11 +192,11 @@ describe('bad input, each class', () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'a.md'), WRONG);
     writeFileSync(join(dir, '.plumbline.json'), '{\n  "alpha": 0.05,\n  "rules": {\n}');
-    expect((await cli(['a.md'], dir)).stdout).toMatch(/cannot check a\.md: configuration .*\.plumbline\.json:4:2: invalid JSON/);
+    expect((await cli(['a.md'], { cwd: dir })).stdout).toMatch(/cannot check a\.md: configuration .*\.plumbline\.json:4:2: invalid JSON/);
     writeFileSync(join(dir, '.plumbline.json'), '{"maxFileBytes": "big"}');
-    expect((await cli(['a.md'], dir)).stdout).toContain('maxFileBytes');
+    expect((await cli(['a.md'], { cwd: dir })).stdout).toContain('maxFileBytes');
     writeFileSync(join(dir, '.plumbline.json'), '{"rules": {"p-follows-from-tt": "off"}}');
-    const out = await cli(['a.md'], dir);
+    const out = await cli(['a.md'], { cwd: dir });
     expect(out.code).toBe(2);
     expect(out.stdout).toContain('did you mean "p-follows-from-t"');
   });
@@ -237,16 +211,16 @@ describe('safety', () => {
     writeFileSync(join(dir, 'a.md'), WRONG);
     writeFileSync(join(dir, 'b.txt'), RIGHT);
     const before = sum(dir);
-    const refused = await cli(['.', '-o', 'a.md'], dir);
+    const refused = await cli(['.', '-o', 'a.md'], { cwd: dir });
     expect(refused.code).toBe(2);
     expect(refused.stderr).toContain('refusing to write the report over an input file: a.md');
     expect(sum(dir)).toEqual(before);
     // through another name (a symbolic link) too
     symlinkSync('a.md', join(dir, 'alias.json'));
-    expect((await cli(['a.md', '-o', 'alias.json'], dir)).code).toBe(2);
+    expect((await cli(['a.md', '-o', 'alias.json'], { cwd: dir })).code).toBe(2);
     expect(readFileSync(join(dir, 'a.md'), 'utf8')).toBe(WRONG);
 
-    const ok = await cli(['.', '-o', 'report.json', '-f', 'json'], dir);
+    const ok = await cli(['.', '-o', 'report.json', '-f', 'json'], { cwd: dir });
     expect(ok.code).toBe(1);
     expect(ok.stdout).toBe('');
     expect(json({ ...ok, stdout: readFileSync(join(dir, 'report.json'), 'utf8') }).summary.files).toBe(2);
@@ -257,7 +231,7 @@ describe('safety', () => {
   it('an output file that cannot be written leaves nothing behind and exits 2', async () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'a.md'), WRONG);
-    const out = await cli(['a.md', '-o', 'no/such/folder/report.txt'], dir);
+    const out = await cli(['a.md', '-o', 'no/such/folder/report.txt'], { cwd: dir });
     expect(out.code).toBe(2);
     expect(out.stderr).toContain('cannot write no/such/folder/report.txt');
   });
@@ -265,7 +239,7 @@ describe('safety', () => {
   it('batch mode never reads the output file as input', async () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'a.md'), WRONG);
-    const out = await cli(['batch', '-o', 'out.ndjson'], dir, 'a.md\nout.ndjson\n');
+    const out = await cli(['batch', '-o', 'out.ndjson'], { cwd: dir, stdin: 'a.md\nout.ndjson\n' });
     expect(out.code).toBe(2);
     const lines = readFileSync(join(dir, 'out.ndjson'), 'utf8').trim().split('\n').map((l) => JSON.parse(l) as { id: string; error?: string });
     expect(lines.map((l) => [l.id, l.error ?? 'checked'])).toEqual([

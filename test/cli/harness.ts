@@ -1,0 +1,36 @@
+import { Readable } from 'node:stream';
+import { run } from '../../src/cli/run.js';
+
+/** What one in-process run of the CLI gave. */
+export interface Outcome {
+  code: number;
+  stdout: string;
+  stderr: string;
+}
+
+export interface RunOptions {
+  stdin?: string | Buffer;
+  cwd?: string;
+  env?: NodeJS.ProcessEnv;
+  isTTY?: boolean;
+}
+
+/** Run the CLI in this process with its streams captured (no terminal, 100 columns, empty environment unless given). */
+export async function cli(args: string[], options: RunOptions = {}): Promise<Outcome> {
+  let stdout = '';
+  let stderr = '';
+  const code = await run(args, {
+    stdout: (s) => {
+      stdout += s;
+    },
+    stderr: (s) => {
+      stderr += s;
+    },
+    stdin: Readable.from([options.stdin ?? '']),
+    cwd: options.cwd ?? process.cwd(),
+    env: options.env ?? {},
+    isTTY: options.isTTY ?? false,
+    columns: 100,
+  });
+  return { code, stdout, stderr };
+}
