@@ -97,7 +97,9 @@ function renderBlock(b: Block, stat: string): string {
         .map((item, i) => {
           const marker = b.ordered ? `${i + 1}. ` : '- ';
           const pad = ' '.repeat(marker.length);
-          return marker + render(item, stat).replace(/\n/g, `\n${pad}`).replace(new RegExp(`\\n${pad}(?=\\n)`, 'g'), '\n');
+          // a rule opening an item is written `***`: `- ---` (and `- - ---`) is itself a thematic break
+          const body = render(item, stat).replace(/^---/, '***');
+          return marker + body.replace(/\n/g, `\n${pad}`).replace(new RegExp(`\\n${pad}(?=\\n)`, 'g'), '\n');
         })
         .join('\n\n');
     case 'quote':
