@@ -27,6 +27,39 @@ const drop = $<HTMLDivElement>('drop');
 
 $('cautions').innerHTML = cautionsHtml();
 
+type LevelSetting = NonNullable<NonNullable<CheckOptions['config']>['rules']>[string];
+
+// One level choice per rule, built with DOM calls; "default" leaves the rule as configured.
+const levels = $<HTMLDivElement>('levels');
+const levelChoices = new Map<string, HTMLSelectElement>();
+for (const rule of RULES) {
+  const label = document.createElement('label');
+  const title = document.createElement('span');
+  title.textContent = rule.id;
+  title.title = rule.summary;
+  const select = document.createElement('select');
+  select.name = `level-${rule.id}`;
+  select.dataset.rule = rule.id;
+  for (const [value, shown] of [['', `default (${rule.defaultLevel})`], ['off', 'off'], ['note', 'note'], ['warning', 'warning'], ['error', 'error']] as const) {
+    const option = document.createElement('option');
+    option.value = value;
+    option.textContent = shown;
+    select.append(option);
+  }
+  label.append(title, select);
+  levels.append(label);
+  levelChoices.set(rule.id, select);
+}
+
+function ruleLevels(): Record<string, LevelSetting> {
+  const chosen: Record<string, LevelSetting> = {};
+  for (const [id, select] of levelChoices) {
+    const v = select.value;
+    if (v === 'off' || v === 'note' || v === 'warning' || v === 'error') chosen[id] = v;
+  }
+  return chosen;
+}
+
 function options(): CheckOptions {
   const a = Number(alpha.value);
   const g = guidelines.value;
@@ -34,7 +67,7 @@ function options(): CheckOptions {
     ...(alpha.value.trim() !== '' && a > 0 && a < 1 ? { alpha: a } : {}),
     ...(tails.value === 'one' || tails.value === 'two' ? { sidedness: tails.value } : {}),
     checklist: checklist.checked,
-    config: { guidelines: g === 'all' ? 'all' : [g as 'sampl' | 'jars-quant' | 'consort'] },
+    config: { guidelines: g === 'all' ? 'all' : [g as 'sampl' | 'jars-quant' | 'consort'], rules: ruleLevels() },
   };
 }
 
@@ -87,7 +120,7 @@ async function load(f: File): Promise<void> {
 }
 
 for (const el of [text, alpha]) el.addEventListener('input', schedule);
-for (const el of [tails, checklist, guidelines, name]) el.addEventListener('change', check);
+for (const el of [tails, checklist, guidelines, name, levels]) el.addEventListener('change', check);
 file.addEventListener('change', () => {
   const f = file.files?.[0];
   if (f) void load(f);

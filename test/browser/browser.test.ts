@@ -13,7 +13,7 @@ import { pathToFileURL } from 'node:url';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { run } from '../../src/cli/run.js';
-import { checkSource } from '../../src/engine/index.js';
+import { checkSource, RULES } from '../../src/engine/index.js';
 
 const CHROMIUM = '/usr/bin/chromium';
 const required = process.env.PLUMBLINE_REQUIRE_BROWSER === '1';
@@ -152,6 +152,21 @@ describe.skipIf(!available)('in chromium', () => {
     expect(await w.page.$$eval('table.checklist tr', (rows) => rows.length)).toBeGreaterThan(5);
     await w.page.screenshot({ path: resolve(OUT, 'page.png'), fullPage: true });
 
+    // a rule turned off, and one raised to error, as a configuration file's `rules` would
+    const byRule = new Map<string, number>();
+    for (const f of withChecklist.findings) byRule.set(f.ruleId, (byRule.get(f.ruleId) ?? 0) + 1);
+    const [offRule] = [...byRule.entries()].sort((a, b) => b[1] - a[1])[0]!;
+    const noteRule = withChecklist.findings.find((f) => f.level === 'note' && f.ruleId !== offRule)!.ruleId;
+    await w.page.click('details.levels summary');
+    await w.page.selectOption(`select[data-rule="${offRule}"]`, 'off');
+    await w.page.selectOption(`select[data-rule="${noteRule}"]`, 'error');
+    const leveled = checkSource('manuscript.md', text, { checklist: true, alpha: 0.01, config: { guidelines: 'all', rules: { [offRule]: 'off', [noteRule]: 'error' } } });
+    expect(leveled.findings.length).toBe(withChecklist.findings.length - byRule.get(offRule)!);
+    await w.page.waitForFunction((n) => document.querySelectorAll('details.card').length === n, leveled.findings.length, { timeout: 10_000 });
+    expect(await w.page.textContent('#status')).toContain(`${leveled.findings.filter((f) => f.level === 'error').length} error`);
+    expect(await w.page.$$eval('select[data-rule]', (s) => s.length)).toBe(RULES.length);
+    await w.page.screenshot({ path: resolve(OUT, 'page-levels.png'), fullPage: false });
+
     // nothing of the manuscript is kept in storage
     expect(await w.page.evaluate(() => [localStorage.length, sessionStorage.length])).toEqual([0, 0]);
     expect(w.errors).toEqual([]);
@@ -176,6 +191,21 @@ describe.skipIf(!available)('in chromium', () => {
     expect(w.dialogs).toEqual([]);
     expect(await w.page.evaluate(() => document.querySelectorAll('#output iframe, #output img, #output script, #output object, #output embed, #output form, #output input').length)).toBe(0);
     await w.page.screenshot({ path: resolve(OUT, 'page-xss.png'), fullPage: false });
+    expect(w.errors).toEqual([]);
+    expect(w.requests).toEqual([]);
+    await w.page.close();
+  }, 60_000);
+
+  it('the page refuses a dropped binary file, says so, and keeps what it showed', async () => {
+    const w = await open(pathToFileURL(PAGE).href);
+    await w.page.fill('#manuscript', 'Errors rose, t(40) = 3.10, p = .20.');
+    await w.page.waitForFunction(() => document.querySelectorAll('details.card').length > 0, undefined, { timeout: 10_000 });
+    const before = await w.page.innerHTML('#output');
+    await w.page.setInputFiles('#file', { name: 'figure.md', mimeType: 'application/octet-stream', buffer: Buffer.from([0x74, 0x28, 0x34, 0x30, 0x29, 0x00, 0x01, 0x02]) });
+    await w.page.waitForFunction(() => (document.getElementById('status')?.textContent ?? '').includes('not read'), undefined, { timeout: 10_000 });
+    expect(await w.page.textContent('#status')).toBe('figure.md: binary file (NUL byte at byte 5); not read.');
+    expect(await w.page.innerHTML('#output')).toBe(before);
+    expect(await w.page.inputValue('#name')).toBe('manuscript.md');
     expect(w.errors).toEqual([]);
     expect(w.requests).toEqual([]);
     await w.page.close();
