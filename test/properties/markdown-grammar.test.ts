@@ -1,14 +1,14 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { checkSource } from '../../src/engine/index.js';
-import { twoSidedPFromT } from '../../src/stats/index.js';
+import { correctResult, isPRule, wrongP } from './results.js';
 
 /**
  * Properties over Markdown built from a grammar (fast-check): front matter, headings, nested
  * lists and block quotes, tables, emphasis, links, inline and display math, raw HTML, comments
- * and code, with one generated result spliced into a prose slot somewhere in it. Reference for
- * "correct": the two-sided p of Student's t (src/stats, itself checked against scipy in
- * test/stats); the grammar follows CommonMark and GFM (common practice, no source).
+ * and code, with one generated result spliced into a prose slot somewhere in it (results.ts says
+ * what "correct" is measured against); the grammar follows CommonMark and GFM (common practice,
+ * no source).
  * fast-check prints the seed and the shrunk document on failure.
  */
 const RUNS = Number(process.env.PLUMBLINE_PROPERTY_RUNS ?? 10_000);
@@ -125,11 +125,7 @@ function renderBlock(b: Block, stat: string): string {
   }
 }
 
-const statistic = fc.record({ df: fc.integer({ min: 2, max: 500 }), t: fc.integer({ min: 0, max: 900 }), style: fc.constantFrom('plain', 'italic', 'math') }).map(({ df, t, style }) => {
-  const tv = t / 100;
-  const p = twoSidedPFromT(tv, df);
-  return { df, t: tv.toFixed(2), p, style };
-});
+const statistic = fc.tuple(correctResult, fc.constantFrom('plain', 'italic', 'math')).map(([c, style]) => ({ ...c, style }));
 const shown = (s: { df: number; t: string; style: string }, p: string) =>
   s.style === 'italic' ? `*t*(${s.df}) = ${s.t}, *p* ${p}` : s.style === 'math' ? `$t(${s.df}) = ${s.t}, p ${p}$` : `t(${s.df}) = ${s.t}, p ${p}`;
 
@@ -144,14 +140,13 @@ function build(d: { front: string; blocks: Block[]; pick: number; tail: string }
   return `${d.front}${body}${places.length === 0 ? `\n\n${d.tail} Scores rose, ${stat}, in the ward.` : ''}\n`;
 }
 
-const pRules = (ids: string[]) => ids.filter((id) => id.includes('follows-from-t') || id === 'one-tailed-p-is-declared');
+const pRules = (ids: string[]) => ids.filter(isPRule);
 
 describe('properties of generated Markdown with a spliced result', () => {
   it('never throws; every span is in the document; the spliced correct result is found at its characters and never flagged; CRLF and a BOM change no finding', () => {
     fc.assert(
       fc.property(withSlot, statistic, (d, s) => {
-        const printed = s.p < 0.001 ? '< .001' : `= ${s.p.toFixed(3).replace(/^0/, '')}`;
-        const stat = shown(s, printed);
+        const stat = shown(s, s.printed.slice(2)); // '< .001' or '= .021'
         const doc = build(d, stat);
         const r = checkSource('g.md', doc);
         for (const x of [...r.results, ...r.findings]) {
@@ -178,9 +173,7 @@ describe('properties of generated Markdown with a spliced result', () => {
   it('a spliced wrong p (outside every reading) is always flagged, wherever it sits', () => {
     fc.assert(
       fc.property(withSlot, statistic.filter((s) => s.p > 0.002 && s.p < 0.9), (d, s) => {
-        // far from the two-tailed value and from half of it: x4 (or /8 for large p)
-        const wrong = s.p < 0.2 ? s.p * 4 + 0.01 : s.p / 8;
-        const doc = build(d, shown(s, `= ${wrong.toFixed(3).replace(/^0/, '')}`));
+        const doc = build(d, shown(s, `= ${wrongP(s.p)}`));
         const r = checkSource('g.md', doc);
         expect(r.results).toHaveLength(1);
         expect(pRules(r.findings.map((f) => f.ruleId)).length).toBeGreaterThan(0);

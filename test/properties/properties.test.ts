@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { checkSource } from '../../src/engine/index.js';
-import { twoSidedPFromT } from '../../src/stats/index.js';
+import { correctResult, isPRule, wrongP } from './results.js';
 
 /**
  * Property-based tests (fast-check). Seeds are printed by fast-check on failure; runs are set per
@@ -13,13 +13,7 @@ const word = fc.constantFrom('fatigue', 'the', 'ward', 'rose', 'fell', 'p', 't',
 const noise = fc.array(fc.oneof(word, fc.string({ maxLength: 6 }), fc.integer({ min: -99, max: 999 }).map(String)), { maxLength: 40 }).map((ws) => ws.join(' '));
 const markdownNoise = fc.oneof(noise, fc.string({ maxLength: 200, unit: 'grapheme' }), fc.string({ maxLength: 200, unit: 'binary' }));
 
-/** A correct result: df, t at two decimals, and the p two-tailed t gives, at three decimals (or p < .001). */
-const correct = fc.record({ df: fc.integer({ min: 2, max: 500 }), t: fc.integer({ min: 0, max: 900 }) }).map(({ df, t }) => {
-  const tv = t / 100;
-  const p = twoSidedPFromT(tv, df);
-  const printed = p < 0.001 ? 'p < .001' : `p = ${p.toFixed(3).replace(/^0/, '')}`;
-  return { df, t: tv.toFixed(2), printed, p };
-});
+const correct = correctResult;
 
 describe('properties of any input', () => {
   it('never throws; every span lies in the document; every result starts with its t', () => {
@@ -59,7 +53,7 @@ describe('properties of spliced results', () => {
         const r = checkSource('p.md', doc);
         expect(r.results).toHaveLength(1);
         expect(doc.slice(r.results[0]!.span.start, r.results[0]!.span.end)).toBe(stat);
-        expect(r.findings.filter((f) => f.ruleId.includes('follows-from-t') || f.ruleId === 'one-tailed-p-is-declared')).toEqual([]);
+        expect(r.findings.filter((f) => isPRule(f.ruleId))).toEqual([]);
       }),
       { numRuns: RUNS },
     );
@@ -68,9 +62,7 @@ describe('properties of spliced results', () => {
   it('a spliced wrong p (outside every reading) is always flagged', () => {
     fc.assert(
       fc.property(plain, correct.filter((c) => c.p > 0.002 && c.p < 0.9), (before, c) => {
-        // far from the two-tailed value and from half of it: x4 (or /8 for large p)
-        const wrong = c.p < 0.2 ? c.p * 4 + 0.01 : c.p / 8;
-        const doc = `${before}, t(${c.df}) = ${c.t}, p = ${wrong.toFixed(3).replace(/^0/, '')}.\n`;
+        const doc = `${before}, t(${c.df}) = ${c.t}, p = ${wrongP(c.p)}.\n`;
         const ids = checkSource('p.md', doc).findings.map((f) => f.ruleId);
         expect(ids.some((id) => id === 'p-follows-from-t' || id === 'significance-follows-from-t')).toBe(true);
       }),
