@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { Ajv2020 } from 'ajv/dist/2020.js';
-import AjvDraft04 from 'ajv-draft-04';
+import AjvDraft04Module from 'ajv-draft-04';
 import { describe, expect, it } from 'vitest';
 import { checkSource, RULES } from '../../src/engine/index.js';
 import { formatHuman, formatJson, formatSarif, type RunReport } from '../../src/report/index.js';
@@ -39,6 +39,9 @@ describe('JSON report', () => {
     expect(formatJson(run())).toBe(formatJson(run()));
   });
 });
+
+// A CommonJS module: its default import is the module, whose `default` is the class.
+const AjvDraft04 = AjvDraft04Module.default;
 
 describe('SARIF report', () => {
   // Validated against the OASIS SARIF 2.1.0 schema (test/fixtures/standards/sarif-2.1.0-rtm.5.json);
