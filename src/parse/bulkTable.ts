@@ -103,11 +103,12 @@ function isRowText(text: string, at: number, end: number): boolean {
   return false;
 }
 
+function isSpaceOrTab(c: number): boolean {
+  return c === 32 || c === 9;
+}
+
 function isBlank(text: string, start: number, end: number): boolean {
-  for (let i = start; i < end; i += 1) {
-    const c = text.charCodeAt(i);
-    if (c !== 32 && c !== 9) return false;
-  }
+  for (let i = start; i < end; i += 1) if (!isSpaceOrTab(text.charCodeAt(i))) return false;
   return true;
 }
 
@@ -177,8 +178,6 @@ export function blankRuns(text: string, runs: readonly BulkRun[]): string {
 function isAsciiPunctuation(c: number): boolean {
   return (c >= 33 && c <= 47) || (c >= 58 && c <= 64) || (c >= 91 && c <= 96) || (c >= 123 && c <= 126);
 }
-
-const isSpaceOrTab = (c: number): boolean => c === 32 || c === 9;
 
 /** One cell of a plain row: its content range in the source (trimmed) and its text. */
 export interface PlainCell {

@@ -23,15 +23,17 @@ const processor = unified().use(remarkParse).use(remarkGfm).use(remarkFrontmatte
  */
 const withoutFrontMatter = unified().use(remarkParse).use(remarkGfm).use(remarkMath);
 
-const FENCE_LINE = /^---[ \t]*\r?$/;
+/** A line of `---` (trailing spaces allowed): a front-matter fence, anywhere in the text. */
+const FENCE_LINE = /^---[ \t]*\r?$/m;
 
 /** How a text opening with `---` is read: `undefined` when it does not. */
 function frontMatterOpening(text: string): { closed: boolean; blankAfter: boolean; yamlLike: boolean } | undefined {
+  if (!text.startsWith('---')) return undefined;
   const lines = text.split('\n', 3);
   if (!FENCE_LINE.test(lines[0] ?? '')) return undefined;
   const second = lines[1] ?? '';
   return {
-    closed: /^---[ \t]*\r?$/m.test(text.slice(text.indexOf('\n') + 1)),
+    closed: FENCE_LINE.test(text.slice(text.indexOf('\n') + 1)),
     blankAfter: /^[ \t]*\r?$/.test(second),
     // the line below reads as a YAML key: the author meant front matter
     yamlLike: /^[A-Za-z_][\w -]{0,60}:/.test(second),
@@ -315,49 +317,49 @@ class Walker {
             out.pushVerbatim(node.value, at);
             range.cursor = at + node.value.length;
           }
-        } else if (node.type === 'link') {
+        } else if ('children' in node) {
           this.phrasing(node.children, out, codes, range);
         }
         continue;
       }
+      const start = pos.start.offset as number;
+      const end = pos.end.offset as number;
       switch (node.type) {
         case 'text':
-          out.pushAligned(node.value, this.src, pos.start.offset as number, pos.end.offset as number);
+          out.pushAligned(node.value, this.src, start, end);
           break;
-        case 'inlineMath':
-          if (pos) {
-            const [a, b] = insideDelimiters(this.src, pos.start.offset as number, pos.end.offset as number, '$');
-            out.pushAligned(node.value, this.src, a, b);
-          }
+        case 'inlineMath': {
+          const [a, b] = insideDelimiters(this.src, start, end, '$');
+          out.pushAligned(node.value, this.src, a, b);
           break;
-        case 'inlineCode':
-          if (pos) {
-            const code = new MappedText();
-            const [a, b] = insideDelimiters(this.src, pos.start.offset as number, pos.end.offset as number, '`');
-            code.pushAligned(node.value, this.src, a, b);
-            codes.push(code);
-            // Keep word boundaries in the prose around it.
-            out.pushSynthetic(' ', pos.start.offset as number, pos.end.offset as number);
-          }
+        }
+        case 'inlineCode': {
+          const code = new MappedText();
+          const [a, b] = insideDelimiters(this.src, start, end, '`');
+          code.pushAligned(node.value, this.src, a, b);
+          codes.push(code);
+          // Keep word boundaries in the prose around it.
+          out.pushSynthetic(' ', start, end);
           break;
+        }
         case 'break':
-          if (pos) out.pushSynthetic('\n', pos.start.offset as number, pos.end.offset as number);
+          out.pushSynthetic('\n', start, end);
           break;
         case 'html':
-          if (pos) this.inlineHtml(node.value, pos.start.offset as number, pos.end.offset as number, out);
+          this.inlineHtml(node.value, start, end, out);
           break;
         case 'emphasis':
         case 'strong':
         case 'delete':
         case 'link':
         case 'linkReference':
-          this.phrasing(node.children, out, codes, { cursor: pos.start.offset as number, end: pos.end.offset as number });
+          this.phrasing(node.children, out, codes, { cursor: start, end });
           break;
         default:
           // images, footnote references: not prose
           break;
       }
-      range.cursor = Math.max(range.cursor, pos.end.offset as number);
+      range.cursor = Math.max(range.cursor, end);
     }
   }
 
