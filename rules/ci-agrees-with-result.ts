@@ -1,4 +1,4 @@
-import { fill, numberInterval, showInterval, tInterval, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { fill, linkDoubts, numberInterval, showInterval, tInterval, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 import { sideOfAlpha, twoSidedCriticalT, twoSidedPRange, type Box } from '../src/stats/index.js';
 
 const messages = {
@@ -20,27 +20,40 @@ export const ciAgreesWithResult: Rule = {
     const out: RuleFinding[] = [];
     for (const result of document.results) {
       const r = result.report;
-      const ci = result.context.interval;
-      if (!ci || !r.df || r.tOp !== '=') continue;
+      const link = result.context.interval;
+      if (!link || !r.df || r.tOp !== '=') continue;
+      const ci = link.item;
       const lo = numberInterval(ci.low);
       const hi = numberInterval(ci.high);
-      const base = { span: ci.span, reported: `${ci.printed}; ${r.printed}`, resultId: r.id, block: r.block, related: [{ span: r.span, message: 'the test this interval belongs to' }] };
       const midBox: Box = [(lo[0] + hi[0]) / 2, (lo[1] + hi[1]) / 2];
       // The estimate: printed with a label, else from the linked means, else the midpoint.
-      const est = estimateBox(result, midBox);
+      const estimate = estimateBox(result, midBox);
+      const fromMeans = estimate.source === 'difference of the means' || estimate.source === 'mean minus the reference value';
+      const doubts = linkDoubts({ descriptives: fromMeans ? result.context.descriptives : undefined, linked: [link, estimate.source === 'as printed' ? result.context.estimate : undefined] });
+      const base = {
+        span: ci.span,
+        reported: `${ci.printed}; ${r.printed}`,
+        resultId: r.id,
+        block: r.block,
+        related: [{ span: r.span, message: 'the test this interval belongs to' }],
+        ...(doubts.length > 0 ? { uncertain: doubts } : {}),
+      };
       // Intervals from profile likelihood or the bootstrap need not be exactly symmetric, so a
       // gap up to 5% of the half-width is tolerated beyond rounding.
       const slack = 0.05 * Math.max(0, (hi[0] - lo[1]) / 2);
-      if (est.source !== 'midpoint' && !overlapsEitherSign(est.box, [midBox[0] - slack, midBox[1] + slack])) {
-        out.push({ ...base, messageId: 'not-centred', message: fill(messages['not-centred'], { ci: ci.printed, estimate: `${est.printed} (${est.source})`, mid: showInterval(midBox[0], midBox[1]) }), check: 'Check the interval limits and the estimate against the output: one limit or the estimate may be mistyped.' });
+      if (estimate.source !== 'midpoint' && !overlapsEitherSign(estimate.box, [midBox[0] - slack, midBox[1] + slack])) {
+        out.push({ ...base, messageId: 'not-centred', message: fill(messages['not-centred'], { ci: ci.printed, estimate: `${estimate.printed} (${estimate.source})`, mid: showInterval(midBox[0], midBox[1]) }), check: 'Check the interval limits and the estimate against the output: one limit or the estimate may be mistyped.' });
         continue;
       }
       const df = r.df.value;
       const tCrit = twoSidedCriticalT(1 - ci.level, df);
       const zCrit = twoSidedCriticalT(1 - ci.level, 1e9);
       const width: Box = [Math.max(hi[0] - lo[1], Number.MIN_VALUE), hi[1] - lo[0]];
-      const absEst: Box = est.box[0] <= 0 && est.box[1] >= 0 ? [0, Math.max(-est.box[0], est.box[1])] : [Math.min(Math.abs(est.box[0]), Math.abs(est.box[1])), Math.max(Math.abs(est.box[0]), Math.abs(est.box[1]))];
-      const implied = (crit: number): Box => [(absEst[0] * 2 * crit) / width[1], (absEst[1] * 2 * crit) / width[0]];
+      const absEst: Box = estimate.box[0] <= 0 && estimate.box[1] >= 0 ? [0, Math.max(-estimate.box[0], estimate.box[1])] : [Math.min(Math.abs(estimate.box[0]), Math.abs(estimate.box[1])), Math.max(Math.abs(estimate.box[0]), Math.abs(estimate.box[1]))];
+      // A model coefficient's interval may come from the profile likelihood or the bootstrap
+      // rather than estimate ± critical value × SE: a gap of a few per cent is allowed there.
+      const modelSlack = estimate.source === 'as printed' && COEFFICIENT.test(result.context.estimate?.item.printed ?? '') ? 0.05 : 0;
+      const implied = (crit: number): Box => [((absEst[0] * 2 * crit) / width[1]) * (1 - modelSlack), ((absEst[1] * 2 * crit) / width[0]) * (1 + modelSlack)];
       const [tl, th] = tInterval(r);
       const absT: Box = [tl <= 0 && th >= 0 ? 0 : Math.min(Math.abs(tl), Math.abs(th)), Math.max(Math.abs(tl), Math.abs(th))];
       const meets = (a: Box) => a[0] <= absT[1] && a[1] >= absT[0];
@@ -52,7 +65,7 @@ export const ciAgreesWithResult: Rule = {
           ...base,
           messageId: 'width-vs-t',
           message: fill(messages['width-vs-t'], { ci: ci.printed, reported: r.printed, impliedT: showInterval(viaT[0], viaT[1]), tCrit: tCrit.toFixed(3), impliedZ: showInterval(viaZ[0], viaZ[1]), tRange: showInterval(absT[0], absT[1]), impliedP: showInterval(p.low, p.high) }),
-          recomputed: { quantity: '|t| implied by the CI', low: viaT[0], high: viaT[1], inputs: [ci.printed, `estimate ${est.printed} (${est.source})`, `df = ${r.df.printed}`], assumptions: [`${Math.round(ci.level * 100)}% interval from the t distribution (or the normal)`] },
+          recomputed: { quantity: '|t| implied by the CI', low: viaT[0], high: viaT[1], inputs: [ci.printed, `estimate ${estimate.printed} (${estimate.source})`, `df = ${r.df.printed}`], assumptions: [`${Math.round(ci.level * 100)}% interval from the t distribution (or the normal)`, ...(modelSlack > 0 ? ['a model coefficient: 5% allowed for profile or bootstrap intervals'] : [])] },
           check: 'Check the interval, the estimate and t against the output; a CI built with the SD instead of the SE is a common cause.',
         });
         continue;
@@ -81,13 +94,16 @@ export const ciAgreesWithResult: Rule = {
   },
 };
 
+/** A labelled model coefficient (`b = 0.37`, `B = 1.2`, `β = .21`, `estimate = 0.4`). */
+const COEFFICIENT = /^(?:b|B|β|estimate)(?![\p{L}])/u;
+
 function overlapsEitherSign(a: Box, b: Box): boolean {
   return (a[0] <= b[1] && a[1] >= b[0]) || (-a[1] <= b[1] && -a[0] >= b[0]);
 }
 
 function estimateBox(result: LinkedResult, midpoint: Box): { box: Box; printed: string; source: string } {
   const c = result.context;
-  if (c.estimate) return { box: numberInterval(c.estimate.value), printed: c.estimate.value.printed, source: 'as printed' };
+  if (c.estimate) return { box: numberInterval(c.estimate.item.value), printed: c.estimate.item.value.printed, source: 'as printed' };
   const groups = c.descriptives?.groups ?? [];
   if (groups.length === 2 && groups[0]?.mean && groups[1]?.mean) {
     const a = numberInterval(groups[0].mean);

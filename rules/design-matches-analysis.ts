@@ -1,4 +1,4 @@
-import { evaluateDescriptives, fill, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { evaluateDescriptives, fill, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts } from '../src/rule-api/index.js';
 
 const messages = {
   'paired-analysed-as-independent': 'Reported {reported} for a design the text describes as paired ("{words}"), but df = {df} is n1 + n2 − 2 for {n1} + {n2}: the df of two independent groups.',
@@ -25,7 +25,7 @@ export const designMatchesAnalysis: Rule = {
       const perGroup = result.context.sampleSizes.find((s) => s.scope === 'per-group')?.n.value;
       const [n1, n2] = link.groups.map((g) => g.n?.value ?? perGroup);
       const words = design.printed ?? (r.namedVariant ?? design.value);
-      const base = { span: r.span, reported: r.printed, resultId: r.id, block: r.block, ...(design.span ? { related: [{ span: design.span, message: 'the words that describe the design' }] } : {}) };
+            const base = { span: r.span, reported: r.printed, resultId: r.id, block: r.block, ...(design.span ? { related: [{ span: design.span, message: 'the words that describe the design' }] } : {}), ...descriptiveDoubts(result) };
       if (design.value === 'paired') {
         if (n1 !== undefined && n2 !== undefined && n1 === n2 && r.df.value === n1 + n2 - 2) {
           out.push({ ...base, messageId: 'paired-analysed-as-independent', message: fill(messages['paired-analysed-as-independent'], { reported: r.printed, words, df: r.df.printed, n1, n2 }), check: 'Check whether a paired test was run; with paired data it has n − 1 df and usually a larger t.' });

@@ -1,4 +1,4 @@
-import { dfInterval, fill, inferDesign, numberInterval, showInterval, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { dfInterval, fill, inferDesign, numberInterval, showInterval, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts } from '../src/rule-api/index.js';
 import { welchDfRange } from '../src/stats/index.js';
 
 const messages = {
@@ -29,7 +29,7 @@ export const dfFollowsFromN: Rule = {
       if (ns.some((n) => n === undefined)) continue;
       const df = r.df.value;
       const [dfLow, dfHigh] = dfInterval(r.df);
-      const base = { span: r.df.span, reported: r.printed, resultId: r.id, block: r.block };
+            const base = { span: r.df.span, reported: r.printed, resultId: r.id, block: r.block, ...descriptiveDoubts(result) };
       const design = inferDesign(result);
       if (ns.length === 1) {
         const n = ns[0] as number;

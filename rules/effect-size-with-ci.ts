@@ -13,9 +13,10 @@ export const effectSizeWithCi = checklistRule({
       const r = result.report;
       const c = result.context;
       const base = { scope: 'result' as const, resultId: r.id, block: r.block };
-      const effect = c.effectSizes[0] ?? c.estimate;
-      if (c.interval && (effect || c.descriptives)) return { ...base, status: 'found', span: c.interval.span, detail: `${effect ? `${effect.printed}, ` : ''}${c.interval.printed}` };
-      const missing = c.interval ? 'an effect size' : effect ? 'a confidence interval' : 'an effect size or a confidence interval';
+      const effect = (c.effectSizes[0] ?? c.estimate)?.item;
+      const interval = (c.interval ?? c.intervals[0])?.item;
+      if (interval && (effect || c.descriptives)) return { ...base, status: 'found', span: interval.span, detail: `${effect ? `${effect.printed}, ` : ''}${interval.printed}` };
+      const missing = interval ? 'an effect size' : effect ? 'a confidence interval' : 'an effect size or a confidence interval';
       return { ...base, status: 'missing', span: r.span, detail: `${r.printed} without ${missing}` };
     });
   },

@@ -5,6 +5,8 @@ const messages = {
     'Reported {reported}. It matches the one-tailed p from {inputs} ({oneTailed}), not the two-tailed p ({twoTailed}), and nothing in the text says the test was one-tailed.',
   'undeclared-one-tailed-opposite':
     'Reported {reported}. It matches the one-tailed p against the direction of t from {inputs} ({oneTailedOpposite}), as an equivalence or non-inferiority test reports it, not the two-tailed p ({twoTailed}), and nothing beside it says the test was one-tailed.',
+  'one-tailed-stated-elsewhere':
+    'Reported {reported}. It matches the one-tailed p from {inputs} ({oneTailed}), not the two-tailed p ({twoTailed}). The text speaks of a one-tailed analysis elsewhere ("{elsewhere}"), but not in the sentence or paragraph of this result, nor of every test, so plumbline could not tie the two.',
   'undeclared-one-tailed-changes-significance':
     'Reported {reported}. It matches the one-tailed p from {inputs} ({oneTailed}), not the two-tailed p ({twoTailed}), and nothing in the text says the test was one-tailed; two-tailed, the result would be {recomputedSide} at alpha {alpha}.',
 };
@@ -23,13 +25,15 @@ export const oneTailedPIsDeclared: Rule = {
     for (const result of document.results) {
       const e = evaluateP(result);
       if (!e || (e.standing !== 'one-tailed-only' && e.standing !== 'one-tailed-opposite-only')) continue;
+      const elsewhere = result.untiedSidedness;
       const id = e.standing === 'one-tailed-opposite-only'
         ? 'undeclared-one-tailed-opposite'
-        : e.decisionFlips ? 'undeclared-one-tailed-changes-significance' : 'undeclared-one-tailed';
+        : elsewhere ? 'one-tailed-stated-elsewhere' : e.decisionFlips ? 'undeclared-one-tailed-changes-significance' : 'undeclared-one-tailed';
       out.push({
         messageId: id,
         span: result.report.span,
-        message: fill(messages[id], pPlaceholders(result, e)),
+        message: fill(messages[id], { ...pPlaceholders(result, e), elsewhere: elsewhere?.printed ?? '' }),
+        ...(elsewhere ? { related: [{ span: elsewhere.span, message: 'the words about one-tailed tests' }] } : {}),
         reported: result.report.printed,
         recomputed: e.recomputed,
         gap: e.gap,

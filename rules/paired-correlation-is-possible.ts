@@ -1,4 +1,4 @@
-import { fill, inferDesign, numberInterval, showInterval, tInterval, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { fill, inferDesign, numberInterval, showInterval, tInterval, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts } from '../src/rule-api/index.js';
 import { pairedImpliedCorrelation, type Box } from '../src/stats/index.js';
 
 const messages = {
@@ -43,6 +43,7 @@ export const pairedCorrelationIsPossible: Rule = {
         check: 'Check the means, SDs, n and t against the output, and whether the SDs are of the measurements or of the differences.',
         resultId: r.id,
         block: r.block,
+        ...descriptiveDoubts(result),
       });
     }
     return out;

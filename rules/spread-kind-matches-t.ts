@@ -1,4 +1,4 @@
-import { describeAttempt, evaluateDescriptives, fill, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { describeAttempt, evaluateDescriptives, fill, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts } from '../src/rule-api/index.js';
 
 const messages = {
   'se-labelled-sd': 'Reported {reported} with spreads labelled SD ({inputs}). Read as SDs they give {labelled}; the reported t is reproduced only if they are standard errors: {against}.',
@@ -38,6 +38,7 @@ export const spreadKindMatchesT: Rule = {
         related: e.groups.map((g) => ({ span: g.spread?.kindSpan ?? g.span, message: 'the spread and its label' })),
         resultId: r.id,
         block: r.block,
+        ...descriptiveDoubts(result),
       });
     }
     return out;

@@ -1,4 +1,4 @@
-import { describeAttempt, dfInterval, evaluateDescriptives, fill, numberInterval, showInterval, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { describeAttempt, dfInterval, evaluateDescriptives, fill, numberInterval, showInterval, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts } from '../src/rule-api/index.js';
 import { pairedImpliedCorrelation } from '../src/stats/index.js';
 
 const messages = {
@@ -41,6 +41,7 @@ export const tFollowsFromDescriptives: Rule = {
             check: 'Check which test was run and name that one; the df should match it too.',
             resultId: r.id,
             block: r.block,
+            ...descriptiveDoubts(result),
           });
         }
         continue;
@@ -50,8 +51,18 @@ export const tFollowsFromDescriptives: Rule = {
       let pairedNote = '';
       if (e.groups.length === 2 && e.design === 'unknown' && r.df && Number.isInteger(r.df.value)) {
         const [g1, g2] = e.groups;
-        const rRange = pairedImpliedCorrelation(numberInterval(g1!.mean!), numberInterval(g1!.spread!.number), numberInterval(g2!.mean!), numberInterval(g2!.spread!.number), r.df.value + 1, [e.reportedAbsT.low, e.reportedAbsT.high]);
-        if (rRange.low <= 1 && rRange.high >= -1) continue;
+        const n = r.df.value + 1;
+        // Spreads labelled SE are SD/√n of each measurement; unstated ones may be either.
+        const sdReadings = e.kinds.every((k) => k === 'SD') ? [false] : e.kinds.every((k) => k === 'SE') ? [true] : [false, true];
+        const possible = sdReadings.some((asSE) => {
+          const sd = (g: typeof g1): [number, number] => {
+            const b = numberInterval(g!.spread!.number);
+            return asSE ? [b[0] * Math.sqrt(n), b[1] * Math.sqrt(n)] : b;
+          };
+          const rRange = pairedImpliedCorrelation(numberInterval(g1!.mean!), sd(g1), numberInterval(g2!.mean!), sd(g2), n, [e.reportedAbsT.low, e.reportedAbsT.high]);
+          return rRange.low <= 1 && rRange.high >= -1;
+        });
+        if (possible) continue;
         pairedNote = '; read as one group measured twice, the implied correlation would lie outside [−1, 1]';
       }
       out.push({
@@ -69,8 +80,10 @@ export const tFollowsFromDescriptives: Rule = {
         check: 'Check the means, SDs and group sizes against the analysis output, and whether the spread printed is an SD.',
         resultId: r.id,
         block: r.block,
+        ...descriptiveDoubts(result),
       });
     }
     return out;
   },
 };
+

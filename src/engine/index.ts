@@ -3,7 +3,7 @@ import { configProblems } from '../config/validate.js';
 import { extract } from '../extract/index.js';
 import type { ReportedNumber, Sidedness } from '../extract/types.js';
 import { link } from '../link/index.js';
-import type { DocumentSettings, ResultContext, Setting } from '../link/index.js';
+import type { DocumentSettings, Linked, ResultContext, Setting } from '../link/index.js';
 import { formatForPath, LineIndex, mayHoldStatistics, parseDocument } from '../parse/index.js';
 import type { ParsedDocument, ReadNote, Span } from '../parse/types.js';
 import { evaluateP } from '../rule-api/evaluate.js';
@@ -76,11 +76,15 @@ export function checkSource(path: string, source: string, options: CheckOptions 
     }
     for (const f of rule.check({ document: linked, options: rule.defaultOptions })) {
       if (f.block !== undefined && isQuieted(doc, f.block, rule.id)) continue;
-      const { block: _block, related, ...rest } = f;
+      const { block: _block, related, uncertain, ...rest } = f;
+      // Certainty before speech: a finding resting on a link that is not certain is a note
+      // saying what could not be checked, whatever the rule's level.
+      const unsure = uncertain !== undefined && uncertain.length > 0;
       findings.push({
         ...rest,
+        ...(unsure ? { message: `Not checked with certainty (${uncertain.join('; ')}). If these numbers belong together: ${rest.message}`, uncertain } : {}),
         ruleId: rule.id,
-        level: level as Level,
+        level: unsure ? 'note' : (level as Level),
         ...place(f.span),
         ...(related ? { related: related.map((r) => ({ ...place(r.span), message: r.message })) } : {}),
       });
@@ -102,7 +106,17 @@ export function checkSource(path: string, source: string, options: CheckOptions 
       t: { ...num(rep.t), op: rep.tOp },
       ...(rep.df ? { df: num(rep.df) } : {}),
       ...(rep.p
-        ? { p: { kind: rep.p.kind, op: rep.p.op, printed: rep.p.printed, ...place(rep.p.span), ...(rep.p.number ? { number: num(rep.p.number) } : {}) } }
+        ? {
+            p: {
+              kind: rep.p.kind,
+              op: rep.p.op,
+              printed: rep.p.printed,
+              ...place(rep.p.span),
+              ...(rep.p.number ? { number: num(rep.p.number) } : {}),
+              ...(rep.p.adjusted ? { adjusted: { method: rep.p.adjusted.method, printed: rep.p.adjusted.printed } } : {}),
+              ...(rep.p.stars ? { stars: { symbol: rep.p.stars.symbol, basis: rep.p.stars.basis } } : {}),
+            },
+          }
         : {}),
       sidedness: r.sidedness,
       alpha: r.alpha,
@@ -115,6 +129,7 @@ export function checkSource(path: string, source: string, options: CheckOptions 
 
 function contextRecord(c: ResultContext, place: (s: Span) => Place): ResultRecord['context'] {
   const item = (x: { span: Span; printed: string }) => ({ printed: x.printed, ...place(x.span) });
+  const linked = (x: Linked<{ span: Span; printed: string }>) => ({ ...item(x.item), basis: x.basis, certain: x.certain });
   const d = c.descriptives;
   return {
     design: c.design,
@@ -122,15 +137,17 @@ function contextRecord(c: ResultContext, place: (s: Span) => Place): ResultRecor
       ? {
           descriptives: {
             scope: d.scope,
+            certain: d.certain,
             groups: d.groups.map((g, i) => ({ ...item(g), ...(g.label ? { label: g.label } : {}), spreadKind: d.spreadKinds[i] ?? 'unstated' })),
           },
         }
       : {}),
     ...(c.unlinked ? { unlinked: c.unlinked.reason } : {}),
     ...(c.reference ? { reference: item(c.reference) } : {}),
-    ...(c.interval ? { interval: item(c.interval) } : {}),
-    ...(c.estimate ? { estimate: item(c.estimate) } : {}),
-    effectSizes: c.effectSizes.map(item),
+    ...(c.interval ? { interval: { ...linked(c.interval), of: c.interval.of } } : {}),
+    ...(c.intervals.length > 0 ? { intervals: c.intervals.map((i) => ({ ...linked(i), of: i.of })) } : {}),
+    ...(c.estimate ? { estimate: linked(c.estimate) } : {}),
+    effectSizes: c.effectSizes.map(linked),
   };
 }
 

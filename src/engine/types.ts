@@ -1,5 +1,5 @@
 import type { Comparison, ReportStyle, Sidedness } from '../extract/types.js';
-import type { Setting } from '../link/types.js';
+import type { IntervalTarget, LinkBasis, Setting } from '../link/types.js';
 import type { Position, SourceFormat, Span } from '../parse/types.js';
 import type { Gap, Guideline, Level, Recomputed } from '../rule-api/types.js';
 
@@ -17,6 +17,13 @@ export interface NumberRecord extends Place {
   exponent: number;
 }
 
+/** A number tied to a result, with how it was tied (`basis`) and whether that tie is certain. */
+export interface LinkedRecord extends Place {
+  printed: string;
+  basis: LinkBasis;
+  certain: boolean;
+}
+
 /** One extracted result as the output formats show it. */
 export interface ResultRecord extends Place {
   id: string;
@@ -26,7 +33,16 @@ export interface ResultRecord extends Place {
   plural: boolean;
   t: NumberRecord & { op: Comparison };
   df?: NumberRecord;
-  p?: (Place & { kind: 'value' | 'ns'; op: Comparison; printed: string; number?: NumberRecord });
+  p?: Place & {
+    kind: 'value' | 'ns';
+    op: Comparison;
+    printed: string;
+    number?: NumberRecord;
+    /** Said to be adjusted for multiple comparisons: not compared with the p of t and df. */
+    adjusted?: { method: string; printed: string };
+    /** Read from significance stars, with where their bound came from. */
+    stars?: { symbol: string; basis: 'legend' | 'lenient-convention' };
+  };
   sidedness: Setting<Sidedness>;
   alpha: Setting<number>;
   /** The descriptives and context joined to this result, so a reader sees which numbers were used. */
@@ -34,14 +50,19 @@ export interface ResultRecord extends Place {
     design: Setting<string>;
     descriptives?: {
       scope: 'sentence' | 'paragraph' | 'table';
+      /** Whether the tie is certain enough to warn on (no other statistic shares its sentence or paragraph). */
+      certain: boolean;
       groups: Array<Place & { printed: string; label?: string; spreadKind: string }>;
     };
     /** Why descriptives nearby were not joined (never a silent guess). */
     unlinked?: string;
     reference?: Place & { printed: string };
-    interval?: Place & { printed: string };
-    estimate?: Place & { printed: string };
-    effectSizes: Array<Place & { printed: string }>;
+    /** The interval of the test's estimate. */
+    interval?: LinkedRecord & { of: IntervalTarget };
+    /** Every interval tied to the result, with what it is the interval of. */
+    intervals?: Array<LinkedRecord & { of: IntervalTarget }>;
+    estimate?: LinkedRecord;
+    effectSizes: LinkedRecord[];
   };
   /** Recomputed p ranges for this result, when t, df and p allow it. */
   recomputed?: {
@@ -62,6 +83,8 @@ export interface Finding extends Place {
   check: string;
   related?: Array<Place & { message: string }>;
   resultId?: string;
+  /** Why the finding is only a note: the links it rests on that are not certain. */
+  uncertain?: string[];
 }
 
 /** One checklist item for a file: the guideline items it follows and its entries. */

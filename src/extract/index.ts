@@ -1,4 +1,5 @@
 import type { ParsedDocument } from '../parse/types.js';
+import { decimalConvention, withDecimalPoints } from './decimals.js';
 import { sentenceStarts } from './numbers.js';
 import { findStatements } from './statements.js';
 
@@ -9,6 +10,8 @@ import { findPowerStatements } from './power.js';
 import { findSummaries } from './summaries.js';
 import { findTableSummaries, findTableTests } from './tables.js';
 import { findPWithoutT } from './pWithoutT.js';
+import { findOtherStatistics } from './statistics.js';
+import { applyStarLegends, findStarLegends, type StarLegend } from './stars.js';
 import { findTTests } from './tTests.js';
 import type { Extraction } from './types.js';
 
@@ -17,8 +20,14 @@ export { sentenceStarts } from './numbers.js';
 
 /** Every reported t-test, context statement and t-less p of a parsed document, in reading order. */
 export function extract(doc: ParsedDocument): Extraction {
+  // Numbers are read once, under the document's decimal convention: every recogniser below
+  // sees decimal points only.
+  const convention = decimalConvention(doc.segments);
+  const segments = doc.segments.map((s) => withDecimalPoints(s, convention));
   const out: Extraction = {
+    decimalConvention: convention,
     tests: [],
+    otherStatistics: [],
     statements: [],
     pWithoutT: [],
     summaries: [],
@@ -32,14 +41,18 @@ export function extract(doc: ParsedDocument): Extraction {
     counts: [],
     powerStatements: [],
     mentions: [],
-    sections: doc.segments.map((s) => s.section),
+    sections: segments.map((s) => s.section),
     tables: [],
   };
-  for (const seg of doc.segments) {
+  const legends: StarLegend[] = [];
+  for (const seg of segments) {
+    const legend = seg.kind === 'code' ? undefined : findStarLegends(seg);
+    if (legend) legends.push(legend);
     const starts = sentenceStarts(seg.text);
     const tests = findTTests(seg, starts);
     append(out.tests, tests);
     if (seg.kind !== 'code') {
+      append(out.otherStatistics, withoutOverlap(findOtherStatistics(seg, starts), tests));
       append(out.statements, findStatements(seg, starts));
       const found = findSummaries(seg, starts);
       append(out.summaries, found.summaries);
@@ -56,19 +69,37 @@ export function extract(doc: ParsedDocument): Extraction {
       if (MAY_NAME_T_TEST.test(seg.text)) append(out.pWithoutT, findPWithoutT(seg, starts, tests));
     }
   }
-  for (const seg of doc.segments) {
+  for (const seg of segments) {
     if (!seg.table) continue;
     const t = out.tables.find((x) => x.table === seg.table?.table);
     if (t) t.lastBlock = Math.max(t.lastBlock, seg.block);
     else out.tables.push({ table: seg.table.table, firstBlock: seg.block, lastBlock: seg.block });
   }
-  const tableSummaries = findTableSummaries(doc.segments);
+  const tableSummaries = findTableSummaries(segments);
   const tableMeans = new Set(tableSummaries.map((t) => t.mean?.span.start));
   out.summaries = out.summaries.filter((s) => !tableMeans.has(s.mean?.span.start)).concat(tableSummaries);
   out.summaries.sort((a, b) => a.span.start - b.span.start);
   const seen = new Set(out.tests.map((t) => t.span.start));
-  for (const t of findTableTests(doc.segments)) if (!seen.has(t.span.start)) out.tests.push(t);
+  for (const t of findTableTests(segments)) if (!seen.has(t.span.start)) out.tests.push(t);
   out.tests.sort((a, b) => a.span.start - b.span.start);
+  applyStarLegends(out.tests, legends);
+  return out;
+}
+
+/**
+ * Records that do not overlap any of `taken` (a t-test's own numbers are not another
+ * statistic). Both lists are in reading order and `taken` does not overlap itself, so one
+ * pointer walks `taken` once: linear in both.
+ */
+function withoutOverlap<T extends { span: { start: number; end: number } }>(items: T[], taken: readonly { span: { start: number; end: number } }[]): T[] {
+  if (taken.length === 0) return items;
+  const out: T[] = [];
+  let j = 0;
+  for (const it of items) {
+    while (j < taken.length && (taken[j] as { span: { end: number } }).span.end <= it.span.start) j += 1;
+    const t = taken[j];
+    if (!t || t.span.start >= it.span.end) out.push(it);
+  }
   return out;
 }
 

@@ -15,6 +15,20 @@ const ALPHA_AS_P = new RegExp(
 
 const SPREAD_STATEMENT = /(?<![\p{L}])(?:mean|M)s? ?(?:±|\+\/-|plus or minus) ?(SD|SEM|SE|s\.d\.|s\.e\.m\.|s\.e\.|standard deviations?|standard errors?)(?![\p{L}])/giu;
 
+/**
+ * Words about a statistical analysis next to a tails word: "one-sided" counts only beside
+ * them ("one-sided tests", "p (one-tailed)", "a one-tailed hypothesis"), never in other prose
+ * ("a one-sided report of the debate").
+ */
+const ANALYSIS_WORD = /(?<![\p{L}])(?:tests?|t-tests?|testing|tested|p|P|p[- ]values?|hypothes\p{L}{0,4}|significan\p{L}{0,5}|alpha|α|comparisons?|contrasts?|analys[ie]s|probabilit\p{L}{0,3}|critical|rejection|null|alternative|predictions?|predicted|criterion|threshold|level)(?![\p{L}])/u;
+/**
+ * A statement about every test of the document, not one of them: plural or universal words
+ * ("All tests were two-tailed", "p values are two-sided", "Significance was set at α = .05").
+ */
+const GENERAL_WORDS = /(?<![\p{L}])(?:all|every|each|throughout|unless|tests|t-tests|p[- ]values|analyses|comparisons|hypotheses|contrasts|statistical significance|significance (?:was|is|level|threshold|criterion)|level of significance|alpha (?:level|was|of|=)|α ?(?:=|was|of|level))(?![\p{L}])/iu;
+/** Words that make an alpha local to some tests: a corrected or adjusted alpha. */
+const LOCAL_ALPHA = /(?<![\p{L}])(?:corrected|adjusted|Bonferroni|Holm|Šidák|Sidak|per comparison|for (?:this|these|each|the (?:primary|secondary))|family-?wise)(?![\p{L}])/iu;
+
 /** Statements about tails, equivalence testing, alpha and what ± stands for, in one segment. */
 export function findStatements(seg: Segment, sentenceStarts: number[]): ContextStatement[] {
   const out: ContextStatement[] = [];
@@ -26,10 +40,13 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     sentence: sentenceOf(sentenceStarts, a),
     printed: text.slice(a, b),
   });
+  const sentenceText = (at: number) => text.slice(sentenceStarts[sentenceOf(sentenceStarts, at)] as number, sentenceStarts[sentenceOf(sentenceStarts, at) + 1] ?? text.length);
   if (/tail|sided|directional/i.test(text)) for (const m of text.matchAll(SIDED)) {
     const word = (m[1] ?? m[3] ?? '').toLowerCase();
     const one = word === 'one' || word === '1' || word === 'single' || word === 'directional';
-    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', ...base(m.index, m.index + m[0].length) });
+    const near = text.slice(Math.max(0, m.index - 40), Math.min(text.length, m.index + m[0].length + 30));
+    if (!ANALYSIS_WORD.test(near)) continue;
+    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: GENERAL_WORDS.test(sentenceText(m.index)), ...base(m.index, m.index + m[0].length) });
   }
   if (/equivalen|TOST|one-sided|inferiority/i.test(text)) for (const m of text.matchAll(EQUIVALENCE)) {
     out.push({ kind: 'equivalence', sidedness: 'one', ...base(m.index, m.index + m[0].length) });
@@ -41,7 +58,8 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
   if (/α|alpha|significan|level/i.test(text)) for (const re of [ALPHA, ALPHA_AS_P]) {
     for (const m of text.matchAll(re)) {
       const value = Number(m[1] ?? m[2]);
-      if (value > 0 && value < 0.5) out.push({ kind: 'alpha', alpha: value, ...base(m.index, m.index + m[0].length) });
+      const sentence = sentenceText(m.index);
+      if (value > 0 && value < 0.5) out.push({ kind: 'alpha', alpha: value, general: GENERAL_WORDS.test(sentence) && !LOCAL_ALPHA.test(sentence), ...base(m.index, m.index + m[0].length) });
     }
   }
   return out;

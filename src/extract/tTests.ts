@@ -1,6 +1,7 @@
 import type { Segment } from '../parse/types.js';
 import { readNumber, sentenceOf, sourceSpan } from './numbers.js';
-import type { Comparison, ReportedNumber, ReportedP, ReportStyle, Sidedness, TTestReport } from './types.js';
+import { decimalsOf, starBound } from './stars.js';
+import type { AdjustMethod, Comparison, ReportedNumber, ReportedP, ReportStyle, Sidedness, TTestReport } from './types.js';
 
 // Building blocks. Every quantifier is bounded or over a character class disjoint from what
 // follows it, so no pattern can backtrack super-linearly (checked by test/regex-safety).
@@ -9,9 +10,9 @@ const T_NUM = String.raw`([-+]? ?(?:\d{1,9}(?:\.\d{1,20})?|\.\d{1,20}))`;
 const DF_NUM = String.raw`(\d{1,3}(?:,\d{3}){1,3}(?:\.\d{1,12})?|\d{1,9}(?:\.\d{1,12})?)`;
 const NOT_AFTER_WORD = String.raw`(?<![\p{L}\p{N}_'’.\-])`;
 
-/** t(28) = 2.10 · ts(22) > 4.72 · t[28] · t_{28} · t_28 · t( 3.187) */
+/** t(28) = 2.10 · ts(22) > 4.72 · t[28] · t_{28} · t_28 · t( 3.187) · t-test (31) = 0.75 · t(df = 31) = 0.75 */
 const BRACKETED = new RegExp(
-  String.raw`${NOT_AFTER_WORD}(ts?|T)(?: ?_?\( ?| ?_?\[ ?|_\{ ?|_)${DF_NUM} ?[)\]}]? ?${OP} ?${T_NUM}`,
+  String.raw`${NOT_AFTER_WORD}(ts?|T)(?:[- ]?(?:tests?|values?|statistics?))?(?: ?_?\( ?| ?_?\[ ?|_\{ ?|_)(?:df ?= ?)?${DF_NUM} ?[)\]}]? ?${OP} ?${T_NUM}`,
   'dgu',
 );
 /** t28 = 2.10: a subscript df flattened by PDF copying. */
@@ -26,17 +27,28 @@ const DF_LABEL = new RegExp(String.raw`(?<![\p{L}])(?:df|d\.f\.|degrees of freed
 /** (28 df) · 28 degrees of freedom */
 const DF_AFTER = new RegExp(String.raw`(?<![\p{L}\p{N}.,])\(?${DF_NUM}\)? (?:df|d\.f\.|degrees of freedom)(?![\p{L}])`, 'dgiu');
 
-const P_NUM = String.raw`(\d{1,12}(?:\.\d{1,20})?|\.\d{1,20})(?: ?(?:[eE] ?([-+]?\d{1,3})|[×xX*·] ?10 ?\^? ?([-+]?\d{1,3})))?`;
-/** p = .045 · P<0.05 · p-value = 0.02 · ps ≤ .0001 · p = < .001 · p (two-tailed) = .03 · p value is (0.04) */
+/**
+ * A p's number: a decimal with an optional exponent (`3.2e-6`, `3.2 × 10^-6`), or a bare power
+ * of ten (`10^-6`, and `10-6` where a PDF lost the superscript: `p < 10` is never meant).
+ */
+const P_NUM = String.raw`(?:10 ?(?:\^ ?|(?=-\d))(?<power>-\d{1,3})|(?<mantissa>\d{1,12}(?:\.\d{1,20})?|\.\d{1,20})(?: ?(?:[eE] ?(?<eExp>[-+]?\d{1,3})|[×xX*·] ?10 ?\^? ?(?<tenExp>[-+]?\d{1,3})))?)`;
+/** A subscript or label after the p: `p_adj`, `p_{Holm}`, `p(2-t)`, `p (one-tailed)`. */
+const P_LABEL = String.raw`(?:_\{?(?<sub>[\p{L}-]{1,20})\}?| ?\((?<paren>(?:one|two|1|2)[- ]?(?:tailed|sided|t)|adj\.?|corr\.?|adjusted|corrected)\))?`;
+/** p = .045 · P<0.05 · p-value = 0.02 · ps ≤ .0001 · p = < .001 · p (two-tailed) = .03 · p value is (0.04) · p_adj = .04 */
 const P_VALUE = new RegExp(
-  String.raw`(?<![\p{L}\p{N}_])(p|P|ps|Ps)(?:[- ]?values?)?(?: ?\((?:one|two|1|2)[- ](?:tailed|sided)\))?(?:_\{?[\p{L}-]{1,20}\}?)? ?(?:(is|of|was) )?(=?<|=?>|<=|>=|≤|≥|=|:|≈|~)? ?(<|>|≤|≥)? ?\(? ?${P_NUM}`,
+  String.raw`(?<![\p{L}\p{N}_])(?<symbol>p|P|ps|Ps)(?:[- ]?values?)?${P_LABEL} ?(?:(?<word>is|of|was) )?(?<first>=?<|=?>|<=|>=|≤|≥|=|:|≈|~)? ?(?<second><|>|≤|≥)? ?\(? ?${P_NUM}`,
   'dgu',
 );
+/** Words before a p that say it was adjusted for multiplicity: `Bonferroni-corrected p`, `adjusted p`. */
+const ADJUSTED_BEFORE = /(?<![\p{L}])(Bonferroni|Holm|Hochberg|Šidák|Sidak|Tukey|FDR|BH|Benjamini[- ]Hochberg|multiplicity)?[- ]?(adjusted|corrected)[- ]$/iu;
+/** Words after a p that say so: `(Bonferroni-corrected)`, `, Holm-adjusted`, `after Bonferroni correction`. */
+const ADJUSTED_AFTER = /^[ ,;]{0,2}\(?(?:(Bonferroni|Holm|Hochberg|Šidák|Sidak|Tukey|FDR|BH|Benjamini[- ]Hochberg)[- ]?(?:adjusted|corrected|correction)?|adjusted|corrected|after (?:(Bonferroni|Holm|Šidák|Sidak|FDR)[- ]?)?(?:correction|adjustment))(?![\p{L}])/iu;
+const ADJUSTED_SUBSCRIPT = /^(?:adj|adjusted|corr|corrected|bonf|bonferroni|holm|fdr|bh|tukey|sidak|šidák|hochberg)$/iu;
 const NS = /^[ ,;]{0,3}\(?(n\. ?s\.?|ns|NS|n\.s)(?![\p{L}])/u;
 const SIDED_NEAR = /(one|two|1|2)[- ]?(tailed|sided)/iu;
 /** Another statistic's symbol: a p after it belongs to it, not to the t before. */
 const OTHER_STATISTIC = /(?<![\p{L}\p{N}_])(?:F ?\(|χ|chi|r ?\(|r ?=|z ?=|Z ?=|W ?=|U ?=|H ?\(|OR ?=|t ?\(|t ?=)/u;
-const VARIANT_BEFORE = /(welch|student|paired|one[- ]sample|independent)[\p{L}\s'’-]{0,30}$/iu;
+const VARIANT_BEFORE = /(welch|student|paired|related|dependent|repeated[- ]measures|within[- ]subjects?|one[- ]sample|independent|unpaired)[\p{L}\s'’-]{0,30}$/iu;
 
 interface Anchor {
   start: number;
@@ -109,7 +121,7 @@ function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceSta
     // "with 23 degrees of freedom, … the t value is 8.02": a df stated earlier in the sentence
     else df = findDf(seg, sentenceStarts[sentenceOf(sentenceStarts, anchor.start)] as number, anchor.start, true);
   }
-  const p = findP(seg, anchor.end, windowEnd);
+  const p = findP(seg, anchor.end, windowEnd) ?? starsAfter(seg, anchor.end);
   if (p) end = Math.max(end, indexOfSpanEnd(seg, p));
   // A labelled t needs a df or a p beside it to be a reported result; an uppercase T
   // (also Wilcoxon's statistic) needs a df; an attached df ("t14") needs a p.
@@ -135,6 +147,9 @@ function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceSta
     t: anchor.t,
     ...(df ? { df } : {}),
     ...(p ? { p } : {}),
+    ...(p?.statedSidedness && !sided
+      ? { statedSidedness: { value: p.statedSidedness, span: p.span } }
+      : {}),
     ...(sided
       ? {
           statedSidedness: {
@@ -148,12 +163,28 @@ function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceSta
   return report;
 }
 
+/** Significance stars right after t (`5.63***`), read as a p bound; see `starBound`. */
+const STARS = /^\)?(\*{1,4}|†)(?![*\p{L}\p{N}])/u;
+
+function starsAfter(seg: Segment, at: number): ReportedP | undefined {
+  const m = STARS.exec(seg.text.slice(at, at + 6));
+  if (!m) return undefined;
+  const symbol = m[1] as string;
+  const a = at + m[0].length - symbol.length;
+  const b = at + m[0].length;
+  const bound = starBound(symbol);
+  if (bound === undefined) return undefined;
+  const span = sourceSpan(seg, a, b);
+  const number: ReportedNumber = { printed: symbol, value: bound, decimals: decimalsOf(bound), exponent: 0, span };
+  return { kind: 'value', op: '<', number, span, printed: symbol, stars: { count: symbol === '†' ? 0 : symbol.length, symbol, basis: 'lenient-convention' } };
+}
+
 function variantName(word: string): TTestReport['namedVariant'] {
   const w = word.toLowerCase();
   if (w === 'welch') return 'welch';
   if (w === 'student') return 'student';
-  if (w === 'paired') return 'paired';
-  if (w === 'independent') return 'independent';
+  if (w === 'paired' || w === 'related' || w === 'dependent' || w.startsWith('repeated') || w.startsWith('within')) return 'paired';
+  if (w === 'independent' || w === 'unpaired') return 'independent';
   return 'one-sample';
 }
 
@@ -180,21 +211,70 @@ export function findP(seg: Segment, from: number, to: number): ReportedP | undef
   }
   P_VALUE.lastIndex = 0;
   for (let m = P_VALUE.exec(slice); m; m = P_VALUE.exec(slice)) {
-    const word = m[2];
-    const first = m[3];
-    const second = m[4];
-    if (!first && !second && !word) continue; // "p 0.05" without a comparison is not a report
-    const op = pComparison(first ?? '=', second);
-    const numStart = from + idx(m, 5);
-    const mantissaEnd = numStart + (m[5] as string).length;
-    const exponent = Number(m[6] ?? m[7] ?? 0);
+    const g = m.groups ?? {};
+    const at = m.indices?.groups ?? {};
+    if (!g.first && !g.second && !g.word) continue; // "p 0.05" without a comparison is not a report
+    const op = pComparison(g.first ?? '=', g.second);
     const numEnd = from + m.index + m[0].length;
-    const number = readNumber(seg, numStart, numEnd, exponent, mantissaEnd);
+    let number: ReportedNumber | undefined;
+    if (g.power !== undefined) {
+      // a bare power of ten: the whole `10^-6` is the printed number
+      const exponentAt = from + (at.power as [number, number])[0];
+      number = readPower(seg, seg.text.lastIndexOf('10', exponentAt), numEnd, Number(g.power));
+    } else {
+      const numStart = from + (at.mantissa as [number, number])[0];
+      const exponent = Number(g.eExp ?? g.tenExp ?? 0);
+      number = readNumber(seg, numStart, numEnd, exponent, numStart + (g.mantissa as string).length);
+    }
     if (!number) continue;
     const a = from + m.index;
-    return { kind: 'value', op, number, span: sourceSpan(seg, a, numEnd), printed: seg.text.slice(a, numEnd) };
+    const p: ReportedP = { kind: 'value', op, number, span: sourceSpan(seg, a, numEnd), printed: seg.text.slice(a, numEnd) };
+    const adjusted = adjustment(seg, a, numEnd, g.sub ?? g.paren);
+    if (adjusted) p.adjusted = adjusted;
+    const label = g.paren ?? g.sub;
+    if (label) {
+      const sided = SIDED_LABEL.exec(label);
+      if (sided) p.statedSidedness = /^(one|1)$/i.test(sided[1] as string) ? 'one' : 'two';
+    }
+    return p;
   }
   return undefined;
+}
+
+const SIDED_LABEL = /^(one|two|1|2)[- ]?(?:tailed|sided|t)$/iu;
+
+/** `10^-6` read as 1 × 10^-6 (no decimals: the bound is exact). */
+function readPower(seg: Segment, a: number, b: number, exponent: number): ReportedNumber | undefined {
+  const value = Number(`1e${exponent}`);
+  if (!Number.isFinite(value) || a < 0 || a >= b) return undefined;
+  return { printed: seg.text.slice(a, b), value, decimals: 0, exponent, span: sourceSpan(seg, a, b) };
+}
+
+/** The multiplicity adjustment said with a p, before it, in its label or right after it. */
+function adjustment(seg: Segment, a: number, b: number, label: string | undefined): ReportedP['adjusted'] {
+  if (label && ADJUSTED_SUBSCRIPT.test(label)) return { method: adjustMethod(label), span: sourceSpan(seg, a, b), printed: seg.text.slice(a, b) };
+  const before = ADJUSTED_BEFORE.exec(seg.text.slice(Math.max(0, a - 40), a));
+  if (before) {
+    const start = a - before[0].length;
+    return { method: adjustMethod(before[1] ?? ''), span: sourceSpan(seg, start, b), printed: seg.text.slice(start, b) };
+  }
+  const after = ADJUSTED_AFTER.exec(seg.text.slice(b, b + 50));
+  if (after) {
+    const end = b + after[0].length;
+    return { method: adjustMethod(after[1] ?? after[2] ?? ''), span: sourceSpan(seg, a, end), printed: seg.text.slice(a, end) };
+  }
+  return undefined;
+}
+
+function adjustMethod(word: string): AdjustMethod {
+  const w = word.toLowerCase();
+  if (w.startsWith('bonf')) return 'bonferroni';
+  if (w === 'holm') return 'holm';
+  if (w === 'hochberg') return 'hochberg';
+  if (w === 'sidak' || w === 'šidák') return 'sidak';
+  if (w === 'tukey') return 'tukey';
+  if (w === 'fdr' || w === 'bh' || w.startsWith('benjamini')) return 'fdr';
+  return 'unspecified';
 }
 
 function pComparison(first: string, second: string | undefined): Comparison {

@@ -14,6 +14,8 @@ export interface ReportedNumber {
 
 export type Comparison = '=' | '<' | '<=' | '>' | '>=' | '~';
 
+export type AdjustMethod = 'bonferroni' | 'holm' | 'hochberg' | 'sidak' | 'tukey' | 'fdr' | 'unspecified';
+
 export interface ReportedP {
   /** `value`: p with a comparison and a number; `ns`: "n.s." with no number. */
   kind: 'value' | 'ns';
@@ -22,6 +24,12 @@ export interface ReportedP {
   /** From the p symbol to the end of its number. */
   span: Span;
   printed: string;
+  /** The p is said to be adjusted for multiple comparisons (`p_adj`, `Bonferroni-corrected p`). */
+  adjusted?: { method: AdjustMethod; span: Span; printed: string };
+  /** Tails written in the p's own label: `p(2-t)`, `p (one-tailed)`. */
+  statedSidedness?: Sidedness;
+  /** Read from significance stars (`5.63***`), with the bound they stand for and where that came from. */
+  stars?: { count: number; symbol: string; basis: 'legend' | 'lenient-convention'; legend?: Span };
 }
 
 export type Sidedness = 'one' | 'two';
@@ -33,6 +41,8 @@ export interface ContextStatement {
   alpha?: number;
   /** For `spread`: what "mean ± x" stands for ("values are mean ± SEM"). */
   spread?: 'SD' | 'SE';
+  /** For `sidedness` and `alpha`: said of every test ("All tests were two-tailed"), not of one. */
+  general?: boolean;
   span: Span;
   segment: number;
   block: number;
@@ -83,8 +93,26 @@ export interface PWithoutT {
   mentionPrinted: string;
 }
 
+export type OtherStatisticKind = 'F' | 'chi-square' | 'correlation' | 'r-squared' | 'z' | 'beta' | 'eta-squared' | 'ratio' | 'rank-or-other';
+
+/** The statistic of a test other than t (F, χ², r, z, β, η², an odds ratio, U, W, H): it ends a t-test's clause. */
+export interface OtherStatistic {
+  kind: OtherStatisticKind;
+  segment: number;
+  block: number;
+  sentence: number;
+  /** From the symbol to the end of its value. */
+  span: Span;
+  printed: string;
+  value?: ReportedNumber;
+}
+
 export interface Extraction {
+  /** How the document writes its decimal mark (numbers below are read under it). */
+  decimalConvention: 'point' | 'comma';
   tests: TTestReport[];
+  /** Statistics of other tests, which end a t-test's clause. */
+  otherStatistics: OtherStatistic[];
   statements: ContextStatement[];
   pWithoutT: PWithoutT[];
   summaries: GroupSummary[];

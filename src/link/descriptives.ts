@@ -11,9 +11,34 @@ import type {
   TTestReport,
 } from '../extract/types.js';
 import type { Span } from '../parse/types.js';
+import { clauseIndex, type Clause, type ClauseIndex, type Placed } from './clauses.js';
 import type { Setting } from './types.js';
 
 export type Design = 'paired' | 'independent' | 'one-sample' | 'unknown';
+
+/**
+ * How a number was tied to its result, most certain first: inside the result's clause; in its
+ * sentence, which reports no other statistic; in its paragraph, which reports no other
+ * statistic; in the result's table row; in a table beside the result.
+ */
+export type LinkBasis = 'clause' | 'sentence' | 'paragraph' | 'table-row' | 'table';
+
+/** A number tied to a result, with how, and whether that tie is certain enough to warn on. */
+export interface Linked<T> {
+  item: T;
+  basis: LinkBasis;
+  /** False where another reading of the text would tie it elsewhere: a rule then only notes. */
+  certain: boolean;
+}
+
+/** What a confidence interval is the interval of. */
+export type IntervalTarget = 'estimate' | 'effect-size' | 'group';
+
+export interface IntervalLink extends Linked<IntervalReport> {
+  of: IntervalTarget;
+  /** The effect size it follows, when it is an effect size's interval. */
+  effectSize?: EffectSizeReport;
+}
 
 /** The descriptives a result can be recomputed from, and how they were joined to it. */
 export interface DescriptiveLink {
@@ -24,6 +49,8 @@ export interface DescriptiveLink {
   spreadKinds: SpreadKind[];
   /** Where a spread kind came from when the group itself did not say. */
   spreadKindSource?: { span: Span; printed: string };
+  /** False when another statistic shares the sentence or paragraph, or the table is only beside the result. */
+  certain: boolean;
 }
 
 export interface ResultContext {
@@ -32,130 +59,238 @@ export interface ResultContext {
   unlinked?: { reason: string; span: Span };
   design: Setting<Design>;
   reference?: ReferenceValue;
-  interval?: IntervalReport;
-  estimate?: EstimateReport;
-  effectSizes: EffectSizeReport[];
+  /** The interval of the test's estimate (a mean difference, a coefficient). */
+  interval?: IntervalLink;
+  /** Every interval tied to the result: the estimate's, an effect size's, a group's. */
+  intervals: IntervalLink[];
+  /** The estimate the test is about: printed right before its statistic or in its clause. */
+  estimate?: Linked<EstimateReport>;
+  effectSizes: Array<Linked<EffectSizeReport>>;
   /** Sample sizes stated in the result's sentence or paragraph, or for the document. */
   sampleSizes: SampleSize[];
 }
 
-const sameSentence = (a: { segment: number; sentence: number }, b: { segment: number; sentence: number }) => a.segment === b.segment && a.sentence === b.sentence;
-
-/** Records grouped by the segment they were found in: every join looks only at its own segment. */
-function bySegment<T extends { segment: number }>(items: T[]): Map<number, T[]> {
-  const m = new Map<number, T[]>();
-  for (const it of items) {
-    const list = m.get(it.segment);
-    if (list) list.push(it);
-    else m.set(it.segment, [it]);
+/** Records of one segment in reading order, with lookups by position and by sentence. */
+class SegmentList<T extends Placed> {
+  private readonly bySegment = new Map<number, T[]>();
+  constructor(items: readonly T[]) {
+    for (const it of items) {
+      const list = this.bySegment.get(it.segment);
+      if (list) list.push(it);
+      else this.bySegment.set(it.segment, [it]);
+    }
+    for (const list of this.bySegment.values()) list.sort((a, b) => a.span.start - b.span.start);
   }
-  return m;
+  all(segment: number): T[] {
+    return this.bySegment.get(segment) ?? [];
+  }
+  /** Items starting in [from, to) (to undefined: to the end of the segment). */
+  between(segment: number, from: number, to?: number): T[] {
+    const list = this.all(segment);
+    const out: T[] = [];
+    for (let i = lowerBound(list, from); i < list.length; i += 1) {
+      const it = list[i] as T;
+      if (to !== undefined && it.span.start >= to) break;
+      out.push(it);
+    }
+    return out;
+  }
+  /** Items of one sentence (sentence numbers grow with position in a segment). */
+  inSentence(segment: number, sentence: number): T[] {
+    const list = this.all(segment);
+    let lo = 0;
+    let hi = list.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if ((list[mid] as T).sentence < sentence) lo = mid + 1;
+      else hi = mid;
+    }
+    const out: T[] = [];
+    for (let i = lo; i < list.length && (list[i] as T).sentence === sentence; i += 1) out.push(list[i] as T);
+    return out;
+  }
+  /** The last item ending at or before `pos` in the sentence, if any. */
+  lastBefore(segment: number, sentence: number, pos: number): T | undefined {
+    const list = this.all(segment);
+    let best: T | undefined;
+    for (let i = lowerBound(list, pos) - 1; i >= 0; i -= 1) {
+      const it = list[i] as T;
+      if (it.sentence !== sentence) break;
+      if (it.span.end <= pos) {
+        best = it;
+        break;
+      }
+    }
+    return best;
+  }
+}
+
+function lowerBound<T extends Placed>(list: T[], pos: number): number {
+  let lo = 0;
+  let hi = list.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if ((list[mid] as T).span.start < pos) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
 }
 
 /**
- * Builds the joiner for one document (indexes built once, so a document of any size is joined
- * in linear time). The joiner links each test to the descriptives it can be recomputed from:
- * those in its sentence; else, when it is the only test of its paragraph, those in the
- * paragraph; else, when it sits right after or before a table of groups, that table. More than
- * two groups in scope, or groups a second test could claim as well, is ambiguous: nothing is
- * joined and the reason is kept, so the rules can say so.
+ * Builds the joiner for one document (indexes built once, every lookup a binary search, so a
+ * document of any size is joined in linear time). Each number goes to the result whose clause
+ * holds it; a number outside every clause goes to the only statistic of its sentence, or, less
+ * certainly, of its paragraph. Descriptives go to the only test of their sentence or paragraph,
+ * or to a table of groups beside a lone test; anything else is ambiguous and kept as a reason.
  */
 export function contextJoiner(x: Extraction): (report: TTestReport) => ResultContext {
-  const tests = bySegment(x.tests);
-  const overlapsTest = (g: GroupSummary) => (tests.get(g.segment) ?? []).some((t) => g.span.start < t.span.end && t.span.start < g.span.end);
-  const prose = bySegment(x.summaries.filter((g) => !g.table && !overlapsTest(g)));
+  const clauses = clauseIndex(x);
+  const tests = new SegmentList(x.tests);
+  // a group overlapping a test is read inside it (a test printed within its descriptives)
+  const overlapsTest = (g: GroupSummary) => {
+    const list = tests.all(g.segment);
+    const i = lowerBound(list, g.span.end) - 1;
+    const t = list[i];
+    return t !== undefined && t.span.end > g.span.start;
+  };
+  const prose = new SegmentList(x.summaries.filter((g) => !g.table && !overlapsTest(g)));
   const tableRows = new Map<number, GroupSummary[]>();
   for (const g of x.summaries) if (g.table) tableRows.set(g.table.table, [...(tableRows.get(g.table.table) ?? []), g]);
   const testsByBlock = new Map<number, TTestReport[]>();
   for (const t of x.tests) testsByBlock.set(t.block, [...(testsByBlock.get(t.block) ?? []), t]);
-  const references = bySegment(x.references);
-  const intervals = bySegment(x.intervals);
-  const estimates = bySegment(x.estimates);
-  const effectSizes = bySegment(x.effectSizes);
-  const sampleSizes = bySegment(x.sampleSizes);
-  const designs = bySegment(x.designs);
+  const lists: Lists = {
+    references: new SegmentList(x.references),
+    intervals: new SegmentList(x.intervals),
+    estimates: new SegmentList(x.estimates),
+    effectSizes: new SegmentList(x.effectSizes),
+    sampleSizes: new SegmentList(x.sampleSizes),
+    designs: new SegmentList(x.designs),
+    prose,
+    tests,
+  };
   const spreadStatements = x.statements.filter((s) => s.kind === 'spread');
-  return (report) => contextFor(report, {
-    tests: tests.get(report.segment) ?? [],
-    prose: prose.get(report.segment) ?? [],
-    tableRows,
-    testsByBlock,
-    tables: x.tables,
-    references: references.get(report.segment) ?? [],
-    intervals: intervals.get(report.segment) ?? [],
-    estimates: estimates.get(report.segment) ?? [],
-    effectSizes: effectSizes.get(report.segment) ?? [],
-    sampleSizes: sampleSizes.get(report.segment) ?? [],
-    designs: designs.get(report.segment) ?? [],
-    spreadStatements,
-  });
+  return (report) => contextFor(report, clauses, lists, { tableRows, testsByBlock, tables: x.tables, spreadStatements });
 }
 
-interface Near {
-  /** Tests, prose descriptives and context of the report's own segment. */
-  tests: TTestReport[];
-  prose: GroupSummary[];
+interface Lists {
+  references: SegmentList<ReferenceValue>;
+  intervals: SegmentList<IntervalReport>;
+  estimates: SegmentList<EstimateReport>;
+  effectSizes: SegmentList<EffectSizeReport>;
+  sampleSizes: SegmentList<SampleSize>;
+  designs: SegmentList<DesignStatement>;
+  prose: SegmentList<GroupSummary>;
+  tests: SegmentList<TTestReport>;
+}
+
+interface Tables {
   tableRows: Map<number, GroupSummary[]>;
   testsByBlock: Map<number, TTestReport[]>;
   tables: Extraction['tables'];
-  references: ReferenceValue[];
-  intervals: IntervalReport[];
-  estimates: EstimateReport[];
-  effectSizes: EffectSizeReport[];
-  sampleSizes: SampleSize[];
-  designs: DesignStatement[];
   spreadStatements: Extraction['statements'];
 }
 
-function contextFor(report: TTestReport, n: Near): ResultContext {
-  const testsInBlock = n.tests.filter((t) => t.block === report.block);
-  let link: DescriptiveLink | undefined;
-  let unlinked: ResultContext['unlinked'];
-
-  const inSentence = n.prose.filter((g) => sameSentence(g, report));
-  const testsInSentence = testsInBlock.filter((t) => t.sentence === report.sentence);
-  if (inSentence.length > 0) {
-    if (inSentence.length <= 2 && testsInSentence.length === 1) link = makeLink('sentence', inSentence, n.spreadStatements);
-    else unlinked = { reason: `${inSentence.length} sets of descriptives and ${testsInSentence.length} tests in one sentence`, span: report.span };
-  } else {
-    const inParagraph = n.prose.filter((g) => !n.tests.some((t) => sameSentence(t, g)));
-    if (inParagraph.length > 0) {
-      if (inParagraph.length <= 2 && testsInBlock.length === 1) link = makeLink('paragraph', inParagraph, n.spreadStatements);
-      else unlinked = { reason: `${inParagraph.length} sets of descriptives and ${testsInBlock.length} tests in one paragraph`, span: report.span };
-    } else {
-      const table = n.tables.find((t) => report.block === t.lastBlock + 1 || report.block === t.firstBlock - 1);
-      const rows = table ? (n.tableRows.get(table.table) ?? []) : [];
-      const claimants = table ? [...(n.testsByBlock.get(table.lastBlock + 1) ?? []), ...(n.testsByBlock.get(table.firstBlock - 1) ?? [])] : [];
-      if (rows.length > 0) {
-        if (rows.length <= 2 && claimants.length === 1) link = makeLink('table', rows, n.spreadStatements);
-        else unlinked = { reason: `a table of ${rows.length} groups beside ${claimants.length} tests`, span: report.span };
-      }
-    }
+/**
+ * The numbers of one kind tied to a result: those in its clause; else, those before every
+ * statistic of its sentence when it is the sentence's only statistic; else, those in sentences
+ * of its paragraph that hold no statistic when it is the paragraph's only one (not certain: a
+ * later sentence may be about something else).
+ */
+function owned<T extends Placed>(report: TTestReport, clause: Clause, clauses: ClauseIndex, list: SegmentList<T>): Array<Linked<T>> {
+  const inClause = list.between(report.segment, clause.start, clause.end).filter((i) => i.sentence === report.sentence);
+  if (inClause.length > 0) return inClause.map((item) => ({ item, basis: 'clause', certain: true }));
+  if (clauses.statisticsInSentence(report.segment, report.sentence) === 1) {
+    const before = list.inSentence(report.segment, report.sentence).filter((i) => clauses.ownerOf(i) === undefined);
+    if (before.length > 0) return before.map((item) => ({ item, basis: 'sentence', certain: true }));
   }
+  if (clauses.statisticsInSegment(report.segment) === 1) {
+    const elsewhere = list.all(report.segment).filter((i) => i.sentence !== report.sentence && clauses.ownerOf(i) === undefined);
+    return elsewhere.map((item) => ({ item, basis: 'paragraph', certain: false }));
+  }
+  return [];
+}
 
-  const near = <T extends { segment: number; sentence: number }>(items: T[]) => items.filter((i) => sameSentence(i, report));
-  const reference = near(n.references)[0] ?? (testsInBlock.length === 1 ? n.references[0] : undefined);
-  // A CI printed right after a group's mean and SD is that group's CI, not the test's.
-  const isGroupInterval = (i: IntervalReport) =>
-    n.prose.some((g) => g.span.end <= i.span.start && i.span.start - g.span.end < 40 && !n.tests.some((t) => t.span.start >= g.span.end && t.span.end <= i.span.start));
-  const candidates = near(n.intervals).filter((i) => !isGroupInterval(i));
-  const interval = candidates.find((i) => i.span.start >= report.span.start) ?? candidates[0];
-  const estimate = near(n.estimates)[0];
-  const effectSizes = near(n.effectSizes);
-  const sampleSizes = [...near(n.sampleSizes), ...n.sampleSizes.filter((s) => !sameSentence(s, report))];
+const PARAGRAPH_SIZES = 16;
+
+function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tables): ResultContext {
+  const clause = clauses.clauseOf(report);
+  const { link, unlinked } = descriptivesFor(report, clauses, n, t);
+
+  const effectSizes = owned(report, clause, clauses, n.effectSizes);
+  const intervals = owned(report, clause, clauses, n.intervals).map((ci) => intervalTarget(ci, report, clause, n));
+  const interval = intervals.find((i) => i.of === 'estimate');
+  const leading = clause.leadingEstimate;
+  const estimate: Linked<EstimateReport> | undefined = leading ? { item: leading, basis: 'clause', certain: true } : owned(report, clause, clauses, n.estimates)[0];
+  const sentenceReferences = n.references.inSentence(report.segment, report.sentence);
+  const reference = sentenceReferences[0] ?? (clauses.testsInSegment(report.segment) === 1 ? n.references.all(report.segment)[0] : undefined);
+  // The sentence's own first; then the paragraph's first few (rules take the first that fits,
+  // and a bounded list keeps a paragraph of thousands of results linear).
+  const sampleSizes = [...n.sampleSizes.inSentence(report.segment, report.sentence), ...n.sampleSizes.all(report.segment).slice(0, PARAGRAPH_SIZES)];
   return {
     ...(link ? { descriptives: link } : {}),
     ...(unlinked ? { unlinked } : {}),
-    design: designFor(report, n.designs, link),
+    design: designFor(report, clause, n.designs, link),
     ...(reference ? { reference } : {}),
     ...(interval ? { interval } : {}),
+    intervals,
     ...(estimate ? { estimate } : {}),
     effectSizes,
     sampleSizes,
   };
 }
 
-function makeLink(scope: DescriptiveLink['scope'], groups: GroupSummary[], documentKinds: Extraction['statements']): DescriptiveLink {
+/**
+ * What an interval is the interval of: the nearest thing printed before it in its sentence.
+ * After an effect size (`d = 0.39, 95% CI [0.10, 0.68]`) it is the effect size's; right after
+ * a group's mean and SD it is the group's; otherwise (after the statistic, its p or an
+ * estimate) it is the interval of the test's estimate.
+ */
+function intervalTarget(ci: Linked<IntervalReport>, report: TTestReport, clause: Clause, n: Lists): IntervalLink {
+  const at = ci.item.span.start;
+  const candidates: Array<{ end: number; of: IntervalTarget; effectSize?: EffectSizeReport }> = [];
+  const es = n.effectSizes.lastBefore(ci.item.segment, ci.item.sentence, at);
+  if (es) candidates.push({ end: es.span.end, of: 'effect-size', effectSize: es });
+  const group = n.prose.lastBefore(ci.item.segment, ci.item.sentence, at);
+  if (group && at - group.span.end < 40) candidates.push({ end: group.span.end, of: 'group' });
+  const est = n.estimates.lastBefore(ci.item.segment, ci.item.sentence, at);
+  if (est) candidates.push({ end: est.span.end, of: 'estimate' });
+  const test = n.tests.lastBefore(ci.item.segment, ci.item.sentence, at);
+  if (test) candidates.push({ end: test.span.end, of: 'estimate' });
+  if (clause.leadingEstimate && clause.leadingEstimate.span.end <= at) candidates.push({ end: clause.leadingEstimate.span.end, of: 'estimate' });
+  candidates.sort((a, b) => b.end - a.end);
+  const nearest = candidates[0];
+  // Nothing before it in the sentence: an interval opening the sentence of a lone test is the test's.
+  if (!nearest) return { ...ci, of: report.span.start >= at ? 'estimate' : 'estimate' };
+  return { ...ci, of: nearest.of, ...(nearest.effectSize ? { effectSize: nearest.effectSize } : {}) };
+}
+
+function descriptivesFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tables): { link?: DescriptiveLink; unlinked?: ResultContext['unlinked'] } {
+  const testsInSentence = n.tests.inSentence(report.segment, report.sentence).filter((x) => x.block === report.block);
+  const inSentence = n.prose.inSentence(report.segment, report.sentence);
+  const aloneInSentence = clauses.statisticsInSentence(report.segment, report.sentence) === 1;
+  if (inSentence.length > 0) {
+    if (inSentence.length <= 2 && testsInSentence.length === 1) return { link: makeLink('sentence', inSentence, t.spreadStatements, aloneInSentence) };
+    return { unlinked: { reason: `${inSentence.length} sets of descriptives and ${testsInSentence.length} tests in one sentence`, span: report.span } };
+  }
+  const paragraphGroups = n.prose.all(report.segment);
+  // Only a paragraph with a single test can take descriptives from its other sentences.
+  const inParagraph = paragraphGroups.length > 0 && paragraphGroups.length <= 8 ? paragraphGroups.filter((g) => n.tests.inSentence(g.segment, g.sentence).length === 0) : paragraphGroups;
+  if (inParagraph.length > 0) {
+    const testsInBlock = clauses.testsInSegment(report.segment);
+    if (inParagraph.length <= 2 && testsInBlock === 1) return { link: makeLink('paragraph', inParagraph, t.spreadStatements, clauses.statisticsInSegment(report.segment) === 1) };
+    return { unlinked: { reason: `${inParagraph.length} sets of descriptives and ${testsInBlock} tests in one paragraph`, span: report.span } };
+  }
+  const table = t.tables.find((x) => report.block === x.lastBlock + 1 || report.block === x.firstBlock - 1);
+  const rows = table ? (t.tableRows.get(table.table) ?? []) : [];
+  const claimants = table ? [...(t.testsByBlock.get(table.lastBlock + 1) ?? []), ...(t.testsByBlock.get(table.firstBlock - 1) ?? [])] : [];
+  if (rows.length > 0) {
+    if (rows.length <= 2 && claimants.length === 1) return { link: makeLink('table', rows, t.spreadStatements, false) };
+    return { unlinked: { reason: `a table of ${rows.length} groups beside ${claimants.length} tests`, span: report.span } };
+  }
+  return {};
+}
+
+function makeLink(scope: DescriptiveLink['scope'], groups: GroupSummary[], documentKinds: Extraction['statements'], certain: boolean): DescriptiveLink {
   const kinds: SpreadKind[] = [];
   let source: DescriptiveLink['spreadKindSource'];
   for (const g of groups) {
@@ -171,15 +306,15 @@ function makeLink(scope: DescriptiveLink['scope'], groups: GroupSummary[], docum
     }
     kinds.push(kind);
   }
-  return { scope, groups, spreadKinds: kinds, ...(source ? { spreadKindSource: source } : {}) };
+  return { scope, groups, spreadKinds: kinds, ...(source ? { spreadKindSource: source } : {}), certain };
 }
 
 /**
  * The design, from the most specific evidence: the test named with the statistic ("paired
- * t(22)", "Welch's t"), design words in the sentence, then in the paragraph (when
- * they agree), then structure (one group is one-sample or differences).
+ * t(22)", "Welch's t"), design words in its clause, in its sentence, then in its paragraph
+ * (when they agree), then structure (one group is one-sample or differences).
  */
-function designFor(report: TTestReport, segmentDesigns: DesignStatement[], link: DescriptiveLink | undefined): Setting<Design> {
+function designFor(report: TTestReport, clause: Clause, designs: SegmentList<DesignStatement>, link: DescriptiveLink | undefined): Setting<Design> {
   const named = report.namedVariant;
   if (named === 'paired') return { value: 'paired', basis: 'in-report' };
   if (named === 'welch' || named === 'student' || named === 'independent') return { value: 'independent', basis: 'in-report' };
@@ -189,9 +324,11 @@ function designFor(report: TTestReport, segmentDesigns: DesignStatement[], link:
     if (!first || !ds.every((d) => d.design === first.design)) return undefined;
     return { value: first.design, basis, span: first.span, printed: first.printed };
   };
-  const sentence = pick(segmentDesigns.filter((d) => sameSentence(d, report)), 'sentence');
+  const inClause = pick(designs.between(report.segment, clause.start, clause.end).filter((d) => d.sentence === report.sentence), 'sentence');
+  if (inClause) return inClause;
+  const sentence = pick(designs.inSentence(report.segment, report.sentence), 'sentence');
   if (sentence) return sentence;
-  const paragraph = pick(segmentDesigns, 'paragraph');
+  const paragraph = pick(designs.all(report.segment), 'paragraph');
   if (paragraph) return paragraph;
   // Design words elsewhere in the document are not used: a manuscript often reports paired and
   // independent comparisons side by side.

@@ -3,39 +3,87 @@ import type { Directive } from '../parse/types.js';
 import type { DocumentSettings, LinkedDocument, LinkedResult, Setting } from './types.js';
 
 export type * from './types.js';
-export type { DescriptiveLink, Design, ResultContext } from './descriptives.js';
+export type { DescriptiveLink, Design, IntervalLink, IntervalTarget, LinkBasis, Linked, ResultContext } from './descriptives.js';
 import { contextJoiner } from './descriptives.js';
 
 /** Default alpha when nothing sets one: .05 (common practice, no source). */
 export const DEFAULT_ALPHA = 0.05;
 
 /**
- * Gives every reported t-test its tails and alpha, from the most specific place that says
- * so: the report itself (`p = .03, one-tailed`), its sentence, an equivalence test named in
- * its sentence or the one before, a document-wide statement (a sentence about tails or alpha
- * that reports no test), front matter, configuration, and last the default (two-tailed,
- * alpha .05). Directives are passed
- * through for the engine, which applies them.
+ * Gives every reported t-test its tails and alpha, from the most specific place that says so
+ * about the analysis: the report itself (`p = .03, one-tailed`), its sentence (the nearest
+ * test takes the words), an equivalence test named in its sentence or the one before (either
+ * reading then fits), a sentence of its paragraph that reports no test, a statement about
+ * every test of the document ("All tests were two-tailed"), front matter, configuration, and
+ * last the default (two-tailed, alpha .05). A statement about one test elsewhere in the
+ * document cannot be tied to a result and is not used (it is kept as `untied` so a note can
+ * say the text mentions it). Directives are passed through for the engine, which applies them.
  */
 export function link(extraction: Extraction, directives: Directive[], settings: DocumentSettings = {}): LinkedDocument {
-  const sentencesWithTests = new Set(extraction.tests.map((t) => key(t.segment, t.sentence)));
-  const documentLevel = extraction.statements.filter((s) => !sentencesWithTests.has(key(s.segment, s.sentence)));
-  const documentSidedness = agreeing(documentLevel.filter((s) => s.kind === 'sidedness'), (s) => s.sidedness as Sidedness)
+  // Said of every test, in a sentence that reports none (one that reports a test speaks of it).
+  const sentencesWithTests = new Set(extraction.tests.map((t) => `${t.segment}:${t.sentence}`));
+  const general = extraction.statements.filter((s) => s.general === true && !sentencesWithTests.has(`${s.segment}:${s.sentence}`));
+  const documentSidedness = agreeing(general.filter((s) => s.kind === 'sidedness'), (s) => s.sidedness as Sidedness, 'document-text')
     ?? settings.sidedness ?? { value: 'two' as Sidedness, basis: 'default' as const };
-  const documentAlpha = agreeing(documentLevel.filter((s) => s.kind === 'alpha'), (s) => s.alpha as number)
+  const documentAlpha = agreeing(general.filter((s) => s.kind === 'alpha'), (s) => s.alpha as number, 'document-text')
     ?? settings.alpha ?? { value: DEFAULT_ALPHA, basis: 'default' as const };
 
   const join = contextJoiner(extraction);
   const statementsBySegment = new Map<number, ContextStatement[]>();
-  for (const s of extraction.statements) statementsBySegment.set(s.segment, [...(statementsBySegment.get(s.segment) ?? []), s]);
+  for (const s of extraction.statements) {
+    const list = statementsBySegment.get(s.segment);
+    if (list) list.push(s);
+    else statementsBySegment.set(s.segment, [s]);
+  }
   const testsBySegment = new Map<number, TTestReport[]>();
-  for (const t of extraction.tests) testsBySegment.set(t.segment, [...(testsBySegment.get(t.segment) ?? []), t]);
-  const results: LinkedResult[] = extraction.tests.map((report) => ({
-    report,
-    sidedness: sidednessFor(report, statementsBySegment.get(report.segment) ?? [], testsBySegment.get(report.segment) ?? [], documentSidedness),
-    alpha: alphaFor(report, statementsBySegment.get(report.segment) ?? [], documentAlpha),
-    context: join(report),
-  }));
+  for (const t of extraction.tests) {
+    const list = testsBySegment.get(t.segment);
+    if (list) list.push(t);
+    else testsBySegment.set(t.segment, [t]);
+  }
+  // The statements of each paragraph's sentences that report no test (computed once per segment).
+  const paragraphStatements = new Map<number, ContextStatement[]>();
+  const paragraphOf = (segment: number): ContextStatement[] => {
+    let list = paragraphStatements.get(segment);
+    if (!list) {
+      const withTests = new Set((testsBySegment.get(segment) ?? []).map((t) => t.sentence));
+      list = (statementsBySegment.get(segment) ?? []).filter((s) => !withTests.has(s.sentence));
+      paragraphStatements.set(segment, list);
+    }
+    return list;
+  };
+  const bySentence = new Map<string, ContextStatement[]>();
+  for (const st of extraction.statements) {
+    const k = `${st.segment}:${st.sentence}`;
+    const list = bySentence.get(k);
+    if (list) list.push(st);
+    else bySentence.set(k, [st]);
+  }
+  const testsBySentence = new Map<string, TTestReport[]>();
+  for (const t of extraction.tests) {
+    const k = `${t.segment}:${t.sentence}`;
+    const list = testsBySentence.get(k);
+    if (list) list.push(t);
+    else testsBySentence.set(k, [t]);
+  }
+  const generalSet = new Set(general);
+  // One-tailed words in a sentence without a test, said of no particular result: where they
+  // cannot be tied to a result, a note says so rather than "nothing says one-tailed".
+  const untied = extraction.statements.filter((s) => s.kind === 'sidedness' && !generalSet.has(s) && !sentencesWithTests.has(`${s.segment}:${s.sentence}`));
+  const results: LinkedResult[] = extraction.tests.map((report) => {
+    const k = `${report.segment}:${report.sentence}`;
+    const sentence = bySentence.get(k) ?? [];
+    const previous = bySentence.get(`${report.segment}:${report.sentence - 1}`) ?? [];
+    const sidedness = sidednessFor(report, sentence, previous, paragraphOf(report.segment), testsBySentence.get(k) ?? [], documentSidedness);
+    const elsewhere = sidedness.basis === 'default' ? untied.find((s) => s.sidedness === 'one' && s.segment !== report.segment) : undefined;
+    return {
+      report,
+      sidedness,
+      alpha: alphaFor(sentence, paragraphOf(report.segment), documentAlpha),
+      context: join(report),
+      ...(elsewhere ? { untiedSidedness: elsewhere } : {}),
+    };
+  });
   return {
     results,
     pWithoutT: extraction.pWithoutT,
@@ -50,35 +98,29 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   };
 }
 
-function key(segment: number, sentence: number): string {
-  return `${segment}:${sentence}`;
-}
-
-/** One value all statements agree on, as a document-text setting; undefined if none or mixed. */
-function agreeing<T>(statements: ContextStatement[], value: (s: ContextStatement) => T): Setting<T> | undefined {
+/** One value all statements agree on, as a setting with this basis; undefined if none or mixed. */
+function agreeing<T>(statements: ContextStatement[], value: (s: ContextStatement) => T, basis: Setting<T>['basis']): Setting<T> | undefined {
   const first = statements[0];
   if (!first) return undefined;
   if (!statements.every((s) => value(s) === value(first))) return undefined;
-  return { value: value(first), basis: 'document-text', span: first.span, printed: first.printed };
+  return { value: value(first), basis, span: first.span, printed: first.printed };
 }
 
-function sidednessFor(report: TTestReport, statements: ContextStatement[], tests: TTestReport[], fallback: Setting<Sidedness>): Setting<Sidedness> {
+function sidednessFor(report: TTestReport, sentence: ContextStatement[], previous: ContextStatement[], paragraph: ContextStatement[], peers: TTestReport[], fallback: Setting<Sidedness>): Setting<Sidedness> {
   if (report.statedSidedness) {
     return { value: report.statedSidedness.value, basis: 'in-report', span: report.statedSidedness.span };
   }
-  const sameSentence = statements.filter((s) => s.segment === report.segment && s.sentence === report.sentence);
   // With several tests in one sentence, a tails word belongs to the test nearest to it.
-  const sided = nearest(sameSentence.filter((s) => s.kind === 'sidedness'), report, tests);
+  const sided = nearest(sentence.filter((s) => s.kind === 'sidedness'), report, peers);
   if (sided) return { value: sided.sidedness as Sidedness, basis: 'sentence', span: sided.span, printed: sided.printed };
-  const equivalence = statements.find(
-    (s) => s.kind === 'equivalence' && s.segment === report.segment && (s.sentence === report.sentence || s.sentence === report.sentence - 1),
-  );
+  const equivalence = [...sentence, ...previous].find((s) => s.kind === 'equivalence');
   if (equivalence) return { value: 'one', basis: 'equivalence-test', span: equivalence.span, printed: equivalence.printed };
+  const inParagraph = agreeing(paragraph.filter((s) => s.kind === 'sidedness'), (s) => s.sidedness as Sidedness, 'paragraph');
+  if (inParagraph) return inParagraph;
   return fallback;
 }
 
-function nearest(candidates: ContextStatement[], report: TTestReport, tests: TTestReport[]): ContextStatement | undefined {
-  const peers = tests.filter((t) => t.segment === report.segment && t.sentence === report.sentence);
+function nearest(candidates: ContextStatement[], report: TTestReport, peers: TTestReport[]): ContextStatement | undefined {
   return candidates.find((s) => {
     const mine = distance(s, report);
     return peers.every((other) => other === report || distance(s, other) >= mine);
@@ -91,8 +133,10 @@ function distance(s: ContextStatement, t: TTestReport): number {
   return 0;
 }
 
-function alphaFor(report: TTestReport, statements: ContextStatement[], fallback: Setting<number>): Setting<number> {
-  const inSentence = statements.find((s) => s.kind === 'alpha' && s.segment === report.segment && s.sentence === report.sentence);
+function alphaFor(sentence: ContextStatement[], paragraph: ContextStatement[], fallback: Setting<number>): Setting<number> {
+  const inSentence = sentence.find((s) => s.kind === 'alpha');
   if (inSentence) return { value: inSentence.alpha as number, basis: 'sentence', span: inSentence.span, printed: inSentence.printed };
+  const inParagraph = agreeing(paragraph.filter((s) => s.kind === 'alpha'), (s) => s.alpha as number, 'paragraph');
+  if (inParagraph) return inParagraph;
   return fallback;
 }

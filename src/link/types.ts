@@ -1,6 +1,7 @@
 import type { ContextStatement, Extraction, PWithoutT, Sidedness, TTestReport } from '../extract/types.js';
 import type { Directive, ReadNote, Span } from '../parse/types.js';
 import type { ResultContext } from './descriptives.js';
+export type { IntervalTarget, LinkBasis, Linked } from './descriptives.js';
 
 /** Where a setting that applies to a result came from, most specific first. */
 export type SettingBasis = 'in-report' | 'sentence' | 'paragraph' | 'equivalence-test' | 'document-text' | 'structure' | 'front-matter' | 'configuration' | 'default';
@@ -20,6 +21,8 @@ export interface LinkedResult {
   alpha: Setting<number>;
   /** Descriptives, design, CI, effect sizes and sample sizes that belong with the result. */
   context: ResultContext;
+  /** A one-tailed statement elsewhere in the text that could not be tied to this result. */
+  untiedSidedness?: ContextStatement;
 }
 
 export interface DocumentSettings {

@@ -50,7 +50,8 @@ export function describeTails(result: LinkedResult): string {
 /** Evaluate a result's p against t and df; undefined when there is nothing to check. */
 export function evaluateP(result: LinkedResult): PEvaluation | undefined {
   const r = result.report;
-  if (!r.p || !r.df) return undefined;
+  // an adjusted p is not the p of t and df (adjusted-p-follows checks it where it can)
+  if (!r.p || !r.df || r.p.adjusted) return undefined;
   if (r.p.kind === 'value' && r.p.number && (r.p.number.value > 1 || (r.p.number.value <= 0 && (r.p.op === '<' || r.p.op === '<=')))) return undefined;
   const [dfLow, dfHigh] = dfInterval(r.df);
   if (!(dfLow > 0)) return undefined;
@@ -60,7 +61,11 @@ export function evaluateP(result: LinkedResult): PEvaluation | undefined {
   const check = checkPAgainstT({ tLow, tHigh, dfLow, dfHigh, reported });
   const explicit = result.sidedness.basis !== 'default';
   let standing: PStanding;
-  if (result.sidedness.value === 'two') {
+  if (result.sidedness.basis === 'equivalence-test') {
+    // An equivalence test named nearby makes a one-tailed p likely, not certain: the same
+    // paragraph often reports the ordinary two-tailed test too. Either reading fits.
+    standing = check.fitsTwoSided || check.fitsOneSidedSame || check.fitsOneSidedOpposite ? 'consistent' : 'mismatch';
+  } else if (result.sidedness.value === 'two') {
     // Where nothing declares one tail, the opposite tail (near 1) is considered only for an
     // exactly printed p: as a bound it would "fit" every n.s. and every p > x.
     // An exactly printed p that equals 1 − half is still a one-tailed p (the other direction).

@@ -7,3 +7,4 @@ export { pMessageId, pPlaceholders } from './pMessages.js';
 export { describeAttempt, evaluateDescriptives, inferDesign, type Attempt, type DescriptiveEvaluation, type Reading, type Variant } from './descriptives.js';
 export { checklistRule, type ChecklistRuleSpec } from './checklist.js';
 export { documentAnchor } from './docs.js';
+export { descriptiveDoubts, linkDoubts } from './doubts.js';

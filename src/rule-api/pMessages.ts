@@ -10,7 +10,7 @@ export function pPlaceholders(result: LinkedResult, e: PEvaluation): Record<stri
     ? `${showNumber(e.gap.absolute)} (${e.gap.lastDigitUnits.toFixed(1)} units of the last printed digit; rounding allows 0.5)`
     : showNumber(e.gap.absolute);
   return {
-    reported: r.style === 'table-columns' && r.p?.number ? `p ${r.p.op} ${r.p.number.printed}` : (r.p?.printed ?? '').trim(),
+    reported: reportedP(r),
     inputs: e.recomputed.inputs.join(', '),
     quantity: e.applicableName,
     range: showRange(e.applicable),
@@ -35,4 +35,15 @@ export function pMessageId(e: PEvaluation): 'mismatch' | 'one-tailed-although-tw
     default:
       return undefined;
   }
+}
+
+/** The reported p as a reader should see it: stars with the bound they were read as. */
+function reportedP(r: LinkedResult['report']): string {
+  const p = r.p;
+  if (!p) return '';
+  if (p.stars && p.number) {
+    const why = p.stars.basis === 'legend' ? 'as the legend defines it' : 'the most lenient common reading; no legend says otherwise';
+    return `${r.printed} (${p.stars.symbol} read as p < ${p.number.value}, ${why})`;
+  }
+  return r.style === 'table-columns' && p.number ? `p ${p.op} ${p.number.printed}` : p.printed.trim();
 }

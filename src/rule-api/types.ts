@@ -43,6 +43,12 @@ export interface RuleFinding {
   resultId?: string;
   /** The block the finding sits in, for `plumbline quiet` directives. */
   block?: number;
+  /**
+   * Why a link the finding rests on is not certain (a number tied to the result only by its
+   * paragraph, a design the text does not state). A finding with reasons here is said as a
+   * note of what could not be checked, never as a warning or error.
+   */
+  uncertain?: string[];
 }
 
 export interface RuleContext<Options> {

@@ -44,3 +44,25 @@ export function hedgesCorrection(df: number): number {
   if (!(df > 1)) return NaN;
   return Math.exp(gammaln(df / 2) - 0.5 * Math.log(df / 2) - gammaln((df - 1) / 2));
 }
+
+/**
+ * d_rm for a paired design: d_z · √(2(1 − r)) (Morris & DeShon 2002; Lakens 2013, eq. 9),
+ * where r, the correlation between the two measurements, is the one the means, SDs, n and t
+ * imply: SD_diff = |M1 − M2|·√n / |t| and r = (SD1² + SD2² − SD_diff²) / (2·SD1·SD2), kept
+ * within [−1, 1]. Evaluated on a 3-point grid over each rounding box (the boxes are a few
+ * last-digit units wide); NaN when t is 0 or an SD is 0.
+ */
+export function dRepeatedMeasures(m1: Box, sd1: Box, m2: Box, sd2: Box, n: number, absT: Box): Interval {
+  const points = (b: Box) => [b[0], (b[0] + b[1]) / 2, b[1]];
+  let low = Infinity;
+  let high = -Infinity;
+  for (const a of points(m1)) for (const b of points(m2)) for (const s1 of points(sd1)) for (const s2 of points(sd2)) for (const t of points(absT)) {
+    if (!(t > 0) || !(s1 > 0) || !(s2 > 0)) continue;
+    const sdDiff = (Math.abs(a - b) * Math.sqrt(n)) / t;
+    const r = Math.max(-1, Math.min(1, (s1 * s1 + s2 * s2 - sdDiff * sdDiff) / (2 * s1 * s2)));
+    const d = (t / Math.sqrt(n)) * Math.sqrt(2 * (1 - r));
+    if (d < low) low = d;
+    if (d > high) high = d;
+  }
+  return low <= high ? { low, high } : { low: NaN, high: NaN };
+}

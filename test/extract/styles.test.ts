@@ -43,6 +43,18 @@ const cases: Case[] = [
   { name: 'R console', markdown: '```\nt = -2.2251, df = 81.333, p-value = 0.02885\n```', t: -2.2251, df: 81.333, pOp: '=', p: 0.02885 },
   { name: 'square-bracket df', markdown: 'x, t[28] = 2.10, p = .045.', t: 2.1, df: 28, pOp: '=', p: 0.045 },
   { name: 'LaTeX subscript df', markdown: 'x, $t_{28} = 2.10$, $p = .045$.', t: 2.1, df: 28, pOp: '=', p: 0.045 },
+  { name: 'decimal commas with a semicolon separator', markdown: 'x, t(54) = −1,41; p = 0,16.', t: -1.41, df: 54, pOp: '=', p: 0.16, pDecimals: 2 },
+  { name: 'decimal comma after a lone zero, three digits', markdown: 'x, t(54) = 2,012; p = 0,049.', t: 2.012, df: 54, pOp: '=', p: 0.049, pDecimals: 3 },
+  { name: 'bare power of ten as a bound (caret)', markdown: 'x, t(40) = 6.10, P < 10^-6.', t: 6.1, df: 40, pOp: '<', p: 1e-6 },
+  { name: 'bare power of ten as a bound (HTML superscript)', markdown: 'x, t(40) = 6.10, p<10<sup>−5</sup>.', t: 6.1, df: 40, pOp: '<', p: 1e-5 },
+  { name: 'bare power of ten as a bound (LaTeX)', markdown: 'x, $t(40) = 6.10, p < 10^{-6}$.', t: 6.1, df: 40, pOp: '<', p: 1e-6 },
+  { name: 'bare power of ten as a bound (Unicode superscript)', markdown: 'x, t(40) = 6.10, p < 10⁻⁶.', t: 6.1, df: 40, pOp: '<', p: 1e-6 },
+  { name: 'power of ten whose superscript a PDF flattened', markdown: 'x, t(40) = 6.10, p < 10−6.', t: 6.1, df: 40, pOp: '<', p: 1e-6 },
+  { name: 'written-out label with the df in brackets and p(2-t)', markdown: 'x (Related t-test (31) = 0.75, p(2-t) = 0.46).', t: 0.75, df: 31, pOp: '=', p: 0.46, tails: 'two' },
+  { name: 'df named inside the bracket', markdown: 'x, t(df = 31) = 0.75, p = .46.', t: 0.75, df: 31, pOp: '=', p: 0.46 },
+  { name: 'p labelled one-tailed in brackets', markdown: 'x, t(30) = 1.80, p (one-tailed) = .041.', t: 1.8, df: 30, pOp: '=', p: 0.041, tails: 'one' },
+  { name: 'three stars without a legend: the most lenient common reading (< .01)', markdown: 'x, t(13) = 5.63***.', t: 5.63, df: 13, pOp: '<', p: 0.01 },
+  { name: 'stars with a legend', markdown: 'x, t(13) = 5.63***.\n\n*p < .05. **p < .01. ***p < .001.', t: 5.63, df: 13, pOp: '<', p: 0.001 },
 ];
 
 function only(markdown: string): { r: ResultRecord; source: string } {
@@ -68,9 +80,9 @@ describe('report styles', () => {
     if (c.tails) expect(r.sidedness.value).toBe(c.tails);
     // Every span's characters are the statistic: the number spans hold the printed digits.
     const slice = (s: { span: { start: number; end: number } }) => source.slice(s.span.start, s.span.end);
-    expect(slice(r.t).replace('−', '-').replace('·', '.')).toBe(r.t.printed);
+    expect(slice(r.t).replace('−', '-').replace('·', '.').replace(',', '.')).toBe(r.t.printed);
     if (r.df) expect(slice(r.df)).toBe(r.df.printed);
-    if (r.p?.number && r.p.number.exponent === 0) expect(slice(r.p.number).replace('·', '.')).toBe(r.p.number.printed);
+    if (r.p?.number && r.p.number.exponent === 0 && !r.p.stars) expect(slice(r.p.number).replace('·', '.').replace(',', '.')).toBe(r.p.number.printed);
     expect(slice(r).length).toBeGreaterThan(0);
     expect(source.slice(r.span.start, r.span.start + 1)).toMatch(/^[tT]/);
   });
@@ -89,8 +101,25 @@ describe('prose that is not a result (no false extractions)', () => {
     'Compute t(x) = 2 for the boundary condition.',
     'The drug reduced pain (F(1, 28) = 4.10, p = .052).',
     'Correlation was moderate, r(28) = .41, p = .024.',
+    'Groups 1,2 and 3 were pooled; see sections 2,3.',
   ];
   it.each(prose)('%s', (text) => {
     expect(checkSource('x.md', `${text}\n`).results).toEqual([]);
+  });
+});
+
+describe('adjusted p values are recognised and labelled, not compared with t', () => {
+  const adjusted: Array<{ name: string; markdown: string; method: string }> = [
+    { name: 'Bonferroni-corrected in brackets after the p', markdown: 'x, t(40) = 2.10, p = .135 (Bonferroni-corrected).', method: 'bonferroni' },
+    { name: 'p_adj subscript', markdown: 'x, t(40) = 2.80, p_adj = .045.', method: 'unspecified' },
+    { name: 'Holm-adjusted before the p', markdown: 'x, t(40) = 1.20, Holm-adjusted p = .90.', method: 'holm' },
+    { name: 'FDR-corrected after the p', markdown: 'x, t(40) = 2.10, p = .09, FDR-corrected.', method: 'fdr' },
+  ];
+  it.each(adjusted)('$name', ({ markdown, method }) => {
+    const report = checkSource('x.md', `${markdown}\n`);
+    expect(report.results).toHaveLength(1);
+    expect(report.results[0]?.p?.adjusted?.method).toBe(method);
+    expect(report.results[0]?.recomputed).toBeUndefined();
+    expect(report.findings.filter((f) => f.level !== 'note')).toEqual([]);
   });
 });

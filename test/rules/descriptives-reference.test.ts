@@ -49,7 +49,7 @@ describe('two independent groups (scipy.stats.ttest_ind on generated data)', () 
     const [a, b] = s.groups as [Group, Group];
     const t = o.t ?? st.t;
     const ci = o.ci ?? st.ci;
-    return `Staff randomised to office A ${o.a ?? group(a)} or office B ${o.b ?? group(b)} differed, difference = ${f2(s.difference!)}, t(${o.df ?? st.df}) = ${f2(t)}, ${pText(st.p)}, d = ${f2(o.d ?? s.cohensD!)}, 95% CI [${f2(ci[0])}, ${f2(ci[1])}].`;
+    return `Staff randomised to office A ${o.a ?? group(a)} or office B ${o.b ?? group(b)} differed, difference = ${f2(s.difference!)}, 95% CI [${f2(ci[0])}, ${f2(ci[1])}], t(${o.df ?? st.df}) = ${f2(t)}, ${pText(st.p)}, d = ${f2(o.d ?? s.cohensD!)}.`;
   };
   it.each(independent.map((s, i) => [i, s] as const))('scenario %i: the correct report passes every rule', (_i, s) => {
     expectLinked(sentence(s), 2);
@@ -88,7 +88,7 @@ describe('one sample against a test value (scipy.stats.ttest_1samp on generated 
   const sentence = (s: Scenario, o: { spread?: number; df?: number } = {}) => {
     const g = s.groups[0] as Group;
     const t = s.test!;
-    return `Scores were compared with the test value of ${s.reference!.toFixed(1)} ${group(g, 'SD', o.spread ?? g.sd)}, t(${o.df ?? t.df}) = ${f2(t.t)}, ${pText(t.p)}, d = ${f2(s.cohensD!)}, 95% CI [${f2(t.ci![0])}, ${f2(t.ci![1])}].`;
+    return `Scores were compared with the test value of ${s.reference!.toFixed(1)} ${group(g, 'SD', o.spread ?? g.sd)}, t(${o.df ?? t.df}) = ${f2(t.t)}, ${pText(t.p)}, 95% CI [${f2(t.ci![0])}, ${f2(t.ci![1])}], d = ${f2(s.cohensD!)}.`;
   };
   it.each(oneSample.map((s, i) => [i, s] as const))('scenario %i: the correct report passes every rule', (_i, s) => {
     expectLinked(sentence(s), 1);

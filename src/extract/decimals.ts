@@ -1,0 +1,85 @@
+import type { Segment } from '../parse/types.js';
+
+/** How a document writes the decimal mark: `2.10` or `2,10`. */
+export type DecimalConvention = 'point' | 'comma';
+
+/**
+ * A number written with a comma in a value position: after `=`, `<`, `>`, `≤`, `≥`, `±` or
+ * `:` (with an optional sign), as `= −1,41` or `p = 0,16`. Group 1 is the digits before the
+ * comma, group 2 those after it.
+ */
+const COMMA_VALUE = /(?<=[=<>≤≥±:] ?[-+]? ?)(\d{1,6}),(\d{1,6})(?![\d,])/g;
+/** A number written with a point in a value position (`= 2.10`, `< .05`). */
+const POINT_VALUE = /[=<>≤≥±:] ?[-+]? ?\d{0,6}\.\d/g;
+/** Any digits-comma-digits run (a list of three or more numbers is skipped by the caller). */
+const COMMA_NUMBER = /(\d{1,6}),(\d{1,6})(?![\d])/g;
+
+/**
+ * The document's convention, from the numbers in value positions: comma when the numbers
+ * there that can only be decimal commas (`= 1,41`, `= 0,160`: a thousands group has exactly
+ * three digits and never follows a lone 0) outnumber those written with a point. Ambiguous
+ * commas (`= 1,200`) do not count either way.
+ */
+export function decimalConvention(segments: readonly Segment[]): DecimalConvention {
+  let comma = 0;
+  let point = 0;
+  for (const seg of segments) {
+    if (seg.kind === 'code') continue;
+    const text = seg.text;
+    if (text.includes(',')) for (const m of text.matchAll(COMMA_VALUE)) if (isDecimalComma(m[1] as string, m[2] as string)) comma += 1;
+    if (text.includes('.')) point += text.match(POINT_VALUE)?.length ?? 0;
+  }
+  return comma > point ? 'comma' : 'point';
+}
+
+/** A comma that no thousands grouping can explain: not followed by exactly three digits, or after a lone 0. */
+function isDecimalComma(before: string, after: string): boolean {
+  return after.length !== 3 || before === '0';
+}
+
+/**
+ * The segment with its decimal commas written as points, so that every recogniser reads one
+ * spelling (`t(54) = −1,41; p = 0,16` → `t(54) = −1.41; p = 0.16`). One character for one,
+ * so the source map is unchanged. In a point document only commas that must be decimal and
+ * sit in a value position are rewritten (a result in the other style, quoted or pasted); in a
+ * comma document every digit-comma-digit run is, except a df pair after a statistic's
+ * symbol (`F(1,38)`), a list of three or more numbers, and, for ambiguous three-digit
+ * groups, nothing else is guessed.
+ */
+export function withDecimalPoints(seg: Segment, convention: DecimalConvention): Segment {
+  const text = seg.text;
+  if (!text.includes(',')) return seg;
+  const chars = text.split('');
+  let changed = false;
+  const rewrite = (at: number) => {
+    chars[at] = '.';
+    changed = true;
+  };
+  if (convention === 'point') {
+    for (const m of text.matchAll(COMMA_VALUE)) {
+      if (isDecimalComma(m[1] as string, m[2] as string)) rewrite(m.index + (m[1] as string).length);
+    }
+  } else {
+    for (const m of text.matchAll(COMMA_NUMBER)) {
+      const comma = m.index + (m[1] as string).length;
+      if (inList(text, m.index, comma + 1 + (m[2] as string).length) || afterStatisticBracket(text, m.index)) continue;
+      rewrite(comma);
+    }
+  }
+  return changed ? { ...seg, text: chars.join('') } : seg;
+}
+
+/** `1,2,3`: the number is one of a comma-separated list without spaces. */
+function inList(text: string, start: number, end: number): boolean {
+  return (text[start - 1] === ',' && /\d/.test(text[start - 2] ?? '')) || (text[end] === ',' && /\d/.test(text[end + 1] ?? ''));
+}
+
+/** `F(1,38)`, `t[1,2]`, `χ2(2,48)`: digits right after a symbol's bracket are degrees of freedom. */
+function afterStatisticBracket(text: string, start: number): boolean {
+  let i = start - 1;
+  if (text[i] === ' ') i -= 1;
+  if (text[i] !== '(' && text[i] !== '[') return false;
+  i -= 1;
+  if (text[i] === ' ') i -= 1;
+  return /[\p{L}_²]/u.test(text[i] ?? '') || /\p{L}\d$/u.test(text.slice(Math.max(0, i - 1), i + 1));
+}

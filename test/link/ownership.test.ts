@@ -1,0 +1,96 @@
+import { describe, expect, it } from 'vitest';
+import { checkSource, type FileReport } from '../../src/engine/index.js';
+
+/**
+ * Which printed numbers belong to which test (the clause model) and which statements apply
+ * to a result. The numbers are invented; each t, d and CI was computed for the case by hand
+ * from the textbook formulas (common practice, no source): d = t·√(1/n1 + 1/n2), the CI of a
+ * difference = estimate ± t_crit·SE with SE = estimate / t.
+ */
+const run = (markdown: string): FileReport => checkSource('x.md', `${markdown}\n`);
+const warnings = (r: FileReport) => r.findings.filter((f) => f.level !== 'note').map((f) => `${f.ruleId}/${f.messageId}@${r.source.slice(f.span.start, f.span.end)}`);
+
+describe('each number is tied to its own clause', () => {
+  it('two tests in one sentence, each followed by its own d: each d is checked against its own t', () => {
+    // t(40) = 2.50 with 21 + 21: d = 0.77; t(40) = 0.50: d = 0.15
+    const r = run('A rose, t(40) = 2.50, p = .017, d = 0.77, and B fell, t(40) = 0.50, p = .62, d = 0.15.');
+    expect(r.results.map((x) => x.context.effectSizes.map((e) => `${e.printed}/${e.basis}`))).toEqual([['d = 0.77/clause'], ['d = 0.15/clause']]);
+    expect(warnings(r)).toEqual([]);
+  });
+  it('a d that its own t cannot give is found even when a neighbouring test could give it', () => {
+    const r = run('A rose, t(40) = 2.50, p = .017, d = 0.77, and B fell, t(40) = 0.50, p = .62, d = 0.77.');
+    expect(warnings(r)).toEqual(['effect-size-follows/mismatch@d = 0.77']);
+    expect(r.findings.find((f) => f.ruleId === 'effect-size-follows')?.span.start).toBe(r.source.lastIndexOf('d = 0.77'));
+  });
+  it('the CI after d is the CI of d, not of the mean difference', () => {
+    const r = run('Recall improved, t(58) = 2.10, p = .040, d = 0.54, 95% CI [0.02, 1.06].');
+    expect(r.results[0]?.context.intervals?.map((i) => i.of)).toEqual(['effect-size']);
+    expect(r.results[0]?.context.interval).toBeUndefined();
+    expect(warnings(r)).toEqual([]);
+  });
+  it('two CIs in one result: the difference and then d', () => {
+    // difference 3.1, t(58) = 2.10: SE = 1.476, t_crit(58) = 2.0017, CI 0.15 to 6.05
+    const r = run('Recall improved by MD = 3.1, 95% CI [0.15, 6.05], t(58) = 2.10, p = .040, d = 0.54, 95% CI [0.02, 1.06].');
+    expect(r.results[0]?.context.intervals?.map((i) => i.of)).toEqual(['estimate', 'effect-size']);
+    expect(r.results[0]?.context.interval?.printed).toBe('95% CI [0.15, 6.05]');
+    expect(warnings(r)).toEqual([]);
+  });
+  it('several regression results in one sentence: each CI goes with the b of its own clause', () => {
+    // b = 0.24, t = 4.80 → SE 0.05, CI 0.14 to 0.34; b = 0.37, t = 7.40 → SE 0.05, CI 0.27 to 0.47
+    const r = run('Contact predicted trust, b = 0.24, t(600) = 4.80, p < .001, 95% CI [0.14, 0.34], and need fulfilment did too, b = 0.37, t(600) = 7.40, p < .001, 95% CI [0.27, 0.47].');
+    expect(r.results.map((x) => x.context.estimate?.printed)).toEqual(['b = 0.24', 'b = 0.37']);
+    expect(r.results.map((x) => x.context.interval?.printed)).toEqual(['95% CI [0.14, 0.34]', '95% CI [0.27, 0.47]']);
+    expect(warnings(r)).toEqual([]);
+  });
+  it('another test statistic ends the clause: an F test and its CI are not the t-test\'s', () => {
+    const r = run('Recall improved, t(40) = 2.10, p = .042; the interaction was weak, F(1, 40) = 4.41, p = .042, η² = .10, 95% CI [.01, .25].');
+    expect(r.results).toHaveLength(1);
+    expect(r.results[0]?.context.intervals).toBeUndefined();
+    expect(r.results[0]?.context.effectSizes).toEqual([]);
+  });
+  it('a p after another statistic is that statistic\'s, not the t-test\'s', () => {
+    const r = run('The t-test gave t(40) = 2.10, and the correlation was r(40) = .30, p = .06.');
+    expect(r.results[0]?.p).toBeUndefined();
+  });
+  it('a d in the next sentence of a paragraph with one test is tied by the paragraph only: a mismatch is a note', () => {
+    const r = run('Recall improved, t(58) = 2.10, p = .040. The effect was large, d = 2.50.');
+    expect(r.results[0]?.context.effectSizes.map((e) => [e.basis, e.certain])).toEqual([['paragraph', false]]);
+    const f = r.findings.find((x) => x.ruleId === 'effect-size-follows');
+    expect(f?.level).toBe('note');
+    expect(f?.uncertain?.[0]).toMatch(/tied to the test only by its paragraph/);
+  });
+  it('a Welch df is never read as n1 + n2 − 2 when d is recomputed from t', () => {
+    // Welch t(21.6) = 2.64 with groups of 8 and 20: d = 2.64·√(1/8 + 1/20) = 1.10
+    const r = run("Minutes standing differed, Welch's t(21.6) = 2.64, p = .015, d = 1.10.");
+    expect(warnings(r)).toEqual([]);
+  });
+});
+
+describe('statements apply only where they are about the analysis', () => {
+  it('"one-sided" in other prose is not a statement about the tests', () => {
+    const r = run('A literature search may result in a one-sided report of the field.\n\nRecall improved, t(30) = 2.10, p = .022.');
+    expect(r.results[0]?.sidedness).toMatchObject({ value: 'two', basis: 'default' });
+  });
+  it('a statement about every test applies to the document', () => {
+    const r = run('All tests were one-tailed.\n\nRecall improved, t(30) = 2.10, p = .022.');
+    expect(r.results[0]?.sidedness).toMatchObject({ value: 'one', basis: 'document-text' });
+  });
+  it('a statement about one test in another paragraph is not used', () => {
+    const r = run('Hypothesis 2 was tested with a one-tailed t-test.\n\nRecall improved, t(30) = 2.10, p = .022.');
+    expect(r.results[0]?.sidedness).toMatchObject({ value: 'two', basis: 'default' });
+  });
+  it('a statement in the paragraph that introduces the result applies to it', () => {
+    const r = run('Only a rise was predicted, so the test was one-tailed. Recall improved, t(30) = 2.10, p = .022.');
+    expect(r.results[0]?.sidedness).toMatchObject({ value: 'one', basis: 'paragraph' });
+  });
+  it('an equivalence test in the sentence before makes either reading acceptable, not a one-tailed claim', () => {
+    const r = run('The equivalence test (TOST) was significant. A null hypothesis test of the same samples was significant too, t(50.52) = 2.958, p = 0.0047.');
+    expect(r.results[0]?.sidedness.basis).toBe('equivalence-test');
+    expect(warnings(r)).toEqual([]);
+  });
+  it('a tails word in a result sentence does not make a statement about every test', () => {
+    const r = run('Planned comparisons showed a rise (t(48) = 7.66, p < .0001, one-tailed).\n\nRecall improved, t(30) = 2.10, p = .045.');
+    expect(r.results[1]?.sidedness.basis).toBe('default');
+    expect(warnings(r)).toEqual([]);
+  });
+});
