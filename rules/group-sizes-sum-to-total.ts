@@ -16,11 +16,17 @@ export const groupSizesSumToTotal: Rule = {
   check({ document }) {
     const x = document.extraction;
     const out: RuleFinding[] = [];
-    for (const total of x.sampleSizes.filter((s) => s.scope === 'total')) {
+    const totals = x.sampleSizes.filter((s) => s.scope === 'total');
+    for (const total of totals) {
       const groups = x.summaries.filter((g) => g.segment === total.segment && g.n && !(g.span.start <= total.span.start && total.span.end <= g.span.end));
       if (groups.length < 2) continue;
       const sum = groups.reduce((s, g) => s + (g.n?.value ?? 0), 0);
       if (sum === total.n.value) continue;
+      // "14 participants were assigned to A (N = 14, …)": a number of people equal to a group's
+      // n is that group's size, not a total; and where the paragraph states the total the
+      // groups add up to, the other counts are parts of it.
+      if (groups.some((g) => g.n?.value === total.n.value)) continue;
+      if (totals.some((t) => t.segment === total.segment && t.n.value === sum)) continue;
       const excluded = x.mentions.some((m) => m.kind === 'exclusion' && m.segment === total.segment);
       if (excluded && sum < total.n.value) continue;
       out.push({

@@ -34,6 +34,10 @@ export const sampleSizeAgreesWithDf: Rule = {
     const N = stated.n.value;
     // Subgroup analyses use fewer; only when no test uses the whole sample is something unexplained.
     if (implied.some((i) => i.ns.includes(N))) return [];
+    // The tie of this N to these tests is not certain when the text states, elsewhere, a sample
+    // that some test does use (a second study, a subsample): then the N is about something else.
+    const statedElsewhere = new Set([...x.sampleSizes.filter((s) => s !== stated).map((s) => s.n.value), ...x.summaries.flatMap((g) => (g.n ? [g.n.value] : []))]);
+    if (implied.some((i) => i.ns.some((n) => statedElsewhere.has(n)))) return [];
     const largest = Math.max(...implied.flatMap((i) => i.ns));
     if (largest >= N) return [];
     const shown = [...new Set(implied.map((i) => i.ns.join(' or ')))].slice(0, 6).join('; ');

@@ -121,7 +121,7 @@ function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceSta
     // "with 23 degrees of freedom, … the t value is 8.02": a df stated earlier in the sentence
     else df = findDf(seg, sentenceStarts[sentenceOf(sentenceStarts, anchor.start)] as number, anchor.start, true);
   }
-  const p = findP(seg, anchor.end, windowEnd) ?? starsAfter(seg, anchor.end);
+  const p = findP(seg, anchor.end, reportTailEnd(text, anchor.end, windowEnd)) ?? starsAfter(seg, anchor.end);
   if (p) end = Math.max(end, indexOfSpanEnd(seg, p));
   // A labelled t needs a df or a p beside it to be a reported result; an uppercase T
   // (also Wilcoxon's statistic) needs a df; an attached df ("t14") needs a p.
@@ -177,6 +177,32 @@ function starsAfter(seg: Segment, at: number): ReportedP | undefined {
   const span = sourceSpan(seg, a, b);
   const number: ReportedNumber = { printed: symbol, value: bound, decimals: decimalsOf(bound), exponent: 0, span };
   return { kind: 'value', op: '<', number, span, printed: symbol, stars: { count: symbol === '†' ? 0 : symbol.length, symbol, basis: 'lenient-convention' } };
+}
+
+/**
+ * Where a t's report can end: a p belongs to the t only when the words between them are the
+ * report's own (df, CI, d, "two-tailed", "and", …). A contrast ("but not in the other
+ * condition, p = .46") or a run of other prose starts another clause: the p there is about
+ * something else.
+ */
+const CLAUSE_BREAK = /(?<![\p{L}])(?:but|whereas|while|although|though|however|yet|unlike|compared with|in contrast)(?![\p{L}])/iu;
+const REPORT_WORD = /^(?:df|d|f|se|sem|ci|cohen|cohen's|cohen’s|hedges|g|and|with|degrees?|of|freedom|a|an|the|values?|was|is|were|are|two|one|tailed|sided|tails?|ns|n|p|ps|mean|difference|md|diff|b|beta|t|lower|upper|bounds?|confidence|intervals?|estimate|dz|dav|eta|partial|exact|respectively|statistic|stat|test|welch|welch's|welch’s|student|student's|student’s|corrected|adjusted|approx|approximately|equal|variances?|assumed|not|significant)$/iu;
+
+function reportTailEnd(text: string, from: number, to: number): number {
+  const gap = text.slice(from, to);
+  const br = CLAUSE_BREAK.exec(gap);
+  let end = br ? from + br.index : to;
+  let prose = 0;
+  for (const m of gap.slice(0, end - from).matchAll(/\p{L}[\p{L}'’]{1,30}/gu)) {
+    if (REPORT_WORD.test(m[0])) continue;
+    prose += 1;
+    // three words of other prose: whatever p follows belongs to another statement
+    if (prose >= 3) {
+      end = from + m.index;
+      break;
+    }
+  }
+  return end;
 }
 
 function variantName(word: string): TTestReport['namedVariant'] {
