@@ -1,7 +1,7 @@
 import type { Config } from '../config/types.js';
 import { configProblems } from '../config/validate.js';
 import { extract } from '../extract/index.js';
-import type { ReportedNumber, Sidedness } from '../extract/types.js';
+import type { ReportedNumber, ReportedP, Sidedness } from '../extract/types.js';
 import { link } from '../link/index.js';
 import type { DocumentSettings, Linked, ResultContext, Setting } from '../link/index.js';
 import { formatForPath, LineIndex, mayHoldStatistics, parseDocument } from '../parse/index.js';
@@ -93,6 +93,15 @@ export function checkSource(path: string, source: string, options: CheckOptions 
   findings.sort((a, b) => a.span.start - b.span.start || RULE_IDS.indexOf(a.ruleId) - RULE_IDS.indexOf(b.ruleId));
 
   const num = (n: ReportedNumber): NumberRecord => ({ printed: n.printed, value: n.value, decimals: n.decimals, exponent: n.exponent, ...place(n.span) });
+  const pRecord = (p: ReportedP): NonNullable<ResultRecord['p']> => ({
+    kind: p.kind,
+    op: p.op,
+    printed: p.printed,
+    ...place(p.span),
+    ...(p.number ? { number: num(p.number) } : {}),
+    ...(p.adjusted ? { adjusted: { method: p.adjusted.method, printed: p.adjusted.printed } } : {}),
+    ...(p.stars ? { stars: { symbol: p.stars.symbol, basis: p.stars.basis } } : {}),
+  });
   const results: ResultRecord[] = linked.results.map((r) => {
     const e = evaluateP(r);
     const rep = r.report;
@@ -105,19 +114,8 @@ export function checkSource(path: string, source: string, options: CheckOptions 
       ...place(rep.span),
       t: { ...num(rep.t), op: rep.tOp },
       ...(rep.df ? { df: num(rep.df) } : {}),
-      ...(rep.p
-        ? {
-            p: {
-              kind: rep.p.kind,
-              op: rep.p.op,
-              printed: rep.p.printed,
-              ...place(rep.p.span),
-              ...(rep.p.number ? { number: num(rep.p.number) } : {}),
-              ...(rep.p.adjusted ? { adjusted: { method: rep.p.adjusted.method, printed: rep.p.adjusted.printed } } : {}),
-              ...(rep.p.stars ? { stars: { symbol: rep.p.stars.symbol, basis: rep.p.stars.basis } } : {}),
-            },
-          }
-        : {}),
+      ...(rep.p ? { p: pRecord(rep.p) } : {}),
+      ...(rep.adjustedP ? { adjustedP: pRecord(rep.adjustedP) } : {}),
       sidedness: r.sidedness,
       alpha: r.alpha,
       context: contextRecord(r.context, place),

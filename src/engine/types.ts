@@ -43,6 +43,8 @@ export interface ResultRecord extends Place {
     /** Read from significance stars, with where their bound came from. */
     stars?: { symbol: string; basis: 'legend' | 'lenient-convention' };
   };
+  /** An adjusted p printed beside the unadjusted one. */
+  adjustedP?: ResultRecord['p'];
   sidedness: Setting<Sidedness>;
   alpha: Setting<number>;
   /** The descriptives and context joined to this result, so a reader sees which numbers were used. */

@@ -1,6 +1,6 @@
 import type { Segment } from '../parse/types.js';
 import { sentenceOf, sourceSpan } from './numbers.js';
-import type { ContextStatement } from './types.js';
+import type { AdjustMethod, ContextStatement } from './types.js';
 
 const SIDED = /(?<![\p{L}])(one|two|1|2|single)[- ]?(tailed|sided)(?![\p{L}])|(?<![\p{L}])(non-?directional|directional)(?= (?:test|hypothes|predict))/giu;
 const EQUIVALENCE = /(?<![\p{L}])(equivalence test|test of equivalence|tests? for equivalence|TOST|two one-sided|non-?inferiority|equivalence bounds?)(?![\p{L}])/giu;
@@ -29,6 +29,12 @@ const GENERAL_WORDS = /(?<![\p{L}])(?:all|every|each|throughout|unless|tests|t-t
 /** Words that make an alpha local to some tests: a corrected or adjusted alpha. */
 const LOCAL_ALPHA = /(?<![\p{L}])(?:corrected|adjusted|Bonferroni|Holm|Šidák|Sidak|per comparison|for (?:this|these|each|the (?:primary|secondary))|family-?wise)(?![\p{L}])/iu;
 
+/** A correction for multiple comparisons named in a sentence. */
+const CORRECTION = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidak|Hochberg|Benjamini|false discovery rate|FDR|Tukey)(?![\p{L}])/iu;
+const NUMBER_WORDS: Record<string, number> = { two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10, eleven: 11, twelve: 12, fifteen: 15, twenty: 20 };
+/** The number of comparisons: `for 3 comparisons`, `six tests`, `α/4`, `.05/3`, `multiplied by 3`. */
+const COMPARISONS = /(?<![\p{L}\p{N}.])(\d{1,3}|two|three|four|five|six|seven|eight|nine|ten|eleven|twelve|fifteen|twenty) (?:(?:pairwise|planned|post[- ]hoc|primary|secondary|separate|independent) )?(?:comparisons|tests|t-tests|contrasts|outcomes|endpoints|hypotheses)(?![\p{L}])|(?:α|alpha|0?\.05) ?\/ ?(\d{1,3})(?![\d.])|multiplied by (\d{1,3}|two|three|four|five|six|seven|eight|nine|ten)(?![\p{L}\p{N}])/iu;
+
 /** Statements about tails, equivalence testing, alpha and what ± stands for, in one segment. */
 export function findStatements(seg: Segment, sentenceStarts: number[]): ContextStatement[] {
   const out: ContextStatement[] = [];
@@ -55,6 +61,24 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     const sd = /^(sd|s\.d\.|standard dev)/i.test(m[1] as string);
     out.push({ kind: 'spread', spread: sd ? 'SD' : 'SE', ...base(m.index, m.index + m[0].length) });
   }
+  if (/Bonferroni|Holm|id[aá]k|Hochberg|Benjamini|discovery|FDR|Tukey/i.test(text)) {
+    for (let i = 0; i < sentenceStarts.length; i += 1) {
+      const a = sentenceStarts[i] as number;
+      const sentence = text.slice(a, sentenceStarts[i + 1] ?? text.length);
+      const method = CORRECTION.exec(sentence);
+      if (!method) continue;
+      const count = COMPARISONS.exec(sentence);
+      const word = (count?.[1] ?? count?.[2] ?? count?.[3] ?? '').toLowerCase();
+      const comparisons = word === '' ? undefined : (NUMBER_WORDS[word] ?? Number(word));
+      const b = a + method.index + method[0].length;
+      out.push({
+        kind: 'multiplicity',
+        method: correctionMethod(method[1] as string),
+        ...(comparisons !== undefined && comparisons >= 2 ? { comparisons } : {}),
+        ...base(a + method.index, b),
+      });
+    }
+  }
   if (/α|alpha|significan|level/i.test(text)) for (const re of [ALPHA, ALPHA_AS_P]) {
     for (const m of text.matchAll(re)) {
       const value = Number(m[1] ?? m[2]);
@@ -67,3 +91,13 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
 
 /** Sentences that name a t-test: used to spot a p given without its t. */
 export const NAMES_T_TEST = /(?<![\p{L}])(?:(?:paired|unpaired|independent|one-sample|two-sample|Welch(?:'s|’s)?|Student(?:'s|’s)?)[- ](?:samples? )?)?t[- ]tests?(?![\p{L}])|(?<![\p{L}])(?:Student|Welch)(?:'s|’s)? t(?![\p{L}])/giu;
+
+function correctionMethod(word: string): AdjustMethod {
+  const w = word.toLowerCase();
+  if (w === 'bonferroni') return 'bonferroni';
+  if (w === 'holm') return 'holm';
+  if (w === 'hochberg') return 'hochberg';
+  if (w === 'sidak' || w === 'šidák') return 'sidak';
+  if (w === 'tukey') return 'tukey';
+  return 'fdr';
+}

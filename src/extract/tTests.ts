@@ -43,6 +43,7 @@ const P_VALUE = new RegExp(
 const ADJUSTED_BEFORE = /(?<![\p{L}])(Bonferroni|Holm|Hochberg|Šidák|Sidak|Tukey|FDR|BH|Benjamini[- ]Hochberg|multiplicity)?[- ]?(adjusted|corrected)[- ]$/iu;
 /** Words after a p that say so: `(Bonferroni-corrected)`, `, Holm-adjusted`, `after Bonferroni correction`. */
 const ADJUSTED_AFTER = /^[ ,;]{0,2}\(?(?:(Bonferroni|Holm|Hochberg|Šidák|Sidak|Tukey|FDR|BH|Benjamini[- ]Hochberg)[- ]?(?:adjusted|corrected|correction)?|adjusted|corrected|after (?:(Bonferroni|Holm|Šidák|Sidak|FDR)[- ]?)?(?:correction|adjustment))(?![\p{L}])/iu;
+const ADJUSTED_NEXT_P = /^[-\p{L}]{0,20} ?[pP](?![\p{L}])/u;
 const ADJUSTED_SUBSCRIPT = /^(?:adj|adjusted|corr|corrected|bonf|bonferroni|holm|fdr|bh|tukey|sidak|šidák|hochberg)$/iu;
 const NS = /^[ ,;]{0,3}\(?(n\. ?s\.?|ns|NS|n\.s)(?![\p{L}])/u;
 const SIDED_NEAR = /(one|two|1|2)[- ]?(tailed|sided)/iu;
@@ -121,8 +122,13 @@ function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceSta
     // "with 23 degrees of freedom, … the t value is 8.02": a df stated earlier in the sentence
     else df = findDf(seg, sentenceStarts[sentenceOf(sentenceStarts, anchor.start)] as number, anchor.start, true);
   }
-  const p = findP(seg, anchor.end, reportTailEnd(text, anchor.end, windowEnd)) ?? starsAfter(seg, anchor.end);
+  const tailEnd = reportTailEnd(text, anchor.end, windowEnd);
+  const p = findP(seg, anchor.end, tailEnd) ?? starsAfter(seg, anchor.end);
   if (p) end = Math.max(end, indexOfSpanEnd(seg, p));
+  // `p = .045, Bonferroni-corrected p = .135`: the adjusted p printed after the unadjusted one
+  const second = p && !p.adjusted && p.kind === 'value' ? findP(seg, end, tailEnd) : undefined;
+  const adjustedP = second?.adjusted ? second : undefined;
+  if (adjustedP) end = Math.max(end, indexOfSpanEnd(seg, adjustedP));
   // A labelled t needs a df or a p beside it to be a reported result; an uppercase T
   // (also Wilcoxon's statistic) needs a df; an attached df ("t14") needs a p.
   if (anchor.style === 'labelled-df' && !df && !p) return undefined;
@@ -147,6 +153,7 @@ function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceSta
     t: anchor.t,
     ...(df ? { df } : {}),
     ...(p ? { p } : {}),
+    ...(adjustedP ? { adjustedP } : {}),
     ...(p?.statedSidedness && !sided
       ? { statedSidedness: { value: p.statedSidedness, span: p.span } }
       : {}),
@@ -285,7 +292,8 @@ function adjustment(seg: Segment, a: number, b: number, label: string | undefine
     return { method: adjustMethod(before[1] ?? ''), span: sourceSpan(seg, start, b), printed: seg.text.slice(start, b) };
   }
   const after = ADJUSTED_AFTER.exec(seg.text.slice(b, b + 50));
-  if (after) {
+  // `p = .045, Bonferroni-corrected p = .135`: the words introduce the next p, not this one
+  if (after && !ADJUSTED_NEXT_P.test(seg.text.slice(b + after[0].length, b + after[0].length + 30))) {
     const end = b + after[0].length;
     return { method: adjustMethod(after[1] ?? after[2] ?? ''), span: sourceSpan(seg, a, end), printed: seg.text.slice(a, end) };
   }

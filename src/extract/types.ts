@@ -36,13 +36,16 @@ export type Sidedness = 'one' | 'two';
 
 /** A statement about tails or alpha found in the prose, with where it was said. */
 export interface ContextStatement {
-  kind: 'sidedness' | 'alpha' | 'equivalence' | 'spread';
+  kind: 'sidedness' | 'alpha' | 'equivalence' | 'spread' | 'multiplicity';
   sidedness?: Sidedness;
   alpha?: number;
   /** For `spread`: what "mean ± x" stands for ("values are mean ± SEM"). */
   spread?: 'SD' | 'SE';
   /** For `sidedness` and `alpha`: said of every test ("All tests were two-tailed"), not of one. */
   general?: boolean;
+  /** For `multiplicity`: the correction named, and the number of comparisons when printed. */
+  method?: AdjustMethod;
+  comparisons?: number;
   span: Span;
   segment: number;
   block: number;
@@ -77,6 +80,8 @@ export interface TTestReport {
   t: ReportedNumber;
   df?: ReportedNumber;
   p?: ReportedP;
+  /** An adjusted p printed beside the unadjusted one (`p = .045, Bonferroni-corrected p = .135`). */
+  adjustedP?: ReportedP;
   /** Tails stated inside the report itself, e.g. `p = .03, one-tailed`. */
   statedSidedness?: { value: Sidedness; span: Span };
   /** The test name given right before the statistic (e.g. "Welch's t"), lower-case. */

@@ -7,3 +7,4 @@ export { dAverage, dFromMeansPooled, dFromTIndependent, dRepeatedMeasures, dzFro
 export { ciHalfWidthFromT, pFromConfidenceInterval } from './confidenceInterval.js';
 export { grimmerPossible, grimPossible, percentPossible } from './granularity.js';
 export { requiredN, tTestPower, type PowerDesign } from './power.js';
+export { bonferroniAdjusted, sidakAdjusted } from './adjust.js';

@@ -1,0 +1,108 @@
+import { describeDf, describeT, dfInterval, fill, pInterval, showInterval, tInterval, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import type { AdjustMethod, ContextStatement, ReportedP } from '../src/extract/types.js';
+import { bonferroniAdjusted, oneSidedPRange, sidakAdjusted, twoSidedPRange, type Interval } from '../src/stats/index.js';
+
+const messages = {
+  mismatch:
+    'Reported {adjusted}, adjusted by {method} for {m} comparisons ("{where}"). From the unadjusted p ({source}: {unadjusted}), the {method}-adjusted p is {formula} = {expected}; the reported value is outside that range within rounding.',
+};
+
+/** Where the number of comparisons was found, most specific first. */
+interface Comparisons {
+  m: number;
+  statement: ContextStatement;
+}
+
+/** An explicitly adjusted p is the correction of its unadjusted p for the comparisons printed. */
+export const adjustedPFollows: Rule = {
+  id: 'adjusted-p-follows',
+  summary: 'A p labelled as Bonferroni- or Šidák-adjusted equals the correction of its unadjusted p for the number of comparisons printed.',
+  kind: 'inconsistency',
+  defaultLevel: 'warning',
+  defaultOptions: {},
+  optionsSchema: NO_OPTIONS,
+  messages,
+  check({ document }) {
+    const out: RuleFinding[] = [];
+    const corrections = document.statements.filter((s) => s.kind === 'multiplicity');
+    for (const result of document.results) {
+      const r = result.report;
+      const adjusted = r.adjustedP ?? (r.p?.adjusted ? r.p : undefined);
+      if (!adjusted?.number || !adjusted.adjusted || adjusted.kind !== 'value') continue;
+      const method = methodOf(adjusted, corrections);
+      if (method !== 'bonferroni' && method !== 'sidak') continue;
+      const comparisons = comparisonsFor(result, corrections);
+      if (!comparisons) continue;
+      const unadjusted = unadjustedP(result);
+      if (!unadjusted) continue;
+      const expected = method === 'bonferroni' ? bonferroniAdjusted(unadjusted.range, comparisons.m) : sidakAdjusted(unadjusted.range, comparisons.m);
+      const reported = pInterval(adjusted, result.alpha.value);
+      if (!(Number.isFinite(expected.low) && Number.isFinite(expected.high))) continue;
+      if (expected.low <= reported.high && expected.high >= reported.low) continue;
+      const name = method === 'bonferroni' ? 'Bonferroni' : 'Šidák';
+      out.push({
+        messageId: 'mismatch',
+        span: adjusted.span,
+        message: fill(messages.mismatch, {
+          adjusted: adjusted.printed,
+          method: name,
+          m: comparisons.m,
+          where: comparisons.statement.printed,
+          source: unadjusted.source,
+          unadjusted: showInterval(unadjusted.range.low, unadjusted.range.high),
+          formula: method === 'bonferroni' ? `min(1, ${comparisons.m} × p)` : `1 − (1 − p)^${comparisons.m}`,
+          expected: showInterval(expected.low, expected.high),
+        }),
+        reported: adjusted.printed,
+        recomputed: { quantity: `${name}-adjusted p`, low: expected.low, high: expected.high, inputs: [unadjusted.source, `${comparisons.m} comparisons`], assumptions: [`${name} correction`, ...(unadjusted.source.startsWith('recomputed') ? [result.sidedness.value === 'one' ? 'one-tailed' : 'two-tailed'] : [])] },
+        check: 'Check the number of comparisons and the adjusted p against the output; an adjusted p is the unadjusted one times the number of comparisons (at most 1).',
+        related: [{ span: comparisons.statement.span, message: 'where the correction and the number of comparisons are stated' }],
+        resultId: r.id,
+        block: r.block,
+      });
+    }
+    return out;
+  },
+};
+
+/** The method named with the p, or, when it only says "adjusted", the one correction the document names. */
+function methodOf(p: ReportedP, corrections: ContextStatement[]): AdjustMethod | undefined {
+  const own = p.adjusted?.method;
+  if (own && own !== 'unspecified') return own;
+  const methods = new Set(corrections.map((c) => c.method));
+  return methods.size === 1 ? [...methods][0] : undefined;
+}
+
+/**
+ * The number of comparisons: stated in the result's sentence, else in its paragraph, else
+ * the one number every statement of the document agrees on. Several different numbers in
+ * scope: no guess.
+ */
+function comparisonsFor(result: LinkedResult, corrections: ContextStatement[]): Comparisons | undefined {
+  const r = result.report;
+  const withM = corrections.filter((c) => c.comparisons !== undefined);
+  const scopes = [withM.filter((c) => c.segment === r.segment && c.sentence === r.sentence), withM.filter((c) => c.segment === r.segment), withM];
+  for (const scope of scopes) {
+    const ms = new Set(scope.map((c) => c.comparisons));
+    if (ms.size === 1) return { m: [...ms][0] as number, statement: scope[0] as ContextStatement };
+    if (ms.size > 1) return undefined;
+  }
+  return undefined;
+}
+
+/** The unadjusted p: printed beside the adjusted one, else recomputed from t and df. */
+function unadjustedP(result: LinkedResult): { range: Interval; source: string } | undefined {
+  const r = result.report;
+  if (r.adjustedP && r.p?.kind === 'value' && r.p.number && (r.p.op === '=' || r.p.op === '~')) {
+    const i = pInterval(r.p, result.alpha.value);
+    return { range: { low: i.low, high: i.high }, source: `printed ${r.p.printed}` };
+  }
+  if (!r.df || r.tOp !== '=') return undefined;
+  const [tl, th] = tInterval(r);
+  const [dl, dh] = dfInterval(r.df);
+  if (!(dl > 0)) return undefined;
+  const lo = tl <= 0 && th >= 0 ? 0 : Math.min(Math.abs(tl), Math.abs(th));
+  const hi = Math.max(Math.abs(tl), Math.abs(th));
+  const range = result.sidedness.value === 'one' && result.sidedness.basis !== 'equivalence-test' ? oneSidedPRange(lo, hi, dl, dh) : twoSidedPRange(lo, hi, dl, dh);
+  return { range, source: `recomputed from ${describeT(r)}, ${describeDf(r.df)}` };
+}
