@@ -1,5 +1,4 @@
-import { describeDf, describeT, dfInterval, fill, pInterval, showInterval, tInterval, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
-import type { AdjustMethod, ContextStatement, ReportedP } from '../src/extract/types.js';
+import { describeDf, describeT, dfInterval, fill, pInterval, showInterval, tInterval, type AdjustMethod, type ContextStatement, type LinkedResult, type ReportedP, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 import { bonferroniAdjusted, oneSidedPRange, sidakAdjusted, twoSidedPRange, type Interval } from '../src/stats/index.js';
 
 const messages = {

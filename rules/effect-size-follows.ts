@@ -1,5 +1,4 @@
-import { fill, inferDesign, linkDoubts, numberInterval, showInterval, tInterval, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
-import type { EffectSizeReport, GroupSummary } from '../src/extract/types.js';
+import { fill, inferDesign, linkDoubts, numberInterval, showInterval, tInterval, type EffectSizeReport, type GroupSummary, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 import { dAverage, dFromMeansPooled, dFromTIndependent, dRepeatedMeasures, dzFromT, hedgesCorrection, type Box, type Interval } from '../src/stats/index.js';
 
 const messages = {

@@ -20,8 +20,11 @@ export const meanIsPossibleForIntegers: Rule = {
     const out: RuleFinding[] = [];
     for (const g of x.summaries) {
       if (!g.mean || !g.n || g.percent || g.mean.decimals === 0) continue;
-      // Only where the measure is declared whole-number: configuration/front matter, or the text of the same paragraph.
-      const stated = x.integerMeasures.find((s) => s.segment === g.segment);
+      // Only where the measure is certainly declared whole-number: configuration or front
+      // matter, a declaration in the same sentence, or one that names the measure this
+      // sentence names (across sections). A paragraph's other sentences are not enough: "a
+      // large number of structures" says nothing of the ratio reported after it.
+      const stated = document.integerDeclarations.get(g)?.statement;
       const items = stated?.items ?? document.integerMeasure?.value.items;
       if (items === undefined) continue;
       const n = g.n.value;
@@ -55,3 +58,4 @@ export const meanIsPossibleForIntegers: Rule = {
     return out;
   },
 };
+

@@ -6,6 +6,7 @@ import { findStatements } from './statements.js';
 /** Cheap pre-check (no global state) before the sentence-level search for t-less p values. */
 const MAY_NAME_T_TEST = /t[- ]tests?|(?:Student|Welch)/i;
 import { findMentions } from './mentions.js';
+import { findIntegerMeasures, findMeasureMentions } from './measures.js';
 import { findPowerStatements } from './power.js';
 import { findSummaries } from './summaries.js';
 import { findTableSummaries, findTableTests } from './tables.js';
@@ -38,6 +39,7 @@ export function extract(doc: ParsedDocument): Extraction {
     designs: [],
     references: [],
     integerMeasures: [],
+    measureMentions: [],
     counts: [],
     powerStatements: [],
     mentions: [],
@@ -62,7 +64,7 @@ export function extract(doc: ParsedDocument): Extraction {
       append(out.effectSizes, found.effectSizes);
       append(out.designs, found.designs);
       append(out.references, found.references);
-      append(out.integerMeasures, found.integerMeasures);
+      append(out.integerMeasures, findIntegerMeasures(seg, starts));
       append(out.counts, found.counts);
       append(out.powerStatements, findPowerStatements(seg, starts));
       append(out.mentions, findMentions(seg, starts));
@@ -83,6 +85,7 @@ export function extract(doc: ParsedDocument): Extraction {
   for (const t of findTableTests(segments)) if (!seen.has(t.span.start)) out.tests.push(t);
   out.tests.sort((a, b) => a.span.start - b.span.start);
   applyStarLegends(out.tests, legends);
+  out.measureMentions = findMeasureMentions(segments, out.integerMeasures);
   return out;
 }
 

@@ -6,7 +6,6 @@ import type {
   EffectSizeReport,
   EstimateReport,
   GroupSummary,
-  IntegerStatement,
   IntervalReport,
   ReferenceValue,
   ReportedNumber,
@@ -42,7 +41,6 @@ const REFERENCE = new RegExp(
   String.raw`(?:test value|hypothesi[sz]ed (?:value|mean)|reference value|population mean|norm|benchmark|target|chance(?:[- ]level)?)(?: of| =| at| was| is)? ?\(? ?${NUM}( ?%)?`,
   'dgiu',
 );
-const INTEGER_WORDS = /(?<![\p{L}])(single[- ]item|number of \p{L}{2}\p{L}*|counts? of \p{L}{2}\p{L}*|integer[- ]valued|whole numbers|(\d{1,3})-item (?:scale|measure|questionnaire|inventory)|scored (?:from )?\d{1,3} (?:to|–|-) ?\d{1,3})(?![\p{L}])/giu;
 const COUNT_PERCENT = new RegExp(String.raw`(?<![\p{L}\p{N}.,])(\d{1,6}) ?\((\d{1,3}(?:\.\d{1,3})?) ?%\)`, 'dgu');
 
 type TokenKind = 'mean' | 'sd' | 'se' | 'n' | 'pm' | 'paren';
@@ -67,7 +65,6 @@ export interface SegmentSummaries {
   effectSizes: EffectSizeReport[];
   designs: DesignStatement[];
   references: ReferenceValue[];
-  integerMeasures: IntegerStatement[];
   counts: CountPercent[];
 }
 
@@ -189,17 +186,13 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     const value = num(seg, m, 1);
     if (value) references.push({ ...where(m.index, m.index + m[0].length), value });
   }
-  const integerMeasures: IntegerStatement[] = [];
-  if (/single|number of|count|integer|whole number|-item|scored/i.test(text)) for (const m of text.matchAll(INTEGER_WORDS)) {
-    integerMeasures.push({ ...where(m.index, m.index + m[0].length), items: m[2] ? Number(m[2]) : 1 });
-  }
   const counts: CountPercent[] = [];
   if (text.includes('%)') || text.includes('% )')) for (const m of text.matchAll(COUNT_PERCENT)) {
     const count = num(seg, m, 1);
     const percent = num(seg, m, 2);
     if (count && percent) counts.push({ ...where(m.index, m.index + m[0].length), count, percent });
   }
-  return { summaries, sampleSizes, intervals, estimates, effectSizes, designs, references, integerMeasures, counts };
+  return { summaries, sampleSizes, intervals, estimates, effectSizes, designs, references, counts };
 }
 
 function spreadKind(word: string | undefined): SpreadKind {

@@ -128,6 +128,8 @@ export interface Extraction {
   designs: DesignStatement[];
   references: ReferenceValue[];
   integerMeasures: IntegerStatement[];
+  /** Sentences that name a measure declared whole-number (by its declared name). */
+  measureMentions: MeasureMention[];
   counts: CountPercent[];
   powerStatements: PowerStatement[];
   mentions: Mention[];
@@ -230,8 +232,17 @@ export interface IntegerStatement {
   sentence: number;
   span: Span;
   printed: string;
-  /** Items summed or averaged, when said ("a 10-item scale"); 1 otherwise. */
+  /** Integer items a score averages ("the mean of four items" → 4, "a 10-item scale" → 10); 1 for a single item, a count or a sum. */
   items: number;
+  /** The measure declared, as one lower-case singular word ("errors were counted" → "error"), when the sentence names it. */
+  measure?: string;
+}
+
+/** A sentence that names a measure some declaration made whole-number. */
+export interface MeasureMention {
+  measure: string;
+  segment: number;
+  sentence: number;
 }
 
 /** A count with its percentage: `12 (40%)`. */

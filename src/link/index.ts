@@ -1,4 +1,4 @@
-import type { ContextStatement, Extraction, Sidedness, TTestReport } from '../extract/types.js';
+import type { ContextStatement, Extraction, IntegerStatement, Sidedness, TTestReport } from '../extract/types.js';
 import type { Directive } from '../parse/types.js';
 import type { DocumentSettings, LinkedDocument, LinkedResult, Setting } from './types.js';
 
@@ -86,6 +86,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   });
   return {
     results,
+    integerDeclarations: integerDeclarations(extraction),
     pWithoutT: extraction.pWithoutT,
     directives,
     extraction,
@@ -139,4 +140,39 @@ function alphaFor(sentence: ContextStatement[], paragraph: ContextStatement[], f
   const inParagraph = agreeing(paragraph.filter((s) => s.kind === 'alpha'), (s) => s.alpha as number, 'paragraph');
   if (inParagraph) return inParagraph;
   return fallback;
+}
+
+/**
+ * Ties each group's descriptives to a whole-number declaration: one in the group's own
+ * sentence; else the declarations whose measure the group's sentence names, when they agree
+ * on the item count. A paragraph's other sentences are not enough ("a large number of
+ * structures" says nothing of the ratio reported after it).
+ */
+function integerDeclarations(x: Extraction): LinkedDocument['integerDeclarations'] {
+  const out: LinkedDocument['integerDeclarations'] = new Map();
+  if (x.integerMeasures.length === 0) return out;
+  const key = (segment: number, sentence: number) => `${segment}:${sentence}`;
+  const bySentence = new Map<string, IntegerStatement>();
+  for (const d of x.integerMeasures) if (!bySentence.has(key(d.segment, d.sentence))) bySentence.set(key(d.segment, d.sentence), d);
+  const byName = new Map<string, IntegerStatement[]>();
+  for (const d of x.integerMeasures) if (d.measure) byName.set(d.measure, [...(byName.get(d.measure) ?? []), d]);
+  const named = new Map<string, Set<string>>();
+  for (const m of x.measureMentions) {
+    const k = key(m.segment, m.sentence);
+    const set = named.get(k) ?? new Set<string>();
+    set.add(m.measure);
+    named.set(k, set);
+  }
+  for (const g of x.summaries) {
+    if (!g.mean) continue;
+    const own = bySentence.get(key(g.segment, g.sentence));
+    if (own) {
+      out.set(g, { statement: own, basis: 'sentence' });
+      continue;
+    }
+    const candidates = [...(named.get(key(g.segment, g.sentence)) ?? [])].flatMap((name) => byName.get(name) ?? []);
+    const first = candidates[0];
+    if (first && candidates.every((c) => c.items === first.items)) out.set(g, { statement: first, basis: 'measure-name' });
+  }
+  return out;
 }

@@ -1,4 +1,4 @@
-import type { ContextStatement, Extraction, PWithoutT, Sidedness, TTestReport } from '../extract/types.js';
+import type { ContextStatement, Extraction, GroupSummary, IntegerStatement, PWithoutT, Sidedness, TTestReport } from '../extract/types.js';
 import type { Directive, ReadNote, Span } from '../parse/types.js';
 import type { ResultContext } from './descriptives.js';
 export type { IntervalTarget, LinkBasis, Linked } from './descriptives.js';
@@ -41,6 +41,11 @@ export interface LinkedDocument {
   extraction: Extraction;
   /** Settings for integer-valued measures (GRIM): from front matter or configuration. */
   integerMeasure?: Setting<{ items: number }>;
+  /**
+   * Each group's whole-number declaration, where the text ties one to it with certainty: in
+   * the group's own sentence, or by the measure's name in that sentence (across sections).
+   */
+  integerDeclarations: Map<GroupSummary, { statement: IntegerStatement; basis: 'sentence' | 'measure-name' }>;
   /** Why the front matter could not be read, when it could not. */
   frontMatterError?: { message: string; span: Span };
   /** What could not be read as written: undecodable bytes, nesting past the parser's limits. */

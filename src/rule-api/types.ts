@@ -88,6 +88,8 @@ export interface Rule<Options extends object = Record<string, never>> {
 export type AnyRule = Rule<object>;
 
 export type { LinkedResult };
+/** Extracted records rules read through the linked document. */
+export type { AdjustMethod, ContextStatement, EffectSizeReport, GroupSummary, IntegerStatement, ReportedP } from '../extract/types.js';
 
 export type Guideline = 'sampl' | 'jars-quant' | 'consort';
 

@@ -1,0 +1,108 @@
+import type { Segment } from '../parse/types.js';
+import { sentenceOf, sentenceStarts, sourceSpan } from './numbers.js';
+import type { IntegerStatement, MeasureMention } from './types.js';
+
+const NUMBER_WORDS: Record<string, number> = { one: 1, two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10, eleven: 11, twelve: 12, fifteen: 15, twenty: 20 };
+const COUNT = String.raw`(\d{1,3}|one|two|three|four|five|six|seven|eight|nine|ten|eleven|twelve|fifteen|twenty)`;
+
+/**
+ * Words that declare a measure's scores whole numbers, each with the number of integer items
+ * a score averages (1 for a single item, a count or a sum of items; k for the mean of k items).
+ * "scored 1–7" alone is not enough: a scale scored 1–7 may be the mean of several items.
+ */
+const MEAN_OF_ITEMS = new RegExp(String.raw`(?<![\p{L}])(?:mean|average) of (?:the )?${COUNT} (?:\p{L}{1,20} )?items`, 'iu');
+const SUM_OF_ITEMS = new RegExp(String.raw`(?<![\p{L}])(?:sum|total) of (?:the )?${COUNT} (?:\p{L}{1,20} )?items`, 'iu');
+const K_ITEM = /(?<![\p{L}\p{N}])(\d{1,3})-item (?:scale|measure|questionnaire|inventory|index|test)(?![\p{L}])/iu;
+const INTEGER = /(?<![\p{L}])(?:single[- ]item|a single item|one item|integers?|integer[- ]valued|whole[- ]numbers?|whole[- ]number counts?|counts? of \p{L}{3,30}|(?:recorded|counted|tallied|logged|coded) as (?:the )?(?:number|count)s? of|number of \p{L}{3,30} (?:was|were) (?:recorded|counted|tallied|logged|coded))(?![\p{L}])/iu;
+/** A whole-number count named in the declaration: "the number of errors was recorded". */
+const COUNTED_THING = /(?<![\p{L}])(?:number|counts?) of (\p{L}{3,30})/iu;
+/**
+ * "The number of reminders averaged M = 2.39": a count reported in its own sentence (tied to
+ * that sentence only). "A large number of structures" is a quantity, not a measure.
+ */
+const NUMBER_OF = /(?<![\p{L}])(?<!(?:a|an|large|small|great|high|low|growing|limited|considerable|substantial|greater|larger|smaller|higher|lower|equal|same|total) )number of \p{L}{3,30}/iu;
+const MEASURING_VERB = /(?<![\p{L}])(?:recorded|counted|tallied|logged|coded|measured|scored|assessed|rated)(?![\p{L}])/iu;
+/** The sentence's subject before its verb: "Mood was rated …", "Errors were recorded …". */
+const SUBJECT = /^(?:[\p{L}'’-]{1,30} ){0,6}?([\p{L}'’-]{3,30}) (?:was|were|is|are) /u;
+const DETERMINERS = new Set(['the', 'a', 'an', 'each', 'every', 'our', 'their', 'its', 'this', 'these', 'that', 'all']);
+
+/**
+ * Measures the text declares whole-number, one record per declaring sentence, with the
+ * measure's name when the sentence says it (its subject, or the thing counted), so that the
+ * declaration can be tied by name to the results that report that measure.
+ */
+export function findIntegerMeasures(seg: Segment, starts: number[]): IntegerStatement[] {
+  const text = seg.text;
+  if (!/integer|whole|item|count|number|tall|logged|coded/i.test(text)) return [];
+  const out: IntegerStatement[] = [];
+  for (let i = 0; i < starts.length; i += 1) {
+    const a = starts[i] as number;
+    const sentence = text.slice(a, starts[i + 1] ?? text.length);
+    const mean = MEAN_OF_ITEMS.exec(sentence);
+    const sum = SUM_OF_ITEMS.exec(sentence);
+    const kItem = K_ITEM.exec(sentence);
+    const integer = INTEGER.exec(sentence) ?? NUMBER_OF.exec(sentence);
+    // the mean of k items is whole-number only when the items are ("each an integer from 1 to 5")
+    const found = mean && integer ? { m: mean, items: itemCount(mean[1] as string) } : sum ? { m: sum, items: 1 } : integer ? { m: integer, items: 1 } : kItem ? { m: kItem, items: Number(kItem[1]) } : undefined;
+    if (!found || !(found.items >= 1)) continue;
+    const start = a + found.m.index;
+    const end = start + found.m[0].length;
+    // a bare "number of X" names its measure for other sentences only when it says how it was measured
+    const measure = found.m === integer && !INTEGER.test(sentence) && !MEASURING_VERB.test(sentence) ? undefined : measureName(sentence);
+    out.push({
+      segment: seg.id,
+      block: seg.block,
+      sentence: sentenceOf(starts, start),
+      span: sourceSpan(seg, start, end),
+      printed: text.slice(start, end),
+      items: found.items,
+      ...(measure ? { measure } : {}),
+    });
+  }
+  return out;
+}
+
+function itemCount(word: string): number {
+  return NUMBER_WORDS[word.toLowerCase()] ?? Number(word);
+}
+
+/** The head word of the declared measure, lower-case and singular, when the sentence says it. */
+function measureName(sentence: string): string | undefined {
+  const counted = COUNTED_THING.exec(sentence);
+  const subject = SUBJECT.exec(sentence.trimStart());
+  const word = subject?.[1] ?? counted?.[1];
+  if (!word || DETERMINERS.has(word.toLowerCase())) return counted?.[1] ? singular(counted[1]) : undefined;
+  return singular(word);
+}
+
+/** `errors` → `error`, `anxiety` stays: enough to match the name in another sentence. */
+export function singular(word: string): string {
+  const w = word.toLowerCase().replace(/['’]s$/u, '');
+  return w.length > 3 && w.endsWith('s') && !w.endsWith('ss') ? w.slice(0, -1) : w;
+}
+
+/**
+ * Every sentence that names a declared measure, one pass over each segment's words (a set
+ * lookup per word, so linear in the text).
+ */
+export function findMeasureMentions(segments: readonly Segment[], declared: readonly IntegerStatement[]): MeasureMention[] {
+  const names = new Set(declared.flatMap((d) => (d.measure ? [d.measure] : [])));
+  if (names.size === 0) return [];
+  const out: MeasureMention[] = [];
+  for (const seg of segments) {
+    if (seg.kind === 'code') continue;
+    let starts: number[] | undefined;
+    const seen = new Set<string>();
+    for (const m of seg.text.matchAll(/\p{L}[\p{L}'’-]{2,30}/gu)) {
+      const word = singular(m[0]);
+      if (!names.has(word)) continue;
+      starts ??= sentenceStarts(seg.text);
+      const sentence = sentenceOf(starts, m.index);
+      const key = `${sentence}:${word}`;
+      if (seen.has(key)) continue;
+      seen.add(key);
+      out.push({ measure: word, segment: seg.id, sentence });
+    }
+  }
+  return out;
+}
