@@ -1,4 +1,4 @@
-import { dfInterval, fill, inferDesign, numberInterval, showInterval, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts } from '../src/rule-api/index.js';
+import { dfInterval, fill, inferDesign, numberInterval, showInterval, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts, type LinkedResult } from '../src/rule-api/index.js';
 import { welchDfRange } from '../src/stats/index.js';
 
 const messages = {
@@ -23,13 +23,23 @@ export const dfFollowsFromN: Rule = {
     for (const result of document.results) {
       const r = result.report;
       const link = result.context.descriptives;
-      if (!r.df || !link) continue;
+      if (!r.df) continue;
+      if (!link) {
+        // A paired design stated in words, with the units counted in the result's own sentence
+        // ("the same 24 employees … t(21) = …"): a paired test has n − 1 df.
+        const units = pairsInSentence(result);
+        const df = r.df.value;
+        if (units !== undefined && Number.isInteger(df) && df !== units.n - 1 && df !== 2 * units.n - 2) {
+          out.push({ span: r.df.span, reported: r.printed, resultId: r.id, block: r.block, messageId: 'paired', message: fill(messages.paired, { df: r.df.printed, n: units.n, expected: units.n - 1 }), check: 'Check the df against the number of pairs.', related: [{ span: units.span, message: 'the number of pairs' }] });
+        }
+        continue;
+      }
       const perGroup = result.context.sampleSizes.find((s) => s.scope === 'per-group')?.n.value;
       const ns = link.groups.map((g) => g.n?.value ?? perGroup);
       if (ns.some((n) => n === undefined)) continue;
       const df = r.df.value;
       const [dfLow, dfHigh] = dfInterval(r.df);
-            const base = { span: r.df.span, reported: r.printed, resultId: r.id, block: r.block, ...descriptiveDoubts(result) };
+      const base = { span: r.df.span, reported: r.printed, resultId: r.id, block: r.block, ...descriptiveDoubts(result) };
       const design = inferDesign(result);
       if (ns.length === 1) {
         const n = ns[0] as number;
@@ -75,3 +85,13 @@ export const dfFollowsFromN: Rule = {
     return out;
   },
 };
+
+/** The number of units of a design stated paired in words, printed once in the result's sentence. */
+function pairsInSentence(result: LinkedResult): { n: number; span: { start: number; end: number } } | undefined {
+  const d = result.context.design;
+  if (d.value !== 'paired' || d.basis === 'default' || d.basis === 'structure') return undefined;
+  const r = result.report;
+  const own = result.context.sampleSizes.filter((s) => s.segment === r.segment && s.sentence === r.sentence && s.scope !== 'per-group');
+  const first = own[0];
+  return first && own.every((s) => s.n.value === first.n.value) ? { n: first.n.value, span: first.span } : undefined;
+}

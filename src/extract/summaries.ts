@@ -23,7 +23,11 @@ const MEAN = new RegExp(String.raw`${START}(?:M|Mean|mean|Avg|avg|Average|averag
 const SD = new RegExp(String.raw`${START}\{?(?:SD|sd|s\.d\.|S\.D\.|Std\.? ?Dev\.?|[Ss]tandard deviation)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
 const SE = new RegExp(String.raw`${START}\{?(?:SEM|SE|s\.e\.m\.|s\.e\.|S\.E\.|[Ss]tandard error(?: of the mean)?)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
 const N = new RegExp(String.raw`${START}(?:(n|N)(?:_\{[^{}\n]{1,20}\}|_?[0-9]|_[\p{L}]{1,20})?|[Ss]ample size) ?(?:=|:) ?${INT}(?: (per group|in each group|each|per condition|per arm))?(?![\d.])`, 'dgu');
-const PARTICIPANTS = new RegExp(String.raw`(?<![\p{L}\p{N}.,])${INT} (participants|patients|subjects|people|children|adults|students|staff|volunteers|respondents|women|men|infants|pairs|nurses|doctors|clinicians|workers|employees|mothers|families|households|cases)(?![\p{L}])`, 'dgu');
+/** `24 participants`, `the same 30 plots`: people or units counted (the noun says what a unit is). */
+const UNITS = String.raw`(?:participants|patients|subjects|people|individuals|children|adults|students|pupils|staff|volunteers|respondents|women|men|infants|pairs|twins|nurses|doctors|clinicians|teachers|workers|employees|mothers|fathers|families|households|cases|athletes|players|drivers|residents|users|customers|raters|observers|animals|mice|rats|dogs|cows|sheep|pigs|fish|birds|plots|sites|trees|plants|seedlings|fields|farms|ponds|lakes|streams|transects|quadrats|stands|colonies|hives|schools|classes|classrooms|wards|clinics|hospitals|units|samples|specimens|eyes|teeth|knees|limbs|hands)`;
+const PER_GROUP_AFTER = /^,? (?:each|per (?:group|arm|condition|class|site)|in each (?:group|arm|condition))(?![\p{L}])/u;
+const PER_GROUP_BEFORE = /(?<![\p{L}])(?:groups|arms) of $/u;
+const PARTICIPANTS = new RegExp(String.raw`(?<![\p{L}\p{N}.,])${INT} (${UNITS})(?![\p{L}])`, 'dgu');
 // the look-behind starts a number only at the start of a digit run (recheck judges it linear then)
 const PLUS_MINUS = new RegExp(String.raw`(?<![\d.])${NUM}( ?%)? ?± ?${NUM}( ?%)?(?: ?\(? ?(SD|SE|SEM|s\.d\.|s\.e\.m\.|s\.e\.|standard deviations?|standard errors?)\)?)?`, 'dgu');
 const MEAN_PAREN = new RegExp(String.raw`(?<![\p{L}\p{N}_.(=])${NUM}( ?%)? ?\((?:(SD|SE|SEM|s\.d\.|s\.e\.)(?: ?=)? ?)?${NUM}( ?%)?\)`, 'dgu');
@@ -34,8 +38,13 @@ const CI = new RegExp(
 );
 const ESTIMATE = new RegExp(String.raw`${START}(?:mean difference|difference|MD|M_?\{?diff\}?|b|B|β|estimate|Δ) ?(?:=|:|of|was) ?${NUM}`, 'dgu');
 const EFFECT = new RegExp(String.raw`(?<![\p{L}\p{N}_'’])(?:(?:Cohen['’]s|Hedges['’]s?) ?)?(d_?\{?z\}?|d_?\{?av\}?|d|g)(?![\p{L}\p{N}′'’]) ?= ?${NUM}`, 'dgu');
-const PAIRED_WORDS = /(?<![\p{L}])(paired|pre-?test|post-?test|pre- and post|before and after|baseline and (?:at )?follow-?up|same (?:participants|staff|patients|subjects|children|people|individuals|students|sample|group|nurses|workers|animals|mice|rats|raters|observers)|within-?subjects?|within-participants?|repeated[- ]measures?|cross-?over|matched[- ]pairs?|measured twice|each participant (?:was|completed))(?![\p{L}])/giu;
-const INDEPENDENT_WORDS = /(?<![\p{L}])(independent[- ]samples?|two independent groups|randomi[sz]ed to|randomly assigned to|between-?subjects?|between-participants?|two-sample|unpaired)(?![\p{L}])/giu;
+/**
+ * Words that say one set of units was measured twice: the same participants, units or plots;
+ * within-subject or within-X comparisons (not "within-group" variance); before and after;
+ * crossover; paired, related or dependent samples; each participant in both conditions.
+ */
+const PAIRED_WORDS = new RegExp(String.raw`(?<![\p{L}])(paired|pre-?test|post-?test|pre- and post|pre\/post|before and after|baseline and (?:at )?(?:follow-?up|post-?\p{L}{0,12})|same (?:\d{1,5} )?(?:${UNITS}|sample|group|individuals)|within-?(?!groups?(?![\p{L}]))\p{L}{3,15}|repeated[- ]measures?|cross-?over|matched[- ]pairs?|(?:measured|tested|assessed|rated|scored|observed|sampled) twice|(?:related|dependent)[- ]samples?|each (?:participant|patient|subject|child|student|person|animal|plot|site|unit) (?:was|completed|performed|received|underwent|took part in)|(?:completed|performed|received|underwent|experienced) both (?:conditions|treatments|sessions|tasks|versions|interventions)|counterbalanced order|on two occasions|at (?:both|two) time ?points)(?![\p{L}])`, 'giu');
+const INDEPENDENT_WORDS = /(?<![\p{L}])(independent[- ]samples?|two independent groups|independent groups|separate groups|different (?:participants|groups of participants|individuals)|randomi[sz]ed to|randomly (?:assigned|allocated) to|allocated to|assigned to one of|between-?subjects?|between-participants?|two-sample|unpaired|unrelated samples?)(?![\p{L}])/giu;
 const ONE_SAMPLE_WORDS = /(?<![\p{L}])(one-sample|single-sample)(?![\p{L}])/giu;
 const REFERENCE = new RegExp(
   String.raw`(?:test value|hypothesi[sz]ed (?:value|mean)|reference value|population mean|norm|benchmark|target|chance(?:[- ]level)?)(?: of| =| at| was| is)? ?\(? ?${NUM}( ?%)?`,
@@ -136,8 +145,11 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
   }
   if (/\d (?:[a-z]{3,12})/.test(text)) for (const m of text.matchAll(PARTICIPANTS)) {
     const a = num(seg, m, 1);
+    // "groups of 30 nurses each", "24 pupils per class": a group's size, not the total
+    const end = m.index + m[0].length;
+    const perGroup = PER_GROUP_AFTER.test(text.slice(end, end + 20)) || PER_GROUP_BEFORE.test(text.slice(Math.max(0, m.index - 12), m.index));
     // "N = 60 staff" is one statement of the total, already read
-    if (a && !sampleSizes.some((s) => s.n.span.start === a.span.start)) sampleSizes.push({ ...where(m.index, m.index + m[0].length), n: a, scope: 'total' });
+    if (a && !sampleSizes.some((s) => s.n.span.start === a.span.start)) sampleSizes.push({ ...where(m.index, end), n: a, scope: perGroup ? 'per-group' : 'total' });
   }
   tokens.sort((x, y) => x.start - y.start);
 
@@ -178,7 +190,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     if (value) effectSizes.push({ ...where(m.index, m.index + m[0].length), value, kind: k === 'dz' ? 'dz' : k === 'dav' ? 'dav' : k === 'g' ? 'g' : 'd' });
   }
   const designs: DesignStatement[] = [];
-  if (/paired|pre|post|before|baseline|same|within|repeated|cross|matched|twice|each participant|independent|randomi|randomly|between|sample/i.test(text)) for (const [re, design] of [[PAIRED_WORDS, 'paired'], [INDEPENDENT_WORDS, 'independent'], [ONE_SAMPLE_WORDS, 'one-sample']] as const) {
+  if (/paired|pre|post|before|baseline|same|within|repeated|cross|matched|twice|each|both|occasions|time ?points|related|dependent|counterbalanced|independent|separate|different|randomi|randomly|allocated|assigned|between|sample/i.test(text)) for (const [re, design] of [[PAIRED_WORDS, 'paired'], [INDEPENDENT_WORDS, 'independent'], [ONE_SAMPLE_WORDS, 'one-sample']] as const) {
     for (const m of text.matchAll(re)) designs.push({ ...where(m.index, m.index + m[0].length), design });
   }
   const references: ReferenceValue[] = [];
