@@ -14,14 +14,18 @@ const MEAN_OF_ITEMS = new RegExp(String.raw`(?<![\p{L}])(?:mean|average) of (?:t
 const SUM_OF_ITEMS = new RegExp(String.raw`(?<![\p{L}])(?:sum|total) of (?:the )?${COUNT} (?:\p{L}{1,20} )?items`, 'iu');
 const K_ITEM = /(?<![\p{L}\p{N}])(\d{1,3})-item (?:scale|measure|questionnaire|inventory|index|test)(?![\p{L}])/iu;
 const INTEGER = /(?<![\p{L}])(?:single[- ]item|a single item|one item|integers?|integer[- ]valued|whole[- ]numbers?|whole[- ]number counts?|counts? of \p{L}{3,30}|(?:recorded|counted|tallied|logged|coded) as (?:the )?(?:number|count)s? of|number of \p{L}{3,30} (?:was|were) (?:recorded|counted|tallied|logged|coded))(?![\p{L}])/iu;
-/** A whole-number count named in the declaration: "the number of errors was recorded". */
-const COUNTED_THING = /(?<![\p{L}])(?:number|counts?) of (\p{L}{3,30})/iu;
+/** What a count counts: "the number of errors", "number of Lenses and keywords saved". */
+const COUNTED_THING = /(?<![\p{L}])(?:number|counts?) of (\p{L}{3,30})(?: and (\p{L}{3,30}))?/iu;
+/**
+ * Nouns whose number is a sample size, not a measure ("the number of participants"), or that
+ * are often reported in fractions ("number of hours slept"): never a whole-number measure's name.
+ */
+const NOT_A_COUNTED_MEASURE = /^(?:participant|patient|subject|people|person|individual|child|children|adult|student|pupil|respondent|volunteer|case|observation|sample|group|condition|trial|time|hour|minute|second|week|month|year|study|studie|item|point|unit|measure|factor|variable|level|way)$/u;
 /**
  * "The number of reminders averaged M = 2.39": a count reported in its own sentence (tied to
  * that sentence only). "A large number of structures" is a quantity, not a measure.
  */
-const NUMBER_OF = /(?<![\p{L}])(?<!(?:a|an|large|small|great|high|low|growing|limited|considerable|substantial|greater|larger|smaller|higher|lower|equal|same|total) )number of \p{L}{3,30}/iu;
-const MEASURING_VERB = /(?<![\p{L}])(?:recorded|counted|tallied|logged|coded|measured|scored|assessed|rated)(?![\p{L}])/iu;
+const NUMBER_OF = /(?<![\p{L}])(?<!(?:a|an|large|small|great|high|low|growing|limited|considerable|substantial|greater|larger|smaller|higher|lower|equal|same) )number of \p{L}{3,30}/iu;
 /** The sentence's subject before its verb: "Mood was rated …", "Errors were recorded …". */
 const SUBJECT = /^(?:[\p{L}'’-]{1,30} ){0,6}?([\p{L}'’-]{3,30}) (?:was|were|is|are) /u;
 const DETERMINERS = new Set(['the', 'a', 'an', 'each', 'every', 'our', 'their', 'its', 'this', 'these', 'that', 'all']);
@@ -47,8 +51,9 @@ export function findIntegerMeasures(seg: Segment, starts: number[]): IntegerStat
     if (!found || !(found.items >= 1)) continue;
     const start = a + found.m.index;
     const end = start + found.m[0].length;
-    // a bare "number of X" names its measure for other sentences only when it says how it was measured
-    const measure = found.m === integer && !INTEGER.test(sentence) && !MEASURING_VERB.test(sentence) ? undefined : measureName(sentence);
+    const measures = measureNames(sentence);
+    // "the number of participants" is a sample size, not a whole-number measure
+    if (found.m !== mean && found.m !== sum && found.m !== kItem && !INTEGER.test(sentence) && measures.length === 0) continue;
     out.push({
       segment: seg.id,
       block: seg.block,
@@ -56,7 +61,7 @@ export function findIntegerMeasures(seg: Segment, starts: number[]): IntegerStat
       span: sourceSpan(seg, start, end),
       printed: text.slice(start, end),
       items: found.items,
-      ...(measure ? { measure } : {}),
+      ...(measures.length > 0 ? { measures } : {}),
     });
   }
   return out;
@@ -66,13 +71,15 @@ function itemCount(word: string): number {
   return NUMBER_WORDS[word.toLowerCase()] ?? Number(word);
 }
 
-/** The head word of the declared measure, lower-case and singular, when the sentence says it. */
-function measureName(sentence: string): string | undefined {
+/**
+ * The declared measures, as lower-case singular words: what a count counts ("the number of
+ * Lenses and keywords" → lense, keyword), else the sentence's subject ("Mood was rated …").
+ */
+function measureNames(sentence: string): string[] {
   const counted = COUNTED_THING.exec(sentence);
-  const subject = SUBJECT.exec(sentence.trimStart());
-  const word = subject?.[1] ?? counted?.[1];
-  if (!word || DETERMINERS.has(word.toLowerCase())) return counted?.[1] ? singular(counted[1]) : undefined;
-  return singular(word);
+  if (counted) return [counted[1], counted[2]].flatMap((w) => (w ? [singular(w)] : [])).filter((w) => !NOT_A_COUNTED_MEASURE.test(w));
+  const word = SUBJECT.exec(sentence.trimStart())?.[1];
+  return word && !DETERMINERS.has(word.toLowerCase()) ? [singular(word)] : [];
 }
 
 /** `errors` → `error`, `anxiety` stays: enough to match the name in another sentence. */
@@ -86,7 +93,7 @@ export function singular(word: string): string {
  * lookup per word, so linear in the text).
  */
 export function findMeasureMentions(segments: readonly Segment[], declared: readonly IntegerStatement[]): MeasureMention[] {
-  const names = new Set(declared.flatMap((d) => (d.measure ? [d.measure] : [])));
+  const names = new Set(declared.flatMap((d) => d.measures ?? []));
   if (names.size === 0) return [];
   const out: MeasureMention[] = [];
   for (const seg of segments) {

@@ -234,8 +234,8 @@ export interface IntegerStatement {
   printed: string;
   /** Integer items a score averages ("the mean of four items" → 4, "a 10-item scale" → 10); 1 for a single item, a count or a sum. */
   items: number;
-  /** The measure declared, as one lower-case singular word ("errors were counted" → "error"), when the sentence names it. */
-  measure?: string;
+  /** The measures declared, as lower-case singular words ("the number of errors" → "error"), when the sentence names them. */
+  measures?: string[];
 }
 
 /** A sentence that names a measure some declaration made whole-number. */

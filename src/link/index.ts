@@ -155,7 +155,7 @@ function integerDeclarations(x: Extraction): LinkedDocument['integerDeclarations
   const bySentence = new Map<string, IntegerStatement>();
   for (const d of x.integerMeasures) if (!bySentence.has(key(d.segment, d.sentence))) bySentence.set(key(d.segment, d.sentence), d);
   const byName = new Map<string, IntegerStatement[]>();
-  for (const d of x.integerMeasures) if (d.measure) byName.set(d.measure, [...(byName.get(d.measure) ?? []), d]);
+  for (const d of x.integerMeasures) for (const name of d.measures ?? []) byName.set(name, [...(byName.get(name) ?? []), d]);
   const named = new Map<string, Set<string>>();
   for (const m of x.measureMentions) {
     const k = key(m.segment, m.sentence);
