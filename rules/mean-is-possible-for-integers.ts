@@ -2,8 +2,8 @@ import { fill, numberInterval, showNumber, type Rule, type RuleFinding, NO_OPTIO
 import { grimmerPossible, grimPossible } from '../src/stats/index.js';
 
 const messages = {
-  'grim-mean': 'Reported {reported} for {what}: a mean of {n} whole-number scores{items} is a multiple of 1/{total}, and none rounds to {mean}; the nearest possible means are {below} and {above} (GRIM).',
-  'grimmer-sd': 'Reported {reported} for {what}: with n = {n} whole-number scores and this mean, no possible sum of squares gives an SD that rounds to {sd} (GRIMMER).',
+  'grim-mean': 'Reported {reported} for {what}: a mean of {n} whole-number scores{items}{nSource} is a multiple of 1/{total}, and none rounds to {mean}; the nearest possible means are {below} and {above} (GRIM).',
+  'grimmer-sd': 'Reported {reported} for {what}: with n = {n} whole-number scores{nSource} and this mean, no possible sum of squares gives an SD that rounds to {sd} (GRIMMER).',
 };
 
 /** Means (and SDs) of whole-number data are ones such data can have. */
@@ -19,7 +19,8 @@ export const meanIsPossibleForIntegers: Rule = {
     const x = document.extraction;
     const out: RuleFinding[] = [];
     for (const g of x.summaries) {
-      if (!g.mean || !g.n || g.percent || g.mean.decimals === 0) continue;
+      const inferred = document.inferredSizes.get(g);
+      if (!g.mean || (!g.n && !inferred) || g.percent || g.mean.decimals === 0) continue;
       // Only where the measure is certainly declared whole-number: configuration or front
       // matter, a declaration in the same sentence, or one that names the measure this
       // sentence names (across sections). A paragraph's other sentences are not enough: "a
@@ -27,7 +28,8 @@ export const meanIsPossibleForIntegers: Rule = {
       const stated = document.integerDeclarations.get(g)?.statement;
       const items = stated?.items ?? document.integerMeasure?.value.items;
       if (items === undefined) continue;
-      const n = g.n.value;
+      const n = g.n?.value ?? (inferred?.n as number);
+      const nSource = g.n ? '' : ` (n is not printed with it: ${inferred?.because})`;
       const [lo, hi] = numberInterval(g.mean);
       const grim = grimPossible(lo, hi, n, items);
       const base = { reported: g.printed, block: g.block, ...(stated ? { related: [{ span: stated.span, message: 'where the text says the scores are whole numbers' }] } : {}) };
@@ -37,7 +39,7 @@ export const meanIsPossibleForIntegers: Rule = {
           ...base,
           messageId: 'grim-mean',
           span: g.mean.span,
-          message: fill(messages['grim-mean'], { reported: g.printed, what, n, items: items > 1 ? ` of ${items} items` : '', total: n * items, mean: g.mean.printed, below: showNumber(grim.below), above: showNumber(grim.above) }),
+          message: fill(messages['grim-mean'], { reported: g.printed, what, n, nSource, items: items > 1 ? ` of ${items} items` : '', total: n * items, mean: g.mean.printed, below: showNumber(grim.below), above: showNumber(grim.above) }),
           check: 'Check the mean and n against the data: a typo in either, or an n that counts excluded cases, gives this.',
         });
         continue;
@@ -49,7 +51,7 @@ export const meanIsPossibleForIntegers: Rule = {
             ...base,
             messageId: 'grimmer-sd',
             span: g.spread.number.span,
-            message: fill(messages['grimmer-sd'], { reported: g.printed, what, n, sd: g.spread.number.printed }),
+            message: fill(messages['grimmer-sd'], { reported: g.printed, what, n, nSource, sd: g.spread.number.printed }),
             check: 'Check the SD, mean and n against the data.',
           });
         }

@@ -1,5 +1,6 @@
 import type { Segment } from '../parse/types.js';
 import { sentenceOf, sentenceStarts, sourceSpan } from './numbers.js';
+import { UNIT_WORDS } from './units.js';
 import type { IntegerStatement, MeasureMention } from './types.js';
 
 const NUMBER_WORDS: Record<string, number> = { one: 1, two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10, eleven: 11, twelve: 12, fifteen: 15, twenty: 20 };
@@ -26,8 +27,11 @@ const NOT_A_COUNTED_MEASURE = /^(?:participant|patient|subject|people|person|ind
  * that sentence only). "A large number of structures" is a quantity, not a measure.
  */
 const NUMBER_OF = /(?<![\p{L}])(?<!(?:a|an|large|small|great|high|low|growing|limited|considerable|substantial|greater|larger|smaller|higher|lower|equal|same) )number of \p{L}{3,30}/iu;
-/** The sentence's subject before its verb: "Mood was rated …", "Errors were recorded …". */
-const SUBJECT = /^(?:[\p{L}'’-]{1,30} ){0,6}?([\p{L}'’-]{3,30}) (?:was|were|is|are) /u;
+/** The sentence's subject before its verb: "Mood was rated …", "Errors per shift were recorded …". */
+const SUBJECT = /^((?:[\p{L}'’-]{1,30} ){0,5}[\p{L}'’-]{2,30}) (?:was|were|is|are) /u;
+/** Where a subject's head phrase ends: "errors per shift" → "errors", "number of visits in May" → … */
+const HEAD_END = / (?:per|of|in|at|on|for|during|from|with|across|after|before|by) /u;
+const SAMPLE_SIZE_DEFINITION = /(?<![\p{L}])(?:n|N|sample size) (?:is|was|=|denotes|indicates|gives|refers to) the (?:number|count) of/u;
 const DETERMINERS = new Set(['the', 'a', 'an', 'each', 'every', 'our', 'their', 'its', 'this', 'these', 'that', 'all']);
 
 /**
@@ -51,6 +55,8 @@ export function findIntegerMeasures(seg: Segment, starts: number[]): IntegerStat
     if (!found || !(found.items >= 1)) continue;
     const start = a + found.m.index;
     const end = start + found.m[0].length;
+    // "n is the number of mice": what n counts, not a measure
+    if (SAMPLE_SIZE_DEFINITION.test(sentence)) continue;
     const measures = measureNames(sentence);
     // "the number of participants" is a sample size, not a whole-number measure
     if (found.m !== mean && found.m !== sum && found.m !== kItem && !INTEGER.test(sentence) && measures.length === 0) continue;
@@ -72,14 +78,21 @@ function itemCount(word: string): number {
 }
 
 /**
- * The declared measures, as lower-case singular words: what a count counts ("the number of
- * Lenses and keywords" → lense, keyword), else the sentence's subject ("Mood was rated …").
+ * The declared measures, as lower-case phrases of one to three words with the last word
+ * singular: what a count counts ("the number of Lenses and keywords" → lense, keyword), else
+ * the head of the sentence's subject ("Errors per shift were recorded …" → error; "Job
+ * satisfaction was scored …" → job satisfaction).
  */
 function measureNames(sentence: string): string[] {
   const counted = COUNTED_THING.exec(sentence);
-  if (counted) return [counted[1], counted[2]].flatMap((w) => (w ? [singular(w)] : [])).filter((w) => !NOT_A_COUNTED_MEASURE.test(w));
-  const word = SUBJECT.exec(sentence.trimStart())?.[1];
-  return word && !DETERMINERS.has(word.toLowerCase()) ? [singular(word)] : [];
+  if (counted) return [counted[1], counted[2]].flatMap((w) => (w && !UNIT_WORDS.has(w.toLowerCase()) ? [singular(w)] : [])).filter((w) => !NOT_A_COUNTED_MEASURE.test(w));
+  const subject = SUBJECT.exec(sentence.trimStart())?.[1];
+  if (!subject) return [];
+  const words = subject.toLowerCase().split(HEAD_END)[0]?.split(' ').filter((w) => !DETERMINERS.has(w)) ?? [];
+  if (words.length === 0 || words.length > 3) return [];
+  const last = words.length - 1;
+  const phrase = words.map((w, i) => (i === last ? singular(w) : w)).join(' ');
+  return NOT_A_COUNTED_MEASURE.test(phrase) ? [] : [phrase];
 }
 
 /** `errors` → `error`, `anxiety` stays: enough to match the name in another sentence. */
@@ -89,27 +102,43 @@ export function singular(word: string): string {
 }
 
 /**
- * Every sentence that names a declared measure, one pass over each segment's words (a set
- * lookup per word, so linear in the text).
+ * Every sentence that names a declared measure: one pass over each segment's words, a map
+ * lookup per word for the phrases it can start (so linear in the text).
  */
 export function findMeasureMentions(segments: readonly Segment[], declared: readonly IntegerStatement[]): MeasureMention[] {
-  const names = new Set(declared.flatMap((d) => d.measures ?? []));
-  if (names.size === 0) return [];
+  const byFirst = new Map<string, string[][]>();
+  for (const phrase of new Set(declared.flatMap((d) => d.measures ?? []))) {
+    const words = phrase.split(' ');
+    const first = words.length === 1 ? (words[0] as string) : (words[0] as string);
+    byFirst.set(first, [...(byFirst.get(first) ?? []), words]);
+  }
+  if (byFirst.size === 0) return [];
   const out: MeasureMention[] = [];
   for (const seg of segments) {
     if (seg.kind === 'code') continue;
     let starts: number[] | undefined;
     const seen = new Set<string>();
-    for (const m of seg.text.matchAll(/\p{L}[\p{L}'’-]{2,30}/gu)) {
-      const word = singular(m[0]);
-      if (!names.has(word)) continue;
-      starts ??= sentenceStarts(seg.text);
-      const sentence = sentenceOf(starts, m.index);
-      const key = `${sentence}:${word}`;
-      if (seen.has(key)) continue;
-      seen.add(key);
-      out.push({ measure: word, segment: seg.id, sentence });
-    }
+    const words = [...seg.text.matchAll(/\p{L}[\p{L}'’-]{1,30}/gu)];
+    words.forEach((m, i) => {
+      const candidates = byFirst.get(m[0].toLowerCase()) ?? byFirst.get(singular(m[0]));
+      if (!candidates) return;
+      for (const phrase of candidates) {
+        const last = phrase.length - 1;
+        const matches = phrase.every((w, k) => {
+          const got = words[i + k]?.[0];
+          if (!got) return false;
+          return k === last ? singular(got) === w : got.toLowerCase() === w;
+        });
+        if (!matches) continue;
+        starts ??= sentenceStarts(seg.text);
+        const sentence = sentenceOf(starts, m.index);
+        const measure = phrase.join(' ');
+        const key = `${sentence}:${measure}`;
+        if (seen.has(key)) continue;
+        seen.add(key);
+        out.push({ measure, segment: seg.id, sentence });
+      }
+    });
   }
   return out;
 }

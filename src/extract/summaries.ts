@@ -1,5 +1,6 @@
 import type { Segment } from '../parse/types.js';
 import { readNumber, sentenceOf, sourceSpan } from './numbers.js';
+import { UNITS } from './units.js';
 import type {
   CountPercent,
   DesignStatement,
@@ -22,9 +23,7 @@ const START = String.raw`(?<![\p{L}\p{N}_])`;
 const MEAN = new RegExp(String.raw`${START}(?:M|Mean|mean|Avg|avg|Average|average)(?:${SUFFIX}|[A-Z]{2,20}) ?(?:=|:|of|was) ?${NUM}( ?%)?`, 'dgu');
 const SD = new RegExp(String.raw`${START}\{?(?:SD|sd|s\.d\.|S\.D\.|Std\.? ?Dev\.?|[Ss]tandard deviation)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
 const SE = new RegExp(String.raw`${START}\{?(?:SEM|SE|s\.e\.m\.|s\.e\.|S\.E\.|[Ss]tandard error(?: of the mean)?)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
-const N = new RegExp(String.raw`${START}(?:(n|N)(?:_\{[^{}\n]{1,20}\}|_?[0-9]|_[\p{L}]{1,20})?|[Ss]ample size) ?(?:=|:) ?${INT}(?: (per group|in each group|each|per condition|per arm))?(?![\d.])`, 'dgu');
-/** `24 participants`, `the same 30 plots`: people or units counted (the noun says what a unit is). */
-const UNITS = String.raw`(?:participants|patients|subjects|people|individuals|children|adults|students|pupils|staff|volunteers|respondents|women|men|infants|pairs|twins|nurses|doctors|clinicians|teachers|workers|employees|mothers|fathers|families|households|cases|athletes|players|drivers|residents|users|customers|raters|observers|animals|mice|rats|dogs|cows|sheep|pigs|fish|birds|plots|sites|trees|plants|seedlings|fields|farms|ponds|lakes|streams|transects|quadrats|stands|colonies|hives|schools|classes|classrooms|wards|clinics|hospitals|units|samples|specimens|eyes|teeth|knees|limbs|hands)`;
+const N = new RegExp(String.raw`${START}(?:(n|N)(?:_\{[^{}\n]{1,20}\}|_?[0-9]|_[\p{L}]{1,20})?|[Ss]ample size) ?(?:=|:) ?${INT}(?: (per group|in each group|each|per condition|per arm))?(?!\d|\.\d)`, 'dgu');
 const PER_GROUP_AFTER = /^,? (?:each|per (?:group|arm|condition|class|site)|in each (?:group|arm|condition))(?![\p{L}])/u;
 const PER_GROUP_BEFORE = /(?<![\p{L}])(?:groups|arms) of $/u;
 const PARTICIPANTS = new RegExp(String.raw`(?<![\p{L}\p{N}.,])${INT} (${UNITS})(?![\p{L}])`, 'dgu');
@@ -276,7 +275,10 @@ function toSummary(seg: Segment, tokens: Token[], sentenceStarts: number[]): Gro
       };
     }
   }
-  const labelText = trimEndOf(seg.text.slice(Math.max(0, first.start - 45), first.start), '(,;:');
+  const from = Math.max(0, first.start - 45);
+  // start the label at a word, not inside one cut by the 45-character window
+  const cut = from > 0 && /\p{L}/u.test(seg.text[from - 1] ?? '') ? seg.text.indexOf(' ', from) + 1 : from;
+  const labelText = trimEndOf(seg.text.slice(cut > 0 && cut < first.start ? cut : from, first.start), '(,;:');
   const label = labelText.split(/[;)]|, |\. /).pop()?.trim();
   return {
     id: `${seg.id}:${first.start}`,

@@ -87,6 +87,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   return {
     results,
     integerDeclarations: integerDeclarations(extraction),
+    inferredSizes: inferredSizes(results),
     pWithoutT: extraction.pWithoutT,
     directives,
     extraction,
@@ -173,6 +174,40 @@ function integerDeclarations(x: Extraction): LinkedDocument['integerDeclarations
     const candidates = [...(named.get(key(g.segment, g.sentence)) ?? [])].flatMap((name) => byName.get(name) ?? []);
     const first = candidates[0];
     if (first && candidates.every((c) => c.items === first.items)) out.set(g, { statement: first, basis: 'measure-name' });
+  }
+  return out;
+}
+
+/**
+ * Sizes of groups printed without n, from certain ties only: in a design stated paired (or a
+ * test named paired) both conditions hold the same units, so one printed n is the other's,
+ * and a paired or one-sample test of whole df has df + 1 units.
+ */
+function inferredSizes(results: LinkedResult[]): LinkedDocument['inferredSizes'] {
+  const out: LinkedDocument['inferredSizes'] = new Map();
+  for (const r of results) {
+    const link = r.context.descriptives;
+    if (!link?.certain) continue;
+    const design = r.context.design;
+    const stated = design.basis !== 'default' && design.basis !== 'structure';
+    const df = r.report.df;
+    const wholeDf = df && df.decimals === 0 && df.exponent === 0 && df.value >= 1 ? df.value : undefined;
+    const printedOnce = link.groups.length === 2 && link.groups.filter((g) => g.n).length === 1 ? link.groups.find((g) => g.n)?.n : undefined;
+    if (printedOnce && wholeDf === printedOnce.value - 1 && design.value !== 'independent') {
+      // df = n − 1 with one condition of n printed: two independent groups would leave the
+      // other a single unit, so both conditions are the same n units
+      for (const g of link.groups) if (!g.n) out.set(g, { n: printedOnce.value, because: `df = ${wholeDf} is n − 1 for the n = ${printedOnce.printed} printed with the other condition` });
+    } else if (link.groups.length === 2 && design.value === 'paired' && stated) {
+      const printed = link.groups.find((g) => g.n)?.n;
+      for (const g of link.groups) {
+        if (g.n) continue;
+        if (printed) out.set(g, { n: printed.value, because: `the same units as the other condition (n = ${printed.printed})` });
+        else if (wholeDf !== undefined) out.set(g, { n: wholeDf + 1, because: `df + 1 of the paired test (df = ${wholeDf})` });
+      }
+    } else if (link.groups.length === 1 && wholeDf !== undefined && (design.value === 'one-sample' || (design.value === 'paired' && stated))) {
+      const g = link.groups[0];
+      if (g && !g.n) out.set(g, { n: wholeDf + 1, because: `df + 1 of the ${design.value} test (df = ${wholeDf})` });
+    }
   }
   return out;
 }

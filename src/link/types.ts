@@ -46,6 +46,12 @@ export interface LinkedDocument {
    * the group's own sentence, or by the measure's name in that sentence (across sections).
    */
   integerDeclarations: Map<GroupSummary, { statement: IntegerStatement; basis: 'sentence' | 'measure-name' }>;
+  /**
+   * The size of a group printed without its n, where a certain link gives it: the other
+   * condition of a paired design (the same units), or df + 1 of the paired or one-sample test
+   * the group is certainly tied to.
+   */
+  inferredSizes: Map<GroupSummary, { n: number; because: string }>;
   /** Why the front matter could not be read, when it could not. */
   frontMatterError?: { message: string; span: Span };
   /** What could not be read as written: undecodable bytes, nesting past the parser's limits. */
