@@ -28,6 +28,10 @@ export const designMatchesAnalysis: Rule = {
       const size = unitsPerCondition(result);
       const df = r.df.value;
       if (design.value === 'paired') {
+        // two conditions printed with different sizes are not one set of units measured twice:
+        // the paragraph's design words are about another comparison
+        const groupNs = (link?.groups ?? []).flatMap((g) => (g.n ? [g.n.value] : []));
+        if (groupNs.length === 2 && groupNs[0] !== groupNs[1]) continue;
         if (size && size.n > 2 && df === 2 * size.n - 2) {
           out.push({ ...base, ...size.doubts, messageId: 'paired-analysed-as-independent', message: fill(messages['paired-analysed-as-independent'], { reported: r.printed, words, n: size.n, nSource: size.source, df: r.df.printed, pairedDf: size.n - 1 }), check: 'Check whether a paired test was run; with paired data it has n − 1 df and usually a larger t.' });
           continue;
@@ -37,7 +41,10 @@ export const designMatchesAnalysis: Rule = {
         const asIndependent = evaluateDescriptives({ ...result, context: { ...result.context, design: { value: 'independent', basis: 'default' } } });
         const fit = asIndependent?.attempts.find((a) => a.fits && a.reading === 'as labelled' && a.variant === 'student' && a.nSource.startsWith('n ='));
         if (fit) {
-          out.push({ ...base, ...descriptiveDoubts(result), messageId: 'paired-t-equals-independent', message: fill(messages['paired-t-equals-independent'], { reported: r.printed, words, attempt: `Student's t with n = ${fit.ns.join(' and ')}` }), check: 'Check whether a paired test was run on the paired data.' });
+          // A paired t equals the independent-groups t whenever the two measurements are
+          // uncorrelated: a question to ask, never a certain mismatch.
+          const doubts = [...(descriptiveDoubts(result).uncertain ?? []), 'a paired t equals the independent-groups t whenever the two measurements are uncorrelated'];
+          out.push({ ...base, uncertain: doubts, messageId: 'paired-t-equals-independent', message: fill(messages['paired-t-equals-independent'], { reported: r.printed, words, attempt: `Student's t with n = ${fit.ns.join(' and ')}` }), check: 'Check whether a paired test was run on the paired data.' });
         }
       } else if (design.value === 'independent') {
         if (!size || size.n < 3 || df !== size.n - 1 || welchCouldGive(result, size.n)) continue;

@@ -1,13 +1,13 @@
-import { fill, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { fill, type ReportedNumber, type Rule, type RuleFinding, type SampleSize, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
-  'sum-differs': 'Reported {total} and groups of {ns} in the same paragraph: the groups add up to {sum}, not {n}{why}.',
+  'sum-differs': 'Reported {total} and groups of {ns} with it: the groups add up to {sum}, not {n}{why}.',
 };
 
 /** Group sizes stated with a total add up to it. */
 export const groupSizesSumToTotal: Rule = {
   id: 'group-sizes-sum-to-total',
-  summary: 'Group sizes printed in the same paragraph as a total N add up to it (or the paragraph says why not).',
+  summary: 'Group sizes printed with a total N add up to it (or the paragraph says why not).',
   kind: 'doubtful',
   defaultLevel: 'warning',
   defaultOptions: {},
@@ -17,28 +17,54 @@ export const groupSizesSumToTotal: Rule = {
     const x = document.extraction;
     const out: RuleFinding[] = [];
     const totals = x.sampleSizes.filter((s) => s.scope === 'total');
+    const totalsBySegment = groupBy(totals, (t) => t.segment);
+    // The group sizes of one sentence: lower-case n (`n = 36`) and the n of each group's
+    // descriptives, each printed number once.
+    const key = (segment: number, sentence: number) => `${segment}:${sentence}`;
+    const summariesBySentence = groupBy(x.summaries.filter((g) => g.n), (g) => key(g.segment, g.sentence));
+    const lowerCaseN = groupBy(x.sampleSizes.filter((s) => s.scope === 'unspecified'), (s) => key(s.segment, s.sentence));
+    const withExclusions = new Set(x.mentions.filter((m) => m.kind === 'exclusion').map((m) => m.segment));
+    const groupsOf = (segment: number, sentence: number, total: SampleSize) => {
+      const byStart = new Map<number, ReportedNumber>();
+      for (const g of summariesBySentence.get(key(segment, sentence)) ?? []) if (g.n && !(g.span.start <= total.span.start && total.span.end <= g.span.end)) byStart.set(g.n.span.start, g.n);
+      for (const s of lowerCaseN.get(key(segment, sentence)) ?? []) byStart.set(s.n.span.start, s.n);
+      byStart.delete(total.n.span.start);
+      return [...byStart.values()];
+    };
     for (const total of totals) {
-      const groups = x.summaries.filter((g) => g.segment === total.segment && g.n && !(g.span.start <= total.span.start && total.span.end <= g.span.end));
+      // Only groups printed in the total's own sentence are certainly its parts.
+      const groups = groupsOf(total.segment, total.sentence, total);
       if (groups.length < 2) continue;
-      const sum = groups.reduce((s, g) => s + (g.n?.value ?? 0), 0);
+      const sum = groups.reduce((s, n) => s + n.value, 0);
       if (sum === total.n.value) continue;
       // "14 participants were assigned to A (N = 14, …)": a number of people equal to a group's
-      // n is that group's size, not a total; and where the paragraph states the total the
+      // n is that group's size, not a total; and where the sentence states the total the
       // groups add up to, the other counts are parts of it.
-      if (groups.some((g) => g.n?.value === total.n.value)) continue;
-      if (totals.some((t) => t.segment === total.segment && t.n.value === sum)) continue;
-      const excluded = x.mentions.some((m) => m.kind === 'exclusion' && m.segment === total.segment);
+      if (groups.some((n) => n.value === total.n.value)) continue;
+      if ((totalsBySegment.get(total.segment) ?? []).some((t) => t.n.value === sum)) continue;
+      const excluded = withExclusions.has(total.segment);
       if (excluded && sum < total.n.value) continue;
       out.push({
         messageId: 'sum-differs',
         span: total.span,
-        message: fill(messages['sum-differs'], { total: total.printed, ns: groups.map((g) => g.n?.printed).join(' + '), sum, n: total.n.value, why: sum < total.n.value ? ', and the paragraph does not say who was left out' : '' }),
+        message: fill(messages['sum-differs'], { total: total.printed, ns: groups.map((n) => n.printed).join(' + '), sum, n: total.n.value, why: sum < total.n.value ? ', and the paragraph does not say who was left out' : '' }),
         reported: total.printed,
         check: 'Check the total and the group sizes; say how many were excluded and why.',
-        related: groups.map((g) => ({ span: g.n?.span ?? g.span, message: 'a group size' })),
+        related: groups.map((n) => ({ span: n.span, message: 'a group size' })),
         block: total.block,
       });
     }
     return out;
   },
 };
+
+function groupBy<T, K>(items: readonly T[], keyOf: (item: T) => K): Map<K, T[]> {
+  const m = new Map<K, T[]>();
+  for (const it of items) {
+    const k = keyOf(it);
+    const list = m.get(k);
+    if (list) list.push(it);
+    else m.set(k, [it]);
+  }
+  return m;
+}

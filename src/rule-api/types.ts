@@ -89,7 +89,7 @@ export type AnyRule = Rule<object>;
 
 export type { LinkedResult };
 /** Extracted records rules read through the linked document. */
-export type { AdjustMethod, ContextStatement, EffectSizeReport, GroupSummary, IntegerStatement, ReportedP } from '../extract/types.js';
+export type { AdjustMethod, ContextStatement, EffectSizeReport, GroupSummary, IntegerStatement, ReportedNumber, ReportedP, SampleSize } from '../extract/types.js';
 
 export type Guideline = 'sampl' | 'jars-quant' | 'consort';
 
