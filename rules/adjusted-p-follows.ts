@@ -6,10 +6,11 @@ const messages = {
     'Reported {adjusted}, adjusted by {method} for {m} comparisons ("{where}"). From the unadjusted p ({source}: {unadjusted}), the {method}-adjusted p is {formula} = {expected}; the reported value is outside that range within rounding.',
 };
 
-/** Where the number of comparisons was found, most specific first. */
+/** The number of comparisons, and the words that state it. */
 interface Comparisons {
   m: number;
-  statement: ContextStatement;
+  printed: string;
+  span: { start: number; end: number };
 }
 
 /** An explicitly adjusted p is the correction of its unadjusted p for the comparisons printed. */
@@ -24,13 +25,16 @@ export const adjustedPFollows: Rule = {
   check({ document }) {
     const out: RuleFinding[] = [];
     const corrections = document.statements.filter((s) => s.kind === 'multiplicity');
+    const withTests = new Set(document.results.map((x) => `${x.report.segment}:${x.report.sentence}`));
+    // statements in sentences that report no test are general; one beside a result is that result's
+    const general = corrections.filter((c) => c.comparisons !== undefined && !withTests.has(`${c.segment}:${c.sentence}`));
     for (const result of document.results) {
       const r = result.report;
       const adjusted = r.adjustedP ?? (r.p?.adjusted ? r.p : undefined);
       if (!adjusted?.number || !adjusted.adjusted || adjusted.kind !== 'value') continue;
       const method = methodOf(adjusted, corrections);
       if (method !== 'bonferroni' && method !== 'sidak') continue;
-      const comparisons = comparisonsFor(result, corrections);
+      const comparisons = adjusted.adjusted.comparisons !== undefined ? { m: adjusted.adjusted.comparisons, printed: adjusted.adjusted.printed, span: adjusted.adjusted.span } : comparisonsFor(result, corrections, general);
       if (!comparisons) continue;
       const unadjusted = unadjustedP(result);
       if (!unadjusted) continue;
@@ -46,7 +50,7 @@ export const adjustedPFollows: Rule = {
           adjusted: adjusted.printed,
           method: name,
           m: comparisons.m,
-          where: comparisons.statement.printed,
+          where: comparisons.printed,
           source: unadjusted.source,
           unadjusted: showInterval(unadjusted.range.low, unadjusted.range.high),
           formula: method === 'bonferroni' ? `min(1, ${comparisons.m} × p)` : `1 − (1 − p)^${comparisons.m}`,
@@ -55,7 +59,7 @@ export const adjustedPFollows: Rule = {
         reported: adjusted.printed,
         recomputed: { quantity: `${name}-adjusted p`, low: expected.low, high: expected.high, inputs: [unadjusted.source, `${comparisons.m} comparisons`], assumptions: [`${name} correction`, ...(unadjusted.source.startsWith('recomputed') ? [result.sidedness.value === 'one' ? 'one-tailed' : 'two-tailed'] : [])] },
         check: 'Check the number of comparisons and the adjusted p against the output; an adjusted p is the unadjusted one times the number of comparisons (at most 1).',
-        related: [{ span: comparisons.statement.span, message: 'where the correction and the number of comparisons are stated' }],
+        related: [{ span: comparisons.span, message: 'where the correction and the number of comparisons are stated' }],
         resultId: r.id,
         block: r.block,
       });
@@ -73,17 +77,19 @@ function methodOf(p: ReportedP, corrections: ContextStatement[]): AdjustMethod |
 }
 
 /**
- * The number of comparisons: stated in the result's sentence, else in its paragraph, else
- * the one number every statement of the document agrees on. Several different numbers in
+ * The number of comparisons: stated in the result's sentence, else in a sentence of its
+ * paragraph that reports no test, else the one number every such sentence of the document
+ * agrees on (a number said of one other result is that result's). Several different numbers in
  * scope: no guess.
  */
-function comparisonsFor(result: LinkedResult, corrections: ContextStatement[]): Comparisons | undefined {
+function comparisonsFor(result: LinkedResult, corrections: ContextStatement[], general: ContextStatement[]): Comparisons | undefined {
   const r = result.report;
-  const withM = corrections.filter((c) => c.comparisons !== undefined);
-  const scopes = [withM.filter((c) => c.segment === r.segment && c.sentence === r.sentence), withM.filter((c) => c.segment === r.segment), withM];
+  const own = corrections.filter((c) => c.comparisons !== undefined && c.segment === r.segment && c.sentence === r.sentence);
+  const scopes = [own, general.filter((c) => c.segment === r.segment), general];
   for (const scope of scopes) {
     const ms = new Set(scope.map((c) => c.comparisons));
-    if (ms.size === 1) return { m: [...ms][0] as number, statement: scope[0] as ContextStatement };
+    const first = scope[0];
+    if (ms.size === 1 && first) return { m: first.comparisons as number, printed: first.printed, span: first.span };
     if (ms.size > 1) return undefined;
   }
   return undefined;

@@ -74,12 +74,14 @@ function inList(text: string, start: number, end: number): boolean {
   return (text[start - 1] === ',' && /\d/.test(text[start - 2] ?? '')) || (text[end] === ',' && /\d/.test(text[end + 1] ?? ''));
 }
 
-/** `F(1,38)`, `t[1,2]`, `χ2(2,48)`: digits right after a symbol's bracket are degrees of freedom. */
+/** `F(1,38)`, `χ2(2,48)`: digits right after a symbol's bracket are a pair of degrees of freedom. */
 function afterStatisticBracket(text: string, start: number): boolean {
   let i = start - 1;
   if (text[i] === ' ') i -= 1;
   if (text[i] !== '(' && text[i] !== '[') return false;
   i -= 1;
   if (text[i] === ' ') i -= 1;
+  // t has one df: `t(23,80)` in a decimal-comma text is a Welch df of 23.80
+  if (/[tT]/.test(text[i] ?? '') && !/\p{L}/u.test(text[i - 1] ?? '')) return false;
   return /[\p{L}_²]/u.test(text[i] ?? '') || /\p{L}\d$/u.test(text.slice(Math.max(0, i - 1), i + 1));
 }

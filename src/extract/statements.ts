@@ -1,5 +1,6 @@
 import type { Segment } from '../parse/types.js';
 import { sentenceOf, sourceSpan } from './numbers.js';
+import { comparisonsIn } from './comparisons.js';
 import type { AdjustMethod, ContextStatement } from './types.js';
 
 const SIDED = /(?<![\p{L}])(one|two|1|2|single)[- ]?(tailed|sided)(?![\p{L}])|(?<![\p{L}])(non-?directional|directional)(?= (?:test|hypothes|predict))/giu;
@@ -31,9 +32,6 @@ const LOCAL_ALPHA = /(?<![\p{L}])(?:corrected|adjusted|Bonferroni|Holm|Šidák|S
 
 /** A correction for multiple comparisons named in a sentence. */
 const CORRECTION = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidak|Hochberg|Benjamini|false discovery rate|FDR|Tukey)(?![\p{L}])/iu;
-const NUMBER_WORDS: Record<string, number> = { two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10, eleven: 11, twelve: 12, fifteen: 15, twenty: 20 };
-/** The number of comparisons: `for 3 comparisons`, `six tests`, `α/4`, `.05/3`, `multiplied by 3`. */
-const COMPARISONS = /(?<![\p{L}\p{N}.])(\d{1,3}|two|three|four|five|six|seven|eight|nine|ten|eleven|twelve|fifteen|twenty) (?:(?:pairwise|planned|post[- ]hoc|primary|secondary|separate|independent) )?(?:comparisons|tests|t-tests|contrasts|outcomes|endpoints|hypotheses)(?![\p{L}])|(?:α|alpha|0?\.05) ?\/ ?(\d{1,3})(?![\d.])|multiplied by (\d{1,3}|two|three|four|five|six|seven|eight|nine|ten)(?![\p{L}\p{N}])/iu;
 
 /** Statements about tails, equivalence testing, alpha and what ± stands for, in one segment. */
 export function findStatements(seg: Segment, sentenceStarts: number[]): ContextStatement[] {
@@ -67,14 +65,12 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
       const sentence = text.slice(a, sentenceStarts[i + 1] ?? text.length);
       const method = CORRECTION.exec(sentence);
       if (!method) continue;
-      const count = COMPARISONS.exec(sentence);
-      const word = (count?.[1] ?? count?.[2] ?? count?.[3] ?? '').toLowerCase();
-      const comparisons = word === '' ? undefined : (NUMBER_WORDS[word] ?? Number(word));
+      const comparisons = comparisonsIn(sentence)?.m;
       const b = a + method.index + method[0].length;
       out.push({
         kind: 'multiplicity',
         method: correctionMethod(method[1] as string),
-        ...(comparisons !== undefined && comparisons >= 2 ? { comparisons } : {}),
+        ...(comparisons !== undefined ? { comparisons } : {}),
         ...base(a + method.index, b),
       });
     }

@@ -1,5 +1,6 @@
 import type { Segment } from '../parse/types.js';
 import { readNumber, sentenceOf, sourceSpan } from './numbers.js';
+import { comparisonsIn } from './comparisons.js';
 import { decimalsOf, starBound } from './stars.js';
 import type { AdjustMethod, Comparison, ReportedNumber, ReportedP, ReportStyle, Sidedness, TTestReport } from './types.js';
 
@@ -43,7 +44,18 @@ const P_VALUE = new RegExp(
 const ADJUSTED_BEFORE = /(?<![\p{L}])(Bonferroni|Holm|Hochberg|Šidák|Sidak|Tukey|FDR|BH|Benjamini[- ]Hochberg|multiplicity)?[- ]?(adjusted|corrected)[- ]$/iu;
 /** Words after a p that say so: `(Bonferroni-corrected)`, `, Holm-adjusted`, `after Bonferroni correction`. */
 const ADJUSTED_AFTER = /^[ ,;]{0,2}\(?(?:(Bonferroni|Holm|Hochberg|Šidák|Sidak|Tukey|FDR|BH|Benjamini[- ]Hochberg)[- ]?(?:adjusted|corrected|correction)?|adjusted|corrected|after (?:(Bonferroni|Holm|Šidák|Sidak|FDR)[- ]?)?(?:correction|adjustment))(?![\p{L}])/iu;
-const ADJUSTED_NEXT_P = /^[-\p{L}]{0,20} ?[pP](?![\p{L}])/u;
+const ADJUSTED_IN_BRACKET = /(?<![\p{L}])(Bonferroni|Holm|Hochberg|Šidák|Sidak|Tukey|FDR|BH)?[- ]?(?:adjusted|corrected|adjustment|correction)(?![\p{L}])/iu;
+/** A p value with its comparison: `p = 1.000`, `p_adj < .01`. */
+const ANOTHER_P = /(?<![\p{L}\p{N}])[pP](?:_?\{?[\p{L}]{1,12}\}?)? ?(?:=|<|>|≤|≥)/u;
+
+/**
+ * Whether words of adjustment after a p introduce the next p of the same bracket or clause
+ * (`p = .49 (Bonferroni-corrected for 4 comparisons: p = 1.000)`) rather than describe it.
+ */
+function introducesAnotherP(rest: string): boolean {
+  const end = rest.search(/[);]/u);
+  return ANOTHER_P.test(end < 0 ? rest : rest.slice(0, end));
+}
 const ADJUSTED_SUBSCRIPT = /^(?:adj|adjusted|corr|corrected|bonf|bonferroni|holm|fdr|bh|tukey|sidak|šidák|hochberg)$/iu;
 const NS = /^[ ,;]{0,3}\(?(n\. ?s\.?|ns|NS|n\.s)(?![\p{L}])/u;
 const SIDED_NEAR = /(one|two|1|2)[- ]?(tailed|sided)/iu;
@@ -193,7 +205,7 @@ function starsAfter(seg: Segment, at: number): ReportedP | undefined {
  * something else.
  */
 const CLAUSE_BREAK = /(?<![\p{L}])(?:but|whereas|while|although|though|however|yet|unlike|compared with|in contrast)(?![\p{L}])/iu;
-const REPORT_WORD = /^(?:df|d|f|se|sem|ci|cohen|cohen's|cohen’s|hedges|g|and|with|degrees?|of|freedom|a|an|the|values?|was|is|were|are|two|one|tailed|sided|tails?|ns|n|p|ps|mean|difference|md|diff|b|beta|t|lower|upper|bounds?|confidence|intervals?|estimate|dz|dav|eta|partial|exact|respectively|statistic|stat|test|welch|welch's|welch’s|student|student's|student’s|corrected|adjusted|approx|approximately|equal|variances?|assumed|not|significant)$/iu;
+const REPORT_WORD = /^(?:df|d|f|se|sem|ci|cohen|cohen's|cohen’s|hedges|g|and|with|degrees?|of|freedom|a|an|the|values?|was|is|were|are|two|one|tailed|sided|tails?|ns|n|p|ps|mean|difference|md|diff|b|beta|t|lower|upper|bounds?|confidence|intervals?|estimate|dz|dav|eta|partial|exact|respectively|statistic|stat|test|welch|welch's|welch’s|student|student's|student’s|corrected|adjusted|approx|approximately|equal|variances?|assumed|not|significant|bonferroni|holm|šidák|sidak|hochberg|fdr|correction|for|across|comparisons|tests)$/iu;
 
 function reportTailEnd(text: string, from: number, to: number): number {
   const gap = text.slice(from, to);
@@ -263,7 +275,13 @@ export function findP(seg: Segment, from: number, to: number): ReportedP | undef
     const a = from + m.index;
     const p: ReportedP = { kind: 'value', op, number, span: sourceSpan(seg, a, numEnd), printed: seg.text.slice(a, numEnd) };
     const adjusted = adjustment(seg, a, numEnd, g.sub ?? g.paren);
-    if (adjusted) p.adjusted = adjusted;
+    if (adjusted) {
+      // `p_adj = .074 (3 tests)`, `p = .12 (m = 3)`: the number of comparisons printed with it
+      const after = seg.text.slice(numEnd, numEnd + 40);
+      const close = after.search(/[);]/u);
+      const own = comparisonsIn(close < 0 ? after : after.slice(0, close));
+      p.adjusted = own ? { ...adjusted, comparisons: own.m } : adjusted;
+    }
     const label = g.paren ?? g.sub;
     if (label) {
       const sided = SIDED_LABEL.exec(label);
@@ -291,9 +309,14 @@ function adjustment(seg: Segment, a: number, b: number, label: string | undefine
     const start = a - before[0].length;
     return { method: adjustMethod(before[1] ?? ''), span: sourceSpan(seg, start, b), printed: seg.text.slice(start, b) };
   }
+  // `(Bonferroni-corrected for 4 comparisons: p = 1.000)`: the bracket the p sits in says so
+  const open = seg.text.lastIndexOf('(', a);
+  const bracket = open >= 0 && a - open <= 60 && !seg.text.slice(open, a).includes(')') ? seg.text.slice(open, a) : '';
+  const said = ADJUSTED_IN_BRACKET.exec(bracket);
+  if (said) return { method: adjustMethod(said[1] ?? ''), span: sourceSpan(seg, open + 1, b), printed: seg.text.slice(open + 1, b) };
   const after = ADJUSTED_AFTER.exec(seg.text.slice(b, b + 50));
   // `p = .045, Bonferroni-corrected p = .135`: the words introduce the next p, not this one
-  if (after && !ADJUSTED_NEXT_P.test(seg.text.slice(b + after[0].length, b + after[0].length + 30))) {
+  if (after && !introducesAnotherP(seg.text.slice(b + after[0].length, b + after[0].length + 40))) {
     const end = b + after[0].length;
     return { method: adjustMethod(after[1] ?? after[2] ?? ''), span: sourceSpan(seg, a, end), printed: seg.text.slice(a, end) };
   }

@@ -25,7 +25,7 @@ export interface ReportedP {
   span: Span;
   printed: string;
   /** The p is said to be adjusted for multiple comparisons (`p_adj`, `Bonferroni-corrected p`). */
-  adjusted?: { method: AdjustMethod; span: Span; printed: string };
+  adjusted?: { method: AdjustMethod; span: Span; printed: string; comparisons?: number };
   /** Tails written in the p's own label: `p(2-t)`, `p (one-tailed)`. */
   statedSidedness?: Sidedness;
   /** Read from significance stars (`5.63***`), with the bound they stand for and where that came from. */

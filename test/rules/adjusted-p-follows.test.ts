@@ -15,4 +15,7 @@ ruleTable('adjusted-p-follows', [
   { name: 'no number of comparisons printed: nothing is guessed', markdown: 'Recall rose, t(40) = 2.10, p = .30 (Bonferroni-corrected).', expect: [] },
   { name: 'two different numbers of comparisons in the document: nothing is guessed', markdown: 'Bonferroni correction for 3 comparisons was applied to recall.\n\nBonferroni correction for 5 comparisons was applied to mood.\n\nRecall rose, t(40) = 2.10, p = .50 (Bonferroni-corrected).', expect: [] },
   { name: 'the number stated in the result\'s own sentence wins over the document', markdown: 'Bonferroni correction for 5 comparisons was applied throughout.\n\nWith a Bonferroni correction for 2 comparisons, recall rose, t(40) = 2.10, p = .084 (Bonferroni-corrected).', expect: [] },
+  { name: 'the number of comparisons printed with the p itself wins over the document', markdown: 'Bonferroni correction for 2 comparisons was applied to mood.\n\nErrors fell, t(40) = 2.10, p_adj = .126 (3 tests).', expect: [] },
+  { name: 'adjustment words in the bracket introduce the adjusted p, not the unadjusted one before them', markdown: 'Typing rose, t(36) = 0.70, p = .49 (Bonferroni-corrected for 4 comparisons: p = 1.000).', expect: [] },
+  { name: 'a number of comparisons said of another result is not used for this one', markdown: 'Mood fell, t(40) = 0.97, p = .338 (Bonferroni-corrected for 2 comparisons: p = .676).\n\nErrors fell, t(40) = 2.10, p_adj = .126.', expect: [] },
 ]);
