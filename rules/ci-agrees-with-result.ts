@@ -1,4 +1,4 @@
-import { fill, linkDoubts, numberInterval, showInterval, tInterval, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { dfInterval, fill, linkDoubts, numberInterval, showInterval, tInterval, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 import { sideOfAlpha, twoSidedCriticalT, twoSidedPRange, type Box } from '../src/stats/index.js';
 
 const messages = {
@@ -46,21 +46,24 @@ export const ciAgreesWithResult: Rule = {
         continue;
       }
       const df = r.df.value;
+      const [dfLow, dfHigh] = dfInterval(r.df);
+      // a fractional (Welch) df was rounded: the critical value spans its interval
       const tCrit = twoSidedCriticalT(1 - ci.level, df);
+      const tCritRange: Box = [twoSidedCriticalT(1 - ci.level, dfHigh), twoSidedCriticalT(1 - ci.level, dfLow)];
       const zCrit = twoSidedCriticalT(1 - ci.level, 1e9);
       const width: Box = [Math.max(hi[0] - lo[1], Number.MIN_VALUE), hi[1] - lo[0]];
       const absEst: Box = estimate.box[0] <= 0 && estimate.box[1] >= 0 ? [0, Math.max(-estimate.box[0], estimate.box[1])] : [Math.min(Math.abs(estimate.box[0]), Math.abs(estimate.box[1])), Math.max(Math.abs(estimate.box[0]), Math.abs(estimate.box[1]))];
       // A model coefficient's interval may come from the profile likelihood or the bootstrap
       // rather than estimate ± critical value × SE: a gap of a few per cent is allowed there.
       const modelSlack = estimate.source === 'as printed' && COEFFICIENT.test(result.context.estimate?.item.printed ?? '') ? 0.05 : 0;
-      const implied = (crit: number): Box => [((absEst[0] * 2 * crit) / width[1]) * (1 - modelSlack), ((absEst[1] * 2 * crit) / width[0]) * (1 + modelSlack)];
+      const implied = (crit: Box): Box => [((absEst[0] * 2 * crit[0]) / width[1]) * (1 - modelSlack), ((absEst[1] * 2 * crit[1]) / width[0]) * (1 + modelSlack)];
       const [tl, th] = tInterval(r);
       const absT: Box = [tl <= 0 && th >= 0 ? 0 : Math.min(Math.abs(tl), Math.abs(th)), Math.max(Math.abs(tl), Math.abs(th))];
       const meets = (a: Box) => a[0] <= absT[1] && a[1] >= absT[0];
-      const viaT = implied(tCrit);
-      const viaZ = implied(zCrit);
+      const viaT = implied(tCritRange);
+      const viaZ = implied([zCrit, zCrit]);
       if (!meets(viaT) && !meets(viaZ)) {
-        const p = twoSidedPRange(viaT[0], viaT[1], df, df);
+        const p = twoSidedPRange(viaT[0], viaT[1], dfLow, dfHigh);
         out.push({
           ...base,
           messageId: 'width-vs-t',

@@ -78,7 +78,8 @@ function inList(text: string, start: number, end: number): boolean {
 function afterStatisticBracket(text: string, start: number): boolean {
   let i = start - 1;
   if (text[i] === ' ') i -= 1;
-  if (text[i] !== '(' && text[i] !== '[') return false;
+  // a parenthesis only: `CI [0,06; 0,76]` opens an interval, not degrees of freedom
+  if (text[i] !== '(') return false;
   i -= 1;
   if (text[i] === ' ') i -= 1;
   // t has one df: `t(23,80)` in a decimal-comma text is a Welch df of 23.80

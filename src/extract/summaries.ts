@@ -35,7 +35,8 @@ const CI = new RegExp(
   String.raw`(\d{2}(?:\.\d)?) ?(?:%|percent) ?(?:CI|C\.I\.|confidence intervals?)[^\d\-+.\n]{0,18}${NUM} ?(?:,|;|to|–|—| - | |-(?=\.?\d)) ?${NUM}(?: ?[\])])?`,
   'dgu',
 );
-const ESTIMATE = new RegExp(String.raw`${START}(?:mean difference|difference|MD|M_?\{?diff\}?|b|B|β|estimate|Δ) ?(?:=|:|of|was) ?${NUM}`, 'dgu');
+/** `difference = 3.8`, `b = 0.37`, `MD: 3.1`; a spelled-out `mean difference 24.28` or `mean change -0.18` needs no sign. */
+const ESTIMATE = new RegExp(String.raw`${START}(?:(?:mean difference|difference|MD|M_?\{?diff\}?|b|B|β|estimate|Δ|mean change) ?(?:=|:|of|was) ?|(?:mean difference|mean change) (?=[-+]?\d{0,9}\.\d))${NUM}`, 'dgu');
 const EFFECT = new RegExp(String.raw`(?<![\p{L}\p{N}_'’])(?:(?:Cohen['’]s|Hedges['’]s?) ?)?(d_?\{?z\}?|d_?\{?av\}?|d|g)(?![\p{L}\p{N}′'’]) ?= ?${NUM}`, 'dgu');
 /**
  * Words that say one set of units was measured twice: the same participants, units or plots;
@@ -178,7 +179,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     intervals.push({ ...where(m.index, m.index + m[0].length), level: Number(m[1]) / 100, low, high });
   }
   const estimates: EstimateReport[] = [];
-  if (/difference|MD|diff|\b[bB] ?[=:]|β|estimate|Δ/.test(text)) for (const m of text.matchAll(ESTIMATE)) {
+  if (/difference|MD|diff|\b[bB] ?[=:]|β|estimate|Δ|change/.test(text)) for (const m of text.matchAll(ESTIMATE)) {
     const value = num(seg, m, 1);
     if (value) estimates.push({ ...where(m.index, m.index + m[0].length), value });
   }
