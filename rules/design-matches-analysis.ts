@@ -1,4 +1,4 @@
-import { descriptiveDoubts, evaluateDescriptives, fill, numberInterval, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { descriptiveDoubts, evaluateDescriptives, fill, numberInterval, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS, isWholeDf } from '../src/rule-api/index.js';
 import { welchDfRange } from '../src/stats/index.js';
 
 const messages = {
@@ -21,7 +21,7 @@ export const designMatchesAnalysis: Rule = {
     for (const result of document.results) {
       const r = result.report;
       const design = result.context.design;
-      if (!r.df || !Number.isInteger(r.df.value) || design.basis === 'default' || design.basis === 'structure') continue;
+      if (!r.df || !isWholeDf(r.df) || design.basis === 'default' || design.basis === 'structure') continue;
       const link = result.context.descriptives;
       const words = design.printed ?? (r.namedVariant ?? design.value);
       const base = { span: r.span, reported: r.printed, resultId: r.id, block: r.block, ...(design.span ? { related: [{ span: design.span, message: 'the words that describe the design' }] } : {}) };

@@ -1,4 +1,4 @@
-import { dfInterval, fill, inferDesign, numberInterval, showInterval, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts, type LinkedResult } from '../src/rule-api/index.js';
+import { dfInterval, fill, inferDesign, numberInterval, showInterval, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts, type LinkedResult, isWholeDf } from '../src/rule-api/index.js';
 import { welchDfRange } from '../src/stats/index.js';
 
 const messages = {
@@ -29,7 +29,7 @@ export const dfFollowsFromN: Rule = {
         // ("the same 24 employees … t(21) = …"): a paired test has n − 1 df.
         const units = pairsInSentence(result);
         const df = r.df.value;
-        if (units !== undefined && Number.isInteger(df) && df !== units.n - 1 && df !== 2 * units.n - 2) {
+        if (units !== undefined && isWholeDf(r.df) && df !== units.n - 1 && df !== 2 * units.n - 2) {
           out.push({ span: r.df.span, reported: r.printed, resultId: r.id, block: r.block, messageId: 'paired', message: fill(messages.paired, { df: r.df.printed, n: units.n, expected: units.n - 1 }), check: 'Check the df against the number of pairs.', related: [{ span: units.span, message: 'the number of pairs' }] });
         }
         continue;
@@ -43,7 +43,7 @@ export const dfFollowsFromN: Rule = {
       const design = inferDesign(result);
       if (ns.length === 1) {
         const n = ns[0] as number;
-        if (Number.isInteger(df) && df !== n - 1) {
+        if (isWholeDf(r.df) && df !== n - 1) {
           out.push({ ...base, messageId: 'one-group', message: fill(messages['one-group'], { df: r.df.printed, n, expected: n - 1 }), check: 'Check the df and n against the output; an n that counts excluded participants is a common cause.' });
         }
         continue;
@@ -56,7 +56,7 @@ export const dfFollowsFromN: Rule = {
         }
         continue;
       }
-      if (Number.isInteger(df)) {
+      if (isWholeDf(r.df)) {
         if (df !== n1 + n2 - 2 && !(design === 'independent' && n1 === n2 && df === n1 - 1) && !(n1 === n2 && df === n1 - 1)) {
           out.push({ ...base, messageId: 'student', message: fill(messages.student, { df: r.df.printed, n1, n2, expected: n1 + n2 - 2 }), check: 'Check the df and the group sizes against the output.' });
         }
@@ -69,14 +69,19 @@ export const dfFollowsFromN: Rule = {
         continue;
       }
       const [g1, g2] = link.groups;
-      if (g1?.spread && g2?.spread && link.spreadKinds.every((k) => k === 'SD')) {
-        const range = welchDfRange(numberInterval(g1.spread.number), n1, numberInterval(g2.spread.number), n2);
-        if (range.high < dfLow || range.low > dfHigh) {
+      if (g1?.spread && g2?.spread) {
+        // SEs are SD/√n; spreads of unstated kind are tried both ways
+        const kinds = link.spreadKinds;
+        const readings = kinds.every((k) => k === 'SD') ? [false] : kinds.every((k) => k === 'SE') ? [true] : kinds.every((k) => k === 'unstated') ? [false, true] : [];
+        const sd = (b: [number, number], n: number, asSE: boolean): [number, number] => (asSE ? [b[0] * Math.sqrt(n), b[1] * Math.sqrt(n)] : b);
+        const ranges = readings.map((asSE) => welchDfRange(sd(numberInterval(g1.spread!.number), n1, asSE), n1, sd(numberInterval(g2.spread!.number), n2, asSE), n2));
+        const range = ranges[0];
+        if (range && ranges.every((x) => x.high < dfLow || x.low > dfHigh)) {
           out.push({
             ...base,
             messageId: 'welch-sds',
             message: fill(messages['welch-sds'], { df: r.df.printed, inputs: `${g1.printed}; ${g2.printed}`, expected: showInterval(range.low, range.high) }),
-            recomputed: { quantity: 'Welch–Satterthwaite df', low: range.low, high: range.high, inputs: [g1.printed, g2.printed], assumptions: ['spreads are SDs, as labelled'] },
+            recomputed: { quantity: 'Welch–Satterthwaite df', low: range.low, high: range.high, inputs: [g1.printed, g2.printed], assumptions: [readings.length > 1 ? 'spreads read as SDs, and as SEs' : readings[0] ? 'spreads are SEs, as labelled (SD = SE·√n)' : 'spreads are SDs, as labelled'] },
             check: 'Check the df, the SDs and the group sizes against the output.',
           });
         }

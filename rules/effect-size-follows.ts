@@ -1,4 +1,4 @@
-import { fill, inferDesign, linkDoubts, numberInterval, showInterval, tInterval, type EffectSizeReport, type GroupSummary, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { fill, inferDesign, linkDoubts, numberInterval, showInterval, tInterval, type EffectSizeReport, type GroupSummary, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS, isWholeDf } from '../src/rule-api/index.js';
 import { dAverage, dFromMeansPooled, dFromTIndependent, dRepeatedMeasures, dzFromT, hedgesCorrection, type Box, type Interval } from '../src/stats/index.js';
 
 const messages = {
@@ -27,7 +27,7 @@ export const effectSizeFollows: Rule = {
       for (const es of result.context.effectSizes) {
         const finding = checkOne(result, es.item);
         if (!finding) continue;
-        const doubts = linkDoubts({ descriptives: result.context.descriptives, linked: [es] });
+        const doubts = [...linkDoubts({ descriptives: result.context.descriptives, linked: [es] }), ...(finding.uncertain ?? [])];
         out.push({ ...finding, ...(doubts.length > 0 ? { uncertain: doubts } : {}) });
       }
     }
@@ -35,7 +35,10 @@ export const effectSizeFollows: Rule = {
   },
 };
 
-/** Every common definition the printed numbers allow for this effect size; a finding when none gives it. */
+/**
+ * Every common definition the printed numbers allow for this effect size; a finding when none
+ * gives it (with `uncertain` when a definition the text allows could not be computed).
+ */
 function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | undefined {
   const r = result.report;
   const df = r.df?.value as number;
@@ -46,7 +49,7 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
   const kinds = result.context.descriptives?.spreadKinds ?? [];
   const perGroup = result.context.sampleSizes.find((s) => s.scope === 'per-group')?.n.value;
   const ns = groups.map((g) => g.n?.value ?? perGroup);
-  const welch = !Number.isInteger(df);
+  const welch = !isWholeDf(r.df as NonNullable<typeof r.df>);
   const candidates: Candidate[] = [];
   const mayBePaired = design === 'paired' || design === 'unknown';
   const mayBeIndependent = design === 'independent' || design === 'unknown';
@@ -68,21 +71,36 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
     candidates.push({ name: 'd = 2t/√df', range: { low: (2 * absT[0]) / Math.sqrt(df), high: (2 * absT[1]) / Math.sqrt(df) } });
   }
   // From the means and SDs (spreads labelled SE are not SDs; unstated ones are read as SDs).
-  const twoWithSDs = groups.length === 2 && groups.every((g) => g.mean && g.spread) && kinds.every((k) => k !== 'SE');
-  if (twoWithSDs) {
+  // Spreads read as labelled: SDs as they are, SEs as SD = SE·√n, unstated ones both ways.
+  const open: string[] = [];
+  const readings = (list: readonly string[]): boolean[] => (list.every((k) => k === 'SD') ? [false] : list.every((k) => k === 'SE') ? [true] : [false, true]);
+  const sdBox = (g: GroupSummary, n: number | undefined, asSE: boolean): Box | undefined => {
+    const b = numberInterval(g.spread!.number);
+    if (!asSE) return b;
+    return n === undefined ? undefined : [b[0] * Math.sqrt(n), b[1] * Math.sqrt(n)];
+  };
+  if (groups.length === 2 && groups.every((g) => g.mean && g.spread)) {
     const [g1, g2] = groups as [GroupSummary, GroupSummary];
     const m1 = numberInterval(g1.mean!);
     const m2 = numberInterval(g2.mean!);
-    const s1 = numberInterval(g1.spread!.number);
-    const s2 = numberInterval(g2.spread!.number);
-    const n1 = ns[0] ?? (df + 2) / 2;
-    const n2 = ns[1] ?? (df + 2) / 2;
-    candidates.push({ name: 'd = (M1 − M2)/pooled SD', range: dFromMeansPooled(m1, s1, n1, m2, s2, n2) });
-    candidates.push({ name: 'd_av = (M1 − M2)/mean of the SDs', range: dAverage(m1, s1, m2, s2) });
-    candidates.push({ name: "Glass's Δ (either group's SD)", range: glass(m1, m2, s1, s2) });
-    if (mayBePaired && !welch) {
-      const rm = dRepeatedMeasures(m1, s1, m2, s2, df + 1, absT);
-      if (Number.isFinite(rm.low)) candidates.push({ name: 'd_rm = d_z·√(2(1 − r)), r implied by the means, SDs and t', range: rm });
+    const paired = design === 'paired' && !welch;
+    const n1 = ns[0] ?? (paired ? df + 1 : undefined);
+    const n2 = ns[1] ?? (paired ? df + 1 : undefined);
+    for (const asSE of readings(kinds)) {
+      const s1 = sdBox(g1, n1, asSE);
+      const s2 = sdBox(g2, n2, asSE);
+      if (!s1 || !s2) {
+        open.push('the spreads may be SEs, and without the group sizes their SDs cannot be recovered');
+        continue;
+      }
+      const how = asSE ? ' (spreads read as SEs, SD = SE·√n)' : '';
+      candidates.push({ name: `d = (M1 − M2)/pooled SD${how}`, range: dFromMeansPooled(m1, s1, n1 ?? (df + 2) / 2, m2, s2, n2 ?? (df + 2) / 2) });
+      candidates.push({ name: `d_av = (M1 − M2)/mean of the SDs${how}`, range: dAverage(m1, s1, m2, s2) });
+      candidates.push({ name: `Glass's Δ (either group's SD)${how}`, range: glass(m1, m2, s1, s2) });
+      if (mayBePaired && !welch) {
+        const rm = dRepeatedMeasures(m1, s1, m2, s2, df + 1, absT);
+        if (Number.isFinite(rm.low)) candidates.push({ name: `d_rm = d_z·√(2(1 − r)), r implied by the means, SDs and t${how}`, range: rm });
+      }
     }
   } else if (mayBePaired && !welch) {
     // Without the means and SDs, d_av, d_rm and the pooled-SD d of a paired design cannot be
@@ -90,12 +108,15 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
     const dz = dzFromT(absT, df + 1);
     candidates.push({ name: 'd_av, d_rm or pooled-SD d of a paired design (at most 2·d_z, as SD_diff ≤ SD1 + SD2)', range: { low: 0, high: 2 * dz.high } });
   }
-  if (groups.length === 1 && groups[0]?.mean && groups[0].spread && kinds[0] !== 'SE') {
-    const m = numberInterval(groups[0].mean);
-    const s = numberInterval(groups[0].spread.number);
+  const single = groups.length === 1 ? groups[0] : undefined;
+  if (single?.mean && single.spread) {
+    const m = numberInterval(single.mean);
     const mu = result.context.reference?.value.value ?? 0;
     const diff = [Math.abs(m[0] - mu), Math.abs(m[1] - mu)].sort((a, b) => a - b) as Box;
-    candidates.push({ name: 'd = (M − μ0)/SD', range: { low: diff[0] / s[1], high: diff[1] / s[0] } });
+    for (const asSE of readings(kinds)) {
+      const s = sdBox(single, single.n?.value ?? df + 1, asSE) as Box;
+      candidates.push({ name: `d = (M − μ0)/SD${asSE ? ' (spread read as an SE, SD = SE·√n)' : ''}`, range: { low: diff[0] / s[1], high: diff[1] / s[0] } });
+    }
   }
   const named = es.kind === 'dz' ? candidates.filter((c) => c.name.startsWith('d_z')) : es.kind === 'dav' ? candidates.filter((c) => c.name.startsWith('d_av')) : candidates;
   // Hedges' g for each (J from the df; also the common approximation 1 − 3/(4df − 1)).
@@ -120,6 +141,7 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
     related: [{ span: r.span, message: 'the test it belongs to' }],
     resultId: r.id,
     block: r.block,
+    ...(open.length > 0 ? { uncertain: open } : {}),
   };
 }
 

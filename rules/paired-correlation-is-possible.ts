@@ -1,4 +1,4 @@
-import { fill, inferDesign, numberInterval, showInterval, tInterval, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts } from '../src/rule-api/index.js';
+import { fill, inferDesign, numberInterval, showInterval, tInterval, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts, isWholeDf } from '../src/rule-api/index.js';
 import { pairedImpliedCorrelation, type Box } from '../src/stats/index.js';
 
 const messages = {
@@ -23,7 +23,7 @@ export const pairedCorrelationIsPossible: Rule = {
       if (!link || link.groups.length !== 2 || r.tOp !== '=' || inferDesign(result) !== 'paired') continue;
       const [g1, g2] = link.groups;
       if (!g1?.mean || !g1.spread || !g2?.mean || !g2.spread) continue;
-      const n = g1.n?.value ?? g2.n?.value ?? (r.df && Number.isInteger(r.df.value) ? r.df.value + 1 : undefined);
+      const n = g1.n?.value ?? g2.n?.value ?? (r.df && isWholeDf(r.df) ? r.df.value + 1 : undefined);
       if (!n) continue;
       const sd = (g: typeof g1, kind: string): Box => {
         const b = numberInterval((g.spread as NonNullable<typeof g.spread>).number);

@@ -1,4 +1,4 @@
-import { fill, inferDesign, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { fill, inferDesign, type Rule, type RuleFinding, NO_OPTIONS, isWholeDf } from '../src/rule-api/index.js';
 
 const messages = {
   'df-imply-other-n': 'The document states {stated} ({where}), but every t-test implies a different number analysed: {implied}. Nothing in the text mentions exclusions or missing data.',
@@ -24,7 +24,7 @@ export const sampleSizeAgreesWithDf: Rule = {
     // Each test implies the number analysed: df + 2 for two independent groups, df + 1 for one
     // group or pairs; with the design unknown, either.
     const implied = document.results
-      .filter((r) => r.report.df && Number.isInteger(r.report.df.value) && !r.report.plural)
+      .filter((r) => r.report.df && isWholeDf(r.report.df) && !r.report.plural)
       .map((r) => {
         const df = r.report.df?.value as number;
         const d = inferDesign(r);

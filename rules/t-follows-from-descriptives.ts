@@ -1,4 +1,4 @@
-import { describeAttempt, dfInterval, evaluateDescriptives, fill, numberInterval, showInterval, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts } from '../src/rule-api/index.js';
+import { describeAttempt, dfInterval, evaluateDescriptives, fill, numberInterval, showInterval, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts, isWholeDf } from '../src/rule-api/index.js';
 import { pairedImpliedCorrelation } from '../src/stats/index.js';
 
 const messages = {
@@ -49,7 +49,7 @@ export const tFollowsFromDescriptives: Rule = {
       // Two groups of unknown design may be one group measured twice: then the descriptives
       // cannot give t without the SD of the differences; stay quiet if that reading is possible.
       let pairedNote = '';
-      if (e.groups.length === 2 && e.design === 'unknown' && r.df && Number.isInteger(r.df.value)) {
+      if (e.groups.length === 2 && e.design === 'unknown' && r.df && isWholeDf(r.df)) {
         const [g1, g2] = e.groups;
         const n = r.df.value + 1;
         // Spreads labelled SE are SD/√n of each measurement; unstated ones may be either.

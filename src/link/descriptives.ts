@@ -168,8 +168,8 @@ export function contextJoiner(x: Extraction): (report: TTestReport) => ResultCon
     prose,
     tests,
   };
-  const spreadStatements = x.statements.filter((s) => s.kind === 'spread');
-  return (report) => contextFor(report, clauses, lists, { tableRows, testsByBlock, tables: x.tables, spreadStatements });
+  const tables: Tables = { tableRows, testsByBlock, tables: x.tables, spreads: spreadStatements(x) };
+  return (report) => contextFor(report, clauses, lists, tables);
 }
 
 interface Lists {
@@ -187,7 +187,7 @@ interface Tables {
   tableRows: Map<number, GroupSummary[]>;
   testsByBlock: Map<number, TTestReport[]>;
   tables: Extraction['tables'];
-  spreadStatements: Extraction['statements'];
+  spreads: SpreadStatements;
 }
 
 /**
@@ -229,7 +229,7 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
   return {
     ...(link ? { descriptives: link } : {}),
     ...(unlinked ? { unlinked } : {}),
-    design: designFor(report, clause, n.designs, link),
+    design: designFor(report, clause, clauses, n.designs, link),
     ...(reference ? { reference } : {}),
     ...(interval ? { interval } : {}),
     intervals,
@@ -269,7 +269,7 @@ function descriptivesFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t:
   const inSentence = n.prose.inSentence(report.segment, report.sentence);
   const aloneInSentence = clauses.statisticsInSentence(report.segment, report.sentence) === 1;
   if (inSentence.length > 0) {
-    if (inSentence.length <= 2 && testsInSentence.length === 1) return { link: makeLink('sentence', inSentence, t.spreadStatements, aloneInSentence) };
+    if (inSentence.length <= 2 && testsInSentence.length === 1) return { link: makeLink('sentence', inSentence, t.spreads, aloneInSentence) };
     return { unlinked: { reason: `${inSentence.length} sets of descriptives and ${testsInSentence.length} tests in one sentence`, span: report.span } };
   }
   const paragraphGroups = n.prose.all(report.segment);
@@ -277,28 +277,26 @@ function descriptivesFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t:
   const inParagraph = paragraphGroups.length > 0 && paragraphGroups.length <= 8 ? paragraphGroups.filter((g) => n.tests.inSentence(g.segment, g.sentence).length === 0) : paragraphGroups;
   if (inParagraph.length > 0) {
     const testsInBlock = clauses.testsInSegment(report.segment);
-    if (inParagraph.length <= 2 && testsInBlock === 1) return { link: makeLink('paragraph', inParagraph, t.spreadStatements, clauses.statisticsInSegment(report.segment) === 1) };
+    if (inParagraph.length <= 2 && testsInBlock === 1) return { link: makeLink('paragraph', inParagraph, t.spreads, clauses.statisticsInSegment(report.segment) === 1) };
     return { unlinked: { reason: `${inParagraph.length} sets of descriptives and ${testsInBlock} tests in one paragraph`, span: report.span } };
   }
   const table = t.tables.find((x) => report.block === x.lastBlock + 1 || report.block === x.firstBlock - 1);
   const rows = table ? (t.tableRows.get(table.table) ?? []) : [];
   const claimants = table ? [...(t.testsByBlock.get(table.lastBlock + 1) ?? []), ...(t.testsByBlock.get(table.firstBlock - 1) ?? [])] : [];
   if (rows.length > 0) {
-    if (rows.length <= 2 && claimants.length === 1) return { link: makeLink('table', rows, t.spreadStatements, false) };
+    if (rows.length <= 2 && claimants.length === 1) return { link: makeLink('table', rows, t.spreads, false) };
     return { unlinked: { reason: `a table of ${rows.length} groups beside ${claimants.length} tests`, span: report.span } };
   }
   return {};
 }
 
-function makeLink(scope: DescriptiveLink['scope'], groups: GroupSummary[], documentKinds: Extraction['statements'], certain: boolean): DescriptiveLink {
+function makeLink(scope: DescriptiveLink['scope'], groups: GroupSummary[], spreads: SpreadStatements, certain: boolean): DescriptiveLink {
   const kinds: SpreadKind[] = [];
   let source: DescriptiveLink['spreadKindSource'];
   for (const g of groups) {
     let kind: SpreadKind = g.spread?.kind ?? 'unstated';
     if (kind === 'unstated') {
-      const local = documentKinds.find((s) => s.segment === g.segment);
-      const agreed = documentKinds.length > 0 && documentKinds.every((s) => s.spread === documentKinds[0]?.spread) ? documentKinds[0] : undefined;
-      const st = local ?? agreed;
+      const st = spreads.kindFor(g);
       if (st?.spread) {
         kind = st.spread;
         source = { span: st.span, printed: st.printed };
@@ -310,11 +308,34 @@ function makeLink(scope: DescriptiveLink['scope'], groups: GroupSummary[], docum
 }
 
 /**
+ * What "±" stands for, for one group: a statement in the group's own sentence; else one in a
+ * sentence of its paragraph that prints no descriptives ("Values are mean ± SEM."); else the
+ * statements of the document's sentences without descriptives, when they agree. A label
+ * printed beside another group ("(38.2 ± 6.4) (mean ± s.d.)") is that group's only.
+ */
+interface SpreadStatements {
+  kindFor(g: GroupSummary): Extraction['statements'][number] | undefined;
+}
+
+function spreadStatements(x: Extraction): SpreadStatements {
+  const statements = x.statements.filter((s) => s.kind === 'spread');
+  const key = (segment: number, sentence: number) => `${segment}:${sentence}`;
+  const withDescriptives = new Set(x.summaries.map((g) => key(g.segment, g.sentence)));
+  const bySentence = new Map<string, Extraction['statements'][number]>();
+  for (const s of statements) if (!bySentence.has(key(s.segment, s.sentence))) bySentence.set(key(s.segment, s.sentence), s);
+  const general = statements.filter((s) => !withDescriptives.has(key(s.segment, s.sentence)));
+  const bySegment = new Map<number, Extraction['statements'][number]>();
+  for (const s of general) if (!bySegment.has(s.segment)) bySegment.set(s.segment, s);
+  const agreed = general.length > 0 && general.every((s) => s.spread === general[0]?.spread) ? general[0] : undefined;
+  return { kindFor: (g) => bySentence.get(key(g.segment, g.sentence)) ?? bySegment.get(g.segment) ?? agreed };
+}
+
+/**
  * The design, from the most specific evidence: the test named with the statistic ("paired
  * t(22)", "Welch's t"), design words in its clause, in its sentence, then in its paragraph
  * (when they agree), then structure (one group is one-sample or differences).
  */
-function designFor(report: TTestReport, clause: Clause, designs: SegmentList<DesignStatement>, link: DescriptiveLink | undefined): Setting<Design> {
+function designFor(report: TTestReport, clause: Clause, clauses: ClauseIndex, designs: SegmentList<DesignStatement>, link: DescriptiveLink | undefined): Setting<Design> {
   const named = report.namedVariant;
   if (named === 'paired') return { value: 'paired', basis: 'in-report' };
   if (named === 'welch' || named === 'student' || named === 'independent') return { value: 'independent', basis: 'in-report' };
@@ -328,7 +349,9 @@ function designFor(report: TTestReport, clause: Clause, designs: SegmentList<Des
   if (inClause) return inClause;
   const sentence = pick(designs.inSentence(report.segment, report.sentence), 'sentence');
   if (sentence) return sentence;
-  const paragraph = pick(designs.all(report.segment), 'paragraph');
+  // the paragraph's words about the design, from sentences that report no test: words beside
+  // another result ("each staff member measured twice") are that result's
+  const paragraph = pick(designs.all(report.segment).filter((d) => clauses.statisticsInSentence(d.segment, d.sentence) === 0), 'paragraph');
   if (paragraph) return paragraph;
   // Design words elsewhere in the document are not used: a manuscript often reports paired and
   // independent comparisons side by side.

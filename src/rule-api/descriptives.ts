@@ -2,7 +2,7 @@ import type { GroupSummary, SpreadKind } from '../extract/types.js';
 import type { Design, LinkedResult } from '../link/index.js';
 import { oneSampleAbsT, studentAbsT, welchAbsT, welchDfRange, type Box, type Interval } from '../stats/index.js';
 import { showInterval } from './format.js';
-import { dfInterval, numberInterval, tInterval } from './intervals.js';
+import { dfInterval, isWholeDf, numberInterval, tInterval } from './intervals.js';
 
 export type Variant = 'one-sample' | 'student' | 'welch';
 export type Reading = 'as labelled' | 'spread read as SE' | 'spread read as SD';
@@ -76,7 +76,7 @@ export function evaluateDescriptives(result: LinkedResult): DescriptiveEvaluatio
     // A one-sample test against an unstated value cannot be recomputed without guessing it.
     if (!result.context.reference && design !== 'paired') return undefined;
     const mu0 = result.context.reference?.value.value ?? 0;
-    const n = g.n?.value ?? (r.df && Number.isInteger(r.df.value) ? r.df.value + 1 : undefined);
+    const n = g.n?.value ?? (r.df && isWholeDf(r.df) ? r.df.value + 1 : undefined);
     if (!n) return undefined;
     const nSource = g.n ? `n = ${g.n.printed}` : `n = df + 1 = ${n}`;
     for (const rd of readings(kinds[0] ?? 'unstated')) {
@@ -104,7 +104,7 @@ export function evaluateDescriptives(result: LinkedResult): DescriptiveEvaluatio
             const s2 = sdBox(g2, n2, rd2.asSE);
             const absT = variant === 'student' ? studentAbsT(m1, s1, n1, m2, s2, n2) : welchAbsT(m1, s1, n1, m2, s2, n2);
             let fits = fitsT(absT);
-            if (fits && variant === 'welch' && r.df && !Number.isInteger(r.df.value)) {
+            if (fits && variant === 'welch' && r.df && !isWholeDf(r.df)) {
               const dfRange = welchDfRange(s1, n1, s2, n2);
               const [dl, dh] = dfInterval(r.df);
               fits = dfRange.low <= dh && dfRange.high >= dl;
@@ -156,7 +156,7 @@ function candidateSplits(result: LinkedResult, g1: GroupSummary, g2: GroupSummar
   const perGroup = result.context.sampleSizes.find((s) => s.scope === 'per-group');
   if (perGroup) return { pairs: [[perGroup.n.value, perGroup.n.value]], source: `${perGroup.n.printed} per group`, truncated: false };
   const df = result.report.df;
-  const total = result.context.sampleSizes.find((s) => s.scope === 'total')?.n.value ?? (df && Number.isInteger(df.value) ? df.value + 2 : undefined);
+  const total = result.context.sampleSizes.find((s) => s.scope === 'total')?.n.value ?? (df && isWholeDf(df) ? df.value + 2 : undefined);
   if (!total || total < 4) return { pairs: [], source: '', truncated: false };
   const pairs: Array<[number, number]> = [];
   const half = Math.floor(total / 2);

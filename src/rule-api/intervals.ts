@@ -25,9 +25,17 @@ export function tInterval(report: TTestReport): [number, number] {
   }
 }
 
+/**
+ * A df printed without decimals is a count (Student, paired, one-sample) and exact; one printed
+ * with decimals (`17.8`, and `20.0` too: software prints Welch's df that way) was rounded like t.
+ */
+export function isWholeDf(df: ReportedNumber): boolean {
+  return df.decimals === 0 && df.exponent === 0;
+}
+
 /** A whole-number df is a count and exact; a fractional (Welch) df was rounded like t. */
 export function dfInterval(df: ReportedNumber): [number, number] {
-  if (df.decimals === 0 && df.exponent === 0) return [df.value, df.value];
+  if (isWholeDf(df)) return [df.value, df.value];
   return numberInterval(df);
 }
 
