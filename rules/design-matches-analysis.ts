@@ -63,8 +63,9 @@ export const designMatchesAnalysis: Rule = {
 
 /**
  * The number of units in each condition: both groups' printed n when equal, a per-group n,
- * or, for a paired design, the units counted in the result's sentence or paragraph ("the same
- * 24 employees"); for two independent groups, half an even total stated there.
+ * or, for a paired design, the units counted in the result's sentence (else its paragraph)
+ * when that is a single number ("the same 24 employees"); for two independent groups, half an
+ * even total stated there.
  */
 function unitsPerCondition(result: LinkedResult): { n: number; source: string; doubts: { uncertain?: string[] } } | undefined {
   const groups = result.context.descriptives?.groups ?? [];
@@ -76,7 +77,9 @@ function unitsPerCondition(result: LinkedResult): { n: number; source: string; d
   const perGroup = sizes.find((s) => s.scope === 'per-group');
   if (perGroup) return { n: perGroup.n.value, source: perGroup.printed, doubts: {} };
   const r = result.report;
-  const near = sizes.filter((s) => s.segment === r.segment && s.scope !== 'per-group');
+  // the units counted in the result's own sentence, else in its paragraph: one number only
+  const own = sizes.filter((s) => s.segment === r.segment && s.sentence === r.sentence && s.scope !== 'per-group');
+  const near = own.length > 0 ? own : sizes.filter((s) => s.segment === r.segment && s.scope !== 'per-group');
   const values = new Set(near.map((s) => s.n.value));
   const only = near[0];
   if (!only || values.size !== 1) return undefined;

@@ -168,7 +168,7 @@ export function contextJoiner(x: Extraction): (report: TTestReport) => ResultCon
     prose,
     tests,
   };
-  const tables: Tables = { tableRows, testsByBlock, tables: x.tables, spreads: spreadStatements(x) };
+  const tables: Tables = { tableRows, testsByBlock, tables: x.tables, spreads: spreadStatements(x), methodsDesign: methodsDesign(x, clauses) };
   return (report) => contextFor(report, clauses, lists, tables);
 }
 
@@ -188,6 +188,8 @@ interface Tables {
   testsByBlock: Map<number, TTestReport[]>;
   tables: Extraction['tables'];
   spreads: SpreadStatements;
+  /** The design the Methods state for the whole study, when every statement there agrees. */
+  methodsDesign: Setting<Design> | undefined;
 }
 
 /**
@@ -229,7 +231,8 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
   return {
     ...(link ? { descriptives: link } : {}),
     ...(unlinked ? { unlinked } : {}),
-    design: designFor(report, clause, clauses, n.designs, link),
+    // one group of descriptives is a one-sample test (or differences) before the Methods' design
+    design: designFor(report, clause, clauses, n.designs) ?? (link?.groups.length === 1 ? oneGroup : undefined) ?? t.methodsDesign ?? { value: 'unknown', basis: 'default' },
     ...(reference ? { reference } : {}),
     ...(interval ? { interval } : {}),
     intervals,
@@ -331,11 +334,12 @@ function spreadStatements(x: Extraction): SpreadStatements {
 }
 
 /**
- * The design, from the most specific evidence: the test named with the statistic ("paired
- * t(22)", "Welch's t"), design words in its clause, in its sentence, then in its paragraph
- * (when they agree), then structure (one group is one-sample or differences).
+ * The design as the words beside the result say it: the test named with the statistic
+ * ("paired t(22)", "Welch's t"), design words in its clause, in its sentence, then in the
+ * sentences of its paragraph that report no test (when they agree). Undefined when none do:
+ * then structure (one group), the Methods' design, or unknown.
  */
-function designFor(report: TTestReport, clause: Clause, clauses: ClauseIndex, designs: SegmentList<DesignStatement>, link: DescriptiveLink | undefined): Setting<Design> {
+function designFor(report: TTestReport, clause: Clause, clauses: ClauseIndex, designs: SegmentList<DesignStatement>): Setting<Design> | undefined {
   const named = report.namedVariant;
   if (named === 'paired') return { value: 'paired', basis: 'in-report' };
   if (named === 'welch' || named === 'student' || named === 'independent') return { value: 'independent', basis: 'in-report' };
@@ -353,8 +357,44 @@ function designFor(report: TTestReport, clause: Clause, clauses: ClauseIndex, de
   // another result ("each staff member measured twice") are that result's
   const paragraph = pick(designs.all(report.segment).filter((d) => clauses.statisticsInSentence(d.segment, d.sentence) === 0), 'paragraph');
   if (paragraph) return paragraph;
-  // Design words elsewhere in the document are not used: a manuscript often reports paired and
-  // independent comparisons side by side.
-  if (link?.groups.length === 1) return { value: 'one-sample', basis: 'structure' };
-  return { value: 'unknown', basis: 'default' };
+  return undefined;
+}
+
+/** Structure, when nothing beside the result says the design: one group is one-sample (or differences). */
+const oneGroup: Setting<Design> = { value: 'one-sample', basis: 'structure' };
+
+/**
+ * Whether the document reports several studies: a heading names a second study or experiment,
+ * or Methods sections come back after other sections. Then a Methods statement may be about
+ * another study than the result, and no design is taken from the Methods.
+ */
+function severalStudies(sections: ReadonlyArray<string | undefined>): boolean {
+  let runs = 0;
+  let inside = false;
+  for (const name of sections) {
+    if (name !== undefined && SECOND_STUDY.test(name)) return true;
+    const methods = name !== undefined && METHODS_SECTION.test(name);
+    if (methods && !inside) runs += 1;
+    if (name !== undefined) inside = methods;
+  }
+  return runs > 1;
+}
+
+const SECOND_STUDY = /(?<![\p{L}])(?:study|experiment)\s?(?:2|3|4|5|II|III|two|three)(?![\p{L}\p{N}])/iu;
+
+/** Section headings under which the text describes the study's design. */
+const METHODS_SECTION = /method|design|procedure|participant|analys|statistic|material|protocol|setting|sample/i;
+
+/**
+ * The study's design as its Methods describe it: the design words of Methods sections, in
+ * sentences that report no test, when they all say the same ("Each nurse completed both
+ * conditions in random order"). Words for both designs there ("randomly assigned to two
+ * groups … the same staff were measured twice") leave it unknown.
+ */
+function methodsDesign(x: Extraction, clauses: ClauseIndex): Setting<Design> | undefined {
+  if (severalStudies(x.sections)) return undefined;
+  const inMethods = x.designs.filter((d) => METHODS_SECTION.test(x.sections[d.segment] ?? '') && clauses.statisticsInSentence(d.segment, d.sentence) === 0);
+  const first = inMethods[0];
+  if (!first || !inMethods.every((d) => d.design === first.design)) return undefined;
+  return { value: first.design, basis: 'methods', span: first.span, printed: first.printed };
 }

@@ -39,6 +39,7 @@ export function describeTails(result: LinkedResult): string {
     paragraph: 'as stated in its paragraph',
     structure: 'from the layout of the numbers',
     'equivalence-test': 'an equivalence test is named beside it',
+    methods: 'as the Methods state it',
     'document-text': 'as stated in the document',
     'front-matter': 'set in front matter',
     configuration: 'set in configuration',

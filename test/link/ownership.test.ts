@@ -94,3 +94,23 @@ describe('statements apply only where they are about the analysis', () => {
     expect(warnings(r)).toEqual([]);
   });
 });
+
+describe('the design comes from beside the result, else from the Methods of a single study', () => {
+  it('design words beside another result in the paragraph are that result\'s', () => {
+    const r = run('Scores rose for the same staff measured twice (n = 20), t(19) = 2.40, p = .027. Typing was faster in the standing office (M = 50.1, SD = 5.0, n = 20) than in the seated office (M = 46.3, SD = 5.2, n = 20), t(38) = 2.36, p = .024.');
+    expect(r.results.map((x) => x.context.design.value)).toEqual(['paired', 'unknown']);
+  });
+  it('a design the Methods state for the whole study applies to results that say nothing', () => {
+    const r = run('## Design\n\nEach nurse completed both conditions in random order (a crossover design).\n\n## Results\n\nScores were higher in the quiet condition (M = 3.9, SD = 0.6, n = 51) than in the usual condition (M = 3.4, SD = 0.6), t(100) = 3.67, p < .001.');
+    expect(r.results[0]?.context.design).toMatchObject({ value: 'paired', basis: 'methods' });
+    expect(warnings(r)).toContain('design-matches-analysis/paired-analysed-as-independent@t(100) = 3.67, p < .001');
+  });
+  it('Methods that describe both designs give none', () => {
+    const r = run('## Design\n\nStaff were randomly assigned to two groups; within each group the same staff were measured twice.\n\n## Results\n\nScores differed (M = 3.9, SD = 0.6, n = 51; M = 3.4, SD = 0.6), t(100) = 3.67, p < .001.');
+    expect(r.results[0]?.context.design.basis).toBe('default');
+  });
+  it('a document of several studies takes no design from any one study\'s Methods', () => {
+    const r = run('## Study 1 Methods\n\nParticipants were randomly assigned to two groups.\n\n## Study 1 Results\n\nA rose, t(40) = 2.10, p = .042.\n\n## Study 2 Methods\n\nEach participant completed both conditions.\n\n## Study 2 Results\n\nRatings differed (M = 6.13, SD = 0.51; M = 2.01, SD = 0.35), t(29) = 34.74, p < .001.');
+    expect(r.results.map((x) => x.context.design.basis)).toEqual(['default', 'default']);
+  });
+});
