@@ -365,25 +365,25 @@ const oneGroup: Setting<Design> = { value: 'one-sample', basis: 'structure' };
 
 /**
  * Whether the document reports several studies: a heading names a second study or experiment,
- * or Methods sections come back after other sections. Then a Methods statement may be about
+ * or a Methods section comes after a Results section. Then a Methods statement may be about
  * another study than the result, and no design is taken from the Methods.
  */
 function severalStudies(sections: ReadonlyArray<string | undefined>): boolean {
-  let runs = 0;
-  let inside = false;
+  let resultsSeen = false;
   for (const name of sections) {
-    if (name !== undefined && SECOND_STUDY.test(name)) return true;
-    const methods = name !== undefined && METHODS_SECTION.test(name);
-    if (methods && !inside) runs += 1;
-    if (name !== undefined) inside = methods;
+    if (name === undefined) continue;
+    if (SECOND_STUDY.test(name)) return true;
+    if (RESULTS_SECTION.test(name)) resultsSeen = true;
+    else if (resultsSeen && METHODS_SECTION.test(name)) return true;
   }
-  return runs > 1;
+  return false;
 }
 
+const RESULTS_SECTION = /result|finding/i;
 const SECOND_STUDY = /(?<![\p{L}])(?:study|experiment)\s?(?:2|3|4|5|II|III|two|three)(?![\p{L}\p{N}])/iu;
 
 /** Section headings under which the text describes the study's design. */
-const METHODS_SECTION = /method|design|procedure|participant|analys|statistic|material|protocol|setting|sample/i;
+const METHODS_SECTION = /method|design|procedure|participant|analys|statistic|material|protocol|setting|sample|measure|intervention|apparatus|stimul|instrument/i;
 
 /**
  * The study's design as its Methods describe it: the design words of Methods sections, in
@@ -393,7 +393,9 @@ const METHODS_SECTION = /method|design|procedure|participant|analys|statistic|ma
  */
 function methodsDesign(x: Extraction, clauses: ClauseIndex): Setting<Design> | undefined {
   if (severalStudies(x.sections)) return undefined;
-  const inMethods = x.designs.filter((d) => METHODS_SECTION.test(x.sections[d.segment] ?? '') && clauses.statisticsInSentence(d.segment, d.sentence) === 0);
+  // one-sample tests named beside paired or independent ones are about single groups: they
+  // do not contradict the design of the comparisons
+  const inMethods = x.designs.filter((d) => d.design !== 'one-sample' && METHODS_SECTION.test(x.sections[d.segment] ?? '') && clauses.statisticsInSentence(d.segment, d.sentence) === 0);
   const first = inMethods[0];
   if (!first || !inMethods.every((d) => d.design === first.design)) return undefined;
   return { value: first.design, basis: 'methods', span: first.span, printed: first.printed };
