@@ -34,20 +34,26 @@ export const sampleSizeAgreesWithDf: Rule = {
     const N = stated.n.value;
     // Subgroup analyses use fewer; only when no test uses the whole sample is something unexplained.
     if (implied.some((i) => i.ns.includes(N))) return [];
-    // The tie of this N to these tests is not certain when the text states, elsewhere, a sample
-    // that some test does use (a second study, a subsample): then the N is about something else.
-    const statedElsewhere = new Set([...x.sampleSizes.filter((s) => s !== stated).map((s) => s.n.value), ...x.summaries.flatMap((g) => (g.n ? [g.n.value] : []))]);
-    if (implied.some((i) => i.ns.some((n) => statedElsewhere.has(n)))) return [];
-    const largest = Math.max(...implied.flatMap((i) => i.ns));
-    if (largest >= N) return [];
-    const shown = [...new Set(implied.map((i) => i.ns.join(' or ')))].slice(0, 6).join('; ');
-    const first = implied[0]?.result.report;
+    // A test implying more than N is not of this sample (another rule speaks to its df); when
+    // most tests are, N is not the sample the results analyse.
+    const within = implied.filter((i) => i.ns.some((n) => n <= N));
+    if (within.length === 0 || within.length * 2 < implied.length) return [];
+    // The text may describe, elsewhere, the samples the tests do use (a second study, a
+    // subsample, those who returned a questionnaire): when each test's number is one of them,
+    // the N is about something else. The group sizes printed with the tests themselves
+    // describe no other sample.
+    const withTests = new Set(document.results.map((r) => `${r.report.segment}:${r.report.sentence}`));
+    const statedElsewhere = new Set(x.sampleSizes.filter((s) => s !== stated && !withTests.has(`${s.segment}:${s.sentence}`)).map((s) => s.n.value));
+    if (within.every((i) => i.ns.some((n) => statedElsewhere.has(n)))) return [];
+    const largest = Math.max(...within.flatMap((i) => i.ns.filter((n) => n <= N)));
+    const shown = [...new Set(within.map((i) => i.ns.join(' or ')))].slice(0, 6).join('; ');
+    const first = within[0]?.result.report;
     const out: RuleFinding[] = [{
       messageId: 'df-imply-other-n',
       span: stated.span,
       message: fill(messages['df-imply-other-n'], { stated: stated.printed, where: x.sections[stated.segment] ?? 'before the results', implied: shown }),
       reported: stated.printed,
-      recomputed: { quantity: 'largest number analysed (df + 1 or df + 2)', low: largest, high: largest, inputs: implied.map((i) => i.result.report.printed), assumptions: ['df + 2 for two independent groups, df + 1 for one group or pairs'] },
+      recomputed: { quantity: 'largest number analysed (df + 1 or df + 2)', low: largest, high: largest, inputs: within.map((i) => i.result.report.printed), assumptions: ['df + 2 for two independent groups, df + 1 for one group or pairs'] },
       check: 'Say how many participants were analysed in each test and why some were left out (a flow diagram helps).',
       related: first ? [{ span: first.span, message: 'the first test' }] : [],
       block: stated.block,
