@@ -25,6 +25,15 @@ export class MappedText {
     }
   }
 
+  /** Append another mapped text as it stands. */
+  append(other: MappedText): void {
+    this.text += other.text;
+    for (let i = 0; i < other.starts.length; i += 1) {
+      this.starts.push(other.starts[i] as number);
+      this.ends.push(other.ends[i] as number);
+    }
+  }
+
   /**
    * Append a node's decoded `value` whose source is `source.slice(start, end)`. Where they
    * differ (backslash escapes, character references, stripped indentation or blockquote

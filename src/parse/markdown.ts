@@ -8,6 +8,10 @@ import { MappedText } from './builder.js';
 import { readDirective } from './directives.js';
 import { readFrontMatter } from './frontMatter.js';
 import { normalize } from './normalize.js';
+import { readMath } from './math.js';
+import { literalNumberOfInlineR } from './rInline.js';
+import { HtmlTableReader, type HtmlTablePart } from './htmlTable.js';
+import { markLegends } from './legends.js';
 import { defuseDenseMarkup } from './depth.js';
 import { BULK_CHUNK_ROWS, BULK_MIN_ROWS, blankRuns, findBulkRuns, plainCells, type BulkRun } from './bulkTable.js';
 import type { Directive, FrontMatter, ParsedDocument, ReadNote, Segment, SegmentKind, TablePlace } from './types.js';
@@ -22,6 +26,9 @@ const processor = unified().use(remarkParse).use(remarkGfm).use(remarkFrontmatte
  * it is the thematic break CommonMark makes of it and the text below is the manuscript.
  */
 const withoutFrontMatter = unified().use(remarkParse).use(remarkGfm).use(remarkMath);
+
+/** HTML that holds table markup (read by HtmlTableReader). */
+const HTML_TABLE = /<t(?:able|r|d|h)\b/i;
 
 /** A line of `---` (trailing spaces allowed): a front-matter fence, anywhere in the text. */
 const FENCE_LINE = /^---[ \t]*\r?$/m;
@@ -104,6 +111,8 @@ function walk(text: string, shift: number, options: MarkdownOptions, minRows: nu
   const { tree, runs } = parseWithBulkRuns(text, minRows, parser);
   const walker = new Walker(text, shift, options, runs);
   walker.walkBlocks(tree.children);
+  walker.finishHtml();
+  markLegends(walker.segments, text, shift);
   return walker;
 }
 
@@ -156,13 +165,16 @@ class Walker {
   private block = 0;
   private tables = 0;
   private section: string | undefined;
+  private readonly html: HtmlTableReader;
 
   constructor(
     private src: string,
     private shift: number,
     private readonly options: MarkdownOptions,
     private readonly bulk: ReadonlyMap<number, BulkRun> = new Map(),
-  ) {}
+  ) {
+    this.html = new HtmlTableReader(src, () => this.tables++, (part) => this.htmlPart(part));
+  }
 
   walkBlocks(nodes: RootContent[]): void {
     for (const node of nodes) this.walkBlock(node);
@@ -180,7 +192,23 @@ class Walker {
     return this.block;
   }
 
+  /** Close HTML tables left open (the document ended inside one). */
+  finishHtml(): void {
+    this.html.finish();
+  }
+
+  private htmlPart(part: HtmlTablePart): void {
+    if (part.kind === 'cell') {
+      this.emit('tableCell', part.text, this.startBlock(), part.place);
+      return;
+    }
+    const seg = this.emit('paragraph', part.text, this.startBlock());
+    if (seg) seg.legendOf = { table: part.table, role: 'caption' };
+  }
+
   private walkBlock(node: RootContent): void {
+    // an HTML table goes on across HTML blocks only (a blank line ends each)
+    if (node.type !== 'html' && this.html.open) this.html.finish();
     switch (node.type) {
       case 'paragraph':
         this.phrasingSegment('paragraph', node.children, this.startBlock(), undefined, node);
@@ -224,8 +252,11 @@ class Walker {
       case 'math': {
         if (!node.position) return;
         const text = new MappedText();
-        text.pushAligned(node.value, this.src, node.position.start.offset as number, node.position.end.offset as number);
-        this.emit('math', text, this.startBlock());
+        const start = node.position.start.offset as number;
+        const end = node.position.end.offset as number;
+        // align from inside the opening fence: the aligner cannot step over its `$$`
+        text.pushAligned(node.value, this.src, start + innerMath(this.src.slice(start, end), node.value), end);
+        this.emit('math', readMath(text), this.startBlock());
         return;
       }
       case 'html': {
@@ -233,6 +264,8 @@ class Walker {
         if (d) {
           this.directives.push(d);
           this.pendingDirectives.push(d);
+        } else if (node.position && (this.html.open || HTML_TABLE.test(node.value))) {
+          this.html.feed(node.position.start.offset as number, node.position.end.offset as number);
         }
         return;
       }
@@ -330,12 +363,20 @@ class Walker {
           break;
         case 'inlineMath': {
           const [a, b] = insideDelimiters(this.src, start, end, '$');
-          out.pushAligned(node.value, this.src, a, b);
+          const math = new MappedText();
+          math.pushAligned(node.value, this.src, a, b);
+          out.append(readMath(math));
           break;
         }
         case 'inlineCode': {
-          const code = new MappedText();
           const [a, b] = insideDelimiters(this.src, start, end, '`');
+          const literal = this.options.chunks ? literalNumberOfInlineR(this.src.slice(a, b)) : undefined;
+          if (literal) {
+            // knitting prints the number where the code stands
+            out.pushVerbatim(this.src.slice(a + literal.start, a + literal.end), a + literal.start);
+            break;
+          }
+          const code = new MappedText();
           code.pushAligned(node.value, this.src, a, b);
           codes.push(code);
           // Keep word boundaries in the prose around it.
@@ -402,6 +443,14 @@ function insideDelimiters(src: string, start: number, end: number, mark: string)
   while (a < b && src[a] === mark) a += 1;
   while (b > a && src[b - 1] === mark) b -= 1;
   return [a, b];
+}
+
+/** Offset of a display-math block's content (below its `$$` line) within its raw source. */
+function innerMath(raw: string, value: string): number {
+  if (value === '') return 0;
+  const firstLine = value.split(/\r?\n/, 1)[0] as string;
+  const at = raw.indexOf(firstLine, /^ {0,3}\${2,}/.test(raw) ? raw.search(/\r?\n/) + 1 : 0);
+  return at < 0 ? 0 : at;
 }
 
 /** Offset of a fenced or indented code block's content within its raw source. */

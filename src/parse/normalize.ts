@@ -72,10 +72,15 @@ const REWRITES: Rewrite[] = [
   { pattern: /[\u2266\u2A7D]/g, replace: whole('≤') },
   { pattern: /[\u2267\u2A7E]/g, replace: whole('≥') },
   { pattern: /[\u060C\uFF0C]/g, replace: whole(',') },
+  // full-width brackets, colon and semicolon (CJK typesetting around Latin statistics)
+  { pattern: /\uFF08/g, replace: whole('(') },
+  { pattern: /\uFF09/g, replace: whole(')') },
+  { pattern: /\uFF1A/g, replace: whole(':') },
+  { pattern: /\uFF1B/g, replace: whole(';') },
 ];
 
 /** Quick test: characters that any rewrite above starts with. */
-const MAY_REWRITE = /[\r\n\u200B-\u200D\u2060\u00AD\u00A0\u2000-\u200A\u202F\u205F\u3000\t\\&{^⁰¹²³⁴⁵⁶⁷⁸⁹⁻⁺\u2212\u2012\uFE63\uFF0D\u2013\u2014\u00B7\u2219\uFF1C-\uFF1E\u2266\u2267\u2A7D\u2A7E\u060C\uFF0C]/;
+const MAY_REWRITE = /[\r\n\u200B-\u200D\u2060\u00AD\u00A0\u2000-\u200A\u202F\u205F\u3000\t\\&{^⁰¹²³⁴⁵⁶⁷⁸⁹⁻⁺\u2212\u2012\uFE63\uFF0D\u2013\u2014\u00B7\u2219\uFF1C-\uFF1E\u2266\u2267\u2A7D\u2A7E\u060C\uFF0C\uFF08\uFF09\uFF1A\uFF1B]/;
 
 /** Apply every rewrite to `input`, returning a new mapped text. */
 export function normalize(input: MappedText): MappedText {

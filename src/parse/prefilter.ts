@@ -6,24 +6,27 @@
  * every fixture and benchmark corpus). A plain scan over the text, linear in its length.
  */
 const SP = '[ \\u00A0\\u2009\\u202F]*';
-const MARKUP = '(?:\\*{1,3}|_{1,3}|</[a-z]{1,6}>|\\$)?';
+// `$t$ $(`: two math spans that join; `{ t }`: a TeX group around the letter
+const MARKUP = '(?:\\*{1,3}|_{1,3}|</[a-z]{1,6}>|\\$ {0,3}\\$?| {0,3}\\})?';
 const MARKS = new RegExp(
   [
-    `(?<![A-Za-z])[tT]s?${MARKUP}${SP}[(\\[_=:|＝（［]`, // t(28), *t*(28), t = 2.1, t_{28}, t: 2.1, "| t |"
+    // t(28), *t*(28), t = 2.1, t_{28}, t: 2.1, "| t |", <td>t</td><td>, t { = } 2.1, t ： 2.1
+    `(?<![A-Za-z])[tT]s?${MARKUP}${SP}[(\\[_=:|＝（［<{：]`,
+    '(?<![A-Za-z])[tT](?: {2}|\\t)', // a column headed t in a table of aligned columns
     '(?<![A-Za-z])[tT][0-9₀-₉]', // t28, t₂₈ (flattened subscripts)
     '(?<![A-Za-z])[tT][- ]?(?:value|statistic|stat|ratio|score|tests?)',
     '(?<![A-Za-z])[tT] (?:is|of|was) ',
     'Welch|Student',
     '±',
     `%${SP}\\)`, // 12 (40%)
-    '(?<![A-Za-z])(?:M|N|n)(?:_\\S{1,20})?' + `${SP}[=:]`,
-    'SD|SE|s\\.d\\.|S\\.D\\.|s\\.e\\.|Std',
+    '(?<![A-Za-z])(?:M|N|n)(?:_\\S{1,20})?(?: {0,3}\\})?' + `${SP}[=:]`, // M = 5.2, { M } = 5.2
+    'S ?D|S ?E|s\\.d\\.|S\\.D\\.|s\\.e\\.|Std', // S D: letters a PDF converter spaced out in math
     '[Mm]eans?\\b|[Aa]verage|[Aa]vg|[Ss]tandard (?:deviation|error)|[Ss]ample size',
     '[Pp]ower',
     'CI\\b|[Cc]onfidence interval',
     '<!--',
     '^\\uFEFF?---',
-    '\\\\text|\\\\emph|\\\\math', // LaTeX around a statistic
+    '\\\\text|\\\\emph|\\\\math|\\\\boldsymbol|\\\\bm\\b|\\\\operatorname|\\\\(?:rm|it|bf|tt|cal)\\b', // LaTeX around a statistic
   ].join('|'),
   'm',
 );

@@ -17,7 +17,18 @@ export interface TablePlace {
   table: number;
   /** Row within the table; row 0 is the header row. */
   row: number;
+  /** Column within the table, counted after earlier cells' spans (HTML `rowspan`/`colspan`). */
   column: number;
+  /** Rows the cell covers, when more than one (a label cell beside two rows of results). */
+  rowSpan?: number;
+  /** Columns the cell covers, when more than one (a group header over its M and SD columns). */
+  colSpan?: number;
+}
+
+/** A paragraph that belongs to a table: its caption (`Table 2 …`) or a note below it. */
+export interface TableLegend {
+  table: number;
+  role: 'caption' | 'note';
 }
 
 /**
@@ -38,6 +49,8 @@ export interface Segment {
   table?: TablePlace;
   /** Heading text of the section the segment sits in (nearest heading above), if any. */
   section?: string;
+  /** Set when the segment is a table's caption or one of its notes. */
+  legendOf?: TableLegend;
 }
 
 /** An HTML comment addressed to plumbline, e.g. `<!-- plumbline quiet RULE: reason -->`. */
