@@ -79,12 +79,14 @@ function unitsPerCondition(result: LinkedResult): { n: number; source: string; d
   const r = result.report;
   // the units counted in the result's own sentence, else in its paragraph: one number only
   const own = sizes.filter((s) => s.segment === r.segment && s.sentence === r.sentence && s.scope !== 'per-group');
-  const near = own.length > 0 ? own : sizes.filter((s) => s.segment === r.segment && s.scope !== 'per-group');
+  // the paragraph's count is the result's only when the paragraph reports no other test
+  const near = own.length > 0 ? own : result.context.testsInParagraph === 1 ? sizes.filter((s) => s.segment === r.segment && s.scope !== 'per-group') : [];
   const values = new Set(near.map((s) => s.n.value));
   const only = near[0];
   if (!only || values.size !== 1) return undefined;
   if (result.context.design.value === 'paired') return { n: only.n.value, source: only.printed, doubts: {} };
-  return only.n.value % 2 === 0 ? { n: only.n.value / 2, source: `half of ${only.printed}`, doubts: {} } : undefined;
+  // half a total: only one printed with the result itself (the study's total may not be the test's)
+  return own.length > 0 && only.n.value % 2 === 0 ? { n: only.n.value / 2, source: `half of ${only.printed}`, doubts: {} } : undefined;
 }
 
 function sdsPrinted(result: LinkedResult): boolean {

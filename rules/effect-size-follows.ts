@@ -51,17 +51,27 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
   const ns = groups.map((g) => g.n?.value ?? perGroup);
   const welch = !isWholeDf(r.df as NonNullable<typeof r.df>);
   const candidates: Candidate[] = [];
+  /** Definitions the text allows that the printed numbers cannot compute (the finding is then a note). */
+  const open: string[] = [];
   const mayBePaired = design === 'paired' || design === 'unknown';
   const mayBeIndependent = design === 'independent' || design === 'unknown';
 
   // From t.
   if (design === 'one-sample' || (mayBePaired && !welch)) candidates.push({ name: 'd_z = t/√n (paired or one-sample, n = df + 1)', range: dzFromT(absT, df + 1) });
   if (mayBeIndependent) {
-    if (ns.length === 2 && ns.every((n) => n !== undefined)) candidates.push({ name: `d = t√(1/n1 + 1/n2) (n = ${ns.join(' and ')})`, range: dFromTIndependent(absT, ns[0] as number, ns[1] as number) });
-    else if (welch) {
-      // Welch's df lies between min(n1, n2) − 1 and n1 + n2 − 2, so the smaller group has at
-      // most df + 1 members (d ≥ t/√(df + 1)) and at least 2 (d ≤ t); the df is never n1 + n2 − 2.
-      candidates.push({ name: `d = t√(1/n1 + 1/n2) (any sizes Welch's df = ${r.df?.printed} allows)`, range: { low: absT[0] / Math.sqrt(Math.ceil(df) + 1), high: absT[1] } });
+    if (ns.length === 2 && ns.every((n) => n !== undefined)) {
+      const [n1, n2] = ns as [number, number];
+      if (welch) {
+        // Welch's t divides by √(s1²/n1 + s2²/n2), the pooled-SD d by s_p: their ratio depends
+        // on the variance ratio, and runs between its two limits (one variance dominating).
+        const limit = (v: number) => Math.sqrt(((v / n1 + (1 - v) / n2) * (n1 + n2 - 2)) / ((n1 - 1) * v + (n2 - 1) * (1 - v)));
+        const [lo, hi] = [limit(0), limit(1)].sort((a, b) => a - b) as [number, number];
+        candidates.push({ name: `pooled-SD d from Welch's t (n = ${n1} and ${n2}, any variance ratio)`, range: { low: absT[0] * lo, high: absT[1] * hi } });
+      } else candidates.push({ name: `d = t√(1/n1 + 1/n2) (n = ${n1} and ${n2})`, range: dFromTIndependent(absT, n1, n2) });
+    } else if (welch) {
+      // Welch's t with the group sizes unknown bounds no pooled-SD d: only the common shortcut
+      // below can be tried, so a d it does not give is only a note.
+      open.push("with Welch's t and the group sizes not printed, the pooled-SD d cannot be recomputed from t");
     } else {
       const total = Math.round(df) + 2;
       const smallest = dFromTIndependent(absT, total / 2, total / 2);
@@ -72,7 +82,6 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
   }
   // From the means and SDs (spreads labelled SE are not SDs; unstated ones are read as SDs).
   // Spreads read as labelled: SDs as they are, SEs as SD = SE·√n, unstated ones both ways.
-  const open: string[] = [];
   const readings = (list: readonly string[]): boolean[] => (list.every((k) => k === 'SD') ? [false] : list.every((k) => k === 'SE') ? [true] : [false, true]);
   const sdBox = (g: GroupSummary, n: number | undefined, asSE: boolean): Box | undefined => {
     const b = numberInterval(g.spread!.number);

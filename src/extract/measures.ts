@@ -14,7 +14,15 @@ const COUNT = String.raw`(\d{1,3}|one|two|three|four|five|six|seven|eight|nine|t
 const MEAN_OF_ITEMS = new RegExp(String.raw`(?<![\p{L}])(?:mean|average) of (?:the )?${COUNT} (?:\p{L}{1,20} )?items`, 'iu');
 const SUM_OF_ITEMS = new RegExp(String.raw`(?<![\p{L}])(?:sum|total) of (?:the )?${COUNT} (?:\p{L}{1,20} )?items`, 'iu');
 const K_ITEM = /(?<![\p{L}\p{N}])(\d{1,3})-item (?:scale|measure|questionnaire|inventory|index|test)(?![\p{L}])/iu;
-const INTEGER = /(?<![\p{L}])(?:single[- ]item|a single item|one item|integers?|integer[- ]valued|whole[- ]numbers?|whole[- ]number counts?|counts? of \p{L}{3,30}|(?:recorded|counted|tallied|logged|coded) as (?:the )?(?:number|count)s? of|number of \p{L}{3,30} (?:was|were) (?:recorded|counted|tallied|logged|coded))(?![\p{L}])/iu;
+// Three patterns rather than one alternation: each is judged linear by recheck on its own.
+const INTEGER_WORDS = /(?<![\p{L}])(?:single[- ]item|a single item|one item|integers?|integer[- ]valued|whole[- ]numbers?|whole[- ]number counts?)(?![\p{L}])/iu;
+const COUNT_WORDS = /(?<![\p{L}])(?:counts? of \p{L}{3,30}|(?:recorded|counted|tallied|logged|coded) as (?:the )?(?:number|count)s? of)(?![\p{L}])/iu;
+const NUMBER_RECORDED = /(?<![\p{L}])number of \p{L}{3,30} (?:was|were) (?:recorded|counted|tallied|logged|coded)(?![\p{L}])/iu;
+
+/** The first words of a sentence that declare whole-number scores, if any. */
+function integerWords(text: string): RegExpExecArray | null {
+  return INTEGER_WORDS.exec(text) ?? COUNT_WORDS.exec(text) ?? NUMBER_RECORDED.exec(text);
+}
 /** What a count counts: "the number of errors", "number of Lenses and keywords saved". */
 const COUNTED_THING = /(?<![\p{L}])(?:number|counts?) of (\p{L}{3,30})(?: and (\p{L}{3,30}))?/iu;
 /**
@@ -26,7 +34,17 @@ const NOT_A_COUNTED_MEASURE = /^(?:participant|patient|subject|people|person|ind
  * "The number of reminders averaged M = 2.39": a count reported in its own sentence (tied to
  * that sentence only). "A large number of structures" is a quantity, not a measure.
  */
-const NUMBER_OF = /(?<![\p{L}])(?<!(?:a|an|large|small|great|high|low|growing|limited|considerable|substantial|greater|larger|smaller|higher|lower|equal|same) )number of \p{L}{3,30}/iu;
+const NUMBER_OF = /(?<![\p{L}])number of \p{L}{3,30}/iu;
+/** Words before "number of" that make it a quantity, not a measure. */
+const QUANTITY_BEFORE = new Set(['a', 'an', 'large', 'small', 'great', 'high', 'low', 'growing', 'limited', 'considerable', 'substantial', 'greater', 'larger', 'smaller', 'higher', 'lower', 'equal', 'same']);
+
+/** "The number of reminders" as a measure; "a large number of structures" is a quantity. */
+function numberOfMeasure(sentence: string): RegExpExecArray | null {
+  const m = NUMBER_OF.exec(sentence);
+  if (!m) return null;
+  const words = sentence.slice(Math.max(0, m.index - 20), m.index).trimEnd().split(' ');
+  return QUANTITY_BEFORE.has((words[words.length - 1] ?? '').toLowerCase()) ? null : m;
+}
 /** The sentence's subject before its verb: "Mood was rated …", "Errors per shift were recorded …". */
 const SUBJECT = /^((?:[\p{L}'’-]{1,30} ){0,5}[\p{L}'’-]{2,30}) (?:was|were|is|are) /u;
 /** Where a subject's head phrase ends: "errors per shift" → "errors", "number of visits in May" → … */
@@ -49,7 +67,7 @@ export function findIntegerMeasures(seg: Segment, starts: number[]): IntegerStat
     const mean = MEAN_OF_ITEMS.exec(sentence);
     const sum = SUM_OF_ITEMS.exec(sentence);
     const kItem = K_ITEM.exec(sentence);
-    const integer = INTEGER.exec(sentence) ?? NUMBER_OF.exec(sentence);
+    const integer = integerWords(sentence) ?? numberOfMeasure(sentence);
     // the mean of k items is whole-number only when the items are ("each an integer from 1 to 5")
     const found = mean && integer ? { m: mean, items: itemCount(mean[1] as string) } : sum ? { m: sum, items: 1 } : integer ? { m: integer, items: 1 } : kItem ? { m: kItem, items: Number(kItem[1]) } : undefined;
     if (!found || !(found.items >= 1)) continue;
@@ -59,7 +77,7 @@ export function findIntegerMeasures(seg: Segment, starts: number[]): IntegerStat
     if (SAMPLE_SIZE_DEFINITION.test(sentence)) continue;
     const measures = measureNames(sentence);
     // "the number of participants" is a sample size, not a whole-number measure
-    if (found.m !== mean && found.m !== sum && found.m !== kItem && !INTEGER.test(sentence) && measures.length === 0) continue;
+    if (found.m !== mean && found.m !== sum && found.m !== kItem && integerWords(sentence) === null && measures.length === 0) continue;
     out.push({
       segment: seg.id,
       block: seg.block,

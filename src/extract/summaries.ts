@@ -43,7 +43,9 @@ const EFFECT = new RegExp(String.raw`(?<![\p{L}\p{N}_'’])(?:(?:Cohen['’]s|He
  * within-subject or within-X comparisons (not "within-group" variance); before and after;
  * crossover; paired, related or dependent samples; each participant in both conditions.
  */
-const PAIRED_WORDS = new RegExp(String.raw`(?<![\p{L}])(paired|pre-?test|post-?test|pre- and post|pre\/post|before and after|baseline and (?:at )?(?:follow-?up|post-?\p{L}{0,12})|same (?:\d{1,5} )?(?:${UNITS}|sample|group|individuals)|within-?(?!groups?(?![\p{L}]))\p{L}{3,15}|repeated[- ]measures?|cross-?over|matched[- ]pairs?|(?:measured|tested|assessed|rated|scored|observed|sampled) twice|(?:related|dependent)[- ]samples?|each (?:participant|patient|subject|child|student|person|animal|plot|site|unit) (?:was|completed|performed|received|underwent|took part in)|(?:completed|performed|received|underwent|experienced) both (?:conditions|treatments|sessions|tasks|versions|interventions)|counterbalanced order|on two occasions|at (?:both|two) time ?points)(?![\p{L}])`, 'giu');
+// Two patterns rather than one alternation: each is judged linear by recheck on its own.
+const PAIRED_WORDS = /(?<![\p{L}])(paired|pre-?test|post-?test|pre- and post|pre\/post|before and after|baseline and (?:at )?(?:follow-?up|post-?\p{L}{0,12})|within-?(?!groups?(?![\p{L}]))\p{L}{3,15}|repeated[- ]measures?|cross-?over|matched[- ]pairs?|(?:measured|tested|assessed|rated|scored|observed|sampled) twice|(?:related|dependent)[- ]samples?|each (?:participant|patient|subject|child|student|person|animal|plot|site|unit) (?:was|completed|performed|received|underwent|took part in)|(?:completed|performed|received|underwent|experienced) both (?:conditions|treatments|sessions|tasks|versions|interventions)|counterbalanced order|on two occasions|at (?:both|two) time ?points)(?![\p{L}])/giu;
+const SAME_UNITS = new RegExp(String.raw`(?<![\p{L}])(same (?:\d{1,5} )?(?:${UNITS}|sample|group|individuals))(?![\p{L}])`, 'giu');
 const INDEPENDENT_WORDS = /(?<![\p{L}])(independent[- ]samples?|two independent groups|independent groups|separate groups|different (?:participants|groups of participants|individuals)|randomi[sz]ed to|randomly (?:assigned|allocated) to|allocated to|assigned to one of|between-?subjects?|between-participants?|two-sample|unpaired|unrelated samples?)(?![\p{L}])/giu;
 const ONE_SAMPLE_WORDS = /(?<![\p{L}])(one-sample|single-sample)(?![\p{L}])/giu;
 const REFERENCE = new RegExp(
@@ -190,7 +192,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     if (value) effectSizes.push({ ...where(m.index, m.index + m[0].length), value, kind: k === 'dz' ? 'dz' : k === 'dav' ? 'dav' : k === 'g' ? 'g' : 'd' });
   }
   const designs: DesignStatement[] = [];
-  if (/paired|pre|post|before|baseline|same|within|repeated|cross|matched|twice|each|both|occasions|time ?points|related|dependent|counterbalanced|independent|separate|different|randomi|randomly|allocated|assigned|between|sample/i.test(text)) for (const [re, design] of [[PAIRED_WORDS, 'paired'], [INDEPENDENT_WORDS, 'independent'], [ONE_SAMPLE_WORDS, 'one-sample']] as const) {
+  if (/paired|pre|post|before|baseline|same|within|repeated|cross|matched|twice|each|both|occasions|time ?points|related|dependent|counterbalanced|independent|separate|different|randomi|randomly|allocated|assigned|between|sample/i.test(text)) for (const [re, design] of [[PAIRED_WORDS, 'paired'], [SAME_UNITS, 'paired'], [INDEPENDENT_WORDS, 'independent'], [ONE_SAMPLE_WORDS, 'one-sample']] as const) {
     for (const m of text.matchAll(re)) designs.push({ ...where(m.index, m.index + m[0].length), design });
   }
   const references: ReferenceValue[] = [];
@@ -234,10 +236,12 @@ function groupTokens(seg: Segment, tokens: Token[], sentenceStarts: number[]): G
     const parenBreak = gap.includes(')') || wordsBeforeParenthesis(gap);
     const isMeanLike = tok.kind === 'mean' || tok.kind === 'pm' || tok.kind === 'paren';
     const isSpread = tok.kind === 'sd' || tok.kind === 'se' || tok.kind === 'pm' || tok.kind === 'paren';
+    // "2.91 (1.22) in the usual-lesson group (n = 11)": a group's n printed after its label
+    const lateN = tok.kind === 'n' && !has(['n']) && has(['mean', 'pm', 'paren']) && !/\d/.test(gap);
     if (
       prev &&
       (sentenceBreak ||
-        parenBreak ||
+        (parenBreak && !lateN) ||
         gap.length > 60 ||
         (isMeanLike && has(['mean', 'pm', 'paren'])) ||
         (isSpread && has(['sd', 'se', 'pm', 'paren'])) ||

@@ -68,6 +68,8 @@ export interface ResultContext {
   effectSizes: Array<Linked<EffectSizeReport>>;
   /** Sample sizes stated in the result's sentence or paragraph, or for the document. */
   sampleSizes: SampleSize[];
+  /** How many t-tests the result's paragraph reports (itself included). */
+  testsInParagraph: number;
 }
 
 /** Records of one segment in reading order, with lookups by position and by sentence. */
@@ -239,6 +241,7 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
     ...(estimate ? { estimate } : {}),
     effectSizes,
     sampleSizes,
+    testsInParagraph: clauses.testsInSegment(report.segment),
   };
 }
 

@@ -156,7 +156,10 @@ function candidateSplits(result: LinkedResult, g1: GroupSummary, g2: GroupSummar
   const perGroup = result.context.sampleSizes.find((s) => s.scope === 'per-group');
   if (perGroup) return { pairs: [[perGroup.n.value, perGroup.n.value]], source: `${perGroup.n.printed} per group`, truncated: false };
   const df = result.report.df;
-  const total = result.context.sampleSizes.find((s) => s.scope === 'total')?.n.value ?? (df && isWholeDf(df) ? df.value + 2 : undefined);
+  // a total printed in the result's own sentence, else df + 2 (a total elsewhere in the
+  // paragraph may be of another sample)
+  const r = result.report;
+  const total = result.context.sampleSizes.find((s) => s.scope === 'total' && s.segment === r.segment && s.sentence === r.sentence)?.n.value ?? (df && isWholeDf(df) ? df.value + 2 : undefined);
   if (!total || total < 4) return { pairs: [], source: '', truncated: false };
   const pairs: Array<[number, number]> = [];
   const half = Math.floor(total / 2);
@@ -165,7 +168,7 @@ function candidateSplits(result: LinkedResult, g1: GroupSummary, g2: GroupSummar
     pairs.push([half - k, total - half + k]);
     if (k > 0 || total % 2 === 1) pairs.push([total - half + k, half - k]);
   }
-  const source = result.context.sampleSizes.some((s) => s.scope === 'total') ? `any split of N = ${total}` : `any split of df + 2 = ${total}`;
+  const source = total !== (df && isWholeDf(df) ? df.value + 2 : undefined) ? `any split of N = ${total}` : `any split of df + 2 = ${total}`;
   return { pairs, source, truncated: pairs.length >= MAX_SPLITS };
 }
 
