@@ -1,16 +1,19 @@
 import type { Segment } from '../parse/types.js';
 import { readNumber, sentenceOf, sourceSpan } from './numbers.js';
 import type { PowerStatement, ReportedNumber } from './types.js';
+import { UNITS } from './units.js';
 
 const HAS_POWER = /(?<![\p{L}])power(?![\p{L}])/iu;
 const POWER_VALUE = /(?<![\p{L}\p{N}.])(\d{1,3}(?:\.\d{1,2})?) ?% (?:statistical )?power|(?<![\p{L}])power (?:of |= ?|was |is |at )?(0?\.\d{1,3}|\d{1,3}(?:\.\d{1,2})? ?%)/diu;
-const EFFECT = /(?<![\p{L}\p{N}_'’])(?:Cohen['’]s )?d ?(?:=|of) ?([-+]?\d{0,2}\.\d{1,3}|\d{1,2})(?![\d.])/du;
+const EFFECT = /(?<![\p{L}\p{N}_'’])(?:Cohen['’]s )?d(?:_?\{?z\}?)? ?(?:=|of) ?([-+]?\d{0,2}\.\d{1,3}|\d{1,2})(?![\d.])/du;
 const ALPHA = /(?:α|alpha)(?: level)? ?(?:=|of|at) ?(0?\.\d{1,4})/iu;
 const SIDES = /(one|two|1|2)[- ](?:tailed|sided)/iu;
 const PER_GROUP = /(?<![\p{L}\p{N}.,])(\d{1,3}(?:,\d{3})?|\d{1,7}) (?:[\p{L}]{3,15} )?(?:per group|in each group|per arm|per condition|in each arm|each)(?![\p{L}])/diu;
 const N_PER_GROUP = /(?<![\p{L}])n ?= ?(\d{1,7}) (?:per group|in each group|per arm|each)/diu;
 const TOTAL = /(?<![\p{L}])(?:total (?:sample )?(?:size )?(?:of |N ?= ?|n ?= ?)?|N ?= ?)(\d{1,3}(?:,\d{3})?|\d{1,7})(?![\d.])/diu;
-const PEOPLE = /(?<![\p{L}\p{N}.,])(\d{1,3}(?:,\d{3})?|\d{1,7}) (?:participants|patients|subjects|people|pairs|children|adults|students|nurses|staff)(?![\p{L}])/diu;
+/** "22 shift workers give 90% power": the number before the verb that gives the power, whatever its noun. */
+const GIVES_POWER = /(?<![\p{L}\p{N}.,])(\d{1,3}(?:,\d{3})?|\d{1,7}) (?:\p{L}{2,20} ){1,2}(?:give|gives|gave|provide|provides|provided|yield|yields|yielded|would give|would provide)(?![\p{L}])/du;
+const PEOPLE = new RegExp(String.raw`(?<![\p{L}\p{N}.,])(\d{1,3}(?:,\d{3})?|\d{1,7}) ${UNITS}(?![\p{L}])`, 'du');
 const PAIRED = /(?<![\p{L}])(paired|within-subjects?|repeated[- ]measures|crossover|pre-post|before and after)(?![\p{L}])/iu;
 const ONE_SAMPLE = /(?<![\p{L}])one-sample(?![\p{L}])/iu;
 
@@ -38,7 +41,7 @@ export function findPowerStatements(seg: Segment, starts: number[]): PowerStatem
     if (!power || !dValue) continue;
     const percent = pv[1] !== undefined || /%$/.test(pv[2] ?? '');
     const perGroup = N_PER_GROUP.exec(sentence) ?? PER_GROUP.exec(sentence);
-    const total = perGroup ? undefined : (TOTAL.exec(sentence) ?? PEOPLE.exec(sentence));
+    const total = perGroup ? undefined : (TOTAL.exec(sentence) ?? PEOPLE.exec(sentence) ?? GIVES_POWER.exec(sentence));
     const nMatch = perGroup ?? total;
     const n = nMatch ? num(nMatch, 1) : undefined;
     const alpha = ALPHA.exec(sentence);
