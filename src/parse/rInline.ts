@@ -12,9 +12,10 @@ const CONSTANT = /^(?:TRUE|FALSE|T|F|NULL|NA|NA_real_|NA_integer_|NA_character_|
 const STRING = /^(?:"[^"\\\n]{0,200}"|'[^'\\\n]{0,200}')$/;
 const NAME = /^[A-Za-z.][A-Za-z0-9._]{0,60}$/;
 /** `apa_num(` or `papaja::apa_num(`. */
-const CALL = /^([A-Za-z.][A-Za-z0-9._]{0,60}(?:::[A-Za-z.][A-Za-z0-9._]{0,60})?) {0,3}\(/;
-/** The engine marker: `r ` (R Markdown) or `{r} ` (Quarto). */
-const ENGINE = /^ {0,3}(?:r|\{r\}) {1,3}/;
+const CALL = /^([A-Za-z.][A-Za-z0-9._]{0,60}(?:::[A-Za-z.][A-Za-z0-9._]{0,60})?)[ \t\r\n]{0,3}\(/;
+/** The engine marker: `r ` (R Markdown) or `{r} ` (Quarto); the code may wrap to the next line. */
+const ENGINE = /^[ \t]{0,3}(?:r|\{r\})[ \t\r\n]{1,4}/;
+const isSpace = (c: string | undefined) => c === ' ' || c === '\t' || c === '\n' || c === '\r';
 
 /** The literal number a piece of inline code prints, as a range of `code`, or undefined. */
 export function literalNumberOfInlineR(code: string): { start: number; end: number } | undefined {
@@ -23,7 +24,7 @@ export function literalNumberOfInlineR(code: string): { start: number; end: numb
   if (!engine) return undefined;
   const from = engine[0].length;
   let to = code.length;
-  while (to > from && code[to - 1] === ' ') to -= 1;
+  while (to > from && isSpace(code[to - 1])) to -= 1;
   const expr = code.slice(from, to);
   if (NUMBER.test(expr)) return trimSuffix(code, from, to);
   const call = CALL.exec(expr);
@@ -66,8 +67,8 @@ function splitArguments(expr: string, from: number, to: number): Array<{ start: 
     else if (c === ',') {
       let a = start;
       let b = i;
-      while (a < b && expr[a] === ' ') a += 1;
-      while (b > a && expr[b - 1] === ' ') b -= 1;
+      while (a < b && isSpace(expr[a])) a += 1;
+      while (b > a && isSpace(expr[b - 1])) b -= 1;
       if (a === b) return undefined;
       out.push({ start: a, end: b });
       start = i + 1;
@@ -83,6 +84,6 @@ function namedValue(expr: string, start: number, end: number): { start: number; 
   const name = expr.slice(start, eq).trim();
   if (!NAME.test(name)) return undefined;
   let a = eq + 1;
-  while (a < end && expr[a] === ' ') a += 1;
+  while (a < end && isSpace(expr[a])) a += 1;
   return { start: a, end };
 }

@@ -15,6 +15,12 @@ const rInline: SegmentCase[] = [
     expect: [{ kind: 'paragraph', text: 'Means were 12.50, 1.98, 3.5 and -2.5.', spans: { '12.50': '12.50', '-2.5': '-2.5' } }],
   },
   {
+    name: 'an inline R call wrapped to the next line is read too',
+    path: 'a.Rmd',
+    source: 'Mood (SD = `r\napa_num(1.27)`) fell, p = `r\nfmt_p(0.009)`.\n',
+    expect: [{ kind: 'paragraph', text: 'Mood (SD = 1.27) fell, p = 0.009.', spans: { '1.27': '1.27', '0.009': '0.009' } }],
+  },
+  {
     name: 'a call that reads a variable or nests a call stays code, as inline code always was',
     path: 'a.Rmd',
     source: 'So t(28) = `r apa_num(tval)` and `r round(mean(x), 2)`.\n',
