@@ -44,7 +44,7 @@ export const meanIsPossibleForIntegers: Rule = {
         });
         continue;
       }
-      if (items === 1 && g.spread?.kind === 'SD' && g.spread.number.decimals > 0) {
+      if (items === 1 && g.spread && document.spreadKinds.get(g) === 'SD' && g.spread.number.decimals > 0) {
         const [sl, sh] = numberInterval(g.spread.number);
         if (!grimmerPossible(lo, hi, sl, sh, n)) {
           out.push({

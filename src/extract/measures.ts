@@ -15,7 +15,7 @@ const MEAN_OF_ITEMS = new RegExp(String.raw`(?<![\p{L}])(?:mean|average) of (?:t
 const SUM_OF_ITEMS = new RegExp(String.raw`(?<![\p{L}])(?:sum|total) of (?:the )?${COUNT} (?:\p{L}{1,20} )?items`, 'iu');
 const K_ITEM = /(?<![\p{L}\p{N}])(\d{1,3})-item (?:scale|measure|questionnaire|inventory|index|test)(?![\p{L}])/iu;
 // Three patterns rather than one alternation: each is judged linear by recheck on its own.
-const INTEGER_WORDS = /(?<![\p{L}])(?:single[- ]item|a single item|one item|integers?|integer[- ]valued|whole[- ]numbers?|whole[- ]number counts?)(?![\p{L}])/iu;
+const INTEGER_WORDS = /(?<![\p{L}])(?:single[- ]item|a single item|one item|single rating|integers?|integer[- ]valued|whole[- ]numbers?|whole[- ]number counts?|whole points)(?![\p{L}])/iu;
 const COUNT_WORDS = /(?<![\p{L}])(?:counts? of \p{L}{3,30}|(?:recorded|counted|tallied|logged|coded) as (?:the )?(?:number|count)s? of)(?![\p{L}])/iu;
 const NUMBER_RECORDED = /(?<![\p{L}])number of \p{L}{3,30} (?:was|were) (?:recorded|counted|tallied|logged|coded)(?![\p{L}])/iu;
 
@@ -47,6 +47,7 @@ function numberOfMeasure(sentence: string): RegExpExecArray | null {
 }
 /** The sentence's subject before its verb: "Mood was rated …", "Errors per shift were recorded …". */
 const SUBJECT = /^((?:[\p{L}'’-]{1,30} ){0,5}[\p{L}'’-]{2,30}) (?:was|were|is|are) /u;
+const FOR_MEASURE = /^For ((?:[\p{L}'’-]{1,30} ){0,3}[\p{L}'’-]{2,30}), /u;
 /** Where a subject's head phrase ends: "errors per shift" → "errors", "number of visits in May" → … */
 const HEAD_END = / (?:per|of|in|at|on|for|during|from|with|across|after|before|by) /u;
 const SAMPLE_SIZE_DEFINITION = /(?<![\p{L}])(?:n|N|sample size) (?:is|was|=|denotes|indicates|gives|refers to) the (?:number|count) of/u;
@@ -104,7 +105,8 @@ function itemCount(word: string): number {
 function measureNames(sentence: string): string[] {
   const counted = COUNTED_THING.exec(sentence);
   if (counted) return [counted[1], counted[2]].flatMap((w) => (w && !UNIT_WORDS.has(w.toLowerCase()) ? [singular(w)] : [])).filter((w) => !NOT_A_COUNTED_MEASURE.test(w));
-  const subject = SUBJECT.exec(sentence.trimStart())?.[1];
+  // "For breaks taken, each driver contributed a count …": the measure is named first
+  const subject = FOR_MEASURE.exec(sentence.trimStart())?.[1] ?? SUBJECT.exec(sentence.trimStart())?.[1];
   if (!subject) return [];
   const words = subject.toLowerCase().split(HEAD_END)[0]?.split(' ').filter((w) => !DETERMINERS.has(w)) ?? [];
   if (words.length === 0 || words.length > 3) return [];

@@ -319,11 +319,11 @@ function makeLink(scope: DescriptiveLink['scope'], groups: GroupSummary[], sprea
  * statements of the document's sentences without descriptives, when they agree. A label
  * printed beside another group ("(38.2 ± 6.4) (mean ± s.d.)") is that group's only.
  */
-interface SpreadStatements {
+export interface SpreadStatements {
   kindFor(g: GroupSummary): Extraction['statements'][number] | undefined;
 }
 
-function spreadStatements(x: Extraction): SpreadStatements {
+export function spreadStatements(x: Extraction): SpreadStatements {
   const statements = x.statements.filter((s) => s.kind === 'spread');
   const key = (segment: number, sentence: number) => `${segment}:${sentence}`;
   const withDescriptives = new Set(x.summaries.map((g) => key(g.segment, g.sentence)));

@@ -4,7 +4,7 @@ import type { DocumentSettings, LinkedDocument, LinkedResult, Setting } from './
 
 export type * from './types.js';
 export type { DescriptiveLink, Design, IntervalLink, IntervalTarget, LinkBasis, Linked, ResultContext } from './descriptives.js';
-import { contextJoiner } from './descriptives.js';
+import { contextJoiner, spreadStatements } from './descriptives.js';
 
 /** Default alpha when nothing sets one: .05 (common practice, no source). */
 export const DEFAULT_ALPHA = 0.05;
@@ -88,6 +88,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     results,
     integerDeclarations: integerDeclarations(extraction),
     inferredSizes: inferredSizes(results),
+    spreadKinds: spreadKinds(extraction),
     pWithoutT: extraction.pWithoutT,
     directives,
     extraction,
@@ -208,6 +209,17 @@ function inferredSizes(results: LinkedResult[]): LinkedDocument['inferredSizes']
       const g = link.groups[0];
       if (g && !g.n) out.set(g, { n: wholeDf + 1, because: `df + 1 of the ${design.value} test (df = ${wholeDf})` });
     }
+  }
+  return out;
+}
+
+/** What each group's "±" or bracketed spread stands for, its own label first, then the text's statements about it. */
+function spreadKinds(x: Extraction): LinkedDocument['spreadKinds'] {
+  const spreads = spreadStatements(x);
+  const out: LinkedDocument['spreadKinds'] = new Map();
+  for (const g of x.summaries) {
+    if (!g.spread) continue;
+    out.set(g, g.spread.kind !== 'unstated' ? g.spread.kind : (spreads.kindFor(g)?.spread ?? 'unstated'));
   }
   return out;
 }

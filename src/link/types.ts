@@ -1,4 +1,4 @@
-import type { ContextStatement, Extraction, GroupSummary, IntegerStatement, PWithoutT, Sidedness, TTestReport } from '../extract/types.js';
+import type { ContextStatement, Extraction, GroupSummary, IntegerStatement, PWithoutT, Sidedness, SpreadKind, TTestReport } from '../extract/types.js';
 import type { Directive, ReadNote, Span } from '../parse/types.js';
 import type { ResultContext } from './descriptives.js';
 export type { IntervalTarget, LinkBasis, Linked } from './descriptives.js';
@@ -52,6 +52,8 @@ export interface LinkedDocument {
    * the group is certainly tied to.
    */
   inferredSizes: Map<GroupSummary, { n: number; because: string }>;
+  /** What each group's spread is (SD, SE or unstated), from its label or the text's statements about "±". */
+  spreadKinds: Map<GroupSummary, SpreadKind>;
   /** Why the front matter could not be read, when it could not. */
   frontMatterError?: { message: string; span: Span };
   /** What could not be read as written: undecodable bytes, nesting past the parser's limits. */
