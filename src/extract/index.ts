@@ -9,7 +9,7 @@ import { findMentions } from './mentions.js';
 import { findIntegerMeasures, findMeasureMentions } from './measures.js';
 import { findPowerStatements } from './power.js';
 import { findSummaries } from './summaries.js';
-import { findTableSummaries, findTableTests } from './tables.js';
+import { findTableMentions, readTables } from './tables.js';
 import { findPWithoutT } from './pWithoutT.js';
 import { findOtherStatistics } from './statistics.js';
 import { applyStarLegends, findStarLegends, type StarLegend } from './stars.js';
@@ -45,6 +45,8 @@ export function extract(doc: ParsedDocument): Extraction {
     mentions: [],
     sections: segments.map((s) => s.section),
     tables: [],
+    tableBlocks: [],
+    tableMentions: [],
   };
   const legends: StarLegend[] = [];
   for (const seg of segments) {
@@ -77,13 +79,19 @@ export function extract(doc: ParsedDocument): Extraction {
     if (t) t.lastBlock = Math.max(t.lastBlock, seg.block);
     else out.tables.push({ table: seg.table.table, firstBlock: seg.block, lastBlock: seg.block });
   }
-  const tableSummaries = findTableSummaries(segments);
-  const tableMeans = new Set(tableSummaries.map((t) => t.mean?.span.start));
-  out.summaries = out.summaries.filter((s) => !tableMeans.has(s.mean?.span.start)).concat(tableSummaries);
+  const tables = readTables(segments);
+  const tableMeans = new Set(tables.summaries.map((t) => t.mean?.span.start));
+  out.summaries = out.summaries.filter((s) => !tableMeans.has(s.mean?.span.start)).concat(tables.summaries);
   out.summaries.sort((a, b) => a.span.start - b.span.start);
   const seen = new Set(out.tests.map((t) => t.span.start));
-  for (const t of findTableTests(segments)) if (!seen.has(t.span.start)) out.tests.push(t);
+  for (const t of tables.tests) if (!seen.has(t.span.start)) out.tests.push(t);
   out.tests.sort((a, b) => a.span.start - b.span.start);
+  for (const [list, extra] of [[out.effectSizes, tables.effectSizes], [out.intervals, tables.intervals], [out.estimates, tables.estimates]] as const) {
+    append(list as Array<(typeof extra)[number]>, extra);
+    list.sort((a, b) => a.span.start - b.span.start);
+  }
+  out.tableBlocks = tables.blocks;
+  out.tableMentions = findTableMentions(segments, tables.blocks, out.tables);
   applyStarLegends(out.tests, legends);
   out.measureMentions = findMeasureMentions(segments, out.integerMeasures);
   return out;

@@ -14,14 +14,15 @@ const COUNT = String.raw`(\d{1,3}|one|two|three|four|five|six|seven|eight|nine|t
 const MEAN_OF_ITEMS = new RegExp(String.raw`(?<![\p{L}])(?:mean|average) of (?:the )?${COUNT} (?:\p{L}{1,20} )?items`, 'iu');
 const SUM_OF_ITEMS = new RegExp(String.raw`(?<![\p{L}])(?:sum|total) of (?:the )?${COUNT} (?:\p{L}{1,20} )?items`, 'iu');
 const K_ITEM = /(?<![\p{L}\p{N}])(\d{1,3})-item (?:scale|measure|questionnaire|inventory|index|test)(?![\p{L}])/iu;
-// Three patterns rather than one alternation: each is judged linear by recheck on its own.
+// Several patterns rather than one alternation: each is judged linear by recheck on its own.
 const INTEGER_WORDS = /(?<![\p{L}])(?:single[- ]item|a single item|one item|single rating|integers?|integer[- ]valued|whole[- ]numbers?|whole[- ]number counts?|whole points)(?![\p{L}])/iu;
-const COUNT_WORDS = /(?<![\p{L}])(?:counts? of \p{L}{3,30}|(?:recorded|counted|tallied|logged|coded) as (?:the )?(?:number|count)s? of)(?![\p{L}])/iu;
+const COUNT_OF = /(?<![\p{L}])counts? of \p{L}{3,30}/iu;
+const RECORDED_AS_COUNT = /(?<![\p{L}])(?:recorded|counted|tallied|logged|coded) as (?:the )?(?:number|count)s? of(?![\p{L}])/iu;
 const NUMBER_RECORDED = /(?<![\p{L}])number of \p{L}{3,30} (?:was|were) (?:recorded|counted|tallied|logged|coded)(?![\p{L}])/iu;
 
 /** The first words of a sentence that declare whole-number scores, if any. */
 function integerWords(text: string): RegExpExecArray | null {
-  return INTEGER_WORDS.exec(text) ?? COUNT_WORDS.exec(text) ?? NUMBER_RECORDED.exec(text);
+  return INTEGER_WORDS.exec(text) ?? COUNT_OF.exec(text) ?? RECORDED_AS_COUNT.exec(text) ?? NUMBER_RECORDED.exec(text);
 }
 /** What a count counts: "the number of errors", "number of Lenses and keywords saved". */
 const COUNTED_THING = /(?<![\p{L}])(?:number|counts?) of (\p{L}{3,30})(?: and (\p{L}{3,30}))?/iu;

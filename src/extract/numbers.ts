@@ -50,3 +50,10 @@ export function sentenceOf(starts: number[], index: number): number {
   }
   return lo;
 }
+
+/** The text without white space or any of these characters at its end (a loop: a trailing-run pattern is quadratic). */
+export function trimEndOf(text: string, chars: string): string {
+  let end = text.length;
+  while (end > 0 && (chars.includes(text[end - 1] as string) || /\s/.test(text[end - 1] as string))) end -= 1;
+  return text.slice(0, end);
+}

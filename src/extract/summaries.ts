@@ -1,5 +1,5 @@
 import type { Segment } from '../parse/types.js';
-import { readNumber, sentenceOf, sourceSpan } from './numbers.js';
+import { readNumber, sentenceOf, sourceSpan, trimEndOf } from './numbers.js';
 import { UNITS } from './units.js';
 import type {
   CountPercent,
@@ -94,6 +94,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     sentence: sentenceOf(sentenceStarts, a),
     span: sourceSpan(seg, a, b),
     printed: text.slice(a, b),
+    ...(seg.table ? { table: { table: seg.table.table, row: seg.table.row } } : {}),
   });
   // Tokens never overlap, so kept sorted by start their ends are sorted too: a binary search
   // finds the one neighbour that could overlap a new token (a linear scan was quadratic).
@@ -317,9 +318,3 @@ function wordsBeforeParenthesis(text: string): boolean {
   return false;
 }
 
-/** The text without white space or any of these characters at its end (a loop: a trailing-run pattern is quadratic). */
-function trimEndOf(text: string, chars: string): string {
-  let end = text.length;
-  while (end > 0 && (chars.includes(text[end - 1] as string) || /\s/.test(text[end - 1] as string))) end -= 1;
-  return text.slice(0, end);
-}

@@ -178,6 +178,7 @@ function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceSta
         }
       : {}),
     ...(variant ? { namedVariant: variantName(variant[1] as string) } : {}),
+    ...(seg.table ? { table: { table: seg.table.table, row: seg.table.row } } : {}),
   };
   return report;
 }

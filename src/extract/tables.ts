@@ -1,63 +1,312 @@
 import type { Segment } from '../parse/types.js';
-import { readNumber, sourceSpan } from './numbers.js';
-import type { GroupSummary, ReportedNumber, ReportedP, TTestReport } from './types.js';
-
-const T_HEADER = /^(?:t|t[- ]?(?:value|stat(?:istic)?)|t-test|t statistic)$/iu;
-const DF_HEADER = /^(?:df|d\.f\.|degrees of freedom)$/iu;
-const P_HEADER = /^(?:p|p[- ]?value|sig\.?|sig\. \(2-tailed\)|p \(two-tailed\)|p \(2-tailed\)|pr\(>\|t\|\))$/iu;
-const CELL_NUMBER = /^ ?([-+]? ?(?:\d{1,9}(?:\.\d{1,20})?|\.\d{1,20})) ?$/u;
-const CELL_P = /^ ?(<=|>=|≤|≥|<|>|=)? ?(\d{1,12}(?:\.\d{1,20})?|\.\d{1,20})(?: ?(?:[eE] ?([-+]?\d{1,3})|[×xX*·] ?10 ?\^? ?([-+]?\d{1,3})))? ?$/u;
+import { readNumber, sentenceOf, sentenceStarts, sourceSpan, trimEndOf } from './numbers.js';
+import { decimalsOf, starBound } from './stars.js';
+import type { EffectSizeReport, EstimateReport, GroupSummary, IntervalReport, ReportedNumber, ReportedP, TableBlockRecord, TableRow, TTestReport } from './types.js';
 
 /**
- * Results laid out as table columns: a header row naming t, df and p (in any order) and
- * one result per body row. Cells that hold a whole `t(28) = 2.10` are read by the prose
- * scanner instead; this covers the bare-number layout.
+ * Results laid out in tables, read row by row. Columns are recognised by their header:
+ * - wide layouts, one comparison per row: a column per group whose header names the group and
+ *   says what its cells hold (`Walking (n = 36), mean (SD)`, `Mean ± SE`), then t (its df may
+ *   stand in the header: `t(64)`, `Related t-value (df = 50)`), df, p (with stars or not), d and
+ *   a CI (`Difference (95% CI)` cells such as `2.06 (0.78 to 3.35)`);
+ * - long layouts, one group per row: Group, n, M, SD (or SE) columns; the rows of one measure
+ *   form a block (the measure's name in the first column, blank below it), whose test is printed
+ *   in a row of its own, in prose after the table, or in a t column of the block's first row;
+ * - cells labelled `t = 3.33` and `P = 0.010` in separate rows of one column, under a label that
+ *   spans both rows (a layout of PDF conversions), the df in the caption (`df = 5`).
+ * Cells holding a whole `t(28) = 2.10, p = .045` are read by the prose reader instead.
  */
-export function findTableTests(segments: Segment[]): TTestReport[] {
-  const out: TTestReport[] = [];
-  for (const cells of tablesOf(segments).values()) {
-    const header = cells.filter((c) => c.table?.row === 0);
-    const col = (re: RegExp) => header.find((h) => re.test(h.text.trim()))?.table?.column;
-    const tCol = col(T_HEADER);
-    const pCol = col(P_HEADER);
-    if (tCol === undefined || pCol === undefined) continue;
-    const dfCol = col(DF_HEADER);
-    for (const row of rowsOf(cells).values()) {
-      const tCell = row.get(tCol);
-      const pCell = row.get(pCol);
-      if (!tCell || !pCell) continue;
-      const t = cellNumber(tCell);
-      const p = cellP(pCell);
-      if (!t || !p) continue;
-      const dfCell = dfCol === undefined ? undefined : row.get(dfCol);
-      const df = dfCell ? cellNumber(dfCell) : undefined;
-      const last = [tCell, pCell, dfCell].filter((c): c is Segment => c !== undefined).sort((a, b) => (a.ends.at(-1) as number) - (b.ends.at(-1) as number)).at(-1) as Segment;
-      const span = { start: Math.min(t.span.start, p.span.start, df?.span.start ?? Infinity), end: last.ends.at(-1) as number };
-      out.push({
-        id: `${tCell.id}:0`,
-        segment: tCell.id,
-        block: tCell.block,
-        sentence: 0,
-        span,
-        printed: [tCell.text.trim(), df?.printed, p.printed].filter(Boolean).join(' | '),
-        style: 'table-columns',
-        plural: false,
-        inCode: false,
-        tOp: '=',
-        t,
-        ...(df ? { df } : {}),
-        p,
-      });
+export interface TableResults {
+  tests: TTestReport[];
+  summaries: GroupSummary[];
+  effectSizes: EffectSizeReport[];
+  intervals: IntervalReport[];
+  estimates: EstimateReport[];
+  blocks: TableBlock[];
+}
+
+type TableBlock = TableBlockRecord;
+
+// Bounded building blocks (see test/regex-safety).
+const NUM = String.raw`[-+]?(?:\d{1,9}(?:\.\d{1,12})?|\.\d{1,12})`;
+const STARS = String.raw`(\*{1,4}|†)?`;
+const T_HEADER = /^(?:(?:related|paired|independent|welch['’]?s?|student['’]?s?) )?t(?:[- ]?(?:value|test|stat(?:istic)?))?(?: ?\( ?(?:df ?= ?)?(\d{1,6}(?:\.\d{1,4})?) ?\)| ?\((?:df)\))?$/iu;
+const DF_HEADER = /^(?:df|d\.f\.|degrees of freedom)$/iu;
+const P_HEADER = /^(?:p|p[- ]?values?|sig\.?|significance)(?: ?\((?:two|2|one|1)[- ]?(?:tailed|sided|t)\))?$|^sig\. \(2-tailed\)$|^pr\(>\|t\|\)$/iu;
+const D_HEADER = /^(?:d|d_?z|d_?av|cohen['’]s d|hedges['’]? ?g|g|es|effect size|effect size \(d\))$/iu;
+const CI_HEADER = /(?:(\d{2}(?:\.\d)?) ?% ?(?:ci|c\.i\.|confidence interval)|^(?:ci|confidence interval)$)/iu;
+const MEAN_HEADER = /^(?:m|mean|means|avg|average|x̄)$/iu;
+const SD_HEADER = /^(?:sd|s\.d\.|std\.? ?dev\.?|standard deviation)$/iu;
+const SE_HEADER = /^(?:se|sem|s\.e\.|s\.e\.m\.|standard error)$/iu;
+const N_HEADER = /^(?:n|count|size|sample size|participants)$/iu;
+const GROUP_HEADER = /^(?:group|condition|arm|treatment|sample)$/iu;
+/** A group's column: `Walking (n = 36), mean (SD)`, `Mean (SD)`, `M ± SE`. */
+const GROUP_COLUMN = /(?:^|[\s,(])(?:m|mean|means)s? ?(?:\(\s?(sd|se|sem|s\.d\.|s\.e\.)\s?\)|± ?(sd|se|sem|s\.d\.|s\.e\.))\s?\)?$/iu;
+const HEADER_N = /\(\s?n ?= ?(\d{1,6})\s?\)/iu;
+
+const CELL_NUMBER = new RegExp(String.raw`^ ?(${NUM}) ?${STARS} ?$`, 'u');
+const CELL_P = new RegExp(String.raw`^ ?(<=|>=|≤|≥|<|>|=)? ?(\d{1,12}(?:\.\d{1,20})?|\.\d{1,20})(?: ?(?:[eE] ?([-+]?\d{1,3})|[×xX*·] ?10 ?\^? ?([-+]?\d{1,3})))? ?(\*{1,4}|†)? ?$`, 'u');
+const CELL_MEAN_SPREAD = new RegExp(String.raw`^ ?(${NUM}) ?(?:\( ?(${NUM}) ?\)|± ?(${NUM})) ?$`, 'u');
+const CELL_CI = new RegExp(String.raw`^ ?(?:(${NUM}) ?)?[(\[]? ?(${NUM}) ?(?:,|;|to|–|—| - |-(?=[.\d])) ?(${NUM}) ?[)\]]? ?$`, 'u');
+const LABELLED_T = new RegExp(String.raw`^ ?[tT] ?= ?(${NUM}) ?$`, 'u');
+const LABELLED_P = new RegExp(String.raw`^ ?[pP] ?(<=|>=|≤|≥|<|>|=) ?(\d{1,12}(?:\.\d{1,20})?|\.\d{1,20}) ?$`, 'u');
+const CAPTION_DF = /(?<![\p{L}])(?:df|d\.f\.) ?= ?(\d{1,6})(?![\d.])/u;
+
+interface Grid {
+  table: number;
+  header: Map<number, Segment>;
+  rows: Map<number, Map<number, Segment>>;
+  caption?: Segment;
+}
+
+/** Every table of the document read as results, groups, effect sizes and intervals by row. */
+export function readTables(segments: readonly Segment[]): TableResults {
+  const out: TableResults = { tests: [], summaries: [], effectSizes: [], intervals: [], estimates: [], blocks: [] };
+  for (const grid of gridsOf(segments)) readGrid(grid, out);
+  return out;
+}
+
+function gridsOf(segments: readonly Segment[]): Grid[] {
+  const grids = new Map<number, Grid>();
+  for (const s of segments) {
+    if (s.legendOf?.role === 'caption') {
+      const g = grids.get(s.legendOf.table) ?? newGrid(s.legendOf.table);
+      g.caption = s;
+      grids.set(s.legendOf.table, g);
+    }
+    if (s.kind !== 'tableCell' || !s.table) continue;
+    const g = grids.get(s.table.table) ?? newGrid(s.table.table);
+    grids.set(s.table.table, g);
+    if (s.table.row === 0) g.header.set(s.table.column, s);
+    else {
+      const row = g.rows.get(s.table.row) ?? new Map<number, Segment>();
+      row.set(s.table.column, s);
+      g.rows.set(s.table.row, row);
     }
   }
-  return out;
+  return [...grids.values()];
+}
+
+function newGrid(table: number): Grid {
+  return { table, header: new Map(), rows: new Map() };
+}
+
+interface Columns {
+  t?: { column: number; df?: ReportedNumber };
+  df?: number;
+  p?: number;
+  d?: { column: number; kind: EffectSizeReport['kind'] };
+  ci?: { column: number; level: number };
+  groups: Array<{ column: number; kind: 'SD' | 'SE'; printedKind: string; label: string; n?: ReportedNumber }>;
+  mean?: number;
+  spread?: { column: number; kind: 'SD' | 'SE'; printed: string };
+  n?: number;
+  group?: number;
+}
+
+function columnsOf(grid: Grid): Columns {
+  const c: Columns = { groups: [] };
+  for (const [column, seg] of [...grid.header].sort((a, b) => a[0] - b[0])) {
+    const text = seg.text.trim();
+    const t = T_HEADER.exec(text);
+    const groupColumn = GROUP_COLUMN.exec(text);
+    if (t && c.t === undefined) {
+      const dfText = t[1];
+      const at = dfText ? seg.text.indexOf(dfText) : -1;
+      const df = dfText && at >= 0 ? readNumber(seg, at, at + dfText.length) : undefined;
+      c.t = { column, ...(df ? { df } : {}) };
+    } else if (DF_HEADER.test(text)) c.df ??= column;
+    else if (P_HEADER.test(text)) c.p ??= column;
+    else if (D_HEADER.test(text)) {
+      const k = text.toLowerCase().replace(/[_{}]/g, '');
+      c.d ??= { column, kind: k === 'dz' ? 'dz' : k === 'dav' ? 'dav' : /g$/.test(k) ? 'g' : 'd' };
+    } else if (groupColumn) {
+      const kindWord = (groupColumn[1] ?? groupColumn[2] ?? '') as string;
+      const n = HEADER_N.exec(text);
+      const nAt = n ? seg.text.indexOf(n[1] as string, seg.text.search(/\(\s?n ?=/iu)) : -1;
+      const label = trimEndOf(text.slice(0, groupColumn.index).replace(HEADER_N, ''), ',;:').trim();
+      const nNumber = n && nAt >= 0 ? readNumber(seg, nAt, nAt + (n[1] as string).length) : undefined;
+      c.groups.push({ column, kind: /^s\.?d/i.test(kindWord) ? 'SD' : 'SE', printedKind: kindWord, label, ...(nNumber ? { n: nNumber } : {}) });
+    } else if (CI_HEADER.test(text)) {
+      const level = Number(CI_HEADER.exec(text)?.[1] ?? 95) / 100;
+      c.ci ??= { column, level };
+    } else if (MEAN_HEADER.test(text)) c.mean ??= column;
+    else if (SD_HEADER.test(text)) c.spread ??= { column, kind: 'SD', printed: text };
+    else if (SE_HEADER.test(text)) c.spread ??= { column, kind: 'SE', printed: text };
+    else if (N_HEADER.test(text)) c.n ??= column;
+    else if (GROUP_HEADER.test(text)) c.group ??= column;
+  }
+  return c;
+}
+
+function readGrid(grid: Grid, out: TableResults): void {
+  const cols = columnsOf(grid);
+  const captionDf = grid.caption ? captionDfOf(grid.caption) : undefined;
+  const rows = [...grid.rows.keys()].sort((a, b) => a - b);
+  // long layout: the measure named in the first column, blank in the rows below it
+  let block: TableBlock | undefined;
+  for (const r of rows) {
+    const row = grid.rows.get(r) as Map<number, Segment>;
+    const where = { table: grid.table, row: r };
+    const label = row.get(0)?.text.trim() ?? '';
+    if (label !== '' && !LABELLED_T.test(label) && !/^[tT] ?[(=]/.test(label)) {
+      block = { table: grid.table, label, firstRow: r, lastRow: r };
+      out.blocks.push(block);
+    } else if (block) block.lastRow = r;
+    // wide layout: one group per group column
+    for (const g of cols.groups) {
+      const cell = row.get(g.column);
+      const m = cell ? CELL_MEAN_SPREAD.exec(cell.text) : null;
+      if (!cell || !m) continue;
+      const mean = numberAt(cell, m[1] as string, 0);
+      const spreadText = (m[2] ?? m[3]) as string;
+      const spread = mean ? numberAt(cell, spreadText, cell.text.indexOf(m[1] as string) + (m[1] as string).length) : undefined;
+      if (!mean || !spread) continue;
+      out.summaries.push({
+        id: `${cell.id}:row`,
+        segment: cell.id,
+        block: cell.block,
+        sentence: 0,
+        span: { start: mean.span.start, end: spread.span.end },
+        printed: `${g.label ? `${g.label}: ` : ''}${cell.text.trim()}`,
+        mean,
+        spread: { number: spread, kind: g.kind, printedKind: g.printedKind },
+        ...(g.n ? { n: g.n } : {}),
+        ...(g.label ? { label: g.label } : {}),
+        percent: false,
+        table: where,
+      });
+    }
+    // long layout: the row is a group
+    if (cols.mean !== undefined) {
+      const meanCell = row.get(cols.mean);
+      const mean = meanCell ? cellNumber(meanCell) : undefined;
+      if (meanCell && mean) {
+        const spreadCell = cols.spread ? row.get(cols.spread.column) : undefined;
+        const spread = spreadCell ? cellNumber(spreadCell) : undefined;
+        const nCell = cols.n !== undefined ? row.get(cols.n) : undefined;
+        const n = nCell ? cellNumber(nCell) : undefined;
+        const labelCell = row.get(cols.group ?? 0);
+        const parts = [mean.span, spread?.span, n?.span].filter((s): s is { start: number; end: number } => s !== undefined);
+        out.summaries.push({
+          id: `${meanCell.id}:row`,
+          segment: meanCell.id,
+          block: meanCell.block,
+          sentence: 0,
+          span: { start: Math.min(...parts.map((p) => p.start)), end: Math.max(...parts.map((p) => p.end)) },
+          printed: [labelCell?.text.trim(), mean.printed, spread?.printed, n?.printed].filter(Boolean).join(' | '),
+          mean,
+          ...(spread && cols.spread ? { spread: { number: spread, kind: cols.spread.kind, printedKind: cols.spread.printed } } : {}),
+          ...(n ? { n } : {}),
+          ...(labelCell?.text.trim() ? { label: labelCell.text.trim() } : {}),
+          percent: false,
+          table: where,
+        });
+      }
+    }
+    // the row's test
+    const tCell = cols.t ? row.get(cols.t.column) : undefined;
+    if (tCell) {
+      const m = CELL_NUMBER.exec(tCell.text);
+      const t = m ? numberAt(tCell, m[1] as string, 0) : undefined;
+      if (t && m) {
+        const dfCell = cols.df !== undefined ? row.get(cols.df) : undefined;
+        const df = (dfCell ? cellNumber(dfCell) : undefined) ?? cols.t?.df ?? captionDf;
+        const pCell = cols.p !== undefined ? row.get(cols.p) : undefined;
+        const p = (pCell ? cellP(pCell) : undefined) ?? (m[2] ? starP(tCell, m[2]) : undefined);
+        if (p || df) out.tests.push(tableTest(tCell, t, df, p, [tCell, dfCell, pCell], where));
+      }
+    }
+    const dCell = cols.d ? row.get(cols.d.column) : undefined;
+    const d = dCell ? cellNumber(dCell) : undefined;
+    if (dCell && d && cols.d) out.effectSizes.push({ segment: dCell.id, block: dCell.block, sentence: 0, span: d.span, printed: `${grid.header.get(cols.d.column)?.text.trim() ?? 'd'} = ${d.printed}`, kind: cols.d.kind, value: d, table: where });
+    const ciCell = cols.ci ? row.get(cols.ci.column) : undefined;
+    if (ciCell && cols.ci) readIntervalCell(ciCell, cols.ci.level, where, out);
+  }
+  readLabelledCells(grid, captionDf, out);
+}
+
+/** A cell `2.06 (0.78 to 3.35)` is an estimate with its interval; `(−3.4 to 2.1)` an interval alone. */
+function readIntervalCell(cell: Segment, level: number, where: TableRow, out: TableResults): void {
+  const m = CELL_CI.exec(cell.text);
+  if (!m) return;
+  let from = 0;
+  const estimate = m[1] ? numberAt(cell, m[1], from) : undefined;
+  if (estimate) from = cell.text.indexOf(m[1] as string) + (m[1] as string).length;
+  const low = numberAt(cell, m[2] as string, from);
+  const high = low ? numberAt(cell, m[3] as string, cell.text.indexOf(m[2] as string, from) + (m[2] as string).length) : undefined;
+  if (!low || !high || low.value > high.value) return;
+  if (estimate) out.estimates.push({ segment: cell.id, block: cell.block, sentence: 0, span: estimate.span, printed: `estimate = ${estimate.printed}`, value: estimate, table: where });
+  out.intervals.push({ segment: cell.id, block: cell.block, sentence: 0, level, low, high, span: { start: low.span.start, end: high.span.end }, printed: `${Math.round(level * 100)}% CI ${cell.text.trim()}`, table: where });
+}
+
+/**
+ * `t = 3.33` and `P = 0.010` in cells of their own: the p is the one labelled cell of the row,
+ * else the labelled cell next to it in the same column when a label in the first column spans
+ * both rows.
+ */
+function readLabelledCells(grid: Grid, captionDf: ReportedNumber | undefined, out: TableResults): void {
+  const spans = new Map<number, number>();
+  for (const [r, row] of grid.rows) {
+    const label = row.get(0);
+    if (label?.table?.rowSpan && label.table.rowSpan > 1) for (let k = 0; k < label.table.rowSpan; k += 1) spans.set(r + k, r);
+  }
+  for (const [r, row] of grid.rows) {
+    for (const [c, cell] of row) {
+      const t = LABELLED_T.exec(cell.text);
+      if (!t) continue;
+      const ps = [...row.values()].filter((x) => LABELLED_P.test(x.text));
+      let pCell = ps.length === 1 ? ps[0] : undefined;
+      if (!pCell && spans.has(r)) {
+        for (const other of [r - 1, r + 1]) {
+          const candidate = spans.get(other) === spans.get(r) ? grid.rows.get(other)?.get(c) : undefined;
+          if (candidate && LABELLED_P.test(candidate.text)) pCell = candidate;
+        }
+      }
+      const tNumber = numberAt(cell, t[1] as string, 0);
+      const p = pCell ? labelledP(pCell) : undefined;
+      if (tNumber && p) out.tests.push(tableTest(cell, tNumber, captionDf, p, [cell, pCell], { table: grid.table, row: r }));
+    }
+  }
+}
+
+function tableTest(tCell: Segment, t: ReportedNumber, df: ReportedNumber | undefined, p: ReportedP | undefined, cells: Array<Segment | undefined>, where: TableRow): TTestReport {
+  const present = cells.filter((c): c is Segment => c !== undefined);
+  const last = present.sort((a, b) => (a.ends.at(-1) as number) - (b.ends.at(-1) as number)).at(-1) as Segment;
+  return {
+    id: `${tCell.id}:0`,
+    segment: tCell.id,
+    block: tCell.block,
+    sentence: 0,
+    span: { start: Math.min(t.span.start, p?.span.start ?? Infinity, df && df.span.start > t.span.start ? df.span.start : Infinity), end: Math.max(last.ends.at(-1) as number, t.span.end) },
+    printed: [tCell.text.trim(), df?.printed, p?.printed].filter(Boolean).join(' | '),
+    style: 'table-columns',
+    plural: false,
+    inCode: false,
+    tOp: '=',
+    t,
+    ...(df ? { df } : {}),
+    ...(p ? { p } : {}),
+    table: where,
+  };
+}
+
+function captionDfOf(caption: Segment): ReportedNumber | undefined {
+  const m = CAPTION_DF.exec(caption.text);
+  if (!m) return undefined;
+  const at = m.index + m[0].length - (m[1] as string).length;
+  return readNumber(caption, at, at + (m[1] as string).length);
+}
+
+/** The number `text` at its first place in the cell at or after `from`. */
+function numberAt(cell: Segment, text: string, from: number): ReportedNumber | undefined {
+  const at = cell.text.indexOf(text, from);
+  return at < 0 ? undefined : readNumber(cell, at, at + text.length);
 }
 
 function cellNumber(seg: Segment): ReportedNumber | undefined {
   const m = CELL_NUMBER.exec(seg.text);
-  if (!m) return undefined;
-  const a = seg.text.indexOf(m[1] as string);
-  return readNumber(seg, a, a + (m[1] as string).length);
+  return m ? numberAt(seg, m[1] as string, 0) : undefined;
 }
 
 function cellP(seg: Segment): ReportedP | undefined {
@@ -65,102 +314,94 @@ function cellP(seg: Segment): ReportedP | undefined {
   if (!m) return undefined;
   const lead = seg.text.length - seg.text.trimStart().length;
   const numStart = seg.text.indexOf(m[2] as string, lead);
-  const numEnd = seg.text.trimEnd().length;
+  const mantissaEnd = numStart + (m[2] as string).length;
+  const stars = m[5];
+  const numEnd = stars ? seg.text.lastIndexOf(stars) : seg.text.trimEnd().length;
+  let end = numEnd;
+  while (end > mantissaEnd && seg.text[end - 1] === ' ') end -= 1;
   const exponent = Number(m[3] ?? m[4] ?? 0);
-  const number = readNumber(seg, numStart, numEnd, exponent, numStart + (m[2] as string).length);
+  const number = readNumber(seg, numStart, end, exponent, mantissaEnd);
   if (!number) return undefined;
-  const op = m[1] === '<' ? '<' : m[1] === '>' ? '>' : m[1] === '<=' || m[1] === '≤' ? '<=' : m[1] === '>=' || m[1] === '≥' ? '>=' : '=';
-  return { kind: 'value', op, number, span: sourceSpan(seg, lead, numEnd), printed: seg.text.slice(lead, numEnd) };
+  return { kind: 'value', op: comparison(m[1]), number, span: sourceSpan(seg, lead, end), printed: seg.text.slice(lead, end) };
 }
 
-const MEAN_HEADER = /^(?:m|mean|means|avg|average|x̄)$/iu;
-const SD_HEADER = /^(?:sd|s\.d\.|std\.? ?dev\.?|standard deviation)$/iu;
-const SE_HEADER = /^(?:se|sem|s\.e\.|s\.e\.m\.|standard error)$/iu;
-const N_HEADER = /^(?:n|count|size|sample size|participants)$/iu;
-const COMBINED_HEADER = /^(?:m|mean)s? ?(?:\((sd|se|sem)\)|± ?(sd|se|sem))$/iu;
-const COMBINED_CELL = /^ ?([-+]?\d{1,12}(?:\.\d{1,12})?) ?(?:\( ?(\d{1,12}(?:\.\d{1,12})?) ?\)|± ?(\d{1,12}(?:\.\d{1,12})?)) ?$/u;
+function labelledP(seg: Segment): ReportedP | undefined {
+  const m = LABELLED_P.exec(seg.text);
+  if (!m) return undefined;
+  const at = seg.text.indexOf(m[2] as string);
+  const number = readNumber(seg, at, at + (m[2] as string).length);
+  if (!number) return undefined;
+  const lead = seg.text.length - seg.text.trimStart().length;
+  return { kind: 'value', op: comparison(m[1]), number, span: sourceSpan(seg, lead, at + (m[2] as string).length), printed: seg.text.trim() };
+}
+
+/** Stars after a t in its cell, read as a p bound (the legend applies later, as for prose). */
+function starP(cell: Segment, symbol: string): ReportedP | undefined {
+  const bound = starBound(symbol);
+  if (bound === undefined) return undefined;
+  const a = cell.text.lastIndexOf(symbol);
+  const span = sourceSpan(cell, a, a + symbol.length);
+  const number: ReportedNumber = { printed: symbol, value: bound, decimals: decimalsOf(bound), exponent: 0, span };
+  return { kind: 'value', op: '<', number, span, printed: symbol, stars: { count: symbol === '†' ? 0 : symbol.length, symbol, basis: 'lenient-convention' } };
+}
+
+function comparison(op: string | undefined): ReportedP['op'] {
+  switch (op) {
+    case '<':
+      return '<';
+    case '>':
+      return '>';
+    case '<=':
+    case '≤':
+      return '<=';
+    case '>=':
+    case '≥':
+      return '>=';
+    default:
+      return '=';
+  }
+}
 
 /**
- * Descriptives laid out as a table whose rows are groups or conditions: columns for the mean,
- * SD or SE, and n (header words vary), or one "Mean (SD)" / "Mean ± SD" column.
+ * Sentences near a table (its own blocks, and a few paragraphs either side) that name a
+ * measure of its long layout ("Job satisfaction was higher in the amber-glasses group,
+ * t(57.3) = 4.04"). The link layer decides whether the mention ties the sentence to a block.
  */
-export function findTableSummaries(segments: Segment[]): GroupSummary[] {
-  const out: GroupSummary[] = [];
-  for (const cells of tablesOf(segments).values()) {
-    const header = cells.filter((c) => c.table?.row === 0);
-    const col = (re: RegExp) => header.find((h) => re.test(h.text.trim()))?.table?.column;
-    const meanCol = col(MEAN_HEADER);
-    const sdCol = col(SD_HEADER);
-    const seCol = col(SE_HEADER);
-    const nCol = col(N_HEADER);
-    const combinedHeader = header.find((h) => COMBINED_HEADER.test(h.text.trim()));
-    const combinedKind = combinedHeader ? (COMBINED_HEADER.exec(combinedHeader.text.trim())?.slice(1).find(Boolean) ?? '') : '';
-    if (meanCol === undefined && !combinedHeader) continue;
-    for (const [row, byCol] of rowsOf(cells)) {
-      const labelCell = byCol.get(0);
-      let mean: ReportedNumber | undefined;
-      let spread: GroupSummary['spread'];
-      if (combinedHeader?.table) {
-        const cell = byCol.get(combinedHeader.table.column);
-        const m = cell ? COMBINED_CELL.exec(cell.text) : null;
-        if (cell && m) {
-          const lead = cell.text.indexOf(m[1] as string);
-          mean = readNumber(cell, lead, lead + (m[1] as string).length);
-          const sp = (m[2] ?? m[3]) as string;
-          const at = cell.text.indexOf(sp, lead + (m[1] as string).length);
-          const n = readNumber(cell, at, at + sp.length);
-          if (n) spread = { number: n, kind: /sd/i.test(combinedKind) ? 'SD' : 'SE', printedKind: combinedKind };
+export function findTableMentions(segments: readonly Segment[], blocks: readonly TableBlock[], tables: ReadonlyArray<{ table: number; firstBlock: number; lastBlock: number }>): Array<{ table: number; label: string; segment: number; sentence: number }> {
+  const out: Array<{ table: number; label: string; segment: number; sentence: number }> = [];
+  if (blocks.length === 0) return out;
+  const labels = new Map<number, Map<string, number>>();
+  for (const b of blocks) {
+    const m = labels.get(b.table) ?? new Map<string, number>();
+    const key = b.label.toLowerCase();
+    m.set(key, (m.get(key) ?? 0) + 1);
+    labels.set(b.table, m);
+  }
+  for (const t of tables) {
+    // every label, repeated ones too: a sentence naming a measure printed twice is no tie,
+    // and the link layer must see that it names it
+    const names = [...(labels.get(t.table) ?? new Map<string, number>())].filter(([name]) => name.length >= 3).map(([name]) => name);
+    if (names.length === 0) continue;
+    for (const seg of segments) {
+      if (seg.table || seg.kind === 'code' || seg.block < t.firstBlock - MENTION_REACH || seg.block > t.lastBlock + MENTION_REACH) continue;
+      const lower = seg.text.toLowerCase();
+      let starts: number[] | undefined;
+      const seen = new Set<string>();
+      for (const name of names) {
+        for (let at = lower.indexOf(name); at >= 0; at = lower.indexOf(name, at + 1)) {
+          if (/\p{L}/u.test(lower[at - 1] ?? '') || /\p{L}/u.test(lower[at + name.length] ?? '')) continue;
+          starts ??= sentenceStarts(seg.text);
+          const sentence = sentenceOf(starts, at);
+          if (seen.has(`${sentence}:${name}`)) continue;
+          seen.add(`${sentence}:${name}`);
+          out.push({ table: t.table, label: name, segment: seg.id, sentence });
         }
-      } else if (meanCol !== undefined) {
-        const cell = byCol.get(meanCol);
-        mean = cell ? cellNumber(cell) : undefined;
-        const spreadCol = sdCol ?? seCol;
-        const sCell = spreadCol !== undefined ? byCol.get(spreadCol) : undefined;
-        const sNum = sCell ? cellNumber(sCell) : undefined;
-        if (sNum) spread = { number: sNum, kind: sdCol !== undefined ? 'SD' : 'SE', printedKind: header.find((h) => h.table?.column === spreadCol)?.text.trim() ?? '' };
       }
-      if (!mean) continue;
-      const nCell = nCol !== undefined ? byCol.get(nCol) : undefined;
-      const n = nCell ? cellNumber(nCell) : undefined;
-      const parts = [mean.span, spread?.number.span, n?.span].filter((s): s is { start: number; end: number } => s !== undefined);
-      const first = byCol.values().next().value as Segment;
-      out.push({
-        id: `${first.id}:row`,
-        segment: first.id,
-        block: first.block,
-        sentence: 0,
-        span: { start: Math.min(...parts.map((p) => p.start)), end: Math.max(...parts.map((p) => p.end)) },
-        printed: [labelCell?.text.trim(), mean.printed, spread?.number.printed, n?.printed].filter(Boolean).join(' | '),
-        mean,
-        ...(spread ? { spread } : {}),
-        ...(n ? { n } : {}),
-        ...(labelCell ? { label: labelCell.text.trim() } : {}),
-        percent: false,
-        table: { table: first.table?.table ?? 0, row },
-      });
     }
   }
   return out;
 }
 
-function tablesOf(segments: Segment[]): Map<number, Segment[]> {
-  const byTable = new Map<number, Segment[]>();
-  for (const s of segments) {
-    if (s.kind !== 'tableCell' || !s.table) continue;
-    const list = byTable.get(s.table.table) ?? [];
-    list.push(s);
-    byTable.set(s.table.table, list);
-  }
-  return byTable;
-}
+/** How many blocks (paragraphs, captions) before or after a table a sentence may name its measures from. */
+const MENTION_REACH = 4;
 
-function rowsOf(cells: Segment[]): Map<number, Map<number, Segment>> {
-  const rows = new Map<number, Map<number, Segment>>();
-  for (const c of cells) {
-    if (!c.table || c.table.row === 0) continue;
-    const r = rows.get(c.table.row) ?? new Map<number, Segment>();
-    r.set(c.table.column, c);
-    rows.set(c.table.row, r);
-  }
-  return rows;
-}

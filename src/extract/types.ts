@@ -86,6 +86,8 @@ export interface TTestReport {
   statedSidedness?: { value: Sidedness; span: Span };
   /** The test name given right before the statistic (e.g. "Welch's t"), lower-case. */
   namedVariant?: 'welch' | 'student' | 'paired' | 'one-sample' | 'independent';
+  /** Printed in a table: its row. */
+  table?: TableRow;
 }
 
 /** A p value in a sentence that names a t-test but gives no t statistic. */
@@ -135,12 +137,29 @@ export interface Extraction {
   mentions: Mention[];
   /** The heading each segment sits under (by segment id), for abstract-versus-results checks. */
   sections: Array<string | undefined>;
+  /** The rows of each measure in long tables, and the sentences near a table that name one. */
+  tableBlocks: TableBlockRecord[];
+  tableMentions: Array<{ table: number; label: string; segment: number; sentence: number }>;
   /** Blocks each table spans, so results can be joined to the table next to them. */
   tables: Array<{ table: number; firstBlock: number; lastBlock: number }>;
 }
 
 /** The kind of spread printed after a mean. */
 export type SpreadKind = 'SD' | 'SE' | 'unstated';
+
+/** The rows of one measure in a long table: its name, and the rows it spans. */
+export interface TableBlockRecord {
+  table: number;
+  label: string;
+  firstRow: number;
+  lastRow: number;
+}
+
+/** A row of a table: results, groups and intervals printed there belong together. */
+export interface TableRow {
+  table: number;
+  row: number;
+}
 
 /** A group's (or condition's) descriptives as printed: mean, spread and n, any of them missing. */
 export interface GroupSummary {
@@ -158,7 +177,7 @@ export interface GroupSummary {
   /** The numbers were printed as percentages (`59.1% ± 9.1%`). */
   percent: boolean;
   /** For table rows: which table and row. */
-  table?: { table: number; row: number };
+  table?: TableRow;
 }
 
 /** A sample size printed on its own: `N = 60`, `(n = 30 per group)`, `24 participants`. */
@@ -182,6 +201,8 @@ export interface IntervalReport {
   high: ReportedNumber;
   span: Span;
   printed: string;
+  /** Printed in a table: its row. */
+  table?: TableRow;
 }
 
 /** An estimate printed with a label: `difference = 10.31`, `b = 2.48`, `MD = 3.1`. */
@@ -192,6 +213,8 @@ export interface EstimateReport {
   value: ReportedNumber;
   span: Span;
   printed: string;
+  /** Printed in a table: its row. */
+  table?: TableRow;
 }
 
 /** An effect size as printed: `d = 0.53`, `Cohen's d = 0.73`, `g = 0.41`, `dz = 0.6`. */
@@ -203,6 +226,8 @@ export interface EffectSizeReport {
   value: ReportedNumber;
   span: Span;
   printed: string;
+  /** Printed in a table: its row. */
+  table?: TableRow;
 }
 
 /** Words about the design: one group measured twice, two independent groups, one sample. */

@@ -8,6 +8,8 @@ import type {
   ReferenceValue,
   SampleSize,
   SpreadKind,
+  TableBlockRecord,
+  TableRow,
   TTestReport,
 } from '../extract/types.js';
 import type { Span } from '../parse/types.js';
@@ -156,10 +158,10 @@ export function contextJoiner(x: Extraction): (report: TTestReport) => ResultCon
     return t !== undefined && t.span.end > g.span.start;
   };
   const prose = new SegmentList(x.summaries.filter((g) => !g.table && !overlapsTest(g)));
-  const tableRows = new Map<number, GroupSummary[]>();
-  for (const g of x.summaries) if (g.table) tableRows.set(g.table.table, [...(tableRows.get(g.table.table) ?? []), g]);
-  const testsByBlock = new Map<number, TTestReport[]>();
-  for (const t of x.tests) testsByBlock.set(t.block, [...(testsByBlock.get(t.block) ?? []), t]);
+  const tableRows = groupBy(x.summaries.filter((g) => g.table), (g) => (g.table as TableRow).table);
+  const testsByBlock = groupBy(x.tests, (t) => t.block);
+  const rowKey = (r: TableRow) => `${r.table}:${r.row}`;
+  const inRows = <T extends { table?: TableRow }>(items: readonly T[]) => groupBy(items.filter((i) => i.table), (i) => rowKey(i.table as TableRow));
   const lists: Lists = {
     references: new SegmentList(x.references),
     intervals: new SegmentList(x.intervals),
@@ -170,7 +172,22 @@ export function contextJoiner(x: Extraction): (report: TTestReport) => ResultCon
     prose,
     tests,
   };
-  const tables: Tables = { tableRows, testsByBlock, tables: x.tables, spreads: spreadStatements(x), methodsDesign: methodsDesign(x, clauses) };
+  const tables: Tables = {
+    tableRows,
+    testsByBlock,
+    tables: x.tables,
+    spreads: spreadStatements(x),
+    methodsDesign: methodsDesign(x, clauses),
+    rows: {
+      groups: inRows(x.summaries),
+      effectSizes: inRows(x.effectSizes),
+      intervals: inRows(x.intervals),
+      estimates: inRows(x.estimates),
+    },
+    blocks: groupBy(x.tableBlocks, (b) => b.table),
+    tablesWithTests: new Set(x.tests.flatMap((r) => (r.table ? [r.table.table] : []))),
+    mentions: groupBy(x.tableMentions, (m) => `${m.segment}:${m.sentence}`),
+  };
   return (report) => contextFor(report, clauses, lists, tables);
 }
 
@@ -190,6 +207,18 @@ interface Tables {
   testsByBlock: Map<number, TTestReport[]>;
   tables: Extraction['tables'];
   spreads: SpreadStatements;
+  /** What each table row holds, by `table:row`. */
+  rows: {
+    groups: Map<string, GroupSummary[]>;
+    effectSizes: Map<string, EffectSizeReport[]>;
+    intervals: Map<string, IntervalReport[]>;
+    estimates: Map<string, EstimateReport[]>;
+  };
+  /** The measures' blocks of long tables, by table, and the sentences that name one, by `segment:sentence`. */
+  blocks: Map<number, TableBlockRecord[]>;
+  /** Tables that print tests of their own: their rows are not the groups of a test in prose. */
+  tablesWithTests: Set<number>;
+  mentions: Map<string, Extraction['tableMentions']>;
   /** The design the Methods state for the whole study, when every statement there agrees. */
   methodsDesign: Setting<Design> | undefined;
 }
@@ -220,11 +249,16 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
   const clause = clauses.clauseOf(report);
   const { link, unlinked } = descriptivesFor(report, clauses, n, t);
 
-  const effectSizes = owned(report, clause, clauses, n.effectSizes);
-  const intervals = owned(report, clause, clauses, n.intervals).map((ci) => intervalTarget(ci, report, clause, n));
+  // A result in a table row owns the effect size, interval and estimate of its row.
+  const row = report.table ? `${report.table.table}:${report.table.row}` : undefined;
+  const inRow = <T>(items: Map<string, T[]>): Array<Linked<T>> => (row ? (items.get(row) ?? []).map((item) => ({ item, basis: 'table-row', certain: true })) : []);
+  const effectSizes = row ? inRow(t.rows.effectSizes) : owned(report, clause, clauses, n.effectSizes);
+  const intervals = row
+    ? inRow(t.rows.intervals).map((ci): IntervalLink => ({ ...ci, of: 'estimate' }))
+    : owned(report, clause, clauses, n.intervals).map((ci) => intervalTarget(ci, report, clause, n));
   const interval = intervals.find((i) => i.of === 'estimate');
   const leading = clause.leadingEstimate;
-  const estimate: Linked<EstimateReport> | undefined = leading ? { item: leading, basis: 'clause', certain: true } : owned(report, clause, clauses, n.estimates)[0];
+  const estimate: Linked<EstimateReport> | undefined = row ? inRow(t.rows.estimates)[0] : leading ? { item: leading, basis: 'clause', certain: true } : owned(report, clause, clauses, n.estimates)[0];
   const sentenceReferences = n.references.inSentence(report.segment, report.sentence);
   const reference = sentenceReferences[0] ?? (clauses.testsInSegment(report.segment) === 1 ? n.references.all(report.segment)[0] : undefined);
   // The sentence's own first; then the paragraph's first few (rules take the first that fits,
@@ -271,6 +305,7 @@ function intervalTarget(ci: Linked<IntervalReport>, report: TTestReport, clause:
 }
 
 function descriptivesFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tables): { link?: DescriptiveLink; unlinked?: ResultContext['unlinked'] } {
+  if (report.table) return tableDescriptives(report, report.table, t);
   const testsInSentence = n.tests.inSentence(report.segment, report.sentence).filter((x) => x.block === report.block);
   const inSentence = n.prose.inSentence(report.segment, report.sentence);
   const aloneInSentence = clauses.statisticsInSentence(report.segment, report.sentence) === 1;
@@ -286,6 +321,20 @@ function descriptivesFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t:
     if (inParagraph.length <= 2 && testsInBlock === 1) return { link: makeLink('paragraph', inParagraph, t.spreads, clauses.statisticsInSegment(report.segment) === 1) };
     return { unlinked: { reason: `${inParagraph.length} sets of descriptives and ${testsInBlock} tests in one paragraph`, span: report.span } };
   }
+  // "Job satisfaction was higher …, t(57.3) = 4.04" beside a long table: the block of the
+  // measure the sentence names, when it names one
+  // measure the sentence names, when it names one, the table reports no test of its own, and
+  // the result's paragraph sits right beside it (a caption or note between them)
+  const named = t.mentions.get(`${report.segment}:${report.sentence}`) ?? [];
+  if (named.length === 1) {
+    const m = named[0] as Extraction['tableMentions'][number];
+    const table = t.tables.find((x) => x.table === m.table);
+    const beside = table !== undefined && report.block >= table.firstBlock - BESIDE && report.block <= table.lastBlock + BESIDE;
+    const blocks = (t.blocks.get(m.table) ?? []).filter((b) => b.label.toLowerCase() === m.label);
+    const block = blocks.length === 1 ? blocks[0] : undefined;
+    const groups = block && beside && !t.tablesWithTests.has(m.table) ? blockGroups(block, t) : [];
+    if (groups.length === 2) return { link: makeLink('table', groups, t.spreads, true) };
+  }
   const table = t.tables.find((x) => report.block === x.lastBlock + 1 || report.block === x.firstBlock - 1);
   const rows = table ? (t.tableRows.get(table.table) ?? []) : [];
   const claimants = table ? [...(t.testsByBlock.get(table.lastBlock + 1) ?? []), ...(t.testsByBlock.get(table.firstBlock - 1) ?? [])] : [];
@@ -294,6 +343,41 @@ function descriptivesFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t:
     return { unlinked: { reason: `a table of ${rows.length} groups beside ${claimants.length} tests`, span: report.span } };
   }
   return {};
+}
+
+/**
+ * The groups of a result printed in a table: the groups of its own row (a wide layout prints
+ * both there), else those of its measure's block (a long layout prints one group per row, the
+ * test in the block's first row or in a row of its own).
+ */
+/** How many blocks (a caption, a note) may stand between a table and the paragraph that reports its tests. */
+const BESIDE = 3;
+
+function tableDescriptives(report: TTestReport, where: TableRow, t: Tables): { link?: DescriptiveLink; unlinked?: ResultContext['unlinked'] } {
+  const own = t.rows.groups.get(`${where.table}:${where.row}`) ?? [];
+  if (own.length === 2) return { link: makeLink('table', own, t.spreads, true) };
+  const block = (t.blocks.get(where.table) ?? []).find((b) => b.firstRow <= where.row && where.row <= b.lastRow);
+  const groups = block ? blockGroups(block, t) : own;
+  if (groups.length === 2 || groups.length === 1) return { link: makeLink('table', groups, t.spreads, true) };
+  if (groups.length > 2) return { unlinked: { reason: `${groups.length} groups in the table rows of this test`, span: report.span } };
+  return {};
+}
+
+function blockGroups(block: TableBlockRecord, t: Tables): GroupSummary[] {
+  const out: GroupSummary[] = [];
+  for (let r = block.firstRow; r <= block.lastRow; r += 1) for (const g of t.rows.groups.get(`${block.table}:${r}`) ?? []) out.push(g);
+  return out;
+}
+
+function groupBy<T, K>(items: readonly T[], keyOf: (item: T) => K): Map<K, T[]> {
+  const m = new Map<K, T[]>();
+  for (const it of items) {
+    const k = keyOf(it);
+    const list = m.get(k);
+    if (list) list.push(it);
+    else m.set(k, [it]);
+  }
+  return m;
 }
 
 function makeLink(scope: DescriptiveLink['scope'], groups: GroupSummary[], spreads: SpreadStatements, certain: boolean): DescriptiveLink {

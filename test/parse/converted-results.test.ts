@@ -55,7 +55,7 @@ const cases: Array<{ name: string; path: string; source: string; at: string; lin
   {
     name: 'a plain-text table of aligned columns',
     path: 'a.txt',
-    source: 'Measure        t      df     p\nRecall      2.10      28  .045\nSpeed      -1.03      41  \n',
+    source: 'Measure        t      df     p\nRecall      2.10      28  .045\nSpeed         —      41   .31\n',
     at: '2.10      28  .045',
     line: 2,
     column: 13,

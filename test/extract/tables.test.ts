@@ -1,0 +1,83 @@
+import { describe, expect, it } from 'vitest';
+import { checkSource, type FileReport } from '../../src/engine/index.js';
+
+/**
+ * Results printed in tables, read row by row, and the numbers of each row tied to its test.
+ * Invented numbers; each correct row was computed from the textbook formulas (common practice,
+ * no source): Student's t = (M1 − M2) / (s_p √(1/n1 + 1/n2)) = 3.008, d = (M1 − M2) / s_p =
+ * 0.951, the CI 1.00 ± 2.024 × 0.332 = 0.33 to 1.67; the p values with scipy.stats.t.sf 1.17.1
+ * (t(38) = 3.01: .0046; t(5) = 3.3294: .0208).
+ */
+const run = (source: string, path = 'x.md'): FileReport => checkSource(path, source);
+const warnings = (r: FileReport) => r.findings.filter((f) => f.level !== 'note').map((f) => `${f.ruleId}/${f.messageId}@${f.start.line}`);
+
+describe('wide tables: one comparison per row', () => {
+  const wide = [
+    '| Measure | Standing (n = 20), M (SD) | Seated (n = 20), M (SD) | Difference (95% CI) | t | df | p | d |',
+    '|---|---|---|---|---|---|---|---|',
+    // s_p = 1.05, SE = 0.332, t = 3.01, d = 0.95, CI 1.00 ± 2.024·0.332 = 0.33 to 1.67
+    '| Fatigue | 5.00 (1.00) | 4.00 (1.10) | 1.00 (0.33 to 1.67) | 3.01 | 38 | .005 | 0.95 |',
+    // the same groups, t from another comparison: the descriptives cannot give it
+    '| Comfort | 5.00 (1.00) | 4.00 (1.10) | | 5.20 | 38 | < .001 | |',
+  ].join('\n');
+  it('reads t, df, p, the groups of the row, its d and its interval with the estimate', () => {
+    const r = run(`${wide}\n`);
+    expect(r.results).toHaveLength(2);
+    const first = r.results[0]!;
+    expect([first.t.value, first.df?.value, first.p?.number?.value]).toEqual([3.01, 38, 0.005]);
+    expect(first.context.descriptives?.groups.map((g) => g.printed)).toEqual(['Standing: 5.00 (1.00)', 'Seated: 4.00 (1.10)']);
+    expect(first.context.descriptives?.certain).toBe(true);
+    expect(first.context.effectSizes.map((e) => [e.printed, e.basis])).toEqual([['d = 0.95', 'table-row']]);
+    expect(first.context.interval?.printed).toBe('95% CI 1.00 (0.33 to 1.67)');
+    expect(first.context.estimate?.printed).toBe('estimate = 1.00');
+  });
+  it('a row whose t its own groups cannot give is found, the correct row is not', () => {
+    expect(warnings(run(`${wide}\n`))).toEqual(['t-follows-from-descriptives/mismatch@4']);
+  });
+  it('the df in the t column\'s header, and stars in the t cell read with the table\'s legend', () => {
+    const r = run('| Measure | A (n = 20), M (SD) | B (n = 20), M (SD) | t(38) |\n|---|---|---|---|\n| Fatigue | 5.00 (1.00) | 4.00 (1.10) | 3.01** |\n| Comfort | 5.00 (1.00) | 4.95 (1.10) | 0.15 |\n\n*Note.* \\*p < .05, \\*\\*p < .01.\n');
+    expect(r.results.map((x) => [x.t.value, x.df?.value, x.p?.op, x.p?.number?.value, x.p?.stars?.basis])).toEqual([
+      [3.01, 38, '<', 0.01, 'legend'],
+      [0.15, 38, undefined, undefined, undefined],
+    ]);
+    expect(warnings(r)).toEqual([]);
+  });
+  it('stars after an exact p in its cell leave the p as printed', () => {
+    const r = run('| Measure | t | df | p |\n|---|---|---|---|\n| Fatigue | 3.01 | 38 | .005** |\n');
+    expect(r.results[0]?.p?.number?.value).toBe(0.005);
+    expect(warnings(r)).toEqual([]);
+  });
+});
+
+describe('long tables: one group per row', () => {
+  it('a test in a row of its own is tied to the groups of its measure\'s block', () => {
+    const r = run('| Measure | Group | n | M | SD |\n|---|---|---|---|---|\n| Fatigue | Standing | 20 | 5.00 | 1.00 |\n| | Seated | 20 | 4.00 | 1.10 |\n| | *t*(38) = 3.01, *p* = .005 | | | |\n| Comfort | Standing | 20 | 5.00 | 1.00 |\n| | Seated | 20 | 4.00 | 1.10 |\n| | *t*(38) = 5.20, *p* < .001 | | | |\n');
+    expect(r.results.map((x) => x.context.descriptives?.groups.map((g) => g.printed))).toEqual([
+      ['Standing | 5.00 | 1.00 | 20', 'Seated | 4.00 | 1.10 | 20'],
+      ['Standing | 5.00 | 1.00 | 20', 'Seated | 4.00 | 1.10 | 20'],
+    ]);
+    expect(warnings(r)).toEqual(['t-follows-from-descriptives/mismatch@8']);
+  });
+  it('a test in prose right after the table is tied to the block of the measure its sentence names', () => {
+    const r = run('| Measure | Group | n | M | SD |\n|---|---|---|---|---|\n| Fatigue | Standing | 20 | 5.00 | 1.00 |\n| | Seated | 20 | 4.00 | 1.10 |\n| Comfort | Standing | 20 | 6.00 | 1.00 |\n| | Seated | 20 | 5.10 | 1.10 |\n\nTable 1 gives the group means. Fatigue was higher when standing, t(38) = 3.01, p = .005. Comfort was higher too, t(38) = 5.20, p < .001.\n');
+    expect(r.results.map((x) => x.context.descriptives?.groups[0]?.printed)).toEqual(['Standing | 5.00 | 1.00 | 20', 'Standing | 6.00 | 1.00 | 20']);
+    expect(warnings(r)).toEqual(['t-follows-from-descriptives/mismatch@8']);
+  });
+  it('a measure printed in two blocks ties no sentence to either', () => {
+    const r = run('| Measure | Group | n | M | SD |\n|---|---|---|---|---|\n| Fatigue | Standing | 20 | 5.00 | 1.00 |\n| | Seated | 20 | 4.00 | 1.10 |\n| Fatigue | Standing | 20 | 6.00 | 1.00 |\n| | Seated | 20 | 5.10 | 1.10 |\n\nFatigue was higher when standing, t(38) = 5.20, p < .001.\n');
+    expect(warnings(r)).toEqual([]);
+  });
+});
+
+describe('labelled cells in the rows of one measure (text converted from PDF)', () => {
+  it('t and P in two rows under a label spanning both, the df in the caption', () => {
+    // t(5) = 3.33 gives two-tailed p = .021 (scipy.stats.t.sf, computed for this case); P = 0.50 is neither tail
+    const html = '<table><tr><td>t-test</td><td>Plot A</td></tr><tr><td rowspan="2">Cover</td><td>P=0.0208</td></tr><tr><td>t=3.3294</td></tr><tr><td rowspan="2">Height</td><td>P=0.50</td></tr><tr><td>t=3.3294</td></tr></table>';
+    const r = run(`Table 1 Paired t-tests of plot cover (df = 5).\n\n${html}\n`);
+    expect(r.results.map((x) => [x.t.value, x.df?.value, x.p?.number?.value])).toEqual([
+      [3.3294, 5, 0.0208],
+      [3.3294, 5, 0.5],
+    ]);
+    expect(r.findings.filter((f) => f.ruleId === 'p-follows-from-t' || f.ruleId === 'significance-follows-from-t').map((f) => f.level)).toEqual(['error']);
+  });
+});
