@@ -17,14 +17,21 @@ export const percentageMatchesCount: Rule = {
   check({ document }) {
     const x = document.extraction;
     const out: RuleFinding[] = [];
+    const key = (segment: number, sentence: number) => `${segment}:${sentence}`;
+    const sizes = new Map<string, Array<{ n: number; printed: string }>>();
+    const add = (k: string, v: { n: number; printed: string }) => {
+      const list = sizes.get(k);
+      if (list) list.push(v);
+      else sizes.set(k, [v]);
+    };
+    for (const s of x.sampleSizes) add(key(s.segment, s.sentence), { n: s.n.value, printed: s.printed });
+    for (const g of x.summaries) if (g.n) add(key(g.segment, g.sentence), { n: g.n.value, printed: g.printed });
     for (const c of x.counts) {
-      // the n's of the same sentence: printed sample sizes and group sizes
-      const ns = [
-        ...x.sampleSizes.filter((s) => s.segment === c.segment && s.sentence === c.sentence).map((s) => ({ n: s.n.value, printed: s.printed })),
-        ...x.summaries.filter((g) => g.segment === c.segment && g.sentence === c.sentence && g.n).map((g) => ({ n: g.n?.value as number, printed: g.printed })),
-      ].filter((s) => s.n >= c.count.value && s.n > 0);
+      // the denominator printed with it ("of the 21 beds"), else the one n of its sentence
+      const ns = c.of ? [{ n: c.of.value, printed: c.of.printed }] : (sizes.get(key(c.segment, c.sentence)) ?? []).filter((s) => s.n >= c.count.value && s.n > 0);
       if (ns.length !== 1) continue; // none, or several to choose from: no guess
       const only = ns[0] as { n: number; printed: string };
+      if (only.n < c.count.value) continue;
       const [lo, hi] = numberInterval(c.percent);
       if (percentPossible(c.count.value, only.n, lo, hi)) continue;
       out.push({

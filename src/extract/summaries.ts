@@ -52,6 +52,9 @@ const REFERENCE = new RegExp(
   String.raw`(?:test value|hypothesi[sz]ed (?:value|mean)|reference value|population mean|norm|benchmark|target|chance(?:[- ]level)?)(?: of| =| at| was| is)? ?\(? ?${NUM}( ?%)?`,
   'dgiu',
 );
+const OF_AFTER = /^ of (?:the |all )?(\d{1,6})(?![\d,]|\.\d)/du;
+/** "Of the 14 beds in the marigold group, 5 (36%)": no other number before the count. */
+const OF_BEFORE = /^(?:Of|Among|In) (?:the |all )?(\d{1,6}) [^\d]{0,80}$/du;
 const COUNT_PERCENT = new RegExp(String.raw`(?<![\p{L}\p{N}.,])(\d{1,6}) ?\((\d{1,3}(?:\.\d{1,3})?) ?%\)`, 'dgu');
 
 type TokenKind = 'mean' | 'sd' | 'se' | 'n' | 'pm' | 'paren';
@@ -205,7 +208,16 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
   if (text.includes('%)') || text.includes('% )')) for (const m of text.matchAll(COUNT_PERCENT)) {
     const count = num(seg, m, 1);
     const percent = num(seg, m, 2);
-    if (count && percent) counts.push({ ...where(m.index, m.index + m[0].length), count, percent });
+    if (!count || !percent) continue;
+    // the denominator named with it: "5 (24%) of the 21 beds", "Of the 14 beds in …, 5 (24%)"
+    const end = m.index + m[0].length;
+    const after = OF_AFTER.exec(text.slice(end, end + 16));
+    const sentenceStart = sentenceStarts[sentenceOf(sentenceStarts, m.index)] as number;
+    const before = after ? null : OF_BEFORE.exec(text.slice(sentenceStart, m.index));
+    const ofAt = after ? end + (after.indices?.[1]?.[0] ?? 0) : before ? sentenceStart + (before.indices?.[1]?.[0] ?? 0) : -1;
+    const ofText = (after ?? before)?.[1];
+    const of = ofText && ofAt >= 0 ? readNumber(seg, ofAt, ofAt + ofText.length) : undefined;
+    counts.push({ ...where(m.index, end), count, percent, ...(of ? { of } : {}) });
   }
   return { summaries, sampleSizes, intervals, estimates, effectSizes, designs, references, counts };
 }

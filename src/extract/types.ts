@@ -277,6 +277,8 @@ export interface CountPercent {
   sentence: number;
   count: ReportedNumber;
   percent: ReportedNumber;
+  /** The denominator printed with it: `5 (24%) of the 21 beds`, `Of the 14 beds …, 5 (36%)`. */
+  of?: ReportedNumber;
   span: Span;
   printed: string;
 }
