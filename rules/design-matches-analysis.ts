@@ -73,6 +73,8 @@ function unitsPerCondition(result: LinkedResult): { n: number; source: string; d
     const [a, b] = [groups[0].n.value, groups[1].n.value];
     return a === b ? { n: a, source: `n = ${groups[0].n.printed} in each`, doubts: descriptiveDoubts(result) } : undefined;
   }
+  const pair = result.context.groupSizes;
+  if (pair) return pair[0].value === pair[1].value ? { n: pair[0].value, source: `n = ${pair[0].printed} and ${pair[1].printed}`, doubts: {} } : undefined;
   const sizes = result.context.sampleSizes;
   const perGroup = sizes.find((s) => s.scope === 'per-group');
   if (perGroup) return { n: perGroup.n.value, source: perGroup.printed, doubts: {} };

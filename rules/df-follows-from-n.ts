@@ -25,12 +25,24 @@ export const dfFollowsFromN: Rule = {
       const link = result.context.descriptives;
       if (!r.df) continue;
       if (!link) {
-        // A paired design stated in words, with the units counted in the result's own sentence
-        // ("the same 24 employees … t(21) = …"): a paired test has n − 1 df.
-        const units = pairsInSentence(result);
         const df = r.df.value;
+        const base = { span: r.df.span, reported: r.printed, resultId: r.id, block: r.block };
+        const pair = result.context.groupSizes;
+        if (pair && isWholeDf(r.df) && result.context.design.value !== 'paired') {
+          // two groups' sizes printed with the test ("n = 25 and 23", "in 26 and 28 employees")
+          const [n1, n2] = [pair[0].value, pair[1].value];
+          if (df !== n1 + n2 - 2 && !(n1 === n2 && df === n1 - 1)) {
+            out.push({ ...base, messageId: 'student', message: fill(messages.student, { df: r.df.printed, n1, n2, expected: n1 + n2 - 2 }), check: 'Check the df and the group sizes against the output.', related: [{ span: pair[0].span, message: 'the group sizes' }] });
+          }
+          continue;
+        }
+        // A paired or one-sample design stated in words, with the units counted once in the
+        // result's own sentence ("the same 24 employees … t(21) = …", "the walking group
+        // (n = 24) was above the target of 4"): such a test has n − 1 df.
+        const units = unitsInSentence(result);
         if (units !== undefined && isWholeDf(r.df) && df !== units.n - 1 && df !== 2 * units.n - 2) {
-          out.push({ span: r.df.span, reported: r.printed, resultId: r.id, block: r.block, messageId: 'paired', message: fill(messages.paired, { df: r.df.printed, n: units.n, expected: units.n - 1 }), check: 'Check the df against the number of pairs.', related: [{ span: units.span, message: 'the number of pairs' }] });
+          const id = result.context.design.value === 'paired' ? 'paired' : 'one-group';
+          out.push({ ...base, messageId: id, message: fill(messages[id], { df: r.df.printed, n: units.n, expected: units.n - 1 }), check: id === 'paired' ? 'Check the df against the number of pairs.' : 'Check the df and n against the output; an n that counts excluded participants is a common cause.', related: [{ span: units.span, message: id === 'paired' ? 'the number of pairs' : 'the group size' }] });
         }
         continue;
       }
@@ -91,10 +103,10 @@ export const dfFollowsFromN: Rule = {
   },
 };
 
-/** The number of units of a design stated paired in words, printed once in the result's sentence. */
-function pairsInSentence(result: LinkedResult): { n: number; span: { start: number; end: number } } | undefined {
+/** The number of units of a design stated paired or one-sample in words, printed once in the result's sentence. */
+function unitsInSentence(result: LinkedResult): { n: number; span: { start: number; end: number } } | undefined {
   const d = result.context.design;
-  if (d.value !== 'paired' || d.basis === 'default' || d.basis === 'structure') return undefined;
+  if ((d.value !== 'paired' && d.value !== 'one-sample') || d.basis === 'default' || d.basis === 'structure') return undefined;
   const r = result.report;
   const own = result.context.sampleSizes.filter((s) => s.segment === r.segment && s.sentence === r.sentence && s.scope !== 'per-group');
   const first = own[0];

@@ -48,7 +48,8 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
   const groups = result.context.descriptives?.groups ?? [];
   const kinds = result.context.descriptives?.spreadKinds ?? [];
   const perGroup = result.context.sampleSizes.find((s) => s.scope === 'per-group')?.n.value;
-  const ns = groups.map((g) => g.n?.value ?? perGroup);
+  const printedPair = result.context.groupSizes?.map((n) => n.value);
+  const ns = groups.length === 2 ? groups.map((g, i) => g.n?.value ?? perGroup ?? printedPair?.[i]) : (printedPair ?? []);
   const welch = !isWholeDf(r.df as NonNullable<typeof r.df>);
   const candidates: Candidate[] = [];
   /** Definitions the text allows that the printed numbers cannot compute (the finding is then a note). */
@@ -61,13 +62,14 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
   if (mayBeIndependent) {
     if (ns.length === 2 && ns.every((n) => n !== undefined)) {
       const [n1, n2] = ns as [number, number];
-      if (welch) {
+      if (welch && !(groups.length === 2 && groups.every((g) => g.spread))) {
         // Welch's t divides by √(s1²/n1 + s2²/n2), the pooled-SD d by s_p: their ratio depends
         // on the variance ratio, and runs between its two limits (one variance dominating).
+        // With the SDs printed, d comes from the means and SDs below instead.
         const limit = (v: number) => Math.sqrt(((v / n1 + (1 - v) / n2) * (n1 + n2 - 2)) / ((n1 - 1) * v + (n2 - 1) * (1 - v)));
         const [lo, hi] = [limit(0), limit(1)].sort((a, b) => a - b) as [number, number];
         candidates.push({ name: `pooled-SD d from Welch's t (n = ${n1} and ${n2}, any variance ratio)`, range: { low: absT[0] * lo, high: absT[1] * hi } });
-      } else candidates.push({ name: `d = t√(1/n1 + 1/n2) (n = ${n1} and ${n2})`, range: dFromTIndependent(absT, n1, n2) });
+      } else if (!welch) candidates.push({ name: `d = t√(1/n1 + 1/n2) (n = ${n1} and ${n2})`, range: dFromTIndependent(absT, n1, n2) });
     } else if (welch) {
       // Welch's t with the group sizes unknown bounds no pooled-SD d: only the common shortcut
       // below can be tried, so a d it does not give is only a note.
@@ -80,8 +82,7 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
     }
     candidates.push({ name: 'd = 2t/√df', range: { low: (2 * absT[0]) / Math.sqrt(df), high: (2 * absT[1]) / Math.sqrt(df) } });
   }
-  // From the means and SDs (spreads labelled SE are not SDs; unstated ones are read as SDs).
-  // Spreads read as labelled: SDs as they are, SEs as SD = SE·√n, unstated ones both ways.
+  // From the means and SDs. Spreads read as labelled: SDs as they are, SEs as SD = SE·√n, unstated ones both ways.
   const readings = (list: readonly string[]): boolean[] => (list.every((k) => k === 'SD') ? [false] : list.every((k) => k === 'SE') ? [true] : [false, true]);
   const sdBox = (g: GroupSummary, n: number | undefined, asSE: boolean): Box | undefined => {
     const b = numberInterval(g.spread!.number);

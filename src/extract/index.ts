@@ -33,6 +33,7 @@ export function extract(doc: ParsedDocument): Extraction {
     pWithoutT: [],
     summaries: [],
     sampleSizes: [],
+    groupSizes: [],
     intervals: [],
     estimates: [],
     effectSizes: [],
@@ -61,6 +62,7 @@ export function extract(doc: ParsedDocument): Extraction {
       const found = findSummaries(seg, starts);
       append(out.summaries, found.summaries);
       append(out.sampleSizes, found.sampleSizes);
+      append(out.groupSizes, found.groupSizes);
       append(out.intervals, found.intervals);
       append(out.estimates, found.estimates);
       append(out.effectSizes, found.effectSizes);

@@ -6,6 +6,7 @@ import type {
   DesignStatement,
   EffectSizeReport,
   EstimateReport,
+  GroupSizes,
   GroupSummary,
   IntervalReport,
   ReferenceValue,
@@ -23,6 +24,8 @@ const START = String.raw`(?<![\p{L}\p{N}_])`;
 const MEAN = new RegExp(String.raw`${START}(?:M|Mean|mean|Avg|avg|Average|average)(?:${SUFFIX}|[A-Z]{2,20}) ?(?:=|:|of|was) ?${NUM}( ?%)?`, 'dgu');
 const SD = new RegExp(String.raw`${START}\{?(?:SD|sd|s\.d\.|S\.D\.|Std\.? ?Dev\.?|[Ss]tandard deviation)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
 const SE = new RegExp(String.raw`${START}\{?(?:SEM|SE|s\.e\.m\.|s\.e\.|S\.E\.|[Ss]tandard error(?: of the mean)?)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
+/** The sizes of two groups printed together: `n = 25 and 23`, `ns = 24 and 23`, `in 26 and 28 employees`, `n = 25 vs 23`. */
+const N_PAIR = new RegExp(String.raw`${START}(?:[nN]s?|sample sizes?) ?(?:=|:|of) ?${INT} ?(?:and|vs\.?|versus|,) ?${INT}(?![\d.,])|(?<![\p{L}\p{N}.,])in ${INT} and ${INT} ${UNITS}(?![\p{L}])`, 'dgu');
 const N = new RegExp(String.raw`${START}(?:(n|N)(?:_\{[^{}\n]{1,20}\}|_?[0-9]|_[\p{L}]{1,20})?|[Ss]ample size) ?(?:=|:) ?${INT}(?: (per group|in each group|each|per condition|per arm))?(?!\d|\.\d)`, 'dgu');
 const PER_GROUP_AFTER = /^,? (?:each|per (?:group|arm|condition|class|site)|in each (?:group|arm|condition))(?![\p{L}])/u;
 const PER_GROUP_BEFORE = /(?<![\p{L}])(?:groups|arms) of $/u;
@@ -49,7 +52,7 @@ const SAME_UNITS = new RegExp(String.raw`(?<![\p{L}])(same (?:\d{1,5} )?(?:${UNI
 const INDEPENDENT_WORDS = /(?<![\p{L}])(independent[- ]samples?|two independent groups|independent groups|separate groups|different (?:participants|groups of participants|individuals)|randomi[sz]ed (?:to|groups)|randomly (?:assigned|allocated) (?:to|groups)|allocated to|assigned to one of|between-?subjects?|between-participants?|two-sample|unpaired|unrelated samples?)(?![\p{L}])/giu;
 const ONE_SAMPLE_WORDS = /(?<![\p{L}])(one-sample|single-sample)(?![\p{L}])/giu;
 const REFERENCE = new RegExp(
-  String.raw`(?:test value|hypothesi[sz]ed (?:value|mean)|reference value|population mean|norm|benchmark|target|chance(?:[- ]level)?)(?: of| =| at| was| is)? ?\(? ?${NUM}( ?%)?`,
+  String.raw`(?:test value|hypothesi[sz]ed (?:value|mean)|reference value|population mean|norm|benchmark|target|(?:scale )?midpoint|chance(?:[- ]level)?)(?: of| =| at| was| is)? ?\(? ?${NUM}( ?%)?`,
   'dgiu',
 );
 const OF_AFTER = /^ of (?:the |all )?(\d{1,6})(?![\d,]|\.\d)/du;
@@ -74,6 +77,7 @@ interface Token {
 export interface SegmentSummaries {
   summaries: GroupSummary[];
   sampleSizes: SampleSize[];
+  groupSizes: GroupSizes[];
   intervals: IntervalReport[];
   estimates: EstimateReport[];
   effectSizes: EffectSizeReport[];
@@ -149,6 +153,12 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     push({ kind: 'n', start: m.index, end: m.index + m[0].length, a, percent: false, perGroup });
     sampleSizes.push({ ...where(m.index, m.index + m[0].length), n: a, scope: perGroup ? 'per-group' : capital ? 'total' : 'unspecified' });
   }
+  const groupSizes: GroupSizes[] = [];
+  if (/ and | vs|versus|, /.test(text)) for (const m of text.matchAll(N_PAIR)) {
+    const a = num(seg, m, 1) ?? num(seg, m, 3);
+    const b = num(seg, m, 2) ?? num(seg, m, 4);
+    if (a && b) groupSizes.push({ ...where(m.index, m.index + m[0].length), ns: [a, b] });
+  }
   if (/\d (?:[a-z]{3,12})/.test(text)) for (const m of text.matchAll(PARTICIPANTS)) {
     const a = num(seg, m, 1);
     // "groups of 30 nurses each", "24 pupils per class": a group's size, not the total
@@ -219,7 +229,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     const of = ofText && ofAt >= 0 ? readNumber(seg, ofAt, ofAt + ofText.length) : undefined;
     counts.push({ ...where(m.index, end), count, percent, ...(of ? { of } : {}) });
   }
-  return { summaries, sampleSizes, intervals, estimates, effectSizes, designs, references, counts };
+  return { summaries, sampleSizes, groupSizes, intervals, estimates, effectSizes, designs, references, counts };
 }
 
 function spreadKind(word: string | undefined): SpreadKind {

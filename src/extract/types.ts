@@ -124,6 +124,8 @@ export interface Extraction {
   pWithoutT: PWithoutT[];
   summaries: GroupSummary[];
   sampleSizes: SampleSize[];
+  /** Two groups' sizes printed together, without their descriptives. */
+  groupSizes: GroupSizes[];
   intervals: IntervalReport[];
   estimates: EstimateReport[];
   effectSizes: EffectSizeReport[];
@@ -187,6 +189,16 @@ export interface SampleSize {
   sentence: number;
   n: ReportedNumber;
   scope: 'total' | 'per-group' | 'unspecified';
+  span: Span;
+  printed: string;
+}
+
+/** The sizes of two groups printed together: `n = 25 and 23`, `in 26 and 28 employees`. */
+export interface GroupSizes {
+  segment: number;
+  block: number;
+  sentence: number;
+  ns: [ReportedNumber, ReportedNumber];
   span: Span;
   printed: string;
 }

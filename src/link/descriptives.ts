@@ -3,9 +3,11 @@ import type {
   EffectSizeReport,
   EstimateReport,
   Extraction,
+  GroupSizes,
   GroupSummary,
   IntervalReport,
   ReferenceValue,
+  ReportedNumber,
   SampleSize,
   SpreadKind,
   TableBlockRecord,
@@ -72,6 +74,8 @@ export interface ResultContext {
   sampleSizes: SampleSize[];
   /** How many t-tests the result's paragraph reports (itself included). */
   testsInParagraph: number;
+  /** Two groups' sizes printed in the result's clause or sentence (`n = 25 and 23`), when printed once. */
+  groupSizes?: [ReportedNumber, ReportedNumber];
 }
 
 /** Records of one segment in reading order, with lookups by position and by sentence. */
@@ -169,6 +173,7 @@ export function contextJoiner(x: Extraction): (report: TTestReport) => ResultCon
     effectSizes: new SegmentList(x.effectSizes),
     sampleSizes: new SegmentList(x.sampleSizes),
     designs: new SegmentList(x.designs),
+    groupSizes: new SegmentList(x.groupSizes),
     prose,
     tests,
   };
@@ -198,6 +203,7 @@ interface Lists {
   effectSizes: SegmentList<EffectSizeReport>;
   sampleSizes: SegmentList<SampleSize>;
   designs: SegmentList<DesignStatement>;
+  groupSizes: SegmentList<GroupSizes>;
   prose: SegmentList<GroupSummary>;
   tests: SegmentList<TTestReport>;
 }
@@ -264,11 +270,18 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
   // The sentence's own first; then the paragraph's first few (rules take the first that fits,
   // and a bounded list keeps a paragraph of thousands of results linear).
   const sampleSizes = [...n.sampleSizes.inSentence(report.segment, report.sentence), ...n.sampleSizes.all(report.segment).slice(0, PARAGRAPH_SIZES)];
+  const pairs = n.groupSizes.inSentence(report.segment, report.sentence);
+  const groupSizes = pairs.length === 1 ? (pairs[0] as GroupSizes).ns : undefined;
+  // a value the result is compared against, printed in its sentence, makes it a one-sample
+  // test ("was above the target of 4, t(23) = …") unless two groups are tied to it
+  const againstValue: Setting<Design> | undefined =
+    sentenceReferences[0] && link?.groups.length !== 2 && !groupSizes ? { value: 'one-sample', basis: 'sentence', span: sentenceReferences[0].span, printed: sentenceReferences[0].printed } : undefined;
   return {
     ...(link ? { descriptives: link } : {}),
     ...(unlinked ? { unlinked } : {}),
     // one group of descriptives is a one-sample test (or differences) before the Methods' design
-    design: designFor(report, clause, clauses, n.designs) ?? (link?.groups.length === 1 ? oneGroup : undefined) ?? t.methodsDesign ?? { value: 'unknown', basis: 'default' },
+    design: designFor(report, clause, clauses, n.designs) ?? againstValue ?? (link?.groups.length === 1 ? oneGroup : undefined) ?? t.methodsDesign ?? { value: 'unknown', basis: 'default' },
+    ...(groupSizes ? { groupSizes } : {}),
     ...(reference ? { reference } : {}),
     ...(interval ? { interval } : {}),
     intervals,
