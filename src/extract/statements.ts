@@ -27,8 +27,8 @@ const ANALYSIS_WORD = /(?<![\p{L}])(?:tests?|t-tests?|testing|tested|p|P|p[- ]va
  * ("All tests were two-tailed", "p values are two-sided", "Significance was set at α = .05").
  */
 const GENERAL_WORDS = /(?<![\p{L}])(?:all|every|each|throughout|unless|tests|t-tests|p[- ]values|analyses|comparisons|hypotheses|contrasts|statistical significance|significance (?:was|is|level|threshold|criterion)|level of significance|alpha (?:level|was|of|=)|α ?(?:=|was|of|level))(?![\p{L}])/iu;
-/** Words that make an alpha local to some tests: a corrected or adjusted alpha. */
-const LOCAL_ALPHA = /(?<![\p{L}])(?:corrected|adjusted|Bonferroni|Holm|Šidák|Sidak|per comparison|for (?:this|these|each|the (?:primary|secondary))|family-?wise)(?![\p{L}])/iu;
+/** Words that make an alpha local: a corrected or adjusted alpha, or the alpha of a power calculation. */
+const LOCAL_ALPHA = /(?<![\p{L}])(?:corrected|adjusted|Bonferroni|Holm|Šidák|Sidak|per comparison|for (?:this|these|each|the (?:primary|secondary))|family-?wise|power|detect|sample size)(?![\p{L}])/iu;
 
 /** A correction for multiple comparisons named in a sentence. */
 const CORRECTION = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidak|Hochberg|Benjamini|false discovery rate|FDR|Tukey)(?![\p{L}])/iu;

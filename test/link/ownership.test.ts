@@ -88,6 +88,10 @@ describe('statements apply only where they are about the analysis', () => {
     expect(r.results[0]?.sidedness.basis).toBe('equivalence-test');
     expect(warnings(r)).toEqual([]);
   });
+  it('the alpha of a power calculation is not the significance level of the tests', () => {
+    const r = run('A sample of 5 per group gives 90% power for d = 2.0 (two-sided α = .01).\n\nRecall rose, t(8) = 2.50, p = .037.');
+    expect(r.results[0]?.alpha).toMatchObject({ value: 0.05, basis: 'default' });
+  });
   it('a tails word in a result sentence does not make a statement about every test', () => {
     const r = run('Planned comparisons showed a rise (t(48) = 7.66, p < .0001, one-tailed).\n\nRecall improved, t(30) = 2.10, p = .045.');
     expect(r.results[1]?.sidedness.basis).toBe('default');
