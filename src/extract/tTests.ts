@@ -8,7 +8,8 @@ import type { AdjustMethod, Comparison, ReportedNumber, ReportedP, ReportStyle, 
 // follows it, so no pattern can backtrack super-linearly (checked by test/regex-safety).
 const OP = String.raw`(<=|>=|=<|=>|≤|≥|=|<|>)`;
 const T_NUM = String.raw`([-+]? ?(?:\d{1,9}(?:\.\d{1,20})?|\.\d{1,20}))`;
-const DF_NUM = String.raw`(\d{1,3}(?:,\d{3}){1,3}(?:\.\d{1,12})?|\d{1,9}(?:\.\d{1,12})?)`;
+// a df printed negative is read, so that values-are-possible can say it cannot be
+const DF_NUM = String.raw`(-?(?:\d{1,3}(?:,\d{3}){1,3}(?:\.\d{1,12})?|\d{1,9}(?:\.\d{1,12})?))`;
 const NOT_AFTER_WORD = String.raw`(?<![\p{L}\p{N}_'’.\-])`;
 
 /** t(28) = 2.10 · ts(22) > 4.72 · t[28] · t_{28} · t_28 · t( 3.187) · t-test (31) = 0.75 · t(df = 31) = 0.75 */
