@@ -35,7 +35,7 @@ const PLUS_MINUS = new RegExp(String.raw`(?<![\d.])${NUM}( ?%)? ?± ?${NUM}( ?%)
 const MEAN_PAREN = new RegExp(String.raw`(?<![\p{L}\p{N}_.(=])${NUM}( ?%)? ?\((?:(SD|SE|SEM|s\.d\.|s\.e\.)(?: ?=)? ?)?${NUM}( ?%)?\)`, 'dgu');
 const MEAN_PAREN_HEADER = /(?<![\p{L}])(?:M|mean|means)s? ?\((SD|SE|SEM)\)/iu;
 const CI = new RegExp(
-  String.raw`(\d{2}(?:\.\d)?) ?(?:%|percent) ?(?:CI|C\.I\.|confidence intervals?)[^\d\-+.\n]{0,18}${NUM} ?(?:,|;|to|–|—| - | |-(?=\.?\d)) ?${NUM}(?: ?[\])])?`,
+  String.raw`(\d{2}(?:\.\d)?) ?(?:%|percent) ?(?:CI|C\.I\.|KI|IC|confidence intervals?)[^\d\-+.\n]{0,18}${NUM} ?(?:,|;|to|–|—| - | |-(?=\.?\d)) ?${NUM}(?: ?[\])])?`,
   'dgu',
 );
 /** `difference = 3.8`, `b = 0.37`, `MD: 3.1`; a spelled-out `mean difference 24.28` or `mean change -0.18` needs no sign. */
@@ -188,7 +188,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
   }
 
   const intervals: IntervalReport[] = [];
-  if (/CI|C\.I\.|confidence interval/.test(text)) for (const m of text.matchAll(CI)) {
+  if (/CI|C\.I\.|KI|IC|confidence interval/.test(text)) for (const m of text.matchAll(CI)) {
     const low = num(seg, m, 2);
     const high = num(seg, m, 3);
     if (!low || !high || low.value > high.value) continue;

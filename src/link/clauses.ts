@@ -38,6 +38,12 @@ export interface ClauseIndex {
   statisticsInSentence(segment: number, sentence: number): number;
   statisticsInSegment(segment: number): number;
   testsInSegment(segment: number): number;
+  /**
+   * Tests that compare means (t and F) in a sentence and in a segment: only they could claim a
+   * group's mean and SD; a χ², a correlation or a rank test beside them could not.
+   */
+  meanTestsInSentence(segment: number, sentence: number): number;
+  meanTestsInSegment(segment: number): number;
 }
 
 /**
@@ -92,7 +98,18 @@ export function clauseIndex(x: Extraction): ClauseIndex {
     });
   }
   const sentenceCounts = new Map<string, number>();
-  for (const [seg, list] of openersBySegment) for (const op of list) sentenceCounts.set(`${seg}:${op.sentence}`, (sentenceCounts.get(`${seg}:${op.sentence}`) ?? 0) + 1);
+  const meanSentenceCounts = new Map<string, number>();
+  const meanSegmentCounts = new Map<number, number>();
+  for (const [seg, list] of openersBySegment) {
+    for (const op of list) {
+      const k = `${seg}:${op.sentence}`;
+      sentenceCounts.set(k, (sentenceCounts.get(k) ?? 0) + 1);
+      if (op.kind === 't' || op.statistic.kind === 'F') {
+        meanSentenceCounts.set(k, (meanSentenceCounts.get(k) ?? 0) + 1);
+        meanSegmentCounts.set(seg, (meanSegmentCounts.get(seg) ?? 0) + 1);
+      }
+    }
+  }
 
   return {
     clauseOf: (test) => clauses.get(test) ?? { test, start: test.span.start },
@@ -117,6 +134,8 @@ export function clauseIndex(x: Extraction): ClauseIndex {
     statisticsInSentence: (segment, sentence) => sentenceCounts.get(`${segment}:${sentence}`) ?? 0,
     statisticsInSegment: (segment) => openersBySegment.get(segment)?.length ?? 0,
     testsInSegment: (segment) => testsBySegment.get(segment)?.length ?? 0,
+    meanTestsInSentence: (segment, sentence) => meanSentenceCounts.get(`${segment}:${sentence}`) ?? 0,
+    meanTestsInSegment: (segment) => meanSegmentCounts.get(segment) ?? 0,
   };
 }
 

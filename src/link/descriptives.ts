@@ -321,7 +321,9 @@ function descriptivesFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t:
   if (report.table) return tableDescriptives(report, report.table, t);
   const testsInSentence = n.tests.inSentence(report.segment, report.sentence).filter((x) => x.block === report.block);
   const inSentence = n.prose.inSentence(report.segment, report.sentence);
-  const aloneInSentence = clauses.statisticsInSentence(report.segment, report.sentence) === 1;
+  // certain when no other test of means shares the sentence (a χ² or a correlation cannot
+  // claim a group's mean and SD)
+  const aloneInSentence = clauses.meanTestsInSentence(report.segment, report.sentence) === 1;
   if (inSentence.length > 0) {
     if (inSentence.length <= 2 && testsInSentence.length === 1) return { link: makeLink('sentence', inSentence, t.spreads, aloneInSentence) };
     return { unlinked: { reason: `${inSentence.length} sets of descriptives and ${testsInSentence.length} tests in one sentence`, span: report.span } };
@@ -331,7 +333,7 @@ function descriptivesFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t:
   const inParagraph = paragraphGroups.length > 0 && paragraphGroups.length <= 8 ? paragraphGroups.filter((g) => n.tests.inSentence(g.segment, g.sentence).length === 0) : paragraphGroups;
   if (inParagraph.length > 0) {
     const testsInBlock = clauses.testsInSegment(report.segment);
-    if (inParagraph.length <= 2 && testsInBlock === 1) return { link: makeLink('paragraph', inParagraph, t.spreads, clauses.statisticsInSegment(report.segment) === 1) };
+    if (inParagraph.length <= 2 && testsInBlock === 1) return { link: makeLink('paragraph', inParagraph, t.spreads, clauses.meanTestsInSegment(report.segment) === 1) };
     return { unlinked: { reason: `${inParagraph.length} sets of descriptives and ${testsInBlock} tests in one paragraph`, span: report.span } };
   }
   // "Job satisfaction was higher …, t(57.3) = 4.04" beside a long table: the block of the
