@@ -157,7 +157,7 @@ export function findMeasureMentions(segments: readonly Segment[], declared: read
         const key = `${sentence}:${measure}`;
         if (seen.has(key)) continue;
         seen.add(key);
-        out.push({ measure, segment: seg.id, sentence });
+        out.push({ measure, segment: seg.id, sentence, ...(seg.table ? { table: { table: seg.table.table, row: seg.table.row } } : {}) });
       }
     });
   }

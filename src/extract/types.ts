@@ -280,6 +280,8 @@ export interface MeasureMention {
   measure: string;
   segment: number;
   sentence: number;
+  /** Named in a table cell: its row (the row's groups are that measure's). */
+  table?: TableRow;
 }
 
 /** A count with its percentage: `12 (40%)`. */

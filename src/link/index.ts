@@ -165,14 +165,28 @@ function integerDeclarations(x: Extraction): LinkedDocument['integerDeclarations
     set.add(m.measure);
     named.set(k, set);
   }
+  // a measure named in a table row names the groups of that row, and of its block below it
+  const byRow = new Map<string, Set<string>>();
+  const blockAt = new Map(x.tableBlocks.map((b) => [`${b.table}:${b.firstRow}`, b]));
+  for (const m of x.measureMentions) {
+    if (!m.table) continue;
+    const block = blockAt.get(`${m.table.table}:${m.table.row}`);
+    for (let r = m.table.row; r <= (block?.lastRow ?? m.table.row); r += 1) {
+      const k = `${m.table.table}:${r}`;
+      const set = byRow.get(k) ?? new Set<string>();
+      set.add(m.measure);
+      byRow.set(k, set);
+    }
+  }
   for (const g of x.summaries) {
     if (!g.mean) continue;
-    const own = bySentence.get(key(g.segment, g.sentence));
+    const own = g.table ? undefined : bySentence.get(key(g.segment, g.sentence));
     if (own) {
       out.set(g, { statement: own, basis: 'sentence' });
       continue;
     }
-    const candidates = [...(named.get(key(g.segment, g.sentence)) ?? [])].flatMap((name) => byName.get(name) ?? []);
+    const names = g.table ? byRow.get(`${g.table.table}:${g.table.row}`) : named.get(key(g.segment, g.sentence));
+    const candidates = [...(names ?? [])].flatMap((name) => byName.get(name) ?? []);
     const first = candidates[0];
     if (first && candidates.every((c) => c.items === first.items)) out.set(g, { statement: first, basis: 'measure-name' });
   }
