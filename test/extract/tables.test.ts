@@ -81,3 +81,10 @@ describe('labelled cells in the rows of one measure (text converted from PDF)', 
     expect(r.findings.filter((f) => f.ruleId === 'p-follows-from-t' || f.ruleId === 'significance-follows-from-t').map((f) => f.level)).toEqual(['error']);
   });
 });
+
+describe('whole-number measures declared by name are checked in table rows', () => {
+  it('GRIM on a group cell of the row that names the measure (2.39 × 19 = 45.41: no whole sum gives it, hand-checked)', () => {
+    const r = run('## Measures\n\nErrors were recorded as whole-number counts.\n\n## Results\n\n| Measure | A (n = 19), M (SD) | B (n = 19), M (SD) | t | df | p |\n|---|---|---|---|---|---|\n| Errors | 2.39 (1.10) | 2.37 (1.07) | 0.06 | 36 | .95 |\n| Speed | 2.39 (1.10) | 2.37 (1.07) | 0.06 | 36 | .95 |\n');
+    expect(r.findings.filter((f) => f.ruleId === 'mean-is-possible-for-integers').map((f) => `${f.start.line}:${f.messageId}`)).toEqual(['9:grim-mean']);
+  });
+});
