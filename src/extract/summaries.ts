@@ -210,7 +210,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     for (const m of text.matchAll(re)) designs.push({ ...where(m.index, m.index + m[0].length), design });
   }
   const references: ReferenceValue[] = [];
-  if (/test value|hypothesi|reference value|population mean|norm|benchmark|target|chance/i.test(text)) for (const m of text.matchAll(REFERENCE)) {
+  if (/test value|hypothesi|reference value|population mean|norm|benchmark|target|midpoint|chance/i.test(text)) for (const m of text.matchAll(REFERENCE)) {
     const value = num(seg, m, 1);
     if (value) references.push({ ...where(m.index, m.index + m[0].length), value });
   }
