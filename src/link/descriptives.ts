@@ -33,6 +33,8 @@ export interface Linked<T> {
   basis: LinkBasis;
   /** False where another reading of the text would tie it elsewhere: a rule then only notes. */
   certain: boolean;
+  /** Why the tie is not certain, when the basis alone does not say it. */
+  doubt?: string;
 }
 
 /** What a confidence interval is the interval of. */
@@ -296,7 +298,10 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
  * What an interval is the interval of: the nearest thing printed before it in its sentence.
  * After an effect size (`d = 0.39, 95% CI [0.10, 0.68]`) it is the effect size's; right after
  * a group's mean and SD it is the group's; otherwise (after the statistic, its p or an
- * estimate) it is the interval of the test's estimate.
+ * estimate) it is the interval of the test's estimate. An interval that cannot hold the effect
+ * size before it, at either sign and within the printed rounding (`d = 0.62, 95% CI [1.30,
+ * 13.70]`), is not that effect size's: it goes to the next thing before it, and the tie is not
+ * certain (it may as well be the effect size's interval, mistyped).
  */
 function intervalTarget(ci: Linked<IntervalReport>, report: TTestReport, clause: Clause, n: Lists): IntervalLink {
   const at = ci.item.span.start;
@@ -313,8 +318,20 @@ function intervalTarget(ci: Linked<IntervalReport>, report: TTestReport, clause:
   candidates.sort((a, b) => b.end - a.end);
   const nearest = candidates[0];
   // Nothing before it in the sentence: an interval opening the sentence of a lone test is the test's.
-  if (!nearest) return { ...ci, of: report.span.start >= at ? 'estimate' : 'estimate' };
+  if (!nearest) return { ...ci, of: 'estimate' };
+  if (nearest.effectSize && !canHold(ci.item, nearest.effectSize.value)) {
+    const next = candidates.find((c) => c.of !== 'effect-size') ?? { of: 'estimate' as const };
+    return { ...ci, certain: false, doubt: `it follows ${nearest.effectSize.printed}, which it cannot hold, so it may be that effect size's interval mistyped`, of: next.of };
+  }
   return { ...ci, of: nearest.of, ...(nearest.effectSize ? { effectSize: nearest.effectSize } : {}) };
+}
+
+/** Whether an interval, widened by half a unit of its last printed digits, holds ±x (x widened likewise). */
+function canHold(ci: IntervalReport, x: ReportedNumber): boolean {
+  const half = (r: ReportedNumber) => 0.5 * 10 ** (r.exponent - r.decimals);
+  const low = Math.min(ci.low.value, ci.high.value) - half(ci.low) - half(x);
+  const high = Math.max(ci.low.value, ci.high.value) + half(ci.high) + half(x);
+  return [x.value, -x.value].some((v) => v >= low && v <= high);
 }
 
 function descriptivesFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tables): { link?: DescriptiveLink; unlinked?: ResultContext['unlinked'] } {

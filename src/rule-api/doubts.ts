@@ -15,7 +15,7 @@ export function linkDoubts(parts: { descriptives?: DescriptiveLink | undefined; 
     );
   }
   for (const l of parts.linked ?? []) {
-    if (l && !l.certain) out.push(`"${l.item.printed.trim()}" is tied to the test only by its ${l.basis}`);
+    if (l && !l.certain) out.push(l.doubt ? `"${l.item.printed.trim()}" ${l.doubt}` : `"${l.item.printed.trim()}" is tied to the test only by its ${l.basis}`);
   }
   return out;
 }

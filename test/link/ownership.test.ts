@@ -28,6 +28,21 @@ describe('each number is tied to its own clause', () => {
     expect(r.results[0]?.context.interval).toBeUndefined();
     expect(warnings(r)).toEqual([]);
   });
+  it('a CI after d that cannot hold d is read as the CI of the difference, and only with doubt', () => {
+    // difference 72.4 − 64.9 = 7.5, t(60) = 2.42: SE = 3.099, t_crit(60) = 2.0003, CI 1.30 to 13.70
+    const ok = run('The poster group scored higher (M = 72.4, SD = 11.8, n = 32) than the prompt group (M = 64.9, SD = 12.6, n = 30), t(60) = 2.42, p = .019, d = 0.62, 95% CI [1.30, 13.70].');
+    expect(ok.results[0]?.context.intervals?.map((i) => `${i.of}/${i.certain}`)).toEqual(['estimate/false']);
+    expect(ok.findings.filter((f) => f.ruleId === 'ci-agrees-with-result')).toEqual([]);
+    // the same interval moved off the difference: a note that says why it is not certain
+    const off = run('The poster group scored higher (M = 72.4, SD = 11.8, n = 32) than the prompt group (M = 64.9, SD = 12.6, n = 30), t(60) = 2.42, p = .019, d = 0.62, 95% CI [3.30, 15.70].');
+    const f = off.findings.filter((x) => x.ruleId === 'ci-agrees-with-result');
+    expect(f.map((x) => `${x.messageId}/${x.level}`)).toEqual(['not-centred/note']);
+    expect(f[0]?.message).toContain('it follows d = 0.62, which it cannot hold');
+  });
+  it('a CI after d that holds d (either sign) stays the CI of d', () => {
+    const r = run('Recall fell, t(58) = -2.10, p = .040, d = 0.54, 95% CI [-1.06, -0.02].');
+    expect(r.results[0]?.context.intervals?.map((i) => `${i.of}/${i.certain}`)).toEqual(['effect-size/true']);
+  });
   it('two CIs in one result: the difference and then d', () => {
     // difference 3.1, t(58) = 2.10: SE = 1.476, t_crit(58) = 2.0017, CI 0.15 to 6.05
     const r = run('Recall improved by MD = 3.1, 95% CI [0.15, 6.05], t(58) = 2.10, p = .040, d = 0.54, 95% CI [0.02, 1.06].');
