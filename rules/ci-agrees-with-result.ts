@@ -1,4 +1,4 @@
-import { dfInterval, fill, linkDoubts, numberInterval, showInterval, tInterval, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { dfInterval, fill, linkDoubts, numberInterval, showBound, showInterval, showNumber, tInterval, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 import { sideOfAlpha, twoSidedCriticalT, twoSidedPRange, type Box } from '../src/stats/index.js';
 
 const messages = {
@@ -67,7 +67,7 @@ export const ciAgreesWithResult: Rule = {
         out.push({
           ...base,
           messageId: 'width-vs-t',
-          message: fill(messages['width-vs-t'], { ci: ci.printed, reported: r.printed, impliedT: showInterval(viaT[0], viaT[1]), tCrit: tCrit.toFixed(3), impliedZ: showInterval(viaZ[0], viaZ[1]), tRange: showInterval(absT[0], absT[1]), impliedP: showInterval(p.low, p.high) }),
+          message: fill(messages['width-vs-t'], { ci: ci.printed, reported: r.printed, impliedT: showInterval(viaT[0], viaT[1]), tCrit: tCrit.toFixed(3), impliedZ: showInterval(viaZ[0], viaZ[1]), tRange: absT[0] === absT[1] ? showNumber(absT[0]) : `${showBound(absT[0], r.t.decimals, r.t.exponent)} to ${showBound(absT[1], r.t.decimals, r.t.exponent)}`, impliedP: showInterval(p.low, p.high) }),
           recomputed: { quantity: '|t| implied by the CI', low: viaT[0], high: viaT[1], inputs: [ci.printed, `estimate ${estimate.printed} (${estimate.source})`, `df = ${r.df.printed}`], assumptions: [`${Math.round(ci.level * 100)}% interval from the t distribution (or the normal)`, ...(modelSlack > 0 ? ['a model coefficient: 5% allowed for profile or bootstrap intervals'] : [])] },
           check: 'Check the interval, the estimate and t against the output; a CI built with the SD instead of the SE is a common cause.',
         });

@@ -12,6 +12,15 @@ export function showNumber(x: number): string {
   return trimZeros(x.toFixed(3));
 }
 
+/**
+ * A bound of a printed number's rounding interval, with one digit more than was printed
+ * (t = 5.0000 is read as 4.99995 to 5.00005), so the bound shown is the bound used.
+ */
+export function showBound(x: number, printedDecimals: number, exponent = 0): string {
+  if (!Number.isFinite(x) || exponent !== 0 || printedDecimals > 8) return showNumber(x);
+  return x.toFixed(printedDecimals + 1);
+}
+
 export function showInterval(low: number, high: number): string {
   const a = showNumber(low);
   const b = showNumber(high);

@@ -1,6 +1,6 @@
 import type { ReportedNumber, ReportedP, TTestReport } from '../extract/types.js';
 import { lastDigitUnit, roundingInterval, type PInterval } from '../stats/index.js';
-import { showNumber } from './format.js';
+import { showBound, showNumber } from './format.js';
 
 /** The interval of true values a printed number allows (its rounding interval). */
 export function numberInterval(n: ReportedNumber): [number, number] {
@@ -67,12 +67,12 @@ export function pInterval(p: ReportedP, alpha: number): PInterval {
 export function describeT(report: TTestReport): string {
   const [lo, hi] = tInterval(report);
   if (report.tOp !== '=') return `t ${report.tOp} ${report.t.printed.trim()}`;
-  return `t = ${report.t.printed.trim()} (read as ${showNumber(lo)} to ${showNumber(hi)})`;
+  return `t = ${report.t.printed.trim()} (read as ${showBound(lo, report.t.decimals, report.t.exponent)} to ${showBound(hi, report.t.decimals, report.t.exponent)})`;
 }
 
 export function describeDf(df: ReportedNumber): string {
   const [lo, hi] = dfInterval(df);
-  return lo === hi ? `df = ${df.printed}` : `df = ${df.printed} (read as ${showNumber(lo)} to ${showNumber(hi)})`;
+  return lo === hi ? `df = ${df.printed}` : `df = ${df.printed} (read as ${showBound(lo, df.decimals, df.exponent)} to ${showBound(hi, df.decimals, df.exponent)})`;
 }
 
 /** The unit of the last printed digit of a reported p, when it is an `=` value. */

@@ -1,3 +1,5 @@
+import { describe, expect, it } from 'vitest';
+import { checkSource } from '../../src/engine/index.js';
 import { ruleTable } from './table.js';
 
 // Recomputed p values quoted in names were checked with scipy.stats.t.sf (Debian python3-scipy).
@@ -28,3 +30,19 @@ ruleTable('p-follows-from-t', [
   { name: 'turned off in front matter', markdown: '---\nplumbline:\n  rules:\n    p-follows-from-t: "off"\n---\nx, t(23) = 1.12, p = .42.', expect: [] },
   { name: 'turned off in configuration', markdown: 'x, t(23) = 1.12, p = .42.', options: { config: { rules: { 'p-follows-from-t': 'off' } } }, expect: [] },
 ]);
+
+describe('the message shows the rounding interval actually used, to one digit past the printed one', () => {
+  // The interval of a number printed to k decimals is x ± 0.5·10^-k (common practice, no source).
+  const message = (markdown: string) => checkSource('x.md', `${markdown}\n`).findings.find((f) => f.ruleId === 'p-follows-from-t')?.message ?? '';
+  // scipy.stats.t.sf: t(5) = 5 gives two-tailed .0041; t(13) = 3.065 gives .0090
+  it('t printed to four decimals: 5.0000 is read as 4.99995 to 5.00005, not "5 to 5"', () => {
+    expect(message('x, t(5) = 5.0000, p = 0.0300.')).toContain('t = 5.0000 (read as 4.99995 to 5.00005)');
+  });
+  it('t printed to three decimals keeps its bounds distinct', () => {
+    expect(message('x, t = 3.065, df = 13, p = .02')).toContain('t = 3.065 (read as 3.0645 to 3.0655)');
+  });
+  it('a Welch df printed with decimals is shown with its own bounds', () => {
+    // scipy.stats.t.sf: two-tailed p 0.0327 to 0.0335 over the box, so .04 misses without crossing alpha
+    expect(message("x, Welch's t(17.8) = 2.31, p = .04.")).toContain('df = 17.8 (read as 17.75 to 17.85)');
+  });
+});
