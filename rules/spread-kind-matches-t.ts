@@ -27,7 +27,7 @@ export const spreadKindMatchesT: Rule = {
         span: r.span,
         message: fill(messages[id], {
           reported: r.printed,
-          inputs: e.groups.map((g) => g.printed).join('; '),
+          inputs: e.groups.map((g) => `"${g.printed.trim()}"`).join('; '),
           labelled: e.attempts.filter((a) => a.reading === 'as labelled').map(describeAttempt).join('; '),
           against: e.attempts.filter((a) => a.reading !== 'as labelled' && a.fits).map(describeAttempt).join('; '),
         }),

@@ -22,7 +22,7 @@ export const tFollowsFromDescriptives: Rule = {
       if (!e || e.fitsOnlyAgainstLabel) continue;
       const r = result.report;
       const labelled = e.attempts.filter((a) => a.reading === 'as labelled' || e.kinds.every((k) => k === 'unstated'));
-      const inputs = e.groups.map((g) => g.printed).join('; ');
+      const inputs = e.groups.map((g) => `"${g.printed.trim()}"`).join('; ');
       const values = {
         reported: r.printed,
         inputs,

@@ -29,6 +29,10 @@ const N_PAIR = new RegExp(String.raw`${START}(?:[nN]s?|sample sizes?) ?(?:=|:|of
 const N = new RegExp(String.raw`${START}(?:(n|N)(?:_\{[^{}\n]{1,20}\}|_?[0-9]|_[\p{L}]{1,20})?|[Ss]ample size) ?(?:=|:) ?${INT}(?: (per group|in each group|each|per condition|per arm))?(?!\d|\.\d)`, 'dgu');
 const PER_GROUP_AFTER = /^,? (?:each|per (?:group|arm|condition|class|site)|in each (?:group|arm|condition))(?![\p{L}])/u;
 const PER_GROUP_BEFORE = /(?<![\p{L}])(?:groups|arms) of $/u;
+/** A bare number (and %) up to 20 characters before the `(` of a lone spread: its mean. */
+const BARE_MEAN = /(?<![\p{L}\p{N}.,])([-+]?\d{1,9}(?:\.\d{1,9})?)( ?%)?[^\d()]{0,20}\($/u;
+/** A decimal number, then only words (its unit and a short phrase), before the `(` of a lone spread. */
+const WORDED_MEAN = /(?<![\p{L}\p{N}.,])(?<![=<>≤≥] ?)([-+]?\d{1,9}\.\d{1,9})( ?%)? \p{L}[\p{L}'’ -]{0,38}\($/u;
 const PARTICIPANTS = new RegExp(String.raw`(?<![\p{L}\p{N}.,])${INT} (${UNITS})(?![\p{L}])`, 'dgu');
 // the look-behind starts a number only at the start of a digit run (recheck judges it linear then)
 const PLUS_MINUS = new RegExp(String.raw`(?<![\d.])${NUM}( ?%)? ?± ?${NUM}( ?%)?(?: ?\(? ?(SD|SE|SEM|s\.d\.|s\.e\.m\.|s\.e\.|standard deviations?|standard errors?)\)?)?`, 'dgu');
@@ -170,18 +174,22 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
   tokens.sort((x, y) => x.start - y.start);
 
   const summaries = groupTokens(seg, tokens, sentenceStarts);
-  // "33.88% of the time (SD = 31%)": a bare number just before a lone spread is its mean.
+  // "33.88% of the time (SD = 31%)": a bare number just before a lone spread is its mean;
+  // so is a decimal number followed only by words, as its unit and a short phrase ("saved
+  // 20.43 keywords across their lists (N=14, SD=7.33)"), when no value sign precedes it.
   for (const s of summaries) {
     if (s.mean || !s.spread) continue;
     const startIndex = indexOfSource(seg, s.span.start);
-    const before = text.slice(Math.max(0, startIndex - 30), startIndex);
-    const m = /(?<![\p{L}\p{N}.,])([-+]?\d{1,9}(?:\.\d{1,9})?)( ?%)?[^\d()]{0,20}\($/u.exec(before);
+    const before = text.slice(Math.max(0, startIndex - 50), startIndex);
+    const m = BARE_MEAN.exec(before.slice(-30)) ?? WORDED_MEAN.exec(before);
     if (m) {
-      const at = startIndex - before.length + m.index;
+      const at = startIndex - (m.input as string).length + m.index;
       const mean = readNumber(seg, at, at + (m[1] as string).length);
       if (mean) {
         s.mean = mean;
         s.span = { start: mean.span.start, end: s.span.end };
+        // the printed text runs from the mean, so a finding quotes the mean it used
+        s.printed = text.slice(at, startIndex) + s.printed;
         s.percent ||= m[2] !== undefined;
       }
     }

@@ -23,6 +23,9 @@ ruleTable('t-follows-from-descriptives', [
   { name: 'one sample with no stated reference value is not guessed', markdown: 'Scores were high (M = 5.6, SD = 1.9, n = 30), t(29) = 2.73, p = .011.', expect: [] },
   { name: 'two groups of unknown design that could be paired are not flagged', markdown: 'Before (M = 45.0, SD = 10.1) and after (M = 41.2, SD = 9.8), t(23) = 3.10, p = .005.', expect: [] },
   { name: "Welch's t named, only Student's fits", markdown: "Seated (M = 45.0, SD = 10.1, n = 10) and standing (M = 41.2, SD = 3.0, n = 40), Welch's t(48) = 2.05, p = .046.", expect: [{ at: 't(48)', id: 'named-variant-mismatch' }] },
+  { name: 'a mean followed by its unit and a short phrase before its (n, SD) is read as the mean (1.32 fits)', markdown: 'Seated staff logged 45.0 minutes across their shifts (n = 24, SD = 10.1), standing staff 41.2 minutes (n = 24, SD = 9.8), t(46) = 1.32, p = .19.', expect: [] },
+  { name: 'a mean followed by its unit and a short phrase, with a t no variant gives', markdown: 'Seated staff logged 45.0 minutes across their shifts (n = 24, SD = 10.1), standing staff 41.2 minutes (n = 24, SD = 9.8), t(46) = 2.31, p = .025.', expect: [{ at: 't(46) = 2.31', id: 'mismatch' }] },
+  { name: 'a value after "=" is never taken as the mean of a spread printed after words', markdown: 'Seated staff, t(46) = 2.31 minutes across their shifts (n = 24, SD = 10.1), and standing staff 41.2 minutes (n = 24, SD = 9.8).', expect: [] },
   { name: 'three groups and one test: not guessed', markdown: 'A (M = 40.1, SD = 9.2, n = 20), B (M = 43.0, SD = 9.9, n = 20) and C (M = 46.2, SD = 10.4, n = 20), t(38) = 9.01, p < .001.', expect: [] },
 ]);
 
