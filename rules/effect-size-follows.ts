@@ -3,11 +3,14 @@ import { dAverage, dFromMeansPooled, dFromTIndependent, dRepeatedMeasures, dzFro
 
 const messages = {
   mismatch: 'Reported {effect}. Recomputed: {tried}. None of these definitions gives the reported value within rounding.',
+  'fits-only-paired': 'Reported {effect}. As two independent groups it would be {independent}; only a paired design gives it ({paired}), and the text does not say the design is paired.',
 };
 
 interface Candidate {
   name: string;
   range: Interval;
+  /** The design the definition assumes, where it assumes one. */
+  family?: 'paired' | 'independent';
 }
 
 /** A reported Cohen's d (or Hedges' g) follows from t and the group sizes, or from the means and SDs. */
@@ -58,7 +61,7 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
   const mayBeIndependent = design === 'independent' || design === 'unknown';
 
   // From t.
-  if (design === 'one-sample' || (mayBePaired && !welch)) candidates.push({ name: 'd_z = t/√n (paired or one-sample, n = df + 1)', range: dzFromT(absT, df + 1) });
+  if (design === 'one-sample' || (mayBePaired && !welch)) candidates.push({ name: 'd_z = t/√n (paired or one-sample, n = df + 1)', range: dzFromT(absT, df + 1), ...(design === 'unknown' ? { family: 'paired' as const } : {}) });
   if (mayBeIndependent) {
     if (ns.length === 2 && ns.every((n) => n !== undefined)) {
       const [n1, n2] = ns as [number, number];
@@ -68,8 +71,8 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
         // With the SDs printed, d comes from the means and SDs below instead.
         const limit = (v: number) => Math.sqrt(((v / n1 + (1 - v) / n2) * (n1 + n2 - 2)) / ((n1 - 1) * v + (n2 - 1) * (1 - v)));
         const [lo, hi] = [limit(0), limit(1)].sort((a, b) => a - b) as [number, number];
-        candidates.push({ name: `pooled-SD d from Welch's t (n = ${n1} and ${n2}, any variance ratio)`, range: { low: absT[0] * lo, high: absT[1] * hi } });
-      } else if (!welch) candidates.push({ name: `d = t√(1/n1 + 1/n2) (n = ${n1} and ${n2})`, range: dFromTIndependent(absT, n1, n2) });
+        candidates.push({ name: `pooled-SD d from Welch's t (n = ${n1} and ${n2}, any variance ratio)`, range: { low: absT[0] * lo, high: absT[1] * hi }, family: 'independent' });
+      } else if (!welch) candidates.push({ name: `d = t√(1/n1 + 1/n2) (n = ${n1} and ${n2})`, range: dFromTIndependent(absT, n1, n2), family: 'independent' });
     } else if (welch) {
       // Welch's t with the group sizes unknown bounds no pooled-SD d: only the common shortcut
       // below can be tried, so a d it does not give is only a note.
@@ -78,9 +81,9 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
       const total = Math.round(df) + 2;
       const smallest = dFromTIndependent(absT, total / 2, total / 2);
       const largest = total >= 4 ? dFromTIndependent(absT, 2, total - 2) : smallest;
-      candidates.push({ name: `d = t√(1/n1 + 1/n2) (any split of ${total})`, range: { low: smallest.low, high: largest.high } });
+      candidates.push({ name: `d = t√(1/n1 + 1/n2) (any split of ${total})`, range: { low: smallest.low, high: largest.high }, family: 'independent' });
     }
-    candidates.push({ name: 'd = 2t/√df', range: { low: (2 * absT[0]) / Math.sqrt(df), high: (2 * absT[1]) / Math.sqrt(df) } });
+    candidates.push({ name: 'd = 2t/√df', range: { low: (2 * absT[0]) / Math.sqrt(df), high: (2 * absT[1]) / Math.sqrt(df) }, family: 'independent' });
   }
   // From the means and SDs. Spreads read as labelled: SDs as they are, SEs as SD = SE·√n, unstated ones both ways.
   const readings = (list: readonly string[]): boolean[] => (list.every((k) => k === 'SD') ? [false] : list.every((k) => k === 'SE') ? [true] : [false, true]);
@@ -109,14 +112,14 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
       candidates.push({ name: `Glass's Δ (either group's SD)${how}`, range: glass(m1, m2, s1, s2) });
       if (mayBePaired && !welch) {
         const rm = dRepeatedMeasures(m1, s1, m2, s2, df + 1, absT);
-        if (Number.isFinite(rm.low)) candidates.push({ name: `d_rm = d_z·√(2(1 − r)), r implied by the means, SDs and t${how}`, range: rm });
+        if (Number.isFinite(rm.low)) candidates.push({ name: `d_rm = d_z·√(2(1 − r)), r implied by the means, SDs and t${how}`, range: rm, family: 'paired' });
       }
     }
   } else if (mayBePaired && !welch) {
     // Without the means and SDs, d_av, d_rm and the pooled-SD d of a paired design cannot be
     // computed, but each is at most 2·d_z: SD_diff ≤ SD1 + SD2 (common practice, no source).
     const dz = dzFromT(absT, df + 1);
-    candidates.push({ name: 'd_av, d_rm or pooled-SD d of a paired design (at most 2·d_z, as SD_diff ≤ SD1 + SD2)', range: { low: 0, high: 2 * dz.high } });
+    candidates.push({ name: 'd_av, d_rm or pooled-SD d of a paired design (at most 2·d_z, as SD_diff ≤ SD1 + SD2)', range: { low: 0, high: 2 * dz.high }, family: 'paired' });
   }
   const single = groups.length === 1 ? groups[0] : undefined;
   if (single?.mean && single.spread) {
@@ -134,13 +137,33 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
   const jApprox = 1 - 3 / (4 * df - 1);
   const all = [...named];
   for (const c of named) {
-    if (Number.isFinite(j)) all.push({ name: `Hedges' g from ${c.name}`, range: { low: c.range.low * Math.min(j, jApprox), high: c.range.high * Math.max(j, jApprox) } });
+    if (Number.isFinite(j)) all.push({ name: `Hedges' g from ${c.name}`, range: { low: c.range.low * Math.min(j, jApprox), high: c.range.high * Math.max(j, jApprox) }, ...(c.family ? { family: c.family } : {}) });
   }
   if (all.length === 0) return undefined;
   const [vl, vh] = numberInterval(es.value);
   const reported: Box = [Math.min(Math.abs(vl), Math.abs(vh)), Math.max(Math.abs(vl), Math.abs(vh))];
   if (vl <= 0 && vh >= 0) reported[0] = 0;
-  if (all.some((c) => c.range.low <= reported[1] && c.range.high >= reported[0])) return undefined;
+  const fits = (c: Candidate) => c.range.low <= reported[1] && c.range.high >= reported[0];
+  if (all.some(fits)) {
+    // Design not stated, and every definition that gives d assumes paired data while those
+    // for two independent groups do not: a note asks which design it was.
+    const independent = named.filter((c) => c.family === 'independent');
+    if (design !== 'unknown' || independent.length === 0 || !all.filter(fits).every((c) => c.family === 'paired')) return undefined;
+    // one name per definition: its Hedges' g twin says nothing more
+    const paired = [...new Set(all.filter(fits).map((c) => c.name.replace(/^Hedges' g from /, '')))];
+    return {
+      messageId: 'fits-only-paired',
+      span: es.span,
+      message: fill(messages['fits-only-paired'], { effect: es.printed, independent: independent.map((c) => `${c.name}: ${showInterval(c.range.low, c.range.high)}`).join('; '), paired: paired.join('; ') }),
+      reported: es.printed,
+      recomputed: { quantity: '|d| for two independent groups', low: Math.min(...independent.map((c) => c.range.low)), high: Math.max(...independent.map((c) => c.range.high)), inputs: [r.printed, ...groups.map((g) => g.printed)], assumptions: independent.map((c) => c.name) },
+      check: 'Say whether the groups were independent or the same units measured twice, and which d was computed; if the groups were independent, recompute d.',
+      related: [{ span: r.span, message: 'the test it belongs to' }],
+      resultId: r.id,
+      block: r.block,
+      uncertain: ['the text does not state the design, and only a paired design gives this d'],
+    };
+  }
   return {
     messageId: 'mismatch',
     span: es.span,

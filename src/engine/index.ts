@@ -82,7 +82,7 @@ export function checkSource(path: string, source: string, options: CheckOptions 
       const unsure = uncertain !== undefined && uncertain.length > 0;
       findings.push({
         ...rest,
-        ...(unsure ? { message: `Not checked with certainty (${uncertain.join('; ')}). If these numbers belong together: ${rest.message}`, uncertain } : {}),
+        ...(unsure ? { message: `Not checked with certainty (${uncertain.join('; ')}). ${rest.message}`, uncertain } : {}),
         ruleId: rule.id,
         level: unsure ? 'note' : (level as Level),
         ...place(f.span),

@@ -251,22 +251,35 @@ function owned<T extends Placed>(report: TTestReport, clause: Clause, clauses: C
   return [];
 }
 
+/** Whether no statistic other than the report's own claims the item by its clause. */
+function notOwnedByAnother(item: Placed, report: TTestReport, clauses: ClauseIndex): boolean {
+  const owner = clauses.ownerOf(item);
+  return owner === undefined || (owner.kind === 't' && owner.clause.test === report);
+}
+
 const PARAGRAPH_SIZES = 16;
 
 function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tables): ResultContext {
   const clause = clauses.clauseOf(report);
   const { link, unlinked } = descriptivesFor(report, clauses, n, t);
 
-  // A result in a table row owns the effect size, interval and estimate of its row.
+  // A result in a table row owns what its own cell prints after it (its clause); failing that,
+  // the effect size, interval and estimate of its row that no other statistic's clause owns
+  // (a row may hold a G² or F result with its own d in another cell).
   const row = report.table ? `${report.table.table}:${report.table.row}` : undefined;
-  const inRow = <T>(items: Map<string, T[]>): Array<Linked<T>> => (row ? (items.get(row) ?? []).map((item) => ({ item, basis: 'table-row', certain: true })) : []);
-  const effectSizes = row ? inRow(t.rows.effectSizes) : owned(report, clause, clauses, n.effectSizes);
+  const inRow = <T extends Placed>(items: Map<string, T[]>, list: SegmentList<T>): Array<Linked<T>> => {
+    if (!row) return [];
+    const own = list.between(report.segment, clause.start, clause.end).filter((i) => i.sentence === report.sentence);
+    if (own.length > 0) return own.map((item) => ({ item, basis: 'clause', certain: true }));
+    return (items.get(row) ?? []).filter((item) => notOwnedByAnother(item, report, clauses)).map((item) => ({ item, basis: 'table-row', certain: true }));
+  };
+  const effectSizes = row ? inRow(t.rows.effectSizes, n.effectSizes) : owned(report, clause, clauses, n.effectSizes);
   const intervals = row
-    ? inRow(t.rows.intervals).map((ci): IntervalLink => ({ ...ci, of: 'estimate' }))
+    ? inRow(t.rows.intervals, n.intervals).map((ci): IntervalLink => ({ ...ci, of: 'estimate' }))
     : owned(report, clause, clauses, n.intervals).map((ci) => intervalTarget(ci, report, clause, n));
   const interval = intervals.find((i) => i.of === 'estimate');
   const leading = clause.leadingEstimate;
-  const estimate: Linked<EstimateReport> | undefined = row ? inRow(t.rows.estimates)[0] : leading ? { item: leading, basis: 'clause', certain: true } : owned(report, clause, clauses, n.estimates)[0];
+  const estimate: Linked<EstimateReport> | undefined = row ? inRow(t.rows.estimates, n.estimates)[0] : leading ? { item: leading, basis: 'clause', certain: true } : owned(report, clause, clauses, n.estimates)[0];
   const sentenceReferences = n.references.inSentence(report.segment, report.sentence);
   const reference = sentenceReferences[0] ?? (clauses.testsInSegment(report.segment) === 1 ? n.references.all(report.segment)[0] : undefined);
   // The sentence's own first; then the paragraph's first few (rules take the first that fits,

@@ -1,3 +1,5 @@
+import { describe, expect, it } from 'vitest';
+import { checkSource } from '../../src/engine/index.js';
 import { ruleTable } from './table.js';
 
 // Numbers below were computed with scipy.stats (Debian python3-scipy) from the printed
@@ -74,6 +76,11 @@ ruleTable('effect-size-follows', [
   { name: 'd_z for a paired test (3.49/√23)', markdown: 'Paired, t(22) = 3.49, p = .002, d = 0.73.', expect: [] },
   { name: 'd with unknown sizes: 2t/√df', markdown: 'x, t(38) = 2.03, p = .049, d = 0.65.', expect: [] },
   { name: 'd far from every definition', markdown: `Seated ${A} and standing ${B}, t(46) = 1.32, p = .19, d = 1.10.`, expect: [{ at: 'd = 1.10', id: 'mismatch' }] },
+  // 2t/√df = 2·1.47/√184 = 0.217 and any split of 186 gives at least that; d_z = 1.47/√185 = 0.108,
+  // and a paired d_av or d_rm is at most 2·d_z (common practice, no source)
+  { name: 'design not stated, a d that only paired data give: a note asking which design', markdown: 'Women scored higher than men, t(184) = 1.47, p = .144, d = 0.013.', expect: [{ at: 'd = 0.013', id: 'fits-only-paired' }] },
+  { name: 'the same d with the design stated as paired is accepted', markdown: 'The same staff were rated twice, t(184) = 1.47, p = .144, d = 0.013.', expect: [] },
+  { name: 'design not stated, a d that independent groups give is accepted', markdown: 'Women scored higher than men, t(184) = 1.47, p = .144, d = 0.22.', expect: [] },
   { name: 'negative d matches in size', markdown: `Standing ${B} and seated ${A}, t(46) = -1.32, p = .19, d = -0.38.`, expect: [] },
 ]);
 
@@ -112,3 +119,12 @@ ruleTable('descriptives-link-is-unambiguous', [
   { name: 'two tests sharing a paragraph of descriptives', markdown: 'Groups: A (M = 40.1, SD = 9.2, n = 20) and B (M = 43.0, SD = 9.9, n = 20). Fatigue differed, t(38) = 0.96, p = .34. Alertness did not, t(38) = 0.51, p = .61.', expect: [{ at: 't(38) = 0.96', id: 'ambiguous-link' }, { at: 't(38) = 0.51', id: 'ambiguous-link' }] },
   { name: 'one test with its two groups', markdown: 'A (M = 40.1, SD = 9.2, n = 20) and B (M = 43.0, SD = 9.9, n = 20), t(38) = 0.96, p = .34.', expect: [] },
 ]);
+
+describe('a d that fits only an unstated paired design is a note, never a warning', () => {
+  it('is a note whose message says what was tried and what the text does not say', () => {
+    const f = checkSource('x.md', 'Women scored higher than men, t(184) = 1.47, p = .144, d = 0.013.\n').findings.filter((x) => x.ruleId === 'effect-size-follows');
+    expect(f.map((x) => x.level)).toEqual(['note']);
+    expect(f[0]?.message).toContain('the text does not state the design');
+    expect(f[0]?.message).toContain('d = 2t/√df: 0.216 to 0.2175');
+  });
+});
