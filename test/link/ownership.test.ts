@@ -43,6 +43,14 @@ describe('each number is tied to its own clause', () => {
     const r = run('Recall fell, t(58) = -2.10, p = .040, d = 0.54, 95% CI [-1.06, -0.02].');
     expect(r.results[0]?.context.intervals?.map((i) => `${i.of}/${i.certain}`)).toEqual(['effect-size/true']);
   });
+  it('in a table row, a t owns the d of its own cell, not the d of another statistic in the next cell', () => {
+    const r = run('| Parameter | Model | Algorithm |\n|---|---|---|\n| C | G²(1) = 6.43, p = .011, d = 0.364 | t(195) = 2.39, p = .018, d = 0.153 |');
+    expect(r.results.map((x) => x.context.effectSizes.map((e) => `${e.printed}/${e.basis}`))).toEqual([['d = 0.153/clause']]);
+  });
+  it('in a table row, a d in a cell of its own belongs to the row’s t', () => {
+    const r = run('| Measure | Test | Effect |\n|---|---|---|\n| Recall | t(40) = 2.50, p = .017 | d = 0.77 |');
+    expect(r.results.map((x) => x.context.effectSizes.map((e) => `${e.printed}/${e.basis}`))).toEqual([['d = 0.77/table-row']]);
+  });
   it('two CIs in one result: the difference and then d', () => {
     // difference 3.1, t(58) = 2.10: SE = 1.476, t_crit(58) = 2.0017, CI 0.15 to 6.05
     const r = run('Recall improved by MD = 3.1, 95% CI [0.15, 6.05], t(58) = 2.10, p = .040, d = 0.54, 95% CI [0.02, 1.06].');
