@@ -279,7 +279,7 @@ function tableTest(tCell: Segment, t: ReportedNumber, df: ReportedNumber | undef
     block: tCell.block,
     sentence: 0,
     span: { start: Math.min(t.span.start, p?.span.start ?? Infinity, df && df.span.start > t.span.start ? df.span.start : Infinity), end: Math.max(last.ends.at(-1) as number, t.span.end) },
-    printed: [tCell.text.trim(), df?.printed, p?.printed].filter(Boolean).join(' | '),
+    printed: tablePrinted(tCell, df, p),
     style: 'table-columns',
     plural: false,
     inCode: false,
@@ -289,6 +289,23 @@ function tableTest(tCell: Segment, t: ReportedNumber, df: ReportedNumber | undef
     ...(p ? { p } : {}),
     table: where,
   };
+}
+
+/**
+ * How a table's result reads in a message: `t(13) = 1.63***` for a bare t cell under a `t(13)`
+ * header, `2.10 | df = 28 | p = .045` for cells in t, df and p columns; what a cell printed is
+ * never repeated (stars read as the p are already in the t cell).
+ */
+function tablePrinted(tCell: Segment, df: ReportedNumber | undefined, p: ReportedP | undefined): string {
+  const text = tCell.text.trim();
+  const inCell = (span: { start: number } | undefined) => span !== undefined && span.start >= (tCell.starts[0] as number) && span.start < (tCell.ends.at(-1) as number);
+  const bare = /^[-+]?(?:\d|\.\d)/.test(text);
+  const dfOutside = df && !inCell(df.span);
+  const head = bare ? `t${dfOutside ? `(${df.printed})` : ''} = ${text}` : text;
+  const parts = [head];
+  if (dfOutside && !bare) parts.push(`df = ${df.printed}`);
+  if (p && !inCell(p.span)) parts.push(/^[<>≤≥=]/.test(p.printed.trim()) ? `p ${p.printed.trim()}` : /^[-+]?(?:\d|\.\d)/.test(p.printed.trim()) ? `p = ${p.printed.trim()}` : p.printed.trim());
+  return parts.join(', ');
 }
 
 function captionDfOf(caption: Segment): ReportedNumber | undefined {
