@@ -1,4 +1,4 @@
-import { fill, type ReportedNumber, type Rule, type RuleFinding, type SampleSize, NO_OPTIONS } from '../src/rule-api/index.js';
+import { fill, groupBy, type ReportedNumber, type Rule, type RuleFinding, type SampleSize, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   'sum-differs': 'Reported {total} and groups of {ns} with it: the groups add up to {sum}, not {n}{why}.',
@@ -57,14 +57,3 @@ export const groupSizesSumToTotal: Rule = {
     return out;
   },
 };
-
-function groupBy<T, K>(items: readonly T[], keyOf: (item: T) => K): Map<K, T[]> {
-  const m = new Map<K, T[]>();
-  for (const it of items) {
-    const k = keyOf(it);
-    const list = m.get(k);
-    if (list) list.push(it);
-    else m.set(k, [it]);
-  }
-  return m;
-}

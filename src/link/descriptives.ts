@@ -414,7 +414,8 @@ function blockGroups(block: TableBlockRecord, t: Tables): GroupSummary[] {
   return out;
 }
 
-function groupBy<T, K>(items: readonly T[], keyOf: (item: T) => K): Map<K, T[]> {
+/** Items by key, each list in the items' order (Map.groupBy arrives only in Node 21). */
+export function groupBy<T, K>(items: readonly T[], keyOf: (item: T) => K): Map<K, T[]> {
   const m = new Map<K, T[]>();
   for (const it of items) {
     const k = keyOf(it);

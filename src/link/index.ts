@@ -4,6 +4,7 @@ import type { DocumentSettings, LinkedDocument, LinkedResult, Setting } from './
 
 export type * from './types.js';
 export type { DescriptiveLink, Design, IntervalLink, IntervalTarget, LinkBasis, Linked, ResultContext } from './descriptives.js';
+export { groupBy } from './descriptives.js';
 import { contextJoiner, spreadStatements } from './descriptives.js';
 
 /** Default alpha when nothing sets one: .05 (common practice, no source). */

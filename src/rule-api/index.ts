@@ -8,3 +8,4 @@ export { describeAttempt, evaluateDescriptives, inferDesign, type Attempt, type 
 export { checklistRule, type ChecklistRuleSpec } from './checklist.js';
 export { documentAnchor } from './docs.js';
 export { descriptiveDoubts, linkDoubts } from './doubts.js';
+export { groupBy } from '../link/index.js';
