@@ -1,5 +1,6 @@
 import type { Segment } from '../parse/types.js';
 import { readNumber, sentenceOf, sourceSpan, trimEndOf } from './numbers.js';
+import { topicStems } from './topic.js';
 import { UNITS } from './units.js';
 import type {
   CountPercent,
@@ -193,6 +194,12 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
         s.percent ||= m[2] !== undefined;
       }
     }
+  }
+
+  // what each group's sentence is about, up to the group (the link layer compares a test's lead with it)
+  if (!seg.table) for (const s of summaries) {
+    const from = sentenceStarts[s.sentence] ?? 0;
+    s.topic = topicStems(text.slice(from, indexOfSource(seg, s.span.end - 1) + 1));
   }
 
   const intervals: IntervalReport[] = [];

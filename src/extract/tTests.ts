@@ -1,5 +1,6 @@
 import type { Segment } from '../parse/types.js';
 import { readNumber, sentenceOf, sourceSpan } from './numbers.js';
+import { leadStart, topicWords } from './topic.js';
 import { comparisonsIn } from './comparisons.js';
 import { decimalsOf, starBound } from './stars.js';
 import type { AdjustMethod, Comparison, ReportedNumber, ReportedP, ReportStyle, Sidedness, TTestReport } from './types.js';
@@ -152,7 +153,10 @@ function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceSta
   const sided = SIDED_NEAR.exec(tailText);
   const before = text.slice(Math.max(0, anchor.start - 60), anchor.start);
   const variant = VARIANT_BEFORE.exec(before);
+  const sentenceStart = sentenceStarts[sentenceOf(sentenceStarts, anchor.start)] as number;
+  const lead = leadStart(text, sentenceStart, anchor.start);
   const report: TTestReport = {
+    ...(lead < anchor.start ? { lead: { start: sourceSpan(seg, lead, anchor.start).start, words: topicWords(text.slice(lead, anchor.start)) } } : {}),
     id: `${seg.id}:${anchor.start}`,
     segment: seg.id,
     block: seg.block,

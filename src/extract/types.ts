@@ -88,6 +88,11 @@ export interface TTestReport {
   namedVariant?: 'welch' | 'student' | 'paired' | 'one-sample' | 'independent';
   /** Printed in a table: its row. */
   table?: TableRow;
+  /**
+   * The test's own lead in prose: from the last clause boundary of its sentence (or the sentence
+   * start) to its statistic, with its content words (src/extract/topic.ts).
+   */
+  lead?: { start: number; words: string[] };
 }
 
 /** A p value in a sentence that names a t-test but gives no t statistic. */
@@ -180,6 +185,8 @@ export interface GroupSummary {
   percent: boolean;
   /** For table rows: which table and row. */
   table?: TableRow;
+  /** Prose: the stems of the content words from its sentence's start to its end (src/extract/topic.ts). */
+  topic?: string[];
 }
 
 /** A sample size printed on its own: `N = 60`, `(n = 30 per group)`, `24 participants`. */

@@ -15,6 +15,7 @@ import type {
   TTestReport,
 } from '../extract/types.js';
 import type { Span } from '../parse/types.js';
+import { stem } from '../extract/topic.js';
 import { clauseIndex, type Clause, type ClauseIndex, type Placed } from './clauses.js';
 import type { Setting } from './types.js';
 
@@ -57,6 +58,8 @@ export interface DescriptiveLink {
   spreadKindSource?: { span: Span; printed: string };
   /** False when another statistic shares the sentence or paragraph, or the table is only beside the result. */
   certain: boolean;
+  /** Why the tie is not certain, when neither of those says it. */
+  doubt?: string;
 }
 
 export interface ResultContext {
@@ -355,7 +358,7 @@ function descriptivesFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t:
   // claim a group's mean and SD)
   const aloneInSentence = clauses.meanTestsInSentence(report.segment, report.sentence) === 1;
   if (inSentence.length > 0) {
-    if (inSentence.length <= 2 && testsInSentence.length === 1) return { link: makeLink('sentence', inSentence, t.spreads, aloneInSentence) };
+    if (inSentence.length <= 2 && testsInSentence.length === 1) return { link: withLeadDoubt(report, makeLink('sentence', inSentence, t.spreads, aloneInSentence)) };
     return { unlinked: { reason: `${inSentence.length} sets of descriptives and ${testsInSentence.length} tests in one sentence`, span: report.span } };
   }
   const paragraphGroups = n.prose.all(report.segment);
@@ -363,7 +366,7 @@ function descriptivesFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t:
   const inParagraph = paragraphGroups.length > 0 && paragraphGroups.length <= 8 ? paragraphGroups.filter((g) => n.tests.inSentence(g.segment, g.sentence).length === 0) : paragraphGroups;
   if (inParagraph.length > 0) {
     const testsInBlock = clauses.testsInSegment(report.segment);
-    if (inParagraph.length <= 2 && testsInBlock === 1) return { link: makeLink('paragraph', inParagraph, t.spreads, clauses.meanTestsInSegment(report.segment) === 1) };
+    if (inParagraph.length <= 2 && testsInBlock === 1) return { link: withLeadDoubt(report, makeLink('paragraph', inParagraph, t.spreads, clauses.meanTestsInSegment(report.segment) === 1)) };
     return { unlinked: { reason: `${inParagraph.length} sets of descriptives and ${testsInBlock} tests in one paragraph`, span: report.span } };
   }
   // "Job satisfaction was higher …, t(57.3) = 4.04" beside a long table: the block of the
@@ -424,6 +427,26 @@ export function groupBy<T, K>(items: readonly T[], keyOf: (item: T) => K): Map<K
     else m.set(k, [it]);
   }
   return m;
+}
+
+/**
+ * Descriptives printed outside the test's own lead (in another sentence, or before a clause
+ * boundary such as ", but" in its sentence) are certainly the test's only when the lead names
+ * nothing their text does not: "At baseline the arms scored 20.1 (…) and 19.8 (…). Over the
+ * twelve weeks the coached arm improved more, t(58) = …" names a time and a change the baseline
+ * sentence does not, so those means may be of something else. A lead in the words of reporting
+ * alone ("The difference was significant, t(58) = …") refers back to them.
+ */
+function withLeadDoubt(report: TTestReport, link: DescriptiveLink): DescriptiveLink {
+  const lead = report.lead;
+  if (!lead || !link.certain || lead.words.length === 0) return link;
+  const outside = link.groups.every((g) => g.sentence !== report.sentence || g.span.end <= lead.start);
+  if (!outside) return link;
+  const known = new Set(link.groups.flatMap((g) => g.topic ?? []));
+  const unknown = lead.words.filter((w) => !known.has(stem(w)));
+  if (unknown.length === 0) return link;
+  const where = link.groups.some((g) => g.sentence !== report.sentence) ? 'another sentence' : 'an earlier clause';
+  return { ...link, certain: false, doubt: `the descriptives are printed in ${where}, and the test's words "${unknown.slice(0, 4).join(' ')}" do not appear there, so they may be of another measure, time or group` };
 }
 
 function makeLink(scope: DescriptiveLink['scope'], groups: GroupSummary[], spreads: SpreadStatements, certain: boolean): DescriptiveLink {

@@ -9,9 +9,10 @@ export function linkDoubts(parts: { descriptives?: DescriptiveLink | undefined; 
   const d = parts.descriptives;
   if (d && !d.certain) {
     out.push(
-      d.scope === 'table'
+      d.doubt ??
+      (d.scope === 'table'
         ? 'the table of descriptives sits beside the test, not in it'
-        : `another statistic is reported in the same ${d.scope} as the descriptives, so they may be its`,
+        : `another statistic is reported in the same ${d.scope} as the descriptives, so they may be its`),
     );
   }
   for (const l of parts.linked ?? []) {

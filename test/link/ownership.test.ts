@@ -89,6 +89,36 @@ describe('each number is tied to its own clause', () => {
   });
 });
 
+describe('descriptives outside the test\'s own lead are certain only when the lead refers back to them', () => {
+  // 24.0 (SD 5.0, n 30) against 23.6 (SD 5.2, n 30) gives Student's t = 0.30 (common practice,
+  // no source: t = (M1 − M2)/(s_p·√(2/n))), far from the printed 2.60
+  const baseline = 'Before the programme the two wards scored 24.0 (SD = 5.0, n = 30) and 23.6 (SD = 5.2, n = 30).';
+  const levels = (r: FileReport) => r.findings.filter((f) => f.ruleId === 't-follows-from-descriptives').map((f) => f.level);
+  it('a following sentence that names its own time and change: the means may be of another time, so only a note', () => {
+    const r = run(`${baseline} By the third month the audited ward reported fewer falls, t(58) = 2.60, p = .012.`);
+    expect(r.results[0]?.context.descriptives?.certain).toBe(false);
+    expect(levels(r)).toEqual(['note']);
+    expect(r.findings[0]?.message).toContain('"third month audited falls"');
+  });
+  it('a following sentence in the words of reporting alone refers back to them: a warning', () => {
+    const r = run(`${baseline} The difference was significant, t(58) = 2.60, p = .012.`);
+    expect(r.results[0]?.context.descriptives?.certain).toBe(true);
+    expect(levels(r)).toEqual(['warning']);
+  });
+  it('descriptives before ", but" in the same sentence, and a lead about another outcome: only a note', () => {
+    const r = run('Staffing levels were alike (M = 24.0, SD = 5.0, n = 30, and M = 23.6, SD = 5.2, n = 30), but falls were rarer on the audited ward, t(58) = 2.60, p = .012.');
+    expect(levels(r)).toEqual(['note']);
+  });
+  it('descriptives before ", but the difference …" stay certain', () => {
+    const r = run('The audited ward scored 24.0 (SD = 5.0, n = 30) and the other ward 23.6 (SD = 5.2, n = 30), but the difference was significant, t(58) = 2.60, p = .012.');
+    expect(levels(r)).toEqual(['warning']);
+  });
+  it('a group described after ", and" inside the test\'s own lead keeps the tie certain', () => {
+    const r = run('The audited ward scored 24.0 (SD = 5.0, n = 30), and the other ward scored 23.6 (SD = 5.2, n = 30), t(58) = 2.60, p = .012.');
+    expect(levels(r)).toEqual(['warning']);
+  });
+});
+
 describe('statements apply only where they are about the analysis', () => {
   it('"one-sided" in other prose is not a statement about the tests', () => {
     const r = run('A literature search may result in a one-sided report of the field.\n\nRecall improved, t(30) = 2.10, p = .022.');
