@@ -62,6 +62,12 @@ ruleTable('paired-correlation-is-possible', [
 ]);
 
 ruleTable('ci-agrees-with-result', [
+  // One sample: M = 1.62, SD = 0.30, n = 30 against 1.5 gives SE = 0.0548, t = 2.19 and, with
+  // t_crit(29) = 2.045 (scipy.stats.t.ppf), the mean's CI 1.51 to 1.73, the difference's 0.01 to 0.23
+  { name: 'one sample: the CI of the mean beside a printed test value is read as the mean\'s', markdown: 'Water intake was above the test value of 1.5 L (M = 1.62, SD = 0.30, n = 30), t(29) = 2.19, p = .037, 95% CI [1.51, 1.73].', expect: [] },
+  { name: 'one sample: the CI of the difference from the test value is accepted too', markdown: 'Water intake was above the test value of 1.5 L (M = 1.62, SD = 0.30, n = 30), t(29) = 2.19, p = .037, 95% CI [0.01, 0.23].', expect: [] },
+  { name: 'one sample: a CI centred on the mean but twice as wide as t allows is reported as too wide', markdown: 'Water intake was above the test value of 1.5 L (M = 1.62, SD = 0.30, n = 30), t(29) = 2.19, p = .037, 95% CI [1.41, 1.83].', expect: [{ at: '95% CI', id: 'width-vs-t' }] },
+  { name: 'possibly one sample, no test value printed: a CI far from zero is only a note', markdown: 'Water intake averaged 1.62 L, 95% CI [1.51, 1.73], t(29) = 2.19, p = .037.', expect: [{ at: '95% CI', id: 'width-vs-t' }] },
   { name: 'CI that fits t (SE from the CI gives 2.94)', markdown: 'difference = 3.8, 95% CI [1.2, 6.4], t(46) = 2.94, p = .005.', expect: [] },
   { name: 'CI with the normal critical value (Wald)', markdown: 'b = 0.62, t(3.187) = 2.89, p = .058, 95% CI [0.20, 1.03]', expect: [] },
   { name: 'a group CI right after its mean is not the test CI', markdown: 'Money (M = 251.73, SD = 148.89, 95% CI [198.05, 305.41]) versus buttons (M = 150.11, SD = 116.19), t(66) = 3.15, p = .002.', expect: [] },
@@ -126,5 +132,17 @@ describe('a d that fits only an unstated paired design is a note, never a warnin
     expect(f.map((x) => x.level)).toEqual(['note']);
     expect(f[0]?.message).toContain('the text does not state the design');
     expect(f[0]?.message).toContain('d = 2t/√df: 0.216 to 0.2175');
+  });
+});
+
+describe('an interval that may be a one-sample mean\'s, with no test value printed, is never more than a note', () => {
+  it('says why it could not be read with certainty', () => {
+    const f = checkSource('x.md', 'Water intake averaged 1.62 L, 95% CI [1.51, 1.73], t(29) = 2.19, p = .037.\n').findings.filter((x) => x.ruleId === 'ci-agrees-with-result');
+    expect(f.map((x) => x.level)).toEqual(['note']);
+    expect(f[0]?.message).toContain('no test value is printed');
+  });
+  it('with the design stated as two independent groups the same interval is a warning', () => {
+    const f = checkSource('x.md', 'The two randomised groups differed in water intake, 95% CI [1.51, 1.73], t(29) = 2.19, p = .037.\n').findings.filter((x) => x.ruleId === 'ci-agrees-with-result');
+    expect(f.map((x) => x.level)).toEqual(['warning']);
   });
 });
