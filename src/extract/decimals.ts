@@ -11,6 +11,8 @@ export type DecimalConvention = 'point' | 'comma';
 const COMMA_VALUE = /(?<=[=<>≤≥±:] ?[-+]? ?)(\d{1,6}),(\d{1,6})(?![\d,])/g;
 /** A number written with a point in a value position (`= 2.10`, `< .05`). */
 const POINT_VALUE = /[=<>≤≥±:] ?[-+]? ?\d{0,6}\.\d/g;
+/** Digits grouped in thousands by points, right before a decimal comma (`1.267,7`, `12.345.678,9`). */
+const THOUSANDS_POINTS = /(?<![\d.,])\d{1,3}(?:\.\d{3}){1,4}(?=,\d)/g;
 /** Any digits-comma-digits run (a list of three or more numbers is skipped by the caller). */
 const COMMA_NUMBER = /(\d{1,6}),(\d{1,6})(?![\d])/g;
 
@@ -60,6 +62,12 @@ export function withDecimalPoints(seg: Segment, convention: DecimalConvention): 
       if (isDecimalComma(m[1] as string, m[2] as string)) rewrite(m.index + (m[1] as string).length);
     }
   } else {
+    // `1.267,7`: points that group thousands before a decimal comma become commas, which every
+    // reader takes as thousands separators (`1,267.7` once the decimal comma is a point)
+    if (text.includes('.')) for (const m of text.matchAll(THOUSANDS_POINTS)) {
+      for (let i = m.index; i < m.index + m[0].length; i += 1) if (text[i] === '.') chars[i] = ',';
+      changed = true;
+    }
     for (const m of text.matchAll(COMMA_NUMBER)) {
       const comma = m.index + (m[1] as string).length;
       if (inList(text, m.index, comma + 1 + (m[2] as string).length) || afterStatisticBracket(text, m.index)) continue;

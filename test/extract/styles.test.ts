@@ -123,3 +123,17 @@ describe('adjusted p values are recognised and labelled, not compared with t', (
     expect(report.findings.filter((f) => f.level !== 'note')).toEqual([]);
   });
 });
+
+describe('a decimal-comma document that groups thousands with points', () => {
+  // (1267.7 − 1081.8)/√(201.0²/30 + 139.3²/30) = 4.16 (common practice, no source: Welch's and,
+  // with equal n, Student's t)
+  const markdown = 'Energy intake was higher with the large plates (M = 1.267,7 kcal; SD = 201,0; n = 30) than with the small ones (M = 1.081,8 kcal; SD = 139,3; n = 30); t(58) = 4,16; p < 0,001.\n';
+  it('reads 1.267,7 as 1267.7, so the means give the printed t and nothing is flagged', () => {
+    const r = checkSource('x.md', markdown);
+    expect(r.results[0]?.context.descriptives?.groups.map((g) => g.printed)).toEqual(['M = 1,267.7 kcal; SD = 201.0; n = 30', 'M = 1,081.8 kcal; SD = 139.3; n = 30']);
+    expect(r.findings).toEqual([]);
+  });
+  it('a point before a comma that is not a thousands group is left alone (t(58) = 4,16 stays 4.16)', () => {
+    expect(checkSource('x.md', markdown).results[0]?.t.value).toBe(4.16);
+  });
+});
