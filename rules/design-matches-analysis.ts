@@ -80,9 +80,9 @@ function unitsPerCondition(result: LinkedResult): { n: number; source: string; d
   if (perGroup) return { n: perGroup.n.value, source: perGroup.printed, doubts: {} };
   const r = result.report;
   // the units counted in the result's own sentence, else in its paragraph: one number only
-  const own = sizes.filter((s) => s.segment === r.segment && s.sentence === r.sentence && s.scope !== 'per-group');
+  const own = sizes.filter((s) => s.segment === r.segment && s.sentence === r.sentence && s.scope !== 'per-group' && s.scope !== 'subset');
   // the paragraph's count is the result's only when the paragraph reports no other test
-  const near = own.length > 0 ? own : result.context.testsInParagraph === 1 ? sizes.filter((s) => s.segment === r.segment && s.scope !== 'per-group') : [];
+  const near = own.length > 0 ? own : result.context.testsInParagraph === 1 ? sizes.filter((s) => s.segment === r.segment && s.scope !== 'per-group' && s.scope !== 'subset') : [];
   const values = new Set(near.map((s) => s.n.value));
   const only = near[0];
   if (!only || values.size !== 1) return undefined;

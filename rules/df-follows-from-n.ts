@@ -108,7 +108,7 @@ function unitsInSentence(result: LinkedResult): { n: number; span: { start: numb
   const d = result.context.design;
   if ((d.value !== 'paired' && d.value !== 'one-sample') || d.basis === 'default' || d.basis === 'structure') return undefined;
   const r = result.report;
-  const own = result.context.sampleSizes.filter((s) => s.segment === r.segment && s.sentence === r.sentence && s.scope !== 'per-group');
+  const own = result.context.sampleSizes.filter((s) => s.segment === r.segment && s.sentence === r.sentence && s.scope !== 'per-group' && s.scope !== 'subset');
   const first = own[0];
   return first && own.every((s) => s.n.value === first.n.value) ? { n: first.n.value, span: first.span } : undefined;
 }

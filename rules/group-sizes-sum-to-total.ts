@@ -4,6 +4,18 @@ const messages = {
   'sum-differs': 'Reported {total} and groups of {ns} with it: the groups add up to {sum}, not {n}{why}.',
 };
 
+/** Whether two or more of the sizes (at most 16 are tried) add up to the total exactly. */
+function someAddUpTo(sizes: number[], total: number): boolean {
+  const k = Math.min(sizes.length, 16);
+  for (let mask = 0; mask < 1 << k; mask++) {
+    let count = 0;
+    let sum = 0;
+    for (let i = 0; i < k; i++) if (mask & (1 << i)) { count++; sum += sizes[i] as number; }
+    if (count >= 2 && sum === total) return true;
+  }
+  return false;
+}
+
 /** Group sizes stated with a total add up to it. */
 export const groupSizesSumToTotal: Rule = {
   id: 'group-sizes-sum-to-total',
@@ -31,12 +43,19 @@ export const groupSizesSumToTotal: Rule = {
       byStart.delete(total.n.span.start);
       return [...byStart.values()];
     };
+    const perGroupSentences = new Set(x.sampleSizes.filter((s) => s.scope === 'per-group').map((s) => key(s.segment, s.sentence)));
     for (const total of totals) {
+      // A size stated for each group ("n = 32 to each arm") says how the total splits; the other
+      // sizes of that sentence are parts of the groups, not the groups.
+      if (perGroupSentences.has(key(total.segment, total.sentence))) continue;
       // Only groups printed in the total's own sentence are certainly its parts.
       const groups = groupsOf(total.segment, total.sentence, total);
       if (groups.length < 2) continue;
       const sum = groups.reduce((s, n) => s + n.value, 0);
       if (sum === total.n.value) continue;
+      // More sizes than groups ("n = 30 in each of two arms …; n = 14 of the gardeners …"):
+      // when some of them add up to the total, the rest may be parts of those groups.
+      if (groups.length > 2 && someAddUpTo(groups.map((n) => n.value), total.n.value)) continue;
       // "14 participants were assigned to A (N = 14, …)": a number of people equal to a group's
       // n is that group's size, not a total; and where the sentence states the total the
       // groups add up to, the other counts are parts of it.

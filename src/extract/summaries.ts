@@ -27,9 +27,12 @@ const SD = new RegExp(String.raw`${START}\{?(?:SD|sd|s\.d\.|S\.D\.|Std\.? ?Dev\.
 const SE = new RegExp(String.raw`${START}\{?(?:SEM|SE|s\.e\.m\.|s\.e\.|S\.E\.|[Ss]tandard error(?: of the mean)?)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
 /** The sizes of two groups printed together: `n = 25 and 23`, `ns = 24 and 23`, `in 26 and 28 employees`, `n = 25 vs 23`. */
 const N_PAIR = new RegExp(String.raw`${START}(?:[nN]s?|sample sizes?) ?(?:=|:|of) ?${INT} ?(?:and|vs\.?|versus|,) ?${INT}(?![\d.,])|(?<![\p{L}\p{N}.,])in ${INT} and ${INT} ${UNITS}(?![\p{L}])`, 'dgu');
-const N = new RegExp(String.raw`${START}(?:(n|N)(?:_\{[^{}\n]{1,20}\}|_?[0-9]|_[\p{L}]{1,20})?|[Ss]ample size) ?(?:=|:) ?${INT}(?: (per group|in each group|each|per condition|per arm))?(?!\d|\.\d)`, 'dgu');
-const PER_GROUP_AFTER = /^,? (?:each|per (?:group|arm|condition|class|site)|in each (?:group|arm|condition))(?![\p{L}])/u;
+const N = new RegExp(String.raw`${START}(?:(n|N)(?:_\{[^{}\n]{1,20}\}|_?[0-9]|_[\p{L}]{1,20})?|[Ss]ample size) ?(?:=|:) ?${INT}(?: (per (?:group|condition|arm|cell|site|class)|(?:in|to|for|into) each (?:group|condition|arm|cell|site|class)|each))?(?!\d|\.\d)`, 'dgu');
+const PER_GROUP_AFTER = /^,? (?:each|per (?:group|arm|condition|cell|class|site)|(?:in|to|for|into) each (?:group|arm|condition|cell|class|site))(?![\p{L}])/u;
 const PER_GROUP_BEFORE = /(?<![\p{L}])(?:groups|arms) of $/u;
+/** `n = 4 of whom`, `n = 6 of them`: a part of some group, not a group of the total. (`n = 21 of the
+ *  garden group` is left open: it may be the group itself or a part of it.) */
+const SUBSET_AFTER = /^,? (?:of|among) (?:whom|them|those|these|each|both)(?![\p{L}])/u;
 /** A bare number (and %) up to 20 characters before the `(` of a lone spread: its mean. */
 const BARE_MEAN = /(?<![\p{L}\p{N}.,])([-+]?\d{1,9}(?:\.\d{1,9})?)( ?%)?[^\d()]{0,20}\($/u;
 /** A decimal number, then only words (its unit and a short phrase), before the `(` of a lone spread. */
@@ -156,7 +159,9 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     const perGroup = m[3] !== undefined;
     const capital = m[1] === 'N';
     push({ kind: 'n', start: m.index, end: m.index + m[0].length, a, percent: false, perGroup });
-    sampleSizes.push({ ...where(m.index, m.index + m[0].length), n: a, scope: perGroup ? 'per-group' : capital ? 'total' : 'unspecified' });
+    const end = m.index + m[0].length;
+    const subset = !perGroup && SUBSET_AFTER.test(text.slice(end, end + 16));
+    sampleSizes.push({ ...where(m.index, end), n: a, scope: perGroup ? 'per-group' : subset ? 'subset' : capital ? 'total' : 'unspecified' });
   }
   const groupSizes: GroupSizes[] = [];
   if (/ and | vs|versus|, /.test(text)) for (const m of text.matchAll(N_PAIR)) {

@@ -195,7 +195,8 @@ export interface SampleSize {
   block: number;
   sentence: number;
   n: ReportedNumber;
-  scope: 'total' | 'per-group' | 'unspecified';
+  /** `subset`: a part of some group (`n = 12 of the choir arm`), never a group of a total. */
+  scope: 'total' | 'per-group' | 'subset' | 'unspecified';
   span: Span;
   printed: string;
 }
