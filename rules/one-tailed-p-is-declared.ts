@@ -7,6 +7,8 @@ const messages = {
     'Reported {reported}. It matches the one-tailed p against the direction of t from {inputs} ({oneTailedOpposite}), as an equivalence or non-inferiority test reports it, not the two-tailed p ({twoTailed}), and nothing beside it says the test was one-tailed.',
   'one-tailed-stated-elsewhere':
     'Reported {reported}. It matches the one-tailed p from {inputs} ({oneTailed}), not the two-tailed p ({twoTailed}). The text speaks of a one-tailed analysis elsewhere ("{elsewhere}"), but not in the sentence or paragraph of this result, nor of every test, so plumbline could not tie the two.',
+  'one-tailed-power-calculation':
+    'Reported {reported}. It matches the one-tailed p from {inputs} ({oneTailed}), not the two-tailed p ({twoTailed}). The text sizes the study with a one-tailed power calculation ("{elsewhere}"), which does not say that the test itself was one-tailed.',
   'undeclared-one-tailed-changes-significance':
     'Reported {reported}. It matches the one-tailed p from {inputs} ({oneTailed}), not the two-tailed p ({twoTailed}), and nothing in the text says the test was one-tailed; two-tailed, the result would be {recomputedSide} at alpha {alpha}.',
 };
@@ -28,12 +30,12 @@ export const oneTailedPIsDeclared: Rule = {
       const elsewhere = result.untiedSidedness;
       const id = e.standing === 'one-tailed-opposite-only'
         ? 'undeclared-one-tailed-opposite'
-        : elsewhere ? 'one-tailed-stated-elsewhere' : e.decisionFlips ? 'undeclared-one-tailed-changes-significance' : 'undeclared-one-tailed';
+        : elsewhere?.planning ? 'one-tailed-power-calculation' : elsewhere ? 'one-tailed-stated-elsewhere' : e.decisionFlips ? 'undeclared-one-tailed-changes-significance' : 'undeclared-one-tailed';
       out.push({
         messageId: id,
         span: result.report.span,
         message: fill(messages[id], { ...pPlaceholders(result, e), elsewhere: elsewhere?.printed ?? '' }),
-        ...(elsewhere ? { related: [{ span: elsewhere.span, message: 'the words about one-tailed tests' }] } : {}),
+        ...(elsewhere ? { related: [{ span: elsewhere.span, message: elsewhere.planning ? 'the one-tailed power calculation' : 'the words about one-tailed tests' }] } : {}),
         reported: result.report.printed,
         recomputed: e.recomputed,
         gap: e.gap,

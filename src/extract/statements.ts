@@ -29,6 +29,8 @@ const ANALYSIS_WORD = /(?<![\p{L}])(?:tests?|t-tests?|testing|tested|p|P|p[- ]va
 const GENERAL_WORDS = /(?<![\p{L}])(?:all|every|each|throughout|unless|tests|t-tests|p[- ]values|analyses|comparisons|hypotheses|contrasts|statistical significance|significance (?:was|is|level|threshold|criterion)|level of significance|alpha (?:level|was|of|=)|α ?(?:=|was|of|level))(?![\p{L}])/iu;
 /** Words that make an alpha local: a corrected or adjusted alpha, or the alpha of a power calculation. */
 const LOCAL_ALPHA = /(?<![\p{L}])(?:corrected|adjusted|Bonferroni|Holm|Šidák|Sidak|per comparison|for (?:this|these|each|the (?:primary|secondary))|family-?wise|power|detect|sample size)(?![\p{L}])/iu;
+/** Words of a power or sample-size calculation: its tails and alpha size the study, they do not say how its tests were run. */
+const PLANNING = /(?<![\p{L}])(?:power(?:ed)?|to detect|sample size|sample-size|G\*Power|minimum (?:detectable|effect))(?![\p{L}])/iu;
 
 /** A correction for multiple comparisons named in a sentence. */
 const CORRECTION = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidak|Hochberg|Benjamini|false discovery rate|FDR|Tukey)(?![\p{L}])/iu;
@@ -50,7 +52,9 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     const one = word === 'one' || word === '1' || word === 'single' || word === 'directional';
     const near = text.slice(Math.max(0, m.index - 40), Math.min(text.length, m.index + m[0].length + 30));
     if (!ANALYSIS_WORD.test(near)) continue;
-    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: GENERAL_WORDS.test(sentenceText(m.index)), ...base(m.index, m.index + m[0].length) });
+    const sentence = sentenceText(m.index);
+    const planning = PLANNING.test(sentence);
+    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: !planning && GENERAL_WORDS.test(sentence), ...(planning ? { planning } : {}), ...base(m.index, m.index + m[0].length) });
   }
   if (/equivalen|TOST|one-sided|inferiority/i.test(text)) for (const m of text.matchAll(EQUIVALENCE)) {
     out.push({ kind: 'equivalence', sidedness: 'one', ...base(m.index, m.index + m[0].length) });
@@ -79,7 +83,8 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     for (const m of text.matchAll(re)) {
       const value = Number(m[1] ?? m[2]);
       const sentence = sentenceText(m.index);
-      if (value > 0 && value < 0.5) out.push({ kind: 'alpha', alpha: value, general: GENERAL_WORDS.test(sentence) && !LOCAL_ALPHA.test(sentence), ...base(m.index, m.index + m[0].length) });
+      const planning = PLANNING.test(sentence);
+      if (value > 0 && value < 0.5) out.push({ kind: 'alpha', alpha: value, general: GENERAL_WORDS.test(sentence) && !LOCAL_ALPHA.test(sentence), ...(planning ? { planning } : {}), ...base(m.index, m.index + m[0].length) });
     }
   }
   return out;

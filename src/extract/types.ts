@@ -43,6 +43,11 @@ export interface ContextStatement {
   spread?: 'SD' | 'SE';
   /** For `sidedness` and `alpha`: said of every test ("All tests were two-tailed"), not of one. */
   general?: boolean;
+  /**
+   * For `sidedness` and `alpha`: said in a sentence that plans the study (a power or sample-size
+   * calculation), which fixes how the study was sized, not how its tests were run.
+   */
+  planning?: boolean;
   /** For `multiplicity`: the correction named, and the number of comparisons when printed. */
   method?: AdjustMethod;
   comparisons?: number;

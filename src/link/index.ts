@@ -14,7 +14,8 @@ export const DEFAULT_ALPHA = 0.05;
  * Gives every reported t-test its tails and alpha, from the most specific place that says so
  * about the analysis: the report itself (`p = .03, one-tailed`), its sentence (the nearest
  * test takes the words), an equivalence test named in its sentence or the one before (either
- * reading then fits), a sentence of its paragraph that reports no test, a statement about
+ * reading then fits), a sentence of its paragraph that reports no test and plans no study (the
+ * tails and alpha of a power calculation size the study; they are untied), a statement about
  * every test of the document ("All tests were two-tailed"), front matter, configuration, and
  * last the default (two-tailed, alpha .05). A statement about one test elsewhere in the
  * document cannot be tied to a result and is not used (it is kept as `untied` so a note can
@@ -48,7 +49,8 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     let list = paragraphStatements.get(segment);
     if (!list) {
       const withTests = new Set((testsBySegment.get(segment) ?? []).map((t) => t.sentence));
-      list = (statementsBySegment.get(segment) ?? []).filter((s) => !withTests.has(s.sentence));
+      // A power or sample-size calculation's tails and alpha size the study; they are not the tests'.
+      list = (statementsBySegment.get(segment) ?? []).filter((s) => !withTests.has(s.sentence) && !s.planning);
       paragraphStatements.set(segment, list);
     }
     return list;
@@ -76,7 +78,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     const sentence = bySentence.get(k) ?? [];
     const previous = bySentence.get(`${report.segment}:${report.sentence - 1}`) ?? [];
     const sidedness = sidednessFor(report, sentence, previous, paragraphOf(report.segment), testsBySentence.get(k) ?? [], documentSidedness);
-    const elsewhere = sidedness.basis === 'default' ? untied.find((s) => s.sidedness === 'one' && s.segment !== report.segment) : undefined;
+    const elsewhere = sidedness.basis === 'default' ? untied.find((s) => s.sidedness === 'one' && (s.segment !== report.segment || s.planning === true)) : undefined;
     return {
       report,
       sidedness,

@@ -145,6 +145,22 @@ describe('statements apply only where they are about the analysis', () => {
     const r = run('A sample of 5 per group gives 90% power for d = 2.0 (two-sided α = .01).\n\nRecall rose, t(8) = 2.50, p = .037.');
     expect(r.results[0]?.alpha).toMatchObject({ value: 0.05, basis: 'default' });
   });
+  it('the tails of a power calculation are not the tails of the tests, in the paragraph or the document', () => {
+    // t(46) = 2.10: two-tailed p = .041, one-tailed .021 (scipy.stats.t.sf(2.10, 46) = 0.0206)
+    for (const text of [
+      'Twenty-four per arm gave 80% power to detect d = 0.7 with a one-tailed α of .05.\n\nRecall improved, t(46) = 2.10, p = .041.',
+      'Twenty-four per arm gave 80% power to detect d = 0.7 with a one-tailed α of .05. Recall improved, t(46) = 2.10, p = .041.',
+    ]) {
+      const r = run(text);
+      expect(r.results[0]?.sidedness).toMatchObject({ value: 'two', basis: 'default' });
+      expect(warnings(r)).toEqual([]);
+    }
+  });
+  it('a p that only a one-tailed test gives, beside a one-tailed power calculation, gets a note naming the calculation', () => {
+    const r = run('Twenty-four per arm gave 80% power to detect d = 0.7 with a one-tailed α of .05. Recall improved, t(46) = 2.10, p = .021.');
+    expect(warnings(r)).toEqual([]);
+    expect(r.findings.map((f) => `${f.ruleId}/${f.messageId}`)).toContain('one-tailed-p-is-declared/one-tailed-power-calculation');
+  });
   it('a tails word in a result sentence does not make a statement about every test', () => {
     const r = run('Planned comparisons showed a rise (t(48) = 7.66, p < .0001, one-tailed).\n\nRecall improved, t(30) = 2.10, p = .045.');
     expect(r.results[1]?.sidedness.basis).toBe('default');
