@@ -7,6 +7,7 @@ import type { DocumentSettings, Linked, ResultContext, Setting } from '../link/i
 import { formatForPath, LineIndex, mayHoldStatistics, parseDocument } from '../parse/index.js';
 import type { ParsedDocument, ReadNote, Span } from '../parse/types.js';
 import { evaluateP } from '../rule-api/evaluate.js';
+import { linkDoubts } from '../rule-api/doubts.js';
 import type { Guideline, Level, LevelSetting } from '../rule-api/types.js';
 import { RULE_IDS, RULES } from './registry.js';
 import type { ChecklistRecord, FileReport, Finding, NumberRecord, Place, ResultRecord } from './types.js';
@@ -127,7 +128,8 @@ export function checkSource(path: string, source: string, options: CheckOptions 
 
 function contextRecord(c: ResultContext, place: (s: Span) => Place): ResultRecord['context'] {
   const item = (x: { span: Span; printed: string }) => ({ printed: x.printed, ...place(x.span) });
-  const linked = (x: Linked<{ span: Span; printed: string }>) => ({ ...item(x.item), basis: x.basis, certain: x.certain });
+  // An uncertain tie says why, in the words a note resting on it would use.
+  const linked = (x: Linked<{ span: Span; printed: string }>) => ({ ...item(x.item), basis: x.basis, certain: x.certain, ...(x.certain ? {} : { doubt: linkDoubts({ linked: [x] })[0] ?? '' }) });
   const d = c.descriptives;
   return {
     design: c.design,
@@ -136,6 +138,7 @@ function contextRecord(c: ResultContext, place: (s: Span) => Place): ResultRecor
           descriptives: {
             scope: d.scope,
             certain: d.certain,
+            ...(d.certain ? {} : { doubt: linkDoubts({ descriptives: d })[0] ?? '' }),
             groups: d.groups.map((g, i) => ({ ...item(g), ...(g.label ? { label: g.label } : {}), spreadKind: d.spreadKinds[i] ?? 'unstated' })),
           },
         }

@@ -22,6 +22,8 @@ export interface LinkedRecord extends Place {
   printed: string;
   basis: LinkBasis;
   certain: boolean;
+  /** Why the tie is not certain, when it is not. */
+  doubt?: string;
 }
 
 /** One extracted result as the output formats show it. */
@@ -54,6 +56,8 @@ export interface ResultRecord extends Place {
       scope: 'sentence' | 'paragraph' | 'table';
       /** Whether the tie is certain enough to warn on (no other statistic shares its sentence or paragraph). */
       certain: boolean;
+      /** Why the tie is not certain, when it is not. */
+      doubt?: string;
       groups: Array<Place & { printed: string; label?: string; spreadKind: string }>;
     };
     /** Why descriptives nearby were not joined (never a silent guess). */

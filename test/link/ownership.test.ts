@@ -32,6 +32,8 @@ describe('each number is tied to its own clause', () => {
     // difference 72.4 − 64.9 = 7.5, t(60) = 2.42: SE = 3.099, t_crit(60) = 2.0003, CI 1.30 to 13.70
     const ok = run('The poster group scored higher (M = 72.4, SD = 11.8, n = 32) than the prompt group (M = 64.9, SD = 12.6, n = 30), t(60) = 2.42, p = .019, d = 0.62, 95% CI [1.30, 13.70].');
     expect(ok.results[0]?.context.intervals?.map((i) => `${i.of}/${i.certain}`)).toEqual(['estimate/false']);
+    // the JSON keeps the reason beside the uncertain tie
+    expect(ok.results[0]?.context.intervals?.[0]?.doubt).toContain('it follows d = 0.62, which it cannot hold');
     expect(ok.findings.filter((f) => f.ruleId === 'ci-agrees-with-result')).toEqual([]);
     // the same interval moved off the difference: a note that says why it is not certain
     const off = run('The poster group scored higher (M = 72.4, SD = 11.8, n = 32) than the prompt group (M = 64.9, SD = 12.6, n = 30), t(60) = 2.42, p = .019, d = 0.62, 95% CI [3.30, 15.70].');
@@ -42,6 +44,7 @@ describe('each number is tied to its own clause', () => {
   it('a CI after d that holds d (either sign) stays the CI of d', () => {
     const r = run('Recall fell, t(58) = -2.10, p = .040, d = 0.54, 95% CI [-1.06, -0.02].');
     expect(r.results[0]?.context.intervals?.map((i) => `${i.of}/${i.certain}`)).toEqual(['effect-size/true']);
+    expect(r.results[0]?.context.intervals?.[0]).not.toHaveProperty('doubt');
   });
   it('in a table row, a t owns the d of its own cell, not the d of another statistic in the next cell', () => {
     const r = run('| Parameter | Model | Algorithm |\n|---|---|---|\n| C | G²(1) = 6.43, p = .011, d = 0.364 | t(195) = 2.39, p = .018, d = 0.153 |');
@@ -97,6 +100,7 @@ describe('descriptives outside the test\'s own lead are certain only when the le
   it('a following sentence that names its own time and change: the means may be of another time, so only a note', () => {
     const r = run(`${baseline} By the third month the audited ward reported fewer falls, t(58) = 2.60, p = .012.`);
     expect(r.results[0]?.context.descriptives?.certain).toBe(false);
+    expect(r.results[0]?.context.descriptives?.doubt).toContain('"third month audited falls"');
     expect(levels(r)).toEqual(['note']);
     expect(r.findings[0]?.message).toContain('"third month audited falls"');
   });
