@@ -16,13 +16,15 @@ const SUM_OF_ITEMS = new RegExp(String.raw`(?<![\p{L}])(?:sum|total) of (?:the )
 const K_ITEM = /(?<![\p{L}\p{N}])(\d{1,3})-item (?:scale|measure|questionnaire|inventory|index|test)(?![\p{L}])/iu;
 // Several patterns rather than one alternation: each is judged linear by recheck on its own.
 const INTEGER_WORDS = /(?<![\p{L}])(?:single[- ]item|a single item|one item|single rating|integers?|integer[- ]valued|whole[- ]numbers?|whole[- ]number counts?|whole points)(?![\p{L}])/iu;
+/** "rated on a single five-point item", "one 7-point Likert item": one item, whatever its points. */
+const ONE_ITEM = /(?<![\p{L}])(?:a single|single|one) (?:[\p{L}\p{N}]{1,12}-point |[\p{L}\p{N}]{1,12}-level )?(?:Likert[- ]|rating |response )?item(?![\p{L}])/iu;
 const COUNT_OF = /(?<![\p{L}])counts? of \p{L}{3,30}/iu;
 const RECORDED_AS_COUNT = /(?<![\p{L}])(?:recorded|counted|tallied|logged|coded) as (?:the )?(?:number|count)s? of(?![\p{L}])/iu;
 const NUMBER_RECORDED = /(?<![\p{L}])number of \p{L}{3,30} (?:was|were) (?:recorded|counted|tallied|logged|coded)(?![\p{L}])/iu;
 
 /** The first words of a sentence that declare whole-number scores, if any. */
 function integerWords(text: string): RegExpExecArray | null {
-  return INTEGER_WORDS.exec(text) ?? COUNT_OF.exec(text) ?? RECORDED_AS_COUNT.exec(text) ?? NUMBER_RECORDED.exec(text);
+  return INTEGER_WORDS.exec(text) ?? ONE_ITEM.exec(text) ?? COUNT_OF.exec(text) ?? RECORDED_AS_COUNT.exec(text) ?? NUMBER_RECORDED.exec(text);
 }
 /** What a count counts: "the number of errors", "number of Lenses and keywords saved". */
 const COUNTED_THING = /(?<![\p{L}])(?:number|counts?) of (\p{L}{3,30})(?: and (\p{L}{3,30}))?/iu;
@@ -53,6 +55,13 @@ const FOR_MEASURE = /^For ((?:[\p{L}'’-]{1,30} ){0,3}[\p{L}'’-]{2,30}), /u;
 const HEAD_END = / (?:per|of|in|at|on|for|during|from|with|across|after|before|by) /u;
 const SAMPLE_SIZE_DEFINITION = /(?<![\p{L}])(?:n|N|sample size) (?:is|was|=|denotes|indicates|gives|refers to) the (?:number|count) of/u;
 const DETERMINERS = new Set(['the', 'a', 'an', 'each', 'every', 'our', 'their', 'its', 'this', 'these', 'that', 'all']);
+/** A possessive before the head ("each worker's breaks"): whose, not what, so not part of the name. */
+const POSSESSIVE = /^\p{L}[\p{L}-]*['’]s?$/u;
+/**
+ * Heads that name no measure by themselves ("each child's score"): with the possessive dropped
+ * they would tie the declaration to every score of the document.
+ */
+const GENERIC_HEAD = /^(?:score|rating|value|outcome|response|result|total|answer|mark|number|count|reading)$/u;
 
 /**
  * Measures the text declares whole-number, one record per declaring sentence, with the
@@ -109,10 +118,12 @@ function measureNames(sentence: string): string[] {
   // "For breaks taken, each driver contributed a count …": the measure is named first
   const subject = FOR_MEASURE.exec(sentence.trimStart())?.[1] ?? SUBJECT.exec(sentence.trimStart())?.[1];
   if (!subject) return [];
-  const words = subject.toLowerCase().split(HEAD_END)[0]?.split(' ').filter((w) => !DETERMINERS.has(w)) ?? [];
+  const all = subject.toLowerCase().split(HEAD_END)[0]?.split(' ').filter((w) => !DETERMINERS.has(w)) ?? [];
+  const words = all.filter((w) => !POSSESSIVE.test(w));
   if (words.length === 0 || words.length > 3) return [];
   const last = words.length - 1;
   const phrase = words.map((w, i) => (i === last ? singular(w) : w)).join(' ');
+  if (words.length < all.length && words.length === 1 && GENERIC_HEAD.test(phrase)) return [];
   return NOT_A_COUNTED_MEASURE.test(phrase) ? [] : [phrase];
 }
 

@@ -52,6 +52,8 @@ ruleTable('design-matches-analysis', [
   { name: 'crossover analysed as paired', markdown: 'In this crossover, seated weeks (M = 45.0, SD = 10.1, n = 24) and standing weeks (M = 41.2, SD = 9.8, n = 24) gave t(23) = 3.10, p = .005.', expect: [] },
   { name: 'randomised groups analysed with n − 1', markdown: `Staff randomised to seated ${A} or standing ${B} desks gave t(23) = 1.32, p = .20.`, expect: [{ at: 't(23)', id: 'independent-analysed-as-paired' }] },
   { name: 'no design words: nothing assumed', markdown: `Seated ${A} and standing ${B}, t(23) = 1.32, p = .20.`, expect: [] },
+  { name: 'the same units "measured again", analysed with 2n − 2', markdown: 'The 24 nurses were measured again in the last week. Heart rate fell from 78.2 (SD = 6.1) to 74.0 (SD = 6.4), t(46) = 2.12, p = .039.', expect: [{ at: 't(46)', id: 'paired-analysed-as-independent' }] },
+  { name: '"measured again if …" is a procedure, not a design', markdown: 'Blood pressure was measured again if the first reading was high. The two wards (n = 24 each) differed, t(46) = 2.12, p = .039.', expect: [] },
 ]);
 
 ruleTable('paired-correlation-is-possible', [
@@ -99,6 +101,9 @@ ruleTable('mean-is-possible-for-integers', [
   { name: 'configuration declares whole-number data', markdown: 'Comfort (M = 3.48, SD = 1.47, n = 19).', options: { config: { integerItems: 1 } }, expect: [{ at: '3.48', id: 'grim-mean' }] },
   { name: 'not applied to continuous measures', markdown: 'Speed in m/s (M = 3.48, SD = 1.47, n = 19).', expect: [] },
   { name: 'not applied to percentages', markdown: 'The number of correct trials was M = 33.88% (SD = 31%, n = 19).', expect: [] },
+  { name: 'a single five-point item declared in the Methods binds by name in the Results (3.47 × 20 = 69.4; 69/20 = 3.45, 70/20 = 3.50; hand-checked)', markdown: '## Methods\n\nComfort was rated on a single five-point item.\n\n## Results\n\nComfort averaged M = 3.47 (SD = 1.10, n = 20).', expect: [{ at: '3.47', id: 'grim-mean' }] },
+  { name: 'a possessive before the measure ("each worker\'s breaks") does not hide its name', markdown: '## Methods\n\nEach worker\'s breaks were counted over one shift, so the score is a whole number.\n\n## Results\n\nBreaks per shift averaged M = 3.47 (SD = 1.10, n = 20).', expect: [{ at: '3.47', id: 'grim-mean' }] },
+  { name: 'a possessive before a generic head ("each child\'s score") names no measure, so another score is not tied to it', markdown: '## Methods\n\nEach child\'s score on the pain item is a whole number.\n\n## Results\n\nThe anxiety score averaged M = 3.47 (SD = 1.10, n = 20).', expect: [] },
   { name: 'GRIMMER: SD 1.28 impossible with mean 3.47, n = 19 (possible SDs 1.26, 1.31; enumerated with Python)', markdown: 'A single item scored 1–7 (M = 3.47, SD = 1.28, n = 19).', expect: [{ at: '1.28', id: 'grimmer-sd' }] },
 ]);
 
