@@ -35,6 +35,8 @@ export function sentenceStarts(text: string): number[] {
     // "Fig. 2", "e.g. A", "vs. B", "et al. (", "p. 45" are not sentence ends
     const before = text.slice(Math.max(0, m.index - 6), m.index + 1);
     if (/(?:\b(?:Fig|Figs|Tab|Eq|e\.g|i\.e|vs|al|cf|approx|No|no|ca|p|pp|Vol|vol|ch|Sect|sect|Ref|ref)\.)$/.test(before)) continue;
+    // "(mean ± s.d.) (n = 8)": a dotted abbreviation closing a bracket, or before one, ends no sentence
+    if ((m[0].includes(')') || m[0].includes(']') || text[m.index + m[0].length] === '(') && /(?:^|[^\p{L}])(?:\p{L}\.){1,3}\p{L}\.$/u.test(text.slice(Math.max(0, m.index - 8), m.index + 1))) continue;
     starts.push(m.index + m[0].length);
   }
   return starts;
