@@ -435,13 +435,21 @@ def t_case_checks(c: Case, mode: str, doc_tails: str | None) -> set[str]:
     # paired: implied correlation
     if c.kind == "paired" and "m2" in pr:
         nn = int(n1.value) if n1 else int(round(df.value)) + 1
-        m1, s1, m2, s2 = pr["m1"].iv(w), pr["s1"].iv(w), pr["m2"].iv(w), pr["s2"].iv(w)
+        m1, m2 = pr["m1"].iv(w), pr["m2"].iv(w)
         dd = abs_iv(diff_iv(m1, m2))
         at = abs_iv(tiv)
         sdd = (dd[0] * math.sqrt(nn) / at[1], dd[1] * math.sqrt(nn) / at[0] if at[0] > 0 else math.inf)
-        gap_lo = 0.0 if hit(s1, s2) else min(abs(s1[0] - s2[1]), abs(s2[0] - s1[1]))
-        sum_hi = s1[1] + s2[1]
-        if not (sdd[1] >= gap_lo and sdd[0] <= sum_hi):
+        # the spreads as SDs under each reading the text allows: an SE times sqrt(n) is the SD
+        kind = f.get("spread", "sd")
+        possible = False
+        for k in ([kind] if mode == "stated" else ["sd", "se"]):
+            scale = math.sqrt(nn) if k == "se" else 1.0
+            s1 = tuple(x * scale for x in pr["s1"].iv(w))
+            s2 = tuple(x * scale for x in pr["s2"].iv(w))
+            gap_lo = 0.0 if hit(s1, s2) else min(abs(s1[0] - s2[1]), abs(s2[0] - s1[1]))
+            sum_hi = s1[1] + s2[1]
+            possible = possible or (sdd[1] >= gap_lo and sdd[0] <= sum_hi)
+        if not possible:
             fails.add("r")
     # CI of the difference
     if "ci_lo" in pr:
