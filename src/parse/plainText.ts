@@ -197,6 +197,10 @@ const PAGE_NUMBER = /^(?:(?:[Pp]age|p\.)[ \t]{0,3})?[-–—]?[ \t]{0,3}[0-9]{1,
 const HEADER_MAX = 100;
 const HEADER_REPEATS = 3;
 const LETTER = /\p{L}/u;
+/** A word of three letters or more: what every running head carries ("Page", a title, a name). */
+const WORD = /\p{L}{3}/u;
+/** A value reported with a relation: `= 0.78`, `< .001`, `t(52) =` at a line end. */
+const REPORTS_VALUE = /[=<>≤≥](?:[ \t]{0,3}[-−–]?[0-9.]|[ \t]{0,3}$)/u;
 /** The end of a sentence, quotes and brackets allowed after the mark. */
 const SENTENCE_END = /[.!?:]["'”’)\]]{0,3}$/;
 /** How a sentence cut at a line end goes on: a lowercase word or a number, not a new capitalised start. */
@@ -219,7 +223,10 @@ function dropPageFurniture(lines: Line[]): void {
       if (prose(at(j - 1)) && prose(at(j + 1))) l.dropped = true;
       return;
     }
-    if (l.text.length > HEADER_MAX || !LETTER.test(l.text) || isPipeRow(l.text)) return;
+    // A running head has a word in it and reports no value: a wrapped line of a result
+    // ("0.78, P = 0.436.", "(M = 2.56, SD = 0.71), t(52) =") repeats with only its digits changed
+    // where a paper words its results alike, and is text.
+    if (l.text.length > HEADER_MAX || !WORD.test(l.text) || REPORTS_VALUE.test(l.text) || isPipeRow(l.text)) return;
     const key = l.text.replace(/[0-9]{1,12}/g, '#').replace(/\s{1,50}/g, ' ');
     const list = groups.get(key);
     if (list) list.push(j);
@@ -230,7 +237,8 @@ function dropPageFurniture(lines: Line[]): void {
     // table rows repeat too, but on neighbouring lines
     if (members.some((j, k) => k > 0 && j - (members[k - 1] as number) < 2)) continue;
     const cuts = members.some((j) => {
-      const before = at(j - 1);
+      // a page number between the cut sentence and the head is furniture too
+      const before = at(j - 1)?.dropped ? at(j - 2) : at(j - 1);
       const after = at(j + 1);
       return prose(before) && !SENTENCE_END.test((before as Line).text) && after !== undefined && GOES_ON.test(after.text);
     });

@@ -182,6 +182,24 @@ const paragraphs: SegmentCase[] = [
     ],
   },
   {
+    name: 'a running head after a lone page number is dropped, and the sentence it cut is joined',
+    path: 'a.txt',
+    source: 'Staff in the seated group\n\n2\nINVENTED DESK TRIAL\n\nrated fatigue daily.\n\nStaff in the standing group\n\n3\nINVENTED DESK TRIAL\n\nrated it lower.\n\nStaff in the third group\n\n4\nINVENTED DESK TRIAL\n\nrated it too.\n',
+    expect: [
+      { kind: 'text', text: 'Staff in the seated group rated fatigue daily.' },
+      { kind: 'text', text: 'Staff in the standing group rated it lower.' },
+      { kind: 'text', text: 'Staff in the third group rated it too.' },
+    ],
+  },
+  {
+    name: 'a result\'s wrapped line, repeated with only its digits changed where results are worded alike, is text and not a running head',
+    path: 'a.txt',
+    source: [1, 2, 3]
+      .map((k) => `Fatigue in week ${k} was higher in the seated group (M = 3.${k}, SD = 0.7${k}) than in the standing group\n(M = 2.5${k}, SD = 0.71), t(52) =\n0.7${k}, p = .43${k}.`)
+      .join('\n\n'),
+    expect: [1, 2, 3].map((k) => ({ kind: 'text' as const, text: `Fatigue in week ${k} was higher in the seated group (M = 3.${k}, SD = 0.7${k}) than in the standing group (M = 2.5${k}, SD = 0.71), t(52) = 0.7${k}, p = .43${k}.` })),
+  },
+  {
     name: 'line numbers in the margin are dropped; a numbered empty line is a blank line',
     path: 'a.txt',
     source: ['Invented Desks', '', 'Method', 'Forty nurses took part in the invented', 'trial and rated fatigue daily.', '', 'Results', 'Fatigue fell, t(39) = 2.41, p = .021,', 'in the second week.', '', 'Discussion', 'The desks helped the nurses.', 'They liked them.']
