@@ -7,6 +7,7 @@ import { findStatements } from './statements.js';
 const MAY_NAME_T_TEST = /t[- ]tests?|(?:Student|Welch)/i;
 import { findMentions } from './mentions.js';
 import { findIntegerMeasures, findMeasureMentions } from './measures.js';
+import { findAssignments } from './assignments.js';
 import { findPowerStatements } from './power.js';
 import { findSummaries } from './summaries.js';
 import { findTableMentions, readTables } from './tables.js';
@@ -38,6 +39,7 @@ export function extract(doc: ParsedDocument): Extraction {
     estimates: [],
     effectSizes: [],
     designs: [],
+    assignments: [],
     references: [],
     integerMeasures: [],
     measureMentions: [],
@@ -67,6 +69,7 @@ export function extract(doc: ParsedDocument): Extraction {
       append(out.estimates, found.estimates);
       append(out.effectSizes, found.effectSizes);
       append(out.designs, found.designs);
+      append(out.assignments, findAssignments(seg, starts));
       append(out.references, found.references);
       append(out.integerMeasures, findIntegerMeasures(seg, starts));
       append(out.counts, found.counts);

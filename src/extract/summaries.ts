@@ -1,6 +1,7 @@
 import type { Segment } from '../parse/types.js';
 import { readNumber, sentenceOf, sourceSpan, trimEndOf } from './numbers.js';
 import { topicStems } from './topic.js';
+import { ORDER_WORDS } from './assignments.js';
 import { UNITS } from './units.js';
 import type {
   CountPercent,
@@ -33,6 +34,8 @@ const PER_GROUP_BEFORE = /(?<![\p{L}])(?:groups|arms) of $/u;
 /** `n = 4 of whom`, `n = 6 of them`: a part of some group, not a group of the total. (`n = 21 of the
  *  garden group` is left open: it may be the group itself or a part of it.) */
 const SUBSET_AFTER = /^,? (?:of|among) (?:whom|them|those|these|each|both)(?![\p{L}])/u;
+/** "in the usual-routine group", "for the walking arm" right after a group's numbers. */
+const LABEL_AFTER = /^,? (?:in|for|among|from|of) (?:the |all )?(\p{L}[\p{L}\p{N}-]{0,30}(?: \p{L}[\p{L}\p{N}-]{0,30}){0,3})/u;
 /** A bare number (and %) up to 20 characters before the `(` of a lone spread: its mean. */
 const BARE_MEAN = /(?<![\p{L}\p{N}.,])([-+]?\d{1,9}(?:\.\d{1,9})?)( ?%)?[^\d()]{0,20}\($/u;
 /** A decimal number, then only words (its unit and a short phrase), before the `(` of a lone spread. */
@@ -55,9 +58,11 @@ const EFFECT = new RegExp(String.raw`(?<![\p{L}\p{N}_'’])(?:(?:Cohen['’]s|He
  * crossover; paired, related or dependent samples; each participant in both conditions.
  */
 // Two patterns rather than one alternation: each is judged linear by recheck on its own.
-const PAIRED_WORDS = /(?<![\p{L}])(paired|pre-?test|post-?test|pre- and post|pre\/post|before and after|baseline and (?:at )?(?:follow-?up|post-?\p{L}{0,12})|within-?(?!groups?(?![\p{L}]))\p{L}{3,15}|repeated[- ]measures?|cross-?over|matched[- ]pairs?|(?:measured|tested|assessed|rated|scored|observed|sampled|weighed|examined|surveyed) (?:twice|again(?! (?:if|when|whenever|unless|until|to confirm)(?![\p{L}])))|(?:related|dependent)[- ]samples?|each (?:participant|patient|subject|child|student|person|animal|plot|site|unit) (?:was|completed|performed|received|underwent|took part in)|(?:completed|performed|received|underwent|experienced) both (?:conditions|treatments|sessions|tasks|versions|interventions)|counterbalanced order|on two occasions|at (?:both|two) time ?points)(?![\p{L}])/giu;
+const PAIRED_WORDS = /(?<![\p{L}])(paired|pre-?test|post-?test|pre- and post|pre\/post|before and after|baseline and (?:at )?(?:follow-?up|post-?\p{L}{0,12})|within-?(?!groups?(?![\p{L}]))\p{L}{3,15}|repeated[- ]measures?|cross-?over|crossed over|matched[- ]pairs?|(?:measured|tested|assessed|rated|scored|observed|sampled|weighed|examined|surveyed) (?:twice|again(?! (?:if|when|whenever|unless|until|to confirm)(?![\p{L}])))|(?:related|dependent)[- ]samples?|each (?:participant|patient|subject|child|student|person|animal|plot|site|unit) (?:was|completed|performed|received|underwent|took part in)|(?:completed|performed|received|underwent|experienced) both (?:conditions|treatments|sessions|tasks|versions|interventions)|counterbalanced order|on two occasions|at (?:both|two) time ?points)(?![\p{L}])/giu;
 const SAME_UNITS = new RegExp(String.raw`(?<![\p{L}])(same (?:\d{1,5} )?(?:${UNITS}|sample|group|individuals))(?![\p{L}])`, 'giu');
 const INDEPENDENT_WORDS = /(?<![\p{L}])(independent[- ]samples?|two independent groups|independent groups|separate groups|different (?:participants|groups of participants|individuals)|randomi[sz]ed (?:to|groups)|randomly (?:assigned|allocated) (?:to|groups)|allocated to|assigned to one of|between-?subjects?|between-participants?|two-sample|unpaired|unrelated samples?)(?![\p{L}])/giu;
+/** Randomisation words, which an order of conditions uses too ("randomly assigned to the quiet condition first"). */
+const RANDOM_ORDER = /randomi|randomly|allocated|assigned/iu;
 const ONE_SAMPLE_WORDS = /(?<![\p{L}])(one-sample|single-sample)(?![\p{L}])/giu;
 const REFERENCE = new RegExp(
   String.raw`(?:test value|hypothesi[sz]ed (?:value|mean)|reference value|population mean|norm|benchmark|target|(?:scale )?midpoint|chance(?:[- ]level)?)(?: of| =| at| was| is)? ?\(? ?${NUM}( ?%)?`,
@@ -103,6 +108,10 @@ const num = (seg: Segment, m: RegExpMatchArray, g: number): ReportedNumber | und
 /** Descriptives and the other context a test is recomputed from, in one prose segment. */
 export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSummaries {
   const text = seg.text;
+  const sentenceAt = (at: number) => {
+    const i = sentenceOf(sentenceStarts, at);
+    return text.slice(sentenceStarts[i] as number, sentenceStarts[i + 1] ?? text.length);
+  };
   const where = (a: number, b: number) => ({
     segment: seg.id,
     block: seg.block,
@@ -227,7 +236,11 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
   }
   const designs: DesignStatement[] = [];
   if (/paired|pre|post|before|baseline|same|within|repeated|cross|matched|twice|again|each|both|occasions|time ?points|related|dependent|counterbalanced|independent|separate|different|randomi|randomly|allocated|assigned|between|sample/i.test(text)) for (const [re, design] of [[PAIRED_WORDS, 'paired'], [SAME_UNITS, 'paired'], [INDEPENDENT_WORDS, 'independent'], [ONE_SAMPLE_WORDS, 'one-sample']] as const) {
-    for (const m of text.matchAll(re)) designs.push({ ...where(m.index, m.index + m[0].length), design });
+    for (const m of text.matchAll(re)) {
+      // "randomly assigned to the quiet condition first": an order of conditions, not separate groups
+      if (design === 'independent' && RANDOM_ORDER.test(m[0]) && ORDER_WORDS.test(sentenceAt(m.index))) continue;
+      designs.push({ ...where(m.index, m.index + m[0].length), design });
+    }
   }
   const references: ReferenceValue[] = [];
   if (/test value|hypothesi|reference value|population mean|norm|benchmark|target|midpoint|chance/i.test(text)) for (const m of text.matchAll(REFERENCE)) {
@@ -328,6 +341,8 @@ function toSummary(seg: Segment, tokens: Token[], sentenceStarts: number[]): Gro
   const cut = from > 0 && /\p{L}/u.test(seg.text[from - 1] ?? '') ? seg.text.indexOf(' ', from) + 1 : from;
   const labelText = trimEndOf(seg.text.slice(cut > 0 && cut < first.start ? cut : from, first.start), '(,;:');
   const label = labelText.split(/[;)]|, |\. /).pop()?.trim();
+  // "7.34 (1.97) in the usual-routine group vs …": whose the numbers are, said after them
+  const after = LABEL_AFTER.exec(seg.text.slice(end, end + 60))?.[1];
   return {
     id: `${seg.id}:${first.start}`,
     segment: seg.id,
@@ -339,6 +354,7 @@ function toSummary(seg: Segment, tokens: Token[], sentenceStarts: number[]): Gro
     ...(spread ? { spread } : {}),
     ...(nTok?.a ? { n: nTok.a } : {}),
     ...(label ? { label } : {}),
+    ...(after ? { labelAfter: after } : {}),
     percent: tokens.some((t) => t.percent),
   };
 }

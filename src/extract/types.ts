@@ -140,6 +140,8 @@ export interface Extraction {
   estimates: EstimateReport[];
   effectSizes: EffectSizeReport[];
   designs: DesignStatement[];
+  /** Randomised groups named in the text. */
+  assignments: GroupAssignment[];
   references: ReferenceValue[];
   integerMeasures: IntegerStatement[];
   /** Sentences that name a measure declared whole-number (by its declared name). */
@@ -186,6 +188,8 @@ export interface GroupSummary {
   n?: ReportedNumber;
   /** Up to a few words before the descriptives, e.g. "in the standing weeks". */
   label?: string;
+  /** The words right after the descriptives when they say whose they are: "in the usual-routine group". */
+  labelAfter?: string;
   /** The numbers were printed as percentages (`59.1% ± 9.1%`). */
   percent: boolean;
   /** For table rows: which table and row. */
@@ -261,6 +265,20 @@ export interface DesignStatement {
   block: number;
   sentence: number;
   design: 'paired' | 'independent' | 'one-sample';
+  span: Span;
+  printed: string;
+}
+
+/**
+ * Two named groups that different units were put in ("randomly assigned to the incentive group
+ * or the no-incentive group"): a comparison of these two groups is between independent groups.
+ */
+export interface GroupAssignment {
+  segment: number;
+  block: number;
+  sentence: number;
+  /** The two groups' names, in lower case. */
+  names: [string, string];
   span: Span;
   printed: string;
 }

@@ -4,6 +4,7 @@ import type {
   EstimateReport,
   Extraction,
   GroupSizes,
+  GroupAssignment,
   GroupSummary,
   IntervalReport,
   ReferenceValue,
@@ -188,6 +189,8 @@ export function contextJoiner(x: Extraction): (report: TTestReport) => ResultCon
     tables: x.tables,
     spreads: spreadStatements(x),
     methodsDesign: methodsDesign(x, clauses),
+    // the Methods' statements first: the place a finding names
+    assignments: severalStudies(x.sections) ? [] : [...x.assignments].sort((a, b) => Number(!METHODS_SECTION.test(x.sections[a.segment] ?? '')) - Number(!METHODS_SECTION.test(x.sections[b.segment] ?? ''))),
     rows: {
       groups: inRows(x.summaries),
       effectSizes: inRows(x.effectSizes),
@@ -232,6 +235,8 @@ interface Tables {
   mentions: Map<string, Extraction['tableMentions']>;
   /** The design the Methods state for the whole study, when every statement there agrees. */
   methodsDesign: Setting<Design> | undefined;
+  /** Randomised groups the text names (none in a document of several studies). */
+  assignments: GroupAssignment[];
 }
 
 /**
@@ -298,7 +303,7 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
     ...(link ? { descriptives: link } : {}),
     ...(unlinked ? { unlinked } : {}),
     // one group of descriptives is a one-sample test (or differences) before the Methods' design
-    design: designFor(report, clause, clauses, n.designs) ?? againstValue ?? (link?.groups.length === 1 ? oneGroup : undefined) ?? t.methodsDesign ?? { value: 'unknown', basis: 'default' },
+    design: designFor(report, clause, clauses, n.designs) ?? againstValue ?? (link?.groups.length === 1 ? oneGroup : undefined) ?? assignedGroups(link, t.assignments) ?? t.methodsDesign ?? { value: 'unknown', basis: 'default' },
     ...(groupSizes ? { groupSizes } : {}),
     ...(reference ? { reference } : {}),
     ...(interval ? { interval } : {}),
@@ -514,6 +519,42 @@ function designFor(report: TTestReport, clause: Clause, clauses: ClauseIndex, de
   const paragraph = pick(designs.all(report.segment).filter((d) => clauses.statisticsInSentence(d.segment, d.sentence) === 0), 'paragraph');
   if (paragraph) return paragraph;
   return undefined;
+}
+
+/**
+ * Independent groups, when the two groups tied to the result with certainty are, one each, the
+ * two groups the text says units were randomised to: each group's own name beside its numbers
+ * ("the incentive group (M = …)", "7.34 (1.97) in the usual-routine group"). A name said after the
+ * numbers is the group's when there is one; a group with no name, or with both, ties nothing.
+ */
+function assignedGroups(link: DescriptiveLink | undefined, assignments: readonly GroupAssignment[]): Setting<Design> | undefined {
+  if (!link?.certain || link.groups.length !== 2 || assignments.length === 0) return undefined;
+  for (const a of assignments) {
+    const [first, second] = link.groups.map((g) => nameOf(g, a.names));
+    if (first !== undefined && second !== undefined && first !== second) return { value: 'independent', basis: 'methods', span: a.span, printed: a.printed };
+  }
+  return undefined;
+}
+
+/** Which of the two names a group's own words carry (index), if exactly one. */
+function nameOf(g: GroupSummary, names: readonly [string, string]): number | undefined {
+  const carries = (words: string | undefined) => {
+    if (!words) return [];
+    const w = words.toLowerCase();
+    return names.flatMap((name, i) => (containsName(w, name) ? [i] : []));
+  };
+  const after = carries(g.labelAfter);
+  const own = after.length > 0 ? after : carries(g.label);
+  return own.length === 1 ? own[0] : undefined;
+}
+
+/** Whether the name stands in the words as whole words (a hyphen joins: "incentive" is not in "no-incentive"). */
+function containsName(words: string, name: string): boolean {
+  const joined = (c: string | undefined) => c !== undefined && /[\p{L}\p{N}-]/u.test(c);
+  for (let at = words.indexOf(name); at >= 0; at = words.indexOf(name, at + 1)) {
+    if (!joined(words[at - 1]) && !joined(words[at + name.length])) return true;
+  }
+  return false;
 }
 
 /** Structure, when nothing beside the result says the design: one group is one-sample (or differences). */

@@ -172,6 +172,33 @@ describe('statements apply only where they are about the analysis', () => {
   });
 });
 
+describe('a comparison of the two groups units were randomised to is between independent groups', () => {
+  const methods = '## Methods\n\nStaff were randomly assigned to the incentive group or the no-incentive group; within each group the same staff were also measured before and after.\n\n## Results\n\n';
+  it('each group of descriptives carries one of the two names: independent, from the Methods statement', () => {
+    // 19 + 19 staff: Student df = 36; df = 18 is the df of 19 pairs (common practice, no source)
+    const r = run(`${methods}Sick days, the incentive group: M = 2.53, SD = 1.39, n = 19; the no-incentive group: M = 2.42, SD = 1.30, n = 19. The difference was small, t(18) = 0.24, p = .81.`);
+    expect(r.results[0]?.context.design).toMatchObject({ value: 'independent', basis: 'methods', printed: 'assigned to the incentive group or the no-incentive group' });
+    expect(warnings(r)).toContain('design-matches-analysis/independent-analysed-as-paired@t(18) = 0.24, p = .81');
+  });
+  it('names said after the numbers count ("7.34 (1.97) in the usual-routine group")', () => {
+    const r = run('## Methods\n\nNurses were randomly assigned to the quiet-hour or the usual-routine group.\n\n## Results\n\nDaily steps: mean (SD) 7.34 (1.97) in the usual-routine group vs 6.98 (1.68) in the quiet-hour group; t = 0.65, df = 25, P = 0.52.');
+    expect(r.results[0]?.context.design).toMatchObject({ value: 'independent', basis: 'methods' });
+  });
+  it('a change within one of the groups is not a comparison of the groups ("incentive" is not in "no-incentive")', () => {
+    const r = run(`${methods}In the incentive group, alertness rose from before (M = 3.10, SD = 0.80) to after (M = 3.50, SD = 0.70), t(18) = 2.30, p = .034.`);
+    expect(r.results[0]?.context.design.value).not.toBe('independent');
+  });
+  it('"at the first visit" is a time, not an order of conditions: the randomised groups stay independent', () => {
+    const r = run('Job satisfaction at the first visit was lower in one group (M = 3.40, SD = 0.78, n = 27) than in the other (M = 3.44, SD = 0.65, n = 27) (between the randomly assigned groups); t = -0.19, df = 26, p = 0.85.');
+    expect(r.results[0]?.context.design.value).toBe('independent');
+    expect(warnings(r)).toContain('design-matches-analysis/independent-analysed-as-paired@t = -0.19, df = 26, p = 0.85');
+  });
+  it('an order of conditions (a crossover) names no independent groups', () => {
+    const r = run('## Methods\n\nNurses were randomly assigned to the quiet condition or the usual condition first, then crossed over.\n\n## Results\n\nScores were higher in the quiet condition (M = 3.9, SD = 0.6, n = 51) than in the usual condition (M = 3.4, SD = 0.6), t(50) = 3.67, p < .001.');
+    expect(r.results[0]?.context.design.value).not.toBe('independent');
+  });
+});
+
 describe('the design comes from beside the result, else from the Methods of a single study', () => {
   it('design words beside another result in the paragraph are that result\'s', () => {
     const r = run('Scores rose for the same staff measured twice (n = 20), t(19) = 2.40, p = .027. Typing was faster in the standing office (M = 50.1, SD = 5.0, n = 20) than in the seated office (M = 46.3, SD = 5.2, n = 20), t(38) = 2.36, p = .024.');
