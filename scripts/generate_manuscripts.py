@@ -984,6 +984,10 @@ def style_fits(st: dict, kind: str, error: str | None) -> bool:
         return False
     if error in ("undeclared-one-tailed", "stated-two-tailed-but-one-tailed-p", "significance-flip", "p-typo") and st["name"] == "r-console-prose":
         return False
+    # this style writes "two-tailed unpaired t-test" beside the result: a one-tailed p there is
+    # a stated-two-tailed error, never an undeclared one
+    if error == "undeclared-one-tailed" and st["name"] == "nature-unpaired-paren":
+        return False
     if error == "t-vs-descriptives" and st["name"] in ("apa-n-total-only", "apa-df-only") and kind != "ind":
         return False
     return True
