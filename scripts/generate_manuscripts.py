@@ -574,6 +574,11 @@ def d_ranges(c: Case, w: float, mode: str = "any") -> dict[str, tuple[float, flo
         out["t/sqrt(n)"] = (at[0] / math.sqrt(n1), at[1] / math.sqrt(n1))
     nn = int(round(dfi[1])) + 1
     out["t/sqrt(df+1)"] = (at[0] / math.sqrt(nn), at[1] / math.sqrt(max(nn - 1, 1)))
+    if c.kind == "paired" and mode == "any" and not ("s1" in pr and "s2" in pr):
+        # d_av and d_rm divide by the conditions' SDs, which are not printed: with the correlation
+        # unknown, either lies anywhere from 0 to twice d_z (common practice, no source)
+        n_low = n1 if n1 else max(int(math.floor(dfi[0])) + 1, 2)
+        out["d_av or d_rm, r unknown"] = (0.0, 2 * at[1] / math.sqrt(n_low))
     if "m1" in pr:
         m1, s1 = pr["m1"].iv(w), pr["s1"].iv(w)
         kind = f.get("spread", "sd")
