@@ -60,6 +60,11 @@ const EFFECT = new RegExp(String.raw`(?<![\p{L}\p{N}_'’])(?:(?:Cohen['’]s|He
 // Two patterns rather than one alternation: each is judged linear by recheck on its own.
 const PAIRED_WORDS = /(?<![\p{L}])(paired|pre-?test|post-?test|pre- and post|pre\/post|before and after|baseline and (?:at )?(?:follow-?up|post-?\p{L}{0,12})|within-?(?!groups?(?![\p{L}]))\p{L}{3,15}|repeated[- ]measures?|cross-?over|crossed over|matched[- ]pairs?|(?:measured|tested|assessed|rated|scored|observed|sampled|weighed|examined|surveyed) (?:twice|again(?! (?:if|when|whenever|unless|until|to confirm)(?![\p{L}])))|(?:related|dependent)[- ]samples?|each (?:participant|patient|subject|child|student|person|animal|plot|site|unit) (?:was|completed|performed|received|underwent|took part in)|(?:completed|performed|received|underwent|experienced) both (?:conditions|treatments|sessions|tasks|versions|interventions)|counterbalanced order|on two occasions|at (?:both|two) time ?points)(?![\p{L}])/giu;
 const SAME_UNITS = new RegExp(String.raw`(?<![\p{L}])(same (?:\d{1,5} )?(?:${UNITS}|sample|group|individuals))(?![\p{L}])`, 'giu');
+/**
+ * "the same beds were assessed in spring and autumn": whatever the units are called, the same
+ * ones measured (not "patients from the same ward were measured", a place).
+ */
+const SAME_MEASURED = /(?<!(?:from|in|on|at|of|during|within|into|to) the )(?<![\p{L}])(same (?:\d{1,5} )?\p{L}{3,20} (?:were|was) (?:again |also |then )?(?:assessed|measured|tested|rated|scored|observed|sampled|weighed|examined|surveyed|recorded|interviewed|counted))(?![\p{L}])/giu;
 const INDEPENDENT_WORDS = /(?<![\p{L}])(independent[- ]samples?|two independent groups|independent groups|separate groups|different (?:participants|groups of participants|individuals)|randomi[sz]ed (?:to|groups)|randomly (?:assigned|allocated) (?:to|groups)|allocated to|assigned to one of|between-?subjects?|between-participants?|two-sample|unpaired|unrelated samples?)(?![\p{L}])/giu;
 /** Randomisation words, which an order of conditions uses too ("randomly assigned to the quiet condition first"). */
 const RANDOM_ORDER = /randomi|randomly|allocated|assigned/iu;
@@ -235,7 +240,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     if (value) effectSizes.push({ ...where(m.index, m.index + m[0].length), value, kind: k === 'dz' ? 'dz' : k === 'dav' ? 'dav' : k === 'g' ? 'g' : 'd' });
   }
   const designs: DesignStatement[] = [];
-  if (/paired|pre|post|before|baseline|same|within|repeated|cross|matched|twice|again|each|both|occasions|time ?points|related|dependent|counterbalanced|independent|separate|different|randomi|randomly|allocated|assigned|between|sample/i.test(text)) for (const [re, design] of [[PAIRED_WORDS, 'paired'], [SAME_UNITS, 'paired'], [INDEPENDENT_WORDS, 'independent'], [ONE_SAMPLE_WORDS, 'one-sample']] as const) {
+  if (/paired|pre|post|before|baseline|same|within|repeated|cross|matched|twice|again|each|both|occasions|time ?points|related|dependent|counterbalanced|independent|separate|different|randomi|randomly|allocated|assigned|between|sample/i.test(text)) for (const [re, design] of [[PAIRED_WORDS, 'paired'], [SAME_UNITS, 'paired'], [SAME_MEASURED, 'paired'], [INDEPENDENT_WORDS, 'independent'], [ONE_SAMPLE_WORDS, 'one-sample']] as const) {
     for (const m of text.matchAll(re)) {
       // "randomly assigned to the quiet condition first": an order of conditions, not separate groups
       if (design === 'independent' && RANDOM_ORDER.test(m[0]) && ORDER_WORDS.test(sentenceAt(m.index))) continue;

@@ -53,6 +53,8 @@ ruleTable('design-matches-analysis', [
   { name: 'randomised groups analysed with n − 1', markdown: `Staff randomised to seated ${A} or standing ${B} desks gave t(23) = 1.32, p = .20.`, expect: [{ at: 't(23)', id: 'independent-analysed-as-paired' }] },
   { name: 'no design words: nothing assumed', markdown: `Seated ${A} and standing ${B}, t(23) = 1.32, p = .20.`, expect: [] },
   { name: 'the same units "measured again", analysed with 2n − 2', markdown: 'The 24 nurses were measured again in the last week. Heart rate fell from 78.2 (SD = 6.1) to 74.0 (SD = 6.4), t(46) = 2.12, p = .039.', expect: [{ at: 't(46)', id: 'paired-analysed-as-independent' }] },
+  { name: 'the same units by any name, "the same beds were assessed", analysed with 2n − 2', markdown: 'Plant height fell from spring (M = 85.9, SD = 14.4) to autumn (M = 81.9, SD = 12.2, n = 8), the same beds were assessed in spring and autumn, t(14) = -0.60, p = .561.', expect: [{ at: 't(14)', id: 'paired-analysed-as-independent' }] },
+  { name: '"from the same ward" is a place, not the same units measured twice', markdown: 'Patients from the same ward were measured by two nurses (M = 85.9, SD = 14.4, n = 8; M = 81.9, SD = 12.2, n = 8), t(14) = -0.60, p = .561.', expect: [] },
   { name: '"measured again if …" is a procedure, not a design', markdown: 'Blood pressure was measured again if the first reading was high. The two wards (n = 24 each) differed, t(46) = 2.12, p = .039.', expect: [] },
 ]);
 
