@@ -3,7 +3,7 @@ import { requiredN, tTestPower } from '../src/stats/index.js';
 
 const messages = {
   'n-does-not-give-power':
-    'Reported {reported}. Recomputed with the noncentral t distribution ({design}, d = {d}, alpha {alpha}, {sides}): {required} {unit} are needed for {target} power, and {n} give power {achieved}.',
+    'Reported "{reported}". Recomputed with the noncentral t distribution ({design}, d = {d}, alpha {alpha}, {sides}): {required} {unit} are needed for {target} power, and {n} give power {achieved}.',
 };
 
 /** A sample-size or power statement follows from its effect size, alpha and tails. */
@@ -44,7 +44,8 @@ export const powerStatementFollows: Rule = {
         messageId: 'n-does-not-give-power',
         span: st.span,
         message: fill(messages['n-does-not-give-power'], {
-          reported: st.printed,
+          // the statement is a whole sentence: quoted without its closing mark
+          reported: withoutClosingMarks(st.printed),
           design: st.design === 'two-sample' ? 'two equal independent groups' : st.design === 'paired' ? 'paired' : 'one sample',
           d: showNumber(d),
           alpha: String(alpha),
@@ -64,3 +65,10 @@ export const powerStatementFollows: Rule = {
     return out;
   },
 };
+
+/** The text without the full stops, semicolons and colons at its end (a loop: a trailing-run pattern is quadratic). */
+function withoutClosingMarks(text: string): string {
+  let end = text.length;
+  while (end > 0 && '.;:'.includes(text[end - 1] as string)) end -= 1;
+  return text.slice(0, end);
+}

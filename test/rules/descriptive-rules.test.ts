@@ -153,3 +153,12 @@ describe('an interval that may be a one-sample mean\'s, with no test value print
     expect(f.map((x) => x.level)).toEqual(['warning']);
   });
 });
+
+describe('power-statement-follows quotes the statement it recomputes', () => {
+  it('as a quotation without its closing full stop', () => {
+    const r = checkSource('x.md', 'For the paired comparison, 12 pickers give 90% power to detect d = 0.7 (α = .05).\n');
+    const f = r.findings.filter((x) => x.ruleId === 'power-statement-follows');
+    expect(f.map((x) => x.messageId)).toEqual(['n-does-not-give-power']);
+    expect(f[0]?.message).toMatch(/^Reported "For the paired comparison, 12 pickers give 90% power to detect d = 0\.7 \(α = \.05\)"\. Recomputed/);
+  });
+});
