@@ -78,6 +78,9 @@ const OF_AFTER = /^ of (?:the |all )?(\d{1,6})(?![\d,]|\.\d)/du;
 const OF_BEFORE = /^(?:Of|Among|In) (?:the |all )?(\d{1,6}) [^\d]{0,80}$/du;
 const COUNT_PERCENT = new RegExp(String.raw`(?<![\p{L}\p{N}.,])(\d{1,6}) ?\((\d{1,3}(?:\.\d{1,3})?) ?%\)`, 'dgu');
 
+/** How far back, in characters, a group's topic words are read within its sentence. */
+const TOPIC_REACH = 600;
+
 type TokenKind = 'mean' | 'sd' | 'se' | 'n' | 'pm' | 'paren';
 interface Token {
   kind: TokenKind;
@@ -215,10 +218,16 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     }
   }
 
-  // what each group's sentence is about, up to the group (the link layer compares a test's lead with it)
+  // what each group's sentence is about, up to the group (the link layer compares a test's lead
+  // with it); read over at most TOPIC_REACH characters before the group, so a sentence of
+  // thousands of groups costs each one a bounded window, not the whole sentence so far (a
+  // lead word printed further back only makes the link less certain, never more)
   if (!seg.table) for (const s of summaries) {
-    const from = sentenceStarts[s.sentence] ?? 0;
-    s.topic = topicStems(text.slice(from, indexOfSource(seg, s.span.end - 1) + 1));
+    const end = indexOfSource(seg, s.span.end - 1) + 1;
+    const sentenceStart = sentenceStarts[s.sentence] ?? 0;
+    let from = Math.max(sentenceStart, end - TOPIC_REACH);
+    if (from > sentenceStart) while (from < end && /\p{L}/u.test(text[from - 1] ?? '')) from += 1;
+    s.topic = topicStems(text.slice(from, end));
   }
 
   const intervals: IntervalReport[] = [];
@@ -364,9 +373,34 @@ function toSummary(seg: Segment, tokens: Token[], sentenceStarts: number[]): Gro
   };
 }
 
+/** Whether each segment's source map runs in source order (checked once per segment). */
+const ascending = new WeakMap<Segment, boolean>();
+
+/**
+ * The first text index whose source start is at or after `offset`. A binary search when the
+ * segment's map is in source order (as the parse layer builds it), so a paragraph of thousands
+ * of groups is not scanned once per group; a scan otherwise, with the same answer.
+ */
 function indexOfSource(seg: Segment, offset: number): number {
-  const i = seg.starts.findIndex((s) => s >= offset);
-  return i < 0 ? seg.text.length : i;
+  const starts = seg.starts;
+  let sorted = ascending.get(seg);
+  if (sorted === undefined) {
+    sorted = true;
+    for (let i = 1; i < starts.length && sorted; i += 1) sorted = (starts[i - 1] as number) <= (starts[i] as number);
+    ascending.set(seg, sorted);
+  }
+  if (!sorted) {
+    const i = starts.findIndex((s) => s >= offset);
+    return i < 0 ? seg.text.length : i;
+  }
+  let lo = 0;
+  let hi = starts.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if ((starts[mid] as number) < offset) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo === starts.length ? seg.text.length : lo;
 }
 
 /** Whether some "(" in the text comes after a word (not only after spaces and , ; :) since the last parenthesis. */

@@ -121,6 +121,15 @@ describe('descriptives outside the test\'s own lead are certain only when the le
     const r = run('The audited ward scored 24.0 (SD = 5.0, n = 30), and the other ward scored 23.6 (SD = 5.2, n = 30), t(58) = 2.60, p = .012.');
     expect(levels(r)).toEqual(['warning']);
   });
+  it('a group\'s words are read over at most 600 characters of its sentence: a lead word printed further back leaves only a note', () => {
+    // the bounded window keeps a sentence of thousands of groups linear (bench figure 6)
+    const tail = 'were 24.0 (SD = 5.0, n = 30) and 23.6 (SD = 5.2, n = 30). Falls differed, t(58) = 2.60, p = .012.';
+    const near = run(`Falls on the two wards, counted by ${Array.from({ length: 40 }, (_, i) => `item ${i + 1}`).join(', ')}, ${tail}`);
+    expect(levels(near)).toEqual(['warning']);
+    const far = run(`Falls on the two wards, counted by ${Array.from({ length: 90 }, (_, i) => `item ${i + 1}`).join(', ')}, ${tail}`);
+    expect(far.results[0]?.context.descriptives?.doubt).toContain('"falls" do not appear there');
+    expect(levels(far)).toEqual(['note']);
+  });
 });
 
 describe('statements apply only where they are about the analysis', () => {
