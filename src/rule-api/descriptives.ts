@@ -90,7 +90,46 @@ export function evaluateDescriptives(result: LinkedResult): DescriptiveEvaluatio
     if (design === 'paired' || design === 'one-sample') return undefined;
     const [g1, g2] = groups as [GroupSummary, GroupSummary];
     const splits = candidateSplits(result, g1, g2);
-    if (splits.pairs.length === 0) return undefined;
+    if (splits.pairs.length === 0) {
+      // no sizes and no total, but a fractional df: only Welch's test gives one, and its df
+      // bounds the sizes it could come from
+      const bound = r.df && !isWholeDf(r.df) ? welchWithinDf(dfInterval(r.df)) : undefined;
+      if (!bound) return undefined;
+      const m1 = box(g1.mean as NonNullable<GroupSummary['mean']>);
+      const m2 = box(g2.mean as NonNullable<GroupSummary['mean']>);
+      for (const rd1 of readings(kinds[0] ?? 'unstated')) {
+        for (const rd2 of readings(kinds[1] ?? 'unstated')) {
+          if (rd1.asSE !== rd2.asSE) continue;
+          const labelled = rd1.labelled && rd2.labelled;
+          let absT: Interval;
+          if (rd1.asSE) {
+            // SDs rebuilt from SEs as SE·√n give SD²/n = SE² whatever n is: t does not depend on the sizes
+            absT = welchAbsT(m1, sdBox(g1, 4, true), 4, m2, sdBox(g2, 4, true), 4);
+          } else {
+            const s1 = sdBox(g1, 2, false);
+            const s2 = sdBox(g2, 2, false);
+            let low = Infinity;
+            let high = 0;
+            // |t| rises with each size, so for each smaller size the range runs from the
+            // fewest units the df allows in the other group to infinitely many
+            for (let small = 2; small <= bound.maxSmaller; small += 1) {
+              const other = Math.max(small, bound.minTotal - small);
+              for (const [n1, n2, far1, far2] of [[small, other, small, Infinity], [other, small, Infinity, small]] as const) {
+                low = Math.min(low, welchAbsT(m1, s1, n1, m2, s2, n2).low);
+                high = Math.max(high, welchAbsT(m1, s1, far1, m2, s2, far2).high);
+              }
+            }
+            absT = { low, high };
+          }
+          const fits = fitsT(absT);
+          const nSource = rd1.asSE ? 'any group sizes' : `any group sizes the Welch df ${r.df?.printed} allows: the smaller group at most ${bound.maxSmaller}, both together at least ${bound.minTotal}`;
+          attempts.push({ variant: 'welch', reading: rd1.reading, ns: [], nSource, absT, fits });
+          if (fits && labelled) labelledFit = true;
+          if (fits && !labelled) againstFit = true;
+        }
+      }
+      return { groups, design, reportedAbsT, attempts, fitsAsLabelled: labelledFit, fitsOnlyAgainstLabel: !labelledFit && againstFit, kinds, limits };
+    }
     for (const rd1 of readings(kinds[0] ?? 'unstated')) {
       for (const rd2 of readings(kinds[1] ?? 'unstated')) {
         if (rd1.asSE !== rd2.asSE) continue; // both groups are printed the same way
@@ -125,6 +164,16 @@ export function evaluateDescriptives(result: LinkedResult): DescriptiveEvaluatio
   } else return undefined;
 
   return { groups, design, reportedAbsT, attempts, fitsAsLabelled: labelledFit, fitsOnlyAgainstLabel: !labelledFit && againstFit, kinds, limits };
+}
+
+/**
+ * The group sizes a Welch df in [dl, dh] allows: min(n1, n2) − 1 ≤ df ≤ n1 + n2 − 2 (Welch
+ * 1947; Satterthwaite 1946), so the smaller group has at most ⌊dh⌋ + 1 units and both together
+ * at least ⌈dl⌉ + 2. Undefined for a df too large to search (the smaller group is enumerated).
+ */
+export function welchWithinDf([dl, dh]: [number, number]): { maxSmaller: number; minTotal: number } | undefined {
+  if (!(dh >= 1) || dh > 100_000) return undefined;
+  return { maxSmaller: Math.floor(dh) + 1, minTotal: Math.max(4, Math.ceil(dl - 1e-9) + 2) };
 }
 
 function gapTo(a: Interval, b: Interval): number {

@@ -28,6 +28,10 @@ ruleTable('t-follows-from-descriptives', [
   { name: 'a mean followed by its unit and a short phrase before its (n, SD) is read as the mean (1.32 fits)', markdown: 'Seated staff logged 45.0 minutes across their shifts (n = 24, SD = 10.1), standing staff 41.2 minutes (n = 24, SD = 9.8), t(46) = 1.32, p = .19.', expect: [] },
   { name: 'a mean followed by its unit and a short phrase, with a t no variant gives', markdown: 'Seated staff logged 45.0 minutes across their shifts (n = 24, SD = 10.1), standing staff 41.2 minutes (n = 24, SD = 9.8), t(46) = 2.31, p = .025.', expect: [{ at: 't(46) = 2.31', id: 'mismatch' }] },
   { name: 'a value after "=" is never taken as the mean of a spread printed after words', markdown: 'Seated staff, t(46) = 2.31 minutes across their shifts (n = 24, SD = 10.1), and standing staff 41.2 minutes (n = 24, SD = 9.8).', expect: [] },
+  // Welch df 17.47 and t 1.65 from 7.34 (1.97) and 5.10 (4.68), n = 14 each (scipy.stats.ttest_ind_from_stats, equal_var=False)
+  { name: 'no n printed, a fractional df: Welch over the sizes the df allows fits (1.65)', markdown: 'Daily steps: mean (SD) 7.34 (1.97) in the usual-routine arm vs 5.10 (4.68) in the quiet-hour arm; t = 1.65, df = 17.47, P = 0.117.', expect: [] },
+  // the smallest Welch |t| any sizes with df 25.72 allow is at n = 26 and 2: 1.309 (scipy.stats.ttest_ind_from_stats, equal_var=False)
+  { name: 'no n printed, a fractional df: a t below every size the Welch df allows', markdown: 'Daily steps: mean (SD) 7.34 (1.97) in the usual-routine arm vs 2.98 (4.68) in the quiet-hour arm; t = 0.33, df = 25.72, P = 0.748.', expect: [{ at: 't = 0.33', id: 'mismatch' }] },
   { name: 'three groups and one test: not guessed', markdown: 'A (M = 40.1, SD = 9.2, n = 20), B (M = 43.0, SD = 9.9, n = 20) and C (M = 46.2, SD = 10.4, n = 20), t(38) = 9.01, p < .001.', expect: [] },
 ]);
 
