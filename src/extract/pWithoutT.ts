@@ -22,7 +22,8 @@ export function findPWithoutT(seg: Segment, starts: number[], tests: TTestReport
     for (;;) {
       const p = findP(seg, at, to);
       if (!p) break;
-      out.push({ segment: seg.id, block: seg.block, p, mention: sourceSpan(seg, m.index, m.index + m[0].length), mentionPrinted: m[0] });
+      // "* p < .05; ** p < .01": a legend saying what the stars mean, not a reported p
+      if (!afterMarks(seg, at, p.span.start)) out.push({ segment: seg.id, block: seg.block, p, mention: sourceSpan(seg, m.index, m.index + m[0].length), mentionPrinted: m[0] });
       let next = at;
       while (next < to && (seg.ends[next] as number) <= p.span.end) next += 1;
       if (next <= at) break;
@@ -30,4 +31,14 @@ export function findPWithoutT(seg: Segment, starts: number[], tests: TTestReport
     }
   }
   return out;
+}
+
+/** Whether the p starting at source offset `start` follows stars or daggers (a legend's key), spaces aside. */
+function afterMarks(seg: Segment, from: number, start: number): boolean {
+  let i = from;
+  while (i < seg.text.length && (seg.starts[i] as number) < start) i += 1;
+  let j = i - 1;
+  while (j >= 0 && seg.text[j] === ' ') j -= 1;
+  const c = seg.text[j];
+  return c === '*' || c === '†' || c === '‡' || c === '§';
 }

@@ -66,6 +66,17 @@ const SAME_UNITS = new RegExp(String.raw`(?<![\p{L}])(same (?:\d{1,5} )?(?:${UNI
  */
 const SAME_MEASURED = /(?<!(?:from|in|on|at|of|during|within|into|to) the )(?<![\p{L}])(same (?:\d{1,5} )?\p{L}{3,20} (?:were|was) (?:again |also |then )?(?:assessed|measured|tested|rated|scored|observed|sampled|weighed|examined|surveyed|recorded|interviewed|counted))(?![\p{L}])/giu;
 const INDEPENDENT_WORDS = /(?<![\p{L}])(independent[- ]samples?|two independent groups|independent groups|separate groups|different (?:participants|groups of participants|individuals)|randomi[sz]ed (?:to|groups)|randomly (?:assigned|allocated) (?:to|groups)|allocated to|assigned to one of|between-?subjects?|between-participants?|two-sample|unpaired|unrelated samples?)(?![\p{L}])/giu;
+/**
+ * Tests named in a statement about the analysis that compare separate groups: Welch's test,
+ * Student's t-test (not "paired Student's t-test", set aside in code), and independent samples,
+ * groups or cohorts with one word between ("two independent school samples").
+ */
+const INDEPENDENT_TESTS = /(?<![\p{L}])(Welch(?:['’]s)?(?: corrected| unequal-variance)? (?:t[- ]?tests?|tests?|correction)|Student['’]s (?:unpaired |two-sample )?t[- ]?tests?|independent \p{L}{2,20} (?:samples|groups|cohorts))(?![\p{L}])/giu;
+/** A participle that says when units joined ("staff hired before and after the change"): two cohorts, not one measured twice. */
+const ENTRY_EVENT = /(?:admitted|hired|recruited|enrolled|born|employed|diagnosed|registered|appointed|joined|started|graduated|qualified|referred|discharged|operated on) $/iu;
+/** After "each participant received …": one of the conditions, not both. */
+const ONE_OF = /^ (?:only |just )?(?:one|a single|either|only|a randomly|randomly|at random|one of)(?![\p{L}])/iu;
+
 /** Randomisation words, which an order of conditions uses too ("randomly assigned to the quiet condition first"). */
 const RANDOM_ORDER = /randomi|randomly|allocated|assigned/iu;
 const ONE_SAMPLE_WORDS = /(?<![\p{L}])(one-sample|single-sample)(?![\p{L}])/giu;
@@ -249,10 +260,13 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     if (value) effectSizes.push({ ...where(m.index, m.index + m[0].length), value, kind: k === 'dz' ? 'dz' : k === 'dav' ? 'dav' : k === 'g' ? 'g' : 'd' });
   }
   const designs: DesignStatement[] = [];
-  if (/paired|pre|post|before|baseline|same|within|repeated|cross|matched|twice|again|each|both|occasions|time ?points|related|dependent|counterbalanced|independent|separate|different|randomi|randomly|allocated|assigned|between|sample/i.test(text)) for (const [re, design] of [[PAIRED_WORDS, 'paired'], [SAME_UNITS, 'paired'], [SAME_MEASURED, 'paired'], [INDEPENDENT_WORDS, 'independent'], [ONE_SAMPLE_WORDS, 'one-sample']] as const) {
+  if (/paired|pre|post|before|baseline|same|within|repeated|cross|matched|twice|again|each|both|occasions|time ?points|related|dependent|counterbalanced|independent|separate|different|randomi|randomly|allocated|assigned|between|sample|welch|student/i.test(text)) for (const [re, design] of [[PAIRED_WORDS, 'paired'], [SAME_UNITS, 'paired'], [SAME_MEASURED, 'paired'], [INDEPENDENT_WORDS, 'independent'], [INDEPENDENT_TESTS, 'independent'], [ONE_SAMPLE_WORDS, 'one-sample']] as const) {
     for (const m of text.matchAll(re)) {
       // "randomly assigned to the quiet condition first": an order of conditions, not separate groups
       if (design === 'independent' && RANDOM_ORDER.test(m[0]) && ORDER_WORDS.test(sentenceAt(m.index))) continue;
+      if (design === 'paired' && !pairedInContext(text, m.index, m[0], sentenceAt(m.index))) continue;
+      // "paired Student's t-test" is a paired test
+      if (design === 'independent' && /^student/iu.test(m[0]) && /paired $/iu.test(text.slice(Math.max(0, m.index - 7), m.index))) continue;
       designs.push({ ...where(m.index, m.index + m[0].length), design });
     }
   }
@@ -266,6 +280,15 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     const count = num(seg, m, 1);
     const percent = num(seg, m, 2);
     if (!count || !percent) continue;
+    // "55 of 202 (27.2%)": the number before the brackets is the denominator, the count before it
+    const lead = countOf(text, m.index);
+    if (lead) {
+      const c = readNumber(seg, lead.start, lead.end);
+      if (c) {
+        counts.push({ ...where(lead.start, m.index + m[0].length), count: c, percent, of: count });
+        continue;
+      }
+    }
     // the denominator named with it: "5 (24%) of the 21 beds", "Of the 14 beds in …, 5 (24%)"
     const end = m.index + m[0].length;
     const after = OF_AFTER.exec(text.slice(end, end + 16));
@@ -277,6 +300,41 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     counts.push({ ...where(m.index, end), count, percent, ...(of ? { of } : {}) });
   }
   return { summaries, sampleSizes, groupSizes, intervals, estimates, effectSizes, designs, references, counts };
+}
+
+/**
+ * The count printed before "of" or "out of" right before a number at `at` ("55 of 202 (27.2%)"):
+ * its start and end, when the text there is digits, a space, "of" or "out of", and a space.
+ */
+function countOf(text: string, at: number): { start: number; end: number } | undefined {
+  const before = text.slice(Math.max(0, at - 20), at);
+  const tail = before.endsWith(' out of ') ? ' out of ' : before.endsWith(' of ') ? ' of ' : undefined;
+  if (!tail) return undefined;
+  const end = at - tail.length;
+  let start = end;
+  while (start > 0 && start > end - 6 && /\d/u.test(text[start - 1] as string)) start -= 1;
+  if (start === end || /[\p{L}\p{N}.,]/u.test(text[start - 1] ?? ' ')) return undefined;
+  return { start, end };
+}
+
+/**
+ * Whether paired words say, where they stand, that one set of units was measured twice:
+ * - "paired with a tutor" pairs people for a treatment, and says nothing of the analysis;
+ * - "pre-test" or "post-test" alone names one time ("At pre-test, the tutored pupils …"); the
+ *   sentence must name both;
+ * - "staff hired before and after the change" are two cohorts;
+ * - "each participant received one of the two treatments" (or took part in one role only) is
+ *   the opposite of a paired design, and "each participant was randomly assigned" says nothing
+ *   of one.
+ */
+function pairedInContext(text: string, at: number, words: string, sentence: string): boolean {
+  const lower = words.toLowerCase();
+  const after = text.slice(at + words.length, at + words.length + 40);
+  if (lower === 'paired' && /^ with(?![\p{L}])/u.test(after)) return false;
+  if (/^(?:pre|post)-?test$/u.test(lower) && !(/pre-?test/iu.test(sentence) && /post-?test/iu.test(sentence))) return false;
+  if (lower.startsWith('before and after') && ENTRY_EVENT.test(text.slice(Math.max(0, at - 20), at))) return false;
+  if (lower.startsWith('each ') && (ONE_OF.test(after) || (/ was$/u.test(lower) && /^ (?:randomi[sz]ed|randomly|assigned|allocated)(?![\p{L}])/iu.test(after)))) return false;
+  return true;
 }
 
 function spreadKind(word: string | undefined): SpreadKind {

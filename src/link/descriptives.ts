@@ -303,7 +303,7 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
     ...(link ? { descriptives: link } : {}),
     ...(unlinked ? { unlinked } : {}),
     // one group of descriptives is a one-sample test (or differences) before the Methods' design
-    design: designFor(report, clause, clauses, n.designs) ?? againstValue ?? (link?.groups.length === 1 ? oneGroup : undefined) ?? assignedGroups(link, t.assignments) ?? t.methodsDesign ?? { value: 'unknown', basis: 'default' },
+    design: unlessUnequal(designFor(report, clause, clauses, n.designs) ?? againstValue ?? (link?.groups.length === 1 ? oneGroup : undefined) ?? assignedGroups(link, t.assignments) ?? t.methodsDesign ?? { value: 'unknown', basis: 'default' }, link, groupSizes),
     ...(groupSizes ? { groupSizes } : {}),
     ...(reference ? { reference } : {}),
     ...(interval ? { interval } : {}),
@@ -555,6 +555,19 @@ function containsName(words: string, name: string): boolean {
     if (!joined(words[at - 1]) && !joined(words[at + name.length])) return true;
   }
   return false;
+}
+
+/**
+ * A paired design read from words (not from the test's own name, "paired t(22)") does not hold
+ * for a result whose two groups are printed with different sizes ("in the 14 men and 10
+ * women"): one set of units measured twice has one size, so the words are about another
+ * comparison, or units were lost between the measurements. Either way the design is not
+ * certain: unknown.
+ */
+function unlessUnequal(design: Setting<Design>, link: DescriptiveLink | undefined, groupSizes: readonly ReportedNumber[] | undefined): Setting<Design> {
+  if (design.value !== 'paired' || design.basis === 'in-report') return design;
+  const ns = link?.groups.length === 2 && link.groups.every((g) => g.n) ? link.groups.map((g) => g.n?.value) : groupSizes?.length === 2 ? groupSizes.map((g) => g.value) : undefined;
+  return ns && ns[0] !== ns[1] ? { value: 'unknown', basis: 'default' } : design;
 }
 
 /** Structure, when nothing beside the result says the design: one group is one-sample (or differences). */

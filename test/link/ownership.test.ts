@@ -222,8 +222,47 @@ describe('the design comes from beside the result, else from the Methods of a si
     const r = run('## Design\n\nStaff were randomly assigned to two groups; within each group the same staff were measured twice.\n\n## Results\n\nScores differed (M = 3.9, SD = 0.6, n = 51; M = 3.4, SD = 0.6), t(100) = 3.67, p < .001.');
     expect(r.results[0]?.context.design.basis).toBe('default');
   });
+  it('Methods that name Welch\'s or Student\'s test for some comparisons and paired tests for others give none', () => {
+    const methods = '## Statistical analysis\n\nNight and day workers were compared with Welch\'s t-test. Pain at baseline and at twelve weeks was compared with a paired t-test.\n\n## Results\n\n';
+    const r = run(`${methods}Sleep was shorter on nights (M = 5.9, SD = 0.9, n = 38) than on days (M = 6.4, SD = 0.8, n = 45), t(81) = -2.68, p = .009.`);
+    expect(r.results[0]?.context.design.basis).toBe('default');
+    // "paired Student's t-test" names a paired test, so it does not contradict a paired Methods
+    const paired = run('## Methods\n\nThe same workers were measured twice and compared with a paired Student\'s t-test.\n\n## Results\n\nPain fell (M = 3.9, SD = 0.6; M = 3.4, SD = 0.6), t(50) = 3.67, p < .001.');
+    expect(paired.results[0]?.context.design).toMatchObject({ value: 'paired', basis: 'methods' });
+  });
+  it('a paired design read from words does not hold for two groups printed with different sizes', () => {
+    const r = run('## Statistics\n\nProtocols were compared with paired t-tests.\n\n## Results\n\nThe gain was 1.61 cm (SD = 1.27, n = 14) in men and 0.21 cm (SD = 1.61, n = 10) in women, t(22) = 2.39, p = .026.');
+    expect(r.results[0]?.context.design.value).toBe('unknown');
+    // the test's own name is not overruled: units may have been lost between the measurements
+    const named = run('The gain was 1.61 cm (SD = 1.27, n = 14) and 0.21 cm (SD = 1.61, n = 10), paired t(9) = 2.39, p = .041.');
+    expect(named.results[0]?.context.design.value).toBe('paired');
+  });
   it('a document of several studies takes no design from any one study\'s Methods', () => {
     const r = run('## Study 1 Methods\n\nParticipants were randomly assigned to two groups.\n\n## Study 1 Results\n\nA rose, t(40) = 2.10, p = .042.\n\n## Study 2 Methods\n\nEach participant completed both conditions.\n\n## Study 2 Results\n\nRatings differed (M = 6.13, SD = 0.51; M = 2.01, SD = 0.35), t(29) = 34.74, p < .001.');
     expect(r.results.map((x) => x.context.design.basis)).toEqual(['default', 'default']);
+  });
+});
+
+describe('design words count only where they say units were measured twice, or kept apart', () => {
+  const design = (text: string) => run(`${text} Scores differed (M = 3.9, SD = 0.6; M = 3.4, SD = 0.6), t(50) = 3.67, p < .001.`).results[0]?.context.design.value;
+  it('"paired with a peer tutor" pairs people for a treatment: no design', () => {
+    expect(design('Pupils were paired with a Year 9 peer tutor for ten weeks.')).toBe('unknown');
+    expect(design('Scores were compared with paired t-tests.')).toBe('paired');
+  });
+  it('"pre-test" alone names one time; the sentence must name both', () => {
+    expect(design('At pre-test, the tutored pupils were tested in the hall.')).toBe('unknown');
+    expect(design('Pupils were tested at pre-test and post-test.')).toBe('paired');
+  });
+  it('"staff hired before and after the change" are two cohorts, not one measured twice', () => {
+    expect(design('Staff hired before and after the rota change were compared.')).toBe('unknown');
+    expect(design('Pain was rated before and after the rota change.')).toBe('paired');
+  });
+  it('"each person took part in one role only" and "each participant received one of" are not paired', () => {
+    expect(design('Each person took part in one role only.')).toBe('unknown');
+    expect(design('Each patient received one of the two dressings.')).toBe('unknown');
+    expect(design('Each patient received both dressings in turn.')).toBe('paired');
+  });
+  it('independent samples with a word between ("two independent school samples") are independent', () => {
+    expect(design('We compared two independent school samples.')).toBe('independent');
   });
 });

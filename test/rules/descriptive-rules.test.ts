@@ -119,6 +119,9 @@ ruleTable('percentage-matches-count', [
   { name: 'group n in the sentence', markdown: 'In the poster ward (n = 32), 21 (65.6%) complied.', expect: [] },
   { name: 'two possible denominators: no guess', markdown: 'Of 24 staff and 30 patients, 10 (40%) reported pain.', expect: [] },
   { name: 'no denominator: no guess', markdown: 'Ten reported pain, 10 (40%).', expect: [] },
+  // 55/202 = 27.23% (common practice, no source)
+  { name: '"55 of 202 (27.2%)": the count is 55 and its denominator 202, not the N of a neighbouring test', markdown: 'Omissions: 31 of 210 (14.8%) on Ward A against 55 of 202 (27.2%) on Ward B, χ²(1, N = 412) = 9.69, p = .002.', expect: [] },
+  { name: '"55 out of 202 (37.2%)" does not round from 55/202', markdown: 'Omissions: 55 out of 202 (37.2%) on Ward B.', expect: ['1:12 percent-mismatch'] },
 ]);
 
 ruleTable('power-statement-follows', [
