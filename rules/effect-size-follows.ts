@@ -1,5 +1,5 @@
 import { fill, inferDesign, linkDoubts, numberInterval, showInterval, tInterval, type EffectSizeReport, type GroupSummary, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS, isWholeDf } from '../src/rule-api/index.js';
-import { dAverage, dFromMeansPooled, dFromTIndependent, dRepeatedMeasures, dzFromT, hedgesCorrection, type Box, type Interval } from '../src/stats/index.js';
+import { dAverage, dFromMeansPooled, dFromTIndependent, dRepeatedMeasures, dzFromT, hedgesCorrection, studentAbsT, type Box, type Interval } from '../src/stats/index.js';
 
 const messages = {
   mismatch: 'Reported {effect}. Recomputed: {tried}. None of these definitions gives the reported value within rounding.',
@@ -79,9 +79,20 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
       open.push("with Welch's t and the group sizes not printed, the pooled-SD d cannot be recomputed from t");
     } else {
       const total = Math.round(df) + 2;
-      const smallest = dFromTIndependent(absT, total / 2, total / 2);
-      const largest = total >= 4 ? dFromTIndependent(absT, 2, total - 2) : smallest;
-      candidates.push({ name: `d = t√(1/n1 + 1/n2) (any split of ${total})`, range: { low: smallest.low, high: largest.high }, family: 'independent' });
+      const fitting = splitsGivingT(groups, kinds, absT, total);
+      if (fitting) {
+        // the means and SDs printed with the test say which splits of the total it can have
+        const range = fitting.reduce<Interval>((acc, [a, b]) => {
+          const d = dFromTIndependent(absT, a, b);
+          return { low: Math.min(acc.low, d.low), high: Math.max(acc.high, d.high) };
+        }, { low: Infinity, high: 0 });
+        const sizes = fitting.map(([a]) => a);
+        candidates.push({ name: `d = t√(1/n1 + 1/n2) (the splits of ${total} with which the printed means and SDs give t: n1 ${Math.min(...sizes)} to ${Math.max(...sizes)})`, range, family: 'independent' });
+      } else {
+        const smallest = dFromTIndependent(absT, total / 2, total / 2);
+        const largest = total >= 4 ? dFromTIndependent(absT, 2, total - 2) : smallest;
+        candidates.push({ name: `d = t√(1/n1 + 1/n2) (any split of ${total})`, range: { low: smallest.low, high: largest.high }, family: 'independent' });
+      }
     }
     candidates.push({ name: 'd = 2t/√df', range: { low: (2 * absT[0]) / Math.sqrt(df), high: (2 * absT[1]) / Math.sqrt(df) }, family: 'independent' });
   }
@@ -176,6 +187,35 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
     block: r.block,
     ...(open.length > 0 ? { uncertain: open } : {}),
   };
+}
+
+/**
+ * The splits (n1, n2) of a total with which two groups' printed means and SDs give the reported
+ * Student's |t| within rounding, spreads read as labelled (unstated ones both ways). Undefined
+ * when the groups lack means or SDs, the total is too large to search, or no split gives t
+ * (then t and the descriptives disagree, which t-follows-from-descriptives reports, and every
+ * split stays possible for d).
+ */
+function splitsGivingT(groups: readonly GroupSummary[], kinds: readonly string[], absT: Box, total: number): Array<[number, number]> | undefined {
+  if (groups.length !== 2 || !groups.every((g) => g.mean && g.spread) || total < 4 || total > 20_000) return undefined;
+  const [g1, g2] = groups as [GroupSummary, GroupSummary];
+  const m1 = numberInterval(g1.mean!);
+  const m2 = numberInterval(g2.mean!);
+  const ses = kinds.every((k) => k === 'SD') ? [false] : kinds.every((k) => k === 'SE') ? [true] : [false, true];
+  const out: Array<[number, number]> = [];
+  for (let a = 2; a <= total - 2; a += 1) {
+    const b = total - a;
+    const gives = ses.some((asSE) => {
+      const s = (g: GroupSummary, n: number): Box => {
+        const box = numberInterval(g.spread!.number);
+        return asSE ? [box[0] * Math.sqrt(n), box[1] * Math.sqrt(n)] : box;
+      };
+      const t = studentAbsT(m1, s(g1, a), a, m2, s(g2, b), b);
+      return t.low <= absT[1] && t.high >= absT[0];
+    });
+    if (gives) out.push([a, b]);
+  }
+  return out.length > 0 ? out : undefined;
 }
 
 function glass(m1: Box, m2: Box, s1: Box, s2: Box): Interval {

@@ -85,6 +85,10 @@ ruleTable('ci-agrees-with-result', [
 ]);
 
 ruleTable('effect-size-follows', [
+  // 18.4 (6.1), n = 34 vs 22.1 (6.3), n = 28: Student's t = -2.342, d = -0.598, g = -0.590
+  // (scipy.stats.ttest_ind_from_stats; d from the pooled SD, g with the exact J); the sizes are not printed
+  { name: 'group sizes not printed: the splits with which the means and SDs give t bound d, and g = 0.59 fits', markdown: 'Randomised to the moulded plug (M = 18.4, SD = 6.1) or the foam plug (M = 22.1, SD = 6.3), t(60) = -2.34, p = .023, g = -0.59.', expect: [] },
+  { name: 'group sizes not printed: a g of 0.98 that no split giving t can give (any split alone would reach it)', markdown: 'Randomised to the moulded plug (M = 18.4, SD = 6.1) or the foam plug (M = 22.1, SD = 6.3), t(60) = -2.34, p = .023, g = -0.98.', expect: [{ at: 'g = -0.98', id: 'mismatch' }] },
   { name: 'pooled d from the means (0.38)', markdown: `Seated ${A} and standing ${B}, t(46) = 1.32, p = .19, d = 0.38.`, expect: [] },
   { name: "Hedges' g (0.38 × J)", markdown: `Seated ${A} and standing ${B}, t(46) = 1.32, p = .19, g = 0.37.`, expect: [] },
   { name: 'd_z for a paired test (3.49/√23)', markdown: 'Paired, t(22) = 3.49, p = .002, d = 0.73.', expect: [] },
