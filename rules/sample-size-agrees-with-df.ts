@@ -23,7 +23,10 @@ export const sampleSizeAgreesWithDf: Rule = {
     if (x.mentions.some((m) => m.kind === 'exclusion')) return [];
     // Each test implies the number analysed: df + 2 for two independent groups, df + 1 for one
     // group or pairs; with the design unknown, either.
-    const implied = document.results
+    // A regression coefficient's t (`b = -0.53, SE = 0.26, t(69) = …`) has the model's df,
+    // N − k − 1 for k predictors unknown here: it implies no number analysed.
+    const tests = document.results.filter((r) => r.context.estimate?.item.kind !== 'coefficient');
+    const implied = tests
       .filter((r) => r.report.df && isWholeDf(r.report.df) && !r.report.plural)
       .map((r) => {
         const df = r.report.df?.value as number;

@@ -2,7 +2,7 @@ import type { Segment } from '../parse/types.js';
 import { readNumber, sentenceOf, sourceSpan, trimEndOf } from './numbers.js';
 import { topicStems } from './topic.js';
 import { ORDER_WORDS } from './assignments.js';
-import { UNITS } from './units.js';
+import { UNITS, unitKind } from './units.js';
 import type {
   CountPercent,
   DesignStatement,
@@ -81,7 +81,7 @@ const ONE_OF = /^ (?:only |just )?(?:one|a single|either|only|a randomly|randoml
 const RANDOM_ORDER = /randomi|randomly|allocated|assigned/iu;
 const ONE_SAMPLE_WORDS = /(?<![\p{L}])(one-sample|single-sample)(?![\p{L}])/giu;
 const REFERENCE = new RegExp(
-  String.raw`(?:test value|hypothesi[sz]ed (?:value|mean)|reference value|population mean|norm|benchmark|target|(?:scale )?midpoint|chance(?:[- ]level)?)(?: of| =| at| was| is)? ?\(? ?${NUM}( ?%)?`,
+  String.raw`(?:test value|hypothesi[sz]ed (?:value|mean)|reference value|population mean|norm|benchmark|target|recommended|(?:scale )?midpoint|chance(?:[- ]level)?)(?: of| =| at| was| is)? ?\(? ?${NUM}( ?%)?`,
   'dgiu',
 );
 const OF_AFTER = /^ of (?:the |all )?(\d{1,6})(?![\d,]|\.\d)/du;
@@ -197,11 +197,27 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     const b = num(seg, m, 2) ?? num(seg, m, 4);
     if (a && b) groupSizes.push({ ...where(m.index, m.index + m[0].length), ns: [a, b] });
   }
+  // the kinds of unit each sentence counts, read once per sentence
+  const kindsBySentence = new Map<number, Set<string>>();
+  const kindsOfSentence = (at: number): Set<string> => {
+    const i = sentenceOf(sentenceStarts, at);
+    let kinds = kindsBySentence.get(i);
+    if (!kinds) {
+      kinds = unitKindsIn(sentenceAt(at));
+      kindsBySentence.set(i, kinds);
+    }
+    return kinds;
+  };
   if (/\d (?:[a-z]{3,12})/.test(text)) for (const m of text.matchAll(PARTICIPANTS)) {
     const a = num(seg, m, 1);
     // "groups of 30 nurses each", "24 pupils per class": a group's size, not the total
     const end = m.index + m[0].length;
     const perGroup = PER_GROUP_AFTER.test(text.slice(end, end + 20)) || PER_GROUP_BEFORE.test(text.slice(Math.max(0, m.index - 12), m.index));
+    // "forty plots, each holding 30 plants": a count within each unit, neither a group nor the total
+    if (!perGroup && countWithinEach(text, m.index)) continue;
+    // "forty plots … (a total of 1,200 plants)": a sentence that counts two kinds of unit does
+    // not say which the groups are of, so neither count is certainly their total
+    if (!perGroup && otherKindIn(kindsOfSentence(m.index), m[2] as string)) continue;
     // "N = 60 staff" is one statement of the total, already read
     if (a && !sampleSizes.some((s) => s.n.span.start === a.span.start)) sampleSizes.push({ ...where(m.index, end), n: a, scope: perGroup ? 'per-group' : 'total' });
   }
@@ -228,6 +244,14 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
       }
     }
   }
+  // "a mean of 127.2 minutes a week (SD = 53.2)": the mean read above is the one the mean-only
+  // group "mean of 127.2" holds; it is one group, not two
+  const meansWithSpread = new Set(summaries.filter((s) => s.mean && s.spread).map((s) => s.mean!.span.start));
+  const merged = summaries.filter((s) => !(s.mean && !s.spread && !s.n && meansWithSpread.has(s.mean.span.start)));
+  if (merged.length < summaries.length) {
+    summaries.length = 0;
+    for (const s of merged) summaries.push(s);
+  }
 
   // what each group's sentence is about, up to the group (the link layer compares a test's lead
   // with it); read over at most TOPIC_REACH characters before the group, so a sentence of
@@ -251,7 +275,10 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
   const estimates: EstimateReport[] = [];
   if (/difference|MD|diff|\b[bB] ?[=:]|β|estimate|Δ|change/.test(text)) for (const m of text.matchAll(ESTIMATE)) {
     const value = num(seg, m, 1);
-    if (value) estimates.push({ ...where(m.index, m.index + m[0].length), value });
+    if (!value) continue;
+    const label = m[0].replace(/^[^\p{L}β]+/u, '');
+    const coefficient = /^(?:b|B|β)(?![\p{L}])/u.test(label);
+    estimates.push({ ...where(m.index, m.index + m[0].length), value, ...(coefficient ? { kind: 'coefficient' as const } : {}) });
   }
   const effectSizes: EffectSizeReport[] = [];
   if (/\b[dg](?:_?\{?(?:z|av)\}?)? ?=/.test(text)) for (const m of text.matchAll(EFFECT)) {
@@ -271,7 +298,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     }
   }
   const references: ReferenceValue[] = [];
-  if (/test value|hypothesi|reference value|population mean|norm|benchmark|target|midpoint|chance/i.test(text)) for (const m of text.matchAll(REFERENCE)) {
+  if (/test value|hypothesi|reference value|population mean|norm|benchmark|target|recommended|midpoint|chance/i.test(text)) for (const m of text.matchAll(REFERENCE)) {
     const value = num(seg, m, 1);
     if (value) references.push({ ...where(m.index, m.index + m[0].length), value });
   }
@@ -300,6 +327,44 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     counts.push({ ...where(m.index, end), count, percent, ...(of ? { of } : {}) });
   }
   return { summaries, sampleSizes, groupSizes, intervals, estimates, effectSizes, designs, references, counts };
+}
+
+/** The kinds of unit a sentence names (unitKind of each word). */
+function unitKindsIn(sentence: string): Set<string> {
+  const kinds = new Set<string>();
+  let word = '';
+  for (let i = 0; i <= sentence.length; i += 1) {
+    const c = sentence[i];
+    if (c !== undefined && /\p{L}/u.test(c)) {
+      word += c;
+      continue;
+    }
+    const kind = word.length > 2 ? unitKind(word) : undefined;
+    if (kind) kinds.add(kind);
+    word = '';
+  }
+  return kinds;
+}
+
+/** Whether a sentence's kinds of unit include one other than `noun`'s (plots beside plants; wards beside patients). */
+function otherKindIn(kinds: Set<string>, noun: string): boolean {
+  const kind = unitKind(noun);
+  return kind !== undefined && [...kinds].some((k) => k !== kind);
+}
+
+/**
+ * Whether the count at `at` follows "each" and at most two words that name no group ("each
+ * holding", "each with", "each containing about"): a count within every unit, not of them.
+ */
+function countWithinEach(text: string, at: number): boolean {
+  const before = text.slice(Math.max(0, at - 40), at);
+  const k = before.toLowerCase().lastIndexOf('each ');
+  if (k < 0 || (k > 0 && /\p{L}/u.test(before[k - 1] as string))) return false;
+  const words = before.slice(k + 5).trim();
+  if (words === '') return false;
+  const list = words.split(' ');
+  if (list.length > 2 || !list.every((w) => /^\p{L}+$/u.test(w))) return false;
+  return !list.some((w) => /^(?:of|group|arm|condition|cell)s?$/iu.test(w));
 }
 
 /**

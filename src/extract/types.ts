@@ -242,6 +242,8 @@ export interface EstimateReport {
   value: ReportedNumber;
   span: Span;
   printed: string;
+  /** A regression coefficient (`b =`, `B =`, `β =`), whose t has the model's df, not a t-test's. */
+  kind?: 'coefficient';
   /** Printed in a table: its row. */
   table?: TableRow;
 }

@@ -7,3 +7,18 @@ export const UNITS = String.raw`(?:participants|patients|subjects|people|individ
 
 /** The same nouns as a set, for a single word (plural as written). */
 export const UNIT_WORDS: ReadonlySet<string> = new Set('participants|patients|subjects|people|individuals|children|adults|students|pupils|staff|volunteers|respondents|women|men|infants|pairs|twins|nurses|doctors|clinicians|teachers|workers|employees|mothers|fathers|families|households|cases|athletes|players|drivers|residents|users|customers|raters|observers|animals|mice|rats|dogs|cows|sheep|pigs|fish|birds|plots|sites|trees|plants|seedlings|fields|farms|ponds|lakes|streams|transects|quadrats|stands|colonies|hives|schools|classes|classrooms|wards|clinics|hospitals|units|samples|specimens|eyes|teeth|knees|limbs|hands'.split('|'));
+
+/** The nouns for people: one kind of unit, whatever they are called (patients, women, nurses). */
+export const PERSON_WORDS: ReadonlySet<string> = new Set(
+  'participants|patients|subjects|people|individuals|children|adults|students|pupils|staff|volunteers|respondents|women|men|infants|pairs|twins|nurses|doctors|clinicians|teachers|workers|employees|mothers|fathers|families|households|cases|athletes|players|drivers|residents|users|customers|raters|observers'.split('|'),
+);
+
+/**
+ * The kind of unit a noun counts: people (all one kind), or the noun itself (plots, plants,
+ * wards); undefined for nouns of no kind ("units", "samples").
+ */
+export function unitKind(noun: string): string | undefined {
+  const w = noun.toLowerCase();
+  if (!UNIT_WORDS.has(w) || w === 'units' || w === 'samples') return undefined;
+  return PERSON_WORDS.has(w) ? 'people' : w;
+}

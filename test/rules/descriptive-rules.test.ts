@@ -20,6 +20,9 @@ ruleTable('t-follows-from-descriptives', [
   { name: 'one "Mean (SD)" column', markdown: '| Group | Mean (SD) | n |\n|---|---|---|\n| Seated | 45.0 (10.1) | 24 |\n| Standing | 41.2 (9.8) | 24 |\n\nThe groups differed little, t(46) = 1.32, p = .19.', expect: [] },
   { name: 'mean ± SD stated for the document', markdown: 'Values are mean ± SD.\n\nSeated 45.0 ± 10.1 (n = 24) and standing 41.2 ± 9.8 (n = 24), t(46) = 1.32, p = .19.', expect: [] },
   { name: 'unstated ± tried both ways', markdown: 'Seated 45.0 ± 2.06 (n = 24) and standing 41.2 ± 2.00 (n = 24), t(46) = 1.32, p = .19.', expect: [] },
+  // (127.2 − 150)/(53.2/√41) = −2.744 (common practice, no source)
+  { name: '"a mean of 127.2 minutes a week (SD = 53.2)" is one group, tested against "the recommended 150 minutes"', markdown: 'Office staff reported a mean of 127.2 minutes a week (SD = 53.2), below the recommended 150 minutes, t(40) = -2.75, p = .009.', expect: [] },
+  { name: 'the same group with a t its mean and SD cannot give against 150', markdown: 'Office staff reported a mean of 127.2 minutes a week (SD = 53.2), below the recommended 150 minutes, t(40) = -3.75, p < .001.', expect: [{ at: 't(40) = -3.75', id: 'mismatch' }] },
   { name: 'one sample against a stated test value', markdown: 'Above the test value of 5 (M = 5.6, SD = 1.9, n = 30), t(29) = 1.73, p = .094.', expect: [] },
   { name: 'one sample with a wrong t', markdown: 'Above the test value of 5 (M = 5.6, SD = 1.9, n = 30), t(29) = 2.73, p = .011.', expect: [{ at: 't(29)', id: 'mismatch' }] },
   { name: 'one sample with no stated reference value is not guessed', markdown: 'Scores were high (M = 5.6, SD = 1.9, n = 30), t(29) = 2.73, p = .011.', expect: [] },
@@ -85,6 +88,8 @@ ruleTable('ci-agrees-with-result', [
 ]);
 
 ruleTable('effect-size-follows', [
+  // d = (127.2 − 150)/53.2 = −0.43 and t/√n = −2.75/√41 = −0.43 (common practice, no source)
+  { name: 'a one-sample d against "the recommended 150 minutes", its mean printed as "a mean of 127.2 minutes a week (SD = 53.2)"', markdown: 'Office staff reported a mean of 127.2 minutes a week (SD = 53.2), below the recommended 150 minutes, t(40) = -2.75, p = .009, d = -0.43.', expect: [] },
   // 18.4 (6.1), n = 34 vs 22.1 (6.3), n = 28: Student's t = -2.342, d = -0.598, g = -0.590
   // (scipy.stats.ttest_ind_from_stats; d from the pooled SD, g with the exact J); the sizes are not printed
   { name: 'group sizes not printed: the splits with which the means and SDs give t bound d, and g = 0.59 fits', markdown: 'Randomised to the moulded plug (M = 18.4, SD = 6.1) or the foam plug (M = 22.1, SD = 6.3), t(60) = -2.34, p = .023, g = -0.59.', expect: [] },

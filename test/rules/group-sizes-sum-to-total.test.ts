@@ -13,3 +13,9 @@ ruleTable('group-sizes-sum-to-total', [
   { name: 'a group written "from the" group is still a group', markdown: 'At follow-up, N = 65 employees returned the questionnaire: n = 21 from the early group and n = 41 from the late group.', expect: [{ at: 'N = 65', id: 'sum-differs' }] },
   { name: 'three sizes, none of whose pairs add up to the total', markdown: 'We enrolled N = 60 residents, n = 31 in the garden group, n = 25 in the reading group and n = 3 in the third.', expect: [{ at: 'N = 60', id: 'sum-differs' }] },
 ]);
+
+ruleTable('group-sizes-sum-to-total', [
+  { name: '"each holding 30 plants" counts within every plot: not the total the groups of plots add up to', markdown: 'Forty plots, each holding 30 plants, were randomly assigned to straw mulch (n = 20) or bare soil (n = 20).', expect: [] },
+  { name: 'a sentence counting two kinds of unit (plots and plants) does not say which the groups are of', markdown: 'Forty plots (a total of 1,200 plants) were randomly assigned to straw mulch (n = 20) or bare soil (n = 20).', expect: [] },
+  { name: 'a total of the one kind of unit the sentence names is still checked', markdown: 'In all, 30 plants were randomly assigned to straw mulch (n = 20) or bare soil (n = 20).', expect: [{ at: '30 plants', id: 'sum-differs' }] },
+]);
