@@ -267,6 +267,16 @@ function keptLines(lines: Line[]): Line[] {
 
 const CAPTION_LINE = /^(?:Table|TABLE|Tab\.|Figure|Fig\.)[ \u00A0]{0,2}(?:[A-Z]?[0-9]{1,3}|[IVXLC]{1,7}(?![A-Za-z]))/;
 
+/** A line drawn with dashes, rules or equals signs only (three or more): a table's rule. */
+function isRuleLine(text: string): boolean {
+  let marks = 0;
+  for (const c of text) {
+    if (c === '-' || c === '=' || c === '─' || c === '━' || c === '—' || c === '_') marks += 1;
+    else if (c !== ' ' && c !== '\t') return false;
+  }
+  return marks >= 3;
+}
+
 /** Tables by their first kept line: ` | ` rows first, then aligned columns. */
 function findTables(kept: Line[]): Map<number, { end: number; cells: TextCell[] }> {
   const found = new Map<number, { end: number; cells: TextCell[] }>();
@@ -283,8 +293,10 @@ function findTables(kept: Line[]): Map<number, { end: number; cells: TextCell[] 
         continue;
       }
       let e = k;
-      while (e < run.length && hasColumnGap((run[e] as Line).text) && !isPipeRow((run[e] as Line).text) && !CAPTION_LINE.test((run[e] as Line).text)) e += 1;
-      const cells = e - k >= 3 ? alignedTable(run.slice(k, e)) : undefined;
+      // rules drawn with dashes above, under and below the header are part of the table
+      while (e < run.length && (isRuleLine((run[e] as Line).text) || (hasColumnGap((run[e] as Line).text) && !isPipeRow((run[e] as Line).text) && !CAPTION_LINE.test((run[e] as Line).text)))) e += 1;
+      const rows = run.slice(k, e).filter((l) => !isRuleLine(l.text));
+      const cells = rows.length >= 3 ? alignedTable(rows) : undefined;
       if (cells) {
         found.set(i + k, { end: i + e, cells });
         k = e;

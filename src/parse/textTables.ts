@@ -117,12 +117,17 @@ export function alignedTable(lines: readonly TextLine[]): TextCell[] | undefined
   if (lines.length < 3) return undefined;
   if (lines.some((l) => l.text.includes('\t'))) return tabTable(lines);
   const body = lines.slice(1);
+  const cols = lines.map(displayColumns);
   let width = 0;
-  for (const l of body) width = Math.max(width, l.to - l.start);
+  body.forEach((l, r) => {
+    const c = cols[r + 1] as Int32Array;
+    width = Math.max(width, (c[c.length - 1] ?? 0) + 1);
+  });
   const filled = new Uint8Array(width);
-  for (const l of body) {
-    for (let p = l.from; p < l.to; p += 1) if (l.text[p - l.from] !== ' ') filled[p - l.start] = 1;
-  }
+  body.forEach((l, r) => {
+    const c = cols[r + 1] as Int32Array;
+    for (let i = 0; i < l.to - l.from; i += 1) if (l.text[i] !== ' ') for (let k = c[i] as number; k < (c[i + 1] as number); k += 1) filled[k] = 1;
+  });
   const columns: Array<[number, number]> = [];
   for (let p = 0; p < width; ) {
     if (!filled[p]) {
@@ -138,10 +143,11 @@ export function alignedTable(lines: readonly TextLine[]): TextCell[] | undefined
   if (columns.length < 2) return undefined;
   const cells: TextCell[] = [];
   const header = lines[0] as TextLine;
+  const headerCols = cols[0] as Int32Array;
   const headerColumns = new Set<number>();
   for (const [s, e] of words(header.text)) {
-    const a = header.from + s - header.start;
-    const b = header.from + e - header.start;
+    const a = headerCols[s] as number;
+    const b = headerCols[e] as number;
     let first = columns.findIndex(([, ce]) => ce > a);
     if (first < 0) first = columns.length - 1;
     let last = first;
@@ -156,17 +162,22 @@ export function alignedTable(lines: readonly TextLine[]): TextCell[] | undefined
   let valueCells = 0;
   let numbers = 0;
   body.forEach((l, r) => {
+    const c = cols[r + 1] as Int32Array;
     let inRow = 0;
-    columns.forEach(([a, b], c) => {
-      const from = Math.max(l.from, l.start + a);
-      const to = Math.min(l.to, l.start + b);
-      if (to <= from) return;
-      const [s, e] = trimRange(l.text, from - l.from, to - l.from);
+    let i = 0;
+    const n = l.to - l.from;
+    columns.forEach(([a, b], col) => {
+      // the characters whose display columns start inside this column
+      while (i < n && (c[i] as number) < a) i += 1;
+      let j = i;
+      while (j < n && (c[j] as number) < b) j += 1;
+      const [s, e] = trimRange(l.text, i, j);
+      i = j;
       if (e <= s) return;
-      cells.push({ from: l.from + s, to: l.from + e, row: r + 1, column: c });
+      cells.push({ from: l.from + s, to: l.from + e, row: r + 1, column: col });
       inRow += 1;
       characters += e - s;
-      if (c > 0) {
+      if (col > 0) {
         valueCells += 1;
         if (DIGIT.test(l.text.slice(s, e))) numbers += 1;
       }
@@ -177,6 +188,26 @@ export function alignedTable(lines: readonly TextLine[]): TextCell[] | undefined
   // the tables worth reading hold numbers beside their row labels; aligned prose does not
   if (fullRows < 2 || characters > MAX_MEAN_CELL * bodyCells || numbers * 2 < valueCells) return undefined;
   return cells;
+}
+
+/** Ligatures as PDF text keeps them: one character standing for two or three letters' width. */
+const LIGATURE_WIDTH: Readonly<Record<string, number>> = { '\uFB00': 2, '\uFB01': 2, '\uFB02': 2, '\uFB03': 3, '\uFB04': 3, '\uFB05': 2, '\uFB06': 2 };
+
+/**
+ * The display column where each character of a line starts (index i; index length is the
+ * column after the last), counted from the source line's start: a ligature is as wide as the
+ * letters it stands for, so columns after "eﬀort" line up with those of lines without one.
+ */
+function displayColumns(l: TextLine): Int32Array {
+  const n = l.to - l.from;
+  const out = new Int32Array(n + 1);
+  let col = l.from - l.start;
+  for (let i = 0; i < n; i += 1) {
+    out[i] = col;
+    col += LIGATURE_WIDTH[l.text[i] as string] ?? 1;
+  }
+  out[n] = col;
+  return out;
 }
 
 /** Tab-separated lines: cells between runs of tabs. */

@@ -224,6 +224,51 @@ const paragraphs: SegmentCase[] = [
       { kind: 'text', text: 'Next paragraph.' },
     ],
   },
+  {
+    name: 'aligned columns with dashed rules above, under and below the header, a ligature in a row label (as wide as its letters) and a d column after p',
+    path: 'a.txt',
+    // laid out as the PDF page shows it: each column at a fixed display column, "ﬀ" two letters wide
+    source: [
+      ['', 'Serif (n = 18)', 'Sans (n = 31)', 't', 'df', 'p', 'd'],
+      ['-'.repeat(78)],
+      ['Speed', '189.3 (36.2)', '147.4 (13.4)', '4.72', '19.7', '< .001', '1.73'],
+      ['Rated e\uFB00ort', '2.93 (1.01)', '3.57 (0.59)', '-2.48', '23.9', '.021', '-0.84'],
+      ['-'.repeat(78)],
+    ]
+      .map((cells) => {
+        const at = [2, 18, 34, 50, 58, 66, 74];
+        let line = '';
+        let extra = 0; // display columns the ligatures so far take beyond their one character
+        cells.forEach((c, i) => {
+          line = line.padEnd((at[i] as number) - extra) + c;
+          if (c.includes('\uFB00')) extra += 1;
+        });
+        return line;
+      })
+      .join('\n'),
+    expect: [
+      cell('Serif (n = 18)', 0, 1),
+      cell('Sans (n = 31)', 0, 2),
+      cell('t', 0, 3),
+      cell('df', 0, 4),
+      cell('p', 0, 5),
+      cell('d', 0, 6),
+      cell('Speed', 1, 0),
+      cell('189.3 (36.2)', 1, 1),
+      cell('147.4 (13.4)', 1, 2),
+      cell('4.72', 1, 3),
+      cell('19.7', 1, 4),
+      cell('< .001', 1, 5),
+      cell('1.73', 1, 6),
+      cell('Rated e\uFB00ort', 2, 0),
+      cell('2.93 (1.01)', 2, 1),
+      cell('3.57 (0.59)', 2, 2),
+      cell('-2.48', 2, 3),
+      cell('23.9', 2, 4),
+      cell('.021', 2, 5),
+      cell('-0.84', 2, 6),
+    ],
+  },
 ];
 
 describe('plain-text tables', () => {
