@@ -77,6 +77,9 @@ const ENTRY_EVENT = /(?:admitted|hired|recruited|enrolled|born|employed|diagnose
 /** After "each participant received …": one of the conditions, not both. */
 const ONE_OF = /^ (?:only |just )?(?:one|a single|either|only|a randomly|randomly|at random|one of)(?![\p{L}])/iu;
 
+/** A study or experiment named by its number: "Experiment 2", "Study II", "Exp. 3", "study one". */
+const STUDY_LABEL = /(?<![\p{L}])(?:experiments?|stud(?:y|ies)|exp\.) ?(?:\d{1,2}|[IVX]{1,4}|one|two|three|four)(?![\p{L}\p{N}])/iu;
+
 /** Randomisation words, which an order of conditions uses too ("randomly assigned to the quiet condition first"). */
 const RANDOM_ORDER = /randomi|randomly|allocated|assigned/iu;
 const ONE_SAMPLE_WORDS = /(?<![\p{L}])(one-sample|single-sample)(?![\p{L}])/giu;
@@ -287,6 +290,17 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     if (value) effectSizes.push({ ...where(m.index, m.index + m[0].length), value, kind: k === 'dz' ? 'dz' : k === 'dav' ? 'dav' : k === 'g' ? 'g' : 'd' });
   }
   const designs: DesignStatement[] = [];
+  // whether a sentence names a study or experiment ("Experiment 2", "Study II"), read once per sentence
+  const studyBySentence = new Map<number, boolean>();
+  const namesStudy = (at: number): boolean => {
+    const i = sentenceOf(sentenceStarts, at);
+    let named = studyBySentence.get(i);
+    if (named === undefined) {
+      named = STUDY_LABEL.test(sentenceAt(at));
+      studyBySentence.set(i, named);
+    }
+    return named;
+  };
   if (/paired|pre|post|before|baseline|same|within|repeated|cross|matched|twice|again|each|both|occasions|time ?points|related|dependent|counterbalanced|independent|separate|different|randomi|randomly|allocated|assigned|between|sample|welch|student/i.test(text)) for (const [re, design] of [[PAIRED_WORDS, 'paired'], [SAME_UNITS, 'paired'], [SAME_MEASURED, 'paired'], [INDEPENDENT_WORDS, 'independent'], [INDEPENDENT_TESTS, 'independent'], [ONE_SAMPLE_WORDS, 'one-sample']] as const) {
     for (const m of text.matchAll(re)) {
       // "randomly assigned to the quiet condition first": an order of conditions, not separate groups
@@ -294,7 +308,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
       if (design === 'paired' && !pairedInContext(text, m.index, m[0], sentenceAt(m.index))) continue;
       // "paired Student's t-test" is a paired test
       if (design === 'independent' && /^student/iu.test(m[0]) && /paired $/iu.test(text.slice(Math.max(0, m.index - 7), m.index))) continue;
-      designs.push({ ...where(m.index, m.index + m[0].length), design });
+      designs.push({ ...where(m.index, m.index + m[0].length), design, ...(namesStudy(m.index) ? { namesStudy: true } : {}) });
     }
   }
   const references: ReferenceValue[] = [];

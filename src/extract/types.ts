@@ -269,6 +269,8 @@ export interface DesignStatement {
   design: 'paired' | 'independent' | 'one-sample';
   span: Span;
   printed: string;
+  /** Its sentence names one study or experiment ("Experiment 2 used …"): the design is that study's. */
+  namesStudy?: boolean;
 }
 
 /**

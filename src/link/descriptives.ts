@@ -516,7 +516,9 @@ function designFor(report: TTestReport, clause: Clause, clauses: ClauseIndex, de
   if (sentence) return sentence;
   // the paragraph's words about the design, from sentences that report no test: words beside
   // another result ("each staff member measured twice") are that result's
-  const paragraph = pick(designs.all(report.segment).filter((d) => clauses.statisticsInSentence(d.segment, d.sentence) === 0), 'paragraph');
+  // nor from a sentence about one study ("Experiment 2 used a within-participants design"),
+  // which the paragraph of an abstract or discussion sets beside results of another study
+  const paragraph = pick(designs.all(report.segment).filter((d) => clauses.statisticsInSentence(d.segment, d.sentence) === 0 && !d.namesStudy), 'paragraph');
   if (paragraph) return paragraph;
   return undefined;
 }

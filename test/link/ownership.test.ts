@@ -237,6 +237,12 @@ describe('the design comes from beside the result, else from the Methods of a si
     const named = run('The gain was 1.61 cm (SD = 1.27, n = 14) and 0.21 cm (SD = 1.61, n = 10), paired t(9) = 2.39, p = .041.');
     expect(named.results[0]?.context.design.value).toBe('paired');
   });
+  it('a sentence about one study ("Experiment 2 used a within-participants design") gives no design to the other results of its paragraph', () => {
+    const r = run('In Experiment 1, loud rooms slowed proofreading (M = 41.2, SD = 6.1 vs M = 36.0, SD = 5.9), t(58) = 3.35, p = .001. Experiment 2 used a within-participants design with the same people in both rooms.');
+    expect(r.results[0]?.context.design.value).toBe('unknown');
+    const plain = run('Loud rooms slowed proofreading (M = 41.2, SD = 6.1 vs M = 36.0, SD = 5.9), t(29) = 3.35, p = .002. The same people were tested in both rooms.');
+    expect(plain.results[0]?.context.design).toMatchObject({ value: 'paired', basis: 'paragraph' });
+  });
   it('a document of several studies takes no design from any one study\'s Methods', () => {
     const r = run('## Study 1 Methods\n\nParticipants were randomly assigned to two groups.\n\n## Study 1 Results\n\nA rose, t(40) = 2.10, p = .042.\n\n## Study 2 Methods\n\nEach participant completed both conditions.\n\n## Study 2 Results\n\nRatings differed (M = 6.13, SD = 0.51; M = 2.01, SD = 0.35), t(29) = 34.74, p < .001.');
     expect(r.results.map((x) => x.context.design.basis)).toEqual(['default', 'default']);
