@@ -134,6 +134,18 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     const i = sentenceOf(sentenceStarts, at);
     return text.slice(sentenceStarts[i] as number, sentenceStarts[i + 1] ?? text.length);
   };
+  /**
+   * A fact about the sentence holding a text index, computed once per sentence: a sentence of
+   * thousands of matches is read once, not once per match.
+   */
+  const perSentence = <T>(compute: (sentence: string) => T): ((at: number) => T) => {
+    const memo = new Map<number, T>();
+    return (at) => {
+      const i = sentenceOf(sentenceStarts, at);
+      if (!memo.has(i)) memo.set(i, compute(sentenceAt(at)));
+      return memo.get(i) as T;
+    };
+  };
   const where = (a: number, b: number) => ({
     segment: seg.id,
     block: seg.block,
@@ -200,17 +212,8 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     const b = num(seg, m, 2) ?? num(seg, m, 4);
     if (a && b) groupSizes.push({ ...where(m.index, m.index + m[0].length), ns: [a, b] });
   }
-  // the kinds of unit each sentence counts, read once per sentence
-  const kindsBySentence = new Map<number, Set<string>>();
-  const kindsOfSentence = (at: number): Set<string> => {
-    const i = sentenceOf(sentenceStarts, at);
-    let kinds = kindsBySentence.get(i);
-    if (!kinds) {
-      kinds = unitKindsIn(sentenceAt(at));
-      kindsBySentence.set(i, kinds);
-    }
-    return kinds;
-  };
+  // the kinds of unit each sentence counts
+  const kindsOfSentence = perSentence(unitKindsIn);
   if (/\d (?:[a-z]{3,12})/.test(text)) for (const m of text.matchAll(PARTICIPANTS)) {
     const a = num(seg, m, 1);
     // "groups of 30 nurses each", "24 pupils per class": a group's size, not the total
@@ -290,22 +293,16 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     if (value) effectSizes.push({ ...where(m.index, m.index + m[0].length), value, kind: k === 'dz' ? 'dz' : k === 'dav' ? 'dav' : k === 'g' ? 'g' : 'd' });
   }
   const designs: DesignStatement[] = [];
-  // whether a sentence names a study or experiment ("Experiment 2", "Study II"), read once per sentence
-  const studyBySentence = new Map<number, boolean>();
-  const namesStudy = (at: number): boolean => {
-    const i = sentenceOf(sentenceStarts, at);
-    let named = studyBySentence.get(i);
-    if (named === undefined) {
-      named = STUDY_LABEL.test(sentenceAt(at));
-      studyBySentence.set(i, named);
-    }
-    return named;
-  };
+  // whether a sentence names a study or experiment ("Experiment 2", "Study II"); an order of
+  // conditions; both a pre-test and a post-test
+  const namesStudy = perSentence((sentence) => STUDY_LABEL.test(sentence));
+  const namesOrder = perSentence((sentence) => ORDER_WORDS.test(sentence));
+  const namesBothTimes = perSentence((sentence) => /pre-?test/iu.test(sentence) && /post-?test/iu.test(sentence));
   if (/paired|pre|post|before|baseline|same|within|repeated|cross|matched|twice|again|each|both|occasions|time ?points|related|dependent|counterbalanced|independent|separate|different|randomi|randomly|allocated|assigned|between|sample|welch|student/i.test(text)) for (const [re, design] of [[PAIRED_WORDS, 'paired'], [SAME_UNITS, 'paired'], [SAME_MEASURED, 'paired'], [INDEPENDENT_WORDS, 'independent'], [INDEPENDENT_TESTS, 'independent'], [ONE_SAMPLE_WORDS, 'one-sample']] as const) {
     for (const m of text.matchAll(re)) {
       // "randomly assigned to the quiet condition first": an order of conditions, not separate groups
-      if (design === 'independent' && RANDOM_ORDER.test(m[0]) && ORDER_WORDS.test(sentenceAt(m.index))) continue;
-      if (design === 'paired' && !pairedInContext(text, m.index, m[0], sentenceAt(m.index))) continue;
+      if (design === 'independent' && RANDOM_ORDER.test(m[0]) && namesOrder(m.index)) continue;
+      if (design === 'paired' && !pairedInContext(text, m.index, m[0], namesBothTimes)) continue;
       // "paired Student's t-test" is a paired test
       if (design === 'independent' && /^student/iu.test(m[0]) && /paired $/iu.test(text.slice(Math.max(0, m.index - 7), m.index))) continue;
       designs.push({ ...where(m.index, m.index + m[0].length), design, ...(namesStudy(m.index) ? { namesStudy: true } : {}) });
@@ -406,11 +403,11 @@ function countOf(text: string, at: number): { start: number; end: number } | und
  *   the opposite of a paired design, and "each participant was randomly assigned" says nothing
  *   of one.
  */
-function pairedInContext(text: string, at: number, words: string, sentence: string): boolean {
+function pairedInContext(text: string, at: number, words: string, namesBothTimes: (at: number) => boolean): boolean {
   const lower = words.toLowerCase();
   const after = text.slice(at + words.length, at + words.length + 40);
   if (lower === 'paired' && /^ with(?![\p{L}])/u.test(after)) return false;
-  if (/^(?:pre|post)-?test$/u.test(lower) && !(/pre-?test/iu.test(sentence) && /post-?test/iu.test(sentence))) return false;
+  if (/^(?:pre|post)-?test$/u.test(lower) && !namesBothTimes(at)) return false;
   if (lower.startsWith('before and after') && ENTRY_EVENT.test(text.slice(Math.max(0, at - 20), at))) return false;
   if (lower.startsWith('each ') && (ONE_OF.test(after) || (/ was$/u.test(lower) && /^ (?:randomi[sz]ed|randomly|assigned|allocated)(?![\p{L}])/iu.test(after)))) return false;
   return true;
