@@ -1,4 +1,4 @@
-import { fill, inferDesign, linkDoubts, numberInterval, showInterval, tInterval, type EffectSizeReport, type GroupSummary, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS, isWholeDf } from '../src/rule-api/index.js';
+import { fill, inferDesign, linkDoubts, spreadReadings, numberInterval, showInterval, tInterval, type EffectSizeReport, type GroupSummary, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS, isWholeDf } from '../src/rule-api/index.js';
 import { dAverage, dFromMeansPooled, dFromTIndependent, dRepeatedMeasures, dzFromT, hedgesCorrection, studentAbsT, type Box, type Interval } from '../src/stats/index.js';
 
 const messages = {
@@ -97,12 +97,6 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
     candidates.push({ name: 'd = 2t/√df', range: { low: (2 * absT[0]) / Math.sqrt(df), high: (2 * absT[1]) / Math.sqrt(df) }, family: 'independent' });
   }
   // From the means and SDs. Spreads read as labelled: SDs as they are, SEs as SD = SE·√n, unstated ones both ways.
-  const readings = (list: readonly string[]): boolean[] => (list.every((k) => k === 'SD') ? [false] : list.every((k) => k === 'SE') ? [true] : [false, true]);
-  const sdBox = (g: GroupSummary, n: number | undefined, asSE: boolean): Box | undefined => {
-    const b = numberInterval(g.spread!.number);
-    if (!asSE) return b;
-    return n === undefined ? undefined : [b[0] * Math.sqrt(n), b[1] * Math.sqrt(n)];
-  };
   if (groups.length === 2 && groups.every((g) => g.mean && g.spread)) {
     const [g1, g2] = groups as [GroupSummary, GroupSummary];
     const m1 = numberInterval(g1.mean!);
@@ -110,7 +104,7 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
     const paired = design === 'paired' && !welch;
     const n1 = ns[0] ?? (paired ? df + 1 : undefined);
     const n2 = ns[1] ?? (paired ? df + 1 : undefined);
-    for (const asSE of readings(kinds)) {
+    for (const asSE of spreadReadings(kinds)) {
       const s1 = sdBox(g1, n1, asSE);
       const s2 = sdBox(g2, n2, asSE);
       if (!s1 || !s2) {
@@ -137,7 +131,7 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
     const m = numberInterval(single.mean);
     const mu = result.context.reference?.value.value ?? 0;
     const diff = [Math.abs(m[0] - mu), Math.abs(m[1] - mu)].sort((a, b) => a - b) as Box;
-    for (const asSE of readings(kinds)) {
+    for (const asSE of spreadReadings(kinds)) {
       const s = sdBox(single, single.n?.value ?? df + 1, asSE) as Box;
       candidates.push({ name: `d = (M − μ0)/SD${asSE ? ' (spread read as an SE, SD = SE·√n)' : ''}`, range: { low: diff[0] / s[1], high: diff[1] / s[0] } });
     }
@@ -189,6 +183,13 @@ function checkOne(result: LinkedResult, es: EffectSizeReport): RuleFinding | und
   };
 }
 
+/** A group's SD box: the printed spread, or SE·√n when it is read as an SE (undefined without n). */
+function sdBox(g: GroupSummary, n: number | undefined, asSE: boolean): Box | undefined {
+  const b = numberInterval(g.spread!.number);
+  if (!asSE) return b;
+  return n === undefined ? undefined : [b[0] * Math.sqrt(n), b[1] * Math.sqrt(n)];
+}
+
 /**
  * The splits (n1, n2) of a total with which two groups' printed means and SDs give the reported
  * Student's |t| within rounding, spreads read as labelled (unstated ones both ways). Undefined
@@ -201,16 +202,12 @@ function splitsGivingT(groups: readonly GroupSummary[], kinds: readonly string[]
   const [g1, g2] = groups as [GroupSummary, GroupSummary];
   const m1 = numberInterval(g1.mean!);
   const m2 = numberInterval(g2.mean!);
-  const ses = kinds.every((k) => k === 'SD') ? [false] : kinds.every((k) => k === 'SE') ? [true] : [false, true];
+  const ses = spreadReadings(kinds);
   const out: Array<[number, number]> = [];
   for (let a = 2; a <= total - 2; a += 1) {
     const b = total - a;
     const gives = ses.some((asSE) => {
-      const s = (g: GroupSummary, n: number): Box => {
-        const box = numberInterval(g.spread!.number);
-        return asSE ? [box[0] * Math.sqrt(n), box[1] * Math.sqrt(n)] : box;
-      };
-      const t = studentAbsT(m1, s(g1, a), a, m2, s(g2, b), b);
+      const t = studentAbsT(m1, sdBox(g1, a, asSE) as Box, a, m2, sdBox(g2, b, asSE) as Box, b);
       return t.low <= absT[1] && t.high >= absT[0];
     });
     if (gives) out.push([a, b]);

@@ -1,4 +1,4 @@
-import { describeAttempt, dfInterval, evaluateDescriptives, fill, numberInterval, showInterval, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts, isWholeDf } from '../src/rule-api/index.js';
+import { describeAttempt, dfInterval, evaluateDescriptives, spreadReadings, fill, numberInterval, showInterval, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts, isWholeDf } from '../src/rule-api/index.js';
 import { pairedImpliedCorrelation } from '../src/stats/index.js';
 
 const messages = {
@@ -53,7 +53,7 @@ export const tFollowsFromDescriptives: Rule = {
         const [g1, g2] = e.groups;
         const n = r.df.value + 1;
         // Spreads labelled SE are SD/√n of each measurement; unstated ones may be either.
-        const sdReadings = e.kinds.every((k) => k === 'SD') ? [false] : e.kinds.every((k) => k === 'SE') ? [true] : [false, true];
+        const sdReadings = spreadReadings(e.kinds);
         const possible = sdReadings.some((asSE) => {
           const sd = (g: typeof g1): [number, number] => {
             const b = numberInterval(g!.spread!.number);

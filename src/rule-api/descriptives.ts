@@ -176,6 +176,14 @@ export function welchWithinDf([dl, dh]: [number, number]): { maxSmaller: number;
   return { maxSmaller: Math.floor(dh) + 1, minTotal: Math.max(4, Math.ceil(dl - 1e-9) + 2) };
 }
 
+/**
+ * How two groups' spreads may be read, as SDs (false) or SEs (true): as labelled when both are
+ * labelled alike, either way otherwise.
+ */
+export function spreadReadings(kinds: readonly string[]): boolean[] {
+  return kinds.every((k) => k === 'SD') ? [false] : kinds.every((k) => k === 'SE') ? [true] : [false, true];
+}
+
 function gapTo(a: Interval, b: Interval): number {
   if (a.high < b.low) return b.low - a.high;
   if (a.low > b.high) return a.low - b.high;
