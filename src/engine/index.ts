@@ -52,6 +52,7 @@ export function checkSource(path: string, source: string, options: CheckOptions 
   const place = (span: Span): Place => ({ span, start: lines.position(span.start), end: lines.position(span.end) });
 
   const findings: Finding[] = [];
+  let quieted = 0;
   const checklist: ChecklistRecord[] = [];
   for (const rule of RULES) {
     const level = levels[rule.id] ?? rule.defaultLevel;
@@ -76,7 +77,10 @@ export function checkSource(path: string, source: string, options: CheckOptions 
       });
     }
     for (const f of rule.check({ document: linked, options: rule.defaultOptions })) {
-      if (f.block !== undefined && isQuieted(doc, f.block, rule.id)) continue;
+      if (f.block !== undefined && isQuieted(doc, f.block, rule.id)) {
+        quieted += 1;
+        continue;
+      }
       const { block: _block, related, uncertain, ...rest } = f;
       // Certainty before speech: a finding resting on a link that is not certain is a note
       // saying what could not be checked, whatever the rule's level.
@@ -88,10 +92,12 @@ export function checkSource(path: string, source: string, options: CheckOptions 
         level: unsure ? 'note' : (level as Level),
         ...place(f.span),
         ...(related ? { related: related.map((r) => ({ ...place(r.span), message: r.message })) } : {}),
+        fingerprint: '',
       });
     }
   }
   findings.sort((a, b) => a.span.start - b.span.start || RULE_IDS.indexOf(a.ruleId) - RULE_IDS.indexOf(b.ruleId));
+  addFingerprints(findings, source);
 
   const num = (n: ReportedNumber): NumberRecord => ({ printed: n.printed, value: n.value, decimals: n.decimals, exponent: n.exponent, ...place(n.span) });
   const pRecord = (p: ReportedP): NonNullable<ResultRecord['p']> => ({
@@ -123,7 +129,7 @@ export function checkSource(path: string, source: string, options: CheckOptions 
       ...(e ? { recomputed: { twoTailed: e.check.twoSided, oneTailed: e.check.oneSidedSame, standing: e.standing } } : {}),
     };
   });
-  return { path, format: doc.format, results, findings, checklist, guidelines, alpha: linked.documentAlpha, sidedness: linked.documentSidedness, source };
+  return { path, format: doc.format, results, findings, checklist, guidelines, alpha: linked.documentAlpha, sidedness: linked.documentSidedness, hidden: { quiet: quieted, baseline: 0 }, source };
 }
 
 function contextRecord(c: ResultContext, place: (s: Span) => Place): ResultRecord['context'] {
@@ -152,11 +158,37 @@ function contextRecord(c: ResultContext, place: (s: Span) => Place): ResultRecor
   };
 }
 
+/**
+ * Each finding's fingerprint: its rule, the printed text it stands on (spacing collapsed) and its
+ * occurrence among findings of that rule on identical text, in reading order. No line number or
+ * offset goes in, so text inserted elsewhere in the file leaves it unchanged; editing the flagged
+ * text itself makes a new finding.
+ */
+function addFingerprints(findings: Finding[], source: string): void {
+  const seen = new Map<string, number>();
+  for (const f of findings) {
+    const key = `${f.ruleId}\u0000${source.slice(f.span.start, f.span.end).replace(/\s+/g, ' ').trim()}`;
+    const n = seen.get(key) ?? 0;
+    seen.set(key, n + 1);
+    f.fingerprint = `${hash64(key)}:${n}`;
+  }
+}
+
+/** 64-bit FNV-1a of a string's UTF-16 code units, as 16 hex digits (no Node API: the browser page runs this too). */
+function hash64(s: string): string {
+  let h = 0xcbf29ce484222325n;
+  for (let i = 0; i < s.length; i++) {
+    h ^= BigInt(s.charCodeAt(i));
+    h = (h * 0x100000001b3n) & 0xffffffffffffffffn;
+  }
+  return h.toString(16).padStart(16, '0');
+}
+
 function isQuieted(doc: ParsedDocument, block: number, ruleId: string): boolean {
   return doc.directives.some((d) => d.verb === 'quiet' && d.reason !== '' && d.appliesToBlock === block && d.ruleIds.includes(ruleId));
 }
 
-/** Settings from front matter (`plumbline:` key) over configuration, under the command line. */
+/** Settings: front matter (`plumbline:` key) over the command line, over the configuration file. */
 const ALL_GUIDELINES: Guideline[] = ['sampl', 'jars-quant', 'consort'];
 
 function resolveSettings(
@@ -173,9 +205,11 @@ function resolveSettings(
     if (problems.length > 0) frontMatterError = { message: `plumbline settings: ${problems.join('; ')}`, span: fm.span };
     else front = (fm.data.plumbline ?? {}) as Config;
   }
+  // The order README "Configuration" documents: the document's own front matter, then the
+  // command line (or the options of a library call), then the configuration file.
   const pick = <T>(cli: T | undefined, fmValue: T | undefined, cfg: T | undefined): Setting<T> | undefined => {
-    if (cli !== undefined) return { value: cli, basis: 'configuration' };
     if (fmValue !== undefined) return { value: fmValue, basis: 'front-matter', ...(fm ? { span: fm.span } : {}) };
+    if (cli !== undefined) return { value: cli, basis: 'command-line' };
     if (cfg !== undefined) return { value: cfg, basis: 'configuration' };
     return undefined;
   };

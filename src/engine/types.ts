@@ -91,6 +91,11 @@ export interface Finding extends Place {
   resultId?: string;
   /** Why the finding is only a note: the links it rests on that are not certain. */
   uncertain?: string[];
+  /**
+   * Stable across edits elsewhere in the file: a hash of the rule and the flagged text, then
+   * ":" and the occurrence among identical ones. Baselines and SARIF partialFingerprints use it.
+   */
+  fingerprint: string;
 }
 
 /** One checklist item for a file: the guideline items it follows and its entries. */
@@ -111,6 +116,8 @@ export interface FileReport {
   guidelines: Guideline[];
   alpha: Setting<number>;
   sidedness: Setting<Sidedness>;
+  /** Findings not reported: silenced by a quiet comment in the file, or recorded in a baseline. */
+  hidden: { quiet: number; baseline: number };
   /** The source text, for formatters that show the line of a finding. */
   source: string;
 }

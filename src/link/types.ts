@@ -4,7 +4,7 @@ import type { ResultContext } from './descriptives.js';
 export type { IntervalTarget, LinkBasis, Linked } from './descriptives.js';
 
 /** Where a setting that applies to a result came from, most specific first. */
-export type SettingBasis = 'in-report' | 'sentence' | 'paragraph' | 'equivalence-test' | 'methods' | 'document-text' | 'structure' | 'front-matter' | 'configuration' | 'default';
+export type SettingBasis = 'in-report' | 'sentence' | 'paragraph' | 'equivalence-test' | 'methods' | 'document-text' | 'structure' | 'front-matter' | 'command-line' | 'configuration' | 'default';
 
 export interface Setting<T> {
   value: T;

@@ -9,6 +9,8 @@ export interface RuleInfo {
   defaultLevel: LevelSetting;
   /** The rule's page (rules/<id>.md) as Markdown. */
   doc: string;
+  /** Where people can read the page (SARIF `helpUri`). */
+  helpUri?: string;
 }
 
 export interface RunReport {
@@ -26,6 +28,10 @@ export interface Counts {
   warning: number;
   note: number;
   failures: number;
+  /** Findings silenced by quiet comments in the files. */
+  hiddenByQuiet: number;
+  /** Findings recorded in the baseline (--baseline), so not reported. */
+  hiddenByBaseline: number;
 }
 
 /** Said in every report (README "Cautions"). */
@@ -36,8 +42,10 @@ export const CAUTIONS: readonly string[] = [
 ];
 
 export function countRun(run: RunReport): Counts {
-  const c: Counts = { files: run.files.length, results: 0, checked: 0, error: 0, warning: 0, note: 0, failures: run.failures.length };
+  const c: Counts = { files: run.files.length, results: 0, checked: 0, error: 0, warning: 0, note: 0, failures: run.failures.length, hiddenByQuiet: 0, hiddenByBaseline: 0 };
   for (const f of run.files) {
+    c.hiddenByQuiet += f.hidden.quiet;
+    c.hiddenByBaseline += f.hidden.baseline;
     c.results += f.results.length;
     c.checked += f.results.filter((r) => r.recomputed !== undefined).length;
     for (const x of f.findings) c[x.level] += 1;

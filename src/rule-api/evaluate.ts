@@ -42,7 +42,8 @@ export function describeTails(result: LinkedResult): string {
     methods: 'as the Methods state it',
     'document-text': 'as stated in the document',
     'front-matter': 'set in front matter',
-    configuration: 'set in configuration',
+    'command-line': 'set on the command line',
+    configuration: 'set in a configuration file',
     default: 'by default; nothing says otherwise',
   }[result.sidedness.basis];
   return `${result.sidedness.value === 'one' ? 'one-tailed' : 'two-tailed'} (${where})`;
