@@ -1,10 +1,30 @@
 /**
- * plumbline as a library: check manuscript text, get results and findings as data, format
- * them. The command line (src/cli) is a thin layer over these.
+ * plumbline as a library: check manuscript text, or files and folders as the command line
+ * does, get results and findings as data, and format them in any of the report formats. The
+ * command line (src/cli) is a thin layer over these.
  */
 export { checkSource, RULES, RULE_IDS, ruleById, type CheckOptions } from './engine/index.js';
-export type { FileFailure, FileReport, Finding, NumberRecord, Place, ResultRecord } from './engine/types.js';
-export { ConfigError, ConfigFinder, parseConfigText, readConfigFile, type Config } from './config/index.js';
-export { formatHuman, formatJson, formatSarif, CAUTIONS, JSON_REPORT_VERSION, type RunReport, type RuleInfo } from './report/index.js';
+export type { ChecklistRecord, FileFailure, FileReport, Finding, LinkedRecord, NumberRecord, Place, ResultRecord } from './engine/types.js';
+export { ConfigError, ConfigFinder, parseConfigText, readConfigFile, type Config, type FoundConfig } from './config/index.js';
+export {
+  formatHuman,
+  formatLines,
+  formatJson,
+  formatSarif,
+  formatChecklist,
+  formatHtml,
+  formatRulesJson,
+  countRun,
+  CAUTIONS,
+  JSON_REPORT_VERSION,
+  type Counts,
+  type HumanOptions,
+  type RuleInfo,
+  type RuleListing,
+  type RunReport,
+} from './report/index.js';
+export { checkFiles, type FileRun, type RunnerOptions } from './cli/runner.js';
+export { expandArguments, MANUSCRIPT_EXTENSIONS, SKIPPED_FOLDERS, type ExpandOptions, type Expansion, type IgnoreSource } from './cli/files.js';
+export { applyBaseline, baselineText, readBaseline, BaselineError, BASELINE_FORMAT, BASELINE_VERSION, type Baseline, type BaselineEntry } from './cli/baseline.js';
 export type { Gap, Level, LevelSetting, Recomputed, Rule, RuleKind } from './rule-api/types.js';
 export { twoSidedPFromT, oneSidedPFromT, twoSidedCriticalT, roundingInterval } from './stats/index.js';

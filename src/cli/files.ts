@@ -1,9 +1,16 @@
-import { readdirSync, realpathSync, statSync } from 'node:fs';
-import { isAbsolute, join, resolve } from 'node:path';
+import { closeSync, fstatSync, openSync, readdirSync, readSync, realpathSync, statSync } from 'node:fs';
+import { dirname, isAbsolute, join, relative, resolve, sep } from 'node:path';
+import ignore, { type Ignore } from 'ignore';
 import { globSync } from 'tinyglobby';
 
 /** Extensions read when a folder is given. */
 export const MANUSCRIPT_EXTENSIONS = ['.md', '.markdown', '.txt', '.rmd', '.qmd'] as const;
+
+/**
+ * Folders never walked: dependencies, and the rendered output of Quarto, R Markdown sites and
+ * bookdown (which repeats the manuscript's text). Dot-folders and dot-files are skipped too.
+ */
+export const SKIPPED_FOLDERS = ['node_modules', '_site', '_book', '_freeze', '_bookdown_files'] as const;
 
 export interface Expansion {
   files: string[];
@@ -11,20 +18,37 @@ export interface Expansion {
   missing: Array<{ path: string; message: string }>;
 }
 
+/** Ignore patterns (.gitignore syntax) and the folder they are relative to. */
+export interface IgnoreSource {
+  base: string;
+  patterns: string[];
+}
+
+export interface ExpandOptions {
+  /** Patterns from configuration that apply in a folder (absolute path), nearest last. */
+  ignoresFor?: (folder: string) => IgnoreSource[];
+  /** Read .gitignore files in the folders walked and above them up to the repository's root (default true). */
+  gitignore?: boolean;
+}
+
 const isManuscript = (name: string) => MANUSCRIPT_EXTENSIONS.some((e) => name.toLowerCase().endsWith(e));
 const GLOB_CHARS = /[*?[\]{}]/;
+/** A .gitignore larger than this is not read (a repository could hold anything). */
+const MAX_GITIGNORE_BYTES = 1024 * 1024;
 
 /**
- * Arguments into files, in a stable order: a file as given (any extension); a folder walked
- * recursively for manuscript extensions (skipping node_modules and dot-folders, following
- * symbolic links once: a link loop is visited only once); a glob expanded. Relative
- * arguments are taken from `cwd` and reported as given.
+ * Arguments into files, in a stable order: a file as given (any extension, never ignored); a
+ * folder walked recursively for manuscript extensions (skipping SKIPPED_FOLDERS, dot-folders,
+ * what .gitignore files and the configuration's `ignore` patterns exclude, and following
+ * symbolic links once: a link loop is visited only once); a glob expanded, less what is
+ * ignored. Relative arguments are taken from `cwd` and reported as given.
  */
-export function expandArguments(args: string[], cwd = process.cwd()): Expansion {
+export function expandArguments(args: string[], cwd = process.cwd(), options: ExpandOptions = {}): Expansion {
   const at = (p: string) => resolve(cwd, p);
   const files: string[] = [];
   const missing: Expansion['missing'] = [];
   const seen = new Set<string>();
+  const ignored = new IgnoreRules(options);
   const add = (f: string) => {
     if (!seen.has(f)) {
       seen.add(f);
@@ -37,21 +61,114 @@ export function expandArguments(args: string[], cwd = process.cwd()): Expansion 
       stat = statSync(at(arg));
     } catch (e) {
       if (GLOB_CHARS.test(arg)) {
-        const matched = globSync(arg, { cwd, onlyFiles: true, dot: false, absolute: isAbsolute(arg), ignore: ['**/node_modules/**'] }).sort();
-        if (matched.length === 0) missing.push({ path: arg, message: 'no file matches this pattern' });
+        const all = globSync(arg, { cwd, onlyFiles: true, dot: false, absolute: isAbsolute(arg), ignore: SKIPPED_FOLDERS.map((f) => `**/${f}/**`) }).sort();
+        const matched = all.filter((f) => !ignored.test(at(f), false));
+        if (matched.length === 0) missing.push({ path: arg, message: all.length === 0 ? 'no file matches this pattern' : 'every file this pattern matches is ignored (.gitignore or the configuration\'s "ignore")' });
         matched.forEach(add);
       } else {
         missing.push({ path: arg, message: describeError(e) });
       }
       continue;
     }
-    if (stat.isDirectory()) walk(arg, new Set(), add, at);
+    if (stat.isDirectory()) walk(arg, new Set(), add, at, ignored);
     else add(arg);
   }
   return { files, missing };
 }
 
-function walk(dir: string, visited: Set<string>, add: (f: string) => void, at: (p: string) => string): void {
+/** The ignore patterns in force: configuration `ignore` lists and .gitignore files, each read once. */
+class IgnoreRules {
+  private readonly gitignores = new Map<string, Ignore | undefined>();
+  private readonly configs = new Map<string, Ignore>();
+  private readonly gitRoots = new Map<string, string | undefined>();
+
+  constructor(private readonly options: ExpandOptions) {}
+
+  /** Whether an absolute path is ignored (a folder when `isDir`). */
+  test(path: string, isDir: boolean): boolean {
+    const folder = dirname(path);
+    let state = false;
+    if (this.options.gitignore !== false) {
+      const root = this.gitRoot(folder);
+      // .gitignore files from the repository's root (or the file's folder outside one) down
+      const chain: string[] = [];
+      for (let d = folder; ; d = dirname(d)) {
+        chain.unshift(d);
+        if (d === root || dirname(d) === d) break;
+        if (root === undefined) break;
+      }
+      for (const base of chain) state = this.apply(this.gitignore(base), base, path, isDir, state);
+    }
+    let sources: IgnoreSource[] = [];
+    try {
+      sources = this.options.ignoresFor?.(folder) ?? [];
+    } catch {
+      // a bad configuration is reported when its files are checked
+    }
+    for (const s of sources) state = this.apply(this.config(s), s.base, path, isDir, state);
+    return state;
+  }
+
+  private apply(matcher: Ignore | undefined, base: string, path: string, isDir: boolean, state: boolean): boolean {
+    if (!matcher) return state;
+    const rel = relative(base, path);
+    if (rel === '' || rel.startsWith('..') || isAbsolute(rel)) return state;
+    const r = matcher.test(rel.split(sep).join('/') + (isDir ? '/' : ''));
+    return r.ignored ? true : r.unignored ? false : state;
+  }
+
+  private config(s: IgnoreSource): Ignore {
+    const k = `${s.base}\u0000${s.patterns.join('\u0000')}`;
+    let m = this.configs.get(k);
+    if (!m) {
+      m = ignore().add(s.patterns);
+      this.configs.set(k, m);
+    }
+    return m;
+  }
+
+  private gitignore(folder: string): Ignore | undefined {
+    if (this.gitignores.has(folder)) return this.gitignores.get(folder);
+    const text = readSmallRegularFile(join(folder, '.gitignore'), MAX_GITIGNORE_BYTES);
+    const m = text === undefined ? undefined : ignore().add(text);
+    this.gitignores.set(folder, m);
+    return m;
+  }
+
+  /** The nearest folder at or above `folder` holding .git, if any. */
+  private gitRoot(folder: string): string | undefined {
+    if (this.gitRoots.has(folder)) return this.gitRoots.get(folder);
+    let root: string | undefined;
+    try {
+      statSync(join(folder, '.git'));
+      root = folder;
+    } catch {
+      const parent = dirname(folder);
+      root = parent === folder ? undefined : this.gitRoot(parent);
+    }
+    this.gitRoots.set(folder, root);
+    return root;
+  }
+}
+
+/** A small regular file's text, or undefined (missing, not regular, too large, unreadable). */
+function readSmallRegularFile(path: string, maxBytes: number): string | undefined {
+  let fd: number | undefined;
+  try {
+    const s = statSync(path);
+    if (!s.isFile() || s.size > maxBytes) return undefined;
+    fd = openSync(path, 'r');
+    const bytes = Buffer.alloc(Math.min(fstatSync(fd).size, maxBytes));
+    const n = readSync(fd, bytes, 0, bytes.length, 0);
+    return bytes.subarray(0, n).toString('utf8');
+  } catch {
+    return undefined;
+  } finally {
+    if (fd !== undefined) closeSync(fd);
+  }
+}
+
+function walk(dir: string, visited: Set<string>, add: (f: string) => void, at: (p: string) => string, ignored: IgnoreRules): void {
   let real: string;
   try {
     real = realpathSync(at(dir));
@@ -68,7 +185,7 @@ function walk(dir: string, visited: Set<string>, add: (f: string) => void, at: (
   }
   entries.sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0));
   for (const e of entries) {
-    if (e.name.startsWith('.') || e.name === 'node_modules') continue;
+    if (e.name.startsWith('.') || (SKIPPED_FOLDERS as readonly string[]).includes(e.name)) continue;
     const path = join(dir, e.name);
     let isDir = e.isDirectory();
     let isFile = e.isFile();
@@ -81,8 +198,9 @@ function walk(dir: string, visited: Set<string>, add: (f: string) => void, at: (
         continue; // dangling link
       }
     }
-    if (isDir) walk(path, visited, add, at);
-    else if (isFile && isManuscript(e.name)) add(path);
+    if (isDir) {
+      if (!ignored.test(at(path), true)) walk(path, visited, add, at, ignored);
+    } else if (isFile && isManuscript(e.name) && !ignored.test(at(path), false)) add(path);
   }
 }
 

@@ -1,13 +1,43 @@
 #!/usr/bin/env node
-import { once } from 'node:events';
 import { run } from './run.js';
 
+/**
+ * Standard output that stops quietly when its reader goes away (`| head`, `| grep -m1`,
+ * quitting `less`): later writes are dropped and the exit status stays what the findings
+ * decide. Writes wait for 'drain' when the pipe is full, so a batch run never buffers without
+ * bound.
+ */
+let stdoutGone = false;
+process.stdout.on('error', (e: NodeJS.ErrnoException) => {
+  if (e.code === 'EPIPE' || e.code === 'ERR_STREAM_DESTROYED') stdoutGone = true;
+  else throw e;
+});
+
+process.stderr.on('error', (e: NodeJS.ErrnoException) => {
+  if (e.code !== 'EPIPE' && e.code !== 'ERR_STREAM_DESTROYED') throw e;
+});
+
+function writeStdout(s: string): void | Promise<void> {
+  if (stdoutGone) return;
+  if (process.stdout.write(s)) return;
+  return new Promise<void>((done) => {
+    const finish = () => {
+      process.stdout.off('drain', finish);
+      process.stdout.off('error', finish);
+      process.stdout.off('close', finish);
+      done();
+    };
+    process.stdout.once('drain', finish);
+    process.stdout.once('error', finish);
+    process.stdout.once('close', finish);
+  });
+}
+
 process.exitCode = await run(process.argv.slice(2), {
-  // wait for 'drain' when the pipe is full, so a batch run never buffers without bound
-  stdout: async (s) => {
-    if (!process.stdout.write(s)) await once(process.stdout, 'drain');
+  stdout: writeStdout,
+  stderr: (s) => {
+    process.stderr.write(s);
   },
-  stderr: (s) => process.stderr.write(s),
   stdin: process.stdin,
   cwd: process.cwd(),
   env: process.env,

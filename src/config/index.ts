@@ -1,3 +1,3 @@
-export { ConfigFinder, CONFIG_NAMES, mergeConfig, parseConfigText, readConfigFile } from './load.js';
+export { ConfigFinder, CONFIG_NAMES, MAX_CONFIG_BYTES, mergeConfig, parseConfigText, readConfigFile, type FoundConfig } from './load.js';
 export { configProblems, SCHEMA_RULE_IDS } from './validate.js';
 export { ConfigError, type Config } from './types.js';

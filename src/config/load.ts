@@ -1,4 +1,4 @@
-import { existsSync, readFileSync } from 'node:fs';
+import { closeSync, existsSync, fstatSync, openSync, readSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { parseDocument as parseYamlDocument } from 'yaml';
 import { ConfigError, type Config } from './types.js';
@@ -20,8 +20,10 @@ export function parseConfigText(text: string, file: string, knownRuleIds: readon
       const message = e instanceof Error ? e.message : String(e);
       const pos = /position (\d+)/.exec(message);
       const at = pos ? lineColumn(text, Number(pos[1])) : undefined;
+      // never echo the file's content: V8's message may quote it ("Unexpected token 's', "secret…" is not valid JSON")
       const cut = message.search(/ in JSON at position \d/);
-      throw new ConfigError(`invalid JSON: ${cut >= 0 ? message.slice(0, cut) : message}`, file, at?.line, at?.column);
+      const said = cut >= 0 ? message.slice(0, cut) : (/^(Unexpected token|Unexpected end of JSON input|Unexpected non-whitespace character)/.exec(message)?.[1] ?? 'not JSON');
+      throw new ConfigError(`invalid JSON: ${said.replace(/ '.*$/s, '')}`, file, at?.line, at?.column);
     }
   } else {
     const doc = parseYamlDocument(text, { schema: 'core', customTags: [], prettyErrors: true });
@@ -38,14 +40,54 @@ export function parseConfigText(text: string, file: string, knownRuleIds: readon
   return data as Config;
 }
 
+/** A configuration file larger than this is refused, unread (it may come from a stranger's repository). */
+export const MAX_CONFIG_BYTES = 1024 * 1024;
+
+/**
+ * Read a configuration file: only a regular file within MAX_CONFIG_BYTES (never a FIFO, device
+ * or link to one, which could block or never end), with a byte-order mark allowed. Errors say
+ * what is wrong in words and never echo the file's content.
+ */
 export function readConfigFile(file: string, knownRuleIds: readonly string[]): Config {
   let text: string;
+  let fd: number | undefined;
   try {
-    text = readFileSync(file, 'utf8');
+    const s = statSync(file);
+    if (s.isDirectory()) throw new ConfigError('cannot read configuration: it is a folder', file);
+    if (!s.isFile()) throw new ConfigError('cannot read configuration: not a regular file', file);
+    if (s.size > MAX_CONFIG_BYTES) throw new ConfigError(`cannot read configuration: ${s.size} bytes is over the limit of ${MAX_CONFIG_BYTES}`, file);
+    fd = openSync(file, 'r');
+    const bytes = Buffer.alloc(Math.min(fstatSync(fd).size, MAX_CONFIG_BYTES));
+    let read = 0;
+    while (read < bytes.length) {
+      const n = readSync(fd, bytes, read, bytes.length - read, read);
+      if (n === 0) break;
+      read += n;
+    }
+    text = bytes.subarray(0, read).toString('utf8').replace(/^\uFEFF/, '');
   } catch (e) {
-    throw new ConfigError(`cannot read configuration: ${(e as NodeJS.ErrnoException).code ?? String(e)}`, file);
+    if (e instanceof ConfigError) throw e;
+    throw new ConfigError(`cannot read configuration: ${readProblem(e)}`, file);
+  } finally {
+    if (fd !== undefined) closeSync(fd);
   }
   return parseConfigText(text, file, knownRuleIds);
+}
+
+function readProblem(e: unknown): string {
+  switch ((e as NodeJS.ErrnoException).code) {
+    case 'ENOENT':
+      return 'no such file';
+    case 'EACCES':
+    case 'EPERM':
+      return 'permission denied';
+    case 'ELOOP':
+      return 'too many levels of symbolic links';
+    case 'ENOTDIR':
+      return 'a part of its path is not a folder';
+    default:
+      return 'the file could not be read';
+  }
 }
 
 /**
@@ -54,30 +96,48 @@ export function readConfigFile(file: string, knownRuleIds: readonly string[]): C
  * per folder, so a batch reads each configuration file once.
  */
 export class ConfigFinder {
-  private readonly cache = new Map<string, { config: Config; files: string[] }>();
+  /** Each folder's outcome, an error included: a bad file is read (and reported) once per run. */
+  private readonly cache = new Map<string, FoundConfig | ConfigError>();
 
   constructor(private readonly knownRuleIds: readonly string[]) {}
 
-  forFile(path: string): { config: Config; files: string[] } {
+  forFile(path: string): FoundConfig {
     return this.forFolder(dirname(resolve(path)));
   }
 
-  private forFolder(folder: string): { config: Config; files: string[] } {
+  forFolder(folder: string): FoundConfig {
     const cached = this.cache.get(folder);
+    if (cached instanceof ConfigError) throw cached;
     if (cached) return cached;
-    const name = CONFIG_NAMES.map((n) => join(folder, n)).find((f) => existsSync(f));
-    const own = name ? readConfigFile(name, this.knownRuleIds) : undefined;
-    const parent = dirname(folder);
-    const above = own?.root || parent === folder ? { config: {}, files: [] } : this.forFolder(parent);
-    const result = own && name ? { config: mergeConfig(above.config, own), files: [...above.files, name] } : above;
+    let result: FoundConfig;
+    try {
+      const name = CONFIG_NAMES.map((n) => join(folder, n)).find((f) => existsSync(f));
+      const own = name ? readConfigFile(name, this.knownRuleIds) : undefined;
+      const parent = dirname(folder);
+      const above: FoundConfig = own?.root || parent === folder ? { config: {}, files: [], ignores: [] } : this.forFolder(parent);
+      result =
+        own && name
+          ? { config: mergeConfig(above.config, own), files: [...above.files, name], ignores: own.ignore?.length ? [...above.ignores, { base: folder, patterns: own.ignore }] : above.ignores }
+          : above;
+    } catch (e) {
+      if (e instanceof ConfigError) this.cache.set(folder, e);
+      throw e;
+    }
     this.cache.set(folder, result);
     return result;
   }
 }
 
+/** The configuration that applies in a folder, the files it came from, and their ignore patterns (each with its own folder). */
+export interface FoundConfig {
+  config: Config;
+  files: string[];
+  ignores: Array<{ base: string; patterns: string[] }>;
+}
+
 /** Later wins, key by key; rule levels merge per rule. */
 export function mergeConfig(base: Config, over: Config): Config {
-  const { root: _root, ...rest } = over;
+  const { root: _root, ignore: _ignore, ...rest } = over;
   return { ...base, ...rest, rules: { ...base.rules, ...over.rules } };
 }
 

@@ -8,6 +8,8 @@ export interface Config {
   integerItems?: number;
   /** Files larger than this are skipped, said (the CLI; default 50 MiB). */
   maxFileBytes?: number;
+  /** Patterns (.gitignore syntax, relative to the configuration file's folder) not checked when walking folders. */
+  ignore?: string[];
   guidelines?: 'all' | Array<'sampl' | 'jars-quant' | 'consort'>;
   checklist?: boolean;
   rules?: Record<string, LevelSetting>;

@@ -21,3 +21,20 @@ export function toolVersion(): string {
   const pkg = JSON.parse(readFileSync(join(packageRoot(), 'package.json'), 'utf8')) as { version: string };
   return pkg.version;
 }
+
+interface PackageFacts {
+  version: string;
+  repository?: { url?: string } | string;
+}
+
+/**
+ * The address of a rule's page for people who read the report elsewhere (SARIF `helpUri`): the
+ * page in the package's repository at this version's tag, from package.json's `repository`.
+ */
+export function rulePageUrl(id: string): string | undefined {
+  const pkg = JSON.parse(readFileSync(join(packageRoot(), 'package.json'), 'utf8')) as PackageFacts;
+  const raw = typeof pkg.repository === 'string' ? pkg.repository : pkg.repository?.url;
+  const web = raw?.replace(/^git\+/, '').replace(/\.git$/, '');
+  if (web === undefined || !/^https:\/\//.test(web)) return undefined;
+  return `${web}/blob/v${pkg.version}/rules/${encodeURIComponent(id)}.md`;
+}

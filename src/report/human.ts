@@ -6,6 +6,8 @@ export interface HumanOptions {
   color: boolean;
   /** Terminal width for wrapping; 100 when unknown. */
   width?: number;
+  /** Print the cautions after the summary (default true; the CLI prints them only when something is reported). */
+  cautions?: boolean;
 }
 
 const STYLE = {
@@ -30,7 +32,6 @@ export function formatHuman(run: RunReport, options: HumanOptions): string {
     out.push(paint('bold', terminalSafe(file.path)));
     for (const f of file.findings) out.push(...findingBlock(file, f, paint, width), '');
   }
-  for (const failure of run.failures) out.push(`${paint('error', 'cannot check')} ${terminalSafe(failure.path)}: ${terminalSafe(failure.message)}`);
   const c = countRun(run);
   const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
   const summary = [
@@ -40,9 +41,11 @@ export function formatHuman(run: RunReport, options: HumanOptions): string {
     paint(c.warning ? 'warning' : 'dim', plural(c.warning, 'warning')),
     paint(c.note ? 'note' : 'dim', plural(c.note, 'note')),
   ];
-  if (c.failures) summary.push(paint('error', `${plural(c.failures, 'file')} not checked`));
+  if (c.failures) summary.push(paint('error', `${plural(c.failures, 'file')} not checked (named on standard error)`));
+  const hidden = [c.hiddenByQuiet > 0 ? `${c.hiddenByQuiet} by quiet comments` : '', c.hiddenByBaseline > 0 ? `${c.hiddenByBaseline} by the baseline` : ''].filter(Boolean);
+  if (hidden.length > 0) summary.push(paint('dim', `${plural(c.hiddenByQuiet + c.hiddenByBaseline, 'finding')} hidden (${hidden.join(', ')})`));
   out.push(summary.join(', '));
-  out.push(paint('dim', wrap(CAUTIONS.join(' '), width).join('\n')));
+  if (options.cautions !== false) out.push(paint('dim', wrap(CAUTIONS.join(' '), width).join('\n')));
   return `${out.join('\n')}\n`;
 }
 

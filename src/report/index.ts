@@ -4,3 +4,5 @@ export { formatSarif, artifactUri } from './sarif.js';
 export { CAUTIONS, countRun, type Counts, type RuleInfo, type RunReport } from './types.js';
 export { formatChecklist } from './checklist.js';
 export { formatHtml, escapeHtml } from './html.js';
+export { formatLines } from './lines.js';
+export { formatRulesJson, type RuleListing } from './rules.js';

@@ -1,35 +1,43 @@
-import { relative, sep } from 'node:path';
+import { relative, resolve, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import type { Log, ReportingDescriptor, Result } from 'sarif';
+import type { ArtifactLocation, Log, ReportingDescriptor, Result } from 'sarif';
 import type { Finding } from '../engine/types.js';
-import { CAUTIONS, type RunReport } from './types.js';
+import { CAUTIONS, countRun, type RunReport } from './types.js';
 
 /**
  * SARIF 2.1.0: one run; `tool.driver.rules` carry each rule's summary and its page as help;
  * results carry ruleId, level, message and a region (1-based columns in UTF-16 code units,
  * end column exclusive, as SARIF defines), plus the finding's data under `properties`.
  */
+/** The base the artifact URIs are relative to: the folder plumbline ran in. */
+export const SARIF_BASE_ID = 'SRCROOT';
+/** The name of the finding fingerprint in `partialFingerprints` (versioned: a new way of computing it gets a new name). */
+export const FINGERPRINT_NAME = 'plumbline/finding/v1';
+
 export function formatSarif(run: RunReport, cwd: string): string {
   const rules: ReportingDescriptor[] = run.rules.map((r) => ({
     id: r.id,
     shortDescription: { text: r.summary },
     fullDescription: { text: firstParagraph(r.doc, 'What it checks') ?? r.summary },
     help: { text: r.doc, markdown: r.doc },
+    ...(r.helpUri ? { helpUri: r.helpUri } : {}),
     defaultConfiguration: { level: r.defaultLevel === 'off' ? 'none' : r.defaultLevel, enabled: r.defaultLevel !== 'off' },
     properties: { kind: r.kind },
   }));
   const index = new Map(run.rules.map((r, i) => [r.id, i]));
   const results: Result[] = [];
   for (const file of run.files) {
-    const uri = artifactUri(file.path, cwd);
+    const uri = artifactLocation(file.path, cwd);
     for (const f of file.findings) results.push(result(f, uri, index.get(f.ruleId)));
   }
+  const counts = countRun(run);
   const log: Log = {
     $schema: 'https://json.schemastore.org/sarif-2.1.0.json',
     version: '2.1.0',
     runs: [
       {
         tool: { driver: { name: run.tool.name, version: run.tool.version, semanticVersion: run.tool.version, rules } },
+        originalUriBaseIds: { [SARIF_BASE_ID]: { uri: pathToFileURL(cwd.endsWith(sep) ? cwd : `${cwd}${sep}`).href } },
         columnKind: 'utf16CodeUnits',
         results,
         invocations: [
@@ -38,30 +46,31 @@ export function formatSarif(run: RunReport, cwd: string): string {
             toolExecutionNotifications: run.failures.map((f) => ({
               level: 'error' as const,
               message: { text: f.message },
-              locations: [{ physicalLocation: { artifactLocation: { uri: artifactUri(f.path, cwd) } } }],
+              locations: [{ physicalLocation: { artifactLocation: artifactLocation(f.path, cwd) } }],
             })),
           },
         ],
-        properties: { cautions: [...CAUTIONS] },
+        properties: { cautions: [...CAUTIONS], hiddenByQuietComments: counts.hiddenByQuiet, hiddenByBaseline: counts.hiddenByBaseline },
       },
     ],
   };
   return `${JSON.stringify(log, (_k, v: unknown) => (typeof v === 'number' && !Number.isFinite(v) ? null : v), 2)}\n`;
 }
 
-function result(f: Finding, uri: string, ruleIndex: number | undefined): Result {
+function result(f: Finding, location: ArtifactLocation, ruleIndex: number | undefined): Result {
   return {
     ruleId: f.ruleId,
     ...(ruleIndex !== undefined ? { ruleIndex } : {}),
     level: f.level,
     message: { text: `${f.message} ${f.check}` },
-    locations: [{ physicalLocation: { artifactLocation: { uri }, region: region(f) } }],
+    locations: [{ physicalLocation: { artifactLocation: location, region: region(f) } }],
+    partialFingerprints: { [FINGERPRINT_NAME]: f.fingerprint },
     ...(f.related?.length
       ? {
           relatedLocations: f.related.map((r, id) => ({
             id,
             message: { text: r.message },
-            physicalLocation: { artifactLocation: { uri }, region: region(r) },
+            physicalLocation: { artifactLocation: location, region: region(r) },
           })),
         }
       : {}),
@@ -86,10 +95,16 @@ function region(p: { start: { line: number; column: number }; end: { line: numbe
   };
 }
 
+/** A file inside the working folder relative to SRCROOT; anything else as an absolute URI. */
+function artifactLocation(path: string, cwd: string): ArtifactLocation {
+  const uri = artifactUri(path, cwd);
+  return /^[a-z][a-z0-9+.-]*:/i.test(uri) || path === '-' || path.startsWith('<') ? { uri } : { uri, uriBaseId: SARIF_BASE_ID };
+}
+
 /** A path relative to the working folder as a relative URI; anything else as a file: URI. */
 export function artifactUri(path: string, cwd: string): string {
   if (path === '-' || path.startsWith('<')) return encodeURI(path);
-  const rel = relative(cwd, path);
+  const rel = relative(cwd, resolve(cwd, path));
   if (rel === '' || rel.startsWith('..') || /^[A-Za-z]:/.test(rel) || rel.startsWith(sep)) return pathToFileURL(path).href;
   return rel.split(sep).map(encodeURIComponent).join('/');
 }

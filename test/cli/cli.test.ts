@@ -156,7 +156,8 @@ describe('settings', () => {
     const dir = tempTree({ '.plumbline.json': '{\n  "alpha": 0.05,\n  "rules": { oops }\n}\n', 'a.md': FLIPPED });
     const out = await cli([join(dir, 'a.md')]);
     expect(out.code).toBe(2);
-    expect(out.stdout).toMatch(new RegExp(`configuration ${join(dir, '.plumbline.json').replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}:3:\\d+: invalid JSON`));
+    expect(out.stderr).toMatch(new RegExp(`${join(dir, '.plumbline.json').replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}:3:\\d+: configuration: invalid JSON`));
+    expect(out.stdout).not.toContain('invalid JSON');
   });
   it('an unknown rule id is named with the nearest valid one', async () => {
     const dir = tempTree({ '.plumbline.json': '{"rules": {"p-follow-from-t": "error"}}', 'a.md': FLIPPED });

@@ -13,6 +13,8 @@ export interface RunOptions {
   cwd?: string;
   env?: NodeJS.ProcessEnv;
   isTTY?: boolean;
+  stderrIsTTY?: boolean;
+  columns?: number;
 }
 
 /** Run the CLI in this process with its streams captured (no terminal, 100 columns, empty environment unless given). */
@@ -30,7 +32,8 @@ export async function cli(args: string[], options: RunOptions = {}): Promise<Out
     cwd: options.cwd ?? process.cwd(),
     env: options.env ?? {},
     isTTY: options.isTTY ?? false,
-    columns: 100,
+    stderrIsTTY: options.stderrIsTTY ?? false,
+    columns: options.columns ?? 100,
   });
   return { code, stdout, stderr };
 }

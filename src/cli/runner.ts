@@ -1,0 +1,176 @@
+import { availableParallelism } from 'node:os';
+import { dirname, resolve } from 'node:path';
+import { ConfigError, ConfigFinder, readConfigFile, type Config } from '../config/index.js';
+import { ruleDoc, rulePageUrl, toolVersion } from '../engine/docs.js';
+import { RULE_IDS, RULES, type CheckOptions, type FileFailure, type FileReport, type ReadNote } from '../engine/index.js';
+import type { RuleInfo, RunReport } from '../report/index.js';
+import { applyBaseline, type Baseline } from './baseline.js';
+import { expandArguments } from './files.js';
+import { identity } from './output.js';
+import { checkAll, type Job } from './pool.js';
+import { DEFAULT_MAX_FILE_BYTES, decodeManuscript, readManuscript, type ReadOutcome } from './read.js';
+
+/** What a file-level run is asked to do (the command line's options, as data). */
+export interface RunnerOptions {
+  /** Relative paths are taken from here (default: the process's working folder). */
+  cwd?: string;
+  /** Significance level where the text and front matter state none. */
+  alpha?: number;
+  /** Tails where the text and front matter say nothing. */
+  sidedness?: 'one' | 'two';
+  /** Also assess the reporting checklist (default: as configured). */
+  checklist?: boolean;
+  /** A configuration file to use instead of discovering one per manuscript. */
+  configFile?: string;
+  /** Files larger than this are not checked (default: configuration, then 50 MiB). */
+  maxFileBytes?: number;
+  /** Worker threads (default: chosen from the number of files and cores). */
+  jobs?: number;
+  /** Standard input as a manuscript under this name. */
+  stdin?: { name: string; bytes: Uint8Array };
+  /** Findings held in this baseline are not reported (counted in `hidden.baseline`). */
+  baseline?: Baseline;
+  /** Report errors only. */
+  errorsOnly?: boolean;
+  /** Read .gitignore files when walking folders (default true). */
+  gitignore?: boolean;
+  /** The report's own file, never read as a manuscript (the CLI's --output). */
+  outputIdentity?: string;
+  /** Rule pages are read into the report's rule list (SARIF carries them). */
+  withRulePages?: boolean;
+  /** Called after each document, for a progress display. */
+  onProgress?: (done: number, total: number) => void;
+}
+
+export interface FileRun {
+  report: RunReport;
+  /** Every finding before the baseline and the errors-only filter (for --write-baseline). */
+  unfiltered: FileReport[];
+  /** Baseline entries that matched no finding (fixed since, or their text edited). */
+  staleBaselineEntries: number;
+  /** A named file is the output file: nothing was checked. */
+  outputClash?: string;
+}
+
+/**
+ * Check files, folders and globs as the command line does: configuration discovered per
+ * manuscript (or the one given), folders walked with their ignore rules, each bad configuration
+ * reported once, unreadable files named, a baseline applied. Never writes anything.
+ */
+export async function checkFiles(args: readonly string[], options: RunnerOptions = {}): Promise<FileRun> {
+  const cwd = options.cwd ?? process.cwd();
+  let explicit: Config | undefined;
+  let explicitError: ConfigError | undefined;
+  if (options.configFile !== undefined) {
+    try {
+      explicit = readConfigFile(resolve(cwd, options.configFile), RULE_IDS);
+    } catch (e) {
+      if (!(e instanceof ConfigError)) throw e;
+      explicitError = e;
+    }
+  }
+  const failures: FileFailure[] = [];
+  const finder = new ConfigFinder(RULE_IDS);
+  const explicitIgnores = explicit?.ignore?.length ? [{ base: dirname(resolve(cwd, options.configFile as string)), patterns: explicit.ignore }] : [];
+  const expansion = expandArguments([...args], cwd, {
+    ignoresFor: (folder) => (options.configFile !== undefined ? explicitIgnores : finder.forFolder(folder).ignores),
+    ...(options.gitignore === false ? { gitignore: false } : {}),
+  });
+  const rules = RULES.map((r): RuleInfo => {
+    const helpUri = options.withRulePages ? rulePageUrl(r.id) : undefined;
+    return { id: r.id, summary: r.summary, kind: r.kind, defaultLevel: r.defaultLevel, doc: options.withRulePages ? ruleDoc(r.id) : '', ...(helpUri ? { helpUri } : {}) };
+  });
+  const empty = (): FileRun => ({ report: { tool: { name: 'plumbline', version: toolVersion() }, files: [], failures, rules }, unfiltered: [], staleBaselineEntries: 0 });
+  if (options.outputIdentity !== undefined) {
+    const clash = expansion.files.find((f) => identity(f, cwd) === options.outputIdentity);
+    if (clash !== undefined) return { ...empty(), outputClash: clash };
+  }
+  if (explicitError) {
+    failures.push(configFailure(explicitError));
+    return empty();
+  }
+
+  // a bad configuration file: one failure for it, naming the manuscripts it kept from being checked
+  const badConfigs = new Map<string, { error: ConfigError; paths: string[] }>();
+  const base: CheckOptions = {
+    ...(options.alpha !== undefined ? { alpha: options.alpha } : {}),
+    ...(options.sidedness ? { sidedness: options.sidedness } : {}),
+    ...(options.checklist !== undefined ? { checklist: options.checklist } : {}),
+  };
+  const jobFor = (path: string, configFrom: string, source: (maxBytes: number) => ReadOutcome): Job | undefined => {
+    let config: Config;
+    try {
+      config = explicit ?? finder.forFile(configFrom).config;
+    } catch (e) {
+      if (!(e instanceof ConfigError)) return { path, error: e instanceof Error ? e.message : String(e) };
+      const seen = badConfigs.get(e.file) ?? { error: e, paths: [] };
+      seen.paths.push(path);
+      badConfigs.set(e.file, seen);
+      return undefined;
+    }
+    const outcome = source(options.maxFileBytes ?? config.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES);
+    if (!outcome.ok) return { path, error: outcome.message };
+    const readNotes: ReadNote[] = outcome.notes;
+    return { path, source: outcome.text, options: { ...base, config, ...(readNotes.length > 0 ? { readNotes } : {}) } };
+  };
+
+  const jobs: Job[] = [];
+  if (options.stdin) {
+    const { name, bytes } = options.stdin;
+    const job = jobFor(name, resolve(cwd, name), (max) => decodeManuscript(bytes, max));
+    if (job) jobs.push(job);
+  }
+  for (const m of expansion.missing) failures.push({ path: m.path, message: m.message });
+  for (const path of expansion.files) {
+    const job = jobFor(path, resolve(cwd, path), (max) => readManuscript(resolve(cwd, path), max));
+    if (job) jobs.push(job);
+  }
+  for (const [, { error, paths }] of badConfigs) {
+    const shown = paths.slice(0, 5).join(', ') + (paths.length > 5 ? `, and ${paths.length - 5} more` : '');
+    const f = configFailure(error);
+    failures.push({ ...f, message: `${f.message} (not checked because of it: ${shown})` });
+  }
+
+  const reports: FileReport[] = [];
+  let done = 0;
+  await checkAll(jobs, options.jobs ?? defaultThreads(jobs), (o, i) => {
+    if ('report' in o) reports.push(o.report);
+    else failures.push({ path: (jobs[i] as Job).path, message: o.error });
+    done += 1;
+    options.onProgress?.(done, jobs.length);
+  });
+
+  let shown = reports;
+  let stale = 0;
+  if (options.baseline) {
+    const applied = applyBaseline(reports, options.baseline, cwd);
+    shown = applied.reports;
+    stale = applied.unmatched;
+  }
+  if (options.errorsOnly) shown = shown.map((r) => ({ ...r, findings: r.findings.filter((f) => f.level === 'error') }));
+  return { report: { tool: { name: 'plumbline', version: toolVersion() }, files: shown, failures, rules }, unfiltered: reports, staleBaselineEntries: stale };
+}
+
+/**
+ * Worker threads only when they pay: each costs a module load (measured in `npm run bench`), so
+ * few or small files are checked in this thread.
+ */
+function defaultThreads(jobs: readonly Job[]): number {
+  const bytes = jobs.reduce((sum, j) => sum + ('source' in j ? j.source.length : 0), 0);
+  if (jobs.length < 8 || bytes < 512 * 1024) return 1;
+  return availableParallelism();
+}
+
+/** A configuration problem as a failure: the file (and place) as its path, the problem in words. */
+function configFailure(e: ConfigError): FileFailure {
+  const at = e.line !== undefined ? `:${e.line}${e.column !== undefined ? `:${e.column}` : ''}` : '';
+  return { path: `${e.file}${at}`, message: /configuration/.test(e.message) ? e.message : `configuration: ${e.message}` };
+}
+
+export function configMessage(e: unknown): string {
+  if (e instanceof ConfigError) {
+    const at = e.line !== undefined ? `:${e.line}${e.column !== undefined ? `:${e.column}` : ''}` : '';
+    return `configuration ${e.file}${at}: ${e.message}`;
+  }
+  return e instanceof Error ? e.message : String(e);
+}
