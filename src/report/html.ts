@@ -228,7 +228,11 @@ function card(file: FileReport, index: number, f: Finding, n: number): string {
   }
   if (f.gap) {
     const g = f.gap;
-    rows.push(`<dt>Difference</dt><dd>${fmt(g.absolute)}${g.lastDigitUnits !== undefined ? ` (${fmt(g.lastDigitUnits)} units of the last printed digit${g.roundingAllowance !== undefined ? `; rounding allows ${fmt(g.roundingAllowance)}` : ''})` : ''}</dd>`);
+    // each amount in the same unit as the one it is set against: the value's own, then the last
+    // printed digit's (rounding allows half a unit, roundingAllowance)
+    const digits = g.lastDigitUnits !== undefined ? ` (${g.lastDigitUnits.toFixed(1)} units of the last printed digit)` : '';
+    const allowance = g.roundingAllowance !== undefined ? `; rounding allows ${fmt(g.roundingAllowance)}${g.lastDigitUnits !== undefined ? ' (0.5 units)' : ''}` : '';
+    rows.push(`<dt>Difference</dt><dd>${fmt(g.absolute)}${digits}${allowance}</dd>`);
   }
   rows.push(`<dt>What to check</dt><dd>${escapeHtml(f.check)}</dd>`);
   for (const r of f.related ?? []) rows.push(`<dt>See also</dt><dd><a href="#${anchor(index, 'L', r.start.line)}">line ${r.start.line}</a>: ${escapeHtml(r.message)}</dd>`);
