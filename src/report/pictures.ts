@@ -132,7 +132,7 @@ function pMarker(r: ResultRecord, a: PLayout, y: number): string {
   const printed = `${op} ${r.p?.number?.printed ?? ''}`;
   if (belowBound(a, value)) {
     const x = a.x0;
-    const title = `reported p ${printed}: ${value > 0 ? 'below' : 'a p printed as zero stands for a bound below'} ${decadeLabel(a.min)}; drawn at the axis bound`;
+    const title = value > 0 ? `reported p ${printed}: below ${decadeLabel(a.min)}, drawn at the axis bound` : `reported p ${printed}: a p printed as zero stands for a bound (a small p rounded down), drawn at the axis bound ${decadeLabel(a.min)}`;
     return `<path class="reported bound" d="M${f1(x)},${y - 7} L${f1(x)},${y + 7} M${f1(x + 1.5)},${y} L${f1(x + 10)},${y - 5} L${f1(x + 10)},${y + 5} Z"><title>${escapeHtml(title)}</title></path>`;
   }
   const x = pX(a, value);
