@@ -1,4 +1,4 @@
-import { dfInterval, fill, linkDoubts, numberInterval, showBound, showInterval, showNumber, tInterval, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { dfInterval, fill, linkDoubts, numberInterval, showBound, showInterval, showNumber, tInterval, type IntervalFigure, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 import { sideOfAlpha, twoSidedCriticalT, twoSidedPRange, type Box } from '../src/stats/index.js';
 
 const messages = {
@@ -27,7 +27,7 @@ export const ciAgreesWithResult: Rule = {
       const hi = numberInterval(ci.high);
       // The estimate: printed with a label, else from the linked means, else the midpoint.
       const estimate = estimateBox(result, midpointOf(lo, hi));
-      let found = judge(result, ci, lo, hi, estimate);
+      let found = judge(result, ci, lo, hi, estimate, undefined);
       if (!found) continue;
       // A one-sample test's interval is often that of the mean rather than of the difference
       // from the test value: with the test value printed, that reading is checked too; without
@@ -36,7 +36,7 @@ export const ciAgreesWithResult: Rule = {
       if (ofMean?.mu !== undefined) {
         const shift = (b: Box): Box => [b[0] - (ofMean.mu as number), b[1] - (ofMean.mu as number)];
         const [slo, shi] = [shift(lo), shift(hi)];
-        const asMean = judge(result, ci, slo, shi, ofMean.estimate ?? { box: midpointOf(slo, shi), printed: showInterval(...midpointOf(slo, shi)), source: 'midpoint' });
+        const asMean = judge(result, ci, slo, shi, ofMean.estimate ?? { box: midpointOf(slo, shi), printed: showInterval(...midpointOf(slo, shi)), source: 'midpoint' }, ofMean.mu);
         if (!asMean) continue;
         // centred on the mean, the interval is the mean's: what is wrong with it is said that way
         if (asMean.messageId !== 'not-centred') found = asMean;
@@ -61,7 +61,7 @@ export const ciAgreesWithResult: Rule = {
 };
 
 type Estimate = { box: Box; printed: string; source: string };
-type Verdict = Pick<RuleFinding, 'messageId' | 'message' | 'check' | 'recomputed'>;
+type Verdict = Pick<RuleFinding, 'messageId' | 'message' | 'check' | 'recomputed' | 'figure'>;
 
 const midpointOf = (lo: Box, hi: Box): Box => [(lo[0] + hi[0]) / 2, (lo[1] + hi[1]) / 2];
 
@@ -86,30 +86,31 @@ function meanReading(result: LinkedResult): { mu?: number; estimate?: Estimate }
 }
 
 /** The interval read with one estimate: centred on it, as wide as t implies, on the side of zero p says. */
-function judge(result: LinkedResult, ci: LinkedResult['context']['intervals'][number]['item'], lo: Box, hi: Box, estimate: Estimate): Verdict | undefined {
+function judge(result: LinkedResult, ci: LinkedResult['context']['intervals'][number]['item'], lo: Box, hi: Box, estimate: Estimate, shiftedBy: number | undefined): Verdict | undefined {
   const r = result.report;
   if (!r.df) return undefined;
   const midBox = midpointOf(lo, hi);
-  // Intervals from profile likelihood or the bootstrap need not be exactly symmetric, so a
-  // gap up to 5% of the half-width is tolerated beyond rounding.
-  const slack = 0.05 * Math.max(0, (hi[0] - lo[1]) / 2);
-  if (estimate.source !== 'midpoint' && !overlapsEitherSign(estimate.box, [midBox[0] - slack, midBox[1] + slack])) {
-    return { messageId: 'not-centred', message: fill(messages['not-centred'], { ci: ci.printed, estimate: `${estimate.printed} (${estimate.source})`, mid: showInterval(midBox[0], midBox[1]) }), check: 'Check the interval limits and the estimate against the output: one limit or the estimate may be mistyped.' };
-  }
   const df = r.df.value;
   const [dfLow, dfHigh] = dfInterval(r.df);
   // a fractional (Welch) df was rounded: the critical value spans its interval
   const tCrit = twoSidedCriticalT(1 - ci.level, df);
   const tCritRange: Box = [twoSidedCriticalT(1 - ci.level, dfHigh), twoSidedCriticalT(1 - ci.level, dfLow)];
+  const absEst: Box = estimate.box[0] <= 0 && estimate.box[1] >= 0 ? [0, Math.max(-estimate.box[0], estimate.box[1])] : [Math.min(Math.abs(estimate.box[0]), Math.abs(estimate.box[1])), Math.max(Math.abs(estimate.box[0]), Math.abs(estimate.box[1]))];
+  const [tl, th] = tInterval(r);
+  const absT: Box = [tl <= 0 && th >= 0 ? 0 : Math.min(Math.abs(tl), Math.abs(th)), Math.max(Math.abs(tl), Math.abs(th))];
+  const figure = (reference?: IntervalFigure['reference']): IntervalFigure => intervalFigure(ci.level, lo, hi, midBox, estimate, tCritRange, absEst, absT, shiftedBy, reference);
+  // Intervals from profile likelihood or the bootstrap need not be exactly symmetric, so a
+  // gap up to 5% of the half-width is tolerated beyond rounding.
+  const slack = 0.05 * Math.max(0, (hi[0] - lo[1]) / 2);
+  if (estimate.source !== 'midpoint' && !overlapsEitherSign(estimate.box, [midBox[0] - slack, midBox[1] + slack])) {
+    return { messageId: 'not-centred', message: fill(messages['not-centred'], { ci: ci.printed, estimate: `${estimate.printed} (${estimate.source})`, mid: showInterval(midBox[0], midBox[1]) }), check: 'Check the interval limits and the estimate against the output: one limit or the estimate may be mistyped.', figure: figure() };
+  }
   const zCrit = twoSidedCriticalT(1 - ci.level, 1e9);
   const width: Box = [Math.max(hi[0] - lo[1], Number.MIN_VALUE), hi[1] - lo[0]];
-  const absEst: Box = estimate.box[0] <= 0 && estimate.box[1] >= 0 ? [0, Math.max(-estimate.box[0], estimate.box[1])] : [Math.min(Math.abs(estimate.box[0]), Math.abs(estimate.box[1])), Math.max(Math.abs(estimate.box[0]), Math.abs(estimate.box[1]))];
   // A model coefficient's interval may come from the profile likelihood or the bootstrap
   // rather than estimate ± critical value × SE: a gap of a few per cent is allowed there.
   const modelSlack = estimate.source === 'as printed' && COEFFICIENT.test(result.context.estimate?.item.printed ?? '') ? 0.05 : 0;
   const implied = (crit: Box): Box => [((absEst[0] * 2 * crit[0]) / width[1]) * (1 - modelSlack), ((absEst[1] * 2 * crit[1]) / width[0]) * (1 + modelSlack)];
-  const [tl, th] = tInterval(r);
-  const absT: Box = [tl <= 0 && th >= 0 ? 0 : Math.min(Math.abs(tl), Math.abs(th)), Math.max(Math.abs(tl), Math.abs(th))];
   const meets = (a: Box) => a[0] <= absT[1] && a[1] >= absT[0];
   const viaT = implied(tCritRange);
   const viaZ = implied([zCrit, zCrit]);
@@ -120,6 +121,7 @@ function judge(result: LinkedResult, ci: LinkedResult['context']['intervals'][nu
       message: fill(messages['width-vs-t'], { ci: ci.printed, reported: r.printed, impliedT: showInterval(viaT[0], viaT[1]), tCrit: tCrit.toFixed(3), impliedZ: showInterval(viaZ[0], viaZ[1]), tRange: absT[0] === absT[1] ? showNumber(absT[0]) : `${showBound(absT[0], r.t.decimals, r.t.exponent)} to ${showBound(absT[1], r.t.decimals, r.t.exponent)}`, impliedP: showInterval(p.low, p.high) }),
       recomputed: { quantity: '|t| implied by the CI', low: viaT[0], high: viaT[1], inputs: [ci.printed, `estimate ${estimate.printed} (${estimate.source})`, `df = ${r.df.printed}`], assumptions: [`${Math.round(ci.level * 100)}% interval from the t distribution (or the normal)`, ...(modelSlack > 0 ? ['a model coefficient: 5% allowed for profile or bootstrap intervals'] : [])] },
       check: 'Check the interval, the estimate and t against the output; a CI built with the SD instead of the SE is a common cause.',
+      figure: figure(),
     };
   }
   const p = r.p;
@@ -137,10 +139,33 @@ function judge(result: LinkedResult, ci: LinkedResult['context']['intervals'][nu
         messageId: 'zero-vs-p',
         message: fill(messages['zero-vs-p'], { ci: ci.printed, p: p.printed, level: `${Math.round(ci.level * 100)}%`, zero: 'excludes', side: '<', alpha, actual: excludes ? 'excludes zero and p is not below alpha' : 'includes zero and p is below alpha' }),
         check: 'Check the interval and p against the output; they come from the same estimate and SE.',
+        figure: figure({ value: 0, label: 'zero' }),
       };
     }
   }
   return undefined;
+}
+
+/**
+ * What a picture of the interval draws: the printed limits, their midpoint, the estimate, and the
+ * interval the reported t implies around the estimate, estimate ± critical value × |estimate| / |t|
+ * (the same relation the width check inverts), each end over the rounding of every input.
+ */
+function intervalFigure(level: number, lo: Box, hi: Box, mid: Box, estimate: Estimate, tCrit: Box, absEst: Box, absT: Box, shiftedBy: number | undefined, reference: IntervalFigure['reference']): IntervalFigure {
+  const range = (b: Box) => ({ low: b[0], high: b[1] });
+  const halfWidth: Box = absT[0] > 0 ? [(tCrit[0] * absEst[0]) / absT[1], (tCrit[1] * absEst[1]) / absT[0]] : [Number.NaN, Number.NaN];
+  return {
+    kind: 'interval',
+    level,
+    lower: range(lo),
+    upper: range(hi),
+    midpoint: range(mid),
+    estimate: range(estimate.box),
+    estimateSource: estimate.source,
+    ...(absT[0] > 0 && Number.isFinite(halfWidth[1]) ? { fromT: { lower: { low: estimate.box[0] - halfWidth[1], high: estimate.box[1] - halfWidth[0] }, upper: { low: estimate.box[0] + halfWidth[0], high: estimate.box[1] + halfWidth[1] } } } : {}),
+    ...(shiftedBy !== undefined ? { shiftedBy } : {}),
+    ...(reference ? { reference } : {}),
+  };
 }
 
 /** A labelled model coefficient (`b = 0.37`, `B = 1.2`, `β = .21`, `estimate = 0.4`). */

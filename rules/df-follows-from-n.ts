@@ -1,4 +1,4 @@
-import { dfInterval, fill, inferDesign, numberInterval, showInterval, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts, type LinkedResult, isWholeDf } from '../src/rule-api/index.js';
+import { dfInterval, fill, inferDesign, numberInterval, showInterval, type DfFigure, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts, type LinkedResult, isWholeDf, type ReportedNumber } from '../src/rule-api/index.js';
 import { welchDfRange } from '../src/stats/index.js';
 
 const messages = {
@@ -32,7 +32,7 @@ export const dfFollowsFromN: Rule = {
           // two groups' sizes printed with the test ("n = 25 and 23", "in 26 and 28 employees")
           const [n1, n2] = [pair[0].value, pair[1].value];
           if (df !== n1 + n2 - 2 && !(n1 === n2 && df === n1 - 1)) {
-            out.push({ ...base, messageId: 'student', message: fill(messages.student, { df: r.df.printed, n1, n2, expected: n1 + n2 - 2 }), check: 'Check the df and the group sizes against the output.', related: [{ span: pair[0].span, message: 'the group sizes' }] });
+            out.push({ ...base, messageId: 'student', message: fill(messages.student, { df: r.df.printed, n1, n2, expected: n1 + n2 - 2 }), check: 'Check the df and the group sizes against the output.', related: [{ span: pair[0].span, message: 'the group sizes' }], figure: dfFigure(r.df, studentAllowed(n1, n2)) });
           }
           continue;
         }
@@ -42,7 +42,7 @@ export const dfFollowsFromN: Rule = {
         const units = unitsInSentence(result);
         if (units !== undefined && isWholeDf(r.df) && df !== units.n - 1 && df !== 2 * units.n - 2) {
           const id = result.context.design.value === 'paired' ? 'paired' : 'one-group';
-          out.push({ ...base, messageId: id, message: fill(messages[id], { df: r.df.printed, n: units.n, expected: units.n - 1 }), check: id === 'paired' ? 'Check the df against the number of pairs.' : 'Check the df and n against the output; an n that counts excluded participants is a common cause.', related: [{ span: units.span, message: id === 'paired' ? 'the number of pairs' : 'the group size' }] });
+          out.push({ ...base, messageId: id, message: fill(messages[id], { df: r.df.printed, n: units.n, expected: units.n - 1 }), check: id === 'paired' ? 'Check the df against the number of pairs.' : 'Check the df and n against the output; an n that counts excluded participants is a common cause.', related: [{ span: units.span, message: id === 'paired' ? 'the number of pairs' : 'the group size' }], figure: dfFigure(r.df, [{ label: 'n − 1', low: units.n - 1, high: units.n - 1 }]) });
         }
         continue;
       }
@@ -56,7 +56,7 @@ export const dfFollowsFromN: Rule = {
       if (ns.length === 1) {
         const n = ns[0] as number;
         if (isWholeDf(r.df) && df !== n - 1) {
-          out.push({ ...base, messageId: 'one-group', message: fill(messages['one-group'], { df: r.df.printed, n, expected: n - 1 }), check: 'Check the df and n against the output; an n that counts excluded participants is a common cause.' });
+          out.push({ ...base, messageId: 'one-group', message: fill(messages['one-group'], { df: r.df.printed, n, expected: n - 1 }), check: 'Check the df and n against the output; an n that counts excluded participants is a common cause.', figure: dfFigure(r.df, [{ label: 'n − 1', low: n - 1, high: n - 1 }]) });
         }
         continue;
       }
@@ -64,20 +64,20 @@ export const dfFollowsFromN: Rule = {
       if (design === 'paired') {
         if (n1 === n2 && df !== n1 - 1) {
           // df = 2n − 2 is design-matches-analysis' finding, not a df typo
-          if (df !== n1 + n2 - 2) out.push({ ...base, messageId: 'paired', message: fill(messages.paired, { df: r.df.printed, n: n1, expected: n1 - 1 }), check: 'Check the df against the number of pairs.' });
+          if (df !== n1 + n2 - 2) out.push({ ...base, messageId: 'paired', message: fill(messages.paired, { df: r.df.printed, n: n1, expected: n1 - 1 }), check: 'Check the df against the number of pairs.', figure: dfFigure(r.df, [{ label: 'n − 1', low: n1 - 1, high: n1 - 1 }]) });
         }
         continue;
       }
       if (isWholeDf(r.df)) {
         if (df !== n1 + n2 - 2 && !(design === 'independent' && n1 === n2 && df === n1 - 1) && !(n1 === n2 && df === n1 - 1)) {
-          out.push({ ...base, messageId: 'student', message: fill(messages.student, { df: r.df.printed, n1, n2, expected: n1 + n2 - 2 }), check: 'Check the df and the group sizes against the output.' });
+          out.push({ ...base, messageId: 'student', message: fill(messages.student, { df: r.df.printed, n1, n2, expected: n1 + n2 - 2 }), check: 'Check the df and the group sizes against the output.', figure: dfFigure(r.df, studentAllowed(n1, n2)) });
         }
         continue;
       }
       const low = Math.min(n1, n2) - 1;
       const high = n1 + n2 - 2;
       if (dfHigh < low || dfLow > high) {
-        out.push({ ...base, messageId: 'welch-range', message: fill(messages['welch-range'], { df: r.df.printed, n1, n2, low, high }), check: 'Check the df and the group sizes against the output.' });
+        out.push({ ...base, messageId: 'welch-range', message: fill(messages['welch-range'], { df: r.df.printed, n1, n2, low, high }), check: 'Check the df and the group sizes against the output.', figure: dfFigure(r.df, [{ label: "Welch's range", low, high }]) });
         continue;
       }
       const [g1, g2] = link.groups;
@@ -95,6 +95,7 @@ export const dfFollowsFromN: Rule = {
             message: fill(messages['welch-sds'], { df: r.df.printed, inputs: `${g1.printed}; ${g2.printed}`, expected: showInterval(range.low, range.high) }),
             recomputed: { quantity: 'Welch–Satterthwaite df', low: range.low, high: range.high, inputs: [g1.printed, g2.printed], assumptions: [readings.length > 1 ? 'spreads read as SDs, and as SEs' : readings[0] ? 'spreads are SEs, as labelled (SD = SE·√n)' : 'spreads are SDs, as labelled'] },
             check: 'Check the df, the SDs and the group sizes against the output.',
+            figure: dfFigure(r.df, ranges.map((x, k) => ({ label: readings.length > 1 ? `Welch–Satterthwaite, ${readings[k] ? 'as SEs' : 'as SDs'}` : 'Welch–Satterthwaite', low: x.low, high: x.high }))),
           });
         }
       }
@@ -102,6 +103,17 @@ export const dfFollowsFromN: Rule = {
     return out;
   },
 };
+
+/** What a picture of a df finding draws: the printed df (its rounding, when fractional) and the df the sizes allow. */
+function dfFigure(df: ReportedNumber, allowed: DfFigure['allowed']): DfFigure {
+  const [low, high] = dfInterval(df);
+  return { kind: 'df', reported: { low, high }, allowed };
+}
+
+/** The whole df two groups allow: Student's n1 + n2 − 2, and n − 1 where equal sizes may be pairs. */
+function studentAllowed(n1: number, n2: number): DfFigure['allowed'] {
+  return [{ label: 'n1 + n2 − 2', low: n1 + n2 - 2, high: n1 + n2 - 2 }, ...(n1 === n2 ? [{ label: 'n − 1 (pairs)', low: n1 - 1, high: n1 - 1 }] : [])];
+}
 
 /** The number of units of a design stated paired or one-sample in words, printed once in the result's sentence. */
 function unitsInSentence(result: LinkedResult): { n: number; span: { start: number; end: number } } | undefined {

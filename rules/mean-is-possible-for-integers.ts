@@ -1,4 +1,4 @@
-import { fill, numberInterval, showNumber, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { fill, numberInterval, showNumber, type LatticeFigure, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 import { grimmerPossible, grimPossible } from '../src/stats/index.js';
 
 const messages = {
@@ -41,6 +41,7 @@ export const meanIsPossibleForIntegers: Rule = {
           span: g.mean.span,
           message: fill(messages['grim-mean'], { reported: g.printed, what, n, nSource, items: items > 1 ? ` of ${items} items` : '', total: n * items, mean: g.mean.printed, below: showNumber(grim.below), above: showNumber(grim.above) }),
           check: 'Check the mean and n against the data: a typo in either, or an n that counts excluded cases, gives this.',
+          figure: latticeFigure(lo, hi, n * items),
         });
         continue;
       }
@@ -61,3 +62,16 @@ export const meanIsPossibleForIntegers: Rule = {
   },
 };
 
+
+/**
+ * What a picture of a GRIM finding draws: the possible means k / (n × items) from two below the
+ * printed mean's rounding interval to two above it. No multiple lies inside the interval (that is
+ * the finding), so the interval falls between two neighbours and the list holds four means.
+ */
+function latticeFigure(low: number, high: number, denominator: number): LatticeFigure {
+  const first = Math.floor(low * denominator) - 1;
+  const last = Math.ceil(high * denominator) + 1;
+  const possible: number[] = [];
+  for (let k = first; k <= last; k += 1) possible.push(k / denominator);
+  return { kind: 'lattice', reported: { low, high }, denominator, possible };
+}

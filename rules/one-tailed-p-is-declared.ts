@@ -39,6 +39,7 @@ export const oneTailedPIsDeclared: Rule = {
         reported: result.report.printed,
         recomputed: e.recomputed,
         gap: e.gap,
+        figure: { kind: 'p' },
         check: 'If the test was one-tailed, say so (and why) where the test is described; otherwise report the two-tailed p.',
         resultId: result.report.id,
         block: result.report.block,

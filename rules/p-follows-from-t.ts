@@ -38,6 +38,7 @@ export const pFollowsFromT: Rule = {
         reported: result.report.printed,
         recomputed: e.recomputed,
         gap: e.gap,
+        figure: { kind: 'p' },
         check: checks[id],
         resultId: result.report.id,
         block: result.report.block,

@@ -41,6 +41,7 @@ export const pairedCorrelationIsPossible: Rule = {
         reported: r.printed,
         recomputed: { quantity: 'implied correlation between the paired measurements', low: range.low, high: range.high, inputs: [g1.printed, g2.printed, `n = ${n}`, r.printed], assumptions: ['paired design', `spreads read as ${link.spreadKinds.join(' and ')}`] },
         check: 'Check the means, SDs, n and t against the output, and whether the SDs are of the measurements or of the differences.',
+        figure: { kind: 'correlation', implied: { low: range.low, high: range.high } },
         resultId: r.id,
         block: r.block,
         ...descriptiveDoubts(result),

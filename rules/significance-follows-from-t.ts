@@ -32,6 +32,7 @@ export const significanceFollowsFromT: Rule = {
         reported: result.report.printed,
         recomputed: e.recomputed,
         gap: e.gap,
+        figure: { kind: 'p' },
         check: 'Check t, df and p against the analysis output before drawing conclusions: the conclusion about significance depends on which number is right.',
         resultId: result.report.id,
         block: result.report.block,

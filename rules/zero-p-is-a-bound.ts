@@ -24,6 +24,7 @@ export const zeroPIsABound: Rule = {
         span: p.span,
         message: fill(messages['p-printed-as-zero'], { reported: p.printed }),
         reported: result.report.printed,
+        figure: { kind: 'p' },
         check: `Write ${bound} (or the exact p).`,
         resultId: result.report.id,
         block: result.report.block,

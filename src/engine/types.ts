@@ -1,7 +1,7 @@
 import type { Comparison, ReportStyle, Sidedness } from '../extract/types.js';
 import type { IntervalTarget, LinkBasis, Setting } from '../link/types.js';
 import type { Position, SourceFormat, Span } from '../parse/types.js';
-import type { Gap, Guideline, Level, Recomputed } from '../rule-api/types.js';
+import type { Figure, Gap, Guideline, Level, Recomputed } from '../rule-api/types.js';
 
 /** A place in a file: offsets and 1-based line/column of both ends (end exclusive). */
 export interface Place {
@@ -86,6 +86,8 @@ export interface Finding extends Place {
   reported: string;
   recomputed?: Recomputed;
   gap?: Gap;
+  /** What a picture of this finding draws (see Figure); none when the finding has no picture. */
+  figure?: Figure;
   check: string;
   related?: Array<Place & { message: string }>;
   resultId?: string;

@@ -4,11 +4,16 @@
  * escaped (and stripped of control characters), so a manuscript holding markup runs nothing.
  * The same pieces render the browser page (src/web), which is why the file sections are exported.
  *
- * Layout only: positions on the log axis are geometry; every statistic shown comes from the report.
+ * Layout only: the pictures (pictures.ts) turn numbers the report carries into positions; every
+ * statistic shown comes from the report.
  */
 import type { ChecklistRecord, FileReport, Finding, ResultRecord } from '../engine/types.js';
 import type { Level } from '../rule-api/types.js';
+import { escapeHtml, shortNumber as fmt } from './escape.js';
+import { findingPicture, pAxisFor, plottable, pOverview, pStrip, STRIP_WIDTH, type PAxis } from './pictures.js';
 import { CAUTIONS, countRun, type RunReport } from './types.js';
+
+export { escapeHtml };
 
 /** Severity is told by shape and line style as well as colour (readable in print and without colour vision). */
 const SEVERITY: Record<Level, { symbol: string; word: string }> = {
@@ -17,14 +22,6 @@ const SEVERITY: Record<Level, { symbol: string; word: string }> = {
   note: { symbol: '●', word: 'note' },
 };
 const RANK: Record<Level, number> = { note: 1, warning: 2, error: 3 };
-
-// eslint-disable-next-line no-control-regex
-const CONTROL = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f-\u009f\u2028\u2029]/g;
-
-/** Text into HTML text or attribute content: control characters dropped, the five specials escaped. */
-export function escapeHtml(s: string): string {
-  return s.replace(CONTROL, '').replace(/[&<>"']/g, (c) => (c === '&' ? '&amp;' : c === '<' ? '&lt;' : c === '>' ? '&gt;' : c === '"' ? '&quot;' : '&#39;'));
-}
 
 /** Identifiers made only of safe characters (file indexes and counters), for id and href. */
 const anchor = (file: number, kind: string, n: number | string) => `f${file}-${kind}-${String(n).replace(/[^A-Za-z0-9_-]/g, '_')}`;
@@ -64,21 +61,35 @@ details.card dt { color: var(--muted); } details.card dd { margin: 0; overflow-w
 svg text { font: 11px system-ui, sans-serif; fill: var(--ink); }
 svg .axis { stroke: var(--muted); stroke-width: 1; } svg .grid { stroke: var(--rule); stroke-width: 1; }
 svg .alpha { stroke: var(--ink); stroke-width: 1.5; stroke-dasharray: 5 3; }
+svg .refline { stroke: var(--ink); stroke-width: 1.5; }
 svg .range { fill: #4d4d4d; } svg .range.fits { fill: #7da7c7; }
 svg .reported { fill: var(--paper); stroke: var(--ink); stroke-width: 2; }
+svg .reported.bound { fill: var(--ink); stroke-linejoin: round; }
+svg .ci { fill: #c9d6e0; } svg .mid { fill: var(--ink); }
+svg .estimate, svg .allowed { fill: var(--ink); } svg rect.allowed { fill: #7da7c7; }
+svg .implied { fill: #4d4d4d; } svg .implied.loose { fill: #a6a6a6; }
+svg .possible { fill: var(--ink); } svg .reported-range { fill: #e3a37f; stroke: var(--error); stroke-width: 1; }
+svg .feasible { fill: #c9d6e0; } svg .implied-r { fill: #4d4d4d; }
 svg a:hover rect.row { fill: #f0f0f0; }
+svg.pstrip, svg.figure { max-width: 100%; height: auto; display: block; }
+.picture { margin: 6px 0 2px; }
+.figcap, .legend { font-size: 0.85em; color: var(--muted); margin: 2px 0 6px; max-width: 60em; }
 table.checklist { border-collapse: collapse; width: 100%; font-size: 0.92em; }
 table.checklist td, table.checklist th { border: 1px solid var(--rule); padding: 3px 8px; text-align: left; vertical-align: top; }
 .st-found::before { content: "✓ "; } .st-missing::before { content: "✗ "; font-weight: 700; } .st-not-applicable::before { content: "– "; }
 .st-missing { color: var(--error); }
 .results-list { font-size: 0.92em; }
 .results-list li { margin: 4px 0; }
+.results-list .rrow { display: grid; grid-template-columns: minmax(0, 1fr) ${STRIP_WIDTH}px; gap: 12px; align-items: center; }
+@media (max-width: 700px) { .results-list .rrow { grid-template-columns: 1fr; } }
 @media print { .layout { grid-template-columns: 1fr; } details.card { page-break-inside: avoid; } a { color: inherit; } }
 `;
 
 /** The HTML report for a whole run. */
 export function formatHtml(run: RunReport, options: { title?: string } = {}): string {
   const title = options.title ?? `plumbline report: ${run.files.map((f) => f.path).join(', ') || 'no files'}`;
+  // every p picture of the report on one axis, so they can be compared across files too
+  const pAxis = pAxisFor(run.files.flatMap((f) => f.results));
   const body = [
     '<header class="top">',
     `<h1>${escapeHtml(title)}</h1>`,
@@ -86,7 +97,7 @@ export function formatHtml(run: RunReport, options: { title?: string } = {}): st
     summaryTable(run),
     cautionsHtml(),
     '</header>',
-    ...run.files.map((f, i) => fileSection(f, i)),
+    ...run.files.map((f, i) => fileSection(f, i, pAxis)),
     run.failures.length > 0
       ? `<section class="failures"><h2>Not checked</h2><ul>${run.failures.map((f) => `<li><strong>${escapeHtml(f.path)}</strong>: ${escapeHtml(f.message)}</li>`).join('')}</ul></section>`
       : '',
@@ -130,19 +141,22 @@ ${row(`<span class="sym">${SEVERITY.note.symbol}</span> Notes`, c.note, 'lvl-not
 </table>`;
 }
 
-/** One file: the overview plot, the text with its marks beside the cards, the results, the checklist. */
-export function fileSection(file: FileReport, index: number): string {
+/**
+ * One file: the overview plot, the text with its marks beside the cards, the results, the
+ * checklist. Its p pictures use `pAxis` (the whole report's), or the file's own when alone.
+ */
+export function fileSection(file: FileReport, index: number, pAxis: PAxis = pAxisFor(file.results)): string {
   const ordered = [...file.findings].sort((a, b) => a.span.start - b.span.start);
   return [
     `<section class="file" id="${anchor(index, 'file', 0)}">`,
     `<h2>${escapeHtml(file.path)}</h2>`,
     `<p>${file.results.length} result${file.results.length === 1 ? '' : 's'} found, ${file.findings.length} finding${file.findings.length === 1 ? '' : 's'}. Alpha ${escapeHtml(String(file.alpha.value))}, ${escapeHtml(file.sidedness.value)}-tailed where the text says nothing.</p>`,
-    file.results.some(plottable) ? `<h3>All tests in reading order</h3>${forestPlot(file, index)}` : '',
+    file.results.some(plottable) ? `<h3>All tests in reading order</h3>${forestPlot(file, index, pAxis)}` : '',
     '<div class="layout">',
     `<div><h3>Manuscript</h3>${manuscriptHtml(file, index, ordered)}</div>`,
-    `<div><h3>Findings</h3><div class="cards">${ordered.length === 0 ? '<p>No findings.</p>' : ordered.map((f, n) => card(file, index, f, n)).join('\n')}</div></div>`,
+    `<div><h3>Findings</h3><div class="cards">${ordered.length === 0 ? '<p>No findings.</p>' : ordered.map((f, n) => card(file, index, f, n, pAxis)).join('\n')}</div></div>`,
     '</div>',
-    file.results.length > 0 ? `<h3>Results</h3><ol class="results-list">${file.results.map((r, n) => resultItem(file, index, r, n)).join('')}</ol>` : '',
+    file.results.length > 0 ? `<h3>Results</h3><ol class="results-list">${file.results.map((r, n) => resultItem(file, index, r, n, pAxis)).join('')}</ol>` : '',
     file.checklist.length > 0 ? `<h3>Reporting checklist</h3>${checklistTable(file.checklist, index)}` : '',
     '</section>',
   ].join('\n');
@@ -211,13 +225,7 @@ function manuscriptHtml(file: FileReport, index: number, ordered: Finding[]): st
   return `<div class="manuscript">${lines.join('\n')}</div>`;
 }
 
-function fmt(x: number): string {
-  if (!Number.isFinite(x)) return String(x);
-  if (x !== 0 && Math.abs(x) < 1e-4) return x.toExponential(2);
-  return String(Number(x.toPrecision(4)));
-}
-
-function card(file: FileReport, index: number, f: Finding, n: number): string {
+function card(file: FileReport, index: number, f: Finding, n: number, pAxis: PAxis): string {
   const s = SEVERITY[f.level];
   const rows: string[] = [`<dt>Reported</dt><dd>${escapeHtml(f.reported)}</dd>`];
   if (f.recomputed) {
@@ -228,24 +236,29 @@ function card(file: FileReport, index: number, f: Finding, n: number): string {
   }
   if (f.gap) {
     const g = f.gap;
-    rows.push(`<dt>Difference</dt><dd>${fmt(g.absolute)}${g.lastDigitUnits !== undefined ? ` (${fmt(g.lastDigitUnits)} units of the last printed digit${g.roundingAllowance !== undefined ? `; rounding allows ${fmt(g.roundingAllowance)}` : ''})` : ''}</dd>`);
+    // each amount in the same unit as the one it is set against: the value's own, then the last
+    // printed digit's (rounding allows half a unit, roundingAllowance)
+    const digits = g.lastDigitUnits !== undefined ? ` (${g.lastDigitUnits.toFixed(1)} units of the last printed digit)` : '';
+    const allowance = g.roundingAllowance !== undefined ? `; rounding allows ${fmt(g.roundingAllowance)}${g.lastDigitUnits !== undefined ? ' (0.5 units)' : ''}` : '';
+    rows.push(`<dt>Difference</dt><dd>${fmt(g.absolute)}${digits}${allowance}</dd>`);
   }
   rows.push(`<dt>What to check</dt><dd>${escapeHtml(f.check)}</dd>`);
   for (const r of f.related ?? []) rows.push(`<dt>See also</dt><dd><a href="#${anchor(index, 'L', r.start.line)}">line ${r.start.line}</a>: ${escapeHtml(r.message)}</dd>`);
   const result = f.resultId ? file.results.find((r) => r.id === f.resultId) : undefined;
-  const strip = result && plottable(result) ? `<div class="strip">${pStrip(result)}</div>` : '';
+  const picture = findingPicture(f, result, pAxis);
   return `<details class="card lvl-${f.level}" id="${anchor(index, 'card', n)}" data-card="${n}" open>
 <summary><span class="sym" aria-hidden="true">${s.symbol}</span> ${s.word} · ${escapeHtml(f.ruleId)} <a class="where" href="#${anchor(index, 'L', f.start.line)}">line ${f.start.line}, column ${f.start.column}</a></summary>
 <p>${escapeHtml(f.message)}</p>
-<dl>${rows.join('')}</dl>${strip}
+<dl>${rows.join('')}</dl>${picture}
 </details>`;
 }
 
-function resultItem(file: FileReport, index: number, r: ResultRecord, n: number): string {
+function resultItem(file: FileReport, index: number, r: ResultRecord, n: number, pAxis: PAxis): string {
   const flagged = file.findings.filter((f) => f.resultId === r.id);
   const worst = worstLevel(flagged);
   const status = worst ? `<span class="lvl-${worst}"><span class="sym">${SEVERITY[worst].symbol}</span> ${flagged.length} finding${flagged.length === 1 ? '' : 's'}</span>` : r.recomputed ? 'no finding' : 'not recomputed';
-  return `<li id="${anchor(index, 'r', n)}"><a href="#${anchor(index, 'L', r.start.line)}">line ${r.start.line}</a>: <code>${escapeHtml(r.printed)}</code> — ${status}${plottable(r) ? ` ${pStrip(r)}` : ''}</li>`;
+  // the strip in a column of its own, so strips line up down the list on the shared axis
+  return `<li id="${anchor(index, 'r', n)}"><div class="rrow"><span><a href="#${anchor(index, 'L', r.start.line)}">line ${r.start.line}</a>: <code>${escapeHtml(r.printed)}</code> — ${status}</span><span class="pic">${plottable(r) ? pStrip(r, pAxis) : ''}</span></div></li>`;
 }
 
 function worstLevel(findings: Finding[]): Level | undefined {
@@ -262,94 +275,10 @@ function checklistTable(items: ChecklistRecord[], index: number): string {
   return `<table class="checklist"><thead><tr><th>Item</th><th>Scope</th><th>Status</th><th>Detail</th><th>Guideline</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
 }
 
-// ---- pictures: log-scale p axis -------------------------------------------------------------
-
-/** A result can be drawn when its p was recomputed and a numeric p was printed. */
-function plottable(r: ResultRecord): boolean {
-  return r.recomputed !== undefined && r.p?.number !== undefined;
-}
-
-function rangeOf(r: ResultRecord): { low: number; high: number } {
-  const rc = r.recomputed as NonNullable<ResultRecord['recomputed']>;
-  return r.sidedness.value === 'one' ? rc.oneTailed : rc.twoTailed;
-}
-
-interface Axis {
-  min: number; // log10 of the left edge
-  x0: number;
-  width: number;
-}
-
-const axisX = (a: Axis, p: number) => a.x0 + ((Math.max(Math.log10(Math.max(p, 1e-300)), a.min) - a.min) / -a.min) * a.width;
-
-function axisFor(values: number[]): Axis {
-  const finite = values.filter((v) => v > 0 && Number.isFinite(v));
-  const lowest = finite.length > 0 ? Math.min(...finite) : 1e-3;
-  const min = Math.max(-12, Math.min(-3, Math.floor(Math.log10(lowest)) - 0.5));
-  return { min, x0: 0, width: 0 };
-}
-
-function ticks(a: Axis, y0: number, y1: number): string {
-  const out: string[] = [];
-  for (let e = 0; e >= Math.ceil(a.min); e--) {
-    const x = axisX(a, 10 ** e);
-    out.push(`<line class="grid" x1="${x.toFixed(1)}" y1="${y0}" x2="${x.toFixed(1)}" y2="${y1}"/><text x="${x.toFixed(1)}" y="${y1 + 12}" text-anchor="middle">${e === 0 ? '1' : e >= -3 ? String(10 ** e) : `1e${e}`}</text>`);
-  }
-  return out.join('');
-}
-
-/** The reported p as a marker: a circle for "=", a triangle pointing left for "<" (a bound). */
-function marker(r: ResultRecord, x: number, y: number): string {
-  const op = r.p?.op;
-  const label = `reported p ${escapeHtml(op ?? '=')} ${escapeHtml(r.p?.number?.printed ?? '')}`;
-  if (op === '<' || op === '<=') return `<path class="reported" d="M${(x - 7).toFixed(1)},${y} L${(x + 2).toFixed(1)},${y - 6} L${(x + 2).toFixed(1)},${y + 6} Z"><title>${label}</title></path>`;
-  if (op === '>' || op === '>=') return `<path class="reported" d="M${(x + 7).toFixed(1)},${y} L${(x - 2).toFixed(1)},${y - 6} L${(x - 2).toFixed(1)},${y + 6} Z"><title>${label}</title></path>`;
-  return `<circle class="reported" cx="${x.toFixed(1)}" cy="${y}" r="5"><title>${label}</title></circle>`;
-}
-
-function bar(r: ResultRecord, a: Axis, y: number, h: number): string {
-  const { low, high } = rangeOf(r);
-  const x1 = axisX(a, low);
-  const x2 = Math.max(axisX(a, high), x1 + 4);
-  const fits = r.recomputed?.standing === 'consistent';
-  return `<rect class="range${fits ? ' fits' : ''}" x="${x1.toFixed(1)}" y="${y - h / 2}" width="${(x2 - x1).toFixed(1)}" height="${h}"><title>recomputed ${escapeHtml(r.sidedness.value)}-tailed p ${fmt(low)} to ${fmt(high)}</title></rect>`;
-}
-
-/** Where the reported p sits against the recomputed p range, for one test. */
-export function pStrip(r: ResultRecord): string {
-  const { low } = rangeOf(r);
-  const reported = r.p?.number?.value ?? 1;
-  const a = { ...axisFor([low, reported, r.alpha.value]), x0: 10, width: 240 };
-  const alphaX = axisX(a, r.alpha.value);
-  return `<svg class="pstrip" role="img" width="270" height="46" viewBox="0 0 270 46" aria-label="reported p ${escapeHtml(r.p?.number?.printed ?? '')} against recomputed range ${fmt(rangeOf(r).low)} to ${fmt(rangeOf(r).high)}">
-<line class="axis" x1="${a.x0}" y1="24" x2="${a.x0 + a.width}" y2="24"/>${ticks(a, 8, 28)}
-<line class="alpha" x1="${alphaX.toFixed(1)}" y1="4" x2="${alphaX.toFixed(1)}" y2="30"><title>alpha ${escapeHtml(String(r.alpha.value))}</title></line>
-${bar(r, a, 16, 8)}${marker(r, axisX(a, reported), 16)}</svg>`;
-}
-
-/** Every drawable test in reading order: recomputed range as a bar, reported p as a marker, alpha across. */
-function forestPlot(file: FileReport, index: number): string {
-  const rows = file.results.map((r, n) => ({ r, n })).filter(({ r }) => plottable(r));
-  const label = 190;
-  const a: Axis = { ...axisFor(rows.flatMap(({ r }) => [rangeOf(r).low, r.p?.number?.value ?? 1, r.alpha.value])), x0: label + 10, width: 460 };
-  const rowH = 22;
-  const top = 18;
-  const height = top + rows.length * rowH + 18;
-  const alphas = [...new Set(rows.map(({ r }) => r.alpha.value))];
-  const body = rows
-    .map(({ r, n }, k) => {
-      const y = top + k * rowH + rowH / 2;
-      const flagged = worstLevel(file.findings.filter((f) => f.resultId === r.id));
-      const sym = flagged ? `<text x="4" y="${y + 4}" class="lvl-${flagged}" style="fill: var(--c)">${SEVERITY[flagged].symbol}</text>` : '';
-      const text = r.printed.length > 30 ? `${r.printed.slice(0, 29)}…` : r.printed;
-      return `<a href="#${anchor(index, 'r', n)}"><rect class="row" x="0" y="${y - rowH / 2}" width="${a.x0 + a.width + 10}" height="${rowH}" fill="transparent"/>${sym}<text x="18" y="${y + 4}">L${r.start.line} ${escapeHtml(text)}</text>${bar(r, a, y, 9)}${marker(r, axisX(a, r.p?.number?.value ?? 1), y)}</a>`;
-    })
-    .join('\n');
-  const alphaLines = alphas.map((al) => `<line class="alpha" x1="${axisX(a, al).toFixed(1)}" y1="${top - 6}" x2="${axisX(a, al).toFixed(1)}" y2="${top + rows.length * rowH}"><title>alpha ${al}</title></line><text x="${axisX(a, al).toFixed(1)}" y="${top - 8}" text-anchor="middle">α = ${al}</text>`).join('');
-  return `<svg class="forest" role="img" width="${a.x0 + a.width + 20}" height="${height}" viewBox="0 0 ${a.x0 + a.width + 20} ${height}" aria-label="recomputed p ranges and reported p values for ${rows.length} tests">
-${ticks(a, top - 4, top + rows.length * rowH)}<line class="axis" x1="${a.x0}" y1="${top + rows.length * rowH}" x2="${a.x0 + a.width}" y2="${top + rows.length * rowH}"/>
-${alphaLines}
-${body}
-</svg>
-<p class="legend">Bar: the p values t and df allow within rounding (light when the reported p lies among them). Circle: the reported p; triangle: a reported bound such as p &lt; .001. Dashed line: alpha. Each row links to its result.</p>`;
+/** The overview of every drawable test in the file, on the report's p axis. */
+function forestPlot(file: FileReport, index: number, pAxis: PAxis): string {
+  return pOverview(file.results, pAxis, (n) => anchor(index, 'r', n), (r) => {
+    const worst = worstLevel(file.findings.filter((f) => f.resultId === r.id));
+    return worst ? { symbol: SEVERITY[worst].symbol, level: worst } : undefined;
+  });
 }

@@ -7,7 +7,8 @@ import { showNumber } from './format.js';
 export function pPlaceholders(result: LinkedResult, e: PEvaluation): Record<string, string> {
   const r = result.report;
   const gap = e.gap.lastDigitUnits !== undefined
-    ? `${showNumber(e.gap.absolute)} (${e.gap.lastDigitUnits.toFixed(1)} units of the last printed digit; rounding allows 0.5)`
+    ? // both counts in the same unit, the last printed digit (half a unit is what rounding explains)
+      `${showNumber(e.gap.absolute)} (${e.gap.lastDigitUnits.toFixed(1)} units of the last printed digit; rounding allows 0.5 units)`
     : showNumber(e.gap.absolute);
   return {
     reported: reportedP(r),

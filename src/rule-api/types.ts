@@ -28,6 +28,70 @@ export interface Gap {
   roundingAllowance?: number;
 }
 
+/** A closed range of values: a printed number's rounding interval, or a recomputed range. */
+export interface ValueRange {
+  low: number;
+  high: number;
+}
+
+/**
+ * The numbers a picture of a finding draws, on the scale of the finding's own quantity. A
+ * formatter draws them as they are and computes nothing; a finding without one gets no picture.
+ */
+export type Figure = PFigure | IntervalFigure | DfFigure | LatticeFigure | CorrelationFigure;
+
+/** The result's reported p against the p its t and df allow (both are on the result itself). */
+export interface PFigure {
+  kind: 'p';
+}
+
+/** A confidence interval against its estimate and against the interval the reported t implies. */
+export interface IntervalFigure {
+  kind: 'interval';
+  /** Confidence level, e.g. 0.95. */
+  level: number;
+  /** The printed limits, each as the values its rounding allows. */
+  lower: ValueRange;
+  upper: ValueRange;
+  /** The printed limits' midpoint. */
+  midpoint: ValueRange;
+  /** The estimate the interval should be centred on, and where it came from ("as printed", "difference of the means", "midpoint"). */
+  estimate: ValueRange;
+  estimateSource: string;
+  /** The interval the reported t implies: estimate ± critical value × |estimate| / |t|, each limit as a range; absent when t may be 0. */
+  fromT?: { lower: ValueRange; upper: ValueRange };
+  /** The test value subtracted from the printed limits when they are read as the interval of a mean. */
+  shiftedBy?: number;
+  /** A value the finding is about, marked on the axis (zero, for an interval that should exclude or include it). */
+  reference?: { value: number; label: string };
+}
+
+/** The printed df against the df the group sizes allow. */
+export interface DfFigure {
+  kind: 'df';
+  /** The printed df (a fractional df as its rounding interval). */
+  reported: ValueRange;
+  /** Each df or range of df the sizes allow, with what gives it ("n1 + n2 − 2"). */
+  allowed: Array<ValueRange & { label: string }>;
+}
+
+/** GRIM: the means n whole-number scores can have, near a printed mean none of them rounds to. */
+export interface LatticeFigure {
+  kind: 'lattice';
+  /** The values the printed mean's rounding allows. */
+  reported: ValueRange;
+  /** n × items: every possible mean is a multiple of 1/denominator. */
+  denominator: number;
+  /** The possible means around the printed one, in order. */
+  possible: number[];
+}
+
+/** The correlation a paired result implies against the correlations that exist, [−1, 1]. */
+export interface CorrelationFigure {
+  kind: 'correlation';
+  implied: ValueRange;
+}
+
 /** What a rule reports: data first; the engine adds file, level and positions. */
 export interface RuleFinding {
   messageId: string;
@@ -37,6 +101,8 @@ export interface RuleFinding {
   reported: string;
   recomputed?: Recomputed;
   gap?: Gap;
+  /** What a picture of this finding draws; none when no picture says more than the message. */
+  figure?: Figure;
   /** One concrete thing to check. */
   check: string;
   related?: Array<{ span: Span; message: string }>;

@@ -98,6 +98,45 @@ describe.skipIf(!available)('in chromium', () => {
     await w.page.close();
   }, 60_000);
 
+  it('the pictures, measured by the browser: labels inside their picture, the recomputed p range clear of the reported marker', async () => {
+    const html = await report(['test/fixtures/pictures/p-values.md', 'test/fixtures/pictures/other-quantities.md', 'fixtures/demo/hand-hygiene.md']);
+    writeFileSync(resolve(OUT, 'report-pictures.html'), html);
+    const url = pathToFileURL(resolve(OUT, 'report-pictures.html')).href;
+    const w = await open(url);
+    const measured = await w.page.evaluate(() => {
+      const out: { pictures: number; outside: string[]; covered: string[]; crowded: string[] } = { pictures: 0, outside: [], covered: [], crowded: [] };
+      for (const svg of document.querySelectorAll<SVGSVGElement>('svg.pstrip, svg.forest, svg.figure')) {
+        out.pictures += 1;
+        const vb = svg.viewBox.baseVal;
+        const ticks: DOMRect[] = [];
+        for (const t of svg.querySelectorAll<SVGTextElement>('text')) {
+          const b = t.getBBox();
+          if (b.x < vb.x || b.y < vb.y || b.x + b.width > vb.x + vb.width || b.y + b.height > vb.y + vb.height) out.outside.push(`${t.textContent} in ${svg.getAttribute('aria-label')}`);
+          if (t.classList.contains('tick')) ticks.push(b);
+        }
+        ticks.sort((a, b) => a.x - b.x);
+        for (let i = 1; i < ticks.length; i++) if (ticks[i]!.x < ticks[i - 1]!.x + ticks[i - 1]!.width) out.crowded.push(`${svg.getAttribute('aria-label')}`);
+        // each strip (and each overview row) holds one range bar and one reported marker
+        const groups = svg.classList.contains('forest') ? [...svg.querySelectorAll('a')] : svg.classList.contains('pstrip') ? [svg] : [];
+        for (const g of groups) {
+          const range = g.querySelector<SVGGraphicsElement>('rect.range')?.getBBox();
+          const marker = g.querySelector<SVGGraphicsElement>('.reported')?.getBBox();
+          if (!range || !marker || range.width <= 0) out.covered.push(`missing in ${svg.getAttribute('aria-label')}`);
+          else if (range.x < marker.x + marker.width && marker.x < range.x + range.width && range.y < marker.y + marker.height && marker.y < range.y + range.height) out.covered.push(`${svg.getAttribute('aria-label')}`);
+        }
+      }
+      return out;
+    });
+    expect(measured.pictures).toBeGreaterThan(20);
+    expect(measured.outside).toEqual([]);
+    expect(measured.crowded).toEqual([]);
+    expect(measured.covered).toEqual([]);
+    await w.page.screenshot({ path: resolve(OUT, 'report-pictures.png'), fullPage: true });
+    expect(w.errors).toEqual([]);
+    expect(w.requests).toEqual([]);
+    await w.page.close();
+  }, 60_000);
+
   it('control: the detector sees a payload that does run (unescaped, without the policy)', async () => {
     const w = await open('about:blank');
     await w.page.setContent('<img src="data:," onerror="window.__pwned = 1"><p>x</p>');
