@@ -137,7 +137,7 @@ ${row('Results with p recomputed', c.checked)}
 ${row('Recomputed and not flagged', consistent)}
 ${row(`<span class="sym">${SEVERITY.error.symbol}</span> Errors`, c.error, 'lvl-error')}
 ${row(`<span class="sym">${SEVERITY.warning.symbol}</span> Warnings`, c.warning, 'lvl-warning')}
-${row(`<span class="sym">${SEVERITY.note.symbol}</span> Notes`, c.note, 'lvl-note')}
+${row(`<span class="sym">${SEVERITY.note.symbol}</span> Notes`, c.note, 'lvl-note')}${c.hiddenByQuiet > 0 ? `\n${row('Hidden by quiet comments', c.hiddenByQuiet)}` : ''}${c.hiddenByBaseline > 0 ? `\n${row('Hidden by the baseline', c.hiddenByBaseline)}` : ''}
 </table>`;
 }
 

@@ -377,6 +377,9 @@ describe('baselines for manuscripts under revision', () => {
     expect(human.stdout).toContain('2 findings hidden (1 by quiet comments, 1 by the baseline)');
     const summary = json((await cli(['paper.md', '--baseline', 'b.json', '-f', 'json'], { cwd: dir })).stdout).summary;
     expect([summary.hiddenByQuiet, summary.hiddenByBaseline]).toEqual([1, 1]);
+    const html = (await cli(['paper.md', '--baseline', 'b.json', '-f', 'html'], { cwd: dir })).stdout;
+    expect(html).toContain('<tr><th>Hidden by quiet comments</th><td>1</td></tr>');
+    expect(html).toContain('<tr><th>Hidden by the baseline</th><td>1</td></tr>');
     const sarif = JSON.parse((await cli(['paper.md', '--baseline', 'b.json', '-f', 'sarif'], { cwd: dir })).stdout);
     expect(sarif.runs[0].properties).toMatchObject({ hiddenByQuietComments: 1, hiddenByBaseline: 1 });
   });
