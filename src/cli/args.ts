@@ -67,7 +67,7 @@ const EXIT_STATUS = 'Exit status: 0 when no finding is at error level and warnin
 
 /** The help text, wrapped at word boundaries to `columns` (two columns when wide enough). */
 export function helpText(columns: number | undefined): string {
-  const width = Math.max(20, Math.min(columns ?? 100, 120));
+  const width = Math.max(8, Math.min(columns ?? 100, 120));
   const out: string[] = [...wrapWords(ABOUT, width), ''];
   const termWidth = Math.max(...COMMANDS.map(([c]) => c.length), ...OPTIONS.map((o) => optionTerm(o).length));
   const twoColumns = width >= 60;
@@ -148,7 +148,17 @@ export async function parseArguments(argv: string[], columns: number | undefined
   if (failure !== undefined) return { kind: 'error', message: ourMessage(failure, words) };
   if (!parsed) return { kind: 'error', message: 'invalid arguments' };
 
-  for (const name of VALUE_OPTIONS) if (Array.isArray(parsed[name])) return { kind: 'error', message: `--${name} is given more than once; give it once` };
+  for (const name of VALUE_OPTIONS) {
+    if (Array.isArray(parsed[name])) return { kind: 'error', message: `--${name} is given more than once; give it once` };
+    // yargs reads --no-output as output = false; only the on/off options have a --no- form
+    if (typeof parsed[name] === 'boolean') return { kind: 'error', message: `unknown option --no-${name} (only --color, --checklist and --quiet have a --no- form)` };
+  }
+  // numbers as written: whole numbers in plain digits (yargs would take "", "0x1" or "1e3")
+  for (const [name, short] of [['max-warnings'], ['jobs', 'j'], ['max-file-bytes']] as const) {
+    if (parsed[name] === undefined) continue;
+    const raw = rawValue(words, name, short);
+    if (raw !== undefined && !/^\d{1,15}$/.test(raw)) parsed[name] = Number.NaN;
+  }
   const str = (name: string) => (parsed[name] === undefined ? undefined : String(parsed[name]));
   const num = (name: string) => parsed[name] as number | undefined;
 
@@ -159,20 +169,20 @@ export async function parseArguments(argv: string[], columns: number | undefined
   const tails = str('tails');
   if (tails !== undefined && tails !== 'one' && tails !== 'two') return { kind: 'error', message: `--tails must be one or two; got "${tails}"` };
   const alpha = num('alpha');
-  if (alpha !== undefined && !(alpha > 0 && alpha < 1)) return { kind: 'error', message: `--alpha must be a number between 0 and 1 (exclusive); got "${rawValue(words, 'alpha')}"` };
+  if (alpha !== undefined && !(alpha > 0 && alpha < 1)) return { kind: 'error', message: `--alpha must be a number between 0 and 1 (exclusive); got "${rawValue(words, 'alpha') ?? parsed.alpha}"` };
   const maxWarnings = num('max-warnings');
   if (maxWarnings !== undefined && !(Number.isInteger(maxWarnings) && maxWarnings >= 0))
-    return { kind: 'error', message: `--max-warnings must be a whole number, 0 or more; got "${rawValue(words, 'max-warnings')}"` };
+    return { kind: 'error', message: `--max-warnings must be a whole number, 0 or more; got "${rawValue(words, 'max-warnings') ?? ''}"` };
   const jobs = num('jobs');
-  if (jobs !== undefined && !(Number.isInteger(jobs) && jobs >= 1)) return { kind: 'error', message: `--jobs must be a whole number, 1 or more; got "${rawValue(words, 'jobs', 'j')}"` };
+  if (jobs !== undefined && !(Number.isInteger(jobs) && jobs >= 1)) return { kind: 'error', message: `--jobs must be a whole number, 1 or more; got "${rawValue(words, 'jobs', 'j') ?? ''}"` };
   const maxFileBytes = num('max-file-bytes');
   if (maxFileBytes !== undefined && !(Number.isInteger(maxFileBytes) && maxFileBytes >= 1))
-    return { kind: 'error', message: `--max-file-bytes must be a whole number of bytes, 1 or more; got "${rawValue(words, 'max-file-bytes')}"` };
+    return { kind: 'error', message: `--max-file-bytes must be a whole number of bytes, 1 or more; got "${rawValue(words, 'max-file-bytes') ?? ''}"` };
   for (const name of ['output', 'baseline', 'write-baseline', 'config', 'stdin-name'] as const) if (str(name) === '') return { kind: 'error', message: `--${name} needs a value` };
 
   const positional = ((parsed.files as string[] | undefined) ?? []).map(String);
   // yargs sets a lone "-" aside from the positionals; it means standard input
-  const stdin = positional.includes('-') || words.includes('-');
+  const stdin = namesStandardInput(words);
   const options: CliOptions = {
     command,
     files: [...positional.filter((f) => f !== '-'), ...literalFiles],
@@ -196,14 +206,29 @@ export async function parseArguments(argv: string[], columns: number | undefined
   return { kind: 'run', options };
 }
 
-/** The value printed after an option, for messages ("abc" rather than NaN). */
-function rawValue(words: string[], name: string, short?: string): string {
+/** The value printed after an option, for messages ("abc" rather than NaN); undefined when it cannot be told (a cluster such as -qj2). */
+function rawValue(words: string[], name: string, short?: string): string | undefined {
   for (let i = words.length - 1; i >= 0; i--) {
     const w = words[i] as string;
     if (w === `--${name}` || (short !== undefined && w === `-${short}`)) return words[i + 1] ?? '';
     if (w.startsWith(`--${name}=`)) return w.slice(name.length + 3);
+    if (short !== undefined && w.startsWith(`-${short}`) && !w.startsWith('--')) return w.slice(2).replace(/^=/, '');
   }
-  return '';
+  return undefined;
+}
+
+/** A lone "-" among the words, not the value of an option ("-o -" writes to standard output). */
+function namesStandardInput(words: string[]): boolean {
+  const takesValue = new Set([...VALUE_OPTIONS.map((n) => `--${n}`), ...Object.entries(SHORT).filter(([, n]) => (VALUE_OPTIONS as readonly string[]).includes(n)).map(([s]) => `-${s}`)]);
+  for (let i = 0; i < words.length; i++) {
+    const w = words[i] as string;
+    if (takesValue.has(w)) {
+      i += 1;
+      continue;
+    }
+    if (w === '-') return true;
+  }
+  return false;
 }
 
 /** yargs' messages into ours: each option named once, with its dashes. */

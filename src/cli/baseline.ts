@@ -1,5 +1,5 @@
-import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
-import { dirname, relative, resolve, sep } from 'node:path';
+import { closeSync, fstatSync, openSync, readSync, statSync } from 'node:fs';
+import { dirname, posix, relative, resolve, sep } from 'node:path';
 import type { FileReport } from '../engine/index.js';
 
 /**
@@ -36,10 +36,14 @@ export function readBaseline(file: string): Baseline {
   let text: string;
   let fd: number;
   try {
+    // stat before opening: opening a FIFO would block, a device could never end
+    const s = statSync(file);
+    if (!s.isFile()) throw new BaselineError(s.isDirectory() ? 'is a folder' : 'not a regular file');
     fd = openSync(file, 'r');
   } catch (e) {
+    if (e instanceof BaselineError) throw e;
     const code = (e as NodeJS.ErrnoException).code;
-    throw new BaselineError(code === 'ENOENT' ? 'no such file (write one with --write-baseline)' : code === 'EACCES' ? 'permission denied' : String((e as Error).message));
+    throw new BaselineError(code === 'ENOENT' ? 'no such file (write one with --write-baseline)' : code === 'EACCES' || code === 'EPERM' ? 'permission denied' : 'the file could not be read');
   }
   try {
     const stat = fstatSync(fd);
@@ -77,8 +81,13 @@ function validEntries(data: unknown): BaselineEntry[] {
     if (typeof e !== 'object' || e === null) throw new BaselineError(`finding ${i + 1}: expected an object`);
     for (const key of ['path', 'rule', 'fingerprint', 'text'] as const) if (typeof e[key] !== 'string') throw bad(key);
     if (e.reason !== undefined && typeof e.reason !== 'string') throw bad('reason');
-    return { path: e.path as string, rule: e.rule as string, fingerprint: e.fingerprint as string, text: e.text as string, ...(typeof e.reason === 'string' && e.reason !== '' ? { reason: e.reason } : {}) };
+    return { path: normalPath(e.path as string), rule: e.rule as string, fingerprint: e.fingerprint as string, text: e.text as string, ...(typeof e.reason === 'string' && e.reason !== '' ? { reason: e.reason } : {}) };
   });
+}
+
+/** "./a/../b.md" and "b.md" are the same entry. */
+function normalPath(path: string): string {
+  return posix.normalize(path.replace(/\\/g, '/')).replace(/^\.\//, '');
 }
 
 /** A manuscript's path as a baseline records it: relative to the baseline's folder, "/" separated. */
@@ -90,10 +99,13 @@ const key = (path: string, fingerprint: string) => `${path}\u0000${fingerprint}`
 
 /**
  * Drop the findings the baseline holds from each report (counted in `hidden.baseline`). Returns
- * the reports and how many baseline entries matched nothing (fixed, or edited text).
+ * the reports and how many entries for the files checked matched nothing (fixed, or their text
+ * edited); entries for files not checked in this run are not counted.
  */
 export function applyBaseline(reports: FileReport[], baseline: Baseline, cwd: string): { reports: FileReport[]; unmatched: number } {
   const held = new Set(baseline.entries.map((e) => key(e.path, e.fingerprint)));
+  const checked = new Set(reports.map((r) => baselinePath(baseline.file, r.path, cwd)));
+  const relevant = new Set(baseline.entries.filter((e) => checked.has(e.path)).map((e) => key(e.path, e.fingerprint)));
   const matched = new Set<string>();
   const out = reports.map((r) => {
     const path = baselinePath(baseline.file, r.path, cwd);
@@ -105,16 +117,18 @@ export function applyBaseline(reports: FileReport[], baseline: Baseline, cwd: st
     });
     return { ...r, findings: kept, hidden: { ...r.hidden, baseline: r.hidden.baseline + r.findings.length - kept.length } };
   });
-  return { reports: out, unmatched: held.size - matched.size };
+  return { reports: out, unmatched: relevant.size - matched.size };
 }
 
 /**
  * The baseline text for these reports: every finding, in file and reading order. Reasons
- * already given in `previous` for the same finding are kept, so re-recording loses none.
+ * already given in `previous` for the same finding are kept, so re-recording loses none, and
+ * its entries for files not checked in this run are kept as they were.
  */
 export function baselineText(reports: FileReport[], baselineFile: string, cwd: string, previous?: Baseline): string {
   const reasons = new Map((previous?.entries ?? []).filter((e) => e.reason).map((e) => [key(e.path, e.fingerprint), e.reason as string]));
-  const findings: BaselineEntry[] = [];
+  const checked = new Set(reports.map((r) => baselinePath(baselineFile, r.path, cwd)));
+  const findings: BaselineEntry[] = (previous?.entries ?? []).filter((e) => !checked.has(e.path));
   for (const r of reports) {
     const path = baselinePath(baselineFile, r.path, cwd);
     for (const f of r.findings) {
@@ -122,5 +136,6 @@ export function baselineText(reports: FileReport[], baselineFile: string, cwd: s
       findings.push({ path, rule: f.ruleId, fingerprint: f.fingerprint, text: r.source.slice(f.span.start, f.span.end).replace(/\s+/g, ' ').trim(), ...(reason ? { reason } : {}) });
     }
   }
+  findings.sort((a, b) => (a.path < b.path ? -1 : a.path > b.path ? 1 : 0));
   return `${JSON.stringify({ format: BASELINE_FORMAT, version: BASELINE_VERSION, findings }, null, 2)}\n`;
 }

@@ -14,6 +14,8 @@ export const SKIPPED_FOLDERS = ['node_modules', '_site', '_book', '_freeze', '_b
 
 export interface Expansion {
   files: string[];
+  /** The files named on the command line as they are (the rest came from walking folders or globs). */
+  named: string[];
   /** Arguments that matched nothing, with why. */
   missing: Array<{ path: string; message: string }>;
 }
@@ -46,6 +48,7 @@ const MAX_GITIGNORE_BYTES = 1024 * 1024;
 export function expandArguments(args: string[], cwd = process.cwd(), options: ExpandOptions = {}): Expansion {
   const at = (p: string) => resolve(cwd, p);
   const files: string[] = [];
+  const named: string[] = [];
   const missing: Expansion['missing'] = [];
   const seen = new Set<string>();
   const ignored = new IgnoreRules(options);
@@ -62,7 +65,7 @@ export function expandArguments(args: string[], cwd = process.cwd(), options: Ex
     } catch (e) {
       if (GLOB_CHARS.test(arg)) {
         const all = globSync(arg, { cwd, onlyFiles: true, dot: false, absolute: isAbsolute(arg), ignore: SKIPPED_FOLDERS.map((f) => `**/${f}/**`) }).sort();
-        const matched = all.filter((f) => !ignored.test(at(f), false));
+        const matched = all.filter((f) => !ignored.test(at(f), false, cwd));
         if (matched.length === 0) missing.push({ path: arg, message: all.length === 0 ? 'no file matches this pattern' : 'every file this pattern matches is ignored (.gitignore or the configuration\'s "ignore")' });
         matched.forEach(add);
       } else {
@@ -70,10 +73,13 @@ export function expandArguments(args: string[], cwd = process.cwd(), options: Ex
       }
       continue;
     }
-    if (stat.isDirectory()) walk(arg, new Set(), add, at, ignored);
-    else add(arg);
+    if (stat.isDirectory()) walk(arg, new Set(), add, at, ignored, at(arg));
+    else {
+      named.push(arg);
+      add(arg);
+    }
   }
-  return { files, missing };
+  return { files, named, missing };
 }
 
 /** The ignore patterns in force: configuration `ignore` lists and .gitignore files, each read once. */
@@ -84,19 +90,23 @@ class IgnoreRules {
 
   constructor(private readonly options: ExpandOptions) {}
 
-  /** Whether an absolute path is ignored (a folder when `isDir`). */
-  test(path: string, isDir: boolean): boolean {
+  /**
+   * Whether an absolute path is ignored (a folder when `isDir`). `top` is the folder walked (or
+   * the working folder, for a glob): .gitignore files apply from the repository's root down, or
+   * from `top` down outside a repository.
+   */
+  test(path: string, isDir: boolean, top: string): boolean {
     const folder = dirname(path);
     let state = false;
     if (this.options.gitignore !== false) {
-      const root = this.gitRoot(folder);
-      // .gitignore files from the repository's root (or the file's folder outside one) down
+      const root = this.gitRoot(folder) ?? top;
       const chain: string[] = [];
       for (let d = folder; ; d = dirname(d)) {
         chain.unshift(d);
         if (d === root || dirname(d) === d) break;
-        if (root === undefined) break;
       }
+      // outside the root (a file above the folder walked): only its own folder's .gitignore
+      if (chain[0] !== root) chain.splice(0, chain.length - 1);
       for (const base of chain) state = this.apply(this.gitignore(base), base, path, isDir, state);
     }
     let sources: IgnoreSource[] = [];
@@ -168,7 +178,7 @@ function readSmallRegularFile(path: string, maxBytes: number): string | undefine
   }
 }
 
-function walk(dir: string, visited: Set<string>, add: (f: string) => void, at: (p: string) => string, ignored: IgnoreRules): void {
+function walk(dir: string, visited: Set<string>, add: (f: string) => void, at: (p: string) => string, ignored: IgnoreRules, top: string): void {
   let real: string;
   try {
     real = realpathSync(at(dir));
@@ -199,8 +209,8 @@ function walk(dir: string, visited: Set<string>, add: (f: string) => void, at: (
       }
     }
     if (isDir) {
-      if (!ignored.test(at(path), true)) walk(path, visited, add, at, ignored);
-    } else if (isFile && isManuscript(e.name) && !ignored.test(at(path), false)) add(path);
+      if (!ignored.test(at(path), true, top)) walk(path, visited, add, at, ignored, top);
+    } else if (isFile && isManuscript(e.name) && !ignored.test(at(path), false, top)) add(path);
   }
 }
 
@@ -216,6 +226,19 @@ export function describeError(e: unknown): string {
       return 'is a folder';
     case 'ELOOP':
       return 'too many levels of symbolic links';
+    case 'ENOSPC':
+      return 'no space left on the device';
+    case 'EROFS':
+      return 'read-only file system';
+    case 'ENOTDIR':
+      return 'a part of the path is not a folder';
+    case 'ENXIO':
+      return 'no reader on the other end, or no such device';
+    case 'EBADF':
+    case 'EINVAL':
+      return 'not something a report can be written to';
+    case 'ENOTREG':
+      return 'not a regular file';
     default:
       return e instanceof Error ? e.message : String(e);
   }

@@ -9,8 +9,11 @@ import { run } from './run.js';
  */
 let stdoutGone = false;
 process.stdout.on('error', (e: NodeJS.ErrnoException) => {
-  if (e.code === 'EPIPE' || e.code === 'ERR_STREAM_DESTROYED') stdoutGone = true;
-  else throw e;
+  stdoutGone = true;
+  if (e.code === 'EPIPE' || e.code === 'ERR_STREAM_DESTROYED') return;
+  // a full disk or a closed descriptor: said, and the run is trouble (exit 2), not findings
+  process.stderr.write(`plumbline: cannot write the report to standard output: ${e.code === 'ENOSPC' ? 'no space left on the device' : e.message}\n`);
+  process.exit(2);
 });
 
 process.stderr.on('error', (e: NodeJS.ErrnoException) => {

@@ -1,4 +1,4 @@
-import { closeSync, fsyncSync, openSync, readlinkSync, realpathSync, renameSync, statSync, unlinkSync, writeSync } from 'node:fs';
+import { closeSync, fchmodSync, fsyncSync, openSync, readdirSync, readlinkSync, realpathSync, renameSync, statSync, unlinkSync, writeSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 
 /** Where a report goes when it is not standard output. */
@@ -10,71 +10,105 @@ export interface ReportSink {
   commit(): void;
   /** The run failed or was refused: leave any earlier file as it was. */
   abort(): void;
-  /** The reader went away (a FIFO whose reader closed): later writes are dropped. */
-  readonly closed: boolean;
 }
+
+/** `-o` names standard output or standard error: the run writes to that stream as it would without `-o`. */
+export type Destination = { stream: 'stdout' | 'stderr'; target: string } | { sink: ReportSink };
 
 /**
  * Open the report's destination.
  *
  * - A symbolic link is written through: the file it points at is written, the link stays.
- * - A FIFO, device or other non-regular file is written directly (never replaced): `-o /dev/stdout`
- *   writes to standard output, `-o pipe` feeds the pipe's reader.
+ * - /dev/stdout and /dev/stderr (and /dev/fd/1, /dev/fd/2, /proc/self/fd/…) are the process's
+ *   own streams: written as they are, so a shell's redirection to a file is appended to.
+ * - Another descriptor (/dev/fd/63 from a shell's `>(…)`) is written as it is, when the shell
+ *   handed it over; the process's own descriptors are refused.
+ * - A FIFO, device or other non-regular file is written directly, never replaced.
  * - A regular file (or a new one) is written atomically: a temporary file beside the link's
- *   target replaces it only when the run completes, so a failed run leaves an earlier report as
- *   it was.
+ *   target, with the old file's permissions, replaces it only when the run completes, so a
+ *   failed run leaves an earlier report as it was.
  */
-export function openReportSink(path: string, cwd: string): ReportSink {
+export function openDestination(path: string, cwd: string): Destination {
   const target = followLinks(resolve(cwd, path));
-  // standard output, standard error or another inherited descriptor: written through the
-  // descriptor itself, so a shell's redirection to a file is appended to, never replaced
-  const fd = inheritedDescriptor(target);
-  if (fd !== undefined) return new DescriptorOutput(target, fd);
+  const fd = descriptorNamed(target);
+  if (fd === 1) return { stream: 'stdout', target };
+  if (fd === 2) return { stream: 'stderr', target };
+  if (fd !== undefined) return { sink: new DescriptorOutput(target, inherited(fd)) };
   let existing;
   try {
     existing = statSync(target);
   } catch {
     existing = undefined;
   }
-  if (existing !== undefined && !existing.isFile()) {
-    if (existing.isDirectory()) throw Object.assign(new Error('is a folder'), { code: 'EISDIR' });
-    return new DirectOutput(target);
+  if (existing?.isDirectory()) throw Object.assign(new Error('is a folder'), { code: 'EISDIR' });
+  if (existing !== undefined && !existing.isFile()) return { sink: new DirectOutput(target, 'w') };
+  return { sink: new AtomicOutput(target, existing?.mode) };
+}
+
+/** The same, for files that must be regular (a baseline): never a FIFO, device or descriptor. */
+export function openRegularFile(path: string, cwd: string): ReportSink {
+  const target = followLinks(resolve(cwd, path));
+  let existing;
+  try {
+    existing = statSync(target);
+  } catch {
+    existing = undefined;
   }
-  return new AtomicOutput(target);
+  if (descriptorNamed(target) !== undefined || (existing !== undefined && !existing.isFile())) throw Object.assign(new Error('not a regular file'), { code: 'ENOTREG' });
+  return new AtomicOutput(target, existing?.mode);
 }
 
 /**
  * The path a chain of symbolic links ends at, following each link (also one that dangles, so
- * `-o link` creates the file the link names). Kernel "magic" links such as /proc/self/fd/1 that
- * name no path (`pipe:[…]`) end the walk at the link itself, which opening follows.
+ * `-o link` creates the file the link names). Descriptor links (/proc/self/fd/N) end the walk.
  */
 function followLinks(path: string): string {
   let current = path;
   for (let hops = 0; hops < 40; hops++) {
-    if (inheritedDescriptor(current) !== undefined) return current;
+    if (descriptorNamed(current) !== undefined) return current;
     let link: string;
     try {
       link = readlinkSync(current);
     } catch {
       return current; // not a link, or not there yet
     }
-    if (!link.startsWith('/') && /^[a-z]+:\[/.test(link)) return current;
     current = resolve(dirname(current), link);
   }
   throw Object.assign(new Error('too many levels of symbolic links'), { code: 'ELOOP' });
 }
 
-/** The descriptor a path names: /dev/stdout, /dev/stderr, /dev/fd/N, /proc/self/fd/N. */
-function inheritedDescriptor(path: string): number | undefined {
-  if (path === '/dev/stdout') return 1;
-  if (path === '/dev/stderr') return 2;
-  const m = /^\/(?:dev|proc\/self)\/fd\/(\d{1,6})$/.exec(path) ?? (process.pid > 0 ? new RegExp(`^/proc/${process.pid}/fd/(\\d{1,6})$`).exec(path) : null);
-  return m ? Number(m[1]) : undefined;
+/**
+ * A descriptor the shell handed over (`-o /dev/fd/63` from `>(…)`, or `9>file`), checked before
+ * it is written. The process's own descriptors are refused: Node's event loop (eventfd, epoll),
+ * sockets, and its internal pipes, which are the pipes whose two ends are both open here. A
+ * descriptor that is not open is refused too.
+ */
+function inherited(fd: number): number {
+  let link: string;
+  try {
+    link = readlinkSync(`/proc/self/fd/${fd}`);
+  } catch {
+    throw Object.assign(new Error(`descriptor ${fd} is not open`), { code: 'EDESCRIPTOR' });
+  }
+  const own = () => Object.assign(new Error(`descriptor ${fd} is one of plumbline's own, not one handed to it`), { code: 'EDESCRIPTOR' });
+  if (/^(anon_inode|socket):/.test(link)) throw own();
+  if (link.startsWith('pipe:')) {
+    let ends = 0;
+    for (const other of readdirSync('/proc/self/fd')) {
+      try {
+        if (readlinkSync(`/proc/self/fd/${other}`) === link) ends += 1;
+      } catch {
+        // closed meanwhile (the listing itself)
+      }
+    }
+    if (ends > 1) throw own();
+  }
+  return fd;
 }
 
-/** An inherited descriptor, written as it is and left open. */
+/** An inherited descriptor: written as it is and left open. */
 class DescriptorOutput implements ReportSink {
-  closed = false;
+  private closed = false;
   constructor(
     readonly target: string,
     private readonly fd: number,
@@ -85,9 +119,8 @@ class DescriptorOutput implements ReportSink {
     try {
       writeAll(this.fd, s);
     } catch (e) {
-      const code = (e as NodeJS.ErrnoException).code;
       // the reader went away: stop writing, quietly
-      if (code === 'EPIPE') this.closed = true;
+      if ((e as NodeJS.ErrnoException).code === 'EPIPE') this.closed = true;
       else throw e;
     }
   }
@@ -97,17 +130,27 @@ class DescriptorOutput implements ReportSink {
   abort(): void {}
 }
 
+/** The descriptor a path names: /dev/stdout, /dev/stderr, /dev/fd/N, /proc/self/fd/N, /proc/<this pid>/fd/N. */
+function descriptorNamed(path: string): number | undefined {
+  if (path === '/dev/stdout') return 1;
+  if (path === '/dev/stderr') return 2;
+  const m = /^\/(?:dev|proc\/self|proc\/(\d{1,10}))\/fd\/(\d{1,6})$/.exec(path);
+  if (!m || (m[1] !== undefined && Number(m[1]) !== process.pid)) return undefined;
+  return Number(m[2]);
+}
+
 class AtomicOutput implements ReportSink {
   readonly target: string;
-  readonly closed = false;
   private readonly temp: string;
   private fd: number | undefined;
 
-  constructor(target: string) {
+  constructor(target: string, mode: number | undefined) {
     this.target = target;
     this.temp = join(dirname(target), `.${basename(target)}.${process.pid}.${Date.now()}.tmp`);
     // 'wx': never follow or reuse an existing file of that name
     this.fd = openSync(this.temp, 'wx', 0o644);
+    // a report replaced keeps the permissions it had (a private report stays private)
+    if (mode !== undefined) fchmodSync(this.fd, mode & 0o7777);
   }
 
   write(s: string): void {
@@ -136,15 +179,15 @@ class AtomicOutput implements ReportSink {
   }
 }
 
-/** A FIFO, terminal or device: opened for writing as it is, never replaced. */
+/** A FIFO, terminal, device or descriptor link: opened for writing as it is, never replaced. */
 class DirectOutput implements ReportSink {
   readonly target: string;
-  closed = false;
+  private closed = false;
   private fd: number | undefined;
 
-  constructor(target: string) {
+  constructor(target: string, flags: 'w') {
     this.target = target;
-    this.fd = openSync(target, 'w');
+    this.fd = openSync(target, flags);
   }
 
   write(s: string): void {
@@ -172,6 +215,8 @@ class DirectOutput implements ReportSink {
   }
 }
 
+const pause = new Int32Array(new SharedArrayBuffer(4));
+
 function writeAll(fd: number, s: string): void {
   const b = Buffer.from(s, 'utf8');
   let done = 0;
@@ -179,8 +224,9 @@ function writeAll(fd: number, s: string): void {
     try {
       done += writeSync(fd, b, done, b.length - done);
     } catch (e) {
-      // a non-blocking FIFO or terminal that is momentarily full
       if ((e as NodeJS.ErrnoException).code !== 'EAGAIN') throw e;
+      // a non-blocking pipe that is full: wait a moment rather than spin
+      Atomics.wait(pause, 0, 0, 5);
     }
   }
 }

@@ -8,7 +8,7 @@ import { Presets, SingleBar } from 'cli-progress';
 import { applyBaseline, baselineText, BaselineError, readBaseline, type Baseline } from './baseline.js';
 import { runBatch } from './batch.js';
 import { describeError } from './files.js';
-import { identity, openReportSink, type ReportSink } from './output.js';
+import { identity, openDestination, openRegularFile, type Destination } from './output.js';
 import { checkFiles, configMessage } from './runner.js';
 import { ConfigError, ConfigFinder, readConfigFile, type Config } from '../config/index.js';
 import { DEFAULT_MAX_FILE_BYTES, type ReadOutcome } from './read.js';
@@ -66,34 +66,82 @@ export async function run(argv: string[], io: Io): Promise<number> {
     return EXIT.trouble;
   }
 
-  if (options.output === undefined || options.output === '-') return check(options, io);
-  let sink: ReportSink;
+  if (options.command === 'batch') {
+    const misplaced = (['baseline', 'writeBaseline', 'maxWarnings'] as const).filter((k) => options[k] !== undefined);
+    if (options.quiet) misplaced.push('quiet' as never);
+    if (misplaced.length > 0 || options.format !== 'human') {
+      const names = [...misplaced.map((k) => `--${k.replace(/[A-Z]/g, (c) => `-${c.toLowerCase()}`)}`), ...(options.format !== 'human' ? ['--format'] : [])];
+      io.stderr(`plumbline: ${names.join(', ')} ${names.length === 1 ? 'does' : 'do'} not apply to batch, which writes one NDJSON line per document\n`);
+      return EXIT.trouble;
+    }
+  }
+  const writes: string[] = [];
+  if (options.writeBaseline !== undefined) writes.push(identity(options.writeBaseline, io.cwd));
+  if (options.output === undefined || options.output === '-') return settled(await check(options, io, writes));
+
+  let destination: Destination;
   try {
-    sink = openReportSink(options.output, io.cwd);
+    destination = openDestination(options.output, io.cwd);
   } catch (e) {
     io.stderr(`plumbline: cannot write ${options.output}: ${describeError(e)}\n`);
     return EXIT.trouble;
   }
-  try {
-    const code = await check(options, { ...io, stdout: (s) => sink.write(s), isTTY: false }, identity(sink.target, io.cwd));
-    if (code === REFUSED) {
-      sink.abort();
-      return EXIT.trouble;
+  if ('stream' in destination) {
+    // standard output or error by name: the run writes there as it would without -o
+    const stream = destination.stream === 'stdout' ? io.stdout : io.stderr;
+    return settled(await check(options, { ...io, stdout: stream, isTTY: destination.stream === 'stdout' ? io.isTTY : false }, writes));
+  }
+  const sink = destination.sink;
+  const target = identity(sink.target, io.cwd);
+  if (writes.includes(target)) {
+    sink.abort();
+    io.stderr(`plumbline: --output and --write-baseline name the same file; give them different files\n`);
+    return EXIT.trouble;
+  }
+  let wrote = false;
+  let failure: unknown;
+  const write = (s: string) => {
+    if (failure !== undefined) return;
+    try {
+      sink.write(s);
+      wrote = true;
+    } catch (e) {
+      failure = e;
     }
-    sink.commit();
-    return code;
+  };
+  let code: number;
+  try {
+    code = await check(options, { ...io, stdout: write, isTTY: false }, [...writes, target], true);
   } catch (e) {
     sink.abort();
     throw e;
   }
+  // nothing written (refused, or stopped before checking): an earlier report stays as it was
+  if (code === REFUSED || !wrote || failure !== undefined) {
+    sink.abort();
+    if (failure !== undefined) io.stderr(`plumbline: cannot write ${options.output}: ${describeError(failure)}\n`);
+    return code === REFUSED || failure !== undefined ? EXIT.trouble : code;
+  }
+  try {
+    sink.commit();
+  } catch (e) {
+    sink.abort();
+    io.stderr(`plumbline: cannot write ${options.output}: ${describeError(e)}\n`);
+    return EXIT.trouble;
+  }
+  return code;
 }
 
 /** Returned when the run must not produce output at all (the output file is one of the inputs). */
 const REFUSED = -1;
+const settled = (code: number) => (code === REFUSED ? EXIT.trouble : code);
 
-/** Check the files (or the batch on standard input), writing the report through `io.stdout`. */
-async function check(options: CliOptions, io: Io, outputIdentity?: string): Promise<number> {
-  if (options.command === 'batch') return batch(options, io, outputIdentity);
+/**
+ * Check the files (or the batch on standard input), writing the report through `io.stdout`.
+ * `writes` are the real paths this run writes, never read as manuscripts.
+ */
+async function check(options: CliOptions, io: Io, writes: string[], toFile = false): Promise<number> {
+  if (options.command === 'batch') return batch(options, io, writes);
 
   let baseline: Baseline | undefined;
   if (options.baseline !== undefined) {
@@ -115,7 +163,7 @@ async function check(options: CliOptions, io: Io, outputIdentity?: string): Prom
     ...(options.maxFileBytes !== undefined ? { maxFileBytes: options.maxFileBytes } : {}),
     ...(options.jobs !== undefined ? { jobs: options.jobs } : {}),
     ...(stdin ? { stdin } : {}),
-    ...(outputIdentity !== undefined ? { outputIdentity } : {}),
+    writes,
     ...(baseline ? { baseline } : {}),
     errorsOnly: options.quiet,
     withRulePages: options.format === 'sarif',
@@ -130,7 +178,7 @@ async function check(options: CliOptions, io: Io, outputIdentity?: string): Prom
     },
   });
   if (run.outputClash !== undefined) {
-    io.stderr(`plumbline: refusing to write the report over an input file: ${run.outputClash}\n`);
+    io.stderr(`plumbline: refusing to write over an input file: ${run.outputClash} (write the report outside the files checked, or under a name plumbline does not read, such as report.html)\n`);
     return REFUSED;
   }
 
@@ -144,9 +192,14 @@ async function check(options: CliOptions, io: Io, outputIdentity?: string): Prom
       previous = undefined; // none yet, or unreadable: written afresh
     }
     try {
-      const sink = openReportSink(target, io.cwd);
-      sink.write(baselineText(run.unfiltered, target, io.cwd, previous));
-      sink.commit();
+      const sink = openRegularFile(target, io.cwd);
+      try {
+        sink.write(baselineText(run.unfiltered, target, io.cwd, previous));
+        sink.commit();
+      } catch (e) {
+        sink.abort();
+        throw e;
+      }
     } catch (e) {
       io.stderr(`plumbline: cannot write the baseline ${options.writeBaseline}: ${describeError(e)}\n`);
       return EXIT.trouble;
@@ -162,8 +215,8 @@ async function check(options: CliOptions, io: Io, outputIdentity?: string): Prom
   }
 
   // diagnostics go to standard error in every format; reports carry them as data too
-  for (const f of report.failures) io.stderr(`plumbline: ${f.path}: ${f.message}\n`);
-  await write(report, options, io);
+  for (const f of report.failures) io.stderr(`plumbline: ${f.path}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}: ${f.message}\n`);
+  await write(report, options, io, toFile);
 
   const counts = countRun(report);
   if (report.failures.length > 0) return EXIT.trouble;
@@ -171,7 +224,7 @@ async function check(options: CliOptions, io: Io, outputIdentity?: string): Prom
   return EXIT.clean;
 }
 
-async function write(report: RunReport, options: CliOptions, io: Io): Promise<void> {
+async function write(report: RunReport, options: CliOptions, io: Io, toFile: boolean): Promise<void> {
   const counts = countRun(report);
   const shown = counts.error + counts.warning + counts.note;
   switch (options.format) {
@@ -190,13 +243,14 @@ async function write(report: RunReport, options: CliOptions, io: Io): Promise<vo
       return;
     default: {
       const color = options.color ?? (io.isTTY && !('NO_COLOR' in io.env && io.env.NO_COLOR !== ''));
-      return io.stdout(formatHuman(report, { color, width: io.columns ?? 100, cautions: shown > 0 }));
+      // a report written to a file names the files not checked too: standard error may be gone by the time it is read
+      return io.stdout(formatHuman(report, { color, width: io.columns ?? 100, cautions: shown > 0, listFailures: toFile }));
     }
   }
 }
 
 /** Batch mode: documents on standard input, one NDJSON line out per document. */
-async function batch(options: CliOptions, io: Io, outputIdentity?: string): Promise<number> {
+async function batch(options: CliOptions, io: Io, writes: string[]): Promise<number> {
   let explicit: Config | undefined;
   if (options.config !== undefined) {
     try {
@@ -227,7 +281,7 @@ async function batch(options: CliOptions, io: Io, outputIdentity?: string): Prom
       return { path, error: message };
     }
     if (typeof source === 'string') return { path, source, options: { ...base, config, ...(format ? { format } : {}) } };
-    if (outputIdentity !== undefined && identity(path, io.cwd) === outputIdentity) return { path, error: 'not checked: this is the output file (--output), which plumbline never reads as input' };
+    if (writes.includes(identity(path, io.cwd))) return { path, error: 'not checked: this is the output file (--output), which plumbline never reads as input' };
     const outcome = source(options.maxFileBytes ?? config.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES);
     if (!outcome.ok) return { path, error: outcome.message };
     return { path, source: outcome.text, options: { ...base, config, ...(outcome.notes.length > 0 ? { readNotes: outcome.notes } : {}) } };

@@ -1,5 +1,5 @@
 import { availableParallelism } from 'node:os';
-import { dirname, resolve } from 'node:path';
+import { dirname, isAbsolute, relative, resolve } from 'node:path';
 import { ConfigError, ConfigFinder, readConfigFile, type Config } from '../config/index.js';
 import { ruleDoc, rulePageUrl, toolVersion } from '../engine/docs.js';
 import { RULE_IDS, RULES, type CheckOptions, type FileFailure, type FileReport, type ReadNote } from '../engine/index.js';
@@ -34,8 +34,12 @@ export interface RunnerOptions {
   errorsOnly?: boolean;
   /** Read .gitignore files when walking folders (default true). */
   gitignore?: boolean;
-  /** The report's own file, never read as a manuscript (the CLI's --output). */
-  outputIdentity?: string;
+  /**
+   * Files this run writes (the CLI's --output and --write-baseline, as real paths). When one is
+   * also an input — named, met in a folder or matched by a glob — nothing is checked and the run
+   * is refused (`outputClash`): writing it would destroy a manuscript.
+   */
+  writes?: string[];
   /** Rule pages are read into the report's rule list (SARIF carries them). */
   withRulePages?: boolean;
   /** Called after each document, for a progress display. */
@@ -48,7 +52,7 @@ export interface FileRun {
   unfiltered: FileReport[];
   /** Baseline entries that matched no finding (fixed since, or their text edited). */
   staleBaselineEntries: number;
-  /** A named file is the output file: nothing was checked. */
+  /** An input is a file this run writes: nothing was checked. */
   outputClash?: string;
 }
 
@@ -81,12 +85,13 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
     return { id: r.id, summary: r.summary, kind: r.kind, defaultLevel: r.defaultLevel, doc: options.withRulePages ? ruleDoc(r.id) : '', ...(helpUri ? { helpUri } : {}) };
   });
   const empty = (): FileRun => ({ report: { tool: { name: 'plumbline', version: toolVersion() }, files: [], failures, rules }, unfiltered: [], staleBaselineEntries: 0 });
-  if (options.outputIdentity !== undefined) {
-    const clash = expansion.files.find((f) => identity(f, cwd) === options.outputIdentity);
+  const writes = new Set(options.writes ?? []);
+  if (writes.size > 0) {
+    const clash = expansion.files.find((f) => writes.has(identity(f, cwd)));
     if (clash !== undefined) return { ...empty(), outputClash: clash };
   }
   if (explicitError) {
-    failures.push(configFailure(explicitError));
+    failures.push({ ...configFailure(explicitError, cwd), notChecked: [...(options.stdin ? [options.stdin.name] : []), ...expansion.files] });
     return empty();
   }
 
@@ -127,8 +132,8 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
   }
   for (const [, { error, paths }] of badConfigs) {
     const shown = paths.slice(0, 5).join(', ') + (paths.length > 5 ? `, and ${paths.length - 5} more` : '');
-    const f = configFailure(error);
-    failures.push({ ...f, message: `${f.message} (not checked because of it: ${shown})` });
+    const f = configFailure(error, cwd);
+    failures.push({ ...f, message: `${f.message} (not checked because of it: ${shown})`, notChecked: paths });
   }
 
   const reports: FileReport[] = [];
@@ -161,10 +166,16 @@ function defaultThreads(jobs: readonly Job[]): number {
   return availableParallelism();
 }
 
-/** A configuration problem as a failure: the file (and place) as its path, the problem in words. */
-function configFailure(e: ConfigError): FileFailure {
-  const at = e.line !== undefined ? `:${e.line}${e.column !== undefined ? `:${e.column}` : ''}` : '';
-  return { path: `${e.file}${at}`, message: /configuration/.test(e.message) ? e.message : `configuration: ${e.message}` };
+/** A configuration problem as a failure: the file and place, the problem in words. */
+function configFailure(e: ConfigError, cwd: string): FileFailure {
+  // named as the manuscripts are: relative to the working folder when inside it
+  const rel = relative(cwd, e.file);
+  return {
+    path: rel !== '' && !rel.startsWith('..') && !isAbsolute(rel) ? rel : e.file,
+    ...(e.line !== undefined ? { line: e.line } : {}),
+    ...(e.line !== undefined && e.column !== undefined ? { column: e.column } : {}),
+    message: /configuration/.test(e.message) ? e.message : `configuration: ${e.message}`,
+  };
 }
 
 export function configMessage(e: unknown): string {

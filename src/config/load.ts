@@ -22,8 +22,10 @@ export function parseConfigText(text: string, file: string, knownRuleIds: readon
       const at = pos ? lineColumn(text, Number(pos[1])) : undefined;
       // never echo the file's content: V8's message may quote it ("Unexpected token 's', "secret…" is not valid JSON")
       const cut = message.search(/ in JSON at position \d/);
-      const said = cut >= 0 ? message.slice(0, cut) : (/^(Unexpected token|Unexpected end of JSON input|Unexpected non-whitespace character)/.exec(message)?.[1] ?? 'not JSON');
-      throw new ConfigError(`invalid JSON: ${said.replace(/ '.*$/s, '')}`, file, at?.line, at?.column);
+      let said = cut >= 0 ? message.slice(0, cut) : message;
+      if (/^Unexpected token/.test(said)) said = 'unexpected character';
+      else if (/ is not valid JSON$/.test(said)) said = 'not JSON';
+      throw new ConfigError(`invalid JSON: ${said}`, file, at?.line, at?.column);
     }
   } else {
     const doc = parseYamlDocument(text, { schema: 'core', customTags: [], prettyErrors: true });

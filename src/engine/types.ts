@@ -128,4 +128,9 @@ export interface FileReport {
 export interface FileFailure {
   path: string;
   message: string;
+  /** Where in the file the problem is (a configuration's syntax error). */
+  line?: number;
+  column?: number;
+  /** For a bad configuration file: the manuscripts it kept from being checked. */
+  notChecked?: string[];
 }

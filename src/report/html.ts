@@ -99,7 +99,7 @@ export function formatHtml(run: RunReport, options: { title?: string } = {}): st
     '</header>',
     ...run.files.map((f, i) => fileSection(f, i, pAxis)),
     run.failures.length > 0
-      ? `<section class="failures"><h2>Not checked</h2><ul>${run.failures.map((f) => `<li><strong>${escapeHtml(f.path)}</strong>: ${escapeHtml(f.message)}</li>`).join('')}</ul></section>`
+      ? `<section class="failures"><h2>Not checked</h2><ul>${run.failures.map((f) => `<li><strong>${escapeHtml(f.path)}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}</strong>: ${escapeHtml(f.message)}</li>`).join('')}</ul></section>`
       : '',
     `<footer>${cautionsHtml()}</footer>`,
   ].join('\n');

@@ -8,6 +8,11 @@ export interface HumanOptions {
   width?: number;
   /** Print the cautions after the summary (default true; the CLI prints them only when something is reported). */
   cautions?: boolean;
+  /**
+   * Name the files not checked in the report itself (default false: the CLI names them on
+   * standard error; it asks for them here when the report goes to a file).
+   */
+  listFailures?: boolean;
 }
 
 const STYLE = {
@@ -41,7 +46,9 @@ export function formatHuman(run: RunReport, options: HumanOptions): string {
     paint(c.warning ? 'warning' : 'dim', plural(c.warning, 'warning')),
     paint(c.note ? 'note' : 'dim', plural(c.note, 'note')),
   ];
-  if (c.failures) summary.push(paint('error', `${plural(c.failures, 'file')} not checked (named on standard error)`));
+  if (options.listFailures)
+    for (const f of run.failures) out.push(`${paint('error', 'not checked')} ${terminalSafe(f.path)}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}: ${terminalSafe(f.message)}`);
+  if (c.failures) summary.push(paint('error', `${plural(c.failures, 'file')} not checked${options.listFailures ? '' : ' (named on standard error)'}`));
   const hidden = [c.hiddenByQuiet > 0 ? `${c.hiddenByQuiet} by quiet comments` : '', c.hiddenByBaseline > 0 ? `${c.hiddenByBaseline} by the baseline` : ''].filter(Boolean);
   if (hidden.length > 0) summary.push(paint('dim', `${plural(c.hiddenByQuiet + c.hiddenByBaseline, 'finding')} hidden (${hidden.join(', ')})`));
   out.push(summary.join(', '));

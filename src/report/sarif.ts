@@ -46,7 +46,14 @@ export function formatSarif(run: RunReport, cwd: string): string {
             toolExecutionNotifications: run.failures.map((f) => ({
               level: 'error' as const,
               message: { text: f.message },
-              locations: [{ physicalLocation: { artifactLocation: artifactLocation(f.path, cwd) } }],
+              locations: [
+                {
+                  physicalLocation: {
+                    artifactLocation: artifactLocation(f.path, cwd),
+                    ...(f.line !== undefined ? { region: { startLine: f.line, ...(f.column !== undefined ? { startColumn: f.column } : {}) } } : {}),
+                  },
+                },
+              ],
             })),
           },
         ],
@@ -105,7 +112,7 @@ function artifactLocation(path: string, cwd: string): ArtifactLocation {
 export function artifactUri(path: string, cwd: string): string {
   if (path === '-' || path.startsWith('<')) return encodeURI(path);
   const rel = relative(cwd, resolve(cwd, path));
-  if (rel === '' || rel.startsWith('..') || /^[A-Za-z]:/.test(rel) || rel.startsWith(sep)) return pathToFileURL(path).href;
+  if (rel === '' || rel.startsWith('..') || /^[A-Za-z]:/.test(rel) || rel.startsWith(sep)) return pathToFileURL(resolve(cwd, path)).href;
   return rel.split(sep).map(encodeURIComponent).join('/');
 }
 

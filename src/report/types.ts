@@ -27,6 +27,7 @@ export interface Counts {
   error: number;
   warning: number;
   note: number;
+  /** Files not checked: unreadable, missing, skipped, or under a bad configuration. */
   failures: number;
   /** Findings silenced by quiet comments in the files. */
   hiddenByQuiet: number;
@@ -42,7 +43,9 @@ export const CAUTIONS: readonly string[] = [
 ];
 
 export function countRun(run: RunReport): Counts {
-  const c: Counts = { files: run.files.length, results: 0, checked: 0, error: 0, warning: 0, note: 0, failures: run.failures.length, hiddenByQuiet: 0, hiddenByBaseline: 0 };
+  // a bad configuration counts the manuscripts it kept from being checked
+  const failures = run.failures.reduce((n, f) => n + (f.notChecked ? f.notChecked.length : 1), 0);
+  const c: Counts = { files: run.files.length, results: 0, checked: 0, error: 0, warning: 0, note: 0, failures, hiddenByQuiet: 0, hiddenByBaseline: 0 };
   for (const f of run.files) {
     c.hiddenByQuiet += f.hidden.quiet;
     c.hiddenByBaseline += f.hidden.baseline;

@@ -103,7 +103,7 @@ describe('--output', () => {
     symlinkSync(join(dir, 'a.md'), join(dir, 'alias.md'));
     const refused = await cli(['a.md', '-o', 'alias.md'], { cwd: dir });
     expect(refused.code).toBe(2);
-    expect(refused.stderr).toContain('refusing to write the report over an input file');
+    expect(refused.stderr).toContain('refusing to write over an input file: a.md');
     expect(readFileSync(join(dir, 'a.md'), 'utf8')).toBe(WRONG);
   });
 });
@@ -484,4 +484,152 @@ it.skipIf(isRoot)('an unreadable file is named on standard error (not as root, w
   const out = await cli(['a.md'], { cwd: dir });
   expect(out.stderr).toContain('a.md: cannot read: permission denied');
   expect(existsSync(join(dir, 'a.md'))).toBe(true);
+});
+
+describe('what the run writes is never lost or misplaced', () => {
+  it('--write-baseline never over a manuscript, nor over the --output file', async () => {
+    const dir = tree({ 'paper.md': WRONG });
+    const over = await cli(['paper.md', '--write-baseline', 'paper.md'], { cwd: dir });
+    expect(over.code).toBe(2);
+    expect(over.stderr).toContain('refusing to write over an input file: paper.md');
+    expect(readFileSync(join(dir, 'paper.md'), 'utf8')).toBe(WRONG);
+    const same = await cli(['paper.md', '-o', 'r.json', '--write-baseline', 'r.json'], { cwd: dir });
+    expect(same.code).toBe(2);
+    expect(same.stderr).toContain('--output and --write-baseline name the same file');
+    expect(existsSync(join(dir, 'r.json'))).toBe(false);
+  });
+
+  it('a report over a file met in a walked folder is refused too (it could be a manuscript), with a way out', async () => {
+    const dir = tree({ 'docs/paper.md': WRONG });
+    expect((await cli(['docs', '-o', 'docs/report.md'], { cwd: dir })).code).toBe(1);
+    const again = await cli(['docs', '-o', 'docs/report.md'], { cwd: dir });
+    expect(again.code).toBe(2);
+    expect(again.stderr).toContain('refusing to write over an input file: docs/report.md (write the report outside the files checked');
+    expect((await cli(['docs', '-o', 'docs/report.html', '-f', 'html'], { cwd: dir })).code).toBe(1);
+  });
+
+  it('a run that stops before checking leaves an earlier report as it was; a replaced report keeps its permissions', async () => {
+    const dir = tree({ 'paper.md': WRONG });
+    await cli(['paper.md', '-f', 'json', '-o', 'rep.json'], { cwd: dir });
+    chmodSync(join(dir, 'rep.json'), 0o600);
+    const before = readFileSync(join(dir, 'rep.json'), 'utf8');
+    expect((await cli(['paper.md', '-f', 'json', '-o', 'rep.json', '--baseline', 'missing.json'], { cwd: dir })).code).toBe(2);
+    expect(readFileSync(join(dir, 'rep.json'), 'utf8')).toBe(before);
+    expect((await cli(['paper.md', '-o', 'rep.json'], { cwd: dir })).code).toBe(1);
+    expect(readFileSync(join(dir, 'rep.json'), 'utf8')).toContain('significance-follows-from-t');
+    expect(statSync(join(dir, 'rep.json')).mode & 0o777).toBe(0o600);
+  });
+
+  it('a device that cannot take the report is said, exit 2 (not a stack trace, not "findings")', async () => {
+    const dir = tree({ 'paper.md': WRONG });
+    const out = await cli(['paper.md', '-o', '/dev/full'], { cwd: dir });
+    expect(out.code).toBe(2);
+    expect(out.stderr).toContain('cannot write /dev/full: no space left on the device');
+  });
+
+  it("-o /dev/fd/N writes a descriptor the shell handed over, and refuses plumbline's own", () => {
+    const dir = tree({ 'paper.md': WRONG });
+    const handed = spawnSync('bash', ['-c', `"${process.execPath}" "${main}" paper.md -f lines -o /dev/fd/9 9>nine.txt`], { cwd: dir, encoding: 'utf8' });
+    expect(handed.status).toBe(1);
+    expect(readFileSync(join(dir, 'nine.txt'), 'utf8')).toMatch(/^paper\.md:1:\d+: error /);
+    for (const n of [3, 4, 5, 7, 12, 50]) {
+      const own = spawnSync(process.execPath, [main, 'paper.md', '-o', `/dev/fd/${n}`], { cwd: dir, encoding: 'utf8' });
+      expect(own.status, `fd ${n}: ${own.stderr}`).toBe(2);
+      expect(own.stderr).toMatch(new RegExp(`cannot write /dev/fd/${n}: descriptor ${n} is (one of plumbline's own|not open)`));
+    }
+  });
+
+  it('a baseline that is a FIFO is refused unread (it would block)', async () => {
+    const dir = tree({ 'paper.md': WRONG });
+    expect(spawnSync('mkfifo', [join(dir, 'bf')]).status).toBe(0);
+    const read = await cli(['paper.md', '--baseline', 'bf'], { cwd: dir });
+    expect([read.code, read.stderr]).toEqual([2, 'plumbline: baseline bf: not a regular file\n']);
+    const written = await cli(['paper.md', '--write-baseline', 'bf'], { cwd: dir });
+    expect(written.code).toBe(2);
+    expect(written.stderr).toContain('cannot write the baseline bf: not a regular file');
+  });
+});
+
+describe('options read as meant', () => {
+  it('"-o -" writes to standard output and does not read standard input', async () => {
+    const dir = tree({ 'paper.md': WRONG });
+    const { PassThrough } = await import('node:stream');
+    const never = new PassThrough(); // standard input that never ends
+    const { run } = await import('../../src/cli/run.js');
+    let stdout = '';
+    const code = await run(['-o', '-', 'paper.md', '-f', 'lines'], { stdout: (s) => void (stdout += s), stderr: () => {}, stdin: never, cwd: dir, env: {}, isTTY: false });
+    expect(code).toBe(1);
+    expect(stdout).toMatch(/^paper\.md:1:/);
+  });
+
+  it.each([
+    [['--no-output', 'paper.md'], 'unknown option --no-output'],
+    [['--no-baseline', 'paper.md'], 'unknown option --no-baseline'],
+    [['--max-warnings=', 'paper.md'], '--max-warnings must be a whole number, 0 or more; got ""'],
+    [['--max-warnings', '0x1', 'paper.md'], '--max-warnings must be a whole number, 0 or more; got "0x1"'],
+    [['--jobs', '1e1', 'paper.md'], '--jobs must be a whole number, 1 or more; got "1e1"'],
+  ])('%j', async (args, message) => {
+    const dir = tree({ 'paper.md': WRONG });
+    const out = await cli(args, { cwd: dir });
+    expect(out.code).toBe(2);
+    expect(out.stderr).toContain(message);
+    expect(existsSync(join(dir, 'false'))).toBe(false);
+  });
+
+  it('options that make no sense for batch are refused, not ignored', async () => {
+    const out = await cli(['batch', '--baseline', 'b.json', '-q', '-f', 'sarif'], { stdin: 'paper.md\n' });
+    expect(out.code).toBe(2);
+    expect(out.stderr).toContain('--baseline, --quiet, --format do not apply to batch');
+  });
+
+  it('help wraps at very narrow widths too', async () => {
+    const text = (await cli(['--help'], { columns: 12 })).stdout;
+    for (const line of text.split('\n')) if (line.length > 12) expect(line.trim().split(/\s+/)).toHaveLength(1);
+  });
+});
+
+describe('baselines over part of a manuscript set', () => {
+  it('entries of files not checked this run are neither called stale nor dropped when the baseline is written again', async () => {
+    const dir = tree({ 'q.md': WRONG, 'r.md': WARNED });
+    await cli(['q.md', 'r.md', '--write-baseline', 'both.json'], { cwd: dir });
+    const partial = await cli(['q.md', '--baseline', 'both.json'], { cwd: dir });
+    expect(partial.code).toBe(0);
+    expect(partial.stderr).not.toContain('matches no finding');
+    await cli(['q.md', '--write-baseline', 'both.json'], { cwd: dir });
+    expect(readBaseline(join(dir, 'both.json')).entries.map((e) => e.path)).toEqual(['q.md', 'r.md']);
+  });
+
+  it('a hand-written path such as "./q.md" matches', async () => {
+    const dir = tree({ 'q.md': WRONG });
+    await cli(['q.md', '--write-baseline', 'b.json'], { cwd: dir });
+    const b = JSON.parse(readFileSync(join(dir, 'b.json'), 'utf8')) as { findings: Array<{ path: string }> };
+    b.findings[0]!.path = './q.md';
+    writeFileSync(join(dir, 'b.json'), JSON.stringify(b));
+    expect((await cli(['q.md', '--baseline', 'b.json'], { cwd: dir })).code).toBe(0);
+  });
+});
+
+describe('configuration and ignore details', () => {
+  it('a .gitignore outside a repository applies below the folder walked, not only to its direct children', async () => {
+    const dir = tree({ '.gitignore': '*.draft.md\n', 'w.draft.md': WRONG, 'sub/z.draft.md': WRONG, 'sub/kept.md': WARNED });
+    expect(json((await cli(['.', '-f', 'json'], { cwd: dir })).stdout).files.map((f) => f.path)).toEqual(['sub/kept.md']);
+  });
+
+  it("a JSON syntax error keeps V8's words; the place is data (SARIF region, not part of the URI)", async () => {
+    const dir = tree({ 'a/.plumbline.json': '{"rules": {', 'a/p.md': RIGHT });
+    const out = await cli(['a', '-f', 'sarif'], { cwd: dir });
+    expect(out.stderr).toContain("plumbline: a/.plumbline.json:1:12: configuration: invalid JSON: Expected property name or '}'");
+    const note = JSON.parse(out.stdout).runs[0].invocations[0].toolExecutionNotifications[0];
+    expect(note.locations[0].physicalLocation).toEqual({ artifactLocation: { uri: 'a/.plumbline.json', uriBaseId: 'SRCROOT' }, region: { startLine: 1, startColumn: 12 } });
+  });
+
+  it('the summary counts the manuscripts a bad configuration kept from being checked; a human report in a file names them', async () => {
+    const dir = tree({ 'n/.plumbline.json': '{"alpah": 1}', 'n/a.md': RIGHT, 'n/b.md': RIGHT, 'n/c/d.md': RIGHT, 'ok.md': RIGHT });
+    const out = await cli(['.', '-f', 'json'], { cwd: dir });
+    expect(JSON.parse(out.stdout).summary.failures).toBe(3);
+    await cli(['.', '-o', 'report.txt'], { cwd: dir });
+    const text = readFileSync(join(dir, 'report.txt'), 'utf8');
+    expect(text).toContain('not checked n/.plumbline.json: configuration: unknown key "alpah"');
+    expect(text).toContain('3 files not checked');
+  });
 });

@@ -213,7 +213,7 @@ describe('safety', () => {
     const before = sum(dir);
     const refused = await cli(['.', '-o', 'a.md'], { cwd: dir });
     expect(refused.code).toBe(2);
-    expect(refused.stderr).toContain('refusing to write the report over an input file: a.md');
+    expect(refused.stderr).toContain('refusing to write over an input file: a.md');
     expect(sum(dir)).toEqual(before);
     // through another name (a symbolic link) too
     symlinkSync('a.md', join(dir, 'alias.json'));
