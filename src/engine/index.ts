@@ -76,7 +76,8 @@ export function checkSource(path: string, source: string, options: CheckOptions 
       });
     }
     for (const f of rule.check({ document: linked, options: rule.defaultOptions })) {
-      if (f.block !== undefined && isQuieted(doc, f.block, rule.id)) continue;
+      // a document-wide item has no block of its own: a quiet comment for its rule anywhere silences it
+      if (f.scope === 'document' ? isQuietedAnywhere(doc, rule.id) : f.block !== undefined && isQuieted(doc, f.block, rule.id)) continue;
       const { block: _block, related, uncertain, ...rest } = f;
       // Certainty before speech: a finding resting on a link that is not certain is a note
       // saying what could not be checked, whatever the rule's level.
@@ -117,6 +118,7 @@ export function checkSource(path: string, source: string, options: CheckOptions 
       ...(rep.df ? { df: num(rep.df) } : {}),
       ...(rep.p ? { p: pRecord(rep.p) } : {}),
       ...(rep.adjustedP ? { adjustedP: pRecord(rep.adjustedP) } : {}),
+      ...(rep.table?.name ? { table: { name: rep.table.name, ...(rep.table.rowLabel ? { row: rep.table.rowLabel } : {}) } } : {}),
       sidedness: r.sidedness,
       alpha: r.alpha,
       context: contextRecord(r.context, place),
@@ -154,6 +156,10 @@ function contextRecord(c: ResultContext, place: (s: Span) => Place): ResultRecor
 
 function isQuieted(doc: ParsedDocument, block: number, ruleId: string): boolean {
   return doc.directives.some((d) => d.verb === 'quiet' && d.reason !== '' && d.appliesToBlock === block && d.ruleIds.includes(ruleId));
+}
+
+function isQuietedAnywhere(doc: ParsedDocument, ruleId: string): boolean {
+  return doc.directives.some((d) => d.verb === 'quiet' && d.reason !== '' && d.ruleIds.includes(ruleId));
 }
 
 /** Settings from front matter (`plumbline:` key) over configuration, under the command line. */
