@@ -55,7 +55,8 @@ function result(f: Finding, uri: string, ruleIndex: number | undefined): Result 
     ...(ruleIndex !== undefined ? { ruleIndex } : {}),
     level: f.level,
     message: { text: `${f.message} ${f.check}` },
-    locations: [{ physicalLocation: { artifactLocation: { uri }, region: region(f) } }],
+    // a finding said of the whole document (a missing checklist item) has no region: it is about the file
+    locations: [{ physicalLocation: { artifactLocation: { uri }, ...(f.scope === 'document' ? {} : { region: region(f) }) } }],
     ...(f.related?.length
       ? {
           relatedLocations: f.related.map((r, id) => ({
