@@ -125,11 +125,11 @@ function assumptionChecks(text: string, starts: number[]): RegExpMatchArray[] {
     if (/(?<![\p{L}])(?:no|without|nor|neither)(?: \p{L}{1,12})? $/iu.test(before) || CHECK_NOT_RUN.test(after)) continue;
     out.push(m);
   }
-  const named = (at: number) => out.some((m) => sentenceOf(starts, m.index ?? 0) === sentenceOf(starts, at));
+  const withCheck = new Set(out.map((m) => sentenceOf(starts, m.index ?? 0)));
   for (const m of text.matchAll(ASSUMPTION_TOPIC)) {
     const at = m.index;
     // a sentence with a named check is credited once, at the check
-    if (named(at)) continue;
+    if (withCheck.has(sentenceOf(starts, at))) continue;
     const [from, to] = sentenceBounds(at);
     const end = at + m[0].length;
     if (ASSUMING_BEFORE.test(text.slice(Math.max(from, at - 40), at)) || ASSUMED_AFTER.test(text.slice(end, end + 30))) continue;

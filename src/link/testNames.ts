@@ -3,10 +3,9 @@ import type { Span } from '../parse/types.js';
 import { clauseIndex, type ClauseIndex } from './clauses.js';
 
 /**
- * Where a result's test name was said: with its statistic ("Welch's t(21.6)"), in its clause,
- * in its sentence (a name before every statistic of the sentence, or a plural name such as
- * "paired t-tests"), in its table's header, row or caption, or in the header software printed
- * above its output.
+ * Where a result's test name was said: with its statistic ("Welch's t(21.6)"), in its clause
+ * or lead, in its sentence (a plural name such as "paired t-tests"), in its table's header, row
+ * or caption, or in the header software printed above its output.
  */
 export type TestNameBasis = 'in-report' | 'clause' | 'sentence' | 'table' | 'software-output';
 
@@ -23,101 +22,153 @@ export interface TestName {
 type Named = Mention & { test: TestNameWords };
 
 /**
+ * What some names in one scope say together: the designs and variants they name (more than one
+ * of either names nothing), the first of them and a few of their words. Kept as a summary so a
+ * scope with thousands of names and results costs linear time.
+ */
+interface Said {
+  designs: Set<string>;
+  variants: Set<string>;
+  printed: string[];
+  first: Named;
+  basis: TestNameBasis;
+}
+
+const MAX_WORDS = 3;
+
+function say(into: Said | undefined, m: Named, basis: TestNameBasis): Said {
+  const s = into ?? { designs: new Set<string>(), variants: new Set<string>(), printed: [], first: m, basis };
+  if (m.test.design) s.designs.add(m.test.design);
+  if (m.test.variant) s.variants.add(m.test.variant);
+  if (s.printed.length < MAX_WORDS && !s.printed.includes(m.printed)) s.printed.push(m.printed);
+  return s;
+}
+
+/**
  * The test name of every result, read only from the result's own words: a name said with
  * another result, in another sentence of the paragraph, or once for the document ("Welch's
  * t-tests were used") names no particular result. Names that disagree (a paired and an
- * independent one) name nothing. Linear in the records: mentions are grouped by segment and
- * sentence once.
+ * independent one) name nothing. Each name is placed once, so the work is linear in the records
+ * (up to the binary searches of the clause index).
  */
 export function testNames(x: Extraction): Map<TTestReport, TestName> {
   const out = new Map<TTestReport, TestName>();
   const named = x.mentions.filter((m): m is Named => m.kind === 'test-name' && m.test !== undefined);
-  const bySentence = new Map<string, Named[]>();
-  const byTable = new Map<number, Named[]>();
-  const bySegment = new Map<number, Named[]>();
-  for (const m of named) {
-    push(bySentence, `${m.segment}:${m.sentence}`, m);
-    const table = m.table?.table ?? m.legendOf;
-    if (table !== undefined) push(byTable, table, m);
-    if (m.test.source === 'software-output') push(bySegment, m.segment, m);
-  }
+  const own = new Map<TTestReport, Said>();
+  const sentencePlural = new Map<string, Said>();
+  const tableWide = new Map<number, Said>();
+  const tableRow = new Map<string, Said>();
   const testsBySentence = new Map<string, TTestReport[]>();
-  const testsBySegment = new Map<number, TTestReport[]>();
-  for (const t of x.tests) {
-    push(testsBySentence, `${t.segment}:${t.sentence}`, t);
-    push(testsBySegment, t.segment, t);
-  }
+  for (const t of x.tests) push(testsBySentence, `${t.segment}:${t.sentence}`, t);
   let clauses: ClauseIndex | undefined;
+  const headersBySegment = new Map<number, Named[]>();
+  for (const m of named) {
+    if (m.test.source === 'software-output') {
+      push(headersBySegment, m.segment, m);
+      continue;
+    }
+    const table = m.table?.table ?? m.legendOf;
+    if (table !== undefined) {
+      // a header cell or the caption names the table's tests; another cell names its row's
+      if (m.legendOf !== undefined || m.table?.row === 0) tableWide.set(table, say(tableWide.get(table), m, 'table'));
+      else tableRow.set(`${table}:${m.table?.row}`, say(tableRow.get(`${table}:${m.table?.row}`), m, 'table'));
+      continue;
+    }
+    const key = `${m.segment}:${m.sentence}`;
+    const tests = testsBySentence.get(key);
+    if (!tests) continue;
+    if (m.test.plural) {
+      sentencePlural.set(key, say(sentencePlural.get(key), m, 'sentence'));
+      continue;
+    }
+    clauses ??= clauseIndex(x);
+    const owner = ownerOf(m, tests, clauses);
+    if (owner) own.set(owner, say(own.get(owner), m, 'clause'));
+  }
+  const headerOf = softwareHeaders(x.tests, headersBySegment);
   for (const t of x.tests) {
-    const found: Array<{ m: Named; basis: TestNameBasis }> = [];
-    if (t.inCode) {
-      const header = softwareHeader(t, bySegment.get(t.segment) ?? [], testsBySegment.get(t.segment) ?? []);
-      if (header) found.push({ m: header, basis: 'software-output' });
-    } else if (t.table) {
-      for (const m of byTable.get(t.table.table) ?? []) {
-        if (m.legendOf !== undefined || m.table?.row === 0 || m.table?.row === t.table.row) found.push({ m, basis: 'table' });
-      }
+    const scopes: Said[] = [];
+    const header = headerOf.get(t);
+    if (header) scopes.push(say(undefined, header, 'software-output'));
+    const mine = own.get(t);
+    if (mine) scopes.push(mine);
+    if (!t.table) {
+      const plural = sentencePlural.get(`${t.segment}:${t.sentence}`);
+      if (plural) scopes.push(plural);
+    } else {
+      const row = tableRow.get(`${t.table.table}:${t.table.row}`);
+      if (row) scopes.push(row);
+      const wide = tableWide.get(t.table.table);
+      if (wide) scopes.push(wide);
     }
-    const inSentence = (bySentence.get(`${t.segment}:${t.sentence}`) ?? []).filter((m) => m.test.source === 'prose' && m.table?.row !== 0);
-    if (inSentence.length > 0 && !t.table) {
-      clauses ??= clauseIndex(x);
-      const tests = testsBySentence.get(`${t.segment}:${t.sentence}`) ?? [t];
-      for (const m of inSentence) {
-        const basis = ownBasis(t, m, tests, clauses);
-        if (basis) found.push({ m, basis });
-      }
-    }
-    const name = combine(t, found);
+    const name = combine(t, scopes);
     if (name) out.set(t, name);
   }
   return out;
 }
 
 /**
- * Whether a name in the result's sentence is the result's own: a plural name names every test
- * of its sentence; a name in the lead of a test (its words before the statistic, after the
- * last clause boundary) is that test's; a name after a statistic is its clause's.
+ * The result a singular name in its sentence belongs to: the next statistic when the name is in
+ * that test's lead (its words before the statistic, after the last clause boundary) or stands
+ * on it ("Welch's t(21.6)"); else the test whose clause holds it. `tests` are in reading order.
  */
-function ownBasis(t: TTestReport, m: Named, tests: readonly TTestReport[], clauses: ClauseIndex): TestNameBasis | undefined {
-  if (m.test.plural) return 'sentence';
-  // the test whose lead holds the name, or whose statistic it stands on ("Welch's t(21.6)")
-  const leading = tests.find((u) => m.span.start < u.span.start && (m.span.end > u.span.start || m.span.start >= (u.lead?.start ?? u.span.start)));
-  if (leading) return leading === t ? 'clause' : undefined;
+function ownerOf(m: Named, tests: readonly TTestReport[], clauses: ClauseIndex): TTestReport | undefined {
+  let lo = 0;
+  let hi = tests.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if ((tests[mid] as TTestReport).span.start <= m.span.start) lo = mid + 1;
+    else hi = mid;
+  }
+  const next = tests[lo];
+  if (next && (m.span.end > next.span.start || m.span.start >= (next.lead?.start ?? next.span.start))) return next;
   const owner = clauses.ownerOf(m);
-  return owner?.kind === 't' && owner.clause.test === t ? 'clause' : undefined;
+  return owner?.kind === 't' ? owner.clause.test : undefined;
 }
 
-/** The header printed above the result's output: the last one before it with no other result between. */
-function softwareHeader(t: TTestReport, headers: readonly Named[], tests: readonly TTestReport[]): Named | undefined {
-  const header = headers.filter((h) => h.span.end <= t.span.start).at(-1);
-  if (!header) return undefined;
-  const between = tests.some((u) => u !== t && u.span.start > header.span.end && u.span.start < t.span.start);
-  return between ? undefined : header;
+/** For each result in code: the header printed above it, when no other result stands between. */
+function softwareHeaders(tests: readonly TTestReport[], headersBySegment: Map<number, Named[]>): Map<TTestReport, Named> {
+  const out = new Map<TTestReport, Named>();
+  if (headersBySegment.size === 0) return out;
+  const bySegment = new Map<number, TTestReport[]>();
+  for (const t of tests) if (t.inCode && headersBySegment.has(t.segment)) push(bySegment, t.segment, t);
+  for (const [segment, list] of bySegment) {
+    const headers = headersBySegment.get(segment) as Named[];
+    let h = -1;
+    let used = -1;
+    for (const t of list) {
+      while (h + 1 < headers.length && (headers[h + 1] as Named).span.end <= t.span.start) h += 1;
+      // one header, one output: a second result after the same header is not named by it
+      if (h >= 0 && h !== used) {
+        out.set(t, headers[h] as Named);
+        used = h;
+      }
+    }
+  }
+  return out;
 }
 
-const RANK: Record<TestNameBasis, number> = { 'in-report': 0, 'software-output': 1, clause: 2, sentence: 3, table: 4 };
-
-function combine(t: TTestReport, found: Array<{ m: Named; basis: TestNameBasis }>): TestName | undefined {
-  const own = t.namedVariant;
+function combine(t: TTestReport, scopes: readonly Said[]): TestName | undefined {
+  const named = t.namedVariant;
+  if (!named && scopes.length === 0) return undefined;
   const designs = new Set<string>();
   const variants = new Set<string>();
-  if (own) {
-    designs.add(own === 'welch' || own === 'student' || own === 'independent' ? 'independent' : own);
-    if (own === 'welch' || own === 'student') variants.add(own);
+  if (named) {
+    designs.add(named === 'welch' || named === 'student' || named === 'independent' ? 'independent' : named);
+    if (named === 'welch' || named === 'student') variants.add(named);
   }
-  for (const { m } of found) {
-    if (m.test.design) designs.add(m.test.design);
-    if (m.test.variant) variants.add(m.test.variant);
+  for (const s of scopes) {
+    for (const d of s.designs) designs.add(d);
+    for (const v of s.variants) variants.add(v);
   }
-  if (!own && found.length === 0) return undefined;
-  const sorted = [...found].sort((a, b) => RANK[a.basis] - RANK[b.basis]);
-  const first = sorted[0];
-  const printed = [...new Set(sorted.map((f) => f.m.printed))];
   const design = designs.size === 1 ? ([...designs][0] as TestName['design']) : undefined;
   const variant = variants.size === 1 && design === 'independent' ? ([...variants][0] as TestName['variant']) : undefined;
-  const base = own
-    ? { basis: 'in-report' as const, printed: [ownWords(own), ...printed.filter((p) => !sameName(p, own))].join('; '), span: t.span }
-    : { basis: (first as { basis: TestNameBasis }).basis, printed: printed.join('; '), span: (first as { m: Named }).m.span };
+  const words = [...new Set(scopes.flatMap((s) => s.printed))];
+  const first = scopes[0];
+  const base =
+    named || !first
+      ? { basis: 'in-report' as const, printed: [ownWords(named ?? 'independent'), ...words.filter((p) => !sameName(p, named))].join('; '), span: t.span }
+      : { basis: first.basis, printed: words.join('; '), span: first.first.span };
   return { ...(design ? { design } : {}), ...(variant ? { variant } : {}), ...base };
 }
 
@@ -126,8 +177,8 @@ function ownWords(v: NonNullable<TTestReport['namedVariant']>): string {
 }
 
 /** A mention that is the statistic's own name ("Welch's t" of "Welch's t(21.6)") is not repeated. */
-function sameName(printed: string, v: NonNullable<TTestReport['namedVariant']>): boolean {
-  return printed.toLowerCase().startsWith(v === 'one-sample' ? 'one' : v);
+function sameName(printed: string, v: TTestReport['namedVariant']): boolean {
+  return v !== undefined && printed.toLowerCase().startsWith(v === 'one-sample' ? 'one' : v);
 }
 
 function push<K, V>(map: Map<K, V[]>, key: K, value: V): void {

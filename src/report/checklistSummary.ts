@@ -86,7 +86,11 @@ export function placeList(places: readonly MissingPlace[]): string {
   const lines = new Map<number, { n: number; printed: string[] }>();
   const tables = new Map<string, string[]>();
   for (const p of places) {
-    if (p.table) tables.set(p.table.name, [...(tables.get(p.table.name) ?? []), p.table.row ? `'${p.table.row}'` : `the row on line ${p.line}`]);
+    if (p.table) {
+      const rows = tables.get(p.table.name) ?? [];
+      rows.push(p.table.row ? `'${p.table.row}'` : `the row on line ${p.line}`);
+      tables.set(p.table.name, rows);
+    }
     else {
       const had = lines.get(p.line) ?? { n: 0, printed: [] };
       had.n += 1;
@@ -134,10 +138,22 @@ export function guidelineRefs(record: ChecklistRecord): Array<{ guideline: strin
  * formatters that summarise the checklist show it there, once per item, not as a card.
  */
 export function isChecklistFinding(file: FileReport, f: Finding): boolean {
-  const record = file.checklist.find((c) => c.ruleId === f.ruleId);
-  if (!record) return false;
+  const index = missingIndex(file);
+  if (!index.items.has(f.ruleId)) return false;
   if (f.scope === 'document') return true;
-  return f.resultId !== undefined && record.entries.some((e) => e.resultId === f.resultId && e.status === 'missing');
+  return f.resultId !== undefined && index.missing.has(`${f.ruleId}\u0000${f.resultId}`);
+}
+
+/** Per file, once: the checklist's items and its missing per-result entries, for lookups in constant time. */
+const indexes = new WeakMap<FileReport, { items: Set<string>; missing: Set<string> }>();
+function missingIndex(file: FileReport): { items: Set<string>; missing: Set<string> } {
+  let index = indexes.get(file);
+  if (!index) {
+    index = { items: new Set(file.checklist.map((c) => c.ruleId)), missing: new Set() };
+    for (const c of file.checklist) for (const e of c.entries) if (e.status === 'missing' && e.resultId) index.missing.add(`${c.ruleId}\u0000${e.resultId}`);
+    indexes.set(file, index);
+  }
+  return index;
 }
 
 /** The most severe level among findings, if any. */
@@ -168,8 +184,15 @@ export interface ChecklistFindingLine {
 export function checklistFindingLines(file: FileReport): ChecklistFindingLine[] {
   const byId = new Map(file.results.map((r) => [r.id, r]));
   const out: ChecklistFindingLine[] = [];
+  const byRule = new Map<string, Finding[]>();
+  for (const f of file.findings) {
+    if (!isChecklistFinding(file, f)) continue;
+    const list = byRule.get(f.ruleId);
+    if (list) list.push(f);
+    else byRule.set(f.ruleId, [f]);
+  }
   for (const s of summariseChecklist(file)) {
-    const findings = file.findings.filter((f) => f.ruleId === s.record.ruleId && isChecklistFinding(file, f));
+    const findings = byRule.get(s.record.ruleId) ?? [];
     const level = worstOf(findings);
     if (!level) continue;
     const base = { ruleId: s.record.ruleId, item: s.record.item, level };
