@@ -20,7 +20,8 @@ function cell(s: string): string {
  */
 export function formatChecklist(run: RunReport): string {
   const out: string[] = [];
-  for (const file of run.files) out.push(...fileSection(file));
+  // appended line by line: a spread of a long paper's lines would overflow the call stack
+  for (const file of run.files) for (const line of fileSection(file)) out.push(line);
   for (const f of run.failures) out.push(`Not checked: ${cell(f.path)} (${cell(f.message)}).`, '');
   out.push('---', '', ...CAUTIONS.map((c) => `*${cell(c)}*`), '', `Prepared with ${run.tool.name} ${run.tool.version}.`, '');
   return out.join('\n');
