@@ -5,7 +5,7 @@ export const descriptivesWithN = checklistRule({
   id: 'descriptives-with-n',
   summary: 'Each result comes with the mean, SD (or SE) and n of every group or condition it compares.',
   item: 'Descriptives with n are given for each group',
-  guidelines: { sampl: 'Describe data: n, mean and SD for each group (from memory)', 'jars-quant': 'Results: descriptive statistics for each group (from memory)', consort: '17a' },
+  guidelines: { sampl: 'section "Reporting numbers and descriptive statistics"', 'jars-quant': 'Table 1, Results, "Statistics and data analysis"', consort: 'item 17a' },
   missingMessage: 'Reported {detail}.',
   check: 'Give the mean, SD and n of each group beside the test or in a table next to it.',
   assess(document) {

@@ -5,7 +5,7 @@ export const effectSizeWithCi = checklistRule({
   id: 'effect-size-with-ci',
   summary: 'Each result gives an effect size (a difference or a standardised d) with its confidence interval.',
   item: 'An effect size with its confidence interval is given',
-  guidelines: { sampl: 'Report effect sizes with CIs (from memory)', 'jars-quant': 'Results: effect sizes and confidence intervals (from memory)', consort: '17a' },
+  guidelines: { sampl: 'section "Reporting hypothesis tests"', 'jars-quant': 'Table 1, Results, "Statistics and data analysis"', consort: 'item 17a' },
   missingMessage: 'Reported {detail}.',
   check: 'Give the estimated difference (or d) with its 95% CI beside the test.',
   assess(document) {

@@ -7,7 +7,7 @@ export const noTrendWording = checklistRule({
   id: 'no-trend-wording',
   summary: 'A p between alpha and .10 is not described as a "trend" or as "marginally significant".',
   item: 'Non-significant results are not called trends',
-  guidelines: { sampl: 'Interpret P values (common practice, no source)' },
+  guidelines: { sampl: 'section "Reporting hypothesis tests"' },
   missingMessage: 'Reported {detail}.',
   check: 'Report the result as not significant at the stated alpha, with its effect size and CI.',
   assess(document) {

@@ -5,7 +5,7 @@ export const pIsExact = checklistRule({
   id: 'p-is-exact',
   summary: 'Each p is given as an exact value (p < .001 is fine), not as a bound such as p < .05 or as n.s.',
   item: 'An exact p is given (p < .001 allowed)',
-  guidelines: { sampl: 'Hypothesis tests: exact P values (from memory)', 'jars-quant': 'Results: exact p values (from memory)' },
+  guidelines: { sampl: 'section "Reporting hypothesis tests"', 'jars-quant': 'Table 1, Results, "Statistics and data analysis"' },
   missingMessage: 'Reported {detail}; give the exact p (or p < .001).',
   check: 'Replace the bound or "n.s." with the exact p value from the output.',
   assess(document) {

@@ -5,7 +5,7 @@ export const pPrecisionIsSensible = checklistRule({
   id: 'p-precision-is-sensible',
   summary: 'Each exact p is printed to a sensible precision: two or three decimals (not p = .04923, not p = .0).',
   item: 'p is printed to a sensible precision',
-  guidelines: { 'jars-quant': 'Results: exact p values to two or three decimals (from memory)' },
+  guidelines: { 'jars-quant': 'Table 1, Results, "Statistics and data analysis" (exact p values; the number of decimals follows the APA Publication Manual, 7th ed.)' },
   missingMessage: 'Reported {detail}.',
   check: 'Print p to two or three decimals (p < .001 for smaller values).',
   assess(document) {

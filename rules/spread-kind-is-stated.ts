@@ -15,7 +15,7 @@ export const spreadKindIsStated: Rule = {
   messages,
   checklist: {
     item: 'The kind of spread after ± (SD or SE) is stated',
-    guidelines: { sampl: 'Describe data: say whether ± is SD or SE (from memory)', 'jars-quant': 'Results: descriptive statistics (from memory)' },
+    guidelines: { sampl: 'section "Reporting numbers and descriptive statistics"', 'jars-quant': 'Table 1, Results, "Statistics and data analysis"' },
     assess(document) {
       const x = document.extraction;
       const pm = x.summaries.filter((g) => g.spread && (g.spread.kind === 'unstated' || g.spread.printedKind));

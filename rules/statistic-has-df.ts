@@ -5,7 +5,7 @@ export const statisticHasDf = checklistRule({
   id: 'statistic-has-df',
   summary: 'The t statistic is given with its degrees of freedom.',
   item: 'The test statistic is given with its df',
-  guidelines: { sampl: 'Hypothesis tests: the test statistic and df (from memory)', 'jars-quant': 'Results: statistics and df (from memory)' },
+  guidelines: { 'jars-quant': 'Table 1, Results, "Statistics and data analysis"' },
   missingMessage: 'Reported {detail} without its degrees of freedom, so p cannot be checked against t.',
   check: 'Add the df, e.g. t(28) = 2.10.',
   assess(document) {

@@ -77,7 +77,8 @@ export function checkSource(path: string, source: string, options: CheckOptions 
       });
     }
     for (const f of rule.check({ document: linked, options: rule.defaultOptions })) {
-      if (f.block !== undefined && isQuieted(doc, f.block, rule.id)) {
+      // a document-wide item has no block of its own: a quiet comment for its rule anywhere silences it
+      if (f.scope === 'document' ? isQuietedAnywhere(doc, rule.id) : f.block !== undefined && isQuieted(doc, f.block, rule.id)) {
         quieted += 1;
         continue;
       }
@@ -123,6 +124,7 @@ export function checkSource(path: string, source: string, options: CheckOptions 
       ...(rep.df ? { df: num(rep.df) } : {}),
       ...(rep.p ? { p: pRecord(rep.p) } : {}),
       ...(rep.adjustedP ? { adjustedP: pRecord(rep.adjustedP) } : {}),
+      ...(rep.table?.name ? { table: { name: rep.table.name, ...(rep.table.rowLabel ? { row: rep.table.rowLabel } : {}) } } : {}),
       sidedness: r.sidedness,
       alpha: r.alpha,
       context: contextRecord(r.context, place),
@@ -186,6 +188,10 @@ function hash64(s: string): string {
 
 function isQuieted(doc: ParsedDocument, block: number, ruleId: string): boolean {
   return doc.directives.some((d) => d.verb === 'quiet' && d.reason !== '' && d.appliesToBlock === block && d.ruleIds.includes(ruleId));
+}
+
+function isQuietedAnywhere(doc: ParsedDocument, ruleId: string): boolean {
+  return doc.directives.some((d) => d.verb === 'quiet' && d.reason !== '' && d.ruleIds.includes(ruleId));
 }
 
 /** Settings: front matter (`plumbline:` key) over the command line, over the configuration file. */

@@ -70,6 +70,8 @@ export interface ResultRecord extends Place {
     estimate?: LinkedRecord;
     effectSizes: LinkedRecord[];
   };
+  /** Printed in a table: the table's name (its caption's number, else its place among the tables) and the row's label. */
+  table?: { name: string; row?: string };
   /** Recomputed p ranges for this result, when t, df and p allow it. */
   recomputed?: {
     twoTailed: { low: number; high: number };
@@ -98,6 +100,12 @@ export interface Finding extends Place {
    * ":" and the occurrence among identical ones. Baselines and SARIF partialFingerprints use it.
    */
   fingerprint: string;
+  /**
+   * `document`: said of the whole document (a reporting-checklist item nothing in the text
+   * meets). Its place is the start of the file only because every finding has one; reports for
+   * people give it no line.
+   */
+  scope?: 'document';
 }
 
 /** One checklist item for a file: the guideline items it follows and its entries. */

@@ -5,12 +5,12 @@ import { findStatements } from './statements.js';
 
 /** Cheap pre-check (no global state) before the sentence-level search for t-less p values. */
 const MAY_NAME_T_TEST = /t[- ]tests?|(?:Student|Welch)/i;
-import { findMentions } from './mentions.js';
+import { findMentions, findSoftwareHeaders } from './mentions.js';
 import { findIntegerMeasures, findMeasureMentions } from './measures.js';
 import { findAssignments } from './assignments.js';
 import { findPowerStatements } from './power.js';
 import { findSummaries } from './summaries.js';
-import { findTableMentions, readTables } from './tables.js';
+import { findTableMentions, nameTableRows, readTables } from './tables.js';
 import { findPWithoutT } from './pWithoutT.js';
 import { findOtherStatistics } from './statistics.js';
 import { applyStarLegends, findStarLegends, type StarLegend } from './stars.js';
@@ -76,7 +76,7 @@ export function extract(doc: ParsedDocument): Extraction {
       append(out.powerStatements, findPowerStatements(seg, starts));
       append(out.mentions, findMentions(seg, starts));
       if (MAY_NAME_T_TEST.test(seg.text)) append(out.pWithoutT, findPWithoutT(seg, starts, tests));
-    }
+    } else append(out.mentions, findSoftwareHeaders(seg, starts));
   }
   for (const seg of segments) {
     if (!seg.table) continue;
@@ -96,6 +96,7 @@ export function extract(doc: ParsedDocument): Extraction {
     list.sort((a, b) => a.span.start - b.span.start);
   }
   out.tableBlocks = tables.blocks;
+  nameTableRows(out.tests, segments, tables.blocks);
   out.tableMentions = findTableMentions(segments, tables.blocks, out.tables);
   applyStarLegends(out.tests, legends);
   out.measureMentions = findMeasureMentions(segments, out.integerMeasures);

@@ -1,23 +1,41 @@
 import type { Segment } from '../parse/types.js';
 import { sentenceOf, sourceSpan } from './numbers.js';
-import type { Mention } from './types.js';
+import type { Mention, TestNameWords } from './types.js';
 
 const SOFTWARE = /(?<![\p{L}])(R|RStudio|SPSS|IBM SPSS Statistics|Stata|SAS|JASP|jamovi|Python|SciPy|statsmodels|GraphPad Prism|Prism|Minitab|MATLAB|Excel|G\*Power|Statistica|JMP)(?![\p{L}])(?:[^.;\n]{0,40}?(?:version |v\.? ?|\()?(\d{1,4}(?:\.\d{1,4}){1,3}))?/gu;
 const SOFTWARE_CONTEXT = /(?<![\p{L}])(software|package|statistical|analy[sz]ed|analyses|using|version|computed|performed)(?![\p{L}])/iu;
-const ASSUMPTION = /(?<![\p{L}])(normality|normally distributed|Shapiro[-–]Wilk|Kolmogorov[-–]Smirnov|Q[-–]Q plots?|Levene['’]?s?(?: test)?|equal(?:ity of)? variances?|homogeneity of variances?|homoscedastic\p{L}*|heteroscedastic\p{L}*|distribution of the differences)(?![\p{L}])/giu;
+/** A named check of an assumption: a test of normality or of equal variances, or a diagnostic plot. */
+const ASSUMPTION_CHECK = /(?<![\p{L}])(Shapiro[-–‐ ]Wilk|Kolmogorov[-–‐ ]Smirnov|Lilliefors|Anderson[-–‐ ]Darling|D['’]Agostino(?:[-–‐ ]Pearson)?|Levene['’]?s?(?: tests?)?|Brown[-–‐ ]Forsythe|Bartlett['’]?s tests?|Q[-–‐ ]?Q[- ]plots?|P[-–‐ ]?P[- ]plots?|normal probability plots?|quantile[-–‐ ]quantile plots?)(?![\p{L}])/giu;
+/** What an assumption check is about: it needs a verb of checking in its sentence. */
+const ASSUMPTION_TOPIC = /(?<![\p{L}])(normality|normally distributed|normal distributions?|approximately normal|non-?normality|equal(?:ity of)? variances?|homogeneity of variances?|variances were equal|homoscedastic\p{L}{0,6}|heteroscedastic\p{L}{0,6}|distributions? of the (?:differences|residuals|difference scores|scores|data)|assumptions? of (?:the |each |these |all )?(?:t[- ]?tests?|tests?|analys[ie]s)|(?:the |these |its |their )assumptions|histograms?|skew(?:ness|ed)?)(?![\p{L}])/giu;
+/** Verbs that say a check was run. */
+const CHECK_DONE = /(?<![\p{L}])(check(?:ed|ing|s)?|test(?:ed|ing)|assess(?:ed|ing|ment)?|examin(?:ed|ing|ation)|inspect(?:ed|ing|ion)|evaluat(?:ed|ing|ion)|verif(?:ied|y|ying|ication)|explor(?:ed|ing)|screen(?:ed|ing)|plotted|visuali[sz](?:ed|ing))(?![\p{L}])/giu;
+/** Verbs that report what a check found: a negation there is still a check ("normality was not violated"). */
+const CHECK_FOUND = /(?<![\p{L}])(met|satisfied|held|violat(?:ed|ion|ions)|confirmed|indicated|suggested|showed|revealed|looked|appeared|departures? from|deviat(?:ed|ion|ions))(?![\p{L}])/giu;
+/** A negation right before a verb of checking: "was not checked", "did not formally test", "without checking", "no check". */
+const NEGATED_BEFORE = /(?:(?<![\p{L}])(?:not|never|no|without|nor|neither)|n['’]t)(?: \p{L}{1,15}){0,2} $/iu;
+/** Words about what a test assumes, not about a check: "does not assume equal variances", "equal variances not assumed". */
+const ASSUMING_BEFORE = /(?<![\p{L}])assum(?:e|es|ed|ing)(?: \p{L}{1,12}){0,2} $/iu;
+const ASSUMED_AFTER = /^ (?:(?:was|were|is|are|not|be) ){0,2}assumed(?![\p{L}])/iu;
+/** A named check said not to have been run: "No Shapiro–Wilk test was performed", "Levene's test was not used". */
+const CHECK_NOT_RUN = /^[\p{L}'’ ]{0,20} (?:was|were) not (?:run|performed|conducted|used|done|applied|carried out|reported)(?![\p{L}])/iu;
+/** How far (characters) a verb of checking may stand from what it checks, within the sentence. */
+const CHECK_REACH = 80;
 const MULTIPLICITY = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidak|Hochberg|Benjamini|false discovery rate|FDR|family-?wise|multiple (?:comparisons|testing|tests)|multiplicity|adjusted p(?:[- ]values?)?|corrected for multiple|Tukey['’]?s?(?: HSD)?)(?![\p{L}])/giu;
 const TREND = /(?<![\p{L}])(trend(?:ed)? (?:towards?|to) (?:significance|be significant)|a trend|marginal(?:ly)? (?:significant|significance)|approach(?:ed|ing) (?:statistical )?significance|borderline significan\p{L}*|nearly significant|almost significant|tended to)(?![\p{L}])/giu;
 const EXCLUSION = /(?<![\p{L}])(exclu\p{L}+|dropped out|drop-?outs?|withdr[ae]w\p{L}*|lost to follow-?up|missing data|incomplete data|did not complete|attrition|removed from (?:the )?analys[ie]s)(?![\p{L}])/giu;
-const TEST_NAME = /(?<![\p{L}])((?:paired|unpaired|independent|one-sample|two-sample|dependent|related)(?:[- ]samples?)? t[- ]tests?|Welch['’]?s?(?: t)?(?:[- ]tests?)?|Student['’]?s?(?: t)?(?:[- ]tests?)?|t[- ]tests? for (?:paired|independent|dependent) samples)(?![\p{L}])/giu;
+const TEST_NAME = /(?<![\p{L}])((?:paired|unpaired|independent|one[- ]sample|single[- ]sample|two[- ]sample|dependent|related|repeated[- ]measures|within[- ]subjects?|between[- ]subjects?)(?:[- ]samples?)? t[- ]tests?|Welch['’]?s?(?: t)?(?:[- ]tests?)?|(?:paired )?Student(?:['’]s)? t(?:[- ]?tests?)?|t[- ]tests? for (?:paired|independent|dependent|related) samples|unequal[- ]variances? t[- ]tests?|t[- ]tests? (?:assuming|with) unequal variances)(?![\p{L}])/giu;
+/** The header R prints above a t-test's output. */
+const R_HEADER = /(?<![\p{L}-])(Welch Two Sample t-test|Two Sample t-test|Paired t-test|One Sample t-test)(?![\p{L}-])/gu;
 
 // Cheap literal pre-checks, so a segment runs only the patterns that can match in it.
 const MAY: Record<Mention['kind'], RegExp> = {
   software: /SPSS|Stata|SAS|JASP|jamovi|Python|SciPy|statsmodels|Prism|Minitab|MATLAB|Excel|G\*Power|Statistica|JMP|R\b/,
-  assumption: /normal|Shapiro|Kolmogorov|Q[-–]Q|Levene|varianc|scedastic|differences/i,
+  assumption: /normal|Shapiro|Kolmogorov|Lilliefors|Darling|Agostino|Q[-–‐ ]?Q|P[-–‐ ]?P|Levene|Forsythe|Bartlett|quantile|varianc|scedastic|distribution|assumption|histogram|skew/i,
   multiplicity: /Bonferroni|Holm|id[aá]k|Hochberg|Benjamini|discovery|FDR|family|multipl|adjusted|corrected|Tukey/i,
   trend: /trend|marginal|approach|borderline|nearly|almost|tended/i,
   exclusion: /exclu|drop|withdr|lost to|missing|incomplete|did not complete|attrition|removed/i,
-  'test-name': /t[- ]test|Welch|Student/i,
+  'test-name': /t[- ]test|Welch|Student t|Student['’]s t/i,
 };
 
 /** Guideline-relevant words in one prose segment. */
@@ -35,8 +53,97 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
     if (m[1] === 'R' && !m[2] && !/(?<![\p{L}])R (?:software|package|version|Core|\(R Core|statistical|environment)|in R(?![\p{L}])|using R(?![\p{L}])|R \d/u.test(context)) continue;
     add('software', m, m[2]);
   }
-  for (const [re, kind] of [[ASSUMPTION, 'assumption'], [MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion'], [TEST_NAME, 'test-name']] as const) {
+  for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion']] as const) {
     if (MAY[kind].test(text)) for (const m of text.matchAll(re)) add(kind, m);
+  }
+  if (MAY.assumption.test(text)) for (const m of assumptionChecks(text, starts)) add('assumption', m);
+  if (MAY['test-name'].test(text)) for (const m of text.matchAll(TEST_NAME)) {
+    const test = testNameWords(m[0]);
+    if (test) out.push({ ...placeOf(seg, starts, m), kind: 'test-name', test });
+  }
+  const where = seg.table ? { table: { table: seg.table.table, row: seg.table.row } } : seg.legendOf ? { legendOf: seg.legendOf.table } : {};
+  return out.map((x) => ({ ...x, ...where }));
+}
+
+function placeOf(seg: Segment, starts: number[], m: RegExpMatchArray): Omit<Mention, 'kind'> {
+  const at = m.index ?? 0;
+  return { segment: seg.id, block: seg.block, sentence: sentenceOf(starts, at), span: sourceSpan(seg, at, at + m[0].length), printed: m[0] };
+}
+
+/**
+ * What a test's name says: paired words, one sample, independent groups, Welch's (independent
+ * groups with unequal variances) or Student's (independent groups, unless said to be paired).
+ */
+export function testNameWords(words: string, source: TestNameWords['source'] = 'prose'): TestNameWords | undefined {
+  const w = words.toLowerCase();
+  const plural = /tests$/u.test(w);
+  if (source === 'software-output') {
+    // R: t.test prints "Welch Two Sample t-test" by default and "Two Sample t-test" with var.equal = TRUE
+    if (w.startsWith('welch')) return { design: 'independent', variant: 'welch', plural, source };
+    if (w.startsWith('two sample')) return { design: 'independent', variant: 'student', plural, source };
+    if (w.startsWith('paired')) return { design: 'paired', plural, source };
+    return { design: 'one-sample', plural, source };
+  }
+  if (w.startsWith('welch') || w.includes('unequal')) return { design: 'independent', variant: 'welch', plural, source };
+  if (w.startsWith('paired student')) return { design: 'paired', plural, source };
+  if (w.startsWith('student')) return { design: 'independent', variant: 'student', plural, source };
+  if (/^(?:paired|dependent|related|repeated|within)|for (?:paired|dependent|related)/u.test(w)) return { design: 'paired', plural, source };
+  if (/^(?:one|single)/u.test(w)) return { design: 'one-sample', plural, source };
+  if (/^(?:unpaired|independent|two|between)|for independent/u.test(w)) return { design: 'independent', plural, source };
+  return undefined;
+}
+
+/** The header R prints above each t-test's output, in a block of code: it names the test of the output below it. */
+export function findSoftwareHeaders(seg: Segment, starts: number[]): Mention[] {
+  if (!seg.text.includes('t-test')) return [];
+  const out: Mention[] = [];
+  for (const m of seg.text.matchAll(R_HEADER)) {
+    const test = testNameWords(m[0], 'software-output');
+    if (test) out.push({ ...placeOf(seg, starts, m), kind: 'test-name', test });
+  }
+  return out;
+}
+
+/**
+ * Statements that an assumption was checked: a named check (Shapiro–Wilk, Levene's test, Q–Q
+ * plots) not said to be skipped, or what a check is about (normality, equal variances, the
+ * distribution of the differences) with a verb of checking within reach in its sentence. A
+ * verb of doing the check ("checked", "tested") must not be negated; a verb of what the check
+ * found ("met", "violated") may be. Words about what a test assumes are no check.
+ */
+function assumptionChecks(text: string, starts: number[]): RegExpMatchArray[] {
+  const out: RegExpMatchArray[] = [];
+  const sentenceBounds = (at: number) => {
+    const i = sentenceOf(starts, at);
+    return [starts[i] as number, starts[i + 1] ?? text.length] as const;
+  };
+  for (const m of text.matchAll(ASSUMPTION_CHECK)) {
+    const at = m.index;
+    const [from] = sentenceBounds(at);
+    const before = text.slice(Math.max(from, at - 20), at);
+    const after = text.slice(at + m[0].length, at + m[0].length + 50);
+    if (/(?<![\p{L}])(?:no|without|nor|neither)(?: \p{L}{1,12})? $/iu.test(before) || CHECK_NOT_RUN.test(after)) continue;
+    out.push(m);
+  }
+  const withCheck = new Set(out.map((m) => sentenceOf(starts, m.index ?? 0)));
+  for (const m of text.matchAll(ASSUMPTION_TOPIC)) {
+    const at = m.index;
+    // a sentence with a named check is credited once, at the check
+    if (withCheck.has(sentenceOf(starts, at))) continue;
+    const [from, to] = sentenceBounds(at);
+    const end = at + m[0].length;
+    if (ASSUMING_BEFORE.test(text.slice(Math.max(from, at - 40), at)) || ASSUMED_AFTER.test(text.slice(end, end + 30))) continue;
+    const lo = Math.max(from, at - CHECK_REACH);
+    const hi = Math.min(to, end + CHECK_REACH);
+    const window = text.slice(lo, hi);
+    let checked = false;
+    for (const v of window.matchAll(CHECK_DONE)) {
+      const vAt = lo + v.index;
+      if (vAt >= at && vAt < end) continue;
+      if (!NEGATED_BEFORE.test(text.slice(Math.max(from, vAt - 30), vAt))) checked = true;
+    }
+    for (const v of window.matchAll(CHECK_FOUND)) if (lo + v.index < at || lo + v.index >= end) checked = true;
+    if (checked) out.push(m);
   }
   return out;
 }

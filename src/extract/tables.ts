@@ -66,6 +66,50 @@ export function readTables(segments: readonly Segment[]): TableResults {
   return out;
 }
 
+/** The block holding a row (blocks in row order, not overlapping). */
+function blockAt(blocks: readonly TableBlockRecord[], row: number): TableBlockRecord | undefined {
+  let lo = 0;
+  let hi = blocks.length - 1;
+  while (lo <= hi) {
+    const mid = (lo + hi) >> 1;
+    const b = blocks[mid] as TableBlockRecord;
+    if (row < b.firstRow) hi = mid - 1;
+    else if (row > b.lastRow) lo = mid + 1;
+    else return b;
+  }
+  return undefined;
+}
+
+/** A caption's own number: "Table 2", "Table S1", "Table IV". */
+const CAPTION_NUMBER = /^\s?(?:Table|TABLE|Tab\.)[ \u00A0]{0,2}([A-Z]?\d{1,3}|[IVXLC]{1,7})(?![\p{L}\p{N}])/u;
+
+/**
+ * Gives each result printed in a table the words a reader finds it by: the table's name (the
+ * number its caption gives it, else its place among the document's tables) and the row's label
+ * (the measure named in the first column, or above it in a block of rows).
+ */
+export function nameTableRows(tests: readonly TTestReport[], segments: readonly Segment[], blocks: readonly TableBlockRecord[]): void {
+  if (!tests.some((t) => t.table)) return;
+  const names = new Map<number, string>();
+  for (const s of segments) {
+    if (s.legendOf?.role !== 'caption' || names.has(s.legendOf.table)) continue;
+    const m = CAPTION_NUMBER.exec(s.text);
+    if (m) names.set(s.legendOf.table, `Table ${m[1] as string}`);
+  }
+  const blocksOf = new Map<number, TableBlockRecord[]>();
+  for (const b of blocks) {
+    const list = blocksOf.get(b.table);
+    if (list) list.push(b);
+    else blocksOf.set(b.table, [b]);
+  }
+  for (const t of tests) {
+    if (!t.table) continue;
+    const { table, row } = t.table;
+    const label = blockAt(blocksOf.get(table) ?? [], row)?.label;
+    t.table = { ...t.table, name: names.get(table) ?? `Table ${table + 1}`, ...(label && /\p{L}/u.test(label) ? { rowLabel: label } : {}) };
+  }
+}
+
 function gridsOf(segments: readonly Segment[]): Grid[] {
   const grids = new Map<number, Grid>();
   for (const s of segments) {

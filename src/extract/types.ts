@@ -91,8 +91,8 @@ export interface TTestReport {
   statedSidedness?: { value: Sidedness; span: Span };
   /** The test name given right before the statistic (e.g. "Welch's t"), lower-case. */
   namedVariant?: 'welch' | 'student' | 'paired' | 'one-sample' | 'independent';
-  /** Printed in a table: its row. */
-  table?: TableRow;
+  /** Printed in a table: its row, the table's name ("Table 2" from its caption, else its place) and the row's label. */
+  table?: TableRow & { name?: string; rowLabel?: string };
   /**
    * The test's own lead in prose: from the last clause boundary of its sentence (or the sentence
    * start) to its statistic, with its content words (src/extract/topic.ts).
@@ -350,7 +350,12 @@ export interface PowerStatement {
   design: 'two-sample' | 'paired' | 'one-sample';
 }
 
-/** Words that reporting guidelines look for. */
+/**
+ * Words that reporting guidelines look for. `assumption` is a statement that an assumption was
+ * checked (a named check such as Shapiro–Wilk or Levene's test, or normality or equal variances
+ * with a verb of checking), never a negated one ("normality was not checked") nor words about
+ * what a test assumes ("Welch's test does not assume equal variances").
+ */
 export interface Mention {
   kind: 'software' | 'assumption' | 'multiplicity' | 'trend' | 'exclusion' | 'test-name';
   segment: number;
@@ -360,4 +365,20 @@ export interface Mention {
   printed: string;
   /** For software: the version printed with it. */
   version?: string;
+  /** For a test name: what the words say of the test. */
+  test?: TestNameWords;
+  /** Said in a table cell: the cell's table and row (row 0 is the header row). */
+  table?: TableRow;
+  /** Said in a table's caption or note: that table. */
+  legendOf?: number;
+}
+
+/** What a test's name says: the design, Student's or Welch's, and whether it names several tests. */
+export interface TestNameWords {
+  design?: 'paired' | 'independent' | 'one-sample';
+  variant?: 'welch' | 'student';
+  /** "t-tests", "Welch tests": said of several results. */
+  plural: boolean;
+  /** `prose`, or the header software prints above a test's output ("Welch Two Sample t-test" in R). */
+  source: 'prose' | 'software-output';
 }

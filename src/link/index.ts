@@ -6,6 +6,8 @@ export type * from './types.js';
 export type { DescriptiveLink, Design, IntervalLink, IntervalTarget, LinkBasis, Linked, ResultContext } from './descriptives.js';
 export { groupBy } from './descriptives.js';
 import { contextJoiner, spreadStatements } from './descriptives.js';
+import { testNames } from './testNames.js';
+export type { TestName, TestNameBasis } from './testNames.js';
 
 /** Default alpha when nothing sets one: .05 (common practice, no source). */
 export const DEFAULT_ALPHA = 0.05;
@@ -70,6 +72,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     else testsBySentence.set(k, [t]);
   }
   const generalSet = new Set(general);
+  const names = testNames(extraction);
   // One-tailed words in a sentence without a test, said of no particular result: where they
   // cannot be tied to a result, a note says so rather than "nothing says one-tailed".
   const untied = extraction.statements.filter((s) => s.kind === 'sidedness' && !generalSet.has(s) && !sentencesWithTests.has(`${s.segment}:${s.sentence}`));
@@ -84,6 +87,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       sidedness,
       alpha: alphaFor(sentence, paragraphOf(report.segment), documentAlpha),
       context: join(report),
+      ...(names.has(report) ? { testName: names.get(report) } : {}),
       ...(elsewhere ? { untiedSidedness: elsewhere } : {}),
     };
   });

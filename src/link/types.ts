@@ -1,6 +1,7 @@
 import type { ContextStatement, Extraction, GroupSummary, IntegerStatement, PWithoutT, Sidedness, SpreadKind, TTestReport } from '../extract/types.js';
 import type { Directive, ReadNote, Span } from '../parse/types.js';
 import type { ResultContext } from './descriptives.js';
+import type { TestName } from './testNames.js';
 export type { IntervalTarget, LinkBasis, Linked } from './descriptives.js';
 
 /** Where a setting that applies to a result came from, most specific first. */
@@ -21,6 +22,8 @@ export interface LinkedResult {
   alpha: Setting<number>;
   /** Descriptives, design, CI, effect sizes and sample sizes that belong with the result. */
   context: ResultContext;
+  /** The test's name as the result's own words give it (its clause, sentence, table or output header). */
+  testName?: TestName;
   /** A one-tailed statement elsewhere in the text that could not be tied to this result. */
   untiedSidedness?: ContextStatement;
 }

@@ -1,11 +1,7 @@
-import type { ChecklistRecord, FileReport, Finding, ResultRecord } from '../engine/types.js';
+import type { FileReport, Finding } from '../engine/types.js';
+import { GUIDELINE_NAMES, guidelineRefs, missingWhere, resultHeading, summariseChecklist, type ItemSummary } from './checklistSummary.js';
 import { CAUTIONS, type RunReport } from './types.js';
 
-const GUIDELINE_NAMES: Record<string, string> = {
-  sampl: 'SAMPL (Lang & Altman)',
-  'jars-quant': 'APA JARS-Quant (2018)',
-  consort: 'CONSORT 2010',
-};
 const CONSISTENCY_RULES = new Set(['sample-size-agrees-with-df', 'group-sizes-sum-to-total', 'repeated-result-agrees']);
 const STATUS = { found: 'found', missing: '**missing**', 'not-applicable': 'not applicable' } as const;
 
@@ -15,16 +11,17 @@ function cell(s: string): string {
   return s.replace(/\\/g, '\\\\').replace(/\|/g, '\\|').replace(/<(?=[A-Za-z!/?])/g, '&lt;').replace(/[\r\n]+/g, ' ').replace(/`/g, "'");
 }
 
-const at = (p?: { start: { line: number } }) => (p ? `line ${p.start.line}` : '');
 
 /**
- * A Markdown report a referee can paste into a review: per document the checklist (found,
- * missing, not applicable, each with its line), then consistency across the document, then the
- * number-level findings in brief, then the cautions.
+ * A Markdown report a referee can paste into a review: per document the checklist's document
+ * items (found with their line, missing, not applicable), then one line per per-result item
+ * with how many results meet it and where it is missing, then the results read, consistency
+ * across the document, the number-level findings in brief, and the cautions.
  */
 export function formatChecklist(run: RunReport): string {
   const out: string[] = [];
-  for (const file of run.files) out.push(...fileSection(file));
+  // appended line by line: a spread of a long paper's lines would overflow the call stack
+  for (const file of run.files) for (const line of fileSection(file)) out.push(line);
   for (const f of run.failures) out.push(`Not checked: ${cell(f.path)} (${cell(f.message)}).`, '');
   out.push('---', '', ...CAUTIONS.map((c) => `*${cell(c)}*`), '', `Prepared with ${run.tool.name} ${run.tool.version}.`, '');
   return out.join('\n');
@@ -33,16 +30,20 @@ export function formatChecklist(run: RunReport): string {
 function fileSection(file: FileReport): string[] {
   const out = [`# Reporting checklist: ${cell(file.path)}`, ''];
   out.push(`Items follow ${file.guidelines.map((g) => GUIDELINE_NAMES[g] ?? g).join(', ')}. ${file.results.length} t-test result${file.results.length === 1 ? '' : 's'} found.`, '');
-  const documentItems = file.checklist.filter((c) => c.entries.some((e) => e.scope === 'document'));
-  const resultItems = file.checklist.filter((c) => c.entries.some((e) => e.scope === 'result'));
+  const items = summariseChecklist(file);
   out.push('## The document', '', '| Item | Guideline | Status | Where | Detail |', '| --- | --- | --- | --- | --- |');
-  for (const c of documentItems) {
-    for (const e of c.entries.filter((x) => x.scope === 'document')) out.push(`| ${cell(c.item)} | ${refs(c)} | ${STATUS[e.status]} | ${at(e.place)} | ${cell(e.detail)} |`);
-  }
+  for (const s of items) if (s.scope === 'document') out.push(`| ${cell(s.record.item)} | ${refs(s)} | ${STATUS[s.status]} | ${s.line !== undefined ? `line ${s.line}` : ''} | ${cell(s.detail)} |`);
   out.push('');
   if (file.results.length > 0) {
-    out.push('## Each result', '');
-    file.results.forEach((r, i) => out.push(...resultBlock(r, i + 1, resultItems)));
+    out.push('## Each result', '', '| Item | Guideline | Met | Missing for |', '| --- | --- | --- | --- |');
+    for (const s of items) {
+      if (s.scope !== 'result') continue;
+      const met = s.applicable === 0 ? 'not applicable' : `${s.found} of ${s.applicable}`;
+      out.push(`| ${cell(s.record.item)} | ${refs(s)} | ${met} | ${cell(missingWhere(s))} |`);
+    }
+    out.push('', '### Results read', '');
+    file.results.forEach((r, i) => out.push(`${i + 1}. ${cell(resultHeading(r))}`));
+    out.push('');
   }
   const consistency = file.findings.filter((f) => CONSISTENCY_RULES.has(f.ruleId));
   out.push('## Consistency across the document', '');
@@ -58,24 +59,17 @@ function fileSection(file: FileReport): string[] {
   return out;
 }
 
-function resultBlock(r: ResultRecord, n: number, items: ChecklistRecord[]): string[] {
-  const lines = [`### ${n}. Line ${r.start.line}: ${cell(r.printed)}`, ''];
-  for (const c of items) {
-    const e = c.entries.find((x) => x.resultId === r.id);
-    if (!e) continue;
-    const mark = e.status === 'found' ? '[x]' : e.status === 'missing' ? '[ ]' : '[–]';
-    lines.push(`- ${mark} ${cell(c.item)} — ${STATUS[e.status]}${e.place && e.status === 'found' ? ` (${at(e.place)})` : ''}: ${cell(e.detail)}`);
-  }
-  lines.push('');
-  return lines;
-}
-
-function refs(c: ChecklistRecord): string {
-  return Object.entries(c.guidelines)
-    .map(([g, ref]) => `${GUIDELINE_NAMES[g]?.split(' (')[0] ?? g}: ${cell(ref)}`)
+function refs(s: ItemSummary): string {
+  return guidelineRefs(s.record)
+    .map((r) => `${r.guideline}: ${cell(r.ref)}`)
     .join('; ');
 }
 
+/** A finding's line; a finding said of the whole document has none. */
+function at(f: Finding): string {
+  return f.scope === 'document' ? 'the document' : `line ${f.start.line}`;
+}
+
 function relatedText(f: Finding): string {
-  return f.related?.length ? ` (see ${f.related.map((r) => at(r)).join(', ')})` : '';
+  return f.related?.length ? ` (see ${f.related.map((r) => `line ${r.start.line}`).join(', ')})` : '';
 }

@@ -7,7 +7,8 @@
  * Layout only: the pictures (pictures.ts) turn numbers the report carries into positions; every
  * statistic shown comes from the report.
  */
-import type { ChecklistRecord, FileReport, Finding, ResultRecord } from '../engine/types.js';
+import type { FileReport, Finding, ResultRecord } from '../engine/types.js';
+import { guidelineRefs, missingWhere, summariseChecklist, type ItemSummary, type MissingPlace } from './checklistSummary.js';
 import type { Level } from '../rule-api/types.js';
 import { escapeHtml, shortNumber as fmt } from './escape.js';
 import { findingPicture, pAxisFor, plottable, pOverview, pStrip, STRIP_WIDTH, type PAxis } from './pictures.js';
@@ -157,7 +158,7 @@ export function fileSection(file: FileReport, index: number, pAxis: PAxis = pAxi
     `<div><h3>Findings</h3><div class="cards">${ordered.length === 0 ? '<p>No findings.</p>' : ordered.map((f, n) => card(file, index, f, n, pAxis)).join('\n')}</div></div>`,
     '</div>',
     file.results.length > 0 ? `<h3>Results</h3><ol class="results-list">${file.results.map((r, n) => resultItem(file, index, r, n, pAxis)).join('')}</ol>` : '',
-    file.checklist.length > 0 ? `<h3>Reporting checklist</h3>${checklistTable(file.checklist, index)}` : '',
+    file.checklist.length > 0 ? `<h3>Reporting checklist</h3>${checklistTable(file, index)}` : '',
     '</section>',
   ].join('\n');
 }
@@ -265,14 +266,43 @@ function worstLevel(findings: Finding[]): Level | undefined {
   return findings.reduce<Level | undefined>((w, f) => (!w || RANK[f.level] > RANK[w] ? f.level : w), undefined);
 }
 
-function checklistTable(items: ChecklistRecord[], index: number): string {
-  const rows = items.flatMap((item) =>
-    item.entries.map(
-      (e) =>
-        `<tr><td>${escapeHtml(item.item)}</td><td>${e.scope === 'document' ? 'document' : `result ${escapeHtml(e.resultId ?? '')}`}</td><td class="st-${e.status}">${e.status.replace('-', ' ')}</td><td>${escapeHtml(e.detail)}${e.place ? ` (<a href="#${anchor(index, 'L', e.place.start.line)}">line ${e.place.start.line}</a>)` : ''}</td><td>${Object.entries(item.guidelines).map(([g, ref]) => `${escapeHtml(g)}: ${escapeHtml(ref ?? '')}`).join('; ')}</td></tr>`,
-    ),
+/**
+ * The checklist: the document's items (a missing one has no line), then one row per per-result
+ * item with how many results meet it and where it is missing, each place a link to its line.
+ */
+function checklistTable(file: FileReport, index: number): string {
+  const items = summariseChecklist(file);
+  const byLine = (line: number, text: string) => `<a href="#${anchor(index, 'L', line)}">${escapeHtml(text)}</a>`;
+  const guideline = (s: ItemSummary) => guidelineRefs(s.record).map((r) => `${escapeHtml(r.guideline)}: ${escapeHtml(r.ref)}`).join('; ');
+  const doc = items.flatMap((s) =>
+    s.scope === 'document'
+      ? [`<tr><td>${escapeHtml(s.record.item)}</td><td class="st-${s.status}">${s.status.replace('-', ' ')}</td><td>${escapeHtml(s.detail)}${s.line !== undefined ? ` (${byLine(s.line, `line ${s.line}`)})` : ''}</td><td>${guideline(s)}</td></tr>`]
+      : [],
   );
-  return `<table class="checklist"><thead><tr><th>Item</th><th>Scope</th><th>Status</th><th>Detail</th><th>Guideline</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
+  const perResult = items.flatMap((s) => {
+    if (s.scope !== 'result') return [];
+    const status = s.applicable === 0 ? 'not-applicable' : s.missing === 0 ? 'found' : 'missing';
+    const met = s.applicable === 0 ? 'not applicable' : `${s.found} of ${s.applicable}`;
+    const where = s.missing === 0 ? '' : s.missing === s.applicable && s.applicable > 1 ? escapeHtml(missingWhere(s)) : placeLinks(s.places, byLine);
+    return [`<tr><td>${escapeHtml(s.record.item)}</td><td class="st-${status}">${met}</td><td>${where}</td><td>${guideline(s)}</td></tr>`];
+  });
+  const head = (second: string, third: string) => `<thead><tr><th>Item</th><th>${second}</th><th>${third}</th><th>Guideline</th></tr></thead>`;
+  return [
+    `<p><strong>The document</strong></p><table class="checklist">${head('Status', 'Detail')}<tbody>${doc.join('')}</tbody></table>`,
+    perResult.length > 0 && file.results.length > 0 ? `<p><strong>Each result</strong></p><table class="checklist">${head('Met', 'Missing for')}<tbody>${perResult.join('')}</tbody></table>` : '',
+  ].join('');
+}
+
+/** Each place a link to its line: "line 19", "Table 1, row 'Eye strain'". */
+function placeLinks(places: readonly MissingPlace[], link: (line: number, text: string) => string): string {
+  const seen = new Map<string, { line: number; n: number }>();
+  for (const p of places) {
+    const text = p.table ? `${p.table.name}, ${p.table.row ? `row '${p.table.row}'` : `line ${p.line}`}` : `line ${p.line}${p.printed ? ` (${p.printed})` : ''}`;
+    const had = seen.get(text);
+    if (had) had.n += 1;
+    else seen.set(text, { line: p.line, n: 1 });
+  }
+  return [...seen].map(([text, { line, n }]) => `${link(line, text)}${n > 1 ? ` (${n} results)` : ''}`).join(', ');
 }
 
 /** The overview of every drawable test in the file, on the report's p axis. */

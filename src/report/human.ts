@@ -1,6 +1,7 @@
 import type { FileReport, Finding } from '../engine/types.js';
 import { CAUTIONS, countRun, type RunReport } from './types.js';
 import { terminalSafe } from './text.js';
+import { checklistFindingLines, isChecklistFinding, missingText } from './checklistSummary.js';
 
 export interface HumanOptions {
   color: boolean;
@@ -35,7 +36,9 @@ export function formatHuman(run: RunReport, options: HumanOptions): string {
   for (const file of run.files) {
     if (file.findings.length === 0) continue;
     out.push(paint('bold', terminalSafe(file.path)));
-    for (const f of file.findings) out.push(...findingBlock(file, f, paint, width), '');
+    // the checklist's missing items are said once per item below, not once per result
+    for (const f of file.findings) if (!isChecklistFinding(file, f)) out.push(...findingBlock(file, f, paint, width), '');
+    out.push(...checklistBlock(file, paint, width));
   }
   const c = countRun(run);
   const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
@@ -63,6 +66,23 @@ function findingBlock(file: FileReport, f: Finding, paint: (s: keyof typeof STYL
   for (const l of wrap(terminalSafe(f.message), width - 4)) lines.push(`    ${l}`);
   for (const l of wrap(`what to check: ${terminalSafe(f.check)}`, width - 4)) lines.push(`    ${paint('dim', l)}`);
   for (const r of f.related ?? []) lines.push(`    ${paint('dim', `see ${r.start.line}:${r.start.column}: ${terminalSafe(r.message)}`)}`);
+  return lines;
+}
+
+/**
+ * The reporting checklist's findings, one block per item: a document item without a line
+ * (nothing in the text is the place of an absence), a per-result item with its count and its
+ * places.
+ */
+function checklistBlock(file: FileReport, paint: (s: keyof typeof STYLE, t: string) => string, width: number): string[] {
+  const lines: string[] = [];
+  for (const c of checklistFindingLines(file)) {
+    const where = c.document !== undefined ? 'document' : 'results';
+    lines.push(`  ${paint('dim', where.padEnd(8))} ${paint(c.level, c.level.padEnd(7))} ${paint('dim', c.ruleId)}`);
+    const text = c.document !== undefined ? `${c.item} — not said anywhere in the document: ${c.document}.` : `${c.item} — ${missingText({ missing: c.missing ?? 0, applicable: c.applicable ?? 0, places: c.places ?? [] })}.`;
+    for (const l of wrap(terminalSafe(text), width - 4)) lines.push(`    ${l}`);
+    lines.push('');
+  }
   return lines;
 }
 

@@ -70,7 +70,8 @@ function result(f: Finding, location: ArtifactLocation, ruleIndex: number | unde
     ...(ruleIndex !== undefined ? { ruleIndex } : {}),
     level: f.level,
     message: { text: `${f.message} ${f.check}` },
-    locations: [{ physicalLocation: { artifactLocation: location, region: region(f) } }],
+    // a finding said of the whole document (a missing checklist item) has no region: it is about the file
+    locations: [{ physicalLocation: { artifactLocation: location, ...(f.scope === 'document' ? {} : { region: region(f) }) } }],
     partialFingerprints: { [FINGERPRINT_NAME]: f.fingerprint },
     ...(f.related?.length
       ? {

@@ -28,15 +28,19 @@ export function checklistRule(spec: ChecklistRuleSpec): Rule {
     check({ document }) {
       const out: RuleFinding[] = [];
       for (const e of spec.assess(document)) {
-        if (e.status !== 'missing' || !e.span) continue;
+        if (e.status !== 'missing') continue;
+        // a missing document item has no place: its finding is said of the whole document
+        const span = e.span ?? (e.scope === 'document' ? { start: 0, end: 0 } : undefined);
+        if (!span) continue;
         out.push({
           messageId: 'missing',
-          span: e.span,
+          span,
           message: spec.missingMessage.replace('{detail}', e.detail),
           reported: e.detail,
           check: spec.check,
           ...(e.resultId ? { resultId: e.resultId } : {}),
           ...(e.block !== undefined ? { block: e.block } : {}),
+          ...(e.scope === 'document' && !e.span ? { scope: 'document' as const } : {}),
         });
       }
       return out;

@@ -6,6 +6,5 @@ export { describeTails, evaluateP, showRange, type PEvaluation, type PStanding }
 export { pMessageId, pPlaceholders } from './pMessages.js';
 export { describeAttempt, evaluateDescriptives, inferDesign, spreadReadings, type Attempt, type DescriptiveEvaluation, type Reading, type Variant } from './descriptives.js';
 export { checklistRule, type ChecklistRuleSpec } from './checklist.js';
-export { documentAnchor } from './docs.js';
 export { descriptiveDoubts, linkDoubts } from './doubts.js';
 export { groupBy } from '../link/index.js';

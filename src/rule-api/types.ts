@@ -110,6 +110,11 @@ export interface RuleFinding {
   /** The block the finding sits in, for `plumbline quiet` directives. */
   block?: number;
   /**
+   * `document`: said of the whole document (an item of the reporting checklist that nothing in
+   * the text meets), so it has no place of its own; `span` is then the empty span at offset 0.
+   */
+  scope?: 'document';
+  /**
    * Why a link the finding rests on is not certain (a number tied to the result only by its
    * paragraph, a design the text does not state). A finding with reasons here is said as a
    * note of what could not be checked, never as a warning or error.
@@ -164,7 +169,10 @@ export interface ChecklistEntry {
   scope: 'document' | 'result';
   resultId?: string;
   status: 'found' | 'missing' | 'not-applicable';
-  /** Where it was found; for a missing per-result item, the result. */
+  /**
+   * Where it was found; for a missing per-result item, the result (or the words at fault). A
+   * missing document item has none: nothing in the text is the place of an absence.
+   */
   span?: Span;
   /** What was found or what is missing, in plain words. */
   detail: string;
@@ -174,7 +182,12 @@ export interface ChecklistEntry {
 /** What a checklist rule adds to a rule: the item, the guideline items it follows, and its assessment. */
 export interface ChecklistItem {
   item: string;
-  /** The guideline item each selected guideline numbers it as (from memory where marked). */
+  /**
+   * The published item of each guideline it follows, as a reader finds it there: its number
+   * (CONSORT 2010 "item 17a") or its section (SAMPL and JARS-Quant do not number their items).
+   * Shown to people as it stands; where a citation was written from memory, the rule's page
+   * says so, not this text.
+   */
   guidelines: Partial<Record<Guideline, string>>;
   assess(document: LinkedDocument): ChecklistEntry[];
 }

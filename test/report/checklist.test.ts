@@ -62,9 +62,11 @@ describe('a report that meets none (fixtures/checklist/bare.md, invented)', () =
     const md = formatChecklist({ tool: { name: 'plumbline', version: '0.0.0-test' }, files: [report], failures: [], rules: [] });
     expect(md).toContain('# Reporting checklist: fixtures/checklist/bare.md');
     expect(md).toContain('| Alpha (the significance level) is stated | ');
-    expect(md).toMatch(/\| The statistics software and its version are named \| .* \| \*\*missing\*\* \| line 3 \| the version of SPSS \|/);
-    expect(md).toContain('### 1. Line 5: t(23) = 2.47, p < .05');
-    expect(md).toContain('- [ ] An exact p is given (p < .001 allowed) — **missing**: p < .05');
+    // a missing document item has no line (nothing in the text is the place of an absence)
+    expect(md).toMatch(/\| The statistics software and its version are named \| .* \| \*\*missing\*\* \|  \| the version of SPSS \|/);
+    expect(md).toContain('1. line 5: t(23) = 2.47, p < .05');
+    // one line per item: how many results meet it, and where it is missing (the result named where its line holds others)
+    expect(md).toMatch(/\| An exact p is given \(p < \.001 allowed\) \| .* \| 3 of 5 \| lines 5 \(t\(23\) = 2\.47, p < \.05\), 6 \(t\(23\) = 0\.41, n\.s\.\) \|/);
     expect(md).toContain('not proof of error or misconduct');
   });
 });

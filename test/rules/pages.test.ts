@@ -40,6 +40,16 @@ describe.each(RULES.map((r) => [r.id, r] as const))('rules/%s.md', (id, rule) =>
     for (const messageId of Object.keys(rule.messages)) expect(page, `message ${messageId} undocumented`).toContain(`\`${messageId}\``);
   });
 
+  it.runIf(rule.checklist !== undefined)('cites each guideline item as the reports do, and says there (only) that it was written from memory', () => {
+    // the citations are shown to referees as they stand; a maintainer verifies them from the page
+    for (const ref of Object.values(rule.checklist?.guidelines ?? {})) {
+      expect(ref).not.toMatch(/memory/i);
+      const line = page.split('\n').find((l) => l.includes(ref));
+      expect(line, `${id}: "${ref}" is not on the page`).toBeDefined();
+      expect(line).toMatch(/from memory/);
+    }
+  });
+
   const flagged = examples(page, 'Flagged');
   const accepted = examples(page, 'Accepted');
   it('has flagged and accepted examples', () => {
