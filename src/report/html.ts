@@ -8,7 +8,7 @@
  * statistic shown comes from the report.
  */
 import type { FileReport, Finding, ResultRecord } from '../engine/types.js';
-import { guidelineRefs, missingWhere, summariseChecklist, type ItemSummary, type MissingPlace } from './checklistSummary.js';
+import { guidelineRefs, isChecklistFinding, missingWhere, summariseChecklist, type ItemSummary, type MissingPlace } from './checklistSummary.js';
 import type { Level } from '../rule-api/types.js';
 import { escapeHtml, shortNumber as fmt } from './escape.js';
 import { findingPicture, pAxisFor, plottable, pOverview, pStrip, STRIP_WIDTH, type PAxis } from './pictures.js';
@@ -147,17 +147,26 @@ ${row(`<span class="sym">${SEVERITY.note.symbol}</span> Notes`, c.note, 'lvl-not
  * checklist. Its p pictures use `pAxis` (the whole report's), or the file's own when alone.
  */
 export function fileSection(file: FileReport, index: number, pAxis: PAxis = pAxisFor(file.results)): string {
-  const ordered = [...file.findings].sort((a, b) => a.span.start - b.span.start);
+  // the checklist's missing entries are summarised in its table, once per item, not as cards
+  const ordered = file.findings.filter((f) => !isChecklistFinding(file, f)).sort((a, b) => a.span.start - b.span.start);
+  const byResult = new Map<string, Finding[]>();
+  for (const f of ordered) {
+    if (f.resultId === undefined) continue;
+    const list = byResult.get(f.resultId);
+    if (list) list.push(f);
+    else byResult.set(f.resultId, [f]);
+  }
+  const summarised = file.findings.length - ordered.length;
   return [
     `<section class="file" id="${anchor(index, 'file', 0)}">`,
     `<h2>${escapeHtml(file.path)}</h2>`,
-    `<p>${file.results.length} result${file.results.length === 1 ? '' : 's'} found, ${file.findings.length} finding${file.findings.length === 1 ? '' : 's'}. Alpha ${escapeHtml(String(file.alpha.value))}, ${escapeHtml(file.sidedness.value)}-tailed where the text says nothing.</p>`,
-    file.results.some(plottable) ? `<h3>All tests in reading order</h3>${forestPlot(file, index, pAxis)}` : '',
+    `<p>${file.results.length} result${file.results.length === 1 ? '' : 's'} found, ${ordered.length} finding${ordered.length === 1 ? '' : 's'}${summarised > 0 ? ` (and ${summarised} checklist entr${summarised === 1 ? 'y' : 'ies'}, summarised in the checklist below)` : ''}. Alpha ${escapeHtml(String(file.alpha.value))}, ${escapeHtml(file.sidedness.value)}-tailed where the text says nothing.</p>`,
+    file.results.some(plottable) ? `<h3>All tests in reading order</h3>${forestPlot(file, index, pAxis, byResult)}` : '',
     '<div class="layout">',
     `<div><h3>Manuscript</h3>${manuscriptHtml(file, index, ordered)}</div>`,
     `<div><h3>Findings</h3><div class="cards">${ordered.length === 0 ? '<p>No findings.</p>' : ordered.map((f, n) => card(file, index, f, n, pAxis)).join('\n')}</div></div>`,
     '</div>',
-    file.results.length > 0 ? `<h3>Results</h3><ol class="results-list">${file.results.map((r, n) => resultItem(file, index, r, n, pAxis)).join('')}</ol>` : '',
+    file.results.length > 0 ? `<h3>Results</h3><ol class="results-list">${file.results.map((r, n) => resultItem(index, r, n, pAxis, byResult.get(r.id) ?? [])).join('')}</ol>` : '',
     file.checklist.length > 0 ? `<h3>Reporting checklist</h3>${checklistTable(file, index)}` : '',
     '</section>',
   ].join('\n');
@@ -168,7 +177,8 @@ function manuscriptHtml(file: FileReport, index: number, ordered: Finding[]): st
   const src = file.source;
   const cuts = new Set<number>([0, src.length]);
   for (let i = src.indexOf('\n'); i >= 0; i = src.indexOf('\n', i + 1)) cuts.add(i + 1);
-  const marks = ordered.map((f, n) => ({ start: f.span.start, end: Math.max(f.span.end, f.span.start), n, level: f.level }));
+  // a finding said of the whole document marks no characters
+  const marks = ordered.flatMap((f, n) => (f.scope === 'document' ? [] : [{ start: f.span.start, end: Math.max(f.span.end, f.span.start), n, level: f.level }]));
   for (const m of marks) cuts.add(m.start).add(m.end);
   for (const r of file.results) cuts.add(r.span.start).add(r.span.end);
   const points = [...cuts].filter((x) => x >= 0 && x <= src.length).sort((a, b) => a - b);
@@ -248,14 +258,13 @@ function card(file: FileReport, index: number, f: Finding, n: number, pAxis: PAx
   const result = f.resultId ? file.results.find((r) => r.id === f.resultId) : undefined;
   const picture = findingPicture(f, result, pAxis);
   return `<details class="card lvl-${f.level}" id="${anchor(index, 'card', n)}" data-card="${n}" open>
-<summary><span class="sym" aria-hidden="true">${s.symbol}</span> ${s.word} · ${escapeHtml(f.ruleId)} <a class="where" href="#${anchor(index, 'L', f.start.line)}">line ${f.start.line}, column ${f.start.column}</a></summary>
+<summary><span class="sym" aria-hidden="true">${s.symbol}</span> ${s.word} · ${escapeHtml(f.ruleId)} ${f.scope === 'document' ? '<span class="where">the whole document</span>' : `<a class="where" href="#${anchor(index, 'L', f.start.line)}">line ${f.start.line}, column ${f.start.column}</a>`}</summary>
 <p>${escapeHtml(f.message)}</p>
 <dl>${rows.join('')}</dl>${picture}
 </details>`;
 }
 
-function resultItem(file: FileReport, index: number, r: ResultRecord, n: number, pAxis: PAxis): string {
-  const flagged = file.findings.filter((f) => f.resultId === r.id);
+function resultItem(index: number, r: ResultRecord, n: number, pAxis: PAxis, flagged: Finding[]): string {
   const worst = worstLevel(flagged);
   const status = worst ? `<span class="lvl-${worst}"><span class="sym">${SEVERITY[worst].symbol}</span> ${flagged.length} finding${flagged.length === 1 ? '' : 's'}</span>` : r.recomputed ? 'no finding' : 'not recomputed';
   // the strip in a column of its own, so strips line up down the list on the shared axis
@@ -306,9 +315,9 @@ function placeLinks(places: readonly MissingPlace[], link: (line: number, text: 
 }
 
 /** The overview of every drawable test in the file, on the report's p axis. */
-function forestPlot(file: FileReport, index: number, pAxis: PAxis): string {
+function forestPlot(file: FileReport, index: number, pAxis: PAxis, byResult: Map<string, Finding[]>): string {
   return pOverview(file.results, pAxis, (n) => anchor(index, 'r', n), (r) => {
-    const worst = worstLevel(file.findings.filter((f) => f.resultId === r.id));
+    const worst = worstLevel(byResult.get(r.id) ?? []);
     return worst ? { symbol: SEVERITY[worst].symbol, level: worst } : undefined;
   });
 }

@@ -41,13 +41,14 @@ export function formatHuman(run: RunReport, options: HumanOptions): string {
     out.push(...checklistBlock(file, paint, width));
   }
   const c = countRun(run);
+  const checklistEntries = run.files.reduce((n, file) => n + file.findings.filter((f) => isChecklistFinding(file, f)).length, 0);
   const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
   const summary = [
     plural(c.files, 'file'),
     `${plural(c.results, 'result')} found (${c.checked} with p recomputed)`,
     paint(c.error ? 'error' : 'dim', plural(c.error, 'error')),
     paint(c.warning ? 'warning' : 'dim', plural(c.warning, 'warning')),
-    paint(c.note ? 'note' : 'dim', plural(c.note, 'note')),
+    paint(c.note ? 'note' : 'dim', plural(c.note, 'note')) + (checklistEntries > 0 ? ` (${checklistEntries} of the findings are checklist entries, summarised by item)` : ''),
   ];
   if (options.listFailures)
     for (const f of run.failures) out.push(`${paint('error', 'not checked')} ${terminalSafe(f.path)}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}: ${terminalSafe(f.message)}`);

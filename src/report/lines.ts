@@ -2,7 +2,8 @@ import { terminalSafe } from './text.js';
 import type { RunReport } from './types.js';
 
 /**
- * One finding per line, `path:line:column: level rule-id message — check: what to check`, for
+ * One finding per line, `path:line:column: level rule-id message — check: what to check` (a
+ * finding said of the whole document, a missing checklist item, has no line and column), for
  * editors' quick-fix lists, grep and CI logs. The message is kept on one line (line breaks and
  * runs of spaces become one space; control characters are made visible). No summary and no
  * cautions on standard output: the command line says the cautions on a terminal.
@@ -11,7 +12,8 @@ export function formatLines(run: RunReport): string {
   const out: string[] = [];
   for (const file of run.files) {
     const path = oneLine(file.path);
-    for (const f of file.findings) out.push(`${path}:${f.start.line}:${f.start.column}: ${f.level} ${f.ruleId} ${oneLine(f.message)} — check: ${oneLine(f.check)}`);
+    // a finding said of the whole document has no line: `path: level rule-id message`
+    for (const f of file.findings) out.push(`${path}${f.scope === 'document' ? '' : `:${f.start.line}:${f.start.column}`}: ${f.level} ${f.ruleId} ${oneLine(f.message)} — check: ${oneLine(f.check)}`);
   }
   return out.length > 0 ? `${out.join('\n')}\n` : '';
 }

@@ -633,3 +633,26 @@ describe('configuration and ignore details', () => {
     expect(text).toContain('3 files not checked');
   });
 });
+
+describe('checklist entries in the line-by-line formats', () => {
+  const paper = `# Results\n\n${WRONG}\n${WARNED}`;
+  it('lines: a missing document item has no line and column; per-result entries keep theirs', async () => {
+    const dir = tree({ 'paper.md': paper });
+    const lines = (await cli(['paper.md', '--checklist', '-f', 'lines'], { cwd: dir })).stdout.trimEnd().split('\n');
+    expect(lines).toContain(lines.find((l) => l.startsWith('paper.md: note software-is-named ')));
+    for (const l of lines) expect(l).toMatch(/^paper\.md(:\d+:\d+)?: (error|warning|note) [a-z-]+ /);
+  });
+  it('html: checklist entries are summarised in the checklist table, not one card each; no card says "line 1" for the whole document', async () => {
+    const dir = tree({ 'paper.md': paper });
+    const html = (await cli(['paper.md', '--checklist', '-f', 'html'], { cwd: dir })).stdout;
+    const plain = (await cli(['paper.md', '-f', 'html'], { cwd: dir })).stdout;
+    const cards = (s: string) => (s.match(/<details class="card /g) ?? []).length;
+    expect(cards(html)).toBe(cards(plain));
+    expect(html).toMatch(/checklist entr(y|ies), summarised in the checklist below/);
+    expect(html).not.toMatch(/software-is-named <a class="where"[^>]*>line 1,/);
+  });
+  it('human: the summary says how many findings are checklist entries', async () => {
+    const dir = tree({ 'paper.md': paper });
+    expect((await cli(['paper.md', '--checklist'], { cwd: dir })).stdout).toMatch(/\d+ notes \(\d+ of the findings are checklist entries, summarised by item\)/);
+  });
+});

@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { checkSource } from '../../src/engine/index.js';
 import { escapeHtml, formatHtml } from '../../src/report/index.js';
 import { CAUTIONS, type RunReport } from '../../src/report/types.js';
+import { isChecklistFinding } from '../../src/report/checklistSummary.js';
 
 const runOf = (path: string, text = readFileSync(path, 'utf8'), checklist = true): RunReport => ({
   tool: { name: 'plumbline', version: '0.0.0' },
@@ -30,10 +31,13 @@ describe('the HTML report', () => {
     expect(html).not.toMatch(/https?:\/\//);
   });
 
-  it('has one card and one highlight per finding, the summary, the cautions and the failures', () => {
+  it('has one card and one highlight per finding (checklist entries summarised in the checklist table instead), the summary, the cautions and the failures', () => {
     const run = runOf('fixtures/demo/standing-desks.md');
     const html = formatHtml(run);
-    const findings = run.files[0]!.findings.length;
+    const file = run.files[0]!;
+    const findings = file.findings.filter((f) => !isChecklistFinding(file, f)).length;
+    expect(findings).toBeGreaterThan(3);
+    expect(findings).toBeLessThan(file.findings.length);
     expect(html.match(/<details class="card /g)?.length).toBe(findings);
     expect(new Set([...html.matchAll(/data-finding="(\d+)"/g)].map((m) => m[1])).size).toBe(findings);
     for (const c of CAUTIONS) expect(html).toContain(escapeHtml(c));
