@@ -1,5 +1,6 @@
 import yargs from 'yargs';
 import { toolVersion } from '../engine/docs.js';
+import { DEFAULT_BUDGET } from './pool.js';
 import { DEFAULT_MAX_FILE_BYTES } from './read.js';
 
 export const FORMATS = ['human', 'lines', 'json', 'sarif', 'checklist', 'html'] as const;
@@ -22,6 +23,9 @@ export interface CliOptions {
   checklist?: boolean;
   jobs?: number;
   maxFileBytes?: number;
+  /** Per-document budgets (MB of heap, seconds). */
+  memoryBudget?: number;
+  timeBudget?: number;
   output?: string;
   color?: boolean;
   quiet: boolean;
@@ -32,7 +36,7 @@ export interface CliOptions {
 export type ParseOutcome = { kind: 'run'; options: CliOptions } | { kind: 'help' | 'version'; text: string } | { kind: 'error'; message: string };
 
 /** Options that take a value, for "needs a value" and "given twice" messages. */
-const VALUE_OPTIONS = ['format', 'alpha', 'tails', 'max-warnings', 'config', 'stdin-name', 'jobs', 'max-file-bytes', 'output', 'baseline', 'write-baseline'] as const;
+const VALUE_OPTIONS = ['format', 'alpha', 'tails', 'max-warnings', 'config', 'stdin-name', 'jobs', 'max-file-bytes', 'memory-budget', 'time-budget', 'output', 'baseline', 'write-baseline'] as const;
 const SHORT: Record<string, string> = { f: 'format', c: 'config', j: 'jobs', o: 'output', q: 'quiet', h: 'help', v: 'version' };
 
 /** The options, once: yargs is configured from this list and the help text is written from it. */
@@ -48,7 +52,9 @@ const OPTIONS: Array<{ name: string; short?: string; type: 'string' | 'number' |
   { name: 'tails', type: 'string', value: 'one|two', describe: 'tails assumed where the text and its front matter say nothing (default two)' },
   { name: 'config', short: 'c', type: 'string', value: 'FILE', describe: 'use this configuration file instead of searching for one' },
   { name: 'stdin-name', type: 'string', value: 'NAME', describe: 'file name (and so format) for "-" (default stdin.md)' },
-  { name: 'jobs', short: 'j', type: 'number', value: 'N', describe: 'worker threads (default: chosen from the number and size of the files; 1: none)' },
+  { name: 'jobs', short: 'j', type: 'number', value: 'N', describe: 'worker threads (default: chosen from the number and size of the files; a single small document is checked without one)' },
+  { name: 'memory-budget', type: 'number', value: 'MB', describe: `heap a document may use before it is reported as not checked (default ${DEFAULT_BUDGET.memoryMb})` },
+  { name: 'time-budget', type: 'number', value: 'S', describe: `seconds a document may take before it is reported as not checked (default ${DEFAULT_BUDGET.seconds})` },
   { name: 'max-file-bytes', type: 'number', value: 'N', describe: `skip files larger than N bytes (default ${DEFAULT_MAX_FILE_BYTES}, or maxFileBytes in configuration)` },
   { name: 'color', type: 'boolean', describe: 'colour the human format (default: on a terminal, unless NO_COLOR is set); --no-color turns it off' },
   { name: 'help', short: 'h', type: 'boolean', describe: 'show this help' },
@@ -154,7 +160,7 @@ export async function parseArguments(argv: string[], columns: number | undefined
     if (typeof parsed[name] === 'boolean') return { kind: 'error', message: `unknown option --no-${name} (only --color, --checklist and --quiet have a --no- form)` };
   }
   // numbers as written: whole numbers in plain digits (yargs would take "", "0x1" or "1e3")
-  for (const [name, short] of [['max-warnings'], ['jobs', 'j'], ['max-file-bytes']] as const) {
+  for (const [name, short] of [['max-warnings'], ['jobs', 'j'], ['max-file-bytes'], ['memory-budget'], ['time-budget']] as const) {
     if (parsed[name] === undefined) continue;
     const raw = rawValue(words, name, short);
     if (raw !== undefined && !/^\d{1,15}$/.test(raw)) parsed[name] = Number.NaN;
@@ -178,6 +184,12 @@ export async function parseArguments(argv: string[], columns: number | undefined
   const maxFileBytes = num('max-file-bytes');
   if (maxFileBytes !== undefined && !(Number.isInteger(maxFileBytes) && maxFileBytes >= 1))
     return { kind: 'error', message: `--max-file-bytes must be a whole number of bytes, 1 or more; got "${rawValue(words, 'max-file-bytes') ?? ''}"` };
+  const memoryBudget = num('memory-budget');
+  if (memoryBudget !== undefined && !(Number.isInteger(memoryBudget) && memoryBudget >= 64))
+    return { kind: 'error', message: `--memory-budget must be a whole number of megabytes, 64 or more; got "${rawValue(words, 'memory-budget') ?? ''}"` };
+  const timeBudget = num('time-budget');
+  if (timeBudget !== undefined && !(Number.isInteger(timeBudget) && timeBudget >= 1))
+    return { kind: 'error', message: `--time-budget must be a whole number of seconds, 1 or more; got "${rawValue(words, 'time-budget') ?? ''}"` };
   for (const name of ['output', 'baseline', 'write-baseline', 'config', 'stdin-name'] as const) if (str(name) === '') return { kind: 'error', message: `--${name} needs a value` };
 
   const positional = ((parsed.files as string[] | undefined) ?? []).map(String);
@@ -198,6 +210,8 @@ export async function parseArguments(argv: string[], columns: number | undefined
     ...(typeof parsed.checklist === 'boolean' ? { checklist: parsed.checklist } : {}),
     ...(jobs !== undefined ? { jobs } : {}),
     ...(maxFileBytes !== undefined ? { maxFileBytes } : {}),
+    ...(memoryBudget !== undefined ? { memoryBudget } : {}),
+    ...(timeBudget !== undefined ? { timeBudget } : {}),
     ...(str('output') !== undefined ? { output: str('output') as string } : {}),
     ...(typeof parsed.color === 'boolean' ? { color: parsed.color } : {}),
     ...(str('baseline') !== undefined ? { baseline: str('baseline') as string } : {}),

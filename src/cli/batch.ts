@@ -2,7 +2,7 @@ import { resolve } from 'node:path';
 import { createInterface } from 'node:readline';
 import type { CheckOptions } from '../engine/index.js';
 import { readManuscript, type ReadOutcome } from './read.js';
-import { checkAll, type Job } from './pool.js';
+import { checkAll, DEFAULT_BUDGET, type Budget, type Job } from './pool.js';
 import type { Io } from './run.js';
 
 type JobFor = (path: string, source: string | ((maxBytes: number) => ReadOutcome), configPath: string, format?: CheckOptions['format']) => Job;
@@ -20,7 +20,7 @@ interface Line {
  * the stream. A summary goes to standard error. Exit 0 unless a document failed (2) or had an
  * error-level finding (1).
  */
-export async function runBatch(io: Io, jobFor: JobFor, threads: number): Promise<number> {
+export async function runBatch(io: Io, jobFor: JobFor, threads: number, budget: Budget = DEFAULT_BUDGET): Promise<number> {
   const ids: string[] = [];
   let documents = 0;
   let results = 0;
@@ -54,7 +54,7 @@ export async function runBatch(io: Io, jobFor: JobFor, threads: number): Promise
       out = JSON.stringify({ id, error: o.error });
     }
     await io.stdout(`${out}\n`);
-  });
+  }, budget);
   io.stderr(`plumbline batch: ${documents} documents, ${results} results, ${findings} findings, ${failed} not checked\n`);
   if (failed > 0) return 2;
   return errorLevel > 0 ? 1 : 0;

@@ -12,7 +12,7 @@ import { identity, openDestination, openRegularFile, type Destination } from './
 import { checkFiles, configMessage } from './runner.js';
 import { ConfigError, ConfigFinder, readConfigFile, type Config } from '../config/index.js';
 import { DEFAULT_MAX_FILE_BYTES, type ReadOutcome } from './read.js';
-import type { Job } from './pool.js';
+import { DEFAULT_BUDGET, type Budget, type Job } from './pool.js';
 import { availableParallelism } from 'node:os';
 
 export interface Io {
@@ -152,7 +152,8 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
       return EXIT.trouble;
     }
   }
-  const stdin = options.stdin ? { name: options.stdinName, bytes: await readAll(io.stdin) } : undefined;
+  // standard input is read up to the size limit and no further (`- < /dev/zero` must end)
+  const stdin = options.stdin ? { name: options.stdinName, ...(await readAtMost(io.stdin, options.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES)) } : undefined;
   let bar: SingleBar | undefined;
   const run = await checkFiles(options.files, {
     cwd: io.cwd,
@@ -162,6 +163,7 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
     ...(options.config !== undefined ? { configFile: options.config } : {}),
     ...(options.maxFileBytes !== undefined ? { maxFileBytes: options.maxFileBytes } : {}),
     ...(options.jobs !== undefined ? { jobs: options.jobs } : {}),
+    budget: budgetOf(options),
     ...(stdin ? { stdin } : {}),
     writes,
     ...(baseline ? { baseline } : {}),
@@ -286,11 +288,25 @@ async function batch(options: CliOptions, io: Io, writes: string[]): Promise<num
     if (!outcome.ok) return { path, error: outcome.message };
     return { path, source: outcome.text, options: { ...base, config, ...(outcome.notes.length > 0 ? { readNotes: outcome.notes } : {}) } };
   };
-  return runBatch(io, jobFor, options.jobs ?? availableParallelism());
+  return runBatch(io, jobFor, options.jobs ?? availableParallelism(), budgetOf(options));
 }
 
-async function readAll(stream: Readable): Promise<Buffer> {
+function budgetOf(options: CliOptions): Budget {
+  return { memoryMb: options.memoryBudget ?? DEFAULT_BUDGET.memoryMb, seconds: options.timeBudget ?? DEFAULT_BUDGET.seconds };
+}
+
+/** A stream's bytes up to `max`; past it, reading stops and `over` says so. */
+async function readAtMost(stream: Readable, max: number): Promise<{ bytes: Buffer; over?: number }> {
   const chunks: Buffer[] = [];
-  for await (const chunk of stream) chunks.push(typeof chunk === 'string' ? Buffer.from(chunk) : (chunk as Buffer));
-  return Buffer.concat(chunks);
+  let total = 0;
+  for await (const chunk of stream) {
+    const b = typeof chunk === 'string' ? Buffer.from(chunk) : (chunk as Buffer);
+    total += b.length;
+    if (total > max) {
+      stream.destroy();
+      return { bytes: Buffer.alloc(0), over: max };
+    }
+    chunks.push(b);
+  }
+  return { bytes: Buffer.concat(chunks) };
 }

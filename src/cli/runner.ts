@@ -7,7 +7,7 @@ import type { RuleInfo, RunReport } from '../report/index.js';
 import { applyBaseline, type Baseline } from './baseline.js';
 import { expandArguments } from './files.js';
 import { identity } from './output.js';
-import { checkAll, type Job } from './pool.js';
+import { checkAll, DEFAULT_BUDGET, type Budget, type Job } from './pool.js';
 import { DEFAULT_MAX_FILE_BYTES, decodeManuscript, readManuscript, type ReadOutcome } from './read.js';
 
 /** What a file-level run is asked to do (the command line's options, as data). */
@@ -26,8 +26,10 @@ export interface RunnerOptions {
   maxFileBytes?: number;
   /** Worker threads (default: chosen from the number of files and cores). */
   jobs?: number;
-  /** Standard input as a manuscript under this name. */
-  stdin?: { name: string; bytes: Uint8Array };
+  /** What one document may cost (default DEFAULT_BUDGET). */
+  budget?: Budget;
+  /** Standard input as a manuscript under this name; `over` when it was longer than that limit and reading stopped. */
+  stdin?: { name: string; bytes: Uint8Array; over?: number };
   /** Findings held in this baseline are not reported (counted in `hidden.baseline`). */
   baseline?: Baseline;
   /** Report errors only. */
@@ -121,8 +123,10 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
 
   const jobs: Job[] = [];
   if (options.stdin) {
-    const { name, bytes } = options.stdin;
-    const job = jobFor(name, resolve(cwd, name), (max) => decodeManuscript(bytes, max));
+    const { name, bytes, over } = options.stdin;
+    const job = jobFor(name, resolve(cwd, name), (max) =>
+      over !== undefined ? { ok: false, message: `skipped: longer than the limit of ${over} bytes; reading stopped there (--max-file-bytes)` } : decodeManuscript(bytes, max),
+    );
     if (job) jobs.push(job);
   }
   for (const m of expansion.missing) failures.push({ path: m.path, message: m.message });
@@ -138,12 +142,17 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
 
   const reports: FileReport[] = [];
   let done = 0;
-  await checkAll(jobs, options.jobs ?? defaultThreads(jobs), (o, i) => {
+  await checkAll(
+    jobs,
+    options.jobs ?? defaultThreads(jobs),
+    (o, i) => {
     if ('report' in o) reports.push(o.report);
     else failures.push({ path: (jobs[i] as Job).path, message: o.error });
     done += 1;
     options.onProgress?.(done, jobs.length);
-  });
+    },
+    options.budget ?? DEFAULT_BUDGET,
+  );
 
   let shown = reports;
   let stale = 0;
@@ -157,8 +166,8 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
 }
 
 /**
- * Worker threads only when they pay: each costs a module load (measured in `npm run bench`), so
- * few or small files are checked in this thread.
+ * More than one worker thread only when they pay: each costs a module load (measured in `npm run
+ * bench`), so few or small files share one.
  */
 function defaultThreads(jobs: readonly Job[]): number {
   const bytes = jobs.reduce((sum, j) => sum + ('source' in j ? j.source.length : 0), 0);

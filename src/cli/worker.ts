@@ -9,6 +9,9 @@ interface Job {
   options: CheckOptions;
 }
 
+// loaded: the time budget of a document starts only now, not while modules load
+parentPort?.postMessage({ ready: true });
+
 parentPort?.on('message', (job: Job) => {
   try {
     parentPort?.postMessage({ index: job.index, report: checkSource(job.path, job.source, job.options) });

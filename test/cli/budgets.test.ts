@@ -1,0 +1,82 @@
+import { spawn, spawnSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { describe, expect, it } from 'vitest';
+
+/**
+ * One document never sinks the run: each is checked on a worker thread within a memory and a
+ * time budget; a document over either is reported as not checked, with the reason, every other
+ * document is still checked, and the exit status is 2. Standard input is read up to the size
+ * limit and no further. Through the installed command (the worker is the compiled one).
+ * Every manuscript here is invented.
+ */
+const main = resolve(import.meta.dirname, '../../dist/src/cli/main.js');
+const GOOD = 'Recall improved with spacing, t(23) = 2.47, p = .021.\n';
+/** About 5 MB and 120,000 results: checking it needs more than 64 MB and more than a second. */
+const heavy = () => Array.from({ length: 120_000 }, (_, i) => `Item ${i} changed, t(40) = 3.10, p = .20.\n\n`).join('');
+
+function corpus(): string {
+  const dir = mkdtempSync(join(tmpdir(), 'plumbline-budget-'));
+  writeFileSync(join(dir, 'a.md'), GOOD);
+  writeFileSync(join(dir, 'big.md'), heavy());
+  writeFileSync(join(dir, 'c.md'), GOOD);
+  return dir;
+}
+type Report = { files: Array<{ path: string; results: unknown[] }>; failures: Array<{ path: string; message: string }> };
+
+describe('per-document budgets', () => {
+  it.each([
+    ['memory', ['--memory-budget', '64'], 'not checked: needed more than the memory budget of 64 MB (--memory-budget)'],
+    ['time', ['--time-budget', '1'], 'not checked: took longer than the time budget of 1 s (--time-budget)'],
+  ])('a document over its %s budget is reported as not checked; the others are checked; exit 2', (_kind, args, message) => {
+    const dir = corpus();
+    const r = spawnSync(process.execPath, [main, 'a.md', 'big.md', 'c.md', '-f', 'json', ...args], { cwd: dir, encoding: 'utf8', maxBuffer: 1 << 26 });
+    expect(r.status).toBe(2);
+    const report = JSON.parse(r.stdout) as Report;
+    expect(report.files.map((f) => [f.path, f.results.length])).toEqual([
+      ['a.md', 1],
+      ['c.md', 1],
+    ]);
+    expect(report.failures).toEqual([{ path: 'big.md', message }]);
+    expect(r.stderr).toBe(`plumbline: big.md: ${message}\n`);
+    expect(r.stderr).not.toMatch(/\n\s+at /);
+  }, 120_000);
+
+  it('batch mode: the documents after one over budget still come back, one line each, in order', () => {
+    const docs = [{ id: 'a', text: GOOD }, { id: 'big', text: heavy() }, { id: 'c', text: GOOD }].map((d) => JSON.stringify(d)).join('\n');
+    const r = spawnSync(process.execPath, [main, 'batch', '--memory-budget', '64'], { input: docs, encoding: 'utf8', maxBuffer: 1 << 26 });
+    expect(r.status).toBe(2);
+    const lines = r.stdout.trim().split('\n').map((l) => JSON.parse(l) as { id: string; error?: string; results?: unknown[] });
+    expect(lines.map((l) => [l.id, l.error ?? l.results?.length])).toEqual([
+      ['a', 1],
+      ['big', 'not checked: needed more than the memory budget of 64 MB (--memory-budget)'],
+      ['c', 1],
+    ]);
+  }, 120_000);
+
+  it('standard input is read up to the size limit and no further: an endless stream ends the run', async () => {
+    const child = spawn(process.execPath, [main, '-', '--max-file-bytes', '1000000'], { stdio: ['pipe', 'pipe', 'pipe'] });
+    let stderr = '';
+    child.stderr.on('data', (d: Buffer) => (stderr += d.toString()));
+    const zeros = Buffer.alloc(64 * 1024);
+    // an endless writer, like /dev/zero: it stops only when plumbline stops reading
+    const pump = () => {
+      while (child.stdin.writable && child.stdin.write(zeros));
+    };
+    child.stdin.on('drain', pump);
+    child.stdin.on('error', () => {});
+    pump();
+    const code = await new Promise<number | null>((r) => child.on('close', r));
+    expect(code).toBe(2);
+    expect(stderr).toContain('stdin.md: skipped: longer than the limit of 1000000 bytes; reading stopped there (--max-file-bytes)');
+  }, 60_000);
+
+  it('the budgets are validated like every number', () => {
+    const r = spawnSync(process.execPath, [main, 'x.md', '--memory-budget', '8'], { encoding: 'utf8' });
+    expect([r.status, r.stderr]).toEqual([2, 'plumbline: --memory-budget must be a whole number of megabytes, 64 or more; got "8"\nRun "plumbline --help" for usage.\n']);
+    const t = spawnSync(process.execPath, [main, 'x.md', '--time-budget', '0'], { encoding: 'utf8' });
+    expect(t.status).toBe(2);
+    expect(t.stderr).toContain('--time-budget must be a whole number of seconds, 1 or more; got "0"');
+  });
+});
