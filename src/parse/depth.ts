@@ -8,7 +8,8 @@ export const DEPTH_LIMIT = 100;
 
 export function exceedsNesting(source: string, limit = DEPTH_LIMIT): { line: number; offset: number } | undefined {
   let line = 1;
-  let i = 0;
+  // a byte-order mark is not part of the first line's markers (the Markdown parser skips it too)
+  let i = source.charCodeAt(0) === 0xfeff ? 1 : 0;
   const n = source.length;
   while (i < n) {
     const lineStart = i;
