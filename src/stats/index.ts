@@ -1,4 +1,4 @@
-export { twoSidedPFromT, oneSidedPFromT, upperTailT, twoSidedCriticalT, tDensity } from './tDistribution.js';
+export { twoSidedPFromT, oneSidedPFromT, upperTailT, twoSidedCriticalT, tDensity, log10TwoSidedPFromT } from './tDistribution.js';
 export { roundingInterval, scientificRoundingInterval, lastDigitUnit } from './rounding.js';
 export { twoSidedPRange, oneSidedPRange, intervalsMeet, type Interval } from './pRange.js';
 export { checkPAgainstT, meets, sideOfAlpha, distanceBetween, type PInterval, type PConsistency, type PConsistencyInput } from './pConsistency.js';
