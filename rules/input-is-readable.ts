@@ -4,6 +4,7 @@ const messages = {
   'bytes-replaced': 'Part of this file could not be decoded: {detail}. Results in the damaged text may be missed or misread.',
   'read-as-plain-text': 'This file could not be read as Markdown: {detail}.',
   'markup-set-aside': 'Part of this file was read without its Markdown markup: {detail}.',
+  'encoding-guessed': 'The encoding of this file had to be guessed: {detail}. If the guess is wrong, results may be missed or misread.',
 };
 
 /** The file could be read as written: every byte decoded, the Markdown structure within the parser's limits. */
@@ -17,6 +18,9 @@ export const inputIsReadable: Rule = {
   messages,
   check({ document }) {
     return (document.readNotes ?? []).map((n) => {
+      if (n.kind === 'encoding-guessed') {
+        return { messageId: 'encoding-guessed', span: n.span, message: messages['encoding-guessed'].replace('{detail}', n.message), reported: 'byte-order mark', check: 'Save the file as UTF-8 without stray bytes at its start and check it again.' };
+      }
       const messageId = n.kind === 'replaced-bytes' ? 'bytes-replaced' : n.kind === 'dense-markup' ? 'markup-set-aside' : 'read-as-plain-text';
       return {
         messageId,

@@ -2,6 +2,7 @@ import { fill, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/i
 
 const messages = {
   'p-above-one': 'Reported {reported}: a p value cannot exceed 1 (a decimal point may be missing).',
+  'p-negative': 'Reported {reported}: a p value cannot be negative (the sign may belong to t, or be a typesetting slip).',
   'p-below-zero-bound': 'Reported {reported}: no p value lies below 0, so this bound cannot hold (a digit may be missing, e.g. p < .001).',
   'df-not-positive': 'Reported df = {df}: degrees of freedom must be positive.',
   'student-df-fractional':
@@ -26,7 +27,12 @@ export const valuesArePossible: Rule = {
       if (p?.number && p.number.value > 1) {
         out.push({ ...base, messageId: 'p-above-one', span: p.span, message: fill(messages['p-above-one'], { reported: p.printed }), check: 'Check how the p value was copied: "043" is probably ".043".' });
       }
-      if (p?.number && p.number.value === 0 && (p.op === '<' || p.op === '<=')) {
+      // `-0` is printed with a sign too; `1e-400` is 0 only as a double (beyondDouble keeps its size)
+      const negative = p?.number !== undefined && (p.number.value < 0 || Object.is(p.number.value, -0));
+      if (p?.number && negative && (p.op === '=' || p.op === '~')) {
+        out.push({ ...base, messageId: 'p-negative', span: p.span, message: fill(messages['p-negative'], { reported: p.printed }), check: 'Check the p value against the analysis output: a p lies between 0 and 1.' });
+      }
+      if (p?.number && (negative || (p.number.value === 0 && !p.number.beyondDouble)) && (p.op === '<' || p.op === '<=')) {
         out.push({ ...base, messageId: 'p-below-zero-bound', span: p.span, message: fill(messages['p-below-zero-bound'], { reported: p.printed }), check: 'Report the bound the output supports, e.g. p < .001.' });
       }
       if (r.df && r.df.value <= 0) {

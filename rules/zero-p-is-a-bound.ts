@@ -18,6 +18,8 @@ export const zeroPIsABound: Rule = {
     for (const result of document.results) {
       const p = result.report.p;
       if (p?.kind !== 'value' || !p.number || p.number.value !== 0 || p.op !== '=') continue;
+      // `1e-400` is not zero (a double cannot hold it); `-0` is a negative p for values-are-possible
+      if (p.number.beyondDouble || Object.is(p.number.value, -0)) continue;
       const bound = p.number.decimals > 0 ? `p < .${'0'.repeat(p.number.decimals - 1)}1` : 'p < .001';
       out.push({
         messageId: 'p-printed-as-zero',

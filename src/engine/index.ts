@@ -100,7 +100,15 @@ export function checkSource(path: string, source: string, options: CheckOptions 
   findings.sort((a, b) => a.span.start - b.span.start || RULE_IDS.indexOf(a.ruleId) - RULE_IDS.indexOf(b.ruleId));
   addFingerprints(findings, source);
 
-  const num = (n: ReportedNumber): NumberRecord => ({ printed: n.printed, value: n.value, decimals: n.decimals, exponent: n.exponent, ...place(n.span) });
+  // JSON has no Infinity: an overflowed number is written as the largest double, with its log10
+  const num = (n: ReportedNumber): NumberRecord => ({
+    printed: n.printed,
+    value: Number.isFinite(n.value) ? n.value : Math.sign(n.value) * Number.MAX_VALUE,
+    decimals: n.decimals,
+    exponent: n.exponent,
+    ...(n.beyondDouble ? { log10: n.beyondDouble.log10 } : {}),
+    ...place(n.span),
+  });
   const pRecord = (p: ReportedP): NonNullable<ResultRecord['p']> => ({
     kind: p.kind,
     op: p.op,

@@ -12,9 +12,12 @@ export interface Place {
 
 export interface NumberRecord extends Place {
   printed: string;
+  /** As a double; a number beyond a double's range is given as the nearest double (0 or ±1.8e308) with `log10`. */
   value: number;
   decimals: number;
   exponent: number;
+  /** log10 of the magnitude as printed, for a number no double holds (`1e-400`, a 400-digit t). */
+  log10?: number;
 }
 
 /** A number tied to a result, with how it was tied (`basis`) and whether that tie is certain. */

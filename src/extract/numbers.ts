@@ -9,18 +9,54 @@ export function sourceSpan(seg: Segment, a: number, b: number): Span {
 
 /**
  * A decimal number as printed at text[a, b): optional sign, digits with optional thousands
- * separators ("1,200"), optional fraction; decimals counts the fraction's digits.
+ * separators ("1,200"), optional fraction, and an optional `e` exponent written in the text
+ * (`1.5e1`, `3.4e+01`) when none is passed; decimals counts the (mantissa's) fraction digits.
+ * A number beyond a double's range keeps its size as `log10`: `1e-400` has value 0 and a
+ * 400-digit t has value Infinity, and neither is a zero or an infinity as printed.
  */
 export function readNumber(seg: Segment, a: number, b: number, exponent = 0, mantissaEnd = b): ReportedNumber | undefined {
-  const raw = seg.text.slice(a, mantissaEnd);
+  let raw = seg.text.slice(a, mantissaEnd);
+  let power = exponent;
+  if (exponent === 0 && mantissaEnd === b) {
+    const e = SCIENTIFIC_TAIL.exec(raw);
+    if (e) {
+      power = Number(e[1]);
+      raw = raw.slice(0, e.index);
+    }
+  }
   const cleaned = raw.replace(/[\s,]/g, '').replace(/^\+/, '');
   if (!/^-?(?:\d+(?:\.\d*)?|\.\d+)$/.test(cleaned)) return undefined;
   const dot = cleaned.indexOf('.');
   const decimals = dot < 0 ? 0 : cleaned.length - dot - 1;
-  const mantissa = Number(cleaned);
-  const value = exponent === 0 ? mantissa : Number(`${cleaned}e${exponent}`);
-  if (!Number.isFinite(value)) return undefined;
-  return { printed: seg.text.slice(a, b), value, decimals, exponent, span: sourceSpan(seg, a, b) };
+  const value = power === 0 ? Number(cleaned) : Number(`${cleaned}e${power}`);
+  if (Number.isNaN(value)) return undefined;
+  const out: ReportedNumber = { printed: seg.text.slice(a, b), value, decimals, exponent: power, span: sourceSpan(seg, a, b) };
+  const magnitude = beyondDouble(cleaned, power, value);
+  if (magnitude) out.beyondDouble = magnitude;
+  return out;
+}
+
+/** `e1`, `E+01`, `e-13` at the end of a number's text: group 1 is the exponent. */
+const SCIENTIFIC_TAIL = /(?<=[\d.])[eE]([-+]?\d{1,4})$/;
+
+/**
+ * The decimal logarithm of a printed number's magnitude and its mantissa, when the double
+ * `value` lost it (overflow to Infinity, or underflow to 0 or a subnormal of a non-zero
+ * number); undefined for numbers a double holds.
+ */
+function beyondDouble(cleaned: string, power: number, value: number): ReportedNumber['beyondDouble'] {
+  const digits = cleaned.replace(/^-/, '');
+  const firstDigit = digits.search(/[1-9]/);
+  if (firstDigit < 0) return undefined; // zero as printed
+  if (Number.isFinite(value) && Math.abs(value) >= 2.2250738585072014e-308) return undefined;
+  // the significant digits as d.ddd × 10^k, read from the text (no double holds the number)
+  const dot = digits.indexOf('.');
+  const intDigits = dot < 0 ? digits.length : dot;
+  const k = firstDigit < intDigits ? intDigits - firstDigit - 1 : -(firstDigit - intDigits);
+  const significant = digits.replace('.', '').replace(/^0+/, '').slice(0, 17);
+  const lead = Number(`${significant.slice(0, 1)}.${significant.slice(1) || '0'}`);
+  const mantissa = Number(cleaned.replace(/^-/, ''));
+  return { log10: Math.log10(lead) + k + power, ...(Number.isFinite(mantissa) ? { mantissa } : {}) };
 }
 
 /**

@@ -8,9 +8,12 @@ import type { AdjustMethod, Comparison, ReportedNumber, ReportedP, ReportStyle, 
 // Building blocks. Every quantifier is bounded or over a character class disjoint from what
 // follows it, so no pattern can backtrack super-linearly (checked by test/regex-safety).
 const OP = String.raw`(<=|>=|=<|=>|≤|≥|=|<|>)`;
-const T_NUM = String.raw`([-+]? ?(?:\d{1,9}(?:\.\d{1,20})?|\.\d{1,20}))`;
+// t as printed in full: up to 400 integer digits (a longer run is not read at all, see
+// numberFromGroup), a fraction, and an `e` exponent as R and spreadsheets print it (`3.4e+01`)
+const EXP = String.raw`(?:[eE][-+]?\d{1,3}(?![\d.]))?`;
+const T_NUM = String.raw`([-+]? ?(?:\d{1,400}(?:\.\d{1,20})?|\.\d{1,20})${EXP})`;
 // a df printed negative is read, so that values-are-possible can say it cannot be
-const DF_NUM = String.raw`(-?(?:\d{1,3}(?:,\d{3}){1,3}(?:\.\d{1,12})?|\d{1,9}(?:\.\d{1,12})?))`;
+const DF_NUM = String.raw`(-?(?:\d{1,3}(?:,\d{3}){1,3}(?:\.\d{1,12})?|\d{1,9}(?:\.\d{1,12})?)${EXP})`;
 const NOT_AFTER_WORD = String.raw`(?<![\p{L}\p{N}_'’.\-])`;
 
 /** t(28) = 2.10 · ts(22) > 4.72 · t[28] · t_{28} · t_28 · t( 3.187) · t-test (31) = 0.75 · t(df = 31) = 0.75 */
@@ -32,9 +35,10 @@ const DF_AFTER = new RegExp(String.raw`(?<![\p{L}\p{N}.,])\(?${DF_NUM}\)? (?:df|
 
 /**
  * A p's number: a decimal with an optional exponent (`3.2e-6`, `3.2 × 10^-6`), or a bare power
- * of ten (`10^-6`, and `10-6` where a PDF lost the superscript: `p < 10` is never meant).
+ * of ten (`10^-6`, and `10-6` where a PDF lost the superscript: `p < 10` is never meant). A
+ * minus sign is read (`p = -.05`, `p = -0`), so that values-are-possible can say it cannot be.
  */
-const P_NUM = String.raw`(?:10 ?(?:\^ ?|(?=-\d))(?<power>-\d{1,3})|(?<mantissa>\d{1,12}(?:\.\d{1,20})?|\.\d{1,20})(?: ?(?:[eE] ?(?<eExp>[-+]?\d{1,3})|[×xX*·] ?10 ?\^? ?(?<tenExp>[-+]?\d{1,3})))?)`;
+const P_NUM = String.raw`(?<sign>-)?(?:10 ?(?:\^ ?|(?=-\d))(?<power>-\d{1,3})|(?<mantissa>\d{1,12}(?:\.\d{1,20})?|\.\d{1,20})(?: ?(?:[eE] ?(?<eExp>[-+]?\d{1,3})|[×xX*·] ?10 ?\^? ?(?<tenExp>[-+]?\d{1,3})))?)`;
 /** A subscript or label after the p: `p_adj`, `p_{Holm}`, `p(2-t)`, `p (one-tailed)`. */
 const P_LABEL = String.raw`(?:_\{?(?<sub>[\p{L}-]{1,20})\}?| ?\((?<paren>(?:one|two|1|2)[- ]?(?:tailed|sided|t)|adj\.?|corr\.?|adjusted|corrected)\))?`;
 /** p = .045 · P<0.05 · p-value = 0.02 · ps ≤ .0001 · p = < .001 · p (two-tailed) = .03 · p value is (0.04) · p_adj = .04 */
@@ -269,13 +273,14 @@ export function findP(seg: Segment, from: number, to: number): ReportedP | undef
     const numEnd = from + m.index + m[0].length;
     let number: ReportedNumber | undefined;
     if (g.power !== undefined) {
+      if (g.sign !== undefined) continue; // `p = -10^-6` is no reading of a p worth guessing
       // a bare power of ten: the whole `10^-6` is the printed number
       const exponentAt = from + (at.power as [number, number])[0];
       number = readPower(seg, seg.text.lastIndexOf('10', exponentAt), numEnd, Number(g.power));
     } else {
-      const numStart = from + (at.mantissa as [number, number])[0];
+      const numStart = from + ((g.sign !== undefined ? at.sign : at.mantissa) as [number, number])[0];
       const exponent = Number(g.eExp ?? g.tenExp ?? 0);
-      number = readNumber(seg, numStart, numEnd, exponent, numStart + (g.mantissa as string).length);
+      number = readNumber(seg, numStart, numEnd, exponent, from + (at.mantissa as [number, number])[1]);
     }
     if (!number) continue;
     const a = from + m.index;
@@ -375,6 +380,8 @@ function numberFromGroup(seg: Segment, m: RegExpMatchArray, group: number): Repo
   const g = m[group];
   if (g === undefined) return undefined;
   const a = idx(m, group);
+  // a run of digits longer than T_NUM reads is not read in part (it would be another number)
+  if (/\d/.test(seg.text[a + g.length] ?? '')) return undefined;
   return readNumber(seg, a, a + g.length);
 }
 

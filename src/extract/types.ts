@@ -10,6 +10,12 @@ export interface ReportedNumber {
   /** Power of ten for scientific notation (3.2 × 10^-6 → −6); 0 otherwise. */
   exponent: number;
   span: Span;
+  /**
+   * Set only when the printed number lies beyond a double (`p = 1e-400` underflows to 0, a
+   * 400-digit t overflows to Infinity): `log10` is the decimal logarithm of its magnitude as
+   * printed, `mantissa` the printed digits before the exponent (absent when they overflow too).
+   */
+  beyondDouble?: { log10: number; mantissa?: number };
 }
 
 export type Comparison = '=' | '<' | '<=' | '>' | '>=' | '~';

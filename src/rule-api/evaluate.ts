@@ -1,7 +1,7 @@
 import type { LinkedResult } from '../link/types.js';
-import { checkPAgainstT, distanceBetween, sideOfAlpha, type Interval, type PConsistency, type PInterval } from '../stats/index.js';
+import { checkLog10PAgainstT, checkPAgainstT, distanceBetween, sideOfAlpha, type Interval, type PConsistency, type PInterval } from '../stats/index.js';
 import { showInterval } from './format.js';
-import { describeDf, describeT, dfInterval, pInterval, pLastDigit, tInterval } from './intervals.js';
+import { describeDf, describeT, dfInterval, log10Of, pInterval, pLastDigit, pLog10Interval, tInterval } from './intervals.js';
 import type { Gap, Recomputed } from './types.js';
 
 /**
@@ -29,7 +29,16 @@ export interface PEvaluation {
   decisionFlips: boolean;
   recomputed: Recomputed;
   gap: Gap;
+  /**
+   * Set when the reported p lies below 1e-300 (`p = 1e-400`): the comparison was made on the
+   * scale of log10 p, and these are `check`, `reported` and `applicable` on that scale (the
+   * fields above then hold the same intervals as doubles, where such p values underflow to 0).
+   */
+  log10?: { check: PConsistency; reported: PInterval; applicable: Interval };
 }
+
+/** Below this a p is compared as log10 p: a double's precision thins out near its smallest values. */
+const LOG_SCALE_BELOW = -300;
 
 /** Assumption wording for a result's tails, saying where it came from. */
 export function describeTails(result: LinkedResult): string {
@@ -54,13 +63,18 @@ export function evaluateP(result: LinkedResult): PEvaluation | undefined {
   const r = result.report;
   // an adjusted p is not the p of t and df (adjusted-p-follows checks it where it can)
   if (!r.p || !r.df || r.p.adjusted) return undefined;
-  if (r.p.kind === 'value' && r.p.number && (r.p.number.value > 1 || (r.p.number.value <= 0 && (r.p.op === '<' || r.p.op === '<=')))) return undefined;
+  const n = r.p.kind === 'value' ? r.p.number : undefined;
+  // values-are-possible speaks for a p above 1, a negative p (`-0` too) and a bound at or below 0
+  if (n && (n.value > 1 || n.value < 0 || Object.is(n.value, -0) || (n.value === 0 && !n.beyondDouble && (r.p.op === '<' || r.p.op === '<=')))) return undefined;
   const [dfLow, dfHigh] = dfInterval(r.df);
   if (!(dfLow > 0)) return undefined;
   const [tLow, tHigh] = tInterval(r);
+  if (Number.isNaN(tLow) || Number.isNaN(tHigh)) return undefined;
   const alpha = result.alpha.value;
-  const reported = pInterval(r.p, alpha);
-  const check = checkPAgainstT({ tLow, tHigh, dfLow, dfHigh, reported });
+  const logScale = n !== undefined && n.value !== 0 ? log10Of(n) < LOG_SCALE_BELOW : n?.beyondDouble !== undefined;
+  const log10 = logScale ? logComparison(r.p, alpha, { tLow, tHigh, dfLow, dfHigh }) : undefined;
+  const reported = log10 ? toP(log10.reported) : pInterval(r.p, alpha);
+  const check = log10 ? { ...log10.check, twoSided: toPRange(log10.check.twoSided), oneSidedSame: toPRange(log10.check.oneSidedSame), oneSidedOpposite: toPRange(log10.check.oneSidedOpposite) } : checkPAgainstT({ tLow, tHigh, dfLow, dfHigh, reported });
   const explicit = result.sidedness.basis !== 'default';
   let standing: PStanding;
   if (result.sidedness.basis === 'equivalence-test') {
@@ -84,8 +98,9 @@ export function evaluateP(result: LinkedResult): PEvaluation | undefined {
   // (equivalence tests) is taken when it is the nearer one.
   const applicable = useOne ? nearer(check.oneSidedSame, check.oneSidedOpposite, reported) : check.twoSided;
   const applicableName = useOne ? 'one-tailed p' : 'two-tailed p';
-  const reportedSide = sideOfAlpha(reported.low, reported.high, alpha, reported.highOpen);
-  const recomputedSide = sideOfAlpha(applicable.low, applicable.high, alpha);
+  const logApplicable = log10 ? (useOne ? nearer(log10.check.oneSidedSame, log10.check.oneSidedOpposite, log10.reported) : log10.check.twoSided) : undefined;
+  const reportedSide = log10 ? sideOfAlpha(log10.reported.low, log10.reported.high, Math.log10(alpha), log10.reported.highOpen) : sideOfAlpha(reported.low, reported.high, alpha, reported.highOpen);
+  const recomputedSide = logApplicable ? sideOfAlpha(logApplicable.low, logApplicable.high, Math.log10(alpha)) : sideOfAlpha(applicable.low, applicable.high, alpha);
   const decisionFlips = reportedSide !== 'straddles' && recomputedSide !== 'straddles' && reportedSide !== recomputedSide;
   const inputs = [describeT(r), describeDf(r.df)];
   const recomputed: Recomputed = {
@@ -94,15 +109,28 @@ export function evaluateP(result: LinkedResult): PEvaluation | undefined {
     high: applicable.high,
     inputs,
     assumptions: [describeTails(result), `alpha ${alpha} (${result.alpha.basis === 'default' ? 'default' : result.alpha.basis.replace('-', ' ')})`],
+    ...(logApplicable ? { log10: { low: logApplicable.low, high: logApplicable.high } } : {}),
   };
   const absolute = distanceBetween(applicable, reported.low, reported.high);
   const unit = r.p.op === '=' ? pLastDigit(r.p) : undefined;
   const pointDistance = r.p.number ? distanceBetween(applicable, r.p.number.value, r.p.number.value) : absolute;
-  const gap: Gap = unit
+  // a last digit below the double range (`1e-400`) has no unit a double can divide by
+  const gap: Gap = unit && !log10
     ? { absolute: pointDistance, lastDigitUnits: pointDistance / unit, roundingAllowance: unit / 2 }
     : { absolute };
-  return { standing, check, reported, applicable, applicableName, reportedSide, recomputedSide, decisionFlips, recomputed, gap };
+  return {
+    standing, check, reported, applicable, applicableName, reportedSide, recomputedSide, decisionFlips, recomputed, gap,
+    ...(log10 && logApplicable ? { log10: { ...log10, applicable: logApplicable } } : {}),
+  };
 }
+
+function logComparison(p: NonNullable<LinkedResult['report']['p']>, alpha: number, box: { tLow: number; tHigh: number; dfLow: number; dfHigh: number }): { check: PConsistency; reported: PInterval } {
+  const reported = pLog10Interval(p, alpha);
+  return { check: checkLog10PAgainstT({ ...box, reported }), reported };
+}
+
+const toPRange = (i: Interval): Interval => ({ low: 10 ** i.low, high: 10 ** i.high });
+const toP = (i: PInterval): PInterval => ({ ...i, low: 10 ** i.low, high: 10 ** i.high });
 
 function nearer(a: Interval, b: Interval, reported: PInterval): Interval {
   const da = distanceBetween(a, reported.low, reported.high);

@@ -21,6 +21,26 @@ export function showBound(x: number, printedDecimals: number, exponent = 0): str
   return x.toFixed(printedDecimals + 1);
 }
 
+/** A number given as its decimal logarithm, shown as showNumber would show it: −400.2 → "6.31e-401". */
+export function showLog10(x: number): string {
+  if (!Number.isFinite(x)) return x < 0 ? '0' : String(10 ** x);
+  if (x > -300) return showNumber(10 ** x);
+  let power = Math.floor(x);
+  let mantissa = (10 ** (x - power)).toFixed(2);
+  if (mantissa === '10.00') {
+    mantissa = '1.00';
+    power += 1;
+  }
+  return `${mantissa}e${power}`;
+}
+
+/** showInterval for a range given as decimal logarithms. */
+export function showLog10Interval(low: number, high: number): string {
+  const a = showLog10(low);
+  const b = showLog10(high);
+  return a === b ? a : `${a} to ${b}`;
+}
+
 export function showInterval(low: number, high: number): string {
   const a = showNumber(low);
   const b = showNumber(high);

@@ -4,9 +4,53 @@ import { showBound, showNumber } from './format.js';
 
 /** The interval of true values a printed number allows (its rounding interval). */
 export function numberInterval(n: ReportedNumber): [number, number] {
-  const [lo, hi] = roundingInterval(n.exponent === 0 ? n.value : n.value / 10 ** n.exponent, n.decimals);
+  if (!Number.isFinite(n.value)) return [n.value, n.value];
+  const [lo, hi] = roundingInterval(mantissaOf(n), n.decimals);
   const scale = 10 ** n.exponent;
   return [lo * scale, hi * scale];
+}
+
+/** The printed digits before the exponent (`1.5` of `1.5e1`), from the text's own reading when a double lost the number. */
+function mantissaOf(n: ReportedNumber): number {
+  if (n.beyondDouble?.mantissa !== undefined) return Math.sign(n.value) < 0 || Object.is(n.value, -0) ? -n.beyondDouble.mantissa : n.beyondDouble.mantissa;
+  return n.exponent === 0 ? n.value : n.value / 10 ** n.exponent;
+}
+
+/** log10 of a printed number's magnitude, also where a double cannot hold it (`1e-400`). */
+export function log10Of(n: ReportedNumber): number {
+  return n.beyondDouble ? n.beyondDouble.log10 : Math.log10(Math.abs(n.value));
+}
+
+/**
+ * A printed positive number's rounding interval on the scale of log10: `1.5e-400` →
+ * [log10 1.45 − 400, log10 1.55 − 400]. A number whose mantissa no double holds (hundreds of
+ * digits) is a point there: its rounding moves it by less than a double's precision.
+ */
+export function numberLog10Interval(n: ReportedNumber): [number, number] {
+  const m = Math.abs(n.beyondDouble ? (n.beyondDouble.mantissa ?? NaN) : mantissaOf(n));
+  if (!Number.isFinite(m)) return [log10Of(n), log10Of(n)];
+  const [lo, hi] = roundingInterval(m, n.decimals);
+  return [Math.log10(Math.max(0, lo)) + n.exponent, Math.log10(hi) + n.exponent];
+}
+
+/** pInterval on the scale of log10 p (for a p beyond or near the edge of the double range). */
+export function pLog10Interval(p: ReportedP, alpha: number): PInterval {
+  if (p.kind === 'ns' || !p.number) return { low: Math.log10(alpha), high: 0, lowOpen: false, highOpen: false };
+  const v = log10Of(p.number);
+  switch (p.op) {
+    case '<':
+      return { low: -Infinity, high: v, lowOpen: false, highOpen: true };
+    case '<=':
+      return { low: -Infinity, high: v, lowOpen: false, highOpen: false };
+    case '>':
+      return { low: v, high: 0, lowOpen: true, highOpen: false };
+    case '>=':
+      return { low: v, high: 0, lowOpen: false, highOpen: false };
+    default: {
+      const [lo, hi] = numberLog10Interval(p.number);
+      return { low: lo, high: Math.min(0, hi), lowOpen: false, highOpen: false };
+    }
+  }
 }
 
 /** t's interval: rounding for `t = 2.10`, a half-line for bounds (`t > 4.72`, `t < 1`). */
@@ -67,6 +111,8 @@ export function pInterval(p: ReportedP, alpha: number): PInterval {
 export function describeT(report: TTestReport): string {
   const [lo, hi] = tInterval(report);
   if (report.tOp !== '=') return `t ${report.tOp} ${report.t.printed.trim()}`;
+  // a t no double holds: its rounding interval says nothing a reader can use
+  if (report.t.beyondDouble && !Number.isFinite(report.t.value)) return `t = ${report.t.printed.trim()} (about 10^${Math.round(report.t.beyondDouble.log10)})`;
   return `t = ${report.t.printed.trim()} (read as ${showBound(lo, report.t.decimals, report.t.exponent)} to ${showBound(hi, report.t.decimals, report.t.exponent)})`;
 }
 

@@ -17,6 +17,8 @@ export interface Recomputed {
   inputs: string[];
   /** Assumptions made, e.g. ["two-tailed (default)"]. */
   assumptions: string[];
+  /** The same range as decimal logarithms, when it was computed on that scale (a p below 1e-300, which low and high round to 0). */
+  log10?: { low: number; high: number };
 }
 
 export interface Gap {

@@ -1,4 +1,5 @@
 import { twoSidedPRange, type Interval } from './pRange.js';
+import { log10TwoSidedPFromT } from './tDistribution.js';
 
 /** A reported p as an interval of true values, with open or closed ends. */
 export interface PInterval {
@@ -70,4 +71,27 @@ export function distanceBetween(range: Interval, low: number, high: number): num
   if (range.high < low) return low - range.high;
   if (range.low > high) return range.low - high;
   return 0;
+}
+
+/**
+ * checkPAgainstT on the scale of log10 p, for a reported p beyond or near the edge of the
+ * double range (`p = 1e-400`): `reported` and every returned interval are decimal logarithms
+ * of p. The same corners of the t/df box give the extremes (log10 is monotone). The one-tailed
+ * p against t's direction, 1 − p/2, is taken as log10(1 − 10^x / 2) through log1p.
+ */
+export function checkLog10PAgainstT(input: PConsistencyInput): PConsistency {
+  const absLow = input.tLow <= 0 && input.tHigh >= 0 ? 0 : Math.min(Math.abs(input.tLow), Math.abs(input.tHigh));
+  const absHigh = Math.max(Math.abs(input.tLow), Math.abs(input.tHigh));
+  const twoSided = { low: log10TwoSidedPFromT(absHigh, input.dfHigh), high: absLow === 0 ? 0 : log10TwoSidedPFromT(absLow, input.dfLow) };
+  const oneSidedSame = { low: twoSided.low - Math.LOG10E * Math.LN2, high: twoSided.high - Math.LOG10E * Math.LN2 };
+  const oppositeOf = (x: number) => Math.log1p(-(10 ** x) / 2) * Math.LOG10E;
+  const oneSidedOpposite = { low: oppositeOf(twoSided.high), high: oppositeOf(twoSided.low) };
+  return {
+    twoSided,
+    oneSidedSame,
+    oneSidedOpposite,
+    fitsTwoSided: meets(twoSided, input.reported),
+    fitsOneSidedSame: meets(oneSidedSame, input.reported),
+    fitsOneSidedOpposite: meets(oneSidedOpposite, input.reported),
+  };
 }

@@ -6,10 +6,12 @@
  * (1e-12, about 4500 ulps) absorbs the binary representation of decimal strings, so that a
  * value on the printed boundary is never excluded by floating-point noise.
  *
- * Edge behaviour: negative decimals or NaN give [NaN, NaN].
+ * Edge behaviour: negative decimals or NaN give [NaN, NaN]; an infinite value (a printed number
+ * beyond a double) gives [value, value].
  */
 export function roundingInterval(value: number, decimals: number): [number, number] {
   if (Number.isNaN(value) || !(decimals >= 0)) return [NaN, NaN];
+  if (!Number.isFinite(value)) return [value, value];
   const half = 0.5 * 10 ** -decimals;
   const slack = Math.abs(value) * 1e-12 + 1e-300;
   return [value - half - slack, value + half + slack];

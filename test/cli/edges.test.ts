@@ -1,0 +1,85 @@
+/**
+ * Numbers at the edges, through the real CLI (issue 18): scientific notation in t and df, p
+ * values beyond the double range, a t of hundreds of digits, negative p values, and files in
+ * UTF-32 or with a stray UTF-16 mark. Every manuscript is invented. Where a row says a p fits
+ * or not, the value comes from mpmath at 60 digits (fixtures/reference/t-log-tail.json,
+ * scripts/make_t_log_reference.py) unless it says otherwise.
+ */
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { cli } from './harness.js';
+
+interface Finding { ruleId: string; messageId: string; start: { line: number; column: number }; gap?: Record<string, unknown> }
+interface Json { summary: { results: number }; files: Array<{ results: Array<{ t: { value: number; log10?: number }; p?: { number?: { value: number; log10?: number } } }>; findings: Finding[] }> }
+
+async function check(name: string, bytes: string | Buffer): Promise<Json> {
+  const dir = mkdtempSync(join(tmpdir(), 'plumbline-edges-'));
+  writeFileSync(join(dir, name), bytes);
+  const out = await cli([name, '-f', 'json'], { cwd: dir });
+  expect(out.stderr).toBe('');
+  return JSON.parse(out.stdout) as Json;
+}
+const found = (r: Json) => (r.files[0]?.findings ?? []).map((f) => `${f.start.line}:${f.start.column} ${f.ruleId}/${f.messageId}`);
+
+interface Row { name: string; text: string; results: number; expect: string[] }
+
+const NINES = '9'.repeat(400);
+const rows: Row[] = [
+  // 1.5e1 = 15; t(10) = 15 gives p of about 3e-8 (mpmath, from memory of its order; any p < .001 fits)
+  { name: 't in scientific notation is read whole, not cut at the e', text: 'The groups differed, t(10) = 1.5e1, p < .001.\n', results: 1, expect: [] },
+  { name: 'df in scientific notation is read whole', text: 'The groups differed, t(1.2e1) = 6.1, p < .001.\n', results: 1, expect: [] },
+  // t(12) = 34: log10 p = −12.574 (mpmath row "34", "12"), so p = 2.67e-13; 3.35e1 to 3.45e1 give 2.24e-13 to 3.18e-13
+  { name: 'R output with t = 3.4e+01 is found and a fitting p is accepted', text: '```\nt = 3.4e+01, df = 12, p-value = 2.7e-13\n```\n', results: 1, expect: [] },
+  { name: "R output as the issue prints it: 2.1e-13 is outside 2.24e-13 to 3.18e-13, a true finding", text: 'The difference held, t = 3.4e+01, df = 12, p-value = 2.1e-13.\n', results: 1, expect: ['1:22 p-follows-from-t/mismatch'] },
+  // t(8000) = 45.2: log10 p = −396.80 (mpmath), p = 1.57e-397
+  { name: 'p below the double range that fits its t is accepted (compared as log10 p)', text: 'The groups differed, t(8000) = 45.2, p = 1.6e-397.\n', results: 1, expect: [] },
+  // t(1000) = 80: log10 p = −436.18 (mpmath)
+  { name: 'a bound below the double range that holds is accepted, and is no bound at zero', text: 'The groups differed, t(1000) = 80.0, p < 2.2e-400.\n', results: 1, expect: [] },
+  { name: 'p = 1e-400 against a p of 1.6e-397 is a true finding, not a zero p', text: 'The groups differed, t(8000) = 45.2, p = 1e-400.\n', results: 1, expect: ['1:22 p-follows-from-t/mismatch'] },
+  { name: 'a 400-digit t is read as itself (no p a double holds), and p < .001 fits it', text: `The groups differed, t(10) = ${NINES}, p < .001.\n`, results: 1, expect: [] },
+  { name: 'a 400-digit t with p = .03 is a true finding (its p is about 10^-4000)', text: `The groups differed, t(10) = ${NINES}, p = .03.\n`, results: 1, expect: ['1:22 p-follows-from-t/mismatch'] },
+  { name: 'a run of 401 digits is no t at all (never read in part)', text: `The groups differed, t(10) = ${NINES}9, p = .03.\n`, results: 0, expect: [] },
+  { name: 'p = −.05 (Unicode minus) is read and is impossible', text: 'The groups differed, t(10) = 2.50, p = −.05.\n', results: 1, expect: ['1:36 values-are-possible/p-negative'] },
+  { name: 'p = -0 is read and is impossible (not a p printed as zero)', text: 'The groups did not differ, t(10) = 0.50, p = -0.\n', results: 1, expect: ['1:42 values-are-possible/p-negative'] },
+  { name: 'p < -.05 is a bound no p meets', text: 'The groups differed, t(10) = 2.50, p < -.05.\n', results: 1, expect: ['1:36 values-are-possible/p-below-zero-bound'] },
+];
+
+describe('numbers at the edges, through the CLI', () => {
+  for (const row of rows) {
+    it(row.name, async () => {
+      const r = await check('paper.md', row.text);
+      expect(r.summary.results).toBe(row.results);
+      expect(found(r)).toEqual(row.expect);
+      // JSON stays within its schema's types: no null where a number belongs
+      for (const f of r.files[0]?.findings ?? []) for (const v of Object.values(f.gap ?? {})) expect(typeof v).toBe('number');
+    });
+  }
+
+  it('a p beyond the double range keeps its size in the JSON (value 0, log10 −400)', async () => {
+    const r = await check('paper.md', 'The groups differed, t(8000) = 45.2, p = 1e-400.\n');
+    expect(r.files[0]?.results[0]?.p?.number).toMatchObject({ value: 0, log10: -400 });
+  });
+
+  it('a 400-digit t is written as the largest double with its log10 (JSON has no Infinity)', async () => {
+    const r = await check('paper.md', `The groups differed, t(10) = ${NINES}, p < .001.\n`);
+    expect(r.files[0]?.results[0]?.t).toMatchObject({ value: Number.MAX_VALUE, log10: 400 });
+  });
+});
+
+describe('encodings at the edges, through the CLI (byte-order marks of the Unicode Standard, common practice, no source)', () => {
+  // p = .31 with t(10) = 2.50 (two-tailed p about .031, from memory): the decision flips, and that finding shows the text was read
+  const WRONG = 'The groups differed, t(10) = 2.50, p = .31.\n';
+  const encodings: Array<{ name: string; bytes: Buffer; expect: string[] }> = [
+    { name: 'UTF-32 LE with its byte-order mark is decoded', bytes: Buffer.concat([Buffer.from([0xff, 0xfe, 0, 0]), Buffer.from(WRONG, 'utf16le').reduce((acc, _b, i, all) => (i % 2 === 0 ? Buffer.concat([acc, Buffer.from([all[i] as number, all[i + 1] as number, 0, 0])]) : acc), Buffer.alloc(0))]), expect: ['1:22 significance-follows-from-t/mismatch'] },
+    { name: 'UTF-32 BE with its byte-order mark is decoded', bytes: Buffer.concat([Buffer.from([0, 0, 0xfe, 0xff]), ...[...WRONG].map((c) => Buffer.from([0, 0, 0, c.charCodeAt(0)]))]), expect: ['1:22 significance-follows-from-t/mismatch'] },
+    { name: 'UTF-8 after stray bytes FF FE is read as UTF-8, with a note', bytes: Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(WRONG, 'utf8')]), expect: ['1:1 input-is-readable/encoding-guessed', '1:24 significance-follows-from-t/mismatch'] },
+    { name: 'UTF-16 LE with its mark is still UTF-16 (it has NUL bytes)', bytes: Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(WRONG, 'utf16le')]), expect: ['1:22 significance-follows-from-t/mismatch'] },
+  ];
+  for (const e of encodings) {
+    it(e.name, async () => {
+      expect(found(await check('paper.md', e.bytes))).toEqual(e.expect);
+    });
+  }
+});
