@@ -7,7 +7,7 @@ export interface Outcome {
   stdout: string;
   stderr: string;
   /** The longest single write to standard output, in characters (the CLI streams large reports). */
-  largestWrite: number;
+  largestWrite?: number;
 }
 
 export interface RunOptions {
