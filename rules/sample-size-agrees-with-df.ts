@@ -48,7 +48,9 @@ export const sampleSizeAgreesWithDf: Rule = {
     const withTests = new Set(document.results.map((r) => `${r.report.segment}:${r.report.sentence}`));
     const statedElsewhere = new Set(x.sampleSizes.filter((s) => s !== stated && !withTests.has(`${s.segment}:${s.sentence}`)).map((s) => s.n.value));
     if (within.every((i) => i.ns.some((n) => statedElsewhere.has(n)))) return [];
-    const largest = Math.max(...within.flatMap((i) => i.ns.filter((n) => n <= N)));
+    // a loop, not Math.max(...): one entry per test, and a document may report tens of thousands
+    let largest = -Infinity;
+    for (const i of within) for (const n of i.ns) if (n <= N && n > largest) largest = n;
     const shown = [...new Set(within.map((i) => i.ns.join(' or ')))].slice(0, 6).join('; ');
     const first = within[0]?.result.report;
     const out: RuleFinding[] = [{

@@ -2,7 +2,7 @@ import type { Readable } from 'node:stream';
 import { resolve } from 'node:path';
 import { ruleDoc } from '../engine/docs.js';
 import { RULE_IDS, RULES, ruleById, type CheckOptions } from '../engine/index.js';
-import { CAUTIONS, countRun, formatChecklist, formatHtml, formatHuman, formatJson, formatLines, formatRulesJson, formatSarif, type RunReport } from '../report/index.js';
+import { CAUTIONS, countRun, formatChecklist, formatHtml, formatHuman, formatJsonChunks, formatLines, formatRulesJson, formatSarifChunks, type RunReport } from '../report/index.js';
 import { parseArguments, type CliOptions } from './args.js';
 import { Presets, SingleBar } from 'cli-progress';
 import { applyBaseline, baselineText, BaselineError, readBaseline, type Baseline } from './baseline.js';
@@ -230,10 +230,13 @@ async function write(report: RunReport, options: CliOptions, io: Io, toFile: boo
   const counts = countRun(report);
   const shown = counts.error + counts.warning + counts.note;
   switch (options.format) {
+    // JSON and SARIF in chunks: a report of some 200,000 results is longer than any one string
     case 'json':
-      return io.stdout(formatJson(report));
+      for (const chunk of formatJsonChunks(report)) await io.stdout(chunk);
+      return;
     case 'sarif':
-      return io.stdout(formatSarif(report, io.cwd));
+      for (const chunk of formatSarifChunks(report, io.cwd)) await io.stdout(chunk);
+      return;
     case 'checklist':
       return io.stdout(formatChecklist(report));
     case 'html':

@@ -27,7 +27,12 @@ export function parseConfigText(text: string, file: string, knownRuleIds: readon
       else if (/ is not valid JSON$/.test(said)) said = 'not JSON';
       throw new ConfigError(`invalid JSON: ${said}`, file, at?.line, at?.column);
     }
+    // JSON.parse keeps the last of two equal keys without a word; YAML refuses them, and so do we
+    const twice = duplicateJsonKey(text);
+    if (twice) throw new ConfigError(`duplicate key ${quoteKey(twice.key)} (JSON keeps only the last; write it once)`, file, twice.line, twice.column);
   } else {
+    const over = yamlOverLimits(text);
+    if (over !== undefined) throw new ConfigError(`YAML not read: ${over}`, file);
     const doc = parseYamlDocument(text, { schema: 'core', customTags: [], prettyErrors: true });
     const err = doc.errors[0];
     if (err) {
@@ -40,6 +45,72 @@ export function parseConfigText(text: string, file: string, knownRuleIds: readon
   const problems = configProblems(data, knownRuleIds);
   if (problems.length > 0) throw new ConfigError(problems.join('; '), file);
   return data as Config;
+}
+
+/**
+ * The most YAML handed to the yaml library: the same limits as front matter's (YAML_LIMITS in
+ * src/parse/frontMatter.ts, which this layer may not import; a test keeps the two equal). The
+ * library checks each new key of a mapping against every earlier one (n² for n keys: 100,000
+ * keys took minutes); lines plus commas bound the number of keys from above in one pass.
+ */
+export const CONFIG_YAML_LIMITS = { characters: 256 * 1024, keyPlaces: 2000 } as const;
+
+function yamlOverLimits(yaml: string): string | undefined {
+  if (yaml.length > CONFIG_YAML_LIMITS.characters) return `${yaml.length} characters is over the limit of ${CONFIG_YAML_LIMITS.characters}`;
+  let places = 1;
+  for (let i = 0; i < yaml.length; i += 1) {
+    const c = yaml.charCodeAt(i);
+    if (c === 10 || c === 44) places += 1; // LF, comma
+  }
+  if (places > CONFIG_YAML_LIMITS.keyPlaces) return `${places} lines and commas is over the limit of ${CONFIG_YAML_LIMITS.keyPlaces} (very many keys make the YAML reader slow)`;
+  return undefined;
+}
+
+/** A key as a message shows it: JSON-quoted (control characters escaped), cut at 80 characters. */
+function quoteKey(key: string): string {
+  return JSON.stringify(key.length > 80 ? `${key.slice(0, 80)}…` : key);
+}
+
+/**
+ * The first key that appears twice in one object of valid JSON text, with the line and column
+ * of its second appearance; one pass over the text. Keys are compared decoded (`"a"` and
+ * `"\u0061"` are the same key, as JSON.parse sees them).
+ */
+export function duplicateJsonKey(text: string): { key: string; line: number; column: number } | undefined {
+  // one entry per open container: the keys seen so far in an object, null in an array
+  const stack: Array<Set<string> | null> = [];
+  let expectKey = false;
+  let line = 1;
+  let lineStart = 0;
+  for (let i = 0; i < text.length; i += 1) {
+    const c = text[i];
+    if (c === '\n') {
+      line += 1;
+      lineStart = i + 1;
+    } else if (c === '{') {
+      stack.push(new Set());
+      expectKey = true;
+    } else if (c === '[') {
+      stack.push(null);
+      expectKey = false;
+    } else if (c === '}' || c === ']') {
+      stack.pop();
+      expectKey = false;
+    } else if (c === ',') {
+      expectKey = stack[stack.length - 1] instanceof Set;
+    } else if (c === '"') {
+      const start = i;
+      for (i += 1; i < text.length && text[i] !== '"'; i += 1) if (text[i] === '\\') i += 1;
+      const keys = stack[stack.length - 1];
+      if (expectKey && keys instanceof Set) {
+        const key = JSON.parse(text.slice(start, i + 1)) as string;
+        if (keys.has(key)) return { key, line, column: start - lineStart + 1 };
+        keys.add(key);
+        expectKey = false;
+      }
+    }
+  }
+  return undefined;
 }
 
 /** A configuration file larger than this is refused, unread (it may come from a stranger's repository). */

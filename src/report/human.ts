@@ -37,8 +37,13 @@ export function formatHuman(run: RunReport, options: HumanOptions): string {
     if (file.findings.length === 0) continue;
     out.push(paint('bold', terminalSafe(file.path)));
     // the checklist's missing items are said once per item below, not once per result
-    for (const f of file.findings) if (!isChecklistFinding(file, f)) out.push(...findingBlock(file, f, paint, width), '');
-    out.push(...checklistBlock(file, paint, width));
+    // pushed line by line: a spread of an unbounded list into push() can overflow the stack
+    for (const f of file.findings) {
+      if (isChecklistFinding(file, f)) continue;
+      for (const l of findingBlock(file, f, paint, width)) out.push(l);
+      out.push('');
+    }
+    for (const l of checklistBlock(file, paint, width)) out.push(l);
   }
   const c = countRun(run);
   const checklistEntries = run.files.reduce((n, file) => n + file.findings.filter((f) => isChecklistFinding(file, f)).length, 0);

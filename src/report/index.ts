@@ -1,6 +1,6 @@
 export { formatHuman, type HumanOptions } from './human.js';
-export { formatJson, JSON_REPORT_VERSION } from './json.js';
-export { formatSarif, artifactUri } from './sarif.js';
+export { formatJson, formatJsonChunks, JSON_REPORT_VERSION } from './json.js';
+export { formatSarif, formatSarifChunks, artifactUri } from './sarif.js';
 export { CAUTIONS, countRun, type Counts, type RuleInfo, type RunReport } from './types.js';
 export { formatChecklist } from './checklist.js';
 export { formatHtml, escapeHtml } from './html.js';

@@ -1,3 +1,4 @@
+import { jsonChunks } from './jsonChunks.js';
 import { CAUTIONS, countRun, type RunReport } from './types.js';
 
 /** Version of the JSON report's shape (schema/report.schema.json); bumped on any change. */
@@ -8,7 +9,19 @@ export const JSON_REPORT_VERSION = '1.3.0';
  * and every finding as data. Stable key order; the source text itself is not repeated.
  */
 export function formatJson(run: RunReport): string {
-  const body = {
+  return `${JSON.stringify(jsonBody(run), replacer, 2)}\n`;
+}
+
+/**
+ * The same text as formatJson, in chunks of about 64 KiB: the command line writes these, since a
+ * report of some 200,000 results is longer than any one string can be.
+ */
+export function formatJsonChunks(run: RunReport): Iterable<string> {
+  return jsonChunks(jsonBody(run), replacer);
+}
+
+function jsonBody(run: RunReport) {
+  return {
     reportVersion: JSON_REPORT_VERSION,
     tool: run.tool,
     summary: countRun(run),
@@ -16,7 +29,6 @@ export function formatJson(run: RunReport): string {
     failures: run.failures,
     cautions: CAUTIONS,
   };
-  return `${JSON.stringify(body, replacer, 2)}\n`;
 }
 
 /** JSON has no Infinity: an unbounded end (t > 4.72 reaches p = 0) is written as null. */

@@ -2,6 +2,7 @@ import { relative, resolve, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { ArtifactLocation, Log, ReportingDescriptor, Result } from 'sarif';
 import type { Finding } from '../engine/types.js';
+import { jsonChunks } from './jsonChunks.js';
 import { CAUTIONS, countRun, type RunReport } from './types.js';
 
 /**
@@ -15,6 +16,20 @@ export const SARIF_BASE_ID = 'SRCROOT';
 export const FINGERPRINT_NAME = 'plumbline/finding/v1';
 
 export function formatSarif(run: RunReport, cwd: string): string {
+  return `${JSON.stringify(sarifLog(run, cwd), finiteOrNull, 2)}\n`;
+}
+
+/** The same text as formatSarif, in chunks of about 64 KiB, for a log longer than any one string can be. */
+export function formatSarifChunks(run: RunReport, cwd: string): Iterable<string> {
+  return jsonChunks(sarifLog(run, cwd), finiteOrNull);
+}
+
+/** JSON has no Infinity: an unbounded end is written as null. */
+function finiteOrNull(_key: string, v: unknown): unknown {
+  return typeof v === 'number' && !Number.isFinite(v) ? null : v;
+}
+
+function sarifLog(run: RunReport, cwd: string): Log {
   const rules: ReportingDescriptor[] = run.rules.map((r) => ({
     id: r.id,
     shortDescription: { text: r.summary },
@@ -61,7 +76,7 @@ export function formatSarif(run: RunReport, cwd: string): string {
       },
     ],
   };
-  return `${JSON.stringify(log, (_k, v: unknown) => (typeof v === 'number' && !Number.isFinite(v) ? null : v), 2)}\n`;
+  return log;
 }
 
 function result(f: Finding, location: ArtifactLocation, ruleIndex: number | undefined): Result {

@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { statDense } from '../../bench/corpus.js';
+import { cli as inProcess } from './harness.js';
 
 const cli = join(process.cwd(), 'dist/src/cli/main.js');
 const lines = (s: string) => s.split('\n').filter(Boolean);
@@ -25,13 +26,53 @@ describe('batch mode (plumbline batch)', () => {
     const input = [paths[0], '{"id": "inline", "text": "x, t(46) = 0.84, p = .04.\\n"}', '/nope.md', '{"id": 7, "text": 5}', '{broken', paths[1]].join('\n');
     const r = spawnSync(process.execPath, [cli, 'batch'], { input, encoding: 'utf8' });
     const out = lines(r.stdout).map((l) => JSON.parse(l));
-    expect(out.map((o) => o.id)).toEqual([paths[0], 'inline', '/nope.md', '7', 'line 5', paths[1]]);
+    expect(out.map((o) => o.id)).toEqual([paths[0], 'inline', '/nope.md', 7, null, paths[1]]);
     expect(out[1].findings[0].ruleId).toBe('significance-follows-from-t');
     expect(out[2].error).toBe('cannot read: no such file or folder');
     expect(out[3].error).toContain('"text" must be a string');
     expect(out[4].error).toContain('not valid JSON');
-    expect(r.stderr).toContain('plumbline batch: 6 documents');
+    expect(r.stderr).toContain('plumbline batch: 6 lines');
     expect(r.status).toBe(2);
+  });
+
+  // issue 18, batch accounting: every physical input line gives one output line, numbered by its place
+  it('a blank line gets an error line of its own and the line numbers in messages stay physical', async () => {
+    const doc = (id: string) => JSON.stringify({ id, text: 'x, t(46) = 0.84, p = .04.' });
+    const out = await inProcess(['batch', '--jobs', '1'], { stdin: `${doc('a')}\n\n   \n{broken\n${doc('b')}\n` });
+    const rows = lines(out.stdout).map((l) => JSON.parse(l) as Record<string, unknown>);
+    expect(rows).toHaveLength(5);
+    expect(rows.map((r) => r.id)).toEqual(['a', null, null, null, 'b']);
+    // a blank line is shaped exactly as an error line: same keys, so a reader of the stream needs no third case
+    expect(rows[1]).toEqual({ id: null, error: 'line 2 is empty' });
+    expect(rows[2]).toEqual({ id: null, error: 'line 3 is empty' });
+    expect(Object.keys(rows[1] ?? {})).toEqual(Object.keys(rows[3] ?? {}));
+    expect(rows[3]?.error).toContain('line 4 is not valid JSON');
+    expect(out.stderr).toContain('plumbline batch: 5 lines');
+    expect(out.code).toBe(2);
+  });
+
+  it('a lone CR stays inside its line; CRLF ends a line as LF does; a last line without LF counts', async () => {
+    // the CR inside the JSON is whitespace between tokens, so this is one valid document
+    const stdin = `{"id": "cr",\r"text": "x, t(46) = 0.84, p = .04."}\r\n{"id": "last", "text": "no findings here"}`;
+    const out = await inProcess(['batch', '--jobs', '1'], { stdin });
+    const rows = lines(out.stdout).map((l) => JSON.parse(l) as Record<string, unknown>);
+    expect(rows.map((r) => r.id)).toEqual(['cr', 'last']);
+    expect(rows[0]?.findings).toHaveLength(1);
+    // a path line with a lone CR inside is one (missing) path, not two
+    const paths = await inProcess(['batch', '--jobs', '1'], { stdin: Buffer.from('no\rsuch.md\n') });
+    expect(lines(paths.stdout).map((l) => JSON.parse(l) as Record<string, unknown>)).toEqual([{ id: 'no\rsuch.md', error: 'cannot read: no such file or folder' }]);
+  });
+
+  it('ids keep their JSON type: 42 and "42" come back as they went in', async () => {
+    const text = 'x, t(46) = 0.84, p = .04.';
+    const stdin = [{ id: 42, text }, { id: '42', text }, { id: 4.5, text }, { text }, { id: true, text }].map((d) => JSON.stringify(d)).join('\n');
+    const out = await inProcess(['batch', '--jobs', '1'], { stdin });
+    const rows = lines(out.stdout).map((l) => JSON.parse(l) as Record<string, unknown>);
+    expect(rows.map((r) => r.id)).toEqual([42, '42', 4.5, null, null]);
+    expect(lines(out.stdout)[0]).toMatch(/^\{"id":42,/);
+    expect(lines(out.stdout)[1]).toMatch(/^\{"id":"42",/);
+    expect(rows[3]?.findings).toHaveLength(1);
+    expect(rows[4]?.error).toBe('line 5: "id" must be a string or a finite number');
   });
 
   it('gives the same lines with worker threads as without', () => {

@@ -6,6 +6,8 @@ export interface Outcome {
   code: number;
   stdout: string;
   stderr: string;
+  /** The longest single write to standard output, in characters (the CLI streams large reports). */
+  largestWrite?: number;
 }
 
 export interface RunOptions {
@@ -21,9 +23,11 @@ export interface RunOptions {
 export async function cli(args: string[], options: RunOptions = {}): Promise<Outcome> {
   let stdout = '';
   let stderr = '';
+  let largestWrite = 0;
   const code = await run(args, {
     stdout: (s) => {
       stdout += s;
+      largestWrite = Math.max(largestWrite, s.length);
     },
     stderr: (s) => {
       stderr += s;
@@ -35,5 +39,5 @@ export async function cli(args: string[], options: RunOptions = {}): Promise<Out
     stderrIsTTY: options.stderrIsTTY ?? false,
     columns: options.columns ?? 100,
   });
-  return { code, stdout, stderr };
+  return { code, stdout, stderr, largestWrite };
 }

@@ -191,6 +191,36 @@ describe('bad input, each class', () => {
     expect(ids(r.files[0]!)).toEqual(['1:1 front-matter-is-readable/front-matter-unreadable', '4:14 significance-follows-from-t/mismatch']);
   });
 
+  it('front matter of 100,000 keys: not read, said with the limit, the text still checked, fast', async () => {
+    // 100,000 keys took the yaml library minutes; the limits are checked before it sees the text
+    const dir = tempDir();
+    writeFileSync(join(dir, 'a.md'), `---\n${Array.from({ length: 100_000 }, (_, i) => `key${i}: ${i}`).join('\n')}\n---\n${WRONG}`);
+    const start = performance.now();
+    const out = await cli(['a.md', '-f', 'json'], { cwd: dir });
+    expect(performance.now() - start).toBeLessThan(20_000);
+    const r = JSON.parse(out.stdout) as { files: Array<{ findings: Array<{ ruleId: string; message: string; start: { line: number } }> }> };
+    const findings = r.files[0]?.findings ?? [];
+    expect(findings.map((f) => `${f.start.line} ${f.ruleId}`)).toEqual(['1 front-matter-is-readable', '100003 significance-follows-from-t']);
+    expect(findings[0]?.message).toMatch(/not read: \d+ characters is over the limit of 262144/);
+  }, 60_000);
+
+  it('configuration from a stranger: duplicate JSON keys refused with the key and line; a YAML of 25,000 keys refused unread', async () => {
+    const dir = tempDir();
+    writeFileSync(join(dir, 'a.md'), WRONG);
+    writeFileSync(join(dir, '.plumbline.json'), '{\n  "alpha": 0.05,\n  "alpha": 0.5\n}\n');
+    const dup = await cli(['a.md'], { cwd: dir });
+    expect(dup.code).toBe(2);
+    expect(dup.stderr).toMatch(/\.plumbline\.json:3:3: configuration: duplicate key "alpha"/);
+    rmSync(join(dir, '.plumbline.json'));
+    // 25,000 keys in 200 KB, under the size limits: the yaml library alone would take many seconds
+    writeFileSync(join(dir, '.plumbline.yaml'), Array.from({ length: 25_000 }, (_, i) => `k${i}: 1`).join('\n'));
+    const start = performance.now();
+    const many = await cli(['a.md'], { cwd: dir });
+    expect(performance.now() - start).toBeLessThan(10_000);
+    expect(many.code).toBe(2);
+    expect(many.stderr).toContain('.plumbline.yaml: configuration: YAML not read: 25000 lines and commas is over the limit of 2000 (very many keys make the YAML reader slow)');
+  });
+
   it('invalid configuration: JSON syntax error with line and column; schema error naming the key; unknown rule with the nearest id', async () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'a.md'), WRONG);

@@ -1,0 +1,101 @@
+/**
+ * Issue 18: formats crashed on results counts well inside real corpora (the checklist at 20,000
+ * results, HTML at 45,000 through Math.min(...array), JSON at 200,000 through one string longer
+ * than V8 allows). Every format must finish, stay valid and grow linearly with the results.
+ * Sources: the JSON report's own schema (schema/report.schema.json, validated with ajv from npm);
+ * the OASIS SARIF 2.1.0 schema (test/fixtures/standards/sarif-2.1.0-rtm.5.json); the longest
+ * string V8 makes, 2^29 − 24 characters on 64-bit builds (V8's String::kMaxLength, from memory).
+ * Linear time is judged as a ratio (time at 2N over time at N below 3.5; 2 for linear, 4 for
+ * quadratic), never an absolute time: common practice, no source. The manuscripts are invented.
+ */
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { Ajv2020 } from 'ajv/dist/2020.js';
+import AjvDraft04Module from 'ajv-draft-04';
+import { describe, expect, it } from 'vitest';
+import { checkSource } from '../../src/engine/index.js';
+import { formatChecklist, formatHtml, formatHuman, formatJsonChunks, formatLines, formatSarifChunks, type RunReport } from '../../src/report/index.js';
+import { CHUNK } from '../../src/report/jsonChunks.js';
+import { pAxisFor } from '../../src/report/pictures.js';
+import { cli } from './harness.js';
+
+const AjvDraft04 = AjvDraft04Module as unknown as typeof AjvDraft04Module.default;
+
+/** An invented manuscript of n results, each one inconsistent (p = .20 cannot follow t(40) = 3.10). */
+const manuscript = (n: number) => `# Results\n\n${Array.from({ length: n }, (_, k) => `Item ${k + 1} changed, t(40) = 3.10, p = .20.`).join('\n\n')}\n`;
+
+const FORMATS = ['human', 'lines', 'json', 'sarif', 'checklist', 'html'] as const;
+const N = 1000;
+
+describe('every format on a manuscript of many results', () => {
+  const dir = mkdtempSync(join(tmpdir(), 'plumbline-many-'));
+  writeFileSync(join(dir, 'many.md'), manuscript(N));
+  const reportSchema = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
+  const sarifSchema = new AjvDraft04({ allErrors: true, strict: false, validateFormats: false, unicodeRegExp: false }).compile(JSON.parse(readFileSync('test/fixtures/standards/sarif-2.1.0-rtm.5.json', 'utf8')));
+
+  it.each(FORMATS)('%s: completes through the command line, with every result', async (format) => {
+    const out = await cli(['many.md', '--format', format, ...(format === 'checklist' ? [] : ['--checklist'])], { cwd: dir });
+    expect(out.stderr).toBe('');
+    // every result is an error-level inconsistency: exit 1, not a crash (which the harness would throw)
+    expect(out.code).toBe(1);
+    if (format === 'json') {
+      const data = JSON.parse(out.stdout) as { files: Array<{ results: unknown[] }> };
+      expect(reportSchema(data), JSON.stringify(reportSchema.errors?.slice(0, 3))).toBe(true);
+      expect(data.files[0]?.results).toHaveLength(N);
+    }
+    if (format === 'sarif') {
+      const log = JSON.parse(out.stdout) as { runs: Array<{ results: Array<{ ruleId: string }> }> };
+      expect(sarifSchema(log), JSON.stringify(sarifSchema.errors?.slice(0, 3))).toBe(true);
+      expect(log.runs[0]?.results.filter((r) => r.ruleId === 'significance-follows-from-t')).toHaveLength(N);
+    }
+    if (format === 'json' || format === 'sarif') {
+      // written in chunks: no one string grows with the report (the whole is several megabytes)
+      expect(out.stdout.length).toBeGreaterThan(20 * CHUNK);
+      expect(out.largestWrite).toBeLessThanOrEqual(2 * CHUNK);
+    }
+    if (format === 'html') expect(out.stdout.trimEnd().endsWith('</html>')).toBe(true);
+    if (format === 'lines') expect(out.stdout.split('\n').filter((l) => l.includes('significance-follows-from-t'))).toHaveLength(N);
+    // the last result sits on line 2N + 1 (a heading, then a blank line before each result)
+    if (format === 'human') expect(out.stdout.split('significance-follows-from-t').length - 1).toBe(N);
+    if (format === 'checklist') expect(out.stdout).toContain(`line ${2 * N + 1} (error, significance-follows-from-t)`);
+  }, 120_000);
+
+  it('each formatter takes at most 3.5 times as long on twice the results (linear, not quadratic)', () => {
+    const runOf = (n: number): RunReport => ({ tool: { name: 'plumbline', version: '0.0.0-test' }, files: [checkSource('many.md', manuscript(n), { checklist: true })], failures: [], rules: [] });
+    const small = runOf(N);
+    const large = runOf(2 * N);
+    const formatters: Record<(typeof FORMATS)[number], (run: RunReport) => unknown> = {
+      human: (run) => formatHuman(run, { color: false, width: 100, cautions: true }),
+      lines: formatLines,
+      json: (run) => [...formatJsonChunks(run)].length,
+      sarif: (run) => [...formatSarifChunks(run, dir)].length,
+      checklist: formatChecklist,
+      html: formatHtml,
+    };
+    // the least of five runs, N and 2N taken in turn after a warm-up: the noise of a machine
+    // shared with other work (a collection, another process) only ever adds time
+    const ratioOf = (f: (run: RunReport) => unknown) => {
+      f(small);
+      let bestSmall = Infinity;
+      let bestLarge = Infinity;
+      for (let i = 0; i < 5; i += 1) {
+        let start = performance.now();
+        f(small);
+        bestSmall = Math.min(bestSmall, performance.now() - start);
+        start = performance.now();
+        f(large);
+        bestLarge = Math.min(bestLarge, performance.now() - start);
+      }
+      return Number((bestLarge / bestSmall).toFixed(2));
+    };
+    const ratios = Object.fromEntries(Object.entries(formatters).map(([name, f]) => [name, ratioOf(f)]));
+    for (const [name, ratio] of Object.entries(ratios)) expect(ratio, `${name}: ${JSON.stringify(ratios)}`).toBeLessThan(3.5);
+  }, 120_000);
+
+  it("the HTML report's p axis over 200,000 results: no spread of the list into Math.min (it overflowed the stack)", () => {
+    const one = checkSource('one.md', manuscript(1)).results[0]!;
+    const results = Array.from({ length: 200_000 }, () => one);
+    expect(pAxisFor(results)).toEqual(pAxisFor([one]));
+  });
+});
