@@ -107,7 +107,9 @@ export const ADVERSARIAL: Record<string, (bytes: number) => string> = {
  * Further hostile runs, beyond the patterns the hostile-input goal names: markup the density
  * guard does not set aside (HTML tags, entities, escapes, backslashes, autolinks) because it
  * carries meaning, code spans and strike-through (set aside when dense), and a paragraph of
- * one-character lines.
+ * one-character lines; prose patterns the extractor once read in quadratic time; and block
+ * shapes micromark reads in quadratic time (setext headings, block quotes, lazy lines: set aside
+ * past a limit by src/parse/shapes.ts), with front matter left open and many definitions.
  */
 export const FURTHER_HOSTILE: Record<string, (bytes: number) => string> = {
   'code spans': (n) => '`1` '.repeat(n / 4),
@@ -118,10 +120,23 @@ export const FURTHER_HOSTILE: Record<string, (bytes: number) => string> = {
   backslashes: (n) => '\\'.repeat(n),
   autolinks: (n) => 'www.a.b '.repeat(n / 8),
   'short lines': (n) => 'a\n'.repeat(n / 2),
+  // prose patterns the extractor once read in quadratic time (issue 18)
+  'pre-test ': (n) => 'pre-test '.repeat(n / 9),
+  'randomly assigned to ': (n) => 'randomly assigned to '.repeat(n / 21),
+  // block shapes micromark reads in quadratic time (issue 18; src/parse/shapes.ts)
+  'setext headings': (n) => 'Heading\n===\n'.repeat(n / 12),
+  'block quotes': (n) => '> a\n\n'.repeat(n / 5),
+  'lazy quote lines': (n) => `> a\n${'lazy\n'.repeat(n / 5)}`,
+  'lazy list lines': (n) => `- a\n${'lazy\n'.repeat(n / 5)}`,
+  'unclosed front matter': (n) => `---\n${'key: value\n'.repeat(n / 11)}`,
+  'reference definitions': (n) => '[a]: b\n'.repeat(n / 7),
+  'footnote definitions': (n) => '[^a]: b\n'.repeat(n / 8),
 };
 
 export function adversarial(kind: string, bytes = 1_000_000): string {
   const run = ADVERSARIAL[kind] ?? FURTHER_HOSTILE[kind];
   if (!run) throw new Error(`no adversarial input "${kind}"`);
+  // front matter only opens on line 1
+  if (kind === 'unclosed front matter') return `${run(bytes)}\nFatigue fell after the session, t(23) = 2.47, p = .021.\n\nErrors rose, t(40) = 3.10, p = .20.\n`;
   return `Fatigue fell after the session, t(23) = 2.47, p = .021.\n\n${run(bytes)}\n\nErrors rose, t(40) = 3.10, p = .20.\n`;
 }

@@ -9,7 +9,9 @@
  *   5. peak RSS of a 5,000-file streaming batch, and ÷ a 50-file batch          (goal ≤ 300 MB)
  *   6. adversarial 1 MB runs (t(, p = ., ±, digits, emphasis, $, pipes, tables) ÷ ordinary text (goal ≤ 3 each)
  *   7. further hostile 1 MB runs (code spans, strike-through, HTML tags, entities, escapes,
- *      backslashes, autolinks, one-character lines) ÷ ordinary text              (goal ≤ 3 each)
+ *      backslashes, autolinks, one-character lines, "pre-test " and "randomly assigned to "
+ *      repeated, setext headings, block quotes, lazy quote and list lines, unclosed front
+ *      matter, reference and footnote definitions) ÷ ordinary text              (goal ≤ 3 each)
  *
  * Prints a table and writes bench/results.json.
  */

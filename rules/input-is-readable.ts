@@ -21,17 +21,19 @@ export const inputIsReadable: Rule = {
       if (n.kind === 'encoding-guessed') {
         return { messageId: 'encoding-guessed', span: n.span, message: messages['encoding-guessed'].replace('{detail}', n.message), reported: 'byte-order mark', check: 'Save the file as UTF-8 without stray bytes at its start and check it again.' };
       }
-      const messageId = n.kind === 'replaced-bytes' ? 'bytes-replaced' : n.kind === 'dense-markup' ? 'markup-set-aside' : 'read-as-plain-text';
+      const messageId = n.kind === 'replaced-bytes' ? 'bytes-replaced' : n.kind === 'dense-markup' || n.kind === 'slow-shape' ? 'markup-set-aside' : 'read-as-plain-text';
       return {
         messageId,
         span: n.span,
         message: messages[messageId].replace('{detail}', n.message),
-        reported: n.kind === 'replaced-bytes' ? 'undecodable bytes' : n.kind === 'dense-markup' ? 'dense markup' : 'nesting',
+        reported: n.kind === 'replaced-bytes' ? 'undecodable bytes' : n.kind === 'dense-markup' ? 'dense markup' : n.kind === 'slow-shape' ? 'slow block shapes' : 'nesting',
         check:
           n.kind === 'replaced-bytes'
             ? 'Save the file as UTF-8 (or UTF-16 with a byte-order mark) and check it again; text pulled from a PDF may need to be extracted again.'
             : n.kind === 'dense-markup'
               ? 'Look at the blocks named: markup this dense is usually debris from a conversion; remove it and check the file again.'
+              : n.kind === 'slow-shape'
+                ? 'Look at the blocks named: so many of them are usually debris from a conversion; results there were still read, as paragraph text.'
               : 'Flatten the nesting (it is usually debris from a conversion) and check the file again.',
       };
     });

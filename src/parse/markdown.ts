@@ -13,6 +13,7 @@ import { literalNumberOfInlineR } from './rInline.js';
 import { HtmlTableReader, type HtmlTablePart } from './htmlTable.js';
 import { markLegends } from './legends.js';
 import { defuseDenseMarkup } from './depth.js';
+import { LAZY_LIMIT, QUOTE_LIMIT, SETEXT_LIMIT, defuseSlowShapes, type SlowShape } from './shapes.js';
 import { BULK_CHUNK_ROWS, BULK_MIN_ROWS, blankRuns, findBulkRuns, plainCells, type BulkRun } from './bulkTable.js';
 import type { Directive, FrontMatter, ParsedDocument, ReadNote, Segment, SegmentKind, TablePlace } from './types.js';
 
@@ -72,7 +73,8 @@ export function parseMarkdown(path: string, source: string, options: MarkdownOpt
   const body = hadBom ? source.slice(1) : source;
   const shift = hadBom ? 1 : 0;
   const defused = defuseDenseMarkup(body);
-  const text = defused?.text ?? body;
+  const slow = defuseSlowShapes(defused?.text ?? body);
+  const text = slow?.text ?? defused?.text ?? body;
   const opening = frontMatterOpening(text);
   const minRows = options.bulkRows ?? BULK_MIN_ROWS;
   let walker = walk(text, shift, options, minRows, opening && (!opening.closed || opening.blankAfter) ? withoutFrontMatter : processor);
@@ -95,6 +97,7 @@ export function parseMarkdown(path: string, source: string, options: MarkdownOpt
         span: { start: 0, end: 0 },
       }]
     : [];
+  for (const shape of slow?.shapes ?? []) readNotes.push({ kind: 'slow-shape', message: slowShapeMessage(shape), span: { start: 0, end: 0 } });
   return {
     path,
     source,
@@ -105,6 +108,20 @@ export function parseMarkdown(path: string, source: string, options: MarkdownOpt
     hadBom,
     ...(readNotes.length > 0 ? { readNotes } : {}),
   };
+}
+
+function slowShapeMessage(s: SlowShape): string {
+  const n = s.blocks.toLocaleString('en-US');
+  const where = `(the first at line ${s.firstLine})`;
+  const why = 'each costs the Markdown parser time that grows with the length of the document';
+  switch (s.kind) {
+    case 'setext':
+      return `the underlines of ${n} setext heading${s.blocks === 1 ? '' : 's'} after the first ${SETEXT_LIMIT} ${where} were read as paragraph text, since ${why}`;
+    case 'quote':
+      return `${n} block quote${s.blocks === 1 ? '' : 's'} after the first ${QUOTE_LIMIT} ${where} ${s.blocks === 1 ? 'was' : 'were'} read as paragraph text, since ${why}`;
+    case 'lazy':
+      return `${n} block quote${s.blocks === 1 ? '' : 's'} or list item${s.blocks === 1 ? '' : 's'} with more than ${LAZY_LIMIT} lazy continuation lines ${where} ${s.blocks === 1 ? 'was' : 'were'} read as paragraph text, since each such line costs the Markdown parser time that grows with its paragraph`;
+  }
 }
 
 function walk(text: string, shift: number, options: MarkdownOptions, minRows: number, parser: { parse(text: string): unknown }): Walker {

@@ -1,0 +1,119 @@
+import { describe, expect, it } from 'vitest';
+import { checkSource } from '../../src/engine/index.js';
+import { LineIndex, parseDocument } from '../../src/parse/index.js';
+import { LAZY_LIMIT, QUOTE_LIMIT, SETEXT_LIMIT, defuseSlowShapes } from '../../src/parse/shapes.js';
+
+/**
+ * Shapes the Markdown parser reads in time quadratic in their number (issue 18): before the
+ * guard in src/parse/shapes.ts, 2,000 setext headings took seconds and doubling them took
+ * four times as long. Each generator makes a document of `n` such blocks with one reported
+ * t-test (invented) in the middle of the run.
+ */
+const RESULT = 'Recall improved, t(28) = 2.10, p = .045.';
+const shapes: Record<string, (n: number) => string> = {
+  'setext headings (===)': (n) => lines(n, (i) => (i === n >> 1 ? `${RESULT}\n===` : `Heading ${i}\n===`)),
+  'setext headings (---) with blank lines': (n) => lines(n, (i) => (i === n >> 1 ? `${RESULT}\n---\n` : `Heading ${i}\n---\n`)),
+  'setext headings inside a block quote': (n) => lines(n, (i) => (i === n >> 1 ? `> ${RESULT}\n> ===` : `> Heading ${i}\n> ===`)),
+  'separate block quotes': (n) => lines(n, (i) => (i === n >> 1 ? `> ${RESULT}\n` : `> quoted ${i}\n`)),
+  'lazy lines in one block quote': (n) => `> start\n${lines(n, (i) => (i === n >> 1 ? RESULT : `lazy line ${i}`))}`,
+  'lazy lines in one list item': (n) => `- start\n${lines(n, (i) => (i === n >> 1 ? RESULT : `lazy line ${i}`))}`,
+};
+
+function lines(n: number, line: (i: number) => string): string {
+  return Array.from({ length: n }, (_, i) => line(i)).join('\n');
+}
+
+function seconds(f: () => void): number {
+  const t0 = performance.now();
+  f();
+  return (performance.now() - t0) / 1000;
+}
+
+describe('block shapes the Markdown parser reads in quadratic time are read as paragraph text', () => {
+  for (const [name, make] of Object.entries(shapes)) {
+    it(`${name}: linear in their number, the result inside found at its exact place, with a note`, () => {
+      const n = 2000;
+      checkSource('warm.md', make(200));
+      // best of two, to keep a busy machine's pauses out of the ratio
+      const at = (k: number) => {
+        const source = make(k);
+        return Math.min(seconds(() => checkSource('x.md', source)), seconds(() => checkSource('x.md', source)));
+      };
+      const small = at(n);
+      const large = at(2 * n);
+      // quadratic growth gives about 4; linear about 2
+      expect(large / small, `${name}: ${small.toFixed(2)} s at ${n}, ${large.toFixed(2)} s at ${2 * n}`).toBeLessThan(3);
+
+      const source = make(n);
+      const report = checkSource('x.md', source);
+      expect(report.results).toHaveLength(1);
+      const res = report.results[0]!;
+      expect(source.slice(res.span.start, res.span.end)).toBe('t(28) = 2.10, p = .045');
+      const at0 = source.indexOf(RESULT) + 'Recall improved, '.length;
+      expect(res.span.start).toBe(at0);
+      expect(new LineIndex(source).position(res.span.start).line).toBe(source.slice(0, at0).split('\n').length);
+      const notes = parseDocument('x.md', source).readNotes ?? [];
+      expect(notes.map((note) => note.kind)).toEqual(['slow-shape']);
+      expect(notes[0]?.message).toMatch(/read as paragraph text, since .*costs the Markdown parser time/);
+      expect(report.findings.some((f) => f.ruleId === 'input-is-readable')).toBe(true);
+    }, 120_000);
+  }
+
+  it('names what was read as text and where the first of it is', () => {
+    const source = lines(SETEXT_LIMIT + 3, (i) => `Heading ${i}\n===`);
+    const [note] = parseDocument('x.md', source).readNotes ?? [];
+    expect(note?.message).toBe(
+      `the underlines of 3 setext headings after the first ${SETEXT_LIMIT} (the first at line ${2 * SETEXT_LIMIT + 2}) were read as paragraph text, since each costs the Markdown parser time that grows with the length of the document`,
+    );
+    // the first headings are still headings; the set-aside ones are not
+    const doc = parseDocument('x.md', source);
+    expect(doc.segments.filter((s) => s.kind === 'heading')).toHaveLength(SETEXT_LIMIT);
+  });
+
+  it('keeps every offset: only marks are replaced, by U+200B, one for one', () => {
+    const source = `${lines(QUOTE_LIMIT + 2, (i) => `> q ${i}\n`)}\n\n- item\n${lines(LAZY_LIMIT + 1, (i) => `lazy ${i}`)}`;
+    const out = defuseSlowShapes(source);
+    expect(out?.text.length).toBe(source.length);
+    for (let i = 0; i < source.length; i++) {
+      if (out?.text[i] !== source[i]) expect(`${i}:${out?.text[i]}`).toBe(`${i}:\u200b`);
+    }
+    expect(out?.shapes.map((s) => [s.kind, s.blocks])).toEqual([['quote', 2], ['lazy', 1]]);
+  });
+
+  it('ordinary documents with a few setext headings, quotes, lists, definitions and front matter parse as before, with no note', () => {
+    const source = [
+      '---',
+      'title: Desk study',
+      '---',
+      '',
+      'Results',
+      '=======',
+      '',
+      '> A quoted remark',
+      'with a lazy line.',
+      '',
+      '- an item',
+      'lazy in the item',
+      '',
+      'Recall improved, t(28) = 2.10, p = .045.[^1] See [the method][m].',
+      '',
+      'Discussion',
+      '----------',
+      '',
+      '[m]: https://example.org/method',
+      '[^1]: A note.',
+      '',
+    ].join('\n');
+    expect(defuseSlowShapes(source)).toBeUndefined();
+    const doc = parseDocument('x.md', source);
+    expect(doc.readNotes).toBeUndefined();
+    expect(doc.frontMatter?.data).toEqual({ title: 'Desk study' });
+    expect(doc.segments.filter((s) => s.kind === 'heading').map((s) => s.text)).toEqual(['Results', 'Discussion']);
+    expect(doc.segments.map((s) => s.text)).toEqual(expect.arrayContaining(['A quoted remark with a lazy line.', 'an item lazy in the item']));
+  });
+
+  it('does not count lines inside fenced code (R console output with `>` prompts)', () => {
+    const console = lines(QUOTE_LIMIT * 2, (i) => `> x${i} <- ${i}\n[1] ${i}\n`);
+    expect(defuseSlowShapes(`\`\`\`\n${console}\n\`\`\`\n`)).toBeUndefined();
+  });
+});
