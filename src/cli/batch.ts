@@ -2,7 +2,7 @@ import { resolve } from 'node:path';
 import { StringDecoder } from 'node:string_decoder';
 import type { Readable } from 'node:stream';
 import type { CheckOptions } from '../engine/index.js';
-import { readManuscript, type ReadOutcome } from './read.js';
+import { DEFAULT_MAX_FILE_BYTES, readManuscript, type ReadOutcome } from './read.js';
 import { checkAll, DEFAULT_BUDGET, type Budget, type Job } from './pool.js';
 import type { Io } from './run.js';
 
@@ -28,7 +28,7 @@ interface Line {
  * the stream. A summary goes to standard error. Exit 0 unless a
  * line could not be checked (2: a blank line too) or a document had an error-level finding (1).
  */
-export async function runBatch(io: Io, jobFor: JobFor, threads: number, budget: Budget = DEFAULT_BUDGET): Promise<number> {
+export async function runBatch(io: Io, jobFor: JobFor, threads: number, budget: Budget = DEFAULT_BUDGET, maxBytes = DEFAULT_MAX_FILE_BYTES): Promise<number> {
   const ids: Line['id'][] = [];
   let documents = 0;
   let results = 0;
@@ -37,8 +37,14 @@ export async function runBatch(io: Io, jobFor: JobFor, threads: number, budget: 
   let failed = 0;
   async function* lines(): AsyncGenerator<Job> {
     let n = 0;
-    for await (const raw of physicalLines(io.stdin)) {
+    // a line may hold a document as JSON, where escapes can double its length
+    for await (const raw of physicalLines(io.stdin, 2 * maxBytes + 1024)) {
       n += 1;
+      if (typeof raw !== 'string') {
+        ids.push(null);
+        yield { path: `line ${n}`, error: `line ${n}: skipped: longer than ${raw.over} characters; reading of it stopped there (the size limit, --max-file-bytes, is ${maxBytes} bytes)` };
+        continue;
+      }
       const line = parseLine(raw.trim(), n, io.cwd, jobFor);
       ids.push(line.id);
       yield line.job;
@@ -96,14 +102,27 @@ function parseLine(text: string, n: number, cwd: string, jobFor: JobFor): Line {
  * a last line without LF kept, nothing after a final LF. (readline also ends a line at a lone
  * CR, which split one input line into two documents and shifted every line number after it.)
  */
-async function* physicalLines(input: Readable): AsyncGenerator<string> {
+async function* physicalLines(input: Readable, maxChars: number): AsyncGenerator<string | { over: number }> {
   const decoder = new StringDecoder('utf8');
   let pieces: string[] = [];
-  const finish = (piece: string): string => {
-    pieces.push(piece);
-    const whole = pieces.join('');
+  let held = 0;
+  // a line past maxChars is not kept: its rest is skipped up to its LF, and it yields { over }
+  let over = false;
+  const keep = (piece: string) => {
+    if (over) return;
+    held += piece.length;
+    if (held > maxChars) {
+      over = true;
+      pieces = [];
+    } else pieces.push(piece);
+  };
+  const finish = (piece: string): string | { over: number } => {
+    keep(piece);
+    const whole = over ? { over: maxChars } : pieces.join('');
     pieces = [];
-    return whole.endsWith('\r') ? whole.slice(0, -1) : whole;
+    held = 0;
+    over = false;
+    return typeof whole === 'string' && whole.endsWith('\r') ? whole.slice(0, -1) : whole;
   };
   for await (const chunk of input) {
     const text = typeof chunk === 'string' ? chunk : decoder.write(chunk as Buffer);
@@ -112,9 +131,9 @@ async function* physicalLines(input: Readable): AsyncGenerator<string> {
       yield finish(text.slice(from, at));
       from = at + 1;
     }
-    if (from < text.length) pieces.push(text.slice(from));
+    if (from < text.length) keep(text.slice(from));
   }
   const rest = decoder.end();
-  if (rest !== '') pieces.push(rest);
-  if (pieces.length > 0) yield finish('');
+  if (rest !== '') keep(rest);
+  if (pieces.length > 0 || over) yield finish('');
 }

@@ -285,13 +285,19 @@ async function batch(options: CliOptions, io: Io, writes: string[]): Promise<num
       }
       return { path, error: message };
     }
-    if (typeof source === 'string') return { path, source, options: { ...base, config, ...(format ? { format } : {}) } };
+    if (typeof source === 'string') {
+      // a document given inline has the same size limit as a file
+      const max = options.maxFileBytes ?? config.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES;
+      const size = Buffer.byteLength(source, 'utf8');
+      if (size > max) return { path, error: `skipped: ${size} bytes is over the limit of ${max} (maxFileBytes in the configuration, or --max-file-bytes)` };
+      return { path, source, options: { ...base, config, ...(format ? { format } : {}) } };
+    }
     if (writes.includes(identity(path, io.cwd))) return { path, error: 'not checked: this is the output file (--output), which plumbline never reads as input' };
     const outcome = source(options.maxFileBytes ?? config.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES);
     if (!outcome.ok) return { path, error: outcome.message };
     return { path, source: outcome.text, options: { ...base, config, ...(outcome.notes.length > 0 ? { readNotes: outcome.notes } : {}) } };
   };
-  return runBatch(io, jobFor, options.jobs ?? availableParallelism(), budgetOf(options));
+  return runBatch(io, jobFor, options.jobs ?? availableParallelism(), budgetOf(options), options.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES);
 }
 
 function budgetOf(options: CliOptions): Budget {

@@ -80,3 +80,20 @@ describe('per-document budgets', () => {
     expect(t.stderr).toContain('--time-budget must be a whole number of seconds, 1 or more; got "0"');
   });
 });
+
+describe('batch documents have the size limit of files, applied while reading', () => {
+  it('an over-long line is skipped as it is read, said on its own output line; the lines after it are checked', () => {
+    const long = JSON.stringify({ id: 'long', text: `${'Scores rose. '.repeat(20_000)}t(40) = 3.10, p = .20.` });
+    const inline = JSON.stringify({ id: 'inline', text: 'x'.repeat(150_000) });
+    const input = [JSON.stringify({ id: 'a', text: GOOD }), long, inline, JSON.stringify({ id: 'c', text: GOOD })].join('\n');
+    const r = spawnSync(process.execPath, [main, 'batch', '--max-file-bytes', '100000'], { input, encoding: 'utf8' });
+    expect(r.status).toBe(2);
+    const lines = r.stdout.trim().split('\n').map((l) => JSON.parse(l) as { id: string | null; error?: string; results?: unknown[] });
+    expect(lines.map((l) => [l.id, l.error ?? l.results?.length])).toEqual([
+      ['a', 1],
+      [null, 'line 2: skipped: longer than 201024 characters; reading of it stopped there (the size limit, --max-file-bytes, is 100000 bytes)'],
+      ['inline', 'skipped: 150000 bytes is over the limit of 100000 (maxFileBytes in the configuration, or --max-file-bytes)'],
+      ['c', 1],
+    ]);
+  }, 60_000);
+});
