@@ -4,6 +4,7 @@ const messages = {
   'bytes-replaced': 'Part of this file could not be decoded: {detail}. Results in the damaged text may be missed or misread.',
   'read-as-plain-text': 'This file could not be read as Markdown: {detail}.',
   'markup-set-aside': 'Part of this file was read without its Markdown markup: {detail}.',
+  'invisible-removed': 'Invisible characters were removed from this file\'s text: {detail}.',
 };
 
 /** The file could be read as written: every byte decoded, the Markdown structure within the parser's limits. */
@@ -17,16 +18,18 @@ export const inputIsReadable: Rule = {
   messages,
   check({ document }) {
     return (document.readNotes ?? []).map((n) => {
-      const messageId = n.kind === 'replaced-bytes' ? 'bytes-replaced' : n.kind === 'dense-markup' ? 'markup-set-aside' : 'read-as-plain-text';
+      const messageId = n.kind === 'replaced-bytes' ? 'bytes-replaced' : n.kind === 'dense-markup' ? 'markup-set-aside' : n.kind === 'invisible-characters' ? 'invisible-removed' : 'read-as-plain-text';
       return {
         messageId,
         span: n.span,
         message: messages[messageId].replace('{detail}', n.message),
-        reported: n.kind === 'replaced-bytes' ? 'undecodable bytes' : n.kind === 'dense-markup' ? 'dense markup' : 'nesting',
+        reported: n.kind === 'replaced-bytes' ? 'undecodable bytes' : n.kind === 'dense-markup' ? 'dense markup' : n.kind === 'invisible-characters' ? 'invisible characters' : 'nesting',
         check:
           n.kind === 'replaced-bytes'
             ? 'Save the file as UTF-8 (or UTF-16 with a byte-order mark) and check it again; text pulled from a PDF may need to be extracted again.'
-            : n.kind === 'dense-markup'
+            : n.kind === 'invisible-characters'
+              ? 'Look at the place named: direction marks, byte-order marks, variation selectors or combining marks inside a statistic are usually debris from copying or conversion, and can also hide a number; remove them and check the file again.'
+              : n.kind === 'dense-markup'
               ? 'Look at the blocks named: markup this dense is usually debris from a conversion; remove it and check the file again.'
               : 'Flatten the nesting (it is usually debris from a conversion) and check the file again.',
       };
