@@ -38,11 +38,11 @@ const SUPERSCRIPT: Record<string, string> = {
 export const INVISIBLE = /[\u200E\u200F\u061C\u202A-\u202E\u2066-\u2069\uFEFF\uFE00-\uFE0F]|\uDB40[\uDD00-\uDDEF]/g;
 
 /**
- * Combining marks where they cannot be part of a word's spelling: after a digit, punctuation
- * or a space, or on a lone Latin letter (`t̲(28)`, `ṕ =`). A mark on a letter inside a word
- * (a decomposed "é") stays.
+ * Combining marks where they cannot be part of a letter's spelling: after a digit, punctuation or
+ * a space (`2.1\u03010`). A mark on a letter stays, even a lone one: x̄ is a mean and p̂ an
+ * estimate, not x and p.
  */
-export const LOOSE_MARKS = /(?:(?<=[\x20-\x40\x5B-\x60\x7B-\x7E])|(?<=(?<![\p{L}\p{M}])[A-Za-z]))[\u0300-\u036F\u1AB0-\u1AFF\u1DC0-\u1DFF\u20D0-\u20FF\uFE20-\uFE2F]{1,16}(?![\p{L}])/gu;
+export const LOOSE_MARKS = /(?<=[\x20-\x40\x5B-\x60\x7B-\x7E])[\u0300-\u036F\u1AB0-\u1AFF\u1DC0-\u1DFF\u20D0-\u20FF\uFE20-\uFE2F]{1,16}/g;
 
 /**
  * Spelling variants folded before extraction, in order. Each keeps the source map: a
