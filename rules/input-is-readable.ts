@@ -5,6 +5,7 @@ const messages = {
   'read-as-plain-text': 'This file could not be read as Markdown: {detail}.',
   'markup-set-aside': 'Part of this file was read without its Markdown markup: {detail}.',
   'encoding-guessed': 'The encoding of this file had to be guessed: {detail}. If the guess is wrong, results may be missed or misread.',
+  'invisible-removed': 'Invisible characters were removed from this file\'s text: {detail}.',
 };
 
 /** The file could be read as written: every byte decoded, the Markdown structure within the parser's limits. */
@@ -21,16 +22,18 @@ export const inputIsReadable: Rule = {
       if (n.kind === 'encoding-guessed') {
         return { messageId: 'encoding-guessed', span: n.span, message: messages['encoding-guessed'].replace('{detail}', n.message), reported: 'byte-order mark', check: 'Save the file as UTF-8 without stray bytes at its start and check it again.' };
       }
-      const messageId = n.kind === 'replaced-bytes' ? 'bytes-replaced' : n.kind === 'dense-markup' || n.kind === 'slow-shape' ? 'markup-set-aside' : 'read-as-plain-text';
+      const messageId = n.kind === 'replaced-bytes' ? 'bytes-replaced' : n.kind === 'dense-markup' || n.kind === 'slow-shape' ? 'markup-set-aside' : n.kind === 'invisible-characters' ? 'invisible-removed' : 'read-as-plain-text';
       return {
         messageId,
         span: n.span,
         message: messages[messageId].replace('{detail}', n.message),
-        reported: n.kind === 'replaced-bytes' ? 'undecodable bytes' : n.kind === 'dense-markup' ? 'dense markup' : n.kind === 'slow-shape' ? 'slow block shapes' : 'nesting',
+        reported: n.kind === 'replaced-bytes' ? 'undecodable bytes' : n.kind === 'dense-markup' ? 'dense markup' : n.kind === 'slow-shape' ? 'slow block shapes' : n.kind === 'invisible-characters' ? 'invisible characters' : 'nesting',
         check:
           n.kind === 'replaced-bytes'
             ? 'Save the file as UTF-8 (or UTF-16 with a byte-order mark) and check it again; text pulled from a PDF may need to be extracted again.'
-            : n.kind === 'dense-markup'
+            : n.kind === 'invisible-characters'
+              ? 'Look at the place named: direction marks, byte-order marks, variation selectors or combining marks inside a statistic are usually debris from copying or conversion, and can also hide a number; remove them and check the file again.'
+              : n.kind === 'dense-markup'
               ? 'Look at the blocks named: markup this dense is usually debris from a conversion; remove it and check the file again.'
               : n.kind === 'slow-shape'
                 ? 'Look at the blocks named: so many of them are usually debris from a conversion; results there were still read, as paragraph text.'

@@ -31,6 +31,8 @@ export interface CliOptions {
   quiet: boolean;
   baseline?: string;
   writeBaseline?: string;
+  /** Folder walks follow symbolic links that lead outside the folder named (--follow-links-outside). */
+  followLinksOutside?: boolean;
 }
 
 export type ParseOutcome = { kind: 'run'; options: CliOptions } | { kind: 'help' | 'version'; text: string } | { kind: 'error'; message: string };
@@ -56,6 +58,7 @@ const OPTIONS: Array<{ name: string; short?: string; type: 'string' | 'number' |
   { name: 'memory-budget', type: 'number', value: 'MB', describe: `heap a document may use before it is reported as not checked (default ${DEFAULT_BUDGET.memoryMb})` },
   { name: 'time-budget', type: 'number', value: 'S', describe: `seconds a document may take before it is reported as not checked (default ${DEFAULT_BUDGET.seconds})` },
   { name: 'max-file-bytes', type: 'number', value: 'N', describe: `skip files larger than N bytes (default ${DEFAULT_MAX_FILE_BYTES}, or maxFileBytes in configuration)` },
+  { name: 'follow-links-outside', type: 'boolean', describe: 'when walking a folder or a glob, follow symbolic links that lead outside it (default: skip them and say so; a link named on the command line is always read)' },
   { name: 'color', type: 'boolean', describe: 'colour the human format (default: on a terminal, unless NO_COLOR is set); --no-color turns it off' },
   { name: 'help', short: 'h', type: 'boolean', describe: 'show this help' },
   { name: 'version', short: 'v', type: 'boolean', describe: 'show the version' },
@@ -214,6 +217,7 @@ export async function parseArguments(argv: string[], columns: number | undefined
     ...(timeBudget !== undefined ? { timeBudget } : {}),
     ...(str('output') !== undefined ? { output: str('output') as string } : {}),
     ...(typeof parsed.color === 'boolean' ? { color: parsed.color } : {}),
+    ...(parsed['follow-links-outside'] === true ? { followLinksOutside: true } : {}),
     ...(str('baseline') !== undefined ? { baseline: str('baseline') as string } : {}),
     ...(str('write-baseline') !== undefined ? { writeBaseline: str('write-baseline') as string } : {}),
   };

@@ -18,6 +18,11 @@ export interface Expansion {
   named: string[];
   /** Arguments that matched nothing, with why. */
   missing: Array<{ path: string; message: string }>;
+  /**
+   * Symbolic links met while walking a folder or expanding a glob that lead outside it, not
+   * followed (see `ExpandOptions.followLinksOutside`), as paths like the files'.
+   */
+  skippedLinks: string[];
 }
 
 /** Ignore patterns (.gitignore syntax) and the folder they are relative to. */
@@ -31,6 +36,12 @@ export interface ExpandOptions {
   ignoresFor?: (folder: string) => IgnoreSource[];
   /** Read .gitignore files in the folders walked and above them up to the repository's root (default true). */
   gitignore?: boolean;
+  /**
+   * Follow symbolic links that lead outside the folder walked (or a glob's fixed part). Off by
+   * default: a stranger's repository could link to / or to a secret, which would be read and
+   * quoted in the report. A link named as an argument is always read.
+   */
+  followLinksOutside?: boolean;
 }
 
 const isManuscript = (name: string) => MANUSCRIPT_EXTENSIONS.some((e) => name.toLowerCase().endsWith(e));
@@ -43,13 +54,17 @@ const MAX_GITIGNORE_BYTES = 1024 * 1024;
  * folder walked recursively for manuscript extensions (skipping SKIPPED_FOLDERS, dot-folders,
  * what .gitignore files and the configuration's `ignore` patterns exclude, and following
  * symbolic links once: a link loop is visited only once); a glob expanded, less what is
- * ignored. Relative arguments are taken from `cwd` and reported as given.
+ * ignored. Relative arguments are taken from `cwd` and reported as given. Symbolic links that
+ * lead outside the folder walked (or the glob's fixed part) are skipped and listed, unless
+ * `followLinksOutside`; a glob follows no link to a folder then.
  */
 export function expandArguments(args: string[], cwd = process.cwd(), options: ExpandOptions = {}): Expansion {
   const at = (p: string) => resolve(cwd, p);
   const files: string[] = [];
   const named: string[] = [];
   const missing: Expansion['missing'] = [];
+  const skippedLinks: string[] = [];
+  const outside = options.followLinksOutside === true;
   const seen = new Set<string>();
   const ignored = new IgnoreRules(options);
   const add = (f: string) => {
@@ -64,7 +79,13 @@ export function expandArguments(args: string[], cwd = process.cwd(), options: Ex
       stat = statSync(at(arg));
     } catch (e) {
       if (GLOB_CHARS.test(arg)) {
-        const all = globSync(arg, { cwd, onlyFiles: true, dot: false, absolute: isAbsolute(arg), ignore: SKIPPED_FOLDERS.map((f) => `**/${f}/**`) }).sort();
+        const found = globSync(arg, { cwd, onlyFiles: true, dot: false, absolute: isAbsolute(arg), followSymbolicLinks: outside, ignore: SKIPPED_FOLDERS.map((f) => `**/${f}/**`) }).sort();
+        const within = outside ? undefined : realOrUndefined(at(globBase(arg)));
+        const all = found.filter((f) => {
+          if (within === undefined || isInside(realOrUndefined(at(f)), within)) return true;
+          skippedLinks.push(f);
+          return false;
+        });
         const matched = all.filter((f) => !ignored.test(at(f), false, cwd));
         if (matched.length === 0) missing.push({ path: arg, message: all.length === 0 ? 'no file matches this pattern' : 'every file this pattern matches is ignored (.gitignore or the configuration\'s "ignore")' });
         matched.forEach(add);
@@ -73,13 +94,16 @@ export function expandArguments(args: string[], cwd = process.cwd(), options: Ex
       }
       continue;
     }
-    if (stat.isDirectory()) walk(arg, new Set(), add, at, ignored, at(arg));
+    if (stat.isDirectory()) {
+      const top = at(arg);
+      walk(arg, new Set(), add, at, ignored, top, outside ? undefined : { root: realOrUndefined(top) ?? top, skipped: skippedLinks });
+    }
     else {
       named.push(arg);
       add(arg);
     }
   }
-  return { files, named, missing };
+  return { files, named, missing, skippedLinks };
 }
 
 /** The ignore patterns in force: configuration `ignore` lists and .gitignore files, each read once. */
@@ -178,7 +202,41 @@ function readSmallRegularFile(path: string, maxBytes: number): string | undefine
   }
 }
 
-function walk(dir: string, visited: Set<string>, add: (f: string) => void, at: (p: string) => string, ignored: IgnoreRules, top: string): void {
+/** The real path, or undefined when it cannot be resolved. */
+function realOrUndefined(path: string): string | undefined {
+  try {
+    return realpathSync(path);
+  } catch {
+    return undefined;
+  }
+}
+
+/** Whether a real path is `root` or lies under it. */
+function isInside(real: string | undefined, root: string): boolean {
+  if (real === undefined) return false;
+  const rel = relative(root, real);
+  return rel === '' || (!rel.startsWith('..') && !isAbsolute(rel));
+}
+
+/** The folder a glob starts from: its path up to the first part with a glob character. */
+function globBase(pattern: string): string {
+  const parts = pattern.split(/[\\/]/);
+  const fixed: string[] = [];
+  for (const p of parts.slice(0, -1)) {
+    if (GLOB_CHARS.test(p)) break;
+    fixed.push(p);
+  }
+  const base = fixed.join('/');
+  return base === '' ? (pattern.startsWith('/') ? '/' : '.') : base;
+}
+
+/** Where a walk may go: links whose real path leaves `root` are listed in `skipped`, not followed. */
+interface Bounds {
+  root: string;
+  skipped: string[];
+}
+
+function walk(dir: string, visited: Set<string>, add: (f: string) => void, at: (p: string) => string, ignored: IgnoreRules, top: string, bounds: Bounds | undefined): void {
   let real: string;
   try {
     real = realpathSync(at(dir));
@@ -200,6 +258,11 @@ function walk(dir: string, visited: Set<string>, add: (f: string) => void, at: (
     let isDir = e.isDirectory();
     let isFile = e.isFile();
     if (e.isSymbolicLink()) {
+      if (bounds && !isInside(realOrUndefined(at(path)), bounds.root)) {
+        // a dangling link leads nowhere and is passed over quietly, as before
+        if (realOrUndefined(at(path)) !== undefined) bounds.skipped.push(path);
+        continue;
+      }
       try {
         const s = statSync(at(path));
         isDir = s.isDirectory();
@@ -209,7 +272,7 @@ function walk(dir: string, visited: Set<string>, add: (f: string) => void, at: (
       }
     }
     if (isDir) {
-      if (!ignored.test(at(path), true, top)) walk(path, visited, add, at, ignored, top);
+      if (!ignored.test(at(path), true, top)) walk(path, visited, add, at, ignored, top, bounds);
     } else if (isFile && isManuscript(e.name) && !ignored.test(at(path), false, top)) add(path);
   }
 }

@@ -2,7 +2,7 @@ import type { Readable } from 'node:stream';
 import { resolve } from 'node:path';
 import { ruleDoc } from '../engine/docs.js';
 import { RULE_IDS, RULES, ruleById, type CheckOptions } from '../engine/index.js';
-import { CAUTIONS, countRun, formatChecklist, formatHtml, formatHuman, formatJsonChunks, formatLines, formatRulesJson, formatSarifChunks, type RunReport } from '../report/index.js';
+import { CAUTIONS, countRun, say, terminalSafe, formatChecklist, formatHtml, formatHuman, formatJsonChunks, formatLines, formatRulesJson, formatSarifChunks, type RunReport } from '../report/index.js';
 import { parseArguments, type CliOptions } from './args.js';
 import { Presets, SingleBar } from 'cli-progress';
 import { applyBaseline, baselineText, BaselineError, readBaseline, type Baseline } from './baseline.js';
@@ -35,7 +35,9 @@ const PROGRESS_FROM = 50;
 export const EXIT = { clean: 0, findings: 1, trouble: 2 } as const;
 
 /** The command line, as a function of its arguments and I/O so tests can call it in-process. */
-export async function run(argv: string[], io: Io): Promise<number> {
+export async function run(argv: string[], rawIo: Io): Promise<number> {
+  // every diagnostic reaches standard error terminal-safe, whatever path or message it quotes
+  const io: Io = { ...rawIo, stderr: (s) => rawIo.stderr(terminalSafe(s)) };
   const parsed = await parseArguments(argv, io.columns);
   if (parsed.kind === 'error') {
     io.stderr(`plumbline: ${parsed.message}\nRun "plumbline --help" for usage.\n`);
@@ -88,7 +90,7 @@ export async function run(argv: string[], io: Io): Promise<number> {
   }
   if ('stream' in destination) {
     // standard output or error by name: the run writes there as it would without -o
-    const stream = destination.stream === 'stdout' ? io.stdout : io.stderr;
+    const stream = destination.stream === 'stdout' ? io.stdout : rawIo.stderr;
     return settled(await check(options, { ...io, stdout: stream, isTTY: destination.stream === 'stdout' ? io.isTTY : false }, writes));
   }
   const sink = destination.sink;
@@ -164,6 +166,7 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
     ...(options.maxFileBytes !== undefined ? { maxFileBytes: options.maxFileBytes } : {}),
     ...(options.jobs !== undefined ? { jobs: options.jobs } : {}),
     budget: budgetOf(options),
+    ...(options.followLinksOutside ? { followLinksOutside: true } : {}),
     ...(stdin ? { stdin } : {}),
     writes,
     ...(baseline ? { baseline } : {}),
@@ -216,8 +219,9 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
     io.stderr(`plumbline: ${n} baseline entr${n === 1 ? 'y matches' : 'ies match'} no finding any more (fixed, or its text edited); --write-baseline ${options.baseline} records the current findings\n`);
   }
 
+  for (const link of run.skippedLinks) io.stderr(say`plumbline: ${link}: not followed: this symbolic link leads outside the folder walked (--follow-links-outside follows it)\n`);
   // diagnostics go to standard error in every format; reports carry them as data too
-  for (const f of report.failures) io.stderr(`plumbline: ${f.path}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}: ${f.message}\n`);
+  for (const f of report.failures) io.stderr(say`plumbline: ${f.path}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}: ${f.message}\n`);
   await write(report, options, io, toFile);
 
   const counts = countRun(report);

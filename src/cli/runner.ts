@@ -36,6 +36,8 @@ export interface RunnerOptions {
   errorsOnly?: boolean;
   /** Read .gitignore files when walking folders (default true). */
   gitignore?: boolean;
+  /** Follow symbolic links that lead outside a folder walked (default: skip them, listed in `skippedLinks`). */
+  followLinksOutside?: boolean;
   /**
    * Files this run writes (the CLI's --output and --write-baseline, as real paths). When one is
    * also an input — named, met in a folder or matched by a glob — nothing is checked and the run
@@ -56,6 +58,8 @@ export interface FileRun {
   staleBaselineEntries: number;
   /** An input is a file this run writes: nothing was checked. */
   outputClash?: string;
+  /** Symbolic links met in folder walks and globs that lead outside them, not followed. */
+  skippedLinks: string[];
 }
 
 /**
@@ -81,12 +85,14 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
   const expansion = expandArguments([...args], cwd, {
     ignoresFor: (folder) => (options.configFile !== undefined ? explicitIgnores : finder.forFolder(folder).ignores),
     ...(options.gitignore === false ? { gitignore: false } : {}),
+    ...(options.followLinksOutside ? { followLinksOutside: true } : {}),
   });
+  const skippedLinks = expansion.skippedLinks;
   const rules = RULES.map((r): RuleInfo => {
     const helpUri = options.withRulePages ? rulePageUrl(r.id) : undefined;
     return { id: r.id, summary: r.summary, kind: r.kind, defaultLevel: r.defaultLevel, doc: options.withRulePages ? ruleDoc(r.id) : '', ...(helpUri ? { helpUri } : {}) };
   });
-  const empty = (): FileRun => ({ report: { tool: { name: 'plumbline', version: toolVersion() }, files: [], failures, rules }, unfiltered: [], staleBaselineEntries: 0 });
+  const empty = (): FileRun => ({ report: { tool: { name: 'plumbline', version: toolVersion() }, files: [], failures, rules }, unfiltered: [], staleBaselineEntries: 0, skippedLinks });
   const writes = new Set(options.writes ?? []);
   if (writes.size > 0) {
     const clash = expansion.files.find((f) => writes.has(identity(f, cwd)));
@@ -162,7 +168,7 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
     stale = applied.unmatched;
   }
   if (options.errorsOnly) shown = shown.map((r) => ({ ...r, findings: r.findings.filter((f) => f.level === 'error') }));
-  return { report: { tool: { name: 'plumbline', version: toolVersion() }, files: shown, failures, rules }, unfiltered: reports, staleBaselineEntries: stale };
+  return { report: { tool: { name: 'plumbline', version: toolVersion() }, files: shown, failures, rules }, unfiltered: reports, staleBaselineEntries: stale, skippedLinks };
 }
 
 /**

@@ -1,6 +1,7 @@
 import { parseMarkdown } from './markdown.js';
 import { parsePlainText } from './plainText.js';
 import { exceedsNesting, DEPTH_LIMIT } from './depth.js';
+import { INVISIBLE, LOOSE_MARKS } from './normalize.js';
 import type { ParsedDocument, ReadNote } from './types.js';
 
 export { decodeBytes, type Decoded } from './decode.js';
@@ -19,6 +20,10 @@ export function formatForPath(path: string): 'markdown' | 'rmarkdown' | 'text' {
 
 /** Source text of a document into segments, by the format its path implies (or `format`). */
 export function parseDocument(path: string, source: string, format = formatForPath(path)): ParsedDocument {
+  return withInvisibleNote(parseAs(path, source, format));
+}
+
+function parseAs(path: string, source: string, format: ReturnType<typeof formatForPath>): ParsedDocument {
   if (format === 'text') return parsePlainText(path, source);
   const deep = exceedsNesting(source);
   if (deep) {
@@ -45,4 +50,43 @@ export function parseDocument(path: string, source: string, format = formatForPa
 function asPlainText(path: string, source: string, note: ReadNote): ParsedDocument {
   const doc = parsePlainText(path, source);
   return { ...doc, format: 'markdown', readNotes: [...(doc.readNotes ?? []), note] };
+}
+
+/**
+ * The normaliser drops invisible characters and loose combining marks from the text it reads
+ * (normalize.ts): say so once, at the first one inside the text read, with how many there were.
+ * Matches and segments are both walked in source order, so this is linear.
+ */
+function withInvisibleNote(doc: ParsedDocument): ParsedDocument {
+  const source = doc.source;
+  if (!/[\u200E\u200F\u061C\u202A-\u202E\u2066-\u2069\uFEFF\uFE00-\uFE0F\uDB40\u0300-\u036F\u1AB0-\u1AFF\u1DC0-\u1DFF\u20D0-\u20FF\uFE20-\uFE2F]/.test(source)) return doc;
+  const ranges = doc.segments
+    .filter((s) => s.starts.length > 0)
+    .map((s) => [s.starts[0] as number, s.ends[s.ends.length - 1] as number] as const)
+    .sort((a, b) => a[0] - b[0]);
+  const found: Array<{ start: number; end: number; code: number }> = [];
+  for (const pattern of [INVISIBLE, LOOSE_MARKS]) {
+    // the normaliser's own expressions (global; it resets lastIndex before each use too)
+    const re = pattern;
+    re.lastIndex = 0;
+    let k = 0;
+    let reach = -1; // the furthest end among ranges starting at or before the match
+    for (let m = re.exec(source); m; m = re.exec(source)) {
+      while (k < ranges.length && (ranges[k] as readonly [number, number])[0] <= m.index) reach = Math.max(reach, (ranges[k++] as readonly [number, number])[1]);
+      if (m.index < reach) found.push({ start: m.index, end: m.index + m[0].length, code: m[0].codePointAt(0) as number });
+    }
+  }
+  if (found.length === 0) return doc;
+  found.sort((a, b) => a.start - b.start);
+  const first = found[0] as { start: number; end: number; code: number };
+  let line = 1;
+  for (let i = source.indexOf('\n'); i >= 0 && i < first.start; i = source.indexOf('\n', i + 1)) line += 1;
+  const codes = [...new Set(found.map((f) => `U+${f.code.toString(16).toUpperCase().padStart(4, '0')}`))];
+  const named = codes.slice(0, 4).join(', ') + (codes.length > 4 ? ', …' : '');
+  const note: ReadNote = {
+    kind: 'invisible-characters',
+    message: `${found.length} invisible character${found.length === 1 ? '' : 's'} (${named}; the first at line ${line}) ${found.length === 1 ? 'was' : 'were'} removed before the text was read, so that a statistic they sit in is read as it is shown`,
+    span: { start: first.start, end: first.end },
+  };
+  return { ...doc, readNotes: [...(doc.readNotes ?? []), note] };
 }

@@ -30,12 +30,29 @@ const SUPERSCRIPT: Record<string, string> = {
 };
 
 /**
+ * Invisible characters that can sit inside a statistic and hide it or split its number:
+ * direction marks (U+200E, U+200F, Arabic letter mark U+061C), bidi embeddings, overrides and
+ * isolates (U+202A–202E, U+2066–2069), a byte-order mark inside the text (U+FEFF) and variation
+ * selectors (U+FE00–FE0F, and U+E0100–E01EF as surrogate pairs). They carry no text of their own.
+ */
+export const INVISIBLE = /[\u200E\u200F\u061C\u202A-\u202E\u2066-\u2069\uFEFF\uFE00-\uFE0F]|\uDB40[\uDD00-\uDDEF]/g;
+
+/**
+ * Combining marks where they cannot be part of a letter's spelling: after a digit, punctuation or
+ * a space (`2.1\u03010`). A mark on a letter stays, even a lone one: x̄ is a mean and p̂ an
+ * estimate, not x and p.
+ */
+export const LOOSE_MARKS = /(?<=[\x20-\x40\x5B-\x60\x7B-\x7E])[\u0300-\u036F\u1AB0-\u1AFF\u1DC0-\u1DFF\u20D0-\u20FF\uFE20-\uFE2F]{1,16}/g;
+
+/**
  * Spelling variants folded before extraction, in order. Each keeps the source map: a
  * replacement character maps to the whole source run it replaces, a kept character to
  * its own source character. Every pattern is linear (no nested quantifiers).
  */
 const REWRITES: Rewrite[] = [
   { pattern: /[\u200B-\u200D\u2060\u00AD]/g, replace: () => [] },
+  { pattern: INVISIBLE, replace: () => [] },
+  { pattern: LOOSE_MARKS, replace: () => [] },
   { pattern: /[\u00A0\u2000-\u200A\u202F\u205F\u3000\t]/g, replace: whole(' ') },
   { pattern: /\r\n?|\n/g, replace: whole(' ') },
   { pattern: /\\(?:textit|emph|textbf|textsl|mathit|mathrm|mathbf|mathnormal|textrm|text|mbox)\{([^{}\n]{0,80})\}/dg, replace: keepGroup1 },
@@ -80,7 +97,7 @@ const REWRITES: Rewrite[] = [
 ];
 
 /** Quick test: characters that any rewrite above starts with. */
-const MAY_REWRITE = /[\r\n\u200B-\u200D\u2060\u00AD\u00A0\u2000-\u200A\u202F\u205F\u3000\t\\&{^⁰¹²³⁴⁵⁶⁷⁸⁹⁻⁺\u2212\u2012\uFE63\uFF0D\u2013\u2014\u00B7\u2219\uFF1C-\uFF1E\u2266\u2267\u2A7D\u2A7E\u060C\uFF0C\uFF08\uFF09\uFF1A\uFF1B]/;
+const MAY_REWRITE = /[\u200E\u200F\u061C\u202A-\u202E\u2066-\u2069\uFEFF\uFE00-\uFE0F\uDB40\u0300-\u036F\u1AB0-\u1AFF\u1DC0-\u1DFF\u20D0-\u20FF\uFE20-\uFE2F\r\n\u200B-\u200D\u2060\u00AD\u00A0\u2000-\u200A\u202F\u205F\u3000\t\\&{^⁰¹²³⁴⁵⁶⁷⁸⁹⁻⁺\u2212\u2012\uFE63\uFF0D\u2013\u2014\u00B7\u2219\uFF1C-\uFF1E\u2266\u2267\u2A7D\u2A7E\u060C\uFF0C\uFF08\uFF09\uFF1A\uFF1B]/;
 
 /** Apply every rewrite to `input`, returning a new mapped text. */
 export function normalize(input: MappedText): MappedText {

@@ -31,6 +31,12 @@ const MARKS = new RegExp(
   'm',
 );
 
+/**
+ * Invisible characters and loose combining marks, which the normaliser drops, can sit inside any
+ * of the marks above (t\u200F(28)): a text holding one is parsed. A leading BOM is not one.
+ */
+const INVISIBLE = /[\u200E\u200F\u061C\u202A-\u202E\u2066-\u2069\uFE00-\uFE0F\u0300-\u036F\u1AB0-\u1AFF\u1DC0-\u1DFF\u20D0-\u20FF\uFE20-\uFE2F]|\uDB40[\uDD00-\uDDEF]|(?<=[\s\S])\uFEFF/;
+
 export function mayHoldStatistics(source: string): boolean {
-  return MARKS.test(source);
+  return MARKS.test(source) || INVISIBLE.test(source);
 }

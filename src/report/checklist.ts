@@ -1,14 +1,29 @@
 import type { FileReport, Finding } from '../engine/types.js';
 import { GUIDELINE_NAMES, guidelineRefs, missingWhere, resultHeading, summariseChecklist, type ItemSummary } from './checklistSummary.js';
 import { CAUTIONS, type RunReport } from './types.js';
+import { terminalLine } from './text.js';
 
 const CONSISTENCY_RULES = new Set(['sample-size-agrees-with-df', 'group-sizes-sum-to-total', 'repeated-result-agrees']);
 const STATUS = { found: 'found', missing: '**missing**', 'not-applicable': 'not applicable' } as const;
 
-/** Markdown text safe inside a table cell or list item: no pipes, no line breaks, no raw HTML. */
+/**
+ * Quoted text (manuscript words, file names, messages) as inert Markdown inside a table cell or
+ * list item: terminal-safe on one line, no pipes, no raw HTML, and nothing that renders as an
+ * image, a link, an autolink or emphasis, so a review system that renders the pasted report
+ * fetches nothing and links nowhere. Brackets, `!`, emphasis marks and `&` are escaped, and `<`
+ * wherever it could open a tag or an autolink. GFM finds literal autolinks (`http://`, `www.`,
+ * `name@host`) in the text after escapes are resolved, so those are defanged in what is shown,
+ * as `http[:]//`, `www[.]` and `name[@]host`.
+ */
 function cell(s: string): string {
-  // '<' stays readable ("p < .001") and is escaped only where it could open an HTML tag
-  return s.replace(/\\/g, '\\\\').replace(/\|/g, '\\|').replace(/<(?=[A-Za-z!/?])/g, '&lt;').replace(/[\r\n]+/g, ' ').replace(/`/g, "'");
+  return terminalLine(s)
+    .replace(/[\\|[\]!*_~&#]/g, '\\$&')
+    // '<' stays readable ("p < .001") and is escaped only where it could open a tag or autolink
+    .replace(/<(?=[A-Za-z!/?])/g, '&lt;')
+    .replace(/(?<=[A-Za-z]):(?=\/\/)/g, '\\[:\\]')
+    .replace(/(?<=[Ww][Ww][Ww])\./g, '\\[.\\]')
+    .replace(/@/g, '\\[@\\]')
+    .replace(/`/g, "'");
 }
 
 

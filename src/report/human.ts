@@ -1,6 +1,6 @@
 import type { FileReport, Finding } from '../engine/types.js';
 import { CAUTIONS, countRun, type RunReport } from './types.js';
-import { terminalSafe } from './text.js';
+import { terminalLine, terminalSafe } from './text.js';
 import { checklistFindingLines, isChecklistFinding, missingText } from './checklistSummary.js';
 
 export interface HumanOptions {
@@ -35,7 +35,7 @@ export function formatHuman(run: RunReport, options: HumanOptions): string {
   const out: string[] = [];
   for (const file of run.files) {
     if (file.findings.length === 0) continue;
-    out.push(paint('bold', terminalSafe(file.path)));
+    out.push(paint('bold', terminalLine(file.path)));
     // the checklist's missing items are said once per item below, not once per result
     // pushed line by line: a spread of an unbounded list into push() can overflow the stack
     for (const f of file.findings) {
@@ -56,7 +56,7 @@ export function formatHuman(run: RunReport, options: HumanOptions): string {
     paint(c.note ? 'note' : 'dim', plural(c.note, 'note')) + (checklistEntries > 0 ? ` (${checklistEntries} of the findings are checklist entries, summarised by item)` : ''),
   ];
   if (options.listFailures)
-    for (const f of run.failures) out.push(`${paint('error', 'not checked')} ${terminalSafe(f.path)}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}: ${terminalSafe(f.message)}`);
+    for (const f of run.failures) out.push(`${paint('error', 'not checked')} ${terminalLine(f.path)}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}: ${terminalLine(f.message)}`);
   if (c.failures) summary.push(paint('error', `${plural(c.failures, 'file')} not checked${options.listFailures ? '' : ' (named on standard error)'}`));
   const hidden = [c.hiddenByQuiet > 0 ? `${c.hiddenByQuiet} by quiet comments` : '', c.hiddenByBaseline > 0 ? `${c.hiddenByBaseline} by the baseline` : ''].filter(Boolean);
   if (hidden.length > 0) summary.push(paint('dim', `${plural(c.hiddenByQuiet + c.hiddenByBaseline, 'finding')} hidden (${hidden.join(', ')})`));
@@ -71,7 +71,7 @@ function findingBlock(file: FileReport, f: Finding, paint: (s: keyof typeof STYL
   lines.push(...excerpt(file.source, f, paint));
   for (const l of wrap(terminalSafe(f.message), width - 4)) lines.push(`    ${l}`);
   for (const l of wrap(`what to check: ${terminalSafe(f.check)}`, width - 4)) lines.push(`    ${paint('dim', l)}`);
-  for (const r of f.related ?? []) lines.push(`    ${paint('dim', `see ${r.start.line}:${r.start.column}: ${terminalSafe(r.message)}`)}`);
+  for (const r of f.related ?? []) lines.push(`    ${paint('dim', `see ${r.start.line}:${r.start.column}: ${terminalLine(r.message)}`)}`);
   return lines;
 }
 
@@ -103,11 +103,13 @@ function excerpt(source: string, f: Finding, paint: (s: keyof typeof STYLE, t: s
   const windowStart = Math.max(0, from - 40);
   const windowEnd = Math.min(line.length, Math.max(to + 20, windowStart + 90));
   const shown = (windowStart > 0 ? '…' : '') + line.slice(windowStart, windowEnd) + (windowEnd < line.length ? '…' : '');
-  const pad = from - windowStart + (windowStart > 0 ? 1 : 0);
+  // measured on the text as shown: a bidi control shown as <U+202E> is wider than one column
+  const pad = terminalLine(line.slice(windowStart, from)).length + (windowStart > 0 ? 1 : 0);
+  const marked = terminalLine(line.slice(from, to)).length;
   const gutter = String(f.start.line);
   return [
-    `    ${paint('dim', `${gutter} |`)} ${terminalSafe(shown)}`,
-    `    ${' '.repeat(gutter.length)} ${paint('dim', '|')} ${' '.repeat(pad)}${paint(f.level, '^'.repeat(Math.max(1, to - from)))}`,
+    `    ${paint('dim', `${gutter} |`)} ${terminalLine(shown)}`,
+    `    ${' '.repeat(gutter.length)} ${paint('dim', '|')} ${' '.repeat(pad)}${paint(f.level, '^'.repeat(Math.max(1, marked)))}`,
   ];
 }
 

@@ -6,3 +6,4 @@ export { formatChecklist } from './checklist.js';
 export { formatHtml, escapeHtml } from './html.js';
 export { formatLines } from './lines.js';
 export { formatRulesJson, type RuleListing } from './rules.js';
+export { say, showBidi, terminalLine, terminalSafe } from './text.js';
