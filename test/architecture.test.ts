@@ -14,7 +14,8 @@ const ALLOWED: Record<string, string[]> = {
   'src/link': ['src/parse', 'src/extract'],
   'src/rule-api': ['src/parse', 'src/extract', 'src/link', 'src/stats'],
   rules: ['src/rule-api', 'src/stats'],
-  'src/config': ['src/rule-api', 'schema'],
+  // configuration files share the YAML limits of front matter (src/parse/frontMatter.ts)
+  'src/config': ['src/parse', 'src/rule-api', 'schema'],
   schema: [],
   'src/engine': ['src/parse', 'src/extract', 'src/link', 'src/stats', 'src/rule-api', 'rules', 'src/config'],
   'src/report': ['src/engine', 'src/rule-api', 'src/parse'],

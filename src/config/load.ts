@@ -2,6 +2,7 @@ import { closeSync, existsSync, fstatSync, openSync, readSync, statSync } from '
 import { dirname, join, resolve } from 'node:path';
 import { parseDocument as parseYamlDocument } from 'yaml';
 import { ConfigError, type Config } from './types.js';
+import { YAML_LIMITS, yamlOverLimits } from '../parse/frontMatter.js';
 import { configProblems } from './validate.js';
 
 /** Configuration file names, looked for in this order in each folder. */
@@ -48,23 +49,11 @@ export function parseConfigText(text: string, file: string, knownRuleIds: readon
 }
 
 /**
- * The most YAML handed to the yaml library: the same limits as front matter's (YAML_LIMITS in
- * src/parse/frontMatter.ts, which this layer may not import; a test keeps the two equal). The
- * library checks each new key of a mapping against every earlier one (n² for n keys: 100,000
- * keys took minutes); lines plus commas bound the number of keys from above in one pass.
+ * The most YAML handed to the yaml library: the limits front matter has (src/parse/frontMatter.ts,
+ * one check for both). The library checks each new key of a mapping against every earlier one
+ * (n² for n keys: 100,000 keys took minutes).
  */
-export const CONFIG_YAML_LIMITS = { characters: 256 * 1024, keyPlaces: 2000 } as const;
-
-function yamlOverLimits(yaml: string): string | undefined {
-  if (yaml.length > CONFIG_YAML_LIMITS.characters) return `${yaml.length} characters is over the limit of ${CONFIG_YAML_LIMITS.characters}`;
-  let places = 1;
-  for (let i = 0; i < yaml.length; i += 1) {
-    const c = yaml.charCodeAt(i);
-    if (c === 10 || c === 44) places += 1; // LF, comma
-  }
-  if (places > CONFIG_YAML_LIMITS.keyPlaces) return `${places} lines and commas is over the limit of ${CONFIG_YAML_LIMITS.keyPlaces} (very many keys make the YAML reader slow)`;
-  return undefined;
-}
+export const CONFIG_YAML_LIMITS = YAML_LIMITS;
 
 /** A key as a message shows it: JSON-quoted (control characters escaped), cut at 80 characters. */
 function quoteKey(key: string): string {
