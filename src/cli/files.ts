@@ -1,7 +1,8 @@
-import { closeSync, fstatSync, openSync, readdirSync, readSync, realpathSync, statSync } from 'node:fs';
+import { readdirSync, realpathSync, statSync } from 'node:fs';
 import { dirname, isAbsolute, join, relative, resolve, sep } from 'node:path';
 import ignore, { type Ignore } from 'ignore';
 import { globSync } from 'tinyglobby';
+import { readRegularFile } from '../config/index.js';
 
 /** Extensions read when a folder is given. */
 export const MANUSCRIPT_EXTENSIONS = ['.md', '.markdown', '.txt', '.rmd', '.qmd'] as const;
@@ -14,8 +15,6 @@ export const SKIPPED_FOLDERS = ['node_modules', '_site', '_book', '_freeze', '_b
 
 export interface Expansion {
   files: string[];
-  /** The files named on the command line as they are (the rest came from walking folders or globs). */
-  named: string[];
   /** Arguments that matched nothing, with why. */
   missing: Array<{ path: string; message: string }>;
   /**
@@ -61,7 +60,6 @@ const MAX_GITIGNORE_BYTES = 1024 * 1024;
 export function expandArguments(args: string[], cwd = process.cwd(), options: ExpandOptions = {}): Expansion {
   const at = (p: string) => resolve(cwd, p);
   const files: string[] = [];
-  const named: string[] = [];
   const missing: Expansion['missing'] = [];
   const skippedLinks: string[] = [];
   const outside = options.followLinksOutside === true;
@@ -98,12 +96,9 @@ export function expandArguments(args: string[], cwd = process.cwd(), options: Ex
       const top = at(arg);
       walk(arg, new Set(), add, at, ignored, top, outside ? undefined : { root: realOrUndefined(top) ?? top, skipped: skippedLinks });
     }
-    else {
-      named.push(arg);
-      add(arg);
-    }
+    else add(arg);
   }
-  return { files, named, missing, skippedLinks };
+  return { files, missing, skippedLinks };
 }
 
 /** The ignore patterns in force: configuration `ignore` lists and .gitignore files, each read once. */
@@ -187,19 +182,8 @@ class IgnoreRules {
 
 /** A small regular file's text, or undefined (missing, not regular, too large, unreadable). */
 function readSmallRegularFile(path: string, maxBytes: number): string | undefined {
-  let fd: number | undefined;
-  try {
-    const s = statSync(path);
-    if (!s.isFile() || s.size > maxBytes) return undefined;
-    fd = openSync(path, 'r');
-    const bytes = Buffer.alloc(Math.min(fstatSync(fd).size, maxBytes));
-    const n = readSync(fd, bytes, 0, bytes.length, 0);
-    return bytes.subarray(0, n).toString('utf8');
-  } catch {
-    return undefined;
-  } finally {
-    if (fd !== undefined) closeSync(fd);
-  }
+  const r = readRegularFile(path, maxBytes);
+  return r.ok ? r.bytes.toString('utf8') : undefined;
 }
 
 /** The real path, or undefined when it cannot be resolved. */

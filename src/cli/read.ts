@@ -1,4 +1,4 @@
-import { closeSync, fstatSync, openSync, readSync, statSync } from 'node:fs';
+import { readRegularFile } from '../config/index.js';
 import { decodeBytes } from '../engine/index.js';
 import type { ReadNote } from '../engine/index.js';
 import { describeError } from './files.js';
@@ -13,34 +13,12 @@ export type ReadOutcome = { ok: true; text: string; notes: ReadNote[] } | { ok: 
  * before reading it, then decode (UTF-8, UTF-16 with BOM; binary files refused).
  */
 export function readManuscript(path: string, maxBytes = DEFAULT_MAX_FILE_BYTES): ReadOutcome {
-  let fd: number;
-  try {
-    // stat before opening: opening a FIFO or device would block or read without end
-    const s = statSync(path);
-    if (s.isDirectory()) return { ok: false, message: 'cannot read: is a folder' };
-    if (!s.isFile()) return { ok: false, message: 'skipped: not a regular file' };
-    fd = openSync(path, 'r');
-  } catch (e) {
-    return { ok: false, message: `cannot read: ${describeError(e)}` };
-  }
-  try {
-    // the size of what was opened (the path may have been replaced since the stat above)
-    const stat = fstatSync(fd);
-    if (!stat.isFile()) return { ok: false, message: 'skipped: not a regular file' };
-    if (stat.size > maxBytes) return overLimit(stat.size, maxBytes);
-    const bytes = Buffer.allocUnsafe(stat.size);
-    let read = 0;
-    while (read < stat.size) {
-      const n = readSync(fd, bytes, read, stat.size - read, read);
-      if (n === 0) break;
-      read += n;
-    }
-    return decoded(bytes.subarray(0, read));
-  } catch (e) {
-    return { ok: false, message: `cannot read: ${describeError(e)}` };
-  } finally {
-    closeSync(fd);
-  }
+  const r = readRegularFile(path, maxBytes);
+  if (r.ok) return decoded(r.bytes);
+  if (r.problem === 'folder') return { ok: false, message: 'cannot read: is a folder' };
+  if (r.problem === 'not-regular') return { ok: false, message: 'skipped: not a regular file' };
+  if (r.problem === 'too-large') return overLimit(r.size, maxBytes);
+  return { ok: false, message: `cannot read: ${describeError(r.error)}` };
 }
 
 /** Bytes already in memory (standard input) through the same decoding and limit. */

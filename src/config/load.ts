@@ -1,4 +1,5 @@
-import { closeSync, existsSync, fstatSync, openSync, readSync, statSync } from 'node:fs';
+import { existsSync } from 'node:fs';
+import { readRegularFile } from './regularFile.js';
 import { dirname, join, resolve } from 'node:path';
 import { parseDocument as parseYamlDocument } from 'yaml';
 import { ConfigError, type Config } from './types.js';
@@ -111,29 +112,12 @@ export const MAX_CONFIG_BYTES = 1024 * 1024;
  * what is wrong in words and never echo the file's content.
  */
 export function readConfigFile(file: string, knownRuleIds: readonly string[]): Config {
-  let text: string;
-  let fd: number | undefined;
-  try {
-    const s = statSync(file);
-    if (s.isDirectory()) throw new ConfigError('cannot read configuration: it is a folder', file);
-    if (!s.isFile()) throw new ConfigError('cannot read configuration: not a regular file', file);
-    if (s.size > MAX_CONFIG_BYTES) throw new ConfigError(`cannot read configuration: ${s.size} bytes is over the limit of ${MAX_CONFIG_BYTES}`, file);
-    fd = openSync(file, 'r');
-    const bytes = Buffer.alloc(Math.min(fstatSync(fd).size, MAX_CONFIG_BYTES));
-    let read = 0;
-    while (read < bytes.length) {
-      const n = readSync(fd, bytes, read, bytes.length - read, read);
-      if (n === 0) break;
-      read += n;
-    }
-    text = bytes.subarray(0, read).toString('utf8').replace(/^\uFEFF/, '');
-  } catch (e) {
-    if (e instanceof ConfigError) throw e;
-    throw new ConfigError(`cannot read configuration: ${readProblem(e)}`, file);
-  } finally {
-    if (fd !== undefined) closeSync(fd);
+  const r = readRegularFile(file, MAX_CONFIG_BYTES);
+  if (!r.ok) {
+    const why = r.problem === 'folder' ? 'it is a folder' : r.problem === 'not-regular' ? 'not a regular file' : r.problem === 'too-large' ? `${r.size} bytes is over the limit of ${MAX_CONFIG_BYTES}` : readProblem(r.error);
+    throw new ConfigError(`cannot read configuration: ${why}`, file);
   }
-  return parseConfigText(text, file, knownRuleIds);
+  return parseConfigText(r.bytes.toString('utf8').replace(/^\uFEFF/, ''), file, knownRuleIds);
 }
 
 function readProblem(e: unknown): string {
