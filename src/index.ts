@@ -27,6 +27,6 @@ export {
 } from './report/index.js';
 export { checkFiles, type FileRun, type RunnerOptions } from './cli/runner.js';
 export { expandArguments, MANUSCRIPT_EXTENSIONS, SKIPPED_FOLDERS, type ExpandOptions, type Expansion, type IgnoreSource } from './cli/files.js';
-export { applyBaseline, baselineText, readBaseline, BaselineError, BASELINE_FORMAT, BASELINE_VERSION, type Baseline, type BaselineEntry } from './cli/baseline.js';
+export { applyBaseline, baselineText, readBaseline, recordBaseline, BaselineError, BASELINE_FORMAT, BASELINE_VERSION, type Baseline, type BaselineEntry } from './cli/baseline.js';
 export type { CorrelationFigure, DfFigure, Figure, Gap, IntervalFigure, LatticeFigure, Level, LevelSetting, PFigure, Recomputed, Rule, RuleKind } from './rule-api/types.js';
 export { twoSidedPFromT, oneSidedPFromT, twoSidedCriticalT, roundingInterval } from './stats/index.js';

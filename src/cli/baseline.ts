@@ -1,4 +1,4 @@
-import { closeSync, fstatSync, openSync, readSync, statSync } from 'node:fs';
+import { readRegularFile } from '../config/index.js';
 import { dirname, posix, relative, resolve, sep } from 'node:path';
 import type { FileReport } from '../engine/index.js';
 
@@ -33,36 +33,17 @@ export class BaselineError extends Error {}
 
 /** Read and validate a baseline file (a regular file, within the size limit). */
 export function readBaseline(file: string): Baseline {
-  let text: string;
-  let fd: number;
-  try {
-    // stat before opening: opening a FIFO would block, a device could never end
-    const s = statSync(file);
-    if (!s.isFile()) throw new BaselineError(s.isDirectory() ? 'is a folder' : 'not a regular file');
-    fd = openSync(file, 'r');
-  } catch (e) {
-    if (e instanceof BaselineError) throw e;
-    const code = (e as NodeJS.ErrnoException).code;
+  const r = readRegularFile(file, MAX_BASELINE_BYTES);
+  if (!r.ok) {
+    if (r.problem === 'folder') throw new BaselineError('is a folder');
+    if (r.problem === 'not-regular') throw new BaselineError('not a regular file');
+    if (r.problem === 'too-large') throw new BaselineError(`${r.size} bytes is over the limit of ${MAX_BASELINE_BYTES}`);
+    const code = (r.error as NodeJS.ErrnoException).code;
     throw new BaselineError(code === 'ENOENT' ? 'no such file (write one with --write-baseline)' : code === 'EACCES' || code === 'EPERM' ? 'permission denied' : 'the file could not be read');
-  }
-  try {
-    const stat = fstatSync(fd);
-    if (!stat.isFile()) throw new BaselineError('not a regular file');
-    if (stat.size > MAX_BASELINE_BYTES) throw new BaselineError(`${stat.size} bytes is over the limit of ${MAX_BASELINE_BYTES}`);
-    const bytes = Buffer.alloc(stat.size);
-    let read = 0;
-    while (read < stat.size) {
-      const n = readSync(fd, bytes, read, stat.size - read, read);
-      if (n === 0) break;
-      read += n;
-    }
-    text = bytes.subarray(0, read).toString('utf8').replace(/^\uFEFF/, '');
-  } finally {
-    closeSync(fd);
   }
   let data: unknown;
   try {
-    data = JSON.parse(text);
+    data = JSON.parse(r.bytes.toString('utf8').replace(/^\uFEFF/, ''));
   } catch {
     throw new BaselineError('not valid JSON');
   }
@@ -121,11 +102,11 @@ export function applyBaseline(reports: FileReport[], baseline: Baseline, cwd: st
 }
 
 /**
- * The baseline text for these reports: every finding, in file and reading order. Reasons
- * already given in `previous` for the same finding are kept, so re-recording loses none, and
- * its entries for files not checked in this run are kept as they were.
+ * The baseline for these reports: every finding, in file and reading order. Reasons already
+ * given in `previous` for the same finding are kept, so re-recording loses none, and its entries
+ * for files not checked in this run are kept as they were.
  */
-export function baselineText(reports: FileReport[], baselineFile: string, cwd: string, previous?: Baseline): string {
+export function recordBaseline(reports: FileReport[], baselineFile: string, cwd: string, previous?: Baseline): Baseline {
   const reasons = new Map((previous?.entries ?? []).filter((e) => e.reason).map((e) => [key(e.path, e.fingerprint), e.reason as string]));
   const checked = new Set(reports.map((r) => baselinePath(baselineFile, r.path, cwd)));
   const findings: BaselineEntry[] = (previous?.entries ?? []).filter((e) => !checked.has(e.path));
@@ -137,5 +118,10 @@ export function baselineText(reports: FileReport[], baselineFile: string, cwd: s
     }
   }
   findings.sort((a, b) => (a.path < b.path ? -1 : a.path > b.path ? 1 : 0));
-  return `${JSON.stringify({ format: BASELINE_FORMAT, version: BASELINE_VERSION, findings }, null, 2)}\n`;
+  return { file: resolve(cwd, baselineFile), entries: findings };
+}
+
+/** A baseline as its file holds it (schema/baseline.schema.json). */
+export function baselineText(baseline: Baseline): string {
+  return `${JSON.stringify({ format: BASELINE_FORMAT, version: BASELINE_VERSION, findings: baseline.entries }, null, 2)}\n`;
 }

@@ -5,7 +5,7 @@ import { RULE_IDS, RULES, ruleById, type CheckOptions } from '../engine/index.js
 import { CAUTIONS, countRun, say, terminalSafe, formatChecklist, formatHtml, formatHuman, formatJsonChunks, formatLines, formatRulesJson, formatSarifChunks, type RunReport } from '../report/index.js';
 import { parseArguments, type CliOptions } from './args.js';
 import { Presets, SingleBar } from 'cli-progress';
-import { applyBaseline, baselineText, BaselineError, readBaseline, type Baseline } from './baseline.js';
+import { applyBaseline, baselineText, BaselineError, readBaseline, recordBaseline, type Baseline } from './baseline.js';
 import { runBatch } from './batch.js';
 import { describeError } from './files.js';
 import { identity, openDestination, openRegularFile, type Destination } from './output.js';
@@ -69,10 +69,15 @@ export async function run(argv: string[], rawIo: Io): Promise<number> {
   }
 
   if (options.command === 'batch') {
-    const misplaced = (['baseline', 'writeBaseline', 'maxWarnings'] as const).filter((k) => options[k] !== undefined);
-    if (options.quiet) misplaced.push('quiet' as never);
-    if (misplaced.length > 0 || options.format !== 'human') {
-      const names = [...misplaced.map((k) => `--${k.replace(/[A-Z]/g, (c) => `-${c.toLowerCase()}`)}`), ...(options.format !== 'human' ? ['--format'] : [])];
+    const given: Array<[string, boolean]> = [
+      ['--baseline', options.baseline !== undefined],
+      ['--write-baseline', options.writeBaseline !== undefined],
+      ['--max-warnings', options.maxWarnings !== undefined],
+      ['--quiet', options.quiet],
+      ['--format', options.format !== 'human'],
+    ];
+    const names = given.filter(([, on]) => on).map(([name]) => name);
+    if (names.length > 0) {
       io.stderr(`plumbline: ${names.join(', ')} ${names.length === 1 ? 'does' : 'do'} not apply to batch, which writes one NDJSON line per document\n`);
       return EXIT.trouble;
     }
@@ -196,10 +201,11 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
     } catch {
       previous = undefined; // none yet, or unreadable: written afresh
     }
+    const recordedNow = recordBaseline(run.unfiltered, target, io.cwd, previous);
     try {
       const sink = openRegularFile(target, io.cwd);
       try {
-        sink.write(baselineText(run.unfiltered, target, io.cwd, previous));
+        sink.write(baselineText(recordedNow));
         sink.commit();
       } catch (e) {
         sink.abort();
@@ -212,7 +218,6 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
     const recorded = run.unfiltered.reduce((n, r) => n + r.findings.length, 0);
     io.stderr(`plumbline: recorded ${recorded} finding${recorded === 1 ? '' : 's'} in ${options.writeBaseline}\n`);
     // from now on they are the baseline: the report shows what is not in it (nothing, this run)
-    const recordedNow = readBaseline(target);
     report = { ...report, files: applyBaseline(run.unfiltered, recordedNow, io.cwd).reports };
   } else if (baseline && run.staleBaselineEntries > 0) {
     const n = run.staleBaselineEntries;

@@ -38,13 +38,18 @@ export function checkPAgainstT(input: PConsistencyInput): PConsistency {
   const twoSided = twoSidedPRange(input.tLow, input.tHigh, input.dfLow, input.dfHigh);
   const oneSidedSame = { low: twoSided.low / 2, high: twoSided.high / 2 };
   const oneSidedOpposite = { low: 1 - twoSided.high / 2, high: 1 - twoSided.low / 2 };
+  return readings(twoSided, oneSidedSame, oneSidedOpposite, input.reported);
+}
+
+/** The three readings of a p and which of them the reported p fits (on whatever scale they share). */
+function readings(twoSided: Interval, oneSidedSame: Interval, oneSidedOpposite: Interval, reported: PInterval): PConsistency {
   return {
     twoSided,
     oneSidedSame,
     oneSidedOpposite,
-    fitsTwoSided: meets(twoSided, input.reported),
-    fitsOneSidedSame: meets(oneSidedSame, input.reported),
-    fitsOneSidedOpposite: meets(oneSidedOpposite, input.reported),
+    fitsTwoSided: meets(twoSided, reported),
+    fitsOneSidedSame: meets(oneSidedSame, reported),
+    fitsOneSidedOpposite: meets(oneSidedOpposite, reported),
   };
 }
 
@@ -86,12 +91,5 @@ export function checkLog10PAgainstT(input: PConsistencyInput): PConsistency {
   const oneSidedSame = { low: twoSided.low - Math.LOG10E * Math.LN2, high: twoSided.high - Math.LOG10E * Math.LN2 };
   const oppositeOf = (x: number) => Math.log1p(-(10 ** x) / 2) * Math.LOG10E;
   const oneSidedOpposite = { low: oppositeOf(twoSided.high), high: oppositeOf(twoSided.low) };
-  return {
-    twoSided,
-    oneSidedSame,
-    oneSidedOpposite,
-    fitsTwoSided: meets(twoSided, input.reported),
-    fitsOneSidedSame: meets(oneSidedSame, input.reported),
-    fitsOneSidedOpposite: meets(oneSidedOpposite, input.reported),
-  };
+  return readings(twoSided, oneSidedSame, oneSidedOpposite, input.reported);
 }
