@@ -128,6 +128,10 @@ export const FURTHER_HOSTILE: Record<string, (bytes: number) => string> = {
   'block quotes': (n) => '> a\n\n'.repeat(n / 5),
   'lazy quote lines': (n) => `> a\n${'lazy\n'.repeat(n / 5)}`,
   'lazy list lines': (n) => `- a\n${'lazy\n'.repeat(n / 5)}`,
+  // one paragraph of many lines, each split by micromark: line breaks read as spaces past a limit
+  'paragraph of word lines': (n) => 'cost and benefit 1\n'.repeat(n / 19),
+  'paragraph of & lines': (n) => 'a & b\n'.repeat(n / 6),
+  'one long quote': (n) => '> a b\n'.repeat(n / 6),
   'unclosed front matter': (n) => `---\n${'key: value\n'.repeat(n / 11)}`,
   'reference definitions': (n) => '[a]: b\n'.repeat(n / 7),
   'footnote definitions': (n) => '[^a]: b\n'.repeat(n / 8),

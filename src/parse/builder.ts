@@ -1,3 +1,4 @@
+import { decodeNamedCharacterReference } from 'decode-named-character-reference';
 /**
  * Accumulates segment text together with, for each character, the source range it came
  * from. Every producer of segment text goes through here so the map cannot drift.
@@ -60,16 +61,59 @@ export class MappedText {
   }
 }
 
+/**
+ * Where `value` ends when read from `start` the way pushAligned reads it (markup skipped), or
+ * `undefined` when some character of it is not found before `end`.
+ */
+export function alignedEnd(value: string, source: string, start: number, end: number): number | undefined {
+  let pos = start;
+  for (let i = 0; i < value.length; i += 1) {
+    const found = findProducer(source, pos, end, value[i] as string);
+    if (!found) return undefined;
+    pos = found.end;
+  }
+  return pos;
+}
+
 const ENTITY = /^&(?:#[0-9]{1,7}|#[xX][0-9a-fA-F]{1,6}|[A-Za-z][A-Za-z0-9]{1,31});/;
+
+/** What `&…;` stands for, or '' when it stands for nothing (the parser then keeps it as text). */
+function decodeReference(ref: string): string {
+  const body = ref.slice(1, -1);
+  if (body.startsWith('#')) {
+    const code = body[1] === 'x' || body[1] === 'X' ? Number.parseInt(body.slice(2), 16) : Number.parseInt(body.slice(1), 10);
+    // CommonMark: 0 and values past Unicode or in the surrogate range become U+FFFD
+    return code === 0 || code > 0x10ffff || (code >= 0xd800 && code <= 0xdfff) ? '\ufffd' : String.fromCodePoint(code);
+  }
+  const named = decodeNamedCharacterReference(body);
+  return named === false ? '' : named;
+}
+
+/** Whether the `>` at `pos` opens a quoted line (only spaces and other markers before it on its line), so it is markup, not text. */
+function quoteMarker(source: string, pos: number): boolean {
+  let spaces = 0;
+  // (looked at over 64 characters at most, so that a line of many `>` stays linear)
+  for (let k = pos - 1; k >= 0 && k >= pos - 64; k -= 1) {
+    const d = source[k];
+    if (d === '\n' || d === '\r') return true;
+    if (d === ' ') {
+      spaces += 1;
+      if (spaces > 3) return false;
+    } else if (d === '>') spaces = 0;
+    else return false;
+  }
+  return pos <= 64;
+}
 
 function findProducer(source: string, from: number, end: number, c: string): { start: number; end: number } | undefined {
   for (let pos = from; pos < end; pos += 1) {
     const s = source[pos];
     if (s === '&') {
+      // a character reference produces its character; `&A0;` and the like are not references
       const m = ENTITY.exec(source.slice(pos, Math.min(end, pos + 40)));
-      if (m) return { start: pos, end: pos + m[0].length };
+      if (m && decodeReference(m[0]).startsWith(c)) return { start: pos, end: pos + m[0].length };
     }
-    if (s === c) return { start: pos, end: pos + 1 };
+    if (s === c && !(c === '>' && quoteMarker(source, pos))) return { start: pos, end: pos + 1 };
     if (s === '\\' && source[pos + 1] === c) return { start: pos, end: pos + 2 };
     // Only markup may be skipped: whitespace, quote markers, backslashes, list bullets.
     if (!/[\s>\\]/.test(s as string)) {

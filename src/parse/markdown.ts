@@ -4,7 +4,7 @@ import remarkGfm from 'remark-gfm';
 import remarkMath from 'remark-math';
 import remarkParse from 'remark-parse';
 import { unified } from 'unified';
-import { MappedText } from './builder.js';
+import { MappedText, alignedEnd } from './builder.js';
 import { readDirective } from './directives.js';
 import { readFrontMatter } from './frontMatter.js';
 import { normalize } from './normalize.js';
@@ -13,7 +13,7 @@ import { literalNumberOfInlineR } from './rInline.js';
 import { HtmlTableReader, type HtmlTablePart } from './htmlTable.js';
 import { markLegends } from './legends.js';
 import { defuseDenseMarkup } from './depth.js';
-import { LAZY_LIMIT, QUOTE_LIMIT, SETEXT_LIMIT, defuseSlowShapes, type SlowShape } from './shapes.js';
+import { LAZY_LIMIT, QUOTE_LIMIT, SETEXT_LIMIT, defuseSlowShapes, joinLongParagraphs, type SlowShape } from './shapes.js';
 import { BULK_CHUNK_ROWS, BULK_MIN_ROWS, blankRuns, findBulkRuns, plainCells, type BulkRun } from './bulkTable.js';
 import type { Directive, FrontMatter, ParsedDocument, ReadNote, Segment, SegmentKind, TablePlace } from './types.js';
 
@@ -57,6 +57,11 @@ export interface MarkdownOptions {
    * `Infinity` turns that off (the tests compare both readings).
    */
   bulkRows?: number;
+  /**
+   * Paragraphs of more than this many lines have their line breaks read as spaces (see
+   * joinLongParagraphs). `Infinity` turns that off (the tests compare both readings).
+   */
+  paragraphLines?: number;
 }
 
 /**
@@ -74,7 +79,9 @@ export function parseMarkdown(path: string, source: string, options: MarkdownOpt
   const shift = hadBom ? 1 : 0;
   const defused = defuseDenseMarkup(body);
   const slow = defuseSlowShapes(defused?.text ?? body);
-  const text = slow?.text ?? defused?.text ?? body;
+  const shaped = slow?.text ?? defused?.text ?? body;
+  // exact: a line break inside a paragraph reads as a space (see joinLongParagraphs)
+  const text = (options.paragraphLines === Infinity ? undefined : joinLongParagraphs(shaped, options.paragraphLines)) ?? shaped;
   const opening = frontMatterOpening(text);
   const minRows = options.bulkRows ?? BULK_MIN_ROWS;
   let walker = walk(text, shift, options, minRows, opening && (!opening.closed || opening.blankAfter) ? withoutFrontMatter : processor);
@@ -362,10 +369,21 @@ class Walker {
       const pos = node.position;
       if (!pos) {
         if (node.type === 'text') {
-          const at = this.src.indexOf(node.value, range.cursor);
-          if (at >= 0 && at + node.value.length <= range.end) {
-            out.pushVerbatim(node.value, at);
-            range.cursor = at + node.value.length;
+          // read it the way positioned text is aligned (markup skipped: the indentation and
+          // `>` markers the parser left out after a line break, escapes): from where the text
+          // before it ended; else where it is found whole, or by its first line
+          let from = range.cursor;
+          let stop = alignedEnd(node.value, this.src, from, range.end);
+          if (stop === undefined) {
+            const at = this.src.indexOf(node.value, range.cursor);
+            const nl = node.value.search(/[\r\n]/);
+            const first = nl < 0 ? node.value : node.value.slice(0, nl);
+            from = at >= 0 && at + node.value.length <= range.end ? at : first === '' ? -1 : this.src.indexOf(first, range.cursor);
+            stop = from >= 0 ? alignedEnd(node.value, this.src, from, range.end) : undefined;
+          }
+          if (stop !== undefined) {
+            out.pushAligned(node.value, this.src, from, stop);
+            range.cursor = stop;
           }
         } else if ('children' in node) {
           this.phrasing(node.children, out, codes, range);

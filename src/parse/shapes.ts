@@ -12,6 +12,8 @@
  * paragraph text. Ordinary manuscripts stay far below the limits and are never touched.
  */
 
+import { htmlBlockNames, htmlRawNames } from 'micromark-util-html-tag-name';
+
 /** Setext headings kept as headings; the underlines of later ones are read as text. */
 export const SETEXT_LIMIT = 64;
 /** Block quotes kept as quotes; later ones are read as paragraphs. */
@@ -147,7 +149,7 @@ export function defuseSlowShapes(source: string): { text: string; shapes: SlowSh
   return { text: out.join(''), shapes };
 }
 
-function isFence(source: string, line: Line): boolean {
+function isFence(source: string, line: { start: number; end: number }): boolean {
   return source.startsWith('---', line.start) && onlySpaces(source, line.start + 3, line.end);
 }
 
@@ -191,4 +193,307 @@ function range(from: number, to: number): number[] {
   const r: number[] = [];
   for (let k = from; k < to; k++) r.push(k);
   return r;
+}
+
+/**
+ * Lines one paragraph may span before its line breaks are read as spaces. Ordinary paragraphs,
+ * hard-wrapped at 60–100 columns, span a few dozen lines at most.
+ */
+export const PARAGRAPH_LINE_LIMIT = 100;
+
+/**
+ * micromark merges the adjacent `data` events of each line of a paragraph with one splice of
+ * the paragraph's whole event list (micromark 4, `resolveAllText`), so a paragraph of L lines
+ * that each hold more than one piece of text (any word after the first, once GFM autolink
+ * literals split text at word starts, or an `&`, `\` or `]`) costs time quadratic in L:
+ * 8,000 such lines took 1.7 s and 16,000 took 4.6 s, against 0.2 s for the same text on one line.
+ *
+ * Past PARAGRAPH_LINE_LIMIT lines, the line breaks inside a paragraph are replaced by spaces,
+ * one for one (a CRLF by two), and so are the `>` markers that open a continued line inside a
+ * block quote: offsets are unchanged, line numbers are counted from the file, and the
+ * paragraph's text reads as before, since a line break inside a paragraph is read as a space
+ * anyway (a space, not U+200B, so that emphasis at a line's start flanks as before). A break is kept wherever the next line could start a
+ * block of its own (heading, list item, fence, HTML, table, math, quote, underline) or ends a
+ * hard break with `\`, so the document's structure is the parser's, unchanged.
+ */
+export function joinLongParagraphs(source: string, limit = PARAGRAPH_LINE_LIMIT): string | undefined {
+  const lines: { start: number; end: number; next: number }[] = [];
+  for (let start = 0; start <= source.length; ) {
+    let end = start;
+    while (end < source.length && source.charCodeAt(end) !== 0x0a && source.charCodeAt(end) !== 0x0d) end++;
+    const next = end >= source.length ? end : source.charCodeAt(end) === 0x0d && source.charCodeAt(end + 1) === 0x0a ? end + 2 : end + 1;
+    lines.push({ start, end, next });
+    if (end >= source.length) break;
+    start = next;
+  }
+  if (lines.length <= limit) return undefined;
+
+  // joins[k]: the break after line k may become a space, with these `>` markers of line k + 1
+  const joins: (number[] | undefined)[] = new Array(lines.length);
+  /** A fence opened outside every quote and list item: tracked exactly. */
+  let fence: { char: number; size: number } | undefined;
+  /**
+   * A fence, raw HTML, table or paragraph opened inside a quote or list item, whose end (with
+   * its container) only the parser knows: nothing is joined until a line with fewer `>` or
+   * less indentation than its container closes it.
+   */
+  let nested: { markers: number; column: number } | undefined;
+  /** A list item may be open: until a line indented less than its text, not continuing a paragraph. */
+  let listOpen = false;
+  /** The text column of the outermost open list item, and the `>` markers before it. */
+  let listColumn = 0;
+  let listMarkers = 0;
+  /** A line below the item, read here as something else, may have been a lazy line keeping it open. */
+  let listUnsure = false;
+  let prevBlank = false;
+  /** Raw HTML of CommonMark's kinds 1 to 6: ends at a blank line, or at the line holding this text. */
+  let html: string | undefined;
+  /**
+   * A block that ends at a blank line but whose kind only the parser knows (a table, raw HTML of
+   * kind 7, or a paragraph opening with `<`): a fence or raw HTML opened inside it would leave
+   * the parser's reading of everything below unknown, so then nothing more is joined.
+   */
+  let unsure = false;
+  let para = false;
+  /** The `>` markers (with the spaces around them) that opened the paragraph's first line. */
+  let paraPrefix = '';
+  let paraMarkers = 0;
+  const text = (line: { start: number; end: number } | undefined) => (line ? source.slice(line.start, line.end) : undefined);
+  let k = 0;
+  // closed front matter is YAML, not paragraphs
+  if (lines.length > 1 && isFence(source, lines[0] as { start: number; end: number })) {
+    for (let i = 1; i < lines.length; i++) if (isFence(source, lines[i] as { start: number; end: number })) { k = i + 1; break; }
+  }
+  for (; k < lines.length; k++) {
+    const line = lines[k] as { start: number; end: number };
+    if (fence) {
+      const p = skipSpaces(source, line.start, line.end, 3);
+      const n = runLength(source, p, line.end, fence.char);
+      if (n >= fence.size && onlySpaces(source, p + n, line.end)) fence = undefined;
+      continue;
+    }
+    if (html !== undefined && html !== 'blank') {
+      if (source.slice(line.start, line.end).toLowerCase().includes(html)) html = undefined;
+      continue;
+    }
+    const blank = onlySpaces(source, line.start, line.end);
+    const { markers, p } = quoteMarkers(source, line.start, line.end);
+    const lead = indentOf(source, line.start, line.end);
+    if (nested) {
+      if (blank || (markers.length >= nested.markers && lead >= nested.column)) continue;
+      nested = undefined;
+    }
+    if (blank) {
+      para = false;
+      html = undefined;
+      unsure = false;
+      prevBlank = true;
+      continue;
+    }
+    const wasBlank = prevBlank;
+    prevBlank = false;
+    if (html !== undefined) continue;
+    const indent = indentOf(source, p, line.end);
+    let c = p;
+    while (c < line.end && (source.charCodeAt(c) === 0x20 || source.charCodeAt(c) === 0x09)) c++;
+    const next = text(lines[k + 1]);
+    if (unsure) {
+      let d = c;
+      for (let item = thematicBreak(source, d, line.end) ? 0 : listMarker(source, d, line.end); item > 0; item = thematicBreak(source, d, line.end) ? 0 : listMarker(source, d, line.end)) {
+        d = skipSpaces(source, d + item, line.end, 4);
+        listOpen = true;
+        listColumn = 0;
+      }
+      if (startKind(source, d, line.end, undefined) === 'fence' || (startKind(source, d, line.end, undefined) === 'html' && htmlBlock(source, d, line.end) !== undefined)) break;
+      continue;
+    }
+    // a paragraph goes on unless the line may open a block of its own, at whatever indentation
+    // (inside a list item, indentation counts from the item's text); the line repeats the
+    // first line's `>` markers exactly, or is a lazy line with none
+    // (or lazily, some of them, in the same order). A line opening with `<` is never joined: raw
+    // HTML of kind 7 cannot interrupt a paragraph, but micromark reads a lazy line that opens it
+    // as a new block, and which lines are lazy depends on containers only the parser knows
+    const prefix = source.slice(line.start, p);
+    const same = markers.length === 0 || prefix === paraPrefix || (markers.length < paraMarkers && paraPrefix.startsWith(prefix));
+    if (para && same && startKind(source, c, line.end, next) === 'text') {
+      if (!hardBreakBackslash(source, (lines[k - 1] as { end: number }).end)) joins[k - 1] = markers;
+      continue;
+    }
+    para = false;
+    if (listOpen && (lead < listColumn || markers.length < listMarkers)) {
+      // it closes the list item, unless it is a lazy line of a paragraph kept open there,
+      // which only the parser knows when a line above was not read as text here
+      if (wasBlank || startKind(source, c, line.end, next) !== 'text') {
+        listOpen = false;
+        listUnsure = false;
+      } else listUnsure = true;
+    }
+    // outside every quote and list item
+    let margin = markers.length === 0 && !listOpen;
+    if (listUnsure) {
+      // whether a list item is open is unknown, and so is where a fence or raw HTML would end
+      let d = c;
+      while (!thematicBreak(source, d, line.end) && listMarker(source, d, line.end) > 0) d = skipSpaces(source, d + listMarker(source, d, line.end), line.end, 4);
+      const kind = startKind(source, d, line.end, next);
+      if (kind === 'fence' || kind === 'html' || kind === 'table') break;
+    }
+    if (indent >= 4) {
+      // indented code, or (inside a list item) anything
+      if (!margin) nested = { markers: markers.length, column: listOpen ? listColumn : 0 };
+      continue;
+    }
+    // list markers open items whose first line may be text
+    // (`- - -` and `* * *` are thematic breaks, not items)
+    const itemAt = (at: number) => (thematicBreak(source, at, line.end) ? 0 : listMarker(source, at, line.end));
+    for (let item = itemAt(c); item > 0; item = itemAt(c)) {
+      c = skipSpaces(source, c + item, line.end, 4);
+      margin = false;
+      if (!listOpen || c - line.start < listColumn) {
+        listColumn = c - line.start;
+        listMarkers = markers.length;
+      }
+      listOpen = true;
+    }
+    const kind = startKind(source, c, line.end, next);
+    if (kind === 'fence' || kind === 'html' || kind === 'table') {
+      if (!margin) nested = { markers: markers.length, column: listOpen ? listColumn : 0 };
+      else if (kind === 'fence') {
+        const ch = source.charCodeAt(c);
+        fence = { char: ch, size: runLength(source, c, line.end, ch) };
+      } else if (kind === 'table') unsure = true;
+      else {
+        const end = htmlBlock(source, c, line.end);
+        if (end === undefined) unsure = true;
+        // kinds 1 to 5 may close on their first line
+        else html = end !== 'blank' && source.slice(c, line.end).toLowerCase().includes(end) ? undefined : end;
+      }
+    } else if (kind === 'text') {
+      para = true;
+      paraPrefix = prefix;
+      paraMarkers = markers.length;
+    }
+  }
+
+  // join only inside paragraphs longer than the limit
+  let out: string[] | undefined;
+  for (let k = 0; k < lines.length; ) {
+    let j = k;
+    while (joins[j]) j++;
+    if (j - k + 1 > limit) {
+      out ??= source.split('');
+      for (let i = k; i < j; i++) {
+        const line = lines[i] as { end: number; next: number };
+        for (let at = line.end; at < line.next; at++) out[at] = ' ';
+        for (const m of joins[i] as number[]) out[m] = ' ';
+      }
+    }
+    k = j + 1;
+  }
+  return out?.join('');
+}
+
+/** The `>` markers that open a line, and where its content starts after them. */
+function quoteMarkers(source: string, start: number, end: number): { markers: number[]; p: number } {
+  const markers: number[] = [];
+  let p = start;
+  for (;;) {
+    const q = skipSpaces(source, p, end, 3);
+    if (source.charCodeAt(q) !== 0x3e) break;
+    markers.push(q);
+    p = q + 1;
+    if (source.charCodeAt(p) === 0x20) p++;
+  }
+  return { markers, p };
+}
+
+type StartKind = 'text' | 'fence' | 'html' | 'table' | 'other';
+
+/** What a line whose content starts at `p` opens, as far as a paragraph before it is concerned. */
+function startKind(source: string, p: number, end: number, nextLine: string | undefined): StartKind {
+  if (p >= end) return 'other';
+  const c = source.charCodeAt(p);
+  if ((c === 0x60 || c === 0x7e) && runLength(source, p, end, c) >= 3) return 'fence';
+  if (c === 0x24 && source.charCodeAt(p + 1) === 0x24) return 'fence'; // $$ math
+  if (c === 0x3c) return 'html';
+  if (c === 0x3e) return 'other';
+  if (c === 0x23) return 'other'; // ATX heading, or text: either way kept apart
+  if (underlineAt(source, p, end) || thematicBreak(source, p, end)) return 'other';
+  if (listMarker(source, p, end) > 0) return 'other';
+  if (c === 0x5b) return 'other'; // a link or footnote definition, or text: either way kept apart
+  if (nextLine !== undefined && isDelimiterRow(nextLine)) return 'table';
+  return 'text';
+}
+
+/**
+ * A GFM table's delimiter row: `>` markers, then pipes, dashes, colons and spaces, with a dash
+ * and a pipe or colon (micromark reads `:-` under a line as a one-column table).
+ */
+function isDelimiterRow(line: string): boolean {
+  let pipe = false;
+  let dash = false;
+  let body = false;
+  for (let k = 0; k < line.length; k++) {
+    const c = line.charCodeAt(k);
+    if (c === 0x7c || c === 0x3a) pipe = true;
+    else if (c === 0x2d) dash = true;
+    else if (c === 0x3e && !body) continue;
+    else if (c !== 0x3a && c !== 0x20 && c !== 0x09) return false;
+    if (c !== 0x20 && c !== 0x09) body = true;
+  }
+  return pipe && dash;
+}
+
+/**
+ * Where raw HTML opening at `c` ends, for CommonMark's kinds 1 to 6 (the kinds that may
+ * interrupt a paragraph): the text that closes kinds 1 to 5, or `blank` for kind 6. `undefined`
+ * for anything else: raw HTML of kind 7, or text. The tag names are the parser's own lists.
+ */
+function htmlBlock(source: string, c: number, end: number): string | undefined {
+  const s = source.slice(c, Math.min(end, c + 48)).toLowerCase();
+  if (s.startsWith('<!--')) return '-->';
+  if (s.startsWith('<?')) return '?>';
+  if (s.startsWith('<![cdata[')) return ']]>';
+  if (/^<![a-z]/.test(s)) return '>';
+  const m = /^<(\/?)([a-z][a-z0-9]*)/.exec(s);
+  if (!m) return undefined;
+  const name = m[2] as string;
+  const at = c + m[0].length;
+  const after = at < end ? source.charAt(at) : '';
+  if (!m[1] && htmlRawNames.includes(name) && (after === '' || after === '>' || after === ' ' || after === '\t')) return `</${name}>`;
+  if (htmlBlockNames.includes(name) && (after === '' || after === '>' || after === ' ' || after === '\t' || (after === '/' && source.charAt(at + 1) === '>'))) return 'blank';
+  return undefined;
+}
+
+function thematicBreak(source: string, p: number, end: number): boolean {
+  const c = source.charCodeAt(p);
+  if (c !== 0x2a && c !== 0x2d && c !== 0x5f) return false;
+  let n = 0;
+  for (let k = p; k < end; k++) {
+    const d = source.charCodeAt(k);
+    if (d === c) n++;
+    else if (d !== 0x20 && d !== 0x09) return false;
+  }
+  return n >= 3;
+}
+
+function hardBreakBackslash(source: string, end: number): boolean {
+  return end > 0 && source.charCodeAt(end - 1) === 0x5c;
+}
+
+function skipSpaces(source: string, from: number, to: number, most: number): number {
+  let k = from;
+  while (k < to && k - from < most && source.charCodeAt(k) === 0x20) k++;
+  return k;
+}
+
+/** Columns of leading spaces and tabs (a tab to the next multiple of 4). */
+function indentOf(source: string, from: number, to: number): number {
+  let col = 0;
+  for (let k = from; k < to; k++) {
+    const c = source.charCodeAt(k);
+    if (c === 0x20) col += 1;
+    else if (c === 0x09) col += 4 - (col % 4);
+    else break;
+  }
+  return col;
 }
