@@ -1,4 +1,5 @@
 import { expect } from 'vitest';
+import { checkSource } from '../src/engine/index.js';
 
 /**
  * Relative-error assertion that prints inputs, got, expected, gap and tolerance on failure.
@@ -6,4 +7,31 @@ import { expect } from 'vitest';
 export function expectRelativeClose(got: number, expected: number, tolerance: number, inputs: string): void {
   const gap = expected === 0 ? Math.abs(got) : Math.abs(got - expected) / Math.abs(expected);
   expect(gap, `${inputs}: got ${got}, expected ${expected}, relative gap ${gap.toExponential(2)}, tolerance ${tolerance}`).toBeLessThanOrEqual(tolerance);
+}
+
+/** `n` lines made by `line`, joined by `\n`. */
+export function lines(n: number, line: (i: number) => string): string {
+  return Array.from({ length: n }, (_, i) => line(i)).join('\n');
+}
+
+function seconds(f: () => void): number {
+  const t0 = performance.now();
+  f();
+  return (performance.now() - t0) / 1000;
+}
+
+/**
+ * Checking the document `make(2n)` takes less than 3× as long as checking `make(n)`: about 2
+ * when linear, about 4 when quadratic. Warmed on `make(200)` first; best of two timings each,
+ * to keep a busy machine's pauses out of the ratio.
+ */
+export function expectLinearCheck(name: string, make: (n: number) => string, n: number): void {
+  checkSource('warm.md', make(200));
+  const at = (k: number) => {
+    const source = make(k);
+    return Math.min(seconds(() => checkSource('x.md', source)), seconds(() => checkSource('x.md', source)));
+  };
+  const small = at(n);
+  const large = at(2 * n);
+  expect(large / small, `${name}: ${small.toFixed(2)} s at ${n}, ${large.toFixed(2)} s at ${2 * n}`).toBeLessThan(3);
 }

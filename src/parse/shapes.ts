@@ -33,10 +33,13 @@ export interface SlowShape {
 
 const ZWSP = '\u200b';
 
-interface Line {
+/** A line's text: from its start to its end before the line break. */
+interface LineRange {
   start: number;
-  /** End before `\r?\n`. */
   end: number;
+}
+
+interface Line extends LineRange {
   number: number;
 }
 
@@ -149,7 +152,7 @@ export function defuseSlowShapes(source: string): { text: string; shapes: SlowSh
   return { text: out.join(''), shapes };
 }
 
-function isFence(source: string, line: { start: number; end: number }): boolean {
+function isFence(source: string, line: LineRange): boolean {
   return source.startsWith('---', line.start) && onlySpaces(source, line.start + 3, line.end);
 }
 
@@ -189,6 +192,18 @@ function listMarker(source: string, p: number, end: number): number {
   return k >= end || d === 0x20 || d === 0x09 ? k - p : 0;
 }
 
+/** A list item's marker at `at` (`- - -` and `* * *` are thematic breaks, not items): its length, else 0. */
+function itemMarker(source: string, at: number, end: number): number {
+  return thematicBreak(source, at, end) ? 0 : listMarker(source, at, end);
+}
+
+/** Where a line's content starts after the list markers (and their spaces) at `c`. */
+function afterItems(source: string, c: number, end: number): number {
+  let d = c;
+  for (let item = itemMarker(source, d, end); item > 0; item = itemMarker(source, d, end)) d = skipSpaces(source, d + item, end, 4);
+  return d;
+}
+
 function range(from: number, to: number): number[] {
   const r: number[] = [];
   for (let k = from; k < to; k++) r.push(k);
@@ -212,12 +227,13 @@ export const PARAGRAPH_LINE_LIMIT = 100;
  * one for one (a CRLF by two), and so are the `>` markers that open a continued line inside a
  * block quote: offsets are unchanged, line numbers are counted from the file, and the
  * paragraph's text reads as before, since a line break inside a paragraph is read as a space
- * anyway (a space, not U+200B, so that emphasis at a line's start flanks as before). A break is kept wherever the next line could start a
- * block of its own (heading, list item, fence, HTML, table, math, quote, underline) or ends a
- * hard break with `\`, so the document's structure is the parser's, unchanged.
+ * anyway (a space, not U+200B, so that emphasis at a line's start flanks as before). A break
+ * is kept wherever the next line could start a block of its own (heading, list item, fence,
+ * HTML, table, math, quote, underline) or ends a hard break with `\`, so the document's
+ * structure is the parser's, unchanged.
  */
 export function joinLongParagraphs(source: string, limit = PARAGRAPH_LINE_LIMIT): string | undefined {
-  const lines: { start: number; end: number; next: number }[] = [];
+  const lines: (LineRange & { next: number })[] = [];
   for (let start = 0; start <= source.length; ) {
     let end = start;
     while (end < source.length && source.charCodeAt(end) !== 0x0a && source.charCodeAt(end) !== 0x0d) end++;
@@ -258,14 +274,14 @@ export function joinLongParagraphs(source: string, limit = PARAGRAPH_LINE_LIMIT)
   /** The `>` markers (with the spaces around them) that opened the paragraph's first line. */
   let paraPrefix = '';
   let paraMarkers = 0;
-  const text = (line: { start: number; end: number } | undefined) => (line ? source.slice(line.start, line.end) : undefined);
+  const text = (line: LineRange | undefined) => (line ? source.slice(line.start, line.end) : undefined);
   let k = 0;
   // closed front matter is YAML, not paragraphs
-  if (lines.length > 1 && isFence(source, lines[0] as { start: number; end: number })) {
-    for (let i = 1; i < lines.length; i++) if (isFence(source, lines[i] as { start: number; end: number })) { k = i + 1; break; }
+  if (lines.length > 1 && isFence(source, lines[0] as LineRange)) {
+    for (let i = 1; i < lines.length; i++) if (isFence(source, lines[i] as LineRange)) { k = i + 1; break; }
   }
   for (; k < lines.length; k++) {
-    const line = lines[k] as { start: number; end: number };
+    const line = lines[k] as LineRange;
     if (fence) {
       const p = skipSpaces(source, line.start, line.end, 3);
       const n = runLength(source, p, line.end, fence.char);
@@ -298,25 +314,25 @@ export function joinLongParagraphs(source: string, limit = PARAGRAPH_LINE_LIMIT)
     while (c < line.end && (source.charCodeAt(c) === 0x20 || source.charCodeAt(c) === 0x09)) c++;
     const next = text(lines[k + 1]);
     if (unsure) {
-      let d = c;
-      for (let item = thematicBreak(source, d, line.end) ? 0 : listMarker(source, d, line.end); item > 0; item = thematicBreak(source, d, line.end) ? 0 : listMarker(source, d, line.end)) {
-        d = skipSpaces(source, d + item, line.end, 4);
+      const d = afterItems(source, c, line.end);
+      if (d > c) {
         listOpen = true;
         listColumn = 0;
       }
-      if (startKind(source, d, line.end, undefined) === 'fence' || (startKind(source, d, line.end, undefined) === 'html' && htmlBlock(source, d, line.end) !== undefined)) break;
+      const kind = startKind(source, d, line.end, undefined);
+      if (kind === 'fence' || (kind === 'html' && htmlBlock(source, d, line.end) !== undefined)) break;
       continue;
     }
-    // a paragraph goes on unless the line may open a block of its own, at whatever indentation
-    // (inside a list item, indentation counts from the item's text); the line repeats the
-    // first line's `>` markers exactly, or is a lazy line with none
-    // (or lazily, some of them, in the same order). A line opening with `<` is never joined: raw
-    // HTML of kind 7 cannot interrupt a paragraph, but micromark reads a lazy line that opens it
-    // as a new block, and which lines are lazy depends on containers only the parser knows
+    // A paragraph goes on unless the line may open a block of its own, at whatever indentation
+    // (inside a list item, indentation counts from the item's text). The line repeats the first
+    // line's `>` markers exactly, or lazily some of them in the same order, or none. A line
+    // opening with `<` is never joined: raw HTML of kind 7 cannot interrupt a paragraph, but
+    // micromark reads a lazy line that opens it as a new block, and which lines are lazy depends
+    // on containers only the parser knows.
     const prefix = source.slice(line.start, p);
     const same = markers.length === 0 || prefix === paraPrefix || (markers.length < paraMarkers && paraPrefix.startsWith(prefix));
     if (para && same && startKind(source, c, line.end, next) === 'text') {
-      if (!hardBreakBackslash(source, (lines[k - 1] as { end: number }).end)) joins[k - 1] = markers;
+      if (!hardBreakBackslash(source, (lines[k - 1] as LineRange).end)) joins[k - 1] = markers;
       continue;
     }
     para = false;
@@ -332,9 +348,7 @@ export function joinLongParagraphs(source: string, limit = PARAGRAPH_LINE_LIMIT)
     let margin = markers.length === 0 && !listOpen;
     if (listUnsure) {
       // whether a list item is open is unknown, and so is where a fence or raw HTML would end
-      let d = c;
-      while (!thematicBreak(source, d, line.end) && listMarker(source, d, line.end) > 0) d = skipSpaces(source, d + listMarker(source, d, line.end), line.end, 4);
-      const kind = startKind(source, d, line.end, next);
+      const kind = startKind(source, afterItems(source, c, line.end), line.end, next);
       if (kind === 'fence' || kind === 'html' || kind === 'table') break;
     }
     if (indent >= 4) {
@@ -343,9 +357,7 @@ export function joinLongParagraphs(source: string, limit = PARAGRAPH_LINE_LIMIT)
       continue;
     }
     // list markers open items whose first line may be text
-    // (`- - -` and `* * *` are thematic breaks, not items)
-    const itemAt = (at: number) => (thematicBreak(source, at, line.end) ? 0 : listMarker(source, at, line.end));
-    for (let item = itemAt(c); item > 0; item = itemAt(c)) {
+    for (let item = itemMarker(source, c, line.end); item > 0; item = itemMarker(source, c, line.end)) {
       c = skipSpaces(source, c + item, line.end, 4);
       margin = false;
       if (!listOpen || c - line.start < listColumn) {

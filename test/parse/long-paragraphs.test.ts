@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { checkSource } from '../../src/engine/index.js';
+import { expectLinearCheck, lines } from '../helpers.js';
 import { LineIndex } from '../../src/parse/index.js';
 import { parseMarkdown } from '../../src/parse/markdown.js';
 import type { ParsedDocument } from '../../src/parse/types.js';
@@ -110,16 +111,8 @@ describe('long paragraphs are read with their line breaks as spaces, exactly as 
         text[n >> 1] = text[n >> 1]?.replace(/(line|benefit) (\d+)/, `$1 $2 ${RESULT}`) ?? '';
         return text.join('\n');
       };
-      checkSource('warm.md', withResult(200));
-      const at = (k: number) => {
-        const source = withResult(k);
-        return Math.min(seconds(() => checkSource('x.md', source)), seconds(() => checkSource('x.md', source)));
-      };
       const n = 4000;
-      const small = at(n);
-      const large = at(2 * n);
-      // quadratic growth gives about 4; linear about 2
-      expect(large / small, `${name}: ${small.toFixed(2)} s at ${n}, ${large.toFixed(2)} s at ${2 * n}`).toBeLessThan(3);
+      expectLinearCheck(name, withResult, n);
       const source = withResult(n);
       const report = checkSource('x.md', source);
       expect(report.results).toHaveLength(1);
@@ -129,13 +122,3 @@ describe('long paragraphs are read with their line breaks as spaces, exactly as 
     }, 120_000);
   }
 });
-
-function lines(n: number, line: (i: number) => string): string {
-  return Array.from({ length: n }, (_, i) => line(i)).join('\n');
-}
-
-function seconds(f: () => void): number {
-  const t0 = performance.now();
-  f();
-  return (performance.now() - t0) / 1000;
-}

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { checkSource } from '../../src/engine/index.js';
+import { expectLinearCheck, lines } from '../helpers.js';
 import { LineIndex, parseDocument } from '../../src/parse/index.js';
 import { LAZY_LIMIT, QUOTE_LIMIT, SETEXT_LIMIT, defuseSlowShapes } from '../../src/parse/shapes.js';
 
@@ -19,30 +20,12 @@ const shapes: Record<string, (n: number) => string> = {
   'lazy lines in one list item': (n) => `- start\n${lines(n, (i) => (i === n >> 1 ? RESULT : `lazy line ${i}`))}`,
 };
 
-function lines(n: number, line: (i: number) => string): string {
-  return Array.from({ length: n }, (_, i) => line(i)).join('\n');
-}
-
-function seconds(f: () => void): number {
-  const t0 = performance.now();
-  f();
-  return (performance.now() - t0) / 1000;
-}
 
 describe('block shapes the Markdown parser reads in quadratic time are read as paragraph text', () => {
   for (const [name, make] of Object.entries(shapes)) {
     it(`${name}: linear in their number, the result inside found at its exact place, with a note`, () => {
       const n = 2000;
-      checkSource('warm.md', make(200));
-      // best of two, to keep a busy machine's pauses out of the ratio
-      const at = (k: number) => {
-        const source = make(k);
-        return Math.min(seconds(() => checkSource('x.md', source)), seconds(() => checkSource('x.md', source)));
-      };
-      const small = at(n);
-      const large = at(2 * n);
-      // quadratic growth gives about 4; linear about 2
-      expect(large / small, `${name}: ${small.toFixed(2)} s at ${n}, ${large.toFixed(2)} s at ${2 * n}`).toBeLessThan(3);
+      expectLinearCheck(name, make, n);
 
       const source = make(n);
       const report = checkSource('x.md', source);
