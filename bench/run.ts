@@ -13,7 +13,9 @@
  *      repeated, setext headings, block quotes, lazy quote and list lines, unclosed front
  *      matter, reference and footnote definitions) ÷ ordinary text              (goal ≤ 3 each)
  *
- * Prints a table and writes bench/results.json.
+ * Prints a table and writes bench/results.json. `npm run bench -- 3 7` (or PLUMBLINE_BENCH=3,7)
+ * runs only the figures named by number, for a quick look at one case; results.json is then
+ * left alone, since it holds the whole set.
  */
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
@@ -50,48 +52,61 @@ interface Figure {
   detail: string;
 }
 const figures: Figure[] = [];
+const picked = (process.env.PLUMBLINE_BENCH ?? process.argv.slice(2).join(','))
+  .split(',')
+  .map((x) => x.trim())
+  .filter((x) => x !== '');
+/** Whether figure `n` runs: all of them unless some were picked. */
+const wanted = (n: number) => picked.length === 0 || picked.includes(String(n));
 const add = (f: Figure) => {
   figures.push(f);
   console.log(`${f.met ? 'met ' : 'MISS'}  ${f.name.padEnd(44)} ${f.value.toFixed(3).padStart(9)}  goal ${f.goal.padEnd(8)} ${f.detail}`);
 };
 
 // 1 and 2: in-process against the bare parse
-const dense = Array.from({ length: 20 }, (_, i) => statDense(i + 1));
-const free = Array.from({ length: 20 }, (_, i) => statFree(i + 1));
-const denseBare = best(() => dense.forEach((d) => bare.parse(d)));
-const densePl = best(() => dense.forEach((d) => checkSource('bench.md', d)));
-const resultsPerDoc = checkSource('bench.md', dense[0] as string).results.length;
-add({ name: '1 stat-dense: plumbline / bare parse', value: densePl / denseBare, goal: '<= 1.25', met: densePl / denseBare <= 1.25, detail: `${dense.length} docs of ${(dense[0]?.length ?? 0) / 1000} KB, ${resultsPerDoc} results each; bare ${(1e3 * dense.join('').length / 1e6 / denseBare).toFixed(2)} MB/s` });
-const freeBare = best(() => free.forEach((d) => bare.parse(d)));
-const freePl = best(() => free.forEach((d) => checkSource('bench.md', d)));
-add({ name: '2 stat-free: plumbline / bare parse', value: freePl / freeBare, goal: '<= 0.1', met: freePl / freeBare <= 0.1, detail: 'pre-filter skips the parse' });
+if (wanted(1) || wanted(2)) {
+  const dense = Array.from({ length: 20 }, (_, i) => statDense(i + 1));
+  const free = Array.from({ length: 20 }, (_, i) => statFree(i + 1));
+  const denseBare = best(() => dense.forEach((d) => bare.parse(d)));
+  const densePl = best(() => dense.forEach((d) => checkSource('bench.md', d)));
+  const resultsPerDoc = checkSource('bench.md', dense[0] as string).results.length;
+  if (wanted(1)) add({ name: '1 stat-dense: plumbline / bare parse', value: densePl / denseBare, goal: '<= 1.25', met: densePl / denseBare <= 1.25, detail: `${dense.length} docs of ${(dense[0]?.length ?? 0) / 1000} KB, ${resultsPerDoc} results each; bare ${(1e3 * dense.join('').length / 1e6 / denseBare).toFixed(2)} MB/s` });
+  const freeBare = best(() => free.forEach((d) => bare.parse(d)));
+  const freePl = best(() => free.forEach((d) => checkSource('bench.md', d)));
+  if (wanted(2)) add({ name: '2 stat-free: plumbline / bare parse', value: freePl / freeBare, goal: '<= 0.1', met: freePl / freeBare <= 0.1, detail: 'pre-filter skips the parse' });
+}
 
 // 3: the CLI on 400 files, one worker against all
 const dir = mkdtempSync(join(tmpdir(), 'plumbline-bench-'));
-for (let i = 0; i < 400; i += 1) writeFileSync(join(dir, `doc${String(i).padStart(4, '0')}.md`), statDense(1000 + i, 10_000));
-const timeCli = (jobs: number) => {
-  const start = performance.now();
-  const r = spawnSync(process.execPath, [cli, dir, '--format', 'json', '--jobs', String(jobs)], { maxBuffer: 1 << 30 });
-  if (r.status !== 0 && r.status !== 1) throw new Error(`plumbline failed: ${r.stderr}`);
-  return { ms: performance.now() - start, out: r.stdout.toString() };
-};
-timeCli(1);
-const one = timeCli(1);
-const many = timeCli(cpus().length);
-add({ name: '3 batch of 400 files: 1 worker / all workers', value: one.ms / many.ms, goal: '>= 1.7', met: one.ms / many.ms >= 1.7, detail: `${cpus().length} cores; output identical: ${one.out === many.out}` });
+if (wanted(3)) {
+  for (let i = 0; i < 400; i += 1) writeFileSync(join(dir, `doc${String(i).padStart(4, '0')}.md`), statDense(1000 + i, 10_000));
+  const timeCli = (jobs: number) => {
+    const start = performance.now();
+    const r = spawnSync(process.execPath, [cli, dir, '--format', 'json', '--jobs', String(jobs)], { maxBuffer: 1 << 30 });
+    if (r.status !== 0 && r.status !== 1) throw new Error(`plumbline failed: ${r.stderr}`);
+    return { ms: performance.now() - start, out: r.stdout.toString() };
+  };
+  timeCli(1);
+  const one = timeCli(1);
+  const many = timeCli(cpus().length);
+  add({ name: '3 batch of 400 files: 1 worker / all workers', value: one.ms / many.ms, goal: '>= 1.7', met: one.ms / many.ms >= 1.7, detail: `${cpus().length} cores; output identical: ${one.out === many.out}` });
+}
 
 // 4: time per MB from 10 KB to 10 MB
-const sizes = [10_000, 100_000, 1_000_000, 10_000_000];
-const perMb = sizes.map((size) => {
-  const doc = statDense(7, size);
-  const reps = size >= 1e7 ? 1 : 3;
-  const pl = best(() => checkSource('big.md', doc), reps) / (doc.length / 1e6);
-  const parse = best(() => bare.parse(doc), reps) / (doc.length / 1e6);
-  return { size, pl, parse };
-});
-const scale = (perMb.at(-1)?.pl ?? 0) / (perMb[0]?.pl ?? 1);
-const remarkScale = (perMb.at(-1)?.parse ?? 0) / (perMb[0]?.parse ?? 1);
-add({ name: '4 time per MB: 10 MB doc / 10 KB doc', value: scale, goal: '<= 1.5', met: scale <= 1.5, detail: `ms/MB ${perMb.map((p) => `${p.size / 1000} KB ${p.pl.toFixed(0)}`).join(', ')}; bare remark alone ${remarkScale.toFixed(2)}` });
+const perMb: Array<{ size: number; pl: number; parse: number }> = [];
+if (wanted(4)) {
+  const sizes = [10_000, 100_000, 1_000_000, 10_000_000];
+  for (const size of sizes) {
+    const doc = statDense(7, size);
+    const reps = size >= 1e7 ? 1 : 3;
+    const pl = best(() => checkSource('big.md', doc), reps) / (doc.length / 1e6);
+    const parse = best(() => bare.parse(doc), reps) / (doc.length / 1e6);
+    perMb.push({ size, pl, parse });
+  }
+  const scale = (perMb.at(-1)?.pl ?? 0) / (perMb[0]?.pl ?? 1);
+  const remarkScale = (perMb.at(-1)?.parse ?? 0) / (perMb[0]?.parse ?? 1);
+  add({ name: '4 time per MB: 10 MB doc / 10 KB doc', value: scale, goal: '<= 1.5', met: scale <= 1.5, detail: `ms/MB ${perMb.map((p) => `${p.size / 1000} KB ${p.pl.toFixed(0)}`).join(', ')}; bare remark alone ${remarkScale.toFixed(2)}` });
+}
 
 // 5: peak RSS of streaming batches (paths on standard input, NDJSON out, discarded)
 const rss = (files: number) => {
@@ -110,15 +125,18 @@ const rss = (files: number) => {
   const m = /RSS (\d+)/.exec(r.stderr.toString());
   return m ? Number(m[1]) / 1024 : NaN;
 };
-const small = rss(50);
-const large = rss(5000);
-add({ name: '5 peak RSS, 5,000-file batch (MB)', value: large, goal: '<= 300', met: large <= 300, detail: `50-file batch ${small.toFixed(0)} MB; ratio ${(large / small).toFixed(2)}` });
+if (wanted(5)) {
+  const small = rss(50);
+  const large = rss(5000);
+  add({ name: '5 peak RSS, 5,000-file batch (MB)', value: large, goal: '<= 300', met: large <= 300, detail: `50-file batch ${small.toFixed(0)} MB; ratio ${(large / small).toFixed(2)}` });
+}
 rmSync(dir, { recursive: true, force: true });
 
 // 6: adversarial 1 MB runs (issue: hostile input) against ordinary text of the same size
 const ordinary = statDense(11, 1_000_000);
-const ordinaryMs = best(() => checkSource('ordinary.md', ordinary)) / (ordinary.length / 1e6);
-const ordinaryBare = best(() => bare.parse(ordinary)) / (ordinary.length / 1e6);
+const hostileRuns = wanted(6) || wanted(7);
+const ordinaryMs = hostileRuns ? best(() => checkSource('ordinary.md', ordinary)) / (ordinary.length / 1e6) : NaN;
+const ordinaryBare = hostileRuns ? best(() => bare.parse(ordinary)) / (ordinary.length / 1e6) : NaN;
 /**
  * One hostile figure: each 1 MB run's time per MB ÷ ordinary text's, and bare remark on the
  * worst one, to show whose cost it is (on nested images bare remark is worse than quadratic and
@@ -142,10 +160,12 @@ function hostileFigure(name: string, kinds: string[]): Array<{ kind: string; rat
   });
   return runs;
 }
-const hostile = hostileFigure('6 adversarial 1 MB runs: worst / ordinary', Object.keys(ADVERSARIAL));
+const hostile = wanted(6) ? hostileFigure('6 adversarial 1 MB runs: worst / ordinary', Object.keys(ADVERSARIAL)) : [];
 // 7: further hostile runs, the same measure
-const further = hostileFigure('7 further hostile 1 MB runs: worst / ordinary', Object.keys(FURTHER_HOSTILE));
+const further = wanted(7) ? hostileFigure('7 further hostile 1 MB runs: worst / ordinary', Object.keys(FURTHER_HOSTILE)) : [];
 
 const machine = { cpus: cpus().length, cpu: cpus()[0]?.model ?? '', memoryGb: Math.round(totalmem() / 2 ** 30), node: process.version, date: new Date().toISOString().slice(0, 10) };
-writeFileSync(join(root, 'bench/results.json'), `${JSON.stringify({ machine, figures, perMb, hostile, further }, null, 2)}\n`);
-console.log(`\nmachine: ${machine.cpus} × ${machine.cpu}, ${machine.memoryGb} GiB, Node ${machine.node}; written to bench/results.json`);
+if (picked.length === 0) {
+  writeFileSync(join(root, 'bench/results.json'), `${JSON.stringify({ machine, figures, perMb, hostile, further }, null, 2)}\n`);
+}
+console.log(`\nmachine: ${machine.cpus} × ${machine.cpu}, ${machine.memoryGb} GiB, Node ${machine.node}${picked.length === 0 ? '; written to bench/results.json' : `; figures ${picked.join(', ')} only, bench/results.json left alone`}`);
