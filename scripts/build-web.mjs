@@ -6,18 +6,14 @@ import { createHash } from 'node:crypto';
 import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { Ajv2020 } from 'ajv/dist/2020.js';
-import standaloneCode from 'ajv/dist/standalone/index.js';
 import { build } from 'esbuild';
+import { precompiledSchema, writeStandaloneValidator } from './standalone-validator.mjs';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 const out = join(root, 'dist/web');
 mkdirSync(out, { recursive: true });
 
-const schema = JSON.parse(readFileSync(join(root, 'schema/config.schema.json'), 'utf8'));
-const ajv = new Ajv2020({ allErrors: true, strict: true, code: { source: true, esm: true } });
-const validator = join(out, 'schema-validator.generated.mjs');
-writeFileSync(validator, `${standaloneCode.default ? standaloneCode.default(ajv, ajv.compile(schema)) : standaloneCode(ajv, ajv.compile(schema))}\nexport { validate as validateSchema };\n`);
+const validator = writeStandaloneValidator(root, join(out, 'schema-validator.generated.mjs'));
 
 const result = await build({
   entryPoints: [join(root, 'src/web/main.ts')],
@@ -28,14 +24,7 @@ const result = await build({
   minify: true,
   write: false,
   legalComments: 'none',
-  plugins: [
-    {
-      name: 'precompiled-schema',
-      setup(b) {
-        b.onResolve({ filter: /schemaValidator\.js$/ }, () => ({ path: validator }));
-      },
-    },
-  ],
+  plugins: [precompiledSchema(validator)],
 });
 const script = result.outputFiles[0].text.replace(/<\/script/gi, '<\\/script');
 const hash = createHash('sha256').update(script).digest('base64');

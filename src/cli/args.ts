@@ -1,11 +1,8 @@
 import yargs from 'yargs';
 import { toolVersion } from '../engine/docs.js';
-import { DEFAULT_BUDGET } from './pool.js';
-import { DEFAULT_MAX_FILE_BYTES } from './read.js';
+import { FORMATS, helpText, OPTIONS, RULES_FORMATS, type Format } from './help.js';
 
-export const FORMATS = ['human', 'lines', 'json', 'sarif', 'checklist', 'html'] as const;
-export type Format = (typeof FORMATS)[number];
-export const RULES_FORMATS = ['human', 'json'] as const;
+export { FORMATS, helpText, RULES_FORMATS, wrapWords, type Format } from './help.js';
 
 /** What the command line asks for, validated. */
 export interface CliOptions {
@@ -40,87 +37,6 @@ export type ParseOutcome = { kind: 'run'; options: CliOptions } | { kind: 'help'
 /** Options that take a value, for "needs a value" and "given twice" messages. */
 const VALUE_OPTIONS = ['format', 'alpha', 'tails', 'max-warnings', 'config', 'stdin-name', 'jobs', 'max-file-bytes', 'memory-budget', 'time-budget', 'output', 'baseline', 'write-baseline'] as const;
 const SHORT: Record<string, string> = { f: 'format', c: 'config', j: 'jobs', o: 'output', q: 'quiet', h: 'help', v: 'version' };
-
-/** The options, once: yargs is configured from this list and the help text is written from it. */
-const OPTIONS: Array<{ name: string; short?: string; type: 'string' | 'number' | 'boolean'; value?: string; describe: string }> = [
-  { name: 'format', short: 'f', type: 'string', value: 'NAME', describe: `output format: ${FORMATS.join(', ')} (default human; "rules" takes human or json)` },
-  { name: 'output', short: 'o', type: 'string', value: 'FILE', describe: 'write the report to FILE (a regular file atomically, through symbolic links; a FIFO or device directly; never over an input file)' },
-  { name: 'quiet', short: 'q', type: 'boolean', describe: 'report errors only: warnings and notes are neither shown nor counted' },
-  { name: 'max-warnings', type: 'number', value: 'N', describe: 'exit 1 when more than N warnings are reported (default: no limit)' },
-  { name: 'baseline', type: 'string', value: 'FILE', describe: 'report only findings that are not in this baseline file, and count only them' },
-  { name: 'write-baseline', type: 'string', value: 'FILE', describe: 'record the current findings in FILE (reasons already given there are kept)' },
-  { name: 'checklist', type: 'boolean', describe: 'also check the write-up against reporting guidelines (on with --format checklist)' },
-  { name: 'alpha', type: 'number', value: 'N', describe: 'significance level where the text and its front matter state none (default .05)' },
-  { name: 'tails', type: 'string', value: 'one|two', describe: 'tails assumed where the text and its front matter say nothing (default two)' },
-  { name: 'config', short: 'c', type: 'string', value: 'FILE', describe: 'use this configuration file instead of searching for one' },
-  { name: 'stdin-name', type: 'string', value: 'NAME', describe: 'file name (and so format) for "-" (default stdin.md)' },
-  { name: 'jobs', short: 'j', type: 'number', value: 'N', describe: 'worker threads (default: chosen from the number and size of the files; a single small document is checked without one)' },
-  { name: 'memory-budget', type: 'number', value: 'MB', describe: `heap a document may use before it is reported as not checked (default ${DEFAULT_BUDGET.memoryMb})` },
-  { name: 'time-budget', type: 'number', value: 'S', describe: `seconds a document may take before it is reported as not checked (default ${DEFAULT_BUDGET.seconds})` },
-  { name: 'max-file-bytes', type: 'number', value: 'N', describe: `skip files larger than N bytes (default ${DEFAULT_MAX_FILE_BYTES}, or maxFileBytes in configuration)` },
-  { name: 'follow-links-outside', type: 'boolean', describe: 'when walking a folder or a glob, follow symbolic links that lead outside it (default: skip them and say so; a link named on the command line is always read)' },
-  { name: 'color', type: 'boolean', describe: 'colour the human format (default: on a terminal, unless NO_COLOR is set); --no-color turns it off' },
-  { name: 'help', short: 'h', type: 'boolean', describe: 'show this help' },
-  { name: 'version', short: 'v', type: 'boolean', describe: 'show the version' },
-];
-
-const COMMANDS: Array<[string, string]> = [
-  ['plumbline [files…]', 'check manuscripts: files, folders (walked for .md .markdown .txt .Rmd .qmd) and globs; "-" reads standard input; after "--" every word is a file'],
-  ['plumbline explain RULE', "print a rule's page"],
-  ['plumbline rules', 'list the rules (--format json: with kind, default level and options schema)'],
-  ['plumbline batch', 'read paths or NDJSON documents {id, text, format?} from standard input, one per line; write one NDJSON line per document'],
-];
-
-const ABOUT = 'Checks the t-tests a manuscript reports: recomputes p from t and df, rounding-aware, and reports each inconsistency at its place.';
-const EXIT_STATUS = 'Exit status: 0 when no finding is at error level and warnings are within --max-warnings; 1 otherwise; 2 for usage, configuration or read problems.';
-
-/** The help text, wrapped at word boundaries to `columns` (two columns when wide enough). */
-export function helpText(columns: number | undefined): string {
-  const width = Math.max(8, Math.min(columns ?? 100, 120));
-  const out: string[] = [...wrapWords(ABOUT, width), ''];
-  const termWidth = Math.max(...COMMANDS.map(([c]) => c.length), ...OPTIONS.map((o) => optionTerm(o).length));
-  const twoColumns = width >= 60;
-  const gutter = Math.min(termWidth + 4, Math.floor(width * 0.45));
-  const entry = (term: string, text: string) => {
-    if (twoColumns) {
-      const lines = wrapWords(text, width - gutter);
-      if (term.length + 2 + 2 <= gutter) {
-        out.push(`  ${term.padEnd(gutter - 2)}${lines[0] ?? ''}`);
-        for (const l of lines.slice(1)) out.push(`${' '.repeat(gutter)}${l}`);
-      } else {
-        out.push(...wrapWords(term, width - 2).map((l) => `  ${l}`));
-        for (const l of lines) out.push(`${' '.repeat(gutter)}${l}`);
-      }
-    } else {
-      out.push(...wrapWords(term, width - 2).map((l) => `  ${l}`));
-      out.push(...wrapWords(text, width - 6).map((l) => `      ${l}`));
-    }
-  };
-  out.push('Usage:');
-  for (const [c, d] of COMMANDS) entry(c, d);
-  out.push('', 'Options:');
-  for (const o of OPTIONS) entry(optionTerm(o), o.describe);
-  out.push('', ...wrapWords(EXIT_STATUS, width));
-  return `${out.join('\n')}\n`;
-}
-
-const optionTerm = (o: (typeof OPTIONS)[number]) => `${o.short ? `-${o.short}, ` : ''}--${o.name}${o.value ? ` ${o.value}` : ''}`;
-
-/** Words into lines of at most `width` characters; a word is never split (one longer than the width stands alone). */
-export function wrapWords(text: string, width: number): string[] {
-  const lines: string[] = [];
-  let current = '';
-  for (const word of text.split(/\s+/).filter(Boolean)) {
-    if (current === '') current = word;
-    else if (current.length + 1 + word.length <= width) current += ` ${word}`;
-    else {
-      lines.push(current);
-      current = word;
-    }
-  }
-  if (current !== '') lines.push(current);
-  return lines;
-}
 
 function parser() {
   let y = yargs()

@@ -28,7 +28,7 @@ interface Line {
  * the stream. A summary goes to standard error. Exit 0 unless a
  * line could not be checked (2: a blank line too) or a document had an error-level finding (1).
  */
-export async function runBatch(io: Io, jobFor: JobFor, threads: number, budget: Budget = DEFAULT_BUDGET, maxBytes = DEFAULT_MAX_FILE_BYTES): Promise<number> {
+export async function runBatch(io: Io, jobFor: JobFor, threads: number | 'auto', budget: Budget = DEFAULT_BUDGET, maxBytes = DEFAULT_MAX_FILE_BYTES): Promise<number> {
   const ids: Line['id'][] = [];
   let documents = 0;
   let results = 0;

@@ -1,5 +1,5 @@
 #!/usr/bin/env node
-import { run } from './run.js';
+import { quickAnswer } from './quick.js';
 
 /**
  * Standard output that stops quietly when its reader goes away (`| head`, `| grep -m1`,
@@ -36,15 +36,22 @@ function writeStdout(s: string): void | Promise<void> {
   });
 }
 
-process.exitCode = await run(process.argv.slice(2), {
-  stdout: writeStdout,
-  stderr: (s) => {
-    process.stderr.write(s);
-  },
-  stdin: process.stdin,
-  cwd: process.cwd(),
-  env: process.env,
-  isTTY: process.stdout.isTTY === true,
-  stderrIsTTY: process.stderr.isTTY === true,
-  columns: process.stdout.columns,
-});
+const argv = process.argv.slice(2);
+// --version and --help alone are answered before the checker, yargs and the formatters load
+const quick = quickAnswer(argv, process.stdout.columns);
+if (quick !== undefined) await writeStdout(quick);
+else {
+  const { run } = await import('./run.js');
+  process.exitCode = await run(argv, {
+    stdout: writeStdout,
+    stderr: (s) => {
+      process.stderr.write(s);
+    },
+    stdin: process.stdin,
+    cwd: process.cwd(),
+    env: process.env,
+    isTTY: process.stdout.isTTY === true,
+    stderrIsTTY: process.stderr.isTTY === true,
+    columns: process.stdout.columns,
+  });
+}

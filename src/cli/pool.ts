@@ -3,24 +3,14 @@ import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import { checkSource, type CheckOptions, type FileReport } from '../engine/index.js';
+import { DEFAULT_BUDGET, type Budget } from './defaults.js';
 
 /** A document to check, or one that could not be read (kept in order, reported as such). */
 export type Job = { path: string; source: string; options: CheckOptions } | { path: string; error: string };
 
 export type Outcome = { report: FileReport } | { error: string };
 
-/**
- * What one document may cost. A document over either budget is reported as not checked, with
- * the reason, and every other document is still checked: each is checked on a worker thread
- * whose heap is limited to `memoryMb`, and a worker that runs past `seconds` is stopped and
- * replaced.
- */
-export interface Budget {
-  memoryMb: number;
-  seconds: number;
-}
-
-export const DEFAULT_BUDGET: Budget = { memoryMb: 2048, seconds: 120 };
+export { DEFAULT_BUDGET, type Budget } from './defaults.js';
 
 /**
  * A single document up to this size is checked in this thread, without a worker's start-up
@@ -31,14 +21,42 @@ export const DEFAULT_BUDGET: Budget = { memoryMb: 2048, seconds: 120 };
 export const IN_THREAD_MAX_CHARS = 1024 * 1024;
 
 /**
+ * Documents a worker holds at once: the one it checks and the next, so it never waits for this
+ * thread between two documents (a reply, the next message). Each document still has its own
+ * time budget, started when the one before it is done.
+ */
+export const IN_FLIGHT_PER_WORKER = 2;
+
+/**
+ * Text each worker thread should have to check before another one is started. A worker costs
+ * its start (loading the bundled checker, figure 11 of `npm run bench`: some 0.1–0.2 s on a
+ * 2-core machine) and a cold start of the compiled code, and on a machine with few cores it
+ * competes with this thread, which reads the files and writes the report. At some 0.7 MB/s per
+ * core (figure 1's document size and rate), 1 MiB is about 1.5 s of checking: ten times the
+ * start, so an added worker always pays for itself.
+ */
+export const MIN_CHARS_PER_WORKER = 1024 * 1024;
+
+/**
+ * The worker threads a run starts for `chars` characters of text in `documents` documents, on
+ * `cores` cores: one per MIN_CHARS_PER_WORKER of text, at least one, at most one per core and
+ * one per document. So a few or small files are checked by one worker, as fast as `--jobs 1`.
+ */
+export function threadsFor(documents: number, chars: number, cores = availableParallelism()): number {
+  return Math.max(1, Math.min(cores, documents, Math.floor(chars / MIN_CHARS_PER_WORKER)));
+}
+
+/**
  * Checks jobs and hands each outcome to `emit` in input order, as soon as it and every earlier
  * one are done, so output stays deterministic and only out-of-order outcomes are held. Documents
- * are checked on `threads` worker threads (at least one) within `budget`, except a lone small
- * document given as a list, which is checked in this thread. Resolves when all are emitted.
+ * are checked on at most `threads` worker threads within `budget`, except a lone small document
+ * given as a list, which is checked in this thread. `threads` 'auto' starts one worker and adds
+ * one each time the text read so far gives every worker MIN_CHARS_PER_WORKER (a stream's size
+ * is known only as it is read), up to the cores. Resolves when all are emitted.
  */
 export async function checkAll(
   jobs: AsyncIterable<Job> | Iterable<Job>,
-  threads: number,
+  threads: number | 'auto',
   emit: (o: Outcome, index: number) => void | Promise<void>,
   budget: Budget = DEFAULT_BUDGET,
 ): Promise<void> {
@@ -54,11 +72,13 @@ export async function checkAll(
     }
     return;
   }
-  const size = Math.max(1, Math.min(threads, availableParallelism(), list?.length ?? Number.POSITIVE_INFINITY));
+  const cores = availableParallelism();
+  const limit = Math.max(1, Math.min(threads === 'auto' ? cores : threads, list?.length ?? Number.POSITIVE_INFINITY));
   const pending = new Map<number, Outcome>();
   let nextToEmit = 0;
   let submitted = 0;
   let exhausted = false;
+  let charsRead = 0;
   const slots = new Set<Slot>();
   const flush = async () => {
     while (pending.has(nextToEmit)) {
@@ -78,65 +98,92 @@ export async function checkAll(
           .then(() => (done() ? resolve() : feed(slot)))
           .catch(reject);
       };
-      /** A worker for a slot, replaced after it is stopped or runs out of memory. */
+      /** The time budget of the slot's first document, which its worker is checking now. */
+      const arm = (slot: Slot) => {
+        clearTimeout(slot.timer);
+        const head = slot.queue[0];
+        if (head === undefined) return;
+        slot.timer = setTimeout(() => {
+          if (slot.queue[0] !== head) return;
+          replace(slot, `took longer than the time budget of ${budget.seconds} s (--time-budget)`);
+        }, budget.seconds * 1000);
+      };
+      /**
+       * The slot's worker stopped on its first document (out of memory, over time, crashed):
+       * that document is reported as not checked and the documents queued behind it go to a
+       * new worker, so none is lost or checked twice.
+       */
+      const replace = (slot: Slot, why: string) => {
+        clearTimeout(slot.timer);
+        const head = slot.queue.shift();
+        const old = slot.worker;
+        start(slot);
+        void old?.terminate();
+        if (head !== undefined) settle(head.index, { error: `not checked: ${why}` }, slot);
+      };
+      /** A worker for a slot; it asks for work when it has loaded (the time budgets start only then). */
       const start = (slot: Slot) => {
         const w = new Worker(workerFile, { resourceLimits: { maxOldGenerationSizeMb: budget.memoryMb, maxYoungGenerationSizeMb: 64 } });
         slot.worker = w;
         slot.ready = false;
-        w.on('message', (m: { ready?: boolean; index: number; report?: FileReport; error?: string }) => {
+        w.on('message', (m: { ready?: boolean; index: number; report?: Omit<FileReport, 'source'>; error?: string }) => {
           if (slot.worker !== w) return;
           if (m.ready) {
             slot.ready = true;
+            // documents left by a worker that was replaced go first, in their order
+            for (const q of slot.queue) w.postMessage({ index: q.index, ...q.job });
+            arm(slot);
             feed(slot).catch(reject);
             return;
           }
-          if (slot.job === undefined || m.index !== slot.job) return;
-          clearTimeout(slot.timer);
-          slot.job = undefined;
-          settle(m.index, m.report ? { report: m.report } : { error: m.error ?? 'unknown error' }, slot);
+          const head = slot.queue[0];
+          if (head === undefined || m.index !== head.index) return;
+          slot.queue.shift();
+          arm(slot);
+          // the text is not sent back: it is the one sent
+          settle(m.index, m.report ? { report: { ...m.report, source: head.job.source } } : { error: m.error ?? 'unknown error' }, slot);
         });
         w.on('error', (e: Error & { code?: string }) => {
           if (slot.worker !== w) return;
-          const index = slot.job;
-          clearTimeout(slot.timer);
-          slot.job = undefined;
-          void w.terminate();
-          start(slot);
-          if (index === undefined) return; // the new worker asks for work when it is ready
-          const why = e.code === 'ERR_WORKER_OUT_OF_MEMORY' ? `needed more than the memory budget of ${budget.memoryMb} MB (--memory-budget)` : `the check stopped: ${e.message}`;
-          settle(index, { error: `not checked: ${why}` }, slot);
+          replace(slot, e.code === 'ERR_WORKER_OUT_OF_MEMORY' ? `needed more than the memory budget of ${budget.memoryMb} MB (--memory-budget)` : `the check stopped: ${e.message}`);
         });
       };
-      const feed = async (slot: Slot): Promise<void> => {
-        if (!slot.ready || slot.job !== undefined || exhausted) return;
-        const step = await iterator.next();
-        if (step.done) {
-          exhausted = true;
-          if (done()) resolve();
-          return;
-        }
-        const index = submitted;
-        submitted += 1;
-        if ('error' in step.value) {
-          settle(index, { error: step.value.error }, slot);
-          return;
-        }
-        slot.job = index;
-        slot.timer = setTimeout(() => {
-          if (slot.job !== index) return;
-          slot.job = undefined;
-          const old = slot.worker;
+      const grow = () => {
+        const wanted = threads === 'auto' ? Math.min(limit, Math.max(1, Math.floor(charsRead / MIN_CHARS_PER_WORKER))) : limit;
+        while (slots.size < wanted) {
+          const slot: Slot = { queue: [] };
+          slots.add(slot);
           start(slot);
-          void old?.terminate();
-          settle(index, { error: `not checked: took longer than the time budget of ${budget.seconds} s (--time-budget)` }, slot);
-        }, budget.seconds * 1000);
-        slot.worker?.postMessage({ index, ...step.value });
+        }
       };
-      for (let i = 0; i < size; i++) {
-        const slot: Slot = {};
-        slots.add(slot);
-        start(slot); // it asks for work when it is ready
-      }
+      const feed = async (slot: Slot): Promise<void> => {
+        if (slot.pulling) return;
+        slot.pulling = true;
+        try {
+          while (slot.ready && slot.queue.length < IN_FLIGHT_PER_WORKER && !exhausted) {
+            const step = await iterator.next();
+            if (step.done) {
+              exhausted = true;
+              if (done()) resolve();
+              return;
+            }
+            const index = submitted;
+            submitted += 1;
+            if ('error' in step.value) {
+              settle(index, { error: step.value.error }, slot);
+              continue;
+            }
+            charsRead += step.value.source.length;
+            slot.queue.push({ index, job: step.value });
+            slot.worker?.postMessage({ index, ...step.value });
+            if (slot.queue.length === 1) arm(slot);
+            grow();
+          }
+        } finally {
+          slot.pulling = false;
+        }
+      };
+      grow();
     });
   } finally {
     for (const s of slots) clearTimeout(s.timer);
@@ -146,10 +193,12 @@ export async function checkAll(
 
 interface Slot {
   worker?: Worker;
-  /** Its worker has loaded and can take a document. */
+  /** Its worker has loaded and can take documents. */
   ready?: boolean;
-  /** The index of the document it is checking. */
-  job?: number;
+  /** The documents sent to its worker and not yet answered, in order: the first is being checked. */
+  queue: Array<{ index: number; job: { path: string; source: string; options: CheckOptions } }>;
+  /** A feed is waiting for the next job (one at a time per slot). */
+  pulling?: boolean;
   timer?: NodeJS.Timeout;
 }
 

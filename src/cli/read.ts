@@ -1,10 +1,10 @@
 import { readRegularFile } from '../config/index.js';
 import { decodeBytes } from '../engine/index.js';
 import type { ReadNote } from '../engine/index.js';
+import { DEFAULT_MAX_FILE_BYTES } from './defaults.js';
 import { describeError } from './files.js';
 
-/** Files above this size are skipped unless configured otherwise (`maxFileBytes`, `--max-file-bytes`). */
-export const DEFAULT_MAX_FILE_BYTES = 50 * 1024 * 1024;
+export { DEFAULT_MAX_FILE_BYTES } from './defaults.js';
 
 export type ReadOutcome = { ok: true; text: string; notes: ReadNote[] } | { ok: false; message: string };
 

@@ -2,9 +2,11 @@ import type { Readable } from 'node:stream';
 import { resolve } from 'node:path';
 import { ruleDoc } from '../engine/docs.js';
 import { RULE_IDS, RULES, ruleById, type CheckOptions } from '../engine/index.js';
-import { CAUTIONS, countRun, say, terminalSafe, formatChecklist, formatHtml, formatHuman, formatJsonChunks, formatLines, formatRulesJson, formatSarifChunks, type RunReport } from '../report/index.js';
+// the formatters load when the run knows which one it needs (write, below): start-up stays small
+import { CAUTIONS, countRun, type RunReport } from '../report/types.js';
+import { say, terminalSafe } from '../report/text.js';
 import { parseArguments, type CliOptions } from './args.js';
-import { Presets, SingleBar } from 'cli-progress';
+import type { SingleBar } from 'cli-progress';
 import { applyBaseline, baselineText, BaselineError, readBaseline, recordBaseline, type Baseline } from './baseline.js';
 import { runBatch } from './batch.js';
 import { describeError } from './files.js';
@@ -13,7 +15,6 @@ import { checkFiles, configMessage } from './runner.js';
 import { ConfigError, ConfigFinder, readConfigFile, type Config } from '../config/index.js';
 import { DEFAULT_MAX_FILE_BYTES, type ReadOutcome } from './read.js';
 import { DEFAULT_BUDGET, type Budget, type Job } from './pool.js';
-import { availableParallelism } from 'node:os';
 
 export interface Io {
   /** Write to standard output; resolves once the stream can take more (back-pressure). */
@@ -50,7 +51,7 @@ export async function run(argv: string[], rawIo: Io): Promise<number> {
   const options = parsed.options;
 
   if (options.command === 'rules') {
-    if (options.format === 'json') await io.stdout(formatRulesJson(RULES.map((r) => ({ id: r.id, summary: r.summary, kind: r.kind, defaultLevel: r.defaultLevel, optionsSchema: r.optionsSchema }))));
+    if (options.format === 'json') await io.stdout((await import('../report/rules.js')).formatRulesJson(RULES.map((r) => ({ id: r.id, summary: r.summary, kind: r.kind, defaultLevel: r.defaultLevel, optionsSchema: r.optionsSchema }))));
     else for (const r of RULES) await io.stdout(`${r.id.padEnd(30)} ${String(r.defaultLevel).padEnd(8)} ${r.summary}\n`);
     return EXIT.clean;
   }
@@ -162,6 +163,8 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
   // standard input is read up to the size limit and no further (`- < /dev/zero` must end)
   const stdin = options.stdin ? { name: options.stdinName, ...(await readAtMost(io.stdin, options.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES)) } : undefined;
   let bar: SingleBar | undefined;
+  let barLoading: Promise<void> | undefined;
+  let latest = 0;
   const run = await checkFiles(options.files, {
     cwd: io.cwd,
     ...(options.alpha !== undefined ? { alpha: options.alpha } : {}),
@@ -178,15 +181,21 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
     errorsOnly: options.quiet,
     withRulePages: options.format === 'sarif',
     onProgress: (done, total) => {
-      // a progress bar on standard error for long runs, only on a terminal and never in CI
+      // a progress bar on standard error for long runs, only on a terminal and never in CI; its
+      // module loads then, and the bar starts at the count reached by the time it has loaded
       if (done === 1 && io.stderrIsTTY && !io.env.CI && total >= PROGRESS_FROM) {
-        bar = new SingleBar({ stream: process.stderr, format: 'checking {bar} {value}/{total} files', clearOnComplete: true, hideCursor: true }, Presets.shades_classic);
-        bar.start(total, 0);
+        barLoading = import('cli-progress').then(({ Presets, SingleBar }) => {
+          if (latest >= total) return;
+          bar = new SingleBar({ stream: process.stderr, format: 'checking {bar} {value}/{total} files', clearOnComplete: true, hideCursor: true }, Presets.shades_classic);
+          bar.start(total, latest);
+        });
       }
+      latest = done;
       bar?.update(done);
       if (done === total) bar?.stop();
     },
   });
+  await barLoading;
   if (run.outputClash !== undefined) {
     io.stderr(`plumbline: refusing to write over an input file: ${run.outputClash} (write the report outside the files checked, or under a name plumbline does not read, such as report.html)\n`);
     return REFUSED;
@@ -240,23 +249,28 @@ async function write(report: RunReport, options: CliOptions, io: Io, toFile: boo
   const shown = counts.error + counts.warning + counts.note;
   switch (options.format) {
     // JSON and SARIF in chunks: a report of some 200,000 results is longer than any one string
-    case 'json':
+    case 'json': {
+      const { formatJsonChunks } = await import('../report/json.js');
       for (const chunk of formatJsonChunks(report)) await io.stdout(chunk);
       return;
-    case 'sarif':
+    }
+    case 'sarif': {
+      const { formatSarifChunks } = await import('../report/sarif.js');
       for (const chunk of formatSarifChunks(report, io.cwd)) await io.stdout(chunk);
       return;
+    }
     case 'checklist':
-      return io.stdout(formatChecklist(report));
+      return io.stdout((await import('../report/checklist.js')).formatChecklist(report));
     case 'html':
-      return io.stdout(formatHtml(report));
+      return io.stdout((await import('../report/html.js')).formatHtml(report));
     case 'lines':
-      await io.stdout(formatLines(report));
+      await io.stdout((await import('../report/lines.js')).formatLines(report));
       // the cautions once, for a person at a terminal, and only when there is something to weigh
       if (shown > 0 && io.stderrIsTTY) io.stderr(`${CAUTIONS.join(' ')}\n`);
       return;
     default: {
       const color = options.color ?? (io.isTTY && !('NO_COLOR' in io.env && io.env.NO_COLOR !== ''));
+      const { formatHuman } = await import('../report/human.js');
       // a report written to a file names the files not checked too: standard error may be gone by the time it is read
       return io.stdout(formatHuman(report, { color, width: io.columns ?? 100, cautions: shown > 0, listFailures: toFile }));
     }
@@ -306,7 +320,7 @@ async function batch(options: CliOptions, io: Io, writes: string[]): Promise<num
     if (!outcome.ok) return { path, error: outcome.message };
     return { path, source: outcome.text, options: { ...base, config, ...(outcome.notes.length > 0 ? { readNotes: outcome.notes } : {}) } };
   };
-  return runBatch(io, jobFor, options.jobs ?? availableParallelism(), budgetOf(options), options.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES);
+  return runBatch(io, jobFor, options.jobs ?? 'auto', budgetOf(options), options.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES);
 }
 
 function budgetOf(options: CliOptions): Budget {

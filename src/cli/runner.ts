@@ -1,4 +1,3 @@
-import { availableParallelism } from 'node:os';
 import { dirname, isAbsolute, relative, resolve } from 'node:path';
 import { ConfigError, ConfigFinder, readConfigFile, type Config } from '../config/index.js';
 import { ruleDoc, rulePageUrl, toolVersion } from '../engine/docs.js';
@@ -7,7 +6,7 @@ import type { RuleInfo, RunReport } from '../report/index.js';
 import { applyBaseline, type Baseline } from './baseline.js';
 import { expandArguments } from './files.js';
 import { identity } from './output.js';
-import { checkAll, DEFAULT_BUDGET, type Budget, type Job } from './pool.js';
+import { checkAll, DEFAULT_BUDGET, threadsFor, type Budget, type Job } from './pool.js';
 import { DEFAULT_MAX_FILE_BYTES, decodeManuscript, readManuscript, type ReadOutcome } from './read.js';
 
 /** What a file-level run is asked to do (the command line's options, as data). */
@@ -171,14 +170,10 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
   return { report: { tool: { name: 'plumbline', version: toolVersion() }, files: shown, failures, rules }, unfiltered: reports, staleBaselineEntries: stale, skippedLinks };
 }
 
-/**
- * More than one worker thread only when they pay: each costs a module load (measured in `npm run
- * bench`), so few or small files share one.
- */
+/** Worker threads by the number and size of the documents (threadsFor in pool.ts). */
 function defaultThreads(jobs: readonly Job[]): number {
-  const bytes = jobs.reduce((sum, j) => sum + ('source' in j ? j.source.length : 0), 0);
-  if (jobs.length < 8 || bytes < 512 * 1024) return 1;
-  return availableParallelism();
+  const chars = jobs.reduce((sum, j) => sum + ('source' in j ? j.source.length : 0), 0);
+  return threadsFor(jobs.filter((j) => 'source' in j).length, chars);
 }
 
 /** A configuration problem as a failure: the file and place, the problem in words. */

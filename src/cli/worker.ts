@@ -1,7 +1,11 @@
 import { parentPort } from 'node:worker_threads';
 import { checkSource, type CheckOptions } from '../engine/index.js';
 
-/** A worker of the batch pool: checks one document per message, in the order asked. */
+/**
+ * A worker of the pool (src/cli/pool.ts): checks one document per message, in the order sent
+ * (the pool keeps at most two waiting), and answers with the report without its text, which
+ * the pool already holds: a 10 KB document's text is a good part of what would be copied back.
+ */
 interface Job {
   index: number;
   path: string;
@@ -14,7 +18,8 @@ parentPort?.postMessage({ ready: true });
 
 parentPort?.on('message', (job: Job) => {
   try {
-    parentPort?.postMessage({ index: job.index, report: checkSource(job.path, job.source, job.options) });
+    const { source: _source, ...report } = checkSource(job.path, job.source, job.options);
+    parentPort?.postMessage({ index: job.index, report });
   } catch (e) {
     parentPort?.postMessage({ index: job.index, error: e instanceof Error ? e.message : String(e) });
   }

@@ -4,9 +4,9 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { statDense } from '../../bench/corpus.js';
-import { cli as inProcess } from './harness.js';
+import { BIN, cli as inProcess } from './harness.js';
 
-const cli = join(process.cwd(), 'dist/src/cli/main.js');
+const cli = BIN;
 const lines = (s: string) => s.split('\n').filter(Boolean);
 
 function corpus(n: number): { dir: string; paths: string[] } {

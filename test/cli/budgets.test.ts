@@ -3,6 +3,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { BIN } from './harness.js';
 
 /**
  * One document never sinks the run: each is checked on a worker thread within a memory and a
@@ -11,7 +12,7 @@ import { describe, expect, it } from 'vitest';
  * limit and no further. Through the installed command (the worker is the compiled one).
  * Every manuscript here is invented.
  */
-const main = resolve(import.meta.dirname, '../../dist/src/cli/main.js');
+const main = BIN;
 const GOOD = 'Recall improved with spacing, t(23) = 2.47, p = .021.\n';
 /** About 5 MB and 120,000 results: checking it needs more than 64 MB and more than a second. */
 const heavy = () => Array.from({ length: 120_000 }, (_, i) => `Item ${i} changed, t(40) = 3.10, p = .20.\n\n`).join('');

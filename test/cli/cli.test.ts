@@ -3,7 +3,7 @@ import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { cli } from './harness.js';
+import { BIN, cli } from './harness.js';
 import { RULES } from '../../src/engine/index.js';
 
 function tempTree(files: Record<string, string>): string {
@@ -202,9 +202,9 @@ describe('colour', () => {
 
 describe('the installed command', () => {
   it('runs from dist as `plumbline` would after npm ci', () => {
-    const result = spawnSync(process.execPath, ['dist/src/cli/main.js', 'fixtures/demo/standing-desks.md', '--format', 'sarif'], { encoding: 'utf8' });
+    const result = spawnSync(process.execPath, [BIN, 'fixtures/demo/standing-desks.md', '--format', 'sarif'], { encoding: 'utf8' });
     expect(result.status).toBe(1);
     expect(JSON.parse(result.stdout).version).toBe('2.1.0');
-    expect(execFileSync(process.execPath, ['dist/src/cli/main.js', '--version'], { encoding: 'utf8' }).trim()).toMatch(/^\d+\.\d+\.\d+$/);
+    expect(execFileSync(process.execPath, [BIN, '--version'], { encoding: 'utf8' }).trim()).toMatch(/^\d+\.\d+\.\d+$/);
   });
 });

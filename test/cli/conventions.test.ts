@@ -6,7 +6,7 @@ import { Ajv2020 } from 'ajv/dist/2020.js';
 import { describe, expect, it } from 'vitest';
 import { checkFiles, formatJson, readBaseline } from '../../src/index.js';
 import { RULES } from '../../src/engine/index.js';
-import { cli } from './harness.js';
+import { BIN, cli } from './harness.js';
 
 /**
  * The command line behaves as users of command-line linters expect: output through links and
@@ -16,7 +16,7 @@ import { cli } from './harness.js';
  */
 
 const root = resolve(import.meta.dirname, '../..');
-const main = join(root, 'dist/src/cli/main.js');
+const main = BIN;
 
 /** An error: p = .20 cannot follow from t(40) = 3.10 (two-tailed p ≈ .0035; common practice, no source). */
 const WRONG = 'Errors rose after the redesign, t(40) = 3.10, p = .20.\n';
@@ -457,7 +457,7 @@ describe('a package ready to publish', () => {
     const r = spawnSync('npm', ['pack', '--dry-run', '--json', '--ignore-scripts'], { cwd: root, encoding: 'utf8' });
     expect(r.status, r.stderr).toBe(0);
     const files = (JSON.parse(r.stdout) as Array<{ files: Array<{ path: string }> }>)[0]!.files.map((f) => f.path);
-    for (const f of ['dist/web/index.html', 'docs/output-formats.md', 'schema/report.schema.json', 'schema/config.schema.json', 'schema/baseline.schema.json', 'schema/rules.schema.json', 'LICENSE', 'dist/src/index.d.ts', 'dist/src/cli/main.js'])
+    for (const f of ['dist/web/index.html', 'docs/output-formats.md', 'schema/report.schema.json', 'schema/config.schema.json', 'schema/baseline.schema.json', 'schema/rules.schema.json', 'LICENSE', 'dist/src/index.d.ts', 'dist/bin/plumbline.js', 'dist/bin/worker.js'])
       expect(files).toContain(f);
     expect(files.filter((f) => f.startsWith('test/') || f.startsWith('src/'))).toEqual([]);
   }, 60_000);

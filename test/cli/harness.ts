@@ -1,5 +1,10 @@
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
 import { Readable } from 'node:stream';
 import { run } from '../../src/cli/run.js';
+
+/** The command as installed: package.json's `bin`, the bundle `npm run build` writes (scripts/build-cli.mjs). */
+export const BIN = resolve(import.meta.dirname, '../..', (JSON.parse(readFileSync(resolve(import.meta.dirname, '../../package.json'), 'utf8')) as { bin: { plumbline: string } }).bin.plumbline);
 
 /** What one in-process run of the CLI gave. */
 export interface Outcome {

@@ -10,7 +10,7 @@ import { chmodSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSyn
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { cli, type Outcome } from './harness.js';
+import { BIN, cli, type Outcome } from './harness.js';
 
 function tempDir(): string {
   return mkdtempSync(join(tmpdir(), 'plumbline-hostile-'));
@@ -111,7 +111,7 @@ describe('bad input, each class', () => {
     let out: Outcome;
     if (process.getuid?.() === 0) {
       const drop = '-dac_override,-dac_read_search';
-      const r = spawnSync('setpriv', [`--inh-caps=${drop}`, `--bounding-set=${drop}`, process.execPath, resolve('dist/src/cli/main.js'), 'a.md', 'locked.md', '-f', 'json'], { cwd: dir, encoding: 'utf8' });
+      const r = spawnSync('setpriv', [`--inh-caps=${drop}`, `--bounding-set=${drop}`, process.execPath, BIN, 'a.md', 'locked.md', '-f', 'json'], { cwd: dir, encoding: 'utf8' });
       out = { code: r.status ?? -1, stdout: r.stdout, stderr: r.stderr };
     } else {
       out = await cli(['a.md', 'locked.md', '-f', 'json'], { cwd: dir });
@@ -291,7 +291,7 @@ describe('safety', () => {
     for (let i = 0; i < 40; i++) writeFileSync(join(copy, `copy-${i}.md`), readFileSync(join(fixtures, 'manuscript.md')));
     const log = join(work, 'escape.log');
     const before = sum(copy);
-    const r = spawnSync(process.execPath, ['--import', join(fixtures, 'no-escape.mjs'), resolve('dist/src/cli/main.js'), '.', '-j', '2', '-f', 'json'], {
+    const r = spawnSync(process.execPath, ['--import', join(fixtures, 'no-escape.mjs'), BIN, '.', '-j', '2', '-f', 'json'], {
       cwd: copy,
       env: { ...process.env, NO_ESCAPE_LOG: log },
       encoding: 'utf8',
