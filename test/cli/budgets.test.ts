@@ -1,7 +1,7 @@
 import { spawn, spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { BIN } from './harness.js';
 
@@ -42,6 +42,18 @@ describe('per-document budgets', () => {
     expect(report.failures).toEqual([{ path: 'big.md', message }]);
     expect(r.stderr).toBe(`plumbline: big.md: ${message}\n`);
     expect(r.stderr).not.toMatch(/\n\s+at /);
+  }, 120_000);
+
+  it('with one worker, the document queued behind one over its time budget goes to the new worker and is checked once', () => {
+    const dir = corpus();
+    const r = spawnSync(process.execPath, [main, 'a.md', 'big.md', 'c.md', '-f', 'json', '--jobs', '1', '--time-budget', '1'], { cwd: dir, encoding: 'utf8', maxBuffer: 1 << 26 });
+    expect(r.status).toBe(2);
+    const report = JSON.parse(r.stdout) as Report;
+    expect(report.files.map((f) => [f.path, f.results.length])).toEqual([
+      ['a.md', 1],
+      ['c.md', 1],
+    ]);
+    expect(report.failures).toEqual([{ path: 'big.md', message: 'not checked: took longer than the time budget of 1 s (--time-budget)' }]);
   }, 120_000);
 
   it('batch mode: the documents after one over budget still come back, one line each, in order', () => {
