@@ -22,7 +22,7 @@ export const OPTIONS: Array<{ name: string; short?: string; type: 'string' | 'nu
   { name: 'tails', type: 'string', value: 'one|two', describe: 'tails assumed where the text and its front matter say nothing (default two)' },
   { name: 'config', short: 'c', type: 'string', value: 'FILE', describe: 'use this configuration file instead of searching for one' },
   { name: 'stdin-name', type: 'string', value: 'NAME', describe: 'file name (and so format) for "-" (default stdin.md)' },
-  { name: 'jobs', short: 'j', type: 'number', value: 'N', describe: 'worker threads (default: chosen from the number and size of the files; a single small document is checked without one)' },
+  { name: 'jobs', short: 'j', type: 'number', value: 'N', describe: 'worker threads (default: one per MiB of text, at most one per core and per document; batch adds them as the text read grows; a single small document is checked without one)' },
   { name: 'memory-budget', type: 'number', value: 'MB', describe: `heap a document may use before it is reported as not checked (default ${DEFAULT_BUDGET.memoryMb})` },
   { name: 'time-budget', type: 'number', value: 'S', describe: `seconds a document may take before it is reported as not checked (default ${DEFAULT_BUDGET.seconds})` },
   { name: 'max-file-bytes', type: 'number', value: 'N', describe: `skip files larger than N bytes (default ${DEFAULT_MAX_FILE_BYTES}, or maxFileBytes in configuration)` },

@@ -29,11 +29,11 @@ export const IN_FLIGHT_PER_WORKER = 2;
 
 /**
  * Text each worker thread should have to check before another one is started. A worker costs
- * its start (loading the bundled checker, figure 11 of `npm run bench`: some 0.1–0.2 s on a
- * 2-core machine) and a cold start of the compiled code, and on a machine with few cores it
- * competes with this thread, which reads the files and writes the report. At some 0.7 MB/s per
- * core (figure 1's document size and rate), 1 MiB is about 1.5 s of checking: ten times the
- * start, so an added worker always pays for itself.
+ * its start (loading the bundled checker) and then runs its code cold for a while, and on a
+ * machine with few cores it competes with this thread, which reads the files and writes the
+ * report. Figure 11 of `npm run bench` measures the start as the text checked in the same time:
+ * some 30 KB on the 2-core machine of DEVELOPERS.md (a 0.5 s start on a busy machine), so 1 MiB
+ * is some thirty starts; the figure's goal keeps that margin at ten or more.
  */
 export const MIN_CHARS_PER_WORKER = 1024 * 1024;
 
