@@ -33,12 +33,14 @@ export interface CliOptions {
   writeBaseline?: string;
   /** Folder walks follow symbolic links that lead outside the folder named (--follow-links-outside). */
   followLinksOutside?: boolean;
+  /** batch: the number of the first input line (a chunk of a larger input keeps the whole input's line numbers). */
+  firstLine?: number;
 }
 
 export type ParseOutcome = { kind: 'run'; options: CliOptions } | { kind: 'help' | 'version'; text: string } | { kind: 'error'; message: string };
 
 /** Options that take a value, for "needs a value" and "given twice" messages. */
-const VALUE_OPTIONS = ['format', 'alpha', 'tails', 'max-warnings', 'config', 'stdin-name', 'jobs', 'max-file-bytes', 'memory-budget', 'time-budget', 'output', 'baseline', 'write-baseline'] as const;
+const VALUE_OPTIONS = ['format', 'alpha', 'tails', 'max-warnings', 'config', 'stdin-name', 'jobs', 'max-file-bytes', 'memory-budget', 'time-budget', 'output', 'baseline', 'write-baseline', 'first-line'] as const;
 const SHORT: Record<string, string> = { f: 'format', c: 'config', j: 'jobs', o: 'output', q: 'quiet', h: 'help', v: 'version' };
 
 /** The options, once: yargs is configured from this list and the help text is written from it. */
@@ -58,6 +60,7 @@ const OPTIONS: Array<{ name: string; short?: string; type: 'string' | 'number' |
   { name: 'memory-budget', type: 'number', value: 'MB', describe: `heap a document may use before it is reported as not checked (default ${DEFAULT_BUDGET.memoryMb})` },
   { name: 'time-budget', type: 'number', value: 'S', describe: `seconds a document may take before it is reported as not checked (default ${DEFAULT_BUDGET.seconds})` },
   { name: 'max-file-bytes', type: 'number', value: 'N', describe: `skip files larger than N bytes (default ${DEFAULT_MAX_FILE_BYTES}, or maxFileBytes in configuration)` },
+  { name: 'first-line', type: 'number', value: 'N', describe: 'batch: number the first input line N in messages and names (default 1), so a chunk of a larger input, checked apart, answers as the whole run would' },
   { name: 'follow-links-outside', type: 'boolean', describe: 'when walking a folder or a glob, follow symbolic links that lead outside it (default: skip them and say so; a link named on the command line is always read)' },
   { name: 'color', type: 'boolean', describe: 'colour the human format (default: on a terminal, unless NO_COLOR is set); --no-color turns it off' },
   { name: 'help', short: 'h', type: 'boolean', describe: 'show this help' },
@@ -163,7 +166,7 @@ export async function parseArguments(argv: string[], columns: number | undefined
     if (typeof parsed[name] === 'boolean') return { kind: 'error', message: `unknown option --no-${name} (only --color, --checklist and --quiet have a --no- form)` };
   }
   // numbers as written: whole numbers in plain digits (yargs would take "", "0x1" or "1e3")
-  for (const [name, short] of [['max-warnings'], ['jobs', 'j'], ['max-file-bytes'], ['memory-budget'], ['time-budget']] as const) {
+  for (const [name, short] of [['max-warnings'], ['jobs', 'j'], ['max-file-bytes'], ['memory-budget'], ['time-budget'], ['first-line']] as const) {
     if (parsed[name] === undefined) continue;
     const raw = rawValue(words, name, short);
     if (raw !== undefined && !/^\d{1,15}$/.test(raw)) parsed[name] = Number.NaN;
@@ -193,6 +196,10 @@ export async function parseArguments(argv: string[], columns: number | undefined
   const timeBudget = num('time-budget');
   if (timeBudget !== undefined && !(Number.isInteger(timeBudget) && timeBudget >= 1))
     return { kind: 'error', message: `--time-budget must be a whole number of seconds, 1 or more; got "${rawValue(words, 'time-budget') ?? ''}"` };
+  const firstLine = num('first-line');
+  if (firstLine !== undefined && !(Number.isInteger(firstLine) && firstLine >= 1))
+    return { kind: 'error', message: `--first-line must be a whole number, 1 or more; got "${rawValue(words, 'first-line') ?? ''}"` };
+  if (firstLine !== undefined && command !== 'batch') return { kind: 'error', message: '--first-line applies to batch only' };
   for (const name of ['output', 'baseline', 'write-baseline', 'config', 'stdin-name'] as const) if (str(name) === '') return { kind: 'error', message: `--${name} needs a value` };
 
   const positional = ((parsed.files as string[] | undefined) ?? []).map(String);
@@ -218,6 +225,7 @@ export async function parseArguments(argv: string[], columns: number | undefined
     ...(str('output') !== undefined ? { output: str('output') as string } : {}),
     ...(typeof parsed.color === 'boolean' ? { color: parsed.color } : {}),
     ...(parsed['follow-links-outside'] === true ? { followLinksOutside: true } : {}),
+    ...(firstLine !== undefined ? { firstLine } : {}),
     ...(str('baseline') !== undefined ? { baseline: str('baseline') as string } : {}),
     ...(str('write-baseline') !== undefined ? { writeBaseline: str('write-baseline') as string } : {}),
   };

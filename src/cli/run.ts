@@ -306,7 +306,7 @@ async function batch(options: CliOptions, io: Io, writes: string[]): Promise<num
     if (!outcome.ok) return { path, error: outcome.message };
     return { path, source: outcome.text, options: { ...base, config, ...(outcome.notes.length > 0 ? { readNotes: outcome.notes } : {}) } };
   };
-  return runBatch(io, jobFor, options.jobs ?? availableParallelism(), budgetOf(options), options.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES);
+  return runBatch(io, jobFor, options.jobs ?? availableParallelism(), budgetOf(options), options.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES, options.firstLine ?? 1);
 }
 
 function budgetOf(options: CliOptions): Budget {
