@@ -6,10 +6,12 @@ import { DEFAULT_MAX_FILE_BYTES } from './read.js';
 export const FORMATS = ['human', 'lines', 'json', 'sarif', 'checklist', 'html'] as const;
 export type Format = (typeof FORMATS)[number];
 export const RULES_FORMATS = ['human', 'json'] as const;
+export const SUMMARY_FORMATS = ['csv', 'html'] as const;
+export const SUMMARY_TABLES = ['rules', 'gaps', 'documents'] as const;
 
 /** What the command line asks for, validated. */
 export interface CliOptions {
-  command: 'check' | 'rules' | 'explain' | 'batch';
+  command: 'check' | 'rules' | 'explain' | 'batch' | 'summarize';
   files: string[];
   /** `-` was given: read standard input. */
   stdin: boolean;
@@ -35,12 +37,15 @@ export interface CliOptions {
   followLinksOutside?: boolean;
   /** batch: the number of the first input line (a chunk of a larger input keeps the whole input's line numbers). */
   firstLine?: number;
+  /** summarize: the format (csv or html) and, for CSV, the table. */
+  summaryFormat?: (typeof SUMMARY_FORMATS)[number];
+  table?: (typeof SUMMARY_TABLES)[number];
 }
 
 export type ParseOutcome = { kind: 'run'; options: CliOptions } | { kind: 'help' | 'version'; text: string } | { kind: 'error'; message: string };
 
 /** Options that take a value, for "needs a value" and "given twice" messages. */
-const VALUE_OPTIONS = ['format', 'alpha', 'tails', 'max-warnings', 'config', 'stdin-name', 'jobs', 'max-file-bytes', 'memory-budget', 'time-budget', 'output', 'baseline', 'write-baseline', 'first-line'] as const;
+const VALUE_OPTIONS = ['format', 'alpha', 'tails', 'max-warnings', 'config', 'stdin-name', 'jobs', 'max-file-bytes', 'memory-budget', 'time-budget', 'output', 'baseline', 'write-baseline', 'first-line', 'table'] as const;
 const SHORT: Record<string, string> = { f: 'format', c: 'config', j: 'jobs', o: 'output', q: 'quiet', h: 'help', v: 'version' };
 
 /** The options, once: yargs is configured from this list and the help text is written from it. */
@@ -60,6 +65,7 @@ const OPTIONS: Array<{ name: string; short?: string; type: 'string' | 'number' |
   { name: 'memory-budget', type: 'number', value: 'MB', describe: `heap a document may use before it is reported as not checked (default ${DEFAULT_BUDGET.memoryMb})` },
   { name: 'time-budget', type: 'number', value: 'S', describe: `seconds a document may take before it is reported as not checked (default ${DEFAULT_BUDGET.seconds})` },
   { name: 'max-file-bytes', type: 'number', value: 'N', describe: `skip files larger than N bytes (default ${DEFAULT_MAX_FILE_BYTES}, or maxFileBytes in configuration)` },
+  { name: 'table', type: 'string', value: 'NAME', describe: `summarize, CSV: ${SUMMARY_TABLES.join(', ')} (default rules)` },
   { name: 'first-line', type: 'number', value: 'N', describe: 'batch: number the first input line N in messages and names (default 1), so a chunk of a larger input, checked apart, answers as the whole run would' },
   { name: 'follow-links-outside', type: 'boolean', describe: 'when walking a folder or a glob, follow symbolic links that lead outside it (default: skip them and say so; a link named on the command line is always read)' },
   { name: 'color', type: 'boolean', describe: 'colour the human format (default: on a terminal, unless NO_COLOR is set); --no-color turns it off' },
@@ -72,6 +78,7 @@ const COMMANDS: Array<[string, string]> = [
   ['plumbline explain RULE', "print a rule's page"],
   ['plumbline rules', 'list the rules (--format json: with kind, default level and options schema)'],
   ['plumbline batch', 'read paths or NDJSON documents {id, text, format?} from standard input, one per line; write one NDJSON line per document'],
+  ['plumbline summarize results.ndjson', "a corpus summary of batch output: findings per 100 results by rule, gaps, each document's counts; CSV (--table) or --format html"],
 ];
 
 const ABOUT = 'Checks the t-tests a manuscript reports: recomputes p from t and df, rounding-aware, and reports each inconsistency at its place.';
@@ -133,7 +140,8 @@ function parser() {
     .command('$0 [files..]', 'check', (c) => c.positional('files', { type: 'string', array: true }))
     .command('explain <rule>', 'explain', (c) => c.positional('rule', { type: 'string', demandOption: true }))
     .command('rules', 'rules')
-    .command('batch', 'batch');
+    .command('batch', 'batch')
+    .command('summarize [files..]', 'summarize', (c) => c.positional('files', { type: 'string', array: true }));
   for (const o of OPTIONS) y = y.option(o.name, { type: o.type, ...(o.short ? { alias: o.short } : {}), ...(o.type !== 'boolean' ? { requiresArg: true } : {}) });
   return y.strict().exitProcess(false);
 }
@@ -174,10 +182,15 @@ export async function parseArguments(argv: string[], columns: number | undefined
   const str = (name: string) => (parsed[name] === undefined ? undefined : String(parsed[name]));
   const num = (name: string) => parsed[name] as number | undefined;
 
-  const format = str('format') ?? 'human';
   const command = String((parsed._ as unknown[])[0] ?? 'check') as CliOptions['command'];
-  const formats: readonly string[] = command === 'rules' ? RULES_FORMATS : FORMATS;
-  if (!formats.includes(format)) return { kind: 'error', message: `--format must be one of ${formats.join(', ')}${command === 'rules' ? ' for "rules"' : ''}; got "${format}"` };
+  const summarize = command === 'summarize';
+  const format = str('format') ?? (summarize ? 'csv' : 'human');
+  const formats: readonly string[] = command === 'rules' ? RULES_FORMATS : summarize ? SUMMARY_FORMATS : FORMATS;
+  if (!formats.includes(format)) return { kind: 'error', message: `--format must be one of ${formats.join(', ')}${command === 'rules' || summarize ? ` for "${command}"` : ''}; got "${format}"` };
+  const table = str('table');
+  if (table !== undefined && !summarize) return { kind: 'error', message: '--table applies to summarize only' };
+  if (table !== undefined && !(SUMMARY_TABLES as readonly string[]).includes(table)) return { kind: 'error', message: `--table must be one of ${SUMMARY_TABLES.join(', ')}; got "${table}"` };
+  if (table !== undefined && format !== 'csv') return { kind: 'error', message: '--table chooses a CSV table; the HTML page holds them all' };
   const tails = str('tails');
   if (tails !== undefined && tails !== 'one' && tails !== 'two') return { kind: 'error', message: `--tails must be one or two; got "${tails}"` };
   const alpha = num('alpha');
@@ -209,7 +222,9 @@ export async function parseArguments(argv: string[], columns: number | undefined
     command,
     files: [...positional.filter((f) => f !== '-'), ...literalFiles],
     stdin,
-    format: format as Format,
+    // summarize has formats of its own (summaryFormat); the report format stays at its default
+    format: (summarize ? 'human' : format) as Format,
+    ...(summarize ? { summaryFormat: format as CliOptions['summaryFormat'] & string, table: (table ?? 'rules') as CliOptions['table'] & string } : {}),
     stdinName: str('stdin-name') ?? 'stdin.md',
     quiet: parsed.quiet === true,
     ...(command === 'explain' ? { rule: String(parsed.rule) } : {}),

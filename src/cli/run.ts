@@ -149,6 +149,11 @@ const settled = (code: number) => (code === REFUSED ? EXIT.trouble : code);
  */
 async function check(options: CliOptions, io: Io, writes: string[], toFile = false): Promise<number> {
   if (options.command === 'batch') return batch(options, io, writes);
+  if (options.command === 'summarize') {
+    // loaded only when asked for: a check run does not pay for it
+    const { runSummarize } = await import('./summarize.js');
+    return runSummarize(options, io, writes);
+  }
 
   let baseline: Baseline | undefined;
   if (options.baseline !== undefined) {
