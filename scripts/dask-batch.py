@@ -42,6 +42,7 @@ import shutil
 import subprocess
 import sys
 import time
+import warnings
 
 SUMMARY = re.compile(r'^plumbline batch: (\d+) lines, (\d+) results, (\d+) findings, (\d+) not checked$')
 HERE = os.path.dirname(os.path.abspath(__file__))
@@ -177,7 +178,7 @@ def main(argv):
     ap.add_argument('--cwd', metavar='DIR', default=os.getcwd(), help='folder the workers run plumbline in; relative paths are read from there (default: the current folder)')
     ap.add_argument('--partition-lines', metavar='N', type=int, default=200, help='input lines per partition (default 200)')
     ap.add_argument('--partition-bytes', metavar='N', type=int, default=8 << 20, help='a partition ends once it holds N bytes (default 8 MiB)')
-    ap.add_argument('--window', metavar='N', type=int, help='partitions submitted and not yet written, at most (default: 4 per worker thread, 4 at least); bounds memory')
+    ap.add_argument('--window', metavar='N', type=int, help='partitions submitted and not yet written, at most (default: 2 per worker thread, 4 at least); bounds the memory of this process and the scheduler')
     ap.add_argument('--retries', metavar='N', type=int, default=2, help='times a failed partition is run again (default 2); a lost worker\'s partitions are rescheduled by Dask besides')
     ap.add_argument('--total', metavar='N', type=int, help='number of input lines, for the time left when standard input is a pipe')
     ap.add_argument('--progress-seconds', metavar='S', type=float, default=10.0, help='seconds between progress lines (default 10; 0: after every partition)')
@@ -199,6 +200,10 @@ def main(argv):
         sys.stderr.write('dask-batch.py: Dask distributed is not installed (Debian: apt-get install python3-distributed)\n')
         return 2
 
+    # Each partition travels inside its task, so that the scheduler still holds it when the worker
+    # it went to dies and can hand it to another; scattered data would die with that worker. Dask
+    # warns about task arguments over 1 MiB for that reason; here it is the point.
+    warnings.filterwarnings('ignore', message='Large object of size', category=UserWarning)
     stdin = sys.stdin.buffer
     total = args.total if args.total is not None else count_lines(stdin)
     cluster = None
@@ -226,7 +231,7 @@ def run(client, as_completed, command, extra, args, stdin, total):
         described = '; '.join(f'{w}: {v}' for w, v in sorted(versions.items()))
         sys.stderr.write(f'dask-batch.py: the workers must all run the same plumbline ({described})\n')
         return 2
-    window = args.window or max(4, 4 * threads)
+    window = args.window or max(4, 2 * threads)
     progress = Progress(args.progress_seconds, total)
     out = sys.stdout.buffer
     source = partitions(stdin, args.partition_lines, args.partition_bytes)
