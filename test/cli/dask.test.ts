@@ -148,7 +148,7 @@ describe('scripts/dask-batch.py on Dask distributed', () => {
   it.skipIf(!hasDask && !required)('--workers N starts a local cluster on loopback with the same output (skipped without python3-distributed)', async () => {
     const input = corpus(150);
     const expected = single(input);
-    const run = launch(PYTHON, [SCRIPT, '--workers', '2', '--plumbline', PLUMBLINE, '--partition-lines', '20'], input);
+    const run = launch(PYTHON, [SCRIPT, '--workers', '2', '--plumbline', PLUMBLINE, '--partition-lines', '50'], input);
     await run.out.done;
     expect(run.out.stdout).toBe(expected.stdout);
     expect(run.out.code).toBe(expected.status);

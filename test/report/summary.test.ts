@@ -124,5 +124,8 @@ describe('plumbline summarize', () => {
     expect((await cli(['summarize', '--table', 'gaps', '--format', 'html', '-'])).stderr).toContain('--table chooses a CSV table');
     expect((await cli(['x.md', '--table', 'gaps'])).stderr).toContain('--table applies to summarize only');
     expect((await cli(['summarize'])).stderr).toContain('summarize needs the results file(s)');
+    const missing = await cli(['summarize', '/nonexistent/results.ndjson']);
+    expect(missing.stderr).toContain('plumbline: cannot read /nonexistent/results.ndjson: no such file or folder');
+    expect(missing.code).toBe(2);
   });
 });
