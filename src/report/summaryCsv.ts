@@ -7,13 +7,18 @@
 import type { CorpusSummary, DocumentRow, GapBin } from '../corpus/summary.js';
 
 const EOL = '\r\n';
+/** First characters that make a spreadsheet read a cell as a formula. */
+const FORMULA_STARTS = '=+-@\t\r';
+/** Characters that make RFC 4180 quote a field. */
+const QUOTED_IF = '",\r\n';
 
 function field(v: string | number | boolean | null | undefined): string {
   if (v === null || v === undefined) return '';
   if (typeof v === 'number') return Number.isFinite(v) ? String(v) : '';
   if (typeof v === 'boolean') return v ? 'true' : 'false';
-  const text = /^[=+\-@\t\r]/.test(v) ? `'${v}` : v;
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
+  // plain string tests, no regular expression: nothing here can backtrack
+  const text = v !== '' && FORMULA_STARTS.includes(v.charAt(0)) ? `'${v}` : v;
+  return [...QUOTED_IF].some((c) => text.includes(c)) ? `"${text.split('"').join('""')}"` : text;
 }
 
 const row = (fields: Array<string | number | boolean | null | undefined>) => `${fields.map(field).join(',')}${EOL}`;
