@@ -18,8 +18,10 @@ const ALLOWED: Record<string, string[]> = {
   'src/config': ['src/parse', 'src/rule-api', 'schema'],
   schema: [],
   'src/engine': ['src/parse', 'src/extract', 'src/link', 'src/stats', 'src/rule-api', 'rules', 'src/config'],
-  'src/report': ['src/engine', 'src/rule-api', 'src/parse'],
-  'src/cli': ['src/engine', 'src/report', 'src/config'],
+  // the corpus summary of batch output: counting only, on the JSON lines batch wrote
+  'src/corpus': [],
+  'src/report': ['src/engine', 'src/rule-api', 'src/parse', 'src/corpus'],
+  'src/cli': ['src/engine', 'src/report', 'src/config', 'src/corpus'],
   // the browser page: the same core as the command line, nothing that needs Node
   'src/web': ['src/engine', 'src/report'],
 };

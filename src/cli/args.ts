@@ -1,12 +1,12 @@
 import yargs from 'yargs';
 import { toolVersion } from '../engine/docs.js';
-import { FORMATS, helpText, OPTIONS, RULES_FORMATS, type Format } from './help.js';
+import { FORMATS, helpText, OPTIONS, RULES_FORMATS, SUMMARY_FORMATS, SUMMARY_TABLES, type Format } from './help.js';
 
-export { FORMATS, helpText, RULES_FORMATS, wrapWords, type Format } from './help.js';
+export { FORMATS, helpText, RULES_FORMATS, SUMMARY_FORMATS, SUMMARY_TABLES, wrapWords, type Format } from './help.js';
 
 /** What the command line asks for, validated. */
 export interface CliOptions {
-  command: 'check' | 'rules' | 'explain' | 'batch';
+  command: 'check' | 'rules' | 'explain' | 'batch' | 'summarize';
   files: string[];
   /** `-` was given: read standard input. */
   stdin: boolean;
@@ -30,12 +30,17 @@ export interface CliOptions {
   writeBaseline?: string;
   /** Folder walks follow symbolic links that lead outside the folder named (--follow-links-outside). */
   followLinksOutside?: boolean;
+  /** batch: the number of the first input line (a chunk of a larger input keeps the whole input's line numbers). */
+  firstLine?: number;
+  /** summarize: the format (csv or html) and, for CSV, the table. */
+  summaryFormat?: (typeof SUMMARY_FORMATS)[number];
+  table?: (typeof SUMMARY_TABLES)[number];
 }
 
 export type ParseOutcome = { kind: 'run'; options: CliOptions } | { kind: 'help' | 'version'; text: string } | { kind: 'error'; message: string };
 
 /** Options that take a value, for "needs a value" and "given twice" messages. */
-const VALUE_OPTIONS = ['format', 'alpha', 'tails', 'max-warnings', 'config', 'stdin-name', 'jobs', 'max-file-bytes', 'memory-budget', 'time-budget', 'output', 'baseline', 'write-baseline'] as const;
+const VALUE_OPTIONS = ['format', 'alpha', 'tails', 'max-warnings', 'config', 'stdin-name', 'jobs', 'max-file-bytes', 'memory-budget', 'time-budget', 'output', 'baseline', 'write-baseline', 'first-line', 'table'] as const;
 const SHORT: Record<string, string> = { f: 'format', c: 'config', j: 'jobs', o: 'output', q: 'quiet', h: 'help', v: 'version' };
 
 function parser() {
@@ -46,7 +51,8 @@ function parser() {
     .command('$0 [files..]', 'check', (c) => c.positional('files', { type: 'string', array: true }))
     .command('explain <rule>', 'explain', (c) => c.positional('rule', { type: 'string', demandOption: true }))
     .command('rules', 'rules')
-    .command('batch', 'batch');
+    .command('batch', 'batch')
+    .command('summarize [files..]', 'summarize', (c) => c.positional('files', { type: 'string', array: true }));
   for (const o of OPTIONS) y = y.option(o.name, { type: o.type, ...(o.short ? { alias: o.short } : {}), ...(o.type !== 'boolean' ? { requiresArg: true } : {}) });
   return y.strict().exitProcess(false);
 }
@@ -79,7 +85,7 @@ export async function parseArguments(argv: string[], columns: number | undefined
     if (typeof parsed[name] === 'boolean') return { kind: 'error', message: `unknown option --no-${name} (only --color, --checklist and --quiet have a --no- form)` };
   }
   // numbers as written: whole numbers in plain digits (yargs would take "", "0x1" or "1e3")
-  for (const [name, short] of [['max-warnings'], ['jobs', 'j'], ['max-file-bytes'], ['memory-budget'], ['time-budget']] as const) {
+  for (const [name, short] of [['max-warnings'], ['jobs', 'j'], ['max-file-bytes'], ['memory-budget'], ['time-budget'], ['first-line']] as const) {
     if (parsed[name] === undefined) continue;
     const raw = rawValue(words, name, short);
     if (raw !== undefined && !/^\d{1,15}$/.test(raw)) parsed[name] = Number.NaN;
@@ -87,10 +93,15 @@ export async function parseArguments(argv: string[], columns: number | undefined
   const str = (name: string) => (parsed[name] === undefined ? undefined : String(parsed[name]));
   const num = (name: string) => parsed[name] as number | undefined;
 
-  const format = str('format') ?? 'human';
   const command = String((parsed._ as unknown[])[0] ?? 'check') as CliOptions['command'];
-  const formats: readonly string[] = command === 'rules' ? RULES_FORMATS : FORMATS;
-  if (!formats.includes(format)) return { kind: 'error', message: `--format must be one of ${formats.join(', ')}${command === 'rules' ? ' for "rules"' : ''}; got "${format}"` };
+  const summarize = command === 'summarize';
+  const format = str('format') ?? (summarize ? 'csv' : 'human');
+  const formats: readonly string[] = command === 'rules' ? RULES_FORMATS : summarize ? SUMMARY_FORMATS : FORMATS;
+  if (!formats.includes(format)) return { kind: 'error', message: `--format must be one of ${formats.join(', ')}${command === 'rules' || summarize ? ` for "${command}"` : ''}; got "${format}"` };
+  const table = str('table');
+  if (table !== undefined && !summarize) return { kind: 'error', message: '--table applies to summarize only' };
+  if (table !== undefined && !(SUMMARY_TABLES as readonly string[]).includes(table)) return { kind: 'error', message: `--table must be one of ${SUMMARY_TABLES.join(', ')}; got "${table}"` };
+  if (table !== undefined && format !== 'csv') return { kind: 'error', message: '--table chooses a CSV table; the HTML page holds them all' };
   const tails = str('tails');
   if (tails !== undefined && tails !== 'one' && tails !== 'two') return { kind: 'error', message: `--tails must be one or two; got "${tails}"` };
   const alpha = num('alpha');
@@ -109,6 +120,10 @@ export async function parseArguments(argv: string[], columns: number | undefined
   const timeBudget = num('time-budget');
   if (timeBudget !== undefined && !(Number.isInteger(timeBudget) && timeBudget >= 1))
     return { kind: 'error', message: `--time-budget must be a whole number of seconds, 1 or more; got "${rawValue(words, 'time-budget') ?? ''}"` };
+  const firstLine = num('first-line');
+  if (firstLine !== undefined && !(Number.isInteger(firstLine) && firstLine >= 1))
+    return { kind: 'error', message: `--first-line must be a whole number, 1 or more; got "${rawValue(words, 'first-line') ?? ''}"` };
+  if (firstLine !== undefined && command !== 'batch') return { kind: 'error', message: '--first-line applies to batch only' };
   for (const name of ['output', 'baseline', 'write-baseline', 'config', 'stdin-name'] as const) if (str(name) === '') return { kind: 'error', message: `--${name} needs a value` };
 
   const positional = ((parsed.files as string[] | undefined) ?? []).map(String);
@@ -118,7 +133,9 @@ export async function parseArguments(argv: string[], columns: number | undefined
     command,
     files: [...positional.filter((f) => f !== '-'), ...literalFiles],
     stdin,
-    format: format as Format,
+    // summarize has formats of its own (summaryFormat); the report format stays at its default
+    format: (summarize ? 'human' : format) as Format,
+    ...(summarize ? { summaryFormat: format as CliOptions['summaryFormat'] & string, table: (table ?? 'rules') as CliOptions['table'] & string } : {}),
     stdinName: str('stdin-name') ?? 'stdin.md',
     quiet: parsed.quiet === true,
     ...(command === 'explain' ? { rule: String(parsed.rule) } : {}),
@@ -134,6 +151,7 @@ export async function parseArguments(argv: string[], columns: number | undefined
     ...(str('output') !== undefined ? { output: str('output') as string } : {}),
     ...(typeof parsed.color === 'boolean' ? { color: parsed.color } : {}),
     ...(parsed['follow-links-outside'] === true ? { followLinksOutside: true } : {}),
+    ...(firstLine !== undefined ? { firstLine } : {}),
     ...(str('baseline') !== undefined ? { baseline: str('baseline') as string } : {}),
     ...(str('write-baseline') !== undefined ? { writeBaseline: str('write-baseline') as string } : {}),
   };

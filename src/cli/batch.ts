@@ -24,11 +24,13 @@ interface Line {
  * the path, the document's id with its JSON type, or null. Output line k answers input line k
  * (lines end at LF; a CR before it is dropped, a lone CR is part of the line), and messages name
  * that line; no line number is written as a key, so chunks of the input checked apart (GNU
- * parallel --pipe) still join into the single run's output. An error in one line never stops
+ * parallel --pipe) still join into the single run's output; with `firstLine` (--first-line) a chunk
+ * numbers its lines as the whole input does, so its messages and the names of id-less documents
+ * (`line k`) are the single run's too (scripts/dask-batch.py relies on this). An error in one line never stops
  * the stream. A summary goes to standard error. Exit 0 unless a
  * line could not be checked (2: a blank line too) or a document had an error-level finding (1).
  */
-export async function runBatch(io: Io, jobFor: JobFor, threads: number | 'auto', budget: Budget = DEFAULT_BUDGET, maxBytes = DEFAULT_MAX_FILE_BYTES): Promise<number> {
+export async function runBatch(io: Io, jobFor: JobFor, threads: number | 'auto', budget: Budget = DEFAULT_BUDGET, maxBytes = DEFAULT_MAX_FILE_BYTES, firstLine = 1): Promise<number> {
   const ids: Line['id'][] = [];
   let documents = 0;
   let results = 0;
@@ -36,7 +38,8 @@ export async function runBatch(io: Io, jobFor: JobFor, threads: number | 'auto',
   let errorLevel = 0;
   let failed = 0;
   async function* lines(): AsyncGenerator<Job> {
-    let n = 0;
+    // line numbers of the whole input when this is a chunk of it (--first-line)
+    let n = firstLine - 1;
     // a line may hold a document as JSON, where escapes can double its length
     for await (const raw of physicalLines(io.stdin, 2 * maxBytes + 1024)) {
       n += 1;

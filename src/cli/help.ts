@@ -8,6 +8,8 @@ import { DEFAULT_BUDGET, DEFAULT_MAX_FILE_BYTES } from './defaults.js';
 export const FORMATS = ['human', 'lines', 'json', 'sarif', 'checklist', 'html'] as const;
 export type Format = (typeof FORMATS)[number];
 export const RULES_FORMATS = ['human', 'json'] as const;
+export const SUMMARY_FORMATS = ['csv', 'html'] as const;
+export const SUMMARY_TABLES = ['rules', 'gaps', 'documents'] as const;
 
 /** The options, once: yargs is configured from this list and the help text is written from it. */
 export const OPTIONS: Array<{ name: string; short?: string; type: 'string' | 'number' | 'boolean'; value?: string; describe: string }> = [
@@ -26,6 +28,8 @@ export const OPTIONS: Array<{ name: string; short?: string; type: 'string' | 'nu
   { name: 'memory-budget', type: 'number', value: 'MB', describe: `heap a document may use before it is reported as not checked (default ${DEFAULT_BUDGET.memoryMb})` },
   { name: 'time-budget', type: 'number', value: 'S', describe: `seconds a document may take before it is reported as not checked (default ${DEFAULT_BUDGET.seconds})` },
   { name: 'max-file-bytes', type: 'number', value: 'N', describe: `skip files larger than N bytes (default ${DEFAULT_MAX_FILE_BYTES}, or maxFileBytes in configuration)` },
+  { name: 'table', type: 'string', value: 'NAME', describe: `summarize, CSV: ${SUMMARY_TABLES.join(', ')} (default rules)` },
+  { name: 'first-line', type: 'number', value: 'N', describe: 'batch: number the first input line N in messages and names (default 1), so a chunk of a larger input, checked apart, answers as the whole run would' },
   { name: 'follow-links-outside', type: 'boolean', describe: 'when walking a folder or a glob, follow symbolic links that lead outside it (default: skip them and say so; a link named on the command line is always read)' },
   { name: 'color', type: 'boolean', describe: 'colour the human format (default: on a terminal, unless NO_COLOR is set); --no-color turns it off' },
   { name: 'help', short: 'h', type: 'boolean', describe: 'show this help' },
@@ -37,6 +41,7 @@ const COMMANDS: Array<[string, string]> = [
   ['plumbline explain RULE', "print a rule's page"],
   ['plumbline rules', 'list the rules (--format json: with kind, default level and options schema)'],
   ['plumbline batch', 'read paths or NDJSON documents {id, text, format?} from standard input, one per line; write one NDJSON line per document'],
+  ['plumbline summarize results.ndjson', "a corpus summary of batch output: findings per 100 results by rule, gaps, each document's counts; CSV (--table) or --format html"],
 ];
 
 const ABOUT = 'Checks the t-tests a manuscript reports: recomputes p from t and df, rounding-aware, and reports each inconsistency at its place.';

@@ -150,6 +150,11 @@ const settled = (code: number) => (code === REFUSED ? EXIT.trouble : code);
  */
 async function check(options: CliOptions, io: Io, writes: string[], toFile = false): Promise<number> {
   if (options.command === 'batch') return batch(options, io, writes);
+  if (options.command === 'summarize') {
+    // loaded only when asked for: a check run does not pay for it
+    const { runSummarize } = await import('./summarize.js');
+    return runSummarize(options, io, writes);
+  }
 
   let baseline: Baseline | undefined;
   if (options.baseline !== undefined) {
@@ -320,7 +325,7 @@ async function batch(options: CliOptions, io: Io, writes: string[]): Promise<num
     if (!outcome.ok) return { path, error: outcome.message };
     return { path, source: outcome.text, options: { ...base, config, ...(outcome.notes.length > 0 ? { readNotes: outcome.notes } : {}) } };
   };
-  return runBatch(io, jobFor, options.jobs ?? 'auto', budgetOf(options), options.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES);
+  return runBatch(io, jobFor, options.jobs ?? 'auto', budgetOf(options), options.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES, options.firstLine ?? 1);
 }
 
 function budgetOf(options: CliOptions): Budget {

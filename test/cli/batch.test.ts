@@ -63,6 +63,24 @@ describe('batch mode (plumbline batch)', () => {
     expect(lines(paths.stdout).map((l) => JSON.parse(l) as Record<string, unknown>)).toEqual([{ id: 'no\rsuch.md', error: 'cannot read: no such file or folder' }]);
   });
 
+  it('--first-line: a chunk checked apart numbers its lines as the whole input does, so the chunks join into the single run', async () => {
+    const doc = (id?: string) => JSON.stringify(id === undefined ? { text: 'x, t(46) = 0.84, p = .04.' } : { id, text: 'x, t(46) = 0.84, p = .04.' });
+    const all = [doc('a'), doc(), '', '{broken', doc('b'), doc(), '{"id": 1, "text": 2}'];
+    const single = await inProcess(['batch', '--jobs', '1'], { stdin: `${all.join('\n')}\n` });
+    const first = await inProcess(['batch', '--jobs', '1'], { stdin: `${all.slice(0, 3).join('\n')}\n` });
+    const second = await inProcess(['batch', '--jobs', '1', '--first-line', '4'], { stdin: `${all.slice(3).join('\n')}\n` });
+    expect(first.stdout + second.stdout).toBe(single.stdout);
+    // without it the second chunk would name its lines from 1: the test above would then fail
+    expect(second.stdout).toContain('"path":"line 6"');
+    expect(second.stdout).toContain('line 4 is not valid JSON');
+    expect(second.stderr).toContain('plumbline batch: 4 lines');
+    const wrong = await inProcess(['batch', '--first-line', '0'], { stdin: '' });
+    expect(wrong.stderr).toContain('--first-line must be a whole number, 1 or more; got "0"');
+    expect(wrong.code).toBe(2);
+    const elsewhere = await inProcess(['x.md', '--first-line', '3'], { stdin: '' });
+    expect(elsewhere.stderr).toContain('--first-line applies to batch only');
+  });
+
   it('ids keep their JSON type: 42 and "42" come back as they went in', async () => {
     const text = 'x, t(46) = 0.84, p = .04.';
     const stdin = [{ id: 42, text }, { id: '42', text }, { id: 4.5, text }, { text }, { id: true, text }].map((d) => JSON.stringify(d)).join('\n');
