@@ -2,7 +2,7 @@ import type { Readable } from 'node:stream';
 import { resolve } from 'node:path';
 import { ruleDoc } from '../engine/docs.js';
 import { RULE_IDS, RULES, ruleById, type CheckOptions } from '../engine/index.js';
-import { CAUTIONS, countRun, say, terminalSafe, formatChecklist, formatHtml, formatHuman, formatJsonChunks, formatLines, formatRulesJson, formatSarifChunks, type RunReport } from '../report/index.js';
+import { CAUTIONS, countRun, say, terminalSafe, formatChecklistChunks, formatHtmlChunks, formatHumanChunks, formatJsonChunks, formatLinesChunks, formatRulesJson, formatSarifChunks, inChunks, type RunReport } from '../report/index.js';
 import { parseArguments, type CliOptions } from './args.js';
 import { Presets, SingleBar } from 'cli-progress';
 import { applyBaseline, baselineText, BaselineError, readBaseline, recordBaseline, type Baseline } from './baseline.js';
@@ -238,27 +238,29 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
 async function write(report: RunReport, options: CliOptions, io: Io, toFile: boolean): Promise<void> {
   const counts = countRun(report);
   const shown = counts.error + counts.warning + counts.note;
+  // every format in chunks of at most 64 KiB: a report of some 110,000 results in HTML, or
+  // 200,000 in JSON, is longer than any one string can be
+  const put = async (pieces: Iterable<string>) => {
+    for (const chunk of inChunks(pieces)) await io.stdout(chunk);
+  };
   switch (options.format) {
-    // JSON and SARIF in chunks: a report of some 200,000 results is longer than any one string
     case 'json':
-      for (const chunk of formatJsonChunks(report)) await io.stdout(chunk);
-      return;
+      return put(formatJsonChunks(report));
     case 'sarif':
-      for (const chunk of formatSarifChunks(report, io.cwd)) await io.stdout(chunk);
-      return;
+      return put(formatSarifChunks(report, io.cwd));
     case 'checklist':
-      return io.stdout(formatChecklist(report));
+      return put(formatChecklistChunks(report));
     case 'html':
-      return io.stdout(formatHtml(report));
+      return put(formatHtmlChunks(report));
     case 'lines':
-      await io.stdout(formatLines(report));
+      await put(formatLinesChunks(report));
       // the cautions once, for a person at a terminal, and only when there is something to weigh
       if (shown > 0 && io.stderrIsTTY) io.stderr(`${CAUTIONS.join(' ')}\n`);
       return;
     default: {
       const color = options.color ?? (io.isTTY && !('NO_COLOR' in io.env && io.env.NO_COLOR !== ''));
       // a report written to a file names the files not checked too: standard error may be gone by the time it is read
-      return io.stdout(formatHuman(report, { color, width: io.columns ?? 100, cautions: shown > 0, listFailures: toFile }));
+      return put(formatHumanChunks(report, { color, width: io.columns ?? 100, cautions: shown > 0, listFailures: toFile }));
     }
   }
 }
