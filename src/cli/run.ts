@@ -2,7 +2,7 @@ import type { Readable } from 'node:stream';
 import { resolve } from 'node:path';
 import { ruleDoc } from '../engine/docs.js';
 import { RULE_IDS, RULES, ruleById, type CheckOptions } from '../engine/index.js';
-import { CAUTIONS, countRun, say, terminalSafe, formatChecklistChunks, formatHtmlChunks, formatHumanChunks, formatJsonChunks, formatLinesChunks, formatRulesJson, formatSarifChunks, inChunks, type RunReport } from '../report/index.js';
+import { CAUTIONS, SKIPPED_LINK_REASON, countRun, say, terminalSafe, formatChecklistChunks, formatHtmlChunks, formatHumanChunks, formatJsonChunks, formatLinesChunks, formatRulesJson, formatSarifChunks, inChunks, type RunReport } from '../report/index.js';
 import { parseArguments, type CliOptions } from './args.js';
 import { Presets, SingleBar } from 'cli-progress';
 import { applyBaseline, baselineText, BaselineError, readBaseline, recordBaseline, type Baseline } from './baseline.js';
@@ -224,7 +224,7 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
     io.stderr(`plumbline: ${n} baseline entr${n === 1 ? 'y matches' : 'ies match'} no finding any more (fixed, or its text edited); --write-baseline ${options.baseline} records the current findings\n`);
   }
 
-  for (const link of run.skippedLinks) io.stderr(say`plumbline: ${link}: not followed: this symbolic link leads outside the folder walked (--follow-links-outside follows it)\n`);
+  for (const link of run.skippedLinks) io.stderr(say`plumbline: ${link}: ${SKIPPED_LINK_REASON}\n`);
   // diagnostics go to standard error in every format; reports carry them as data too
   for (const f of report.failures) io.stderr(say`plumbline: ${f.path}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}: ${f.message}\n`);
   await write(report, options, io, toFile);

@@ -121,12 +121,21 @@ export function* formatHtmlChunks(run: RunReport, options: { title?: string } = 
     '</header>',
     ...run.files.map((f, i) => fileSectionChunks(f, i, pAxis)),
     failuresHtml(run),
+    // only when a walk skipped some, so a report without them is as it was
+    ...(run.skippedLinks !== undefined && run.skippedLinks.length > 0 ? [skippedLinksHtml(run.skippedLinks)] : []),
     `<footer>${cautionsHtml()}</footer>`,
   ], '\n');
   yield `
 </body>
 </html>
 `;
+}
+
+/** The symbolic links a folder walk did not follow, each named (escaped), the reason said once. */
+function* skippedLinksHtml(links: readonly string[]): Generator<string> {
+  yield `<section class="failures"><h2>Links not followed</h2><p>These symbolic links lead outside the folder walked and were not read (<code>--follow-links-outside</code> follows them):</p><ul>`;
+  for (const link of links) yield `<li><strong>${escapeHtml(link)}</strong></li>`;
+  yield '</ul></section>';
 }
 
 /** The files not checked, one item each; nothing when every file was checked. */
