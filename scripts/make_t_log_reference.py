@@ -29,6 +29,12 @@ GRID = [
     ("1e60", "10"), ("1e90", "10"), ("1e6", "63.2"), ("1e4", "240"),
 ]
 
+# t beyond the double range (printed as `2e1000`): plumbline reads their size as log10 |t|;
+# written as "beyondDoubleRows", t as printed and its log10 as mpmath gives it
+GRID_BEYOND = [
+    ("1e310", "1"), ("1.5e310", "2.5"), ("2e1000", "28"), ("2.5e1000", "28"), ("1.5e1000", "10"),
+    ("5e4000", "3"), ("1e500", "240"), ("3e2000", "1000"), ("7e350", "63.2"),
+]
 
 def log10_two_tailed(t, df):
     t = mp.mpf(t)
@@ -55,8 +61,14 @@ for t, df in GRID:
     value, method = log10_two_tailed(t, df)
     rows.append({"t": t, "df": df, "log10p": mp.nstr(value, 25), "method": method})
 
+beyond = []
+for t, df in GRID_BEYOND:
+    value, method = log10_two_tailed(t, df)
+    beyond.append({"t": t, "log10t": mp.nstr(mp.log10(mp.mpf(t)), 25), "df": df, "log10p": mp.nstr(value, 25), "method": method})
+
 print(json.dumps({
     "source": "mpmath " + mp.__version__ + " at 60 significant digits (100 inside); scripts/make_t_log_reference.py",
     "definition": "log10 of the two-tailed p, P(|T| >= |t|) = I_{df/(df+t^2)}(df/2, 1/2)",
     "rows": rows,
+    "beyondDoubleRows": beyond,
 }, indent=1))

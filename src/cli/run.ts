@@ -3,8 +3,9 @@ import { resolve } from 'node:path';
 import { ruleDoc } from '../engine/docs.js';
 import { RULE_IDS, RULES, ruleById, type CheckOptions } from '../engine/index.js';
 // the formatters load when the run knows which one it needs (write, below): start-up stays small
-import { CAUTIONS, countRun, type RunReport } from '../report/types.js';
+import { CAUTIONS, SKIPPED_LINK_REASON, countRun, type RunReport } from '../report/types.js';
 import { say, terminalSafe } from '../report/text.js';
+import { inChunks } from '../report/chunks.js';
 import { parseArguments, type CliOptions } from './args.js';
 import type { SingleBar } from 'cli-progress';
 import { applyBaseline, baselineText, BaselineError, readBaseline, recordBaseline, type Baseline } from './baseline.js';
@@ -238,7 +239,7 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
     io.stderr(`plumbline: ${n} baseline entr${n === 1 ? 'y matches' : 'ies match'} no finding any more (fixed, or its text edited); --write-baseline ${options.baseline} records the current findings\n`);
   }
 
-  for (const link of run.skippedLinks) io.stderr(say`plumbline: ${link}: not followed: this symbolic link leads outside the folder walked (--follow-links-outside follows it)\n`);
+  for (const link of run.skippedLinks) io.stderr(say`plumbline: ${link}: ${SKIPPED_LINK_REASON}\n`);
   // diagnostics go to standard error in every format; reports carry them as data too
   for (const f of report.failures) io.stderr(say`plumbline: ${f.path}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}: ${f.message}\n`);
   await write(report, options, io, toFile);
@@ -252,32 +253,30 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
 async function write(report: RunReport, options: CliOptions, io: Io, toFile: boolean): Promise<void> {
   const counts = countRun(report);
   const shown = counts.error + counts.warning + counts.note;
+  // every format in chunks of at most 64 KiB: a report of some 110,000 results in HTML, or
+  // 200,000 in JSON, is longer than any one string can be
+  const put = async (pieces: Iterable<string>) => {
+    for (const chunk of inChunks(pieces)) await io.stdout(chunk);
+  };
   switch (options.format) {
-    // JSON and SARIF in chunks: a report of some 200,000 results is longer than any one string
-    case 'json': {
-      const { formatJsonChunks } = await import('../report/json.js');
-      for (const chunk of formatJsonChunks(report)) await io.stdout(chunk);
-      return;
-    }
-    case 'sarif': {
-      const { formatSarifChunks } = await import('../report/sarif.js');
-      for (const chunk of formatSarifChunks(report, io.cwd)) await io.stdout(chunk);
-      return;
-    }
+    case 'json':
+      return put((await import('../report/json.js')).formatJsonChunks(report));
+    case 'sarif':
+      return put((await import('../report/sarif.js')).formatSarifChunks(report, io.cwd));
     case 'checklist':
-      return io.stdout((await import('../report/checklist.js')).formatChecklist(report));
+      return put((await import('../report/checklist.js')).formatChecklistChunks(report));
     case 'html':
-      return io.stdout((await import('../report/html.js')).formatHtml(report));
+      return put((await import('../report/html.js')).formatHtmlChunks(report));
     case 'lines':
-      await io.stdout((await import('../report/lines.js')).formatLines(report));
+      await put((await import('../report/lines.js')).formatLinesChunks(report));
       // the cautions once, for a person at a terminal, and only when there is something to weigh
       if (shown > 0 && io.stderrIsTTY) io.stderr(`${CAUTIONS.join(' ')}\n`);
       return;
     default: {
       const color = options.color ?? (io.isTTY && !('NO_COLOR' in io.env && io.env.NO_COLOR !== ''));
-      const { formatHuman } = await import('../report/human.js');
+      const { formatHumanChunks } = await import('../report/human.js');
       // a report written to a file names the files not checked too: standard error may be gone by the time it is read
-      return io.stdout(formatHuman(report, { color, width: io.columns ?? 100, cautions: shown > 0, listFailures: toFile }));
+      return put(formatHumanChunks(report, { color, width: io.columns ?? 100, cautions: shown > 0, listFailures: toFile }));
     }
   }
 }

@@ -87,11 +87,13 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
     ...(options.followLinksOutside ? { followLinksOutside: true } : {}),
   });
   const skippedLinks = expansion.skippedLinks;
+  // the reports list them too (JSON, SARIF, HTML), not only standard error
+  const linksSaid = skippedLinks.length > 0 ? { skippedLinks } : {};
   const rules = RULES.map((r): RuleInfo => {
     const helpUri = options.withRulePages ? rulePageUrl(r.id) : undefined;
     return { id: r.id, summary: r.summary, kind: r.kind, defaultLevel: r.defaultLevel, doc: options.withRulePages ? ruleDoc(r.id) : '', ...(helpUri ? { helpUri } : {}) };
   });
-  const empty = (): FileRun => ({ report: { tool: { name: 'plumbline', version: toolVersion() }, files: [], failures, rules }, unfiltered: [], staleBaselineEntries: 0, skippedLinks });
+  const empty = (): FileRun => ({ report: { tool: { name: 'plumbline', version: toolVersion() }, files: [], failures, rules, ...linksSaid }, unfiltered: [], staleBaselineEntries: 0, skippedLinks });
   const writes = new Set(options.writes ?? []);
   if (writes.size > 0) {
     const clash = expansion.files.find((f) => writes.has(identity(f, cwd)));
@@ -167,7 +169,7 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
     stale = applied.unmatched;
   }
   if (options.errorsOnly) shown = shown.map((r) => ({ ...r, findings: r.findings.filter((f) => f.level === 'error') }));
-  return { report: { tool: { name: 'plumbline', version: toolVersion() }, files: shown, failures, rules }, unfiltered: reports, staleBaselineEntries: stale, skippedLinks };
+  return { report: { tool: { name: 'plumbline', version: toolVersion() }, files: shown, failures, rules, ...linksSaid }, unfiltered: reports, staleBaselineEntries: stale, skippedLinks };
 }
 
 /** Worker threads by the number and size of the documents (threadsFor in pool.ts). */

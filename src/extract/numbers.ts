@@ -37,7 +37,7 @@ export function readNumber(seg: Segment, a: number, b: number, exponent = 0, man
 }
 
 /** `e1`, `E+01`, `e-13` at the end of a number's text: group 1 is the exponent. */
-const SCIENTIFIC_TAIL = /(?<=[\d.])[eE]([-+]?\d{1,4})$/;
+const SCIENTIFIC_TAIL = /(?<=[\d.])[eE]([-+]?\d{1,9})$/;
 
 /**
  * The decimal logarithm of a printed number's magnitude and its mantissa, when the double

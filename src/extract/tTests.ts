@@ -9,8 +9,10 @@ import type { AdjustMethod, Comparison, ReportedNumber, ReportedP, ReportStyle, 
 // follows it, so no pattern can backtrack super-linearly (checked by test/regex-safety).
 const OP = String.raw`(<=|>=|=<|=>|≤|≥|=|<|>)`;
 // t as printed in full: up to 400 integer digits (a longer run is not read at all, see
-// numberFromGroup), a fraction, and an `e` exponent as R and spreadsheets print it (`3.4e+01`)
-const EXP = String.raw`(?:[eE][-+]?\d{1,3}(?![\d.]))?`;
+// numberFromGroup), a fraction, and an `e` exponent as R and spreadsheets print it (`3.4e+01`),
+// of up to 9 digits (`2e1000` is read whole, beyond a double, as its log10; a longer exponent is
+// not read at all, never cut)
+const EXP = String.raw`(?:[eE][-+]?\d{1,9}(?![\d.]))?`;
 const T_NUM = String.raw`([-+]? ?(?:\d{1,400}(?:\.\d{1,20})?|\.\d{1,20})${EXP})`;
 // a df printed negative is read, so that values-are-possible can say it cannot be
 const DF_NUM = String.raw`(-?(?:\d{1,3}(?:,\d{3}){1,3}(?:\.\d{1,12})?|\d{1,9}(?:\.\d{1,12})?)${EXP})`;
@@ -38,7 +40,7 @@ const DF_AFTER = new RegExp(String.raw`(?<![\p{L}\p{N}.,])\(?${DF_NUM}\)? (?:df|
  * of ten (`10^-6`, and `10-6` where a PDF lost the superscript: `p < 10` is never meant). A
  * minus sign is read (`p = -.05`, `p = -0`), so that values-are-possible can say it cannot be.
  */
-const P_NUM = String.raw`(?<sign>-)?(?:10 ?(?:\^ ?|(?=-\d))(?<power>-\d{1,3})|(?<mantissa>\d{1,12}(?:\.\d{1,20})?|\.\d{1,20})(?: ?(?:[eE] ?(?<eExp>[-+]?\d{1,3})|[×xX*·] ?10 ?\^? ?(?<tenExp>[-+]?\d{1,3})))?)`;
+const P_NUM = String.raw`(?<sign>-)?(?:10 ?(?:\^ ?|(?=-\d))(?<power>-\d{1,9})|(?<mantissa>\d{1,12}(?:\.\d{1,20})?|\.\d{1,20})(?: ?(?:[eE] ?(?<eExp>[-+]?\d{1,9})|[×xX*·] ?10 ?\^? ?(?<tenExp>[-+]?\d{1,9})))?)`;
 /** A subscript or label after the p: `p_adj`, `p_{Holm}`, `p(2-t)`, `p (one-tailed)`. */
 const P_LABEL = String.raw`(?:_\{?(?<sub>[\p{L}-]{1,20})\}?| ?\((?<paren>(?:one|two|1|2)[- ]?(?:tailed|sided|t)|adj\.?|corr\.?|adjusted|corrected)\))?`;
 /** p = .045 · P<0.05 · p-value = 0.02 · ps ≤ .0001 · p = < .001 · p (two-tailed) = .03 · p value is (0.04) · p_adj = .04 */
@@ -271,6 +273,9 @@ export function findP(seg: Segment, from: number, to: number): ReportedP | undef
     if (!g.first && !g.second && !g.word) continue; // "p 0.05" without a comparison is not a report
     const op = pComparison(g.first ?? '=', g.second);
     const numEnd = from + m.index + m[0].length;
+    // a number longer than the pattern reads (an exponent of ten digits, a 21st decimal) is not
+    // read in part: its first digits would be another number
+    if (/\d/.test(seg.text.charAt(numEnd))) continue;
     let number: ReportedNumber | undefined;
     if (g.power !== undefined) {
       if (g.sign !== undefined) continue; // `p = -10^-6` is no reading of a p worth guessing
@@ -380,8 +385,9 @@ function numberFromGroup(seg: Segment, m: RegExpMatchArray, group: number): Repo
   const g = m[group];
   if (g === undefined) return undefined;
   const a = idx(m, group);
-  // a run of digits longer than T_NUM reads is not read in part (it would be another number)
-  if (/\d/.test(seg.text[a + g.length] ?? '')) return undefined;
+  // a run of digits longer than T_NUM reads, or an exponent longer than EXP reads, is not read
+  // in part (it would be another number: `2e1000000000` is not 2)
+  if (/^(?:\d|[eE][-+]?\d)/.test(seg.text.slice(a + g.length, a + g.length + 3))) return undefined;
   return readNumber(seg, a, a + g.length);
 }
 

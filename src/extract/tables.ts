@@ -45,7 +45,14 @@ const GROUP_COLUMN = /(?:^|[\s,(])(?:m|mean|means)s? ?(?:\(\s?(sd|se|sem|s\.d\.|
 const HEADER_N = /\(\s?n ?= ?(\d{1,6})\s?\)/iu;
 
 const CELL_NUMBER = new RegExp(String.raw`^ ?(${NUM}) ?${STARS} ?$`, 'u');
-const CELL_P = new RegExp(String.raw`^ ?(<=|>=|≤|≥|<|>|=)? ?(\d{1,12}(?:\.\d{1,20})?|\.\d{1,20})(?: ?(?:[eE] ?([-+]?\d{1,3})|[×xX*·] ?10 ?\^? ?([-+]?\d{1,3})))? ?(\*{1,4}|†)? ?$`, 'u');
+/** A t cell: a number, or one in R's scientific form (`3.4e+01`, `2e1000`: beyond a double, read as its log10). */
+const CELL_T = new RegExp(String.raw`^ ?(${NUM}(?:[eE][-+]?\d{1,9})?) ?${STARS} ?$`, 'u');
+/**
+ * A p cell. A minus sign is read (`-.05`, `-0`; a Unicode minus is folded to it before), so that
+ * values-are-possible can say it cannot be, as for a p in prose; an exponent of up to 9 digits
+ * is read whole (`1e-4000`, below a double, as its log10).
+ */
+const CELL_P = new RegExp(String.raw`^ ?(<=|>=|≤|≥|<|>|=)? ?(-)?(\d{1,12}(?:\.\d{1,20})?|\.\d{1,20})(?: ?(?:[eE] ?([-+]?\d{1,9})|[×xX*·] ?10 ?\^? ?([-+]?\d{1,9})))? ?(\*{1,4}|†)? ?$`, 'u');
 const CELL_MEAN_SPREAD = new RegExp(String.raw`^ ?(${NUM}) ?(?:\( ?(${NUM}) ?\)|± ?(${NUM})) ?$`, 'u');
 const CELL_CI = new RegExp(String.raw`^ ?(?:(${NUM}) ?)?[(\[]? ?(${NUM}) ?(?:,|;|to|–|—| - |-(?=[.\d])) ?(${NUM}) ?[)\]]? ?$`, 'u');
 const LABELLED_T = new RegExp(String.raw`^ ?[tT] ?= ?(${NUM}) ?$`, 'u');
@@ -251,7 +258,7 @@ function readGrid(grid: Grid, out: TableResults): void {
     // the row's test
     const tCell = cols.t ? row.get(cols.t.column) : undefined;
     if (tCell) {
-      const m = CELL_NUMBER.exec(tCell.text);
+      const m = CELL_T.exec(tCell.text);
       const t = m ? numberAt(tCell, m[1] as string, 0) : undefined;
       if (t && m) {
         const dfCell = cols.df !== undefined ? row.get(cols.df) : undefined;
@@ -374,13 +381,15 @@ function cellP(seg: Segment): ReportedP | undefined {
   const m = CELL_P.exec(seg.text);
   if (!m) return undefined;
   const lead = seg.text.length - seg.text.trimStart().length;
-  const numStart = seg.text.indexOf(m[2] as string, lead);
-  const mantissaEnd = numStart + (m[2] as string).length;
-  const stars = m[5];
+  const mantissaStart = seg.text.indexOf(m[3] as string, lead);
+  // the sign stands right before the digits and is part of the number read
+  const numStart = m[2] !== undefined ? mantissaStart - 1 : mantissaStart;
+  const mantissaEnd = mantissaStart + (m[3] as string).length;
+  const stars = m[6];
   const numEnd = stars ? seg.text.lastIndexOf(stars) : seg.text.trimEnd().length;
   let end = numEnd;
   while (end > mantissaEnd && seg.text[end - 1] === ' ') end -= 1;
-  const exponent = Number(m[3] ?? m[4] ?? 0);
+  const exponent = Number(m[4] ?? m[5] ?? 0);
   const number = readNumber(seg, numStart, end, exponent, mantissaEnd);
   if (!number) return undefined;
   return { kind: 'value', op: comparison(m[1]), number, span: sourceSpan(seg, lead, end), printed: seg.text.slice(lead, end) };

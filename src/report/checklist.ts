@@ -2,6 +2,7 @@ import type { FileReport, Finding } from '../engine/types.js';
 import { GUIDELINE_NAMES, guidelineRefs, missingWhere, resultHeading, summariseChecklist, type ItemSummary } from './checklistSummary.js';
 import { CAUTIONS, type RunReport } from './types.js';
 import { terminalLine } from './text.js';
+import { joined, wholeText } from './chunks.js';
 
 const CONSISTENCY_RULES = new Set(['sample-size-agrees-with-df', 'group-sizes-sum-to-total', 'repeated-result-agrees']);
 const STATUS = { found: 'found', missing: '**missing**', 'not-applicable': 'not applicable' } as const;
@@ -34,12 +35,19 @@ function cell(s: string): string {
  * across the document, the number-level findings in brief, and the cautions.
  */
 export function formatChecklist(run: RunReport): string {
-  const out: string[] = [];
-  // appended line by line: a spread of a long paper's lines would overflow the call stack
-  for (const file of run.files) for (const line of fileSection(file)) out.push(line);
-  for (const f of run.failures) out.push(`Not checked: ${cell(f.path)} (${cell(f.message)}).`, '');
-  out.push('---', '', ...CAUTIONS.map((c) => `*${cell(c)}*`), '', `Prepared with ${run.tool.name} ${run.tool.version}.`, '');
-  return out.join('\n');
+  return wholeText(formatChecklistChunks(run));
+}
+
+/** The same text as formatChecklist, piece by piece in order: the command line writes these. */
+export function formatChecklistChunks(run: RunReport): Iterable<string> {
+  return joined(checklistLines(run), '\n');
+}
+
+/** The report's lines, to be joined by line breaks (the last is empty: the text ends with one). */
+function* checklistLines(run: RunReport): Generator<string> {
+  for (const file of run.files) yield* fileSection(file);
+  for (const f of run.failures) yield* [`Not checked: ${cell(f.path)} (${cell(f.message)}).`, ''];
+  yield* ['---', '', ...CAUTIONS.map((c) => `*${cell(c)}*`), '', `Prepared with ${run.tool.name} ${run.tool.version}.`, ''];
 }
 
 function fileSection(file: FileReport): string[] {

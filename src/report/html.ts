@@ -11,8 +11,9 @@ import type { FileReport, Finding, ResultRecord } from '../engine/types.js';
 import { guidelineRefs, isChecklistFinding, missingWhere, summariseChecklist, type ItemSummary, type MissingPlace } from './checklistSummary.js';
 import type { Level } from '../rule-api/types.js';
 import { escapeHtml, shortNumber as fmt } from './escape.js';
-import { findingPicture, pAxisFor, plottable, pOverview, pStrip, STRIP_WIDTH, type PAxis } from './pictures.js';
+import { findingPicture, pAxisFor, plottable, pOverviewChunks, pStrip, STRIP_WIDTH, type PAxis } from './pictures.js';
 import { CAUTIONS, countRun, type RunReport } from './types.js';
+import { joined, wholeText } from './chunks.js';
 
 export { escapeHtml };
 
@@ -88,23 +89,18 @@ table.checklist td, table.checklist th { border: 1px solid var(--rule); padding:
 
 /** The HTML report for a whole run. */
 export function formatHtml(run: RunReport, options: { title?: string } = {}): string {
+  return wholeText(formatHtmlChunks(run, options));
+}
+
+/**
+ * The same text as formatHtml, piece by piece in order: the command line writes these, since the
+ * report of some 110,000 results is longer than any one string can be.
+ */
+export function* formatHtmlChunks(run: RunReport, options: { title?: string } = {}): Generator<string> {
   const title = options.title ?? `plumbline report: ${run.files.map((f) => f.path).join(', ') || 'no files'}`;
   // every p picture of the report on one axis, so they can be compared across files too
   const pAxis = pAxisFor(run.files.flatMap((f) => f.results));
-  const body = [
-    '<header class="top">',
-    `<h1>${escapeHtml(title)}</h1>`,
-    `<p>${escapeHtml(run.tool.name)} ${escapeHtml(run.tool.version)} checked the t-tests these manuscripts report: each p against its t and df, and each test against the descriptives, intervals and effect sizes beside it, allowing for rounding.</p>`,
-    summaryTable(run),
-    cautionsHtml(),
-    '</header>',
-    ...run.files.map((f, i) => fileSection(f, i, pAxis)),
-    run.failures.length > 0
-      ? `<section class="failures"><h2>Not checked</h2><ul>${run.failures.map((f) => `<li><strong>${escapeHtml(f.path)}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}</strong>: ${escapeHtml(f.message)}</li>`).join('')}</ul></section>`
-      : '',
-    `<footer>${cautionsHtml()}</footer>`,
-  ].join('\n');
-  return `<!DOCTYPE html>
+  yield `<!DOCTYPE html>
 <html lang="en">
 <head>
 <meta charset="utf-8">
@@ -115,10 +111,39 @@ export function formatHtml(run: RunReport, options: { title?: string } = {}): st
 <style>${REPORT_CSS}</style>
 </head>
 <body>
-${body}
+`;
+  yield* joined([
+    '<header class="top">',
+    `<h1>${escapeHtml(title)}</h1>`,
+    `<p>${escapeHtml(run.tool.name)} ${escapeHtml(run.tool.version)} checked the t-tests these manuscripts report: each p against its t and df, and each test against the descriptives, intervals and effect sizes beside it, allowing for rounding.</p>`,
+    summaryTable(run),
+    cautionsHtml(),
+    '</header>',
+    ...run.files.map((f, i) => fileSectionChunks(f, i, pAxis)),
+    failuresHtml(run),
+    // only when a walk skipped some, so a report without them is as it was
+    ...(run.skippedLinks !== undefined && run.skippedLinks.length > 0 ? [skippedLinksHtml(run.skippedLinks)] : []),
+    `<footer>${cautionsHtml()}</footer>`,
+  ], '\n');
+  yield `
 </body>
 </html>
 `;
+}
+
+/** The symbolic links a folder walk did not follow, each named (escaped), the reason said once. */
+function* skippedLinksHtml(links: readonly string[]): Generator<string> {
+  yield `<section class="failures"><h2>Links not followed</h2><p>These symbolic links lead outside the folder walked and were not read (<code>--follow-links-outside</code> follows them):</p><ul>`;
+  for (const link of links) yield `<li><strong>${escapeHtml(link)}</strong></li>`;
+  yield '</ul></section>';
+}
+
+/** The files not checked, one item each; nothing when every file was checked. */
+function* failuresHtml(run: RunReport): Generator<string> {
+  if (run.failures.length === 0) return;
+  yield '<section class="failures"><h2>Not checked</h2><ul>';
+  for (const f of run.failures) yield `<li><strong>${escapeHtml(f.path)}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}</strong>: ${escapeHtml(f.message)}</li>`;
+  yield '</ul></section>';
 }
 
 export function cautionsHtml(): string {
@@ -147,6 +172,11 @@ ${row(`<span class="sym">${SEVERITY.note.symbol}</span> Notes`, c.note, 'lvl-not
  * checklist. Its p pictures use `pAxis` (the whole report's), or the file's own when alone.
  */
 export function fileSection(file: FileReport, index: number, pAxis: PAxis = pAxisFor(file.results)): string {
+  return wholeText(fileSectionChunks(file, index, pAxis));
+}
+
+/** The same text as fileSection, piece by piece in order. */
+export function* fileSectionChunks(file: FileReport, index: number, pAxis: PAxis = pAxisFor(file.results)): Generator<string> {
   // the checklist's missing entries are summarised in its table, once per item, not as cards
   const ordered = file.findings.filter((f) => !isChecklistFinding(file, f)).sort((a, b) => a.span.start - b.span.start);
   const byResult = new Map<string, Finding[]>();
@@ -157,23 +187,28 @@ export function fileSection(file: FileReport, index: number, pAxis: PAxis = pAxi
     else byResult.set(f.resultId, [f]);
   }
   const summarised = file.findings.length - ordered.length;
-  return [
+  yield* joined([
     `<section class="file" id="${anchor(index, 'file', 0)}">`,
     `<h2>${escapeHtml(file.path)}</h2>`,
     `<p>${file.results.length} result${file.results.length === 1 ? '' : 's'} found, ${ordered.length} finding${ordered.length === 1 ? '' : 's'}${summarised > 0 ? ` (and ${summarised} checklist entr${summarised === 1 ? 'y' : 'ies'}, summarised in the checklist below)` : ''}. Alpha ${escapeHtml(String(file.alpha.value))}, ${escapeHtml(file.sidedness.value)}-tailed where the text says nothing.</p>`,
-    file.results.some(plottable) ? `<h3>All tests in reading order</h3>${forestPlot(file, index, pAxis, byResult)}` : '',
+    file.results.some(plottable) ? joined(['<h3>All tests in reading order</h3>', forestPlot(file, index, pAxis, byResult)], '') : '',
     '<div class="layout">',
-    `<div><h3>Manuscript</h3>${manuscriptHtml(file, index, ordered)}</div>`,
-    `<div><h3>Findings</h3><div class="cards">${ordered.length === 0 ? '<p>No findings.</p>' : ordered.map((f, n) => card(file, index, f, n, pAxis)).join('\n')}</div></div>`,
+    joined(['<div><h3>Manuscript</h3>', manuscriptHtml(file, index, ordered), '</div>'], ''),
+    joined(['<div><h3>Findings</h3><div class="cards">', ordered.length === 0 ? '<p>No findings.</p>' : joined(mapped(ordered, (f, n) => card(file, index, f, n, pAxis)), '\n'), '</div></div>'], ''),
     '</div>',
-    file.results.length > 0 ? `<h3>Results</h3><ol class="results-list">${file.results.map((r, n) => resultItem(index, r, n, pAxis, byResult.get(r.id) ?? [])).join('')}</ol>` : '',
+    file.results.length > 0 ? joined(['<h3>Results</h3><ol class="results-list">', mapped(file.results, (r, n) => resultItem(index, r, n, pAxis, byResult.get(r.id) ?? [])), '</ol>'], '') : '',
     file.checklist.length > 0 ? `<h3>Reporting checklist</h3>${checklistTable(file, index)}` : '',
     '</section>',
-  ].join('\n');
+  ], '\n');
+}
+
+/** Each item made into its text when it is reached, not all at once. */
+function* mapped<T>(items: readonly T[], make: (item: T, n: number) => string): Generator<string> {
+  for (let n = 0; n < items.length; n++) yield make(items[n] as T, n);
 }
 
 /** The source, line by line, with results shaded and flagged spans marked by severity. */
-function manuscriptHtml(file: FileReport, index: number, ordered: Finding[]): string {
+function* manuscriptHtml(file: FileReport, index: number, ordered: Finding[]): Generator<string> {
   const src = file.source;
   const cuts = new Set<number>([0, src.length]);
   for (let i = src.indexOf('\n'); i >= 0; i = src.indexOf('\n', i + 1)) cuts.add(i + 1);
@@ -182,7 +217,7 @@ function manuscriptHtml(file: FileReport, index: number, ordered: Finding[]): st
   for (const m of marks) cuts.add(m.start).add(m.end);
   for (const r of file.results) cuts.add(r.span.start).add(r.span.end);
   const points = [...cuts].filter((x) => x >= 0 && x <= src.length).sort((a, b) => a - b);
-  const lines: string[] = [];
+  yield '<div class="manuscript">';
   let line = 1;
   let current = `<div class="line" id="${anchor(index, 'L', 1)}"><span class="ln">1</span><span class="tx">`;
   const emptyAt = new Map<number, typeof marks>();
@@ -226,14 +261,14 @@ function manuscriptHtml(file: FileReport, index: number, ordered: Finding[]): st
     }
     current += html;
     if (newline) {
-      lines.push(`${current}</span></div>`);
+      yield `${line > 1 ? '\n' : ''}${current}</span></div>`;
       line += 1;
       current = `<div class="line" id="${anchor(index, 'L', line)}"><span class="ln">${line}</span><span class="tx">`;
     }
   }
   // a final line end does not start a line of its own
-  if (!(src.endsWith('\n') && current.endsWith('<span class="tx">'))) lines.push(`${current}</span></div>`);
-  return `<div class="manuscript">${lines.join('\n')}</div>`;
+  if (!(src.endsWith('\n') && current.endsWith('<span class="tx">'))) yield `${line > 1 ? '\n' : ''}${current}</span></div>`;
+  yield '</div>';
 }
 
 function card(file: FileReport, index: number, f: Finding, n: number, pAxis: PAxis): string {
@@ -315,8 +350,8 @@ function placeLinks(places: readonly MissingPlace[], link: (line: number, text: 
 }
 
 /** The overview of every drawable test in the file, on the report's p axis. */
-function forestPlot(file: FileReport, index: number, pAxis: PAxis, byResult: Map<string, Finding[]>): string {
-  return pOverview(file.results, pAxis, (n) => anchor(index, 'r', n), (r) => {
+function forestPlot(file: FileReport, index: number, pAxis: PAxis, byResult: Map<string, Finding[]>): Iterable<string> {
+  return pOverviewChunks(file.results, pAxis, (n) => anchor(index, 'r', n), (r) => {
     const worst = worstLevel(byResult.get(r.id) ?? []);
     return worst ? { symbol: SEVERITY[worst].symbol, level: worst } : undefined;
   });

@@ -2,6 +2,7 @@ import type { FileReport, Finding } from '../engine/types.js';
 import { CAUTIONS, countRun, type RunReport } from './types.js';
 import { terminalLine, terminalSafe } from './text.js';
 import { checklistFindingLines, isChecklistFinding, missingText } from './checklistSummary.js';
+import { linesOf, wholeText } from './chunks.js';
 
 export interface HumanOptions {
   color: boolean;
@@ -30,20 +31,28 @@ const STYLE = {
  * cautions. Colour only when asked for (the CLI asks on a TTY without NO_COLOR).
  */
 export function formatHuman(run: RunReport, options: HumanOptions): string {
+  return wholeText(formatHumanChunks(run, options));
+}
+
+/** The same text as formatHuman, piece by piece in order: the command line writes these. */
+export function formatHumanChunks(run: RunReport, options: HumanOptions): Iterable<string> {
+  return linesOf(humanLines(run, options));
+}
+
+/** The report's lines, each to be followed by a line break. */
+function* humanLines(run: RunReport, options: HumanOptions): Generator<string> {
   const paint = (style: keyof typeof STYLE, s: string) => (options.color ? `${STYLE[style][0]}${s}${STYLE[style][1]}` : s);
   const width = Math.max(60, Math.min(options.width ?? 100, 160));
-  const out: string[] = [];
   for (const file of run.files) {
     if (file.findings.length === 0) continue;
-    out.push(paint('bold', terminalLine(file.path)));
+    yield paint('bold', terminalLine(file.path));
     // the checklist's missing items are said once per item below, not once per result
-    // pushed line by line: a spread of an unbounded list into push() can overflow the stack
     for (const f of file.findings) {
       if (isChecklistFinding(file, f)) continue;
-      for (const l of findingBlock(file, f, paint, width)) out.push(l);
-      out.push('');
+      yield* findingBlock(file, f, paint, width);
+      yield '';
     }
-    for (const l of checklistBlock(file, paint, width)) out.push(l);
+    yield* checklistBlock(file, paint, width);
   }
   const c = countRun(run);
   const checklistEntries = run.files.reduce((n, file) => n + file.findings.filter((f) => isChecklistFinding(file, f)).length, 0);
@@ -56,13 +65,12 @@ export function formatHuman(run: RunReport, options: HumanOptions): string {
     paint(c.note ? 'note' : 'dim', plural(c.note, 'note')) + (checklistEntries > 0 ? ` (${checklistEntries} of the findings are checklist entries, summarised by item)` : ''),
   ];
   if (options.listFailures)
-    for (const f of run.failures) out.push(`${paint('error', 'not checked')} ${terminalLine(f.path)}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}: ${terminalLine(f.message)}`);
+    for (const f of run.failures) yield `${paint('error', 'not checked')} ${terminalLine(f.path)}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}: ${terminalLine(f.message)}`;
   if (c.failures) summary.push(paint('error', `${plural(c.failures, 'file')} not checked${options.listFailures ? '' : ' (named on standard error)'}`));
   const hidden = [c.hiddenByQuiet > 0 ? `${c.hiddenByQuiet} by quiet comments` : '', c.hiddenByBaseline > 0 ? `${c.hiddenByBaseline} by the baseline` : ''].filter(Boolean);
   if (hidden.length > 0) summary.push(paint('dim', `${plural(c.hiddenByQuiet + c.hiddenByBaseline, 'finding')} hidden (${hidden.join(', ')})`));
-  out.push(summary.join(', '));
-  if (options.cautions !== false) out.push(paint('dim', wrap(CAUTIONS.join(' '), width).join('\n')));
-  return `${out.join('\n')}\n`;
+  yield summary.join(', ');
+  if (options.cautions !== false) yield paint('dim', wrap(CAUTIONS.join(' '), width).join('\n'));
 }
 
 function findingBlock(file: FileReport, f: Finding, paint: (s: keyof typeof STYLE, t: string) => string, width: number): string[] {

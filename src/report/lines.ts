@@ -1,3 +1,4 @@
+import { linesOf, wholeText } from './chunks.js';
 import { terminalSafe } from './text.js';
 import type { RunReport } from './types.js';
 
@@ -9,13 +10,20 @@ import type { RunReport } from './types.js';
  * cautions on standard output: the command line says the cautions on a terminal.
  */
 export function formatLines(run: RunReport): string {
-  const out: string[] = [];
+  return wholeText(formatLinesChunks(run));
+}
+
+/** The same text as formatLines, piece by piece in order: the command line writes these. */
+export function formatLinesChunks(run: RunReport): Iterable<string> {
+  return linesOf(findingLines(run));
+}
+
+function* findingLines(run: RunReport): Generator<string> {
   for (const file of run.files) {
     const path = oneLine(file.path);
     // a finding said of the whole document has no line: `path: level rule-id message`
-    for (const f of file.findings) out.push(`${path}${f.scope === 'document' ? '' : `:${f.start.line}:${f.start.column}`}: ${f.level} ${f.ruleId} ${oneLine(f.message)} — check: ${oneLine(f.check)}`);
+    for (const f of file.findings) yield `${path}${f.scope === 'document' ? '' : `:${f.start.line}:${f.start.column}`}: ${f.level} ${f.ruleId} ${oneLine(f.message)} — check: ${oneLine(f.check)}`;
   }
-  return out.length > 0 ? `${out.join('\n')}\n` : '';
 }
 
 function oneLine(s: string): string {

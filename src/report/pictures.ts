@@ -194,6 +194,11 @@ function rowLabel(text: string, room: number): string {
  * severity symbol of its worst finding, if any.
  */
 export function pOverview(results: ResultRecord[], axis: PAxis, link: (n: number) => string, mark: (r: ResultRecord) => { symbol: string; level: string } | undefined): string {
+  return [...pOverviewChunks(results, axis, link, mark)].join('');
+}
+
+/** The same text as pOverview, piece by piece: a row per result, so a paper of any length fits no one string. */
+export function* pOverviewChunks(results: ResultRecord[], axis: PAxis, link: (n: number) => string, mark: (r: ResultRecord) => { symbol: string; level: string } | undefined): Generator<string> {
   const rows = results.map((r, n) => ({ r, n })).filter(({ r }) => plottable(r));
   const labelRoom = 220;
   const labelCol = 16 + labelRoom + 10;
@@ -204,15 +209,13 @@ export function pOverview(results: ResultRecord[], axis: PAxis, link: (n: number
   const top = 22;
   const yAxis = top + rows.length * rowH;
   const height = yAxis + 22;
-  const body = rows
-    .map(({ r, n }, k) => {
-      const y = top + k * rowH + rowH / 2;
-      const flagged = mark(r);
-      const sym = flagged ? `<text x="2" y="${y + 4}" class="lvl-${flagged.level}" style="fill: var(--c)">${flagged.symbol}</text>` : '';
-      const text = rowLabel(`L${r.start.line} ${r.printed}`, labelRoom);
-      return `<a href="#${link(n)}"><rect class="row" x="0" y="${y - rowH / 2}" width="${width}" height="${rowH}" fill="transparent"/>${sym}<text class="rowlabel" x="16" y="${y + 4}">${escapeHtml(text)}</text>${pMarker(r, a, y - 6)}${pRange(r, a, y + 6, 7)}</a>`;
-    })
-    .join('\n');
+  const row = ({ r, n }: (typeof rows)[number], k: number) => {
+    const y = top + k * rowH + rowH / 2;
+    const flagged = mark(r);
+    const sym = flagged ? `<text x="2" y="${y + 4}" class="lvl-${flagged.level}" style="fill: var(--c)">${flagged.symbol}</text>` : '';
+    const text = rowLabel(`L${r.start.line} ${r.printed}`, labelRoom);
+    return `<a href="#${link(n)}"><rect class="row" x="0" y="${y - rowH / 2}" width="${width}" height="${rowH}" fill="transparent"/>${sym}<text class="rowlabel" x="16" y="${y + 4}">${escapeHtml(text)}</text>${pMarker(r, a, y - 6)}${pRange(r, a, y + 6, 7)}</a>`;
+  };
   // one label per alpha, left out where it would crowd another (its line keeps a title)
   const placed: Array<[number, number]> = [];
   const alphaLines = [...new Set(rows.map(({ r }) => r.alpha.value))]
@@ -226,10 +229,12 @@ export function pOverview(results: ResultRecord[], axis: PAxis, link: (n: number
       return `<line class="alpha" x1="${f1(x)}" y1="${top - 6}" x2="${f1(x)}" y2="${yAxis}"><title>alpha ${al}</title></line>${free ? `<text class="alphalabel" x="${f1(cx)}" y="${top - 9}" text-anchor="middle">${escapeHtml(text)}</text>` : ''}`;
     })
     .join('');
-  return `<svg class="forest" role="img" width="${width}" height="${height}" viewBox="0 0 ${width} ${height}" data-axis-min="${axis.min}" aria-label="recomputed p ranges and reported p values for ${rows.length} tests">
+  yield `<svg class="forest" role="img" width="${width}" height="${height}" viewBox="0 0 ${width} ${height}" data-axis-min="${axis.min}" aria-label="recomputed p ranges and reported p values for ${rows.length} tests">
 ${pTicks(a, top - 4, yAxis)}<line class="axis" x1="${f1(a.x0)}" y1="${yAxis}" x2="${f1(a.x0 + a.width)}" y2="${yAxis}"/>
 ${alphaLines}
-${body}
+`;
+  for (let k = 0; k < rows.length; k++) yield `${k > 0 ? '\n' : ''}${row(rows[k] as (typeof rows)[number], k)}`;
+  yield `
 </svg>
 <p class="legend">Each row: the reported p above (circle: a value; triangle: a bound such as p &lt; .001; bar with triangle at the left end: a p printed as zero, or below ${decadeLabel(axis.min)}, drawn at the axis bound), and below it the p values t and df allow within rounding (light when the reported p lies among them; an arrow where they reach below the axis). Dashed line: alpha. Every p picture in this report uses this axis. Each row links to its result.</p>`;
 }

@@ -3,7 +3,7 @@ import { pathToFileURL } from 'node:url';
 import type { ArtifactLocation, Log, ReportingDescriptor, Result } from 'sarif';
 import type { Finding } from '../engine/types.js';
 import { jsonChunks } from './jsonChunks.js';
-import { CAUTIONS, countRun, type RunReport } from './types.js';
+import { CAUTIONS, SKIPPED_LINK_REASON, countRun, type RunReport } from './types.js';
 
 /**
  * SARIF 2.1.0: one run; `tool.driver.rules` carry each rule's summary and its page as help;
@@ -58,18 +58,26 @@ function sarifLog(run: RunReport, cwd: string): Log {
         invocations: [
           {
             executionSuccessful: run.failures.length === 0,
-            toolExecutionNotifications: run.failures.map((f) => ({
-              level: 'error' as const,
-              message: { text: f.message },
-              locations: [
-                {
-                  physicalLocation: {
-                    artifactLocation: artifactLocation(f.path, cwd),
-                    ...(f.line !== undefined ? { region: { startLine: f.line, ...(f.column !== undefined ? { startColumn: f.column } : {}) } } : {}),
+            toolExecutionNotifications: [
+              ...run.failures.map((f) => ({
+                level: 'error' as const,
+                message: { text: f.message },
+                locations: [
+                  {
+                    physicalLocation: {
+                      artifactLocation: artifactLocation(f.path, cwd),
+                      ...(f.line !== undefined ? { region: { startLine: f.line, ...(f.column !== undefined ? { startColumn: f.column } : {}) } } : {}),
+                    },
                   },
-                },
-              ],
-            })),
+                ],
+              })),
+              // a link a folder walk did not follow is a note: nothing failed, the run chose not to read it
+              ...(run.skippedLinks ?? []).map((path) => ({
+                level: 'note' as const,
+                message: { text: SKIPPED_LINK_REASON },
+                locations: [{ physicalLocation: { artifactLocation: artifactLocation(path, cwd) } }],
+              })),
+            ],
           },
         ],
         properties: { cautions: [...CAUTIONS], hiddenByQuietComments: counts.hiddenByQuiet, hiddenByBaseline: counts.hiddenByBaseline },

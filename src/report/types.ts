@@ -18,7 +18,15 @@ export interface RunReport {
   files: FileReport[];
   failures: FileFailure[];
   rules: RuleInfo[];
+  /**
+   * Symbolic links a folder walk met and did not follow, because they lead outside the folder
+   * named (paths as the walk found them). Absent or empty when there were none.
+   */
+  skippedLinks?: string[];
 }
+
+/** Why a symbolic link in a folder walk was not followed: said on standard error and in the reports. */
+export const SKIPPED_LINK_REASON = 'not followed: this symbolic link leads outside the folder walked (--follow-links-outside follows it)';
 
 export interface Counts {
   files: number;

@@ -1,7 +1,7 @@
 import type { LinkedResult } from '../link/types.js';
-import { checkLog10PAgainstT, checkPAgainstT, distanceBetween, sideOfAlpha, type Interval, type PConsistency, type PInterval } from '../stats/index.js';
+import { checkLog10PAgainstLog10T, checkLog10PAgainstT, checkPAgainstT, distanceBetween, sideOfAlpha, type Interval, type PConsistency, type PInterval } from '../stats/index.js';
 import { showInterval } from './format.js';
-import { describeDf, describeT, dfInterval, log10Of, pInterval, pLastDigit, pLog10Interval, tInterval } from './intervals.js';
+import { describeDf, describeT, dfInterval, log10Of, numberLog10Interval, pInterval, pLastDigit, pLog10Interval, tInterval } from './intervals.js';
 import type { Gap, Recomputed } from './types.js';
 
 /**
@@ -67,14 +67,20 @@ export function evaluateP(result: LinkedResult): PEvaluation | undefined {
   // values-are-possible speaks for a p above 1, a negative p (`-0` too) and a bound at or below 0
   if (n && (n.value > 1 || n.value < 0 || Object.is(n.value, -0) || (n.value === 0 && !n.beyondDouble && (r.p.op === '<' || r.p.op === '<=')))) return undefined;
   const [dfLow, dfHigh] = dfInterval(r.df);
-  if (!(dfLow > 0)) return undefined;
+  if (!(dfLow > 0) || Number.isNaN(dfHigh)) return undefined;
+  // a df beyond the double range (`t(1e400)`) is no df any computation here takes: its p is not
+  // recomputed (no finding can rest on it); values-are-possible and df-follows-from-n still read it
+  if (!Number.isFinite(dfHigh)) return undefined;
   const [tLow, tHigh] = tInterval(r);
   if (Number.isNaN(tLow) || Number.isNaN(tHigh)) return undefined;
   const alpha = result.alpha.value;
   const logScale = n !== undefined && n.value !== 0 ? log10Of(n) < LOG_SCALE_BELOW : n?.beyondDouble !== undefined;
-  const log10 = logScale ? logComparison(r.p, alpha, { tLow, tHigh, dfLow, dfHigh }) : undefined;
+  const log10 = logScale ? logComparison(r, alpha, { tLow, tHigh, dfLow, dfHigh }) : undefined;
   const reported = log10 ? toP(log10.reported) : pInterval(r.p, alpha);
   const check = log10 ? { ...log10.check, twoSided: toPRange(log10.check.twoSided), oneSidedSame: toPRange(log10.check.oneSidedSame), oneSidedOpposite: toPRange(log10.check.oneSidedOpposite) } : checkPAgainstT({ tLow, tHigh, dfLow, dfHigh, reported });
+  // a range the numerics could not give (NaN at an extreme of t and df) is no ground for a finding
+  const ranges = log10 ? [log10.check.twoSided, log10.check.oneSidedSame, log10.check.oneSidedOpposite] : [check.twoSided, check.oneSidedSame, check.oneSidedOpposite];
+  if (ranges.some((i) => Number.isNaN(i.low) || Number.isNaN(i.high))) return undefined;
   const explicit = result.sidedness.basis !== 'default';
   let standing: PStanding;
   if (result.sidedness.basis === 'equivalence-test') {
@@ -124,8 +130,14 @@ export function evaluateP(result: LinkedResult): PEvaluation | undefined {
   };
 }
 
-function logComparison(p: NonNullable<LinkedResult['report']['p']>, alpha: number, box: { tLow: number; tHigh: number; dfLow: number; dfHigh: number }): { check: PConsistency; reported: PInterval } {
-  const reported = pLog10Interval(p, alpha);
+function logComparison(r: LinkedResult['report'], alpha: number, box: { tLow: number; tHigh: number; dfLow: number; dfHigh: number }): { check: PConsistency; reported: PInterval } {
+  const reported = pLog10Interval(r.p as NonNullable<typeof r.p>, alpha);
+  // a printed t no double holds (`t = 2e1000`) is infinite as a double: its size is taken from the
+  // text instead, as log10 |t| within its rounding
+  if (r.tOp === '=' && r.t.beyondDouble && !Number.isFinite(r.t.value)) {
+    const [log10AbsTLow, log10AbsTHigh] = numberLog10Interval(r.t);
+    return { check: checkLog10PAgainstLog10T({ log10AbsTLow, log10AbsTHigh, dfLow: box.dfLow, dfHigh: box.dfHigh, reported }), reported };
+  }
   return { check: checkLog10PAgainstT({ ...box, reported }), reported };
 }
 

@@ -1,7 +1,7 @@
-export { twoSidedPFromT, oneSidedPFromT, upperTailT, twoSidedCriticalT, tDensity, log10TwoSidedPFromT } from './tDistribution.js';
+export { twoSidedPFromT, oneSidedPFromT, upperTailT, twoSidedCriticalT, tDensity, log10TwoSidedPFromT, log10TwoSidedPFromLog10T } from './tDistribution.js';
 export { roundingInterval, scientificRoundingInterval, lastDigitUnit } from './rounding.js';
 export { twoSidedPRange, oneSidedPRange, intervalsMeet, type Interval } from './pRange.js';
-export { checkPAgainstT, checkLog10PAgainstT, meets, sideOfAlpha, distanceBetween, type PInterval, type PConsistency, type PConsistencyInput } from './pConsistency.js';
+export { checkPAgainstT, checkLog10PAgainstT, checkLog10PAgainstLog10T, meets, sideOfAlpha, distanceBetween, type PInterval, type PConsistency, type PConsistencyInput } from './pConsistency.js';
 export { oneSampleAbsT, pairedImpliedCorrelation, studentAbsT, welchAbsT, welchDfRange, type Box } from './summaryT.js';
 export { dAverage, dFromMeansPooled, dFromTIndependent, dRepeatedMeasures, dzFromT, hedgesCorrection } from './effectSize.js';
 export { ciHalfWidthFromT, pFromConfidenceInterval } from './confidenceInterval.js';

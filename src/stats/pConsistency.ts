@@ -1,5 +1,5 @@
 import { twoSidedPRange, type Interval } from './pRange.js';
-import { log10TwoSidedPFromT } from './tDistribution.js';
+import { log10TwoSidedPFromLog10T, log10TwoSidedPFromT } from './tDistribution.js';
 
 /** A reported p as an interval of true values, with open or closed ends. */
 export interface PInterval {
@@ -88,8 +88,21 @@ export function checkLog10PAgainstT(input: PConsistencyInput): PConsistency {
   const absLow = input.tLow <= 0 && input.tHigh >= 0 ? 0 : Math.min(Math.abs(input.tLow), Math.abs(input.tHigh));
   const absHigh = Math.max(Math.abs(input.tLow), Math.abs(input.tHigh));
   const twoSided = { low: log10TwoSidedPFromT(absHigh, input.dfHigh), high: absLow === 0 ? 0 : log10TwoSidedPFromT(absLow, input.dfLow) };
+  return log10Readings(twoSided, input.reported);
+}
+
+/**
+ * checkLog10PAgainstT for a |t| given as the interval of its decimal logarithm (a printed t
+ * beyond a double, `t = 2e1000`: [log10 1.5 + 1000, log10 2.5 + 1000]).
+ */
+export function checkLog10PAgainstLog10T(input: { log10AbsTLow: number; log10AbsTHigh: number; dfLow: number; dfHigh: number; reported: PInterval }): PConsistency {
+  const twoSided = { low: log10TwoSidedPFromLog10T(input.log10AbsTHigh, input.dfHigh), high: log10TwoSidedPFromLog10T(input.log10AbsTLow, input.dfLow) };
+  return log10Readings(twoSided, input.reported);
+}
+
+function log10Readings(twoSided: Interval, reported: PInterval): PConsistency {
   const oneSidedSame = { low: twoSided.low - Math.LOG10E * Math.LN2, high: twoSided.high - Math.LOG10E * Math.LN2 };
   const oppositeOf = (x: number) => Math.log1p(-(10 ** x) / 2) * Math.LOG10E;
   const oneSidedOpposite = { low: oppositeOf(twoSided.high), high: oppositeOf(twoSided.low) };
-  return readings(twoSided, oneSidedSame, oneSidedOpposite, input.reported);
+  return readings(twoSided, oneSidedSame, oneSidedOpposite, reported);
 }

@@ -44,7 +44,31 @@ const rows: Row[] = [
   { name: 'p = −.05 (Unicode minus) is read and is impossible', text: 'The groups differed, t(10) = 2.50, p = −.05.\n', results: 1, expect: ['1:36 values-are-possible/p-negative'] },
   { name: 'p = -0 is read and is impossible (not a p printed as zero)', text: 'The groups did not differ, t(10) = 0.50, p = -0.\n', results: 1, expect: ['1:42 values-are-possible/p-negative'] },
   { name: 'p < -.05 is a bound no p meets', text: 'The groups differed, t(10) = 2.50, p < -.05.\n', results: 1, expect: ['1:36 values-are-possible/p-below-zero-bound'] },
+  // exponents of four digits and more, read whole. t(28) = 2e1000: log10 p = −27988.99, and
+  // 2.5e1000 gives −27991.71 (mpmath, beyondDoubleRows), so p = 1e-27989 lies within rounding
+  { name: 'a t of 2e1000 is read whole (not as 2) and compared in log space: p = 1e-27989 fits', text: 'The groups differed, t(28) = 2e1000, p = 1e-27989.\n', results: 1, expect: [] },
+  { name: 'a t of 2e1000 with p = 1e-4000 is a true finding (its p is about 10^-27989)', text: 'The groups differed, t(28) = 2e1000, p = 1e-4000.\n', results: 1, expect: ['1:22 p-follows-from-t/mismatch'] },
+  { name: 'a t of 2e1000 with p < .001 fits', text: 'The groups differed, t(28) = 2e1000, p < .001.\n', results: 1, expect: [] },
+  // t(28) = 2.10 gives p = 0.0449 (scipy.stats.t.sf, doubled): 1e-4000 is a true finding, read as 1e-4000, not 1e-400
+  { name: 'p = 1e-4000 is read whole', text: 'The groups differed, t(28) = 2.10, p = 1e-4000.\n', results: 1, expect: ['1:22 p-follows-from-t/mismatch'] },
+  { name: 'an exponent of ten digits is not read in part: that p is not read (the result gets the note for a missing p)', text: 'The groups differed, t(10) = 2.50, p = 1e-4000000000.\n', results: 1, expect: ['1:22 result-is-complete/p-missing'] },
+  { name: 'a t with an exponent of ten digits is not read as its mantissa', text: 'The groups differed, t(28) = 2e1000000000, p < .001.\n', results: 0, expect: [] },
+  // t(df) for df beyond a double: no df any computation takes, so no recomputed p and no finding
+  // resting on one (with a real df of 10^400, t = 2.10 gives the normal's p = .0357 and .20 would not fit)
+  { name: 'a df of 1e400 gives no false finding', text: 'The groups differed, t(1e400) = 2.10, p = .036.\n', results: 1, expect: [] },
+  { name: 'a df of 1e400 gives no finding at all about its p, which cannot be recomputed', text: 'The groups differed, t(1e400) = 2.10, p = .20.\n', results: 1, expect: [] },
+  { name: 'a df of 400 digits is no df read (never read in part), and gives no finding', text: `The groups differed, t(1${'0'.repeat(399)}) = 2.10, p = .20.\n`, results: 0, expect: [] },
 ];
+
+// a table's p column has a pattern of its own (src/extract/tables.ts): the same edges through it
+const TABLE = `| Measure | t | df | p |
+| --- | --- | --- | --- |
+| Sleep | 2.10 | 28 | −.05 |
+| Mood | 2.10 | 28 | -0 |
+| Pace | 2.10 | 28 | 1e-4000 |
+| Grip | 2e1000 | 28 | < .001 |
+| Reach | 2e1000 | 28 | 1e-27989 |
+`;
 
 describe('numbers at the edges, through the CLI', () => {
   for (const row of rows) {
@@ -56,6 +80,17 @@ describe('numbers at the edges, through the CLI', () => {
       for (const f of r.files[0]?.findings ?? []) for (const v of Object.values(f.gap ?? {})) expect(typeof v).toBe('number');
     });
   }
+
+  it('in a table: a negative p (Unicode minus too) and -0 reach values-are-possible; 1e-4000 and a t of 2e1000 are read whole', async () => {
+    const r = await check('table.md', TABLE);
+    expect(r.summary.results).toBe(5);
+    // Sleep and Mood: impossible p; Pace: t(28) = 2.10 gives p = 0.0449 (scipy), so 1e-4000 is a
+    // true finding; Grip and Reach fit (mpmath, beyondDoubleRows, as in the rows above)
+    expect(found(r)).toEqual(['3:23 values-are-possible/p-negative', '4:22 values-are-possible/p-negative', '5:10 p-follows-from-t/mismatch']);
+    const ps = r.files[0]?.results.map((x) => x.p?.number?.log10) ?? [];
+    expect(ps).toEqual([undefined, undefined, -4000, undefined, -27989]);
+    expect(r.files[0]?.results.map((x) => x.t.log10)).toEqual([undefined, undefined, undefined, expect.closeTo(1000.30103, 5), expect.closeTo(1000.30103, 5)]);
+  });
 
   it('a p beyond the double range keeps its size in the JSON (value 0, log10 −400)', async () => {
     const r = await check('paper.md', 'The groups differed, t(8000) = 45.2, p = 1e-400.\n');

@@ -9,12 +9,14 @@
  * t(28) = 2.10 gives two-tailed p = 0.04486 (scipy.stats.t.sf, doubled), so p = .045 is correct;
  * t(40) = 3.10 gives 0.0035 (scipy), so p = .20 is an error.
  */
-import { mkdirSync, mkdtempSync, symlinkSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import remarkGfm from 'remark-gfm';
 import remarkParse from 'remark-parse';
 import { unified } from 'unified';
+import { Ajv2020 } from 'ajv/dist/2020.js';
+import AjvDraft04Module from 'ajv-draft-04';
 import { describe, expect, it } from 'vitest';
 import { cli, type Outcome } from './harness.js';
 
@@ -65,6 +67,49 @@ describe('folder walks never leave the folder named', () => {
     expect(run.skippedLinks).toEqual(['repo/elsewhere', 'repo/linked.md', 'repo/root']);
     expect(run.report.failures).toEqual([]);
   }, 20_000);
+
+  it('the JSON, SARIF and HTML reports list the links not followed; a run without any is unchanged', async () => {
+    // sources: the JSON report's own schema (schema/report.schema.json) and the OASIS SARIF 2.1.0
+    // schema (test/fixtures/standards/sarif-2.1.0-rtm.5.json), both validated with ajv from npm
+    const AjvDraft04 = AjvDraft04Module as unknown as typeof AjvDraft04Module.default;
+    const reportSchema = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
+    const sarifSchema = new AjvDraft04({ allErrors: true, strict: false, validateFormats: false, unicodeRegExp: false }).compile(JSON.parse(readFileSync('test/fixtures/standards/sarif-2.1.0-rtm.5.json', 'utf8')));
+    const dir = repoWithLinksOut();
+    // a link whose name carries markup, an escape sequence and a bidi control
+    symlinkSync('/', join(dir, 'repo', `<img src=x onerror=alert(1)>${ESC}[2J\u202E.md`));
+    const hostile = `repo/<img src=x onerror=alert(1)>${ESC}[2J\u202E.md`;
+    const skipped = ['repo/elsewhere', 'repo/linked.md', 'repo/root', hostile].sort();
+
+    const data = JSON.parse((await cli(['repo', '-f', 'json'], { cwd: dir })).stdout) as { reportVersion: string; skippedLinks?: string[] };
+    expect(reportSchema(data), JSON.stringify(reportSchema.errors?.slice(0, 3))).toBe(true);
+    expect(data.reportVersion).toBe('1.4.0');
+    expect([...(data.skippedLinks ?? [])].sort()).toEqual(skipped);
+
+    const log = JSON.parse((await cli(['repo', '-f', 'sarif'], { cwd: dir })).stdout) as { runs: Array<{ invocations: Array<{ executionSuccessful: boolean; toolExecutionNotifications: Array<{ level: string; message: { text: string }; locations: Array<{ physicalLocation: { artifactLocation: { uri: string } } }> }> }> }> };
+    expect(sarifSchema(log), JSON.stringify(sarifSchema.errors?.slice(0, 3))).toBe(true);
+    const notes = log.runs[0]?.invocations[0]?.toolExecutionNotifications ?? [];
+    expect(notes).toHaveLength(4);
+    expect(notes.every((n) => n.level === 'note' && n.message.text.startsWith('not followed: '))).toBe(true);
+    expect(notes.map((n) => n.locations[0]?.physicalLocation.artifactLocation.uri)).toContain('repo/root');
+    // skipping a link is no failure of the run
+    expect(log.runs[0]?.invocations[0]?.executionSuccessful).toBe(true);
+
+    const html = (await cli(['repo', '-f', 'html'], { cwd: dir })).stdout;
+    expect(html).toContain('<h2>Links not followed</h2>');
+    for (const link of ['repo/elsewhere', 'repo/linked.md', 'repo/root']) expect(html).toContain(`<li><strong>${link}</strong></li>`);
+    // escaped, control characters dropped, bidi shown: the name is text, not markup
+    expect(html).toContain('<li><strong>repo/&lt;img src=x onerror=alert(1)&gt;[2J&lt;U+202E&gt;.md</strong></li>');
+    expect(html).not.toContain('<img');
+    expect(html).not.toContain(ESC);
+    expect(html).not.toMatch(BIDI);
+
+    // a walk that skipped nothing: no field, no section
+    const clean = tempDir();
+    mkdirSync(join(clean, 'repo'));
+    writeFileSync(join(clean, 'repo', 'paper.md'), RIGHT);
+    expect(JSON.parse((await cli(['repo', '-f', 'json'], { cwd: clean })).stdout)).not.toHaveProperty('skippedLinks');
+    expect((await cli(['repo', '-f', 'html'], { cwd: clean })).stdout).not.toContain('Links not followed');
+  }, 30_000);
 
   it('a glob does not follow them either', async () => {
     const dir = repoWithLinksOut();

@@ -1,9 +1,10 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { log10TwoSidedPFromT, twoSidedPFromT } from '../../src/stats/index.js';
+import { checkLog10PAgainstLog10T, log10TwoSidedPFromLog10T, log10TwoSidedPFromT, twoSidedPFromT } from '../../src/stats/index.js';
 
 interface Row { t: string; df: string; log10p: string; method: string }
-const golden = JSON.parse(readFileSync(new URL('../../fixtures/reference/t-log-tail.json', import.meta.url), 'utf8')) as { source: string; rows: Row[] };
+interface BeyondRow extends Row { log10t: string }
+const golden = JSON.parse(readFileSync(new URL('../../fixtures/reference/t-log-tail.json', import.meta.url), 'utf8')) as { source: string; rows: Row[]; beyondDoubleRows: BeyondRow[] };
 
 describe('log10 of the two-tailed p against mpmath (fixtures/reference/t-log-tail.json, scripts/make_t_log_reference.py)', () => {
   it('the fixture reaches far below the double range', () => {
@@ -40,5 +41,34 @@ describe('log10TwoSidedPFromT at its edges', () => {
       expect(v).toBeLessThan(last);
       last = v;
     }
+  });
+});
+
+describe('log10 of the two-tailed p for a t beyond the double range, against mpmath (beyondDoubleRows of fixtures/reference/t-log-tail.json)', () => {
+  it('every such t is beyond a double (the rows test what they claim to)', () => {
+    expect(golden.beyondDoubleRows.length).toBeGreaterThan(5);
+    for (const row of golden.beyondDoubleRows) expect(Number(row.t)).toBe(Infinity);
+  });
+  for (const row of golden.beyondDoubleRows) {
+    it(`t = ${row.t}, df = ${row.df}: log10 p = ${Number(row.log10p).toFixed(3)} (mpmath, 60 digits)`, () => {
+      const got = log10TwoSidedPFromLog10T(Number(row.log10t), Number(row.df));
+      // the same bar as above: 1e-9 in log10
+      expect(Math.abs(got - Number(row.log10p))).toBeLessThan(1e-9);
+    });
+  }
+  it('agrees with log10TwoSidedPFromT below 1e300, where both apply (same function, two routes)', () => {
+    for (const [t, df] of [[2.1, 28], [1e30, 10], [1e250, 17.8]] as const) expect(log10TwoSidedPFromLog10T(Math.log10(t), df)).toBeCloseTo(log10TwoSidedPFromT(t, df), 9);
+  });
+  it('NaN for a df outside (0, Infinity) or a NaN t; an infinite t gives −Infinity', () => {
+    expect(log10TwoSidedPFromLog10T(1000, Infinity)).toBeNaN();
+    expect(log10TwoSidedPFromLog10T(1000, 0)).toBeNaN();
+    expect(log10TwoSidedPFromLog10T(NaN, 10)).toBeNaN();
+    expect(log10TwoSidedPFromLog10T(Infinity, 10)).toBe(-Infinity);
+  });
+  it('checkLog10PAgainstLog10T: t = 2e1000 (1.5e1000 to 2.5e1000), df = 28 fits p = 1e-27990 and not p = 1e-4000 (mpmath rows above)', () => {
+    const box = { log10AbsTLow: Math.log10(1.5) + 1000, log10AbsTHigh: Math.log10(2.5) + 1000, dfLow: 28, dfHigh: 28 };
+    const point = (x: number) => ({ low: x, high: x, lowOpen: false, highOpen: false });
+    expect(checkLog10PAgainstLog10T({ ...box, reported: point(-27990) }).fitsTwoSided).toBe(true);
+    expect(checkLog10PAgainstLog10T({ ...box, reported: point(-4000) }).fitsTwoSided).toBe(false);
   });
 });
