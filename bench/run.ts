@@ -12,13 +12,16 @@
  *      backslashes, autolinks, one-character lines, "pre-test " and "randomly assigned to "
  *      repeated, setext headings, block quotes, lazy quote and list lines, unclosed front
  *      matter, reference and footnote definitions) ÷ ordinary text              (goal ≤ 3 each)
+ *   8. 20,000 results in one paragraph: time per MB ÷ ordinary text's              (goal ≤ 3)
+ *   9. peak RSS of the CLI writing JSON for a document of 60,000 results (MB)      (goal ≤ 400)
+ *  10. that JSON's size (MB)                                                       (goal ≤ 60)
  *
  * Prints a table and writes bench/results.json. `npm run bench -- 3 7` (or PLUMBLINE_BENCH=3,7)
  * runs only the figures named by number, for a quick look at one case; results.json is then
  * left alone, since it holds the whole set.
  */
 import { spawnSync } from 'node:child_process';
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { cpus, tmpdir, totalmem } from 'node:os';
 import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -26,7 +29,7 @@ import remarkGfm from 'remark-gfm';
 import remarkParse from 'remark-parse';
 import { unified } from 'unified';
 import { checkSource } from '../src/engine/index.js';
-import { ADVERSARIAL, FURTHER_HOSTILE, adversarial, statDense, statFree } from './corpus.js';
+import { ADVERSARIAL, FURTHER_HOSTILE, adversarial, manyResults, resultsParagraph, statDense, statFree } from './corpus.js';
 
 const root = resolve(fileURLToPath(new URL('.', import.meta.url)), '../..');
 const cli = join(root, 'dist/src/cli/main.js');
@@ -163,6 +166,35 @@ function hostileFigure(name: string, kinds: string[]): Array<{ kind: string; rat
 const hostile = wanted(6) ? hostileFigure('6 adversarial 1 MB runs: worst / ordinary', Object.keys(ADVERSARIAL)) : [];
 // 7: further hostile runs, the same measure
 const further = wanted(7) ? hostileFigure('7 further hostile 1 MB runs: worst / ordinary', Object.keys(FURTHER_HOSTILE)) : [];
+
+// 8: many results in one paragraph against ordinary text of the same size (issue 17)
+if (wanted(8)) {
+  const dense = resultsParagraph(20_000);
+  const plain = statDense(13, dense.length);
+  const denseMs = best(() => checkSource('paragraph.md', dense), 1) / (dense.length / 1e6);
+  const plainMs = best(() => checkSource('ordinary.md', plain), 1) / (plain.length / 1e6);
+  const results = checkSource('paragraph.md', dense).results.length;
+  add({ name: '8 20,000 results in a paragraph / ordinary', value: denseMs / plainMs, goal: '<= 3', met: denseMs / plainMs <= 3, detail: `${results} results in ${(dense.length / 1000).toFixed(0)} KB: ${denseMs.toFixed(0)} ms/MB; ordinary text ${plainMs.toFixed(0)} ms/MB` });
+}
+
+// 9 and 10: peak memory and JSON size of the CLI on a document of 60,000 results (issue 17)
+if (wanted(9) || wanted(10)) {
+  const big = mkdtempSync(join(tmpdir(), 'plumbline-bench-many-'));
+  const doc = join(big, 'many.md');
+  const out = join(big, 'many.json');
+  const source = manyResults(60_000);
+  writeFileSync(doc, source);
+  const start = performance.now();
+  const r = spawnSync(process.execPath, ['-e', `import(${JSON.stringify(cli)}).then(() => process.on('exit', () => process.stderr.write('\\nRSS ' + process.resourceUsage().maxRSS + '\\n')))`, '--', doc, '--format', 'json', '--jobs', '1', '--time-budget', '3600', '-o', out], { maxBuffer: 1 << 30 });
+  const seconds = (performance.now() - start) / 1000;
+  const m = /RSS (\d+)/.exec(r.stderr.toString());
+  const peak = m ? Number(m[1]) / 1024 : NaN;
+  const bytes = statSync(out).size / 1e6;
+  rmSync(big, { recursive: true, force: true });
+  const detail = `${(source.length / 1e6).toFixed(1)} MB source, ${seconds.toFixed(1)} s; exit ${r.status}`;
+  if (wanted(9)) add({ name: '9 peak RSS, 60,000-result document (MB)', value: peak, goal: '<= 400', met: peak <= 400, detail });
+  if (wanted(10)) add({ name: '10 JSON of a 60,000-result document (MB)', value: bytes, goal: '<= 60', met: bytes <= 60, detail });
+}
 
 const machine = { cpus: cpus().length, cpu: cpus()[0]?.model ?? '', memoryGb: Math.round(totalmem() / 2 ** 30), node: process.version, date: new Date().toISOString().slice(0, 10) };
 if (picked.length === 0) {
