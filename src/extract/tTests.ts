@@ -444,9 +444,40 @@ function idx(m: RegExpMatchArray, g: number): number {
   return m.indices?.[g]?.[0] ?? m.index ?? 0;
 }
 
+/** Segments whose source ends never decrease (most do: the map follows the source in order). */
+const ordered = new WeakMap<number[], boolean>();
+function endsInOrder(ends: number[]): boolean {
+  let known = ordered.get(ends);
+  if (known === undefined) {
+    known = true;
+    for (let i = 1; i < ends.length; i += 1) {
+      if ((ends[i] as number) < (ends[i - 1] as number)) {
+        known = false;
+        break;
+      }
+    }
+    ordered.set(ends, known);
+  }
+  return known;
+}
+
 function indexOfSpanEnd(seg: Segment, part: { span: { end: number } }): number {
-  // Largest text index whose source end is within the part's span.
-  let i = seg.ends.length - 1;
-  while (i > 0 && (seg.ends[i] as number) > part.span.end) i -= 1;
+  // Largest text index whose source end is within the part's span: a binary search where the
+  // ends are in order (a walk back from the segment's end costs the whole paragraph per result),
+  // else that walk.
+  const ends = seg.ends;
+  if (ends.length > 0 && endsInOrder(ends)) {
+    let lo = 1;
+    let hi = ends.length;
+    // the first index past 0 whose end lies beyond the span; the one before it is the answer
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if ((ends[mid] as number) > part.span.end) hi = mid;
+      else lo = mid + 1;
+    }
+    return lo;
+  }
+  let i = ends.length - 1;
+  while (i > 0 && (ends[i] as number) > part.span.end) i -= 1;
   return i + 1;
 }

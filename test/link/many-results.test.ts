@@ -12,7 +12,7 @@ import { expectLinearCheck } from '../helpers.js';
  */
 const value = (i: number) => ({ df: 10 + (i % 80), t: (1 + (i % 300) / 100).toFixed(2), p: `.${String(10 + (i % 89)).padStart(3, '0')}` });
 const doc = (body: string) => `# Results\n\n${body}\n`;
-const SHAPES: Record<string, { make: (n: number) => string; n: number }> = {
+const SHAPES: Record<string, { make: (n: number) => string; n: number; each?: (r: ReturnType<typeof checkSource>['results'][number]) => void }> = {
   'one sentence of bracketed results': {
     make: (n) => doc(`${Array.from({ length: n }, (_, i) => { const x = value(i); return `t(${x.df}) = ${x.t}, p = ${x.p}`; }).join(', ')}.`),
     n: 1500,
@@ -24,10 +24,17 @@ const SHAPES: Record<string, { make: (n: number) => string; n: number }> = {
   'one sentence of results with descriptives, intervals, effect sizes, tails and alpha': {
     make: (n) => doc(`${Array.from({ length: n }, (_, i) => { const x = value(i); return `in the ward group (M = 4.${i % 10}, SD = 1.2, n = 20) t(${x.df}) = ${x.t}, p = ${x.p}, d = 0.${30 + (i % 50)}, 95% CI [0.10, 0.90] with α = .05 one-tailed`; }).join(', ')}.`),
     n: 300,
+    // each tails word goes to the test nearest to it, each effect size to its own clause
+    each: (r) => {
+      expect(r.sidedness.basis).toBe('sentence');
+      expect(r.context.effectSizes).toHaveLength(1);
+    },
   },
   'one sentence of labelled t values without a df': {
     make: (n) => doc(`With 20 degrees of freedom ${Array.from({ length: n }, (_, i) => { const x = value(i); return `t = ${x.t}, p = ${x.p}`; }).join(', ')}.`),
     n: 1500,
+    // the df stated before them, read once for the sentence, is every one's
+    each: (r) => expect(r.df?.printed).toBe('20'),
   },
   'a quiet comment before each result': {
     make: (n) => doc(Array.from({ length: n }, (_, i) => { const x = value(i); return `<!-- plumbline quiet p-follows-from-t: invented check -->\nScores rose, t(${x.df}) = ${x.t}, p = ${x.p}.\n`; }).join('\n')),
@@ -36,11 +43,13 @@ const SHAPES: Record<string, { make: (n: number) => string; n: number }> = {
 };
 
 describe('many results in one paragraph', () => {
-  for (const [name, { make, n }] of Object.entries(SHAPES)) {
+  for (const [name, { make, n, each }] of Object.entries(SHAPES)) {
     it(`${name}: checking twice as many costs less than three times as much`, () => {
       expectLinearCheck(name, make, n);
       // and every result is read (the shapes are not empty)
-      expect(checkSource('x.md', make(50)).results).toHaveLength(50);
+      const results = checkSource('x.md', make(50)).results;
+      expect(results).toHaveLength(50);
+      if (each) results.forEach(each);
     }, 120_000);
   }
 });
