@@ -144,3 +144,35 @@ export function adversarial(kind: string, bytes = 1_000_000): string {
   if (kind === 'unclosed front matter') return `${run(bytes)}\nFatigue fell after the session, t(23) = 2.47, p = .021.\n\nErrors rose, t(40) = 3.10, p = .20.\n`;
   return `Fatigue fell after the session, t(23) = 2.47, p = .021.\n\n${run(bytes)}\n\nErrors rose, t(40) = 3.10, p = .20.\n`;
 }
+
+/**
+ * One paragraph of `count` reported results, five to a sentence (`… t(28) = 2.10, p = .045, and
+ * t(30) = …`), and nothing else: the shape where a per-result step that rescans its sentence or
+ * paragraph shows as quadratic time.
+ */
+export function resultsParagraph(count: number, seed = 17): string {
+  const next = rng(seed);
+  const sentences: string[] = [];
+  for (let i = 0; i < count; i += 5) {
+    const results: string[] = [];
+    for (let k = i; k < Math.min(count, i + 5); k += 1) results.push(`t(${10 + Math.floor(next() * 80)}) = ${(next() * 4).toFixed(2)}, p = ${(next() * 0.5 + 0.001).toFixed(3).replace(/^0/, '')}`);
+    sentences.push(`Scores differed, ${results.join(', and ')}.`);
+  }
+  return `# Invented results\n\n${sentences.join(' ')}\n`;
+}
+
+/**
+ * A long manuscript of about `count` results in paragraphs of five, in the stat-dense forms
+ * (descriptives, intervals, effect sizes, TeX, `t = …, df = …`) with a sentence of prose
+ * before each paragraph: what a whole report's memory and JSON size grow with.
+ */
+export function manyResults(count: number, seed = 23): string {
+  const next = rng(seed);
+  const parts = ['# Invented pilot series\n', '## Results\n'];
+  for (let i = 0; i < count; i += 5) {
+    const results: string[] = [];
+    for (let k = i; k < Math.min(count, i + 5); k += 1) results.push(result(next));
+    parts.push(`${sentence(next, 8)} ${results.join(' ')}`, '');
+  }
+  return parts.join('\n');
+}

@@ -20,6 +20,9 @@
  *  11. starting a worker thread (the bundled worker, until it is ready), as text: the text
  *      MIN_CHARS_PER_WORKER (pool.ts) gives each worker ÷ the text checked in the time a worker
  *      takes to start                                                           (goal ≥ 10)
+ *  12. 20,000 results in one paragraph: time per MB ÷ ordinary text's              (goal ≤ 3)
+ *  13. peak RSS of the CLI writing JSON for a document of 60,000 results (MB)      (goal ≤ 400)
+ *  14. that JSON's size (MB)                                                       (goal ≤ 60)
  *
  * Prints a table and writes bench/results.json. `npm run bench -- 3 7` (or PLUMBLINE_BENCH=3,7)
  * runs only the figures named by number, for a quick look at one case; results.json is then
@@ -27,7 +30,7 @@
  */
 import { spawnSync } from 'node:child_process';
 import { Worker } from 'node:worker_threads';
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { cpus, tmpdir, totalmem } from 'node:os';
 import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -36,7 +39,7 @@ import remarkParse from 'remark-parse';
 import { unified } from 'unified';
 import { checkSource } from '../src/engine/index.js';
 import { MIN_CHARS_PER_WORKER, threadsFor } from '../src/cli/pool.js';
-import { ADVERSARIAL, FURTHER_HOSTILE, adversarial, statDense, statFree } from './corpus.js';
+import { ADVERSARIAL, FURTHER_HOSTILE, adversarial, manyResults, resultsParagraph, statDense, statFree } from './corpus.js';
 
 const root = resolve(fileURLToPath(new URL('.', import.meta.url)), '../..');
 // the command as installed: the bundle (scripts/build-cli.mjs), package.json's bin
@@ -251,6 +254,35 @@ if (wanted(11)) {
   const charsInStart = startMs / perChar;
   const v = MIN_CHARS_PER_WORKER / charsInStart;
   add({ name: '11 worker start: text per worker / text in a start', value: v, goal: '>= 10', met: v >= 10, detail: `a worker starts in ${startMs.toFixed(0)} ms, the time to check ${(charsInStart / 1000).toFixed(0)} KB here (${(1 / perChar).toFixed(0)} KB/s); MIN_CHARS_PER_WORKER ${MIN_CHARS_PER_WORKER / 1024} KiB` });
+}
+
+// 12: many results in one paragraph against ordinary text of the same size (issue 17)
+if (wanted(12)) {
+  const dense = resultsParagraph(20_000);
+  const plain = statDense(13, dense.length);
+  const denseMs = best(() => checkSource('paragraph.md', dense), 1) / (dense.length / 1e6);
+  const plainMs = best(() => checkSource('ordinary.md', plain), 1) / (plain.length / 1e6);
+  const results = checkSource('paragraph.md', dense).results.length;
+  add({ name: '12 20,000 results in a paragraph / ordinary', value: denseMs / plainMs, goal: '<= 3', met: denseMs / plainMs <= 3, detail: `${results} results in ${(dense.length / 1000).toFixed(0)} KB: ${denseMs.toFixed(0)} ms/MB; ordinary text ${plainMs.toFixed(0)} ms/MB` });
+}
+
+// 13 and 14: peak memory and JSON size of the CLI on a document of 60,000 results (issue 17)
+if (wanted(13) || wanted(14)) {
+  const big = mkdtempSync(join(tmpdir(), 'plumbline-bench-many-'));
+  const doc = join(big, 'many.md');
+  const out = join(big, 'many.json');
+  const source = manyResults(60_000);
+  writeFileSync(doc, source);
+  const start = performance.now();
+  const r = spawnSync(process.execPath, ['-e', `import(${JSON.stringify(cli)}).then(() => process.on('exit', () => process.stderr.write('\\nRSS ' + process.resourceUsage().maxRSS + '\\n')))`, '--', doc, '--format', 'json', '--jobs', '1', '--time-budget', '3600', '-o', out], { maxBuffer: 1 << 30 });
+  const seconds = (performance.now() - start) / 1000;
+  const m = /RSS (\d+)/.exec(r.stderr.toString());
+  const peak = m ? Number(m[1]) / 1024 : NaN;
+  const bytes = statSync(out).size / 1e6;
+  rmSync(big, { recursive: true, force: true });
+  const detail = `${(source.length / 1e6).toFixed(1)} MB source, ${seconds.toFixed(1)} s; exit ${r.status}`;
+  if (wanted(13)) add({ name: '13 peak RSS, 60,000-result document (MB)', value: peak, goal: '<= 400', met: peak <= 400, detail });
+  if (wanted(14)) add({ name: '14 JSON of a 60,000-result document (MB)', value: bytes, goal: '<= 60', met: bytes <= 60, detail });
 }
 
 const machine = { cpus: cpus().length, cpu: cpus()[0]?.model ?? '', memoryGb: Math.round(totalmem() / 2 ** 30), node: process.version, date: new Date().toISOString().slice(0, 10) };

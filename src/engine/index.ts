@@ -52,6 +52,7 @@ export function checkSource(path: string, source: string, options: CheckOptions 
   const place = (span: Span): Place => ({ span, start: lines.position(span.start), end: lines.position(span.end) });
 
   const findings: Finding[] = [];
+  const quiet = quietIndex(doc);
   let quieted = 0;
   const checklist: ChecklistRecord[] = [];
   for (const rule of RULES) {
@@ -78,7 +79,7 @@ export function checkSource(path: string, source: string, options: CheckOptions 
     }
     for (const f of rule.check({ document: linked, options: rule.defaultOptions })) {
       // a document-wide item has no block of its own: a quiet comment for its rule anywhere silences it
-      if (f.scope === 'document' ? isQuietedAnywhere(doc, rule.id) : f.block !== undefined && isQuieted(doc, f.block, rule.id)) {
+      if (f.scope === 'document' ? quiet.anywhere.has(rule.id) : f.block !== undefined && quiet.byBlock.get(f.block)?.has(rule.id) === true) {
         quieted += 1;
         continue;
       }
@@ -194,12 +195,26 @@ function hash64(s: string): string {
   return h.toString(16).padStart(16, '0');
 }
 
-function isQuieted(doc: ParsedDocument, block: number, ruleId: string): boolean {
-  return doc.directives.some((d) => d.verb === 'quiet' && d.reason !== '' && d.appliesToBlock === block && d.ruleIds.includes(ruleId));
-}
-
-function isQuietedAnywhere(doc: ParsedDocument, ruleId: string): boolean {
-  return doc.directives.some((d) => d.verb === 'quiet' && d.reason !== '' && d.ruleIds.includes(ruleId));
+/**
+ * The rules each block's quiet comments silence, and those any quiet comment silences: built
+ * once, so a document of many findings and many comments is not searched pairwise.
+ */
+function quietIndex(doc: ParsedDocument): { byBlock: Map<number, Set<string>>; anywhere: Set<string> } {
+  const byBlock = new Map<number, Set<string>>();
+  const anywhere = new Set<string>();
+  for (const d of doc.directives) {
+    if (d.verb !== 'quiet' || d.reason === '') continue;
+    let set = byBlock.get(d.appliesToBlock);
+    if (!set) {
+      set = new Set();
+      byBlock.set(d.appliesToBlock, set);
+    }
+    for (const id of d.ruleIds) {
+      set.add(id);
+      anywhere.add(id);
+    }
+  }
+  return { byBlock, anywhere };
 }
 
 /** Settings: front matter (`plumbline:` key) over the command line, over the configuration file. */

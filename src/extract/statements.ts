@@ -46,15 +46,27 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     sentence: sentenceOf(sentenceStarts, a),
     printed: text.slice(a, b),
   });
-  const sentenceText = (at: number) => text.slice(sentenceStarts[sentenceOf(sentenceStarts, at)] as number, sentenceStarts[sentenceOf(sentenceStarts, at) + 1] ?? text.length);
+  // What each sentence's words say, read once per sentence: a sentence of thousands of
+  // statements would otherwise be searched again for each.
+  const readings = new Map<number, { planning: boolean; general: boolean; local: boolean }>();
+  const sentenceOfAt = (at: number) => {
+    const i = sentenceOf(sentenceStarts, at);
+    let r = readings.get(i);
+    if (!r) {
+      const sentence = text.slice(sentenceStarts[i] as number, sentenceStarts[i + 1] ?? text.length);
+      r = { planning: PLANNING.test(sentence), general: GENERAL_WORDS.test(sentence), local: LOCAL_ALPHA.test(sentence) };
+      readings.set(i, r);
+    }
+    return r;
+  };
   if (/tail|sided|directional/i.test(text)) for (const m of text.matchAll(SIDED)) {
     const word = (m[1] ?? m[3] ?? '').toLowerCase();
     const one = word === 'one' || word === '1' || word === 'single' || word === 'directional';
     const near = text.slice(Math.max(0, m.index - 40), Math.min(text.length, m.index + m[0].length + 30));
     if (!ANALYSIS_WORD.test(near)) continue;
-    const sentence = sentenceText(m.index);
-    const planning = PLANNING.test(sentence);
-    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: !planning && GENERAL_WORDS.test(sentence), ...(planning ? { planning } : {}), ...base(m.index, m.index + m[0].length) });
+    const sentence = sentenceOfAt(m.index);
+    const planning = sentence.planning;
+    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: !planning && sentence.general, ...(planning ? { planning } : {}), ...base(m.index, m.index + m[0].length) });
   }
   if (/equivalen|TOST|one-sided|inferiority/i.test(text)) for (const m of text.matchAll(EQUIVALENCE)) {
     out.push({ kind: 'equivalence', sidedness: 'one', ...base(m.index, m.index + m[0].length) });
@@ -82,9 +94,9 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
   if (/α|alpha|significan|level/i.test(text)) for (const re of [ALPHA, ALPHA_AS_P]) {
     for (const m of text.matchAll(re)) {
       const value = Number(m[1] ?? m[2]);
-      const sentence = sentenceText(m.index);
-      const planning = PLANNING.test(sentence);
-      if (value > 0 && value < 0.5) out.push({ kind: 'alpha', alpha: value, general: GENERAL_WORDS.test(sentence) && !LOCAL_ALPHA.test(sentence), ...(planning ? { planning } : {}), ...base(m.index, m.index + m[0].length) });
+      const sentence = sentenceOfAt(m.index);
+      const planning = sentence.planning;
+      if (value > 0 && value < 0.5) out.push({ kind: 'alpha', alpha: value, general: sentence.general && !sentence.local, ...(planning ? { planning } : {}), ...base(m.index, m.index + m[0].length) });
     }
   }
   return out;

@@ -1,6 +1,6 @@
 import type { Segment } from '../parse/types.js';
 import { readNumber, sentenceOf, sourceSpan } from './numbers.js';
-import { leadStart, topicWords } from './topic.js';
+import { LeadReader } from './topic.js';
 import { comparisonsIn } from './comparisons.js';
 import { decimalsOf, starBound } from './stars.js';
 import type { AdjustMethod, Comparison, ReportedNumber, ReportedP, ReportStyle, Sidedness, TTestReport } from './types.js';
@@ -87,12 +87,14 @@ export function findTTests(seg: Segment, sentenceStarts: number[]): TTestReport[
   const text = seg.text;
   if (!/[tT]/.test(text)) return [];
   const anchors = findAnchors(seg);
+  const leads = new LeadReader(text);
+  const dfBefore = new DfBefore(seg, sentenceStarts);
   const out: TTestReport[] = [];
   anchors.forEach((anchor, i) => {
     const next = anchors[i + 1];
     const sentenceEnd = sentenceStarts[sentenceOf(sentenceStarts, anchor.start) + 1] ?? text.length;
     const limit = Math.min(next ? next.start : text.length, sentenceEnd, anchor.end + 200);
-    const report = completeReport(seg, anchor, limit, sentenceStarts);
+    const report = completeReport(seg, anchor, limit, sentenceStarts, leads, dfBefore);
     if (report) out.push(report);
   });
   return out;
@@ -100,21 +102,37 @@ export function findTTests(seg: Segment, sentenceStarts: number[]): TTestReport[
 
 function findAnchors(seg: Segment): Anchor[] {
   const text = seg.text;
-  const found: Anchor[] = [];
-  const taken = (a: number, b: number) => found.some((f) => a < f.end && f.start < b);
+  // Anchors of each pattern, in reading order and apart from each other (one pattern's matches
+  // never overlap), so whether a stretch overlaps one is a binary search, not a scan of all.
+  const bracketed: Anchor[] = [];
+  const attached: Anchor[] = [];
+  const overlaps = (list: Anchor[], a: number, b: number) => {
+    let lo = 0;
+    let hi = list.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if ((list[mid] as Anchor).start < b) lo = mid + 1;
+      else hi = mid;
+    }
+    const last = list[lo - 1];
+    return last !== undefined && a < last.end;
+  };
+  const taken = (a: number, b: number) => overlaps(bracketed, a, b) || overlaps(attached, a, b);
   for (const m of text.matchAll(BRACKETED)) {
     const df = readNumber(seg, idx(m, 2), idx(m, 2) + (m[2] as string).length);
     const t = numberFromGroup(seg, m, 4);
     if (!df || !t) continue;
-    found.push({ start: m.index, end: m.index + m[0].length, style: 'bracketed-df', symbol: m[1] as string, tOp: comparison(m[3] as string), t, df });
+    bracketed.push({ start: m.index, end: m.index + m[0].length, style: 'bracketed-df', symbol: m[1] as string, tOp: comparison(m[3] as string), t, df });
   }
   for (const m of text.matchAll(ATTACHED)) {
     if (taken(m.index, m.index + m[0].length)) continue;
     const df = readNumber(seg, idx(m, 2), idx(m, 2) + (m[2] as string).length);
     const t = numberFromGroup(seg, m, 4);
     if (!df || !t) continue;
-    found.push({ start: m.index, end: m.index + m[0].length, style: 'attached-df', symbol: 't', tOp: comparison(m[3] as string), t, df });
+    attached.push({ start: m.index, end: m.index + m[0].length, style: 'attached-df', symbol: 't', tOp: comparison(m[3] as string), t, df });
   }
+  // one list in the same order as before the labelled ones join (a spread would overflow the stack)
+  const found = bracketed.concat(attached);
   for (const m of text.matchAll(LABELLED)) {
     if (taken(m.index, m.index + m[0].length)) continue;
     const t = numberFromGroup(seg, m, 3);
@@ -129,7 +147,7 @@ function findAnchors(seg: Segment): Anchor[] {
   return found.sort((a, b) => a.start - b.start);
 }
 
-function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceStarts: number[]): TTestReport | undefined {
+function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceStarts: number[], leads: LeadReader, dfBefore: DfBefore): TTestReport | undefined {
   const text = seg.text;
   let df = anchor.df;
   let end = anchor.end;
@@ -140,7 +158,7 @@ function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceSta
     df = findDf(seg, anchor.end, windowEnd);
     if (df) end = Math.max(end, indexOfSpanEnd(seg, df));
     // "with 23 degrees of freedom, … the t value is 8.02": a df stated earlier in the sentence
-    else df = findDf(seg, sentenceStarts[sentenceOf(sentenceStarts, anchor.start)] as number, anchor.start, true);
+    else df = dfBefore.find(sentenceOf(sentenceStarts, anchor.start), anchor.start);
   }
   const tailEnd = reportTailEnd(text, anchor.end, windowEnd);
   const p = findP(seg, anchor.end, tailEnd) ?? starsAfter(seg, anchor.end);
@@ -159,14 +177,15 @@ function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceSta
   const sided = SIDED_NEAR.exec(tailText);
   const before = text.slice(Math.max(0, anchor.start - 60), anchor.start);
   const variant = VARIANT_BEFORE.exec(before);
-  const sentenceStart = sentenceStarts[sentenceOf(sentenceStarts, anchor.start)] as number;
-  const lead = leadStart(text, sentenceStart, anchor.start);
+  const sentence = sentenceOf(sentenceStarts, anchor.start);
+  const sentenceStart = sentenceStarts[sentence] as number;
+  const lead = leads.start(sentenceStart, sentenceStarts[sentence + 1] ?? text.length, anchor.start);
   const report: TTestReport = {
-    ...(lead < anchor.start ? { lead: { start: sourceSpan(seg, lead, anchor.start).start, words: topicWords(text.slice(lead, anchor.start)) } } : {}),
+    ...(lead < anchor.start ? { lead: { start: sourceSpan(seg, lead, anchor.start).start, words: leads.wordsOf(lead, anchor.start) } } : {}),
     id: `${seg.id}:${anchor.start}`,
     segment: seg.id,
     block: seg.block,
-    sentence: sentenceOf(sentenceStarts, anchor.start),
+    sentence,
     span: sourceSpan(seg, anchor.start, end),
     printed: text.slice(anchor.start, end),
     style: anchor.style,
@@ -257,6 +276,41 @@ function findDf(seg: Segment, from: number, to: number, statedBefore = false): R
   }
   return undefined;
 }
+
+/**
+ * `findDf(seg, sentenceStart, at, true)` for the tests of one segment: the first df stated in
+ * each sentence is searched for once, not once per test (a sentence of thousands of labelled t
+ * values without a df would otherwise be rescanned from its start for each). The text up to `at`
+ * is a prefix of the sentence, so its first df is the sentence's when that one ends before
+ * `at`; where a df word ends right at `at` or the sentence's first df runs across it (its
+ * look-ahead or its digits would read otherwise in the shorter text), `findDf` decides.
+ */
+class DfBefore {
+  private readonly first = new Map<number, { index: number; end: number; df: number; dfEnd: number } | null>();
+  constructor(
+    private readonly seg: Segment,
+    private readonly sentenceStarts: number[],
+  ) {}
+
+  find(sentence: number, at: number): ReportedNumber | undefined {
+    const from = this.sentenceStarts[sentence] as number;
+    const text = this.seg.text;
+    if (DF_WORD_AT_END.test(text.slice(Math.max(from, at - DF_WORD_REACH), at))) return findDf(this.seg, from, at, true);
+    let m = this.first.get(sentence);
+    if (m === undefined) {
+      DF_AFTER.lastIndex = 0;
+      const found = DF_AFTER.exec(text.slice(from, this.sentenceStarts[sentence + 1] ?? text.length));
+      m = found ? { index: from + found.index, end: from + found.index + found[0].length, df: from + idx(found, 1), dfEnd: from + idx(found, 1) + (found[1] as string).length } : null;
+      this.first.set(sentence, m);
+    }
+    if (m === null || m.index >= at) return undefined;
+    if (m.end > at) return findDf(this.seg, from, at, true);
+    return readNumber(this.seg, m.df, m.dfEnd);
+  }
+}
+/** The words a df stated before its test ends with (DF_AFTER), at the end of a stretch. */
+const DF_WORD_AT_END = /(?:df|d\.f\.|degrees of freedom)$/iu;
+const DF_WORD_REACH = 'degrees of freedom'.length;
 
 export function findP(seg: Segment, from: number, to: number): ReportedP | undefined {
   const slice = seg.text.slice(from, to);
@@ -396,9 +450,40 @@ function idx(m: RegExpMatchArray, g: number): number {
   return m.indices?.[g]?.[0] ?? m.index ?? 0;
 }
 
+/** Segments whose source ends never decrease (most do: the map follows the source in order). */
+const ordered = new WeakMap<number[], boolean>();
+function endsInOrder(ends: number[]): boolean {
+  let known = ordered.get(ends);
+  if (known === undefined) {
+    known = true;
+    for (let i = 1; i < ends.length; i += 1) {
+      if ((ends[i] as number) < (ends[i - 1] as number)) {
+        known = false;
+        break;
+      }
+    }
+    ordered.set(ends, known);
+  }
+  return known;
+}
+
 function indexOfSpanEnd(seg: Segment, part: { span: { end: number } }): number {
-  // Largest text index whose source end is within the part's span.
-  let i = seg.ends.length - 1;
-  while (i > 0 && (seg.ends[i] as number) > part.span.end) i -= 1;
+  // Largest text index whose source end is within the part's span: a binary search where the
+  // ends are in order (a walk back from the segment's end costs the whole paragraph per result),
+  // else that walk.
+  const ends = seg.ends;
+  if (ends.length > 0 && endsInOrder(ends)) {
+    let lo = 1;
+    let hi = ends.length;
+    // the first index past 0 whose end lies beyond the span; the one before it is the answer
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if ((ends[mid] as number) > part.span.end) hi = mid;
+      else lo = mid + 1;
+    }
+    return lo;
+  }
+  let i = ends.length - 1;
+  while (i > 0 && (ends[i] as number) > part.span.end) i -= 1;
   return i + 1;
 }

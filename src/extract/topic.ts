@@ -76,3 +76,82 @@ export function leadStart(text: string, sentenceStart: number, at: number): numb
   for (const m of stretch.matchAll(BOUNDARY)) if (depth[m.index] === 0) start = sentenceStart + m.index + m[0].length;
   return start;
 }
+
+/**
+ * `leadStart` and `topicWords` for the tests of one segment, read in order, in time linear in
+ * the segment: a sentence of thousands of tests would otherwise be rescanned from its start for
+ * each one. Each sentence's clause boundaries are found once; the content words of a lead are
+ * gathered once as the tests move along it, and a lead that gained no word since the test
+ * before shares that test's list. Both answers are those of the functions above: where a
+ * boundary or a word runs across a test's statistic (so a scan of the text up to it would see
+ * it cut), the answer is computed by those functions directly.
+ */
+export class LeadReader {
+  private readonly words = new RegExp(WORD.source, WORD.flags);
+  private sentence: { start: number; end: number; boundaries: Array<{ index: number; end: number; top: boolean }> } | undefined;
+  private lead: { start: number; at: number; scanned: number; seen: Set<string>; list: string[] } | undefined;
+
+  constructor(private readonly text: string) {}
+
+  /** `leadStart(text, sentenceStart, at)` for a statistic at `at` in the sentence [sentenceStart, sentenceEnd). */
+  start(sentenceStart: number, sentenceEnd: number, at: number): number {
+    if (at > sentenceEnd) return leadStart(this.text, sentenceStart, at);
+    if (this.sentence?.start !== sentenceStart || this.sentence.end !== sentenceEnd) this.sentence = { start: sentenceStart, end: sentenceEnd, boundaries: this.boundaries(sentenceStart, sentenceEnd) };
+    const list = this.sentence.boundaries;
+    // the first boundary starting at or after `at`; the one before it must end by `at`
+    let lo = 0;
+    let hi = list.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if ((list[mid] as { index: number }).index < at) lo = mid + 1;
+      else hi = mid;
+    }
+    const last = list[lo - 1];
+    if (last && last.end > at) return leadStart(this.text, sentenceStart, at);
+    for (let i = lo - 1; i >= 0; i -= 1) {
+      const b = list[i] as { end: number; top: boolean };
+      if (b.top) return b.end;
+    }
+    return sentenceStart;
+  }
+
+  /** Boundaries of one sentence, each marked whether it stands outside parentheses. */
+  private boundaries(from: number, to: number): Array<{ index: number; end: number; top: boolean }> {
+    const stretch = this.text.slice(from, to);
+    if (!/[,;]/.test(stretch)) return [];
+    const out: Array<{ index: number; end: number; top: boolean }> = [];
+    let d = 0;
+    let i = 0;
+    for (const m of stretch.matchAll(BOUNDARY)) {
+      for (; i < m.index; i += 1) {
+        const c = stretch[i];
+        if (c === '(' || c === '[') d += 1;
+        else if ((c === ')' || c === ']') && d > 0) d -= 1;
+      }
+      out.push({ index: from + m.index, end: from + m.index + m[0].length, top: d === 0 });
+    }
+    return out;
+  }
+
+  /** `topicWords(text.slice(lead, at))`; calls come in reading order. */
+  wordsOf(lead: number, at: number): string[] {
+    if (this.lead?.start !== lead || at < this.lead.at) this.lead = { start: lead, at: lead, scanned: lead, seen: new Set(), list: [] };
+    const state = this.lead;
+    state.at = at;
+    const re = this.words;
+    let added = false;
+    for (;;) {
+      re.lastIndex = state.scanned;
+      const m = re.exec(this.text);
+      if (!m || m.index >= at) break;
+      if (m.index + m[0].length > at) return topicWords(this.text.slice(lead, at));
+      state.scanned = m.index + m[0].length;
+      const w = m[0].toLowerCase().replace(/['’]s$/u, '');
+      if (w.length < 3 || REPORTING.has(w) || state.seen.has(w)) continue;
+      state.seen.add(w);
+      added = true;
+    }
+    if (added || state.list.length !== state.seen.size) state.list = [...state.seen];
+    return state.list;
+  }
+}

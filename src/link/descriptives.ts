@@ -98,19 +98,33 @@ class SegmentList<T extends Placed> {
   all(segment: number): T[] {
     return this.bySegment.get(segment) ?? [];
   }
-  /** Items starting in [from, to) (to undefined: to the end of the segment). */
-  between(segment: number, from: number, to?: number): T[] {
+  /**
+   * Items starting in [from, to) in one sentence: those that `between` gives of that sentence,
+   * without walking the rest of the segment when `to` is open (sentence numbers grow with
+   * position in a segment).
+   */
+  betweenInSentence(segment: number, sentence: number, from: number, to?: number): T[] {
     const list = this.all(segment);
     const out: T[] = [];
     for (let i = lowerBound(list, from); i < list.length; i += 1) {
       const it = list[i] as T;
-      if (to !== undefined && it.span.start >= to) break;
-      out.push(it);
+      if ((to !== undefined && it.span.start >= to) || it.sentence > sentence) break;
+      if (it.sentence === sentence) out.push(it);
     }
     return out;
   }
-  /** Items of one sentence (sentence numbers grow with position in a segment). */
-  inSentence(segment: number, sentence: number): T[] {
+  private readonly sentences = new Map<string, T[]>();
+  /** Items of one sentence (sentence numbers grow with position in a segment); one list per sentence, shared by every caller. */
+  inSentence(segment: number, sentence: number): readonly T[] {
+    const key = `${segment}:${sentence}`;
+    let found = this.sentences.get(key);
+    if (!found) {
+      found = this.sentenceItems(segment, sentence);
+      this.sentences.set(key, found);
+    }
+    return found;
+  }
+  private sentenceItems(segment: number, sentence: number): T[] {
     const list = this.all(segment);
     let lo = 0;
     let hi = list.length;
@@ -200,6 +214,10 @@ export function contextJoiner(x: Extraction): (report: TTestReport) => ResultCon
     blocks: groupBy(x.tableBlocks, (b) => b.table),
     tablesWithTests: new Set(x.tests.flatMap((r) => (r.table ? [r.table.table] : []))),
     mentions: groupBy(x.tableMentions, (m) => `${m.segment}:${m.sentence}`),
+    byId: firstById(x.tables),
+    // the first table each block stands right after or right before (the order `find` met them in)
+    beside: tablesBeside(x.tables),
+    memo: { testsInSentence: new Map(), sentenceDesign: new Map(), paragraphDesign: new Map(), sampleSizes: new Map() },
   };
   return (report) => contextFor(report, clauses, lists, tables);
 }
@@ -237,6 +255,33 @@ interface Tables {
   methodsDesign: Setting<Design> | undefined;
   /** Randomised groups the text names (none in a document of several studies). */
   assignments: GroupAssignment[];
+  byId: Map<number, Extraction['tables'][number]>;
+  beside: Map<number, Extraction['tables'][number]>;
+  /** Answers that are the same for every result of a sentence or paragraph, computed once. */
+  memo: {
+    /** Tests of a sentence in a block, by `segment:sentence:block`. */
+    testsInSentence: Map<string, number>;
+    sentenceDesign: Map<string, Setting<Design> | null>;
+    paragraphDesign: Map<number, Setting<Design> | null>;
+    sampleSizes: Map<string, SampleSize[]>;
+  };
+}
+
+/** Each table by its number (the first, as `find` would give). */
+function firstById(tables: Extraction['tables']): Map<number, Extraction['tables'][number]> {
+  const out = new Map<number, Extraction['tables'][number]>();
+  for (const tb of tables) if (!out.has(tb.table)) out.set(tb.table, tb);
+  return out;
+}
+
+/** For each block, the first table (in document order) that ends right before it or starts right after it. */
+function tablesBeside(tables: Extraction['tables']): Map<number, Extraction['tables'][number]> {
+  const out = new Map<number, Extraction['tables'][number]>();
+  for (const tb of tables) {
+    if (!out.has(tb.lastBlock + 1)) out.set(tb.lastBlock + 1, tb);
+    if (!out.has(tb.firstBlock - 1)) out.set(tb.firstBlock - 1, tb);
+  }
+  return out;
 }
 
 /**
@@ -246,7 +291,7 @@ interface Tables {
  * later sentence may be about something else).
  */
 function owned<T extends Placed>(report: TTestReport, clause: Clause, clauses: ClauseIndex, list: SegmentList<T>): Array<Linked<T>> {
-  const inClause = list.between(report.segment, clause.start, clause.end).filter((i) => i.sentence === report.sentence);
+  const inClause = list.betweenInSentence(report.segment, report.sentence, clause.start, clause.end);
   if (inClause.length > 0) return inClause.map((item) => ({ item, basis: 'clause', certain: true }));
   if (clauses.statisticsInSentence(report.segment, report.sentence) === 1) {
     const before = list.inSentence(report.segment, report.sentence).filter((i) => clauses.ownerOf(i) === undefined);
@@ -277,7 +322,7 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
   const row = report.table ? `${report.table.table}:${report.table.row}` : undefined;
   const inRow = <T extends Placed>(items: Map<string, T[]>, list: SegmentList<T>): Array<Linked<T>> => {
     if (!row) return [];
-    const own = list.between(report.segment, clause.start, clause.end).filter((i) => i.sentence === report.sentence);
+    const own = list.betweenInSentence(report.segment, report.sentence, clause.start, clause.end);
     if (own.length > 0) return own.map((item) => ({ item, basis: 'clause', certain: true }));
     return (items.get(row) ?? []).filter((item) => notOwnedByAnother(item, report, clauses)).map((item) => ({ item, basis: 'table-row', certain: true }));
   };
@@ -292,7 +337,12 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
   const reference = sentenceReferences[0] ?? (clauses.testsInSegment(report.segment) === 1 ? n.references.all(report.segment)[0] : undefined);
   // The sentence's own first; then the paragraph's first few (rules take the first that fits,
   // and a bounded list keeps a paragraph of thousands of results linear).
-  const sampleSizes = [...n.sampleSizes.inSentence(report.segment, report.sentence), ...n.sampleSizes.all(report.segment).slice(0, PARAGRAPH_SIZES)];
+  const sizesKey = `${report.segment}:${report.sentence}`;
+  let sampleSizes = t.memo.sampleSizes.get(sizesKey);
+  if (!sampleSizes) {
+    sampleSizes = n.sampleSizes.inSentence(report.segment, report.sentence).concat(n.sampleSizes.all(report.segment).slice(0, PARAGRAPH_SIZES));
+    t.memo.sampleSizes.set(sizesKey, sampleSizes);
+  }
   const pairs = n.groupSizes.inSentence(report.segment, report.sentence);
   const groupSizes = pairs.length === 1 ? (pairs[0] as GroupSizes).ns : undefined;
   // a value the result is compared against, printed in its sentence, makes it a one-sample
@@ -303,7 +353,7 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
     ...(link ? { descriptives: link } : {}),
     ...(unlinked ? { unlinked } : {}),
     // one group of descriptives is a one-sample test (or differences) before the Methods' design
-    design: unlessUnequal(designFor(report, clause, clauses, n.designs) ?? againstValue ?? (link?.groups.length === 1 ? oneGroup : undefined) ?? assignedGroups(link, t.assignments) ?? t.methodsDesign ?? { value: 'unknown', basis: 'default' }, link, groupSizes),
+    design: unlessUnequal(designFor(report, clause, clauses, n.designs, t.memo) ?? againstValue ?? (link?.groups.length === 1 ? oneGroup : undefined) ?? assignedGroups(link, t.assignments) ?? t.methodsDesign ?? { value: 'unknown', basis: 'default' }, link, groupSizes),
     ...(groupSizes ? { groupSizes } : {}),
     ...(reference ? { reference } : {}),
     ...(interval ? { interval } : {}),
@@ -357,14 +407,19 @@ function canHold(ci: IntervalReport, x: ReportedNumber): boolean {
 
 function descriptivesFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tables): { link?: DescriptiveLink; unlinked?: ResultContext['unlinked'] } {
   if (report.table) return tableDescriptives(report, report.table, t);
-  const testsInSentence = n.tests.inSentence(report.segment, report.sentence).filter((x) => x.block === report.block);
+  const blockKey = `${report.segment}:${report.sentence}:${report.block}`;
+  let testsInSentence = t.memo.testsInSentence.get(blockKey);
+  if (testsInSentence === undefined) {
+    testsInSentence = n.tests.inSentence(report.segment, report.sentence).filter((x) => x.block === report.block).length;
+    t.memo.testsInSentence.set(blockKey, testsInSentence);
+  }
   const inSentence = n.prose.inSentence(report.segment, report.sentence);
   // certain when no other test of means shares the sentence (a χ² or a correlation cannot
   // claim a group's mean and SD)
   const aloneInSentence = clauses.meanTestsInSentence(report.segment, report.sentence) === 1;
   if (inSentence.length > 0) {
-    if (inSentence.length <= 2 && testsInSentence.length === 1) return { link: withLeadDoubt(report, makeLink('sentence', inSentence, t.spreads, aloneInSentence)) };
-    return { unlinked: { reason: `${inSentence.length} sets of descriptives and ${testsInSentence.length} tests in one sentence`, span: report.span } };
+    if (inSentence.length <= 2 && testsInSentence === 1) return { link: withLeadDoubt(report, makeLink('sentence', [...inSentence], t.spreads, aloneInSentence)) };
+    return { unlinked: { reason: `${inSentence.length} sets of descriptives and ${testsInSentence} tests in one sentence`, span: report.span } };
   }
   const paragraphGroups = n.prose.all(report.segment);
   // Only a paragraph with a single test can take descriptives from its other sentences.
@@ -381,14 +436,14 @@ function descriptivesFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t:
   const named = t.mentions.get(`${report.segment}:${report.sentence}`) ?? [];
   if (named.length === 1) {
     const m = named[0] as Extraction['tableMentions'][number];
-    const table = t.tables.find((x) => x.table === m.table);
+    const table = t.byId.get(m.table);
     const beside = table !== undefined && report.block >= table.firstBlock - BESIDE && report.block <= table.lastBlock + BESIDE;
     const blocks = (t.blocks.get(m.table) ?? []).filter((b) => b.label.toLowerCase() === m.label);
     const block = blocks.length === 1 ? blocks[0] : undefined;
     const groups = block && beside && !t.tablesWithTests.has(m.table) ? blockGroups(block, t) : [];
     if (groups.length === 2) return { link: makeLink('table', groups, t.spreads, true) };
   }
-  const table = t.tables.find((x) => report.block === x.lastBlock + 1 || report.block === x.firstBlock - 1);
+  const table = t.beside.get(report.block);
   const rows = table ? (t.tableRows.get(table.table) ?? []) : [];
   const claimants = table ? [...(t.testsByBlock.get(table.lastBlock + 1) ?? []), ...(t.testsByBlock.get(table.firstBlock - 1) ?? [])] : [];
   if (rows.length > 0) {
@@ -500,25 +555,34 @@ export function spreadStatements(x: Extraction): SpreadStatements {
  * sentences of its paragraph that report no test (when they agree). Undefined when none do:
  * then structure (one group), the Methods' design, or unknown.
  */
-function designFor(report: TTestReport, clause: Clause, clauses: ClauseIndex, designs: SegmentList<DesignStatement>): Setting<Design> | undefined {
+function designFor(report: TTestReport, clause: Clause, clauses: ClauseIndex, designs: SegmentList<DesignStatement>, memo: Tables['memo']): Setting<Design> | undefined {
   const named = report.namedVariant;
   if (named === 'paired') return { value: 'paired', basis: 'in-report' };
   if (named === 'welch' || named === 'student' || named === 'independent') return { value: 'independent', basis: 'in-report' };
   if (named === 'one-sample') return { value: 'one-sample', basis: 'in-report' };
-  const pick = (ds: DesignStatement[], basis: Setting<Design>['basis']): Setting<Design> | undefined => {
+  const pick = (ds: readonly DesignStatement[], basis: Setting<Design>['basis']): Setting<Design> | undefined => {
     const first = ds[0];
     if (!first || !ds.every((d) => d.design === first.design)) return undefined;
     return { value: first.design, basis, span: first.span, printed: first.printed };
   };
-  const inClause = pick(designs.between(report.segment, clause.start, clause.end).filter((d) => d.sentence === report.sentence), 'sentence');
+  const inClause = pick(designs.betweenInSentence(report.segment, report.sentence, clause.start, clause.end), 'sentence');
   if (inClause) return inClause;
-  const sentence = pick(designs.inSentence(report.segment, report.sentence), 'sentence');
+  const sentenceKey = `${report.segment}:${report.sentence}`;
+  let sentence = memo.sentenceDesign.get(sentenceKey);
+  if (sentence === undefined) {
+    sentence = pick(designs.inSentence(report.segment, report.sentence), 'sentence') ?? null;
+    memo.sentenceDesign.set(sentenceKey, sentence);
+  }
   if (sentence) return sentence;
   // the paragraph's words about the design, from sentences that report no test: words beside
   // another result ("each staff member measured twice") are that result's
   // nor from a sentence about one study ("Experiment 2 used a within-participants design"),
   // which the paragraph of an abstract or discussion sets beside results of another study
-  const paragraph = pick(designs.all(report.segment).filter((d) => clauses.statisticsInSentence(d.segment, d.sentence) === 0 && !d.namesStudy), 'paragraph');
+  let paragraph = memo.paragraphDesign.get(report.segment);
+  if (paragraph === undefined) {
+    paragraph = pick(designs.all(report.segment).filter((d) => clauses.statisticsInSentence(d.segment, d.sentence) === 0 && !d.namesStudy), 'paragraph') ?? null;
+    memo.paragraphDesign.set(report.segment, paragraph);
+  }
   if (paragraph) return paragraph;
   return undefined;
 }

@@ -46,16 +46,20 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     else testsBySegment.set(t.segment, [t]);
   }
   // The statements of each paragraph's sentences that report no test (computed once per segment).
-  const paragraphStatements = new Map<number, ContextStatement[]>();
-  const paragraphOf = (segment: number): ContextStatement[] => {
-    let list = paragraphStatements.get(segment);
-    if (!list) {
+  // and the tails and alpha they agree on
+  const paragraphStatements = new Map<number, ParagraphReading>();
+  const paragraphOf = (segment: number): ParagraphReading => {
+    let reading = paragraphStatements.get(segment);
+    if (!reading) {
       const withTests = new Set((testsBySegment.get(segment) ?? []).map((t) => t.sentence));
       // A power or sample-size calculation's tails and alpha size the study; they are not the tests'.
-      list = (statementsBySegment.get(segment) ?? []).filter((s) => !withTests.has(s.sentence) && !s.planning);
-      paragraphStatements.set(segment, list);
+      const list = (statementsBySegment.get(segment) ?? []).filter((s) => !withTests.has(s.sentence) && !s.planning);
+      const sided = agreeing(list.filter((s) => s.kind === 'sidedness'), (s) => s.sidedness as Sidedness, 'paragraph');
+      const alpha = agreeing(list.filter((s) => s.kind === 'alpha'), (s) => s.alpha as number, 'paragraph');
+      reading = { ...(sided ? { sided } : {}), ...(alpha ? { alpha } : {}) };
+      paragraphStatements.set(segment, reading);
     }
-    return list;
+    return reading;
   };
   const bySentence = new Map<string, ContextStatement[]>();
   for (const st of extraction.statements) {
@@ -76,16 +80,42 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   // One-tailed words in a sentence without a test, said of no particular result: where they
   // cannot be tied to a result, a note says so rather than "nothing says one-tailed".
   const untied = extraction.statements.filter((s) => s.kind === 'sidedness' && !generalSet.has(s) && !sentencesWithTests.has(`${s.segment}:${s.sentence}`));
+  // The first one-tailed statement said of no result that is not in a given paragraph (or
+  // plans a study): the first of them, or else the first that breaks from the first's paragraph.
+  const untiedOne = untied.filter((s) => s.sidedness === 'one');
+  const firstUntied = untiedOne[0];
+  const otherUntied = firstUntied ? untiedOne.find((s) => s.segment !== firstUntied.segment || s.planning === true) : undefined;
+  const untiedOutside = (segment: number) => (firstUntied && (firstUntied.segment !== segment || firstUntied.planning === true) ? firstUntied : otherUntied);
+  // What each sentence says of tails and alpha, read once per sentence (a sentence of thousands
+  // of results would otherwise be searched again for each).
+  const sentenceReadings = new Map<string, SentenceReading>();
+  const readingOf = (k: string, segment: number, sentence: number): SentenceReading => {
+    let r = sentenceReadings.get(k);
+    if (!r) {
+      const own = bySentence.get(k) ?? [];
+      const previous = bySentence.get(`${segment}:${sentence - 1}`) ?? [];
+      const peers = testsBySentence.get(k) ?? [];
+      const sided = own.filter((s) => s.kind === 'sidedness');
+      r = {
+        sided,
+        // each tails word's distance to the nearest test of the sentence: the test at that distance takes it
+        nearestDistance: sided.map((s) => peers.reduce((d, t) => Math.min(d, distance(s, t)), Infinity)),
+        equivalence: own.find((s) => s.kind === 'equivalence') ?? previous.find((s) => s.kind === 'equivalence'),
+        alpha: own.find((s) => s.kind === 'alpha'),
+      };
+      sentenceReadings.set(k, r);
+    }
+    return r;
+  };
   const results: LinkedResult[] = extraction.tests.map((report) => {
     const k = `${report.segment}:${report.sentence}`;
-    const sentence = bySentence.get(k) ?? [];
-    const previous = bySentence.get(`${report.segment}:${report.sentence - 1}`) ?? [];
-    const sidedness = sidednessFor(report, sentence, previous, paragraphOf(report.segment), testsBySentence.get(k) ?? [], documentSidedness);
-    const elsewhere = sidedness.basis === 'default' ? untied.find((s) => s.sidedness === 'one' && (s.segment !== report.segment || s.planning === true)) : undefined;
+    const reading = readingOf(k, report.segment, report.sentence);
+    const sidedness = sidednessFor(report, reading, paragraphOf(report.segment), documentSidedness);
+    const elsewhere = sidedness.basis === 'default' ? untiedOutside(report.segment) : undefined;
     return {
       report,
       sidedness,
-      alpha: alphaFor(sentence, paragraphOf(report.segment), documentAlpha),
+      alpha: alphaFor(reading, paragraphOf(report.segment), documentAlpha),
       context: join(report),
       ...(names.has(report) ? { testName: names.get(report) } : {}),
       ...(elsewhere ? { untiedSidedness: elsewhere } : {}),
@@ -116,25 +146,30 @@ function agreeing<T>(statements: ContextStatement[], value: (s: ContextStatement
   return { value: value(first), basis, span: first.span, printed: first.printed };
 }
 
-function sidednessFor(report: TTestReport, sentence: ContextStatement[], previous: ContextStatement[], paragraph: ContextStatement[], peers: TTestReport[], fallback: Setting<Sidedness>): Setting<Sidedness> {
+/** What one sentence (and the one before it) says of tails and alpha. */
+interface SentenceReading {
+  sided: ContextStatement[];
+  nearestDistance: number[];
+  equivalence?: ContextStatement;
+  alpha?: ContextStatement;
+}
+
+/** The tails and alpha a paragraph's sentences without tests agree on. */
+interface ParagraphReading {
+  sided?: Setting<Sidedness>;
+  alpha?: Setting<number>;
+}
+
+function sidednessFor(report: TTestReport, sentence: SentenceReading, paragraph: ParagraphReading, fallback: Setting<Sidedness>): Setting<Sidedness> {
   if (report.statedSidedness) {
     return { value: report.statedSidedness.value, basis: 'in-report', span: report.statedSidedness.span };
   }
-  // With several tests in one sentence, a tails word belongs to the test nearest to it.
-  const sided = nearest(sentence.filter((s) => s.kind === 'sidedness'), report, peers);
+  // With several tests in one sentence, a tails word belongs to the test nearest to it (ties: each).
+  const sided = sentence.sided.find((s, i) => distance(s, report) <= (sentence.nearestDistance[i] as number));
   if (sided) return { value: sided.sidedness as Sidedness, basis: 'sentence', span: sided.span, printed: sided.printed };
-  const equivalence = [...sentence, ...previous].find((s) => s.kind === 'equivalence');
+  const equivalence = sentence.equivalence;
   if (equivalence) return { value: 'one', basis: 'equivalence-test', span: equivalence.span, printed: equivalence.printed };
-  const inParagraph = agreeing(paragraph.filter((s) => s.kind === 'sidedness'), (s) => s.sidedness as Sidedness, 'paragraph');
-  if (inParagraph) return inParagraph;
-  return fallback;
-}
-
-function nearest(candidates: ContextStatement[], report: TTestReport, peers: TTestReport[]): ContextStatement | undefined {
-  return candidates.find((s) => {
-    const mine = distance(s, report);
-    return peers.every((other) => other === report || distance(s, other) >= mine);
-  });
+  return paragraph.sided ?? fallback;
 }
 
 function distance(s: ContextStatement, t: TTestReport): number {
@@ -143,12 +178,10 @@ function distance(s: ContextStatement, t: TTestReport): number {
   return 0;
 }
 
-function alphaFor(sentence: ContextStatement[], paragraph: ContextStatement[], fallback: Setting<number>): Setting<number> {
-  const inSentence = sentence.find((s) => s.kind === 'alpha');
+function alphaFor(sentence: SentenceReading, paragraph: ParagraphReading, fallback: Setting<number>): Setting<number> {
+  const inSentence = sentence.alpha;
   if (inSentence) return { value: inSentence.alpha as number, basis: 'sentence', span: inSentence.span, printed: inSentence.printed };
-  const inParagraph = agreeing(paragraph.filter((s) => s.kind === 'alpha'), (s) => s.alpha as number, 'paragraph');
-  if (inParagraph) return inParagraph;
-  return fallback;
+  return paragraph.alpha ?? fallback;
 }
 
 /**
@@ -164,7 +197,13 @@ function integerDeclarations(x: Extraction): LinkedDocument['integerDeclarations
   const bySentence = new Map<string, IntegerStatement>();
   for (const d of x.integerMeasures) if (!bySentence.has(key(d.segment, d.sentence))) bySentence.set(key(d.segment, d.sentence), d);
   const byName = new Map<string, IntegerStatement[]>();
-  for (const d of x.integerMeasures) for (const name of d.measures ?? []) byName.set(name, [...(byName.get(name) ?? []), d]);
+  for (const d of x.integerMeasures) {
+    for (const name of d.measures ?? []) {
+      const list = byName.get(name);
+      if (list) list.push(d);
+      else byName.set(name, [d]);
+    }
+  }
   const named = new Map<string, Set<string>>();
   for (const m of x.measureMentions) {
     const k = key(m.segment, m.sentence);
@@ -185,6 +224,7 @@ function integerDeclarations(x: Extraction): LinkedDocument['integerDeclarations
       byRow.set(k, set);
     }
   }
+  const byNames = new Map<Set<string>, IntegerStatement | null>();
   for (const g of x.summaries) {
     if (!g.mean) continue;
     const own = g.table ? undefined : bySentence.get(key(g.segment, g.sentence));
@@ -193,9 +233,16 @@ function integerDeclarations(x: Extraction): LinkedDocument['integerDeclarations
       continue;
     }
     const names = g.table ? byRow.get(`${g.table.table}:${g.table.row}`) : named.get(key(g.segment, g.sentence));
-    const candidates = [...(names ?? [])].flatMap((name) => byName.get(name) ?? []);
-    const first = candidates[0];
-    if (first && candidates.every((c) => c.items === first.items)) out.set(g, { statement: first, basis: 'measure-name' });
+    if (!names) continue;
+    // the same names give the same answer: decided once per set of names
+    let agreed = byNames.get(names);
+    if (agreed === undefined) {
+      const candidates = [...names].flatMap((name) => byName.get(name) ?? []);
+      const first = candidates[0];
+      agreed = first && candidates.every((c) => c.items === first.items) ? first : null;
+      byNames.set(names, agreed);
+    }
+    if (agreed) out.set(g, { statement: agreed, basis: 'measure-name' });
   }
   return out;
 }
