@@ -40,6 +40,7 @@ export function checklistRule(spec: ChecklistRuleSpec): Rule {
           check: spec.check,
           ...(e.resultId ? { resultId: e.resultId } : {}),
           ...(e.block !== undefined ? { block: e.block } : {}),
+          ...(e.fix ? { fix: e.fix } : {}),
           ...(e.scope === 'document' && !e.span ? { scope: 'document' as const } : {}),
         });
       }
