@@ -9,7 +9,7 @@ export const RULES_FORMATS = ['human', 'json'] as const;
 
 /** What the command line asks for, validated. */
 export interface CliOptions {
-  command: 'check' | 'rules' | 'explain' | 'batch';
+  command: 'check' | 'rules' | 'explain' | 'batch' | 'lsp';
   files: string[];
   /** `-` was given: read standard input. */
   stdin: boolean;
@@ -33,6 +33,10 @@ export interface CliOptions {
   writeBaseline?: string;
   /** Folder walks follow symbolic links that lead outside the folder named (--follow-links-outside). */
   followLinksOutside?: boolean;
+  /** Re-check the files named whenever they change, until interrupted. */
+  watch?: boolean;
+  /** Apply the safe formatting fixes (`apply`), or print them as a unified diff (`diff`). */
+  fix?: 'apply' | 'diff';
 }
 
 export type ParseOutcome = { kind: 'run'; options: CliOptions } | { kind: 'help' | 'version'; text: string } | { kind: 'error'; message: string };
@@ -59,6 +63,9 @@ const OPTIONS: Array<{ name: string; short?: string; type: 'string' | 'number' |
   { name: 'time-budget', type: 'number', value: 'S', describe: `seconds a document may take before it is reported as not checked (default ${DEFAULT_BUDGET.seconds})` },
   { name: 'max-file-bytes', type: 'number', value: 'N', describe: `skip files larger than N bytes (default ${DEFAULT_MAX_FILE_BYTES}, or maxFileBytes in configuration)` },
   { name: 'follow-links-outside', type: 'boolean', describe: 'when walking a folder or a glob, follow symbolic links that lead outside it (default: skip them and say so; a link named on the command line is always read)' },
+  { name: 'fix', type: 'boolean', describe: 'apply the safe formatting fixes (each listed on its rule\'s page) to the files, written atomically; a wrong number is never changed' },
+  { name: 'fix-dry-run', type: 'boolean', describe: 'print the safe formatting fixes as a unified diff; change nothing' },
+  { name: 'watch', type: 'boolean', describe: 'check again whenever a file named (or in a folder named) changes, until interrupted' },
   { name: 'color', type: 'boolean', describe: 'colour the human format (default: on a terminal, unless NO_COLOR is set); --no-color turns it off' },
   { name: 'help', short: 'h', type: 'boolean', describe: 'show this help' },
   { name: 'version', short: 'v', type: 'boolean', describe: 'show the version' },
@@ -68,6 +75,7 @@ const COMMANDS: Array<[string, string]> = [
   ['plumbline [files…]', 'check manuscripts: files, folders (walked for .md .markdown .txt .Rmd .qmd) and globs; "-" reads standard input; after "--" every word is a file'],
   ['plumbline explain RULE', "print a rule's page"],
   ['plumbline rules', 'list the rules (--format json: with kind, default level and options schema)'],
+  ['plumbline lsp', 'a language server over standard input and output, for editors (see the README)'],
   ['plumbline batch', 'read paths or NDJSON documents {id, text, format?} from standard input, one per line; write one NDJSON line per document'],
 ];
 
@@ -130,7 +138,8 @@ function parser() {
     .command('$0 [files..]', 'check', (c) => c.positional('files', { type: 'string', array: true }))
     .command('explain <rule>', 'explain', (c) => c.positional('rule', { type: 'string', demandOption: true }))
     .command('rules', 'rules')
-    .command('batch', 'batch');
+    .command('batch', 'batch')
+    .command('lsp', 'lsp');
   for (const o of OPTIONS) y = y.option(o.name, { type: o.type, ...(o.short ? { alias: o.short } : {}), ...(o.type !== 'boolean' ? { requiresArg: true } : {}) });
   return y.strict().exitProcess(false);
 }
@@ -194,6 +203,7 @@ export async function parseArguments(argv: string[], columns: number | undefined
   if (timeBudget !== undefined && !(Number.isInteger(timeBudget) && timeBudget >= 1))
     return { kind: 'error', message: `--time-budget must be a whole number of seconds, 1 or more; got "${rawValue(words, 'time-budget') ?? ''}"` };
   for (const name of ['output', 'baseline', 'write-baseline', 'config', 'stdin-name'] as const) if (str(name) === '') return { kind: 'error', message: `--${name} needs a value` };
+  if (parsed.fix === true && parsed['fix-dry-run'] === true) return { kind: 'error', message: '--fix and --fix-dry-run do not go together; give one' };
 
   const positional = ((parsed.files as string[] | undefined) ?? []).map(String);
   // yargs sets a lone "-" aside from the positionals; it means standard input
@@ -218,6 +228,8 @@ export async function parseArguments(argv: string[], columns: number | undefined
     ...(str('output') !== undefined ? { output: str('output') as string } : {}),
     ...(typeof parsed.color === 'boolean' ? { color: parsed.color } : {}),
     ...(parsed['follow-links-outside'] === true ? { followLinksOutside: true } : {}),
+    ...(parsed.watch === true ? { watch: true } : {}),
+    ...(parsed['fix-dry-run'] === true ? { fix: 'diff' as const } : parsed.fix === true ? { fix: 'apply' as const } : {}),
     ...(str('baseline') !== undefined ? { baseline: str('baseline') as string } : {}),
     ...(str('write-baseline') !== undefined ? { writeBaseline: str('write-baseline') as string } : {}),
   };
