@@ -12,6 +12,9 @@
  *      backslashes, autolinks, one-character lines, "pre-test " and "randomly assigned to "
  *      repeated, setext headings, block quotes, lazy quote and list lines, unclosed front
  *      matter, reference and footnote definitions) ÷ ordinary text              (goal ≤ 3 each)
+ *   8. editor re-check: a 50 KB manuscript checked again after a one-character edit, as the
+ *      language server does it (configuration found afresh, then the whole check) ÷ the bare
+ *      remark-parse + remark-gfm parse of the same edited text                   (goal ≤ 1.2)
  *
  * Prints a table and writes bench/results.json. `npm run bench -- 3 7` (or PLUMBLINE_BENCH=3,7)
  * runs only the figures named by number, for a quick look at one case; results.json is then
@@ -25,7 +28,8 @@ import { fileURLToPath } from 'node:url';
 import remarkGfm from 'remark-gfm';
 import remarkParse from 'remark-parse';
 import { unified } from 'unified';
-import { checkSource } from '../src/engine/index.js';
+import { ConfigFinder } from '../src/config/index.js';
+import { checkSource, RULE_IDS } from '../src/engine/index.js';
 import { ADVERSARIAL, FURTHER_HOSTILE, adversarial, statDense, statFree } from './corpus.js';
 
 const root = resolve(fileURLToPath(new URL('.', import.meta.url)), '../..');
@@ -163,6 +167,22 @@ function hostileFigure(name: string, kinds: string[]): Array<{ kind: string; rat
 const hostile = wanted(6) ? hostileFigure('6 adversarial 1 MB runs: worst / ordinary', Object.keys(ADVERSARIAL)) : [];
 // 7: further hostile runs, the same measure
 const further = wanted(7) ? hostileFigure('7 further hostile 1 MB runs: worst / ordinary', Object.keys(FURTHER_HOSTILE)) : [];
+
+// 8: the language server's re-check after a keystroke, against the bare parse of the same text
+if (wanted(8)) {
+  const original = statDense(1);
+  // one character changed in the middle: a digit of a printed number, as a person corrects one
+  let at = Math.floor(original.length / 2);
+  while (at < original.length && !((original[at] as string) >= '0' && (original[at] as string) <= '9')) at += 1;
+  const edited = `${original.slice(0, at)}${original[at] === '7' ? '8' : '7'}${original.slice(at + 1)}`;
+  const configDir = mkdtempSync(join(tmpdir(), 'plumbline-bench-lsp-'));
+  const path = join(configDir, 'manuscript.md');
+  checkSource(path, original); // the check before the edit, as in an open editor
+  const recheck = best(() => checkSource(path, edited, { config: new ConfigFinder(RULE_IDS).forFile(path).config }), 5);
+  const parse = best(() => bare.parse(edited), 5);
+  rmSync(configDir, { recursive: true, force: true });
+  add({ name: '8 editor re-check after one edit / bare parse', value: recheck / parse, goal: '<= 1.2', met: recheck / parse <= 1.2, detail: `${(edited.length / 1000).toFixed(0)} KB; re-check ${recheck.toFixed(1)} ms, bare parse ${parse.toFixed(1)} ms` });
+}
 
 const machine = { cpus: cpus().length, cpu: cpus()[0]?.model ?? '', memoryGb: Math.round(totalmem() / 2 ** 30), node: process.version, date: new Date().toISOString().slice(0, 10) };
 if (picked.length === 0) {
