@@ -15,7 +15,7 @@ const setting = (s: { value: unknown; basis: string; printed?: string }) => `${S
  * engine's result record shown as it is (no statistic is computed here).
  */
 export function hoverText(r: ResultRecord): string {
-  const lines: string[] = [`**plumbline read** \`${r.printed.replace(/`/g, "'")}\``, ''];
+  const lines: string[] = [`**plumbline read** \`${r.printed.replaceAll('`', "'")}\``, ''];
   const read = [`t ${r.t.op} ${r.t.printed}`];
   if (r.df) read.push(`df = ${r.df.printed}`);
   if (r.p) read.push(r.p.printed);

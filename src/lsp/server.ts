@@ -212,9 +212,9 @@ export function serve(input: NodeJS.ReadableStream = process.stdin, output: Node
         }
       }
       if (f.ruleId !== 'quiet-directive-has-reason') {
-        const at = blockStart(text, f.scope === 'document' ? 0 : f.span.start);
-        const pos = p.snapshot.positionAt(at);
-        actions.push({
+        const at = quietCommentAt(text, f.scope === 'document' ? 0 : f.span.start);
+        const pos = at === undefined ? undefined : p.snapshot.positionAt(at);
+        if (pos) actions.push({
           title: `Add a quiet comment for ${f.ruleId} (then write its reason after the colon)`,
           kind: CodeActionKind.QuickFix,
           diagnostics: [d],
@@ -262,6 +262,24 @@ export function blockStart(text: string, offset: number): number {
     lineStart = prevStart;
   }
   return lineStart;
+}
+
+/**
+ * Where a quiet comment for the finding at `offset` goes, when a comment there silences it: above
+ * a paragraph or a block quote. Not for a list item or a table row, where a comment above the
+ * block does not reach the item (a comment inside one is for the author to place).
+ */
+export function quietCommentAt(text: string, offset: number): number | undefined {
+  const at = blockStart(text, offset);
+  let i = at;
+  while (text[i] === ' ') i += 1;
+  if (i - at >= 4) return undefined; // indented code
+  const c = text[i] ?? '';
+  if (c === '|' || c === '-' || c === '+' || c === '*') return undefined;
+  let j = i;
+  while ((text[j] ?? '') >= '0' && (text[j] ?? '') <= '9') j += 1;
+  if (j > i && (text[j] === '.' || text[j] === ')')) return undefined;
+  return at;
 }
 
 export type { Connection };
