@@ -8,6 +8,7 @@ export const pPrecisionIsSensible = checklistRule({
   guidelines: { 'jars-quant': 'Table 1, Results, "Statistics and data analysis" (exact p values; the number of decimals follows the APA Publication Manual, 7th ed.)' },
   missingMessage: 'Reported {detail}.',
   check: 'Print p to two or three decimals (p < .001 for smaller values).',
+  fixes: { 'three-decimals': 'p = .02136 → p = .021, where no common threshold or the alpha lies between the two' },
   assess(document) {
     return document.results.map((result): ChecklistEntry => {
       const r = result.report;

@@ -13,6 +13,7 @@ export const zeroPIsABound: Rule = {
   defaultOptions: {},
   optionsSchema: NO_OPTIONS,
   messages,
+  fixes: { 'bound-for-zero': 'p = .000 → p < .001, with as many decimals as printed' },
   check({ document }) {
     const out: RuleFinding[] = [];
     for (const result of document.results) {

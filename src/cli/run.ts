@@ -51,8 +51,8 @@ export async function run(argv: string[], rawIo: Io): Promise<number> {
   const options = parsed.options;
 
   if (options.command === 'rules') {
-    if (options.format === 'json') await io.stdout(formatRulesJson(RULES.map((r) => ({ id: r.id, summary: r.summary, kind: r.kind, defaultLevel: r.defaultLevel, optionsSchema: r.optionsSchema }))));
-    else for (const r of RULES) await io.stdout(`${r.id.padEnd(30)} ${String(r.defaultLevel).padEnd(8)} ${r.summary}\n`);
+    if (options.format === 'json') await io.stdout(formatRulesJson(RULES.map((r) => ({ id: r.id, summary: r.summary, kind: r.kind, defaultLevel: r.defaultLevel, optionsSchema: r.optionsSchema, ...(r.fixes ? { fixes: r.fixes } : {}) }))));
+    else for (const r of RULES) await io.stdout(`${r.id.padEnd(30)} ${String(r.defaultLevel).padEnd(8)} ${r.summary}${r.fixes ? ` Safe fix: ${Object.keys(r.fixes).join(', ')}.` : ''}\n`);
     return EXIT.clean;
   }
   if (options.command === 'explain') {

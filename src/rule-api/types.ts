@@ -180,6 +180,8 @@ export interface Rule<Options extends object = Record<string, never>> {
   checklist?: ChecklistItem;
   /** Runs only when the checklist is asked for (pure guideline items, no numbers). */
   checklistOnly?: boolean;
+  /** The safe fixes its findings may carry: fix id → what it changes (its page says why it is safe). */
+  fixes?: Record<string, string>;
 }
 
 /** Any rule, whatever its options: what the registry holds. */

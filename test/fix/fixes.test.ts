@@ -130,3 +130,24 @@ describe('fixes in the JSON report', () => {
     expect(validate(report), JSON.stringify(validate.errors)).toBe(true);
   });
 });
+
+describe('every fix is declared and documented', () => {
+  it('each fix a rule attaches is in its fixes list, on its page as "Fix `id`", and in the README table', async () => {
+    const { RULES } = await import('../../src/engine/index.js');
+    const text = 'A, t(23) = 5.90, p = .000; B, t(30) = 2.5, p = .01823.\n';
+    const emitted = checkSource('x.md', text, { checklist: true }).findings.filter((f) => f.fix).map((f) => [f.ruleId, f.fix?.id]);
+    expect(emitted).toEqual([['zero-p-is-a-bound', 'bound-for-zero'], ['p-precision-is-sensible', 'three-decimals']]);
+    for (const [ruleId, fixId] of emitted) expect(Object.keys(RULES.find((r) => r.id === ruleId)?.fixes ?? {})).toContain(fixId);
+    const readme = readFileSync('README.md', 'utf8');
+    for (const r of RULES) {
+      for (const id of Object.keys(r.fixes ?? {})) {
+        expect(readFileSync(`rules/${r.id}.md`, 'utf8')).toContain(`Fix \`${id}\``);
+        expect(readme).toContain(`| \`${id}\` | [${r.id}]`);
+      }
+    }
+  });
+  it('plumbline rules names each rule\'s fixes', async () => {
+    const out = await cli(['rules']);
+    expect(out.stdout.split('\n').find((l) => l.startsWith('zero-p-is-a-bound'))).toContain('Safe fix: bound-for-zero.');
+  });
+});
