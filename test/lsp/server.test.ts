@@ -116,6 +116,20 @@ describe('plumbline lsp', { timeout: 60_000 }, () => {
     expect(done.result).toBe((shown.params as { uri: string }).uri);
   });
 
+  it('front matter applies as on the command line, and a second place is related information', async () => {
+    const second = pathToFileURL(join(dir, 'second.md')).href;
+    const body = '---\nplumbline:\n  alpha: 0.01\n---\n\n## Methods\n\nWe recruited 120 participants.\n\n## Results\n\nFatigue fell, t(94) = 2.47, p = .015. Alertness rose, t(94) = 1.12, p = .27.\n';
+    client.notify('textDocument/didOpen', { textDocument: { uri: second, languageId: 'markdown', version: 7, text: body } });
+    const m = await client.waitFor((x) => x.method === 'textDocument/publishDiagnostics' && (x.params as { uri: string }).uri === second);
+    expect((m.params as { version: number }).version).toBe(7);
+    const sample = diagnosticsOf(m).find((d) => d.code === 'sample-size-agrees-with-df') as Diagnostic & { relatedInformation?: Array<{ location: { uri: string; range: Diagnostic['range'] } }> };
+    const line = body.split('\n').findIndex((l) => l.startsWith('Fatigue'));
+    const col = (body.split('\n')[line] as string).indexOf('t(94) = 2.47');
+    expect(sample.relatedInformation?.[0]?.location).toEqual({ uri: second, range: { start: { line, character: col }, end: { line, character: col + 't(94) = 2.47, p = .015'.length } } });
+    const hover = await client.request('textDocument/hover', { textDocument: { uri: second }, position: { line, character: col + 2 } });
+    expect((hover.result as { contents: { value: string } }).contents.value).toContain('alpha: 0.01 (front-matter)');
+  });
+
   it('shuts down and exits with status 0', async () => {
     const m = await client.request('shutdown', null);
     expect(m.error).toBeUndefined();
