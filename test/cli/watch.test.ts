@@ -3,6 +3,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { cli } from './harness.js';
 
 /** --watch, as a person runs it: the built command line (`npm test` builds it first), a file edited while it runs, then Ctrl-C. */
 describe('--watch', { timeout: 60_000 }, () => {
@@ -40,5 +41,13 @@ describe('--watch', { timeout: 60_000 }, () => {
     child.kill('SIGINT');
     const code = await new Promise<number | null>((done) => child.once('exit', (c) => done(c)));
     expect(code).toBe(0);
+  });
+
+  it('refuses what a loop of runs would not serve: -o, --write-baseline, --fix, standard input', async () => {
+    for (const args of [['-o', 'r.txt'], ['--write-baseline', 'b.json'], ['--fix'], ['-']]) {
+      const out = await cli(['--watch', ...args, 'm.md']);
+      expect(out.code, args.join(' ')).toBe(2);
+      expect(out.stderr).toContain('--watch does not go with');
+    }
   });
 });
