@@ -66,8 +66,8 @@ export async function run(argv: string[], rawIo: Io): Promise<number> {
   }
   if (options.command === 'lsp') {
     // loaded only here: the language server's modules cost nothing to a batch run
-    const { serve } = await import('../lsp/server.js');
-    return serve();
+    const { serve, SERVER_BUDGET } = await import('../lsp/server.js');
+    return serve({ memoryMb: options.memoryBudget ?? SERVER_BUDGET.memoryMb, seconds: options.timeBudget ?? SERVER_BUDGET.seconds });
   }
   if (options.watch && options.command === 'check') {
     const { watch } = await import('./watch.js');

@@ -55,10 +55,10 @@ function rulePage(id: string): string {
  * `plumbline lsp`: the Language Server Protocol over standard input and output. Resolves when
  * the client has asked the server to exit.
  */
-export function serve(input: NodeJS.ReadableStream = process.stdin, output: NodeJS.WritableStream = process.stdout): Promise<number> {
+export function serve(budget: Budget = SERVER_BUDGET, input: NodeJS.ReadableStream = process.stdin, output: NodeJS.WritableStream = process.stdout): Promise<number> {
   const connection = createConnection(new StreamMessageReader(input), new StreamMessageWriter(output));
   const documents = new TextDocuments(TextDocument);
-  const checker = new Checker(SERVER_BUDGET, 2, (m) => connection.console.warn(m));
+  const checker = new Checker(budget, 2, (m) => connection.console.warn(m));
   const published = new Map<string, Published>();
   const timers = new Map<string, NodeJS.Timeout>();
   /** Documents with a check running, and whether another was asked for meanwhile. */
