@@ -151,3 +151,15 @@ describe('every fix is declared and documented', () => {
     expect(out.stdout.split('\n').find((l) => l.startsWith('zero-p-is-a-bound'))).toContain('Safe fix: bound-for-zero.');
   });
 });
+
+describe('minus-sign (minus-is-a-minus-sign, when turned on)', () => {
+  const on = { checklist: true, config: { rules: { 'minus-is-a-minus-sign': 'note' as const } } };
+  it('the hyphen before a negative t becomes the minus sign; the check of the result is unchanged', () => {
+    const text = 'Recall fell, *t*(28) = -2.10, p = .045, and t(30) = 2.5, p = .018.\n';
+    const before = checkSource('x.md', text, on);
+    const after = applyFixes(text, before.findings).text;
+    expect(after).toBe('Recall fell, *t*(28) = \u22122.10, p = .045, and t(30) = 2.5, p = .018.\n');
+    const strip = (r: ReturnType<typeof checkSource>) => r.findings.filter((f) => f.ruleId !== 'minus-is-a-minus-sign').map((f) => [f.ruleId, f.message]);
+    expect(strip(checkSource('x.md', after, on))).toEqual(strip(before));
+  });
+});
