@@ -37,7 +37,7 @@ export async function watch(options: CliOptions, io: Io, check: (options: CliOpt
     io.stderr(`plumbline: run done (exit status ${code}); watching for changes, Ctrl-C stops\n`);
     return code;
   };
-  let last = await runOnce('checking');
+  let last = 0;
 
   const watchers: FSWatcher[] = [];
   let timer: NodeJS.Timeout | undefined;
@@ -70,6 +70,10 @@ export async function watch(options: CliOptions, io: Io, check: (options: CliOpt
       io.stderr(`plumbline: cannot watch ${t}: ${e instanceof Error ? e.message : String(e)}\n`);
     }
   }
+  // watching starts before the first run: a change made while it runs, or just after, is not missed
+  running = running.then(async () => {
+    last = await runOnce('checking');
+  });
   return new Promise<number>((done) => {
     const stop = () => {
       clearTimeout(timer);
