@@ -66,6 +66,7 @@ const OPTIONS: Array<{ name: string; short?: string; type: 'string' | 'number' |
   { name: 'fix', type: 'boolean', describe: 'apply the safe formatting fixes (each listed on its rule\'s page) to the files, written atomically; a wrong number is never changed' },
   { name: 'fix-dry-run', type: 'boolean', describe: 'print the safe formatting fixes as a unified diff; change nothing' },
   { name: 'watch', type: 'boolean', describe: 'check again whenever a file named (or in a folder named) changes, until interrupted' },
+  { name: 'stdio', type: 'boolean', describe: 'for lsp: speak over standard input and output (its only transport; accepted because editors\' LSP clients pass it)' },
   { name: 'color', type: 'boolean', describe: 'colour the human format (default: on a terminal, unless NO_COLOR is set); --no-color turns it off' },
   { name: 'help', short: 'h', type: 'boolean', describe: 'show this help' },
   { name: 'version', short: 'v', type: 'boolean', describe: 'show the version' },

@@ -16,7 +16,8 @@ const text = '😀 Scores rose, t(23) = 5.90, p = .000.\n\nTyping improved, t(30
 writeFileSync(join(dir, 'm.md'), text);
 writeFileSync(join(dir, '.plumbline.json'), JSON.stringify({ rules: { 'zero-p-is-a-bound': 'error' } }));
 const uri = pathToFileURL(join(dir, 'm.md')).href;
-const client = new TinyClient(process.execPath, [resolve('dist/src/cli/main.js'), 'lsp'], dir);
+// --stdio, as LSP clients that launch a server over standard input and output add it
+const client = new TinyClient(process.execPath, [resolve('dist/src/cli/main.js'), 'lsp', '--stdio'], dir);
 afterAll(() => {
   if (client.child.exitCode === null) client.child.kill();
 });
