@@ -23,6 +23,9 @@
  *  12. 20,000 results in one paragraph: time per MB ÷ ordinary text's              (goal ≤ 3)
  *  13. peak RSS of the CLI writing JSON for a document of 60,000 results (MB)      (goal ≤ 400)
  *  14. that JSON's size (MB)                                                       (goal ≤ 60)
+ *  15. editor re-check: a 50 KB manuscript checked again after a one-character edit, as the
+ *      language server does it (configuration found afresh, then the whole check) ÷ the bare
+ *      remark-parse + remark-gfm parse of the same edited text                   (goal ≤ 1.2)
  *
  * Prints a table and writes bench/results.json. `npm run bench -- 3 7` (or PLUMBLINE_BENCH=3,7)
  * runs only the figures named by number, for a quick look at one case; results.json is then
@@ -37,7 +40,8 @@ import { fileURLToPath } from 'node:url';
 import remarkGfm from 'remark-gfm';
 import remarkParse from 'remark-parse';
 import { unified } from 'unified';
-import { checkSource } from '../src/engine/index.js';
+import { ConfigFinder } from '../src/config/index.js';
+import { checkSource, RULE_IDS } from '../src/engine/index.js';
 import { MIN_CHARS_PER_WORKER, threadsFor } from '../src/cli/pool.js';
 import { ADVERSARIAL, FURTHER_HOSTILE, adversarial, manyResults, resultsParagraph, statDense, statFree } from './corpus.js';
 
@@ -283,6 +287,26 @@ if (wanted(13) || wanted(14)) {
   const detail = `${(source.length / 1e6).toFixed(1)} MB source, ${seconds.toFixed(1)} s; exit ${r.status}`;
   if (wanted(13)) add({ name: '13 peak RSS, 60,000-result document (MB)', value: peak, goal: '<= 400', met: peak <= 400, detail });
   if (wanted(14)) add({ name: '14 JSON of a 60,000-result document (MB)', value: bytes, goal: '<= 60', met: bytes <= 60, detail });
+}
+
+// 15: the language server's re-check after a keystroke, against the bare parse of the same text
+if (wanted(15)) {
+  const original = statDense(1);
+  // one character changed in the middle: a digit of a printed number, as a person corrects one
+  let at = Math.floor(original.length / 2);
+  while (at < original.length && !((original[at] as string) >= '0' && (original[at] as string) <= '9')) at += 1;
+  const edited = `${original.slice(0, at)}${original[at] === '7' ? '8' : '7'}${original.slice(at + 1)}`;
+  const configDir = mkdtempSync(join(tmpdir(), 'plumbline-bench-lsp-'));
+  const path = join(configDir, 'manuscript.md');
+  // the checks before the edit, as in an editor that has had the document open a while (warm code)
+  for (let i = 0; i < 5; i += 1) {
+    checkSource(path, original);
+    bare.parse(original);
+  }
+  const recheck = best(() => checkSource(path, edited, { config: new ConfigFinder(RULE_IDS).forFile(path).config }), 5);
+  const parse = best(() => bare.parse(edited), 5);
+  rmSync(configDir, { recursive: true, force: true });
+  add({ name: '15 editor re-check after one edit / bare parse', value: recheck / parse, goal: '<= 1.2', met: recheck / parse <= 1.2, detail: `${(edited.length / 1000).toFixed(0)} KB; re-check ${recheck.toFixed(1)} ms, bare parse ${parse.toFixed(1)} ms` });
 }
 
 const machine = { cpus: cpus().length, cpu: cpus()[0]?.model ?? '', memoryGb: Math.round(totalmem() / 2 ** 30), node: process.version, date: new Date().toISOString().slice(0, 10) };

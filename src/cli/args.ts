@@ -6,7 +6,7 @@ export { FORMATS, helpText, RULES_FORMATS, SUMMARY_FORMATS, SUMMARY_TABLES, wrap
 
 /** What the command line asks for, validated. */
 export interface CliOptions {
-  command: 'check' | 'rules' | 'explain' | 'batch' | 'summarize';
+  command: 'check' | 'rules' | 'explain' | 'batch' | 'summarize' | 'lsp';
   files: string[];
   /** `-` was given: read standard input. */
   stdin: boolean;
@@ -35,6 +35,10 @@ export interface CliOptions {
   /** summarize: the format (csv or html) and, for CSV, the table. */
   summaryFormat?: (typeof SUMMARY_FORMATS)[number];
   table?: (typeof SUMMARY_TABLES)[number];
+  /** Re-check the files named whenever they change, until interrupted. */
+  watch?: boolean;
+  /** Apply the safe formatting fixes (`apply`), or print them as a unified diff (`diff`). */
+  fix?: 'apply' | 'diff';
 }
 
 export type ParseOutcome = { kind: 'run'; options: CliOptions } | { kind: 'help' | 'version'; text: string } | { kind: 'error'; message: string };
@@ -52,7 +56,8 @@ function parser() {
     .command('explain <rule>', 'explain', (c) => c.positional('rule', { type: 'string', demandOption: true }))
     .command('rules', 'rules')
     .command('batch', 'batch')
-    .command('summarize [files..]', 'summarize', (c) => c.positional('files', { type: 'string', array: true }));
+    .command('summarize [files..]', 'summarize', (c) => c.positional('files', { type: 'string', array: true }))
+    .command('lsp', 'lsp');
   for (const o of OPTIONS) y = y.option(o.name, { type: o.type, ...(o.short ? { alias: o.short } : {}), ...(o.type !== 'boolean' ? { requiresArg: true } : {}) });
   return y.strict().exitProcess(false);
 }
@@ -125,6 +130,7 @@ export async function parseArguments(argv: string[], columns: number | undefined
     return { kind: 'error', message: `--first-line must be a whole number, 1 or more; got "${rawValue(words, 'first-line') ?? ''}"` };
   if (firstLine !== undefined && command !== 'batch') return { kind: 'error', message: '--first-line applies to batch only' };
   for (const name of ['output', 'baseline', 'write-baseline', 'config', 'stdin-name'] as const) if (str(name) === '') return { kind: 'error', message: `--${name} needs a value` };
+  if (parsed.fix === true && parsed['fix-dry-run'] === true) return { kind: 'error', message: '--fix and --fix-dry-run do not go together; give one' };
 
   const positional = ((parsed.files as string[] | undefined) ?? []).map(String);
   // yargs sets a lone "-" aside from the positionals; it means standard input
@@ -152,6 +158,8 @@ export async function parseArguments(argv: string[], columns: number | undefined
     ...(typeof parsed.color === 'boolean' ? { color: parsed.color } : {}),
     ...(parsed['follow-links-outside'] === true ? { followLinksOutside: true } : {}),
     ...(firstLine !== undefined ? { firstLine } : {}),
+    ...(parsed.watch === true ? { watch: true } : {}),
+    ...(parsed['fix-dry-run'] === true ? { fix: 'diff' as const } : parsed.fix === true ? { fix: 'apply' as const } : {}),
     ...(str('baseline') !== undefined ? { baseline: str('baseline') as string } : {}),
     ...(str('write-baseline') !== undefined ? { writeBaseline: str('write-baseline') as string } : {}),
   };

@@ -31,6 +31,10 @@ export const OPTIONS: Array<{ name: string; short?: string; type: 'string' | 'nu
   { name: 'table', type: 'string', value: 'NAME', describe: `summarize, CSV: ${SUMMARY_TABLES.join(', ')} (default rules)` },
   { name: 'first-line', type: 'number', value: 'N', describe: 'batch: number the first input line N in messages and names (default 1), so a chunk of a larger input, checked apart, answers as the whole run would' },
   { name: 'follow-links-outside', type: 'boolean', describe: 'when walking a folder or a glob, follow symbolic links that lead outside it (default: skip them and say so; a link named on the command line is always read)' },
+  { name: 'fix', type: 'boolean', describe: 'apply the safe formatting fixes (each listed on its rule\'s page) to the files, written atomically; a wrong number is never changed' },
+  { name: 'fix-dry-run', type: 'boolean', describe: 'print the safe formatting fixes as a unified diff; change nothing' },
+  { name: 'watch', type: 'boolean', describe: 'check again whenever a file named (or in a folder named) changes, until interrupted' },
+  { name: 'stdio', type: 'boolean', describe: 'for lsp: speak over standard input and output (its only transport; accepted because editors\' LSP clients pass it)' },
   { name: 'color', type: 'boolean', describe: 'colour the human format (default: on a terminal, unless NO_COLOR is set); --no-color turns it off' },
   { name: 'help', short: 'h', type: 'boolean', describe: 'show this help' },
   { name: 'version', short: 'v', type: 'boolean', describe: 'show the version' },
@@ -40,6 +44,7 @@ const COMMANDS: Array<[string, string]> = [
   ['plumbline [files…]', 'check manuscripts: files, folders (walked for .md .markdown .txt .Rmd .qmd) and globs; "-" reads standard input; after "--" every word is a file'],
   ['plumbline explain RULE', "print a rule's page"],
   ['plumbline rules', 'list the rules (--format json: with kind, default level and options schema)'],
+  ['plumbline lsp', 'a language server over standard input and output, for editors (see the README)'],
   ['plumbline batch', 'read paths or NDJSON documents {id, text, format?} from standard input, one per line; write one NDJSON line per document'],
   ['plumbline summarize results.ndjson', "a corpus summary of batch output: findings per 100 results by rule, gaps, each document's counts; CSV (--table) or --format html"],
 ];

@@ -47,6 +47,13 @@ export function threadsFor(documents: number, chars: number, cores = availablePa
 }
 
 /**
+ * The worker thread's script. It sits beside this module both when compiled by tsc
+ * (dist/src/cli/) and in the bundle (dist/bin/, beside the chunk holding this code), so the
+ * language server finds it here too rather than by a path of its own.
+ */
+export const WORKER_FILE = fileURLToPath(new URL('./worker.js', import.meta.url));
+
+/**
  * Checks jobs and hands each outcome to `emit` in input order, as soon as it and every earlier
  * one are done, so output stays deterministic and only out-of-order outcomes are held. Documents
  * are checked on at most `threads` worker threads within `budget`, except a lone small document
@@ -60,7 +67,7 @@ export async function checkAll(
   emit: (o: Outcome, index: number) => void | Promise<void>,
   budget: Budget = DEFAULT_BUDGET,
 ): Promise<void> {
-  const workerFile = fileURLToPath(new URL('./worker.js', import.meta.url));
+  const workerFile = WORKER_FILE;
   const list = Array.isArray(jobs) ? (jobs as Job[]) : undefined;
   const lone = list !== undefined && list.length <= 1 && list.every((j) => !('source' in j) || j.source.length <= IN_THREAD_MAX_CHARS);
   // without the compiled worker (running from sources under a test runner) documents are checked here

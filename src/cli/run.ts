@@ -13,6 +13,7 @@ import { runBatch } from './batch.js';
 import { describeError } from './files.js';
 import { identity, openDestination, openRegularFile, type Destination } from './output.js';
 import { checkFiles, configMessage } from './runner.js';
+import { fixFiles } from './fixFiles.js';
 import { ConfigError, ConfigFinder, readConfigFile, type Config } from '../config/index.js';
 import { DEFAULT_MAX_FILE_BYTES, type ReadOutcome } from './read.js';
 import { DEFAULT_BUDGET, type Budget, type Job } from './pool.js';
@@ -52,8 +53,8 @@ export async function run(argv: string[], rawIo: Io): Promise<number> {
   const options = parsed.options;
 
   if (options.command === 'rules') {
-    if (options.format === 'json') await io.stdout((await import('../report/rules.js')).formatRulesJson(RULES.map((r) => ({ id: r.id, summary: r.summary, kind: r.kind, defaultLevel: r.defaultLevel, optionsSchema: r.optionsSchema }))));
-    else for (const r of RULES) await io.stdout(`${r.id.padEnd(30)} ${String(r.defaultLevel).padEnd(8)} ${r.summary}\n`);
+    if (options.format === 'json') await io.stdout((await import('../report/rules.js')).formatRulesJson(RULES.map((r) => ({ id: r.id, summary: r.summary, kind: r.kind, defaultLevel: r.defaultLevel, optionsSchema: r.optionsSchema, ...(r.fixes ? { fixes: r.fixes } : {}) }))));
+    else for (const r of RULES) await io.stdout(`${r.id.padEnd(30)} ${String(r.defaultLevel).padEnd(8)} ${r.summary}${r.fixes ? ` Safe fix: ${Object.keys(r.fixes).join(', ')}.` : ''}\n`);
     return EXIT.clean;
   }
   if (options.command === 'explain') {
@@ -64,6 +65,15 @@ export async function run(argv: string[], rawIo: Io): Promise<number> {
     }
     await io.stdout(ruleDoc(id));
     return EXIT.clean;
+  }
+  if (options.command === 'lsp') {
+    // loaded only here: the language server's modules cost nothing to a batch run
+    const { serve, SERVER_BUDGET } = await import('../lsp/server.js');
+    return serve({ memoryMb: options.memoryBudget ?? SERVER_BUDGET.memoryMb, seconds: options.timeBudget ?? SERVER_BUDGET.seconds });
+  }
+  if (options.watch && options.command === 'check') {
+    const { watch } = await import('./watch.js');
+    return watch(options, io, (o, i) => check(o, i, []));
   }
   if (options.command === 'check' && options.files.length === 0 && !options.stdin) {
     io.stderr('plumbline: name at least one file, folder or glob ("-" for standard input). Run "plumbline --help" for usage.\n');
@@ -205,6 +215,17 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
   if (run.outputClash !== undefined) {
     io.stderr(`plumbline: refusing to write over an input file: ${run.outputClash} (write the report outside the files checked, or under a name plumbline does not read, such as report.html)\n`);
     return REFUSED;
+  }
+  if (options.fix !== undefined) {
+    const fixed = fixFiles(run.unfiltered, io.cwd, options.fix, options.stdin ? options.stdinName : undefined);
+    for (const line of fixed.said) io.stderr(`${line}\n`);
+    if (options.fix === 'diff') {
+      await io.stdout(fixed.diff);
+      return fixed.failed ? EXIT.trouble : EXIT.clean;
+    }
+    if (fixed.failed) return EXIT.trouble;
+    // the report is of the files as they are now
+    return check({ ...options, fix: undefined }, io, writes, toFile);
   }
 
   let report = run.report;

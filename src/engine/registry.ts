@@ -8,6 +8,7 @@ import { resultIsComplete } from '../../rules/result-is-complete.js';
 import { significanceFollowsFromT } from '../../rules/significance-follows-from-t.js';
 import { valuesArePossible } from '../../rules/values-are-possible.js';
 import { zeroPIsABound } from '../../rules/zero-p-is-a-bound.js';
+import { minusIsAMinusSign } from '../../rules/minus-is-a-minus-sign.js';
 import { adjustedPFollows } from '../../rules/adjusted-p-follows.js';
 import { ciAgreesWithResult } from '../../rules/ci-agrees-with-result.js';
 import { descriptivesLinkIsUnambiguous } from '../../rules/descriptives-link-is-unambiguous.js';
@@ -44,6 +45,7 @@ export const RULES: readonly AnyRule[] = [
   oneTailedPIsDeclared,
   valuesArePossible,
   zeroPIsABound,
+  minusIsAMinusSign,
   adjustedPFollows,
   tFollowsFromDescriptives,
   spreadKindMatchesT,

@@ -1,7 +1,7 @@
 import type { Comparison, ReportStyle, Sidedness } from '../extract/types.js';
 import type { IntervalTarget, LinkBasis, Setting } from '../link/types.js';
 import type { Position, SourceFormat, Span } from '../parse/types.js';
-import type { Figure, Gap, Guideline, Level, Recomputed } from '../rule-api/types.js';
+import type { Figure, Fix, Gap, Guideline, Level, Recomputed } from '../rule-api/types.js';
 
 /** A place in a file: offsets and 1-based line/column of both ends (end exclusive). */
 export interface Place {
@@ -96,6 +96,11 @@ export interface Finding extends Place {
   check: string;
   related?: Array<Place & { message: string }>;
   resultId?: string;
+  /**
+   * A safe formatting fix (src/fix applies it): edits by source offsets, which are JavaScript
+   * string indices (UTF-16 code units), as every span is.
+   */
+  fix?: Fix;
   /** Why the finding is only a note: the links it rests on that are not certain. */
   uncertain?: string[];
   /**

@@ -57,6 +57,8 @@ export function extract(doc: ParsedDocument): Extraction {
     if (legend) legends.push(legend);
     const starts = sentenceStarts(seg.text);
     const tests = findTTests(seg, starts);
+    // the spelling of t's sign in the source (the normaliser folds − into -): for minus-is-a-minus-sign
+    if (seg.kind !== 'code') for (const test of tests) if (!test.inCode && test.t.value < 0 && doc.source[test.t.span.start] === '-') test.t.hyphenMinus = true;
     append(out.tests, tests);
     if (seg.kind !== 'code') {
       append(out.otherStatistics, withoutOverlap(findOtherStatistics(seg, starts), tests));

@@ -16,6 +16,8 @@ export interface ReportedNumber {
    * printed, `mantissa` the printed digits before the exponent (absent when they overflow too).
    */
   beyondDouble?: { log10: number; mantissa?: number };
+  /** The sign is printed as an ASCII hyphen-minus (`-2.10`), not a minus sign; set for a t in prose only. */
+  hyphenMinus?: boolean;
 }
 
 export type Comparison = '=' | '<' | '<=' | '>' | '>=' | '~';

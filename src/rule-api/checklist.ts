@@ -7,6 +7,8 @@ export interface ChecklistRuleSpec extends ChecklistItem {
   missingMessage: string;
   check: string;
   defaultLevel?: 'note' | 'warning' | 'error';
+  /** The safe fixes its entries may carry (see Rule.fixes). */
+  fixes?: Record<string, string>;
 }
 
 /**
@@ -25,6 +27,7 @@ export function checklistRule(spec: ChecklistRuleSpec): Rule {
     messages,
     checklist: { item: spec.item, guidelines: spec.guidelines, assess: spec.assess },
     checklistOnly: true,
+    ...(spec.fixes ? { fixes: spec.fixes } : {}),
     check({ document }) {
       const out: RuleFinding[] = [];
       for (const e of spec.assess(document)) {
@@ -40,6 +43,7 @@ export function checklistRule(spec: ChecklistRuleSpec): Rule {
           check: spec.check,
           ...(e.resultId ? { resultId: e.resultId } : {}),
           ...(e.block !== undefined ? { block: e.block } : {}),
+          ...(e.fix ? { fix: e.fix } : {}),
           ...(e.scope === 'document' && !e.span ? { scope: 'document' as const } : {}),
         });
       }

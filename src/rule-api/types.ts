@@ -94,6 +94,30 @@ export interface CorrelationFigure {
   implied: ValueRange;
 }
 
+/**
+ * One change of a fix: in the source text at `span`, `find` must occur exactly once, and is
+ * replaced by `text`. The applier checks this against the source and leaves the fix out when it
+ * does not hold (the text was edited, or printed differently than it was read), so a rule, which
+ * never sees the source, can only ask for a change of characters it read.
+ */
+export interface FixEdit {
+  span: Span;
+  find: string;
+  text: string;
+}
+
+/**
+ * A formatting change that never changes what a number means (rules/*.md list each with why it
+ * is safe). A number that is wrong never has one: the author has to look at the analysis.
+ */
+export interface Fix {
+  /** Stable name of the kind of fix, listed on the rule's page. */
+  id: string;
+  /** What it does, for an editor's menu and the command line ("Write p < .001"). */
+  title: string;
+  edits: FixEdit[];
+}
+
 /** What a rule reports: data first; the engine adds file, level and positions. */
 export interface RuleFinding {
   messageId: string;
@@ -111,6 +135,8 @@ export interface RuleFinding {
   resultId?: string;
   /** The block the finding sits in, for `plumbline quiet` directives. */
   block?: number;
+  /** A safe formatting fix, when one exists (see Fix). */
+  fix?: Fix;
   /**
    * `document`: said of the whole document (an item of the reporting checklist that nothing in
    * the text meets), so it has no place of its own; `span` is then the empty span at offset 0.
@@ -154,6 +180,8 @@ export interface Rule<Options extends object = Record<string, never>> {
   checklist?: ChecklistItem;
   /** Runs only when the checklist is asked for (pure guideline items, no numbers). */
   checklistOnly?: boolean;
+  /** The safe fixes its findings may carry: fix id → what it changes (its page says why it is safe). */
+  fixes?: Record<string, string>;
 }
 
 /** Any rule, whatever its options: what the registry holds. */
@@ -179,6 +207,8 @@ export interface ChecklistEntry {
   /** What was found or what is missing, in plain words. */
   detail: string;
   block?: number;
+  /** For a missing item: a safe formatting fix that meets it, when one exists. */
+  fix?: Fix;
 }
 
 /** What a checklist rule adds to a rule: the item, the guideline items it follows, and its assessment. */

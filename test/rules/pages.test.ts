@@ -58,15 +58,17 @@ describe.each(RULES.map((r) => [r.id, r] as const))('rules/%s.md', (id, rule) =>
     for (const f of flagged) expect(f.expect, f.markdown).toBeDefined();
   });
 
+  // a rule that is off by default shows its examples turned on, as its page tells the reader to
+  const on = rule.defaultLevel === 'off' ? { config: { rules: { [id]: 'note' as const } } } : {};
   it.each(flagged.map((f) => [f.markdown.trim().split('\n')[0], f] as const))('flags: %s', (_title, example) => {
-    const got = checkSource('example.md', example.markdown, { checklist: true })
+    const got = checkSource('example.md', example.markdown, { checklist: true, ...on })
       .findings.filter((f) => f.ruleId === id)
       .map((f) => `${f.start.line}:${f.start.column} ${f.messageId}`);
     expect(got).toEqual(example.expect);
   });
 
   it.each(accepted.map((a) => [a.markdown.trim().split('\n')[0], a] as const))('accepts: %s', (_title, example) => {
-    const got = checkSource('example.md', example.markdown, { checklist: true }).findings.filter((f) => f.ruleId === id);
+    const got = checkSource('example.md', example.markdown, { checklist: true, ...on }).findings.filter((f) => f.ruleId === id);
     expect(got.map((f) => f.message)).toEqual([]);
   });
 });

@@ -1,0 +1,285 @@
+import { basename, join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import {
+  CodeAction,
+  CodeActionKind,
+  createConnection,
+  DiagnosticSeverity,
+  DidChangeWatchedFilesNotification,
+  StreamMessageReader,
+  StreamMessageWriter,
+  TextDocuments,
+  TextDocumentSyncKind,
+  type Diagnostic,
+  type Connection,
+} from 'vscode-languageserver/node';
+import { TextDocument } from 'vscode-languageserver-textdocument';
+import { ConfigError, ConfigFinder } from '../config/index.js';
+import { packageRoot, rulePageUrl } from '../engine/docs.js';
+import { RULE_IDS, type CheckOptions, type FileReport, type Finding } from '../engine/index.js';
+import { landFix } from '../fix/apply.js';
+import { DEFAULT_BUDGET, type Budget } from '../cli/pool.js';
+import { configMessage } from '../cli/runner.js';
+import { Checker } from './checker.js';
+import { hoverText } from './hover.js';
+
+/** Quiet time after a keystroke before a document is checked again. */
+export const DEBOUNCE_MS = 200;
+/** An editor needs its answer soon: a document's default time budget in a server session. */
+export const SERVER_BUDGET: Budget = { memoryMb: DEFAULT_BUDGET.memoryMb, seconds: 20 };
+const EXPLAIN = 'plumbline.explainRule';
+
+/** The last check published for a document: the version and text it was computed for. */
+interface Published {
+  version: number;
+  snapshot: TextDocument;
+  report: FileReport;
+}
+
+/** Severity as the configuration sets it: error, warning, note → information. */
+const SEVERITY = { error: DiagnosticSeverity.Error, warning: DiagnosticSeverity.Warning, note: DiagnosticSeverity.Information } as const;
+
+/** A document's path for the engine: its file path, or a name that keeps its format for an unsaved buffer. */
+function pathOf(uri: string, languageId: string): { path: string; onDisk: boolean } {
+  if (uri.startsWith('file:')) return { path: fileURLToPath(uri), onDisk: true };
+  const ext = languageId === 'rmd' || languageId === 'rmarkdown' ? '.Rmd' : languageId === 'quarto' ? '.qmd' : languageId === 'plaintext' ? '.txt' : '.md';
+  return { path: `untitled${ext}`, onDisk: false };
+}
+
+/** The page of a rule: its published address, else the page shipped in the package. */
+function rulePage(id: string): string {
+  return rulePageUrl(id) ?? pathToFileURL(join(packageRoot(), 'rules', `${id}.md`)).href;
+}
+
+/**
+ * `plumbline lsp`: the Language Server Protocol over standard input and output. Resolves when
+ * the client has asked the server to exit.
+ */
+export function serve(budget: Budget = SERVER_BUDGET, input: NodeJS.ReadableStream = process.stdin, output: NodeJS.WritableStream = process.stdout): Promise<number> {
+  const connection = createConnection(new StreamMessageReader(input), new StreamMessageWriter(output));
+  const documents = new TextDocuments(TextDocument);
+  const checker = new Checker(budget, 2, (m) => connection.console.warn(m));
+  const published = new Map<string, Published>();
+  const timers = new Map<string, NodeJS.Timeout>();
+  /** Documents with a check running, and whether another was asked for meanwhile. */
+  const running = new Map<string, { again: boolean }>();
+  let watchRegistration = false;
+  let showDocument = false;
+
+  connection.onInitialize((params) => {
+    watchRegistration = params.capabilities.workspace?.didChangeWatchedFiles?.dynamicRegistration === true;
+    showDocument = params.capabilities.window?.showDocument?.support === true;
+    return {
+      capabilities: {
+        textDocumentSync: { openClose: true, change: TextDocumentSyncKind.Incremental, save: { includeText: false } },
+        hoverProvider: true,
+        codeActionProvider: { codeActionKinds: [CodeActionKind.QuickFix] },
+        executeCommandProvider: { commands: [EXPLAIN] },
+      },
+      serverInfo: { name: 'plumbline' },
+    };
+  });
+  connection.onInitialized(() => {
+    // configuration files are read afresh on every check; a change to one re-checks what is open
+    if (watchRegistration)
+      void connection.client.register(DidChangeWatchedFilesNotification.type, { watchers: ['.plumbline.json', '.plumbline.yaml', '.plumbline.yml'].map((n) => ({ globPattern: `**/${n}` })) });
+  });
+  connection.onDidChangeWatchedFiles(() => {
+    for (const d of documents.all()) schedule(d.uri, 0);
+  });
+
+  const schedule = (uri: string, delay: number) => {
+    clearTimeout(timers.get(uri));
+    timers.set(
+      uri,
+      setTimeout(() => {
+        timers.delete(uri);
+        void check(uri);
+      }, delay),
+    );
+  };
+
+  const check = async (uri: string): Promise<void> => {
+    const state = running.get(uri);
+    if (state) {
+      state.again = true; // one check per document at a time; the newest text is checked next
+      return;
+    }
+    const doc = documents.get(uri);
+    if (!doc) return;
+    running.set(uri, { again: false });
+    try {
+      const snapshot = TextDocument.create(uri, doc.languageId, doc.version, doc.getText());
+      const { path, onDisk } = pathOf(uri, doc.languageId);
+      let options: CheckOptions = {};
+      if (onDisk) {
+        try {
+          // the configuration next to the manuscript, read afresh (a stat per folder up the tree)
+          options = { config: new ConfigFinder(RULE_IDS).forFile(path).config };
+        } catch (e) {
+          if (!(e instanceof ConfigError)) throw e;
+          publishIfCurrent(uri, snapshot, [{ range: { start: { line: 0, character: 0 }, end: { line: 0, character: 0 } }, severity: DiagnosticSeverity.Error, source: 'plumbline', message: `Not checked: ${configMessage(e)}` }]);
+          return;
+        }
+      }
+      const outcome = await checker.check({ key: uri, path, source: snapshot.getText(), options });
+      if ('error' in outcome) {
+        connection.console.warn(`plumbline: ${basename(path)}: ${outcome.error}`);
+        return;
+      }
+      if (publishIfCurrent(uri, snapshot, outcome.report.findings.map((f) => diagnostic(f, snapshot))))
+        published.set(uri, { version: snapshot.version, snapshot, report: outcome.report });
+    } finally {
+      const again = running.get(uri)?.again === true;
+      running.delete(uri);
+      if (again) void check(uri);
+    }
+  };
+
+  /** Publish only what was computed for the document's current version: a stale result never replaces a newer one. */
+  const publishIfCurrent = (uri: string, snapshot: TextDocument, diagnostics: Diagnostic[]): boolean => {
+    const now = documents.get(uri);
+    if (!now || now.version !== snapshot.version) return false;
+    void connection.sendDiagnostics({ uri, version: snapshot.version, diagnostics });
+    return true;
+  };
+
+  const diagnostic = (f: Finding, snapshot: TextDocument): Diagnostic => ({
+    // engine offsets are JavaScript string indices, UTF-16 code units, as LSP positions count by default
+    range: { start: snapshot.positionAt(f.span.start), end: snapshot.positionAt(f.span.end) },
+    severity: SEVERITY[f.level],
+    code: f.ruleId,
+    codeDescription: { href: rulePage(f.ruleId) },
+    source: 'plumbline',
+    message: `${f.message} ${f.check}`,
+    ...(f.related?.length
+      ? { relatedInformation: f.related.map((r) => ({ location: { uri: snapshot.uri, range: { start: snapshot.positionAt(r.span.start), end: snapshot.positionAt(r.span.end) } }, message: r.message })) }
+      : {}),
+    data: { fingerprint: f.fingerprint },
+  });
+
+  // the library reports an opened document as changed too: its first version is checked once, at once
+  const opened = new Map<string, number>();
+  documents.onDidOpen((e) => {
+    opened.set(e.document.uri, e.document.version);
+    schedule(e.document.uri, 0);
+  });
+  documents.onDidChangeContent((e) => {
+    if (opened.get(e.document.uri) === e.document.version) return;
+    schedule(e.document.uri, DEBOUNCE_MS);
+  });
+  documents.onDidSave((e) => schedule(e.document.uri, 0));
+  documents.onDidClose((e) => {
+    clearTimeout(timers.get(e.document.uri));
+    timers.delete(e.document.uri);
+    published.delete(e.document.uri);
+    opened.delete(e.document.uri);
+    void connection.sendDiagnostics({ uri: e.document.uri, diagnostics: [] });
+  });
+
+  /** The last published check, when it was computed for the text the editor has now. */
+  const current = (uri: string): Published | undefined => {
+    const p = published.get(uri);
+    const doc = documents.get(uri);
+    return p && doc && doc.version === p.version ? p : undefined;
+  };
+
+  connection.onHover(({ textDocument, position }) => {
+    const p = current(textDocument.uri);
+    if (!p) return null;
+    const offset = p.snapshot.offsetAt(position);
+    const r = p.report.results.find((x) => x.span.start <= offset && offset <= x.span.end);
+    if (!r) return null;
+    return { contents: { kind: 'markdown', value: hoverText(r) }, range: { start: p.snapshot.positionAt(r.span.start), end: p.snapshot.positionAt(r.span.end) } };
+  });
+
+  connection.onCodeAction(({ textDocument, range }) => {
+    const p = current(textDocument.uri);
+    if (!p) return [];
+    const from = p.snapshot.offsetAt(range.start);
+    const to = p.snapshot.offsetAt(range.end);
+    const text = p.snapshot.getText();
+    const actions: CodeAction[] = [];
+    const explained = new Set<string>();
+    for (const f of p.report.findings) {
+      if (f.scope === 'document' ? from !== 0 : f.span.end < from || f.span.start > to) continue;
+      const d = diagnostic(f, p.snapshot);
+      if (f.fix) {
+        const landing = landFix(text, f.fix);
+        if (typeof landing !== 'string') {
+          const edits = landing.map((l) => ({ range: { start: p.snapshot.positionAt(l.start), end: p.snapshot.positionAt(l.end) }, newText: l.text }));
+          actions.push({ title: f.fix.title, kind: CodeActionKind.QuickFix, diagnostics: [d], isPreferred: true, edit: { documentChanges: [{ textDocument: { uri: textDocument.uri, version: p.version }, edits }] } });
+        }
+      }
+      if (f.ruleId !== 'quiet-directive-has-reason') {
+        const at = quietCommentAt(text, f.scope === 'document' ? 0 : f.span.start);
+        const pos = at === undefined ? undefined : p.snapshot.positionAt(at);
+        if (pos) actions.push({
+          title: `Add a quiet comment for ${f.ruleId} (then write its reason after the colon)`,
+          kind: CodeActionKind.QuickFix,
+          diagnostics: [d],
+          edit: { documentChanges: [{ textDocument: { uri: textDocument.uri, version: p.version }, edits: [{ range: { start: pos, end: pos }, newText: `<!-- plumbline quiet ${f.ruleId}: -->\n` }] }] },
+        });
+      }
+      if (!explained.has(f.ruleId)) {
+        explained.add(f.ruleId);
+        actions.push({ title: `Explain the rule ${f.ruleId}`, kind: CodeActionKind.Empty, diagnostics: [d], command: { title: `Explain the rule ${f.ruleId}`, command: EXPLAIN, arguments: [f.ruleId] } });
+      }
+    }
+    return actions;
+  });
+
+  connection.onExecuteCommand(async ({ command, arguments: args }) => {
+    if (command !== EXPLAIN) return null;
+    const id = String(args?.[0] ?? '');
+    if (!RULE_IDS.includes(id)) return null;
+    const uri = rulePage(id);
+    if (showDocument) await connection.window.showDocument({ uri, external: uri.startsWith('http') });
+    else connection.window.showInformationMessage(`${id}: ${uri}`);
+    return uri;
+  });
+
+  documents.listen(connection);
+  return new Promise<number>((resolve) => {
+    connection.onShutdown(async () => {
+      for (const t of timers.values()) clearTimeout(t);
+      await checker.close();
+    });
+    connection.onExit(() => resolve(0));
+    connection.listen();
+  });
+}
+
+/**
+ * Where a quiet comment for the block holding `offset` goes: the start of its first line, after
+ * the last blank line above it (a comment right above a paragraph belongs to it).
+ */
+export function blockStart(text: string, offset: number): number {
+  let lineStart = text.lastIndexOf('\n', offset - 1) + 1;
+  while (lineStart > 0) {
+    const prevStart = text.lastIndexOf('\n', lineStart - 2) + 1;
+    if (text.slice(prevStart, lineStart - 1).trim() === '') break;
+    lineStart = prevStart;
+  }
+  return lineStart;
+}
+
+/**
+ * Where a quiet comment for the finding at `offset` goes, when a comment there silences it: above
+ * a paragraph or a block quote. Not for a list item or a table row, where a comment above the
+ * block does not reach the item (a comment inside one is for the author to place).
+ */
+export function quietCommentAt(text: string, offset: number): number | undefined {
+  const at = blockStart(text, offset);
+  let i = at;
+  while (text[i] === ' ') i += 1;
+  if (i - at >= 4) return undefined; // indented code
+  const c = text[i] ?? '';
+  if (c === '|' || c === '-' || c === '+' || c === '*') return undefined;
+  let j = i;
+  while ((text[j] ?? '') >= '0' && (text[j] ?? '') <= '9') j += 1;
+  if (j > i && (text[j] === '.' || text[j] === ')')) return undefined;
+  return at;
+}
+
+export type { Connection };

@@ -1,0 +1,29 @@
+import { resolve } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { describe, expect, it } from 'vitest';
+
+/**
+ * The server's checker runs each document on a worker thread of the compiled command line
+ * (`npm test` builds dist/ first), so it is loaded from there: from the sources it would check in
+ * this thread and there would be no budget to test.
+ */
+const { Checker } = (await import(pathToFileURL(resolve('dist/src/lsp/checker.js')).href)) as typeof import('../../src/lsp/checker.js');
+
+describe('the language server\'s checker', { timeout: 60_000 }, () => {
+  it('drops a check over its time budget with a logged message, and checks the next document', async () => {
+    const logged: string[] = [];
+    // a budget of a millisecond: no check of a whole manuscript fits in it
+    const tight = new Checker({ memoryMb: 256, seconds: 0.001 }, 1, (m) => logged.push(m));
+    const text = 'Scores rose, t(23) = 5.90, p = .000.\n'.repeat(2000);
+    const outcome = await tight.check({ key: 'a', path: 'a.md', source: text, options: {} });
+    expect(outcome).toMatchObject({ dropped: true });
+    expect(logged.join('\n')).toContain('dropped the check of a.md');
+    await tight.close();
+
+    const roomy = new Checker({ memoryMb: 256, seconds: 30 }, 2, (m) => logged.push(m));
+    const [a, b] = await Promise.all([roomy.check({ key: 'a', path: 'a.md', source: text, options: {} }), roomy.check({ key: 'b', path: 'b.md', source: 'x, t(23) = 5.90, p = .000.', options: {} })]);
+    expect('report' in a && a.report.findings.length).toBeGreaterThan(0);
+    expect('report' in b && b.report.findings.map((f) => f.ruleId)).toContain('zero-p-is-a-bound');
+    await roomy.close();
+  });
+});
