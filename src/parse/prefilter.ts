@@ -1,6 +1,7 @@
 /**
  * Whether a source can hold anything plumbline reads: a t statistic, descriptives, a count
- * with its percentage, a CI, a power statement, front matter or a plumbline comment. When it
+ * with its percentage, a CI, a power statement, a p (for F, χ², r and z), an r, front matter or
+ * a plumbline comment. When it
  * cannot, the Markdown parse is skipped: every record the extractor makes needs one of these
  * marks, so the findings are the same either way (test/engine/prefilter.test.ts checks it on
  * every fixture and benchmark corpus). A plain scan over the text, linear in its length.
@@ -23,6 +24,9 @@ const MARKS = new RegExp(
     'S ?D|S ?E|s\\.d\\.|S\\.D\\.|s\\.e\\.|Std', // S D: letters a PDF converter spaced out in math
     '[Mm]eans?\\b|[Aa]verage|[Aa]vg|[Ss]tandard (?:deviation|error)|[Ss]ample size',
     '[Pp]ower',
+    // a p with its comparison, which an F, χ², r or z result is checked against; an r on its own (r = 1.32, r(48))
+    `(?<![A-Za-z])[Pp]s?${SP}[=<>≤≥]`,
+    `(?<![A-Za-z])r${SP}[=(]`,
     'CI\\b|[Cc]onfidence interval',
     '<!--',
     '^\\uFEFF?---',
