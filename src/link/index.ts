@@ -96,6 +96,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     if (o.kind !== 'F' && o.kind !== 'chi-square' && o.kind !== 'correlation' && o.kind !== 'z') continue;
     const report = o as LinkedStatistic['report'];
     statistics.push({
+      id: `stat:${o.segment}:${o.span.start}`,
       report,
       alpha: alphaFor(bySentence.get(`${o.segment}:${o.sentence}`) ?? [], paragraphOf(o.segment), documentAlpha),
       doubts: o.doubt ? [o.doubt] : [],

@@ -35,6 +35,8 @@ export interface LinkedResult {
  * statistic's own, and a rule resting on it then speaks only as a note.
  */
 export interface LinkedStatistic {
+  /** Stable within a document: `stat:segment:offset`. */
+  id: string;
   report: OtherStatistic & { kind: 'F' | 'chi-square' | 'correlation' | 'z' };
   alpha: Setting<number>;
   doubts: string[];

@@ -197,6 +197,7 @@ export function statisticPFindings(
       recomputed: e.recomputed,
       gap: e.gap,
       check,
+      resultId: linked.id,
       block: s.block,
       ...(linked.doubts.length > 0 ? { uncertain: linked.doubts } : {}),
     });
