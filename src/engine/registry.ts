@@ -8,6 +8,7 @@ import { pFollowsFromR } from '../../rules/p-follows-from-r.js';
 import { pFollowsFromZ } from '../../rules/p-follows-from-z.js';
 import { significanceFollowsFromStatistic } from '../../rules/significance-follows-from-statistic.js';
 import { rDfFollowsFromN } from '../../rules/r-df-follows-from-n.js';
+import { etaSquaredFollowsFromF } from '../../rules/eta-squared-follows-from-f.js';
 import { powerStatementFollows } from '../../rules/power-statement-follows.js';
 import { quietDirectiveHasReason } from '../../rules/quiet-directive-has-reason.js';
 import { resultIsComplete } from '../../rules/result-is-complete.js';
@@ -53,6 +54,7 @@ export const RULES: readonly AnyRule[] = [
   pFollowsFromR,
   pFollowsFromZ,
   rDfFollowsFromN,
+  etaSquaredFollowsFromF,
   oneTailedPIsDeclared,
   valuesArePossible,
   zeroPIsABound,

@@ -124,6 +124,12 @@ export function completeStatistics(seg: Segment, starts: number[], others: Other
     const sentenceStart = starts[sentenceOf(starts, at)] as number;
     const before = text.slice(Math.max(sentenceStart, at - 80), at);
     if (o.kind === 'F') {
+      // an η² of the F's own clause: the first one after its value and before the clause ends
+      const eta = others.find((e) => e.kind === 'eta-squared' && e.value && textIndexOf(seg, e.span.start) > at && textIndexOf(seg, e.span.start) < Math.max(tailEnd, valueEnd + 1));
+      if (eta?.value && /^(?:partial )?(?:η|eta)/iu.test(eta.printed)) {
+        const etaOp = STAT_OP.exec(eta.printed);
+        out.etaSquared = { partial: isPartialEta(eta.printed), op: etaOp ? comparisonOf(etaOp[1] as string) : '=', value: eta.value, span: eta.span, printed: eta.printed };
+      }
       const near = text.slice(Math.max(sentenceStart, at - 80), tailEnd);
       const c = CORRECTION.exec(near);
       if (c) out.dfCorrection = c[1] === 'Huynh' ? 'huynh-feldt' : 'greenhouse-geisser';
@@ -192,4 +198,17 @@ function comparisonOf(s: string): Comparison {
   if (s === '>=' || s === '≥') return '>=';
   if (s === '<' || s === '>') return s;
   return '=';
+}
+
+/**
+ * Whether an η² is said to be partial: `partial η2`, or a p beside the η (`ηp2`, `η2p`, `η^2_p`,
+ * `η_p^2`). Read with string methods on the text the η² pattern matched; ω² and ε² are not η².
+ */
+function isPartialEta(printed: string): boolean {
+  const lower = printed.toLowerCase();
+  if (lower.startsWith('partial')) return true;
+  const symbolEnd = Math.min(...['=', '<', '>', '≤', '≥'].map((c) => (lower.includes(c) ? lower.indexOf(c) : lower.length)));
+  const symbol = lower.slice(0, symbolEnd);
+  const rest = symbol.startsWith('η') ? symbol.slice(1) : symbol.startsWith('eta') ? symbol.slice(3) : undefined;
+  return rest !== undefined && rest.includes('p');
 }

@@ -145,6 +145,8 @@ export interface OtherStatistic {
    * (a rank test's U or W before a z, whose p may be exact; a partial or rank correlation).
    */
   doubt?: string;
+  /** For F: an η² printed in its clause (`ηp2 = .10`, `partial η2 = .10`), and whether it is said to be partial. */
+  etaSquared?: { partial: boolean; op: Comparison; value: ReportedNumber; span: Span; printed: string };
   /** From the symbol to the end of the last part read (its p, else its value), and its text. */
   reportSpan?: Span;
   reportPrinted?: string;

@@ -24,9 +24,6 @@ const MARKS = new RegExp(
     'S ?D|S ?E|s\\.d\\.|S\\.D\\.|s\\.e\\.|Std', // S D: letters a PDF converter spaced out in math
     '[Mm]eans?\\b|[Aa]verage|[Aa]vg|[Ss]tandard (?:deviation|error)|[Ss]ample size',
     '[Pp]ower',
-    // a p with its comparison, which an F, χ², r or z result is checked against; an r on its own (r = 1.32, r(48))
-    `(?<![A-Za-z])[Pp]s?${SP}[=<>≤≥]`,
-    `(?<![A-Za-z])r${SP}[=(]`,
     'CI\\b|[Cc]onfidence interval',
     '<!--',
     '^\\uFEFF?---',
@@ -41,6 +38,12 @@ const MARKS = new RegExp(
  */
 const INVISIBLE = /[\u200E\u200F\u061C\u202A-\u202E\u2066-\u2069\uFE00-\uFE0F\u0300-\u036F\u1AB0-\u1AFF\u1DC0-\u1DFF\u20D0-\u20FF\uFE20-\uFE2F]|\uDB40[\uDD00-\uDDEF]|(?<=[\s\S])\uFEFF/;
 
+/**
+ * A p with its comparison, and the F, χ², r and z statistics the report lists (`F(1, 38)`, `F1,38`,
+ * `F < 1`, `χ²`, `chi-square(1)`, `X2`, `r(48)`, `rs =`, `ρ`, `τ`, `z =`).
+ */
+const STATISTIC_MARKS = /(?<![A-Za-z])(?:[Pp]s?|r(?:_?s|_?pb)?|F|[zZ])[ \u00A0\u2009\u202F_{]*[=<>≤≥(\[\d]|χ|ρ|τ|X\^?2|(?<![A-Za-z])[Cc]hi(?:[- ]squared?)?[ \u00A0\u2009\u202F^2]*[=<>≤≥(\[]/;
+
 export function mayHoldStatistics(source: string): boolean {
-  return MARKS.test(source) || INVISIBLE.test(source);
+  return MARKS.test(source) || STATISTIC_MARKS.test(source) || INVISIBLE.test(source);
 }

@@ -167,3 +167,20 @@ function upperGammaQ(a: number, x: number): number {
   }
   return Math.exp(logPrefactor) * h;
 }
+
+/**
+ * Partial η² from an F and its dfs: η²p = F·df1 / (F·df1 + df2) (common practice, no source;
+ * the identity SS_effect / (SS_effect + SS_error) with F = (SS_effect/df1) / (SS_error/df2)).
+ * It grows with F and df1 and falls with df2, so its range over a box of F, df1 and df2 is
+ * given by the box's corners. NaN outside F >= 0, df1, df2 > 0.
+ */
+export function partialEtaSquaredFromF(f: number, df1: number, df2: number): number {
+  if (!(f >= 0) || !(df1 > 0) || !(df2 > 0)) return NaN;
+  if (!Number.isFinite(f)) return 1;
+  return (f * df1) / (f * df1 + df2);
+}
+
+/** The range of partial η² over F in [fLow, fHigh], df1 in [df1Low, df1High], df2 in [df2Low, df2High]. */
+export function partialEtaSquaredRange(fLow: number, fHigh: number, df1Low: number, df1High: number, df2Low: number, df2High: number): Interval {
+  return { low: partialEtaSquaredFromF(Math.max(0, fLow), df1Low, df2High), high: partialEtaSquaredFromF(fHigh, df1High, df2Low) };
+}
