@@ -7,12 +7,13 @@ const messages = {
   'df-not-positive': 'Reported df = {df}: degrees of freedom must be positive.',
   'student-df-fractional':
     "Reported df = {df} with a test the text calls Student's: Student's (pooled) t has whole-number df (n1 + n2 − 2); a fractional df comes from Welch's test.",
+  'r-outside-range': 'Reported {reported}: a correlation lies between −1 and 1.',
 };
 
 /** Reported p and df lie in the ranges they can take. */
 export const valuesArePossible: Rule = {
   id: 'values-are-possible',
-  summary: 'Reported p lies in (0, 1] and df is positive (and whole for Student\'s test).',
+  summary: 'Reported p lies in (0, 1], df is positive (and whole for Student\'s test), and a correlation lies in [−1, 1].',
   kind: 'inconsistency',
   defaultLevel: 'error',
   defaultOptions: {},
@@ -41,6 +42,17 @@ export const valuesArePossible: Rule = {
       if (r.df && r.namedVariant === 'student' && !Number.isInteger(r.df.value)) {
         out.push({ ...base, messageId: 'student-df-fractional', span: r.df.span, message: fill(messages['student-df-fractional'], { df: r.df.printed }), check: "Check whether Welch's or Student's test was run, and name that one." });
       }
+    }
+    for (const linked of document.statistics) {
+      const s = linked.report;
+      // r = 1.32 cannot be (a bound such as r < 1.2 says nothing); a rank correlation is bounded the same way.
+      // Only an r reported as a test (with its df or a p) is a correlation: `r = 1.5` alone may be a rate or a radius.
+      if (s.kind !== 'correlation' || !s.value || Math.abs(s.value.value) <= 1 || (s.op !== undefined && s.op !== '=')) continue;
+      if (!s.dfs && !s.p) continue;
+      out.push({
+        messageId: 'r-outside-range', span: s.span, message: fill(messages['r-outside-range'], { reported: s.printed.trim() }),
+        reported: s.printed, block: s.block, check: 'Check the correlation against the analysis output: the printed value may have lost its decimal point or belong to another statistic.',
+      });
     }
     return out;
   },

@@ -2437,8 +2437,106 @@ def p_for_distractor(p: float, nt: Notation) -> str:
     return f"{nt.p}{nt.eq}{plain(p, 3, nt, nt.lead_p)}"
 
 
-def make_distractor(rng: np.random.Generator, doc: Doc, did: str, kind: str) -> tuple[dict, list]:
+# -- seeded errors in F, chi-square, r and z results ---------------------------------------------
+# Each seeded error is proved impossible under every common reading of the printed numbers: the
+# statistic anywhere in its rounding interval (dfs are whole and exact), F and chi-square by their
+# upper tail, r and z two-tailed or one-tailed (half), and an r's bracket read as df or as n
+# (df = n - 2). Readings and the interval arithmetic are the generator's own (scipy), not plumbline's.
+STAT_ERRORS = {
+    "F": ["F-p-mismatch", "F-significance-flip"],
+    "chi2": ["chi-square-p-mismatch", "chi-square-significance-flip"],
+    "r": ["r-p-mismatch", "r-significance-flip", "r-df-vs-n"],
+    "z": ["z-p-mismatch", "z-significance-flip"],
+}
+STAT_ERROR_RULES = {
+    "F-p-mismatch": ["p-follows-from-f"],
+    "chi-square-p-mismatch": ["p-follows-from-chi-square"],
+    "r-p-mismatch": ["p-follows-from-r"],
+    "z-p-mismatch": ["p-follows-from-z"],
+    "F-significance-flip": ["significance-follows-from-statistic"],
+    "chi-square-significance-flip": ["significance-follows-from-statistic"],
+    "r-significance-flip": ["significance-follows-from-statistic"],
+    "z-significance-flip": ["significance-follows-from-statistic"],
+    "r-df-vs-n": ["r-df-follows-from-n"],
+}
+
+
+def stat_readings(kind: str, value: float, dfs: tuple) -> list[tuple[float, float]]:
+    """p ranges of every common reading over the printed value's rounding box (2 decimals)."""
+    lo, hi = value - 0.005, value + 0.005
+    if kind == "F":
+        d1, d2 = dfs
+        return [(float(stats.f.sf(hi, d1, d2)), float(stats.f.sf(max(lo, 0.0), d1, d2)))]
+    if kind == "chi2":
+        (d,) = dfs
+        return [(float(stats.chi2.sf(hi, d)), float(stats.chi2.sf(max(lo, 0.0), d)))]
+    if kind == "z":
+        a_lo = 0.0 if lo <= 0 <= hi else min(abs(lo), abs(hi))
+        a_hi = max(abs(lo), abs(hi))
+        two = (float(2 * stats.norm.sf(a_hi)), float(2 * stats.norm.sf(a_lo)))
+        return [two, (two[0] / 2, two[1] / 2)]
+    # r: the bracket as df, and as n
+    out = []
+    a_lo = 0.0 if lo <= 0 <= hi else min(abs(lo), abs(hi))
+    a_hi = min(0.999999, max(abs(lo), abs(hi)))
+    for df in [d for d in (dfs[0], dfs[0] - 2) if d > 0]:
+        t_hi = a_hi * math.sqrt(df / (1 - a_hi**2))
+        t_lo = a_lo * math.sqrt(df / (1 - a_lo**2))
+        two = (float(2 * stats.t.sf(t_hi, df)), float(2 * stats.t.sf(t_lo, df)))
+        out += [two, (two[0] / 2, two[1] / 2)]
+    return out
+
+
+def side(iv: tuple[float, float], alpha: float = ALPHA) -> str:
+    if iv[1] < alpha:
+        return "below"
+    if iv[0] >= alpha:
+        return "above"
+    return "straddles"
+
+
+def seeded_p(srng: np.random.Generator, kind: str, error: str, value: float, dfs: tuple, true_p: float) -> float | None:
+    """A p printed to 3 decimals that no reading gives: on the true side of alpha (mismatch) or across it (flip)."""
+    readings = stat_readings(kind, value, dfs)
+    sides = {side(r) for r in readings}
+    if len(sides) != 1 or "straddles" in sides:
+        return None
+    (true_side,) = sides
+    for _ in range(40):
+        if error.endswith("flip"):
+            cand = float(srng.uniform(0.06, 0.45)) if true_side == "below" else float(srng.uniform(0.002, 0.04))
+        else:
+            cand = true_p * float(srng.choice([0.3, 0.5, 1.8, 2.5])) + float(srng.choice([0.0, 0.01, 0.02]))
+        cand = round(cand, 3)
+        if not (0.001 <= cand < 1):
+            continue
+        rep = (cand - 0.0005, cand + 0.0005)
+        if any(hit(rep, r) for r in readings):
+            continue
+        if side(rep) == "straddles":
+            continue
+        if error.endswith("flip") and side(rep) == true_side:
+            continue
+        if not error.endswith("flip") and side(rep) != true_side:
+            continue
+        return cand
+    return None
+
+
+def make_distractor(rng: np.random.Generator, doc: Doc, did: str, kind: str, srng: np.random.Generator | None = None) -> tuple[dict, list]:
     nt = doc.nt
+    # whether this result carries a seeded error (drawn from its own generator, so the text of
+    # every other result stays as it was)
+    error = str(srng.choice(STAT_ERRORS[kind])) if srng is not None and kind in STAT_ERRORS and srng.random() < 0.35 else None
+    seeded: dict = {}
+
+    def p_text(p: float, value: float, dfs: tuple) -> str:
+        if error is not None and error != "r-df-vs-n":
+            wrong = seeded_p(srng, kind, error, value, dfs, p)
+            if wrong is not None:
+                seeded["error"] = error
+                return f"{nt.p}{nt.eq}{plain(wrong, 3, nt, nt.lead_p)}"
+        return p_for_distractor(p, nt)
     eq = nt.eq
     js = nt.join
     ms = doc.measures
@@ -2451,7 +2549,8 @@ def make_distractor(rng: np.random.Generator, doc: Doc, did: str, kind: str) -> 
         xs = [rng.normal(0.3 * rng.standard_normal(), 1, per) for _ in range(k)]
         res = stats.f_oneway(*xs)
         df2 = k * per - k
-        txt = f"F(2, {df2}){eq}{plain(float(res.statistic), 2, nt, True)}{js}{p_for_distractor(float(res.pvalue), nt)}"
+        fv = float(dround(float(res.statistic), 2))
+        txt = f"F(2, {df2}){eq}{plain(float(res.statistic), 2, nt, True)}{js}{p_text(float(res.pvalue), fv, (2, df2))}"
         lead = f"Baseline {m1['name']} did not differ clearly across the three {'sites' if doc.topic['domain'] != 'mice' else 'cage racks'}, " if res.pvalue >= 0.05 else f"Baseline {m1['name']} differed across the three {'sites' if doc.topic['domain'] != 'mice' else 'cage racks'}, "
         toks = [(lead, []), (txt, [(did, "stat")]), (".", [])]
     elif kind == "chi2":
@@ -2463,14 +2562,22 @@ def make_distractor(rng: np.random.Generator, doc: Doc, did: str, kind: str) -> 
             table = table + 1
         chi2, p, dof, _ = stats.chi2_contingency(table, correction=False)
         nn = int(table.sum())
-        txt = f"\u03c7\u00b2(1, N = {nn}){eq}{plain(float(chi2), 2, nt, True)}{js}{p_for_distractor(float(p), nt)}"
+        cv = float(dround(float(chi2), 2))
+        txt = f"\u03c7\u00b2(1, N = {nn}){eq}{plain(float(chi2), 2, nt, True)}{js}{p_text(float(p), cv, (1,))}"
         toks = [(f"The share of {who} who {ACTIONS[doc.topic['domain']][0]} {'differed' if p < 0.05 else 'did not differ'} by group, ", []), (txt, [(did, "stat")]), (".", [])]
     elif kind == "r":
         n = max(8, N)
         x = rng.normal(0, 1, n)
         y = 0.35 * x + rng.normal(0, 1, n)
         r, p = stats.pearsonr(x, y)
-        txt = f"r({n - 2}){eq}{plain(float(r), 2, nt, nt.lead_p)}{js}{p_for_distractor(float(p), nt)}"
+        rv = float(dround(float(r), 2))
+        if error == "r-df-vs-n":
+            # the n printed beside the df is not df + 2 (the df printed is the analysis's own)
+            wrong_n = n + int(srng.choice([-6, -4, 4, 6, 10]))
+            seeded["error"] = error
+            txt = f"r({n - 2}){eq}{plain(float(r), 2, nt, nt.lead_p)}{js}n{eq}{wrong_n}{js}{p_for_distractor(float(p), nt)}"
+        else:
+            txt = f"r({n - 2}){eq}{plain(float(r), 2, nt, nt.lead_p)}{js}{p_text(float(p), rv, (n - 2,))}"
         toks = [(f"{m1['name'].capitalize()} and {m2['name']} were correlated, ", []), (txt, [(did, "stat")]), (".", [])]
     elif kind == "z":
         n = max(6, N // 2)
@@ -2478,7 +2585,8 @@ def make_distractor(rng: np.random.Generator, doc: Doc, did: str, kind: str) -> 
         res = stats.mannwhitneyu(x, y, method="asymptotic", use_continuity=False)
         p = float(res.pvalue)
         z = float(stats.norm.isf(p / 2)) * (1 if x.mean() > y.mean() else -1)
-        txt = f"z{eq}{plain(z, 2, nt, True)}{js}{p_for_distractor(p, nt)}"
+        zv = float(dround(z, 2))
+        txt = f"z{eq}{plain(z, 2, nt, True)}{js}{p_text(p, zv, ())}"
         toks = [(f"A rank-based test on {m1['name']} agreed, ", []), (txt, [(did, "stat")]), (".", [])]
     elif kind == "b":
         n = max(10, N)
@@ -2502,7 +2610,10 @@ def make_distractor(rng: np.random.Generator, doc: Doc, did: str, kind: str) -> 
         p = float(rng.uniform(0.12, 0.9))
         txt = p_for_distractor(p, nt)
         toks = [(txt, [(did, "stat")])]
-    return dict(id=did, kind={"F": "F", "chi2": "chi-square", "r": "correlation", "z": "z", "b": "regression", "p": "p-without-t"}[kind]), toks
+    meta = dict(id=did, kind={"F": "F", "chi2": "chi-square", "r": "correlation", "z": "z", "b": "regression", "p": "p-without-t"}[kind])
+    if "error" in seeded:
+        meta.update(error=seeded["error"], expect_rules=STAT_ERROR_RULES[seeded["error"]])
+    return meta, toks
 
 
 # ---------------------------------------------------------------------------------------------
@@ -2816,8 +2927,11 @@ def build_doc(seed: int, spec: Spec) -> dict:
         return f"{slug}-x{dn[0]:02d}"
 
     distractors = []
+    # seeded errors in F, chi-square, r and z results come from a generator of their own, so the
+    # rest of the manuscript is drawn exactly as before they were added
+    srng = np.random.default_rng([seed, spec.idx, 15])
     for kind in [pick(rng, ["F", "chi2", "r", "z", "b"]) for _ in range(int(rng.integers(3, 7)))]:
-        distractors.append(make_distractor(rng, doc, new_did(), kind))
+        distractors.append(make_distractor(rng, doc, new_did(), kind, srng))
     return compose(doc, rng, blocks, abstract_cases, extra, distractors, new_did)
 
 
@@ -3248,7 +3362,8 @@ def serialise(doc: Doc, rng: np.random.Generator, L: list, all_t: list, extra: d
     for d in dist_meta:
         ps = sorted({(p["start"], p["end"], p["role"]) for p in by_owner.get(d["id"], [])})
         if ps:
-            dists.append(dict(id=d["id"], file=file, house_style=HOUSE_NAMES[house], kind=d["kind"], parts=[dict(role=r, start=a, end=e) for a, e, r in ps]))
+            extra_key = {k: d[k] for k in ("error", "expect_rules") if k in d}
+            dists.append(dict(id=d["id"], file=file, house_style=HOUSE_NAMES[house], kind=d["kind"], **extra_key, parts=[dict(role=r, start=a, end=e) for a, e, r in ps]))
     return dict(file=file, text=text, cases=cases, distractors=dists)
 
 

@@ -41,6 +41,9 @@ interface KeyDistractor {
   file: string;
   house_style: string;
   kind: string;
+  /** F, χ², r and z results may carry a seeded error, with the rules expected to find it. */
+  error?: string;
+  expect_rules?: string[];
   parts: Part[];
 }
 
@@ -59,6 +62,10 @@ export interface GeneratedFigures {
   falseAlarmsByReportStyle: Record<string, { correct: number; flagged: number }>;
   unattributed: number;
   onDistractors: number;
+  /** Seeded errors in F, χ², r and z results, per error type. */
+  statisticRecallByType: Record<string, { n: number; found: number }>;
+  /** Correct F, χ², r, z (and regression, t-less p) results with an error or warning on them, per kind. */
+  statisticFalseAlarmsByKind: Record<string, { correct: number; flagged: number }>;
 }
 
 /** Goals the figures are read against. */
@@ -94,6 +101,8 @@ export function measureGenerated(verbose: boolean): GeneratedFigures {
   const falseAlarmsByReportStyle: GeneratedFigures['falseAlarmsByReportStyle'] = {};
   let unattributed = 0;
   let onDistractors = 0;
+  const statisticRecallByType: GeneratedFigures['statisticRecallByType'] = {};
+  const statisticFalseAlarmsByKind: GeneratedFigures['statisticFalseAlarmsByKind'] = {};
   const misses: string[] = [];
   const alarms: string[] = [];
   const strays: string[] = [];
@@ -134,8 +143,27 @@ export function measureGenerated(verbose: boolean): GeneratedFigures {
         if (verbose) for (const f of bad) alarms.push(`false alarm  ${place(f)} ${c.id} (${c.report_style}) ${f.ruleId}: ${f.message.replace(/\s+/g, ' ')}`);
       }
     }
+    // the seeded errors of F, χ², r and z results, found by their expected rules
+    for (const d of distractors) {
+      if (!d.error) continue;
+      const hits = findings.filter((f) => serious(f) && (d.expect_rules ?? []).includes(f.ruleId) && overlaps(f, d.parts));
+      for (const f of hits) explained.add(f);
+      const r = (statisticRecallByType[d.error] ??= { n: 0, found: 0 });
+      r.n += 1;
+      if (hits.length > 0) r.found += 1;
+      else if (verbose) {
+        const near = findings.filter((f) => overlaps(f, d.parts)).map((f) => `${f.ruleId}/${f.level}`);
+        misses.push(`miss  ${d.error.padEnd(36)} ${file}:${lineOf(Math.min(...d.parts.map((p) => p.start)))} ${d.id} ${near.length ? `found instead: ${near.join(', ')}` : 'nothing found there'}`);
+      }
+    }
+    for (const d of distractors) {
+      if (d.error) continue;
+      const k = (statisticFalseAlarmsByKind[d.kind] ??= { correct: 0, flagged: 0 });
+      k.correct += 1;
+      if (findings.some((f) => serious(f) && overlaps(f, d.parts))) k.flagged += 1;
+    }
     for (const f of findings) {
-      if (!serious(f)) continue;
+      if (!serious(f) || explained.has(f)) continue;
       if (cases.some((c) => overlaps(f, c.parts))) continue;
       const d = distractors.find((x) => overlaps(f, x.parts));
       if (d) {
@@ -179,13 +207,33 @@ export function measureGenerated(verbose: boolean): GeneratedFigures {
   const totalFound = Object.values(recallByType).reduce((a, r) => a + r.found, 0);
   lines.push('');
   lines.push(`all erroneous cases: ${totalFound} of ${totalErr} found (${pct(totalFound, totalErr).trim()}); all correct cases: ${totalFlagged} of ${totalCorrect} flagged (${pct(totalFlagged, totalCorrect).trim()})`);
-  lines.push(`errors and warnings on no case: ${unattributed}; on distractors (F, χ², r, z, regression, t-less p): ${onDistractors}`);
+  lines.push(`errors and warnings on no case: ${unattributed}; on distractors (F, χ², r, z, regression, t-less p) beyond their seeded errors: ${onDistractors}`);
+  lines.push('');
+  lines.push(`F, χ², r and z results: recall per seeded error type (goal >= ${RECALL_GOAL})`);
+  lines.push(`${'error type'.padEnd(38)} ${'cases'.padStart(5)} ${'found'.padStart(5)} ${'recall'.padStart(7)}  goal`);
+  let statRecall = true;
+  for (const [type, r] of Object.entries(statisticRecallByType).sort(([a], [b]) => a.localeCompare(b))) {
+    const rec = r.n ? r.found / r.n : 0;
+    const met = rec >= RECALL_GOAL;
+    statRecall &&= met;
+    lines.push(`${type.padEnd(38)} ${String(r.n).padStart(5)} ${String(r.found).padStart(5)} ${rec.toFixed(3).padStart(7)}  ${met ? 'met' : 'not met'}`);
+  }
+  lines.push('');
+  lines.push(`F, χ², r and z results: false alarms per kind (correct results with an error or warning on them; goal <= ${(100 * FALSE_ALARM_GOAL).toFixed(1)}%)`);
+  lines.push(`${'kind'.padEnd(38)} ${'correct'.padStart(7)} ${'flagged'.padStart(7)} ${'rate'.padStart(6)}  goal`);
+  let statAlarms = true;
+  for (const [kind, r] of Object.entries(statisticFalseAlarmsByKind).sort(([a], [b]) => a.localeCompare(b))) {
+    const met = r.flagged / Math.max(r.correct, 1) <= FALSE_ALARM_GOAL;
+    statAlarms &&= met;
+    lines.push(`${kind.padEnd(38)} ${String(r.correct).padStart(7)} ${String(r.flagged).padStart(7)} ${pct(r.flagged, r.correct)}  ${met ? 'met' : 'not met'}`);
+  }
+  lines.push(`F, χ², r and z goals: recall ${statRecall ? 'met' : 'not met'} for every error type; false alarms ${statAlarms ? 'met' : 'not met'} for every kind`);
   lines.push(`goals: recall ${allRecall ? 'met' : 'not met'} for every error type; false alarms ${allHouse ? 'met' : 'not met'} in every house style`);
   if (verbose) {
     lines.push('');
     lines.push(...misses, ...alarms, ...strays);
   }
-  return { lines, recallByType, falseAlarmsByHouseStyle, falseAlarmsByReportStyle, unattributed, onDistractors };
+  return { lines, recallByType, falseAlarmsByHouseStyle, falseAlarmsByReportStyle, unattributed, onDistractors, statisticRecallByType, statisticFalseAlarmsByKind };
 }
 
 if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {

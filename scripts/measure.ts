@@ -29,9 +29,12 @@ section('Whole real manuscripts (../shared/wholedocs)', wholedocs.lines);
 
 const recallMet = Object.values(generated.recallByType).every((r) => r.n === 0 || r.found / r.n >= 0.95);
 const alarmsMet = Object.values(generated.falseAlarmsByHouseStyle).every((r) => r.correct === 0 || r.flagged / r.correct <= 0.005);
+const statRecallMet = Object.values(generated.statisticRecallByType).every((r) => r.n === 0 || r.found / r.n >= 0.95);
+const statAlarmsMet = Object.values(generated.statisticFalseAlarmsByKind).every((r) => r.correct === 0 || r.flagged / r.correct <= 0.005);
 const consistent = realworld.byLabel.consistent;
 const summary = [
   `invented manuscripts: recall >= 0.95 for every error type: ${recallMet ? 'met' : 'not met'}; false alarms <= 0.5% in every house style: ${alarmsMet ? 'met' : 'not met'}`,
+  `invented F, χ², r and z results: recall >= 0.95 for every error type: ${statRecallMet ? 'met' : 'not met'}; false alarms <= 0.5% for every kind: ${statAlarmsMet ? 'met' : 'not met'}`,
   consistent ? `real reported t-tests: ${consistent.extracted} of ${consistent.n} consistent results extracted, ${consistent.flagged} flagged` : 'real reported t-tests: skipped',
   wholedocs.precision !== undefined
     ? `whole manuscripts: precision ${wholedocs.precision.toFixed(3)} over judged findings (goal >= 0.9), ${wholedocs.unjudged ?? 0} not in the key (judge them by hand); extraction recall ${wholedocs.recall?.toFixed(3)} (goal >= 0.9); true findings kept ${wholedocs.trueKept}; known false alarms still raised ${wholedocs.knownFalse}`

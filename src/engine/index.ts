@@ -7,10 +7,11 @@ import type { DocumentSettings, Linked, ResultContext, Setting } from '../link/i
 import { formatForPath, LineIndex, mayHoldStatistics, parseDocument } from '../parse/index.js';
 import type { ParsedDocument, ReadNote, Span } from '../parse/types.js';
 import { evaluateP } from '../rule-api/evaluate.js';
+import { evaluateStatisticP } from '../rule-api/statistic.js';
 import { linkDoubts } from '../rule-api/doubts.js';
 import type { Guideline, Level, LevelSetting } from '../rule-api/types.js';
 import { RULE_IDS, RULES } from './registry.js';
-import type { ChecklistRecord, FileReport, Finding, NumberRecord, Place, ResultRecord } from './types.js';
+import type { ChecklistRecord, FileReport, Finding, NumberRecord, Place, ResultRecord, StatisticRecord } from './types.js';
 
 export type * from './types.js';
 export { RULES, RULE_IDS, ruleById } from './registry.js';
@@ -140,7 +141,29 @@ export function checkSource(path: string, source: string, options: CheckOptions 
       ...(e ? { recomputed: { twoTailed: e.check.twoSided, oneTailed: e.check.oneSidedSame, standing: e.standing } } : {}),
     };
   });
-  return { path, format: doc.format, results, findings, checklist, guidelines, alpha: linked.documentAlpha, sidedness: linked.documentSidedness, hidden: { quiet: quieted, baseline: 0 }, source };
+  const statistics: StatisticRecord[] = [];
+  for (const ls of linked.statistics) {
+    const s = ls.report;
+    if (!s.value) continue;
+    const e = evaluateStatisticP(ls);
+    const span = s.reportSpan ?? s.span;
+    statistics.push({
+      id: ls.id,
+      kind: s.kind === 'chi-square' ? 'chi-square' : s.kind === 'correlation' ? 'r' : s.kind,
+      symbol: s.symbol ?? s.kind,
+      printed: s.reportPrinted ?? s.printed,
+      ...place(span),
+      value: { ...num(s.value), op: s.op ?? '=' },
+      ...(s.dfs ? { dfs: s.dfs.map(num) } : {}),
+      ...(s.n ? { n: num(s.n) } : {}),
+      ...(s.p ? { p: pRecord(s.p) } : {}),
+      alpha: ls.alpha,
+      ...(s.dfCorrection ? { dfCorrection: s.dfCorrection } : {}),
+      ...(ls.doubts.length > 0 ? { doubt: ls.doubts.join('; ') } : {}),
+      ...(e ? { recomputed: { readings: e.readings.map((r) => ({ name: r.name, low: r.range.low, high: r.range.high, fits: r.fits })), fits: e.fits } } : {}),
+    });
+  }
+  return { path, format: doc.format, results, statistics, findings, checklist, guidelines, alpha: linked.documentAlpha, sidedness: linked.documentSidedness, hidden: { quiet: quieted, baseline: 0 }, source };
 }
 
 function contextRecord(c: ResultContext, place: (s: Span) => Place): ResultRecord['context'] {

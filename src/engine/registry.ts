@@ -2,6 +2,13 @@ import { frontMatterIsReadable } from '../../rules/front-matter-is-readable.js';
 import { inputIsReadable } from '../../rules/input-is-readable.js';
 import { oneTailedPIsDeclared } from '../../rules/one-tailed-p-is-declared.js';
 import { pFollowsFromT } from '../../rules/p-follows-from-t.js';
+import { pFollowsFromF } from '../../rules/p-follows-from-f.js';
+import { pFollowsFromChiSquare } from '../../rules/p-follows-from-chi-square.js';
+import { pFollowsFromR } from '../../rules/p-follows-from-r.js';
+import { pFollowsFromZ } from '../../rules/p-follows-from-z.js';
+import { significanceFollowsFromStatistic } from '../../rules/significance-follows-from-statistic.js';
+import { rDfFollowsFromN } from '../../rules/r-df-follows-from-n.js';
+import { etaSquaredFollowsFromF } from '../../rules/eta-squared-follows-from-f.js';
 import { powerStatementFollows } from '../../rules/power-statement-follows.js';
 import { quietDirectiveHasReason } from '../../rules/quiet-directive-has-reason.js';
 import { resultIsComplete } from '../../rules/result-is-complete.js';
@@ -42,6 +49,13 @@ import type { AnyRule } from '../rule-api/types.js';
 export const RULES: readonly AnyRule[] = [
   significanceFollowsFromT,
   pFollowsFromT,
+  significanceFollowsFromStatistic,
+  pFollowsFromF,
+  pFollowsFromChiSquare,
+  pFollowsFromR,
+  pFollowsFromZ,
+  rDfFollowsFromN,
+  etaSquaredFollowsFromF,
   oneTailedPIsDeclared,
   valuesArePossible,
   zeroPIsABound,

@@ -83,6 +83,29 @@ export interface ResultRecord extends Place {
   };
 }
 
+/** An F, χ², r or z result as the output formats show it (t results are ResultRecords). */
+export interface StatisticRecord extends Place {
+  id: string;
+  kind: 'F' | 'chi-square' | 'r' | 'z';
+  /** The symbol as printed (`F`, `χ^2`, `X2`, `r`, `Z`, …). */
+  symbol: string;
+  /** From the symbol to its p (or its value when no p was read). */
+  printed: string;
+  value: NumberRecord & { op: Comparison };
+  /** F: [df1, df2]; χ² and r: [df]. */
+  dfs?: NumberRecord[];
+  /** χ²'s N, or an r's n, printed with it. */
+  n?: NumberRecord;
+  p?: ResultRecord['p'];
+  alpha: Setting<number>;
+  /** A Greenhouse–Geisser or Huynh–Feldt correction named beside an F. */
+  dfCorrection?: 'greenhouse-geisser' | 'huynh-feldt';
+  /** Why the p's tie to the statistic is not certain (findings on it are then notes). */
+  doubt?: string;
+  /** The recomputed p ranges, one per reading, and whether any reproduces the reported p. */
+  recomputed?: { readings: Array<{ name: string; low: number; high: number; fits: boolean }>; fits: boolean };
+}
+
 export interface Finding extends Place {
   ruleId: string;
   messageId: string;
@@ -128,6 +151,8 @@ export interface FileReport {
   path: string;
   format: SourceFormat;
   results: ResultRecord[];
+  /** The F, χ², r and z results, in reading order (absent in reports that predate them). */
+  statistics?: StatisticRecord[];
   findings: Finding[];
   /** The reporting checklist, for the guidelines selected (all by default). */
   checklist: ChecklistRecord[];

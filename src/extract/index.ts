@@ -12,7 +12,7 @@ import { findPowerStatements } from './power.js';
 import { findSummaries } from './summaries.js';
 import { findTableMentions, nameTableRows, readTables } from './tables.js';
 import { findPWithoutT } from './pWithoutT.js';
-import { findOtherStatistics } from './statistics.js';
+import { completeStatistics, findOtherStatistics } from './statistics.js';
 import { applyStarLegends, findStarLegends, type StarLegend } from './stars.js';
 import { findTTests } from './tTests.js';
 import type { Extraction } from './types.js';
@@ -61,7 +61,7 @@ export function extract(doc: ParsedDocument): Extraction {
     if (seg.kind !== 'code') for (const test of tests) if (!test.inCode && test.t.value < 0 && doc.source[test.t.span.start] === '-') test.t.hyphenMinus = true;
     append(out.tests, tests);
     if (seg.kind !== 'code') {
-      append(out.otherStatistics, withoutOverlap(findOtherStatistics(seg, starts), tests));
+      append(out.otherStatistics, completeStatistics(seg, starts, withoutOverlap(findOtherStatistics(seg, starts), tests), tests));
       append(out.statements, findStatements(seg, starts));
       const found = findSummaries(seg, starts);
       append(out.summaries, found.summaries);

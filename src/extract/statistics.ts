@@ -1,6 +1,7 @@
 import type { Segment } from '../parse/types.js';
 import { readNumber, sentenceOf, sourceSpan } from './numbers.js';
-import type { OtherStatistic, OtherStatisticKind } from './types.js';
+import { findP, reportTailEnd } from './tTests.js';
+import type { Comparison, OtherStatistic, OtherStatisticKind, ReportedNumber, TTestReport } from './types.js';
 
 // Bounded building blocks (see test/regex-safety).
 const OP = String.raw`(?:<=|>=|≤|≥|=|<|>)`;
@@ -58,4 +59,156 @@ export function findOtherStatistics(seg: Segment, sentenceStarts: number[]): Oth
     }
   }
   return out.sort((a, b) => a.span.start - b.span.start);
+}
+
+/** The kinds whose p plumbline recomputes. */
+const CHECKED: ReadonlySet<OtherStatisticKind> = new Set(['F', 'chi-square', 'correlation', 'z']);
+/** Effect sizes of the statistic before them (`F(1, 38) = 4.21, η2 = .10, p = .047`): they do not end its clause. */
+const OWN_EFFECT: ReadonlySet<OtherStatisticKind> = new Set(['eta-squared', 'r-squared']);
+
+// The parts of a statistic's own text (each applied to the text the patterns above matched).
+const NUM = String.raw`\d{1,6}(?:\.\d{1,4})?`;
+const F_DFS = new RegExp(String.raw`^F ?_?[(\[{]? ?(${NUM}) ?[,;] ?(${NUM})`, 'du');
+const CHI_PARTS = new RegExp(String.raw`[(\[] ?(${NUM})(?: ?[,;] ?[Nn] ?= ?(\d{1,3}(?:,\d{3})?\d{0,6}))? ?[)\]]`, 'du');
+const R_PARTS = new RegExp(String.raw`^(r(?:_?s|_?pb)?|ρ|τ)(?: ?[(\[] ?(${NUM}) ?[)\]])?`, 'du');
+const STAT_OP = /(<=|>=|≤|≥|=|<|>) ?[-+]? ?[.\d]{1,22}$/u;
+/** `n = 50` or `N = 1,204` in a correlation's clause. */
+const N_IN_CLAUSE = /(?<![\p{L}\p{N}_])[nN] ?= ?(\d{1,3}(?:,\d{3}){1,2}|\d{1,7})(?![\d.])/u;
+/** A Greenhouse–Geisser or Huynh–Feldt correction named near an F. */
+const CORRECTION = /(Greenhouse|Huynh)/u;
+/** Words of an F, χ², r or z report that are not other prose. */
+const OWN_WORDS = /^(?:mse|ms|ss|greenhouse|geisser|huynh|feldt|gg|hf|epsilon|ε|sphericity|likelihood|ratio|pearson|pearson's|pearson’s|yates|fisher|fisher's|fisher’s|wald|asymptotic|approximate|one-way|anova|ancova|manova|wilks|pillai|trace|lambda)$/iu;
+/** Words before an r that make p from t = r√(df/(1 − r²)) an approximation or its df another one. */
+const R_DOUBT = /(partial|semi-?partial|Spearman|Kendall|rank|polychoric|tetrachoric|intraclass|ICC|point[- ]biserial|biserial|multiple|canonical|controlling|adjusted)/iu;
+/** A rank test's statistic (U, W, T) before a z in its clause: the p printed may be the exact one. */
+const RANK_BEFORE = /(?<![\p{L}\p{N}_])(?:U|W|T|V)(?: ?\(\d{1,6}\))? ?[=<>]|Mann|Whitney|Wilcoxon|signed[- ]rank|rank[- ]sum|Kruskal/u;
+
+/**
+ * Gives each F, χ², r and z its dfs, n and p: the numbers in the statistic's own text and in
+ * its clause, which runs from its value to the next statistic (t or other; an η² or R² is the
+ * statistic's own effect size and does not end it), the end of the sentence or 200
+ * characters, and stops at a contrast or three words of other prose, as for a t-test.
+ */
+export function completeStatistics(seg: Segment, starts: number[], others: OtherStatistic[], tests: readonly TTestReport[]): OtherStatistic[] {
+  const text = seg.text;
+  // the text index of each record's start (spans are source offsets; the segment maps them)
+  const boundaries: number[] = [];
+  for (const t of tests) if (t.segment === seg.id) boundaries.push(textIndexOf(seg, t.span.start));
+  for (const o of others) if (!OWN_EFFECT.has(o.kind)) boundaries.push(textIndexOf(seg, o.span.start));
+  boundaries.sort((a, b) => a - b);
+  const hard: number[] = [];
+  for (const t of tests) if (t.segment === seg.id) hard.push(textIndexOf(seg, t.span.start));
+  for (const o of others) if (CHECKED.has(o.kind)) hard.push(textIndexOf(seg, o.span.start));
+  return others.map((o) => {
+    if (!CHECKED.has(o.kind) || !o.value) return o;
+    const at = textIndexOf(seg, o.span.start);
+    const valueEnd = at + o.printed.length;
+    const op = STAT_OP.exec(o.printed);
+    const out: OtherStatistic = { ...o, ...(op ? { op: comparisonOf(op[1] as string) } : {}) };
+    readOwnParts(seg, at, out);
+    const next = boundaries.find((b) => b > at) ?? text.length;
+    const sentenceEnd = starts[sentenceOf(starts, at) + 1] ?? text.length;
+    const windowEnd = Math.min(next, sentenceEnd, valueEnd + 200);
+    const tailEnd = reportTailEnd(text, valueEnd, windowEnd, OWN_WORDS);
+    const p = findP(seg, valueEnd, tailEnd);
+    // a plural p (`ps < .05`) summarises several tests; it is not this one's
+    if (p && !/^[pP]s/u.test(p.printed)) out.p = p;
+    if (o.kind === 'correlation') {
+      const n = N_IN_CLAUSE.exec(text.slice(valueEnd, tailEnd));
+      if (n) {
+        const a = valueEnd + n.index + n[0].length - (n[1] as string).length;
+        const number = readNumber(seg, a, a + (n[1] as string).length);
+        if (number) out.n = number;
+      }
+    }
+    const sentenceStart = starts[sentenceOf(starts, at)] as number;
+    const before = text.slice(Math.max(sentenceStart, at - 80), at);
+    if (o.kind === 'F') {
+      // an η² of the F's own clause: the first one after its value and before the clause ends
+      const eta = others.find((e) => e.kind === 'eta-squared' && e.value && textIndexOf(seg, e.span.start) > at && textIndexOf(seg, e.span.start) < Math.max(tailEnd, valueEnd + 1));
+      if (eta?.value && /^(?:partial )?(?:η|eta)/iu.test(eta.printed)) {
+        const etaOp = STAT_OP.exec(eta.printed);
+        out.etaSquared = { partial: isPartialEta(eta.printed), op: etaOp ? comparisonOf(etaOp[1] as string) : '=', value: eta.value, span: eta.span, printed: eta.printed };
+      }
+      const near = text.slice(Math.max(sentenceStart, at - 80), tailEnd);
+      const c = CORRECTION.exec(near);
+      if (c) out.dfCorrection = c[1] === 'Huynh' ? 'huynh-feldt' : 'greenhouse-geisser';
+    }
+    if (o.kind === 'correlation') {
+      const d = R_DOUBT.exec(before);
+      if (out.symbol !== 'r') out.doubt = `the correlation is printed as ${out.symbol ?? 'a rank correlation'}, whose p is not the t route's`;
+      else if (d) out.doubt = `"${d[1]}" before r: its p or df need not be those of a Pearson r`;
+    }
+    if (o.kind === 'z') {
+      // the z's own clause: after the last t, F, χ², r or z before it and the last semicolon
+      let from = Math.max(sentenceStart, at - 120);
+      for (const b of hard) if (b < at) from = Math.max(from, b + 1);
+      const clause = text.slice(from, at);
+      if (RANK_BEFORE.test(clause.slice(clause.lastIndexOf(';') + 1))) out.doubt = 'a rank test is named before z: its p may be the exact one rather than the normal approximation';
+    }
+    let last = valueEnd;
+    if (out.p) while (last < tailEnd && (seg.ends[last] as number) <= out.p.span.end) last += 1;
+    out.reportSpan = sourceSpan(seg, at, Math.max(valueEnd, last));
+    out.reportPrinted = text.slice(at, Math.max(valueEnd, last));
+    return out;
+  });
+}
+
+function readOwnParts(seg: Segment, at: number, out: OtherStatistic): void {
+  const own = out.printed;
+  const num = (m: RegExpExecArray, g: number): ReportedNumber | undefined => {
+    const span = m.indices?.[g];
+    return span ? readNumber(seg, at + span[0], at + span[1]) : undefined;
+  };
+  if (out.kind === 'F') {
+    out.symbol = 'F';
+    const m = F_DFS.exec(own);
+    const a = m ? num(m, 1) : undefined;
+    const b = m ? num(m, 2) : undefined;
+    if (a && b) out.dfs = [a, b];
+  } else if (out.kind === 'chi-square') {
+    out.symbol = own.slice(0, Math.max(1, own.search(/[ ([=<>≤≥]/u))).trim();
+    const m = CHI_PARTS.exec(own);
+    const df = m ? num(m, 1) : undefined;
+    if (df) out.dfs = [df];
+    const n = m && m[2] !== undefined ? num(m, 2) : undefined;
+    if (n) out.n = n;
+  } else if (out.kind === 'correlation') {
+    const m = R_PARTS.exec(own);
+    if (m) out.symbol = (m[1] as string).replace('_', '');
+    const df = m && m[2] !== undefined ? num(m, 2) : undefined;
+    if (df) out.dfs = [df];
+  } else if (out.kind === 'z') out.symbol = own.slice(0, 1);
+}
+
+/** The text index whose source start is `source` (first character at or after it). */
+function textIndexOf(seg: Segment, source: number): number {
+  let lo = 0;
+  let hi = seg.starts.length - 1;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if ((seg.starts[mid] as number) < source) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+function comparisonOf(s: string): Comparison {
+  if (s === '<=' || s === '≤') return '<=';
+  if (s === '>=' || s === '≥') return '>=';
+  if (s === '<' || s === '>') return s;
+  return '=';
+}
+
+/**
+ * Whether an η² is said to be partial: `partial η2`, or a p beside the η (`ηp2`, `η2p`, `η^2_p`,
+ * `η_p^2`). Read with string methods on the text the η² pattern matched; ω² and ε² are not η².
+ */
+function isPartialEta(printed: string): boolean {
+  const lower = printed.toLowerCase();
+  if (lower.startsWith('partial')) return true;
+  const symbolEnd = Math.min(...['=', '<', '>', '≤', '≥'].map((c) => (lower.includes(c) ? lower.indexOf(c) : lower.length)));
+  const symbol = lower.slice(0, symbolEnd);
+  const rest = symbol.startsWith('η') ? symbol.slice(1) : symbol.startsWith('eta') ? symbol.slice(3) : undefined;
+  return rest !== undefined && rest.includes('p');
 }

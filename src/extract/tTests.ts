@@ -238,13 +238,13 @@ function starsAfter(seg: Segment, at: number): ReportedP | undefined {
 const CLAUSE_BREAK = /(?<![\p{L}])(?:but|whereas|while|although|though|however|yet|unlike|compared with|in contrast)(?![\p{L}])/iu;
 const REPORT_WORD = /^(?:df|d|f|se|sem|ci|cohen|cohen's|cohen’s|hedges|g|and|with|degrees?|of|freedom|a|an|the|values?|was|is|were|are|two|one|tailed|sided|tails?|ns|n|p|ps|mean|difference|md|diff|b|beta|t|lower|upper|bounds?|confidence|intervals?|estimate|dz|dav|eta|partial|exact|respectively|statistic|stat|test|welch|welch's|welch’s|student|student's|student’s|corrected|adjusted|approx|approximately|equal|variances?|assumed|not|significant|bonferroni|holm|šidák|sidak|hochberg|fdr|correction|for|across|comparisons|tests)$/iu;
 
-function reportTailEnd(text: string, from: number, to: number): number {
+export function reportTailEnd(text: string, from: number, to: number, ownWords?: RegExp): number {
   const gap = text.slice(from, to);
   const br = CLAUSE_BREAK.exec(gap);
   let end = br ? from + br.index : to;
   let prose = 0;
   for (const m of gap.slice(0, end - from).matchAll(/\p{L}[\p{L}'’]{1,30}/gu)) {
-    if (REPORT_WORD.test(m[0])) continue;
+    if (REPORT_WORD.test(m[0]) || ownWords?.test(m[0])) continue;
     prose += 1;
     // three words of other prose: whatever p follows belongs to another statement
     if (prose >= 3) {

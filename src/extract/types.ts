@@ -130,6 +130,28 @@ export interface OtherStatistic {
   span: Span;
   printed: string;
   value?: ReportedNumber;
+  /** How the statistic was compared with its value: `F < 1` is `<`. */
+  op?: Comparison;
+  /** As printed: `F`, `χ2`, `r`, `rs`, `ρ`, `z`, `Z`, … */
+  symbol?: string;
+  /** For F, χ² and r: the degrees of freedom printed with the statistic (F: [df1, df2]; χ², r: [df]). */
+  dfs?: ReportedNumber[];
+  /** For χ² the `N = 120` inside its bracket; for r an `n = 50` printed in its clause. */
+  n?: ReportedNumber;
+  /** For F, χ², r and z: the p printed in the statistic's own clause, read as for a t-test. */
+  p?: ReportedP;
+  /** Named beside an F's dfs: a Greenhouse–Geisser or Huynh–Feldt correction (fractional dfs are then expected). */
+  dfCorrection?: 'greenhouse-geisser' | 'huynh-feldt';
+  /**
+   * Words or a statistic in the clause that make the p's tie to this statistic less than certain
+   * (a rank test's U or W before a z, whose p may be exact; a partial or rank correlation).
+   */
+  doubt?: string;
+  /** For F: an η² printed in its clause (`ηp2 = .10`, `partial η2 = .10`), and whether it is said to be partial. */
+  etaSquared?: { partial: boolean; op: Comparison; value: ReportedNumber; span: Span; printed: string };
+  /** From the symbol to the end of the last part read (its p, else its value), and its text. */
+  reportSpan?: Span;
+  reportPrinted?: string;
 }
 
 export interface Extraction {

@@ -1,6 +1,6 @@
 import type { ContextStatement, Extraction, IntegerStatement, Sidedness, TTestReport } from '../extract/types.js';
 import type { Directive } from '../parse/types.js';
-import type { DocumentSettings, LinkedDocument, LinkedResult, Setting } from './types.js';
+import type { DocumentSettings, LinkedDocument, LinkedResult, LinkedStatistic, Setting } from './types.js';
 
 export type * from './types.js';
 export type { DescriptiveLink, Design, IntervalLink, IntervalTarget, LinkBasis, Linked, ResultContext } from './descriptives.js';
@@ -121,8 +121,20 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       ...(elsewhere ? { untiedSidedness: elsewhere } : {}),
     };
   });
+  const statistics: LinkedStatistic[] = [];
+  for (const o of extraction.otherStatistics) {
+    if (o.kind !== 'F' && o.kind !== 'chi-square' && o.kind !== 'correlation' && o.kind !== 'z') continue;
+    const report = o as LinkedStatistic['report'];
+    statistics.push({
+      id: `stat:${o.segment}:${o.span.start}`,
+      report,
+      alpha: alphaFor(readingOf(`${o.segment}:${o.sentence}`, o.segment, o.sentence), paragraphOf(o.segment), documentAlpha),
+      doubts: o.doubt ? [o.doubt] : [],
+    });
+  }
   return {
     results,
+    statistics,
     integerDeclarations: integerDeclarations(extraction),
     inferredSizes: inferredSizes(results),
     spreadKinds: spreadKinds(extraction),

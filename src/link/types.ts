@@ -1,4 +1,4 @@
-import type { ContextStatement, Extraction, GroupSummary, IntegerStatement, PWithoutT, Sidedness, SpreadKind, TTestReport } from '../extract/types.js';
+import type { ContextStatement, Extraction, GroupSummary, IntegerStatement, OtherStatistic, PWithoutT, Sidedness, SpreadKind, TTestReport } from '../extract/types.js';
 import type { Directive, ReadNote, Span } from '../parse/types.js';
 import type { ResultContext } from './descriptives.js';
 import type { TestName } from './testNames.js';
@@ -28,6 +28,20 @@ export interface LinkedResult {
   untiedSidedness?: ContextStatement;
 }
 
+/**
+ * An F, χ², r or z result with the alpha that applies to it (found as for a t-test: its
+ * sentence, its paragraph, the document, the default). Its p is the one printed in its own
+ * clause (src/extract/statistics.ts); `doubts` say why that p or its df is not certainly the
+ * statistic's own, and a rule resting on it then speaks only as a note.
+ */
+export interface LinkedStatistic {
+  /** Stable within a document: `stat:segment:offset`. */
+  id: string;
+  report: OtherStatistic & { kind: 'F' | 'chi-square' | 'correlation' | 'z' };
+  alpha: Setting<number>;
+  doubts: string[];
+}
+
 export interface DocumentSettings {
   integerMeasure?: Setting<{ items: number }>;
   alpha?: Setting<number>;
@@ -38,6 +52,8 @@ export interface DocumentSettings {
 
 export interface LinkedDocument {
   results: LinkedResult[];
+  /** The F, χ², r and z results, in reading order. */
+  statistics: LinkedStatistic[];
   pWithoutT: PWithoutT[];
   directives: Directive[];
   /** Every extracted record, for rules that look at the whole document. */

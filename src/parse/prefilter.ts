@@ -1,6 +1,7 @@
 /**
  * Whether a source can hold anything plumbline reads: a t statistic, descriptives, a count
- * with its percentage, a CI, a power statement, front matter or a plumbline comment. When it
+ * with its percentage, a CI, a power statement, a p (for F, χ², r and z), an r, front matter or
+ * a plumbline comment. When it
  * cannot, the Markdown parse is skipped: every record the extractor makes needs one of these
  * marks, so the findings are the same either way (test/engine/prefilter.test.ts checks it on
  * every fixture and benchmark corpus). A plain scan over the text, linear in its length.
@@ -37,6 +38,12 @@ const MARKS = new RegExp(
  */
 const INVISIBLE = /[\u200E\u200F\u061C\u202A-\u202E\u2066-\u2069\uFE00-\uFE0F\u0300-\u036F\u1AB0-\u1AFF\u1DC0-\u1DFF\u20D0-\u20FF\uFE20-\uFE2F]|\uDB40[\uDD00-\uDDEF]|(?<=[\s\S])\uFEFF/;
 
+/**
+ * A p with its comparison, and the F, χ², r and z statistics the report lists (`F(1, 38)`, `F1,38`,
+ * `F < 1`, `χ²`, `chi-square(1)`, `X2`, `r(48)`, `rs =`, `ρ`, `τ`, `z =`).
+ */
+const STATISTIC_MARKS = /(?<![A-Za-z])(?:[Pp]s?|r(?:_?s|_?pb)?|F|[zZ])[ \u00A0\u2009\u202F_{]*[=<>≤≥(\[\d]|χ|ρ|τ|X\^?2|(?<![A-Za-z])[Cc]hi(?:[- ]squared?)?[ \u00A0\u2009\u202F^2]*[=<>≤≥(\[]/;
+
 export function mayHoldStatistics(source: string): boolean {
-  return MARKS.test(source) || INVISIBLE.test(source);
+  return MARKS.test(source) || STATISTIC_MARKS.test(source) || INVISIBLE.test(source);
 }

@@ -11,7 +11,7 @@ import type { FileReport, Finding, ResultRecord } from '../engine/types.js';
 import { guidelineRefs, isChecklistFinding, missingWhere, summariseChecklist, type ItemSummary, type MissingPlace } from './checklistSummary.js';
 import type { Level } from '../rule-api/types.js';
 import { escapeHtml, shortNumber as fmt } from './escape.js';
-import { findingPicture, pAxisFor, plottable, pOverviewChunks, pStrip, STRIP_WIDTH, type PAxis } from './pictures.js';
+import { findingPicture, pAxisFor, pOverviewChunks, pRowsOf, pStrip, resultRow, STRIP_WIDTH, type PAxis } from './pictures.js';
 import { CAUTIONS, countRun, type RunReport } from './types.js';
 import { joined, wholeText } from './chunks.js';
 
@@ -99,7 +99,7 @@ export function formatHtml(run: RunReport, options: { title?: string } = {}): st
 export function* formatHtmlChunks(run: RunReport, options: { title?: string } = {}): Generator<string> {
   const title = options.title ?? `plumbline report: ${run.files.map((f) => f.path).join(', ') || 'no files'}`;
   // every p picture of the report on one axis, so they can be compared across files too
-  const pAxis = pAxisFor(run.files.flatMap((f) => f.results));
+  const pAxis = pAxisFor(run.files.flatMap((f) => pRowsOf(f.results, f.statistics).map((x) => x.row)));
   yield `<!DOCTYPE html>
 <html lang="en">
 <head>
@@ -115,7 +115,7 @@ export function* formatHtmlChunks(run: RunReport, options: { title?: string } = 
   yield* joined([
     '<header class="top">',
     `<h1>${escapeHtml(title)}</h1>`,
-    `<p>${escapeHtml(run.tool.name)} ${escapeHtml(run.tool.version)} checked the t-tests these manuscripts report: each p against its t and df, and each test against the descriptives, intervals and effect sizes beside it, allowing for rounding.</p>`,
+    `<p>${escapeHtml(run.tool.name)} ${escapeHtml(run.tool.version)} checked the tests these manuscripts report: each p against its t and df (or its F, χ², r or z), and each test against the descriptives, intervals and effect sizes beside it, allowing for rounding.</p>`,
     summaryTable(run),
     cautionsHtml(),
     '</header>',
@@ -171,12 +171,12 @@ ${row(`<span class="sym">${SEVERITY.note.symbol}</span> Notes`, c.note, 'lvl-not
  * One file: the overview plot, the text with its marks beside the cards, the results, the
  * checklist. Its p pictures use `pAxis` (the whole report's), or the file's own when alone.
  */
-export function fileSection(file: FileReport, index: number, pAxis: PAxis = pAxisFor(file.results)): string {
+export function fileSection(file: FileReport, index: number, pAxis: PAxis = pAxisFor(pRowsOf(file.results, file.statistics).map((x) => x.row))): string {
   return wholeText(fileSectionChunks(file, index, pAxis));
 }
 
 /** The same text as fileSection, piece by piece in order. */
-export function* fileSectionChunks(file: FileReport, index: number, pAxis: PAxis = pAxisFor(file.results)): Generator<string> {
+export function* fileSectionChunks(file: FileReport, index: number, pAxis: PAxis = pAxisFor(pRowsOf(file.results, file.statistics).map((x) => x.row))): Generator<string> {
   // the checklist's missing entries are summarised in its table, once per item, not as cards
   const ordered = file.findings.filter((f) => !isChecklistFinding(file, f)).sort((a, b) => a.span.start - b.span.start);
   const byResult = new Map<string, Finding[]>();
@@ -191,7 +191,7 @@ export function* fileSectionChunks(file: FileReport, index: number, pAxis: PAxis
     `<section class="file" id="${anchor(index, 'file', 0)}">`,
     `<h2>${escapeHtml(file.path)}</h2>`,
     `<p>${file.results.length} result${file.results.length === 1 ? '' : 's'} found, ${ordered.length} finding${ordered.length === 1 ? '' : 's'}${summarised > 0 ? ` (and ${summarised} checklist entr${summarised === 1 ? 'y' : 'ies'}, summarised in the checklist below)` : ''}. Alpha ${escapeHtml(String(file.alpha.value))}, ${escapeHtml(file.sidedness.value)}-tailed where the text says nothing.</p>`,
-    file.results.some(plottable) ? joined(['<h3>All tests in reading order</h3>', forestPlot(file, index, pAxis, byResult)], '') : '',
+    pRowsOf(file.results, file.statistics).length > 0 ? joined(['<h3>All tests in reading order</h3>', forestPlot(file, index, pAxis, byResult)], '') : '',
     '<div class="layout">',
     joined(['<div><h3>Manuscript</h3>', manuscriptHtml(file, index, ordered), '</div>'], ''),
     joined(['<div><h3>Findings</h3><div class="cards">', ordered.length === 0 ? '<p>No findings.</p>' : joined(mapped(ordered, (f, n) => card(file, index, f, n, pAxis)), '\n'), '</div></div>'], ''),
@@ -303,7 +303,7 @@ function resultItem(index: number, r: ResultRecord, n: number, pAxis: PAxis, fla
   const worst = worstLevel(flagged);
   const status = worst ? `<span class="lvl-${worst}"><span class="sym">${SEVERITY[worst].symbol}</span> ${flagged.length} finding${flagged.length === 1 ? '' : 's'}</span>` : r.recomputed ? 'no finding' : 'not recomputed';
   // the strip in a column of its own, so strips line up down the list on the shared axis
-  return `<li id="${anchor(index, 'r', n)}"><div class="rrow"><span><a href="#${anchor(index, 'L', r.start.line)}">line ${r.start.line}</a>: <code>${escapeHtml(r.printed)}</code> — ${status}</span><span class="pic">${plottable(r) ? pStrip(r, pAxis) : ''}</span></div></li>`;
+  return `<li id="${anchor(index, 'r', n)}"><div class="rrow"><span><a href="#${anchor(index, 'L', r.start.line)}">line ${r.start.line}</a>: <code>${escapeHtml(r.printed)}</code> — ${status}</span><span class="pic">${pictureOf(r, pAxis)}</span></div></li>`;
 }
 
 function worstLevel(findings: Finding[]): Level | undefined {
@@ -349,10 +349,23 @@ function placeLinks(places: readonly MissingPlace[], link: (line: number, text: 
   return [...seen].map(([text, { line, n }]) => `${link(line, text)}${n > 1 ? ` (${n} results)` : ''}`).join(', ');
 }
 
-/** The overview of every drawable test in the file, on the report's p axis. */
+/** The overview of every drawable p in the file (t, F, χ², r and z), in reading order, on the report's p axis. */
 function forestPlot(file: FileReport, index: number, pAxis: PAxis, byResult: Map<string, Finding[]>): Iterable<string> {
-  return pOverviewChunks(file.results, pAxis, (n) => anchor(index, 'r', n), (r) => {
-    const worst = worstLevel(byResult.get(r.id) ?? []);
-    return worst ? { symbol: SEVERITY[worst].symbol, level: worst } : undefined;
-  });
+  const statistics = file.statistics ?? [];
+  return pOverviewChunks(
+    pRowsOf(file.results, statistics),
+    pAxis,
+    // a t result links to its entry in the results list; an F, χ², r or z to its line
+    (item) => (item.source === 'result' ? anchor(index, 'r', item.n) : anchor(index, 'L', item.row.line)),
+    (item) => {
+      const id = item.source === 'result' ? file.results[item.n]?.id : statistics[item.n]?.id;
+      const worst = worstLevel(id === undefined ? [] : byResult.get(id) ?? []);
+      return worst ? { symbol: SEVERITY[worst].symbol, level: worst } : undefined;
+    },
+  );
+}
+
+function pictureOf(r: ResultRecord, pAxis: PAxis): string {
+  const row = resultRow(r);
+  return row ? pStrip(row, pAxis) : '';
 }

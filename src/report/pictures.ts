@@ -10,7 +10,7 @@
  * reported p and the recomputed range sit in lanes of their own, so neither hides the other. A
  * finding about another quantity gets a picture on that quantity's own scale, or none.
  */
-import type { Finding, ResultRecord } from '../engine/types.js';
+import type { Finding, ResultRecord, StatisticRecord } from '../engine/types.js';
 import type { CorrelationFigure, DfFigure, IntervalFigure, LatticeFigure, ValueRange } from '../rule-api/types.js';
 import { escapeHtml, shortNumber } from './escape.js';
 
@@ -51,24 +51,70 @@ export interface PAxis {
   min: number;
 }
 
-/** The p range a result's tails select (two-tailed unless it is read as one-tailed). */
-function rangeOf(r: ResultRecord): ValueRange {
-  const rc = r.recomputed as NonNullable<ResultRecord['recomputed']>;
-  return r.sidedness.value === 'one' ? rc.oneTailed : rc.twoTailed;
+/**
+ * One p on the axis: the reported p, the recomputed range of the reading that applies, and alpha.
+ * A t result gives the range its tails select; an F or χ² its upper tail; a z or r the first
+ * reading that reproduces the reported p, else its two-tailed one (the report chose and computed
+ * them; this only picks which to draw).
+ */
+export interface PRow {
+  line: number;
+  start: number;
+  printed: string;
+  p: NonNullable<ResultRecord['p']> & { number: NonNullable<NonNullable<ResultRecord['p']>['number']> };
+  alpha: number;
+  range: ValueRange;
+  /** What the range is, for its title: "two-tailed p", "p (upper tail of F)". */
+  rangeName: string;
+  fits: boolean;
+}
+
+/** A t result's row, when its p was recomputed and a numeric p was printed. */
+export function resultRow(r: ResultRecord): PRow | undefined {
+  if (!r.recomputed || !r.p?.number) return undefined;
+  const one = r.sidedness.value === 'one';
+  return {
+    line: r.start.line, start: r.span.start, printed: r.printed, p: { ...r.p, number: r.p.number }, alpha: r.alpha.value,
+    range: one ? r.recomputed.oneTailed : r.recomputed.twoTailed, rangeName: `${one ? 'one' : 'two'}-tailed p`, fits: r.recomputed.standing === 'consistent',
+  };
+}
+
+/** An F, χ², r or z result's row, when its p was recomputed and a numeric p was printed. */
+export function statisticRow(s: StatisticRecord): PRow | undefined {
+  const first = s.recomputed?.readings[0];
+  if (!s.recomputed || !first || !s.p?.number) return undefined;
+  const reading = s.recomputed.readings.find((r) => r.fits) ?? first;
+  return {
+    line: s.start.line, start: s.span.start, printed: s.printed, p: { ...s.p, number: s.p.number }, alpha: s.alpha.value,
+    range: { low: reading.low, high: reading.high }, rangeName: reading.name, fits: s.recomputed.fits,
+  };
+}
+
+/** Every drawable p of a file in reading order: t results and F, χ², r and z results together, with each one's place in its own list. */
+export function pRowsOf(results: readonly ResultRecord[], statistics: readonly StatisticRecord[] = []): Array<{ row: PRow; source: 'result' | 'statistic'; n: number }> {
+  const out: Array<{ row: PRow; source: 'result' | 'statistic'; n: number }> = [];
+  results.forEach((r, n) => {
+    const row = resultRow(r);
+    if (row) out.push({ row, source: 'result', n });
+  });
+  statistics.forEach((st, n) => {
+    const row = statisticRow(st);
+    if (row) out.push({ row, source: 'statistic', n });
+  });
+  return out.sort((a, b) => a.row.start - b.row.start);
 }
 
 /** A result can be drawn on the p axis when its p was recomputed and a numeric p was printed. */
 export function plottable(r: ResultRecord): boolean {
-  return r.recomputed !== undefined && r.p?.number !== undefined;
+  return resultRow(r) !== undefined;
 }
 
 /** One axis for all these results: down to the decade of the smallest p drawn, at least 10⁻³, at most 10⁻¹². */
-export function pAxisFor(results: ResultRecord[]): PAxis {
+export function pAxisFor(rows: Iterable<PRow>): PAxis {
   // a loop, not Math.min(...values): a spread of 45,000 results' values overflowed the stack
   let lowest = Infinity;
-  for (const r of results) {
-    if (!plottable(r)) continue;
-    for (const v of [rangeOf(r).low, r.p?.number?.value ?? 1, r.alpha.value]) if (v > 0 && Number.isFinite(v) && v < lowest) lowest = v;
+  for (const r of rows) {
+    for (const v of [r.range.low, r.p.number.value, r.alpha]) if (v > 0 && Number.isFinite(v) && v < lowest) lowest = v;
   }
   if (lowest === Infinity) lowest = 1e-3;
   return { min: Math.max(-12, Math.min(-3, Math.floor(Math.log10(lowest) + 1e-9))) };
@@ -130,10 +176,10 @@ function pTicks(a: PLayout, yTop: number, yAxis: number): string {
  * A p printed as zero, or below the axis bound, is drawn at the bound as a bound: a bar at the
  * bound with a triangle pointing at it.
  */
-function pMarker(r: ResultRecord, a: PLayout, y: number): string {
-  const op = r.p?.op ?? '=';
-  const value = r.p?.number?.value ?? 1;
-  const printed = `${op} ${r.p?.number?.printed ?? ''}`;
+function pMarker(r: PRow, a: PLayout, y: number): string {
+  const op = r.p.op;
+  const value = r.p.number.value;
+  const printed = `${op} ${r.p.number.printed}`;
   if (belowBound(a, value)) {
     const x = a.x0;
     const title = value > 0 ? `reported p ${printed}: below ${decadeLabel(a.min)}, drawn at the axis bound` : `reported p ${printed}: a p printed as zero stands for a bound (a small p rounded down), drawn at the axis bound ${decadeLabel(a.min)}`;
@@ -147,8 +193,8 @@ function pMarker(r: ResultRecord, a: PLayout, y: number): string {
 }
 
 /** The recomputed p range in its lane, at least 3 px wide; a range reaching below the bound gets an arrow there. */
-function pRange(r: ResultRecord, a: PLayout, y: number, h: number): string {
-  const { low, high } = rangeOf(r);
+function pRange(r: PRow, a: PLayout, y: number, h: number): string {
+  const { low, high } = r.range;
   let x1 = pX(a, low);
   let x2 = pX(a, high);
   if (x2 - x1 < 3) {
@@ -156,9 +202,9 @@ function pRange(r: ResultRecord, a: PLayout, y: number, h: number): string {
     x1 = c - 1.5;
     x2 = c + 1.5;
   }
-  const fits = r.recomputed?.standing === 'consistent';
+  const fits = r.fits;
   const off = belowBound(a, low);
-  const title = `recomputed ${escapeHtml(r.sidedness.value)}-tailed p ${shortNumber(low)} to ${shortNumber(high)}${off ? `, reaching below the axis bound ${decadeLabel(a.min)}` : ''}`;
+  const title = `recomputed ${escapeHtml(r.rangeName)} ${shortNumber(low)} to ${shortNumber(high)}${off ? `, reaching below the axis bound ${decadeLabel(a.min)}` : ''}`;
   const arrow = off ? `<path class="range off" d="M${f1(a.x0 - 6)},${y} L${f1(a.x0 - 1)},${y - h / 2} L${f1(a.x0 - 1)},${y + h / 2} Z"><title>${title}</title></path>` : '';
   return `${arrow}<rect class="range${fits ? ' fits' : ''}" x="${f1(x1)}" y="${y - h / 2}" width="${f1(x2 - x1)}" height="${h}"><title>${title}</title></rect>`;
 }
@@ -168,15 +214,15 @@ export const STRIP_WIDTH = 300;
 const STRIP_HEIGHT = 54;
 
 /** Where the reported p sits against the recomputed p range, for one test, on the report's shared axis. */
-export function pStrip(r: ResultRecord, axis: PAxis): string {
+export function pStrip(r: PRow, axis: PAxis): string {
   const pads = pPads(axis);
   const a: PLayout = { min: axis.min, x0: pads.left, width: STRIP_WIDTH - pads.left - pads.right };
   const yAxis = 33;
-  const alphaX = f1(pX(a, r.alpha.value));
-  const { low, high } = rangeOf(r);
-  return `<svg class="pstrip" role="img" width="${STRIP_WIDTH}" height="${STRIP_HEIGHT}" viewBox="0 0 ${STRIP_WIDTH} ${STRIP_HEIGHT}" data-axis-min="${axis.min}" aria-label="reported p ${escapeHtml(r.p?.op ?? '=')} ${escapeHtml(r.p?.number?.printed ?? '')} against recomputed range ${shortNumber(low)} to ${shortNumber(high)}">
+  const alphaX = f1(pX(a, r.alpha));
+  const { low, high } = r.range;
+  return `<svg class="pstrip" role="img" width="${STRIP_WIDTH}" height="${STRIP_HEIGHT}" viewBox="0 0 ${STRIP_WIDTH} ${STRIP_HEIGHT}" data-axis-min="${axis.min}" aria-label="reported p ${escapeHtml(r.p.op)} ${escapeHtml(r.p.number.printed)} against recomputed range ${shortNumber(low)} to ${shortNumber(high)}">
 ${pTicks(a, 2, yAxis)}<line class="axis" x1="${f1(a.x0)}" y1="${yAxis}" x2="${f1(a.x0 + a.width)}" y2="${yAxis}"/>
-<line class="alpha" x1="${alphaX}" y1="2" x2="${alphaX}" y2="${yAxis}"><title>alpha ${escapeHtml(String(r.alpha.value))}</title></line>
+<line class="alpha" x1="${alphaX}" y1="2" x2="${alphaX}" y2="${yAxis}"><title>alpha ${escapeHtml(String(r.alpha))}</title></line>
 ${pRange(r, a, 23, 8)}${pMarker(r, a, 9)}</svg>`;
 }
 
@@ -190,16 +236,12 @@ function rowLabel(text: string, room: number): string {
 
 /**
  * Every drawable test in reading order on the report's shared axis: the reported p above, the
- * recomputed range below it, alpha across. `link(n)` is the anchor of result n; `mark(r)` the
- * severity symbol of its worst finding, if any.
+ * recomputed range below it, alpha across. `link(item)` is the anchor an item's row leads to;
+ * `mark(item)` the severity symbol of its worst finding, if any. Written piece by piece, a row
+ * per test, so a paper of any length fits no one string.
  */
-export function pOverview(results: ResultRecord[], axis: PAxis, link: (n: number) => string, mark: (r: ResultRecord) => { symbol: string; level: string } | undefined): string {
-  return [...pOverviewChunks(results, axis, link, mark)].join('');
-}
-
-/** The same text as pOverview, piece by piece: a row per result, so a paper of any length fits no one string. */
-export function* pOverviewChunks(results: ResultRecord[], axis: PAxis, link: (n: number) => string, mark: (r: ResultRecord) => { symbol: string; level: string } | undefined): Generator<string> {
-  const rows = results.map((r, n) => ({ r, n })).filter(({ r }) => plottable(r));
+export function* pOverviewChunks<T extends { row: PRow }>(items: readonly T[], axis: PAxis, link: (item: T) => string, mark: (item: T) => { symbol: string; level: string } | undefined): Generator<string> {
+  const rows = items.map((item) => ({ r: item.row, item }));
   const labelRoom = 220;
   const labelCol = 16 + labelRoom + 10;
   const pads = pPads(axis);
@@ -209,16 +251,16 @@ export function* pOverviewChunks(results: ResultRecord[], axis: PAxis, link: (n:
   const top = 22;
   const yAxis = top + rows.length * rowH;
   const height = yAxis + 22;
-  const row = ({ r, n }: (typeof rows)[number], k: number) => {
+  const row = ({ r, item }: (typeof rows)[number], k: number) => {
     const y = top + k * rowH + rowH / 2;
-    const flagged = mark(r);
+    const flagged = mark(item);
     const sym = flagged ? `<text x="2" y="${y + 4}" class="lvl-${flagged.level}" style="fill: var(--c)">${flagged.symbol}</text>` : '';
-    const text = rowLabel(`L${r.start.line} ${r.printed}`, labelRoom);
-    return `<a href="#${link(n)}"><rect class="row" x="0" y="${y - rowH / 2}" width="${width}" height="${rowH}" fill="transparent"/>${sym}<text class="rowlabel" x="16" y="${y + 4}">${escapeHtml(text)}</text>${pMarker(r, a, y - 6)}${pRange(r, a, y + 6, 7)}</a>`;
+    const text = rowLabel(`L${r.line} ${r.printed}`, labelRoom);
+    return `<a href="#${link(item)}"><rect class="row" x="0" y="${y - rowH / 2}" width="${width}" height="${rowH}" fill="transparent"/>${sym}<text class="rowlabel" x="16" y="${y + 4}">${escapeHtml(text)}</text>${pMarker(r, a, y - 6)}${pRange(r, a, y + 6, 7)}</a>`;
   };
   // one label per alpha, left out where it would crowd another (its line keeps a title)
   const placed: Array<[number, number]> = [];
-  const alphaLines = [...new Set(rows.map(({ r }) => r.alpha.value))]
+  const alphaLines = [...new Set(rows.map(({ r }) => r.alpha))]
     .map((al) => {
       const x = pX(a, al);
       const text = `α = ${al}`;
@@ -236,7 +278,7 @@ ${alphaLines}
   for (let k = 0; k < rows.length; k++) yield `${k > 0 ? '\n' : ''}${row(rows[k] as (typeof rows)[number], k)}`;
   yield `
 </svg>
-<p class="legend">Each row: the reported p above (circle: a value; triangle: a bound such as p &lt; .001; bar with triangle at the left end: a p printed as zero, or below ${decadeLabel(axis.min)}, drawn at the axis bound), and below it the p values t and df allow within rounding (light when the reported p lies among them; an arrow where they reach below the axis). Dashed line: alpha. Every p picture in this report uses this axis. Each row links to its result.</p>`;
+<p class="legend">Each row: the reported p above (circle: a value; triangle: a bound such as p &lt; .001; bar with triangle at the left end: a p printed as zero, or below ${decadeLabel(axis.min)}, drawn at the axis bound), and below it the p values the statistic and its df allow within rounding (light when the reported p lies among them; an arrow where they reach below the axis). Dashed line: alpha. Every p picture in this report uses this axis. Each row links to its result.</p>`;
 }
 
 // ---- pictures on a finding's own scale --------------------------------------------------------
@@ -425,7 +467,10 @@ export function findingPicture(f: Finding, result: ResultRecord | undefined, axi
   if (!g) return '';
   switch (g.kind) {
     case 'p':
-      return result && plottable(result) ? `<div class="picture">${pStrip(result, axis)}</div>` : '';
+      {
+        const row = result ? resultRow(result) : undefined;
+        return row ? `<div class="picture">${pStrip(row, axis)}</div>` : '';
+      }
     case 'interval':
       return `<div class="picture">${intervalPicture(g)}</div>`;
     case 'df':

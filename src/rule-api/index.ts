@@ -8,3 +8,4 @@ export { describeAttempt, evaluateDescriptives, inferDesign, spreadReadings, typ
 export { checklistRule, type ChecklistRuleSpec } from './checklist.js';
 export { descriptiveDoubts, linkDoubts } from './doubts.js';
 export { groupBy } from '../link/index.js';
+export { evaluateStatisticP, statisticName, statisticPFindings, statisticPlaceholders, type StatisticPEvaluation, type StatisticReading } from './statistic.js';

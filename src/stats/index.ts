@@ -8,3 +8,4 @@ export { ciHalfWidthFromT, pFromConfidenceInterval } from './confidenceInterval.
 export { grimmerPossible, grimPossible, percentPossible } from './granularity.js';
 export { requiredN, tTestPower, type PowerDesign } from './power.js';
 export { bonferroniAdjusted, sidakAdjusted } from './adjust.js';
+export { partialEtaSquaredFromF, partialEtaSquaredRange, tFromR, twoSidedPFromR, twoSidedPFromZ, twoSidedPRangeR, twoSidedPRangeZ, upperPFromChiSquare, upperPFromF, upperPRangeChiSquare, upperPRangeF } from './otherDistributions.js';

@@ -28,6 +28,25 @@ describe('invented manuscripts with a key written by scipy (fixtures/generated)'
     expect(r.flagged / r.correct).toBeLessThanOrEqual(0.005);
   });
 
+  // F, χ², r and z results with seeded errors (p mismatch, significance flip, an r's df against its n),
+  // each proved impossible in the generator by scipy over the printed rounding
+  it('has seeded errors of every F, χ², r and z type', () => {
+    expect(Object.keys(figures.statisticRecallByType).sort()).toEqual([
+      'F-p-mismatch', 'F-significance-flip', 'chi-square-p-mismatch', 'chi-square-significance-flip',
+      'r-df-vs-n', 'r-p-mismatch', 'r-significance-flip', 'z-p-mismatch', 'z-significance-flip',
+    ]);
+  });
+
+  it.each(Object.entries(figures.statisticRecallByType))('finds seeded %s errors in F, χ², r and z results in at least 95%% of cases', (_type, r) => {
+    expect(r.n).toBeGreaterThan(0);
+    expect(r.found / r.n).toBeGreaterThanOrEqual(0.95);
+  });
+
+  it.each(Object.entries(figures.statisticFalseAlarmsByKind))('warns about at most 0.5%% of correct %s results', (_kind, r) => {
+    expect(r.correct).toBeGreaterThan(0);
+    expect(r.flagged / r.correct).toBeLessThanOrEqual(0.005);
+  });
+
   it('warns about at most 0.5% of correct results in every report style with 100 cases or more, and about none in any smaller one', () => {
     const over = Object.entries(figures.falseAlarmsByReportStyle).filter(([, r]) => (r.correct >= 100 ? r.flagged / r.correct > 0.005 : r.flagged > 0));
     expect(over).toEqual([]);

@@ -35,6 +35,22 @@ describe('JSON report', () => {
     expect(wrong.recomputed.low).toBeGreaterThan(0.4);
     expect(wrong.gap.lastDigitUnits).toBeGreaterThan(30);
   });
+  it('lists F, χ², r and z results with their kind, printed values and spans, valid against the schema', () => {
+    // invented text; the p of F(1, 38) = 4.21 is .0470 to .0472 (scipy.stats.f.sf), of z = 3.10 two-tailed .0019 (scipy.stats.norm.sf)
+    const text = 'Groups differed, F(1, 38) = 4.21, p = .047, ηp2 = .10, and χ²(2, N = 120) = 6.1, p = .047; the scores correlated, r(48) = .32, p = .02; the indirect effect held, z = 3.10, p = .02.\n';
+    const data = JSON.parse(formatJson({ tool: { name: 'plumbline', version: '0.0.0-test' }, files: [checkSource('s.md', text)], failures: [], rules: [] }));
+    expect(validate(data), JSON.stringify(validate.errors, null, 1)).toBe(true);
+    const stats = data.files[0].statistics as Array<{ kind: string; printed: string; span: { start: number; end: number }; value: { printed: string; span: { start: number; end: number } }; dfs?: Array<{ printed: string }>; p?: { printed: string }; recomputed?: { fits: boolean } }>;
+    expect(stats.map((s) => s.kind)).toEqual(['F', 'chi-square', 'r', 'z']);
+    for (const s of stats) {
+      // printed is the text as read (χ² folded to χ^2, as for t results); the span is the source's
+      expect(text.slice(s.span.start, s.span.end).replace('χ²', 'χ^2')).toBe(s.printed);
+      expect(text.slice(s.value.span.start, s.value.span.end)).toBe(s.value.printed);
+    }
+    expect(stats[0]?.dfs?.map((d) => d.printed)).toEqual(['1', '38']);
+    expect(stats.map((s) => s.recomputed?.fits)).toEqual([true, true, true, false]);
+    expect(data.files[0].findings.find((f: { ruleId: string }) => f.ruleId === 'p-follows-from-z').resultId).toBe(data.files[0].statistics[3].id);
+  });
   it('is byte-identical for the same input', () => {
     expect(formatJson(run())).toBe(formatJson(run()));
   });

@@ -68,3 +68,16 @@ describe('the HTML report', () => {
     expect(html).toMatch(/<mark class="flag lvl-error" data-finding="\d+"><a href="#f0-card-\d+"[^>]*><span class="result">t\(23\) = 2\.47, p = \.21/);
   });
 });
+
+describe('the overview draws every p in reading order, whatever its test', () => {
+  it('t, F, χ², r and z rows in the order they are printed, each with its reported p and recomputed range', () => {
+    // invented text; each p follows from its statistic (scipy.stats t.sf, f.sf, chi2.sf, norm.sf)
+    const text = 'Groups differed, F(1, 38) = 4.21, p = .047. Recall improved, t(28) = 2.10, p = .045. The scores correlated, r(48) = .32, p = .02, and the indirect effect held, z = 2.31, p = .021; choices differed, χ²(2, N = 120) = 6.1, p = .047.\n';
+    const html = formatHtml(runOf('o.md', text, false));
+    const overview = /<svg class="forest"[\s\S]*?<\/svg>/.exec(html)?.[0] ?? '';
+    const labels = [...overview.matchAll(/<text class="rowlabel"[^>]*>([^<]*)<\/text>/g)].map((m) => (m[1] as string).replace(/^L\d+ /, '').slice(0, 1));
+    expect(labels).toEqual(['F', 't', 'r', 'z', 'χ']);
+    expect(overview.match(/class="reported"/g)?.length).toBe(5);
+    expect(overview).toContain('recomputed p (upper tail of F)');
+  });
+});
