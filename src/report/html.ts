@@ -10,6 +10,7 @@
 import type { FileReport, Finding, ResultRecord } from '../engine/types.js';
 import { guidelineRefs, isChecklistFinding, missingWhere, summariseChecklist, type ItemSummary, type MissingPlace } from './checklistSummary.js';
 import type { Level } from '../rule-api/types.js';
+import { showLastDigitUnits } from '../rule-api/format.js';
 import { escapeHtml, shortNumber as fmt } from './escape.js';
 import { findingPicture, pAxisFor, pOverviewChunks, pRowsOf, pStrip, resultRow, STRIP_WIDTH, type PAxis } from './pictures.js';
 import { CAUTIONS, countRun, type RunReport } from './types.js';
@@ -284,7 +285,7 @@ function card(file: FileReport, index: number, f: Finding, n: number, pAxis: PAx
     const g = f.gap;
     // each amount in the same unit as the one it is set against: the value's own, then the last
     // printed digit's (rounding allows half a unit, roundingAllowance)
-    const digits = g.lastDigitUnits !== undefined ? ` (${g.lastDigitUnits.toFixed(1)} units of the last printed digit)` : '';
+    const digits = g.lastDigitUnits !== undefined ? ` (${showLastDigitUnits(g.lastDigitUnits)} units of the last printed digit)` : '';
     const allowance = g.roundingAllowance !== undefined ? `; rounding allows ${fmt(g.roundingAllowance)}${g.lastDigitUnits !== undefined ? ' (0.5 units)' : ''}` : '';
     rows.push(`<dt>Difference</dt><dd>${fmt(g.absolute)}${digits}${allowance}</dd>`);
   }

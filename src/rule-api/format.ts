@@ -13,6 +13,17 @@ export function showNumber(x: number): string {
 }
 
 /**
+ * A gap in units of the last printed digit, set beside the half unit that rounding allows: one
+ * decimal, or as many more as it takes (up to four) for a gap over the half unit not to read as
+ * "0.5" beside "rounding allows 0.5 units".
+ */
+export function showLastDigitUnits(units: number): string {
+  let decimals = 1;
+  while (decimals < 4 && units > 0.5 && Number(units.toFixed(decimals)) <= 0.5) decimals += 1;
+  return units.toFixed(decimals);
+}
+
+/**
  * A bound of a printed number's rounding interval, with one digit more than was printed
  * (t = 5.0000 is read as 4.99995 to 5.00005), so the bound shown is the bound used.
  */

@@ -1,5 +1,5 @@
 export type * from './types.js';
-export { fill, showBound, showInterval, showNumber } from './format.js';
+export { fill, showBound, showInterval, showLastDigitUnits, showNumber } from './format.js';
 export { NO_OPTIONS } from './types.js';
 export { describeDf, describeT, dfInterval, isWholeDf, numberInterval, pInterval, pLastDigit, tInterval } from './intervals.js';
 export { describeTails, evaluateP, showRange, type PEvaluation, type PStanding } from './evaluate.js';

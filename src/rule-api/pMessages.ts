@@ -2,14 +2,14 @@ import type { LinkedResult } from '../link/types.js';
 import type { PEvaluation } from './evaluate.js';
 import { showRange } from './evaluate.js';
 import { distanceBetween } from '../stats/index.js';
-import { showLog10Interval, showNumber } from './format.js';
+import { showLastDigitUnits, showLog10Interval, showNumber } from './format.js';
 
 /** Placeholder values shared by the rules that compare p with t and df. */
 export function pPlaceholders(result: LinkedResult, e: PEvaluation): Record<string, string> {
   const r = result.report;
   const gap = e.gap.lastDigitUnits !== undefined
     ? // both counts in the same unit, the last printed digit (half a unit is what rounding explains)
-      `${showNumber(e.gap.absolute)} (${e.gap.lastDigitUnits.toFixed(1)} units of the last printed digit; rounding allows 0.5 units)`
+      `${showNumber(e.gap.absolute)} (${showLastDigitUnits(e.gap.lastDigitUnits)} units of the last printed digit; rounding allows 0.5 units)`
     : e.log10
       ? // compared as log10 p: a distance between such p values is a ratio, not a difference
         `a factor of 10^${logDistance(e.log10.applicable, e.log10.reported).toFixed(1)}`

@@ -3,7 +3,7 @@ import type { LinkedStatistic } from '../link/types.js';
 import {
   distanceBetween, meets, sideOfAlpha, twoSidedPRangeR, twoSidedPRangeZ, upperPRangeChiSquare, upperPRangeF, type Interval, type PInterval,
 } from '../stats/index.js';
-import { fill, showBound, showInterval, showNumber } from './format.js';
+import { fill, showBound, showInterval, showLastDigitUnits, showNumber } from './format.js';
 import { dfInterval, numberInterval, pInterval, pLastDigit } from './intervals.js';
 import type { Gap, Recomputed, RuleFinding } from './types.js';
 
@@ -155,7 +155,7 @@ export function evaluateStatisticP(linked: LinkedStatistic): StatisticPEvaluatio
 /** Message placeholders shared by the rules that compare a p with its F, χ², r or z. */
 export function statisticPlaceholders(linked: LinkedStatistic, e: StatisticPEvaluation): Record<string, string> {
   const gap = e.gap.lastDigitUnits !== undefined
-    ? `${showNumber(e.gap.absolute)} (${e.gap.lastDigitUnits.toFixed(1)} units of the last printed digit; rounding allows 0.5 units)`
+    ? `${showNumber(e.gap.absolute)} (${showLastDigitUnits(e.gap.lastDigitUnits)} units of the last printed digit; rounding allows 0.5 units)`
     : showNumber(e.gap.absolute);
   return {
     reported: linked.report.p?.printed.trim() ?? '',

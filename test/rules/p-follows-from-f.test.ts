@@ -1,3 +1,6 @@
+import { describe, expect, it } from 'vitest';
+import { checkSource } from '../../src/engine/index.js';
+import { showLastDigitUnits } from '../../src/rule-api/format.js';
 import { ruleTable } from './table.js';
 
 // Recomputed p values quoted in names were computed with scipy.stats.f.sf (Debian python3-scipy).
@@ -19,3 +22,20 @@ ruleTable('p-follows-from-f', [
   { name: 'a t in the same sentence keeps its own p', markdown: 'x, t(38) = 2.05, p = .047, and F(1, 38) = 4.21, p = .047.', expect: [] },
   { name: 'quieted with a reason', markdown: '<!-- plumbline quiet p-follows-from-f: permutation p -->\nx, F(1, 38) = 4.21, p = .03.', expect: [] },
 ]);
+
+describe('a gap just over half a unit reads as more than the half unit rounding allows', () => {
+  // F(2, 28) = 0.001 is read as 0.0005 to 0.0015; scipy.stats.f.sf(0.0015, 2, 28) = 0.9985012
+  // (Debian python3-scipy), so .998 misses by 0.5012 units of its last digit, not by "0.5".
+  it('shows the units with the digits that tell them apart', () => {
+    const report = checkSource('gap.md', 'x, F(2, 28) = 0.001, p = .998.');
+    const finding = report.findings.find((f) => f.ruleId === 'p-follows-from-f');
+    expect(finding?.message).toContain('(0.501 units of the last printed digit; rounding allows 0.5 units)');
+  });
+  it('keeps one decimal where one is enough', () => {
+    expect(showLastDigitUnits(0.6)).toBe('0.6');
+    expect(showLastDigitUnits(0.5)).toBe('0.5');
+    expect(showLastDigitUnits(0.50012)).toBe('0.5001');
+    expect(showLastDigitUnits(0.500001)).toBe('0.5000');
+    expect(showLastDigitUnits(12.34)).toBe('12.3');
+  });
+});
