@@ -36,6 +36,11 @@ export function stem(word: string): string {
 }
 
 const WORD = /\p{L}[\p{L}'’-]{0,40}/gu;
+/**
+ * WORD's twin for LeadReader, which moves its lastIndex: matchAll (in topicWords) starts from the
+ * lastIndex of the expression it is given, so the two must not share one.
+ */
+const LEAD_WORD = new RegExp(WORD.source, WORD.flags);
 
 /** The content words of a text (three letters or more, not reporting words), lower case, each once. */
 export function topicWords(text: string): string[] {
@@ -87,7 +92,7 @@ export function leadStart(text: string, sentenceStart: number, at: number): numb
  * it cut), the answer is computed by those functions directly.
  */
 export class LeadReader {
-  private readonly words = new RegExp(WORD.source, WORD.flags);
+  private readonly words = LEAD_WORD;
   private sentence: { start: number; end: number; boundaries: Array<{ index: number; end: number; top: boolean }> } | undefined;
   private lead: { start: number; at: number; scanned: number; seen: Set<string>; list: string[] } | undefined;
 
