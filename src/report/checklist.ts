@@ -3,6 +3,7 @@ import { GUIDELINE_NAMES, guidelineRefs, missingWhere, resultHeading, summariseC
 import { CAUTIONS, type RunReport } from './types.js';
 import { terminalLine } from './text.js';
 import { joined, wholeText } from './chunks.js';
+import { resultCount, resultsInReadingOrder } from './readingOrder.js';
 
 const CONSISTENCY_RULES = new Set(['sample-size-agrees-with-df', 'group-sizes-sum-to-total', 'repeated-result-agrees']);
 const STATUS = { found: 'found', missing: '**missing**', 'not-applicable': 'not applicable' } as const;
@@ -52,12 +53,14 @@ function* checklistLines(run: RunReport): Generator<string> {
 
 function fileSection(file: FileReport): string[] {
   const out = [`# Reporting checklist: ${cell(file.path)}`, ''];
-  out.push(`Items follow ${file.guidelines.map((g) => GUIDELINE_NAMES[g] ?? g).join(', ')}. ${file.results.length} t-test result${file.results.length === 1 ? '' : 's'} found.`, '');
+  const others = file.statistics?.length ?? 0;
+  const found = `${file.results.length} t-test result${file.results.length === 1 ? '' : 's'}${others > 0 ? ` and ${others} F, χ², r or z result${others === 1 ? '' : 's'}` : ''} found.`;
+  out.push(`Items follow ${file.guidelines.map((g) => GUIDELINE_NAMES[g] ?? g).join(', ')}. ${found}`, '');
   const items = summariseChecklist(file);
   out.push('## The document', '', '| Item | Guideline | Status | Where | Detail |', '| --- | --- | --- | --- | --- |');
   for (const s of items) if (s.scope === 'document') out.push(`| ${cell(s.record.item)} | ${refs(s)} | ${STATUS[s.status]} | ${s.line !== undefined ? `line ${s.line}` : ''} | ${cell(s.detail)} |`);
   out.push('');
-  if (file.results.length > 0) {
+  if (resultCount(file) > 0) {
     out.push('## Each result', '', '| Item | Guideline | Met | Missing for |', '| --- | --- | --- | --- |');
     for (const s of items) {
       if (s.scope !== 'result') continue;
@@ -65,7 +68,7 @@ function fileSection(file: FileReport): string[] {
       out.push(`| ${cell(s.record.item)} | ${refs(s)} | ${met} | ${cell(missingWhere(s))} |`);
     }
     out.push('', '### Results read', '');
-    file.results.forEach((r, i) => out.push(`${i + 1}. ${cell(resultHeading(r))}`));
+    resultsInReadingOrder(file).forEach((r, i) => out.push(`${i + 1}. ${cell(resultHeading(r.record))}`));
     out.push('');
   }
   const consistency = file.findings.filter((f) => CONSISTENCY_RULES.has(f.ruleId));

@@ -1,4 +1,4 @@
-import type { ChecklistRecord, FileReport, Finding, ResultRecord } from '../engine/types.js';
+import type { ChecklistRecord, FileReport, Finding, Place, ResultRecord } from '../engine/types.js';
 import type { Level } from '../rule-api/types.js';
 
 /**
@@ -46,9 +46,19 @@ export interface ResultItem {
 
 export type ItemSummary = DocumentItem | ResultItem;
 
+/** A result as the checklist names it: a t result, or an F, χ², r or z (which has no table). */
+type Named = Place & { id: string; printed: string; table?: ResultRecord['table'] };
+
+/** The file's results, t and others, by id. */
+function resultsById(file: FileReport): Map<string, Named> {
+  const byId = new Map<string, Named>(file.results.map((r) => [r.id, r]));
+  for (const s of file.statistics ?? []) byId.set(s.id, s);
+  return byId;
+}
+
 /** Each checklist item of a file, document items first, in the order the rules run. */
 export function summariseChecklist(file: FileReport): ItemSummary[] {
-  const byId = new Map(file.results.map((r) => [r.id, r]));
+  const byId = resultsById(file);
   const out: ItemSummary[] = [];
   for (const record of file.checklist) {
     const doc = record.entries.find((e) => e.scope === 'document');
@@ -64,15 +74,16 @@ export function summariseChecklist(file: FileReport): ItemSummary[] {
   return [...out.filter((s) => s.scope === 'document'), ...out.filter((s) => s.scope === 'result')];
 }
 
-function placeOf(r: ResultRecord | undefined, fallbackLine: number | undefined): MissingPlace & { result?: ResultRecord } {
+function placeOf(r: Named | undefined, fallbackLine: number | undefined): MissingPlace & { result?: Named } {
   const line = r?.start.line ?? fallbackLine ?? 0;
   return { line, ...(r?.table ? { table: r.table } : {}), ...(r ? { result: r } : {}) };
 }
 
 /** Names the result where its line also holds results the item does not miss. */
-function pinpoint(file: FileReport, places: Array<MissingPlace & { result?: ResultRecord }>): MissingPlace[] {
+function pinpoint(file: FileReport, places: Array<MissingPlace & { result?: Named }>): MissingPlace[] {
   const onLine = new Map<number, number>();
   for (const r of file.results) if (!r.table) onLine.set(r.start.line, (onLine.get(r.start.line) ?? 0) + 1);
+  for (const s of file.statistics ?? []) onLine.set(s.start.line, (onLine.get(s.start.line) ?? 0) + 1);
   const missingOn = new Map<number, number>();
   for (const p of places) if (!p.table) missingOn.set(p.line, (missingOn.get(p.line) ?? 0) + 1);
   return places.map(({ result, ...p }) => (!p.table && result && (missingOn.get(p.line) ?? 0) < (onLine.get(p.line) ?? 0) ? { ...p, printed: result.printed } : p));
@@ -123,7 +134,7 @@ export function missingText(s: { missing: number; applicable: number; places: re
 }
 
 /** A result as a reader finds it: `Table 2, row 'Fatigue': t(23) = 2.20, p = .38`, or `line 19: t(23) = 2.47, p = .021`. */
-export function resultHeading(r: ResultRecord): string {
+export function resultHeading(r: Pick<Named, 'start' | 'printed' | 'table'>): string {
   if (r.table) return `${r.table.name}, ${r.table.row ? `row '${r.table.row}'` : `line ${r.start.line}`}: ${r.printed}`;
   return `line ${r.start.line}: ${r.printed}`;
 }
@@ -182,7 +193,7 @@ export interface ChecklistFindingLine {
 
 /** One line per checklist item with findings (quiet comments and levels applied), in rule order. */
 export function checklistFindingLines(file: FileReport): ChecklistFindingLine[] {
-  const byId = new Map(file.results.map((r) => [r.id, r]));
+  const byId = resultsById(file);
   const out: ChecklistFindingLine[] = [];
   const byRule = new Map<string, Finding[]>();
   for (const f of file.findings) {

@@ -1,4 +1,5 @@
-import { NO_OPTIONS, type ChecklistItem, type Rule, type RuleFinding } from './types.js';
+import type { LinkedDocument, LinkedResult, LinkedStatistic } from '../link/types.js';
+import { NO_OPTIONS, type ChecklistEntry, type ChecklistItem, type Rule, type RuleFinding } from './types.js';
 
 export interface ChecklistRuleSpec extends ChecklistItem {
   id: string;
@@ -50,4 +51,39 @@ export function checklistRule(spec: ChecklistRuleSpec): Rule {
       return out;
     },
   };
+}
+
+/**
+ * A per-result item's entries over the t-tests and the F, χ², r and z results together, in
+ * reading order (by where each result starts). `forStatistic` returns nothing for a kind the
+ * item does not speak of.
+ */
+export function resultEntries(
+  document: LinkedDocument,
+  forResult: (result: LinkedResult) => ChecklistEntry,
+  forStatistic: (statistic: LinkedStatistic) => ChecklistEntry | undefined,
+): ChecklistEntry[] {
+  const out: ChecklistEntry[] = [];
+  const results = document.results;
+  const statistics = document.statistics;
+  let i = 0;
+  let j = 0;
+  while (i < results.length || j < statistics.length) {
+    const r = results[i];
+    const s = statistics[j];
+    if (r && (!s || r.report.span.start <= s.report.span.start)) {
+      out.push(forResult(r));
+      i += 1;
+    } else if (s) {
+      const e = forStatistic(s);
+      if (e) out.push(e);
+      j += 1;
+    }
+  }
+  return out;
+}
+
+/** The scope, id and block every per-result entry of an F, χ², r or z result carries. */
+export function statisticBase(statistic: LinkedStatistic): { scope: 'result'; resultId: string; block: number } {
+  return { scope: 'result', resultId: statistic.id, block: statistic.report.block };
 }

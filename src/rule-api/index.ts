@@ -5,7 +5,7 @@ export { describeDf, describeT, dfInterval, isWholeDf, numberInterval, pInterval
 export { describeTails, evaluateP, showRange, type PEvaluation, type PStanding } from './evaluate.js';
 export { pMessageId, pPlaceholders } from './pMessages.js';
 export { describeAttempt, evaluateDescriptives, inferDesign, spreadReadings, type Attempt, type DescriptiveEvaluation, type Reading, type Variant } from './descriptives.js';
-export { checklistRule, type ChecklistRuleSpec } from './checklist.js';
+export { checklistRule, resultEntries, statisticBase, type ChecklistRuleSpec } from './checklist.js';
 export { descriptiveDoubts, linkDoubts } from './doubts.js';
 export { groupBy } from '../link/index.js';
 export { evaluateStatisticP, statisticName, statisticPFindings, statisticPlaceholders, type StatisticPEvaluation, type StatisticReading } from './statistic.js';

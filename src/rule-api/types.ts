@@ -1,4 +1,4 @@
-import type { LinkedDocument, LinkedResult } from '../link/types.js';
+import type { LinkedDocument, LinkedResult, LinkedStatistic } from '../link/types.js';
 import type { Span } from '../parse/types.js';
 
 export type Level = 'error' | 'warning' | 'note';
@@ -188,7 +188,7 @@ export interface Rule<Options extends object = Record<string, never>> {
 // eslint-style escape hatch kept internal: the registry treats options as opaque data.
 export type AnyRule = Rule<object>;
 
-export type { LinkedResult };
+export type { LinkedDocument, LinkedResult, LinkedStatistic, Span };
 /** Extracted records rules read through the linked document. */
 export type { AdjustMethod, ContextStatement, EffectSizeReport, GroupSummary, IntegerStatement, ReportedNumber, ReportedP, SampleSize } from '../extract/types.js';
 

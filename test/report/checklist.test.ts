@@ -96,3 +96,49 @@ describe('the checklist in the JSON output', () => {
     expect(data.files[0].checklist.length).toBeGreaterThan(10);
   });
 });
+
+describe('the per-result items read F, χ², r and z results too, in reading order with the t-tests (invented manuscripts)', () => {
+  const entries = (text: string, ruleId: string) =>
+    checkSource('s.md', text, { checklist: true }).checklist.find((c) => c.ruleId === ruleId)?.entries.map((e) => `${e.status} ${e.detail}`);
+  // each p below follows from its statistic over the printed rounding (scipy.stats f.sf, chi2.sf, norm.sf, t.sf)
+  const text = 'Recall improved, t(28) = 2.10, p = .045. Mood differed across the rooms, F(2, 57) = 4.31, p < .05; '
+    + 'choice of seat depended on the hour, χ²(2, N = 120) = 7.10, n.s.; sleep tracked mood, r = .32, p = .023; the ratings rose, z = 2.10, p = .036.\n';
+
+  it('an exact p: missing where a bound above .001 or n.s. is printed, found for p = x', () => {
+    expect(entries(text, 'p-is-exact')).toEqual(['found p = .045', 'missing p < .05', 'missing "n.s."', 'found p = .023', 'found p = .036']);
+  });
+  it("the statistic with its df: both of an F's, a χ²'s; an r without df or n is missing; a z has none", () => {
+    expect(entries(text, 'statistic-has-df')).toEqual([
+      'found df = 28',
+      'found df = 2, 57',
+      'found df = 2',
+      'missing r = .32, p = .023 without its degrees of freedom or n',
+      'not-applicable z has no degrees of freedom',
+    ]);
+  });
+  it('an F without any df, and an r without df or n, are missing', () => {
+    expect(entries('Mood differed, F = 4.31, p = .018, and sleep tracked mood, r = .32, p = .023.', 'statistic-has-df')).toEqual([
+      'missing F = 4.31, p = .018 without its two degrees of freedom',
+      'missing r = .32, p = .023 without its degrees of freedom or n',
+    ]);
+    expect(entries('Sleep tracked mood, r = .32, n = 50, p = .023.', 'statistic-has-df')).toEqual(['found n = 50 (df = n − 2)']);
+  });
+  it('an effect size with its CI: an F or χ² only, an F without one missing, a χ² without one read not applicable (φ is not read)', () => {
+    expect(entries(text, 'effect-size-with-ci')).toEqual([
+      'missing t(28) = 2.10, p = .045 without an effect size or a confidence interval',
+      'missing F(2, 57) = 4.31, p < .05 without an effect size or a confidence interval',
+      'not-applicable no effect size read beside the χ² (φ is not read)',
+    ]);
+    expect(entries('Mood differed across the rooms, F(2, 57) = 4.31, p = .018, ηp2 = .13, 90% CI [.01, .26].', 'effect-size-with-ci')).toEqual(['found ηp2 = .13, 90% CI [.01, .26]']);
+    expect(entries('Mood differed across the rooms, F(2, 57) = 4.31, p = .018, ηp2 = .13.', 'effect-size-with-ci')).toEqual(['missing F(2, 57) = 4.31, p = .018 with ηp2 = .13 but without a confidence interval']);
+    expect(entries('Choice of seat depended on the hour, χ²(1, N = 120) = 5.10, p = .024, V = .21, 95% CI [.05, .37].', 'effect-size-with-ci')).toEqual(['found V = .21, 95% CI [.05, .37]']);
+  });
+  it('the Markdown checklist counts them, names their lines and lists them among the results read', () => {
+    const report = checkSource('s.md', text, { checklist: true });
+    const md = formatChecklist({ tool: { name: 'plumbline', version: '0.0.0-test' }, files: [report], failures: [], rules: [] });
+    expect(md).toContain('1 t-test result and 4 F, χ², r or z results found.');
+    expect(md).toMatch(/\| An exact p is given \(p < \.001 allowed\) \| .* \| 3 of 5 \| line 1 \(F\(2, 57\) = 4\.31, p < \.05; χ\^2\(2, N = 120\) = 7\.10, n\.s\.\) \|/);
+    expect(md).toContain('2. line 1: F(2, 57) = 4.31, p < .05');
+    expect(md).toContain('5. line 1: z = 2.10, p = .036');
+  });
+});
