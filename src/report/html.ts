@@ -7,12 +7,13 @@
  * Layout only: the pictures (pictures.ts) turn numbers the report carries into positions; every
  * statistic shown comes from the report.
  */
-import type { FileReport, Finding, ResultRecord } from '../engine/types.js';
+import type { FileReport, Finding } from '../engine/types.js';
 import { guidelineRefs, isChecklistFinding, missingWhere, summariseChecklist, type ItemSummary, type MissingPlace } from './checklistSummary.js';
 import type { Level } from '../rule-api/types.js';
 import { showLastDigitUnits } from '../rule-api/format.js';
 import { escapeHtml, shortNumber as fmt } from './escape.js';
-import { findingPicture, pAxisFor, pOverviewChunks, pRowsOf, pStrip, resultRow, STRIP_WIDTH, type PAxis } from './pictures.js';
+import { findingPicture, pAxisFor, pOverviewChunks, pRowsOf, pStrip, resultRow, statisticRow, STRIP_WIDTH, type PAxis } from './pictures.js';
+import { resultCount, resultsInReadingOrder, type AnyResult } from './readingOrder.js';
 import { CAUTIONS, countRun, type RunReport } from './types.js';
 import { joined, wholeText } from './chunks.js';
 
@@ -191,16 +192,24 @@ export function* fileSectionChunks(file: FileReport, index: number, pAxis: PAxis
   yield* joined([
     `<section class="file" id="${anchor(index, 'file', 0)}">`,
     `<h2>${escapeHtml(file.path)}</h2>`,
-    `<p>${file.results.length} result${file.results.length === 1 ? '' : 's'} found, ${ordered.length} finding${ordered.length === 1 ? '' : 's'}${summarised > 0 ? ` (and ${summarised} checklist entr${summarised === 1 ? 'y' : 'ies'}, summarised in the checklist below)` : ''}. Alpha ${escapeHtml(String(file.alpha.value))}, ${escapeHtml(file.sidedness.value)}-tailed where the text says nothing.</p>`,
+    `<p>${foundText(file)}, ${ordered.length} finding${ordered.length === 1 ? '' : 's'}${summarised > 0 ? ` (and ${summarised} checklist entr${summarised === 1 ? 'y' : 'ies'}, summarised in the checklist below)` : ''}. Alpha ${escapeHtml(String(file.alpha.value))}, ${escapeHtml(file.sidedness.value)}-tailed where the text says nothing.</p>`,
     pRowsOf(file.results, file.statistics).length > 0 ? joined(['<h3>All tests in reading order</h3>', forestPlot(file, index, pAxis, byResult)], '') : '',
     '<div class="layout">',
     joined(['<div><h3>Manuscript</h3>', manuscriptHtml(file, index, ordered), '</div>'], ''),
     joined(['<div><h3>Findings</h3><div class="cards">', ordered.length === 0 ? '<p>No findings.</p>' : joined(mapped(ordered, (f, n) => card(file, index, f, n, pAxis)), '\n'), '</div></div>'], ''),
     '</div>',
-    file.results.length > 0 ? joined(['<h3>Results</h3><ol class="results-list">', mapped(file.results, (r, n) => resultItem(index, r, n, pAxis, byResult.get(r.id) ?? [])), '</ol>'], '') : '',
+    resultCount(file) > 0 ? joined(['<h3>Results</h3><ol class="results-list">', mapped(resultsInReadingOrder(file), (r) => resultItem(index, r, pAxis, byResult.get(r.record.id) ?? [])), '</ol>'], '') : '',
     file.checklist.length > 0 ? `<h3>Reporting checklist</h3>${checklistTable(file, index)}` : '',
     '</section>',
   ], '\n');
+}
+
+/** "3 results found", or, with F, χ², r or z results, "2 t-test results and 1 F, χ², r or z result found". */
+function foundText(file: FileReport): string {
+  const t = file.results.length;
+  const others = file.statistics?.length ?? 0;
+  if (others === 0) return `${t} result${t === 1 ? '' : 's'} found`;
+  return `${t} t-test result${t === 1 ? '' : 's'} and ${others} F, χ², r or z result${others === 1 ? '' : 's'} found`;
 }
 
 /** Each item made into its text when it is reached, not all at once. */
@@ -300,11 +309,17 @@ function card(file: FileReport, index: number, f: Finding, n: number, pAxis: PAx
 </details>`;
 }
 
-function resultItem(index: number, r: ResultRecord, n: number, pAxis: PAxis, flagged: Finding[]): string {
+/** A results-list entry's anchor: `r` and the place in the t results, `s` and the place in the F, χ², r and z results. */
+const resultAnchor = (index: number, source: 'result' | 'statistic', n: number) => anchor(index, source === 'result' ? 'r' : 's', n);
+
+/** One entry of the results list, a t-test or an F, χ², r or z: its line, its text, its status and its p strip. */
+function resultItem(index: number, item: AnyResult, pAxis: PAxis, flagged: Finding[]): string {
+  const r = item.record;
   const worst = worstLevel(flagged);
   const status = worst ? `<span class="lvl-${worst}"><span class="sym">${SEVERITY[worst].symbol}</span> ${flagged.length} finding${flagged.length === 1 ? '' : 's'}</span>` : r.recomputed ? 'no finding' : 'not recomputed';
+  const row = item.kind === 't' ? resultRow(item.record) : statisticRow(item.record);
   // the strip in a column of its own, so strips line up down the list on the shared axis
-  return `<li id="${anchor(index, 'r', n)}"><div class="rrow"><span><a href="#${anchor(index, 'L', r.start.line)}">line ${r.start.line}</a>: <code>${escapeHtml(r.printed)}</code> — ${status}</span><span class="pic">${pictureOf(r, pAxis)}</span></div></li>`;
+  return `<li id="${resultAnchor(index, item.kind === 't' ? 'result' : 'statistic', item.n)}"><div class="rrow"><span><a href="#${anchor(index, 'L', r.start.line)}">line ${r.start.line}</a>: <code>${escapeHtml(r.printed)}</code> — ${status}</span><span class="pic">${row ? pStrip(row, pAxis) : ''}</span></div></li>`;
 }
 
 function worstLevel(findings: Finding[]): Level | undefined {
@@ -334,7 +349,7 @@ function checklistTable(file: FileReport, index: number): string {
   const head = (second: string, third: string) => `<thead><tr><th>Item</th><th>${second}</th><th>${third}</th><th>Guideline</th></tr></thead>`;
   return [
     `<p><strong>The document</strong></p><table class="checklist">${head('Status', 'Detail')}<tbody>${doc.join('')}</tbody></table>`,
-    perResult.length > 0 && file.results.length > 0 ? `<p><strong>Each result</strong></p><table class="checklist">${head('Met', 'Missing for')}<tbody>${perResult.join('')}</tbody></table>` : '',
+    perResult.length > 0 && resultCount(file) > 0 ? `<p><strong>Each result</strong></p><table class="checklist">${head('Met', 'Missing for')}<tbody>${perResult.join('')}</tbody></table>` : '',
   ].join('');
 }
 
@@ -356,8 +371,8 @@ function forestPlot(file: FileReport, index: number, pAxis: PAxis, byResult: Map
   return pOverviewChunks(
     pRowsOf(file.results, statistics),
     pAxis,
-    // a t result links to its entry in the results list; an F, χ², r or z to its line
-    (item) => (item.source === 'result' ? anchor(index, 'r', item.n) : anchor(index, 'L', item.row.line)),
+    // each row links to its entry in the results list
+    (item) => resultAnchor(index, item.source, item.n),
     (item) => {
       const id = item.source === 'result' ? file.results[item.n]?.id : statistics[item.n]?.id;
       const worst = worstLevel(id === undefined ? [] : byResult.get(id) ?? []);
@@ -366,7 +381,3 @@ function forestPlot(file: FileReport, index: number, pAxis: PAxis, byResult: Map
   );
 }
 
-function pictureOf(r: ResultRecord, pAxis: PAxis): string {
-  const row = resultRow(r);
-  return row ? pStrip(row, pAxis) : '';
-}

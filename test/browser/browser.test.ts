@@ -88,7 +88,8 @@ describe.skipIf(!available)('in chromium', () => {
     const c = await counts(w.page);
     expect(c.cards).toBe(expected.findings.length);
     expect(c.highlights).toBe(expected.findings.length);
-    expect(c.results).toBe(expected.results.length);
+    // the results list holds the t results and the F, χ², r and z results
+    expect(c.results).toBe(expected.results.length + (expected.statistics?.length ?? 0));
     expect(c.forestRows).toBe(expected.results.filter((r) => r.recomputed && r.p?.number).length);
     expect(c.forestRows).toBeGreaterThan(5);
     // the cautions are in the report
@@ -178,7 +179,7 @@ describe.skipIf(!available)('in chromium', () => {
     await w.page.waitForFunction((n) => document.querySelectorAll('details.card').length === n, plain.findings.length, { timeout: 10_000 });
     let c = await counts(w.page);
     expect(c.highlights).toBe(plain.findings.length);
-    expect(c.results).toBe(plain.results.length);
+    expect(c.results).toBe(plain.results.length + (plain.statistics?.length ?? 0));
     expect(await w.page.textContent('#status')).toContain(`${plain.results.length} results found`);
 
     // the checklist and alpha options change the findings as they would on the command line

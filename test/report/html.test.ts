@@ -81,3 +81,34 @@ describe('the overview draws every p in reading order, whatever its test', () =>
     expect(overview).toContain('recomputed p (upper tail of F)');
   });
 });
+
+describe('the results list holds every result, whatever its test, in reading order', () => {
+  // invented text; the p of F(1, 38) = 4.21 is .0470 to .0472 (scipy.stats.f.sf), of t(28) = 2.10 .0444 to .0453
+  // (scipy.stats.t.sf), of χ²(2) = 6.1 .0462 to .0486 (scipy.stats.chi2.sf), of r(48) = .32 .0213 to .0259 two-tailed
+  // (scipy.stats.t.sf with t = r√(df/(1 − r²))); z = 3.10 gives two-tailed .0019 (scipy.stats.norm.sf), so p = .02 is flagged
+  const text = 'Groups differed, F(1, 38) = 4.21, p = .047. Recall improved, t(28) = 2.10, p = .045. The scores correlated, r(48) = .32, p = .02, and the indirect effect held, z = 3.10, p = .02; choices differed, χ²(2, N = 120) = 6.1, p = .047.\n';
+  const html = formatHtml(runOf('o.md', text, false));
+  const list = /<ol class="results-list">([\s\S]*?)<\/ol>/.exec(html)?.[1] ?? '';
+  const items = [...list.matchAll(/<li id="([^"]+)">([\s\S]*?)<\/li>/g)];
+
+  it('one entry per result, t, F, χ², r and z, in the order they are printed, each with its status and p strip', () => {
+    const printed = items.map((m) => /<code>([^<]*)<\/code>/.exec(m[2] as string)?.[1]?.slice(0, 1));
+    expect(printed).toEqual(['F', 't', 'r', 'z', 'χ']);
+    expect(items.map((m) => m[1])).toEqual(['f0-s-0', 'f0-r-0', 'f0-s-1', 'f0-s-2', 'f0-s-3']);
+    for (const m of items) expect(m[2]).toMatch(/<svg class="pstrip"/);
+    // the z's p is flagged (p-follows-from-z); its entry counts its finding, the others have none
+    items.forEach((m, i) => {
+      if (i === 3) expect(m[2]).toMatch(/ — <span class="lvl-(?:error|warning)"><span class="sym">[^<]*<\/span> 1 finding<\/span>/);
+      else expect(m[2]).toContain(' — no finding');
+    });
+    expect(html).toContain('1 t-test result and 4 F, χ², r or z results found');
+  });
+
+  it('the overview links each row to its entry in the list, and every link lands on an element of the page', () => {
+    const overview = /<svg class="forest"[\s\S]*?<\/svg>/.exec(html)?.[0] ?? '';
+    const targets = [...overview.matchAll(/href="#([^"]+)"/g)].map((m) => m[1]);
+    expect(targets).toEqual(['f0-s-0', 'f0-r-0', 'f0-s-1', 'f0-s-2', 'f0-s-3']);
+    for (const t of targets) expect(html).toContain(`id="${t}"`);
+    expect(html).not.toMatch(/<script/i);
+  });
+});
