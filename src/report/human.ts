@@ -57,9 +57,19 @@ function* humanLines(run: RunReport, options: HumanOptions): Generator<string> {
   const c = countRun(run);
   const checklistEntries = run.files.reduce((n, file) => n + file.findings.filter((f) => isChecklistFinding(file, f)).length, 0);
   const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
+  // countRun counts the t results (the JSON summary's figure); the others are counted here, for the line people read
+  const others = { results: 0, checked: 0 };
+  for (const file of run.files) {
+    for (const st of file.statistics ?? []) {
+      others.results += 1;
+      if (st.recomputed) others.checked += 1;
+    }
+  }
   const summary = [
     plural(c.files, 'file'),
-    `${plural(c.results, 'result')} found (${c.checked} with p recomputed)`,
+    others.results === 0
+      ? `${plural(c.results, 'result')} found (${c.checked} with p recomputed)`
+      : `${plural(c.results, 't-test result')} and ${plural(others.results, 'F, χ², r or z result')} found (${c.checked + others.checked} with p recomputed)`,
     paint(c.error ? 'error' : 'dim', plural(c.error, 'error')),
     paint(c.warning ? 'warning' : 'dim', plural(c.warning, 'warning')),
     paint(c.note ? 'note' : 'dim', plural(c.note, 'note')) + (checklistEntries > 0 ? ` (${checklistEntries} of the findings are checklist entries, summarised by item)` : ''),

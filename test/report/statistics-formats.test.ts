@@ -1,0 +1,94 @@
+/**
+ * Findings on F, χ², r and z results in each format people and dashboards read: the place, the
+ * rule id, the message, and in SARIF the rule's metadata and page address. One invented
+ * manuscript holds one result of each kind, each with something to say.
+ */
+import { readFileSync } from 'node:fs';
+import AjvDraft04Module from 'ajv-draft-04';
+import { describe, expect, it } from 'vitest';
+import { checkSource } from '../../src/engine/index.js';
+import { formatHuman, formatLines, type RunReport } from '../../src/report/index.js';
+import { cli } from '../cli/harness.js';
+
+// Invented. The recomputed p values, over the printed rounding: t(28) = 2.10 two-tailed .0444 to .0453
+// (scipy.stats.t.sf); F(1, 38) = 4.21 upper tail .0470 to .0472 (scipy.stats.f.sf), so .030 is off;
+// χ²(2) = 6.1 upper tail .0462 to .0486 (scipy.stats.chi2.sf), so .030 is off; r(48) = .31 two-tailed
+// .0259 to .0375 as df, .0292 to .0418 as n (scipy.stats.t.sf with t = r√(df/(1 − r²))), half that one-tailed,
+// so .001 is off either way; z = 3.10 two-tailed .0019 (scipy.stats.norm.sf), so .02 is off either way.
+const TEXT = [
+  'Recall improved, t(28) = 2.10, p = .045.',
+  'Groups differed, F(1, 38) = 4.21, p = .030.',
+  'Choices differed, χ²(2, N = 120) = 6.1, p = .030.',
+  'The scores correlated, r(48) = .31, p = .001.',
+  'The indirect effect held, z = 3.10, p = .02.',
+  '',
+].join('\n');
+
+/** line:column of the first occurrence of `at` (1-based, UTF-16 columns). */
+function placeOf(at: string): { line: number; column: number } {
+  const i = TEXT.indexOf(at);
+  const before = TEXT.slice(0, i);
+  return { line: before.split('\n').length, column: i - before.lastIndexOf('\n') };
+}
+
+const EXPECTED = [
+  { at: 'F(1, 38)', ruleId: 'p-follows-from-f' },
+  { at: 'χ²(2', ruleId: 'p-follows-from-chi-square' },
+  { at: 'r(48)', ruleId: 'p-follows-from-r' },
+  { at: 'z = 3.10', ruleId: 'p-follows-from-z' },
+].map((e) => ({ ...e, ...placeOf(e.at) }));
+
+const report = checkSource('paper.md', TEXT);
+const run: RunReport = { tool: { name: 'plumbline', version: '0.0.0-test' }, files: [report], failures: [], rules: [] };
+
+describe('one F, χ², r and z finding each, in every format (invented manuscript)', () => {
+  it('the engine gives exactly these findings, at the statistic, tied to its result', () => {
+    expect(report.findings.map((f) => ({ ruleId: f.ruleId, line: f.start.line, column: f.start.column }))).toEqual(EXPECTED.map(({ ruleId, line, column }) => ({ ruleId, line, column })));
+    const ids = new Set((report.statistics ?? []).map((s) => s.id));
+    for (const f of report.findings) expect(ids.has(f.resultId ?? '')).toBe(true);
+  });
+
+  it('lines: path:line:column, level, rule id, the message and what to check, one line each', () => {
+    const out = formatLines(run).trimEnd().split('\n');
+    expect(out).toHaveLength(EXPECTED.length);
+    out.forEach((line, i) => {
+      const e = EXPECTED[i] as (typeof EXPECTED)[number];
+      const f = report.findings[i];
+      expect(line.startsWith(`paper.md:${e.line}:${e.column}: ${f?.level} ${e.ruleId} `)).toBe(true);
+      expect(line).toContain(' — check: ');
+    });
+    expect(out[1]).toContain('from χ² = 6.1 (read as 6.05 to 6.15), df = 2');
+  });
+
+  it('human: each finding under its line:column and rule id, the text underlined, the count of results by kind', () => {
+    const out = formatHuman(run, { color: false });
+    for (const e of EXPECTED) {
+      expect(out).toContain(`  ${`${e.line}:${e.column}`.padEnd(8)} `);
+      expect(out).toMatch(new RegExp(`${e.line}:${e.column}\\s+\\w+\\s+${e.ruleId}\\n`));
+      expect(out).toContain(`${e.line} | ${TEXT.split('\n')[e.line - 1]}`);
+    }
+    // messages are wrapped at the terminal's width, with an indent of four
+    expect(out.replace(/\n {4}(?=\S)/g, ' ')).toContain('r = .31 (read as 0.305 to 0.315)');
+    expect(out).toContain('1 t-test result and 4 F, χ², r or z results found (5 with p recomputed)');
+  });
+
+  it('SARIF through the command line: valid 2.1.0, regions at the statistic, each rule described with its page', async () => {
+    const outcome = await cli(['--format', 'sarif', '-', '--stdin-name', 'paper.md'], { stdin: TEXT });
+    const log = JSON.parse(outcome.stdout);
+    // validated against the OASIS SARIF 2.1.0 schema (test/fixtures/standards/sarif-2.1.0-rtm.5.json), as in formats.test.ts
+    const AjvDraft04 = AjvDraft04Module.default;
+    const validate = new AjvDraft04({ allErrors: true, strict: false, validateFormats: false, unicodeRegExp: false }).compile(JSON.parse(readFileSync('test/fixtures/standards/sarif-2.1.0-rtm.5.json', 'utf8')));
+    expect(validate(log), JSON.stringify(validate.errors?.slice(0, 5), null, 1)).toBe(true);
+    const results = log.runs[0].results as Array<{ ruleId: string; ruleIndex: number; locations: Array<{ physicalLocation: { region: { startLine: number; startColumn: number } } }>; message: { text: string } }>;
+    const rules = log.runs[0].tool.driver.rules as Array<{ id: string; helpUri?: string; shortDescription: { text: string }; help: { markdown: string } }>;
+    expect(results.map((r) => r.ruleId)).toEqual(EXPECTED.map((e) => e.ruleId));
+    results.forEach((r, i) => {
+      const e = EXPECTED[i] as (typeof EXPECTED)[number];
+      expect(r.locations[0]?.physicalLocation.region).toMatchObject({ startLine: e.line, startColumn: e.column });
+      const rule = rules[r.ruleIndex];
+      expect(rule?.id).toBe(e.ruleId);
+      expect(rule?.helpUri).toMatch(new RegExp(`^https://\\S+/rules/${e.ruleId}\\.md$`));
+      expect(rule?.help.markdown.startsWith(`# ${e.ruleId}\n`)).toBe(true);
+    });
+  });
+});
