@@ -1,5 +1,5 @@
 import type { ContextStatement, Extraction, IntegerStatement, Sidedness, TTestReport } from '../extract/types.js';
-import type { Directive } from '../parse/types.js';
+import type { Directive, Span } from '../parse/types.js';
 import type { DocumentSettings, LinkedDocument, LinkedResult, LinkedStatistic, Setting } from './types.js';
 
 export type * from './types.js';
@@ -110,7 +110,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const results: LinkedResult[] = extraction.tests.map((report) => {
     const k = `${report.segment}:${report.sentence}`;
     const reading = readingOf(k, report.segment, report.sentence);
-    const sidedness = sidednessFor(report, reading, paragraphOf(report.segment), documentSidedness);
+    const sidedness = sidednessFor(report.statedSidedness, report, reading, paragraphOf(report.segment), documentSidedness);
     const elsewhere = sidedness.basis === 'default' ? untiedOutside(report.segment) : undefined;
     return {
       report,
@@ -125,10 +125,15 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   for (const o of extraction.otherStatistics) {
     if (o.kind !== 'F' && o.kind !== 'chi-square' && o.kind !== 'correlation' && o.kind !== 'z') continue;
     const report = o as LinkedStatistic['report'];
+    const reading = readingOf(`${o.segment}:${o.sentence}`, o.segment, o.sentence);
+    const sidedness = sidednessFor(report.p?.statedSidedness !== undefined ? { value: report.p.statedSidedness, span: report.p.span } : undefined, report, reading, paragraphOf(o.segment), documentSidedness);
+    const elsewhere = sidedness.basis === 'default' ? untiedOutside(o.segment) : undefined;
     statistics.push({
       id: `stat:${o.segment}:${o.span.start}`,
       report,
-      alpha: alphaFor(readingOf(`${o.segment}:${o.sentence}`, o.segment, o.sentence), paragraphOf(o.segment), documentAlpha),
+      alpha: alphaFor(reading, paragraphOf(o.segment), documentAlpha),
+      sidedness,
+      ...(elsewhere ? { untiedSidedness: elsewhere } : {}),
       doubts: o.doubt ? [o.doubt] : [],
     });
   }
@@ -172,10 +177,13 @@ interface ParagraphReading {
   alpha?: Setting<number>;
 }
 
-function sidednessFor(report: TTestReport, sentence: SentenceReading, paragraph: ParagraphReading, fallback: Setting<Sidedness>): Setting<Sidedness> {
-  if (report.statedSidedness) {
-    return { value: report.statedSidedness.value, basis: 'in-report', span: report.statedSidedness.span };
-  }
+/**
+ * A result's tails: said in the report itself, else by the tails word of its sentence nearest to
+ * it (distances to the sentence's t-tests decide; a statistic takes a word no t-test is nearer
+ * to), an equivalence test, its paragraph, the fallback.
+ */
+function sidednessFor(stated: { value: Sidedness; span: Span } | undefined, report: { span: Span }, sentence: SentenceReading, paragraph: ParagraphReading, fallback: Setting<Sidedness>): Setting<Sidedness> {
+  if (stated) return { value: stated.value, basis: 'in-report', span: stated.span };
   // With several tests in one sentence, a tails word belongs to the test nearest to it (ties: each).
   const sided = sentence.sided.find((s, i) => distance(s, report) <= (sentence.nearestDistance[i] as number));
   if (sided) return { value: sided.sidedness as Sidedness, basis: 'sentence', span: sided.span, printed: sided.printed };
@@ -184,7 +192,7 @@ function sidednessFor(report: TTestReport, sentence: SentenceReading, paragraph:
   return paragraph.sided ?? fallback;
 }
 
-function distance(s: ContextStatement, t: TTestReport): number {
+function distance(s: ContextStatement, t: { span: Span }): number {
   if (s.span.end <= t.span.start) return t.span.start - s.span.end;
   if (s.span.start >= t.span.end) return s.span.start - t.span.end;
   return 0;

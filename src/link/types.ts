@@ -39,6 +39,14 @@ export interface LinkedStatistic {
   id: string;
   report: OtherStatistic & { kind: 'F' | 'chi-square' | 'correlation' | 'z' };
   alpha: Setting<number>;
+  /**
+   * Its tails, found as for a t-test (its p's own label, a tails word in its sentence, an
+   * equivalence test, its paragraph, the document, the default). Only z and r are read either way;
+   * an F or χ² has one tail by definition whatever this says.
+   */
+  sidedness: Setting<Sidedness>;
+  /** A one-tailed statement elsewhere in the text that could not be tied to this result. */
+  untiedSidedness?: ContextStatement;
   doubts: string[];
 }
 
