@@ -217,7 +217,7 @@ function* mapped<T>(items: readonly T[], make: (item: T, n: number) => string): 
   for (let n = 0; n < items.length; n++) yield make(items[n] as T, n);
 }
 
-/** The source, line by line, with results shaded and flagged spans marked by severity. */
+/** The source, line by line, with results (t, F, χ², r and z) shaded and flagged spans marked by severity. */
 function* manuscriptHtml(file: FileReport, index: number, ordered: Finding[]): Generator<string> {
   const src = file.source;
   const cuts = new Set<number>([0, src.length]);
@@ -225,7 +225,9 @@ function* manuscriptHtml(file: FileReport, index: number, ordered: Finding[]): G
   // a finding said of the whole document marks no characters
   const marks = ordered.flatMap((f, n) => (f.scope === 'document' ? [] : [{ start: f.span.start, end: Math.max(f.span.end, f.span.start), n, level: f.level }]));
   for (const m of marks) cuts.add(m.start).add(m.end);
-  for (const r of file.results) cuts.add(r.span.start).add(r.span.end);
+  // every result is shaded, t-tests and F, χ², r and z alike
+  const shaded = [...file.results, ...(file.statistics ?? [])];
+  for (const r of shaded) cuts.add(r.span.start).add(r.span.end);
   const points = [...cuts].filter((x) => x >= 0 && x <= src.length).sort((a, b) => a - b);
   yield '<div class="manuscript">';
   let line = 1;
@@ -243,7 +245,7 @@ function* manuscriptHtml(file: FileReport, index: number, ordered: Finding[]): G
     endsAt.set(m.end, [...(endsAt.get(m.end) ?? []), m]);
   }
   const resultDelta = new Map<number, number>();
-  for (const r of file.results) {
+  for (const r of shaded) {
     resultDelta.set(r.span.start, (resultDelta.get(r.span.start) ?? 0) + 1);
     resultDelta.set(r.span.end, (resultDelta.get(r.span.end) ?? 0) - 1);
   }

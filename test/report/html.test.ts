@@ -104,6 +104,12 @@ describe('the results list holds every result, whatever its test, in reading ord
     expect(html).toContain('1 t-test result and 4 F, χ², r or z results found');
   });
 
+  it('the manuscript shades every result, F, χ², r and z as well as t', () => {
+    const manuscript = /<div class="manuscript">[\s\S]*?<\/div>\n?<\/div>/.exec(html)?.[0] ?? html;
+    const shaded = [...manuscript.matchAll(/<span class="result">([^<]*)/g)].map((m) => (m[1] as string).slice(0, 1));
+    expect(shaded).toEqual(['F', 't', 'r', 'z', 'χ']);
+  });
+
   it('the overview links each row to its entry in the list, and every link lands on an element of the page', () => {
     const overview = /<svg class="forest"[\s\S]*?<\/svg>/.exec(html)?.[0] ?? '';
     const targets = [...overview.matchAll(/href="#([^"]+)"/g)].map((m) => m[1]);
