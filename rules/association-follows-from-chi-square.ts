@@ -5,7 +5,7 @@ type LinkedStatistic = RuleContext<unknown>['document']['statistics'][number];
 
 const messages = {
   mismatch:
-    'Reported {reported} with {chi} and N = {n}. Recomputed {quantity} from {inputs}: {range}. Gap {gap}. No χ² within its rounding gives the printed {symbol}.',
+    'Reported {reported} with {chi}. Recomputed {quantity} from {inputs}: {range}. Gap {gap}. No χ² within its rounding gives the printed {symbol}.',
 };
 
 /** A φ or Cramér's V printed with a χ² follows from the χ², N and the table's size. */
@@ -53,7 +53,6 @@ export const associationFollowsFromChiSquare: Rule = {
         message: fill(messages.mismatch, {
           reported: a.printed.trim(),
           chi: s.printed.trim(),
-          n: n.printed,
           quantity,
           inputs: inputs.join(', '),
           range: showInterval(nearest.range.low, nearest.range.high),

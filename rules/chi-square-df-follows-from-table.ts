@@ -2,7 +2,7 @@ import { fill, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/i
 
 const messages = {
   mismatch:
-    'Reported {reported} for the {printedSize} ({rows} × {cols}). Recomputed df = (rows − 1)(columns − 1) = {expected}. The printed df differs by {gap}.',
+    'Reported {reported} for "{printedSize}" ({rows} rows, {cols} columns). Recomputed df = (rows − 1)(columns − 1) = {expected}. The printed df differs by {gap}.',
 };
 
 /** A χ² on a contingency table whose size the text states has df = (r − 1)(c − 1). */

@@ -48,3 +48,19 @@ describe('a V or φ is the χ²’s own and does not end its clause', () => {
     expect(r.findings.map((f) => f.ruleId)).toContain('significance-follows-from-statistic');
   });
 });
+
+describe('the findings say what was recomputed from which inputs', () => {
+  const md = "In the 2 × 3 contingency table, χ2(3, N = 150) = 9.40, p = .024, Cramér's V = .35.";
+  const findings = checkSource('case.md', md).findings;
+  it('names the table and the df it gives', () => {
+    expect(findings.find((f) => f.ruleId === 'chi-square-df-follows-from-table')?.message).toBe(
+      'Reported df = 3 for "2 × 3 contingency table" (2 rows, 3 columns). Recomputed df = (rows − 1)(columns − 1) = 2. The printed df differs by 1.',
+    );
+  });
+  it('names χ², N and k for V', () => {
+    // √(9.395/150) = 0.25027, √(9.405/150) = 0.25040 (by hand in python3)
+    expect(findings.find((f) => f.ruleId === 'association-follows-from-chi-square')?.message).toContain(
+      'Recomputed V = √(χ²/(N·1)) from χ² = 9.40 (read as 9.395 to 9.405), N = 150, min(r, c) − 1 = 1 (2 × 3 contingency table): 0.2503 to 0.2504.',
+    );
+  });
+});
