@@ -2447,6 +2447,7 @@ STAT_ERRORS = {
     "chi2": ["chi-square-p-mismatch", "chi-square-significance-flip"],
     "r": ["r-p-mismatch", "r-significance-flip", "r-df-vs-n"],
     "z": ["z-p-mismatch", "z-significance-flip"],
+    "b": ["coefficient-t-mismatch"],
 }
 STAT_ERROR_RULES = {
     "F-p-mismatch": ["p-follows-from-f"],
@@ -2458,6 +2459,7 @@ STAT_ERROR_RULES = {
     "r-significance-flip": ["significance-follows-from-statistic"],
     "z-significance-flip": ["significance-follows-from-statistic"],
     "r-df-vs-n": ["r-df-follows-from-n"],
+    "coefficient-t-mismatch": ["t-follows-from-coefficient"],
 }
 
 
@@ -2518,6 +2520,22 @@ def seeded_p(srng: np.random.Generator, kind: str, error: str, value: float, dfs
         if error.endswith("flip") and side(rep) == true_side:
             continue
         if not error.endswith("flip") and side(rep) != true_side:
+            continue
+        return cand
+    return None
+
+
+def seeded_coefficient_t(srng: np.random.Generator, b: float, se: float) -> float | None:
+    """A t printed to 2 decimals that no b and SE within their rounding (2 decimals) give, at either sign."""
+    bp, sp = float(dround(b, 2)), float(dround(se, 2))
+    if sp - 0.005 <= 0:
+        return None
+    corners = [(bp + db) / (sp + ds) for db in (-0.005, 0.005) for ds in (-0.005, 0.005)]
+    lo, hi = min(corners), max(corners)
+    for _ in range(40):
+        cand = round((b / se) * float(srng.choice([0.5, 0.6, 1.5, 1.8])), 2)
+        rep = (cand - 0.005, cand + 0.005)
+        if hit(rep, (lo, hi)) or hit(rep, (-hi, -lo)) or abs(cand) < 0.05:
             continue
         return cand
     return None
@@ -2604,7 +2622,13 @@ def make_distractor(rng: np.random.Generator, doc: Doc, did: str, kind: str, srn
         p = p_two(t, dfr)
         tc = t_crit(dfr)
         ci = ci_text(plain(b - tc * se, 2, nt, True), plain(b + tc * se, 2, nt, True), nt, True)
-        txt = f"b{eq}{plain(b, 2, nt, True)}{js}SE{eq}{plain(se, 2, nt, True)}{js}t({dfr}){eq}{plain(t, 2, nt, True)}{js}{p_for_distractor(p, nt)}{js}{nt.ci_label} {ci}"
+        wrong = seeded_coefficient_t(srng, b, se) if error == "coefficient-t-mismatch" and srng is not None else None
+        if wrong is not None:
+            # the t is not b/SE; its p follows from the t printed, and no CI is printed (its width would follow from SE)
+            seeded["error"] = error
+            txt = f"b{eq}{plain(b, 2, nt, True)}{js}SE{eq}{plain(se, 2, nt, True)}{js}t({dfr}){eq}{plain(wrong, 2, nt, True)}{js}{p_for_distractor(p_two(wrong, dfr), nt)}"
+        else:
+            txt = f"b{eq}{plain(b, 2, nt, True)}{js}SE{eq}{plain(se, 2, nt, True)}{js}t({dfr}){eq}{plain(t, 2, nt, True)}{js}{p_for_distractor(p, nt)}{js}{nt.ci_label} {ci}"
         toks = [(f"In a regression adjusting for age, group predicted {m1['name']} at the end of the study, ", []), (txt, [(did, "stat")]), (".", [])]
     else:  # a p with no t, after a result
         p = float(rng.uniform(0.12, 0.9))
@@ -2930,8 +2954,11 @@ def build_doc(seed: int, spec: Spec) -> dict:
     # seeded errors in F, chi-square, r and z results come from a generator of their own, so the
     # rest of the manuscript is drawn exactly as before they were added
     srng = np.random.default_rng([seed, spec.idx, 15])
+    # regression coefficients draw theirs from one more generator, so the F, chi-square, r and z
+    # errors drawn before they were added stay as they were
+    brng = np.random.default_rng([seed, spec.idx, 16])
     for kind in [pick(rng, ["F", "chi2", "r", "z", "b"]) for _ in range(int(rng.integers(3, 7)))]:
-        distractors.append(make_distractor(rng, doc, new_did(), kind, srng))
+        distractors.append(make_distractor(rng, doc, new_did(), kind, brng if kind == "b" else srng))
     return compose(doc, rng, blocks, abstract_cases, extra, distractors, new_did)
 
 

@@ -9,6 +9,9 @@ import { pFollowsFromZ } from '../../rules/p-follows-from-z.js';
 import { significanceFollowsFromStatistic } from '../../rules/significance-follows-from-statistic.js';
 import { rDfFollowsFromN } from '../../rules/r-df-follows-from-n.js';
 import { etaSquaredFollowsFromF } from '../../rules/eta-squared-follows-from-f.js';
+import { chiSquareDfFollowsFromTable } from '../../rules/chi-square-df-follows-from-table.js';
+import { associationFollowsFromChiSquare } from '../../rules/association-follows-from-chi-square.js';
+import { fEqualsTSquared } from '../../rules/f-equals-t-squared.js';
 import { powerStatementFollows } from '../../rules/power-statement-follows.js';
 import { quietDirectiveHasReason } from '../../rules/quiet-directive-has-reason.js';
 import { resultIsComplete } from '../../rules/result-is-complete.js';
@@ -28,6 +31,7 @@ import { percentageMatchesCount } from '../../rules/percentage-matches-count.js'
 import { spreadKindIsStated } from '../../rules/spread-kind-is-stated.js';
 import { spreadKindMatchesT } from '../../rules/spread-kind-matches-t.js';
 import { tFollowsFromDescriptives } from '../../rules/t-follows-from-descriptives.js';
+import { tFollowsFromCoefficient } from '../../rules/t-follows-from-coefficient.js';
 import { alphaIsStated } from '../../rules/alpha-is-stated.js';
 import { assumptionsAreChecked } from '../../rules/assumptions-are-checked.js';
 import { descriptivesWithN } from '../../rules/descriptives-with-n.js';
@@ -56,12 +60,16 @@ export const RULES: readonly AnyRule[] = [
   pFollowsFromZ,
   rDfFollowsFromN,
   etaSquaredFollowsFromF,
+  chiSquareDfFollowsFromTable,
+  associationFollowsFromChiSquare,
+  fEqualsTSquared,
   oneTailedPIsDeclared,
   valuesArePossible,
   zeroPIsABound,
   minusIsAMinusSign,
   adjustedPFollows,
   tFollowsFromDescriptives,
+  tFollowsFromCoefficient,
   spreadKindMatchesT,
   dfFollowsFromN,
   designMatchesAnalysis,

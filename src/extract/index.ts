@@ -13,6 +13,7 @@ import { findSummaries } from './summaries.js';
 import { findTableMentions, nameTableRows, readTables } from './tables.js';
 import { findPWithoutT } from './pWithoutT.js';
 import { completeStatistics, findOtherStatistics } from './statistics.js';
+import { findTableDimensions } from './contingency.js';
 import { applyStarLegends, findStarLegends, type StarLegend } from './stars.js';
 import { findTTests } from './tTests.js';
 import type { Extraction } from './types.js';
@@ -30,6 +31,7 @@ export function extract(doc: ParsedDocument): Extraction {
     decimalConvention: convention,
     tests: [],
     otherStatistics: [],
+    tableDimensions: [],
     statements: [],
     pWithoutT: [],
     summaries: [],
@@ -62,6 +64,7 @@ export function extract(doc: ParsedDocument): Extraction {
     append(out.tests, tests);
     if (seg.kind !== 'code') {
       append(out.otherStatistics, completeStatistics(seg, starts, withoutOverlap(findOtherStatistics(seg, starts), tests), tests));
+      append(out.tableDimensions, findTableDimensions(seg, starts));
       append(out.statements, findStatements(seg, starts));
       const found = findSummaries(seg, starts);
       append(out.summaries, found.summaries);

@@ -30,10 +30,12 @@ const PATTERNS: Array<{ kind: OtherStatisticKind; may: RegExp; re: RegExp }> = [
   { kind: 'beta', may: /β|beta/, re: new RegExp(String.raw`${START}(?:β|beta)(?:_?\{?\d\}?)? ?${OP} ?${VALUE}`, 'gu') },
   // η2 = .08 · η^2_p = .08 · ηp2 = .08 · partial η2 = .08 · ω2 · ε2
   { kind: 'eta-squared', may: /η|eta|ω|ε/, re: new RegExp(String.raw`(?:partial )?(?:η|eta|ω|omega|ε|epsilon)(?: ?_?\{?p\}?)?(?: ?\^? ?2|²)(?: ?_?\{?p\}?)? ?${OP} ?${VALUE}`, 'giu') },
+  // φ = .21 · phi = .21 · Cramér's V = .18 · V = .18 (a contingency table's association)
+  { kind: 'association', may: /[φϕV]|[Pp]hi/, re: new RegExp(String.raw`${START}(?:[φϕ]|[Pp]hi|Cram[ée]r['’]s V|V)(?: ?_?c)? ?${OP} ?${VALUE}`, 'gu') },
   // OR = 1.8 · RR = 0.7 · HR = 1.2 · aOR = 2.1
   { kind: 'ratio', may: /OR|RR|HR/, re: new RegExp(String.raw`${START}(?:a?OR|RR|HR|IRR) ?${OP} ?${VALUE}`, 'gu') },
-  // U = 120 · W = 45 · H(2) = 8.1 · V = .3 (Mann–Whitney, Wilcoxon, Kruskal–Wallis, Cramér)
-  { kind: 'rank-or-other', may: /[UWHV]/, re: new RegExp(String.raw`${START}(?:U|W|V|H(?: ?[(\[] ?${DF} ?[)\]])?) ?${OP} ?${VALUE}`, 'gu') },
+  // U = 120 · W = 45 · H(2) = 8.1 (Mann–Whitney, Wilcoxon, Kruskal–Wallis)
+  { kind: 'rank-or-other', may: /[UWH]/, re: new RegExp(String.raw`${START}(?:U|W|H(?: ?[(\[] ?${DF} ?[)\]])?) ?${OP} ?${VALUE}`, 'gu') },
 ];
 
 /** Every statistic of another test in one segment, in reading order. */
@@ -48,7 +50,8 @@ export function findOtherStatistics(seg: Segment, sentenceStarts: number[]): Oth
       const end = m.index + m[0].length;
       const value = readNumber(seg, end - g.length, end);
       out.push({
-        kind,
+        // a V above 1 is a signed-rank statistic (R prints Wilcoxon's as V), not Cramér's V
+        kind: kind === 'association' && value && Math.abs(value.value) > 1 ? 'rank-or-other' : kind,
         segment: seg.id,
         block: seg.block,
         sentence: sentenceOf(sentenceStarts, m.index),
@@ -64,7 +67,7 @@ export function findOtherStatistics(seg: Segment, sentenceStarts: number[]): Oth
 /** The kinds whose p plumbline recomputes. */
 const CHECKED: ReadonlySet<OtherStatisticKind> = new Set(['F', 'chi-square', 'correlation', 'z']);
 /** Effect sizes of the statistic before them (`F(1, 38) = 4.21, η2 = .10, p = .047`): they do not end its clause. */
-const OWN_EFFECT: ReadonlySet<OtherStatisticKind> = new Set(['eta-squared', 'r-squared']);
+const OWN_EFFECT: ReadonlySet<OtherStatisticKind> = new Set(['eta-squared', 'r-squared', 'association']);
 
 // The parts of a statistic's own text (each applied to the text the patterns above matched).
 const NUM = String.raw`\d{1,6}(?:\.\d{1,4})?`;
@@ -74,6 +77,8 @@ const R_PARTS = new RegExp(String.raw`^(r(?:_?s|_?pb)?|ρ|τ)(?: ?[(\[] ?(${NUM}
 const STAT_OP = /(<=|>=|≤|≥|=|<|>) ?[-+]? ?[.\d]{1,22}$/u;
 /** `n = 50` or `N = 1,204` in a correlation's clause. */
 const N_IN_CLAUSE = /(?<![\p{L}\p{N}_])[nN] ?= ?(\d{1,3}(?:,\d{3}){1,2}|\d{1,7})(?![\d.])/u;
+/** Words before or in a χ²'s clause that name a test other than Pearson's χ² on the whole table, or a corrected χ². */
+const CHI_NAMED = /(McNemar|Bowker|goodness[- ]of[- ]fit|Mantel|Cochran|linear[- ]by[- ]linear|trend|Yates|continuity)/iu;
 /** A Greenhouse–Geisser or Huynh–Feldt correction named near an F. */
 const CORRECTION = /(Greenhouse|Huynh)/u;
 /** Words of an F, χ², r or z report that are not other prose. */
@@ -96,6 +101,9 @@ export function completeStatistics(seg: Segment, starts: number[], others: Other
   for (const t of tests) if (t.segment === seg.id) boundaries.push(textIndexOf(seg, t.span.start));
   for (const o of others) if (!OWN_EFFECT.has(o.kind)) boundaries.push(textIndexOf(seg, o.span.start));
   boundaries.sort((a, b) => a - b);
+  // φ and V with their text starts, in order: each χ² finds the first after it by binary search
+  const associations = others.filter((e) => e.kind === 'association' && e.value).map((e) => ({ ...e, at: textIndexOf(seg, e.span.start) })).sort((a, b) => a.at - b.at);
+  const testStarts = tests.filter((t) => t.segment === seg.id).map((test) => ({ at: textIndexOf(seg, test.span.start), test })).sort((a, b) => a.at - b.at);
   const hard: number[] = [];
   for (const t of tests) if (t.segment === seg.id) hard.push(textIndexOf(seg, t.span.start));
   for (const o of others) if (CHECKED.has(o.kind)) hard.push(textIndexOf(seg, o.span.start));
@@ -113,7 +121,7 @@ export function completeStatistics(seg: Segment, starts: number[], others: Other
     const p = findP(seg, valueEnd, tailEnd);
     // a plural p (`ps < .05`) summarises several tests; it is not this one's
     if (p && !/^[pP]s/u.test(p.printed)) out.p = p;
-    if (o.kind === 'correlation') {
+    if (o.kind === 'correlation' || (o.kind === 'chi-square' && !out.n)) {
       const n = N_IN_CLAUSE.exec(text.slice(valueEnd, tailEnd));
       if (n) {
         const a = valueEnd + n.index + n[0].length - (n[1] as string).length;
@@ -130,9 +138,21 @@ export function completeStatistics(seg: Segment, starts: number[], others: Other
         const etaOp = STAT_OP.exec(eta.printed);
         out.etaSquared = { partial: isPartialEta(eta.printed), op: etaOp ? comparisonOf(etaOp[1] as string) : '=', value: eta.value, span: eta.span, printed: eta.printed };
       }
+      const same = sameComparisonAs(seg, at, sentenceStart, testStarts);
+      if (same) out.sameAsT = same;
       const near = text.slice(Math.max(sentenceStart, at - 80), tailEnd);
       const c = CORRECTION.exec(near);
       if (c) out.dfCorrection = c[1] === 'Huynh' ? 'huynh-feldt' : 'greenhouse-geisser';
+    }
+    if (o.kind === 'chi-square') {
+      // a φ or V of the χ²'s own clause: the first one after its value and before the clause ends
+      const a = firstAfter(associations, at);
+      if (a?.value && a.at < Math.max(tailEnd, valueEnd + 1)) {
+        const aOp = STAT_OP.exec(a.printed);
+        out.association = { kind: /^[φϕ]|^[Pp]hi/u.test(a.printed) ? 'phi' : 'V', op: aOp ? comparisonOf(aOp[1] as string) : '=', value: a.value, span: a.span, printed: a.printed };
+      }
+      const named = CHI_NAMED.exec(text.slice(Math.max(sentenceStart, at - 80), tailEnd));
+      if (named) out.namedAs = named[1] as string;
     }
     if (o.kind === 'correlation') {
       const d = R_DOUBT.exec(before);
@@ -152,6 +172,44 @@ export function completeStatistics(seg: Segment, starts: number[], others: Other
     out.reportPrinted = text.slice(at, Math.max(valueEnd, last));
     return out;
   });
+}
+
+/** The first item starting after text index `at` (items sorted by `at`). */
+function firstAfter<T extends { at: number }>(items: readonly T[], at: number): T | undefined {
+  let lo = 0;
+  let hi = items.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if ((items[mid] as T).at <= at) lo = mid + 1;
+    else hi = mid;
+  }
+  return items[lo];
+}
+
+/**
+ * Words between a t and an F that say the F is the same comparison: `t(38) = 2.05 (equivalently
+ * F(1, 38) = 4.20)`, `t(38) = 2.05, p = .047; that is, F(1, 38) = 4.20`. Nothing else may stand
+ * between them but the t's own p.
+ */
+const SAME_COMPARISON = /^(?:,? ?[pP] ?(?:<=|>=|≤|≥|=|<|>) ?\.?\d{1,3}(?:\.\d{1,12})?)?[,;]? ?\(? ?(?:equivalently|equivalent to|i\.e\.,?|that is,?|or equivalently,?) ?$/u;
+
+/**
+ * The id of the t-test an F at text index `at` says it is the same comparison as, if its words
+ * say so. `tests` are the segment's t-tests with their text starts, in reading order (binary search).
+ */
+function sameComparisonAs(seg: Segment, at: number, sentenceStart: number, tests: ReadonlyArray<{ at: number; test: TTestReport }>): string | undefined {
+  let lo = 0;
+  let hi = tests.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if ((tests[mid] as { at: number }).at < at) lo = mid + 1;
+    else hi = mid;
+  }
+  const last = tests[lo - 1]?.test;
+  if (!last) return undefined;
+  const from = textIndexOf(seg, last.span.end);
+  if (from < sentenceStart || at - from > 40) return undefined;
+  return SAME_COMPARISON.test(seg.text.slice(from, at)) ? last.id : undefined;
 }
 
 function readOwnParts(seg: Segment, at: number, out: OtherStatistic): void {

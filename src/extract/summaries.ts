@@ -51,6 +51,11 @@ const CI = new RegExp(
 );
 /** `difference = 3.8`, `b = 0.37`, `MD: 3.1`; a spelled-out `mean difference 24.28` or `mean change -0.18` needs no sign. */
 const ESTIMATE = new RegExp(String.raw`${START}(?:(?:mean difference|difference|MD|M_?\{?diff\}?|b|B|β|estimate|Δ|mean change) ?(?:=|:|of|was) ?|(?:mean difference|mean change) (?=[-+]?\d{0,9}\.\d))${NUM}`, 'dgu');
+/**
+ * The standard error printed right after a coefficient: `, SE = 0.15`, ` (SE = 0.15)`, `; SE(b) =
+ * 0.15`, `, SE B = 0.15`, `, s.e. = 0.15`. Read on the few characters after the coefficient only.
+ */
+const COEFFICIENT_SE = /^[,;]? ?\(? ?(?:SE|S\.E\.|s\.e\.|SE_?\{?[bB]\}?|SE ?\([bB]\)|SE [bB]|standard error) ?(?:=|:|of) ?(\d{1,9}(?:\.\d{1,12})?|\.\d{1,12})(?![\d.,]?\d)/du;
 const EFFECT = new RegExp(String.raw`(?<![\p{L}\p{N}_'’])(?:(?:Cohen['’]s|Hedges['’]s?) ?)?(d_?\{?z\}?|d_?\{?av\}?|d|g)(?![\p{L}\p{N}′'’]) ?= ?${NUM}`, 'dgu');
 /**
  * Words that say one set of units was measured twice: the same participants, units or plots;
@@ -284,7 +289,11 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     if (!value) continue;
     const label = m[0].replace(/^[^\p{L}β]+/u, '');
     const coefficient = /^(?:b|B|β)(?![\p{L}])/u.test(label);
-    estimates.push({ ...where(m.index, m.index + m[0].length), value, ...(coefficient ? { kind: 'coefficient' as const } : {}) });
+    const end = m.index + m[0].length;
+    const seMatch = coefficient ? COEFFICIENT_SE.exec(text.slice(end, end + 40)) : null;
+    const seAt = seMatch?.indices?.[1];
+    const se = seAt ? readNumber(seg, end + seAt[0], end + seAt[1]) : undefined;
+    estimates.push({ ...where(m.index, end), value, ...(coefficient ? { kind: 'coefficient' as const } : {}), ...(se ? { se } : {}) });
   }
   const effectSizes: EffectSizeReport[] = [];
   if (/\b[dg](?:_?\{?(?:z|av)\}?)? ?=/.test(text)) for (const m of text.matchAll(EFFECT)) {

@@ -118,7 +118,7 @@ export interface PWithoutT {
   mentionPrinted: string;
 }
 
-export type OtherStatisticKind = 'F' | 'chi-square' | 'correlation' | 'r-squared' | 'z' | 'beta' | 'eta-squared' | 'ratio' | 'rank-or-other';
+export type OtherStatisticKind = 'F' | 'chi-square' | 'correlation' | 'r-squared' | 'z' | 'beta' | 'eta-squared' | 'association' | 'ratio' | 'rank-or-other';
 
 /** The statistic of a test other than t (F, χ², r, z, β, η², an odds ratio, U, W, H): it ends a t-test's clause. */
 export interface OtherStatistic {
@@ -136,7 +136,7 @@ export interface OtherStatistic {
   symbol?: string;
   /** For F, χ² and r: the degrees of freedom printed with the statistic (F: [df1, df2]; χ², r: [df]). */
   dfs?: ReportedNumber[];
-  /** For χ² the `N = 120` inside its bracket; for r an `n = 50` printed in its clause. */
+  /** For χ² the `N = 120` inside its bracket, else one printed in its clause; for r an `n = 50` printed in its clause. */
   n?: ReportedNumber;
   /** For F, χ², r and z: the p printed in the statistic's own clause, read as for a t-test. */
   p?: ReportedP;
@@ -149,9 +149,32 @@ export interface OtherStatistic {
   doubt?: string;
   /** For F: an η² printed in its clause (`ηp2 = .10`, `partial η2 = .10`), and whether it is said to be partial. */
   etaSquared?: { partial: boolean; op: Comparison; value: ReportedNumber; span: Span; printed: string };
+  /**
+   * For F: the id of the t-test its words say it is the same comparison as (`t(38) = 2.05
+   * (equivalently F(1, 38) = 4.20)`), so F = t² and F's df1 = 1.
+   */
+  sameAsT?: string;
+  /** For χ²: a φ or Cramér's V printed in its clause (`φ = .21`, `Cramér's V = .18`, `V = .18`). */
+  association?: { kind: 'phi' | 'V'; op: Comparison; value: ReportedNumber; span: Span; printed: string };
+  /**
+   * For χ²: the words that name it a test whose df or association is not that of Pearson's χ² on
+   * the whole table (McNemar, goodness of fit, trend, Mantel–Haenszel, a continuity correction).
+   */
+  namedAs?: string;
   /** From the symbol to the end of the last part read (its p, else its value), and its text. */
   reportSpan?: Span;
   reportPrinted?: string;
+}
+
+/** A contingency table's size as the text states it (`a 2 × 3 contingency table`). */
+export interface TableDimensions {
+  segment: number;
+  block: number;
+  sentence: number;
+  span: Span;
+  printed: string;
+  rows: number;
+  cols: number;
 }
 
 export interface Extraction {
@@ -160,6 +183,8 @@ export interface Extraction {
   tests: TTestReport[];
   /** Statistics of other tests, which end a t-test's clause. */
   otherStatistics: OtherStatistic[];
+  /** Contingency tables whose size the text states. */
+  tableDimensions: TableDimensions[];
   statements: ContextStatement[];
   pWithoutT: PWithoutT[];
   summaries: GroupSummary[];
@@ -274,6 +299,8 @@ export interface EstimateReport {
   printed: string;
   /** A regression coefficient (`b =`, `B =`, `β =`), whose t has the model's df, not a t-test's. */
   kind?: 'coefficient';
+  /** A coefficient's standard error printed right after it (`b = 0.42, SE = 0.15`, `B = 0.42 (SE = 0.15)`). */
+  se?: ReportedNumber;
   /** Printed in a table: its row. */
   table?: TableRow;
 }

@@ -67,8 +67,11 @@ export function clauseIndex(x: Extraction): ClauseIndex {
       // the last estimate ending before the statistic, after the previous statistic's own text
       while (e < estimates.length && (estimates[e] as EstimateReport).span.end <= test.span.start) e += 1;
       while (o < others.length && (others[o] as OtherStatistic).span.end <= test.span.start) o += 1;
-      const lastOtherEnd = o > 0 ? (others[o - 1] as OtherStatistic).span.end : -1;
       const candidate = e > 0 ? estimates[e - 1] : undefined;
+      // a β read both as an estimate and as a statistic of its own is the candidate itself, not a statistic before it
+      let k = o - 1;
+      while (k >= 0 && candidate && (others[k] as OtherStatistic).span.start === candidate.span.start) k -= 1;
+      const lastOtherEnd = k >= 0 ? (others[k] as OtherStatistic).span.end : -1;
       const floor = Math.max(previousSentence === test.sentence ? previousEnd : -1, lastOtherEnd);
       const leading =
         candidate && candidate.sentence === test.sentence && test.span.start - candidate.span.end <= LEADING_REACH && candidate.span.start >= floor

@@ -75,6 +75,11 @@ export interface ResultContext {
   intervals: IntervalLink[];
   /** The estimate the test is about: printed right before its statistic or in its clause. */
   estimate?: Linked<EstimateReport>;
+  /**
+   * A regression coefficient printed with its SE in the result's own clause (`b = 0.42, SE =
+   * 0.15, t(96) = 2.80`), whose t is b/SE. Certain only when it is the clause's one coefficient.
+   */
+  coefficient?: Linked<EstimateReport & { se: ReportedNumber }>;
   effectSizes: Array<Linked<EffectSizeReport>>;
   /** Sample sizes stated in the result's sentence or paragraph, or for the document. */
   sampleSizes: SampleSize[];
@@ -333,6 +338,7 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
   const interval = intervals.find((i) => i.of === 'estimate');
   const leading = clause.leadingEstimate;
   const estimate: Linked<EstimateReport> | undefined = row ? inRow(t.rows.estimates, n.estimates)[0] : leading ? { item: leading, basis: 'clause', certain: true } : owned(report, clause, clauses, n.estimates)[0];
+  const coefficient = coefficientOf(report, clause, n.estimates);
   const sentenceReferences = n.references.inSentence(report.segment, report.sentence);
   const reference = sentenceReferences[0] ?? (clauses.testsInSegment(report.segment) === 1 ? n.references.all(report.segment)[0] : undefined);
   // The sentence's own first; then the paragraph's first few (rules take the first that fits,
@@ -359,10 +365,26 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
     ...(interval ? { interval } : {}),
     intervals,
     ...(estimate ? { estimate } : {}),
+    ...(coefficient ? { coefficient } : {}),
     effectSizes,
     sampleSizes,
     testsInParagraph: clauses.testsInSegment(report.segment),
   };
+}
+
+/**
+ * The coefficient a t is the Wald statistic of: a coefficient with its SE printed right after
+ * it, in the result's own clause (never one tied by its sentence, paragraph or table). A second coefficient in the clause (`b = 0.42, β = .30, SE =
+ * 0.15`) leaves open whose SE is printed, so the tie is then not certain.
+ */
+function coefficientOf(report: TTestReport, clause: Clause, estimates: SegmentList<EstimateReport>): Linked<EstimateReport & { se: ReportedNumber }> | undefined {
+  if (report.table || report.plural) return undefined;
+  const inClause = estimates.betweenInSentence(report.segment, report.sentence, clause.start, clause.end).filter((e) => e.kind === 'coefficient');
+  const item = inClause.find((e) => e.se);
+  if (!item?.se) return undefined;
+  const withSe = { ...item, se: item.se };
+  if (inClause.length > 1) return { item: withSe, basis: 'clause', certain: false, doubt: `shares its clause with ${inClause.length - 1} other coefficient${inClause.length > 2 ? 's' : ''}, so the SE may be another's` };
+  return { item: withSe, basis: 'clause', certain: true };
 }
 
 /**

@@ -1,4 +1,5 @@
-import type { ContextStatement, Extraction, IntegerStatement, Sidedness, TTestReport } from '../extract/types.js';
+import type { ContextStatement, Extraction, IntegerStatement, OtherStatistic, Sidedness, TableDimensions, TTestReport } from '../extract/types.js';
+import type { Linked } from './descriptives.js';
 import type { Directive, Span } from '../parse/types.js';
 import type { DocumentSettings, LinkedDocument, LinkedResult, LinkedStatistic, Setting } from './types.js';
 
@@ -122,12 +123,14 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     };
   });
   const statistics: LinkedStatistic[] = [];
+  const dimensionsOf = tableDimensionsJoiner(extraction);
   for (const o of extraction.otherStatistics) {
     if (o.kind !== 'F' && o.kind !== 'chi-square' && o.kind !== 'correlation' && o.kind !== 'z') continue;
     const report = o as LinkedStatistic['report'];
     const reading = readingOf(`${o.segment}:${o.sentence}`, o.segment, o.sentence);
     const sidedness = sidednessFor(report.p?.statedSidedness !== undefined ? { value: report.p.statedSidedness, span: report.p.span } : undefined, report, reading, paragraphOf(o.segment), documentSidedness);
     const elsewhere = sidedness.basis === 'default' ? untiedOutside(o.segment) : undefined;
+    const dimensions = o.kind === 'chi-square' ? dimensionsOf(o) : undefined;
     statistics.push({
       id: `stat:${o.segment}:${o.span.start}`,
       report,
@@ -135,6 +138,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       sidedness,
       ...(elsewhere ? { untiedSidedness: elsewhere } : {}),
       doubts: o.doubt ? [o.doubt] : [],
+      ...(dimensions ? { dimensions } : {}),
     });
   }
   return {
@@ -310,4 +314,36 @@ function spreadKinds(x: Extraction): LinkedDocument['spreadKinds'] {
     out.set(g, g.spread.kind !== 'unstated' ? g.spread.kind : (spreads.kindFor(g)?.spread ?? 'unstated'));
   }
   return out;
+}
+
+/**
+ * Ties a χ² to the contingency table whose size the text states, only where nothing else could
+ * claim either: the sentence holds exactly one χ² and one stated size, or else the paragraph
+ * does. Counted once per segment, so linear in the records.
+ */
+function tableDimensionsJoiner(x: Extraction): (o: OtherStatistic) => Linked<TableDimensions> | undefined {
+  const sizes = new Map<number, TableDimensions[]>();
+  const sizesBySentence = new Map<string, TableDimensions[]>();
+  // only whether a sentence or paragraph states exactly one size matters: at most two are kept
+  for (const d of x.tableDimensions) {
+    sizes.set(d.segment, [...(sizes.get(d.segment) ?? []).slice(0, 1), d]);
+    const key = `${d.segment}:${d.sentence}`;
+    sizesBySentence.set(key, [...(sizesBySentence.get(key) ?? []).slice(0, 1), d]);
+  }
+  if (sizes.size === 0) return () => undefined;
+  const chiBySentence = new Map<string, number>();
+  const chiBySegment = new Map<number, number>();
+  for (const o of x.otherStatistics) {
+    if (o.kind !== 'chi-square') continue;
+    chiBySentence.set(`${o.segment}:${o.sentence}`, (chiBySentence.get(`${o.segment}:${o.sentence}`) ?? 0) + 1);
+    chiBySegment.set(o.segment, (chiBySegment.get(o.segment) ?? 0) + 1);
+  }
+  return (o) => {
+    const list = sizes.get(o.segment);
+    if (!list) return undefined;
+    const inSentence = sizesBySentence.get(`${o.segment}:${o.sentence}`) ?? [];
+    if (inSentence.length === 1 && chiBySentence.get(`${o.segment}:${o.sentence}`) === 1) return { item: inSentence[0] as TableDimensions, basis: 'sentence', certain: true };
+    if (inSentence.length === 0 && list.length === 1 && chiBySegment.get(o.segment) === 1) return { item: list[0] as TableDimensions, basis: 'paragraph', certain: true };
+    return undefined;
+  };
 }

@@ -1,6 +1,6 @@
-import type { ContextStatement, Extraction, GroupSummary, IntegerStatement, OtherStatistic, PWithoutT, Sidedness, SpreadKind, TTestReport } from '../extract/types.js';
+import type { ContextStatement, Extraction, GroupSummary, IntegerStatement, OtherStatistic, PWithoutT, Sidedness, SpreadKind, TableDimensions, TTestReport } from '../extract/types.js';
 import type { Directive, ReadNote, Span } from '../parse/types.js';
-import type { ResultContext } from './descriptives.js';
+import type { Linked, ResultContext } from './descriptives.js';
 import type { TestName } from './testNames.js';
 export type { IntervalTarget, LinkBasis, Linked } from './descriptives.js';
 
@@ -48,6 +48,8 @@ export interface LinkedStatistic {
   /** A one-tailed statement elsewhere in the text that could not be tied to this result. */
   untiedSidedness?: ContextStatement;
   doubts: string[];
+  /** For χ²: the size of the contingency table its sentence (or else its paragraph) states, where nothing else could claim it. */
+  dimensions?: Linked<TableDimensions>;
 }
 
 export interface DocumentSettings {

@@ -9,3 +9,4 @@ export { grimmerPossible, grimPossible, percentPossible } from './granularity.js
 export { requiredN, tTestPower, type PowerDesign } from './power.js';
 export { bonferroniAdjusted, sidakAdjusted } from './adjust.js';
 export { partialEtaSquaredFromF, partialEtaSquaredRange, tFromR, twoSidedPFromR, twoSidedPFromZ, twoSidedPRangeR, twoSidedPRangeZ, upperPFromChiSquare, upperPFromF, upperPRangeChiSquare, upperPRangeF } from './otherDistributions.js';
+export { associationRange, cramersV, quotientRange } from './association.js';

@@ -30,9 +30,9 @@ describe('invented manuscripts with a key written by scipy (fixtures/generated)'
 
   // F, χ², r and z results with seeded errors (p mismatch, significance flip, an r's df against its n),
   // each proved impossible in the generator by scipy over the printed rounding
-  it('has seeded errors of every F, χ², r and z type', () => {
+  it('has seeded errors of every F, χ², r, z and regression type', () => {
     expect(Object.keys(figures.statisticRecallByType).sort()).toEqual([
-      'F-p-mismatch', 'F-significance-flip', 'chi-square-p-mismatch', 'chi-square-significance-flip',
+      'F-p-mismatch', 'F-significance-flip', 'chi-square-p-mismatch', 'chi-square-significance-flip', 'coefficient-t-mismatch',
       'r-df-vs-n', 'r-p-mismatch', 'r-significance-flip', 'z-p-mismatch', 'z-significance-flip',
     ]);
   });

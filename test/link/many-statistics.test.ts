@@ -1,0 +1,26 @@
+import { describe, expect, it } from 'vitest';
+import { checkSource } from '../../src/engine/index.js';
+import { expectLinearCheck } from '../helpers.js';
+
+/**
+ * Thousands of coefficients, same-comparison Fs, stated table sizes and χ² with φ or V in one
+ * paragraph cost time in proportion to their number: the SE after a coefficient is read on a
+ * few characters, the t before an F and the φ or V after a χ² are found by binary search, and
+ * table sizes are counted once per sentence and paragraph. Invented text; the values vary.
+ */
+const unit = (i: number) => {
+  const t = (2 + (i % 200) / 100).toFixed(2);
+  return `b = 0.${String(30 + (i % 60)).padStart(2, '0')}, SE = 0.15, t(96) = ${t} (equivalently F(1, 96) = ${(Number(t) ** 2).toFixed(2)}), and in a 2 × 3 table χ2(2, N = ${100 + (i % 400)}) = ${(5 + (i % 50) / 10).toFixed(1)}, V = .${10 + (i % 80)}`;
+};
+const oneSentence = (n: number) => `# Results\n\n${Array.from({ length: n }, (_, i) => unit(i)).join('; ')}.\n`;
+const sentences = (n: number) => `# Results\n\n${Array.from({ length: n }, (_, i) => `${unit(i)}.`).join(' ')}\n`;
+
+describe('many coefficients, Fs and χ² with sizes in one paragraph', () => {
+  for (const [name, make] of Object.entries({ 'one sentence': oneSentence, 'one paragraph of sentences': sentences })) {
+    it(`${name}: checking twice as many costs less than three times as much`, () => {
+      expectLinearCheck(name, make, 1000);
+      // every coefficient's t is read (the shape is not empty)
+      expect(checkSource('x.md', make(50)).results).toHaveLength(50);
+    }, 120_000);
+  }
+});
