@@ -73,3 +73,37 @@ describe('LaTeX reader properties', () => {
     );
   });
 });
+
+/** Seconds to read `source` as LaTeX, best of two (a busy machine's pauses kept out). */
+function readTime(source: string): number {
+  const once = () => {
+    const t0 = performance.now();
+    parseDocument('x.tex', source);
+    return (performance.now() - t0) / 1000;
+  };
+  return Math.min(once(), once());
+}
+
+describe('LaTeX reader cost', () => {
+  // Shapes that would make a naive reader rescan the text: openings that never close, deep
+  // groups, a long table. Reading twice the text must take less than 3× as long (about 2 when
+  // linear, about 4 when quadratic).
+  const shapes: Array<[string, (n: number) => string]> = [
+    ['unclosed \\( in one paragraph', (n) => 'a \\( t(28) = 2.10 '.repeat(n)],
+    ['unclosed \\[ across paragraphs', (n) => 'a \\[ t(28) = 2.10\n\n'.repeat(n)],
+    ['unclosed $ in one paragraph', (n) => `${'word '.repeat(n)}$ t(28) = 2.10 ${'x '.repeat(n)}`],
+    ['unclosed \\begin{ names', (n) => '\\begin{x '.repeat(n)],
+    ['deep braces', (n) => `${'{\\textit{'.repeat(n)}t(28) = 2.10${'}}'.repeat(n)}`],
+    ['a long tabular', (n) => `\\begin{tabular}{lll}\n${'Nap & 4.20 & 1.10 \\\\\n'.repeat(n)}\\end{tabular}\n`],
+    ['many comments', (n) => 'Naps % t(28) = 2.10\n'.repeat(n)],
+  ];
+  for (const [name, make] of shapes) {
+    it(name, () => {
+      parseDocument('warm.tex', make(500));
+      const n = 20_000;
+      const small = readTime(make(n));
+      const large = readTime(make(2 * n));
+      expect(large / small, `${name}: ${small.toFixed(3)} s at ${n}, ${large.toFixed(3)} s at ${2 * n}`).toBeLessThan(3);
+    });
+  }
+});
