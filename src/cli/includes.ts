@@ -50,7 +50,7 @@ export class IncludeFollower {
     const notes: ReadNote[] = [];
     for (const inc of readLatexIncludes(source)) {
       const r = this.resolve(inc, chain);
-      if ('why' in r) notes.push({ kind: 'include-not-read', message: `\\${inc.command}{${inc.name}}: ${r.why}`, span: inc.span });
+      if ('why' in r) notes.push({ kind: 'include-not-read', message: `\\${inc.command}{${inc.name}} (${r.why})`, span: inc.span });
       else if (r.file && !this.inRun.has(r.file.real)) {
         this.inRun.add(r.file.real);
         files.push(r.file);
