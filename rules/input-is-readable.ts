@@ -6,6 +6,7 @@ const messages = {
   'markup-set-aside': 'Part of this file was read without its Markdown markup: {detail}.',
   'encoding-guessed': 'The encoding of this file had to be guessed: {detail}. If the guess is wrong, results may be missed or misread.',
   'invisible-removed': 'Invisible characters were removed from this file\'s text: {detail}.',
+  'include-not-read': 'A file this LaTeX manuscript includes was not read: {detail}. Results in it were not checked.',
 };
 
 /** The file could be read as written: every byte decoded, the Markdown structure within the parser's limits. */
@@ -19,6 +20,15 @@ export const inputIsReadable: Rule = {
   messages,
   check({ document }) {
     return (document.readNotes ?? []).map((n) => {
+      if (n.kind === 'include-not-read') {
+        return {
+          messageId: 'include-not-read',
+          span: n.span,
+          message: messages['include-not-read'].replace('{detail}', n.message),
+          reported: 'an included file',
+          check: 'Check the included file on its own (name it on the command line), or move it into the manuscript\'s folder if it belongs to the manuscript.',
+        };
+      }
       if (n.kind === 'encoding-guessed') {
         return { messageId: 'encoding-guessed', span: n.span, message: messages['encoding-guessed'].replace('{detail}', n.message), reported: 'byte-order mark', check: 'Save the file as UTF-8 without stray bytes at its start and check it again.' };
       }

@@ -18,7 +18,7 @@ interface Line {
 
 /**
  * Batch mode: each line of standard input is a path, or an NDJSON document
- * `{"id": …, "text": …, "format"?: "markdown" | "rmarkdown" | "text"}`. Every input line, blank
+ * `{"id": …, "text": …, "format"?: "markdown" | "rmarkdown" | "text" | "latex"}`. Every input line, blank
  * ones included, gives exactly one NDJSON line on standard output, in input order, as soon as it
  * is done (waiting for the stream to drain): `{"id", …report}` or `{"id", "error"}`, where `id` is
  * the path, the document's id with its JSON type, or null. Output line k answers input line k
@@ -92,8 +92,8 @@ function parseLine(text: string, n: number, cwd: string, jobFor: JobFor): Line {
     // the name a document goes by in messages and configuration lookup
     const path = id === null ? name : String(id);
     if (typeof d.text !== 'string') return { id, job: { path, error: `line ${n}: "text" must be a string` } };
-    const format = d.format === 'markdown' || d.format === 'rmarkdown' || d.format === 'text' ? d.format : undefined;
-    if (d.format !== undefined && !format) return { id, job: { path, error: `line ${n}: "format" must be markdown, rmarkdown or text` } };
+    const format = d.format === 'markdown' || d.format === 'rmarkdown' || d.format === 'text' || d.format === 'latex' ? d.format : undefined;
+    if (d.format !== undefined && !format) return { id, job: { path, error: `line ${n}: "format" must be markdown, rmarkdown, text or latex` } };
     return { id, job: jobFor(path, d.text, `${cwd}/${path}`, format) };
   }
   const path = resolve(cwd, text);

@@ -5,7 +5,7 @@ import { globSync } from 'tinyglobby';
 import { readRegularFile } from '../config/index.js';
 
 /** Extensions read when a folder is given. */
-export const MANUSCRIPT_EXTENSIONS = ['.md', '.markdown', '.txt', '.rmd', '.qmd'] as const;
+export const MANUSCRIPT_EXTENSIONS = ['.md', '.markdown', '.txt', '.rmd', '.qmd', '.tex'] as const;
 
 /**
  * Folders never walked: dependencies, and the rendered output of Quarto, R Markdown sites and

@@ -1,10 +1,11 @@
 import { dirname, isAbsolute, relative, resolve } from 'node:path';
 import { ConfigError, ConfigFinder, readConfigFile, type Config } from '../config/index.js';
 import { ruleDoc, rulePageUrl, toolVersion } from '../engine/docs.js';
-import { RULE_IDS, RULES, type CheckOptions, type FileFailure, type FileReport, type ReadNote } from '../engine/index.js';
+import { formatForPath, RULE_IDS, RULES, type CheckOptions, type FileFailure, type FileReport, type ReadNote } from '../engine/index.js';
 import type { RuleInfo, RunReport } from '../report/index.js';
 import { applyBaseline, type Baseline } from './baseline.js';
 import { expandArguments } from './files.js';
+import { IncludeFollower, realOrUndefined } from './includes.js';
 import { identity } from './output.js';
 import { checkAll, DEFAULT_BUDGET, threadsFor, type Budget, type Job } from './pool.js';
 import { DEFAULT_MAX_FILE_BYTES, decodeManuscript, readManuscript, type ReadOutcome } from './read.js';
@@ -128,18 +129,44 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
     return { path, source: outcome.text, options: { ...base, config, ...(readNotes.length > 0 ? { readNotes } : {}) } };
   };
 
+  // A LaTeX manuscript's \input and \include files are checked as documents of their own, right
+  // after it, each once in the run (see includes.ts); the files named or walked are in it already.
+  const inRun = new Set<string>();
+  for (const path of expansion.files) {
+    const real = realOrUndefined(resolve(cwd, path));
+    if (real !== undefined) inRun.add(real);
+  }
+  const withIncludes = (job: Job | undefined): Job[] => {
+    if (!job || !('source' in job) || formatForPath(job.path) !== 'latex') return job ? [job] : [];
+    const absolute = resolve(cwd, job.path);
+    const follower = new IncludeFollower(dirname(absolute), dirname(job.path), inRun);
+    const expand = (j: Job, chain: string[]): Job[] => {
+      if (!('source' in j)) return [j];
+      const { files, notes } = follower.follow(j.source, chain);
+      if (notes.length > 0) j.options = { ...j.options, readNotes: [...(j.options.readNotes ?? []), ...notes] };
+      const out: Job[] = [j];
+      for (const f of files) {
+        // undefined: its configuration is bad, and the failure for that names it
+        const child = jobFor(f.path, f.absolute, (max) => readManuscript(f.absolute, max));
+        if (child) out.push(...expand(child, [...chain, f.real]));
+      }
+      return out;
+    };
+    return expand(job, [realOrUndefined(absolute) ?? absolute]);
+  };
+
   const jobs: Job[] = [];
   if (options.stdin) {
     const { name, bytes, over } = options.stdin;
     const job = jobFor(name, resolve(cwd, name), (max) =>
       over !== undefined ? { ok: false, message: `skipped: longer than the limit of ${over} bytes; reading stopped there (--max-file-bytes)` } : decodeManuscript(bytes, max),
     );
-    if (job) jobs.push(job);
+    jobs.push(...withIncludes(job));
   }
   for (const m of expansion.missing) failures.push({ path: m.path, message: m.message });
   for (const path of expansion.files) {
     const job = jobFor(path, resolve(cwd, path), (max) => readManuscript(resolve(cwd, path), max));
-    if (job) jobs.push(job);
+    jobs.push(...withIncludes(job));
   }
   for (const [, { error, paths }] of badConfigs) {
     const shown = paths.slice(0, 5).join(', ') + (paths.length > 5 ? `, and ${paths.length - 5} more` : '');

@@ -4,7 +4,7 @@ import { extract } from '../extract/index.js';
 import type { ReportedNumber, ReportedP, Sidedness } from '../extract/types.js';
 import { link } from '../link/index.js';
 import type { DocumentSettings, Linked, ResultContext, Setting } from '../link/index.js';
-import { formatForPath, LineIndex, mayHoldStatistics, parseDocument } from '../parse/index.js';
+import { formatForPath, LineIndex, mayHoldStatistics, parseDocument, type InputFormat } from '../parse/index.js';
 import type { ParsedDocument, ReadNote, Span } from '../parse/types.js';
 import { evaluateP } from '../rule-api/evaluate.js';
 import { evaluateStatisticP } from '../rule-api/statistic.js';
@@ -16,6 +16,12 @@ import type { ChecklistRecord, FileReport, Finding, NumberRecord, Place, ResultR
 export type * from './types.js';
 export { RULES, RULE_IDS, ruleById } from './registry.js';
 export { decodeBytes, type Decoded } from '../parse/index.js';
+export { formatForPath, readLatexIncludes, type InputFormat, type LatexInclude } from '../parse/index.js';
+
+/** The format a report names for an input format (R Markdown is Markdown). */
+function sourceFormat(format: InputFormat): 'markdown' | 'text' | 'latex' {
+  return format === 'rmarkdown' ? 'markdown' : format;
+}
 export type { ReadNote } from '../parse/types.js';
 
 export interface CheckOptions {
@@ -29,7 +35,7 @@ export interface CheckOptions {
   /** Skip the Markdown parse of documents that cannot hold a statistic (default true). */
   prefilter?: boolean;
   /** Read the source as this format instead of guessing from the path. */
-  format?: 'markdown' | 'rmarkdown' | 'text';
+  format?: InputFormat;
   /** Notes from decoding the file's bytes (see `decodeBytes`), reported by input-is-readable. */
   readNotes?: ReadNote[];
 }
@@ -42,7 +48,7 @@ export function checkSource(path: string, source: string, options: CheckOptions 
   const doc =
     options.prefilter === false || mayHoldStatistics(source)
       ? parseDocument(path, source, options.format)
-      : { path, source, format: (options.format ?? formatForPath(path)) === 'text' ? ('text' as const) : ('markdown' as const), segments: [], directives: [], hadBom: source.charCodeAt(0) === 0xfeff };
+      : { path, source, format: sourceFormat(options.format ?? formatForPath(path)), segments: [], directives: [], hadBom: source.charCodeAt(0) === 0xfeff };
   const lines = new LineIndex(source);
   const resolved = resolveSettings(doc, options);
   const { levels, guidelines, checklistOn } = resolved;

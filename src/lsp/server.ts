@@ -42,7 +42,7 @@ const SEVERITY = { error: DiagnosticSeverity.Error, warning: DiagnosticSeverity.
 /** A document's path for the engine: its file path, or a name that keeps its format for an unsaved buffer. */
 function pathOf(uri: string, languageId: string): { path: string; onDisk: boolean } {
   if (uri.startsWith('file:')) return { path: fileURLToPath(uri), onDisk: true };
-  const ext = languageId === 'rmd' || languageId === 'rmarkdown' ? '.Rmd' : languageId === 'quarto' ? '.qmd' : languageId === 'plaintext' ? '.txt' : '.md';
+  const ext = languageId === 'rmd' || languageId === 'rmarkdown' ? '.Rmd' : languageId === 'quarto' ? '.qmd' : languageId === 'plaintext' ? '.txt' : languageId === 'latex' ? '.tex' : '.md';
   return { path: `untitled${ext}`, onDisk: false };
 }
 

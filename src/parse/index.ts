@@ -1,3 +1,4 @@
+import { parseLatex } from './latex.js';
 import { parseMarkdown } from './markdown.js';
 import { parsePlainText } from './plainText.js';
 import { exceedsNesting, DEPTH_LIMIT } from './depth.js';
@@ -7,13 +8,18 @@ import type { ParsedDocument, ReadNote } from './types.js';
 export { decodeBytes, type Decoded } from './decode.js';
 
 export { LineIndex } from './lines.js';
+export { parseLatex, readLatexIncludes, type LatexInclude } from './latex.js';
 export { mayHoldStatistics } from './prefilter.js';
 export type * from './types.js';
 
-/** How a path is read: `.txt` as plain text, R Markdown / Quarto with their code chunks skipped. */
-export function formatForPath(path: string): 'markdown' | 'rmarkdown' | 'text' {
+/** How a source is read: as Markdown, R Markdown / Quarto (code chunks skipped), plain text or LaTeX. */
+export type InputFormat = 'markdown' | 'rmarkdown' | 'text' | 'latex';
+
+/** How a path is read: `.txt` as plain text, `.tex` as LaTeX, R Markdown / Quarto with their code chunks skipped. */
+export function formatForPath(path: string): InputFormat {
   const lower = path.toLowerCase();
   if (lower.endsWith('.txt')) return 'text';
+  if (lower.endsWith('.tex')) return 'latex';
   if (lower.endsWith('.rmd') || lower.endsWith('.qmd')) return 'rmarkdown';
   return 'markdown';
 }
@@ -25,6 +31,7 @@ export function parseDocument(path: string, source: string, format = formatForPa
 
 function parseAs(path: string, source: string, format: ReturnType<typeof formatForPath>): ParsedDocument {
   if (format === 'text') return parsePlainText(path, source);
+  if (format === 'latex') return parseLatex(path, source);
   const deep = exceedsNesting(source);
   if (deep) {
     return asPlainText(path, source, {

@@ -71,7 +71,7 @@ export interface FrontMatter {
   error?: string;
 }
 
-export type SourceFormat = 'markdown' | 'text';
+export type SourceFormat = 'markdown' | 'text' | 'latex';
 
 export interface ParsedDocument {
   path: string;
@@ -88,7 +88,7 @@ export interface ParsedDocument {
 
 /** Something about reading the file that a user should know: the findings may be incomplete there. */
 export interface ReadNote {
-  kind: 'replaced-bytes' | 'deep-nesting' | 'parser-limit' | 'dense-markup' | 'encoding-guessed' | 'slow-shape' | 'invisible-characters';
+  kind: 'replaced-bytes' | 'deep-nesting' | 'parser-limit' | 'dense-markup' | 'encoding-guessed' | 'slow-shape' | 'invisible-characters' | 'include-not-read';
   message: string;
   span: Span;
 }

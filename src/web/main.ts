@@ -87,7 +87,7 @@ function check(): void {
   const source = text.value;
   if (source.trim() === '') {
     output.innerHTML = '';
-    status.textContent = 'Paste a manuscript (Markdown or plain text) or drop a .md or .txt file.';
+    status.textContent = 'Paste a manuscript (Markdown, LaTeX or plain text) or drop a .md, .tex or .txt file.';
     return;
   }
   let report: FileReport;

@@ -241,6 +241,25 @@ describe.skipIf(!available)('in chromium', () => {
     await w.page.close();
   }, 60_000);
 
+  it('the page takes a .tex file from the picker and reads it as LaTeX: a result in a comment is not read', async () => {
+    const w = await open(pathToFileURL(PAGE).href);
+    expect(await w.page.getAttribute('#file', 'accept')).toContain('.tex');
+    // invented; t(28) = 2.10 gives p = .045 (scipy.stats.t.sf(2.10, 28) * 2 = 0.0449): neither p = .020 nor p = .90 follows
+    const tex = '\\begin{document}\nNaps helped, $t(28) = 2.10$, $p = .020$. % t(28) = 2.10, p = .90\n\\end{document}\n';
+    const asTex = checkSource('sleep.tex', tex, { checklist: false, config: { guidelines: 'all' } });
+    const asMarkdown = checkSource('sleep.md', tex, { checklist: false, config: { guidelines: 'all' } });
+    // the check can fail: read as Markdown, the comment's result is flagged
+    expect(asTex.findings.map((f) => f.ruleId)).toContain('p-follows-from-t');
+    expect(asMarkdown.findings.length).toBeGreaterThan(asTex.findings.length);
+    await w.page.setInputFiles('#file', { name: 'sleep.tex', mimeType: 'text/x-tex', buffer: Buffer.from(tex) });
+    await w.page.waitForFunction(() => (document.getElementById('name') as HTMLInputElement).value === 'sleep.tex');
+    await w.page.waitForFunction((n) => document.querySelectorAll('details.card').length === n, asTex.findings.length, { timeout: 10_000 });
+    expect((await counts(w.page)).cards).toBe(asTex.findings.length);
+    expect(w.errors).toEqual([]);
+    expect(w.requests).toEqual([]);
+    await w.page.close();
+  }, 60_000);
+
   it('the page refuses a dropped binary file, says so, and keeps what it showed', async () => {
     const w = await open(pathToFileURL(PAGE).href);
     await w.page.fill('#manuscript', 'Errors rose, t(40) = 3.10, p = .20.');
