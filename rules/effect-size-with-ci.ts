@@ -24,7 +24,7 @@ function sentenceReadings(document: LinkedDocument) {
   );
   const forChi = groupBy(
     [
-      ...x.otherStatistics.filter((o) => o.kind === 'ratio' || (o.kind === 'rank-or-other' && /^V\b/u.test(o.printed))),
+      ...x.otherStatistics.filter((o) => o.kind === 'ratio' || o.kind === 'association' || (o.kind === 'rank-or-other' && /^V\b/u.test(o.printed))),
       ...x.effectSizes,
     ],
     (e) => key(e.segment, e.sentence),
@@ -49,15 +49,16 @@ export const effectSizeWithCi = checklistRule({
       if (s.kind !== 'F' && s.kind !== 'chi-square') return undefined;
       readings ??= sentenceReadings(document);
       const k = key(s.segment, s.sentence);
-      const own: Effect | undefined = s.etaSquared;
+      const own: Effect | undefined = s.etaSquared ?? s.association;
       const effect: Effect | undefined = own ?? (s.kind === 'F' ? readings.forF : readings.forChi).get(k)?.[0];
       const interval = readings.intervals.get(k)?.[0];
       const base = statisticBase(linked);
       const printed = s.reportPrinted ?? s.printed;
       if (effect && interval) return { ...base, status: 'found', span: interval.span, detail: `${effect.printed}, ${interval.printed}` };
       if (effect) return { ...base, status: 'missing', span: s.reportSpan ?? s.span, detail: `${printed} with ${effect.printed} but without a confidence interval` };
-      // φ is not read yet, so a χ² whose sentence shows no effect size plumbline reads may hold one
-      if (s.kind === 'chi-square') return { ...base, status: 'not-applicable', detail: 'no effect size read beside the χ² (φ is not read)' };
+      // φ, V and odds ratios are read, but not every effect size a χ² may carry (w, a risk
+      // difference in words): a χ² whose sentence shows none of them is left undecided
+      if (s.kind === 'chi-square') return { ...base, status: 'not-applicable', detail: 'no effect size read beside the χ² (φ, V and odds ratios are read; others are not)' };
       return { ...base, status: 'missing', span: s.reportSpan ?? s.span, detail: `${printed} without an effect size${interval ? '' : ' or a confidence interval'}` };
     };
     return resultEntries(

@@ -123,15 +123,17 @@ describe('the per-result items read F, χ², r and z results too, in reading ord
     ]);
     expect(entries('Sleep tracked mood, r = .32, n = 50, p = .023.', 'statistic-has-df')).toEqual(['found n = 50 (df = n − 2)']);
   });
-  it('an effect size with its CI: an F or χ² only, an F without one missing, a χ² without one read not applicable (φ is not read)', () => {
+  it('an effect size with its CI: an F or χ² only, an F without one missing, a χ² without one read not applicable (not every effect size of a χ² is read)', () => {
     expect(entries(text, 'effect-size-with-ci')).toEqual([
       'missing t(28) = 2.10, p = .045 without an effect size or a confidence interval',
       'missing F(2, 57) = 4.31, p < .05 without an effect size or a confidence interval',
-      'not-applicable no effect size read beside the χ² (φ is not read)',
+      'not-applicable no effect size read beside the χ² (φ, V and odds ratios are read; others are not)',
     ]);
     expect(entries('Mood differed across the rooms, F(2, 57) = 4.31, p = .018, ηp2 = .13, 90% CI [.01, .26].', 'effect-size-with-ci')).toEqual(['found ηp2 = .13, 90% CI [.01, .26]']);
     expect(entries('Mood differed across the rooms, F(2, 57) = 4.31, p = .018, ηp2 = .13.', 'effect-size-with-ci')).toEqual(['missing F(2, 57) = 4.31, p = .018 with ηp2 = .13 but without a confidence interval']);
     expect(entries('Choice of seat depended on the hour, χ²(1, N = 120) = 5.10, p = .024, V = .21, 95% CI [.05, .37].', 'effect-size-with-ci')).toEqual(['found V = .21, 95% CI [.05, .37]']);
+    // φ and V are read as the χ²'s own association (rule association-follows-from-chi-square)
+    expect(entries('Choice of seat depended on the hour, χ²(1, N = 120) = 5.10, p = .024, φ = .21.', 'effect-size-with-ci')).toEqual(['missing χ^2(1, N = 120) = 5.10, p = .024 with φ = .21 but without a confidence interval']);
   });
   it('the Markdown checklist counts them, names their lines and lists them among the results read', () => {
     const report = checkSource('s.md', text, { checklist: true });
