@@ -89,6 +89,26 @@ table.checklist td, table.checklist th { border: 1px solid var(--rule); padding:
 @media print { .layout { grid-template-columns: 1fr; } details.card { page-break-inside: avoid; } a { color: inherit; } }
 `;
 
+/**
+ * The start of a self-contained page, up to <body>: a policy that forbids every load (no script,
+ * no request; styles inline, images as data), no referrer. The report and the corpus summary
+ * share it, so the policy is written once.
+ */
+export function pageStart(title: string, css: string): string {
+  return `<!DOCTYPE html>
+<html lang="en">
+<head>
+<meta charset="utf-8">
+<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:; base-uri 'none'; form-action 'none'">
+<meta name="referrer" content="no-referrer">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<title>${escapeHtml(title)}</title>
+<style>${css}</style>
+</head>
+<body>
+`;
+}
+
 /** The HTML report for a whole run. */
 export function formatHtml(run: RunReport, options: { title?: string } = {}): string {
   return wholeText(formatHtmlChunks(run, options));
@@ -102,18 +122,7 @@ export function* formatHtmlChunks(run: RunReport, options: { title?: string } = 
   const title = options.title ?? `plumbline report: ${run.files.map((f) => f.path).join(', ') || 'no files'}`;
   // every p picture of the report on one axis, so they can be compared across files too
   const pAxis = pAxisFor(run.files.flatMap((f) => pRowsOf(f.results, f.statistics).map((x) => x.row)));
-  yield `<!DOCTYPE html>
-<html lang="en">
-<head>
-<meta charset="utf-8">
-<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:; base-uri 'none'; form-action 'none'">
-<meta name="referrer" content="no-referrer">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<title>${escapeHtml(title)}</title>
-<style>${REPORT_CSS}</style>
-</head>
-<body>
-`;
+  yield pageStart(title, REPORT_CSS);
   yield* joined([
     '<header class="top">',
     `<h1>${escapeHtml(title)}</h1>`,

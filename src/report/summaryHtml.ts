@@ -4,7 +4,7 @@
  * network load. Layout only: bar lengths are the summary's counts and rates scaled to pixels.
  */
 import type { CorpusSummary } from '../corpus/summary.js';
-import { cautionsHtml, REPORT_CSS } from './html.js';
+import { cautionsHtml, pageStart, REPORT_CSS } from './html.js';
 import { escapeHtml, shortNumber } from './escape.js';
 import { labelWidth } from './pictures.js';
 import { binLabel } from './summaryCsv.js';
@@ -108,18 +108,7 @@ ${s.gaps.map((g) => `<tr><td class="name">${escapeHtml(g.ruleId)}</td>${g.counts
     '</section>',
     `<footer>${cautionsHtml()}</footer>`,
   ].join('\n');
-  return `<!DOCTYPE html>
-<html lang="en">
-<head>
-<meta charset="utf-8">
-<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:; base-uri 'none'; form-action 'none'">
-<meta name="referrer" content="no-referrer">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<title>${escapeHtml(title)}</title>
-<style>${REPORT_CSS}${SUMMARY_CSS}</style>
-</head>
-<body>
-${body}
+  return `${pageStart(title, `${REPORT_CSS}${SUMMARY_CSS}`)}${body}
 </body>
 </html>
 `;
