@@ -81,7 +81,8 @@ function readTime(source: string): number {
     parseDocument('x.tex', source);
     return (performance.now() - t0) / 1000;
   };
-  return Math.min(once(), once());
+  // the best of five: at tens of milliseconds a single collection can double one reading
+  return Math.min(once(), once(), once(), once(), once());
 }
 
 describe('LaTeX reader cost', () => {
@@ -100,7 +101,7 @@ describe('LaTeX reader cost', () => {
   for (const [name, make] of shapes) {
     it(name, () => {
       parseDocument('warm.tex', make(500));
-      const n = 20_000;
+      const n = 40_000;
       const small = readTime(make(n));
       const large = readTime(make(2 * n));
       expect(large / small, `${name}: ${small.toFixed(3)} s at ${n}, ${large.toFixed(3)} s at ${2 * n}`).toBeLessThan(3);
