@@ -6,14 +6,14 @@ import { DEFAULT_MAX_FILE_BYTES, readManuscript, type ReadOutcome } from './read
 import { checkAll, DEFAULT_BUDGET, type Budget, type Job } from './pool.js';
 import type { Io } from './run.js';
 
-type JobFor = (path: string, source: string | ((maxBytes: number) => ReadOutcome), configPath: string, format?: CheckOptions['format']) => Job;
+type JobFor = (path: string, source: string | ((maxBytes: number) => ReadOutcome | Promise<ReadOutcome>), configPath: string, format?: CheckOptions['format']) => Job | Promise<Job>;
 
 /** A document's id as its line gave it: a JSON string or number keeps its type; null when the line has none. */
 type Id = string | number | null;
 
 interface Line {
   id: Id;
-  job: Job;
+  job: Job | Promise<Job>;
 }
 
 /**
@@ -50,7 +50,7 @@ export async function runBatch(io: Io, jobFor: JobFor, threads: number | 'auto',
       }
       const line = parseLine(raw.trim(), n, io.cwd, jobFor);
       ids.push(line.id);
-      yield line.job;
+      yield await line.job;
     }
   }
   await checkAll(lines(), threads, async (o, i) => {

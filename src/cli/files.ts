@@ -5,7 +5,7 @@ import { globSync } from 'tinyglobby';
 import { readRegularFile } from '../config/index.js';
 
 /** Extensions read when a folder is given. */
-export const MANUSCRIPT_EXTENSIONS = ['.md', '.markdown', '.txt', '.rmd', '.qmd', '.tex'] as const;
+export const MANUSCRIPT_EXTENSIONS = ['.md', '.markdown', '.txt', '.rmd', '.qmd', '.tex', '.docx', '.pdf'] as const;
 
 /**
  * Folders never walked: dependencies, and the rendered output of Quarto, R Markdown sites and
@@ -51,6 +51,7 @@ const MAX_GITIGNORE_BYTES = 1024 * 1024;
 /**
  * Arguments into files, in a stable order: a file as given (any extension, never ignored); a
  * folder walked recursively for manuscript extensions (skipping SKIPPED_FOLDERS, dot-folders,
+ * Word's `~$` owner files of an open document,
  * what .gitignore files and the configuration's `ignore` patterns exclude, and following
  * symbolic links once: a link loop is visited only once); a glob expanded, less what is
  * ignored. Relative arguments are taken from `cwd` and reported as given. Symbolic links that
@@ -257,7 +258,7 @@ function walk(dir: string, visited: Set<string>, add: (f: string) => void, at: (
     }
     if (isDir) {
       if (!ignored.test(at(path), true, top)) walk(path, visited, add, at, ignored, top, bounds);
-    } else if (isFile && isManuscript(e.name) && !ignored.test(at(path), false, top)) add(path);
+    } else if (isFile && isManuscript(e.name) && !e.name.startsWith('~$') && !ignored.test(at(path), false, top)) add(path);
   }
 }
 

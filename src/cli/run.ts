@@ -320,7 +320,7 @@ async function batch(options: CliOptions, io: Io, writes: string[]): Promise<num
     ...(options.tails ? { sidedness: options.tails } : {}),
     ...(options.checklist !== undefined ? { checklist: options.checklist } : {}),
   };
-  const jobFor = (path: string, source: string | ((maxBytes: number) => ReadOutcome), configPath: string, format?: CheckOptions['format']): Job => {
+  const jobFor = async (path: string, source: string | ((maxBytes: number) => ReadOutcome | Promise<ReadOutcome>), configPath: string, format?: CheckOptions['format']): Promise<Job> => {
     let config: Config;
     try {
       config = explicit ?? finder.forFile(configPath).config;
@@ -341,9 +341,9 @@ async function batch(options: CliOptions, io: Io, writes: string[]): Promise<num
       return { path, source, options: { ...base, config, ...(format ? { format } : {}) } };
     }
     if (writes.includes(identity(path, io.cwd))) return { path, error: 'not checked: this is the output file (--output), which plumbline never reads as input' };
-    const outcome = source(options.maxFileBytes ?? config.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES);
+    const outcome = await source(options.maxFileBytes ?? config.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES);
     if (!outcome.ok) return { path, error: outcome.message };
-    return { path, source: outcome.text, options: { ...base, config, ...(outcome.notes.length > 0 ? { readNotes: outcome.notes } : {}) } };
+    return { path, source: outcome.text, options: { ...base, config, ...(outcome.notes.length > 0 ? { readNotes: outcome.notes } : {}), ...(outcome.document ? { document: outcome.document } : {}) } };
   };
   return runBatch(io, jobFor, options.jobs ?? 'auto', budgetOf(options), options.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES, options.firstLine ?? 1);
 }

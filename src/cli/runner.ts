@@ -112,7 +112,7 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
     ...(options.sidedness ? { sidedness: options.sidedness } : {}),
     ...(options.checklist !== undefined ? { checklist: options.checklist } : {}),
   };
-  const jobFor = (path: string, configFrom: string, source: (maxBytes: number) => ReadOutcome): Job | undefined => {
+  const jobFor = async (path: string, configFrom: string, source: (maxBytes: number) => ReadOutcome | Promise<ReadOutcome>): Promise<Job | undefined> => {
     let config: Config;
     try {
       config = explicit ?? finder.forFile(configFrom).config;
@@ -123,10 +123,10 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
       badConfigs.set(e.file, seen);
       return undefined;
     }
-    const outcome = source(options.maxFileBytes ?? config.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES);
+    const outcome = await source(options.maxFileBytes ?? config.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES);
     if (!outcome.ok) return { path, error: outcome.message };
     const readNotes: ReadNote[] = outcome.notes;
-    return { path, source: outcome.text, options: { ...base, config, ...(readNotes.length > 0 ? { readNotes } : {}) } };
+    return { path, source: outcome.text, options: { ...base, config, ...(readNotes.length > 0 ? { readNotes } : {}), ...(outcome.document ? { document: outcome.document } : {}) } };
   };
 
   // A LaTeX manuscript's \input and \include files are checked as documents of their own, right
@@ -136,37 +136,37 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
     const real = realOrUndefined(resolve(cwd, path));
     if (real !== undefined) inRun.add(real);
   }
-  const withIncludes = (job: Job | undefined): Job[] => {
+  const withIncludes = async (job: Job | undefined): Promise<Job[]> => {
     if (!job || !('source' in job) || formatForPath(job.path) !== 'latex') return job ? [job] : [];
     const absolute = resolve(cwd, job.path);
     const follower = new IncludeFollower(dirname(absolute), dirname(job.path), inRun);
-    const expand = (j: Job, chain: string[]): Job[] => {
+    const expand = async (j: Job, chain: string[]): Promise<Job[]> => {
       if (!('source' in j)) return [j];
       const { files, notes } = follower.follow(j.source, chain);
       if (notes.length > 0) j.options = { ...j.options, readNotes: [...(j.options.readNotes ?? []), ...notes] };
       const out: Job[] = [j];
       for (const f of files) {
         // undefined: its configuration is bad, and the failure for that names it
-        const child = jobFor(f.path, f.absolute, (max) => readManuscript(f.absolute, max));
-        if (child) out.push(...expand(child, [...chain, f.real]));
+        const child = await jobFor(f.path, f.absolute, (max) => readManuscript(f.absolute, max));
+        if (child) out.push(...(await expand(child, [...chain, f.real])));
       }
       return out;
     };
-    return expand(job, [realOrUndefined(absolute) ?? absolute]);
+    return await expand(job, [realOrUndefined(absolute) ?? absolute]);
   };
 
   const jobs: Job[] = [];
   if (options.stdin) {
     const { name, bytes, over } = options.stdin;
-    const job = jobFor(name, resolve(cwd, name), (max) =>
-      over !== undefined ? { ok: false, message: `skipped: longer than the limit of ${over} bytes; reading stopped there (--max-file-bytes)` } : decodeManuscript(bytes, max),
+    const job = await jobFor(name, resolve(cwd, name), (max) =>
+      over !== undefined ? { ok: false, message: `skipped: longer than the limit of ${over} bytes; reading stopped there (--max-file-bytes)` } : decodeManuscript(bytes, max, name),
     );
-    jobs.push(...withIncludes(job));
+    jobs.push(...(await withIncludes(job)));
   }
   for (const m of expansion.missing) failures.push({ path: m.path, message: m.message });
   for (const path of expansion.files) {
-    const job = jobFor(path, resolve(cwd, path), (max) => readManuscript(resolve(cwd, path), max));
-    jobs.push(...withIncludes(job));
+    const job = await jobFor(path, resolve(cwd, path), (max) => readManuscript(resolve(cwd, path), max));
+    jobs.push(...(await withIncludes(job)));
   }
   for (const [, { error, paths }] of badConfigs) {
     const shown = paths.slice(0, 5).join(', ') + (paths.length > 5 ? `, and ${paths.length - 5} more` : '');

@@ -4,19 +4,22 @@ import { extract } from '../extract/index.js';
 import type { ReportedNumber, ReportedP, Sidedness } from '../extract/types.js';
 import { link } from '../link/index.js';
 import type { DocumentSettings, Linked, ResultContext, Setting } from '../link/index.js';
-import { formatForPath, LineIndex, mayHoldStatistics, parseDocument, type InputFormat } from '../parse/index.js';
-import type { ParsedDocument, ReadNote, Span } from '../parse/types.js';
+import { formatForPath, LineIndex, mayHoldStatistics, parseDocument, unitAt, type InputFormat } from '../parse/index.js';
+import type { OriginalMap, ParsedDocument, ReadNote, Span } from '../parse/types.js';
 import { evaluateP } from '../rule-api/evaluate.js';
 import { evaluateStatisticP } from '../rule-api/statistic.js';
 import { linkDoubts } from '../rule-api/doubts.js';
 import type { Guideline, Level, LevelSetting } from '../rule-api/types.js';
 import { RULE_IDS, RULES } from './registry.js';
-import type { ChecklistRecord, FileReport, Finding, NumberRecord, Place, ResultRecord, StatisticRecord } from './types.js';
+import type { ChecklistRecord, FileReport, Finding, NumberRecord, OriginalPlace, Place, ResultRecord, StatisticRecord } from './types.js';
 
 export type * from './types.js';
 export { RULES, RULE_IDS, ruleById } from './registry.js';
 export { decodeBytes, type Decoded } from '../parse/index.js';
 export { formatForPath, readLatexIncludes, type InputFormat, type LatexInclude } from '../parse/index.js';
+export { binaryKindOf, readBinaryDocument, type BinaryKind, type BinaryOutcome } from '../parse/index.js';
+export { documentFromBlocks, type Block, type BlockNote, type BlockPiece, type BlocksOptions } from '../parse/index.js';
+export type { OriginalMap, OriginalUnit, ParsedDocument } from '../parse/types.js';
 
 /** The format a report names for an input format (R Markdown is Markdown). */
 function sourceFormat(format: InputFormat): 'markdown' | 'text' | 'latex' {
@@ -38,6 +41,11 @@ export interface CheckOptions {
   format?: InputFormat;
   /** Notes from decoding the file's bytes (see `decodeBytes`), reported by input-is-readable. */
   readNotes?: ReadNote[];
+  /**
+   * The document already read by a binary front end (Word, PDF: `documentFromBlocks`); its
+   * `source` must be the `source` given. Places then carry `original`.
+   */
+  document?: ParsedDocument;
 }
 
 /**
@@ -45,8 +53,9 @@ export interface CheckOptions {
  * positions. Never throws for anything in the document itself.
  */
 export function checkSource(path: string, source: string, options: CheckOptions = {}): FileReport {
-  const doc =
-    options.prefilter === false || mayHoldStatistics(source)
+  const doc = options.document
+    ? options.document
+    : options.prefilter === false || mayHoldStatistics(source)
       ? parseDocument(path, source, options.format)
       : { path, source, format: sourceFormat(options.format ?? formatForPath(path)), segments: [], directives: [], hadBom: source.charCodeAt(0) === 0xfeff };
   const lines = new LineIndex(source);
@@ -56,7 +65,10 @@ export function checkSource(path: string, source: string, options: CheckOptions 
   const settings = readNotes.length > 0 ? { ...resolved.settings, readNotes } : resolved.settings;
   const extraction = extract(doc);
   const linked = link(extraction, doc.directives, settings);
-  const place = (span: Span): Place => ({ span, start: lines.position(span.start), end: lines.position(span.end) });
+  const original = doc.original;
+  const place = original
+    ? (span: Span): Place => ({ span, start: lines.position(span.start), end: lines.position(span.end), ...originalPlace(original, source, span) })
+    : (span: Span): Place => ({ span, start: lines.position(span.start), end: lines.position(span.end) });
 
   const findings: Finding[] = [];
   const quiet = quietIndex(doc);
@@ -169,7 +181,31 @@ export function checkSource(path: string, source: string, options: CheckOptions 
       ...(e ? { recomputed: { readings: e.readings.map((r) => ({ name: r.name, low: r.range.low, high: r.range.high, fits: r.fits })), fits: e.fits } } : {}),
     });
   }
-  return { path, format: doc.format, results, statistics, findings, checklist, guidelines, alpha: linked.documentAlpha, sidedness: linked.documentSidedness, hidden: { quiet: quieted, baseline: 0 }, source };
+  return { path, format: doc.format, results, statistics, findings, checklist, guidelines, alpha: linked.documentAlpha, sidedness: linked.documentSidedness, hidden: { quiet: quieted, baseline: 0 }, source, ...(original ? { original: { kind: original.kind, ...(original.trackedChanges ? { trackedChanges: true } : {}) } } : {}) };
+}
+
+/** Characters of context on each side of a PDF place (`around`), cut back to whole words. */
+const AROUND_CHARS = 32;
+const SPACE = /\s/;
+const SPACES = /\s+/g;
+
+/** Where a span of a binary document's extracted text sits in the original file (empty when the map has no unit). */
+function originalPlace(map: OriginalMap, source: string, span: Span): { original?: OriginalPlace } {
+  const u = unitAt(map, span.start);
+  if (!u) return {};
+  const offset = Math.max(0, Math.min(span.start, u.end) - u.start) + (u.charOffset ?? 0);
+  if (map.kind === 'docx') return { original: { kind: 'paragraph', paragraph: u.paragraph ?? 0, char: offset + 1, opening: u.opening } };
+  return { original: { kind: 'page', page: u.page ?? 0, line: u.line ?? 0, around: around(source, span) } };
+}
+
+/** The words around a span, spacing collapsed, `…` where cut. */
+function around(source: string, span: Span): string {
+  let a = Math.max(0, span.start - AROUND_CHARS);
+  let b = Math.min(source.length, span.end + AROUND_CHARS);
+  if (a > 0) while (a < span.start && !SPACE.test(source[a - 1] as string)) a += 1;
+  if (b < source.length) while (b > span.end && !SPACE.test(source[b] as string)) b -= 1;
+  const text = source.slice(a, b).replace(SPACES, ' ').trim();
+  return `${a > 0 ? '… ' : ''}${text}${b < source.length ? ' …' : ''}`;
 }
 
 function contextRecord(c: ResultContext, place: (s: Span) => Place): ResultRecord['context'] {

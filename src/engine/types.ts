@@ -3,11 +3,26 @@ import type { IntervalTarget, LinkBasis, Setting } from '../link/types.js';
 import type { Position, SourceFormat, Span } from '../parse/types.js';
 import type { Figure, Fix, Gap, Guideline, Level, Recomputed } from '../rule-api/types.js';
 
-/** A place in a file: offsets and 1-based line/column of both ends (end exclusive). */
+/**
+ * Where a place of a binary document's extracted text sits in the original file, for a person
+ * to find it: a Word paragraph (1-based, as Word's navigation counts them), the 1-based
+ * character inside it and the paragraph's first words; or a PDF page, the line on it and the
+ * words around the place.
+ */
+export type OriginalPlace =
+  | { kind: 'paragraph'; paragraph: number; char: number; opening: string }
+  | { kind: 'page'; page: number; line: number; around: string };
+
+/**
+ * A place in a file: offsets and 1-based line/column of both ends (end exclusive). For a Word
+ * or PDF file the offsets, lines and columns are those of the extracted text, and `original`
+ * says where the place is in the file itself.
+ */
 export interface Place {
   span: Span;
   start: Position;
   end: Position;
+  original?: OriginalPlace;
 }
 
 export interface NumberRecord extends Place {
@@ -161,8 +176,10 @@ export interface FileReport {
   sidedness: Setting<Sidedness>;
   /** Findings not reported: silenced by a quiet comment in the file, or recorded in a baseline. */
   hidden: { quiet: number; baseline: number };
-  /** The source text, for formatters that show the line of a finding. */
+  /** The source text, for formatters that show the line of a finding (for Word and PDF files, the extracted text). */
   source: string;
+  /** Word and PDF files: the text was extracted from this kind of file; Word: whether it held tracked changes. */
+  original?: { kind: 'docx' | 'pdf'; trackedChanges?: boolean };
 }
 
 /** A file that could not be checked at all. */

@@ -71,7 +71,36 @@ export interface FrontMatter {
   error?: string;
 }
 
-export type SourceFormat = 'markdown' | 'text' | 'latex';
+export type SourceFormat = 'markdown' | 'text' | 'latex' | 'docx' | 'pdf';
+
+/**
+ * A stretch of the extracted text of a binary document (Word, PDF) and where it sits in the
+ * original file: a Word paragraph, or a line of a PDF page.
+ */
+export interface OriginalUnit {
+  /** [start, end) in ParsedDocument.source. */
+  start: number;
+  end: number;
+  /** Word: 1-based, as Word's navigation counts paragraphs (which ones count: see src/parse/docx/read.ts). */
+  paragraph?: number;
+  /** PDF: 1-based physical page. */
+  page?: number;
+  /** PDF: 1-based line on that page (after running heads and line numbers are removed). */
+  line?: number;
+  /** Offset inside the paragraph or line of the unit's first character (usually 0). */
+  charOffset?: number;
+  /** The first words of the paragraph or the line, for a person to search for. */
+  opening: string;
+}
+
+/** Where each stretch of a binary document's extracted text sits in the original file. */
+export interface OriginalMap {
+  kind: 'docx' | 'pdf';
+  /** In source order, not overlapping. */
+  units: OriginalUnit[];
+  /** Word: the file held tracked changes (read as accepted). */
+  trackedChanges?: boolean;
+}
 
 export interface ParsedDocument {
   path: string;
@@ -84,11 +113,16 @@ export interface ParsedDocument {
   hadBom: boolean;
   /** What plumbline could not read as written (undecodable bytes, nesting past the parser's limits). */
   readNotes?: ReadNote[];
+  /**
+   * For a document read from a binary file (Word, PDF): `source` is the extracted text, and this
+   * says where each stretch of it sits in the original file.
+   */
+  original?: OriginalMap;
 }
 
 /** Something about reading the file that a user should know: the findings may be incomplete there. */
 export interface ReadNote {
-  kind: 'replaced-bytes' | 'deep-nesting' | 'parser-limit' | 'dense-markup' | 'encoding-guessed' | 'slow-shape' | 'invisible-characters' | 'include-not-read';
+  kind: 'replaced-bytes' | 'deep-nesting' | 'parser-limit' | 'dense-markup' | 'encoding-guessed' | 'slow-shape' | 'invisible-characters' | 'include-not-read' | 'tracked-changes' | 'document-part-not-read';
   message: string;
   span: Span;
 }

@@ -4,6 +4,7 @@ import { CAUTIONS, type RunReport } from './types.js';
 import { terminalLine } from './text.js';
 import { joined, wholeText } from './chunks.js';
 import { resultCount, resultsInReadingOrder } from './readingOrder.js';
+import { shortPlace } from './places.js';
 
 const CONSISTENCY_RULES = new Set(['sample-size-agrees-with-df', 'group-sizes-sum-to-total', 'repeated-result-agrees']);
 const STATUS = { found: 'found', missing: '**missing**', 'not-applicable': 'not applicable' } as const;
@@ -58,7 +59,7 @@ function fileSection(file: FileReport): string[] {
   out.push(`Items follow ${file.guidelines.map((g) => GUIDELINE_NAMES[g] ?? g).join(', ')}. ${found}`, '');
   const items = summariseChecklist(file);
   out.push('## The document', '', '| Item | Guideline | Status | Where | Detail |', '| --- | --- | --- | --- | --- |');
-  for (const s of items) if (s.scope === 'document') out.push(`| ${cell(s.record.item)} | ${refs(s)} | ${STATUS[s.status]} | ${s.line !== undefined ? `line ${s.line}` : ''} | ${cell(s.detail)} |`);
+  for (const s of items) if (s.scope === 'document') out.push(`| ${cell(s.record.item)} | ${refs(s)} | ${STATUS[s.status]} | ${s.line !== undefined ? cell(s.where ?? `line ${s.line}`) : ''} | ${cell(s.detail)} |`);
   out.push('');
   if (resultCount(file) > 0) {
     out.push('## Each result', '', '| Item | Guideline | Met | Missing for |', '| --- | --- | --- | --- |');
@@ -93,9 +94,9 @@ function refs(s: ItemSummary): string {
 
 /** A finding's line; a finding said of the whole document has none. */
 function at(f: Finding): string {
-  return f.scope === 'document' ? 'the document' : `line ${f.start.line}`;
+  return f.scope === 'document' ? 'the document' : shortPlace(f);
 }
 
 function relatedText(f: Finding): string {
-  return f.related?.length ? ` (see ${f.related.map((r) => `line ${r.start.line}`).join(', ')})` : '';
+  return f.related?.length ? ` (see ${f.related.map(shortPlace).join(', ')})` : '';
 }

@@ -1,5 +1,6 @@
 import type { ChecklistRecord, FileReport, Finding, Place, ResultRecord } from '../engine/types.js';
 import type { Level } from '../rule-api/types.js';
+import { originalShort } from './places.js';
 
 /**
  * The reporting checklist as people read it, shared by the formatters: one line per item, the
@@ -18,6 +19,8 @@ export const GUIDELINE_NAMES: Record<string, string> = {
 /** One place where a per-result item is missing. */
 export interface MissingPlace {
   line: number;
+  /** A Word or PDF file's own place (`¶34`, `p. 7 line 23`), said instead of the line of the extracted text. */
+  where?: string;
   /** The result's table and row, when it was printed in a table. */
   table?: { name: string; row?: string };
   /** The result as printed, when its line holds results that meet the item: the line alone would not say which. */
@@ -31,6 +34,8 @@ export interface DocumentItem {
   detail: string;
   /** Where it was found; a missing document item has no line. */
   line?: number;
+  /** A Word or PDF file's own place of `line` (`¶34`). */
+  where?: string;
 }
 
 export interface ResultItem {
@@ -63,20 +68,21 @@ export function summariseChecklist(file: FileReport): ItemSummary[] {
   for (const record of file.checklist) {
     const doc = record.entries.find((e) => e.scope === 'document');
     if (doc) {
-      out.push({ scope: 'document', record, status: doc.status, detail: doc.detail, ...(doc.place && doc.status !== 'missing' ? { line: doc.place.start.line } : {}) });
+      out.push({ scope: 'document', record, status: doc.status, detail: doc.detail, ...(doc.place && doc.status !== 'missing' ? { line: doc.place.start.line, ...(doc.place.original ? { where: originalShort(doc.place.original) } : {}) } : {}) });
       continue;
     }
     const entries = record.entries.filter((e) => e.scope === 'result');
     const count = (s: string) => entries.filter((e) => e.status === s).length;
-    const places = pinpoint(file, entries.filter((e) => e.status === 'missing').map((e) => placeOf(e.resultId ? byId.get(e.resultId) : undefined, e.place?.start.line)));
+    const places = pinpoint(file, entries.filter((e) => e.status === 'missing').map((e) => placeOf(e.resultId ? byId.get(e.resultId) : undefined, e.place)));
     out.push({ scope: 'result', record, found: count('found'), missing: count('missing'), notApplicable: count('not-applicable'), applicable: count('found') + count('missing'), places });
   }
   return [...out.filter((s) => s.scope === 'document'), ...out.filter((s) => s.scope === 'result')];
 }
 
-function placeOf(r: Named | undefined, fallbackLine: number | undefined): MissingPlace & { result?: Named } {
-  const line = r?.start.line ?? fallbackLine ?? 0;
-  return { line, ...(r?.table ? { table: r.table } : {}), ...(r ? { result: r } : {}) };
+function placeOf(r: Named | undefined, fallback: Place | undefined): MissingPlace & { result?: Named } {
+  const line = r?.start.line ?? fallback?.start.line ?? 0;
+  const original = r?.original ?? fallback?.original;
+  return { line, ...(original ? { where: originalShort(original) } : {}), ...(r?.table ? { table: r.table } : {}), ...(r ? { result: r } : {}) };
 }
 
 /** Names the result where its line also holds results the item does not miss. */
@@ -94,16 +100,16 @@ function pinpoint(file: FileReport, places: Array<MissingPlace & { result?: Name
  * 'Eye strain' and 'Back pain'`.
  */
 export function placeList(places: readonly MissingPlace[]): string {
-  const lines = new Map<number, { n: number; printed: string[] }>();
+  const lines = new Map<number, { n: number; printed: string[]; where?: string }>();
   const tables = new Map<string, string[]>();
   for (const p of places) {
     if (p.table) {
       const rows = tables.get(p.table.name) ?? [];
-      rows.push(p.table.row ? `'${p.table.row}'` : `the row on line ${p.line}`);
+      rows.push(p.table.row ? `'${p.table.row}'` : `the row ${p.where ? `in ${p.where}` : `on line ${p.line}`}`);
       tables.set(p.table.name, rows);
     }
     else {
-      const had = lines.get(p.line) ?? { n: 0, printed: [] };
+      const had = lines.get(p.line) ?? { n: 0, printed: [], ...(p.where ? { where: p.where } : {}) };
       had.n += 1;
       if (p.printed) had.printed.push(p.printed);
       lines.set(p.line, had);
@@ -113,8 +119,13 @@ export function placeList(places: readonly MissingPlace[]): string {
   if (lines.size > 0) {
     const list = [...lines]
       .sort((a, b) => a[0] - b[0])
-      .map(([line, { n, printed }]) => (printed.length > 0 ? `${line} (${printed.join('; ')})` : n > 1 ? `${line} (${n} results)` : String(line)));
-    parts.push(`${list.length === 1 ? 'line' : 'lines'} ${list.join(', ')}`);
+      .map(([line, { n, printed, where }]) => {
+        const name = where ?? String(line);
+        return printed.length > 0 ? `${name} (${printed.join('; ')})` : n > 1 ? `${name} (${n} results)` : name;
+      });
+    // a Word or PDF file's places name themselves (`¶34`); lines of text are `lines 19, 20`
+    const named = places.some((p) => !p.table && p.where !== undefined);
+    parts.push(named ? list.join(', ') : `${list.length === 1 ? 'line' : 'lines'} ${list.join(', ')}`);
   }
   for (const [name, rows] of tables) parts.push(`${name}, ${rows.length === 1 ? 'row' : 'rows'} ${joinAnd(rows)}`);
   return parts.join('; ');
@@ -208,7 +219,7 @@ export function checklistFindingLines(file: FileReport): ChecklistFindingLine[] 
     if (!level) continue;
     const base = { ruleId: s.record.ruleId, item: s.record.item, level };
     if (s.scope === 'document') out.push({ ...base, document: s.detail });
-    else out.push({ ...base, missing: findings.length, applicable: s.applicable, places: pinpoint(file, findings.map((f) => placeOf(f.resultId ? byId.get(f.resultId) : undefined, f.start.line))) });
+    else out.push({ ...base, missing: findings.length, applicable: s.applicable, places: pinpoint(file, findings.map((f) => placeOf(f.resultId ? byId.get(f.resultId) : undefined, f))) });
   }
   return out;
 }

@@ -16,6 +16,7 @@ import { findingPicture, pAxisFor, pOverviewChunks, pRowsOf, pStrip, resultRow, 
 import { resultCount, resultsInReadingOrder, type AnyResult } from './readingOrder.js';
 import { CAUTIONS, countRun, type RunReport } from './types.js';
 import { joined, wholeText } from './chunks.js';
+import { originalName, shortPlace } from './places.js';
 
 export { escapeHtml };
 
@@ -310,11 +311,11 @@ function card(file: FileReport, index: number, f: Finding, n: number, pAxis: PAx
     rows.push(`<dt>Difference</dt><dd>${fmt(g.absolute)}${digits}${allowance}</dd>`);
   }
   rows.push(`<dt>What to check</dt><dd>${escapeHtml(f.check)}</dd>`);
-  for (const r of f.related ?? []) rows.push(`<dt>See also</dt><dd><a href="#${anchor(index, 'L', r.start.line)}">line ${r.start.line}</a>: ${escapeHtml(r.message)}</dd>`);
+  for (const r of f.related ?? []) rows.push(`<dt>See also</dt><dd><a href="#${anchor(index, 'L', r.start.line)}">${escapeHtml(shortPlace(r))}</a>: ${escapeHtml(r.message)}</dd>`);
   const result = f.resultId ? file.results.find((r) => r.id === f.resultId) : undefined;
   const picture = findingPicture(f, result, pAxis);
   return `<details class="card lvl-${f.level}" id="${anchor(index, 'card', n)}" data-card="${n}" open>
-<summary><span class="sym" aria-hidden="true">${s.symbol}</span> ${s.word} · ${escapeHtml(f.ruleId)} ${f.scope === 'document' ? '<span class="where">the whole document</span>' : `<a class="where" href="#${anchor(index, 'L', f.start.line)}">line ${f.start.line}, column ${f.start.column}</a>`}</summary>
+<summary><span class="sym" aria-hidden="true">${s.symbol}</span> ${s.word} · ${escapeHtml(f.ruleId)} ${f.scope === 'document' ? '<span class="where">the whole document</span>' : `<a class="where" href="#${anchor(index, 'L', f.start.line)}">${f.original ? escapeHtml(originalName(f.original)) : `line ${f.start.line}, column ${f.start.column}`}</a>`}</summary>
 <p>${escapeHtml(f.message)}</p>
 <dl>${rows.join('')}</dl>${picture}
 </details>`;
@@ -330,7 +331,7 @@ function resultItem(index: number, item: AnyResult, pAxis: PAxis, flagged: Findi
   const status = worst ? `<span class="lvl-${worst}"><span class="sym">${SEVERITY[worst].symbol}</span> ${flagged.length} finding${flagged.length === 1 ? '' : 's'}</span>` : r.recomputed ? 'no finding' : 'not recomputed';
   const row = item.kind === 't' ? resultRow(item.record) : statisticRow(item.record);
   // the strip in a column of its own, so strips line up down the list on the shared axis
-  return `<li id="${resultAnchor(index, item.kind === 't' ? 'result' : 'statistic', item.n)}"><div class="rrow"><span><a href="#${anchor(index, 'L', r.start.line)}">line ${r.start.line}</a>: <code>${escapeHtml(r.printed)}</code> — ${status}</span><span class="pic">${row ? pStrip(row, pAxis) : ''}</span></div></li>`;
+  return `<li id="${resultAnchor(index, item.kind === 't' ? 'result' : 'statistic', item.n)}"><div class="rrow"><span><a href="#${anchor(index, 'L', r.start.line)}">${escapeHtml(shortPlace(r))}</a>: <code>${escapeHtml(r.printed)}</code> — ${status}</span><span class="pic">${row ? pStrip(row, pAxis) : ''}</span></div></li>`;
 }
 
 function worstLevel(findings: Finding[]): Level | undefined {
@@ -347,7 +348,7 @@ function checklistTable(file: FileReport, index: number): string {
   const guideline = (s: ItemSummary) => guidelineRefs(s.record).map((r) => `${escapeHtml(r.guideline)}: ${escapeHtml(r.ref)}`).join('; ');
   const doc = items.flatMap((s) =>
     s.scope === 'document'
-      ? [`<tr><td>${escapeHtml(s.record.item)}</td><td class="st-${s.status}">${s.status.replace('-', ' ')}</td><td>${escapeHtml(s.detail)}${s.line !== undefined ? ` (${byLine(s.line, `line ${s.line}`)})` : ''}</td><td>${guideline(s)}</td></tr>`]
+      ? [`<tr><td>${escapeHtml(s.record.item)}</td><td class="st-${s.status}">${s.status.replace('-', ' ')}</td><td>${escapeHtml(s.detail)}${s.line !== undefined ? ` (${byLine(s.line, s.where ?? `line ${s.line}`)})` : ''}</td><td>${guideline(s)}</td></tr>`]
       : [],
   );
   const perResult = items.flatMap((s) => {
@@ -368,7 +369,8 @@ function checklistTable(file: FileReport, index: number): string {
 function placeLinks(places: readonly MissingPlace[], link: (line: number, text: string) => string): string {
   const seen = new Map<string, { line: number; n: number }>();
   for (const p of places) {
-    const text = p.table ? `${p.table.name}, ${p.table.row ? `row '${p.table.row}'` : `line ${p.line}`}` : `line ${p.line}${p.printed ? ` (${p.printed})` : ''}`;
+    const at = p.where ?? `line ${p.line}`;
+    const text = p.table ? `${p.table.name}, ${p.table.row ? `row '${p.table.row}'` : at}` : `${at}${p.printed ? ` (${p.printed})` : ''}`;
     const had = seen.get(text);
     if (had) had.n += 1;
     else seen.set(text, { line: p.line, n: 1 });

@@ -3,6 +3,7 @@ import { CAUTIONS, countRun, type RunReport } from './types.js';
 import { terminalLine, terminalSafe } from './text.js';
 import { checklistFindingLines, isChecklistFinding, missingText } from './checklistSummary.js';
 import { linesOf, wholeText } from './chunks.js';
+import { originalName, originalShort, shortPlace } from './places.js';
 
 export interface HumanOptions {
   color: boolean;
@@ -84,12 +85,13 @@ function* humanLines(run: RunReport, options: HumanOptions): Generator<string> {
 }
 
 function findingBlock(file: FileReport, f: Finding, paint: (s: keyof typeof STYLE, t: string) => string, width: number): string[] {
-  const where = `${f.start.line}:${f.start.column}`;
+  // a Word or PDF file: the place in the file itself, not in the text extracted from it
+  const where = f.original ? terminalLine(originalName(f.original)) : `${f.start.line}:${f.start.column}`;
   const lines = [`  ${paint('dim', where.padEnd(8))} ${paint(f.level, f.level.padEnd(7))} ${paint('dim', f.ruleId)}`];
   lines.push(...excerpt(file.source, f, paint));
   for (const l of wrap(terminalSafe(f.message), width - 4)) lines.push(`    ${l}`);
   for (const l of wrap(`what to check: ${terminalSafe(f.check)}`, width - 4)) lines.push(`    ${paint('dim', l)}`);
-  for (const r of f.related ?? []) lines.push(`    ${paint('dim', `see ${r.start.line}:${r.start.column}: ${terminalLine(r.message)}`)}`);
+  for (const r of f.related ?? []) lines.push(`    ${paint('dim', `see ${r.original ? shortPlace(r) : `${r.start.line}:${r.start.column}`}: ${terminalLine(r.message)}`)}`);
   return lines;
 }
 
@@ -124,7 +126,7 @@ function excerpt(source: string, f: Finding, paint: (s: keyof typeof STYLE, t: s
   // measured on the text as shown: a bidi control shown as <U+202E> is wider than one column
   const pad = terminalLine(line.slice(windowStart, from)).length + (windowStart > 0 ? 1 : 0);
   const marked = terminalLine(line.slice(from, to)).length;
-  const gutter = String(f.start.line);
+  const gutter = f.original ? originalShort(f.original) : String(f.start.line);
   return [
     `    ${paint('dim', `${gutter} |`)} ${terminalLine(shown)}`,
     `    ${' '.repeat(gutter.length)} ${paint('dim', '|')} ${' '.repeat(pad)}${paint(f.level, '^'.repeat(Math.max(1, marked)))}`,

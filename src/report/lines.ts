@@ -1,4 +1,5 @@
 import { linesOf, wholeText } from './chunks.js';
+import { originalName } from './places.js';
 import { terminalSafe } from './text.js';
 import type { RunReport } from './types.js';
 
@@ -22,7 +23,8 @@ function* findingLines(run: RunReport): Generator<string> {
   for (const file of run.files) {
     const path = oneLine(file.path);
     // a finding said of the whole document has no line: `path: level rule-id message`
-    for (const f of file.findings) yield `${path}${f.scope === 'document' ? '' : `:${f.start.line}:${f.start.column}`}: ${f.level} ${f.ruleId} ${oneLine(f.message)} — check: ${oneLine(f.check)}`;
+    // a Word or PDF file: `paper.docx ¶34 (“Recall was …”) char 112: …`, the place in the file itself
+    for (const f of file.findings) yield `${path}${f.scope === 'document' ? '' : f.original ? ` ${oneLine(originalName(f.original))}` : `:${f.start.line}:${f.start.column}`}: ${f.level} ${f.ruleId} ${oneLine(f.message)} — check: ${oneLine(f.check)}`;
   }
 }
 

@@ -1,4 +1,5 @@
 import { relative, resolve, sep } from 'node:path';
+import { originalName, originalShort } from './places.js';
 import { pathToFileURL } from 'node:url';
 import type { ArtifactLocation, Log, ReportingDescriptor, Result } from 'sarif';
 import type { Finding } from '../engine/types.js';
@@ -94,14 +95,22 @@ function result(f: Finding, location: ArtifactLocation, ruleIndex: number | unde
     level: f.level,
     message: { text: `${f.message} ${f.check}` },
     // a finding said of the whole document (a missing checklist item) has no region: it is about the file
-    locations: [{ physicalLocation: { artifactLocation: location, ...(f.scope === 'document' ? {} : { region: region(f) }) } }],
+    // a place in a Word or PDF file: lines and columns of the extracted text would point into the
+    // binary file, so the place is a logical location (`¶34`, `p. 7 line 23`) with its data under properties
+    locations: [
+      f.original && f.scope !== 'document'
+        ? { physicalLocation: { artifactLocation: location }, logicalLocations: [{ name: originalShort(f.original), fullyQualifiedName: originalName(f.original) }], properties: { original: f.original } }
+        : { physicalLocation: { artifactLocation: location, ...(f.scope === 'document' ? {} : { region: region(f) }) } },
+    ],
     partialFingerprints: { [FINGERPRINT_NAME]: f.fingerprint },
     ...(f.related?.length
       ? {
           relatedLocations: f.related.map((r, id) => ({
             id,
             message: { text: r.message },
-            physicalLocation: { artifactLocation: location, region: region(r) },
+            ...(r.original
+              ? { physicalLocation: { artifactLocation: location }, logicalLocations: [{ name: originalShort(r.original), fullyQualifiedName: originalName(r.original) }], properties: { original: r.original } }
+              : { physicalLocation: { artifactLocation: location, region: region(r) } }),
           })),
         }
       : {}),

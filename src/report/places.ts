@@ -1,0 +1,20 @@
+import type { OriginalPlace, Place } from '../engine/types.js';
+
+/**
+ * How the formats name a place of a Word or PDF file for a person: `¶34 (“Recall was higher
+ * with …”) char 112` (Word: the paragraph as Word's navigation counts it, its first words and the
+ * 1-based character inside it) or `p. 7 line 23 (“… words around …”)` (PDF).
+ */
+export function originalName(o: OriginalPlace): string {
+  return o.kind === 'paragraph' ? `¶${o.paragraph} (“${o.opening}”) char ${o.char}` : `p. ${o.page} line ${o.line} (“${o.around}”)`;
+}
+
+/** The short form, for lists of places: `¶34`, `p. 7 line 23`. */
+export function originalShort(o: OriginalPlace): string {
+  return o.kind === 'paragraph' ? `¶${o.paragraph}` : `p. ${o.page} line ${o.line}`;
+}
+
+/** A place's short name in lists: the original's (`¶34`) when the file has one, else `line 12`. */
+export function shortPlace(p: Place): string {
+  return p.original ? originalShort(p.original) : `line ${p.start.line}`;
+}
