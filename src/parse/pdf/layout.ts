@@ -1,3 +1,4 @@
+import { openingWords } from '../blocks.js';
 import type { CharBox, PageRuns, PdfBlock, PdfLine, PdfPiece, TextRun } from './types.js';
 
 /**
@@ -497,15 +498,9 @@ function startsParagraph(prev: Numbered, n: Numbered, leading: number): boolean 
 }
 
 function pieceOf(n: Numbered): PdfPiece {
-  return { text: n.text, boxes: n.boxes, page: n.line.page, line: n.number, charOffset: 0, opening: opening(n.text) };
+  return { text: n.text, boxes: n.boxes, page: n.line.page, line: n.number, charOffset: 0, opening: openingWords(n.text) };
 }
 
-/** The first words of a line (at most some 60 characters, cut at a word). */
-function opening(text: string): string {
-  if (text.length <= 60) return text;
-  const cut = text.lastIndexOf(' ', 60);
-  return `${text.slice(0, cut > 20 ? cut : 60)} …`;
-}
 
 /** Lower-case words of the document as printed, hyphenated compounds kept whole. */
 function wordsOf(all: Numbered[]): Set<string> {
@@ -568,7 +563,7 @@ function tableBlocks(rows: Numbered[], table: number): PdfBlock[] {
       blocks.push({
         kind: 'tableCell',
         table: { table, row, column },
-        pieces: [{ text: c.text, boxes: c.boxes, page: r.line.page, line: r.number, charOffset: at, opening: opening(r.text) }],
+        pieces: [{ text: c.text, boxes: c.boxes, page: r.line.page, line: r.number, charOffset: at, opening: openingWords(r.text) }],
       });
       offset = at + c.text.length;
     });
