@@ -4,7 +4,7 @@ import type { ParsedDocument, Span } from '../types.js';
 import { DEFAULT_PDF_LIMITS, PdfRefusal, readPdfText, type PdfText } from './read.js';
 import type { CharBox, PdfLimits, PdfPiece } from './types.js';
 
-export { DEFAULT_PDF_LIMITS, PDF_MAX_OBJECTS, PDF_MAX_PAGES, PDF_MAX_RUNS, PdfRefusal, loadPdfJs, readPdfText, type PdfText } from './read.js';
+export { DEFAULT_PDF_LIMITS, PDF_MAX_OBJECTS, PDF_MAX_PAGES, PDF_MAX_RUNS, PdfRefusal, countObjects, loadPdfJs, readPdfText, type PdfText } from './read.js';
 export { layoutPages } from './layout.js';
 export type * from './types.js';
 
