@@ -31,6 +31,7 @@ export const OPTIONS: Array<{ name: string; short?: string; type: 'string' | 'nu
   { name: 'table', type: 'string', value: 'NAME', describe: `summarize, CSV: ${SUMMARY_TABLES.join(', ')} (default rules)` },
   { name: 'first-line', type: 'number', value: 'N', describe: 'batch: number the first input line N in messages and names (default 1), so a chunk of a larger input, checked apart, answers as the whole run would' },
   { name: 'follow-links-outside', type: 'boolean', describe: 'when walking a folder or a glob, follow symbolic links that lead outside it (default: skip them and say so; a link named on the command line is always read)' },
+  { name: 'annotate', type: 'string', value: 'FILE', describe: 'write a copy of the one PDF checked to FILE with each finding as a highlight over its characters and a note (rule, what was found, what to check); the original is never changed' },
   { name: 'fix', type: 'boolean', describe: 'apply the safe formatting fixes (each listed on its rule\'s page) to the files, written atomically; a wrong number is never changed' },
   { name: 'fix-dry-run', type: 'boolean', describe: 'print the safe formatting fixes as a unified diff; change nothing' },
   { name: 'watch', type: 'boolean', describe: 'check again whenever a file named (or in a folder named) changes, until interrupted' },

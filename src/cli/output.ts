@@ -5,7 +5,7 @@ import { basename, dirname, join, resolve } from 'node:path';
 export interface ReportSink {
   /** The path the report lands at (after following symbolic links). */
   readonly target: string;
-  write(s: string): void;
+  write(s: string | Uint8Array): void;
   /** The run completed: make the report visible. */
   commit(): void;
   /** The run failed or was refused: leave any earlier file as it was. */
@@ -153,7 +153,7 @@ class AtomicOutput implements ReportSink {
     if (mode !== undefined) fchmodSync(this.fd, mode & 0o7777);
   }
 
-  write(s: string): void {
+  write(s: string | Uint8Array): void {
     if (this.fd === undefined) throw new Error('output already closed');
     writeAll(this.fd, s);
   }
@@ -217,8 +217,8 @@ class DirectOutput implements ReportSink {
 
 const pause = new Int32Array(new SharedArrayBuffer(4));
 
-function writeAll(fd: number, s: string): void {
-  const b = Buffer.from(s, 'utf8');
+function writeAll(fd: number, s: string | Uint8Array): void {
+  const b = typeof s === 'string' ? Buffer.from(s, 'utf8') : s;
   let done = 0;
   while (done < b.length) {
     try {

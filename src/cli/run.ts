@@ -96,6 +96,7 @@ export async function run(argv: string[], rawIo: Io): Promise<number> {
   }
   const writes: string[] = [];
   if (options.writeBaseline !== undefined) writes.push(identity(options.writeBaseline, io.cwd));
+  if (options.annotate !== undefined) writes.push(identity(options.annotate, io.cwd));
   if (options.output === undefined || options.output === '-') return settled(await check(options, io, writes));
 
   let destination: Destination;
@@ -264,6 +265,13 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
   // diagnostics go to standard error in every format; reports carry them as data too
   for (const f of report.failures) io.stderr(say`plumbline: ${f.path}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}: ${f.message}\n`);
   await write(report, options, io, toFile);
+  if (options.annotate !== undefined) {
+    // loaded only when asked for: pdf-lib is not part of a plain check
+    const { writeAnnotated } = await import('./annotate.js');
+    const problem = await writeAnnotated(options.annotate, report, io.cwd, options.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES);
+    io.stderr(`plumbline: ${problem ?? `wrote the annotated copy ${options.annotate}`}\n`);
+    if (problem !== undefined) return EXIT.trouble;
+  }
 
   const counts = countRun(report);
   if (report.failures.length > 0) return EXIT.trouble;

@@ -26,8 +26,8 @@ export interface PdfText {
   pages: number;
   blocks: PdfBlock[];
   lines: PdfLine[];
-  /** Page size of each page (points), for the annotated copy. */
-  sizes: Array<{ width: number; height: number }>;
+  /** Each page's visible box (points): its lower left corner, which box coordinates are relative to, and its size. */
+  sizes: Array<{ x0: number; y0: number; width: number; height: number }>;
 }
 
 type PdfJs = typeof import('pdfjs-dist/legacy/build/pdf.mjs');
@@ -114,7 +114,7 @@ export async function readPdfText(bytes: Uint8Array, limits: PdfLimits = DEFAULT
         out.push({ str: item.str, x: (e ?? 0) - x0, y: (f ?? 0) - y0, width: item.width, size, upright });
       }
       pages.push({ page: n, width: x1 - x0, height: y1 - y0, runs: out });
-      sizes.push({ width: x1 - x0, height: y1 - y0 });
+      sizes.push({ x0, y0, width: x1 - x0, height: y1 - y0 });
       page.cleanup();
     }
     if (printed === 0) {
