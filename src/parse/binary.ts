@@ -37,7 +37,10 @@ export function isCompoundFile(bytes: Uint8Array): boolean {
  * Read a binary document with its front end, loaded only when such a file is met (the
  * command's start-up and the text readers do not carry it).
  */
-export async function readBinaryDocument(_path: string, _bytes: Uint8Array, kind: BinaryKind): Promise<BinaryOutcome> {
-  const name = kind === 'docx' ? 'Word' : 'PDF';
-  return { ok: false, message: `skipped: ${name} files are not read by this version of plumbline; check the manuscript's text instead (saved as .txt, or its .md or .tex source)` };
+export async function readBinaryDocument(path: string, bytes: Uint8Array, kind: BinaryKind): Promise<BinaryOutcome> {
+  if (kind === 'docx') {
+    const { readDocxDocument } = await import('./docx/index.js');
+    return readDocxDocument(path, bytes);
+  }
+  return { ok: false, message: 'skipped: PDF files are not read by this version of plumbline; check the manuscript\'s text instead (saved as .txt, or its .md or .tex source)' };
 }
