@@ -7,12 +7,13 @@ const messages = {
   'encoding-guessed': 'The encoding of this file had to be guessed: {detail}. If the guess is wrong, results may be missed or misread.',
   'invisible-removed': 'Invisible characters were removed from this file\'s text: {detail}.',
   'include-not-read': 'A file this LaTeX manuscript includes was not read: {detail}. Results in it were not checked.',
+  'tracked-changes-accepted': 'This Word file holds tracked changes: {detail}.',
 };
 
 /** The file could be read as written: every byte decoded, the Markdown structure within the parser's limits. */
 export const inputIsReadable: Rule = {
   id: 'input-is-readable',
-  summary: 'The file decodes cleanly and its Markdown nests within the parser\'s limits (otherwise results there may be missed).',
+  summary: 'The file decodes cleanly and its Markdown nests within the parser\'s limits (otherwise results there may be missed); a Word file\'s tracked changes are said.',
   kind: 'advice',
   defaultLevel: 'note',
   defaultOptions: {},
@@ -27,6 +28,15 @@ export const inputIsReadable: Rule = {
           message: messages['include-not-read'].replace('{detail}', n.message),
           reported: 'an included file',
           check: 'Check the included file on its own (name it on the command line), or move it into the manuscript\'s folder if it belongs to the manuscript.',
+        };
+      }
+      if (n.kind === 'tracked-changes') {
+        return {
+          messageId: 'tracked-changes-accepted',
+          span: n.span,
+          message: messages['tracked-changes-accepted'].replace('{detail}', n.message),
+          reported: 'tracked changes',
+          check: 'Accept or reject the changes in Word (Review › Accept or Reject) and check the file again if the text meant is not the text with every change accepted.',
         };
       }
       if (n.kind === 'encoding-guessed') {

@@ -194,7 +194,7 @@ function originalPlace(map: OriginalMap, source: string, span: Span): { original
   const u = unitAt(map, span.start);
   if (!u) return {};
   const offset = Math.max(0, Math.min(span.start, u.end) - u.start) + (u.charOffset ?? 0);
-  if (map.kind === 'docx') return { original: { kind: 'paragraph', paragraph: u.paragraph ?? 0, char: offset + 1, opening: u.opening } };
+  if (map.kind === 'docx') return { original: { kind: 'paragraph', paragraph: u.paragraph ?? 0, char: offset + 1, opening: u.opening, ...(u.note ? { note: u.note } : {}) } };
   return { original: { kind: 'page', page: u.page ?? 0, line: u.line ?? 0, around: around(source, span) } };
 }
 

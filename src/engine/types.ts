@@ -10,7 +10,7 @@ import type { Figure, Fix, Gap, Guideline, Level, Recomputed } from '../rule-api
  * words around the place.
  */
 export type OriginalPlace =
-  | { kind: 'paragraph'; paragraph: number; char: number; opening: string }
+  | { kind: 'paragraph'; paragraph: number; char: number; opening: string; note?: { kind: 'footnote' | 'endnote'; number: number } }
   | { kind: 'page'; page: number; line: number; around: string };
 
 /**

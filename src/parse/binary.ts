@@ -38,10 +38,10 @@ export function isCompoundFile(bytes: Uint8Array): boolean {
  * command's start-up and the text readers do not carry it).
  */
 export async function readBinaryDocument(path: string, bytes: Uint8Array, kind: BinaryKind): Promise<BinaryOutcome> {
-  if (kind === 'pdf') {
-    const { readPdf } = await import('./pdf/index.js');
-    return readPdf(path, bytes);
+  if (kind === 'docx') {
+    const { readDocxDocument } = await import('./docx/index.js');
+    return readDocxDocument(path, bytes);
   }
-  const name = 'Word';
-  return { ok: false, message: `skipped: ${name} files are not read by this version of plumbline; check the manuscript's text instead (saved as .txt, or its .md or .tex source)` };
+  const { readPdf } = await import('./pdf/index.js');
+  return readPdf(path, bytes);
 }

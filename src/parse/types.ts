@@ -87,6 +87,8 @@ export interface OriginalUnit {
   page?: number;
   /** PDF: 1-based line on that page (after running heads and line numbers are removed). */
   line?: number;
+  /** Word: the paragraph is the `paragraph`th of this footnote or endnote (numbered as Word shows it), not of the body. */
+  note?: { kind: 'footnote' | 'endnote'; number: number };
   /** Offset inside the paragraph or line of the unit's first character (usually 0). */
   charOffset?: number;
   /** The first words of the paragraph or the line, for a person to search for. */
@@ -122,7 +124,7 @@ export interface ParsedDocument {
 
 /** Something about reading the file that a user should know: the findings may be incomplete there. */
 export interface ReadNote {
-  kind: 'replaced-bytes' | 'deep-nesting' | 'parser-limit' | 'dense-markup' | 'encoding-guessed' | 'slow-shape' | 'invisible-characters' | 'include-not-read' | 'tracked-changes' | 'document-part-not-read';
+  kind: 'replaced-bytes' | 'deep-nesting' | 'parser-limit' | 'dense-markup' | 'encoding-guessed' | 'slow-shape' | 'invisible-characters' | 'include-not-read' | 'tracked-changes';
   message: string;
   span: Span;
 }

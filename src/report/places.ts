@@ -6,12 +6,13 @@ import type { OriginalPlace, Place } from '../engine/types.js';
  * 1-based character inside it) or `p. 7 line 23 (“… words around …”)` (PDF).
  */
 export function originalName(o: OriginalPlace): string {
-  return o.kind === 'paragraph' ? `¶${o.paragraph} (“${o.opening}”) char ${o.char}` : `p. ${o.page} line ${o.line} (“${o.around}”)`;
+  return o.kind === 'paragraph' ? `${originalShort(o)} (“${o.opening}”) char ${o.char}` : `p. ${o.page} line ${o.line} (“${o.around}”)`;
 }
 
 /** The short form, for lists of places: `¶34`, `p. 7 line 23`. */
 export function originalShort(o: OriginalPlace): string {
-  return o.kind === 'paragraph' ? `¶${o.paragraph}` : `p. ${o.page} line ${o.line}`;
+  if (o.kind === 'page') return `p. ${o.page} line ${o.line}`;
+  return o.note ? `${o.note.kind} ${o.note.number} ¶${o.paragraph}` : `¶${o.paragraph}`;
 }
 
 /** A place's short name in lists: the original's (`¶34`) when the file has one, else `line 12`. */
