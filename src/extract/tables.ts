@@ -40,6 +40,8 @@ const SD_HEADER = /^(?:sd|s\.d\.|std\.? ?dev\.?|standard deviation)$/iu;
 const SE_HEADER = /^(?:se|sem|s\.e\.|s\.e\.m\.|standard error)$/iu;
 const N_HEADER = /^(?:n|count|size|sample size|participants)$/iu;
 const GROUP_HEADER = /^(?:group|condition|arm|treatment|sample)$/iu;
+/** The header of another statistic's column (`χ²(1)`, `F`, `z`, `r(48)`, `U`): a p beside it may be its p, not the t's. */
+const OTHER_STAT_HEADER = /^(?:(?:χ|chi)[ -]?(?:\^ ?2|²|sq(?:uare)?d?)|[FzZrUWH])(?: ?\([^()]{0,20}\))?$/u;
 /** A group's column: `Walking (n = 36), mean (SD)`, `Mean (SD)`, `M ± SE`. */
 const GROUP_COLUMN = /(?:^|[\s,(])(?:m|mean|means)s? ?(?:\(\s?(sd|se|sem|s\.d\.|s\.e\.)\s?\)|± ?(sd|se|sem|s\.d\.|s\.e\.))\s?\)?$/iu;
 const HEADER_N = /\(\s?n ?= ?(\d{1,6})\s?\)/iu;
@@ -157,6 +159,7 @@ interface Columns {
 
 function columnsOf(grid: Grid): Columns {
   const c: Columns = { groups: [] };
+  const others: number[] = [];
   for (const [column, seg] of [...grid.header].sort((a, b) => a[0] - b[0])) {
     const text = seg.text.trim();
     const t = T_HEADER.exec(text);
@@ -186,6 +189,14 @@ function columnsOf(grid: Grid): Columns {
     else if (SE_HEADER.test(text)) c.spread ??= { column, kind: 'SE', printed: text };
     else if (N_HEADER.test(text)) c.n ??= column;
     else if (GROUP_HEADER.test(text)) c.group ??= column;
+    else if (OTHER_STAT_HEADER.test(text)) others.push(column);
+  }
+  // a p column is the t's only when no other statistic's column is as near to it or between them
+  // (a table of a χ² with its p and then a t, `χ²(1) | p | … | t(81)`: the p is the χ²'s)
+  if (c.p !== undefined && c.t !== undefined && others.length > 0) {
+    const p = c.p;
+    const t = c.t.column;
+    if (others.some((o) => Math.abs(o - p) <= Math.abs(t - p) || (o - p) * (o - t) < 0)) delete c.p;
   }
   return c;
 }

@@ -327,8 +327,9 @@ function orderPage(page: PageRuns): OrderedLine[] {
     out.push(...band.left, ...band.right);
     band = { left: [], right: [] };
   };
+  const wide = wideTableRows(kept, gutter, textLeft, textRight);
   for (const r of kept) {
-    if (r.chunks.some((c) => c.x0 < gutter && c.x1 > gutter)) {
+    if (wide.has(r) || r.chunks.some((c) => c.x0 < gutter && c.x1 > gutter)) {
       flush();
       out.push(line(r.row, r.chunks, 'full'));
       continue;
@@ -340,6 +341,32 @@ function orderPage(page: PageRuns): OrderedLine[] {
   }
   flush();
   return out;
+}
+
+/**
+ * Rows of a table set across both columns of a two-column page, whose cells happen to leave the
+ * gutter empty: three or more chunks with some on each side, where neither side is one chunk
+ * filling most of its column (a line of prose); then a row of two such chunks right above or
+ * below one of them (a header line of the same table).
+ */
+function wideTableRows<R extends { row: Row; chunks: Chunk[] }>(rows: R[], gutter: number, left: number, right: number): Set<R> {
+  const prose = (side: Chunk[], width: number) => side.length === 1 && (side[0] as Chunk).x1 - (side[0] as Chunk).x0 >= 0.6 * width;
+  const tableLike = (r: R, least: number) => {
+    const l = r.chunks.filter((c) => c.x1 <= gutter);
+    const rt = r.chunks.filter((c) => c.x0 >= gutter);
+    return r.chunks.length >= least && l.length > 0 && rt.length > 0 && !prose(l, gutter - left) && !prose(rt, right - gutter);
+  };
+  const wide = new Set(rows.filter((r) => tableLike(r, 3)));
+  if (wide.size === 0) return wide;
+  const near = (a: R, b: R) => Math.abs(a.row.y - b.row.y) <= 1.6 * Math.max(a.row.size, b.row.size);
+  for (const order of [rows, [...rows].reverse()]) {
+    for (let i = 1; i < order.length; i += 1) {
+      const r = order[i] as R;
+      const prev = order[i - 1] as R;
+      if (!wide.has(r) && wide.has(prev) && near(r, prev) && tableLike(r, 2)) wide.add(r);
+    }
+  }
+  return wide;
 }
 
 function lineText(l: OrderedLine): string {
@@ -392,7 +419,7 @@ function isTableRow(l: OrderedLine): boolean {
 }
 
 const SENTENCE_END = /[.!?:]["”’)]?$/;
-const HYPHEN_END = /(\p{L}+)-$/u;
+const LETTER = /\p{L}/u;
 const LOWER_START = /^(\p{Ll}+)/u;
 
 interface Numbered {
@@ -516,10 +543,13 @@ function wordsOf(all: Numbered[]): Set<string> {
  * and never without).
  */
 function joinHyphen(last: PdfPiece, next: PdfPiece, words: Set<string>): void {
-  const h = HYPHEN_END.exec(last.text);
   const l = LOWER_START.exec(next.text);
-  if (!h || !l) return;
-  const before = (h[1] as string).toLowerCase();
+  if (!l || !last.text.endsWith('-')) return;
+  // the letters before the hyphen, read backwards (a pattern anchored at the end would be tried from every letter)
+  let from = last.text.length - 1;
+  while (from > 0 && LETTER.test(last.text[from - 1] as string)) from -= 1;
+  if (from === last.text.length - 1) return;
+  const before = last.text.slice(from, -1).toLowerCase();
   const after = l[1] as string;
   // the word continues to the next space
   let end = next.text.indexOf(' ');
@@ -538,15 +568,20 @@ function joinHyphen(last: PdfPiece, next: PdfPiece, words: Set<string>): void {
   next.charOffset += rest;
 }
 
-/** A table's rows as cells: columns from the row with the most cells, others by overlap. */
+const NUMBER_CELL = /^[<>=≤≥−\-–\s]{0,4}(?:[0-9]{1,9}(?:[.,][0-9]{1,9})?|[.,][0-9]{1,9})[%*†‡a-z]{0,3}$/;
+
+/**
+ * A table's rows as cells: columns from the row with the most cells, others by overlap. Header
+ * lines at the top (rows with no cell that is a number: `Mean` / `accuracy` /
+ * `(N = 82)` set on three lines) are read as one header row, each cell's lines joined.
+ */
 function tableBlocks(rows: Numbered[], table: number): PdfBlock[] {
   const widest = rows.reduce((a, b) => (b.line.chunks.length > a.line.chunks.length ? b : a));
   const anchors = widest.line.chunks.map((c) => ({ x0: c.x0, x1: c.x1 }));
-  const blocks: PdfBlock[] = [];
-  rows.forEach((r, row) => {
+  const cellsOf = (r: Numbered) => {
     let offset = 0;
     const used = new Set<number>();
-    r.line.chunks.forEach((c) => {
+    return r.line.chunks.map((c) => {
       let column = 0;
       let best = -Infinity;
       anchors.forEach((a, k) => {
@@ -560,13 +595,24 @@ function tableBlocks(rows: Numbered[], table: number): PdfBlock[] {
       used.add(column);
       const start = r.text.indexOf(c.text, offset);
       const at = start < 0 ? offset : start;
-      blocks.push({
-        kind: 'tableCell',
-        table: { table, row, column },
-        pieces: [{ text: c.text, boxes: c.boxes, page: r.line.page, line: r.number, charOffset: at, opening: openingWords(r.text) }],
-      });
       offset = at + c.text.length;
+      const piece: PdfPiece = { text: c.text, boxes: c.boxes, page: r.line.page, line: r.number, charOffset: at, opening: openingWords(r.text) };
+      return { column, piece };
     });
+  };
+  let header = 0;
+  while (header < rows.length - 1 && !(rows[header] as Numbered).line.chunks.some((c) => NUMBER_CELL.test(c.text))) header += 1;
+  const blocks: PdfBlock[] = [];
+  let first = 0;
+  if (header >= 2) {
+    const merged = new Map<number, PdfPiece[]>();
+    for (const r of rows.slice(0, header)) for (const { column, piece } of cellsOf(r)) merged.set(column, [...(merged.get(column) ?? []), piece]);
+    for (const column of [...merged.keys()].sort((a, b) => a - b)) blocks.push({ kind: 'tableCell', table: { table, row: 0, column }, pieces: merged.get(column) ?? [] });
+    first = header;
+  }
+  rows.slice(first).forEach((r, i) => {
+    const row = i + (first > 0 ? 1 : 0);
+    for (const { column, piece } of cellsOf(r)) blocks.push({ kind: 'tableCell', table: { table, row, column }, pieces: [piece] });
   });
   return blocks;
 }
