@@ -26,6 +26,10 @@
  *  15. editor re-check: a 50 KB manuscript checked again after a one-character edit, as the
  *      language server does it (configuration found afresh, then the whole check) ÷ the bare
  *      remark-parse + remark-gfm parse of the same edited text                   (goal ≤ 1.2)
+ *  16. a 40-page two-column PDF (drawn here with pdf-lib from invented results): reading it
+ *      (pdf.js and the layout) and checking it ÷ checking the text it gives as plain text (goal ≤ 4,
+ *      ours: reading a PDF should cost no more than a few checks of its text;
+ *      the detail gives the reading time, which issue 14 wants well under 2 s)
  *
  * Prints a table and writes bench/results.json. `npm run bench -- 3 7` (or PLUMBLINE_BENCH=3,7)
  * runs only the figures named by number, for a quick look at one case; results.json is then
@@ -307,6 +311,48 @@ if (wanted(15)) {
   const parse = best(() => bare.parse(edited), 5);
   rmSync(configDir, { recursive: true, force: true });
   add({ name: '15 editor re-check after one edit / bare parse', value: recheck / parse, goal: '<= 1.2', met: recheck / parse <= 1.2, detail: `${(edited.length / 1000).toFixed(0)} KB; re-check ${recheck.toFixed(1)} ms, bare parse ${parse.toFixed(1)} ms` });
+}
+
+// 16: a 40-page two-column PDF, read and checked, against the same text checked as plain text
+if (wanted(16)) {
+  const { PDFDocument, StandardFonts } = await import('pdf-lib');
+  const { readPdf } = await import('../src/parse/pdf/index.js');
+  const pdf = await PDFDocument.create();
+  const font = await pdf.embedFont(StandardFonts.TimesRoman);
+  // printable ASCII only: the standard font's encoding has no χ or minus sign
+  const words = statDense(16, 400_000).replace(/[^\x20-\x7E]+/g, ' ').replace(/[#\n]/g, ' ').split(' ').filter((w) => w !== '');
+  let w = 0;
+  for (let n = 1; n <= 40; n += 1) {
+    const page = pdf.addPage([612, 792]);
+    page.drawText(`Invented bench journal ${n}`, { x: 54, y: 750, size: 8, font });
+    for (const x0 of [54, 318]) {
+      for (let y = 720; y > 60; y -= 11.5) {
+        let line = '';
+        while (w < words.length && font.widthOfTextAtSize(`${line} ${words[w]}`, 9) < 238) line = line === '' ? (words[w++] as string) : `${line} ${words[w++]}`;
+        page.drawText(line, { x: x0, y, size: 9, font });
+      }
+    }
+  }
+  const bytes = await pdf.save();
+  const read = async () => {
+    const o = await readPdf('bench.pdf', bytes);
+    if (!o.ok) throw new Error(o.message);
+    return o.document;
+  };
+  const doc = await read();
+  let readMs = Infinity;
+  let pdfMs = Infinity;
+  for (let i = 0; i < 3; i += 1) {
+    const start = performance.now();
+    const d = await read();
+    const mid = performance.now();
+    checkSource('bench.pdf', d.source, { document: d });
+    readMs = Math.min(readMs, mid - start);
+    pdfMs = Math.min(pdfMs, performance.now() - start);
+  }
+  const textMs = best(() => checkSource('bench.txt', doc.source));
+  const results = checkSource('bench.pdf', doc.source, { document: doc }).results.length;
+  add({ name: '16 40-page two-column PDF / its text', value: pdfMs / textMs, goal: '<= 4', met: pdfMs / textMs <= 4, detail: `${(bytes.length / 1000).toFixed(0)} KB PDF, ${(doc.source.length / 1000).toFixed(0)} KB of text, ${results} results; reading ${readMs.toFixed(0)} ms, with the check ${pdfMs.toFixed(0)} ms; the text alone ${textMs.toFixed(0)} ms` });
 }
 
 const machine = { cpus: cpus().length, cpu: cpus()[0]?.model ?? '', memoryGb: Math.round(totalmem() / 2 ** 30), node: process.version, date: new Date().toISOString().slice(0, 10) };
