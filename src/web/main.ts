@@ -4,7 +4,7 @@
  * Everything runs in this tab: the page loads nothing after it opens (its Content-Security-Policy
  * forbids it), and the manuscript is kept only in the page's memory, never in storage.
  */
-import { checkSource, decodeBytes, RULES, type CheckOptions, type FileReport } from '../engine/index.js';
+import { binaryKindOf, checkSource, decodeBytes, readBinaryDocument, RULES, type CheckOptions, type FileReport, type ParsedDocument } from '../engine/index.js';
 import { cautionsHtml, fileSection } from '../report/html.js';
 import { countRun } from '../report/types.js';
 
@@ -71,6 +71,9 @@ function options(): CheckOptions {
   };
 }
 
+/** A PDF's document as read, kept while the text shown is its text, so places name page and line. */
+let binary: ParsedDocument | undefined;
+
 let timer: ReturnType<typeof setTimeout> | undefined;
 function schedule(): void {
   if (timer !== undefined) clearTimeout(timer);
@@ -92,7 +95,8 @@ function check(): void {
   }
   let report: FileReport;
   try {
-    report = checkSource(name.value || 'manuscript.md', source, options());
+    const document = binary && binary.source === source && binary.path === name.value ? { document: binary } : {};
+    report = checkSource(name.value || 'manuscript.md', source, { ...options(), ...document });
   } catch (e) {
     status.textContent = `plumbline could not check this text: ${e instanceof Error ? e.message : String(e)}`;
     return;
@@ -108,8 +112,24 @@ async function load(f: File): Promise<void> {
     status.textContent = `${f.name} is larger than 50 MiB; not read.`;
     return;
   }
+  const bytes = new Uint8Array(await f.arrayBuffer());
+  // a PDF is read in this tab by pdf.js, bundled into the page (no worker script, nothing fetched)
+  if (binaryKindOf(f.name, bytes) === 'pdf') {
+    status.textContent = `Reading ${f.name} …`;
+    const read = await readBinaryDocument(f.name, bytes, 'pdf').catch((e: unknown) => ({ ok: false as const, message: `cannot read: ${e instanceof Error ? e.message : String(e)}` }));
+    if (!read.ok) {
+      status.textContent = `${f.name}: ${read.message}`;
+      return;
+    }
+    binary = read.document;
+    text.value = read.document.source;
+    name.value = f.name;
+    check();
+    return;
+  }
+  binary = undefined;
   // the command line's decoding: UTF-8 or UTF-16 with BOM, binary files refused
-  const decoded = decodeBytes(new Uint8Array(await f.arrayBuffer()));
+  const decoded = decodeBytes(bytes);
   if (!decoded.ok) {
     status.textContent = `${f.name}: ${decoded.reason}; not read.`;
     return;

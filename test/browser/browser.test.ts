@@ -14,6 +14,7 @@ import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { run } from '../../src/cli/run.js';
 import { checkSource, RULES } from '../../src/engine/index.js';
+import { readPdf } from '../../src/parse/pdf/index.js';
 import { isChecklistFinding } from '../../src/report/checklistSummary.js';
 
 const CHROMIUM = '/usr/bin/chromium';
@@ -259,6 +260,25 @@ describe.skipIf(!available)('in chromium', () => {
     expect(w.requests).toEqual([]);
     await w.page.close();
   }, 60_000);
+
+  it('the page reads a PDF from the picker in the tab (pdf.js bundled, no worker script, no request) and names page and line', async () => {
+    const w = await open(pathToFileURL(PAGE).href);
+    expect(await w.page.getAttribute('#file', 'accept')).toContain('.pdf');
+    // fixtures/pdf/two-columns.pdf, drawn by scripts/make-pdf-fixtures.mjs from invented content:
+    // t(30) = 1.20 is printed on page 1, line 23, with p = .02 (scipy.stats.t.sf(1.20, 30) * 2 = 0.2395)
+    const bytes = readFileSync('fixtures/pdf/two-columns.pdf');
+    const read = await readPdf('two-columns.pdf', new Uint8Array(bytes));
+    if (!read.ok) throw new Error(read.message);
+    const expected = checkSource('two-columns.pdf', read.document.source, { checklist: false, config: { guidelines: 'all' }, document: read.document });
+    expect(expected.findings.length).toBeGreaterThan(0);
+    await w.page.setInputFiles('#file', { name: 'two-columns.pdf', mimeType: 'application/pdf', buffer: bytes });
+    await w.page.waitForFunction(() => (document.getElementById('name') as HTMLInputElement).value === 'two-columns.pdf', undefined, { timeout: 30_000 });
+    await w.page.waitForFunction((n) => document.querySelectorAll('details.card').length === n, expected.findings.length, { timeout: 10_000 });
+    expect(await w.page.textContent('#output')).toContain('p. 1 line 23');
+    expect(w.errors).toEqual([]);
+    expect(w.requests).toEqual([]);
+    await w.page.close();
+  }, 90_000);
 
   it('the page refuses a dropped binary file, says so, and keeps what it showed', async () => {
     const w = await open(pathToFileURL(PAGE).href);
