@@ -86,6 +86,20 @@ export function readNotes(xml: string, kind: 'footnote' | 'endnote', headingStyl
   return { notes: out, tracked: story.tracked };
 }
 
+/** The Relationship elements of an OPC relationships part (ECMA-376 Part 2, 9.3): type, target, whether external. */
+export function readRelationships(xml: string, limits: DocxLimits): Array<{ type: string; target: string; external: boolean }> {
+  const out: Array<{ type: string; target: string; external: boolean }> = [];
+  if (xml === '') return out;
+  walk(xml, limits, {
+    open(tag) {
+      if (tag.local !== 'Relationship') return;
+      const target = attr(tag, 'Target');
+      if (target !== undefined) out.push({ type: attr(tag, 'Type') ?? '', target, external: attr(tag, 'TargetMode') === 'External' });
+    },
+  });
+  return out;
+}
+
 interface Handlers {
   open?: (tag: SaxesTagNS) => void;
   close?: (tag: SaxesTagNS) => void;
