@@ -28,6 +28,8 @@ export interface CliOptions {
   quiet: boolean;
   baseline?: string;
   writeBaseline?: string;
+  /** Write a copy of the one Word file checked with the findings as comments. */
+  annotate?: string;
   /** Folder walks follow symbolic links that lead outside the folder named (--follow-links-outside). */
   followLinksOutside?: boolean;
   /** batch: the number of the first input line (a chunk of a larger input keeps the whole input's line numbers). */
@@ -44,7 +46,7 @@ export interface CliOptions {
 export type ParseOutcome = { kind: 'run'; options: CliOptions } | { kind: 'help' | 'version'; text: string } | { kind: 'error'; message: string };
 
 /** Options that take a value, for "needs a value" and "given twice" messages. */
-const VALUE_OPTIONS = ['format', 'alpha', 'tails', 'max-warnings', 'config', 'stdin-name', 'jobs', 'max-file-bytes', 'memory-budget', 'time-budget', 'output', 'baseline', 'write-baseline', 'first-line', 'table'] as const;
+const VALUE_OPTIONS = ['format', 'alpha', 'tails', 'max-warnings', 'config', 'stdin-name', 'jobs', 'max-file-bytes', 'memory-budget', 'time-budget', 'output', 'baseline', 'write-baseline', 'first-line', 'table', 'annotate'] as const;
 const SHORT: Record<string, string> = { f: 'format', c: 'config', j: 'jobs', o: 'output', q: 'quiet', h: 'help', v: 'version' };
 
 function parser() {
@@ -129,7 +131,7 @@ export async function parseArguments(argv: string[], columns: number | undefined
   if (firstLine !== undefined && !(Number.isInteger(firstLine) && firstLine >= 1))
     return { kind: 'error', message: `--first-line must be a whole number, 1 or more; got "${rawValue(words, 'first-line') ?? ''}"` };
   if (firstLine !== undefined && command !== 'batch') return { kind: 'error', message: '--first-line applies to batch only' };
-  for (const name of ['output', 'baseline', 'write-baseline', 'config', 'stdin-name'] as const) if (str(name) === '') return { kind: 'error', message: `--${name} needs a value` };
+  for (const name of ['output', 'baseline', 'write-baseline', 'config', 'stdin-name', 'annotate'] as const) if (str(name) === '') return { kind: 'error', message: `--${name} needs a value` };
   if (parsed.fix === true && parsed['fix-dry-run'] === true) return { kind: 'error', message: '--fix and --fix-dry-run do not go together; give one' };
 
   const positional = ((parsed.files as string[] | undefined) ?? []).map(String);
@@ -162,6 +164,7 @@ export async function parseArguments(argv: string[], columns: number | undefined
     ...(parsed['fix-dry-run'] === true ? { fix: 'diff' as const } : parsed.fix === true ? { fix: 'apply' as const } : {}),
     ...(str('baseline') !== undefined ? { baseline: str('baseline') as string } : {}),
     ...(str('write-baseline') !== undefined ? { writeBaseline: str('write-baseline') as string } : {}),
+    ...(str('annotate') !== undefined ? { annotate: str('annotate') as string } : {}),
   };
   return { kind: 'run', options };
 }

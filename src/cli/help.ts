@@ -19,6 +19,7 @@ export const OPTIONS: Array<{ name: string; short?: string; type: 'string' | 'nu
   { name: 'max-warnings', type: 'number', value: 'N', describe: 'exit 1 when more than N warnings are reported (default: no limit)' },
   { name: 'baseline', type: 'string', value: 'FILE', describe: 'report only findings that are not in this baseline file, and count only them' },
   { name: 'write-baseline', type: 'string', value: 'FILE', describe: 'record the current findings in FILE (reasons already given there are kept)' },
+  { name: 'annotate', type: 'string', value: 'OUT.docx', describe: 'also write a copy of the one Word file checked with each finding as a Word comment on its characters (atomically; the original is never changed)' },
   { name: 'checklist', type: 'boolean', describe: 'also check the write-up against reporting guidelines (on with --format checklist)' },
   { name: 'alpha', type: 'number', value: 'N', describe: 'significance level where the text and its front matter state none (default .05)' },
   { name: 'tails', type: 'string', value: 'one|two', describe: 'tails assumed where the text and its front matter say nothing (default two)' },

@@ -45,8 +45,8 @@ export function openDestination(path: string, cwd: string): Destination {
   return { sink: new AtomicOutput(target, existing?.mode) };
 }
 
-/** The same, for files that must be regular (a baseline): never a FIFO, device or descriptor. */
-export function openRegularFile(path: string, cwd: string): ReportSink {
+/** The same, for files that must be regular (a baseline, an annotated copy): never a FIFO, device or descriptor. */
+export function openRegularFile(path: string, cwd: string): ReportSink & { writeBytes(b: Uint8Array): void } {
   const target = followLinks(resolve(cwd, path));
   let existing;
   try {
@@ -158,6 +158,12 @@ class AtomicOutput implements ReportSink {
     writeAll(this.fd, s);
   }
 
+  /** Bytes as they are (an annotated copy of a Word file). */
+  writeBytes(b: Uint8Array): void {
+    if (this.fd === undefined) throw new Error('output already closed');
+    writeAll(this.fd, b);
+  }
+
   commit(): void {
     if (this.fd === undefined) return;
     fsyncSync(this.fd);
@@ -217,8 +223,8 @@ class DirectOutput implements ReportSink {
 
 const pause = new Int32Array(new SharedArrayBuffer(4));
 
-function writeAll(fd: number, s: string): void {
-  const b = Buffer.from(s, 'utf8');
+function writeAll(fd: number, s: string | Uint8Array): void {
+  const b = typeof s === 'string' ? Buffer.from(s, 'utf8') : s;
   let done = 0;
   while (done < b.length) {
     try {

@@ -84,6 +84,7 @@ export async function run(argv: string[], rawIo: Io): Promise<number> {
     const given: Array<[string, boolean]> = [
       ['--baseline', options.baseline !== undefined],
       ['--write-baseline', options.writeBaseline !== undefined],
+      ['--annotate', options.annotate !== undefined],
       ['--max-warnings', options.maxWarnings !== undefined],
       ['--quiet', options.quiet],
       ['--format', options.format !== 'human'],
@@ -96,6 +97,7 @@ export async function run(argv: string[], rawIo: Io): Promise<number> {
   }
   const writes: string[] = [];
   if (options.writeBaseline !== undefined) writes.push(identity(options.writeBaseline, io.cwd));
+  if (options.annotate !== undefined) writes.push(identity(options.annotate, io.cwd));
   if (options.output === undefined || options.output === '-') return settled(await check(options, io, writes));
 
   let destination: Destination;
@@ -229,6 +231,12 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
   }
 
   let report = run.report;
+  if (options.annotate !== undefined) {
+    const { annotate } = await import('./annotate.js');
+    const said = await annotate(options.annotate, report, io.cwd, stdin ? { name: stdin.name, bytes: stdin.bytes } : undefined);
+    io.stderr(`plumbline: ${said.message}\n`);
+    if (!said.ok) return EXIT.trouble;
+  }
   if (options.writeBaseline !== undefined) {
     const target = resolve(io.cwd, options.writeBaseline);
     let previous: Baseline | undefined;

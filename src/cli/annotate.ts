@@ -1,0 +1,49 @@
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { annotateWordDocument, type FileReport, type WordComment } from '../engine/index.js';
+import type { RunReport } from '../report/index.js';
+import { describeError } from './files.js';
+import { openRegularFile } from './output.js';
+
+/** What one comment says: the finding as the human format says it, its rule, and what to check. */
+export function commentParagraphs(f: FileReport['findings'][number]): string[] {
+  return [`plumbline ${f.level} (${f.ruleId}): ${f.message}`, `What to check: ${f.check}`, 'An inconsistency is a question, not proof of an error; check it against the analysis output.'];
+}
+
+/**
+ * --annotate OUT.docx: a copy of the one Word file checked, each finding of the report (as shown:
+ * quiet comments, the baseline and --quiet applied) a Word comment on its characters. The copy
+ * is written atomically, as -o writes a report; the original is only read. With no Word file
+ * among the files checked, or more than one, nothing is written: one output names one file.
+ */
+export async function annotate(out: string, report: RunReport, cwd: string, stdin: { name: string; bytes: Uint8Array } | undefined): Promise<{ ok: boolean; message: string }> {
+  const word = report.files.filter((f) => f.format === 'docx');
+  if (word.length !== 1) {
+    return { ok: false, message: `--annotate writes one annotated copy of one Word file, and ${word.length === 0 ? 'no Word (.docx) file was checked' : `${word.length} Word files were checked (${word.map((f) => f.path).join(', ')}); check them one at a time`}` };
+  }
+  const file = word[0] as FileReport;
+  let bytes: Uint8Array;
+  try {
+    bytes = stdin && stdin.name === file.path ? stdin.bytes : readFileSync(resolve(cwd, file.path));
+  } catch (e) {
+    return { ok: false, message: `--annotate: cannot read ${file.path} again: ${describeError(e)}` };
+  }
+  const comments: WordComment[] = file.findings.filter((f) => f.scope !== 'document').map((f) => ({ span: f.span, paragraphs: commentParagraphs(f) }));
+  const made = await annotateWordDocument(bytes, comments);
+  if (!made.ok) return { ok: false, message: `--annotate: ${file.path}: ${made.message}` };
+  try {
+    const sink = openRegularFile(out, cwd);
+    try {
+      sink.writeBytes(made.bytes);
+      sink.commit();
+    } catch (e) {
+      sink.abort();
+      throw e;
+    }
+  } catch (e) {
+    return { ok: false, message: `cannot write ${out}: ${describeError(e)}` };
+  }
+  const left = made.notPlaced > 0 ? `; ${made.notPlaced} in footnotes or endnotes, or in text that could not be traced, were not added` : '';
+  return { ok: true, message: `wrote ${out}: ${file.path} with ${made.added} finding${made.added === 1 ? '' : 's'} as Word comments${left}` };
+}
+
