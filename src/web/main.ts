@@ -4,7 +4,7 @@
  * Everything runs in this tab: the page loads nothing after it opens (its Content-Security-Policy
  * forbids it), and the manuscript is kept only in the page's memory, never in storage.
  */
-import { checkSource, decodeBytes, RULES, type CheckOptions, type FileReport } from '../engine/index.js';
+import { binaryKindOf, checkSource, decodeBytes, readBinaryDocument, RULES, type CheckOptions, type FileReport, type ParsedDocument } from '../engine/index.js';
 import { cautionsHtml, fileSection } from '../report/html.js';
 import { countRun } from '../report/types.js';
 
@@ -71,6 +71,13 @@ function options(): CheckOptions {
   };
 }
 
+/**
+ * A Word (or PDF) file read by its front end: the text box shows its extracted text, and while
+ * that text is unchanged the check uses the document itself, so places are Word paragraphs
+ * (¶34, char 112). Editing the text checks it as text.
+ */
+let binary: ParsedDocument | undefined;
+
 let timer: ReturnType<typeof setTimeout> | undefined;
 function schedule(): void {
   if (timer !== undefined) clearTimeout(timer);
@@ -87,12 +94,13 @@ function check(): void {
   const source = text.value;
   if (source.trim() === '') {
     output.innerHTML = '';
-    status.textContent = 'Paste a manuscript (Markdown, LaTeX or plain text) or drop a .md, .tex or .txt file.';
+    status.textContent = 'Paste a manuscript (Markdown, LaTeX or plain text) or drop a .md, .tex, .txt or Word .docx file.';
     return;
   }
   let report: FileReport;
   try {
-    report = checkSource(name.value || 'manuscript.md', source, options());
+    const doc = binary && binary.source === source ? binary : undefined;
+    report = checkSource(doc ? doc.path : name.value || 'manuscript.md', source, { ...options(), ...(doc ? { document: doc } : {}) });
   } catch (e) {
     status.textContent = `plumbline could not check this text: ${e instanceof Error ? e.message : String(e)}`;
     return;
@@ -108,12 +116,28 @@ async function load(f: File): Promise<void> {
     status.textContent = `${f.name} is larger than 50 MiB; not read.`;
     return;
   }
+  const bytes = new Uint8Array(await f.arrayBuffer());
+  // a Word or PDF file by its name or first bytes, read by its front end as the command line reads it
+  const kind = binaryKindOf(f.name, bytes);
+  if (kind) {
+    const read = await readBinaryDocument(f.name, bytes, kind);
+    if (!read.ok) {
+      status.textContent = `${f.name}: ${read.message}; not read.`;
+      return;
+    }
+    binary = read.document;
+    text.value = read.document.source;
+    name.value = f.name;
+    check();
+    return;
+  }
   // the command line's decoding: UTF-8 or UTF-16 with BOM, binary files refused
-  const decoded = decodeBytes(new Uint8Array(await f.arrayBuffer()));
+  const decoded = decodeBytes(bytes);
   if (!decoded.ok) {
     status.textContent = `${f.name}: ${decoded.reason}; not read.`;
     return;
   }
+  binary = undefined;
   text.value = decoded.text;
   name.value = f.name;
   check();
