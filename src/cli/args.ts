@@ -28,6 +28,8 @@ export interface CliOptions {
   quiet: boolean;
   baseline?: string;
   writeBaseline?: string;
+  /** Write a copy of the one Word file checked with the findings as comments. */
+  annotate?: string;
   /** Folder walks follow symbolic links that lead outside the folder named (--follow-links-outside). */
   followLinksOutside?: boolean;
   /** batch: the number of the first input line (a chunk of a larger input keeps the whole input's line numbers). */
@@ -39,8 +41,6 @@ export interface CliOptions {
   watch?: boolean;
   /** Apply the safe formatting fixes (`apply`), or print them as a unified diff (`diff`). */
   fix?: 'apply' | 'diff';
-  /** Write a copy of the one file checked with each finding on it (a PDF: highlights and notes). */
-  annotate?: string;
 }
 
 export type ParseOutcome = { kind: 'run'; options: CliOptions } | { kind: 'help' | 'version'; text: string } | { kind: 'error'; message: string };
@@ -132,11 +132,6 @@ export async function parseArguments(argv: string[], columns: number | undefined
     return { kind: 'error', message: `--first-line must be a whole number, 1 or more; got "${rawValue(words, 'first-line') ?? ''}"` };
   if (firstLine !== undefined && command !== 'batch') return { kind: 'error', message: '--first-line applies to batch only' };
   for (const name of ['output', 'baseline', 'write-baseline', 'config', 'stdin-name', 'annotate'] as const) if (str(name) === '') return { kind: 'error', message: `--${name} needs a value` };
-  if (str('annotate') !== undefined) {
-    const files = ((parsed.files as string[] | undefined) ?? []).length + literalFiles.length;
-    if (command !== 'check' || files !== 1 || namesStandardInput(words)) return { kind: 'error', message: '--annotate writes a copy of one file: name exactly one file to check (not standard input)' };
-    if (parsed.watch === true || parsed.fix === true || parsed['fix-dry-run'] === true) return { kind: 'error', message: '--annotate does not go with --watch, --fix or --fix-dry-run' };
-  }
   if (parsed.fix === true && parsed['fix-dry-run'] === true) return { kind: 'error', message: '--fix and --fix-dry-run do not go together; give one' };
 
   const positional = ((parsed.files as string[] | undefined) ?? []).map(String);

@@ -5,7 +5,7 @@ import { basename, dirname, join, resolve } from 'node:path';
 export interface ReportSink {
   /** The path the report lands at (after following symbolic links). */
   readonly target: string;
-  write(s: string | Uint8Array): void;
+  write(s: string): void;
   /** The run completed: make the report visible. */
   commit(): void;
   /** The run failed or was refused: leave any earlier file as it was. */
@@ -45,8 +45,8 @@ export function openDestination(path: string, cwd: string): Destination {
   return { sink: new AtomicOutput(target, existing?.mode) };
 }
 
-/** The same, for files that must be regular (a baseline): never a FIFO, device or descriptor. */
-export function openRegularFile(path: string, cwd: string): ReportSink {
+/** The same, for files that must be regular (a baseline, an annotated copy): never a FIFO, device or descriptor. */
+export function openRegularFile(path: string, cwd: string): ReportSink & { writeBytes(b: Uint8Array): void } {
   const target = followLinks(resolve(cwd, path));
   let existing;
   try {
@@ -153,9 +153,15 @@ class AtomicOutput implements ReportSink {
     if (mode !== undefined) fchmodSync(this.fd, mode & 0o7777);
   }
 
-  write(s: string | Uint8Array): void {
+  write(s: string): void {
     if (this.fd === undefined) throw new Error('output already closed');
     writeAll(this.fd, s);
+  }
+
+  /** Bytes as they are (an annotated copy of a Word file). */
+  writeBytes(b: Uint8Array): void {
+    if (this.fd === undefined) throw new Error('output already closed');
+    writeAll(this.fd, b);
   }
 
   commit(): void {

@@ -84,6 +84,7 @@ export async function run(argv: string[], rawIo: Io): Promise<number> {
     const given: Array<[string, boolean]> = [
       ['--baseline', options.baseline !== undefined],
       ['--write-baseline', options.writeBaseline !== undefined],
+      ['--annotate', options.annotate !== undefined],
       ['--max-warnings', options.maxWarnings !== undefined],
       ['--quiet', options.quiet],
       ['--format', options.format !== 'human'],
@@ -230,6 +231,12 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
   }
 
   let report = run.report;
+  if (options.annotate !== undefined) {
+    const { annotate } = await import('./annotate.js');
+    const said = await annotate(options.annotate, report, io.cwd, stdin ? { name: stdin.name, bytes: stdin.bytes } : undefined);
+    io.stderr(`plumbline: ${said.message}\n`);
+    if (!said.ok) return EXIT.trouble;
+  }
   if (options.writeBaseline !== undefined) {
     const target = resolve(io.cwd, options.writeBaseline);
     let previous: Baseline | undefined;
@@ -265,13 +272,6 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
   // diagnostics go to standard error in every format; reports carry them as data too
   for (const f of report.failures) io.stderr(say`plumbline: ${f.path}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}: ${f.message}\n`);
   await write(report, options, io, toFile);
-  if (options.annotate !== undefined) {
-    // loaded only when asked for: pdf-lib is not part of a plain check
-    const { writeAnnotated } = await import('./annotate.js');
-    const problem = await writeAnnotated(options.annotate, report, io.cwd, options.maxFileBytes ?? DEFAULT_MAX_FILE_BYTES);
-    io.stderr(`plumbline: ${problem ?? `wrote the annotated copy ${options.annotate}`}\n`);
-    if (problem !== undefined) return EXIT.trouble;
-  }
 
   const counts = countRun(report);
   if (report.failures.length > 0) return EXIT.trouble;

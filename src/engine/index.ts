@@ -17,7 +17,7 @@ export type * from './types.js';
 export { RULES, RULE_IDS, ruleById } from './registry.js';
 export { decodeBytes, type Decoded } from '../parse/index.js';
 export { formatForPath, readLatexIncludes, type InputFormat, type LatexInclude } from '../parse/index.js';
-export { binaryKindOf, readBinaryDocument, type BinaryKind, type BinaryOutcome } from '../parse/index.js';
+export { annotateWordDocument, binaryKindOf, readBinaryDocument, type BinaryKind, type BinaryOutcome, type WordComment } from '../parse/index.js';
 export { documentFromBlocks, type Block, type BlockNote, type BlockPiece, type BlocksOptions } from '../parse/index.js';
 export type { OriginalMap, OriginalUnit, ParsedDocument } from '../parse/types.js';
 

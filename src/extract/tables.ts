@@ -49,6 +49,10 @@ const HEADER_N = /\(\s?n ?= ?(\d{1,6})\s?\)/iu;
 const CELL_NUMBER = new RegExp(String.raw`^ ?(${NUM}) ?${STARS} ?$`, 'u');
 /** A t cell: a number, or one in R's scientific form (`3.4e+01`, `2e1000`: beyond a double, read as its log10). */
 const CELL_T = new RegExp(String.raw`^ ?(${NUM}(?:[eE][-+]?\d{1,9})?) ?${STARS} ?$`, 'u');
+/** A t cell under a `t (df)` header: the t, then its df in brackets (`20.86 (99)`), stars after either. */
+const CELL_T_DF = new RegExp(String.raw`^ ?(${NUM}) ?${STARS} ?\( ?(\d{1,6}(?:\.\d{1,4})?) ?\) ?(\*{1,4}|†)? ?$`, 'u');
+/** A `t (df)` header: the cells print the df in brackets after t. */
+const T_DF_HEADER = /\( ?df ?\)$/iu;
 /**
  * A p cell. A minus sign is read (`-.05`, `-0`; a Unicode minus is folded to it before), so that
  * values-are-possible can say it cannot be, as for a p in prose; an exponent of up to 9 digits
@@ -145,7 +149,7 @@ function newGrid(table: number): Grid {
 }
 
 interface Columns {
-  t?: { column: number; df?: ReportedNumber };
+  t?: { column: number; df?: ReportedNumber; dfInCell?: boolean };
   df?: number;
   p?: number;
   d?: { column: number; kind: EffectSizeReport['kind'] };
@@ -168,7 +172,7 @@ function columnsOf(grid: Grid): Columns {
       const dfText = t[1];
       const at = dfText ? seg.text.indexOf(dfText) : -1;
       const df = dfText && at >= 0 ? readNumber(seg, at, at + dfText.length) : undefined;
-      c.t = { column, ...(df ? { df } : {}) };
+      c.t = { column, ...(df ? { df } : {}), ...(T_DF_HEADER.test(text) ? { dfInCell: true } : {}) };
     } else if (DF_HEADER.test(text)) c.df ??= column;
     else if (P_HEADER.test(text)) c.p ??= column;
     else if (D_HEADER.test(text)) {
@@ -269,13 +273,17 @@ function readGrid(grid: Grid, out: TableResults): void {
     // the row's test
     const tCell = cols.t ? row.get(cols.t.column) : undefined;
     if (tCell) {
-      const m = CELL_T.exec(tCell.text);
+      // under a `t (df)` header a cell may print its df in brackets after t (`20.86 (99)`)
+      const withDf = cols.t?.dfInCell ? CELL_T_DF.exec(tCell.text) : null;
+      const m = withDf ?? CELL_T.exec(tCell.text);
       const t = m ? numberAt(tCell, m[1] as string, 0) : undefined;
       if (t && m) {
         const dfCell = cols.df !== undefined ? row.get(cols.df) : undefined;
-        const df = (dfCell ? cellNumber(dfCell) : undefined) ?? cols.t?.df ?? captionDf;
+        const inCell = withDf ? numberAt(tCell, withDf[3] as string, tCell.text.indexOf('(', tCell.text.indexOf(withDf[1] as string) + (withDf[1] as string).length)) : undefined;
+        const df = inCell ?? (dfCell ? cellNumber(dfCell) : undefined) ?? cols.t?.df ?? captionDf;
         const pCell = cols.p !== undefined ? row.get(cols.p) : undefined;
-        const p = (pCell ? cellP(pCell) : undefined) ?? (m[2] ? starP(tCell, m[2]) : undefined);
+        const stars = m[2] ?? (withDf ? withDf[4] : undefined);
+        const p = (pCell ? cellP(pCell) : undefined) ?? (stars ? starP(tCell, stars) : undefined);
         if (p || df) out.tests.push(tableTest(tCell, t, df, p, [tCell, dfCell, pCell], where));
       }
     }

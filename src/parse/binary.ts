@@ -1,4 +1,4 @@
-import type { ParsedDocument } from './types.js';
+import type { ParsedDocument, Span } from './types.js';
 
 /** The binary document kinds read by a front end of their own. */
 export type BinaryKind = 'docx' | 'pdf';
@@ -44,4 +44,19 @@ export async function readBinaryDocument(path: string, bytes: Uint8Array, kind: 
   }
   const { readPdf } = await import('./pdf/index.js');
   return readPdf(path, bytes);
+}
+
+/** A comment for annotateWordDocument: the span of the extracted text it is about, and its paragraphs. */
+export interface WordComment {
+  span: Span;
+  paragraphs: string[];
+}
+
+/**
+ * A copy of a Word file with each comment on the characters its span covers (see
+ * src/parse/docx/annotate.ts), loaded only when asked for.
+ */
+export async function annotateWordDocument(bytes: Uint8Array, comments: readonly WordComment[]): Promise<{ ok: true; bytes: Uint8Array; added: number; notPlaced: number } | { ok: false; message: string }> {
+  const { annotateDocx } = await import('./docx/annotate.js');
+  return annotateDocx(bytes, comments);
 }

@@ -10,7 +10,7 @@ export { decodeBytes, type Decoded } from './decode.js';
 export { LineIndex } from './lines.js';
 export { parseLatex, readLatexIncludes, type LatexInclude } from './latex.js';
 export { mayHoldStatistics } from './prefilter.js';
-export { binaryKindOf, isCompoundFile, readBinaryDocument, type BinaryKind, type BinaryOutcome } from './binary.js';
+export { annotateWordDocument, binaryKindOf, isCompoundFile, readBinaryDocument, type BinaryKind, type BinaryOutcome, type WordComment } from './binary.js';
 export { documentFromBlocks, openingWords, unitAt, type Block, type BlockNote, type BlockPiece, type BlocksOptions } from './blocks.js';
 export type * from './types.js';
 

@@ -71,7 +71,11 @@ function options(): CheckOptions {
   };
 }
 
-/** A PDF's document as read, kept while the text shown is its text, so places name page and line. */
+/**
+ * A Word (or PDF) file read by its front end: the text box shows its extracted text, and while
+ * that text is unchanged the check uses the document itself, so places are Word paragraphs
+ * (¶34, char 112) or PDF pages and lines (p. 7 line 23). Editing the text checks it as text.
+ */
 let binary: ParsedDocument | undefined;
 
 let timer: ReturnType<typeof setTimeout> | undefined;
@@ -90,13 +94,13 @@ function check(): void {
   const source = text.value;
   if (source.trim() === '') {
     output.innerHTML = '';
-    status.textContent = 'Paste a manuscript (Markdown, LaTeX or plain text) or drop a .md, .tex or .txt file.';
+    status.textContent = 'Paste a manuscript (Markdown, LaTeX or plain text) or drop a .md, .tex, .txt, Word .docx or .pdf file.';
     return;
   }
   let report: FileReport;
   try {
-    const document = binary && binary.source === source && binary.path === name.value ? { document: binary } : {};
-    report = checkSource(name.value || 'manuscript.md', source, { ...options(), ...document });
+    const doc = binary && binary.source === source ? binary : undefined;
+    report = checkSource(doc ? doc.path : name.value || 'manuscript.md', source, { ...options(), ...(doc ? { document: doc } : {}) });
   } catch (e) {
     status.textContent = `plumbline could not check this text: ${e instanceof Error ? e.message : String(e)}`;
     return;
@@ -113,12 +117,12 @@ async function load(f: File): Promise<void> {
     return;
   }
   const bytes = new Uint8Array(await f.arrayBuffer());
-  // a PDF is read in this tab by pdf.js, bundled into the page (no worker script, nothing fetched)
-  if (binaryKindOf(f.name, bytes) === 'pdf') {
-    status.textContent = `Reading ${f.name} …`;
-    const read = await readBinaryDocument(f.name, bytes, 'pdf').catch((e: unknown) => ({ ok: false as const, message: `cannot read: ${e instanceof Error ? e.message : String(e)}` }));
+  // a Word or PDF file by its name or first bytes, read by its front end as the command line reads it
+  const kind = binaryKindOf(f.name, bytes);
+  if (kind) {
+    const read = await readBinaryDocument(f.name, bytes, kind);
     if (!read.ok) {
-      status.textContent = `${f.name}: ${read.message}`;
+      status.textContent = `${f.name}: ${read.message}; not read.`;
       return;
     }
     binary = read.document;
@@ -127,13 +131,13 @@ async function load(f: File): Promise<void> {
     check();
     return;
   }
-  binary = undefined;
   // the command line's decoding: UTF-8 or UTF-16 with BOM, binary files refused
   const decoded = decodeBytes(bytes);
   if (!decoded.ok) {
     status.textContent = `${f.name}: ${decoded.reason}; not read.`;
     return;
   }
+  binary = undefined;
   text.value = decoded.text;
   name.value = f.name;
   check();

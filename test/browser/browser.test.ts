@@ -279,6 +279,31 @@ describe.skipIf(!available)('in chromium', () => {
     expect(w.requests).toEqual([]);
     await w.page.close();
   }, 90_000);
+  it('the page reads a Word file from the picker and by drop, places findings by paragraph, and sends nothing', async () => {
+    const w = await open(pathToFileURL(PAGE).href);
+    expect(await w.page.getAttribute('#file', 'accept')).toContain('.docx');
+    // fixtures/docx/features.docx is invented (scripts/make-docx-fixtures.mjs): its footnote's
+    // t(12) = 3.50, p = .40 cannot hold (scipy.stats.t.sf(3.50, 12) * 2 = 0.0044)
+    const bytes = readFileSync(resolve('fixtures/docx/features.docx'));
+    await w.page.setInputFiles('#file', { name: 'plants.docx', mimeType: 'application/vnd.openxmlformats-officedocument.wordprocessingml.document', buffer: bytes });
+    await w.page.waitForFunction(() => (document.getElementById('name') as HTMLInputElement).value === 'plants.docx');
+    await w.page.waitForFunction(() => document.querySelectorAll('details.card').length > 0, undefined, { timeout: 10_000 });
+    expect(await w.page.textContent('#output')).toContain('footnote 1 ¶1 (“A check of the pots gave …”) char 27');
+    expect(await w.page.inputValue('#manuscript')).toContain('A check of the pots gave t(12) = 3.50, p = .40.');
+    // dropped: the same reading
+    await w.page.fill('#manuscript', '');
+    const handle = await w.page.evaluateHandle((data) => {
+      const dt = new DataTransfer();
+      dt.items.add(new File([new Uint8Array(data)], 'dropped.docx'));
+      return dt;
+    }, [...bytes]);
+    await w.page.dispatchEvent('#drop', 'drop', { dataTransfer: handle });
+    await w.page.waitForFunction(() => (document.getElementById('name') as HTMLInputElement).value === 'dropped.docx');
+    await w.page.waitForFunction(() => (document.getElementById('output')?.textContent ?? '').includes('footnote 1 ¶1'), undefined, { timeout: 10_000 });
+    expect(w.errors).toEqual([]);
+    expect(w.requests).toEqual([]);
+    await w.page.close();
+  }, 60_000);
 
   it('the page refuses a dropped binary file, says so, and keeps what it showed', async () => {
     const w = await open(pathToFileURL(PAGE).href);

@@ -60,7 +60,7 @@ describe('--annotate OUT.pdf', () => {
     const before = readFileSync(join(dir, 'two-columns.pdf'));
     const out = await cli(['two-columns.pdf', '--annotate', 'annotated.pdf'], { cwd: dir });
     expect(out.code).toBe(1);
-    expect(out.stderr).toContain('wrote the annotated copy annotated.pdf');
+    expect(out.stderr).toContain('wrote annotated.pdf: two-columns.pdf with 1 finding as highlights and notes');
     // the original is unchanged
     expect(readFileSync(join(dir, 'two-columns.pdf')).equals(before)).toBe(true);
     const pages = await annotationsOf(join(dir, 'annotated.pdf'));
@@ -97,7 +97,7 @@ describe('--annotate OUT.pdf', () => {
     expect(over.code).toBe(2);
     const two = await cli(['two-columns.pdf', 'table.pdf', '--annotate', 'x.pdf'], { cwd: dir });
     expect(two.code).toBe(2);
-    expect(two.stderr).toMatch(/--annotate writes a copy of one file/);
+    expect(two.stderr).toMatch(/--annotate writes one annotated copy of one Word or PDF file, and 2 such files were checked/);
     expect(existsSync(join(dir, 'x.pdf'))).toBe(false);
   });
 
@@ -105,7 +105,7 @@ describe('--annotate OUT.pdf', () => {
     writeFileSync(join(dir, 'notes.md'), 'Invented: t(30) = 1.20, p = .02.\n');
     const out = await cli(['notes.md', '--annotate', 'notes-annotated.pdf'], { cwd: dir });
     expect(out.code).toBe(2);
-    expect(out.stderr).toMatch(/no annotated copy written: --annotate writes copies of PDF files/);
+    expect(out.stderr).toMatch(/no Word \(\.docx\) or PDF file was checked/);
     expect(existsSync(join(dir, 'notes-annotated.pdf'))).toBe(false);
   });
 });

@@ -34,6 +34,17 @@ describe('wide tables: one comparison per row', () => {
   it('a row whose t its own groups cannot give is found, the correct row is not', () => {
     expect(warnings(run(`${wide}\n`))).toEqual(['t-follows-from-descriptives/mismatch@4']);
   });
+  it('under a `t (df)` header, each cell\'s df in brackets after its t; a p that cannot follow is flagged', () => {
+    // invented; t(99) = 1.071 gives p = .287 and t(40) = 2.50 gives p = .017 (scipy.stats.t.sf doubled), not .17
+    const r = run('| Variable | Mean (SD) | t (df) | p |\n|---|---|---|---|\n| Slope | -.030 (.284) | -1.071 (99) | .287 |\n| Shift | .410 (.300) | 2.50 (40)* | .17 |\n');
+    expect(r.results.map((x) => [x.t.printed, x.df?.printed, x.df?.value, x.p?.number?.printed])).toEqual([
+      ['-1.071', '99', 99, '.287'],
+      ['2.50', '40', 40, '.17'],
+    ]);
+    expect(r.findings.filter((f) => f.level === 'error').map((f) => `${f.ruleId}@${f.start.line}`)).toEqual(['significance-follows-from-t@4']);
+    // without the header's `(df)`, a bracket after t is not read as its df
+    expect(run('| Variable | t | p |\n|---|---|---|\n| Slope | -1.071 (99) | .287 |\n').results).toEqual([]);
+  });
   it('the df in the t column\'s header, and stars in the t cell read with the table\'s legend', () => {
     const r = run('| Measure | A (n = 20), M (SD) | B (n = 20), M (SD) | t(38) |\n|---|---|---|---|\n| Fatigue | 5.00 (1.00) | 4.00 (1.10) | 3.01** |\n| Comfort | 5.00 (1.00) | 4.95 (1.10) | 0.15 |\n\n*Note.* \\*p < .05, \\*\\*p < .01.\n');
     expect(r.results.map((x) => [x.t.value, x.df?.value, x.p?.op, x.p?.number?.value, x.p?.stars?.basis])).toEqual([

@@ -1,6 +1,6 @@
 import { documentFromBlocks, type Block, type BlockNote } from '../blocks.js';
 import { isCompoundFile, ZIP_MAGIC, type BinaryOutcome } from '../binary.js';
-import { DocxRefusal, readBody, readHeadingStyles, readNotes } from './read.js';
+import { DocxRefusal, readBody, readHeadingStyles, readNotes, readRelationships } from './read.js';
 import { DOCX_LIMITS, unzipParts, type DocxLimits } from './zip.js';
 
 export { DOCX_LIMITS, type DocxLimits } from './zip.js';
@@ -8,8 +8,6 @@ export { DOCX_LIMITS, type DocxLimits } from './zip.js';
 /** `EncryptionInfo` in UTF-16LE: the stream an encrypted Office file's compound file holds (MS-OFFCRYPTO 2.3.4). */
 const ENCRYPTION_INFO = new Uint8Array([...'EncryptionInfo'].flatMap((c) => [c.charCodeAt(0), 0]));
 const REL_TYPE_END = /\/(officeDocument|styles|footnotes|endnotes)$/;
-const RELATIONSHIP = /<(?:[A-Za-z_][\w.-]{0,40}:)?Relationship\s[^>]{0,4000}>/g;
-const ATTRIBUTE = /\s(Type|Target|TargetMode)\s*=\s*("[^"]{0,2000}"|'[^']{0,2000}')/g;
 
 /**
  * A Word (.docx) file into a document: the body, its tables (cells with their TablePlace), then
@@ -39,14 +37,14 @@ function read(path: string, bytes: Uint8Array, limits: DocxLimits): BinaryOutcom
   const top = unzipParts(bytes, (name) => name === '_rels/.rels', limits);
   if (!top.ok) return top;
   const topRels = top.parts.get('_rels/.rels');
-  const mainName = relationships(topRels ? text(topRels) : '', '').get('officeDocument') ?? 'word/document.xml';
+  const mainName = relationships(topRels ? text(topRels) : '', '', limits).get('officeDocument') ?? 'word/document.xml';
   const folder = mainName.includes('/') ? mainName.slice(0, mainName.lastIndexOf('/') + 1) : '';
   const relsName = `${folder}_rels/${mainName.slice(folder.length)}.rels`;
   const first = unzipParts(bytes, (name) => name === mainName || name === relsName, limits);
   if (!first.ok) return first;
   const main = first.parts.get(mainName);
   if (!main) return { ok: false, message: `not a .docx: the archive holds no Word document part (${mainName})` };
-  const rels = relationships(first.parts.has(relsName) ? text(first.parts.get(relsName) as Uint8Array) : '', folder);
+  const rels = relationships(first.parts.has(relsName) ? text(first.parts.get(relsName) as Uint8Array) : '', folder, limits);
   const stylesName = rels.get('styles');
   const footnotesName = rels.get('footnotes');
   const endnotesName = rels.get('endnotes');
@@ -75,7 +73,7 @@ function read(path: string, bytes: Uint8Array, limits: DocxLimits): BinaryOutcom
     });
   }
   const notes: BlockNote[] = tracked
-    ? [{ kind: 'tracked-changes', message: 'the document holds tracked changes; its text was read as if they were all accepted (insertions in, deletions out)' }]
+    ? [{ kind: 'tracked-changes', message: 'read as if every change were accepted (insertions in, deletions and moved-away text out)' }]
     : [];
   return { ok: true, document: documentFromBlocks(path, 'docx', blocks, { notes, ...(tracked ? { trackedChanges: true } : {}) }) };
 }
@@ -98,17 +96,12 @@ function isWordDocument(xml: string): boolean {
  * `styles`, `footnotes`, `endnotes`), resolved against `folder` as OPC resolves them (a leading
  * `/` from the package root).
  */
-function relationships(xml: string, folder: string): Map<string, string> {
+function relationships(xml: string, folder: string, limits: DocxLimits): Map<string, string> {
   const out = new Map<string, string>();
-  RELATIONSHIP.lastIndex = 0;
-  for (let m = RELATIONSHIP.exec(xml); m; m = RELATIONSHIP.exec(xml)) {
-    const attrs = new Map<string, string>();
-    ATTRIBUTE.lastIndex = 0;
-    for (let a = ATTRIBUTE.exec(m[0]); a; a = ATTRIBUTE.exec(m[0])) attrs.set(a[1] as string, (a[2] as string).slice(1, -1));
-    const type = REL_TYPE_END.exec(attrs.get('Type') ?? '');
-    const target = attrs.get('Target');
-    if (!type || target === undefined || attrs.get('TargetMode') === 'External' || out.has(type[1] as string)) continue;
-    out.set(type[1] as string, resolvePart(folder, target));
+  for (const r of readRelationships(xml, limits)) {
+    const type = REL_TYPE_END.exec(r.type);
+    if (!type || r.external || out.has(type[1] as string)) continue;
+    out.set(type[1] as string, resolvePart(folder, r.target));
   }
   return out;
 }

@@ -27,6 +27,7 @@ const SUPERSCRIPTS: Record<string, string> = {
 };
 const EXPONENT_TEXT = /^[0-9+\-\u2212\u2011\u2013]{1,6}$/;
 const HEADING_STYLE = /^(?:heading [1-9]|title|subtitle)$/i;
+const CHARACTER_REFERENCE = /^&#(x?)([0-9A-Fa-f]{1,8});$/;
 
 /** A part could not be read: its message says why (damaged XML, too deep). */
 export class DocxRefusal extends Error {}
@@ -65,8 +66,22 @@ export function readHeadingStyles(xml: string, limits: DocxLimits): Set<string> 
  * `mc:Fallback` not. Tracked changes are read as accepted: `w:ins` and `w:moveTo` in, `w:del`
  * and `w:moveFrom` out, and a paragraph whose mark was deleted runs on into the next.
  */
-export function readBody(xml: string, headingStyles: Set<string>, limits: DocxLimits): Story {
-  return readStory(xml, headingStyles, limits, undefined);
+export function readBody(xml: string, headingStyles: Set<string>, limits: DocxLimits, trace?: Map<number, Array<Anchor | undefined>>): Story {
+  return readStory(xml, headingStyles, limits, undefined, trace);
+}
+
+/**
+ * Where a character of a paragraph's text sits in the XML (for --annotate): inside a `w:t`
+ * (`before`/`after` are offsets in the part's text around the character, `open` the offsets of
+ * the `w:t` start tag), or an element of its own (a tab, a symbol). `runProperties` is the
+ * run's `w:rPr` as written, so a run split in two keeps its look.
+ */
+export interface Anchor {
+  inText: boolean;
+  before: number;
+  after: number;
+  open?: { start: number; end: number };
+  runProperties: string;
 }
 
 /**
@@ -86,15 +101,32 @@ export function readNotes(xml: string, kind: 'footnote' | 'endnote', headingStyl
   return { notes: out, tracked: story.tracked };
 }
 
+/** The Relationship elements of an OPC relationships part (ECMA-376 Part 2, 9.3): type, target, whether external. */
+export function readRelationships(xml: string, limits: DocxLimits): Array<{ type: string; target: string; external: boolean }> {
+  const out: Array<{ type: string; target: string; external: boolean }> = [];
+  if (xml === '') return out;
+  walk(xml, limits, {
+    open(tag) {
+      if (tag.local !== 'Relationship') return;
+      const target = attr(tag, 'Target');
+      if (target !== undefined) out.push({ type: attr(tag, 'Type') ?? '', target, external: attr(tag, 'TargetMode') === 'External' });
+    },
+  });
+  return out;
+}
+
 interface Handlers {
   open?: (tag: SaxesTagNS) => void;
   close?: (tag: SaxesTagNS) => void;
   text?: (text: string) => void;
+  /** Set: positions are tracked, and this is given the getter of the offset just past the current event. */
+  position?: (get: () => number) => void;
 }
 
 /** Parse `xml` with saxes (namespaces on, no DTD), refusing what is damaged or nests past the limit. */
 function walk(xml: string, limits: DocxLimits, h: Handlers): void {
-  const parser = new SaxesParser({ xmlns: true, position: false });
+  const parser = new SaxesParser({ xmlns: true, position: h.position !== undefined });
+  h.position?.(() => parser.position);
   let depth = 0;
   let failure: string | undefined;
   parser.on('error', (e) => {
@@ -125,6 +157,14 @@ function walk(xml: string, limits: DocxLimits, h: Handlers): void {
   if (failure !== undefined) throw new DocxRefusal(`damaged XML: ${failure}`);
 }
 
+/** Code units a character reference decodes to (`&#x1F600;` is two). */
+function entityLength(ref: string): number {
+  const m = CHARACTER_REFERENCE.exec(ref);
+  if (!m) return 1;
+  const code = Number.parseInt(m[2] as string, m[1] ? 16 : 10);
+  return code > 0xffff ? 2 : 1;
+}
+
 function attr(tag: SaxesTagNS, local: string): string | undefined {
   for (const k in tag.attributes) {
     const a = tag.attributes[k];
@@ -140,7 +180,7 @@ function isOn(tag: SaxesTagNS): boolean {
 }
 
 /** One story's reader: a stack machine over the XML events. */
-function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, note: 'footnote' | 'endnote' | undefined): Story {
+function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, note: 'footnote' | 'endnote' | undefined, trace?: Map<number, Array<Anchor | undefined>>): Story {
   const blocks: Block[] = [];
   const noteOf: Array<string | undefined> = [];
   let noteId: string | undefined;
@@ -155,7 +195,13 @@ function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, 
   let skipDepth = 0;
   const skipping: string[] = [];
   // open paragraphs (a text box's paragraphs sit inside a run of another)
-  const stack: Array<{ number: number; text: string; markDeleted: boolean; style?: string; outline: boolean }> = [];
+  const stack: Array<{ number: number; text: string; markDeleted: boolean; style?: string; outline: boolean; anchors: Array<Anchor | undefined> }> = [];
+  // tracing (--annotate): the offset past the current event, the run's properties, the open w:t
+  let pos = () => 0;
+  let runProps = '';
+  let propsStart = -1;
+  let runAnchors: Array<Anchor | undefined> = [];
+  let tOpen: { start: number; end: number; chars: number } | undefined;
   // a paragraph whose mark was deleted: its pieces wait for the next paragraph's
   let carried: BlockPiece[] = [];
   // run state
@@ -176,6 +222,8 @@ function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, 
   const flushRun = () => {
     if (runText === '') return;
     const p = stack[stack.length - 1];
+    if (p && trace) p.anchors.push(...(runAnchors.length === runText.length ? runAnchors : new Array<undefined>(runText.length).fill(undefined)));
+    runAnchors = [];
     if (p && runSuper && EXPONENT_TEXT.test(runText)) p.text += [...runText].map((c) => SUPERSCRIPTS[c] ?? c).join('');
     else if (p) p.text += runText;
     runText = '';
@@ -183,6 +231,7 @@ function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, 
   const closeParagraph = () => {
     const p = stack.pop();
     if (!p) return;
+    if (trace && note === undefined) trace.set(p.number, p.anchors.length === p.text.length ? p.anchors : new Array<undefined>(p.text.length).fill(undefined));
     const heading = p.outline || (p.style !== undefined && headingStyles.has(p.style));
     const piece: BlockPiece = { text: p.text, unit: { paragraph: p.number, opening: openingWords(p.text), ...(note ? { note: { kind: note, number: 0 } } : {}) } };
     if (p.markDeleted) {
@@ -201,6 +250,7 @@ function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, 
   };
 
   walk(xml, limits, {
+    ...(trace ? { position: (get: () => number) => (pos = get) } : {}),
     open(tag) {
       const w = W.has(tag.uri);
       if (tag.uri === MC && tag.local === 'Fallback') {
@@ -238,7 +288,7 @@ function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, 
           return;
         case 'p':
           paragraphs += 1;
-          stack.push({ number: paragraphs, text: '', markDeleted: false, outline: false });
+          stack.push({ number: paragraphs, text: '', markDeleted: false, outline: false, anchors: [] });
           return;
         case 'pPr':
           inParaProps = true;
@@ -254,9 +304,13 @@ function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, 
           runSuper = false;
           runHidden = false;
           runText = '';
+          runProps = '';
+          runAnchors = [];
           return;
         case 'rPr':
           inRunProps = true;
+          if (trace && inRun && !inParaProps) propsStart = xml.lastIndexOf('<', pos() - 1);
+          if (tag.isSelfClosing) propsStart = -1;
           return;
         case 'vertAlign':
           if (inRun && inRunProps) runSuper = attr(tag, 'val') === 'superscript';
@@ -266,26 +320,27 @@ function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, 
           return;
         case 't':
           inT = true;
+          if (trace) tOpen = { start: xml.lastIndexOf('<', pos() - 1), end: pos(), chars: runText.length };
           return;
         case 'tab':
-          if (inRun && !inParaProps) addRunChar('\t');
+          if (inRun && !inParaProps) addElementChar('\t');
           return;
         case 'br':
         case 'cr':
-          if (inRun) addRunChar(' ');
+          if (inRun) addElementChar(' ');
           return;
         case 'noBreakHyphen':
-          if (inRun) addRunChar('-');
+          if (inRun) addElementChar('-');
           return;
         case 'softHyphen':
-          if (inRun) addRunChar('\u00AD');
+          if (inRun) addElementChar('\u00AD');
           return;
         case 'sym': {
           if (!inRun) return;
           const code = Number.parseInt(attr(tag, 'char') ?? '', 16);
           const low = Number.isFinite(code) ? code & 0xff : -1;
           const font = (attr(tag, 'font') ?? '').toLowerCase();
-          addRunChar(font === 'symbol' ? (SYMBOL_FONT[low] ?? '\ufffd') : Number.isFinite(code) && code < 0xf000 ? String.fromCodePoint(code) : '\ufffd');
+          addElementChar(font === 'symbol' ? (SYMBOL_FONT[low] ?? '\ufffd') : Number.isFinite(code) && code < 0xf000 && code > 0 ? String.fromCodePoint(code) : '\ufffd');
           return;
         }
         case 'fldChar': {
@@ -378,6 +433,8 @@ function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, 
           return;
         case 'rPr':
           inRunProps = false;
+          if (trace && propsStart >= 0) runProps = xml.slice(propsStart, pos());
+          propsStart = -1;
           return;
         case 'r':
           flushRunIfAny();
@@ -385,6 +442,8 @@ function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, 
           return;
         case 't':
           inT = false;
+          if (trace && tOpen) traceText(tOpen, tag.isSelfClosing ? tOpen.end : xml.lastIndexOf('</', pos() - 1));
+          tOpen = undefined;
           return;
         case 'tc': {
           const t = tables[tables.length - 1];
@@ -409,6 +468,34 @@ function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, 
   function addRunChar(s: string) {
     if (skipDepth > 0 || inFieldInstructions() || runHidden || stack.length === 0) return;
     runText += s;
+  }
+  /** A character an element stands for (a tab, a symbol), traced to the element. */
+  function addElementChar(s: string) {
+    const before = runText.length;
+    addRunChar(s);
+    if (trace && runText.length > before) {
+      const end = pos();
+      runAnchors.push({ inText: false, before: xml.lastIndexOf('<', end - 1), after: end, runProperties: runProps });
+    }
+  }
+  /** The characters a w:t added, traced to their offsets in its raw text (character references decoded). */
+  function traceText(t: { start: number; end: number; chars: number }, rawEnd: number) {
+    const added = runText.length - t.chars;
+    if (added === 0) return;
+    const offsets: Array<[number, number]> = [];
+    for (let k = t.end; k < rawEnd; ) {
+      let next = k + 1;
+      if (xml[k] === '&') {
+        const semi = xml.indexOf(';', k);
+        if (semi > k && semi - k < 12) next = semi + 1;
+      }
+      // a character outside the basic plane is two code units of one character reference or pair
+      const decoded = xml[k] === '&' ? (entityLength(xml.slice(k, next))) : 1;
+      for (let u = 0; u < decoded; u += 1) offsets.push([k, next]);
+      k = next;
+    }
+    const anchors: Array<Anchor | undefined> = offsets.length === added ? offsets.map(([b, a]) => ({ inText: true, before: b, after: a, open: { start: t.start, end: t.end }, runProperties: runProps })) : new Array<undefined>(added).fill(undefined);
+    runAnchors.push(...anchors);
   }
   function flushRunIfAny() {
     flushRun();

@@ -1,0 +1,10 @@
+import { readFileSync } from 'node:fs';
+import { loadPdfJs } from './src/parse/pdf/read.ts';
+const pdfjs = await loadPdfJs();
+const d = await pdfjs.getDocument({ data: new Uint8Array(readFileSync(process.argv[2]!)), verbosity: 0 }).promise;
+const p = await d.getPage(Number(process.argv[3] ?? 1));
+console.log(p.view);
+const tc = await p.getTextContent();
+const items = tc.items.filter((it: any) => 'str' in it && it.str.trim()) as any[];
+const lo = Number(process.argv[4]), hi = Number(process.argv[5]);
+for (const it of items) if (it.transform[5] >= lo && it.transform[5] <= hi) console.log(JSON.stringify(it.str), it.transform.map((v: number) => Math.round(v * 10) / 10).join(','), Math.round(it.width * 10) / 10);
