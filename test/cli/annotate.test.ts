@@ -78,11 +78,11 @@ describe('--annotate OUT.docx', () => {
     const dir = workspace('desk-plants.docx', 'features.docx');
     const two = await cli(['desk-plants.docx', 'features.docx', '--annotate', 'x.docx'], { cwd: dir });
     expect(two.code).toBe(2);
-    expect(two.stderr).toContain('--annotate writes one annotated copy of one Word file, and 2 Word files were checked');
+    expect(two.stderr).toContain('--annotate writes one annotated copy of one Word or PDF file, and 2 such files were checked');
     writeFileSync(join(dir, 'a.md'), 'Plain, t(28) = 2.10, p = .045.\n');
     const none = await cli(['a.md', '--annotate', 'x.docx'], { cwd: dir });
     expect(none.code).toBe(2);
-    expect(none.stderr).toContain('no Word (.docx) file was checked');
+    expect(none.stderr).toContain('no Word (.docx) or PDF file was checked');
     expect(existsSync(join(dir, 'x.docx'))).toBe(false);
   });
 
