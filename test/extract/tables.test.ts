@@ -99,3 +99,24 @@ describe('whole-number measures declared by name are checked in table rows', () 
     expect(r.findings.filter((f) => f.ruleId === 'mean-is-possible-for-integers').map((f) => `${f.start.line}:${f.messageId}`)).toEqual(['9:grim-mean']);
   });
 });
+
+describe('a p column beside another statistic', () => {
+  // invented rows: a χ² test with its p, then a one-sample t whose p the table does not print.
+  // t(81) = 6.83 gives a two-tailed p of 4e-9 (scipy.stats.t.sf(6.83, 81) doubled), so reading the
+  // χ²'s p = .003 as the t's would flag a consistent row.
+  const table = [
+    '| Trait | χ²(1) | p | Mean | SD | t(81) |',
+    '|---|---|---|---|---|---|',
+    '| Warmth | 8.80 | .003 | 55.10 | 6.76 | 6.83 |',
+  ].join('\n');
+  it('leaves the p to the χ² whose column it follows, so the t gets none and nothing is flagged', () => {
+    const r = run(`${table}\n`);
+    expect(r.results.map((x) => [x.t.printed, x.df?.printed, x.p?.printed])).toEqual([['6.83', '81', undefined]]);
+    expect(warnings(r)).toEqual([]);
+  });
+  it('the control: without the χ² column the same p is the t\'s, and flagged', () => {
+    const r = run('| Trait | p | Mean | SD | t(81) |\n|---|---|---|---|---|\n| Warmth | .003 | 55.10 | 6.76 | 6.83 |\n');
+    expect(r.results.map((x) => x.p?.printed)).toEqual(['.003']);
+    expect(warnings(r).some((w) => w.startsWith('p-follows-from-t'))).toBe(true);
+  });
+});

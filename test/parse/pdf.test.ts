@@ -156,4 +156,33 @@ describe('layout from text runs', () => {
   it('keeps a lowered subscript inline (t₂₈ printed as a lowered 28)', () => {
     expect(text([page([run('the test gave t', 72, 700), run('28', 72 + 75.2, 697.5, 7), run(' = 2.10.', 72 + 75.2 + 7.5, 700)])])).toEqual(['the test gave t28 = 2.10.']);
   });
+
+  it('reads a table set across both columns of a two-column page as one table, its header lines as one row', () => {
+    const prose = (side: string, k: number) => `${side} column line ${k} of invented prose text`.padEnd(46, '.');
+    const runs: TextRun[] = [];
+    let y = 740;
+    for (let k = 1; k <= 6; k += 1, y -= 12) runs.push(run(prose('Left', k), 54, y), run(prose('Right', k), 318, y));
+    y -= 12;
+    // the table: cells at 54, 150, 250, 340, 440, 520; none crosses the gutter (284 to 318)
+    const cells = (texts: string[], at: number) => texts.forEach((t, i) => t !== '' && runs.push(run(t, [54, 150, 250, 340, 440, 520][i] as number, at)));
+    cells(['', 'Share', '', 'Mean', '', ''], y);
+    cells(['Trait', 'χ²(1)', 'p', 'score', 't(81)', 'd'], (y -= 12));
+    cells(['Warmth', '8.80', '.003', '55.10', '6.83', '0.75'], (y -= 12));
+    cells(['Calm', '7.35', '.007', '54.95', '7.10', '0.78'], (y -= 12));
+    y -= 24;
+    for (let k = 7; k <= 10; k += 1, y -= 12) runs.push(run(prose('Left', k), 54, y), run(prose('Right', k), 318, y));
+    const { blocks } = layoutPages([page(runs)]);
+    const order = blocks.map((b) => (b.kind === 'tableCell' ? `[${b.table?.row},${b.table?.column}] ${b.pieces.map((p) => p.text).join(' ')}` : (b.pieces[0]?.text.slice(0, 12) ?? '')));
+    expect(order).toEqual([
+      'Left column ', 'Right column',
+      '[0,0] Trait', '[0,1] Share χ²(1)', '[0,2] p', '[0,3] Mean score', '[0,4] t(81)', '[0,5] d',
+      '[1,0] Warmth', '[1,1] 8.80', '[1,2] .003', '[1,3] 55.10', '[1,4] 6.83', '[1,5] 0.75',
+      '[2,0] Calm', '[2,1] 7.35', '[2,2] .007', '[2,3] 54.95', '[2,4] 7.10', '[2,5] 0.78',
+      'Left column ', 'Right column',
+    ]);
+    // lines are numbered in reading order: the left column's six lines are lines 1–6, the right's 7–12
+    expect(blocks[0]?.pieces.map((p) => p.line)).toEqual([1, 2, 3, 4, 5, 6]);
+    expect(blocks[1]?.pieces.map((p) => p.line)).toEqual([7, 8, 9, 10, 11, 12]);
+  });
 });
+
