@@ -45,7 +45,7 @@ export async function annotate(out: string, report: RunReport, cwd: string, stdi
   } catch (e) {
     return { ok: false, message: `cannot write ${out}: ${describeError(e)}` };
   }
-  const left = made.notPlaced > 0 ? `; ${made.notPlaced} in footnotes or endnotes, or in text that could not be traced, were not added` : '';
+  const left = made.notPlaced > 0 ? `; ${made.notPlaced} in text that could not be traced to the file were not added (they are in the report)` : '';
   return { ok: true, message: `wrote ${out}: ${file.path} with ${made.added} finding${made.added === 1 ? '' : 's'} as Word comments${left}` };
 }
 

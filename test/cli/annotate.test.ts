@@ -40,15 +40,18 @@ describe('--annotate OUT.docx', () => {
     const before = readFileSync(join(dir, 'desk-plants.docx'));
     const out = await cli(['desk-plants.docx', '--annotate', 'annotated.docx', '--format', 'lines'], { cwd: dir });
     expect(out.code).toBe(1);
-    expect(out.stderr).toContain('wrote annotated.docx: desk-plants.docx with 2 findings as Word comments; 1 in footnotes or endnotes');
+    expect(out.stderr).toContain('wrote annotated.docx: desk-plants.docx with 3 findings as Word comments\n');
     expect(readFileSync(join(dir, 'desk-plants.docx')).equals(before)).toBe(true);
     const parts = unzipSync(readFileSync(join(dir, 'annotated.docx')));
     const document = strFromU8(parts['word/document.xml'] as Uint8Array);
-    expect(document.match(/<w:commentRangeStart /g)?.length).toBe(2);
-    expect(document.match(/<w:commentReference /g)?.length).toBe(2);
+    expect(document.match(/<w:commentRangeStart /g)?.length).toBe(3);
+    expect(document.match(/<w:commentReference /g)?.length).toBe(3);
+    // the footnote's finding sits on the note's reference mark in the body, and says where it is
+    expect(strFromU8(parts['word/footnotes.xml'] as Uint8Array)).not.toContain('commentRange');
     const comments = strFromU8(parts['word/comments.xml'] as Uint8Array);
     expect(comments).toContain('plumbline error (significance-follows-from-t): Reported p = .45');
     expect(comments).toContain('What to check: Check t, df and p against the analysis output');
+    expect(comments).toContain('In footnote 1, paragraph 1:');
     // every part of the original is still there
     expect(Object.keys(parts).sort()).toEqual(Object.keys(unzipSync(before)).sort());
   });
@@ -93,12 +96,13 @@ describe('--annotate OUT.docx', () => {
     execFileSync(SOFFICE as string, ['--headless', `-env:UserInstallation=file://${join(dir, 'profile')}`, '--convert-to', 'odt', '--outdir', join(dir, 'odt'), join(dir, 'plants-annotated.docx'), join(dir, 'features-annotated.docx')], { stdio: 'ignore', timeout: 180_000 });
     const content = (name: string) => strFromU8(unzipSync(readFileSync(join(dir, 'odt', name)))['content.xml'] as Uint8Array);
     const plants = annotations(content('plants-annotated.odt'));
-    expect(plants.map((a) => a.on)).toEqual(['t(28) = 2.10, p = .45', '1.20 30 .024']);
+    expect(plants.map((a) => a.on)).toEqual(['t(28) = 2.10, p = .45', '1.20 30 .024', '1 A check of the pots gave t(12) = 3.50, p = .40.']);
+    expect(plants[2]?.comment).toContain('In footnote 1, paragraph 1: plumbline error (significance-follows-from-t): Reported p = .40');
     expect(plants[0]?.comment).toContain('plumbline error (significance-follows-from-t): Reported p = .45 (not significant at alpha 0.05)');
     expect(plants[0]?.comment).toContain('What to check:');
     const features = annotations(content('features-annotated.odt'));
     // the fixture's own comment is kept beside plumbline's
-    expect(features.map((a) => a.on)).toEqual(['R', 'Two pots cracked.']);
+    expect(features.map((a) => a.on)).toEqual(['R', 'Two pots cracked.', '1 A check of the pots gave t(12) = 3.50, p = .40.']);
     expect(features[0]?.comment).toContain('plumbline note (input-is-readable): This Word file holds tracked changes');
   }, 240_000);
 });

@@ -2,7 +2,7 @@ import { strToU8, zipSync, type Zippable } from 'fflate';
 import { unitAt } from '../blocks.js';
 import type { OriginalUnit, Span } from '../types.js';
 import { readDocxDocument } from './index.js';
-import { readBody, readHeadingStyles, readRelationships, type Anchor } from './read.js';
+import { readBody, readHeadingStyles, readRelationships, traceKey, type Anchor } from './read.js';
 import { DOCX_LIMITS, unzipParts, type DocxLimits } from './zip.js';
 
 /** A comment to add: the span of the document's extracted text it is about, and its paragraphs of text. */
@@ -30,9 +30,10 @@ const XML_ESCAPES: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&
  * `w:commentRangeEnd` plus a `w:commentReference` run after the last, runs split where a span
  * starts or ends inside one (the split runs keep their properties). The comments go into
  * word/comments.xml (made, with its content type and relationship, when the file has none; added
- * to it after its own comments otherwise). Every other part is copied as it is. Comments whose
- * span lies in a footnote or endnote, or whose characters cannot be traced to the XML, are not
- * placed (`notPlaced`).
+ * to it after its own comments otherwise). A span in a footnote or endnote is commented on the
+ * note's reference mark in the body, the comment saying which note and paragraph (LibreOffice
+ * refuses a file with a comment reference inside a note). Every other part is copied as it is.
+ * Comments whose characters cannot be traced to the XML are not placed (`notPlaced`).
  */
 export function annotateDocx(bytes: Uint8Array, comments: readonly DocxComment[], limits: DocxLimits = DOCX_LIMITS): Annotated {
   const read = readDocxDocument('', bytes, limits);
@@ -49,8 +50,12 @@ export function annotateDocx(bytes: Uint8Array, comments: readonly DocxComment[]
   const rels = readRelationships(text(parts.get(relsName)), limits);
   const stylesRel = rels.find((r) => r.type.endsWith('/styles'));
   const styles = stylesRel ? readHeadingStyles(text(parts.get(resolve(folder, stylesRel.target))), limits) : new Set<string>();
-  const trace = new Map<number, Array<Anchor | undefined>>();
-  readBody(mainXml, styles, limits, trace);
+  const trace = new Map<string, Array<Anchor | undefined>>();
+  const body = readBody(mainXml, styles, limits, trace);
+  // A finding in a footnote or endnote is commented on the note's reference mark in the body:
+  // LibreOffice refuses to open a file with a comment reference inside a note. A note's number
+  // (as Word shows it) is its place among the body's references.
+  const noteIds = { footnote: [...new Set(body.noteRefs.footnote)], endnote: [...new Set(body.noteRefs.endnote)] };
 
   // comment ids past every id already used (comments, and any other w:id, which is harmless)
   const commentsRel = rels.find((r) => r.type === COMMENTS_TYPE && !r.external);
@@ -61,7 +66,23 @@ export function annotateDocx(bytes: Uint8Array, comments: readonly DocxComment[]
   const splices: Splice[] = [];
   const added: string[] = [];
   let notPlaced = 0;
+  const comment = (id: number, paragraphs: string[]) =>
+    added.push(`<w:comment w:id="${id}" w:author="${AUTHOR}" w:initials="PL">${paragraphs.map((p) => `<w:p><w:r><w:t xml:space="preserve">${escapeXml(p)}</w:t></w:r></w:p>`).join('')}</w:comment>`);
   for (const c of comments) {
+    const u = map ? unitAt(map, c.span.start) : undefined;
+    if (u?.note) {
+      const noteId = noteIds[u.note.kind][u.note.number - 1];
+      const run = noteId === undefined ? undefined : body.noteRefRuns.get(`${u.note.kind}:${noteId}`);
+      if (!run) {
+        notPlaced += 1;
+        continue;
+      }
+      const id = nextId++;
+      splices.push({ at: run.start, order: 1, text: `<w:commentRangeStart w:id="${id}"/>` });
+      splices.push({ at: run.end, order: 0, text: `<w:commentRangeEnd w:id="${id}"/><w:r><w:commentReference w:id="${id}"/></w:r>` });
+      comment(id, [`In ${u.note.kind} ${u.note.number}, paragraph ${u.paragraph}:`, ...c.paragraphs]);
+      continue;
+    }
     const first = map ? anchorOf(map.units, trace, c.span.start) : undefined;
     const last = map ? anchorOf(map.units, trace, Math.max(c.span.start, c.span.end - 1)) : undefined;
     if (!first || !last) {
@@ -72,7 +93,7 @@ export function annotateDocx(bytes: Uint8Array, comments: readonly DocxComment[]
     splices.push(split(first, 'before', `<w:commentRangeStart w:id="${id}"/>`, 1));
     splices.push(split(last, 'after', `<w:commentRangeEnd w:id="${id}"/><w:r><w:commentReference w:id="${id}"/></w:r>`, 0));
     for (const a of [first, last]) if (a.inText && a.open && !xmlSpaceSet(mainXml, a.open)) splices.push({ at: a.open.end - 1, order: -1, text: ' xml:space="preserve"', key: `space${a.open.start}` });
-    added.push(`<w:comment w:id="${id}" w:author="${AUTHOR}" w:initials="PL">${c.paragraphs.map((p) => `<w:p><w:r><w:t xml:space="preserve">${escapeXml(p)}</w:t></w:r></w:p>`).join('')}</w:comment>`);
+    comment(id, c.paragraphs);
   }
 
   const out: Zippable = {};
@@ -103,11 +124,11 @@ interface Splice {
   key?: string;
 }
 
-/** Where a character of the extracted text sits in the body's XML, if it can be traced there (not in a note). */
-function anchorOf(units: readonly OriginalUnit[], trace: Map<number, Array<Anchor | undefined>>, offset: number): Anchor | undefined {
-  const u = unitAt({ kind: 'docx', units: [...units] }, offset);
+/** Where a character of the body's extracted text sits in its XML, if it can be traced there. */
+function anchorOf(units: readonly OriginalUnit[], trace: Map<string, Array<Anchor | undefined>>, offset: number): Anchor | undefined {
+  const u = unitAt({ kind: 'docx', units: units as OriginalUnit[] }, offset);
   if (!u || u.note || u.paragraph === undefined || offset < u.start || offset >= u.end) return undefined;
-  return trace.get(u.paragraph)?.[offset - u.start + (u.charOffset ?? 0)];
+  return trace.get(traceKey(undefined, undefined, u.paragraph))?.[offset - u.start + (u.charOffset ?? 0)];
 }
 
 /**

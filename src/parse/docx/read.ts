@@ -39,6 +39,8 @@ interface Story {
   noteOf: Array<string | undefined>;
   /** Footnote and endnote ids in the order the body refers to them (Word numbers notes so). */
   noteRefs: { footnote: string[]; endnote: string[] };
+  /** Traced: where the run holding each note's first reference mark starts and ends in the XML, by `kind:id`. */
+  noteRefRuns: Map<string, { start: number; end: number }>;
   tracked: boolean;
 }
 
@@ -66,7 +68,7 @@ export function readHeadingStyles(xml: string, limits: DocxLimits): Set<string> 
  * `mc:Fallback` not. Tracked changes are read as accepted: `w:ins` and `w:moveTo` in, `w:del`
  * and `w:moveFrom` out, and a paragraph whose mark was deleted runs on into the next.
  */
-export function readBody(xml: string, headingStyles: Set<string>, limits: DocxLimits, trace?: Map<number, Array<Anchor | undefined>>): Story {
+export function readBody(xml: string, headingStyles: Set<string>, limits: DocxLimits, trace?: Map<string, Array<Anchor | undefined>>): Story {
   return readStory(xml, headingStyles, limits, undefined, trace);
 }
 
@@ -88,8 +90,8 @@ export interface Anchor {
  * The notes of footnotes.xml or endnotes.xml, by id, each numbered from its own first paragraph;
  * separators and continuation notices (a `w:type` other than `normal`) are not read.
  */
-export function readNotes(xml: string, kind: 'footnote' | 'endnote', headingStyles: Set<string>, limits: DocxLimits): { notes: Map<string, Block[]>; tracked: boolean } {
-  const story = readStory(xml, headingStyles, limits, kind);
+export function readNotes(xml: string, kind: 'footnote' | 'endnote', headingStyles: Set<string>, limits: DocxLimits, trace?: Map<string, Array<Anchor | undefined>>): { notes: Map<string, Block[]>; tracked: boolean } {
+  const story = readStory(xml, headingStyles, limits, kind, trace);
   const out = new Map<string, Block[]>();
   story.blocks.forEach((b, i) => {
     const id = story.noteOf[i];
@@ -157,6 +159,11 @@ function walk(xml: string, limits: DocxLimits, h: Handlers): void {
   if (failure !== undefined) throw new DocxRefusal(`damaged XML: ${failure}`);
 }
 
+/** The key of a paragraph's trace: its number in the body, or its note's kind and id and its number in the note. */
+export function traceKey(note: 'footnote' | 'endnote' | undefined, noteId: string | undefined, paragraph: number): string {
+  return note ? `${note}:${noteId ?? ''}:${paragraph}` : String(paragraph);
+}
+
 /** Code units a character reference decodes to (`&#x1F600;` is two). */
 function entityLength(ref: string): number {
   const m = CHARACTER_REFERENCE.exec(ref);
@@ -180,7 +187,7 @@ function isOn(tag: SaxesTagNS): boolean {
 }
 
 /** One story's reader: a stack machine over the XML events. */
-function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, note: 'footnote' | 'endnote' | undefined, trace?: Map<number, Array<Anchor | undefined>>): Story {
+function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, note: 'footnote' | 'endnote' | undefined, trace?: Map<string, Array<Anchor | undefined>>): Story {
   const blocks: Block[] = [];
   const noteOf: Array<string | undefined> = [];
   let noteId: string | undefined;
@@ -202,6 +209,9 @@ function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, 
   let propsStart = -1;
   let runAnchors: Array<Anchor | undefined> = [];
   let tOpen: { start: number; end: number; chars: number } | undefined;
+  let runStart = -1;
+  let runRef: string | undefined;
+  const noteRefRuns = new Map<string, { start: number; end: number }>();
   // a paragraph whose mark was deleted: its pieces wait for the next paragraph's
   let carried: BlockPiece[] = [];
   // run state
@@ -231,7 +241,7 @@ function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, 
   const closeParagraph = () => {
     const p = stack.pop();
     if (!p) return;
-    if (trace && note === undefined) trace.set(p.number, p.anchors.length === p.text.length ? p.anchors : new Array<undefined>(p.text.length).fill(undefined));
+    if (trace) trace.set(traceKey(note, noteId, p.number), p.anchors.length === p.text.length ? p.anchors : new Array<undefined>(p.text.length).fill(undefined));
     const heading = p.outline || (p.style !== undefined && headingStyles.has(p.style));
     const piece: BlockPiece = { text: p.text, unit: { paragraph: p.number, opening: openingWords(p.text), ...(note ? { note: { kind: note, number: 0 } } : {}) } };
     if (p.markDeleted) {
@@ -306,6 +316,8 @@ function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, 
           runText = '';
           runProps = '';
           runAnchors = [];
+          if (trace) runStart = xml.lastIndexOf('<', pos() - 1);
+          runRef = undefined;
           return;
         case 'rPr':
           inRunProps = true;
@@ -358,7 +370,11 @@ function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, 
         case 'footnoteReference':
         case 'endnoteReference': {
           const id = attr(tag, 'id');
-          if (id !== undefined && skipDepth === 0) noteRefs[tag.local === 'footnoteReference' ? 'footnote' : 'endnote'].push(id);
+          if (id !== undefined && skipDepth === 0) {
+            const kind = tag.local === 'footnoteReference' ? 'footnote' : 'endnote';
+            noteRefs[kind].push(id);
+            if (trace && inRun && !noteRefRuns.has(`${kind}:${id}`)) runRef = `${kind}:${id}`;
+          }
           return;
         }
         case 'tbl':
@@ -439,6 +455,8 @@ function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, 
         case 'r':
           flushRunIfAny();
           inRun = false;
+          if (runRef !== undefined && runStart >= 0) noteRefRuns.set(runRef, { start: runStart, end: pos() });
+          runRef = undefined;
           return;
         case 't':
           inT = false;
@@ -463,7 +481,7 @@ function readStory(xml: string, headingStyles: Set<string>, limits: DocxLimits, 
     },
   });
   if (carried.length > 0) push({ kind: 'paragraph', pieces: carried });
-  return { blocks, noteOf, noteRefs, tracked };
+  return { blocks, noteOf, noteRefs, noteRefRuns, tracked };
 
   function addRunChar(s: string) {
     if (skipDepth > 0 || inFieldInstructions() || runHidden || stack.length === 0) return;
