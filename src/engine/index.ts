@@ -181,7 +181,7 @@ export function checkSource(path: string, source: string, options: CheckOptions 
       ...(e ? { recomputed: { readings: e.readings.map((r) => ({ name: r.name, low: r.range.low, high: r.range.high, fits: r.fits })), fits: e.fits } } : {}),
     });
   }
-  return { path, format: doc.format, results, statistics, findings, checklist, guidelines, alpha: linked.documentAlpha, sidedness: linked.documentSidedness, hidden: { quiet: quieted, baseline: 0 }, source, ...(original ? { original: { kind: original.kind, ...(original.trackedChanges ? { trackedChanges: true } : {}) } } : {}) };
+  return { path, format: doc.format, results, statistics, findings, checklist, guidelines, alpha: linked.documentAlpha, sidedness: linked.documentSidedness, hidden: { quiet: quieted, baseline: 0 }, source, ...(original ? { original: { kind: original.kind, ...(original.trackedChanges ? { trackedChanges: true } : {}), lines: original.units.map((u) => ({ at: lines.position(u.start).line, ...(u.paragraph !== undefined ? { paragraph: u.paragraph } : {}), ...(u.note ? { note: u.note } : {}), ...(u.page !== undefined ? { page: u.page } : {}), ...(u.line !== undefined ? { line: u.line } : {}) })) } } : {}) };
 }
 
 /** Characters of context on each side of a PDF place (`around`), cut back to whole words. */

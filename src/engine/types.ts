@@ -178,8 +178,16 @@ export interface FileReport {
   hidden: { quiet: number; baseline: number };
   /** The source text, for formatters that show the line of a finding (for Word and PDF files, the extracted text). */
   source: string;
-  /** Word and PDF files: the text was extracted from this kind of file; Word: whether it held tracked changes. */
-  original?: { kind: 'docx' | 'pdf'; trackedChanges?: boolean };
+  /**
+   * Word and PDF files: the text was extracted from this kind of file; Word: whether it held
+   * tracked changes. `lines`: the line of the extracted text where each paragraph (Word) or
+   * printed line (PDF) starts, with its place, so a report can label its lines of text.
+   */
+  original?: {
+    kind: 'docx' | 'pdf';
+    trackedChanges?: boolean;
+    lines?: Array<{ at: number; paragraph?: number; note?: { kind: 'footnote' | 'endnote'; number: number }; page?: number; line?: number }>;
+  };
 }
 
 /** A file that could not be checked at all. */

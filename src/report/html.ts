@@ -16,7 +16,7 @@ import { findingPicture, pAxisFor, pOverviewChunks, pRowsOf, pStrip, resultRow, 
 import { resultCount, resultsInReadingOrder, type AnyResult } from './readingOrder.js';
 import { CAUTIONS, countRun, type RunReport } from './types.js';
 import { joined, wholeText } from './chunks.js';
-import { originalName, shortPlace } from './places.js';
+import { lineLabel, originalName, shortPlace } from './places.js';
 
 export { escapeHtml };
 
@@ -49,6 +49,7 @@ table.summary th { text-align: left; font-weight: 600; }
 .manuscript { font: 14px/1.6 ui-monospace, SFMono-Regular, Menlo, Consolas, monospace; border: 1px solid var(--rule); padding: 8px 0; overflow-wrap: anywhere; }
 .line { display: grid; grid-template-columns: 4.5em minmax(0, 1fr); white-space: pre-wrap; }
 .ln { color: var(--muted); text-align: right; padding-right: 1em; user-select: none; }
+.manuscript.places .line { grid-template-columns: 7em minmax(0, 1fr); }
 .result { background: var(--result); border-radius: 2px; }
 mark.flag { background: transparent; color: inherit; text-decoration-line: underline; text-decoration-color: var(--c); text-decoration-thickness: 2px; text-underline-offset: 3px; }
 mark.flag.lvl-error { text-decoration-style: double; text-decoration-thickness: 3px; background: #fbe9e1; }
@@ -239,9 +240,13 @@ function* manuscriptHtml(file: FileReport, index: number, ordered: Finding[]): G
   const shaded = [...file.results, ...(file.statistics ?? [])];
   for (const r of shaded) cuts.add(r.span.start).add(r.span.end);
   const points = [...cuts].filter((x) => x >= 0 && x <= src.length).sort((a, b) => a - b);
-  yield '<div class="manuscript">';
+  yield file.original ? '<div class="manuscript places">' : '<div class="manuscript">';
+  // a Word or PDF file's lines of extracted text are labelled by the paragraph or printed line they start
+  const labels = new Map<number, string>();
+  for (const u of file.original?.lines ?? []) if (!labels.has(u.at)) labels.set(u.at, lineLabel(u));
+  const gutter = (n: number) => (file.original ? escapeHtml(labels.get(n) ?? '') : String(n));
   let line = 1;
-  let current = `<div class="line" id="${anchor(index, 'L', 1)}"><span class="ln">1</span><span class="tx">`;
+  let current = `<div class="line" id="${anchor(index, 'L', 1)}"><span class="ln">${gutter(1)}</span><span class="tx">`;
   const emptyAt = new Map<number, typeof marks>();
   for (const m of marks) if (m.end === m.start) emptyAt.set(m.start, [...(emptyAt.get(m.start) ?? []), m]);
   const flagTag = (m: (typeof marks)[number], inner: string) =>
@@ -285,7 +290,7 @@ function* manuscriptHtml(file: FileReport, index: number, ordered: Finding[]): G
     if (newline) {
       yield `${line > 1 ? '\n' : ''}${current}</span></div>`;
       line += 1;
-      current = `<div class="line" id="${anchor(index, 'L', line)}"><span class="ln">${line}</span><span class="tx">`;
+      current = `<div class="line" id="${anchor(index, 'L', line)}"><span class="ln">${gutter(line)}</span><span class="tx">`;
     }
   }
   // a final line end does not start a line of its own

@@ -19,3 +19,9 @@ export function originalShort(o: OriginalPlace): string {
 export function shortPlace(p: Place): string {
   return p.original ? originalShort(p.original) : `line ${p.start.line}`;
 }
+
+/** The label of a line of extracted text where a paragraph or printed line starts, for a report's gutter: `¶34`, `fn 1 ¶2`, `p7:23`. */
+export function lineLabel(u: { paragraph?: number; note?: { kind: 'footnote' | 'endnote'; number: number }; page?: number; line?: number }): string {
+  if (u.page !== undefined) return `p${u.page}:${u.line ?? 0}`;
+  return u.note ? `${u.note.kind === 'footnote' ? 'fn' : 'en'} ${u.note.number} ¶${u.paragraph ?? 0}` : `¶${u.paragraph ?? 0}`;
+}

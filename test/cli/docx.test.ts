@@ -32,7 +32,7 @@ describe('Word files on the command line', () => {
     expect(report.failures).toEqual([{ path: 'locked.docx', message: expect.stringMatching(/^encrypted: this Word file is protected by a password/) }]);
     expect(out.stderr).toContain('locked.docx: encrypted');
     const plants = report.files[1];
-    expect(plants?.original).toEqual({ kind: 'docx', trackedChanges: true });
+    expect(plants?.original).toMatchObject({ kind: 'docx', trackedChanges: true });
     expect(plants?.findings.filter((f) => f.level === 'error').map((f) => [f.ruleId, f.original])).toEqual([
       ['significance-follows-from-t', { kind: 'paragraph', paragraph: 1, char: 27, opening: 'A check of the pots gave …', note: { kind: 'footnote', number: 1 } }],
     ]);
@@ -63,5 +63,16 @@ describe('Word files on the command line', () => {
     const out = await cli(['-', '--stdin-name', 'paper.docx', '--format', 'json'], { stdin: readFileSync(FEATURES) });
     const report = JSON.parse(out.stdout) as { files: Array<{ format: string; results: unknown[] }> };
     expect(report.files.map((f) => [f.format, f.results.length])).toEqual([['docx', 8]]);
+  });
+});
+
+describe('Word files in the HTML report', () => {
+  it('labels the lines of extracted text by the paragraphs they start, and names each finding\'s paragraph', async () => {
+    const out = await cli(['--format', 'html', 'plants.docx'], { cwd: folder() });
+    expect(out.stdout).toContain('<div class="manuscript places">');
+    // paragraph 2 of the body, and the footnote's first paragraph (fixtures/docx/features.docx)
+    expect(out.stdout).toContain('<span class="ln">¶2</span><span class="tx">Bench height was read from a field');
+    expect(out.stdout).toContain('<span class="ln">fn 1 ¶1</span>');
+    expect(out.stdout).toContain('footnote 1 ¶1 (“A check of the pots gave …”) char 27');
   });
 });

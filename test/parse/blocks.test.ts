@@ -44,7 +44,7 @@ describe('documentFromBlocks', () => {
     expect(f?.level).toBe('error');
     const char = 'Growth was higher with light, '.length + 1;
     expect(f?.original).toEqual({ kind: 'paragraph', paragraph: 4, char, opening: 'Growth was higher with light, t(28) …' });
-    expect(report.original).toEqual({ kind: 'docx' });
+    expect(report.original).toEqual({ kind: 'docx', lines: [{ at: 1, paragraph: 1 }, { at: 3, paragraph: 2 }, { at: 5, paragraph: 4 }] });
     const run = { tool: { name: 'plumbline', version: '0' }, files: [report], failures: [], rules: [] };
     expect(formatHuman(run, { color: false })).toContain(`¶4 (“Growth was higher with light, t(28) …”) char ${char}`);
     expect(formatLines(run)).toContain(`plants.docx ¶4 (“Growth was higher with light, t(28) …”) char ${char}: error significance-follows-from-t`);

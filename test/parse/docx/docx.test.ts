@@ -40,7 +40,7 @@ describe('Word reader: features.docx', () => {
     // the deleted paragraph mark joins paragraphs 5 and 6 into one block
     expect(text).toContain('Watering took less time in the second week, t(22) = 2.40, p = .025.');
     expect(doc.original?.trackedChanges).toBe(true);
-    expect(report.original).toEqual({ kind: 'docx', trackedChanges: true });
+    expect(report.original).toMatchObject({ kind: 'docx', trackedChanges: true });
     const note = report.findings.find((f) => f.messageId === 'tracked-changes-accepted');
     expect(note?.level).toBe('note');
   });
