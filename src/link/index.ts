@@ -6,7 +6,7 @@ import type { DocumentSettings, LinkedDocument, LinkedResult, LinkedStatistic, S
 export type * from './types.js';
 export type { DescriptiveLink, Design, IntervalLink, IntervalTarget, LinkBasis, Linked, ResultContext } from './descriptives.js';
 export { groupBy } from './descriptives.js';
-import { contextJoiner, spreadStatements } from './descriptives.js';
+import { contextJoiner, fGroupsJoiner, spreadStatements } from './descriptives.js';
 import { testNames } from './testNames.js';
 export type { TestName, TestNameBasis } from './testNames.js';
 
@@ -124,6 +124,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   });
   const statistics: LinkedStatistic[] = [];
   const dimensionsOf = tableDimensionsJoiner(extraction);
+  const groupsOf = fGroupsJoiner(extraction);
   for (const o of extraction.otherStatistics) {
     if (o.kind !== 'F' && o.kind !== 'chi-square' && o.kind !== 'correlation' && o.kind !== 'z') continue;
     const report = o as LinkedStatistic['report'];
@@ -131,6 +132,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     const sidedness = sidednessFor(report.p?.statedSidedness !== undefined ? { value: report.p.statedSidedness, span: report.p.span } : undefined, report, reading, paragraphOf(o.segment), documentSidedness);
     const elsewhere = sidedness.basis === 'default' ? untiedOutside(o.segment) : undefined;
     const dimensions = o.kind === 'chi-square' ? dimensionsOf(o) : undefined;
+    const groups = o.kind === 'F' ? groupsOf(o) : undefined;
     statistics.push({
       id: `stat:${o.segment}:${o.span.start}`,
       report,
@@ -139,6 +141,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       ...(elsewhere ? { untiedSidedness: elsewhere } : {}),
       doubts: o.doubt ? [o.doubt] : [],
       ...(dimensions ? { dimensions } : {}),
+      ...(groups ? { groups } : {}),
     });
   }
   return {

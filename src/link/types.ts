@@ -1,6 +1,6 @@
 import type { ContextStatement, Extraction, GroupSummary, IntegerStatement, OtherStatistic, PWithoutT, Sidedness, SpreadKind, TableDimensions, TTestReport } from '../extract/types.js';
 import type { Directive, ReadNote, Span } from '../parse/types.js';
-import type { Linked, ResultContext } from './descriptives.js';
+import type { DescriptiveLink, Linked, ResultContext } from './descriptives.js';
 import type { TestName } from './testNames.js';
 export type { IntervalTarget, LinkBasis, Linked } from './descriptives.js';
 
@@ -48,6 +48,11 @@ export interface LinkedStatistic {
   /** A one-tailed statement elsewhere in the text that could not be tied to this result. */
   untiedSidedness?: ContextStatement;
   doubts: string[];
+  /**
+   * For F: the groups whose printed means, spreads and sizes its sentence (or else its paragraph)
+   * ties to it (src/link/descriptives.ts `fGroupsJoiner`), with how certainly.
+   */
+  groups?: DescriptiveLink;
   /** For χ²: the size of the contingency table its sentence (or else its paragraph) states, where nothing else could claim it. */
   dimensions?: Linked<TableDimensions>;
 }
