@@ -164,6 +164,7 @@ export function checkSource(path: string, source: string, options: CheckOptions 
       ...(s.n ? { n: num(s.n) } : {}),
       ...(s.p ? { p: pRecord(s.p) } : {}),
       alpha: ls.alpha,
+      sidedness: ls.sidedness,
       ...(s.dfCorrection ? { dfCorrection: s.dfCorrection } : {}),
       ...(ls.doubts.length > 0 ? { doubt: ls.doubts.join('; ') } : {}),
       ...(e ? { recomputed: { readings: e.readings.map((r) => ({ name: r.name, low: r.range.low, high: r.range.high, fits: r.fits })), fits: e.fits } } : {}),

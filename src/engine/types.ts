@@ -98,6 +98,8 @@ export interface StatisticRecord extends Place {
   n?: NumberRecord;
   p?: ResultRecord['p'];
   alpha: Setting<number>;
+  /** Its tails, found as for a t-test (only z and r are read either way; F and χ² have one tail by definition). */
+  sidedness?: Setting<Sidedness>;
   /** A Greenhouse–Geisser or Huynh–Feldt correction named beside an F. */
   dfCorrection?: 'greenhouse-geisser' | 'huynh-feldt';
   /** Why the p's tie to the statistic is not certain (findings on it are then notes). */

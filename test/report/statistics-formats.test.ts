@@ -5,9 +5,10 @@
  */
 import { readFileSync } from 'node:fs';
 import AjvDraft04Module from 'ajv-draft-04';
+import { Ajv2020 } from 'ajv/dist/2020.js';
 import { describe, expect, it } from 'vitest';
 import { checkSource } from '../../src/engine/index.js';
-import { formatHuman, formatLines, type RunReport } from '../../src/report/index.js';
+import { countRun, formatHtml, formatHuman, formatJson, formatLines, type RunReport } from '../../src/report/index.js';
 import { cli } from '../cli/harness.js';
 
 // Invented. The recomputed p values, over the printed rounding: t(28) = 2.10 two-tailed .0444 to .0453
@@ -90,5 +91,26 @@ describe('one F, χ², r and z finding each, in every format (invented manuscrip
       expect(rule?.helpUri).toMatch(new RegExp(`^https://\\S+/rules/${e.ruleId}\\.md$`));
       expect(rule?.help.markdown.startsWith(`# ${e.ruleId}\n`)).toBe(true);
     });
+  });
+
+  it('JSON: the summary counts them beside the t results, each carries its tails, and the report meets its schema', () => {
+    const data = JSON.parse(formatJson(run));
+    // ajv (npm) validates against our schema as JSON Schema 2020-12, as in formats.test.ts
+    const validate = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
+    expect(validate(data), JSON.stringify(validate.errors?.slice(0, 5), null, 1)).toBe(true);
+    expect(data.summary).toMatchObject({ results: 1, checked: 1, statistics: 4, statisticsChecked: 4 });
+    expect(countRun(run)).toMatchObject({ statistics: 4, statisticsChecked: 4 });
+    const statistics = data.files[0].statistics as Array<{ kind: string; sidedness: { value: string; basis: string } }>;
+    expect(statistics.map((st) => st.kind)).toEqual(['F', 'chi-square', 'r', 'z']);
+    // nothing in the text says one-tailed: the default applies
+    for (const st of statistics) expect(st.sidedness).toEqual({ value: 'two', basis: 'default' });
+  });
+
+  it('HTML: each p finding on an F, χ², r or z has its p strip on its card, drawn from the statistic\'s own record', () => {
+    const html = formatHtml(run);
+    const cards = html.split('<details class="card').slice(1);
+    expect(cards).toHaveLength(EXPECTED.length);
+    for (const card of cards) expect(card).toContain('<svg class="pstrip"');
+    expect(report.findings.every((f) => f.figure?.kind === 'p')).toBe(true);
   });
 });
