@@ -98,6 +98,10 @@ export interface StatisticRecord extends Place {
   n?: NumberRecord;
   p?: ResultRecord['p'];
   alpha: Setting<number>;
+  /** For F: the groups whose summaries are tied to it, as a t result's descriptives. */
+  groups?: ResultRecord['context']['descriptives'];
+  /** For z: the coefficient printed with its SE right before it. */
+  coefficient?: LinkedRecord;
   /** Its tails, found as for a t-test (only z and r are read either way; F and χ² have one tail by definition). */
   sidedness?: Setting<Sidedness>;
   /** A Greenhouse–Geisser or Huynh–Feldt correction named beside an F. */

@@ -114,3 +114,28 @@ describe('one F, χ², r and z finding each, in every format (invented manuscrip
     expect(report.findings.every((f) => f.figure?.kind === 'p')).toBe(true);
   });
 });
+
+describe('JSON: an F with its groups and a z with its coefficient carry those ties (invented manuscript)', () => {
+  // the F and groups of rules/f-follows-from-group-summaries.md (NIST/SEMATECH e-Handbook example, from memory);
+  // the z of rules/z-follows-from-coefficient.md (0.42 / 0.15 = 2.80)
+  const text = [
+    'The three rooms differed in recall (quiet: M = 5.34, SD = 1.12, n = 5; music: M = 7.72, SD = 1.10, n = 5; noise: M = 8.56, SD = 1.38, n = 5), F(2, 12) = 9.59, p = .003.',
+    '',
+    'Dosage predicted relapse, b = 0.42, SE = 0.15, z = 2.80, p = .005.',
+    '',
+  ].join('\n');
+  const file = checkSource('ties.md', text);
+  const data = JSON.parse(formatJson({ tool: { name: 'plumbline', version: '0.0.0-test' }, files: [file], failures: [], rules: [] }));
+  it('meets the schema, and each tie says its basis and certainty', () => {
+    const validate = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
+    expect(validate(data), JSON.stringify(validate.errors?.slice(0, 5), null, 1)).toBe(true);
+    const [f, z] = data.files[0].statistics as Array<{ kind: string; groups?: { scope: string; certain: boolean; groups: Array<{ printed: string; spreadKind: string }> }; coefficient?: { printed: string; basis: string; certain: boolean } }>;
+    expect(f?.kind).toBe('F');
+    expect(f?.groups).toMatchObject({ scope: 'sentence', certain: true });
+    expect(f?.groups?.groups.map((g) => g.spreadKind)).toEqual(['SD', 'SD', 'SD']);
+    expect(z?.kind).toBe('z');
+    expect(z?.coefficient).toMatchObject({ printed: 'b = 0.42', basis: 'clause', certain: true });
+    expect(file.findings.filter((x) => x.level !== 'note')).toEqual([]);
+  });
+});
+
