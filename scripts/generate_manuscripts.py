@@ -2640,6 +2640,123 @@ def make_distractor(rng: np.random.Generator, doc: Doc, did: str, kind: str, srn
     return meta, toks
 
 
+# -- results of their own paragraph, after the Discussion: an F with its groups' summaries, an F
+# said to equal a t's square, a chi-square with its table's size and association. They draw from a
+# generator of their own ([seed, manuscript, 17]) and are laid out after everything else, so every
+# other number and place of the manuscript stays as it was. Each seeded error is proved impossible
+# under every common reading by the generator's own interval arithmetic (below).
+LATE_ERRORS = {
+    "Fgroups": ["F-from-group-summaries"],
+    "Ft": ["F-not-t-squared"],
+    "chi2table": ["chi-square-df-vs-table", "association-vs-chi-square"],
+}
+LATE_ERROR_RULES = {
+    "F-from-group-summaries": ["f-follows-from-group-summaries"],
+    "F-not-t-squared": ["f-equals-t-squared"],
+    "chi-square-df-vs-table": ["chi-square-df-follows-from-table"],
+    "association-vs-chi-square": ["association-follows-from-chi-square"],
+}
+GROUP_ORDINALS = ["first", "second", "third", "fourth"]
+
+
+def max_oneway_f(means: list, sds: list, ns: list, dec: int, se: bool) -> float:
+    """The largest one-way F over the printed means' and SDs' rounding (half a unit of `dec`
+    decimals): the between-group sum of squares is a convex function of the means, so its
+    largest value is at one of the 2^k corners; the within-group sum is smallest at the smallest
+    SDs. `se`: the spreads read as SEs (SD = SE * sqrt(n))."""
+    h = 0.5 * 10 ** -dec
+    k, N = len(ns), sum(ns)
+    best = 0.0
+    for mask in range(1 << k):
+        m = [means[i] + (h if mask >> i & 1 else -h) for i in range(k)]
+        g = sum(n * x for n, x in zip(ns, m)) / N
+        best = max(best, sum(n * (x - g) ** 2 for n, x in zip(ns, m)))
+    sd_lo = [max(0.0, s - h) * (math.sqrt(n) if se else 1.0) for s, n in zip(sds, ns)]
+    within = sum((n - 1) * s ** 2 for s, n in zip(sd_lo, ns))
+    return math.inf if within <= 0 else (best / (k - 1)) / (within / (N - k))
+
+
+def make_late_distractor(arng: np.random.Generator, doc: Doc, did: str, kind: str) -> tuple[dict, list]:
+    nt = doc.nt
+    eq, js = nt.eq, nt.join
+    ms = doc.measures
+    m1 = ms[int(arng.integers(len(ms)))]
+    error = str(arng.choice(LATE_ERRORS[kind])) if arng.random() < 0.4 else None
+    seeded = None
+    place = "sites" if doc.topic["domain"] != "mice" else "cage racks"
+    if kind == "Fgroups":
+        k = int(arng.choice([3, 4]))
+        ns = [int(arng.integers(8, 41)) for _ in range(k)]
+        xs = [arng.normal(5 + 0.6 * float(arng.standard_normal()), 1.2, n) for n in ns]
+        res = stats.f_oneway(*xs)
+        means = [float(dround(float(np.mean(x)), 2)) for x in xs]
+        sds = [float(dround(float(np.std(x, ddof=1)), 2)) for x in xs]
+        f, p = float(res.statistic), float(res.pvalue)
+        df2 = sum(ns) - k
+        if error is not None:
+            reach = max(max_oneway_f(means, sds, ns, 2, False), max_oneway_f(means, sds, ns, 2, True))
+            for _ in range(40):
+                cand = round(f * float(arng.choice([1.6, 2.0, 2.5, 3.0])) + float(arng.choice([0.0, 0.5, 1.0])), 2)
+                if cand - 0.005 > reach:
+                    # the p printed is the wrong F's own, so only the summaries show the error
+                    f, p, seeded = cand, float(stats.f.sf(cand, k - 1, df2)), error
+                    break
+        groups = "; ".join(f"{GROUP_ORDINALS[i]} site: {nt.M}{eq}{plain(means[i], 2, nt, True)}{js}{nt.SD}{eq}{plain(sds[i], 2, nt, True)}{js}{nt.n}{eq}{ns[i]}" for i in range(k))
+        txt = f"F({k - 1}, {df2}){eq}{plain(f, 2, nt, True)}{js}{p_for_distractor(p, nt)}"
+        # a composite of continuous scores, never one of the manuscript's whole-number measures
+        toks = [(f"In a one-way analysis of variance, the composite index at follow-up {'differed' if p < 0.05 else 'did not differ clearly'} across {place} ({groups}), ", [(did, "stat")]), (txt, [(did, "stat")]), (".", [])]
+    elif kind == "Ft":
+        # more units than the study's own tests have, so its df is no other t's (an abstract's
+        # result is matched to the results by its df among other things)
+        n = 2 * max(10, doc.N) + 10
+        x, y = arng.normal(0.5, 1, n // 2), arng.normal(0, 1, n - n // 2)
+        res = stats.ttest_ind(x, y)
+        t, df = float(res.statistic), n - 2
+        tv = float(dround(t, 2))
+        fv = tv * tv
+        if error is not None:
+            lo_t, hi_t = abs(tv) - 0.005, abs(tv) + 0.005
+            lo_sq, hi_sq = max(0.0, lo_t) ** 2, hi_t ** 2
+            for _ in range(40):
+                cand = round(fv * float(arng.choice([0.5, 0.7, 1.4, 1.8])) + float(arng.choice([0.0, 0.3])), 2)
+                if cand > 0.05 and not hit((cand - 0.005, cand + 0.005), (lo_sq, hi_sq)):
+                    fv, seeded = cand, error
+                    break
+        txt = f"{nt.t}({df}){eq}{plain(t, 2, nt, True)}{js}{p_for_distractor(p_two(tv, df), nt)} (equivalently F(1, {df}){eq}{plain(fv, 2, nt, True)})"
+        toks = [(f"Taken on its own, the two-group comparison of {m1['name']} gave ", []), (txt, [(did, "stat")]), (".", [])]
+    else:  # chi2table
+        r, c = [(2, 3), (3, 2), (2, 4), (3, 3), (2, 2)][int(arng.integers(5))]
+        n = max(40, doc.N * 2)
+        table = arng.multinomial(n, arng.dirichlet(np.full(r * c, 6.0))).reshape(r, c) + 2
+        chi2, p, dof, _ = stats.chi2_contingency(table, correction=False)
+        nn = int(table.sum())
+        kmin = min(r, c) - 1
+        chi2v = float(dround(float(chi2), 2))
+        v = math.sqrt(chi2 / (nn * kmin))
+        df_print = int(dof)
+        if error == "chi-square-df-vs-table":
+            # a df that is not (r - 1)(c - 1); the p printed is that df's own
+            df_print = int(dof) + int(arng.choice([1, 2])) if dof > 1 and arng.random() < 0.5 else int(dof) + 1 if dof == 1 else int(dof) - 1
+            if df_print != dof and df_print >= 1:
+                p, seeded = float(stats.chi2.sf(chi2v, df_print)), error
+        elif error == "association-vs-chi-square":
+            # every V (or |phi|) the chi-square's rounding allows, at this table's min(r, c) - 1 and at every other divisor k with k^2 <= df
+            ks = {kk for kk in range(1, int(dof) + 1) if kk * kk <= dof and dof % kk == 0} | {kmin}
+            ivs = [(math.sqrt(max(0.0, chi2v - 0.005) / (nn * kk)), math.sqrt((chi2v + 0.005) / (nn * kk))) for kk in ks]
+            for _ in range(40):
+                cand = round(v * float(arng.choice([0.5, 0.6, 1.6, 2.0])), 2)
+                if 0.02 < cand < 1 and not any(hit((cand - 0.005, cand + 0.005), iv) for iv in ivs):
+                    v, seeded = cand, error
+                    break
+        sym = "φ" if (r, c) == (2, 2) else "Cramér's V"
+        txt = f"χ²({df_print}, N = {nn}){eq}{plain(chi2, 2, nt, True)}{js}{p_for_distractor(p, nt)}{js}{sym}{eq}{plain(v, 2, nt, nt.lead_p)}"
+        toks = [(f"Outcome categories by arm formed a {r} × {c} contingency table, ", []), (txt, [(did, "stat")]), (".", [])]
+    meta = dict(id=did, kind={"Fgroups": "F-with-groups", "Ft": "F-with-t", "chi2table": "chi-square-with-table"}[kind])
+    if seeded is not None:
+        meta.update(error=seeded, expect_rules=LATE_ERROR_RULES[seeded])
+    return meta, toks
+
+
 # ---------------------------------------------------------------------------------------------
 # A whole manuscript
 # ---------------------------------------------------------------------------------------------
@@ -2959,6 +3076,8 @@ def build_doc(seed: int, spec: Spec) -> dict:
     brng = np.random.default_rng([seed, spec.idx, 16])
     for kind in [pick(rng, ["F", "chi2", "r", "z", "b"]) for _ in range(int(rng.integers(3, 7)))]:
         distractors.append(make_distractor(rng, doc, new_did(), kind, brng if kind == "b" else srng))
+    arng = np.random.default_rng([seed, spec.idx, 17])
+    extra["late_distractors"] = [make_late_distractor(arng, doc, new_did(), str(arng.choice(["Fgroups", "Ft", "chi2table"]))) for _ in range(int(arng.integers(2, 5)))]
     return compose(doc, rng, blocks, abstract_cases, extra, distractors, new_did)
 
 
@@ -3232,6 +3351,13 @@ def compose(doc: Doc, rng: np.random.Generator, blocks: list, abstract_cases: li
                                 "A one-tailed reading of the earlier reports would be premature. " if rng.random() < 0.3 else "Staff views were far from one-sided. "]), []))
     disc.append(("All numbers in this manuscript are invented for testing.", []))
     L.append(("para", disc))
+    late = extra.get("late_distractors") or []
+    if late:
+        # a results heading: a methods-like heading after the Results would read as a second study
+        L.append(("h2", "Additional results"))
+        for meta, toks in late:
+            L.append(("para", toks))
+            dist_meta.append(meta)
     # -- serialise
     return serialise(doc, rng, L, all_t, extra, abstract_cases, dist_meta)
 

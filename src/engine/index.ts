@@ -3,7 +3,7 @@ import { configProblems } from '../config/validate.js';
 import { extract } from '../extract/index.js';
 import type { ReportedNumber, ReportedP, Sidedness } from '../extract/types.js';
 import { link } from '../link/index.js';
-import type { DocumentSettings, Linked, ResultContext, Setting } from '../link/index.js';
+import type { DescriptiveLink, DocumentSettings, Linked, ResultContext, Setting } from '../link/index.js';
 import { formatForPath, LineIndex, mayHoldStatistics, parseDocument, unitAt, type InputFormat } from '../parse/index.js';
 import type { OriginalMap, ParsedDocument, ReadNote, Span } from '../parse/types.js';
 import { evaluateP } from '../rule-api/evaluate.js';
@@ -11,7 +11,7 @@ import { evaluateStatisticP } from '../rule-api/statistic.js';
 import { linkDoubts } from '../rule-api/doubts.js';
 import type { Guideline, Level, LevelSetting } from '../rule-api/types.js';
 import { RULE_IDS, RULES } from './registry.js';
-import type { ChecklistRecord, FileReport, Finding, NumberRecord, OriginalPlace, Place, ResultRecord, StatisticRecord } from './types.js';
+import type { ChecklistRecord, FileReport, Finding, LinkedRecord, NumberRecord, OriginalPlace, Place, ResultRecord, StatisticRecord } from './types.js';
 
 export type * from './types.js';
 export { RULES, RULE_IDS, ruleById } from './registry.js';
@@ -176,6 +176,9 @@ export function checkSource(path: string, source: string, options: CheckOptions 
       ...(s.n ? { n: num(s.n) } : {}),
       ...(s.p ? { p: pRecord(s.p) } : {}),
       alpha: ls.alpha,
+      ...(ls.groups ? { groups: descriptivesRecord(ls.groups, place) } : {}),
+      ...(ls.coefficient ? { coefficient: linkedRecord(ls.coefficient, place) } : {}),
+      sidedness: ls.sidedness,
       ...(s.dfCorrection ? { dfCorrection: s.dfCorrection } : {}),
       ...(ls.doubts.length > 0 ? { doubt: ls.doubts.join('; ') } : {}),
       ...(e ? { recomputed: { readings: e.readings.map((r) => ({ name: r.name, low: r.range.low, high: r.range.high, fits: r.fits })), fits: e.fits } } : {}),
@@ -208,23 +211,28 @@ function around(source: string, span: Span): string {
   return `${a > 0 ? '… ' : ''}${text}${b < source.length ? ' …' : ''}`;
 }
 
+/** A tie of a number to its result, as the reports show it: its place, basis, certainty and doubt. */
+function linkedRecord(x: Linked<{ span: Span; printed: string }>, place: (s: Span) => Place): LinkedRecord {
+  return { printed: x.item.printed, ...place(x.item.span), basis: x.basis, certain: x.certain, ...(x.certain ? {} : { doubt: linkDoubts({ linked: [x] })[0] ?? '' }) };
+}
+
+/** A set of descriptives tied to a result, as the reports show it. */
+function descriptivesRecord(d: DescriptiveLink, place: (s: Span) => Place): NonNullable<ResultRecord['context']['descriptives']> {
+  return {
+    scope: d.scope,
+    certain: d.certain,
+    ...(d.certain ? {} : { doubt: linkDoubts({ descriptives: d })[0] ?? '' }),
+    groups: d.groups.map((g, i) => ({ printed: g.printed, ...place(g.span), ...(g.label ? { label: g.label } : {}), spreadKind: d.spreadKinds[i] ?? 'unstated' })),
+  };
+}
+
 function contextRecord(c: ResultContext, place: (s: Span) => Place): ResultRecord['context'] {
   const item = (x: { span: Span; printed: string }) => ({ printed: x.printed, ...place(x.span) });
   // An uncertain tie says why, in the words a note resting on it would use.
-  const linked = (x: Linked<{ span: Span; printed: string }>) => ({ ...item(x.item), basis: x.basis, certain: x.certain, ...(x.certain ? {} : { doubt: linkDoubts({ linked: [x] })[0] ?? '' }) });
-  const d = c.descriptives;
+  const linked = (x: Linked<{ span: Span; printed: string }>) => linkedRecord(x, place);
   return {
     design: c.design,
-    ...(d
-      ? {
-          descriptives: {
-            scope: d.scope,
-            certain: d.certain,
-            ...(d.certain ? {} : { doubt: linkDoubts({ descriptives: d })[0] ?? '' }),
-            groups: d.groups.map((g, i) => ({ ...item(g), ...(g.label ? { label: g.label } : {}), spreadKind: d.spreadKinds[i] ?? 'unstated' })),
-          },
-        }
-      : {}),
+    ...(c.descriptives ? { descriptives: descriptivesRecord(c.descriptives, place) } : {}),
     ...(c.unlinked ? { unlinked: c.unlinked.reason } : {}),
     ...(c.reference ? { reference: item(c.reference) } : {}),
     ...(c.interval ? { interval: { ...linked(c.interval), of: c.interval.of } } : {}),

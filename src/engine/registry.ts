@@ -12,6 +12,8 @@ import { etaSquaredFollowsFromF } from '../../rules/eta-squared-follows-from-f.j
 import { chiSquareDfFollowsFromTable } from '../../rules/chi-square-df-follows-from-table.js';
 import { associationFollowsFromChiSquare } from '../../rules/association-follows-from-chi-square.js';
 import { fEqualsTSquared } from '../../rules/f-equals-t-squared.js';
+import { fFollowsFromGroupSummaries } from '../../rules/f-follows-from-group-summaries.js';
+import { zFollowsFromCoefficient } from '../../rules/z-follows-from-coefficient.js';
 import { powerStatementFollows } from '../../rules/power-statement-follows.js';
 import { quietDirectiveHasReason } from '../../rules/quiet-directive-has-reason.js';
 import { resultIsComplete } from '../../rules/result-is-complete.js';
@@ -63,6 +65,7 @@ export const RULES: readonly AnyRule[] = [
   chiSquareDfFollowsFromTable,
   associationFollowsFromChiSquare,
   fEqualsTSquared,
+  fFollowsFromGroupSummaries,
   oneTailedPIsDeclared,
   valuesArePossible,
   zeroPIsABound,
@@ -70,6 +73,7 @@ export const RULES: readonly AnyRule[] = [
   adjustedPFollows,
   tFollowsFromDescriptives,
   tFollowsFromCoefficient,
+  zFollowsFromCoefficient,
   spreadKindMatchesT,
   dfFollowsFromN,
   designMatchesAnalysis,

@@ -113,6 +113,12 @@ export interface StatisticRecord extends Place {
   n?: NumberRecord;
   p?: ResultRecord['p'];
   alpha: Setting<number>;
+  /** For F: the groups whose summaries are tied to it, as a t result's descriptives. */
+  groups?: ResultRecord['context']['descriptives'];
+  /** For z: the coefficient printed with its SE right before it. */
+  coefficient?: LinkedRecord;
+  /** Its tails, found as for a t-test (only z and r are read either way; F and χ² have one tail by definition). */
+  sidedness?: Setting<Sidedness>;
   /** A Greenhouse–Geisser or Huynh–Feldt correction named beside an F. */
   dfCorrection?: 'greenhouse-geisser' | 'huynh-feldt';
   /** Why the p's tie to the statistic is not certain (findings on it are then notes). */

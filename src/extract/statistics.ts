@@ -81,6 +81,12 @@ const N_IN_CLAUSE = /(?<![\p{L}\p{N}_])[nN] ?= ?(\d{1,3}(?:,\d{3}){1,2}|\d{1,7})
 const CHI_NAMED = /(McNemar|Bowker|goodness[- ]of[- ]fit|Mantel|Cochran|linear[- ]by[- ]linear|trend|Yates|continuity)/iu;
 /** A Greenhouse–Geisser or Huynh–Feldt correction named near an F. */
 const CORRECTION = /(Greenhouse|Huynh)/u;
+/**
+ * Words before an F in its sentence, or in its clause, that name an analysis whose F is not the
+ * one-way between-groups F of the groups' printed means and SDs: repeated or mixed designs,
+ * covariates, Welch's or Brown–Forsythe's F, a factorial design's effects.
+ */
+const NOT_ONE_WAY = /(repeated|within[- ]subjects?|within[- ]participants?|mixed|covariat\w{0,4}|ANCOVA|adjust\w{0,4}|Welch|Brown[- –]Forsythe|interaction|main effect|two-way|three-way|factorial|MANOVA|multivariate|over time|across time|time points?|timepoints?|sessions|waves)/iu;
 /** Words of an F, χ², r or z report that are not other prose. */
 const OWN_WORDS = /^(?:mse|ms|ss|greenhouse|geisser|huynh|feldt|gg|hf|epsilon|ε|sphericity|likelihood|ratio|pearson|pearson's|pearson’s|yates|fisher|fisher's|fisher’s|wald|asymptotic|approximate|one-way|anova|ancova|manova|wilks|pillai|trace|lambda)$/iu;
 /** Words before an r that make p from t = r√(df/(1 − r²)) an approximation or its df another one. */
@@ -143,6 +149,8 @@ export function completeStatistics(seg: Segment, starts: number[], others: Other
       const near = text.slice(Math.max(sentenceStart, at - 80), tailEnd);
       const c = CORRECTION.exec(near);
       if (c) out.dfCorrection = c[1] === 'Huynh' ? 'huynh-feldt' : 'greenhouse-geisser';
+      const w = NOT_ONE_WAY.exec(text.slice(sentenceStart, tailEnd));
+      if (w) out.analysisWords = w[1] as string;
     }
     if (o.kind === 'chi-square') {
       // a φ or V of the χ²'s own clause: the first one after its value and before the clause ends

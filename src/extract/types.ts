@@ -147,6 +147,11 @@ export interface OtherStatistic {
    * (a rank test's U or W before a z, whose p may be exact; a partial or rank correlation).
    */
   doubt?: string;
+  /**
+   * For F: words of its sentence (up to its clause's end) that name an analysis other than a
+   * one-way between-groups ANOVA (`repeated`, `ANCOVA`, `Welch`, `interaction`, …), as printed.
+   */
+  analysisWords?: string;
   /** For F: an η² printed in its clause (`ηp2 = .10`, `partial η2 = .10`), and whether it is said to be partial. */
   etaSquared?: { partial: boolean; op: Comparison; value: ReportedNumber; span: Span; printed: string };
   /**

@@ -698,3 +698,46 @@ function methodsDesign(x: Extraction, clauses: ClauseIndex): Setting<Design> | u
   if (!first || !inMethods.every((d) => d.design === first.design)) return undefined;
   return { value: first.design, basis: 'methods', span: first.span, printed: first.printed };
 }
+
+/** Most groups an F's summaries may count (the numerics search 2^k corners; see oneWayFRange). */
+const MAX_F_GROUPS = 12;
+
+/**
+ * Ties groups' printed summaries (mean, spread, n) to an F, as descriptives are tied to a
+ * t-test: the prose groups of the F's sentence when it is the sentence's only test of means (t
+ * or F); else the groups of its paragraph's sentences that report no statistic, when it is the
+ * paragraph's only test of means, certain only when those groups stand in one sentence (groups
+ * spread over several sentences may be of several measures). Groups in tables are not tied here.
+ * Two to MAX_F_GROUPS groups; anything else gives nothing. Linear: each lookup is by sentence or
+ * segment, counted once.
+ */
+export function fGroupsJoiner(x: Extraction): (o: { kind: string; segment: number; sentence: number; span: Span }) => DescriptiveLink | undefined {
+  // nothing to index in a document without an F beside prose groups
+  if (x.summaries.length < 2 || !x.otherStatistics.some((o) => o.kind === 'F')) return () => undefined;
+  const clauses = clauseIndex(x);
+  const tests = new SegmentList(x.tests);
+  const overlapsTest = (g: GroupSummary) => {
+    const list = tests.all(g.segment);
+    const i = lowerBound(list, g.span.end) - 1;
+    const t = list[i];
+    return t !== undefined && t.span.end > g.span.start;
+  };
+  const prose = new SegmentList(x.summaries.filter((g) => !g.table && !overlapsTest(g)));
+  const spreads = spreadStatements(x);
+  return (o) => {
+    if (o.kind !== 'F') return undefined;
+    const inSentence = prose.inSentence(o.segment, o.sentence);
+    if (inSentence.length > 0) {
+      if (inSentence.length < 2 || inSentence.length > MAX_F_GROUPS || clauses.meanTestsInSentence(o.segment, o.sentence) !== 1) return undefined;
+      return makeLink('sentence', [...inSentence], spreads, true);
+    }
+    if (clauses.meanTestsInSegment(o.segment) !== 1) return undefined;
+    const all = prose.all(o.segment);
+    if (all.length > 4 * MAX_F_GROUPS) return undefined;
+    const groups = all.filter((g) => clauses.statisticsInSentence(g.segment, g.sentence) === 0);
+    if (groups.length < 2 || groups.length > MAX_F_GROUPS) return undefined;
+    const sentences = new Set(groups.map((g) => g.sentence)).size;
+    const link = makeLink('paragraph', groups, spreads, sentences === 1);
+    return sentences === 1 ? link : { ...link, doubt: `the groups are printed in ${sentences} sentences of the paragraph, which may be of more than one measure` };
+  };
+}

@@ -1,4 +1,4 @@
-import type { ContextStatement, Extraction, IntegerStatement, OtherStatistic, Sidedness, TableDimensions, TTestReport } from '../extract/types.js';
+import type { ContextStatement, EstimateReport, Extraction, IntegerStatement, OtherStatistic, ReportedNumber, Sidedness, TableDimensions, TTestReport } from '../extract/types.js';
 import type { Linked } from './descriptives.js';
 import type { Directive, Span } from '../parse/types.js';
 import type { DocumentSettings, LinkedDocument, LinkedResult, LinkedStatistic, Setting } from './types.js';
@@ -6,7 +6,7 @@ import type { DocumentSettings, LinkedDocument, LinkedResult, LinkedStatistic, S
 export type * from './types.js';
 export type { DescriptiveLink, Design, IntervalLink, IntervalTarget, LinkBasis, Linked, ResultContext } from './descriptives.js';
 export { groupBy } from './descriptives.js';
-import { contextJoiner, spreadStatements } from './descriptives.js';
+import { contextJoiner, fGroupsJoiner, spreadStatements } from './descriptives.js';
 import { testNames } from './testNames.js';
 export type { TestName, TestNameBasis } from './testNames.js';
 
@@ -124,6 +124,8 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   });
   const statistics: LinkedStatistic[] = [];
   const dimensionsOf = tableDimensionsJoiner(extraction);
+  const groupsOf = fGroupsJoiner(extraction);
+  const coefficientOf = coefficientBeforeJoiner(extraction);
   for (const o of extraction.otherStatistics) {
     if (o.kind !== 'F' && o.kind !== 'chi-square' && o.kind !== 'correlation' && o.kind !== 'z') continue;
     const report = o as LinkedStatistic['report'];
@@ -131,6 +133,8 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     const sidedness = sidednessFor(report.p?.statedSidedness !== undefined ? { value: report.p.statedSidedness, span: report.p.span } : undefined, report, reading, paragraphOf(o.segment), documentSidedness);
     const elsewhere = sidedness.basis === 'default' ? untiedOutside(o.segment) : undefined;
     const dimensions = o.kind === 'chi-square' ? dimensionsOf(o) : undefined;
+    const groups = o.kind === 'F' ? groupsOf(o) : undefined;
+    const coefficient = o.kind === 'z' ? coefficientOf(o) : undefined;
     statistics.push({
       id: `stat:${o.segment}:${o.span.start}`,
       report,
@@ -139,6 +143,8 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       ...(elsewhere ? { untiedSidedness: elsewhere } : {}),
       doubts: o.doubt ? [o.doubt] : [],
       ...(dimensions ? { dimensions } : {}),
+      ...(groups ? { groups } : {}),
+      ...(coefficient ? { coefficient } : {}),
     });
   }
   return {
@@ -345,5 +351,78 @@ function tableDimensionsJoiner(x: Extraction): (o: OtherStatistic) => Linked<Tab
     if (inSentence.length === 1 && chiBySentence.get(`${o.segment}:${o.sentence}`) === 1) return { item: inSentence[0] as TableDimensions, basis: 'sentence', certain: true };
     if (inSentence.length === 0 && list.length === 1 && chiBySegment.get(o.segment) === 1) return { item: list[0] as TableDimensions, basis: 'paragraph', certain: true };
     return undefined;
+  };
+}
+
+/** How far before its statistic a coefficient may end to be the one it tests (source characters; as a t-test's leading estimate). */
+const COEFFICIENT_REACH = 80;
+/** Kinds that are another test's statistic: one of them between a coefficient and a z unties them (β, η², R², φ are estimates or effect sizes). */
+const TESTS: ReadonlySet<OtherStatistic['kind']> = new Set(['F', 'chi-square', 'correlation', 'z', 'ratio', 'rank-or-other']);
+
+/**
+ * Ties a z to the regression coefficient printed with its SE right before it in its sentence
+ * (`b = 0.42, SE = 0.15, z = 2.80`), when no t-test or other test's statistic stands between
+ * them; certain only when no second coefficient does either. Each sentence's records are
+ * grouped and sorted once and looked up by binary search, and the walk back for a second
+ * coefficient stays within a bounded reach, so the join is linear in the records.
+ */
+function coefficientBeforeJoiner(x: Extraction): (o: OtherStatistic) => Linked<EstimateReport & { se: ReportedNumber }> | undefined {
+  const coefficients = x.estimates.filter((e) => e.kind === 'coefficient' && !e.table);
+  if (coefficients.length === 0) return () => undefined;
+  const key = (r: { segment: number; sentence: number }) => `${r.segment}:${r.sentence}`;
+  const bySentence = new Map<string, EstimateReport[]>();
+  for (const e of coefficients) {
+    const list = bySentence.get(key(e));
+    if (list) list.push(e);
+    else bySentence.set(key(e), [e]);
+  }
+  for (const list of bySentence.values()) list.sort((a, b) => a.span.end - b.span.end);
+  const tests = new Map<string, number[]>();
+  const addTest = (r: { segment: number; sentence: number; span: Span }) => {
+    if (!bySentence.has(key(r))) return;
+    const list = tests.get(key(r));
+    if (list) list.push(r.span.start);
+    else tests.set(key(r), [r.span.start]);
+  };
+  for (const t of x.tests) addTest(t);
+  for (const s of x.otherStatistics) if (TESTS.has(s.kind)) addTest(s);
+  for (const list of tests.values()) list.sort((a, b) => a - b);
+  /** Whether a test's statistic starts in [from, to). */
+  const testBetween = (k: string, from: number, to: number): boolean => {
+    const starts = tests.get(k);
+    if (!starts) return false;
+    let lo = 0;
+    let hi = starts.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if ((starts[mid] as number) < from) lo = mid + 1;
+      else hi = mid;
+    }
+    return lo < starts.length && (starts[lo] as number) < to;
+  };
+  return (o) => {
+    const k = key(o);
+    const list = bySentence.get(k);
+    if (!list) return undefined;
+    // the last coefficient ending at or before the z
+    let lo = 0;
+    let hi = list.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if ((list[mid] as EstimateReport).span.end <= o.span.start) lo = mid + 1;
+      else hi = mid;
+    }
+    const last = list[lo - 1];
+    if (!last?.se || o.span.start - last.span.end > COEFFICIENT_REACH || testBetween(k, last.span.start, o.span.start)) return undefined;
+    const item = { ...last, se: last.se };
+    // a second coefficient in the same stretch (no test between it and the z) leaves open whose SE it is
+    let others = 0;
+    for (let j = lo - 2; j >= 0; j -= 1) {
+      const e = list[j] as EstimateReport;
+      if (o.span.start - e.span.end > 2 * COEFFICIENT_REACH || testBetween(k, e.span.end, o.span.start)) break;
+      others += 1;
+    }
+    if (others > 0) return { item, basis: 'clause', certain: false, doubt: `shares its clause with ${others} other coefficient${others > 1 ? 's' : ''}, so the SE may be another's` };
+    return { item, basis: 'clause', certain: true };
   };
 }

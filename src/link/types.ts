@@ -1,6 +1,6 @@
-import type { ContextStatement, Extraction, GroupSummary, IntegerStatement, OtherStatistic, PWithoutT, Sidedness, SpreadKind, TableDimensions, TTestReport } from '../extract/types.js';
+import type { ContextStatement, EstimateReport, Extraction, GroupSummary, IntegerStatement, OtherStatistic, PWithoutT, ReportedNumber, Sidedness, SpreadKind, TableDimensions, TTestReport } from '../extract/types.js';
 import type { Directive, ReadNote, Span } from '../parse/types.js';
-import type { Linked, ResultContext } from './descriptives.js';
+import type { DescriptiveLink, Linked, ResultContext } from './descriptives.js';
 import type { TestName } from './testNames.js';
 export type { IntervalTarget, LinkBasis, Linked } from './descriptives.js';
 
@@ -48,6 +48,17 @@ export interface LinkedStatistic {
   /** A one-tailed statement elsewhere in the text that could not be tied to this result. */
   untiedSidedness?: ContextStatement;
   doubts: string[];
+  /**
+   * For z: a regression coefficient printed with its SE right before it in its sentence (`b =
+   * 0.42, SE = 0.15, z = 2.80`), with no other statistic between them; certain only when it is
+   * the one coefficient there.
+   */
+  coefficient?: Linked<EstimateReport & { se: ReportedNumber }>;
+  /**
+   * For F: the groups whose printed means, spreads and sizes its sentence (or else its paragraph)
+   * ties to it (src/link/descriptives.ts `fGroupsJoiner`), with how certainly.
+   */
+  groups?: DescriptiveLink;
   /** For χ²: the size of the contingency table its sentence (or else its paragraph) states, where nothing else could claim it. */
   dimensions?: Linked<TableDimensions>;
 }

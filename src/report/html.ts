@@ -172,7 +172,7 @@ function summaryTable(run: RunReport): string {
   return `<table class="summary" aria-label="summary">
 ${row('Files checked', c.files)}${c.failures > 0 ? row('Files not checked', c.failures) : ''}
 ${row('Results found', c.results)}
-${row('Results with p recomputed', c.checked)}
+${row('Results with p recomputed', c.checked)}${c.statistics > 0 ? `\n${row('F, χ², r and z results found', c.statistics)}\n${row('F, χ², r and z results with p recomputed', c.statisticsChecked)}` : ''}
 ${row('Recomputed and not flagged', consistent)}
 ${row(`<span class="sym">${SEVERITY.error.symbol}</span> Errors`, c.error, 'lvl-error')}
 ${row(`<span class="sym">${SEVERITY.warning.symbol}</span> Warnings`, c.warning, 'lvl-warning')}
@@ -317,7 +317,7 @@ function card(file: FileReport, index: number, f: Finding, n: number, pAxis: PAx
   }
   rows.push(`<dt>What to check</dt><dd>${escapeHtml(f.check)}</dd>`);
   for (const r of f.related ?? []) rows.push(`<dt>See also</dt><dd><a href="#${anchor(index, 'L', r.start.line)}">${escapeHtml(shortPlace(r))}</a>: ${escapeHtml(r.message)}</dd>`);
-  const result = f.resultId ? file.results.find((r) => r.id === f.resultId) : undefined;
+  const result = f.resultId ? (file.results.find((r) => r.id === f.resultId) ?? file.statistics?.find((s) => s.id === f.resultId)) : undefined;
   const picture = findingPicture(f, result, pAxis);
   return `<details class="card lvl-${f.level}" id="${anchor(index, 'card', n)}" data-card="${n}" open>
 <summary><span class="sym" aria-hidden="true">${s.symbol}</span> ${s.word} · ${escapeHtml(f.ruleId)} ${f.scope === 'document' ? '<span class="where">the whole document</span>' : `<a class="where" href="#${anchor(index, 'L', f.start.line)}">${f.original ? escapeHtml(originalName(f.original)) : `line ${f.start.line}, column ${f.start.column}`}</a>`}</summary>

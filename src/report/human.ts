@@ -58,14 +58,7 @@ function* humanLines(run: RunReport, options: HumanOptions): Generator<string> {
   const c = countRun(run);
   const checklistEntries = run.files.reduce((n, file) => n + file.findings.filter((f) => isChecklistFinding(file, f)).length, 0);
   const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
-  // countRun counts the t results (the JSON summary's figure); the others are counted here, for the line people read
-  const others = { results: 0, checked: 0 };
-  for (const file of run.files) {
-    for (const st of file.statistics ?? []) {
-      others.results += 1;
-      if (st.recomputed) others.checked += 1;
-    }
-  }
+  const others = { results: c.statistics, checked: c.statisticsChecked };
   const summary = [
     plural(c.files, 'file'),
     others.results === 0

@@ -462,13 +462,13 @@ function correlationPicture(g: CorrelationFigure): string {
 }
 
 /** The picture of one finding: the p strip for a finding about p, its own quantity's picture otherwise, or nothing. */
-export function findingPicture(f: Finding, result: ResultRecord | undefined, axis: PAxis): string {
+export function findingPicture(f: Finding, result: ResultRecord | StatisticRecord | undefined, axis: PAxis): string {
   const g = f.figure;
   if (!g) return '';
   switch (g.kind) {
     case 'p':
       {
-        const row = result ? resultRow(result) : undefined;
+        const row = result === undefined ? undefined : 'kind' in result ? statisticRow(result) : resultRow(result);
         return row ? `<div class="picture">${pStrip(row, axis)}</div>` : '';
       }
     case 'interval':

@@ -32,6 +32,9 @@ export interface Counts {
   files: number;
   results: number;
   checked: number;
+  /** F, χ², r and z results read, and those whose p was recomputed. */
+  statistics: number;
+  statisticsChecked: number;
   error: number;
   warning: number;
   note: number;
@@ -53,12 +56,14 @@ export const CAUTIONS: readonly string[] = [
 export function countRun(run: RunReport): Counts {
   // a bad configuration counts the manuscripts it kept from being checked
   const failures = run.failures.reduce((n, f) => n + (f.notChecked ? f.notChecked.length : 1), 0);
-  const c: Counts = { files: run.files.length, results: 0, checked: 0, error: 0, warning: 0, note: 0, failures, hiddenByQuiet: 0, hiddenByBaseline: 0 };
+  const c: Counts = { files: run.files.length, results: 0, checked: 0, statistics: 0, statisticsChecked: 0, error: 0, warning: 0, note: 0, failures, hiddenByQuiet: 0, hiddenByBaseline: 0 };
   for (const f of run.files) {
     c.hiddenByQuiet += f.hidden.quiet;
     c.hiddenByBaseline += f.hidden.baseline;
     c.results += f.results.length;
     c.checked += f.results.filter((r) => r.recomputed !== undefined).length;
+    c.statistics += f.statistics?.length ?? 0;
+    c.statisticsChecked += f.statistics?.filter((s) => s.recomputed !== undefined).length ?? 0;
     for (const x of f.findings) c[x.level] += 1;
   }
   return c;

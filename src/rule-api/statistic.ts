@@ -196,6 +196,7 @@ export function statisticPFindings(
       reported: s.reportPrinted ?? s.printed,
       recomputed: e.recomputed,
       gap: e.gap,
+      figure: { kind: 'p' },
       check,
       resultId: linked.id,
       block: s.block,

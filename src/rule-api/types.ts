@@ -42,7 +42,7 @@ export interface ValueRange {
  */
 export type Figure = PFigure | IntervalFigure | DfFigure | LatticeFigure | CorrelationFigure;
 
-/** The result's reported p against the p its t and df allow (both are on the result itself). */
+/** The result's reported p against the p its statistic and dfs allow (both are on the result itself: a t result or an F, χ², r or z result). */
 export interface PFigure {
   kind: 'p';
 }

@@ -55,6 +55,24 @@ describe('many results in one paragraph', () => {
 });
 
 /**
+ * The same for F results beside groups' summaries (each F's groups are looked up once per
+ * sentence) and z results after coefficients with their SEs (binary searches, a bounded walk back).
+ */
+describe('many F results with groups and z results with coefficients', () => {
+  const fs = (n: number) => doc(Array.from({ length: n }, (_, i) => `Sites differed (first: M = 4.${i % 10}, SD = 1.2, n = 20; second: M = 5.1, SD = 1.1, n = 21), F(1, 39) = ${(5 + (i % 40) / 10).toFixed(2)}, p = .0${10 + (i % 80)}.`).join(' '));
+  const zs = (n: number) => doc(`${Array.from({ length: n }, (_, i) => `b = 0.${40 + (i % 50)}, SE = 0.15, z = ${(2 + (i % 90) / 100).toFixed(2)}`).join(', ')}.`);
+  it('one paragraph of F results, each with its two groups: twice as many costs less than three times as much', () => {
+    expectLinearCheck('F with groups', fs, 400);
+    const linked = checkSource('x.md', fs(50)).statistics ?? [];
+    expect(linked).toHaveLength(50);
+  }, 120_000);
+  it('one sentence of z results after coefficients: twice as many costs less than three times as much', () => {
+    expectLinearCheck('z after coefficients', zs, 1500);
+    expect((checkSource('x.md', zs(50)).statistics ?? []).filter((st) => st.kind === 'z')).toHaveLength(50);
+  }, 120_000);
+});
+
+/**
  * The lead reader gives, test after test, exactly what `leadStart` and `topicWords` give on the
  * text up to each test: generated sentences mix clause boundaries inside and outside brackets,
  * repeated and new words, possessives and words longer than a word match (41 letters).

@@ -28,11 +28,13 @@ describe('invented manuscripts with a key written by scipy (fixtures/generated)'
     expect(r.flagged / r.correct).toBeLessThanOrEqual(0.005);
   });
 
-  // F, χ², r and z results with seeded errors (p mismatch, significance flip, an r's df against its n),
-  // each proved impossible in the generator by scipy over the printed rounding
+  // F, χ², r and z results with seeded errors (p mismatch, significance flip, an r's df against its n,
+  // an F its groups' summaries cannot give, an F that is not t², a χ² df that is not the table's,
+  // a φ or V the χ² cannot give), each proved impossible in the generator over the printed rounding
   it('has seeded errors of every F, χ², r, z and regression type', () => {
     expect(Object.keys(figures.statisticRecallByType).sort()).toEqual([
-      'F-p-mismatch', 'F-significance-flip', 'chi-square-p-mismatch', 'chi-square-significance-flip', 'coefficient-t-mismatch',
+      'F-from-group-summaries', 'F-not-t-squared', 'F-p-mismatch', 'F-significance-flip', 'association-vs-chi-square', 'chi-square-df-vs-table',
+      'chi-square-p-mismatch', 'chi-square-significance-flip', 'coefficient-t-mismatch',
       'r-df-vs-n', 'r-p-mismatch', 'r-significance-flip', 'z-p-mismatch', 'z-significance-flip',
     ]);
   });

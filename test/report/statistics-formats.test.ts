@@ -5,9 +5,10 @@
  */
 import { readFileSync } from 'node:fs';
 import AjvDraft04Module from 'ajv-draft-04';
+import { Ajv2020 } from 'ajv/dist/2020.js';
 import { describe, expect, it } from 'vitest';
 import { checkSource } from '../../src/engine/index.js';
-import { formatHuman, formatLines, type RunReport } from '../../src/report/index.js';
+import { countRun, formatHtml, formatHuman, formatJson, formatLines, type RunReport } from '../../src/report/index.js';
 import { cli } from '../cli/harness.js';
 
 // Invented. The recomputed p values, over the printed rounding: t(28) = 2.10 two-tailed .0444 to .0453
@@ -91,4 +92,50 @@ describe('one F, χ², r and z finding each, in every format (invented manuscrip
       expect(rule?.help.markdown.startsWith(`# ${e.ruleId}\n`)).toBe(true);
     });
   });
+
+  it('JSON: the summary counts them beside the t results, each carries its tails, and the report meets its schema', () => {
+    const data = JSON.parse(formatJson(run));
+    // ajv (npm) validates against our schema as JSON Schema 2020-12, as in formats.test.ts
+    const validate = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
+    expect(validate(data), JSON.stringify(validate.errors?.slice(0, 5), null, 1)).toBe(true);
+    expect(data.summary).toMatchObject({ results: 1, checked: 1, statistics: 4, statisticsChecked: 4 });
+    expect(countRun(run)).toMatchObject({ statistics: 4, statisticsChecked: 4 });
+    const statistics = data.files[0].statistics as Array<{ kind: string; sidedness: { value: string; basis: string } }>;
+    expect(statistics.map((st) => st.kind)).toEqual(['F', 'chi-square', 'r', 'z']);
+    // nothing in the text says one-tailed: the default applies
+    for (const st of statistics) expect(st.sidedness).toEqual({ value: 'two', basis: 'default' });
+  });
+
+  it('HTML: each p finding on an F, χ², r or z has its p strip on its card, drawn from the statistic\'s own record', () => {
+    const html = formatHtml(run);
+    const cards = html.split('<details class="card').slice(1);
+    expect(cards).toHaveLength(EXPECTED.length);
+    for (const card of cards) expect(card).toContain('<svg class="pstrip"');
+    expect(report.findings.every((f) => f.figure?.kind === 'p')).toBe(true);
+  });
 });
+
+describe('JSON: an F with its groups and a z with its coefficient carry those ties (invented manuscript)', () => {
+  // the F and groups of rules/f-follows-from-group-summaries.md (NIST/SEMATECH e-Handbook example, from memory);
+  // the z of rules/z-follows-from-coefficient.md (0.42 / 0.15 = 2.80)
+  const text = [
+    'The three rooms differed in recall (quiet: M = 5.34, SD = 1.12, n = 5; music: M = 7.72, SD = 1.10, n = 5; noise: M = 8.56, SD = 1.38, n = 5), F(2, 12) = 9.59, p = .003.',
+    '',
+    'Dosage predicted relapse, b = 0.42, SE = 0.15, z = 2.80, p = .005.',
+    '',
+  ].join('\n');
+  const file = checkSource('ties.md', text);
+  const data = JSON.parse(formatJson({ tool: { name: 'plumbline', version: '0.0.0-test' }, files: [file], failures: [], rules: [] }));
+  it('meets the schema, and each tie says its basis and certainty', () => {
+    const validate = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
+    expect(validate(data), JSON.stringify(validate.errors?.slice(0, 5), null, 1)).toBe(true);
+    const [f, z] = data.files[0].statistics as Array<{ kind: string; groups?: { scope: string; certain: boolean; groups: Array<{ printed: string; spreadKind: string }> }; coefficient?: { printed: string; basis: string; certain: boolean } }>;
+    expect(f?.kind).toBe('F');
+    expect(f?.groups).toMatchObject({ scope: 'sentence', certain: true });
+    expect(f?.groups?.groups.map((g) => g.spreadKind)).toEqual(['SD', 'SD', 'SD']);
+    expect(z?.kind).toBe('z');
+    expect(z?.coefficient).toMatchObject({ printed: 'b = 0.42', basis: 'clause', certain: true });
+    expect(file.findings.filter((x) => x.level !== 'note')).toEqual([]);
+  });
+});
+
