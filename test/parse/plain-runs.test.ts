@@ -13,8 +13,9 @@ import { findPlainRuns, isPlainLine } from '../../src/parse/plainRuns.js';
 const RUNS = Number(process.env.PLUMBLINE_PROPERTY_RUNS ?? 1_000);
 
 const both = (doc: string) => ({
-  plain: parseMarkdown('t.md', doc, { plainGroups: 2 }),
-  parser: parseMarkdown('t.md', doc, { plainGroups: Infinity }),
+  // the bulk table reader on too: a table after a run is found by line numbers the run shifts
+  plain: parseMarkdown('t.md', doc, { plainGroups: 2, bulkRows: 1 }),
+  parser: parseMarkdown('t.md', doc, { plainGroups: Infinity, bulkRows: Infinity }),
 });
 
 // Lines: plain ones (statistics, words, non-ASCII, punctuation that opens nothing here) and near
@@ -49,7 +50,8 @@ const context = fc.constantFrom(
   (t: string) => `| a | b |\n|---|---|\n| 1 | 2 |\n\n${t}`,
   (t: string) => `Heading\n===\n\n${t}`,
 );
-const after = fc.constantFrom('', '\n', '\n\n    code after\n', '\n\n- item after\n', '\n\n  indented after\n', '\n\n[a]: /u\n', '\n===\n', '\n\n```\n');
+const TABLE = '| a | b |\n|---|---|\n| 1 | 2 |\n| t(3) = 2.5 | 4 |\n| 5 | 6 |\n| 7 | *8* |\n';
+const after = fc.constantFrom('', '\n', `\n\n${TABLE}`, `\n\n${TABLE}\nx\n\ny\n\n${TABLE}`, '\n\n    code after\n', '\n\n- item after\n', '\n\n  indented after\n', '\n\n[a]: /u\n', '\n===\n', '\n\n```\n');
 
 describe('the plain-run reader reads plain paragraphs exactly as the Markdown parser does', () => {
   it('same segments, directives and notes for generated documents in every context', () => {
@@ -86,6 +88,15 @@ describe('the plain-run reader reads plain paragraphs exactly as the Markdown pa
     const b = parseMarkdown('t.md', doc, { plainGroups: Infinity });
     expect(a.segments).toEqual(b.segments);
     expect(a.segments).toHaveLength(502);
+  });
+
+  it('a long table after a run is still read by the bulk table reader (line numbers past the run kept)', () => {
+    const rows = Array.from({ length: 80 }, (_, i) => `| ${i} | t(3) = 2.5 |`).join('\n');
+    const doc = `${'a\n\n'.repeat(100)}| x | y |\n|---|---|\n${rows}\n\nAfter.\n`;
+    const { plain, runs } = parseWithBulkRuns(doc, 64);
+    expect(plain.size).toBe(1);
+    expect(runs.size).toBe(1);
+    expect(parseMarkdown('t.md', doc).segments).toEqual(parseMarkdown('t.md', doc, { plainGroups: Infinity, bulkRows: Infinity }).segments);
   });
 
   it('takes no line inside a fence, math or raw HTML that runs across blank lines', () => {
