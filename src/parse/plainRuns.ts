@@ -17,15 +17,20 @@
  * fence, raw HTML or math this scan did not see).
  *
  * A plain line starts at its first column with a letter, a digit that opens no ordered list
- * item, or any non-ASCII character; holds no tab, CR or trailing space; and none of
- * `` \ ` * _ ~ $ [ ] | @ ``, no `<` or `&` or `!` that could open a tag, a character reference or
- * an image, and no `www.` or `://` (autolink literals). Its paragraph's text is then its lines
- * joined by line breaks, exactly as the parser gives it. test/parse/plain-runs.test.ts compares
+ * item, a backslash escape, or any non-ASCII character; holds no tab, CR or trailing space; and none of
+ * `` ` * _ ~ $ [ ] | @ `` (but any of them escaped by a backslash), no `\` ending it, no `<` or
+ * `&` or `!` that could open a tag, a character reference or an image, and no `www.` or `://`
+ * (autolink literals). Its paragraph's text is then its lines joined by line breaks with
+ * backslash escapes resolved, exactly as the parser gives it. A run is also taken when it has
+ * fewer paragraphs but spans PLAIN_MIN_CHARS (one long paragraph of escapes is slow too). test/parse/plain-runs.test.ts compares
  * both readings on generated documents.
  */
 
 /** Default: runs of at least this many plain paragraphs are read here. */
 export const PLAIN_MIN_GROUPS = 64;
+
+/** Runs of fewer paragraphs are read here too when they span at least this many characters. */
+export const PLAIN_MIN_CHARS = 65_536;
 
 /** One plain paragraph: its lines' ranges (no line ending). */
 export interface PlainGroup {
@@ -42,7 +47,12 @@ export interface PlainRun {
 
 /** ASCII characters that never appear in a plain line. */
 const BANNED = new Uint8Array(128);
-for (const c of '\\`*_~$[]|@\t\r') BANNED[c.charCodeAt(0)] = 1;
+for (const c of '`*_~$[]|@\t\r') BANNED[c.charCodeAt(0)] = 1;
+
+/** ASCII punctuation: what a backslash escapes (CommonMark 2.4). */
+function isAsciiPunctuation(c: number): boolean {
+  return (c >= 33 && c <= 47) || (c >= 58 && c <= 64) || (c >= 91 && c <= 96) || (c >= 123 && c <= 126);
+}
 
 function isAsciiLetter(c: number): boolean {
   return (c >= 65 && c <= 90) || (c >= 97 && c <= 122);
@@ -56,7 +66,9 @@ function isDigit(c: number): boolean {
 export function isPlainLine(text: string, start: number, end: number): boolean {
   if (start >= end) return false;
   const first = text.charCodeAt(start);
-  if (first < 128 && !isAsciiLetter(first) && !isDigit(first)) return false;
+  // a backslash escape opens no block (`\# x`, `\| a` are paragraph text)
+  const escaped = first === 92 && start + 1 < end && isAsciiPunctuation(text.charCodeAt(start + 1));
+  if (first < 128 && !isAsciiLetter(first) && !isDigit(first) && !escaped) return false;
   if (first >= 0xd800 && first <= 0xdfff && !(first <= 0xdbff && start + 1 < end)) return false;
   if (isDigit(first)) {
     // `1.` or `1)` followed by a space or the line's end opens an ordered list item
@@ -69,6 +81,13 @@ export function isPlainLine(text: string, start: number, end: number): boolean {
   for (let k = start; k < end; k += 1) {
     const c = text.charCodeAt(k);
     if (c >= 128) continue;
+    if (c === 92) {
+      // `\|` reads `|` (whatever it escapes is text); a backslash before anything else is
+      // itself; one ending the line is a hard break
+      if (k + 1 >= end) return false;
+      if (isAsciiPunctuation(text.charCodeAt(k + 1))) k += 1;
+      continue;
+    }
     if (BANNED[c] === 1) return false;
     const next = k + 1 < end ? text.charCodeAt(k + 1) : 32;
     // a tag, a comment, a declaration or an autolink needs a letter, `/`, `!` or `?` after `<`
@@ -133,8 +152,8 @@ export function findPlainRuns(text: string, minGroups = PLAIN_MIN_GROUPS): Plain
   let fence: { char: number; size: number } | undefined;
   let html: string | undefined;
   const closeRun = () => {
-    if (groups.length >= Math.max(1, minGroups)) {
-      const first = groups[0]?.lines[0] as { start: number; end: number };
+    const first = groups[0]?.lines[0];
+    if (first && (groups.length >= Math.max(1, minGroups) || runEnd({ start: first.start, standIn: 1, groups }) - first.start >= PLAIN_MIN_CHARS)) {
       const c = text.charCodeAt(first.start);
       runs.push({ start: first.start, standIn: c >= 0xd800 && c <= 0xdbff ? 2 : 1, groups });
     }
@@ -258,7 +277,10 @@ export function lineShift(text: string, runs: readonly PlainRun[]): (offset: num
   };
 }
 
-/** A plain paragraph's text as the parser gives it: its lines joined by line breaks. */
+/** A plain paragraph's text as the parser gives it: its lines joined by line breaks, escapes resolved. */
 export function plainGroupText(text: string, group: PlainGroup): string {
-  return group.lines.map((l) => text.slice(l.start, l.end)).join('\n');
+  const joined = group.lines.map((l) => text.slice(l.start, l.end)).join('\n');
+  return joined.includes('\\') ? joined.replace(ESCAPE, '$1') : joined;
 }
+
+const ESCAPE = /\\([!-/:-@[-`{-~])/g;

@@ -23,6 +23,7 @@ const both = (doc: string) => ({
 const plainLine = fc.constantFrom(
   'a', 'x', 'Fatigue fell, t(23) = 2.47, p = .021.', 'M = 5.2, SD = 1.1', '12 (40%) of 30', '1', '2024 was long', 'é', '😀 ok', '\u200b a',
   'a < b and p < .05', 'a & b', 'wow!', 'Scores (n = 8) rose.', 'χ²(2) = 6.1', 'x # y', 'a - b', 'a > b', 'a = b', '3.5', 'a: b', 'a\u00a0b', 'a^2',
+  'a \\| b', 'a\\*b\\*', '\\`x\\`', 'a \\q b', 'p \\< .05', 'a\\\\b', 'x \\[1\\] y', '\\&amp;', 'a\\\\', 'é\\_',
 );
 const nearMiss = fc.constantFrom(
   '1. item', '2) item', '- item', '* item', '+ item', '> quote', '# Heading', '===', '---', '***', '    indented', '  two spaces', '\tTab',
@@ -90,6 +91,13 @@ describe('the plain-run reader reads plain paragraphs exactly as the Markdown pa
     expect(a.segments).toHaveLength(502);
   });
 
+  it('one long paragraph of escapes (the hostile shape) is a run by its size alone', () => {
+    const doc = `Fatigue fell, t(23) = 2.47, p = .021.\n\n${'\\| '.repeat(30_000).trimEnd()}\n\nErrors rose, t(40) = 3.10, p = .20.\n`;
+    const { plain } = parseWithBulkRuns(doc, Infinity);
+    expect([...plain.values()].map((r) => r.groups.length)).toEqual([3]);
+    expect(parseMarkdown('t.md', doc).segments).toEqual(parseMarkdown('t.md', doc, { plainGroups: Infinity }).segments);
+  });
+
   it('a long table after a run is still read by the bulk table reader (line numbers past the run kept)', () => {
     const rows = Array.from({ length: 80 }, (_, i) => `| ${i} | t(3) = 2.5 |`).join('\n');
     const doc = `${'a\n\n'.repeat(100)}| x | y |\n|---|---|\n${rows}\n\nAfter.\n`;
@@ -107,7 +115,7 @@ describe('the plain-run reader reads plain paragraphs exactly as the Markdown pa
   });
 
   it('plain lines: what may open markup is never plain', () => {
-    for (const l of ['a', 'a < b', 'a & b', 'wow!', '12 (40%)', 'é']) expect(isPlainLine(l, 0, l.length), l).toBe(true);
-    for (const l of ['1. x', ' a', 'a ', 'a\\b', 'a*b', '<b>', 'a <b', '&amp;', 'a ![i]', 'www.a.b', 'a://b', 'a@b', 'a|b', 'a\tb', '# h', '- x']) expect(isPlainLine(l, 0, l.length), l).toBe(false);
+    for (const l of ['a', 'a < b', 'a & b', 'wow!', '12 (40%)', 'é', 'a \\| b', 'a \\q', 'a \\*b\\*', '\\| a', '\\# b']) expect(isPlainLine(l, 0, l.length), l).toBe(true);
+    for (const l of ['1. x', ' a', 'a ', 'a\\', 'a*b', '<b>', 'a <b', '&amp;', 'a ![i]', 'www.a.b', 'a://b', 'a@b', 'a|b', 'a\tb', '# h', '- x']) expect(isPlainLine(l, 0, l.length), l).toBe(false);
   });
 });
