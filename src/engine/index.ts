@@ -125,8 +125,8 @@ export function checkSource(path: string, source: string, options: CheckOptions 
     printed: n.printed,
     value: Number.isFinite(n.value) ? n.value : Math.sign(n.value) * Number.MAX_VALUE,
     decimals: n.decimals,
-    exponent: n.exponent,
-    ...(n.beyondDouble ? { log10: n.beyondDouble.log10 } : {}),
+    exponent: Number.isFinite(n.exponent) ? n.exponent : Math.sign(n.exponent) * Number.MAX_VALUE,
+    ...(n.beyondDouble ? { log10: Number.isFinite(n.beyondDouble.log10) ? n.beyondDouble.log10 : Math.sign(n.beyondDouble.log10) * Number.MAX_VALUE } : {}),
     ...place(n.span),
   });
   const pRecord = (p: ReportedP): NonNullable<ResultRecord['p']> => ({

@@ -28,7 +28,8 @@ export function readNumber(seg: Segment, a: number, b: number, exponent = 0, man
   if (!/^-?(?:\d+(?:\.\d*)?|\.\d+)$/.test(cleaned)) return undefined;
   const dot = cleaned.indexOf('.');
   const decimals = dot < 0 ? 0 : cleaned.length - dot - 1;
-  const value = power === 0 ? Number(cleaned) : Number(`${cleaned}e${power}`);
+  // an exponent no double holds exactly (16 digits and more) gives 0 or Infinity; its size is kept below
+  const value = power === 0 ? Number(cleaned) : Number.isSafeInteger(power) ? Number(`${cleaned}e${power}`) : Number(cleaned) === 0 ? Number(cleaned) : (power > 0 ? Infinity : 0) * (cleaned.startsWith('-') ? -1 : 1);
   if (Number.isNaN(value)) return undefined;
   const out: ReportedNumber = { printed: seg.text.slice(a, b), value, decimals, exponent: power, span: sourceSpan(seg, a, b) };
   const magnitude = beyondDouble(cleaned, power, value);

@@ -14,8 +14,10 @@ const OP = String.raw`(<=|>=|=<|=>|≤|≥|=|<|>)`;
 // not read at all, never cut)
 const EXP = String.raw`(?:[eE][-+]?\d{1,9}(?![\d.]))?`;
 const T_NUM = String.raw`([-+]? ?(?:\d{1,400}(?:\.\d{1,20})?|\.\d{1,20})${EXP})`;
-// a df printed negative is read, so that values-are-possible can say it cannot be
-const DF_NUM = String.raw`(-?(?:\d{1,3}(?:,\d{3}){1,3}(?:\.\d{1,12})?|\d{1,9}(?:\.\d{1,12})?)${EXP})`;
+// a df printed negative is read, so that values-are-possible can say it cannot be; a df of up
+// to 400 digits is read whole (one of ten digits or more is not recomputed, see evaluateP), a
+// longer run is not read at all, never cut
+const DF_NUM = String.raw`(-?(?:\d{1,3}(?:,\d{3}){1,3}(?:\.\d{1,12})?|\d{1,400}(?:\.\d{1,12})?)${EXP})`;
 const NOT_AFTER_WORD = String.raw`(?<![\p{L}\p{N}_'’.\-])`;
 
 /** t(28) = 2.10 · ts(22) > 4.72 · t[28] · t_{28} · t_28 · t( 3.187) · t-test (31) = 0.75 · t(df = 31) = 0.75 */
@@ -39,6 +41,9 @@ const DF_AFTER = new RegExp(String.raw`(?<![\p{L}\p{N}.,])\(?${DF_NUM}\)? (?:df|
  * A p's number: a decimal with an optional exponent (`3.2e-6`, `3.2 × 10^-6`), or a bare power
  * of ten (`10^-6`, and `10-6` where a PDF lost the superscript: `p < 10` is never meant). A
  * minus sign is read (`p = -.05`, `p = -0`), so that values-are-possible can say it cannot be.
+ * The pattern reads nine digits of an exponent; findP reads on to 400 (`1e-12345678901`: its
+ * size kept as log10, see readNumber), a longer one is not read at all, never cut. (Four hundred
+ * digits in the pattern itself made the regex checker judge it polynomial.)
  */
 const P_NUM = String.raw`(?<sign>-)?(?:10 ?(?:\^ ?|(?=-\d))(?<power>-\d{1,9})|(?<mantissa>\d{1,12}(?:\.\d{1,20})?|\.\d{1,20})(?: ?(?:[eE] ?(?<eExp>[-+]?\d{1,9})|[×xX*·] ?10 ?\^? ?(?<tenExp>[-+]?\d{1,9})))?)`;
 /** A subscript or label after the p: `p_adj`, `p_{Holm}`, `p(2-t)`, `p (one-tailed)`. */
@@ -326,19 +331,28 @@ export function findP(seg: Segment, from: number, to: number): ReportedP | undef
     const at = m.indices?.groups ?? {};
     if (!g.first && !g.second && !g.word) continue; // "p 0.05" without a comparison is not a report
     const op = pComparison(g.first ?? '=', g.second);
-    const numEnd = from + m.index + m[0].length;
-    // a number longer than the pattern reads (an exponent of ten digits, a 21st decimal) is not
+    let numEnd = from + m.index + m[0].length;
+    // an exponent longer than the pattern's nine digits is read on, to 400 digits; any other
+    // number longer than the pattern reads (a 21st decimal, a 401st digit of exponent) is not
     // read in part: its first digits would be another number
+    const exp = at.power ?? at.eExp ?? at.tenExp;
+    let expText = g.power ?? g.eExp ?? g.tenExp;
+    if (exp && expText !== undefined && from + exp[1] === numEnd) {
+      const stop = longExponentEnd(seg.text, numEnd, expText.replace(/^[-+]/, '').length);
+      if (stop === undefined) continue;
+      expText += seg.text.slice(numEnd, stop);
+      numEnd = stop;
+    }
     if (/\d/.test(seg.text.charAt(numEnd))) continue;
     let number: ReportedNumber | undefined;
     if (g.power !== undefined) {
       if (g.sign !== undefined) continue; // `p = -10^-6` is no reading of a p worth guessing
       // a bare power of ten: the whole `10^-6` is the printed number
       const exponentAt = from + (at.power as [number, number])[0];
-      number = readPower(seg, seg.text.lastIndexOf('10', exponentAt), numEnd, Number(g.power));
+      number = readPower(seg, seg.text.lastIndexOf('10', exponentAt), numEnd, Number(expText));
     } else {
       const numStart = from + ((g.sign !== undefined ? at.sign : at.mantissa) as [number, number])[0];
-      const exponent = Number(g.eExp ?? g.tenExp ?? 0);
+      const exponent = Number(expText ?? 0);
       number = readNumber(seg, numStart, numEnd, exponent, from + (at.mantissa as [number, number])[1]);
     }
     if (!number) continue;
@@ -364,11 +378,29 @@ export function findP(seg: Segment, from: number, to: number): ReportedP | undef
 
 const SIDED_LABEL = /^(one|two|1|2)[- ]?(?:tailed|sided|t)$/iu;
 
-/** `10^-6` read as 1 × 10^-6 (no decimals: the bound is exact). */
+/** Digits an exponent may have in all (`1e-12345678901` has eleven). */
+const EXPONENT_DIGITS = 400;
+
+/**
+ * Where an exponent whose first `read` digits end at `at` ends, reading on over digits; undefined
+ * when it runs past EXPONENT_DIGITS (never read in part). A plain loop, linear in the digits.
+ */
+function longExponentEnd(text: string, at: number, read: number): number | undefined {
+  let k = at;
+  while (k < text.length && text.charCodeAt(k) >= 0x30 && text.charCodeAt(k) <= 0x39) k += 1;
+  return read + (k - at) > EXPONENT_DIGITS ? undefined : k;
+}
+
+/**
+ * `10^-6` read as 1 × 10^-6 (no decimals: the bound is exact); `10^-400`, below a double, keeps
+ * its size as log10 (value 0).
+ */
 function readPower(seg: Segment, a: number, b: number, exponent: number): ReportedNumber | undefined {
-  const value = Number(`1e${exponent}`);
-  if (!Number.isFinite(value) || a < 0 || a >= b) return undefined;
-  return { printed: seg.text.slice(a, b), value, decimals: 0, exponent, span: sourceSpan(seg, a, b) };
+  const value = Number.isSafeInteger(exponent) ? Number(`1e${exponent}`) : exponent > 0 ? Infinity : 0;
+  if (Number.isNaN(value) || a < 0 || a >= b) return undefined;
+  const out: ReportedNumber = { printed: seg.text.slice(a, b), value, decimals: 0, exponent, span: sourceSpan(seg, a, b) };
+  if (!Number.isFinite(value) || value < 2.2250738585072014e-308) out.beyondDouble = { log10: exponent, mantissa: 1 };
+  return out;
 }
 
 /** The multiplicity adjustment said with a p, before it, in its label or right after it. */

@@ -55,10 +55,10 @@ const CELL_T_DF = new RegExp(String.raw`^ ?(${NUM}) ?${STARS} ?\( ?(\d{1,6}(?:\.
 const T_DF_HEADER = /\( ?df ?\)$/iu;
 /**
  * A p cell. A minus sign is read (`-.05`, `-0`; a Unicode minus is folded to it before), so that
- * values-are-possible can say it cannot be, as for a p in prose; an exponent of up to 9 digits
- * is read whole (`1e-4000`, below a double, as its log10).
+ * values-are-possible can say it cannot be, as for a p in prose; an exponent of up to 400 digits
+ * is read whole (`1e-4000`, `1e-12345678901`, below a double, as its log10).
  */
-const CELL_P = new RegExp(String.raw`^ ?(<=|>=|≤|≥|<|>|=)? ?(-)?(\d{1,12}(?:\.\d{1,20})?|\.\d{1,20})(?: ?(?:[eE] ?([-+]?\d{1,9})|[×xX*·] ?10 ?\^? ?([-+]?\d{1,9})))? ?(\*{1,4}|†)? ?$`, 'u');
+const CELL_P = new RegExp(String.raw`^ ?(<=|>=|≤|≥|<|>|=)? ?(-)?(\d{1,12}(?:\.\d{1,20})?|\.\d{1,20})(?: ?(?:[eE] ?([-+]?\d{1,400})|[×xX*·] ?10 ?\^? ?([-+]?\d{1,400})))? ?(\*{1,4}|†)? ?$`, 'u');
 const CELL_MEAN_SPREAD = new RegExp(String.raw`^ ?(${NUM}) ?(?:\( ?(${NUM}) ?\)|± ?(${NUM})) ?$`, 'u');
 const CELL_CI = new RegExp(String.raw`^ ?(?:(${NUM}) ?)?[(\[]? ?(${NUM}) ?(?:,|;|to|–|—| - |-(?=[.\d])) ?(${NUM}) ?[)\]]? ?$`, 'u');
 const LABELLED_T = new RegExp(String.raw`^ ?[tT] ?= ?(${NUM}) ?$`, 'u');

@@ -1,4 +1,5 @@
 import type { Nodes, Parent, PhrasingContent, Root, RootContent, Table } from 'mdast';
+import type { Point } from 'unist';
 import remarkFrontmatter from 'remark-frontmatter';
 import remarkGfm from 'remark-gfm';
 import remarkMath from 'remark-math';
@@ -15,6 +16,7 @@ import { markLegends } from './legends.js';
 import { defuseDenseMarkup } from './depth.js';
 import { LAZY_LIMIT, QUOTE_LIMIT, SETEXT_LIMIT, defuseSlowShapes, joinLongParagraphs, type SlowShape } from './shapes.js';
 import { BULK_CHUNK_ROWS, BULK_MIN_ROWS, blankRuns, findBulkRuns, plainCells, type BulkRun } from './bulkTable.js';
+import { PLAIN_MIN_GROUPS, findPlainRuns, lineShift, plainGroupText, standInRuns, type PlainRun } from './plainRuns.js';
 import type { Directive, FrontMatter, ParsedDocument, ReadNote, Segment, SegmentKind, TablePlace } from './types.js';
 
 const processor = unified().use(remarkParse).use(remarkGfm).use(remarkFrontmatter, ['yaml']).use(remarkMath);
@@ -62,6 +64,11 @@ export interface MarkdownOptions {
    * joinLongParagraphs). `Infinity` turns that off (the tests compare both readings).
    */
   paragraphLines?: number;
+  /**
+   * Runs of at least this many plain paragraphs are read here rather than by the Markdown
+   * parser (same segments; see plainRuns.ts). `Infinity` turns that off (the tests compare both).
+   */
+  plainGroups?: number;
 }
 
 /**
@@ -132,8 +139,8 @@ function slowShapeMessage(s: SlowShape): string {
 }
 
 function walk(text: string, shift: number, options: MarkdownOptions, minRows: number, parser: { parse(text: string): unknown }): Walker {
-  const { tree, runs } = parseWithBulkRuns(text, minRows, parser);
-  const walker = new Walker(text, shift, options, runs);
+  const { tree, runs, plain, lineOf } = parseWithBulkRuns(text, minRows, parser, options.plainGroups ?? PLAIN_MIN_GROUPS);
+  const walker = new Walker(text, shift, options, runs, plain, lineOf);
   walker.walkBlocks(tree.children);
   walker.finishHtml();
   markLegends(walker.segments, text, shift);
@@ -145,27 +152,39 @@ function walk(text: string, shift: number, options: MarkdownOptions, minRows: nu
  * tail of a table (a run inside a fenced block or raw HTML is put back and the text parsed
  * again; after two rounds of that, every run is put back).
  */
-export function parseWithBulkRuns(text: string, minRows: number, parser: { parse(text: string): unknown } = processor): { tree: Root; runs: Map<number, BulkRun> } {
+export function parseWithBulkRuns(text: string, minRows: number, parser: { parse(text: string): unknown } = processor, minGroups = PLAIN_MIN_GROUPS): { tree: Root; runs: Map<number, BulkRun>; plain: Map<number, PlainRun>; lineOf: (point: Point) => number } {
   let runs = findBulkRuns(text, minRows);
+  // plain lines hold no `|`, so no plain run shares a line with a table run
+  let plain = findPlainRuns(text, minGroups);
   for (let round = 0; ; round += 1) {
-    const tree = parser.parse(blankRuns(text, runs)) as Root;
-    if (runs.length === 0) return { tree, runs: new Map() };
-    const tables = tablesByEndLine(tree);
+    const tree = parser.parse(standInRuns(blankRuns(text, runs), plain)) as Root;
+    // the parser's line numbers, in lines of `text` (a plain run's line endings are not parsed)
+    const shifted = lineShift(text, plain);
+    const lineOf = (point: Point): number => point.line + shifted(point.offset as number);
+    if (runs.length === 0 && plain.length === 0) return { tree, runs: new Map(), plain: new Map(), lineOf };
+    const tables = tablesByEndLine(tree, lineOf);
     const confirmed = runs.filter((run) => {
       const t = tables.get(run.lastKeptLine);
       const last = t?.table.children.at(-1);
-      return t !== undefined && last?.position?.start.line === run.lastKeptLine && (t.atRoot ? run.shallow : run.prefix !== undefined);
+      return t !== undefined && last?.position !== undefined && lineOf(last.position.start) === run.lastKeptLine && (t.atRoot ? run.shallow : run.prefix !== undefined);
     });
-    if (confirmed.length === runs.length) return { tree, runs: new Map(runs.map((r) => [r.lastKeptLine, r])) };
+    // a plain run's stand-in must be a paragraph at the top level, starting where the run starts
+    const rootParagraphs = new Set<number>();
+    for (const node of tree.children) if (node.type === 'paragraph' && node.position) rootParagraphs.add(node.position.start.offset as number);
+    const plainConfirmed = plain.filter((run) => rootParagraphs.has(run.start));
+    if (confirmed.length === runs.length && plainConfirmed.length === plain.length) {
+      return { tree, runs: new Map(runs.map((r) => [r.lastKeptLine, r])), plain: new Map(plain.map((r) => [r.start, r])), lineOf };
+    }
     runs = round >= 1 ? [] : confirmed;
+    plain = round >= 1 ? [] : plainConfirmed;
   }
 }
 
-function tablesByEndLine(tree: Root): Map<number, { table: Table; atRoot: boolean }> {
+function tablesByEndLine(tree: Root, lineOf: (point: Point) => number): Map<number, { table: Table; atRoot: boolean }> {
   const found = new Map<number, { table: Table; atRoot: boolean }>();
   const visit = (nodes: readonly RootContent[], atRoot: boolean): void => {
     for (const node of nodes) {
-      if (node.type === 'table' && node.position) found.set(node.position.end.line, { table: node, atRoot });
+      if (node.type === 'table' && node.position) found.set(lineOf(node.position.end), { table: node, atRoot });
       else if (node.type === 'blockquote' || node.type === 'list' || node.type === 'listItem' || node.type === 'footnoteDefinition') {
         visit(node.children as RootContent[], false);
       }
@@ -196,6 +215,8 @@ class Walker {
     private shift: number,
     private readonly options: MarkdownOptions,
     private readonly bulk: ReadonlyMap<number, BulkRun> = new Map(),
+    private readonly plain: ReadonlyMap<number, PlainRun> = new Map(),
+    private readonly lineOf: (point: Point) => number = (point) => point.line,
   ) {
     this.html = new HtmlTableReader(src, () => this.tables++, (part) => this.htmlPart(part));
   }
@@ -234,9 +255,22 @@ class Walker {
     // an HTML table goes on across HTML blocks only (a blank line ends each)
     if (node.type !== 'html' && this.html.open) this.html.finish();
     switch (node.type) {
-      case 'paragraph':
+      case 'paragraph': {
+        // a top-level stand-in for a run of plain paragraphs (plainRuns.ts): read them here
+        const run = node.position ? this.plain.get(node.position.start.offset as number) : undefined;
+        if (run) {
+          for (const group of run.groups) {
+            const text = new MappedText();
+            const first = group.lines[0] as { start: number };
+            const last = group.lines[group.lines.length - 1] as { end: number };
+            text.pushAligned(plainGroupText(this.src, group), this.src, first.start, last.end);
+            this.emit('paragraph', text, this.startBlock());
+          }
+          return;
+        }
         this.phrasingSegment('paragraph', node.children, this.startBlock(), undefined, node);
         return;
+      }
       case 'heading': {
         const seg = this.phrasingSegment('heading', node.children, this.startBlock(), undefined, node);
         this.section = seg?.text.trim() || this.section;
@@ -256,7 +290,7 @@ class Walker {
             this.phrasingSegment('tableCell', cell.children, this.startBlock(), { table, row: r, column: c }, cell);
           });
         });
-        const run = node.position ? this.bulk.get(node.position.end.line) : undefined;
+        const run = node.position ? this.bulk.get(this.lineOf(node.position.end)) : undefined;
         if (run) this.bulkRows(run, table, node.children.length);
         return;
       }

@@ -40,6 +40,31 @@ export interface PEvaluation {
 /** Below this a p is compared as log10 p: a double's precision thins out near its smallest values. */
 const LOG_SCALE_BELOW = -300;
 
+/**
+ * The df from which a p is no longer recomputed: the t distribution's tail here is checked
+ * against mpmath for df up to 1e6 (fixtures/reference/t-tail.json, t-log-tail.json), and dfs
+ * of nine digits were all the extractor read before; a df of ten digits or more is read, not
+ * recomputed.
+ */
+export const DF_RECOMPUTED_BELOW = 1e9;
+
+/**
+ * Why a result's p is not recomputed from its t and df although all three are printed: a df of
+ * ten digits or more (or beyond a double), or a p whose exponent has more digits than a double
+ * holds exactly (`p = 1e-12345678901234567`). Undefined when nothing stands in the way.
+ */
+export function notRecomputed(result: LinkedResult): string | undefined {
+  const r = result.report;
+  if (!r.p || !r.df || r.p.adjusted) return undefined;
+  const df = r.df.value;
+  if (!Number.isFinite(df) || Math.abs(df) >= DF_RECOMPUTED_BELOW) {
+    return `a df of ${r.df.printed.trim()} is beyond the dfs for which plumbline computes the t distribution (below ${DF_RECOMPUTED_BELOW.toLocaleString('en-US')})`;
+  }
+  const n = r.p.kind === 'value' ? r.p.number : undefined;
+  if (n && !Number.isSafeInteger(n.exponent)) return `the exponent of p = ${n.printed.trim()} has more digits than a double holds exactly`;
+  return undefined;
+}
+
 /** Assumption wording for a result's tails, saying where it came from. */
 export function describeTails(result: LinkedResult): string {
   const where = {
@@ -68,9 +93,10 @@ export function evaluateP(result: LinkedResult): PEvaluation | undefined {
   if (n && (n.value > 1 || n.value < 0 || Object.is(n.value, -0) || (n.value === 0 && !n.beyondDouble && (r.p.op === '<' || r.p.op === '<=')))) return undefined;
   const [dfLow, dfHigh] = dfInterval(r.df);
   if (!(dfLow > 0) || Number.isNaN(dfHigh)) return undefined;
-  // a df beyond the double range (`t(1e400)`) is no df any computation here takes: its p is not
-  // recomputed (no finding can rest on it); values-are-possible and df-follows-from-n still read it
-  if (!Number.isFinite(dfHigh)) return undefined;
+  // a df of ten digits or more (`t(12345678901)`, `t(1e400)`), or a p whose exponent no double
+  // holds exactly, is not recomputed (no finding can rest on it; p-follows-from-t says so in a
+  // note, see notRecomputed); values-are-possible and df-follows-from-n still read them
+  if (notRecomputed(result) !== undefined) return undefined;
   const [tLow, tHigh] = tInterval(r);
   if (Number.isNaN(tLow) || Number.isNaN(tHigh)) return undefined;
   const alpha = result.alpha.value;

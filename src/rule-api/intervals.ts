@@ -33,8 +33,20 @@ export function numberLog10Interval(n: ReportedNumber): [number, number] {
   return [Math.log10(Math.max(0, lo)) + n.exponent, Math.log10(hi) + n.exponent];
 }
 
-/** pInterval on the scale of log10 p (for a p beyond or near the edge of the double range). */
+/**
+ * pInterval on the scale of log10 p (for a p beyond or near the edge of the double range). Where
+ * log10 p is large (`p = 1e-12345678901`: −12345678901), a double holds it only to some units in
+ * its last place, and so does the recomputed side: the interval is widened by 16 of those units
+ * (|log10 p| · 2^−48: 4e-5 at ten digits, nothing at the usual sizes) so that no finding rests
+ * on the last bits of a double.
+ */
 export function pLog10Interval(p: ReportedP, alpha: number): PInterval {
+  const i = pLog10IntervalAsPrinted(p, alpha);
+  const slack = (x: number) => (Number.isFinite(x) ? Math.abs(x) * 2 ** -48 : 0);
+  return { ...i, low: i.low - slack(i.low), high: Math.min(0, i.high + slack(i.high)) };
+}
+
+function pLog10IntervalAsPrinted(p: ReportedP, alpha: number): PInterval {
   if (p.kind === 'ns' || !p.number) return { low: Math.log10(alpha), high: 0, lowOpen: false, highOpen: false };
   const v = log10Of(p.number);
   switch (p.op) {

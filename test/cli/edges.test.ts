@@ -5,11 +5,15 @@
  * or not, the value comes from mpmath at 60 digits (fixtures/reference/t-log-tail.json,
  * scripts/make_t_log_reference.py) unless it says otherwise.
  */
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { Ajv2020 } from 'ajv/dist/2020.js';
 import { describe, expect, it } from 'vitest';
 import { cli } from './harness.js';
+
+// every report is checked against the JSON report's own schema (schema/report.schema.json, with ajv from npm)
+const reportSchema = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
 
 interface Finding { ruleId: string; messageId: string; start: { line: number; column: number }; gap?: Record<string, unknown> }
 interface Json { summary: { results: number }; files: Array<{ results: Array<{ t: { value: number; log10?: number }; p?: { number?: { value: number; log10?: number } } }>; findings: Finding[] }> }
@@ -19,7 +23,9 @@ async function check(name: string, bytes: string | Buffer): Promise<Json> {
   writeFileSync(join(dir, name), bytes);
   const out = await cli([name, '-f', 'json'], { cwd: dir });
   expect(out.stderr).toBe('');
-  return JSON.parse(out.stdout) as Json;
+  const json: unknown = JSON.parse(out.stdout);
+  expect(reportSchema(json), JSON.stringify(reportSchema.errors)).toBe(true);
+  return json as Json;
 }
 const found = (r: Json) => (r.files[0]?.findings ?? []).map((f) => `${f.start.line}:${f.start.column} ${f.ruleId}/${f.messageId}`);
 
@@ -51,13 +57,30 @@ const rows: Row[] = [
   { name: 'a t of 2e1000 with p < .001 fits', text: 'The groups differed, t(28) = 2e1000, p < .001.\n', results: 1, expect: [] },
   // t(28) = 2.10 gives p = 0.0449 (scipy.stats.t.sf, doubled): 1e-4000 is a true finding, read as 1e-4000, not 1e-400
   { name: 'p = 1e-4000 is read whole', text: 'The groups differed, t(28) = 2.10, p = 1e-4000.\n', results: 1, expect: ['1:22 p-follows-from-t/mismatch'] },
-  { name: 'an exponent of ten digits is not read in part: that p is not read (the result gets the note for a missing p)', text: 'The groups differed, t(10) = 2.50, p = 1e-4000000000.\n', results: 1, expect: ['1:22 result-is-complete/p-missing'] },
+  // exponents of ten digits and more (issue 18): read whole, compared in log space. t(10) = 2.50
+  // gives p of about .031 (scipy.stats.t.sf, doubled, from memory of its order): a true finding
+  { name: 'an exponent of ten digits is read whole: p = 1e-4000000000 against t(10) = 2.50 is a true finding', text: 'The groups differed, t(10) = 2.50, p = 1e-4000000000.\n', results: 1, expect: ['1:22 p-follows-from-t/mismatch'] },
+  { name: 'p = 1e-12345678901 (eleven digits) is read whole, and against t(10) = 2.50 is a true finding', text: 'The groups differed, t(10) = 2.50, p = 1e-12345678901.\n', results: 1, expect: ['1:22 p-follows-from-t/mismatch'] },
+  // t(28) = 1e357142857 stands for 0.5e357142857 to 1.5e357142857: log10 p from −9999999981.50 to
+  // −9999999968.14 (mpmath at 60 digits, the large-t tail 2·C·df^((df+1)/2)·|t|^(−df)/df, whose
+  // relative error df/t² is below 10^-700000000 there)
+  { name: 'a p with a ten-digit exponent that fits its t is accepted (log space, no false finding)', text: 'The groups differed, t(28) = 1e357142857, p = 1e-9999999975.\n', results: 1, expect: [] },
+  { name: 'a p < bound with a ten-digit exponent that the t meets is accepted', text: 'The groups differed, t(28) = 1e357142857, p < 1e-9999999960.\n', results: 1, expect: [] },
+  { name: 'a p with a ten-digit exponent outside its t\'s range is a true finding', text: 'The groups differed, t(28) = 1e357142857, p = 1e-9999999990.\n', results: 1, expect: ['1:22 p-follows-from-t/mismatch'] },
+  { name: 'a p written 10^-12345678901 is read whole too', text: 'The groups differed, t(10) = 2.50, p = 10^-12345678901.\n', results: 1, expect: ['1:22 p-follows-from-t/mismatch'] },
+  { name: 'an exponent of more digits than a double holds exactly is read, and its p left with a note', text: 'The groups differed, t(10) = 2.50, p = 1e-123456789012345678.\n', results: 1, expect: ['1:22 p-follows-from-t/not-recomputed'] },
+  { name: 'an exponent of 401 digits is not read in part: that p is not read (the result gets the note for a missing p)', text: `The groups differed, t(10) = 2.50, p = 1e-${'4'.repeat(401)}.\n`, results: 1, expect: ['1:22 result-is-complete/p-missing'] },
   { name: 'a t with an exponent of ten digits is not read as its mantissa', text: 'The groups differed, t(28) = 2e1000000000, p < .001.\n', results: 0, expect: [] },
   // t(df) for df beyond a double: no df any computation takes, so no recomputed p and no finding
   // resting on one (with a real df of 10^400, t = 2.10 gives the normal's p = .0357 and .20 would not fit)
-  { name: 'a df of 1e400 gives no false finding', text: 'The groups differed, t(1e400) = 2.10, p = .036.\n', results: 1, expect: [] },
-  { name: 'a df of 1e400 gives no finding at all about its p, which cannot be recomputed', text: 'The groups differed, t(1e400) = 2.10, p = .20.\n', results: 1, expect: [] },
-  { name: 'a df of 400 digits is no df read (never read in part), and gives no finding', text: `The groups differed, t(1${'0'.repeat(399)}) = 2.10, p = .20.\n`, results: 0, expect: [] },
+  { name: 'a df of 1e400 gives no false finding, only the note that its p was not recomputed', text: 'The groups differed, t(1e400) = 2.10, p = .036.\n', results: 1, expect: ['1:22 p-follows-from-t/not-recomputed'] },
+  { name: 'a df of 1e400 gives no finding about its p, which cannot be recomputed, only the note', text: 'The groups differed, t(1e400) = 2.10, p = .20.\n', results: 1, expect: ['1:22 p-follows-from-t/not-recomputed'] },
+  // dfs of ten digits and more (issue 18): read, not recomputed, said in a note
+  { name: 'a df of ten digits is read, and its p is left with a note', text: 'The groups differed, t(1234567890) = 2.10, p = .20.\n', results: 1, expect: ['1:22 p-follows-from-t/not-recomputed'] },
+  { name: 'a df of eleven digits given as df = … is read too', text: 'The groups differed, t = 2.10, df = 12345678901, p = .036.\n', results: 1, expect: ['1:22 p-follows-from-t/not-recomputed'] },
+  { name: 'a df of nine digits is still recomputed (t(123456789) = 2.10: normal p .0357, scipy.stats.norm.sf doubled, from memory)', text: 'The groups differed, t(123456789) = 2.10, p = .036.\n', results: 1, expect: [] },
+  { name: 'a df of 400 digits is read whole, and its p left with a note', text: `The groups differed, t(1${'0'.repeat(399)}) = 2.10, p = .20.\n`, results: 1, expect: ['1:22 p-follows-from-t/not-recomputed'] },
+  { name: 'a df of 401 digits is no df read (never read in part), and gives no finding', text: `The groups differed, t(1${'0'.repeat(400)}) = 2.10, p = .20.\n`, results: 0, expect: [] },
 ];
 
 // a table's p column has a pattern of its own (src/extract/tables.ts): the same edges through it
