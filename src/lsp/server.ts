@@ -174,6 +174,7 @@ export function serve(budget: Budget = SERVER_BUDGET, input: NodeJS.ReadableStre
     timers.delete(e.document.uri);
     published.delete(e.document.uri);
     opened.delete(e.document.uri);
+    checker.forget(e.document.uri);
     void connection.sendDiagnostics({ uri: e.document.uri, diagnostics: [] });
   });
 
