@@ -34,6 +34,9 @@ interface Published {
   version: number;
   snapshot: TextDocument;
   report: FileReport;
+  /** The path and options it was checked with (a quiet comment is tried with the same). */
+  path: string;
+  options: CheckOptions;
 }
 
 /** Severity as the configuration sets it: error, warning, note → information. */
@@ -128,7 +131,7 @@ export function serve(budget: Budget = SERVER_BUDGET, input: NodeJS.ReadableStre
         return;
       }
       if (publishIfCurrent(uri, snapshot, outcome.report.findings.map((f) => diagnostic(f, snapshot))))
-        published.set(uri, { version: snapshot.version, snapshot, report: outcome.report });
+        published.set(uri, { version: snapshot.version, snapshot, report: outcome.report, path, options });
     } finally {
       const again = running.get(uri)?.again === true;
       running.delete(uri);
@@ -175,6 +178,7 @@ export function serve(budget: Budget = SERVER_BUDGET, input: NodeJS.ReadableStre
     published.delete(e.document.uri);
     opened.delete(e.document.uri);
     checker.forget(e.document.uri);
+    checker.forget(`${e.document.uri}#quiet`);
     void connection.sendDiagnostics({ uri: e.document.uri, diagnostics: [] });
   });
 
@@ -194,7 +198,7 @@ export function serve(budget: Budget = SERVER_BUDGET, input: NodeJS.ReadableStre
     return { contents: { kind: 'markdown', value: hoverText(r) }, range: { start: p.snapshot.positionAt(r.span.start), end: p.snapshot.positionAt(r.span.end) } };
   });
 
-  connection.onCodeAction(({ textDocument, range }) => {
+  connection.onCodeAction(async ({ textDocument, range }) => {
     const p = current(textDocument.uri);
     if (!p) return [];
     const from = p.snapshot.offsetAt(range.start);
@@ -213,13 +217,16 @@ export function serve(budget: Budget = SERVER_BUDGET, input: NodeJS.ReadableStre
         }
       }
       if (f.ruleId !== 'quiet-directive-has-reason') {
-        const at = quietCommentAt(text, f.scope === 'document' ? 0 : f.span.start);
-        const pos = at === undefined ? undefined : p.snapshot.positionAt(at);
-        if (pos) actions.push({
+        const place = await quietEdit(text, p.report.findings, f, p.report.format, async (filled) => {
+          const outcome = await checker.check({ key: `${textDocument.uri}#quiet`, path: p.path, source: filled, options: p.options });
+          return 'report' in outcome ? outcome.report : undefined;
+        });
+        const pos = place && p.snapshot.positionAt(place.at);
+        if (place && pos) actions.push({
           title: `Add a quiet comment for ${f.ruleId} (then write its reason after the colon)`,
           kind: CodeActionKind.QuickFix,
           diagnostics: [d],
-          edit: { documentChanges: [{ textDocument: { uri: textDocument.uri, version: p.version }, edits: [{ range: { start: pos, end: pos }, newText: `<!-- plumbline quiet ${f.ruleId}: -->\n` }] }] },
+          edit: { documentChanges: [{ textDocument: { uri: textDocument.uri, version: p.version }, edits: [{ range: { start: pos, end: pos }, newText: place.text }] }] },
         });
       }
       if (!explained.has(f.ruleId)) {
@@ -265,22 +272,93 @@ export function blockStart(text: string, offset: number): number {
   return lineStart;
 }
 
+/** A place a quiet comment may go, and the comment as written there (`REASON` marks where its reason goes). */
+export interface QuietPlace {
+  at: number;
+  text: string;
+}
+
+/** A line's container marks (block-quote `>`, list markers, their spaces) before its content. */
+const CONTAINER_PREFIX = /^(?:[ \t]{0,3}(?:>[ \t]?|[-+*][ \t]+|[0-9]{1,9}[.)][ \t]+))*/;
+/** A list marker in such a prefix. */
+const LIST_MARK = /[-+*]|[0-9][.)]/;
+const LIST_MARKS = /[-+*]|[0-9]{1,9}[.)]/g;
+
 /**
- * Where a quiet comment for the finding at `offset` goes, when a comment there silences it: above
- * a paragraph or a block quote. Not for a list item or a table row, where a comment above the
- * block does not reach the item (a comment inside one is for the author to place).
+ * Where a quiet comment for a finding at `offset` might go, most likely first; which of them
+ * reaches the finding's block is for the engine to say (quietEdit checks each). Markdown: above
+ * the paragraph (after the blank line above it); on a line of its own at the start of a list
+ * item's or quoted paragraph's content, the next line continued with the item's indentation or
+ * the quote's marks; in a table, at the end of the cell before the finding's cell (a comment
+ * applies to the block after it, and each cell is one). LaTeX: a `%` line above the paragraph.
+ * Plain text has no comments.
  */
-export function quietCommentAt(text: string, offset: number): number | undefined {
-  const at = blockStart(text, offset);
-  let i = at;
-  while (text[i] === ' ') i += 1;
-  if (i - at >= 4) return undefined; // indented code
-  const c = text[i] ?? '';
-  if (c === '|' || c === '-' || c === '+' || c === '*') return undefined;
-  let j = i;
-  while ((text[j] ?? '') >= '0' && (text[j] ?? '') <= '9') j += 1;
-  if (j > i && (text[j] === '.' || text[j] === ')')) return undefined;
-  return at;
+export function quietPlaces(text: string, offset: number, format: 'markdown' | 'latex' | 'text'): QuietPlace[] {
+  if (format === 'text') return [];
+  const start = blockStart(text, offset);
+  if (format === 'latex') return [{ at: start, text: '% plumbline quiet RULE: REASON\n' }];
+  const places: QuietPlace[] = [];
+  const prefixAt = (lineStart: number) => CONTAINER_PREFIX.exec(text.slice(lineStart, ((e) => (e < 0 ? text.length : e))(text.indexOf('\n', lineStart))))?.[0] ?? '';
+  let indent = 0;
+  while (text[start + indent] === ' ') indent += 1;
+  if (prefixAt(start).trim() === '' && indent < 4) places.push({ at: start, text: '<!-- plumbline quiet RULE: REASON -->\n' });
+  // the first line of the finding's list item or quoted paragraph: up from its line to one with a list marker
+  let first = text.lastIndexOf('\n', offset - 1) + 1;
+  while (first > start && !LIST_MARK.test(prefixAt(first))) first = text.lastIndexOf('\n', first - 2) + 1;
+  const prefix = prefixAt(first);
+  if (prefix.trim() !== '') {
+    // the item's content column in spaces, the quote's marks kept
+    const continued = prefix.replace(LIST_MARKS, (m) => ' '.repeat(m.length));
+    places.push({ at: first + prefix.length, text: `<!-- plumbline quiet RULE: REASON -->\n${continued}` });
+  }
+  // a table row: the end of a cell before the finding (the one whose block the finding has is
+  // not known here: nearest first), and for the row's first cell, the end of the row above
+  const line = text.lastIndexOf('\n', offset - 1) + 1;
+  const rowStart = line + (/^[ \t>]*/.exec(text.slice(line, offset))?.[0].length ?? 0);
+  for (let pipe = text.lastIndexOf('|', offset - 1); pipe >= line; pipe = text.lastIndexOf('|', pipe - 1)) {
+    if (pipe > rowStart) places.push({ at: pipe, text: `${text[pipe - 1] === ' ' ? '' : ' '}<!-- plumbline quiet RULE: REASON --> ` });
+    else if (line > 0) {
+      const above = text.lastIndexOf('\n', line - 2) + 1;
+      const trailing = text.slice(above, line - 1).trimEnd();
+      places.push({ at: above + (trailing.endsWith('|') ? trailing.length - 1 : trailing.length), text: ' <!-- plumbline quiet RULE: REASON --> ' });
+    }
+    if (pipe === 0) break;
+  }
+  return places;
+}
+
+/** What a finding is, for telling it from the others after a comment is inserted: its rule and the text it stands on. */
+const findingKey = (f: Finding, source: string) => `${f.ruleId}\u0000${source.slice(f.span.start, f.span.end)}`;
+
+/**
+ * The quiet comment for `finding` (its reason left to the author) at the first of quietPlaces
+ * that the engine confirms: with a reason written in, the document checked again loses that
+ * finding and only it. `undefined` when no place does (the action is then not offered).
+ */
+export async function quietEdit(
+  source: string,
+  findings: readonly Finding[],
+  finding: Finding,
+  format: 'markdown' | 'latex' | 'text',
+  check: (text: string) => Promise<FileReport | undefined>,
+): Promise<QuietPlace | undefined> {
+  const count = (list: readonly Finding[], text: string) => {
+    const m = new Map<string, number>();
+    for (const f of list) m.set(findingKey(f, text), (m.get(findingKey(f, text)) ?? 0) + 1);
+    return m;
+  };
+  const before = count(findings, source);
+  const target = findingKey(finding, source);
+  for (const place of quietPlaces(source, finding.scope === 'document' ? 0 : finding.span.start, format)) {
+    const comment = place.text.replace('RULE', finding.ruleId);
+    const filled = `${source.slice(0, place.at)}${comment.replace('REASON', 'reason')}${source.slice(place.at)}`;
+    const report = await check(filled);
+    if (!report) return undefined;
+    const after = count(report.findings, filled);
+    const silenced = [...before].every(([k, n]) => (after.get(k) ?? 0) === (k === target ? n - 1 : n)) && [...after.keys()].every((k) => before.has(k));
+    if (silenced) return { at: place.at, text: comment.replace(' REASON', '') };
+  }
+  return undefined;
 }
 
 export type { Connection };
