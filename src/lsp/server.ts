@@ -1,4 +1,4 @@
-import { basename, join } from 'node:path';
+import { basename, isAbsolute, join, resolve as resolvePath } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import {
   CodeAction,
@@ -14,7 +14,7 @@ import {
   type Connection,
 } from 'vscode-languageserver/node';
 import { TextDocument } from 'vscode-languageserver-textdocument';
-import { ConfigError, ConfigFinder } from '../config/index.js';
+import { ConfigError, ConfigFinder, configProblems, mergeConfig, readConfigFile, type Config } from '../config/index.js';
 import { packageRoot, rulePageUrl } from '../engine/docs.js';
 import { RULE_IDS, type CheckOptions, type FileReport, type Finding } from '../engine/index.js';
 import { landFix } from '../fix/apply.js';
@@ -37,6 +37,50 @@ interface Published {
   /** The path and options it was checked with (a quiet comment is tried with the same). */
   path: string;
   options: CheckOptions;
+}
+
+/**
+ * What an editor may set for the server, in `initializationOptions` or as the `plumbline` key of
+ * `workspace/didChangeConfiguration`'s settings: a configuration file used instead of the one
+ * found beside each manuscript (as `--config` does), configuration keys applied over the file's
+ * (front matter still wins over both), and the quiet time after a keystroke.
+ */
+export interface ClientSettings {
+  configFile?: string;
+  configuration?: Config;
+  debounceMs?: number;
+}
+
+/** The longest quiet time after a keystroke a client may set. */
+const MAX_DEBOUNCE_MS = 10_000;
+
+/**
+ * Client settings read and checked: `problems` says what is wrong (the documents are then not
+ * checked, as with a configuration file that has problems). A relative `configFile` is read from
+ * the workspace's root folder.
+ */
+export function readClientSettings(raw: unknown, root: string | undefined): { settings: ClientSettings; problems: string[] } {
+  if (raw === undefined || raw === null) return { settings: {}, problems: [] };
+  if (typeof raw !== 'object' || Array.isArray(raw)) return { settings: {}, problems: ['the settings are not an object'] };
+  const r = raw as Record<string, unknown>;
+  const problems: string[] = [];
+  const settings: ClientSettings = {};
+  for (const key of Object.keys(r)) if (key !== 'configFile' && key !== 'configuration' && key !== 'debounceMs') problems.push(`unknown setting "${key}" (known: configFile, configuration, debounceMs)`);
+  if (r.configFile !== undefined) {
+    if (typeof r.configFile !== 'string' || r.configFile === '') problems.push('"configFile" must be a path');
+    else if (!isAbsolute(r.configFile) && root === undefined) problems.push(`"configFile" ${r.configFile} is relative and the workspace has no root folder`);
+    else settings.configFile = isAbsolute(r.configFile) ? r.configFile : resolvePath(root as string, r.configFile);
+  }
+  if (r.configuration !== undefined) {
+    const found = configProblems(r.configuration, RULE_IDS);
+    if (found.length > 0) problems.push(...found.map((m) => `"configuration": ${m}`));
+    else settings.configuration = r.configuration as Config;
+  }
+  if (r.debounceMs !== undefined) {
+    if (typeof r.debounceMs !== 'number' || !Number.isInteger(r.debounceMs) || r.debounceMs < 0 || r.debounceMs > MAX_DEBOUNCE_MS) problems.push(`"debounceMs" must be a whole number of milliseconds from 0 to ${MAX_DEBOUNCE_MS}`);
+    else settings.debounceMs = r.debounceMs;
+  }
+  return { settings, problems };
 }
 
 /** Severity as the configuration sets it: error, warning, note → information. */
@@ -68,10 +112,16 @@ export function serve(budget: Budget = SERVER_BUDGET, input: NodeJS.ReadableStre
   const running = new Map<string, { again: boolean }>();
   let watchRegistration = false;
   let showDocument = false;
+  let root: string | undefined;
+  let client: { settings: ClientSettings; problems: string[] } = { settings: {}, problems: [] };
+  const debounce = () => client.settings.debounceMs ?? DEBOUNCE_MS;
 
   connection.onInitialize((params) => {
     watchRegistration = params.capabilities.workspace?.didChangeWatchedFiles?.dynamicRegistration === true;
     showDocument = params.capabilities.window?.showDocument?.support === true;
+    const rootUri = params.workspaceFolders?.[0]?.uri ?? params.rootUri ?? undefined;
+    root = rootUri?.startsWith('file:') ? fileURLToPath(rootUri) : undefined;
+    client = readClientSettings(params.initializationOptions, root);
     return {
       capabilities: {
         textDocumentSync: { openClose: true, change: TextDocumentSyncKind.Incremental, save: { includeText: false } },
@@ -85,9 +135,19 @@ export function serve(budget: Budget = SERVER_BUDGET, input: NodeJS.ReadableStre
   connection.onInitialized(() => {
     // configuration files are read afresh on every check; a change to one re-checks what is open
     if (watchRegistration)
-      void connection.client.register(DidChangeWatchedFilesNotification.type, { watchers: ['.plumbline.json', '.plumbline.yaml', '.plumbline.yml'].map((n) => ({ globPattern: `**/${n}` })) });
+      void connection.client.register(DidChangeWatchedFilesNotification.type, {
+        watchers: [...['.plumbline.json', '.plumbline.yaml', '.plumbline.yml'].map((n) => ({ globPattern: `**/${n}` })), ...(client.settings.configFile ? [{ globPattern: client.settings.configFile }] : [])],
+      });
   });
   connection.onDidChangeWatchedFiles(() => {
+    for (const d of documents.all()) schedule(d.uri, 0);
+  });
+  // settings changed in the editor: read again, and every open document checked again with them
+  connection.onDidChangeConfiguration(({ settings }) => {
+    const own = typeof settings === 'object' && settings !== null && 'plumbline' in settings ? (settings as { plumbline: unknown }).plumbline : undefined;
+    client = readClientSettings(own, root);
+    if (watchRegistration && client.settings.configFile)
+      void connection.client.register(DidChangeWatchedFilesNotification.type, { watchers: [{ globPattern: client.settings.configFile }] });
     for (const d of documents.all()) schedule(d.uri, 0);
   });
 
@@ -114,16 +174,23 @@ export function serve(budget: Budget = SERVER_BUDGET, input: NodeJS.ReadableStre
     try {
       const snapshot = TextDocument.create(uri, doc.languageId, doc.version, doc.getText());
       const { path, onDisk } = pathOf(uri, doc.languageId);
+      const notChecked = (why: string) =>
+        publishIfCurrent(uri, snapshot, [{ range: { start: { line: 0, character: 0 }, end: { line: 0, character: 0 } }, severity: DiagnosticSeverity.Error, source: 'plumbline', message: `Not checked: ${why}` }]);
+      if (client.problems.length > 0) {
+        notChecked(`the editor's plumbline settings: ${client.problems.join('; ')}`);
+        return;
+      }
       let options: CheckOptions = {};
-      if (onDisk) {
-        try {
-          // the configuration next to the manuscript, read afresh (a stat per folder up the tree)
-          options = { config: new ConfigFinder(RULE_IDS).forFile(path).config };
-        } catch (e) {
-          if (!(e instanceof ConfigError)) throw e;
-          publishIfCurrent(uri, snapshot, [{ range: { start: { line: 0, character: 0 }, end: { line: 0, character: 0 } }, severity: DiagnosticSeverity.Error, source: 'plumbline', message: `Not checked: ${configMessage(e)}` }]);
-          return;
-        }
+      try {
+        // the configuration file named in the settings, else the one next to the manuscript, read
+        // afresh (a stat per folder up the tree); the settings' own keys over it
+        const file = client.settings.configFile !== undefined ? readConfigFile(client.settings.configFile, RULE_IDS) : onDisk ? new ConfigFinder(RULE_IDS).forFile(path).config : undefined;
+        const config = client.settings.configuration ? mergeConfig(file ?? {}, client.settings.configuration) : file;
+        if (config) options = { config };
+      } catch (e) {
+        if (!(e instanceof ConfigError)) throw e;
+        notChecked(configMessage(e));
+        return;
       }
       const outcome = await checker.check({ key: uri, path, source: snapshot.getText(), options });
       if ('error' in outcome) {
@@ -169,7 +236,7 @@ export function serve(budget: Budget = SERVER_BUDGET, input: NodeJS.ReadableStre
   });
   documents.onDidChangeContent((e) => {
     if (opened.get(e.document.uri) === e.document.version) return;
-    schedule(e.document.uri, DEBOUNCE_MS);
+    schedule(e.document.uri, debounce());
   });
   documents.onDidSave((e) => schedule(e.document.uri, 0));
   documents.onDidClose((e) => {
