@@ -1,4 +1,4 @@
-import { basename, isAbsolute, join, resolve as resolvePath } from 'node:path';
+import { basename, dirname, isAbsolute, join, resolve as resolvePath } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import {
   CodeAction,
@@ -20,6 +20,9 @@ import { RULE_IDS, type CheckOptions, type FileReport, type Finding } from '../e
 import { landFix } from '../fix/apply.js';
 import { DEFAULT_BUDGET, type Budget } from '../cli/pool.js';
 import { configMessage } from '../cli/runner.js';
+import { IncludeFollower, realOrUndefined, type IncludedFile } from '../cli/includes.js';
+import { readManuscript } from '../cli/read.js';
+import { formatForPath } from '../engine/index.js';
 import { Checker } from './checker.js';
 import { hoverText } from './hover.js';
 
@@ -34,9 +37,9 @@ interface Published {
   version: number;
   snapshot: TextDocument;
   report: FileReport;
-  /** The path and options it was checked with (a quiet comment is tried with the same). */
+  /** The path it was checked as, and the options for a text of it (a quiet comment is tried with the same; notes placed in that text). */
   path: string;
-  options: CheckOptions;
+  optionsFor: (text: string) => CheckOptions;
 }
 
 /**
@@ -180,30 +183,97 @@ export function serve(budget: Budget = SERVER_BUDGET, input: NodeJS.ReadableStre
         notChecked(`the editor's plumbline settings: ${client.problems.join('; ')}`);
         return;
       }
-      let options: CheckOptions = {};
+      let options: CheckOptions;
       try {
-        // the configuration file named in the settings, else the one next to the manuscript, read
-        // afresh (a stat per folder up the tree); the settings' own keys over it
-        const file = client.settings.configFile !== undefined ? readConfigFile(client.settings.configFile, RULE_IDS) : onDisk ? new ConfigFinder(RULE_IDS).forFile(path).config : undefined;
-        const config = client.settings.configuration ? mergeConfig(file ?? {}, client.settings.configuration) : file;
-        if (config) options = { config };
+        options = optionsFor(path, onDisk);
       } catch (e) {
         if (!(e instanceof ConfigError)) throw e;
         notChecked(configMessage(e));
         return;
       }
+      // a LaTeX manuscript on disk: its \input and \include files, within its folder, as the command line follows them
+      const latex = onDisk && formatForPath(path) === 'latex';
+      const real = realOrUndefined(path) ?? path;
+      const follower = latex ? new IncludeFollower(dirname(path), dirname(path), new Set([real])) : undefined;
+      const base = options;
+      const withNotes = (text: string): CheckOptions => {
+        // a fresh follower: each text is followed as the first in its run
+        const notes = latex ? new IncludeFollower(dirname(path), dirname(path), new Set([real])).follow(text, [real]).notes : [];
+        return notes.length > 0 ? { ...base, readNotes: notes } : base;
+      };
+      const followed = follower?.follow(snapshot.getText(), [real]);
+      if (followed && followed.notes.length > 0) options = { ...options, readNotes: followed.notes };
       const outcome = await checker.check({ key: uri, path, source: snapshot.getText(), options });
       if ('error' in outcome) {
         connection.console.warn(`plumbline: ${basename(path)}: ${outcome.error}`);
         return;
       }
-      if (publishIfCurrent(uri, snapshot, outcome.report.findings.map((f) => diagnostic(f, snapshot))))
-        published.set(uri, { version: snapshot.version, snapshot, report: outcome.report, path, options });
+      if (publishIfCurrent(uri, snapshot, outcome.report.findings.map((f) => diagnostic(f, snapshot)))) {
+        published.set(uri, { version: snapshot.version, snapshot, report: outcome.report, path, optionsFor: withNotes });
+        if (follower && followed) await checkIncluded(uri, follower, followed.files, [real]);
+        else clearIncluded(uri, new Set());
+      }
     } finally {
       const again = running.get(uri)?.again === true;
       running.delete(uri);
       if (again) void check(uri);
     }
+  };
+
+  /** The configuration for a document: the settings' file, else the one beside it, read afresh; the settings' keys over it. */
+  const optionsFor = (path: string, onDisk: boolean): CheckOptions => {
+    const file = client.settings.configFile !== undefined ? readConfigFile(client.settings.configFile, RULE_IDS) : onDisk ? new ConfigFinder(RULE_IDS).forFile(path).config : undefined;
+    const config = client.settings.configuration ? mergeConfig(file ?? {}, client.settings.configuration) : file;
+    return config ? { config } : {};
+  };
+
+  /** The files each open LaTeX manuscript's includes led to (not open themselves), whose diagnostics the server published. */
+  const included = new Map<string, Set<string>>();
+  const clearIncluded = (uri: string, keep: ReadonlySet<string>) => {
+    for (const f of included.get(uri) ?? []) {
+      if (keep.has(f) || documents.get(f)) continue;
+      checker.forget(`include:${f}`);
+      void connection.sendDiagnostics({ uri: f, diagnostics: [] });
+    }
+    if (keep.size > 0) included.set(uri, new Set(keep));
+    else included.delete(uri);
+  };
+  /**
+   * Checks the files a LaTeX manuscript includes, read from disk, and publishes their
+   * diagnostics (with no version: they are not open). A file open in the editor is checked as
+   * the editor has it, on its own.
+   */
+  const checkIncluded = async (uri: string, follower: IncludeFollower, files: IncludedFile[], chain: string[]): Promise<void> => {
+    const seen = new Set<string>();
+    const visit = async (list: IncludedFile[], chainHere: string[]): Promise<void> => {
+      for (const f of list) {
+        const fileUri = pathToFileURL(f.absolute).href;
+        seen.add(fileUri);
+        if (documents.get(fileUri)) continue;
+        let options: CheckOptions;
+        try {
+          options = optionsFor(f.absolute, true);
+        } catch (e) {
+          if (!(e instanceof ConfigError)) throw e;
+          continue;
+        }
+        const read = readManuscript(f.absolute, options.config?.maxFileBytes);
+        if (!read.ok) {
+          connection.console.warn(`plumbline: ${f.path}: ${read.message}`);
+          continue;
+        }
+        const next = follower.follow(read.text, [...chainHere, f.real]);
+        const notes = [...read.notes, ...next.notes];
+        const outcome = await checker.check({ key: `include:${fileUri}`, path: f.absolute, source: read.text, options: notes.length > 0 ? { ...options, readNotes: notes } : options });
+        if ('report' in outcome) {
+          const snapshot = TextDocument.create(fileUri, 'latex', 0, read.text);
+          void connection.sendDiagnostics({ uri: fileUri, diagnostics: outcome.report.findings.map((x) => diagnostic(x, snapshot)) });
+        } else connection.console.warn(`plumbline: ${f.path}: ${outcome.error}`);
+        await visit(next.files, [...chainHere, f.real]);
+      }
+    };
+    await visit(files, chain);
+    clearIncluded(uri, seen);
   };
 
   /** Publish only what was computed for the document's current version: a stale result never replaces a newer one. */
@@ -246,6 +316,7 @@ export function serve(budget: Budget = SERVER_BUDGET, input: NodeJS.ReadableStre
     opened.delete(e.document.uri);
     checker.forget(e.document.uri);
     checker.forget(`${e.document.uri}#quiet`);
+    clearIncluded(e.document.uri, new Set());
     void connection.sendDiagnostics({ uri: e.document.uri, diagnostics: [] });
   });
 
@@ -285,7 +356,7 @@ export function serve(budget: Budget = SERVER_BUDGET, input: NodeJS.ReadableStre
       }
       if (f.ruleId !== 'quiet-directive-has-reason') {
         const place = await quietEdit(text, p.report.findings, f, p.report.format, async (filled) => {
-          const outcome = await checker.check({ key: `${textDocument.uri}#quiet`, path: p.path, source: filled, options: p.options });
+          const outcome = await checker.check({ key: `${textDocument.uri}#quiet`, path: p.path, source: filled, options: p.optionsFor(filled) });
           return 'report' in outcome ? outcome.report : undefined;
         });
         const pos = place && p.snapshot.positionAt(place.at);
@@ -357,13 +428,23 @@ const LIST_MARKS = /[-+*]|[0-9]{1,9}[.)]/g;
  * the paragraph (after the blank line above it); on a line of its own at the start of a list
  * item's or quoted paragraph's content, the next line continued with the item's indentation or
  * the quote's marks; in a table, at the end of the cell before the finding's cell (a comment
- * applies to the block after it, and each cell is one). LaTeX: a `%` line above the paragraph.
+ * applies to the block after it, and each cell is one). LaTeX: a `%` line above the paragraph, or
+ * above one of its first lines when commands open it.
  * Plain text has no comments.
  */
 export function quietPlaces(text: string, offset: number, format: 'markdown' | 'latex' | 'text'): QuietPlace[] {
   if (format === 'text') return [];
   const start = blockStart(text, offset);
-  if (format === 'latex') return [{ at: start, text: '% plumbline quiet RULE: REASON\n' }];
+  if (format === 'latex') {
+    // above the paragraph; where a command line (\begin{document}, \section{…}) sits right above
+    // it, the lines after that, nearest the paragraph's top first (at most five tried)
+    const places: QuietPlace[] = [];
+    for (let at = start; at <= offset && places.length < 5; at = text.indexOf('\n', at) + 1) {
+      places.push({ at, text: '% plumbline quiet RULE: REASON\n' });
+      if (text.indexOf('\n', at) < 0) break;
+    }
+    return places;
+  }
   const places: QuietPlace[] = [];
   const prefixAt = (lineStart: number) => CONTAINER_PREFIX.exec(text.slice(lineStart, ((e) => (e < 0 ? text.length : e))(text.indexOf('\n', lineStart))))?.[0] ?? '';
   let indent = 0;
