@@ -7,6 +7,7 @@ const messages = {
   'encoding-guessed': 'The encoding of this file had to be guessed: {detail}. If the guess is wrong, results may be missed or misread.',
   'invisible-removed': 'Invisible characters were removed from this file\'s text: {detail}.',
   'include-not-read': 'A file this LaTeX manuscript includes was not read: {detail}. Results in it were not checked.',
+  'macro-not-expanded': 'A command this LaTeX manuscript defines was not expanded: {detail}. A result printed through it was not checked.',
 };
 
 /** The file could be read as written: every byte decoded, the Markdown structure within the parser's limits. */
@@ -27,6 +28,15 @@ export const inputIsReadable: Rule = {
           message: messages['include-not-read'].replace('{detail}', n.message),
           reported: 'an included file',
           check: 'Check the included file on its own (name it on the command line), or move it into the manuscript\'s folder if it belongs to the manuscript.',
+        };
+      }
+      if (n.kind === 'macro-not-expanded') {
+        return {
+          messageId: 'macro-not-expanded',
+          span: n.span,
+          message: messages['macro-not-expanded'].replace('{detail}', n.message),
+          reported: 'a defined command',
+          check: 'Look at what the command prints where it is used; a result printed through it may need checking by hand.',
         };
       }
       if (n.kind === 'encoding-guessed') {

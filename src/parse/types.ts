@@ -88,7 +88,7 @@ export interface ParsedDocument {
 
 /** Something about reading the file that a user should know: the findings may be incomplete there. */
 export interface ReadNote {
-  kind: 'replaced-bytes' | 'deep-nesting' | 'parser-limit' | 'dense-markup' | 'encoding-guessed' | 'slow-shape' | 'invisible-characters' | 'include-not-read';
+  kind: 'replaced-bytes' | 'deep-nesting' | 'parser-limit' | 'dense-markup' | 'encoding-guessed' | 'slow-shape' | 'invisible-characters' | 'include-not-read' | 'macro-not-expanded';
   message: string;
   span: Span;
 }
