@@ -8,6 +8,7 @@ const messages = {
   'invisible-removed': 'Invisible characters were removed from this file\'s text: {detail}.',
   'include-not-read': 'A file this LaTeX manuscript includes was not read: {detail}. Results in it were not checked.',
   'tracked-changes-accepted': 'This Word file holds tracked changes: {detail}.',
+  'macro-not-expanded': 'A command this LaTeX manuscript defines was not expanded: {detail}. A result printed through it was not checked.',
 };
 
 /** The file could be read as written: every byte decoded, the Markdown structure within the parser's limits. */
@@ -37,6 +38,15 @@ export const inputIsReadable: Rule = {
           message: messages['tracked-changes-accepted'].replace('{detail}', n.message),
           reported: 'tracked changes',
           check: 'Accept or reject the changes in Word (Review › Accept or Reject) and check the file again if the text meant is not the text with every change accepted.',
+        };
+      }
+      if (n.kind === 'macro-not-expanded') {
+        return {
+          messageId: 'macro-not-expanded',
+          span: n.span,
+          message: messages['macro-not-expanded'].replace('{detail}', n.message),
+          reported: 'a defined command',
+          check: 'Look at what the command prints where it is used; a result printed through it may need checking by hand.',
         };
       }
       if (n.kind === 'encoding-guessed') {

@@ -1,4 +1,6 @@
-import { resolve } from 'node:path';
+import { dirname, resolve } from 'node:path';
+import { formatForPath } from '../engine/index.js';
+import { IncludeFollower, realOrUndefined } from './includes.js';
 import { StringDecoder } from 'node:string_decoder';
 import type { Readable } from 'node:stream';
 import type { CheckOptions } from '../engine/index.js';
@@ -14,6 +16,29 @@ type Id = string | number | null;
 interface Line {
   id: Id;
   job: Job | Promise<Job>;
+  /** A LaTeX manuscript's absolute path, when the line named one: its includes are followed. */
+  latex?: string;
+}
+
+/**
+ * The files a LaTeX manuscript given by path includes, within its folder, as the command line
+ * follows them (src/cli/includes.ts), each as a job of its own after it; refusals become read
+ * notes of the file whose command was refused. Each line is a run of its own: a file is read
+ * once per line.
+ */
+async function withIncludes(job: Job, absolute: string, jobFor: JobFor): Promise<Job[]> {
+  if (!('source' in job)) return [job];
+  const real = realOrUndefined(absolute) ?? absolute;
+  const follower = new IncludeFollower(dirname(absolute), dirname(job.path), new Set([real]));
+  const expand = async (j: Job, chain: string[]): Promise<Job[]> => {
+    if (!('source' in j)) return [j];
+    const { files, notes } = follower.follow(j.source, chain);
+    if (notes.length > 0) j.options = { ...j.options, readNotes: [...(j.options.readNotes ?? []), ...notes] };
+    const out: Job[] = [j];
+    for (const f of files) out.push(...(await expand(await jobFor(f.path, (max) => readManuscript(f.absolute, max), f.absolute), [...chain, f.real])));
+    return out;
+  };
+  return expand(job, [real]);
 }
 
 /**
@@ -21,7 +46,9 @@ interface Line {
  * `{"id": …, "text": …, "format"?: "markdown" | "rmarkdown" | "text" | "latex"}`. Every input line, blank
  * ones included, gives exactly one NDJSON line on standard output, in input order, as soon as it
  * is done (waiting for the stream to drain): `{"id", …report}` or `{"id", "error"}`, where `id` is
- * the path, the document's id with its JSON type, or null. Output line k answers input line k
+ * the path, the document's id with its JSON type, or null. A LaTeX manuscript's path has the
+ * files its `\input`/`\include` lead to (within its folder) checked too, listed in its line as
+ * `included` (each a report with its path, or `{"path", "error"}`). Output line k answers input line k
  * (lines end at LF; a CR before it is dropped, a lone CR is part of the line), and messages name
  * that line; no line number is written as a key, so chunks of the input checked apart (GNU
  * parallel --pipe) still join into the single run's output; with `firstLine` (--first-line) a chunk
@@ -32,6 +59,9 @@ interface Line {
  */
 export async function runBatch(io: Io, jobFor: JobFor, threads: number | 'auto', budget: Budget = DEFAULT_BUDGET, maxBytes = DEFAULT_MAX_FILE_BYTES, firstLine = 1): Promise<number> {
   const ids: Line['id'][] = [];
+  /** Per job: how many jobs its line has (on the line's first job; included files follow it). */
+  const lineJobs: number[] = [];
+  const jobPaths: string[] = [];
   let documents = 0;
   let results = 0;
   let findings = 0;
@@ -45,29 +75,51 @@ export async function runBatch(io: Io, jobFor: JobFor, threads: number | 'auto',
       n += 1;
       if (typeof raw !== 'string') {
         ids.push(null);
+        lineJobs.push(1);
+        jobPaths.push(`line ${n}`);
         yield { path: `line ${n}`, error: `line ${n}: skipped: longer than ${raw.over} characters; reading of it stopped there (the size limit, --max-file-bytes, is ${maxBytes} bytes)` };
         continue;
       }
       const line = parseLine(raw.trim(), n, io.cwd, jobFor);
-      ids.push(line.id);
-      yield await line.job;
+      const first = await line.job;
+      const jobs = line.latex ? await withIncludes(first, line.latex, jobFor) : [first];
+      for (const [k, job] of jobs.entries()) {
+        ids.push(line.id);
+        lineJobs.push(k === 0 ? jobs.length : 0);
+        jobPaths.push(job.path);
+        yield job;
+      }
     }
   }
+  // a line's outcomes: its document first, then the files it includes (held until the last is done)
+  let held: { id: Id; main: Record<string, unknown>; included: Array<Record<string, unknown>>; left: number } | undefined;
+  const write = (x: unknown) => JSON.stringify(x, (_k, v: unknown) => (typeof v === 'number' && !Number.isFinite(v) ? null : v));
   await checkAll(lines(), threads, async (o, i) => {
-    documents += 1;
-    const id = ids[i] ?? null;
-    let out: string;
+    let entry: Record<string, unknown>;
     if ('report' in o) {
       const { source: _source, ...report } = o.report;
       results += report.results.length;
       findings += report.findings.length;
       if (report.findings.some((f) => f.level === 'error')) errorLevel += 1;
-      out = JSON.stringify({ id, ...report }, (_k, v: unknown) => (typeof v === 'number' && !Number.isFinite(v) ? null : v));
+      entry = { ...report };
     } else {
       failed += 1;
-      out = JSON.stringify({ id, error: o.error });
+      entry = { error: o.error };
     }
-    await io.stdout(`${out}\n`);
+    const count = lineJobs[i] ?? 0;
+    if (count > 0) {
+      documents += 1;
+      held = { id: ids[i] ?? null, main: entry, included: [], left: count - 1 };
+    } else if (held) {
+      // an included file: named by its path, as the command line names it
+      if ('error' in entry) entry = { path: jobPaths[i], ...entry };
+      held.included.push(entry);
+      held.left -= 1;
+    }
+    if (!held || held.left > 0) return;
+    const { id, main, included } = held;
+    held = undefined;
+    await io.stdout(`${write({ id, ...main, ...(included.length > 0 ? { included } : {}) })}\n`);
   }, budget);
   io.stderr(`plumbline batch: ${documents} lines, ${results} results, ${findings} findings, ${failed} not checked\n`);
   if (failed > 0) return 2;
@@ -97,7 +149,7 @@ function parseLine(text: string, n: number, cwd: string, jobFor: JobFor): Line {
     return { id, job: jobFor(path, d.text, `${cwd}/${path}`, format) };
   }
   const path = resolve(cwd, text);
-  return { id: text, job: jobFor(text, (max) => readManuscript(path, max), path) };
+  return { id: text, job: jobFor(text, (max) => readManuscript(path, max), path), ...(formatForPath(path) === 'latex' ? { latex: path } : {}) };
 }
 
 /**

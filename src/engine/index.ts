@@ -1,10 +1,10 @@
 import type { Config } from '../config/types.js';
 import { configProblems } from '../config/validate.js';
-import { extract } from '../extract/index.js';
+import { extract, ExtractionCache } from '../extract/index.js';
 import type { ReportedNumber, ReportedP, Sidedness } from '../extract/types.js';
 import { link } from '../link/index.js';
 import type { DescriptiveLink, DocumentSettings, Linked, ResultContext, Setting } from '../link/index.js';
-import { formatForPath, LineIndex, mayHoldStatistics, parseDocument, unitAt, type InputFormat } from '../parse/index.js';
+import { formatForPath, LineIndex, mayHoldStatistics, parseDocument, reparseDocument, unitAt, type InputFormat } from '../parse/index.js';
 import type { OriginalMap, ParsedDocument, ReadNote, Span } from '../parse/types.js';
 import { evaluateP } from '../rule-api/evaluate.js';
 import { evaluateStatisticP } from '../rule-api/statistic.js';
@@ -53,17 +53,51 @@ export interface CheckOptions {
  * positions. Never throws for anything in the document itself.
  */
 export function checkSource(path: string, source: string, options: CheckOptions = {}): FileReport {
-  const doc = options.document
-    ? options.document
-    : options.prefilter === false || mayHoldStatistics(source)
-      ? parseDocument(path, source, options.format)
-      : { path, source, format: sourceFormat(options.format ?? formatForPath(path)), segments: [], directives: [], hadBom: source.charCodeAt(0) === 0xfeff };
+  return checkParsed(parseFor(path, source, options), options);
+}
+
+function parseFor(path: string, source: string, options: CheckOptions, prev?: ParsedDocument): ParsedDocument {
+  // a document a binary front end read (Word, PDF) comes parsed
+  if (options.document) return options.document;
+  if (options.prefilter !== false && !mayHoldStatistics(source))
+    return { path, source, format: sourceFormat(options.format ?? formatForPath(path)), segments: [], directives: [], hadBom: source.charCodeAt(0) === 0xfeff };
+  // the same text reads the same: nothing downstream changes a parsed document
+  if (prev?.source === source) return prev;
+  return (prev && reparseDocument(prev, source, options.format ?? formatForPath(path))) || parseDocument(path, source, options.format);
+}
+
+/**
+ * Checks one document again and again as it is edited (the language server's re-check after a
+ * keystroke): each check gives exactly what checkSource gives for the same arguments, but reads
+ * again only what an edit changed where that is certain (a paragraph re-parsed alone, the
+ * records of unchanged segments kept; see reparseDocument and ExtractionCache). Linking and the
+ * rules run over the whole document every time, since they look across paragraphs.
+ */
+export class IncrementalChecker {
+  private last: { path: string; format: InputFormat | undefined; prefilter: boolean | undefined; doc: ParsedDocument } | undefined;
+  private cache = new ExtractionCache();
+  /** How many checks re-read only the edited part (the rest parsed the whole text). */
+  rereadAlone = 0;
+
+  check(path: string, source: string, options: CheckOptions = {}): FileReport {
+    const last = this.last;
+    const same = last !== undefined && last.path === path && last.format === options.format && last.prefilter === options.prefilter;
+    if (!same) this.cache = new ExtractionCache();
+    const doc = parseFor(path, source, options, same ? last.doc : undefined);
+    if (same && doc.segments.length > 0 && doc.segments[0] === last.doc.segments[0] && doc !== last.doc) this.rereadAlone += 1;
+    this.last = { path, format: options.format, prefilter: options.prefilter, doc };
+    return checkParsed(doc, options, this.cache);
+  }
+}
+
+function checkParsed(doc: ParsedDocument, options: CheckOptions, cache?: ExtractionCache): FileReport {
+  const { path, source } = doc;
   const lines = new LineIndex(source);
   const resolved = resolveSettings(doc, options);
   const { levels, guidelines, checklistOn } = resolved;
   const readNotes = [...(options.readNotes ?? []), ...(doc.readNotes ?? [])];
   const settings = readNotes.length > 0 ? { ...resolved.settings, readNotes } : resolved.settings;
-  const extraction = extract(doc);
+  const extraction = extract(doc, cache);
   const linked = link(extraction, doc.directives, settings);
   const original = doc.original;
   const place = original

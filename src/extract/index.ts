@@ -1,4 +1,4 @@
-import type { ParsedDocument } from '../parse/types.js';
+import type { ParsedDocument, Segment } from '../parse/types.js';
 import { decimalConvention, withDecimalPoints } from './decimals.js';
 import { sentenceStarts } from './numbers.js';
 import { findStatements } from './statements.js';
@@ -21,8 +21,101 @@ import type { Extraction } from './types.js';
 export type * from './types.js';
 export { sentenceStarts } from './numbers.js';
 
+/** What the recognisers find in one segment on its own, before the passes over the whole document. */
+interface SegmentFinds {
+  legend: StarLegend | undefined;
+  tests: Extraction['tests'];
+  otherStatistics: Extraction['otherStatistics'];
+  tableDimensions: Extraction['tableDimensions'];
+  statements: Extraction['statements'];
+  summaries: Extraction['summaries'];
+  sampleSizes: Extraction['sampleSizes'];
+  groupSizes: Extraction['groupSizes'];
+  intervals: Extraction['intervals'];
+  estimates: Extraction['estimates'];
+  effectSizes: Extraction['effectSizes'];
+  designs: Extraction['designs'];
+  assignments: Extraction['assignments'];
+  references: Extraction['references'];
+  integerMeasures: Extraction['integerMeasures'];
+  counts: Extraction['counts'];
+  powerStatements: Extraction['powerStatements'];
+  mentions: Extraction['mentions'];
+  pWithoutT: Extraction['pWithoutT'];
+}
+
+/**
+ * What the recognisers found in each segment, kept for the next extraction of a document that
+ * shares segment objects with this one (an incremental re-read, see reparseDocument): a segment
+ * object is never changed once made, and what is found in it depends only on it, the decimal
+ * convention and the source at its own offsets, which an edit elsewhere leaves alone. Two
+ * passes over the whole document change t-test records in place, so the cache hands out copies
+ * of those (see fresh).
+ */
+export class ExtractionCache {
+  private readonly bySegment = new WeakMap<Segment, { convention: string; finds: SegmentFinds }>();
+
+  reuse(seg: Segment, convention: string): SegmentFinds | undefined {
+    const hit = this.bySegment.get(seg);
+    return hit && hit.convention === convention ? fresh(hit.finds) : undefined;
+  }
+
+  store(seg: Segment, convention: string, finds: SegmentFinds): void {
+    this.bySegment.set(seg, { convention, finds: fresh(finds) });
+  }
+}
+
+/**
+ * A copy of what the passes over the whole document change in place: a t-test's `table` (named
+ * by nameTableRows) and its p's `number` and `stars` (applyStarLegends). Everything else is
+ * read, never written, after the segment's own recognisers.
+ */
+function fresh(finds: SegmentFinds): SegmentFinds {
+  return { ...finds, tests: finds.tests.map((t) => (t.p ? { ...t, p: { ...t.p } } : { ...t })) };
+}
+
+function findInSegment(seg: Segment, source: string): SegmentFinds {
+  const legend = seg.kind === 'code' ? undefined : findStarLegends(seg);
+  const starts = sentenceStarts(seg.text);
+  const tests = findTTests(seg, starts);
+  // the spelling of t's sign in the source (the normaliser folds − into -): for minus-is-a-minus-sign
+  if (seg.kind !== 'code') for (const test of tests) if (!test.inCode && test.t.value < 0 && source[test.t.span.start] === '-') test.t.hyphenMinus = true;
+  if (seg.kind === 'code') {
+    return {
+      legend, tests, otherStatistics: [], tableDimensions: [], statements: [], summaries: [], sampleSizes: [], groupSizes: [], intervals: [], estimates: [], effectSizes: [],
+      designs: [], assignments: [], references: [], integerMeasures: [], counts: [], powerStatements: [], mentions: findSoftwareHeaders(seg, starts), pWithoutT: [],
+    };
+  }
+  // in the order the recognisers have always run
+  const otherStatistics = completeStatistics(seg, starts, withoutOverlap(findOtherStatistics(seg, starts), tests), tests);
+  const tableDimensions = findTableDimensions(seg, starts);
+  const statements = findStatements(seg, starts);
+  const found = findSummaries(seg, starts);
+  return {
+    legend,
+    tests,
+    otherStatistics,
+    tableDimensions,
+    statements,
+    summaries: found.summaries,
+    sampleSizes: found.sampleSizes,
+    groupSizes: found.groupSizes,
+    intervals: found.intervals,
+    estimates: found.estimates,
+    effectSizes: found.effectSizes,
+    designs: found.designs,
+    assignments: findAssignments(seg, starts),
+    references: found.references,
+    integerMeasures: findIntegerMeasures(seg, starts),
+    counts: found.counts,
+    powerStatements: findPowerStatements(seg, starts),
+    mentions: findMentions(seg, starts),
+    pWithoutT: MAY_NAME_T_TEST.test(seg.text) ? findPWithoutT(seg, starts, tests) : [],
+  };
+}
+
 /** Every reported t-test, context statement and t-less p of a parsed document, in reading order. */
-export function extract(doc: ParsedDocument): Extraction {
+export function extract(doc: ParsedDocument, cache?: ExtractionCache): Extraction {
   // Numbers are read once, under the document's decimal convention: every recogniser below
   // sees decimal points only.
   const convention = decimalConvention(doc.segments);
@@ -54,35 +147,33 @@ export function extract(doc: ParsedDocument): Extraction {
     tableMentions: [],
   };
   const legends: StarLegend[] = [];
-  for (const seg of segments) {
-    const legend = seg.kind === 'code' ? undefined : findStarLegends(seg);
-    if (legend) legends.push(legend);
-    const starts = sentenceStarts(seg.text);
-    const tests = findTTests(seg, starts);
-    // the spelling of t's sign in the source (the normaliser folds − into -): for minus-is-a-minus-sign
-    if (seg.kind !== 'code') for (const test of tests) if (!test.inCode && test.t.value < 0 && doc.source[test.t.span.start] === '-') test.t.hyphenMinus = true;
-    append(out.tests, tests);
-    if (seg.kind !== 'code') {
-      append(out.otherStatistics, completeStatistics(seg, starts, withoutOverlap(findOtherStatistics(seg, starts), tests), tests));
-      append(out.tableDimensions, findTableDimensions(seg, starts));
-      append(out.statements, findStatements(seg, starts));
-      const found = findSummaries(seg, starts);
-      append(out.summaries, found.summaries);
-      append(out.sampleSizes, found.sampleSizes);
-      append(out.groupSizes, found.groupSizes);
-      append(out.intervals, found.intervals);
-      append(out.estimates, found.estimates);
-      append(out.effectSizes, found.effectSizes);
-      append(out.designs, found.designs);
-      append(out.assignments, findAssignments(seg, starts));
-      append(out.references, found.references);
-      append(out.integerMeasures, findIntegerMeasures(seg, starts));
-      append(out.counts, found.counts);
-      append(out.powerStatements, findPowerStatements(seg, starts));
-      append(out.mentions, findMentions(seg, starts));
-      if (MAY_NAME_T_TEST.test(seg.text)) append(out.pWithoutT, findPWithoutT(seg, starts, tests));
-    } else append(out.mentions, findSoftwareHeaders(seg, starts));
-  }
+  doc.segments.forEach((original, i) => {
+    const seg = segments[i] as Segment;
+    let finds = cache?.reuse(original, convention);
+    if (!finds) {
+      finds = findInSegment(seg, doc.source);
+      cache?.store(original, convention, finds);
+    }
+    if (finds.legend) legends.push(finds.legend);
+    append(out.tests, finds.tests);
+    append(out.otherStatistics, finds.otherStatistics);
+    append(out.tableDimensions, finds.tableDimensions);
+    append(out.statements, finds.statements);
+    append(out.summaries, finds.summaries);
+    append(out.sampleSizes, finds.sampleSizes);
+    append(out.groupSizes, finds.groupSizes);
+    append(out.intervals, finds.intervals);
+    append(out.estimates, finds.estimates);
+    append(out.effectSizes, finds.effectSizes);
+    append(out.designs, finds.designs);
+    append(out.assignments, finds.assignments);
+    append(out.references, finds.references);
+    append(out.integerMeasures, finds.integerMeasures);
+    append(out.counts, finds.counts);
+    append(out.powerStatements, finds.powerStatements);
+    append(out.mentions, finds.mentions);
+    append(out.pWithoutT, finds.pWithoutT);
+  });
   for (const seg of segments) {
     if (!seg.table) continue;
     const t = out.tables.find((x) => x.table === seg.table?.table);

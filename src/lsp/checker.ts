@@ -1,6 +1,6 @@
 import { existsSync } from 'node:fs';
 import { Worker } from 'node:worker_threads';
-import { checkSource, type CheckOptions, type FileReport } from '../engine/index.js';
+import { IncrementalChecker, type CheckOptions, type FileReport } from '../engine/index.js';
 import { WORKER_FILE, type Budget } from '../cli/pool.js';
 
 /** A check asked of the checker: one document's text as of one version. */
@@ -16,6 +16,8 @@ export type CheckOutcome = { report: FileReport } | { error: string; dropped?: b
 interface Slot {
   worker?: Worker;
   ready: boolean;
+  /** Documents whose last check ran here: their last parse is kept in this worker. */
+  keys: Set<string>;
   busy?: { id: number; done: (o: CheckOutcome) => void; timer: NodeJS.Timeout };
 }
 
@@ -24,11 +26,15 @@ interface Slot {
  * (src/cli/worker.ts) under the same per-document budget: a heap limit per worker and a time
  * limit per document, past which the worker is stopped, replaced, and the check dropped. With
  * two slots, one slow document leaves the other slot to the rest. Without the compiled worker
- * (run from sources) a check runs in this thread.
+ * (run from sources) a check runs in this thread. Each document's checks go to the worker that
+ * checked it last when it is free, which keeps its last parse and re-reads only what an edit
+ * changed (IncrementalChecker); any worker gives the same result.
  */
 export class Checker {
   private readonly slots: Slot[] = [];
   private readonly queue: Array<{ request: CheckRequest; done: (o: CheckOutcome) => void }> = [];
+  /** Without workers: each document's incremental checker, in this thread. */
+  private readonly local = new Map<string, IncrementalChecker>();
   private nextId = 0;
   private readonly workerFile = WORKER_FILE;
   private closed = false;
@@ -40,7 +46,7 @@ export class Checker {
   ) {
     if (!existsSync(this.workerFile)) return;
     for (let i = 0; i < slots; i++) {
-      const slot: Slot = { ready: false };
+      const slot: Slot = { ready: false, keys: new Set() };
       this.slots.push(slot);
       this.start(slot);
     }
@@ -49,7 +55,12 @@ export class Checker {
   check(request: CheckRequest): Promise<CheckOutcome> {
     if (this.slots.length === 0) {
       try {
-        return Promise.resolve({ report: checkSource(request.path, request.source, request.options) });
+        let checker = this.local.get(request.key);
+        if (!checker) {
+          checker = new IncrementalChecker();
+          this.local.set(request.key, checker);
+        }
+        return Promise.resolve({ report: checker.check(request.path, request.source, request.options) });
       } catch (e) {
         return Promise.resolve({ error: e instanceof Error ? e.message : String(e) });
       }
@@ -58,6 +69,15 @@ export class Checker {
       this.queue.push({ request, done });
       this.pump();
     });
+  }
+
+  /** A document was closed: its last parse is dropped. */
+  forget(key: string): void {
+    this.local.delete(key);
+    for (const slot of this.slots) {
+      if (!slot.keys.delete(key)) continue;
+      slot.worker?.postMessage({ forget: key });
+    }
   }
 
   async close(): Promise<void> {
@@ -71,6 +91,7 @@ export class Checker {
     const w = new Worker(this.workerFile, { resourceLimits: { maxOldGenerationSizeMb: this.budget.memoryMb, maxYoungGenerationSizeMb: 64 } });
     slot.worker = w;
     slot.ready = false;
+    slot.keys.clear();
     w.on('message', (m: { ready?: boolean; index: number; report?: FileReport; error?: string }) => {
       if (slot.worker !== w) return;
       if (m.ready) {
@@ -102,7 +123,15 @@ export class Checker {
     for (const slot of this.slots) {
       if (this.queue.length === 0) return;
       if (!slot.ready || slot.busy) continue;
-      const { request, done } = this.queue.shift() as { request: CheckRequest; done: (o: CheckOutcome) => void };
+      // a waiting document this worker checked last, else the first waiting whose worker is busy
+      // or gone, else the first waiting
+      const free = (s: Slot) => s.ready && !s.busy;
+      let at = this.queue.findIndex((q) => slot.keys.has(q.request.key));
+      if (at < 0) at = this.queue.findIndex((q) => !this.slots.some((s) => s !== slot && s.keys.has(q.request.key) && free(s)));
+      if (at < 0) at = 0;
+      const { request, done } = this.queue.splice(at, 1)[0] as { request: CheckRequest; done: (o: CheckOutcome) => void };
+      for (const s of this.slots) if (s !== slot && s.keys.delete(request.key)) s.worker?.postMessage({ forget: request.key });
+      slot.keys.add(request.key);
       const id = this.nextId++;
       const timer = setTimeout(() => {
         if (slot.busy?.id !== id) return;
@@ -114,7 +143,7 @@ export class Checker {
         done({ error: `not checked: took longer than the time budget of ${this.budget.seconds} s`, dropped: true });
       }, this.budget.seconds * 1000);
       slot.busy = { id, done, timer };
-      slot.worker?.postMessage({ index: id, path: request.path, source: request.source, options: request.options });
+      slot.worker?.postMessage({ index: id, path: request.path, source: request.source, options: request.options, session: request.key });
     }
   }
 }

@@ -1,5 +1,5 @@
 import { parseLatex } from './latex.js';
-import { parseMarkdown } from './markdown.js';
+import { parseMarkdown, reparseEdit } from './markdown.js';
 import { parsePlainText } from './plainText.js';
 import { exceedsNesting, DEPTH_LIMIT } from './depth.js';
 import { INVISIBLE, LOOSE_MARKS } from './normalize.js';
@@ -29,6 +29,17 @@ export function formatForPath(path: string): InputFormat {
 /** Source text of a document into segments, by the format its path implies (or `format`). */
 export function parseDocument(path: string, source: string, format = formatForPath(path)): ParsedDocument {
   return withInvisibleNote(parseAs(path, source, format));
+}
+
+/**
+ * The document `source` as parseDocument reads it, re-read from `prev` (a parse of an earlier
+ * text of the same path and format) where only the edited part needs reading again; `undefined`
+ * when that cannot be done with certainty, and the whole text must be parsed (see reparseEdit).
+ */
+export function reparseDocument(prev: ParsedDocument, source: string, format: InputFormat): ParsedDocument | undefined {
+  if (format !== 'markdown' && format !== 'rmarkdown') return undefined;
+  const doc = reparseEdit(prev, source);
+  return doc && withInvisibleNote(doc);
 }
 
 function parseAs(path: string, source: string, format: ReturnType<typeof formatForPath>): ParsedDocument {

@@ -3,7 +3,7 @@ import { readDirective } from './directives.js';
 import { markLegends } from './legends.js';
 import { readMath } from './math.js';
 import { normalize } from './normalize.js';
-import type { Directive, ParsedDocument, Segment, SegmentKind, Span, TablePlace } from './types.js';
+import type { Directive, ParsedDocument, ReadNote, Segment, SegmentKind, Span, TablePlace } from './types.js';
 
 /** An `\input{…}` or `\include{…}` in the body of a LaTeX manuscript: the name as written and where. */
 export interface LatexInclude {
@@ -38,7 +38,80 @@ export function parseLatex(path: string, source: string): ParsedDocument {
   reader.read();
   markLegends(reader.segments, source);
   reader.markCaptions();
-  return { path, source, format: 'latex', segments: reader.segments, directives: reader.finishDirectives(), hadBom: source.charCodeAt(0) === 0xfeff };
+  return {
+    path,
+    source,
+    format: 'latex',
+    segments: reader.segments,
+    directives: reader.finishDirectives(),
+    hadBom: source.charCodeAt(0) === 0xfeff,
+    ...(reader.notes.length > 0 ? { readNotes: reader.notes } : {}),
+  };
+}
+
+/** `\newcommand`, `\renewcommand`, `\providecommand` (and their starred forms). */
+const DEFINITION = /\\(?:(?:re)?newcommand|providecommand)(?![A-Za-z])\*?/g;
+/** A body that prints as it is written: no command, group, math, comment, parameter, tie, script or line break. */
+const PLAIN_BODY = /^[^\\{}$%#&~^_\n\r]*$/;
+/** Definitions read at most (a manuscript has a few dozen). */
+const MACRO_LIMIT = 2000;
+
+/** A command a manuscript defines: where, and what it prints when it takes no argument and its body is plain text. */
+interface Macro {
+  at: number;
+  /** The body, when it can be printed in place; otherwise why it is not. */
+  body: string | undefined;
+  why?: string;
+}
+
+/**
+ * The commands the source defines with `\newcommand` and kin (outside comments, preamble
+ * included), by name, in source order. One pass: the comment state is carried along the text
+ * between definitions, so each character is looked at once.
+ */
+function readMacros(src: string): Map<string, Macro[]> {
+  const macros = new Map<string, Macro[]>();
+  let scanned = 0;
+  let inComment = false;
+  let count = 0;
+  DEFINITION.lastIndex = 0;
+  for (let m = DEFINITION.exec(src); m && count < MACRO_LIMIT; m = DEFINITION.exec(src)) {
+    for (; scanned < m.index; scanned += 1) {
+      const c = src[scanned];
+      if (c === '\n' || c === '\r') inComment = false;
+      else if (c === '\\') scanned += 1;
+      else if (c === '%') inComment = true;
+    }
+    if (inComment || scanned > m.index) continue; // in a comment, or the backslash was escaped
+    let k = skipBlanks(src, m.index + m[0].length, src.length);
+    let name: string | undefined;
+    const braced = src[k] === '{';
+    if (braced) k = skipBlanks(src, k + 1, src.length);
+    if (src[k] === '\\') {
+      let e = k + 1;
+      while (e < src.length && isLetter(src[e])) e += 1;
+      if (e > k + 1) name = src.slice(k + 1, e);
+      k = e;
+    }
+    if (braced) {
+      k = skipBlanks(src, k, src.length);
+      if (src[k] !== '}') continue;
+      k += 1;
+    }
+    if (name === undefined) continue;
+    count += 1;
+    k = skipBlanks(src, k, src.length);
+    const takesArguments = src[k] === '[';
+    while (src[skipBlanks(src, k, src.length)] === '[') k = skipOptional(src, skipBlanks(src, k, src.length), src.length);
+    k = skipBlanks(src, k, src.length);
+    const group = readGroup(src, k, src.length);
+    const body = !takesArguments && group && PLAIN_BODY.test(group.text) ? group.text : undefined;
+    const why = takesArguments ? 'it takes arguments' : group === undefined && src[k] !== '{' ? 'its definition could not be read' : body === undefined ? 'its definition is not plain text' : undefined;
+    const list = macros.get(name) ?? [];
+    list.push({ at: m.index, body, ...(why ? { why } : {}) });
+    macros.set(name, list);
+  }
+  return macros;
 }
 
 /** The `\input{…}`/`\include{…}` commands of a LaTeX manuscript's body, in source order (comments and preamble skipped). */
@@ -128,9 +201,15 @@ class LatexReader {
   private failedClose = new Map<string, { from: number; stop: number }>();
   private readonly start: number;
   private readonly end: number;
+  /** Commands the manuscript defines (readMacros). */
+  private readonly macros: Map<string, Macro[]>;
+  /** What could not be read as printed: a defined command left unexpanded, once per name. */
+  notes: ReadNote[] = [];
+  private noted = new Set<string>();
 
   constructor(private readonly src: string) {
     this.target = this.para;
+    this.macros = src.includes('command') ? readMacros(src) : new Map();
     const bom = src.charCodeAt(0) === 0xfeff ? 1 : 0;
     const begin = findOutsideComments(src, /\\begin[ \t]*\{document\}/g);
     this.start = begin ? begin.index + begin.length : bom;
@@ -348,9 +427,42 @@ class LatexReader {
       this.target.pushSynthetic(symbol, i, j);
       return skipEmptyGroup(src, j);
     }
+    const macro = this.macro(bare, i, j);
+    if (macro !== undefined) {
+      // the definition's text, every character placed at the command that printed it; a
+      // control word takes the spaces after it, and `{}` after it ends it
+      this.target.pushSynthetic(macro, i, j);
+      return skipEmptyGroup(src, skipBlanks(src, j, this.end));
+    }
     // Anything else prints its arguments, if any, as text (`\textit{t}`, `\emph{p}`, `\footnote{…}`)
     // and itself nothing (`\noindent`, `\centering`, `\small`); an optional argument right after it is an option.
     return skipOptional(src, skipBlanks(src, j, this.end), this.end);
+  }
+
+  /**
+   * What the command `\name` at `i` (its name ending at `j`) prints, when the manuscript defines
+   * it (the last definition before it) without arguments and with a plain-text body; otherwise
+   * undefined, with a note the first time a defined command cannot be printed so.
+   */
+  private macro(name: string, i: number, j: number): string | undefined {
+    const defs = this.macros.get(name);
+    if (!defs) return undefined;
+    // the last definition before the use (definitions are in source order)
+    let lo = 0;
+    let hi = defs.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if ((defs[mid] as Macro).at < i) lo = mid + 1;
+      else hi = mid;
+    }
+    const def = defs[lo - 1];
+    if (!def) return undefined;
+    if (def.body !== undefined) return def.body;
+    if (!this.noted.has(name)) {
+      this.noted.add(name);
+      this.notes.push({ kind: 'macro-not-expanded', message: `\\${name} (${def.why ?? 'its definition is not plain text'}) was not expanded where it is used, so what it prints was not read (the first use)`, span: { start: i, end: j } });
+    }
+    return undefined;
   }
 
   /** `\%`, `\&`, `\,`, `\\`, `\'e` and the other backslash-and-sign commands. */
@@ -574,6 +686,17 @@ class LatexReader {
     for (let k = from; k < to; k += 1) {
       const c = src[k];
       if (c === '\\') {
+        let e = k + 1;
+        while (e < to && isLetter(src[e])) e += 1;
+        const macro = e > k + 1 ? this.macro(src.slice(k + 1, e), k, e) : undefined;
+        if (macro !== undefined) {
+          // a defined command in math prints its text there, placed at the command
+          text.pushVerbatim(src.slice(run, k), run);
+          text.pushSynthetic(macro, k, e);
+          run = Math.min(skipEmptyGroup(src, e), to);
+          k = run - 1;
+          continue;
+        }
         k += 1;
         continue;
       }

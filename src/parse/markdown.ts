@@ -13,7 +13,7 @@ import { readMath } from './math.js';
 import { literalNumberOfInlineR } from './rInline.js';
 import { HtmlTableReader, type HtmlTablePart } from './htmlTable.js';
 import { markLegends } from './legends.js';
-import { defuseDenseMarkup } from './depth.js';
+import { defuseDenseMarkup, exceedsNesting } from './depth.js';
 import { LAZY_LIMIT, QUOTE_LIMIT, SETEXT_LIMIT, defuseSlowShapes, joinLongParagraphs, type SlowShape } from './shapes.js';
 import { BULK_CHUNK_ROWS, BULK_MIN_ROWS, blankRuns, findBulkRuns, plainCells, type BulkRun } from './bulkTable.js';
 import { PLAIN_MIN_GROUPS, findPlainRuns, lineShift, plainGroupText, standInRuns, type PlainRun } from './plainRuns.js';
@@ -112,7 +112,7 @@ export function parseMarkdown(path: string, source: string, options: MarkdownOpt
       }]
     : [];
   for (const shape of slow?.shapes ?? []) readNotes.push({ kind: 'slow-shape', message: slowShapeMessage(shape), span: { start: 0, end: 0 } });
-  return {
+  const doc: ParsedDocument = {
     path,
     source,
     format: 'markdown',
@@ -122,6 +122,155 @@ export function parseMarkdown(path: string, source: string, options: MarkdownOpt
     hadBom,
     ...(readNotes.length > 0 ? { readNotes } : {}),
   };
+  // read as written, every block by the parser: an edit inside one paragraph can be re-read alone
+  if (!hadBom && text === body && opening === undefined && walker.bulkFree && walker.definitions === false)
+    REUSE.set(doc, { blocks: walker.topBlocks, chunks: options.chunks === true, options });
+  return doc;
+}
+
+/** A top-level block of a parsed Markdown document: its source range and the segments and blocks it made. */
+interface TopBlock {
+  type: string;
+  start: number;
+  end: number;
+  /** Index of its first segment, and one past its last. */
+  firstSegment: number;
+  endSegment: number;
+  /** The block number before its first (its blocks are `blockBefore + 1` …). */
+  blockBefore: number;
+  blockEnd: number;
+  /** Directives read inside it. */
+  directives: number;
+}
+
+/** What an incremental re-read needs of a document parsed whole (see reparseEdit). */
+interface Reuse {
+  blocks: TopBlock[];
+  chunks: boolean;
+  options: MarkdownOptions;
+}
+
+/** Documents parsed whole by parseMarkdown that an edit may be re-read against (kept beside, so the document's own shape is unchanged). */
+const REUSE = new WeakMap<ParsedDocument, Reuse>();
+
+/** A line holding nothing but spaces or tabs between two offsets: a blank line separates them. */
+function blankLineBetween(text: string, from: number, to: number): boolean {
+  let lineStart = text.indexOf('\n', from);
+  while (lineStart >= 0 && lineStart < to) {
+    const next = text.indexOf('\n', lineStart + 1);
+    const end = next < 0 || next > to ? to : next;
+    if (next >= 0 && next <= to && text.slice(lineStart + 1, end).trim() === '') return true;
+    if (next < 0 || next >= to) return false;
+    lineStart = next;
+  }
+  return false;
+}
+
+/**
+ * The document `source` as parseMarkdown reads it, from `prev` (a parse of an earlier text)
+ * when the two differ inside one top-level paragraph only, set off from its neighbours by blank
+ * lines: top-level blocks separated so are read independently of each other once the link
+ * reference definitions (none here) and the front matter (none here) are unchanged. That
+ * paragraph alone is parsed again; every other segment is kept, its offsets shifted by the
+ * edit's length. `undefined` whenever any of that is not certain (the edited text reads as
+ * anything but one paragraph, a guard of the parser would act on the new text, the paragraph
+ * stands next to a table or its legends, it holds a directive, or it makes a different number
+ * of segments): the caller then parses the whole text. `test/parse/incremental.test.ts` and
+ * `test/engine/incremental.test.ts` compare both readings on random edits.
+ */
+export function reparseEdit(prev: ParsedDocument, source: string): ParsedDocument | undefined {
+  const reuse = REUSE.get(prev);
+  if (!reuse || prev.readNotes || prev.source === source || source.charCodeAt(0) === 0xfeff || source.startsWith('---')) return undefined;
+  const old = prev.source;
+  const limit = Math.min(old.length, source.length);
+  let prefix = 0;
+  while (prefix < limit && old.charCodeAt(prefix) === source.charCodeAt(prefix)) prefix += 1;
+  let suffix = 0;
+  while (suffix < limit - prefix && old.charCodeAt(old.length - 1 - suffix) === source.charCodeAt(source.length - 1 - suffix)) suffix += 1;
+  const oldEnd = old.length - suffix;
+  const delta = source.length - old.length;
+  // the top-level block holding the edit: after its first character (its indentation and first
+  // mark unchanged, so a list above cannot take it in), up to its end
+  const blocks = reuse.blocks;
+  let lo = 0;
+  let hi = blocks.length - 1;
+  while (lo < hi) {
+    const mid = (lo + hi + 1) >> 1;
+    if ((blocks[mid] as TopBlock).start < prefix) lo = mid;
+    else hi = mid - 1;
+  }
+  const index = lo;
+  const b = blocks[index];
+  if (!b || (b.type !== 'paragraph' && b.type !== 'table') || b.directives > 0 || !(b.start < prefix && oldEnd <= b.end)) return undefined;
+  const before = blocks[index - 1];
+  const after = blocks[index + 1];
+  if (before && !blankLineBetween(old, before.end, b.start)) return undefined;
+  if (after && !blankLineBetween(old, b.end, after.start)) return undefined;
+  const segs = prev.segments;
+  const neighbour = (from: number, step: number): Segment | undefined => {
+    let i = from;
+    while (segs[i]?.kind === 'code') i += step;
+    return segs[i];
+  };
+  if (b.type === 'paragraph') {
+    // a paragraph's legend role is read from its neighbours: it must have none, and stand next
+    // to no table or legend (a table's own legends depend only on its place among the segments
+    // and on the text of its cells, which are read again below)
+    for (let i = b.firstSegment; i < b.endSegment; i += 1) if ((segs[i] as Segment).legendOf) return undefined;
+    const prevSeg = neighbour(b.firstSegment - 1, -1);
+    const nextSeg = neighbour(b.endSegment, 1);
+    if (prevSeg && (prevSeg.table || prevSeg.legendOf)) return undefined;
+    if (nextSeg?.table) return undefined;
+  }
+  // the guards that read the whole text must leave the new text as it is
+  if (exceedsNesting(source) || defuseDenseMarkup(source) || defuseSlowShapes(source)) return undefined;
+  if (reuse.options.paragraphLines !== Infinity && joinLongParagraphs(source, reuse.options.paragraphLines) !== undefined) return undefined;
+  if (findBulkRuns(source, reuse.options.bulkRows ?? BULK_MIN_ROWS).length > 0) return undefined;
+  // a run of plain paragraphs is read outside the parser, as one piece with its neighbours
+  if (findPlainRuns(source, reuse.options.plainGroups ?? PLAIN_MIN_GROUPS).length > 0) return undefined;
+  const end = b.end + delta;
+  const piece = source.slice(b.start, end);
+  const tree = processor.parse(piece) as Root;
+  const node = tree.children[0];
+  if (tree.children.length !== 1 || node?.type !== b.type || node.position?.start.offset !== 0 || node.position.end.offset !== piece.length) return undefined;
+  const walker = new Walker(piece, b.start, reuse.options);
+  const firstOld = b.endSegment > b.firstSegment ? segs[b.firstSegment] : undefined;
+  // a table keeps its number: the tables before it are unchanged
+  const table = firstOld?.table?.table ?? segs.slice(0, b.firstSegment).reduce((n, x) => Math.max(n, (x.table?.table ?? -1) + 1), 0);
+  walker.resume(b.firstSegment, b.blockBefore, firstOld?.section, table);
+  walker.walkBlocks(tree.children);
+  const fresh = walker.segments;
+  if (walker.directiveCount > 0 || (b.type === 'table' && firstOld === undefined)) return undefined;
+  markLegends(fresh, piece, b.start);
+  // the segments and blocks after it move by what it gained or lost
+  const segmentDelta = fresh.length - (b.endSegment - b.firstSegment);
+  const blockDelta = walker.blockNumber - b.blockEnd;
+  const moved = (s: Segment): Segment =>
+    delta === 0 && segmentDelta === 0 && blockDelta === 0
+      ? s
+      : { ...s, id: s.id + segmentDelta, block: s.block + blockDelta, starts: delta === 0 ? s.starts : s.starts.map((o) => o + delta), ends: delta === 0 ? s.ends : s.ends.map((o) => o + delta) };
+  const segments = segs.slice(0, b.firstSegment).concat(fresh, segs.slice(b.endSegment).map(moved));
+  const doc: ParsedDocument = {
+    ...prev,
+    source,
+    segments,
+    directives: prev.directives.map((d) =>
+      d.span.start >= oldEnd
+        ? { ...d, span: { start: d.span.start + delta, end: d.span.end + delta }, appliesToBlock: d.appliesToBlock > b.blockEnd ? d.appliesToBlock + blockDelta : d.appliesToBlock }
+        : d,
+    ),
+  };
+  REUSE.set(doc, {
+    ...reuse,
+    blocks: blocks.map((x, i) =>
+      i < index
+        ? x
+        : i === index
+          ? { ...x, end, endSegment: x.endSegment + segmentDelta, blockEnd: x.blockEnd + blockDelta }
+          : { ...x, start: x.start + delta, end: x.end + delta, firstSegment: x.firstSegment + segmentDelta, endSegment: x.endSegment + segmentDelta, blockBefore: x.blockBefore + blockDelta, blockEnd: x.blockEnd + blockDelta },
+    ),
+  });
+  return doc;
 }
 
 function slowShapeMessage(s: SlowShape): string {
@@ -141,7 +290,7 @@ function slowShapeMessage(s: SlowShape): string {
 function walk(text: string, shift: number, options: MarkdownOptions, minRows: number, parser: { parse(text: string): unknown }): Walker {
   const { tree, runs, plain, lineOf } = parseWithBulkRuns(text, minRows, parser, options.plainGroups ?? PLAIN_MIN_GROUPS);
   const walker = new Walker(text, shift, options, runs, plain, lineOf);
-  walker.walkBlocks(tree.children);
+  walker.walkTop(tree.children);
   walker.finishHtml();
   markLegends(walker.segments, text, shift);
   return walker;
@@ -209,6 +358,12 @@ class Walker {
   private tables = 0;
   private section: string | undefined;
   private readonly html: HtmlTableReader;
+  /** The top-level blocks walked by walkTop, for an incremental re-read (reparseEdit). */
+  topBlocks: TopBlock[] = [];
+  /** Whether a link reference or footnote definition was met: a reference elsewhere may name it. */
+  definitions = false;
+  /** The id the next segment gets, past those of the segments array (set by resume). */
+  private firstId = 0;
 
   constructor(
     private src: string,
@@ -223,6 +378,51 @@ class Walker {
 
   walkBlocks(nodes: RootContent[]): void {
     for (const node of nodes) this.walkBlock(node);
+  }
+
+  /** The document's top-level blocks, each recorded with the segments and blocks it made. */
+  walkTop(nodes: RootContent[]): void {
+    for (const node of nodes) {
+      const firstSegment = this.segments.length;
+      const blockBefore = this.block;
+      const directives = this.directives.length;
+      this.walkBlock(node);
+      this.topBlocks.push({
+        type: node.type,
+        start: (node.position?.start.offset ?? -1) + this.shift,
+        end: (node.position?.end.offset ?? -1) + this.shift,
+        firstSegment,
+        endSegment: this.segments.length,
+        blockBefore,
+        blockEnd: this.block,
+        directives: this.directives.length - directives,
+      });
+    }
+  }
+
+  /** No long table was read row by row and no run of plain paragraphs outside the parser (each depends on the text around it). */
+  get bulkFree(): boolean {
+    return this.bulk.size === 0 && this.plain.size === 0;
+  }
+
+  get blockNumber(): number {
+    return this.block;
+  }
+
+  get directiveCount(): number {
+    return this.directives.length + this.pendingDirectives.length;
+  }
+
+  /**
+   * Carry on from a walk of the whole document just before a top-level paragraph: segment ids
+   * from `firstId`, blocks after `block`, under the section its segments had.
+   */
+  resume(firstId: number, block: number, section: string | undefined, table: number): void {
+    this.firstId = firstId;
+    this.block = block;
+    this.tables = table;
+    // the section comes from the headings above, which the edit left alone
+    this.section = section;
   }
 
   finishDirectives(): Directive[] {
@@ -276,10 +476,13 @@ class Walker {
         this.section = seg?.text.trim() || this.section;
         return;
       }
+      case 'footnoteDefinition':
+        this.definitions = true;
+        this.walkBlocks((node as Parent).children as RootContent[]);
+        return;
       case 'blockquote':
       case 'list':
       case 'listItem':
-      case 'footnoteDefinition':
         this.walkBlocks((node as Parent).children as RootContent[]);
         return;
       case 'table': {
@@ -329,6 +532,9 @@ class Walker {
       }
       case 'yaml':
         if (node.position) this.frontMatter = readFrontMatter(node.value, this.offsetSpan(node));
+        return;
+      case 'definition':
+        this.definitions = true;
         return;
       default:
         return;
@@ -491,7 +697,7 @@ class Walker {
     const text = normalize(raw);
     if (text.text.trim() === '') return undefined;
     const seg: Segment = {
-      id: this.segments.length,
+      id: this.firstId + this.segments.length,
       block,
       kind,
       text: text.text,

@@ -26,4 +26,19 @@ describe('the language server\'s checker', { timeout: 60_000 }, () => {
     expect('report' in b && b.report.findings.map((f) => f.ruleId)).toContain('zero-p-is-a-bound');
     await roomy.close();
   });
+
+  it('re-checks a document edit after edit on the worker that keeps its last parse, as a whole check reads it', async () => {
+    const { checkSource } = (await import(pathToFileURL(resolve('dist/src/engine/index.js')).href)) as typeof import('../../src/engine/index.js');
+    const checker = new Checker({ memoryMb: 256, seconds: 30 }, 2, () => undefined);
+    const base = 'Scores rose, t(23) = 2.90, p = .008.\n\nRecall fell, t(40) = 1.10, p = .28.\n';
+    // each text one edit from the one before: a digit changed, one added, a paragraph split, the document closed and opened again
+    const texts = [base, base.replace('2.90', '2.99'), base.replace('2.90', '2.991'), base.replace('fell, ', 'fell,\n\n'), base];
+    for (const [i, text] of texts.entries()) {
+      if (i === 4) checker.forget('doc');
+      const outcome = await checker.check({ key: 'doc', path: 'a.md', source: text, options: {} });
+      const { source: _source, ...whole } = checkSource('a.md', text);
+      expect('report' in outcome && outcome.report, `text ${i}`).toStrictEqual(whole);
+    }
+    await checker.close();
+  });
 });

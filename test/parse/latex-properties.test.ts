@@ -97,6 +97,8 @@ describe('LaTeX reader cost', () => {
     ['deep braces', (n) => `${'{\\textit{'.repeat(n)}t(28) = 2.10${'}}'.repeat(n)}`],
     ['a long tabular', (n) => `\\begin{tabular}{lll}\n${'Nap & 4.20 & 1.10 \\\\\n'.repeat(n)}\\end{tabular}\n`],
     ['many comments', (n) => 'Naps % t(28) = 2.10\n'.repeat(n)],
+    ['many definitions and uses of one command', (n) => `${'\\renewcommand{\\tval}{2.10}'.repeat(n)}\n\n${'Naps \\tval '.repeat(n)}`],
+    ['a command with arguments used many times in math', (n) => `\\newcommand{\\s}[1]{#1}\n${'$\\s{2}$ '.repeat(n)}`],
   ];
   for (const [name, make] of shapes) {
     it(name, () => {
