@@ -1,5 +1,6 @@
 import { parentPort } from 'node:worker_threads';
 import { checkSource, type CheckOptions } from '../engine/index.js';
+import { postReport } from './transfer.js';
 
 /**
  * A worker of the pool (src/cli/pool.ts): checks one document per message, in the order sent
@@ -19,7 +20,8 @@ parentPort?.postMessage({ ready: true });
 parentPort?.on('message', (job: Job) => {
   try {
     const { source: _source, ...report } = checkSource(job.path, job.source, job.options);
-    parentPort?.postMessage({ index: job.index, report });
+    // as bytes the receiver rebuilds when it chooses (src/cli/transfer.ts)
+    postReport((m, transfer) => parentPort?.postMessage(m, transfer), job.index, report);
   } catch (e) {
     parentPort?.postMessage({ index: job.index, error: e instanceof Error ? e.message : String(e) });
   }

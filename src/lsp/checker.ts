@@ -2,6 +2,7 @@ import { existsSync } from 'node:fs';
 import { Worker } from 'node:worker_threads';
 import { checkSource, type CheckOptions, type FileReport } from '../engine/index.js';
 import { WORKER_FILE, type Budget } from '../cli/pool.js';
+import { receivedReport, type ReportMessage } from '../cli/transfer.js';
 
 /** A check asked of the checker: one document's text as of one version. */
 export interface CheckRequest {
@@ -16,7 +17,7 @@ export type CheckOutcome = { report: FileReport } | { error: string; dropped?: b
 interface Slot {
   worker?: Worker;
   ready: boolean;
-  busy?: { id: number; done: (o: CheckOutcome) => void; timer: NodeJS.Timeout };
+  busy?: { id: number; source: string; done: (o: CheckOutcome) => void; timer: NodeJS.Timeout };
 }
 
 /**
@@ -71,9 +72,9 @@ export class Checker {
     const w = new Worker(this.workerFile, { resourceLimits: { maxOldGenerationSizeMb: this.budget.memoryMb, maxYoungGenerationSizeMb: 64 } });
     slot.worker = w;
     slot.ready = false;
-    w.on('message', (m: { ready?: boolean; index: number; report?: FileReport; error?: string }) => {
+    w.on('message', (m: { ready: true } | ReportMessage) => {
       if (slot.worker !== w) return;
-      if (m.ready) {
+      if ('ready' in m) {
         slot.ready = true;
         this.pump();
         return;
@@ -82,7 +83,8 @@ export class Checker {
       if (!busy || busy.id !== m.index) return;
       clearTimeout(busy.timer);
       slot.busy = undefined;
-      busy.done(m.report ? { report: m.report } : { error: m.error ?? 'unknown error' });
+      // the worker does not send the text back: it is the one sent
+      busy.done('error' in m ? { error: m.error } : { report: { ...receivedReport(m.bytes), source: busy.source } });
       this.pump();
     });
     w.on('error', (e: Error & { code?: string }) => {
@@ -113,7 +115,7 @@ export class Checker {
         this.log(`plumbline: dropped the check of ${request.path}: it took longer than the time budget of ${this.budget.seconds} s`);
         done({ error: `not checked: took longer than the time budget of ${this.budget.seconds} s`, dropped: true });
       }, this.budget.seconds * 1000);
-      slot.busy = { id, done, timer };
+      slot.busy = { id, source: request.source, done, timer };
       slot.worker?.postMessage({ index: id, path: request.path, source: request.source, options: request.options });
     }
   }
