@@ -4,6 +4,7 @@ import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import { checkSource, type CheckOptions, type FileReport } from '../engine/index.js';
 import { DEFAULT_BUDGET, type Budget } from './defaults.js';
+import { receivedReport, type ReportMessage } from './transfer.js';
 
 /** A document to check, or one that could not be read (kept in order, reported as such). */
 export type Job = { path: string; source: string; options: CheckOptions } | { path: string; error: string };
@@ -133,9 +134,9 @@ export async function checkAll(
         const w = new Worker(workerFile, { resourceLimits: { maxOldGenerationSizeMb: budget.memoryMb, maxYoungGenerationSizeMb: 64 } });
         slot.worker = w;
         slot.ready = false;
-        w.on('message', (m: { ready?: boolean; index: number; report?: Omit<FileReport, 'source'>; error?: string }) => {
+        w.on('message', (m: { ready: true } | ReportMessage) => {
           if (slot.worker !== w) return;
-          if (m.ready) {
+          if ('ready' in m) {
             slot.ready = true;
             // documents left by a worker that was replaced go first, in their order
             for (const q of slot.queue) w.postMessage({ index: q.index, ...q.job });
@@ -147,8 +148,24 @@ export async function checkAll(
           if (head === undefined || m.index !== head.index) return;
           slot.queue.shift();
           arm(slot);
+          if ('error' in m) {
+            settle(m.index, { error: m.error }, slot);
+            return;
+          }
           // the text is not sent back: it is the one sent
-          settle(m.index, m.report ? { report: { ...m.report, source: head.job.source } } : { error: m.error ?? 'unknown error' }, slot);
+          const outcome = (): Outcome => ({ report: { ...receivedReport(m.bytes), source: head.job.source } });
+          if (!exhausted || slot.queue.length > 0) {
+            settle(m.index, outcome(), slot);
+            return;
+          }
+          // the worker's last document: the worker is stopped, its heap given back, before the
+          // report is rebuilt here (src/cli/transfer.ts); the slot stays, without a worker
+          clearTimeout(slot.timer);
+          slot.worker = undefined;
+          w.terminate()
+            .catch(() => undefined)
+            .then(() => settle(m.index, outcome(), slot))
+            .catch(reject);
         });
         w.on('error', (e: Error & { code?: string }) => {
           if (slot.worker !== w) return;

@@ -1,5 +1,6 @@
 import { parentPort } from 'node:worker_threads';
 import { checkSource, IncrementalChecker, type CheckOptions } from '../engine/index.js';
+import { postReport } from './transfer.js';
 
 /**
  * A worker of the pool (src/cli/pool.ts): checks one document per message, in the order sent
@@ -38,7 +39,8 @@ parentPort?.on('message', (job: Job | { forget: string }) => {
   }
   try {
     const { source: _source, ...report } = job.session === undefined ? checkSource(job.path, job.source, job.options) : checkIn(job.session, job);
-    parentPort?.postMessage({ index: job.index, report });
+    // as bytes the receiver rebuilds when it chooses (src/cli/transfer.ts)
+    postReport((m, transfer) => parentPort?.postMessage(m, transfer), job.index, report);
   } catch (e) {
     parentPort?.postMessage({ index: job.index, error: e instanceof Error ? e.message : String(e) });
   }

@@ -483,8 +483,8 @@ function idx(m: RegExpMatchArray, g: number): number {
 }
 
 /** Segments whose source ends never decrease (most do: the map follows the source in order). */
-const ordered = new WeakMap<number[], boolean>();
-function endsInOrder(ends: number[]): boolean {
+const ordered = new WeakMap<Int32Array, boolean>();
+function endsInOrder(ends: Int32Array): boolean {
   let known = ordered.get(ends);
   if (known === undefined) {
     known = true;

@@ -2,6 +2,7 @@ import { existsSync } from 'node:fs';
 import { Worker } from 'node:worker_threads';
 import { IncrementalChecker, type CheckOptions, type FileReport } from '../engine/index.js';
 import { WORKER_FILE, type Budget } from '../cli/pool.js';
+import { receivedReport, type ReportMessage } from '../cli/transfer.js';
 
 /** A check asked of the checker: one document's text as of one version. */
 export interface CheckRequest {
@@ -18,7 +19,7 @@ interface Slot {
   ready: boolean;
   /** Documents whose last check ran here: their last parse is kept in this worker. */
   keys: Set<string>;
-  busy?: { id: number; done: (o: CheckOutcome) => void; timer: NodeJS.Timeout };
+  busy?: { id: number; source: string; done: (o: CheckOutcome) => void; timer: NodeJS.Timeout };
 }
 
 /**
@@ -92,9 +93,9 @@ export class Checker {
     slot.worker = w;
     slot.ready = false;
     slot.keys.clear();
-    w.on('message', (m: { ready?: boolean; index: number; report?: FileReport; error?: string }) => {
+    w.on('message', (m: { ready: true } | ReportMessage) => {
       if (slot.worker !== w) return;
-      if (m.ready) {
+      if ('ready' in m) {
         slot.ready = true;
         this.pump();
         return;
@@ -103,7 +104,8 @@ export class Checker {
       if (!busy || busy.id !== m.index) return;
       clearTimeout(busy.timer);
       slot.busy = undefined;
-      busy.done(m.report ? { report: m.report } : { error: m.error ?? 'unknown error' });
+      // the worker does not send the text back: it is the one sent
+      busy.done('error' in m ? { error: m.error } : { report: { ...receivedReport(m.bytes), source: busy.source } });
       this.pump();
     });
     w.on('error', (e: Error & { code?: string }) => {
@@ -142,7 +144,7 @@ export class Checker {
         this.log(`plumbline: dropped the check of ${request.path}: it took longer than the time budget of ${this.budget.seconds} s`);
         done({ error: `not checked: took longer than the time budget of ${this.budget.seconds} s`, dropped: true });
       }, this.budget.seconds * 1000);
-      slot.busy = { id, done, timer };
+      slot.busy = { id, source: request.source, done, timer };
       slot.worker?.postMessage({ index: id, path: request.path, source: request.source, options: request.options, session: request.key });
     }
   }

@@ -1,4 +1,4 @@
-import { MappedText } from './builder.js';
+import { MappedText, offsetArray } from './builder.js';
 import { markLegends } from './legends.js';
 import { normalize } from './normalize.js';
 import type { OriginalMap, OriginalUnit, ParsedDocument, ReadNote, Segment, TableLegend, TablePlace } from './types.js';
@@ -81,8 +81,8 @@ export function documentFromBlocks(path: string, format: 'docx' | 'pdf', blocks:
       block: blockId,
       kind: block.kind,
       text: text.text,
-      starts: text.starts,
-      ends: text.ends,
+      starts: offsetArray(text.starts),
+      ends: offsetArray(text.ends),
       ...(block.table ? { table: block.table } : {}),
       ...(block.legendOf ? { legendOf: block.legendOf } : {}),
       ...(section !== undefined && block.kind !== 'heading' ? { section } : {}),

@@ -1,4 +1,4 @@
-import { MappedText } from './builder.js';
+import { MappedText, offsetArray } from './builder.js';
 import { readDirective } from './directives.js';
 import { markLegends } from './legends.js';
 import { readMath } from './math.js';
@@ -765,8 +765,8 @@ class LatexReader {
       block: this.startBlock(claim),
       kind,
       text: text.text,
-      starts: text.starts,
-      ends: text.ends,
+      starts: offsetArray(text.starts),
+      ends: offsetArray(text.ends),
       ...(table ? { table } : {}),
       ...(this.section !== undefined && kind !== 'heading' ? { section: this.section } : {}),
     };

@@ -5,7 +5,7 @@ import remarkGfm from 'remark-gfm';
 import remarkMath from 'remark-math';
 import remarkParse from 'remark-parse';
 import { unified } from 'unified';
-import { MappedText, alignedEnd } from './builder.js';
+import { MappedText, alignedEnd, offsetArray } from './builder.js';
 import { readDirective } from './directives.js';
 import { readFrontMatter } from './frontMatter.js';
 import { normalize } from './normalize.js';
@@ -701,8 +701,8 @@ class Walker {
       block,
       kind,
       text: text.text,
-      starts: this.shift ? text.starts.map((o) => o + this.shift) : text.starts,
-      ends: this.shift ? text.ends.map((o) => o + this.shift) : text.ends,
+      starts: offsetArray(text.starts, this.shift),
+      ends: offsetArray(text.ends, this.shift),
       ...(table ? { table } : {}),
       ...(this.section !== undefined && kind !== 'heading' ? { section: this.section } : {}),
     };

@@ -1,4 +1,4 @@
-import { MappedText } from './builder.js';
+import { MappedText, offsetArray } from './builder.js';
 import { markLegends } from './legends.js';
 import { normalize } from './normalize.js';
 import { alignedTable, hasColumnGap, isPipeRow, pipeTable, type TextCell, type TextLine } from './textTables.js';
@@ -107,8 +107,8 @@ class Output {
       block: this.block,
       kind,
       text: text.text,
-      starts: text.starts,
-      ends: text.ends,
+      starts: offsetArray(text.starts),
+      ends: offsetArray(text.ends),
       ...(table ? { table } : {}),
       ...(this.section !== undefined && kind !== 'heading' ? { section: this.section } : {}),
     };

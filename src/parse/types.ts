@@ -44,8 +44,9 @@ export interface Segment {
   block: number;
   kind: SegmentKind;
   text: string;
-  starts: number[];
-  ends: number[];
+  /** Int32Array, not number[]: 4 bytes a character rather than 8 and more (see `offsetArray`). */
+  starts: Int32Array;
+  ends: Int32Array;
   table?: TablePlace;
   /** Heading text of the section the segment sits in (nearest heading above), if any. */
   section?: string;

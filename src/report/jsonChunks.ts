@@ -1,12 +1,12 @@
 /**
- * JSON.stringify(value, replacer, 2) + "\n", the same bytes, given out in chunks of about
+ * JSON.stringify(value, replacer, space) + "\n", the same bytes, given out in chunks of about
  * CHUNK characters: a report of hundreds of thousands of results is longer than the longest
  * string V8 can make (about 2^29 characters), so the command line writes it piece by piece.
  * Containers down to STREAM_DEPTH are walked here, key by key and element by element; a value
- * below is one JSON.stringify call, re-indented (JSON strings hold no raw line break, so every
- * "\n" in its output starts an indented line), unless its text is longer than a chunk (a
- * checklist item lists every result): then it is walked too. Nesting is shallow, so each part
- * is stringified a bounded number of times: linear. Serialisation only: nothing is computed.
+ * below is one JSON.stringify call, re-indented when indented (JSON strings hold no raw line
+ * break, so every "\n" in its output starts an indented line), unless its text is longer than a
+ * chunk (a checklist item lists every result): then it is walked too. Nesting is shallow, so each
+ * part is stringified a bounded number of times: linear. Serialisation only: nothing is computed.
  */
 
 /** Chunks are cut once the pending text reaches this many characters. */
@@ -20,7 +20,11 @@ const STREAM_DEPTH = 4;
 
 type Replacer = (key: string, value: unknown) => unknown;
 
-export function* jsonChunks(value: unknown, replacer: Replacer, chunk = CHUNK): Generator<string> {
+/** `space`: spaces per level of indentation, 0 for none (then no line breaks but the last), as JSON.stringify's. */
+export function* jsonChunks(value: unknown, replacer: Replacer, chunk = CHUNK, space = 2): Generator<string> {
+  const step = ' '.repeat(space);
+  // between an object's key and its value: ": " when indented, ":" when not, as JSON.stringify writes
+  const colon = space > 0 ? ': ' : ':';
   let pending: string[] = [];
   let size = 0;
   const put = function* (s: string): Generator<string> {
@@ -45,7 +49,7 @@ export function* jsonChunks(value: unknown, replacer: Replacer, chunk = CHUNK): 
     if (v === null || typeof v !== 'object' || depth >= STREAM_DEPTH) {
       let text: string | undefined;
       try {
-        text = JSON.stringify(v, replacer, 2) as string | undefined;
+        text = JSON.stringify(v, replacer, space) as string | undefined;
       } catch (e) {
         // longer than any string can be: walked below, piece by piece
         if (!(e instanceof RangeError) || v === null || typeof v !== 'object') throw e;
@@ -57,7 +61,10 @@ export function* jsonChunks(value: unknown, replacer: Replacer, chunk = CHUNK): 
         return true;
       }
     }
-    const inner = `${indent}  `;
+    const inner = `${indent}${step}`;
+    // what starts an element or member, and what closes the container: a line break and indentation, or nothing
+    const open = space > 0 ? `\n${inner}` : '';
+    const close = space > 0 ? `\n${indent}` : '';
     if (Array.isArray(v)) {
       if (v.length === 0) {
         yield* put('[]');
@@ -65,11 +72,11 @@ export function* jsonChunks(value: unknown, replacer: Replacer, chunk = CHUNK): 
       }
       yield* put('[');
       for (let i = 0; i < v.length; i += 1) {
-        yield* put(i === 0 ? `\n${inner}` : `,\n${inner}`);
+        yield* put(i === 0 ? open : `,${open}`);
         // an element JSON leaves out of an object is null in an array
         if (!(yield* write(prepare(v, String(i), v[i]), inner, depth + 1))) yield* put('null');
       }
-      yield* put(`\n${indent}]`);
+      yield* put(`${close}]`);
       return true;
     }
     let first = true;
@@ -77,11 +84,11 @@ export function* jsonChunks(value: unknown, replacer: Replacer, chunk = CHUNK): 
       const item = prepare(v, key, (v as Record<string, unknown>)[key]);
       const text = item === undefined || typeof item === 'function' || typeof item === 'symbol' ? undefined : item;
       if (text === undefined) continue;
-      yield* put(`${first ? '{' : ','}\n${inner}${JSON.stringify(key)}: `);
+      yield* put(`${first ? '{' : ','}${open}${JSON.stringify(key)}${colon}`);
       first = false;
       yield* write(item, inner, depth + 1);
     }
-    yield* put(first ? '{}' : `\n${indent}}`);
+    yield* put(first ? '{}' : `${close}}`);
     return true;
   };
 

@@ -1,7 +1,7 @@
 /**
  * The JSON and SARIF the command line writes in chunks are byte for byte what JSON.stringify
- * (ECMA-262's JSON.stringify, as V8 implements it, with the same replacer and an indent of 2)
- * writes in one string: the reference here is the engine's own JSON.stringify, not our code.
+ * (ECMA-262's JSON.stringify, as V8 implements it, with the same replacer and the same indent:
+ * none for the JSON report, 2 for SARIF) writes in one string: the reference here is the engine's own JSON.stringify, not our code.
  */
 import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
@@ -40,7 +40,15 @@ describe('JSON and SARIF in chunks', () => {
     for (const c of chunks) expect(c.length).toBeLessThanOrEqual(2 * CHUNK);
   });
 
-  it('any JSON-like value: the same text as JSON.stringify(value, replacer, 2) (fast-check, 2,000 cases)', () => {
+  it('the JSON report is JSON.stringify without indentation: one line, then a line break', () => {
+    const run = runs[1]![1];
+    const text = formatJson(run);
+    expect(text).toBe(`${JSON.stringify(JSON.parse(text))}\n`);
+    expect(text.indexOf('\n')).toBe(text.length - 1);
+    expect([...formatJsonChunks(runs[3]![1])].join('')).toBe(`${JSON.stringify(JSON.parse(formatJson(runs[3]![1])))}\n`);
+  });
+
+  it.each([0, 2, 4])('any JSON-like value: the same text as JSON.stringify(value, replacer, %i) (fast-check, 2,000 cases)', (space) => {
     // values JSON leaves out or changes: undefined and functions (left out of objects, null in
     // arrays), non-finite numbers (null through the replacer), -0 (0), toJSON
     const leaf = fc.oneof(fc.string(), fc.double(), fc.integer(), fc.boolean(), fc.constant(null), fc.constant(undefined), fc.constant(() => 1), fc.constant({ toJSON: () => 'dated' }));
@@ -49,8 +57,8 @@ describe('JSON and SARIF in chunks', () => {
     })).node;
     fc.assert(
       fc.property(value, fc.integer({ min: 1, max: 64 }), (v, size) => {
-        const whole = JSON.stringify(v, finite, 2) as string | undefined;
-        const joined = [...jsonChunks(v, finite, size)].join('');
+        const whole = JSON.stringify(v, finite, space) as string | undefined;
+        const joined = [...jsonChunks(v, finite, size, space)].join('');
         // JSON.stringify of undefined or a function at the top is undefined; the chunks are then "undefined\n"-free: only the newline
         return whole === undefined ? joined === '\n' : joined === `${whole}\n`;
       }),
