@@ -58,7 +58,8 @@ export function checkSource(path: string, source: string, options: CheckOptions 
 
 function parseFor(path: string, source: string, options: CheckOptions, prev?: ParsedDocument): ParsedDocument {
   // a document a binary front end read (Word, PDF) comes parsed
-  if (options.document) return options.document;
+  // (read under its absolute path: the report names it as the caller does)
+  if (options.document) return options.document.path === path ? options.document : { ...options.document, path };
   if (options.prefilter !== false && !mayHoldStatistics(source))
     return { path, source, format: sourceFormat(options.format ?? formatForPath(path)), segments: [], directives: [], hadBom: source.charCodeAt(0) === 0xfeff };
   // the same text reads the same: nothing downstream changes a parsed document
