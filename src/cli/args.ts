@@ -20,6 +20,8 @@ export interface CliOptions {
   checklist?: boolean;
   jobs?: number;
   maxFileBytes?: number;
+  /** Extensions read when walking a folder, as given to --extensions (`md`, `.tex`). */
+  extensions?: string[];
   /** Per-document budgets (MB of heap, seconds). */
   memoryBudget?: number;
   timeBudget?: number;
@@ -46,7 +48,9 @@ export interface CliOptions {
 export type ParseOutcome = { kind: 'run'; options: CliOptions } | { kind: 'help' | 'version'; text: string } | { kind: 'error'; message: string };
 
 /** Options that take a value, for "needs a value" and "given twice" messages. */
-const VALUE_OPTIONS = ['format', 'alpha', 'tails', 'max-warnings', 'config', 'stdin-name', 'jobs', 'max-file-bytes', 'memory-budget', 'time-budget', 'output', 'baseline', 'write-baseline', 'first-line', 'table', 'annotate'] as const;
+/** One file name ending for --extensions: letters and digits, a leading dot optional (as the configuration's `extensions`). */
+const EXTENSION = /^\.?[A-Za-z0-9]{1,16}$/;
+const VALUE_OPTIONS = ['format', 'alpha', 'tails', 'max-warnings', 'config', 'stdin-name', 'jobs', 'max-file-bytes', 'memory-budget', 'time-budget', 'output', 'baseline', 'write-baseline', 'first-line', 'table', 'annotate', 'extensions'] as const;
 const SHORT: Record<string, string> = { f: 'format', c: 'config', j: 'jobs', o: 'output', q: 'quiet', h: 'help', v: 'version' };
 
 function parser() {
@@ -118,6 +122,9 @@ export async function parseArguments(argv: string[], columns: number | undefined
     return { kind: 'error', message: `--max-warnings must be a whole number, 0 or more; got "${rawValue(words, 'max-warnings') ?? ''}"` };
   const jobs = num('jobs');
   if (jobs !== undefined && !(Number.isInteger(jobs) && jobs >= 1)) return { kind: 'error', message: `--jobs must be a whole number, 1 or more; got "${rawValue(words, 'jobs', 'j') ?? ''}"` };
+  const extensions = str('extensions')?.split(',').map((e) => e.trim());
+  if (extensions !== undefined && (extensions.length === 0 || !extensions.every((e) => EXTENSION.test(e))))
+    return { kind: 'error', message: `--extensions takes file name endings separated by commas, such as md,tex,docx; got "${rawValue(words, 'extensions') ?? ''}"` };
   const maxFileBytes = num('max-file-bytes');
   if (maxFileBytes !== undefined && !(Number.isInteger(maxFileBytes) && maxFileBytes >= 1))
     return { kind: 'error', message: `--max-file-bytes must be a whole number of bytes, 1 or more; got "${rawValue(words, 'max-file-bytes') ?? ''}"` };
@@ -154,6 +161,7 @@ export async function parseArguments(argv: string[], columns: number | undefined
     ...(typeof parsed.checklist === 'boolean' ? { checklist: parsed.checklist } : {}),
     ...(jobs !== undefined ? { jobs } : {}),
     ...(maxFileBytes !== undefined ? { maxFileBytes } : {}),
+    ...(extensions !== undefined ? { extensions } : {}),
     ...(memoryBudget !== undefined ? { memoryBudget } : {}),
     ...(timeBudget !== undefined ? { timeBudget } : {}),
     ...(str('output') !== undefined ? { output: str('output') as string } : {}),

@@ -31,6 +31,10 @@ export interface IgnoreSource {
 }
 
 export interface ExpandOptions {
+  /** The extensions read when walking a folder, overriding configuration and the default (from --extensions). */
+  extensions?: readonly string[];
+  /** The extensions configured for a folder (absolute path), if any: the nearest configuration's `extensions`. */
+  extensionsFor?: (folder: string) => readonly string[] | undefined;
   /** Patterns from configuration that apply in a folder (absolute path), nearest last. */
   ignoresFor?: (folder: string) => IgnoreSource[];
   /** Read .gitignore files in the folders walked and above them up to the repository's root (default true). */
@@ -43,7 +47,16 @@ export interface ExpandOptions {
   followLinksOutside?: boolean;
 }
 
-const isManuscript = (name: string) => MANUSCRIPT_EXTENSIONS.some((e) => name.toLowerCase().endsWith(e));
+/** An extension as written (`md`, `.MD`) in the form names are compared with (`.md`). */
+export function normalExtension(e: string): string {
+  const lower = e.toLowerCase();
+  return lower.startsWith('.') ? lower : `.${lower}`;
+}
+
+const isManuscript = (name: string, extensions: readonly string[]) => {
+  const lower = name.toLowerCase();
+  return extensions.some((e) => lower.endsWith(e) && lower.length > e.length);
+};
 const GLOB_CHARS = /[*?[\]{}]/;
 /** A .gitignore larger than this is not read (a repository could hold anything). */
 const MAX_GITIGNORE_BYTES = 1024 * 1024;
@@ -95,7 +108,7 @@ export function expandArguments(args: string[], cwd = process.cwd(), options: Ex
     }
     if (stat.isDirectory()) {
       const top = at(arg);
-      walk(arg, new Set(), add, at, ignored, top, outside ? undefined : { root: realOrUndefined(top) ?? top, skipped: skippedLinks });
+      walk(arg, new Set(), add, at, ignored, top, outside ? undefined : { root: realOrUndefined(top) ?? top, skipped: skippedLinks }, extensionsIn(options));
     }
     else add(arg);
   }
@@ -221,7 +234,36 @@ interface Bounds {
   skipped: string[];
 }
 
-function walk(dir: string, visited: Set<string>, add: (f: string) => void, at: (p: string) => string, ignored: IgnoreRules, top: string, bounds: Bounds | undefined): void {
+/**
+ * The extensions read in a folder walked: --extensions, else the folder's configured list, else
+ * MANUSCRIPT_EXTENSIONS. A bad configuration counts as none here (it is reported when its files
+ * are checked).
+ */
+function extensionsIn(options: ExpandOptions): (folder: string) => readonly string[] {
+  if (options.extensions) {
+    const fixed = options.extensions.map(normalExtension);
+    return () => fixed;
+  }
+  const configured = options.extensionsFor;
+  if (!configured) return () => MANUSCRIPT_EXTENSIONS;
+  const cache = new Map<string, readonly string[]>();
+  return (folder) => {
+    let list = cache.get(folder);
+    if (!list) {
+      let found: readonly string[] | undefined;
+      try {
+        found = configured(folder);
+      } catch {
+        found = undefined;
+      }
+      list = found ? found.map(normalExtension) : MANUSCRIPT_EXTENSIONS;
+      cache.set(folder, list);
+    }
+    return list;
+  };
+}
+
+function walk(dir: string, visited: Set<string>, add: (f: string) => void, at: (p: string) => string, ignored: IgnoreRules, top: string, bounds: Bounds | undefined, extensions: (folder: string) => readonly string[]): void {
   let real: string;
   try {
     real = realpathSync(at(dir));
@@ -257,8 +299,8 @@ function walk(dir: string, visited: Set<string>, add: (f: string) => void, at: (
       }
     }
     if (isDir) {
-      if (!ignored.test(at(path), true, top)) walk(path, visited, add, at, ignored, top, bounds);
-    } else if (isFile && isManuscript(e.name) && !e.name.startsWith('~$') && !ignored.test(at(path), false, top)) add(path);
+      if (!ignored.test(at(path), true, top)) walk(path, visited, add, at, ignored, top, bounds, extensions);
+    } else if (isFile && isManuscript(e.name, extensions(at(dir))) && !e.name.startsWith('~$') && !ignored.test(at(path), false, top)) add(path);
   }
 }
 

@@ -190,6 +190,7 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
     ...(options.checklist !== undefined || options.format === 'checklist' ? { checklist: options.checklist ?? true } : {}),
     ...(options.config !== undefined ? { configFile: options.config } : {}),
     ...(options.maxFileBytes !== undefined ? { maxFileBytes: options.maxFileBytes } : {}),
+    ...(options.extensions !== undefined ? { extensions: options.extensions } : {}),
     ...(options.jobs !== undefined ? { jobs: options.jobs } : {}),
     budget: budgetOf(options),
     ...(options.followLinksOutside ? { followLinksOutside: true } : {}),

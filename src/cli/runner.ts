@@ -39,6 +39,11 @@ export interface RunnerOptions {
   /** Follow symbolic links that lead outside a folder walked (default: skip them, listed in `skippedLinks`). */
   followLinksOutside?: boolean;
   /**
+   * The extensions read when walking a folder (`md`, `.tex`), overriding the configuration's
+   * `extensions` and the default list (MANUSCRIPT_EXTENSIONS).
+   */
+  extensions?: readonly string[];
+  /**
    * Files this run writes (the CLI's --output and --write-baseline, as real paths). When one is
    * also an input — named, met in a folder or matched by a glob — nothing is checked and the run
    * is refused (`outputClash`): writing it would destroy a manuscript.
@@ -84,6 +89,8 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
   const explicitIgnores = explicit?.ignore?.length ? [{ base: dirname(resolve(cwd, options.configFile as string)), patterns: explicit.ignore }] : [];
   const expansion = expandArguments([...args], cwd, {
     ignoresFor: (folder) => (options.configFile !== undefined ? explicitIgnores : finder.forFolder(folder).ignores),
+    ...(options.extensions ? { extensions: options.extensions } : {}),
+    extensionsFor: (folder) => (options.configFile !== undefined ? explicit?.extensions : finder.forFolder(folder).config.extensions),
     ...(options.gitignore === false ? { gitignore: false } : {}),
     ...(options.followLinksOutside ? { followLinksOutside: true } : {}),
   });

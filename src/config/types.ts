@@ -10,6 +10,11 @@ export interface Config {
   maxFileBytes?: number;
   /** Patterns (.gitignore syntax, relative to the configuration file's folder) not checked when walking folders. */
   ignore?: string[];
+  /**
+   * The file name endings read when walking a folder (`.md`, `tex`, …; case-insensitive), in
+   * place of the default list; the nearest configuration's list applies in its folder and below.
+   */
+  extensions?: string[];
   guidelines?: 'all' | Array<'sampl' | 'jars-quant' | 'consort'>;
   checklist?: boolean;
   rules?: Record<string, LevelSetting>;

@@ -441,6 +441,35 @@ describe('ignore patterns when walking folders', () => {
     const named = json((await cli(['drafts/old.md', '-f', 'json'], { cwd: dir })).stdout).files.map((f) => f.path);
     expect(named).toEqual(['drafts/old.md']);
   });
+
+  it('the extensions walked: the default list, a configuration\'s "extensions" in its folder and below, --extensions over both; named files always read', async () => {
+    const dir = tree({
+      'paper.md': WRONG,
+      'paper.tex': WRONG,
+      'notes.txt': WRONG,
+      'analysis.R': WRONG,
+      'appendix/.plumbline.json': '{"extensions": ["TEX"]}',
+      'appendix/extra.md': WRONG,
+      'appendix/extra.tex': WRONG,
+      'appendix/deeper/more.md': WRONG,
+      'appendix/deeper/more.tex': WRONG,
+    });
+    const paths = async (args: string[]) => json((await cli(args, { cwd: dir })).stdout).files.map((f) => f.path);
+    // the default list (MANUSCRIPT_EXTENSIONS), except below appendix/, where its configuration's list applies
+    expect(await paths(['.', '-f', 'json'])).toEqual(['appendix/deeper/more.tex', 'appendix/extra.tex', 'notes.txt', 'paper.md', 'paper.tex']);
+    // the command line over every configuration, with or without the dot, any case
+    expect(await paths(['.', '-f', 'json', '--extensions', 'md,.R'])).toEqual(['analysis.R', 'appendix/deeper/more.md', 'appendix/extra.md', 'paper.md']);
+    // a file named is read whatever its ending
+    expect(await paths(['analysis.R', 'paper.md', '-f', 'json', '--extensions', 'tex'])).toEqual(['analysis.R', 'paper.md']);
+    const bad = await cli(['.', '--extensions', 'md,*.tex'], { cwd: dir });
+    expect(bad.code).toBe(2);
+    expect(bad.stderr).toContain('--extensions takes file name endings separated by commas, such as md,tex,docx; got "md,*.tex"');
+    // a configuration's list is checked by the schema like every key
+    writeFileSync(join(dir, 'appendix/.plumbline.json'), '{"extensions": ["*.tex"]}');
+    const refused = await cli(['appendix/extra.md', '-f', 'json'], { cwd: dir });
+    expect(refused.code).toBe(2);
+    expect(refused.stderr).toContain('extensions');
+  });
 });
 
 describe('a package ready to publish', () => {
