@@ -8,6 +8,9 @@
 // footnote marks, words hyphenated at a line end, ligature glyphs, U+2212 minus signs, tables.
 // DejaVu Serif is embedded (subset) because the standard PDF fonts cannot encode U+FB01 or U+2212.
 // Every study, number and name below is invented.
+//
+// fixtures/pdf/chromium-columns.pdf, a page laid out by a browser rather than drawn line by line,
+// comes from the sibling script make-chromium-pdf-fixture.mjs (Debian's chromium).
 import { execFileSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';

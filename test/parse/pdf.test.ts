@@ -80,6 +80,59 @@ describe('PDF text in reading order (two columns)', async () => {
   });
 });
 
+describe('PDF printed by chromium from HTML with CSS columns', async () => {
+  // fixtures/pdf/chromium-columns.pdf is printed by scripts/make-chromium-pdf-fixture.mjs; the
+  // reference for the text is that script's HTML, for the places the PDF chromium printed from it.
+  // p values: scipy.stats.t.sf(|t|, df) doubled (scipy 1.x): t(28) = 2.10 gives .0449, t(34) = 2.74
+  // gives .0097, t(22) = 3.12 gives .0050 (all printed consistently); t(30) = 1.45 gives .157, so
+  // the printed p = .016 cannot follow.
+  const doc = await read('chromium-columns.pdf');
+  const text = doc.source;
+
+  it('reads the title and abstract, the left column, the right column, then page 2', () => {
+    const order = inOrder(text, [
+      'Evening light and reading speed', 'Abstract. Sixty invented students',
+      '1. Method', 'Each student read ten passages.', '2. Results', 'than students under the cool lamp, t(28) =',
+      // chromium broke the column inside this sentence: its end opens the right column
+      '2.10, p = .045, in the first week', 'The gain in comprehension scores', 'The paper lanterns',
+      'Late readers in the cool group', 'had not predicted at the outset.',
+      '3. Discussion', 'Later rounds will use other lamps',
+    ]);
+    expect(order.every((o) => o >= 0)).toBe(true);
+  });
+
+  it('joins the word broken at a soft hyphen, drops the running head and page numbers, keeps paragraphs apart', () => {
+    expect(text).toContain('to the counterbalanced\nresults');
+    expect(text).not.toContain('counter-');
+    expect(text).not.toContain('Invented Bulletin');
+    expect(text).not.toMatch(/(^|\n)[12]\n/);
+    // paragraphs set with space after them and no indent: a sentence end, then a wider gap
+    expect(text).toContain('in the first week of the study.\n\nThe gain');
+    expect(text).toContain('not know the condition.\n\nThe passages');
+  });
+
+  it('extracts every t-test at its page and line, the U+2212 minus as a minus, and flags only the wrong p', () => {
+    const report = checkSource('chromium-columns.pdf', doc.source, { document: doc });
+    expect(report.results.map((r) => [r.t.printed, r.df?.printed, r.p?.printed])).toEqual([
+      ['2.10', '28', 'p = .045'],
+      ['-2.74', '34', 'p = .010'],
+      ['1.45', '30', 'p = .016'],
+      ['3.12', '22', 'p = .005'],
+    ]);
+    // page 1: title (1), abstract (2–3), left column (4–15: t(28) = starts on its last line),
+    // right column from 16; page 2: the heading, then the Discussion's first line
+    expect(report.results.map((r) => r.original)).toEqual([
+      expect.objectContaining({ kind: 'page', page: 1, line: 15 }),
+      expect.objectContaining({ kind: 'page', page: 1, line: 18 }),
+      expect.objectContaining({ kind: 'page', page: 1, line: 26 }),
+      expect.objectContaining({ kind: 'page', page: 2, line: 2 }),
+    ]);
+    const flagged = report.findings.filter((f) => f.level === 'error' || f.level === 'warning');
+    expect(flagged.map((f) => f.ruleId)).toEqual(['significance-follows-from-t']);
+    expect(flagged[0]?.original?.kind === 'page' && flagged[0].original.around).toContain('t(30) = 1.45, p = .016');
+  });
+});
+
 describe('PDF line numbers and tables', () => {
   it('drops a margin column of line numbers and numbers lines per page', async () => {
     const doc = await read('line-numbers.pdf');
@@ -147,6 +200,14 @@ describe('layout from text runs', () => {
 
   it('joins runs on one baseline with a space only where there is a gap', () => {
     expect(text([page([run('t(28)', 72, 700), run('= 2.10,', 72 + 25 + 2.5, 700), run('p', 72 + 25 + 2.5 + 35 + 2.5, 700), run('= .045', 72 + 25 + 2.5 + 35 + 2.5 + 5, 700)])])).toEqual(['t(28) = 2.10, p= .045']);
+  });
+
+  it('starts a paragraph at a gap a third of a line wider than the leading after a sentence end only', () => {
+    // lines 12 apart; the paragraph gap is 17 (1.42 leadings)
+    const lines = (second: string) => [run('Line one of a paragraph.', 72, 700), run('Line two of it goes on and', 72, 688), run('ends here with a stop.', 72, 676), run(second, 72, 659), run('and more of it.', 72, 647)];
+    expect(text([page(lines('A new paragraph begins'))])).toEqual(['Line one of a paragraph.|Line two of it goes on and|ends here with a stop.', 'A new paragraph begins|and more of it.']);
+    const open = lines('a new line goes on').map((r, i) => (i === 2 ? run('ends here with no stop', 72, 676) : r));
+    expect(text([page(open)])).toEqual(['Line one of a paragraph.|Line two of it goes on and|ends here with no stop|a new line goes on|and more of it.']);
   });
 
   it('leaves rotated runs (margin stamps) out', () => {

@@ -517,6 +517,9 @@ function startsParagraph(prev: Numbered, n: Numbered, leading: number): boolean 
   if (!samePlace) return ended;
   const gap = prev.line.y - n.line.y;
   if (gap <= 0 || (leading > 0 && gap > 1.6 * leading)) return true;
+  // a sentence end, then a gap a third of a line wider than the document's leading: paragraph
+  // spacing, as a browser or word processor sets it (space after a paragraph, no indent)
+  if (ended && leading > 0 && gap > 1.3 * leading) return true;
   const em = n.line.size;
   const indented = (n.line.chunks[0] as Chunk).x0 > n.line.columnLeft + 0.8 * em && (prev.line.chunks[0] as Chunk).x0 <= n.line.columnLeft + 0.8 * em;
   if (indented && ended) return true;
