@@ -73,7 +73,7 @@ export function documentFromBlocks(path: string, format: 'docx' | 'pdf', blocks:
       units.push({ ...piece.unit, start: length, end: length + piece.text.length });
       put(piece.text);
     });
-    const text = trimmed(normalize(raw));
+    const text = normalize(raw).trimmed();
     if (text.text === '') continue;
     blockId += 1;
     const seg: Segment = {
@@ -98,21 +98,6 @@ export function documentFromBlocks(path: string, format: 'docx' | 'pdf', blocks:
   });
   const original: OriginalMap = { kind: format, units, ...(options.trackedChanges ? { trackedChanges: true } : {}) };
   return { path, source, format, segments, directives: [], hadBom: false, ...(readNotes.length > 0 ? { readNotes } : {}), original };
-}
-
-/** `text` without the whitespace at its ends, map kept. */
-function trimmed(text: MappedText): MappedText {
-  const t = text.text;
-  let a = 0;
-  let b = t.length;
-  while (a < b && /\s/.test(t[a] as string)) a += 1;
-  while (b > a && /\s/.test(t[b - 1] as string)) b -= 1;
-  if (a === 0 && b === t.length) return text;
-  const out = new MappedText();
-  out.text = t.slice(a, b);
-  out.starts = text.starts.slice(a, b);
-  out.ends = text.ends.slice(a, b);
-  return out;
 }
 
 /** Where an offset of a binary document's extracted text sits in the original: its unit, found by binary search. */

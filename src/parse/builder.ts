@@ -15,6 +15,8 @@ export function offsetArray(offsets: readonly number[], shift = 0): Int32Array {
   return out;
 }
 
+const WHITESPACE = /\s/;
+
 export class MappedText {
   text = '';
   starts: number[] = [];
@@ -36,6 +38,21 @@ export class MappedText {
       this.starts.push(start);
       this.ends.push(end);
     }
+  }
+
+  /** This text without the whitespace at its ends, map kept (itself when there is none). */
+  trimmed(): MappedText {
+    const t = this.text;
+    let a = 0;
+    let b = t.length;
+    while (a < b && WHITESPACE.test(t[a] as string)) a += 1;
+    while (b > a && WHITESPACE.test(t[b - 1] as string)) b -= 1;
+    if (a === 0 && b === t.length) return this;
+    const out = new MappedText();
+    out.text = t.slice(a, b);
+    out.starts = this.starts.slice(a, b);
+    out.ends = this.ends.slice(a, b);
+    return out;
   }
 
   /** Append another mapped text as it stands. */

@@ -758,7 +758,7 @@ class LatexReader {
 
   /** A segment of `raw`, its surrounding whitespace left out (as the Markdown reader's blocks and cells are); `claim`: pending directives apply to it. */
   private emit(kind: SegmentKind, raw: MappedText, table?: TablePlace, claim = true): Segment | undefined {
-    const text = trimmed(normalize(raw));
+    const text = normalize(raw).trimmed();
     if (text.text === '') return undefined;
     const seg: Segment = {
       id: this.segments.length,
@@ -773,21 +773,6 @@ class LatexReader {
     this.segments.push(seg);
     return seg;
   }
-}
-
-/** `text` without the whitespace at its ends, map kept. */
-function trimmed(text: MappedText): MappedText {
-  const t = text.text;
-  let a = 0;
-  let b = t.length;
-  while (a < b && /\s/.test(t[a] as string)) a += 1;
-  while (b > a && /\s/.test(t[b - 1] as string)) b -= 1;
-  if (a === 0 && b === t.length) return text;
-  const out = new MappedText();
-  out.text = t.slice(a, b);
-  out.starts = text.starts.slice(a, b);
-  out.ends = text.ends.slice(a, b);
-  return out;
 }
 
 /** The first match of a global `pattern` that is not inside a comment, or undefined. */
