@@ -1,5 +1,5 @@
 import { fill, numberInterval, showBound, showInterval, showNumber, type Rule, type RuleContext, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
-import { associationRange, type Interval } from '../src/stats/index.js';
+import { associationRange, distanceBetween, type Interval } from '../src/stats/index.js';
 
 type LinkedStatistic = RuleContext<unknown>['document']['statistics'][number];
 
@@ -36,7 +36,7 @@ export const associationFollowsFromChiSquare: Rule = {
       const v = Math.abs(a.value.value);
       const [r0, r1] = numberInterval({ ...a.value, value: v });
       const [e0, e1] = a.op === '<' || a.op === '<=' ? [0, v] : a.op === '>' || a.op === '>=' ? [v, 1] : [Math.max(0, r0), r1];
-      const gaps = readings.map((r) => gapBetween(r.range, e0, e1));
+      const gaps = readings.map((r) => distanceBetween(r.range, e0, e1));
       if (gaps.some((g) => g <= 0)) continue;
       const best = gaps.indexOf(Math.min(...gaps));
       const nearest = readings[best] as { k: number; range: Interval };
@@ -96,10 +96,4 @@ function kSource(linked: LinkedStatistic, ks: number[]): string {
   const size = linked.dimensions;
   if (size) return `min(r, c) − 1 = ${ks[0]} (${size.item.printed.trim()})`;
   return `min(r, c) − 1 in {${ks.join(', ')}} (every table the df ${linked.report.dfs?.[0]?.printed ?? ''} allows)`;
-}
-
-function gapBetween(r: Interval, lo: number, hi: number): number {
-  if (r.high < lo) return lo - r.high;
-  if (r.low > hi) return r.low - hi;
-  return 0;
 }

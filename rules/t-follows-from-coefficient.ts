@@ -1,5 +1,4 @@
-import { fill, linkDoubts, numberInterval, showBound, showInterval, showNumber, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
-import { quotientRange } from '../src/stats/index.js';
+import { coefficientRatio, fill, linkDoubts, showInterval, showNumber, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   mismatch:
@@ -21,22 +20,10 @@ export const tFollowsFromCoefficient: Rule = {
       const link = result.context.coefficient;
       const r = result.report;
       if (!link || r.tOp !== '=' || !Number.isFinite(r.t.value)) continue;
-      const { value: b, se } = link.item;
-      if (!Number.isFinite(b.value) || !Number.isFinite(se.value)) continue;
-      const [b0, b1] = numberInterval(b);
-      const [s0, s1] = numberInterval(se);
-      // an SE printed as 0.00 allows any t: nothing to check
-      if (!(s0 > 0)) continue;
-      const range = quotientRange(b0, b1, s0, s1);
-      if (Number.isNaN(range.low) || Number.isNaN(range.high)) continue;
-      const [t0, t1] = numberInterval(r.t);
-      // some print |t| whatever the coefficient's sign: either sign is accepted
-      const gap = Math.min(distance(range.low, range.high, t0, t1), distance(range.low, range.high, -t1, -t0));
-      if (gap <= 0) continue;
-      const inputs = [
-        `${link.item.printed.trim()} (read as ${showBound(b0, b.decimals, b.exponent)} to ${showBound(b1, b.decimals, b.exponent)})`,
-        `SE = ${se.printed.trim()} (read as ${showBound(s0, se.decimals, se.exponent)} to ${showBound(s1, se.decimals, se.exponent)})`,
-      ];
+      const ratio = coefficientRatio(link.item, r.t);
+      if (!ratio || ratio.gap <= 0) continue;
+      const { inputs, gap } = ratio;
+      const se = link.item.se;
       const doubts = linkDoubts({ linked: [link] });
       out.push({
         messageId: 'mismatch',
@@ -46,11 +33,11 @@ export const tFollowsFromCoefficient: Rule = {
           coefficient: link.item.printed.trim(),
           se: se.printed.trim(),
           inputs: inputs.join(', '),
-          range: showInterval(range.low, range.high),
+          range: showInterval(ratio.low, ratio.high),
           gap: showNumber(gap),
         }),
         reported: r.printed,
-        recomputed: { quantity: 't = b / SE', low: range.low, high: range.high, inputs, assumptions: ['t is the coefficient over its standard error (the Wald statistic)', 'either sign of t accepted'] },
+        recomputed: { quantity: 't = b / SE', low: ratio.low, high: ratio.high, inputs, assumptions: ['t is the coefficient over its standard error (the Wald statistic)', 'either sign of t accepted'] },
         gap: { absolute: gap },
         check: 'Check the coefficient, its SE and t against the model output: one of them may be mistyped, standardised (β with the SE of b) or copied from another row.',
         resultId: r.id,
@@ -62,11 +49,3 @@ export const tFollowsFromCoefficient: Rule = {
     return out;
   },
 };
-
-/** How far apart [a0, a1] and [b0, b1] are (0 when they meet). */
-function distance(a0: number, a1: number, b0: number, b1: number): number {
-  if (a1 < b0) return b0 - a1;
-  if (b1 < a0) return a0 - b1;
-  return 0;
-}
-

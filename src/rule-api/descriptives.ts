@@ -1,6 +1,6 @@
 import type { GroupSummary, SpreadKind } from '../extract/types.js';
 import type { Design, LinkedResult } from '../link/index.js';
-import { oneSampleAbsT, studentAbsT, welchAbsT, welchDfRange, type Box, type Interval } from '../stats/index.js';
+import { distanceBetween, oneSampleAbsT, studentAbsT, welchAbsT, welchDfRange, type Box, type Interval } from '../stats/index.js';
 import { showInterval } from './format.js';
 import { dfInterval, isWholeDf, numberInterval, tInterval } from './intervals.js';
 
@@ -149,7 +149,7 @@ export function evaluateDescriptives(result: LinkedResult): DescriptiveEvaluatio
               fits = dfRange.low <= dh && dfRange.high >= dl;
             }
             const attempt: Attempt = { variant, reading: rd1.reading, ns: [n1, n2], nSource: splits.source, absT, fits };
-            if (!best || (fits && !best.fits) || (!best.fits && !fits && gapTo(absT, reportedAbsT) < gapTo(best.absT, reportedAbsT))) best = attempt;
+            if (!best || (fits && !best.fits) || (!best.fits && !fits && distanceBetween(absT, reportedAbsT.low, reportedAbsT.high) < distanceBetween(best.absT, reportedAbsT.low, reportedAbsT.high))) best = attempt;
             if (fits) break;
           }
           if (best) {
@@ -184,11 +184,6 @@ export function spreadReadings(kinds: readonly string[]): boolean[] {
   return kinds.every((k) => k === 'SD') ? [false] : kinds.every((k) => k === 'SE') ? [true] : [false, true];
 }
 
-function gapTo(a: Interval, b: Interval): number {
-  if (a.high < b.low) return b.low - a.high;
-  if (a.low > b.high) return a.low - b.high;
-  return 0;
-}
 
 /**
  * The design used for recomputation: the linked one; where unknown, the df decides when the

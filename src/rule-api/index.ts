@@ -9,3 +9,4 @@ export { checklistRule, resultEntries, statisticBase, type ChecklistRuleSpec } f
 export { descriptiveDoubts, linkDoubts } from './doubts.js';
 export { groupBy } from '../link/index.js';
 export { evaluateStatisticP, statisticName, statisticPFindings, statisticPlaceholders, type StatisticPEvaluation, type StatisticReading } from './statistic.js';
+export { coefficientRatio, type CoefficientRatio } from './coefficient.js';
