@@ -1,12 +1,12 @@
 import yargs from 'yargs';
 import { toolVersion } from '../engine/docs.js';
-import { FORMATS, helpText, OPTIONS, RULES_FORMATS, SUMMARY_FORMATS, SUMMARY_TABLES, type Format } from './help.js';
+import { FORMATS, helpText, OPTIONS, RULES_FORMATS, SUMMARY_FORMATS, SUMMARY_TABLES, type Command, type Format } from './help.js';
 
 export { FORMATS, helpText, RULES_FORMATS, SUMMARY_FORMATS, SUMMARY_TABLES, wrapWords, type Format } from './help.js';
 
 /** What the command line asks for, validated. */
 export interface CliOptions {
-  command: 'check' | 'rules' | 'explain' | 'batch' | 'summarize' | 'lsp';
+  command: Command;
   files: string[];
   /** `-` was given: read standard input. */
   stdin: boolean;
@@ -105,12 +105,13 @@ export async function parseArguments(argv: string[], columns: number | undefined
   const num = (name: string) => parsed[name] as number | undefined;
 
   const command = String((parsed._ as unknown[])[0] ?? 'check') as CliOptions['command'];
+  const misplaced = misplacedOptions(parsed, words, command);
+  if (misplaced.length > 0) return { kind: 'error', message: misplacedMessage(misplaced, command) };
   const summarize = command === 'summarize';
   const format = str('format') ?? (summarize ? 'csv' : 'human');
   const formats: readonly string[] = command === 'rules' ? RULES_FORMATS : summarize ? SUMMARY_FORMATS : FORMATS;
   if (!formats.includes(format)) return { kind: 'error', message: `--format must be one of ${formats.join(', ')}${command === 'rules' || summarize ? ` for "${command}"` : ''}; got "${format}"` };
   const table = str('table');
-  if (table !== undefined && !summarize) return { kind: 'error', message: '--table applies to summarize only' };
   if (table !== undefined && !(SUMMARY_TABLES as readonly string[]).includes(table)) return { kind: 'error', message: `--table must be one of ${SUMMARY_TABLES.join(', ')}; got "${table}"` };
   if (table !== undefined && format !== 'csv') return { kind: 'error', message: '--table chooses a CSV table; the HTML page holds them all' };
   const tails = str('tails');
@@ -137,7 +138,6 @@ export async function parseArguments(argv: string[], columns: number | undefined
   const firstLine = num('first-line');
   if (firstLine !== undefined && !(Number.isInteger(firstLine) && firstLine >= 1))
     return { kind: 'error', message: `--first-line must be a whole number, 1 or more; got "${rawValue(words, 'first-line') ?? ''}"` };
-  if (firstLine !== undefined && command !== 'batch') return { kind: 'error', message: '--first-line applies to batch only' };
   for (const name of ['output', 'baseline', 'write-baseline', 'config', 'stdin-name', 'annotate'] as const) if (str(name) === '') return { kind: 'error', message: `--${name} needs a value` };
   if (parsed.fix === true && parsed['fix-dry-run'] === true) return { kind: 'error', message: '--fix and --fix-dry-run do not go together; give one' };
 
@@ -175,6 +175,41 @@ export async function parseArguments(argv: string[], columns: number | undefined
     ...(str('annotate') !== undefined ? { annotate: str('annotate') as string } : {}),
   };
   return { kind: 'run', options };
+}
+
+/** How messages name a command, with why an option means nothing to it where that helps. */
+const COMMAND_LABEL: Record<Command, { name: string; why: string }> = {
+  check: { name: 'checking files', why: '' },
+  rules: { name: 'rules', why: ', which lists the rules' },
+  explain: { name: 'explain', why: ", which prints a rule's page" },
+  batch: { name: 'batch', why: ', which writes one NDJSON line per document' },
+  summarize: { name: 'summarize', why: ', which reads batch output and checks nothing' },
+  lsp: { name: 'lsp', why: ', whose settings come from the editor' },
+};
+
+type OptionEntry = (typeof OPTIONS)[number];
+/** A word of short options, such as -q or -qj2. */
+const SHORT_CLUSTER = /^-[^-]/;
+
+/**
+ * The options given that mean nothing to `command`, in the order first written: refused rather
+ * than silently ignored. `--format human` is batch's own output in all but name, so it passes.
+ */
+function misplacedOptions(parsed: Record<string, unknown>, words: string[], command: Command): OptionEntry[] {
+  const given = OPTIONS.filter((o) => parsed[o.name] !== undefined && !o.commands.includes(command) && !(o.name === 'format' && command === 'batch' && parsed.format === 'human'));
+  const firstAt = (o: OptionEntry) => {
+    const i = words.findIndex((w) => w === `--${o.name}` || w.startsWith(`--${o.name}=`) || w === `--no-${o.name}` || (o.short !== undefined && SHORT_CLUSTER.test(w) && w.slice(1).split('=')[0]!.includes(o.short)));
+    return i < 0 ? Number.POSITIVE_INFINITY : i;
+  };
+  return given.map((o) => ({ o, at: firstAt(o) })).sort((a, b) => a.at - b.at).map(({ o }) => o);
+}
+
+function misplacedMessage(options: OptionEntry[], command: Command): string {
+  const only = options[0];
+  if (options.length === 1 && only !== undefined && only.commands.length === 1) return `--${only.name} applies to ${COMMAND_LABEL[only.commands[0] as Command].name} only`;
+  const names = options.map((o) => `--${o.name}`).join(', ');
+  const label = COMMAND_LABEL[command];
+  return `${names} ${options.length === 1 ? 'does' : 'do'} not apply to ${label.name}${label.why}`;
 }
 
 /** The value printed after an option, for messages ("abc" rather than NaN); undefined when it cannot be told (a cluster such as -qj2). */

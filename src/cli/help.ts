@@ -11,39 +11,48 @@ export const RULES_FORMATS = ['human', 'json'] as const;
 export const SUMMARY_FORMATS = ['csv', 'html'] as const;
 export const SUMMARY_TABLES = ['rules', 'gaps', 'documents'] as const;
 
-/** The options, once: yargs is configured from this list and the help text is written from it. */
-export const OPTIONS: Array<{ name: string; short?: string; type: 'string' | 'number' | 'boolean'; value?: string; describe: string }> = [
-  { name: 'format', short: 'f', type: 'string', value: 'NAME', describe: `output format: ${FORMATS.join(', ')} (default human; "rules" takes human or json)` },
-  { name: 'output', short: 'o', type: 'string', value: 'FILE', describe: 'write the report to FILE (a regular file atomically, through symbolic links; a FIFO or device directly; never over an input file)' },
-  { name: 'quiet', short: 'q', type: 'boolean', describe: 'report errors only: warnings and notes are neither shown nor counted' },
-  { name: 'max-warnings', type: 'number', value: 'N', describe: 'exit 1 when more than N warnings are reported (default: no limit)' },
-  { name: 'baseline', type: 'string', value: 'FILE', describe: 'report only findings that are not in this baseline file, and count only them' },
-  { name: 'write-baseline', type: 'string', value: 'FILE', describe: 'record the current findings in FILE (reasons already given there are kept)' },
-  { name: 'annotate', type: 'string', value: 'FILE', describe: 'also write a copy of the one Word or PDF file checked: each finding a Word comment on its characters, or in a PDF a highlight over them with a note (atomically; the original is never changed)' },
-  { name: 'checklist', type: 'boolean', describe: 'also check the write-up against reporting guidelines (on with --format checklist)' },
-  { name: 'alpha', type: 'number', value: 'N', describe: 'significance level where the text and its front matter state none (default .05)' },
-  { name: 'tails', type: 'string', value: 'one|two', describe: 'tails assumed where the text and its front matter say nothing (default two)' },
-  { name: 'config', short: 'c', type: 'string', value: 'FILE', describe: 'use this configuration file instead of searching for one' },
-  { name: 'stdin-name', type: 'string', value: 'NAME', describe: 'file name (and so format) for "-" (default stdin.md)' },
-  { name: 'jobs', short: 'j', type: 'number', value: 'N', describe: 'worker threads (default: one per MiB of text, at most one per core and per document; batch adds them as the text read grows; a single small document is checked without one)' },
-  { name: 'memory-budget', type: 'number', value: 'MB', describe: `heap a document may use before it is reported as not checked (default ${DEFAULT_BUDGET.memoryMb})` },
-  { name: 'time-budget', type: 'number', value: 'S', describe: `seconds a document may take before it is reported as not checked (default ${DEFAULT_BUDGET.seconds})` },
-  { name: 'max-file-bytes', type: 'number', value: 'N', describe: `skip files larger than N bytes (default ${DEFAULT_MAX_FILE_BYTES}, or maxFileBytes in configuration)` },
-  { name: 'extensions', type: 'string', value: 'LIST', describe: 'file name endings read when walking a folder, separated by commas (default .md,.markdown,.txt,.rmd,.qmd,.tex,.docx,.pdf, or extensions in configuration); a file named on the command line is always read' },
-  { name: 'table', type: 'string', value: 'NAME', describe: `summarize, CSV: ${SUMMARY_TABLES.join(', ')} (default rules)` },
-  { name: 'first-line', type: 'number', value: 'N', describe: 'batch: number the first input line N in messages and names (default 1), so a chunk of a larger input, checked apart, answers as the whole run would' },
-  { name: 'follow-links-outside', type: 'boolean', describe: 'when walking a folder or a glob, follow symbolic links that lead outside it (default: skip them and say so; a link named on the command line is always read)' },
-  { name: 'fix', type: 'boolean', describe: 'apply the safe formatting fixes (each listed on its rule\'s page) to the files, written atomically; a wrong number is never changed' },
-  { name: 'fix-dry-run', type: 'boolean', describe: 'print the safe formatting fixes as a unified diff; change nothing' },
-  { name: 'watch', type: 'boolean', describe: 'check again whenever a file named (or in a folder named) changes, until interrupted' },
-  { name: 'stdio', type: 'boolean', describe: 'for lsp: speak over standard input and output (its only transport; accepted because editors\' LSP clients pass it)' },
-  { name: 'color', type: 'boolean', describe: 'colour the human format (default: on a terminal, unless NO_COLOR is set); --no-color turns it off' },
-  { name: 'help', short: 'h', type: 'boolean', describe: 'show this help' },
-  { name: 'version', short: 'v', type: 'boolean', describe: 'show the version' },
+/** The commands: `check` is `plumbline [files…]`. */
+export const COMMAND_NAMES = ['check', 'rules', 'explain', 'batch', 'summarize', 'lsp'] as const;
+export type Command = (typeof COMMAND_NAMES)[number];
+const ALL = COMMAND_NAMES;
+
+/**
+ * The options, once: yargs is configured from this list and the help text is written from it.
+ * `commands` are those an option means something to; given to any other, it is refused rather
+ * than ignored (src/cli/args.ts).
+ */
+export const OPTIONS: Array<{ name: string; short?: string; type: 'string' | 'number' | 'boolean'; value?: string; commands: readonly Command[]; describe: string }> = [
+  { name: 'format', commands: ['check', 'rules', 'summarize'], short: 'f', type: 'string', value: 'NAME', describe: `output format: ${FORMATS.join(', ')} (default human; "rules" takes human or json)` },
+  { name: 'output', commands: ['check', 'batch', 'summarize'], short: 'o', type: 'string', value: 'FILE', describe: 'write the report to FILE (a regular file atomically, through symbolic links; a FIFO or device directly; never over an input file)' },
+  { name: 'quiet', commands: ['check'], short: 'q', type: 'boolean', describe: 'report errors only: warnings and notes are neither shown nor counted' },
+  { name: 'max-warnings', commands: ['check'], type: 'number', value: 'N', describe: 'exit 1 when more than N warnings are reported (default: no limit)' },
+  { name: 'baseline', commands: ['check'], type: 'string', value: 'FILE', describe: 'report only findings that are not in this baseline file, and count only them' },
+  { name: 'write-baseline', commands: ['check'], type: 'string', value: 'FILE', describe: 'record the current findings in FILE (reasons already given there are kept)' },
+  { name: 'annotate', commands: ['check'], type: 'string', value: 'FILE', describe: 'also write a copy of the one Word or PDF file checked: each finding a Word comment on its characters, or in a PDF a highlight over them with a note (atomically; the original is never changed)' },
+  { name: 'checklist', commands: ['check', 'batch'], type: 'boolean', describe: 'also check the write-up against reporting guidelines (on with --format checklist)' },
+  { name: 'alpha', commands: ['check', 'batch'], type: 'number', value: 'N', describe: 'significance level where the text and its front matter state none (default .05)' },
+  { name: 'tails', commands: ['check', 'batch'], type: 'string', value: 'one|two', describe: 'tails assumed where the text and its front matter say nothing (default two)' },
+  { name: 'config', commands: ['check', 'batch'], short: 'c', type: 'string', value: 'FILE', describe: 'use this configuration file instead of searching for one' },
+  { name: 'stdin-name', commands: ['check'], type: 'string', value: 'NAME', describe: 'file name (and so format) for "-" (default stdin.md)' },
+  { name: 'jobs', commands: ['check', 'batch'], short: 'j', type: 'number', value: 'N', describe: 'worker threads (default: one per MiB of text, at most one per core and per document; batch adds them as the text read grows; a single small document is checked without one)' },
+  { name: 'memory-budget', commands: ['check', 'batch', 'lsp'], type: 'number', value: 'MB', describe: `heap a document may use before it is reported as not checked (default ${DEFAULT_BUDGET.memoryMb})` },
+  { name: 'time-budget', commands: ['check', 'batch', 'lsp'], type: 'number', value: 'S', describe: `seconds a document may take before it is reported as not checked (default ${DEFAULT_BUDGET.seconds})` },
+  { name: 'max-file-bytes', commands: ['check', 'batch'], type: 'number', value: 'N', describe: `skip files larger than N bytes (default ${DEFAULT_MAX_FILE_BYTES}, or maxFileBytes in configuration)` },
+  { name: 'extensions', commands: ['check'], type: 'string', value: 'LIST', describe: 'file name endings read when walking a folder, separated by commas (default .md,.markdown,.txt,.rmd,.qmd,.tex,.docx,.pdf, or extensions in configuration); a file named on the command line is always read' },
+  { name: 'table', commands: ['summarize'], type: 'string', value: 'NAME', describe: `summarize, CSV: ${SUMMARY_TABLES.join(', ')} (default rules)` },
+  { name: 'first-line', commands: ['batch'], type: 'number', value: 'N', describe: 'batch: number the first input line N in messages and names (default 1), so a chunk of a larger input, checked apart, answers as the whole run would' },
+  { name: 'follow-links-outside', commands: ['check'], type: 'boolean', describe: 'when walking a folder or a glob, follow symbolic links that lead outside it (default: skip them and say so; a link named on the command line is always read)' },
+  { name: 'fix', commands: ['check'], type: 'boolean', describe: 'apply the safe formatting fixes (each listed on its rule\'s page) to the files, written atomically; a wrong number is never changed' },
+  { name: 'fix-dry-run', commands: ['check'], type: 'boolean', describe: 'print the safe formatting fixes as a unified diff; change nothing' },
+  { name: 'watch', commands: ['check'], type: 'boolean', describe: 'check again whenever a file named (or in a folder named) changes, until interrupted' },
+  { name: 'stdio', commands: ['lsp'], type: 'boolean', describe: 'for lsp: speak over standard input and output (its only transport; accepted because editors\' LSP clients pass it)' },
+  { name: 'color', commands: ALL, type: 'boolean', describe: 'colour the human format (default: on a terminal, unless NO_COLOR is set); --no-color turns it off' },
+  { name: 'help', commands: ALL, short: 'h', type: 'boolean', describe: 'show this help' },
+  { name: 'version', commands: ALL, short: 'v', type: 'boolean', describe: 'show the version' },
 ];
 
 const COMMANDS: Array<[string, string]> = [
-  ['plumbline [files…]', 'check manuscripts: files, folders (walked for .md .markdown .txt .Rmd .qmd) and globs; "-" reads standard input; after "--" every word is a file'],
+  ['plumbline [files…]', 'check manuscripts: files, folders (walked for .md .markdown .txt .Rmd .qmd .tex .docx .pdf) and globs; "-" reads standard input; after "--" every word is a file'],
   ['plumbline explain RULE', "print a rule's page"],
   ['plumbline rules', 'list the rules (--format json: with kind, default level and options schema)'],
   ['plumbline lsp', 'a language server over standard input and output, for editors (see the README)'],

@@ -80,21 +80,6 @@ export async function run(argv: string[], rawIo: Io): Promise<number> {
     return EXIT.trouble;
   }
 
-  if (options.command === 'batch') {
-    const given: Array<[string, boolean]> = [
-      ['--baseline', options.baseline !== undefined],
-      ['--write-baseline', options.writeBaseline !== undefined],
-      ['--annotate', options.annotate !== undefined],
-      ['--max-warnings', options.maxWarnings !== undefined],
-      ['--quiet', options.quiet],
-      ['--format', options.format !== 'human'],
-    ];
-    const names = given.filter(([, on]) => on).map(([name]) => name);
-    if (names.length > 0) {
-      io.stderr(`plumbline: ${names.join(', ')} ${names.length === 1 ? 'does' : 'do'} not apply to batch, which writes one NDJSON line per document\n`);
-      return EXIT.trouble;
-    }
-  }
   const writes: string[] = [];
   if (options.writeBaseline !== undefined) writes.push(identity(options.writeBaseline, io.cwd));
   if (options.annotate !== undefined) writes.push(identity(options.annotate, io.cwd));

@@ -7,6 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { checkFiles, formatJson, readBaseline } from '../../src/index.js';
 import { RULES } from '../../src/engine/index.js';
 import { BIN, cli } from './harness.js';
+import { COMMAND_NAMES, OPTIONS } from '../../src/cli/help.js';
 
 /**
  * The command line behaves as users of command-line linters expect: output through links and
@@ -153,6 +154,31 @@ describe('options are validated, each named in its message (exit 2)', () => {
     expect(out.code).toBe(2);
     expect(out.stderr).toContain(message);
     expect(out.stdout).toBe('');
+  });
+
+  // an option that means nothing to a command is refused, never silently ignored
+  it.each([
+    [['rules', '--alpha', '0.2', '-j', '3'], '--alpha, --jobs do not apply to rules'],
+    [['explain', 'p-follows-from-t', '-f', 'json'], '--format does not apply to explain'],
+    [['summarize', '--tails', 'one', 'a.md'], '--tails does not apply to summarize'],
+    [['summarize', '--quiet', 'a.md'], '--quiet applies to checking files only'],
+    [['lsp', '--config', 'x.json'], '--config does not apply to lsp'],
+    [['a.md', '--stdio'], '--stdio applies to lsp only'],
+    [['rules', '-o', 'rules.txt'], '--output does not apply to rules'],
+    [['batch', '--watch'], '--watch applies to checking files only'],
+  ])('misplaced: %j', async (args, message) => {
+    const out = await cli(args, { cwd: dir });
+    expect(out.code).toBe(2);
+    expect(out.stderr).toContain(message);
+    expect(out.stdout).toBe('');
+    expect(existsSync(join(dir, 'rules.txt'))).toBe(false);
+  });
+
+  it('every option is accepted by at least one command, and each command it names exists', () => {
+    for (const o of OPTIONS) {
+      expect(o.commands.length, o.name).toBeGreaterThan(0);
+      for (const c of o.commands) expect(COMMAND_NAMES, o.name).toContain(c);
+    }
   });
 
   it('an unknown option is named once, with its dashes', async () => {
