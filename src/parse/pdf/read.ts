@@ -115,7 +115,11 @@ export async function readPdfText(bytes: Uint8Array, limits: PdfLimits = DEFAULT
       const fresh = new Set<string>();
       for (const item of content.items) if ('str' in item && item.fontName !== '' && !repairs.has(item.fontName)) fresh.add(item.fontName);
       if (fresh.size > 0) {
-        await page.getOperatorList({ annotationMode: pdfjs.AnnotationMode.DISABLE });
+        try {
+          await page.getOperatorList({ annotationMode: pdfjs.AnnotationMode.DISABLE });
+        } catch {
+          // a page pdf.js cannot draw: its text is read as pdf.js gives it
+        }
         for (const name of fresh) repairs.set(name, page.commonObjs.has(name) ? repairOf(page.commonObjs.get(name) as FontRecord) : undefined);
       }
       const unreadFonts = new Set<string>();
