@@ -68,6 +68,14 @@ describe('repairOf', () => {
     expect(repairText('a ! b', r!)).toEqual({ text: 'a ! b', unreadable: 1 });
   });
 
+  it('never reads a space as a glyph (pdf.js puts spaces of its own between words, in the font around them)', () => {
+    // OML (cmmi10.afm) puts psi at code 32; a TeX font whose code 32 has no Unicode keeps its spaces
+    const r = repairOf({ name: 'ABCDEF+CMMI10', toUnicode: { _map: Object.assign([], { 116: 't' }) } });
+    expect(r?.recovered.has(' ')).toBe(false);
+    expect(repairText('t < 2', r!).text).toBe('t < 2');
+    expect(repairText('\u000b', r!).text).toBe('α');
+  });
+
   it('leaves composite fonts and identity maps to pdf.js', () => {
     expect(repairOf({ name: 'X', composite: true, differences: names({ 33: 'H11005' }) })).toBeUndefined();
     expect(repairOf({ name: 'X', differences: names({ 33: 'H11005' }), toUnicode: { firstChar: 0, lastChar: 255 } })).toBeUndefined();

@@ -13,8 +13,9 @@ import { TEX_ENCODINGS } from './texEncodings.js';
  * - the standard TeX fonts by name (CMMI, CMSY, CMR and kin), whose code tables are the TeX
  *   encodings OML, OMS and OT1 (texEncodings.ts), when the glyph names say nothing.
  * A code is recovered only when the character pdf.js shows for it is shown for no other code of
- * the font (otherwise which code printed it is not known); a code the font names but that nothing
- * here reads is unreadable, and the pages where such characters are printed get a note.
+ * the font (otherwise which code printed it is not known) and is not a space (pdf.js inserts
+ * spaces between words); a code the font names but that nothing here reads is unreadable, and
+ * the pages where such characters are printed get a note.
  */
 
 /**
@@ -94,7 +95,9 @@ export function repairOf(font: FontRecord): FontRepair | undefined {
   const unreadable = new Set<string>();
   for (const { code, name, named } of unmapped) {
     const shown = String.fromCharCode(code);
-    if (shownByMapped.has(shown)) continue;
+    // pdf.js also puts spaces of its own between words, in the font of the text around them: a
+    // space is never read as a glyph (OML's code 32 is ψ, rarely set; it stays a space)
+    if (shownByMapped.has(shown) || shown === ' ' || shown === '\u00A0') continue;
     const read = (name !== undefined ? GLYPH_NAMES[name] : undefined) ?? tex?.[code];
     if (read !== undefined) recovered.set(shown, read);
     // Unreadable: a code the font's own /Differences names with a name nothing reads. A name of
