@@ -22,7 +22,8 @@ export function includeNameProblem(name: string): string | undefined {
 export function includeCandidates(inc: LatexInclude): string[] {
   const last = inc.name.split(SEPARATOR).at(-1) ?? '';
   const withTex = `${inc.name}.tex`;
-  return inc.command === 'include' || !last.includes('.') ? [withTex, inc.name] : [inc.name];
+  // an extension as Node's extname sees one: a dot after the name's first character
+  return inc.command === 'include' || last.lastIndexOf('.') <= 0 ? [withTex, inc.name] : [inc.name];
 }
 
 /**
