@@ -9,6 +9,7 @@ const messages = {
   'include-not-read': 'A file this LaTeX manuscript includes was not read: {detail}. Results in it were not checked.',
   'tracked-changes-accepted': 'This Word file holds tracked changes: {detail}.',
   'macro-not-expanded': 'A command this LaTeX manuscript defines was not expanded: {detail}. A result printed through it was not checked.',
+  'glyphs-not-read': 'Some characters of this PDF could not be read: {detail}. Results printed with them may be missed or misread.',
 };
 
 /** The file could be read as written: every byte decoded, the Markdown structure within the parser's limits. */
@@ -47,6 +48,15 @@ export const inputIsReadable: Rule = {
           message: messages['macro-not-expanded'].replace('{detail}', n.message),
           reported: 'a defined command',
           check: 'Look at what the command prints where it is used; a result printed through it may need checking by hand.',
+        };
+      }
+      if (n.kind === 'glyphs-not-read') {
+        return {
+          messageId: 'glyphs-not-read',
+          span: n.span,
+          message: messages['glyphs-not-read'].replace('{detail}', n.message),
+          reported: 'characters without Unicode',
+          check: 'Look at the pages named in the PDF itself: signs such as =, < or − set in a symbol font may have been read as other characters. Check the results there by hand, or check the manuscript in its Word or LaTeX form.',
         };
       }
       if (n.kind === 'encoding-guessed') {

@@ -3,7 +3,8 @@
  * does, get results and findings as data, and format them in any of the report formats. The
  * command line (src/cli) is a thin layer over these.
  */
-export { checkSource, RULES, RULE_IDS, ruleById, type CheckOptions } from './engine/index.js';
+export { checkSource, checkWithIncludes, RULES, RULE_IDS, ruleById, type CheckOptions, type IncludeCheckOptions, type IncludeReader } from './engine/index.js';
+export { folderIncludeReader } from './cli/includes.js';
 export type { ChecklistRecord, FileFailure, FileReport, Finding, LinkedRecord, NumberRecord, Place, ResultRecord } from './engine/types.js';
 export { ConfigError, ConfigFinder, parseConfigText, readConfigFile, type Config, type FoundConfig } from './config/index.js';
 export {

@@ -1,9 +1,8 @@
-import { realpathSync, statSync } from 'node:fs';
-import { extname, isAbsolute, join, relative, resolve, sep } from 'node:path';
-import { formatForPath, readLatexIncludes, type LatexInclude, type ReadNote } from '../engine/index.js';
+import { readFileSync, realpathSync, statSync } from 'node:fs';
+import { isAbsolute, join, relative, resolve, sep } from 'node:path';
+import { decodeBytes, formatForPath, includeCandidates, includeNameProblem, INCLUDE_DEPTH_LIMIT, readLatexIncludes, type IncludeReader, type LatexInclude, type ReadNote } from '../engine/index.js';
 
-/** How many `\input`/`\include` deep a chain is followed. */
-export const INCLUDE_DEPTH_LIMIT = 8;
+export { INCLUDE_DEPTH_LIMIT };
 
 /** A file an `\input`/`\include` leads to, to be checked as a document of its own. */
 export interface IncludedFile {
@@ -60,13 +59,11 @@ export class IncludeFollower {
   }
 
   private resolve(inc: LatexInclude, chain: readonly string[]): { file?: IncludedFile } | { why: string } {
-    const name = inc.name;
-    if (isAbsolute(name) || /^[A-Za-z]:/.test(name) || name.startsWith('~') || name.startsWith('\\')) return { why: 'an absolute path; only files inside the manuscript\'s folder are followed' };
-    if (name.split(/[\\/]/).includes('..')) return { why: 'the name climbs out of the manuscript\'s folder with ".."; only files inside it are followed' };
+    const problem = includeNameProblem(inc.name);
+    if (problem !== undefined) return { why: problem };
     if (this.rootReal === undefined) return { why: 'the manuscript\'s folder could not be resolved' };
     if (chain.length > INCLUDE_DEPTH_LIMIT) return { why: `includes nest more than ${INCLUDE_DEPTH_LIMIT} deep here; the chain was not followed further` };
-    const withTex = `${name}.tex`;
-    const candidates = inc.command === 'include' || extname(name) === '' ? [withTex, name] : [name];
+    const candidates = includeCandidates(inc);
     let chosen: string | undefined;
     for (const c of candidates) {
       try {
@@ -101,4 +98,28 @@ export function realOrUndefined(path: string): string | undefined {
 function isInside(real: string, root: string): boolean {
   const rel = relative(root, real);
   return rel === '' || (!rel.startsWith('..') && !isAbsolute(rel));
+}
+
+/**
+ * An IncludeReader (for checkWithIncludes) over the folder `folder` on disk: a name that leads to
+ * no file is missing; one whose real path (symbolic links resolved) is outside the folder is
+ * refused; a file that cannot be decoded as text is refused with the reason.
+ */
+export function folderIncludeReader(folder: string): IncludeReader {
+  const root = resolve(folder);
+  const rootReal = realOrUndefined(root);
+  return {
+    read(name) {
+      const absolute = resolve(root, name);
+      try {
+        if (!statSync(absolute).isFile()) return undefined;
+      } catch {
+        return undefined;
+      }
+      const real = realOrUndefined(absolute);
+      if (rootReal === undefined || real === undefined || !isInside(real, rootReal)) return { refused: 'it leads outside the manuscript\'s folder (through a symbolic link); only files inside it are followed' };
+      const decoded = decodeBytes(new Uint8Array(readFileSync(absolute)));
+      return decoded.ok ? decoded.text : { refused: decoded.reason };
+    },
+  };
 }

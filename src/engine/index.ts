@@ -10,6 +10,7 @@ import { evaluateP } from '../rule-api/evaluate.js';
 import { evaluateStatisticP } from '../rule-api/statistic.js';
 import { linkDoubts } from '../rule-api/doubts.js';
 import type { Guideline, Level, LevelSetting } from '../rule-api/types.js';
+import { followIncludes, type IncludeReader } from './includes.js';
 import { RULE_IDS, RULES } from './registry.js';
 import type { ChecklistRecord, FileReport, Finding, LinkedRecord, NumberRecord, OriginalPlace, Place, ResultRecord, StatisticRecord } from './types.js';
 
@@ -26,6 +27,7 @@ function sourceFormat(format: InputFormat): 'markdown' | 'text' | 'latex' {
   return format === 'rmarkdown' ? 'markdown' : format;
 }
 export type { ReadNote } from '../parse/types.js';
+export { followIncludes, includeCandidates, includeNameProblem, INCLUDE_DEPTH_LIMIT, type IncludedSource, type IncludeReader } from './includes.js';
 
 export interface CheckOptions {
   /** From configuration files (already merged and validated). */
@@ -54,6 +56,31 @@ export interface CheckOptions {
  */
 export function checkSource(path: string, source: string, options: CheckOptions = {}): FileReport {
   return checkParsed(parseFor(path, source, options), options);
+}
+
+/** checkWithIncludes's options: checkSource's, and where the manuscript's includes are read. */
+export interface IncludeCheckOptions extends CheckOptions {
+  /** Reads the files `\input`/`\include` name, relative to the manuscript's folder (see IncludeReader). */
+  includes: IncludeReader;
+}
+
+/**
+ * Check a LaTeX manuscript and the files its `\input`/`\include` commands name, as the command
+ * line does: each included file is a report of its own, right after the file that includes it,
+ * named as the manuscript's folder joined with the name. Files are read through
+ * `options.includes` (so the browser page, with no file system, can hand over dropped files);
+ * names outside the manuscript's folder (absolute, `..`) are refused before the reader is asked,
+ * and every include not followed is an `include-not-read` note at its command. A source that is
+ * not LaTeX gives checkSource's one report.
+ */
+export function checkWithIncludes(path: string, source: string, options: IncludeCheckOptions): FileReport[] {
+  const { includes, ...base } = options;
+  if ((base.format ?? formatForPath(path)) !== 'latex' || base.document) return [checkSource(path, source, base)];
+  const { notes, files } = followIncludes(path, source, includes);
+  const main = checkSource(path, source, notes.length > 0 ? { ...base, readNotes: [...(base.readNotes ?? []), ...notes] } : base);
+  // the caller's notes and format are the main file's; an included file is read by its own name
+  const { readNotes: _notes, format: _format, ...shared } = base;
+  return [main, ...files.map((f) => checkSource(f.path, f.source, f.notes.length > 0 ? { ...shared, readNotes: f.notes } : shared))];
 }
 
 function parseFor(path: string, source: string, options: CheckOptions, prev?: ParsedDocument): ParsedDocument {

@@ -29,7 +29,9 @@ export interface LatexInclude {
  * headings; `\caption{…}` is a paragraph of its own (the caption of the table in its `table`
  * environment). `tabular` rows are table rows: cells split at `&`, rows at `\\`, the rules
  * (`\hline`, `\toprule`, `\midrule`, `\bottomrule`, `\cline`, `\cmidrule`) skipped, and
- * `\multicolumn`/`\multirow` read as spans. A comment `% plumbline quiet RULE: reason` is a
+ * `\multicolumn`/`\multirow` read as spans. A tabular inside a cell is a table of its own, the
+ * cell's text reading on around it; one of a single column (a cell's text broken over lines) is
+ * that cell's text, its lines a space apart. A comment `% plumbline quiet RULE: reason` is a
  * directive, as `<!-- … -->` is in Markdown. `\input`/`\include` are listed (see
  * readLatexIncludes), not followed here: the parse layer reads one source. One linear pass.
  */
@@ -150,6 +152,8 @@ const ACCENTS: Record<string, string> = { "'": '\u0301', '`': '\u0300', '^': '\u
 const ESCAPED = new Set(['%', '&', '$', '#', '_', '{', '}']);
 const MATH_ENVIRONMENT = /^(?:equation|align|alignat|gather|multline|flalign|displaymath|math|eqnarray|split)\*?$/;
 const CODE_ENVIRONMENT = /^(?:verbatim\*?|Verbatim|lstlisting|minted|alltt)$/;
+/** Column specifications longer than this are not counted (a tabular inside a cell is then a table of its own). */
+const SPEC_LIMIT = 400;
 /** Table environments and how many brace arguments come before the rows (`tabular*{width}{spec}`). */
 const TABLE_ENVIRONMENT: Record<string, number> = { tabular: 1, 'tabular*': 2, tabularx: 2, tabulary: 2, longtable: 1, 'longtable*': 1, supertabular: 1, xtabular: 1 };
 /** Other environments with brace arguments after their name (`minipage{0.5\textwidth}`). */
@@ -170,6 +174,13 @@ interface TableState {
   rowSpan?: number;
   /** The environment's name, so that its `\end` closes it. */
   environment: string;
+  /** The table whose cell this one sits in (a tabular inside a tabular). */
+  outer?: TableState;
+  /**
+   * A one-column tabular inside a cell (`\begin{tabular}{@{}c@{}}Mean\\(SD)\end{tabular}`, the
+   * usual way to break a cell's text over lines): its lines are that cell's text, a space apart.
+   */
+  inline?: boolean;
 }
 
 interface Environment {
@@ -259,7 +270,8 @@ class LatexReader {
         continue;
       }
       if (c === '&' && this.table) {
-        this.endCell(true);
+        if (this.table.inline) this.target.pushSynthetic(' ', i, i + 1);
+        else this.endCell(true);
         i += 1;
         continue;
       }
@@ -282,7 +294,7 @@ class LatexReader {
       this.target.pushVerbatim(c, i);
       i += 1;
     }
-    this.finishTable();
+    while (this.table) this.finishTable();
     while (this.frames.length > 0) this.closeGroup();
     this.flush();
   }
@@ -352,7 +364,8 @@ class LatexReader {
       return skipOptional(src, skipBlanks(src, j, this.end), this.end);
     }
     if (bare === 'tabularnewline' && this.table) {
-      this.endRow();
+      if (this.table.inline) this.target.pushSynthetic(' ', i, j);
+      else this.endRow();
       return skipOptional(src, skipBlanks(src, j, this.end), this.end);
     }
     if (RULES.has(bare) && this.table) {
@@ -372,7 +385,7 @@ class LatexReader {
       const count = readGroup(src, k, this.end);
       if (count) {
         const n = Number.parseInt(count.text.trim(), 10);
-        if (this.table && Number.isFinite(n) && n > 1) {
+        if (this.table && !this.table.inline && Number.isFinite(n) && n > 1) {
           if (bare === 'multicolumn') this.table.colSpan = n;
           else this.table.rowSpan = n;
         }
@@ -486,7 +499,7 @@ class LatexReader {
       let k = i + 2;
       if (src[k] === '*') k += 1;
       k = skipOptional(src, skipBlanks(src, k, this.end), this.end);
-      if (this.table) this.endRow();
+      if (this.table && !this.table.inline) this.endRow();
       else this.target.pushSynthetic(' ', i, i + 2);
       return k;
     }
@@ -547,6 +560,7 @@ class LatexReader {
     if (which === 'end') {
       if (name === 'document') return this.end;
       if (this.table && this.table.environment === name) {
+        if (this.table.inline) this.target.pushSynthetic(' ', i, k);
         this.finishTable();
         return k;
       }
@@ -580,17 +594,30 @@ class LatexReader {
       return stop < 0 ? this.end : stop + `\\end{${name}}`.length;
     }
     const tableArgs = TABLE_ENVIRONMENT[name];
-    if (tableArgs !== undefined && !this.table) {
+    if (tableArgs !== undefined) {
+      // the column specification is the last argument (`tabular*{width}{spec}`)
+      let spec: string | undefined;
       for (let n = 0; n < tableArgs; n += 1) {
         k = skipOptional(src, skipBlanks(src, k, this.end), this.end);
         const at = skipBlanks(src, k, this.end);
-        if (src[at] === '{') k = skipGroup(src, at, this.end);
+        if (src[at] === '{') {
+          k = skipGroup(src, at, this.end);
+          spec = src.slice(at + 1, Math.max(at + 1, k - 1));
+        }
+      }
+      const outer = this.table;
+      if (outer && spec !== undefined && spec.length <= SPEC_LIMIT && columnCount(spec) === 1) {
+        // a cell's text broken over lines: read on in the same cell
+        this.table = { index: -1, row: 0, column: 0, rowHasCells: false, cell: outer.cell, environment: name, outer, inline: true };
+        this.target.pushSynthetic(' ', i, k);
+        return k;
       }
       if (this.target === this.para) this.flush();
       const index = this.tables;
       this.tables += 1;
       for (const env of this.environments) env.tables.push(index);
-      this.table = { index, row: 0, column: 0, rowHasCells: false, cell: new MappedText(), environment: name };
+      // a table inside a cell is a table of its own; the cell's own text reads on around it
+      this.table = { index, row: 0, column: 0, rowHasCells: false, cell: new MappedText(), environment: name, ...(outer ? { outer } : {}) };
       this.target = this.table.cell;
       return k;
     }
@@ -734,12 +761,13 @@ class LatexReader {
     t.rowHasCells = false;
   }
 
+  /** The innermost table ends; a table inside a cell gives the cell back to its outer table. */
   private finishTable(): void {
     const t = this.table;
     if (!t) return;
-    this.endCell(false);
-    this.table = undefined;
-    this.target = this.para;
+    if (!t.inline) this.endCell(false);
+    this.table = t.outer;
+    this.target = t.outer ? t.outer.cell : this.para;
   }
 
   private startBlock(claim: boolean): number {
@@ -773,6 +801,50 @@ class LatexReader {
     this.segments.push(seg);
     return seg;
   }
+}
+
+/**
+ * How many columns a tabular's column specification declares (`lcr` 3, `@{}c@{}` 1, `p{3cm}l` 2,
+ * `*{3}{c}` 3, `S[table-format=1.2]` 1): a letter is a column, `|`, `@{…}`, `!{…}`, `>{…}` and
+ * `<{…}` are not, and a column's own arguments (`p{3cm}`, `S[…]`) are skipped. One pass.
+ */
+export function columnCount(spec: string): number {
+  let count = 0;
+  let i = 0;
+  const end = spec.length;
+  while (i < end) {
+    const c = spec[i] as string;
+    if (c === '@' || c === '!' || c === '>' || c === '<') {
+      const at = skipBlanks(spec, i + 1, end);
+      i = spec[at] === '{' ? skipGroup(spec, at, end) : at;
+      continue;
+    }
+    if (c === '*') {
+      // `*{n}{spec}`: n times the columns of spec
+      const a = skipBlanks(spec, i + 1, end);
+      const b = spec[a] === '{' ? skipBlanks(spec, skipGroup(spec, a, end), end) : -1;
+      if (b < 0 || spec[b] !== '{') return count + 1;
+      const close = skipGroup(spec, b, end);
+      const n = Number.parseInt(spec.slice(a + 1, skipGroup(spec, a, end) - 1).trim(), 10);
+      count += (Number.isFinite(n) && n > 0 ? Math.min(n, 1000) : 1) * columnCount(spec.slice(b + 1, Math.max(b + 1, close - 1)));
+      i = close;
+      continue;
+    }
+    if (isLetter(c)) {
+      count += 1;
+      i += 1;
+      // the column's arguments: `p{3cm}`, `S[table-format=1.2]`, `w{c}{2cm}`
+      for (;;) {
+        const at = skipBlanks(spec, i, end);
+        if (spec[at] === '{') i = skipGroup(spec, at, end);
+        else if (spec[at] === '[') i = skipOptional(spec, at, end);
+        else break;
+      }
+      continue;
+    }
+    i += 1;
+  }
+  return count;
 }
 
 /** The first match of a global `pattern` that is not inside a comment, or undefined. */

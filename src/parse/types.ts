@@ -125,7 +125,7 @@ export interface ParsedDocument {
 
 /** Something about reading the file that a user should know: the findings may be incomplete there. */
 export interface ReadNote {
-  kind: 'replaced-bytes' | 'deep-nesting' | 'parser-limit' | 'dense-markup' | 'encoding-guessed' | 'slow-shape' | 'invisible-characters' | 'include-not-read' | 'tracked-changes' | 'macro-not-expanded';
+  kind: 'replaced-bytes' | 'deep-nesting' | 'parser-limit' | 'dense-markup' | 'encoding-guessed' | 'slow-shape' | 'invisible-characters' | 'include-not-read' | 'tracked-changes' | 'macro-not-expanded' | 'glyphs-not-read';
   message: string;
   span: Span;
 }

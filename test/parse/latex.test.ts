@@ -95,6 +95,54 @@ const cases: SegmentCase[] = [
     ],
   },
   {
+    name: 'a one-column tabular inside a cell is that cell\'s text, its lines a space apart',
+    path: 'x.tex',
+    source: [
+      '\\begin{tabular}{lc}',
+      'Group & \\begin{tabular}[c]{@{}c@{}}Hours\\\\(\\textit{SD})\\end{tabular} \\\\',
+      'Nap & 4.2 (1.1) \\\\',
+      'Rest & \\begin{tabular}{c}3.9\\\\(0.8)\\end{tabular} \\\\',
+      '\\end{tabular}',
+      '',
+    ].join('\n'),
+    expect: [
+      { kind: 'tableCell', text: 'Group', table: { table: 0, row: 0, column: 0 } },
+      { kind: 'tableCell', text: 'Hours (SD)', table: { table: 0, row: 0, column: 1 }, spans: { Hours: 'Hours', SD: 'SD' } },
+      { kind: 'tableCell', text: 'Nap', table: { table: 0, row: 1, column: 0 } },
+      { kind: 'tableCell', text: '4.2 (1.1)', table: { table: 0, row: 1, column: 1 } },
+      { kind: 'tableCell', text: 'Rest', table: { table: 0, row: 2, column: 0 } },
+      { kind: 'tableCell', text: '3.9 (0.8)', table: { table: 0, row: 2, column: 1 }, spans: { '3.9': '3.9', '(0.8)': '(0.8)' } },
+    ],
+  },
+  {
+    name: 'a tabular of several columns inside a cell is a table of its own; the outer table reads on after it',
+    path: 'x.tex',
+    source: [
+      '\\begin{tabular}{ll}',
+      'Study & Test \\\\',
+      'Reading & see \\begin{tabular}{*{2}{c}} $t(28)$ & $p$ \\\\ 2.10 & .045 \\end{tabular} below \\\\',
+      'Plants & none \\\\',
+      '\\end{tabular}',
+      'After.',
+      '',
+    ].join('\n'),
+    expect: [
+      { kind: 'tableCell', text: 'Study', table: { table: 0, row: 0, column: 0 } },
+      { kind: 'tableCell', text: 'Test', table: { table: 0, row: 0, column: 1 } },
+      { kind: 'tableCell', text: 'Reading', table: { table: 0, row: 1, column: 0 } },
+      // the inner table's cells, as they end; the outer cell is read when it ends, around them
+      { kind: 'tableCell', text: 't(28)', table: { table: 1, row: 0, column: 0 }, at: 't(28)' },
+      { kind: 'tableCell', text: 'p', table: { table: 1, row: 0, column: 1 } },
+      { kind: 'tableCell', text: '2.10', table: { table: 1, row: 1, column: 0 }, at: '2.10' },
+      { kind: 'tableCell', text: '.045', table: { table: 1, row: 1, column: 1 }, at: '.045' },
+      // the spaces on both sides of the inner table stay (TeX prints both)
+      { kind: 'tableCell', text: 'see  below', table: { table: 0, row: 1, column: 1 }, spans: { see: 'see', below: 'below' } },
+      { kind: 'tableCell', text: 'Plants', table: { table: 0, row: 2, column: 0 } },
+      { kind: 'tableCell', text: 'none', table: { table: 0, row: 2, column: 1 } },
+      { kind: 'paragraph', text: 'After.' },
+    ],
+  },
+  {
     name: 'display math is a math segment; verbatim is code; the comment environment is not read',
     path: 'x.tex',
     source: 'Before.\n\\[ t(12) = 3.00 \\]\nAfter.\n\\begin{equation}\nF(1, 20) = 4.5\n\\end{equation}\n\\begin{verbatim}\nt.test(x)\n\\end{verbatim}\n\\begin{comment}\nt(5) = 9.99\n\\end{comment}\nEnd.\n',
@@ -179,6 +227,32 @@ describe('LaTeX results read as their Markdown forms, at their offsets in the .t
     const md = '| Group | *M* | *SD* |\n|---|---|---|\n| Nap | 4.20 | 1.10 |\n| Rest | 3.90 | 0.80 |\n';
     const cells = (path: string, s: string) => parseDocument(path, s).segments.filter((g) => g.kind === 'tableCell').map((g) => [g.text.trim(), g.table]);
     expect(cells('t.tex', tex)).toEqual(cells('t.md', md));
+  });
+
+  it('a result in a table inside a table cell is read at its offsets, and the rows after it stay rows', () => {
+    // t(28) = 2.10 gives p = .0449 (scipy.stats.t.sf(2.10, 28) doubled, scipy 1.x): consistent
+    const src = [
+      '\\begin{tabular}{ll}',
+      'Study & Result \\\\',
+      'Reading & \\begin{tabular}{lll} $t$ & $df$ & $p$ \\\\ 2.10 & 28 & .045 \\end{tabular} \\\\',
+      'Sleep & \\begin{tabular}{@{}l@{}}$t(30) = 1.20$,\\\\ $p = .24$\\end{tabular} \\\\',
+      '\\end{tabular}',
+      '',
+    ].join('\n');
+    const report = checkSource('paper.tex', src);
+    expect(report.results.map((r) => [r.t.printed, r.t.span.start, r.df?.printed, r.p?.number?.printed])).toEqual([
+      ['2.10', src.indexOf('2.10'), '28', '.045'],
+      ['1.20', src.indexOf('1.20'), '30', '.24'],
+    ]);
+    expect(report.findings.filter((f) => f.level !== 'note')).toEqual([]);
+    const doc = parseDocument('paper.tex', src);
+    expect(doc.segments.filter((g) => g.table?.table === 0).map((g) => [g.text, g.table?.row, g.table?.column])).toEqual([
+      ['Study', 0, 0],
+      ['Result', 0, 1],
+      ['Reading', 1, 0],
+      ['Sleep', 2, 0],
+      ['t(30) = 1.20, p = .24', 2, 1],
+    ]);
   });
 
   it('.tex paths are read as LaTeX', () => {

@@ -1,4 +1,4 @@
-import { documentFromBlocks, type Block } from '../blocks.js';
+import { documentFromBlocks, type Block, type BlockNote } from '../blocks.js';
 import type { BinaryOutcome } from '../binary.js';
 import type { ParsedDocument, Span } from '../types.js';
 import { DEFAULT_PDF_LIMITS, PdfRefusal, readPdfText, type PdfText } from './read.js';
@@ -21,11 +21,26 @@ export function pdfBlocks(text: PdfText): Block[] {
 export async function readPdf(path: string, bytes: Uint8Array, limits: PdfLimits = DEFAULT_PDF_LIMITS): Promise<BinaryOutcome> {
   try {
     const text = await readPdfText(bytes, limits);
-    return { ok: true, document: documentFromBlocks(path, 'pdf', pdfBlocks(text)) };
+    const notes = unreadableNotes(text);
+    return { ok: true, document: documentFromBlocks(path, 'pdf', pdfBlocks(text), notes.length > 0 ? { notes } : {}) };
   } catch (e) {
     if (e instanceof PdfRefusal) return { ok: false, message: `${e.reason === 'damaged' ? 'cannot read' : 'skipped'}: ${e.message}` };
     throw e;
   }
+}
+
+/**
+ * One note naming the pages that hold characters that could not be read (their font gives them no
+ * Unicode, see glyphs.ts), placed at the first block of the first such page.
+ */
+export function unreadableNotes(text: PdfText): BlockNote[] {
+  const first = text.unreadable[0];
+  if (!first) return [];
+  const block = text.blocks.findIndex((b) => b.pieces.some((p) => p.page >= first.page));
+  const fonts = [...new Set(text.unreadable.flatMap((u) => u.fonts))];
+  const pages = text.unreadable.map((u) => u.page);
+  const message = `${pages.length === 1 ? 'page' : 'pages'} ${pages.join(', ')} (counted in the file) ${pages.length === 1 ? 'holds' : 'hold'} characters set in ${fonts.length === 1 ? 'the font' : 'the fonts'} ${fonts.join(', ')} that carry no Unicode: they were read as the font's codes, which may not be the characters printed`;
+  return [{ kind: 'glyphs-not-read', message, ...(block >= 0 ? { block } : {}) }];
 }
 
 /** The boxes on one page that a span of the extracted text covers. */

@@ -1,3 +1,4 @@
+import { repairOf, repairText, type FontRecord, type FontRepair } from './glyphs.js';
 import { layoutPages } from './layout.js';
 import type { PageRuns, PdfBlock, PdfLimits, PdfLine, TextRun } from './types.js';
 
@@ -28,6 +29,8 @@ export interface PdfText {
   lines: PdfLine[];
   /** Each page's visible box (points): its lower left corner, which box coordinates are relative to, and its size. */
   sizes: Array<{ x0: number; y0: number; width: number; height: number }>;
+  /** Pages with characters that could not be read (their font gives them no Unicode; see glyphs.ts), with those fonts. */
+  unreadable: Array<{ page: number; fonts: string[] }>;
 }
 
 type PdfJs = typeof import('pdfjs-dist/legacy/build/pdf.mjs');
@@ -79,6 +82,10 @@ export async function readPdfText(bytes: Uint8Array, limits: PdfLimits = DEFAULT
     useSystemFonts: false,
     stopAtErrors: false,
     verbosity: 0,
+    // the fonts' encodings and glyph names, for characters pdf.js cannot read (glyphs.ts)
+    fontExtraProperties: true,
+    // fonts are looked at through an operator list, which would otherwise decode every image
+    maxImageSize: 1,
   });
   let doc: Awaited<typeof task.promise>;
   try {
@@ -95,11 +102,27 @@ export async function readPdfText(bytes: Uint8Array, limits: PdfLimits = DEFAULT
     const sizes: PdfText['sizes'] = [];
     let runs = 0;
     let printed = 0;
+    // each font's repair (undefined: pdf.js reads it whole), by pdf.js's name for it, which is the same on every page
+    const repairs = new Map<string, FontRepair | undefined>();
+    const unreadable: PdfText['unreadable'] = [];
     for (let n = 1; n <= doc.numPages; n += 1) {
       const page = await doc.getPage(n);
       const view = page.view;
       const [x0, y0, x1, y1] = [view[0] ?? 0, view[1] ?? 0, view[2] ?? 0, view[3] ?? 0];
       const content = await page.getTextContent();
+      // pdf.js hands a font's record (encoding, glyph names, Unicode map) to this side only with an
+      // operator list: asked for on the pages where a font is first met, so once per font
+      const fresh = new Set<string>();
+      for (const item of content.items) if ('str' in item && item.fontName !== '' && !repairs.has(item.fontName)) fresh.add(item.fontName);
+      if (fresh.size > 0) {
+        try {
+          await page.getOperatorList({ annotationMode: pdfjs.AnnotationMode.DISABLE });
+        } catch {
+          // a page pdf.js cannot draw: its text is read as pdf.js gives it
+        }
+        for (const name of fresh) repairs.set(name, page.commonObjs.has(name) ? repairOf(page.commonObjs.get(name) as FontRecord) : undefined);
+      }
+      const unreadFonts = new Set<string>();
       const out: TextRun[] = [];
       for (const item of content.items) {
         if (!('str' in item)) continue;
@@ -111,8 +134,16 @@ export async function readPdfText(bytes: Uint8Array, limits: PdfLimits = DEFAULT
         const size = Math.hypot(c ?? 0, d ?? 0);
         const upright = Math.abs(b ?? 0) < 1e-3 * Math.abs(a ?? 1) && Math.abs(c ?? 0) < 1e-3 * Math.abs(d ?? 1) && (a ?? 0) > 0 && (d ?? 0) > 0;
         if (item.str.trim().length > 0) printed += 1;
-        out.push({ str: item.str, x: (e ?? 0) - x0, y: (f ?? 0) - y0, width: item.width, size, upright });
+        let str = item.str;
+        const repair = repairs.get(item.fontName);
+        if (repair) {
+          const read = repairText(str, repair);
+          str = read.text;
+          if (read.unreadable > 0) unreadFonts.add(repair.name);
+        }
+        out.push({ str, x: (e ?? 0) - x0, y: (f ?? 0) - y0, width: item.width, size, upright });
       }
+      if (unreadFonts.size > 0) unreadable.push({ page: n, fonts: [...unreadFonts] });
       pages.push({ page: n, width: x1 - x0, height: y1 - y0, runs: out });
       sizes.push({ x0, y0, width: x1 - x0, height: y1 - y0 });
       page.cleanup();
@@ -124,7 +155,7 @@ export async function readPdfText(bytes: Uint8Array, limits: PdfLimits = DEFAULT
       );
     }
     const { blocks, lines } = layoutPages(pages);
-    return { pages: doc.numPages, blocks, lines, sizes };
+    return { pages: doc.numPages, blocks, lines, sizes, unreadable };
   } finally {
     await doc.destroy();
   }
