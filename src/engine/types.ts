@@ -77,6 +77,8 @@ export interface ResultRecord extends Place {
       /** Why the tie is not certain, when it is not. */
       doubt?: string;
       groups: Array<Place & { printed: string; label?: string; spreadKind: string }>;
+      /** For an F's groups in a table: the table, the words naming it, and how the F names its outcome. */
+      tableTie?: { name: string; named: Place & { printed: string; basis: 'sentence' | 'paragraph' }; outcome: { by: 'label' | 'caption'; words: string[] } };
     };
     /** Why descriptives nearby were not joined (never a silent guess). */
     unlinked?: string;

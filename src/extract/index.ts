@@ -11,6 +11,7 @@ import { findAssignments } from './assignments.js';
 import { findPowerStatements } from './power.js';
 import { findSummaries } from './summaries.js';
 import { findTableMentions, nameTableRows, readTables } from './tables.js';
+import { findLabelMentions, findTableReferences, readCaptions } from './tableReferences.js';
 import { findPWithoutT } from './pWithoutT.js';
 import { completeStatistics, findOtherStatistics } from './statistics.js';
 import { findTableDimensions } from './contingency.js';
@@ -145,6 +146,9 @@ export function extract(doc: ParsedDocument, cache?: ExtractionCache): Extractio
     tables: [],
     tableBlocks: [],
     tableMentions: [],
+    tableReferences: [],
+    tableCaptions: [],
+    tableLabelMentions: [],
   };
   const legends: StarLegend[] = [];
   doc.segments.forEach((original, i) => {
@@ -194,6 +198,9 @@ export function extract(doc: ParsedDocument, cache?: ExtractionCache): Extractio
   out.tableBlocks = tables.blocks;
   nameTableRows(out.tests, segments, tables.blocks);
   out.tableMentions = findTableMentions(segments, tables.blocks, out.tables);
+  out.tableCaptions = readCaptions(segments);
+  out.tableReferences = findTableReferences(segments, out.tableCaptions);
+  out.tableLabelMentions = findLabelMentions(segments, out.tableReferences, tables.blocks);
   applyStarLegends(out.tests, legends);
   out.measureMentions = findMeasureMentions(segments, out.integerMeasures);
   return out;

@@ -94,7 +94,7 @@ function blockAt(blocks: readonly TableBlockRecord[], row: number): TableBlockRe
 }
 
 /** A caption's own number: "Table 2", "Table S1", "Table IV". */
-const CAPTION_NUMBER = /^\s?(?:Table|TABLE|Tab\.)[ \u00A0]{0,2}([A-Z]?\d{1,3}|[IVXLC]{1,7})(?![\p{L}\p{N}])/u;
+export const CAPTION_NUMBER = /^\s?(?:Table|TABLE|Tab\.)[ \u00A0]{0,2}([A-Z]?\d{1,3}|[IVXLC]{1,7})(?![\p{L}\p{N}])/u;
 
 /**
  * Gives each result printed in a table the words a reader finds it by: the table's name (the
