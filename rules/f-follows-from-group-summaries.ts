@@ -45,7 +45,11 @@ export const fFollowsFromGroupSummaries: Rule = {
       if (s.analysisWords) doubts.push(`"${s.analysisWords}" is said of the analysis, so the F need not be the one-way between-groups F of these groups`);
       if (s.dfCorrection) doubts.push('a sphericity correction is named beside the F, which belongs to a repeated-measures design');
       const tie = link.tableTie;
-      const where = tie ? `in ${tie.name} (named "${tie.named.printed}" in its ${tie.named.basis}; ${tie.outcome.by === 'label' ? `the row "${tie.outcome.words.join(' ')}" its sentence names` : 'its one set of groups'})` : 'beside it';
+      const where = tie
+        ? `in ${tie.name} (named "${tie.named.printed}" in its ${tie.named.basis}; ${tie.outcome.by === 'label' ? `the row "${tie.outcome.words.join(' ')}" its sentence names` : 'its one set of groups'})`
+        : link.scope === 'previous-paragraph'
+          ? 'in the paragraph before it'
+          : 'beside it';
       const base = { reported: s.printed.trim(), k: String(k), where };
       const related = groups.map((g) => ({ span: g.span, message: `group: ${g.printed.trim()}` }));
       if (tie) related.unshift({ span: tie.named.span, message: `the table named: ${tie.named.printed}` });

@@ -71,7 +71,7 @@ export interface ResultRecord extends Place {
   context: {
     design: Setting<string>;
     descriptives?: {
-      scope: 'sentence' | 'paragraph' | 'table';
+      scope: 'sentence' | 'paragraph' | 'previous-paragraph' | 'table';
       /** Whether the tie is certain enough to warn on (no other statistic shares its sentence or paragraph). */
       certain: boolean;
       /** Why the tie is not certain, when it is not. */

@@ -13,7 +13,7 @@ import { findSummaries } from './summaries.js';
 import { findTableMentions, nameTableRows, readTables } from './tables.js';
 import { findLabelMentions, findTableReferences, readCaptions } from './tableReferences.js';
 import { findPWithoutT } from './pWithoutT.js';
-import { completeStatistics, findOtherStatistics } from './statistics.js';
+import { completeStatistics, findOtherStatistics, NOT_ONE_WAY } from './statistics.js';
 import { findTableDimensions } from './contingency.js';
 import { applyStarLegends, findStarLegends, type StarLegend } from './stars.js';
 import { findTTests } from './tTests.js';
@@ -92,6 +92,9 @@ function findInSegment(seg: Segment, source: string): SegmentFinds {
   const tableDimensions = findTableDimensions(seg, starts);
   const statements = findStatements(seg, starts);
   const found = findSummaries(seg, starts);
+  // words of the paragraph naming another analysis than a one-way ANOVA, for an F in the next one
+  const analysis = found.summaries.length > 0 ? NOT_ONE_WAY.exec(seg.text)?.[1] : undefined;
+  if (analysis) for (const g of found.summaries) g.paragraphAnalysisWords = analysis;
   return {
     legend,
     tests,

@@ -2,7 +2,7 @@ import type { Segment } from '../parse/types.js';
 import { readNumber, sentenceOf, sourceSpan } from './numbers.js';
 import { findP, reportTailEnd } from './tTests.js';
 import type { Comparison, OtherStatistic, OtherStatisticKind, ReportedNumber, TTestReport } from './types.js';
-import { topicStems } from './topic.js';
+import { leadStart, topicStems } from './topic.js';
 
 // Bounded building blocks (see test/regex-safety).
 const OP = String.raw`(?:<=|>=|≤|≥|=|<|>)`;
@@ -87,7 +87,9 @@ const CORRECTION = /(Greenhouse|Huynh)/u;
  * one-way between-groups F of the groups' printed means and SDs: repeated or mixed designs,
  * covariates, Welch's or Brown–Forsythe's F, a factorial design's effects.
  */
-const NOT_ONE_WAY = /(repeated|within[- ]subjects?|within[- ]participants?|mixed|covariat\w{0,4}|ANCOVA|adjust\w{0,4}|Welch|Brown[- –]Forsythe|interaction|main effect|two-way|three-way|factorial|MANOVA|multivariate|over time|across time|time points?|timepoints?|sessions|waves)/iu;
+export const NOT_ONE_WAY = /(repeated|within[- ]subjects?|within[- ]participants?|mixed|covariat\w{0,4}|ANCOVA|adjust\w{0,4}|Welch|Brown[- –]Forsythe|interaction|main effect|two-way|three-way|factorial|MANOVA|multivariate|over time|across time|time points?|timepoints?|sessions|waves)/iu;
+/** Stems of the words that name the one-way ANOVA itself, not what it compares (common practice, no source). */
+const METHOD_STEMS = new Set(['anova', 'one-w', 'varia']);
 /** A paragraph that may name a table ("Table 2"): only there does an F need its sentence's words. */
 const TABLE_WORD = /Tab/u;
 /** Words of an F, χ², r or z report that are not other prose. */
@@ -160,6 +162,8 @@ export function completeStatistics(seg: Segment, starts: number[], others: Other
       if (w) out.analysisWords = w[1] as string;
       if (paragraphWords === undefined) paragraphWords = NOT_ONE_WAY.exec(text)?.[1] ?? null;
       if (paragraphWords !== null) out.paragraphAnalysisWords = paragraphWords;
+      // the paragraph's only statistic: its lead, for groups printed in the paragraph before
+      if (boundaries.length === 1) out.leadStems = topicStems(text.slice(leadStart(text, sentenceStart, at), at)).filter((w) => !METHOD_STEMS.has(w));
       if (namesTable) {
         const sentence = sentenceOf(starts, at);
         let stems = stemsBySentence.get(sentence);

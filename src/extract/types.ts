@@ -162,6 +162,13 @@ export interface OtherStatistic {
    * (src/extract/topic.ts), which the link layer compares with the table's caption.
    */
   sentenceStems?: string[];
+  /**
+   * For the one F of a paragraph that reports no other statistic: the stems of its lead's content
+   * words (its sentence up to it, from the last clause boundary), without the words that name the
+   * one-way ANOVA itself, so the link layer can tell whether groups printed in the paragraph
+   * before are of what the F is about.
+   */
+  leadStems?: string[];
   /** For F: an η² printed in its clause (`ηp2 = .10`, `partial η2 = .10`), and whether it is said to be partial. */
   etaSquared?: { partial: boolean; op: Comparison; value: ReportedNumber; span: Span; printed: string };
   /**
@@ -297,6 +304,8 @@ export interface GroupSummary {
   table?: TableRow;
   /** Prose: the stems of the content words from its sentence's start to its end (src/extract/topic.ts). */
   topic?: string[];
+  /** Prose: the first words of its paragraph that name an analysis other than a one-way ANOVA ("adjusted for age"). */
+  paragraphAnalysisWords?: string;
 }
 
 /** A sample size printed on its own: `N = 60`, `(n = 30 per group)`, `24 participants`. */

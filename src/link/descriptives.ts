@@ -51,7 +51,7 @@ export interface IntervalLink extends Linked<IntervalReport> {
 
 /** The descriptives a result can be recomputed from, and how they were joined to it. */
 export interface DescriptiveLink {
-  scope: 'sentence' | 'paragraph' | 'table';
+  scope: 'sentence' | 'paragraph' | 'previous-paragraph' | 'table';
   /** One group (one-sample or differences) or two, in reading order. */
   groups: GroupSummary[];
   /** Each group's spread kind after statements such as "mean ± SEM" are applied. */
@@ -733,6 +733,7 @@ export function fGroupsJoiner(x: Extraction): (o: OtherStatistic) => Descriptive
   const prose = new SegmentList(x.summaries.filter((g) => !g.table && !overlapsTest(g)));
   const spreads = spreadStatements(x);
   const tables = tableGroupsFor(x, clauses, spreads);
+  const before = previousParagraphGroupsFor(x, clauses, prose, spreads);
   return (o) => {
     if (o.kind !== 'F') return undefined;
     const inSentence = prose.inSentence(o.segment, o.sentence);
@@ -742,7 +743,7 @@ export function fGroupsJoiner(x: Extraction): (o: OtherStatistic) => Descriptive
     }
     const all = prose.all(o.segment);
     // groups in its paragraph's prose are the F's or another's: never a table's beside them
-    if (all.length === 0) return tables(o);
+    if (all.length === 0) return tables(o) ?? before(o);
     if (clauses.meanTestsInSegment(o.segment) !== 1) return undefined;
     if (all.length > 4 * MAX_F_GROUPS) return undefined;
     const groups = all.filter((g) => clauses.statisticsInSentence(g.segment, g.sentence) === 0);
@@ -750,6 +751,46 @@ export function fGroupsJoiner(x: Extraction): (o: OtherStatistic) => Descriptive
     const sentences = new Set(groups.map((g) => g.sentence)).size;
     const link = makeLink('paragraph', groups, spreads, sentences === 1);
     return sentences === 1 ? link : { ...link, doubt: `the groups are printed in ${sentences} sentences of the paragraph, which may be of more than one measure` };
+  };
+}
+
+/**
+ * The groups of the paragraph right before an F's, tied only where the tie is as certain as one
+ * in the F's own sentence: the F is the only statistic of its paragraph, which names no table
+ * and prints no groups; the paragraph before (the block right before, so no heading, table or
+ * other paragraph stands between) reports no statistic and prints its two to MAX_F_GROUPS groups
+ * in one sentence; every content word of the F's lead ("The composite index at follow-up
+ * differed across sites, F(…)", words naming the ANOVA itself aside) is in that sentence, and
+ * the lead names at least one; no words in either paragraph name another analysis than a
+ * one-way between-groups ANOVA, and the F's dfs are exactly (k − 1, N − k) of those groups.
+ * Anything short of that ties nothing.
+ */
+function previousParagraphGroupsFor(x: Extraction, clauses: ClauseIndex, prose: SegmentList<GroupSummary>, spreads: SpreadStatements): (o: OtherStatistic) => DescriptiveLink | undefined {
+  const byBlock = groupBy(
+    x.summaries.filter((g) => !g.table),
+    (g) => g.block,
+  );
+  const namingTables = new Set(x.tableReferences.map((r) => r.segment));
+  return (o) => {
+    if (!o.leadStems || o.leadStems.length === 0 || o.analysisWords || o.paragraphAnalysisWords || o.dfCorrection || o.sameAsT) return undefined;
+    const [df1, df2] = o.dfs ?? [];
+    if (!df1 || !df2 || df1.decimals > 0 || df2.decimals > 0) return undefined;
+    if (namingTables.has(o.segment) || clauses.statisticsInSegment(o.segment) !== 1) return undefined;
+    const groups = byBlock.get(o.block - 1) ?? [];
+    const first = groups[0];
+    if (!first || groups.length < 2 || groups.length > MAX_F_GROUPS) return undefined;
+    // every group of that block, unclaimed by a test, in one sentence of one paragraph without statistics
+    if (prose.all(first.segment).length !== groups.length) return undefined;
+    if (!groups.every((g) => g.segment === first.segment && g.sentence === first.sentence && !g.paragraphAnalysisWords)) return undefined;
+    if (clauses.statisticsInSegment(first.segment) !== 0) return undefined;
+    if (!groups.every((g) => g.mean && g.spread && g.n && g.n.decimals === 0 && g.n.value >= 1)) return undefined;
+    // each group's words run from its sentence's start to it: together, the sentence up to the last
+    const topic = new Set(groups.flatMap((g) => g.topic ?? []));
+    if (!o.leadStems.every((w) => topic.has(w))) return undefined;
+    const k = groups.length;
+    const total = groups.reduce((a, g) => a + (g.n as ReportedNumber).value, 0);
+    if (df1.value !== k - 1 || df2.value !== total - k) return undefined;
+    return makeLink('previous-paragraph', [...groups], spreads, true);
   };
 }
 
