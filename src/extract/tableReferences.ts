@@ -1,6 +1,6 @@
 import type { Segment } from '../parse/types.js';
 import { sentenceOf, sentenceStarts, sourceSpan } from './numbers.js';
-import { CAPTION_NUMBER } from './tables.js';
+import { CAPTION_NUMBER, labelsNamedIn } from './tables.js';
 import { topicStems } from './topic.js';
 import type { TableBlockRecord, TableCaption, TableReference } from './types.js';
 
@@ -68,6 +68,8 @@ export function findTableReferences(segments: readonly Segment[], captions: read
   return out;
 }
 
+const LETTER_OR_DIGIT = /[\p{L}\p{N}]/u;
+
 /** Labels read per table, and tables per paragraph: bounds that keep the scan linear in the text. */
 const MAX_LABELS = 64;
 const MAX_TABLES_NAMED = 3;
@@ -100,21 +102,9 @@ export function findLabelMentions(segments: readonly Segment[], references: read
     const tables = bySegment.get(seg.id);
     // a tie needs one table named: a paragraph naming many is not read (and stays linear)
     if (!tables || tables.size > MAX_TABLES_NAMED) continue;
-    const lower = seg.text.toLowerCase();
-    let starts: number[] | undefined;
-    for (const table of tables) {
-      const seen = new Set<string>();
-      for (const name of labels.get(table) ?? []) {
-        for (let at = lower.indexOf(name); at >= 0; at = lower.indexOf(name, at + 1)) {
-          if (/[\p{L}\p{N}]/u.test(lower[at - 1] ?? '') || /[\p{L}\p{N}]/u.test(lower[at + name.length] ?? '')) continue;
-          starts ??= sentenceStarts(seg.text);
-          const sentence = sentenceOf(starts, at);
-          if (seen.has(`${sentence}:${name}`)) continue;
-          seen.add(`${sentence}:${name}`);
-          out.push({ table, label: name, segment: seg.id, sentence });
-        }
-      }
-    }
+    // the t link's scan (findTableMentions), here over the paragraphs that name the table, however
+    // far from it; a digit joins a word too ("Fig. 10" is not "Fig. 1")
+    for (const table of tables) labelsNamedIn(seg, table, labels.get(table) ?? [], out, LETTER_OR_DIGIT);
   }
   return out;
 }

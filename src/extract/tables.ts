@@ -473,23 +473,34 @@ export function findTableMentions(segments: readonly Segment[], blocks: readonly
     if (names.length === 0) continue;
     for (const seg of segments) {
       if (seg.table || seg.kind === 'code' || seg.block < t.firstBlock - MENTION_REACH || seg.block > t.lastBlock + MENTION_REACH) continue;
-      const lower = seg.text.toLowerCase();
-      let starts: number[] | undefined;
-      const seen = new Set<string>();
-      for (const name of names) {
-        for (let at = lower.indexOf(name); at >= 0; at = lower.indexOf(name, at + 1)) {
-          if (/\p{L}/u.test(lower[at - 1] ?? '') || /\p{L}/u.test(lower[at + name.length] ?? '')) continue;
-          starts ??= sentenceStarts(seg.text);
-          const sentence = sentenceOf(starts, at);
-          if (seen.has(`${sentence}:${name}`)) continue;
-          seen.add(`${sentence}:${name}`);
-          out.push({ table: t.table, label: name, segment: seg.id, sentence });
-        }
-      }
+      labelsNamedIn(seg, t.table, names, out);
     }
   }
   return out;
 }
+
+/**
+ * Each sentence of a segment that names one of a table's labels (lower case) as whole words,
+ * once per label and sentence. `/\p{L}/` decides what a whole word is; callers that need a
+ * digit to join too check their labels' own edges.
+ */
+export function labelsNamedIn(seg: Segment, table: number, names: Iterable<string>, out: Array<{ table: number; label: string; segment: number; sentence: number }>, joins: RegExp = LETTER): void {
+  const lower = seg.text.toLowerCase();
+  let starts: number[] | undefined;
+  const seen = new Set<string>();
+  for (const name of names) {
+    for (let at = lower.indexOf(name); at >= 0; at = lower.indexOf(name, at + 1)) {
+      if (joins.test(lower[at - 1] ?? '') || joins.test(lower[at + name.length] ?? '')) continue;
+      starts ??= sentenceStarts(seg.text);
+      const sentence = sentenceOf(starts, at);
+      if (seen.has(`${sentence}:${name}`)) continue;
+      seen.add(`${sentence}:${name}`);
+      out.push({ table, label: name, segment: seg.id, sentence });
+    }
+  }
+}
+
+const LETTER = /\p{L}/u;
 
 /** How many blocks (paragraphs, captions) before or after a table a sentence may name its measures from. */
 const MENTION_REACH = 4;
