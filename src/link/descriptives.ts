@@ -13,6 +13,7 @@ import type {
   SampleSize,
   SpreadKind,
   TableBlockRecord,
+  TableReference,
   TableRow,
   TTestReport,
 } from '../extract/types.js';
@@ -831,29 +832,66 @@ function tableGroupsFor(x: Extraction, clauses: ClauseIndex, spreads: SpreadStat
     }
     return found;
   };
+  // the table a sentence or paragraph names, and the labels a sentence names, once each: a
+  // sentence of thousands of Fs naming a table stays linear
+  const namedBy = new Map<string, { reference: TableReference; own: boolean } | null>();
+  const nameOf = (list: readonly TableReference[], own: boolean) => {
+    const first = list[0];
+    return first && first.table !== undefined && list.every((r) => !r.plural && r.table === first.table) ? { reference: first, own } : null;
+  };
+  const tableNamed = (o: OtherStatistic) => {
+    const key = `${o.segment}:${o.sentence}`;
+    let found = namedBy.get(key);
+    if (found === undefined) {
+      const own = references.inSentence(o.segment, o.sentence);
+      if (own.length > 0) found = nameOf(own, true);
+      else {
+        const paragraph = `${o.segment}`;
+        found = namedBy.get(paragraph);
+        if (found === undefined) {
+          found = nameOf(references.all(o.segment), false);
+          namedBy.set(paragraph, found);
+        }
+      }
+      namedBy.set(key, found);
+    }
+    return found;
+  };
+  const saidIn = new Map<string, Set<string>>();
+  const sharedIn = new Map<string, string[]>();
   return (o) => {
     if (o.analysisWords || o.paragraphAnalysisWords || o.dfCorrection || o.sameAsT) return undefined;
     const [df1, df2] = o.dfs ?? [];
     if (!df1 || !df2 || df1.decimals > 0 || df2.decimals > 0) return undefined;
     if (clauses.meanTestsInSentence(o.segment, o.sentence) !== 1) return undefined;
-    const own = references.inSentence(o.segment, o.sentence);
-    const named = own.length > 0 ? own : references.all(o.segment);
-    const first = named[0];
-    if (!first || first.table === undefined || named.some((r) => r.plural || r.table !== first.table)) return undefined;
-    const table = first.table;
+    const named = tableNamed(o);
+    if (!named) return undefined;
+    const first = named.reference;
+    const own = named.own;
+    const table = first.table as number;
     const caption = captions.get(table);
     if (!caption) return undefined;
     const all = setsOf(table);
     if (all.length === 0) return undefined;
-    const said = new Set((mentions.get(`${o.segment}:${o.sentence}:${table}`) ?? []).map((m) => m.label));
+    const sayKey = `${o.segment}:${o.sentence}:${table}`;
+    let said = saidIn.get(sayKey);
+    if (!said) {
+      said = new Set((mentions.get(sayKey) ?? []).map((m) => m.label));
+      saidIn.set(sayKey, said);
+    }
     let set: TableSet | undefined;
     let outcome: NonNullable<DescriptiveLink['tableTie']>['outcome'];
     let doubt: string | undefined;
     const only = all.length === 1 ? all[0] : undefined;
     if (only && only.label === undefined) {
-      if (own.length === 0 && clauses.meanTestsInSegment(o.segment) !== 1) return undefined;
+      if (!own && clauses.meanTestsInSegment(o.segment) !== 1) return undefined;
       set = only;
-      const shared = caption.stems.filter((w) => o.sentenceStems?.includes(w));
+      let shared = sharedIn.get(sayKey);
+      if (!shared) {
+        const words = new Set(o.sentenceStems ?? []);
+        shared = caption.stems.filter((w) => words.has(w));
+        sharedIn.set(sayKey, shared);
+      }
       outcome = { by: 'caption', words: shared };
       if (shared.length === 0) doubt = `the F's sentence shares no word with the caption of ${caption.name}, so the table's groups may be of another measure`;
     } else {
@@ -873,7 +911,7 @@ function tableGroupsFor(x: Extraction, clauses: ClauseIndex, spreads: SpreadStat
     return {
       ...link,
       ...(doubt ? { doubt } : {}),
-      tableTie: { name: caption.name, named: { span: first.span, printed: first.printed, basis: own.length > 0 ? 'sentence' : 'paragraph' }, outcome },
+      tableTie: { name: caption.name, named: { span: first.span, printed: first.printed, basis: own ? 'sentence' : 'paragraph' }, outcome },
     };
   };
 }
