@@ -1,7 +1,7 @@
 import type { Segment } from '../parse/types.js';
 import { sentenceOf, sentenceStarts, sourceSpan } from './numbers.js';
 import { CAPTION_NUMBER, labelsNamedIn } from './tables.js';
-import { topicStems } from './topic.js';
+import { stem, topicWords } from './topic.js';
 import type { TableBlockRecord, TableCaption, TableReference } from './types.js';
 
 /**
@@ -30,8 +30,8 @@ export function readCaptions(segments: readonly Segment[]): TableCaption[] {
     seen.add(s.legendOf.table);
     const m = CAPTION_NUMBER.exec(s.text);
     if (!m) continue;
-    const stems = topicStems(s.text.slice(m[0].length)).filter((w) => !CAPTION_WORDS.has(w));
-    out.push({ table: s.legendOf.table, name: `Table ${m[1] as string}`, stems });
+    const words = topicWords(s.text.slice(m[0].length)).filter((w) => !CAPTION_WORDS.has(stem(w)));
+    out.push({ table: s.legendOf.table, name: `Table ${m[1] as string}`, words, stems: words.map(stem) });
   }
   return out;
 }

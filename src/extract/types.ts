@@ -263,6 +263,8 @@ export interface TableCaption {
   table: number;
   /** "Table 2", from the caption's own number. */
   name: string;
+  /** The caption's content words (lower case, each once), and the stem of each, in the same order. */
+  words: string[];
   stems: string[];
 }
 

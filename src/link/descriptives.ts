@@ -858,7 +858,7 @@ function tableGroupsFor(x: Extraction, clauses: ClauseIndex, spreads: SpreadStat
     return found;
   };
   const saidIn = new Map<string, Set<string>>();
-  const sharedIn = new Map<string, string[]>();
+  const sharedIn = new Map<string, { shared: string[]; missing: string[] }>();
   return (o) => {
     if (o.analysisWords || o.paragraphAnalysisWords || o.dfCorrection || o.sameAsT) return undefined;
     const [df1, df2] = o.dfs ?? [];
@@ -882,18 +882,19 @@ function tableGroupsFor(x: Extraction, clauses: ClauseIndex, spreads: SpreadStat
     let set: TableSet | undefined;
     let outcome: NonNullable<DescriptiveLink['tableTie']>['outcome'];
     let doubt: string | undefined;
+    // the caption's words the F's sentence shares, and those it does not ("at baseline")
+    let words = sharedIn.get(sayKey);
+    if (!words) {
+      const stems = new Set(o.sentenceStems ?? []);
+      words = { shared: caption.words.filter((_, i) => stems.has(caption.stems[i] as string)), missing: caption.words.filter((_, i) => !stems.has(caption.stems[i] as string)) };
+      sharedIn.set(sayKey, words);
+    }
     const only = all.length === 1 ? all[0] : undefined;
     if (only && only.label === undefined) {
       if (!own && clauses.meanTestsInSegment(o.segment) !== 1) return undefined;
       set = only;
-      let shared = sharedIn.get(sayKey);
-      if (!shared) {
-        const words = new Set(o.sentenceStems ?? []);
-        shared = caption.stems.filter((w) => words.has(w));
-        sharedIn.set(sayKey, shared);
-      }
-      outcome = { by: 'caption', words: shared };
-      if (shared.length === 0) doubt = `the F's sentence shares no word with the caption of ${caption.name}, so the table's groups may be of another measure`;
+      outcome = { by: 'caption', words: words.shared };
+      if (words.shared.length === 0) doubt = `the F's sentence shares no word with the caption of ${caption.name}, so the table's groups may be of another measure`;
     } else {
       if (said.size !== 1) return undefined;
       const label = [...said][0] as string;
@@ -902,6 +903,8 @@ function tableGroupsFor(x: Extraction, clauses: ClauseIndex, spreads: SpreadStat
       set = matching[0] as TableSet;
       outcome = { by: 'label', words: [set.label as string] };
     }
+    // a caption naming what the F's sentence does not (a time, a subsample) may be of other data
+    if (!doubt && words.missing.length > 0) doubt = `the caption of ${caption.name} names "${words.missing.slice(0, 4).join(' ')}", which the F's sentence does not, so the table may be of another time, sample or measure`;
     const groups = set.groups;
     const k = groups.length;
     if (k < 2 || k > MAX_F_GROUPS || !groups.every((g) => g.mean && g.spread && g.n && g.n.decimals === 0 && g.n.value >= 1)) return undefined;

@@ -77,6 +77,18 @@ describe('a table tie without certainty speaks as a note, and its basis is recor
     expect(found.map((f) => `${f.level} ${f.messageId}`)).toEqual(['note mismatch']);
     expect(found[0]?.message).toContain('shares no word with the caption of Table 2');
   });
+  it('notes an F whose table\'s caption names what its sentence does not (a time)', () => {
+    const r = check(doc(wideTable.replace('by room.', 'by room at baseline.'), 'Recall differed by room (see Table 1), F(2, 12) = 12.59, p = .001.'));
+    const found = r.findings.filter((f) => f.ruleId === 'f-follows-from-group-summaries');
+    expect(found.map((f) => `${f.level} ${f.messageId}`)).toEqual(['note mismatch']);
+    expect(found[0]?.message).toContain('names "baseline", which the F\'s sentence does not');
+    const one = check(doc(longTable('Table 2. Recall by room at baseline.'), 'At follow-up recall differed by room (Table 2), F(2, 12) = 12.59, p = .001.'));
+    expect(one.findings.filter((f) => f.ruleId === 'f-follows-from-group-summaries').map((f) => `${f.level} ${f.messageId}`)).toEqual(['note mismatch']);
+  });
+  it('keeps the caption words a one-set table\'s tie rests on', () => {
+    const r = check(doc(longTable(), 'Recall differed by room (Table 2), F(2, 12) = 12.59, p = .001.'));
+    expect(r.statistics?.find((s) => s.kind === 'F')?.groups?.tableTie?.outcome).toEqual({ by: 'caption', words: ['recall', 'room'] });
+  });
   it('records the table, the words naming it and the outcome named, in the F\'s record', () => {
     const r = check(doc(wideTable, 'Recall differed by room (see Table 1), F(2, 12) = 12.59, p = .001.'));
     const groups = r.statistics?.find((s) => s.kind === 'F')?.groups;
