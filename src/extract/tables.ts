@@ -159,6 +159,16 @@ interface Columns {
   spread?: { column: number; kind: 'SD' | 'SE'; printed: string };
   n?: number;
   group?: number;
+  /** The one `M (SD)` column of a long layout (a group per row, its n in the n column). */
+  longCell?: number;
+}
+
+/** The name and n of the group a long layout's row prints. */
+function longCellGroup(row: Map<number, Segment>, cols: Columns): { label?: string; n?: ReportedNumber } {
+  const nCell = cols.n !== undefined ? row.get(cols.n) : undefined;
+  const n = nCell ? cellNumber(nCell) : undefined;
+  const label = row.get(cols.group ?? 0)?.text.trim();
+  return { ...(label ? { label } : {}), ...(n ? { n } : {}) };
 }
 
 function columnsOf(grid: Grid): Columns {
@@ -195,6 +205,10 @@ function columnsOf(grid: Grid): Columns {
     else if (GROUP_HEADER.test(text)) c.group ??= column;
     else if (OTHER_STAT_HEADER.test(text)) others.push(column);
   }
+  // one group column without a name or n (`M (SD)`) beside an n column: a long layout whose
+  // cells print mean and spread together, one group per row
+  const only = c.groups[0];
+  if (c.groups.length === 1 && only && only.label === '' && !only.n && c.n !== undefined && c.mean === undefined) c.longCell = only.column;
   // a p column is the t's only when no other statistic's column is as near to it or between them
   // (a table of a χ² with its p and then a t, `χ²(1) | p | … | t(81)`: the p is the χ²'s)
   if (c.p !== undefined && c.t !== undefined && others.length > 0) {
@@ -228,17 +242,22 @@ function readGrid(grid: Grid, out: TableResults): void {
       const spreadText = (m[2] ?? m[3]) as string;
       const spread = mean ? numberAt(cell, spreadText, cell.text.indexOf(m[1] as string) + (m[1] as string).length) : undefined;
       if (!mean || !spread) continue;
+      // a long layout printing mean and spread in one cell (`Group | n | M (SD)`): the row is the
+      // group, its name in the group column (else the first) and its n in the n column
+      const rowGroup = cols.longCell !== undefined && g.column === cols.longCell ? longCellGroup(row, cols) : undefined;
+      const label = rowGroup ? rowGroup.label : g.label;
+      const n = rowGroup ? rowGroup.n : g.n;
       out.summaries.push({
         id: `${cell.id}:row`,
         segment: cell.id,
         block: cell.block,
         sentence: 0,
-        span: { start: mean.span.start, end: spread.span.end },
-        printed: `${g.label ? `${g.label}: ` : ''}${cell.text.trim()}`,
+        span: { start: Math.min(mean.span.start, n && rowGroup ? n.span.start : Infinity), end: Math.max(spread.span.end, n && rowGroup ? n.span.end : -Infinity) },
+        printed: rowGroup ? [label, cell.text.trim(), n?.printed].filter(Boolean).join(' | ') : `${label ? `${label}: ` : ''}${cell.text.trim()}`,
         mean,
         spread: { number: spread, kind: g.kind, printedKind: g.printedKind },
-        ...(g.n ? { n: g.n } : {}),
-        ...(g.label ? { label: g.label } : {}),
+        ...(n ? { n } : {}),
+        ...(label ? { label } : {}),
         percent: false,
         table: where,
       });

@@ -19,6 +19,16 @@ const longTable = (caption = 'Table 2. Recall by room.') => `${caption}
 | Noise | 5 | 8.56 | 1.38 |
 `;
 
+/** A long layout printing mean and SD in one cell: Room | n | M (SD). */
+const longCellTable = `Table 4. Recall by room.
+
+| Room | n | M (SD) |
+|---|---|---|
+| Quiet | 5 | 5.34 (1.12) |
+| Music | 5 | 7.72 (1.10) |
+| Noise | 5 | 8.56 (1.38) |
+`;
+
 /** A wide layout, one measure per row, a column per group with its n in the header. */
 const wideTable = `Table 1. Means and standard deviations by room.
 
@@ -51,6 +61,8 @@ ruleTable('f-follows-from-group-summaries', [
   { name: 'a wide table: the accuracy row gives the accuracy F', markdown: doc(wideTable, 'Accuracy did not differ by room (see Table 1), F(2, 12) = 0.07, p = .93.'), expect: [] },
   { name: 'a wide table: the recall row cannot give that F', markdown: doc(wideTable, 'Recall did not differ by room (see Table 1), F(2, 12) = 0.07, p = .93.'), expect: [{ at: 'F(2', id: 'mismatch' }] },
   { name: 'a table of blocks: the block the F names is tied', markdown: doc(blockTable, 'Recall differed by room (Table 3), F(2, 12) = 12.59, p = .001.'), expect: [{ at: 'F(2', id: 'mismatch' }] },
+  { name: 'a long table printing M (SD) in one cell, its n in a column of its own: tied', markdown: doc(longCellTable, 'Recall differed by room (Table 4), F(2, 12) = 12.59, p = .001.'), expect: [{ at: 'F(2', id: 'mismatch' }] },
+  { name: 'the same with the F the table gives: accepted', markdown: doc(longCellTable, 'Recall differed by room (Table 4), F(2, 12) = 9.59, p = .003.'), expect: [] },
   { name: 'refused: two outcome sets and the F names neither', markdown: doc(wideTable, 'The rooms differed (see Table 1), F(2, 12) = 12.59, p = .001.'), expect: [] },
   { name: 'refused: two outcome sets and the F\'s sentence names both', markdown: doc(blockTable, 'Recall, unlike accuracy, differed by room (Table 3), F(2, 12) = 12.59, p = .001.'), expect: [] },
   { name: 'refused: the dfs are not (k − 1, N − k) of the table\'s groups', markdown: doc(longTable(), 'Recall differed by room (Table 2), F(2, 15) = 12.59, p = .001.'), expect: [] },
