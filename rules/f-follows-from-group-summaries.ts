@@ -3,8 +3,8 @@ import { oneWayFRange, type GroupBox, type Interval } from '../src/stats/index.j
 
 const messages = {
   mismatch:
-    'Reported {reported} with {k} groups printed beside it. Recomputed the one-way F = MS between / MS within from their means, spreads and sizes ({inputs}), over the rounding of each mean and spread: {attempts}. Gap {gap}. No means and spreads within their rounding give the printed F.',
-  df: 'Reported {reported} with {k} groups printed beside it, of sizes {sizes} (N = {total}). A one-way ANOVA of these groups has dfs (k − 1, N − k) = ({df1}, {df2}).',
+    'Reported {reported} with {k} groups printed {where}. Recomputed the one-way F = MS between / MS within from their means, spreads and sizes ({inputs}), over the rounding of each mean and spread: {attempts}. Gap {gap}. No means and spreads within their rounding give the printed F.',
+  df: 'Reported {reported} with {k} groups printed {where}, of sizes {sizes} (N = {total}). A one-way ANOVA of these groups has dfs (k − 1, N − k) = ({df1}, {df2}).',
 };
 
 type Group = NonNullable<LinkedStatistic['groups']>['groups'][number];
@@ -44,8 +44,15 @@ export const fFollowsFromGroupSummaries: Rule = {
       const doubts = [...linkDoubts({ descriptives: link }), ...linked.doubts];
       if (s.analysisWords) doubts.push(`"${s.analysisWords}" is said of the analysis, so the F need not be the one-way between-groups F of these groups`);
       if (s.dfCorrection) doubts.push('a sphericity correction is named beside the F, which belongs to a repeated-measures design');
-      const base = { reported: s.printed.trim(), k: String(k) };
+      const tie = link.tableTie;
+      const where = tie
+        ? `in ${tie.name} (named "${tie.named.printed}" in its ${tie.named.basis}; ${tie.outcome.by === 'label' ? `the row "${tie.outcome.words.join(' ')}" its sentence names` : 'its one set of groups'})`
+        : link.scope === 'previous-paragraph'
+          ? 'in the paragraph before it'
+          : 'beside it';
+      const base = { reported: s.printed.trim(), k: String(k), where };
       const related = groups.map((g) => ({ span: g.span, message: `group: ${g.printed.trim()}` }));
+      if (tie) related.unshift({ span: tie.named.span, message: `the table named: ${tie.named.printed}` });
       const [df1, df2] = s.dfs ?? [];
       if (df1 && df2) {
         if (df1.decimals > 0 || df2.decimals > 0) continue; // a corrected or Welch df: not the classic one-way F

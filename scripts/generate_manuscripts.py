@@ -2757,6 +2757,66 @@ def make_late_distractor(arng: np.random.Generator, doc: Doc, did: str, kind: st
     return meta, toks
 
 
+# -- an F whose groups' summaries are printed in a table it names ("Table A1"), after the other late
+# results. It draws from a generator of its own ([seed, manuscript, 18]) and comes last, so every
+# other number and place of the manuscript stays as it was. The table prints either one set of
+# groups (a row per site: Site | n | M | SD, the caption naming the composite index) or two
+# measures (a row per measure, a column per site with its n in the header), the F's sentence naming
+# its measure. Its seeded error is the one of "Fgroups": an F larger than any the printed summaries
+# give at every corner of their rounding, read as SDs or as SEs, its p the wrong F's own.
+TABLE_F_ERROR = "F-from-group-summaries-in-table"
+LATE_ERROR_RULES[TABLE_F_ERROR] = ["f-follows-from-group-summaries"]
+TABLE_F_OTHER = "Service rating"
+
+
+def make_table_f_distractor(trng: np.random.Generator, doc: Doc, did: str, pdf: bool) -> tuple[dict, list]:
+    nt = doc.nt
+    eq, js = nt.eq, nt.join
+    error = TABLE_F_ERROR if trng.random() < 0.4 else None
+    seeded = None
+    place = "sites" if doc.topic["domain"] != "mice" else "cage racks"
+    unit = "site" if doc.topic["domain"] != "mice" else "rack"
+    k = int(trng.choice([3, 4]))
+    ns = [int(trng.integers(8, 41)) for _ in range(k)]
+    xs = [trng.normal(5 + 0.6 * float(trng.standard_normal()), 1.2, n) for n in ns]
+    res = stats.f_oneway(*xs)
+    means = [float(dround(float(np.mean(x)), 2)) for x in xs]
+    sds = [float(dround(float(np.std(x, ddof=1)), 2)) for x in xs]
+    f, p = float(res.statistic), float(res.pvalue)
+    df2 = sum(ns) - k
+    if error is not None:
+        reach = max(max_oneway_f(means, sds, ns, 2, False), max_oneway_f(means, sds, ns, 2, True))
+        for _ in range(40):
+            cand = round(f * float(trng.choice([1.6, 2.0, 2.5, 3.0])) + float(trng.choice([0.0, 0.5, 1.0])), 2)
+            if cand - 0.005 > reach:
+                f, p, seeded = cand, float(stats.f.sf(cand, k - 1, df2)), error
+                break
+    wide = trng.random() < 0.5
+    med = nt.name in ("med", "middot")
+    mean_sd = "mean (SD)" if med else "M (SD)"
+    labels = [f"{GROUP_ORDINALS[i].capitalize()} {unit}" for i in range(k)]
+    num = lambda v: plain(v, 2, nt, True)
+    if wide:
+        other = [trng.normal(3.5, 0.8, n) for n in ns]
+        header = [[("Measure", [])]] + [[(f"{labels[i]} (n = {ns[i]}), {mean_sd}", [])] for i in range(k)]
+        row1 = [[("Composite index", [])]] + [[(f"{num(means[i])} ({num(sds[i])})", [])] for i in range(k)]
+        row2 = [[(TABLE_F_OTHER, [])]] + [[(f"{num(float(np.mean(x)))} ({num(float(np.std(x, ddof=1)))})", [])] for x in other]
+        rows = [header, row1, row2] if trng.random() < 0.5 else [header, row2, row1]
+        caption = f"Scores at follow-up by {unit}"
+    else:
+        rows = [[[(h, [])] for h in (unit.capitalize(), "n", "M", "SD")]]
+        rows += [[[(labels[i], [])], [(str(ns[i]), [])], [(num(means[i]), [])], [(num(sds[i]), [])]] for i in range(k)]
+        caption = f"Composite index at follow-up by {unit}"
+    cap = f"Table A1. {caption}." if pdf else f"**Table A1.** {caption}."
+    txt = f"F({k - 1}, {df2}){eq}{plain(f, 2, nt, True)}{js}{p_for_distractor(p, nt)}"
+    toks = [(f"The composite index at follow-up {'differed' if p < 0.05 else 'did not differ clearly'} across {place} (Table A1), ", []), (txt, [(did, "stat")]), (".", [])]
+    blocks = [("para", [(cap, [])]), ("table", rows), ("para", toks)]
+    meta = dict(id=did, kind="F-with-groups-in-table")
+    if seeded is not None:
+        meta.update(error=seeded, expect_rules=LATE_ERROR_RULES[seeded])
+    return meta, blocks
+
+
 # ---------------------------------------------------------------------------------------------
 # A whole manuscript
 # ---------------------------------------------------------------------------------------------
@@ -3078,6 +3138,8 @@ def build_doc(seed: int, spec: Spec) -> dict:
         distractors.append(make_distractor(rng, doc, new_did(), kind, brng if kind == "b" else srng))
     arng = np.random.default_rng([seed, spec.idx, 17])
     extra["late_distractors"] = [make_late_distractor(arng, doc, new_did(), str(arng.choice(["Fgroups", "Ft", "chi2table"]))) for _ in range(int(arng.integers(2, 5)))]
+    trng = np.random.default_rng([seed, spec.idx, 18])
+    extra["table_distractor"] = make_table_f_distractor(trng, doc, new_did(), doc.house == "pdf")
     return compose(doc, rng, blocks, abstract_cases, extra, distractors, new_did)
 
 
@@ -3358,6 +3420,14 @@ def compose(doc: Doc, rng: np.random.Generator, blocks: list, abstract_cases: li
         for meta, toks in late:
             L.append(("para", toks))
             dist_meta.append(meta)
+    table_f = extra.get("table_distractor")
+    if table_f:
+        if not late:
+            L.append(("h2", "Additional results"))
+        meta, blocks = table_f
+        for blk in blocks:
+            L.append(blk)
+        dist_meta.append(meta)
     # -- serialise
     return serialise(doc, rng, L, all_t, extra, abstract_cases, dist_meta)
 

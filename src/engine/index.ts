@@ -285,6 +285,7 @@ function descriptivesRecord(d: DescriptiveLink, place: (s: Span) => Place): NonN
     certain: d.certain,
     ...(d.certain ? {} : { doubt: linkDoubts({ descriptives: d })[0] ?? '' }),
     groups: d.groups.map((g, i) => ({ printed: g.printed, ...place(g.span), ...(g.label ? { label: g.label } : {}), spreadKind: d.spreadKinds[i] ?? 'unstated' })),
+    ...(d.tableTie ? { tableTie: { name: d.tableTie.name, named: { printed: d.tableTie.named.printed, ...place(d.tableTie.named.span), basis: d.tableTie.named.basis }, outcome: { by: d.tableTie.outcome.by, words: [...d.tableTie.outcome.words] } } } : {}),
   };
 }
 

@@ -71,12 +71,14 @@ export interface ResultRecord extends Place {
   context: {
     design: Setting<string>;
     descriptives?: {
-      scope: 'sentence' | 'paragraph' | 'table';
+      scope: 'sentence' | 'paragraph' | 'previous-paragraph' | 'table';
       /** Whether the tie is certain enough to warn on (no other statistic shares its sentence or paragraph). */
       certain: boolean;
       /** Why the tie is not certain, when it is not. */
       doubt?: string;
       groups: Array<Place & { printed: string; label?: string; spreadKind: string }>;
+      /** For an F's groups in a table: the table, the words naming it, and how the F names its outcome. */
+      tableTie?: { name: string; named: Place & { printed: string; basis: 'sentence' | 'paragraph' }; outcome: { by: 'label' | 'caption'; words: string[] } };
     };
     /** Why descriptives nearby were not joined (never a silent guess). */
     unlinked?: string;

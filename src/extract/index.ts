@@ -11,8 +11,9 @@ import { findAssignments } from './assignments.js';
 import { findPowerStatements } from './power.js';
 import { findSummaries } from './summaries.js';
 import { findTableMentions, nameTableRows, readTables } from './tables.js';
+import { findLabelMentions, findTableReferences, readCaptions } from './tableReferences.js';
 import { findPWithoutT } from './pWithoutT.js';
-import { completeStatistics, findOtherStatistics } from './statistics.js';
+import { completeStatistics, findOtherStatistics, NOT_ONE_WAY } from './statistics.js';
 import { findTableDimensions } from './contingency.js';
 import { applyStarLegends, findStarLegends, type StarLegend } from './stars.js';
 import { findTTests } from './tTests.js';
@@ -91,6 +92,9 @@ function findInSegment(seg: Segment, source: string): SegmentFinds {
   const tableDimensions = findTableDimensions(seg, starts);
   const statements = findStatements(seg, starts);
   const found = findSummaries(seg, starts);
+  // words of the paragraph naming another analysis than a one-way ANOVA, for an F in the next one
+  const analysis = found.summaries.length > 0 ? NOT_ONE_WAY.exec(seg.text)?.[1] : undefined;
+  if (analysis) for (const g of found.summaries) g.paragraphAnalysisWords = analysis;
   return {
     legend,
     tests,
@@ -145,6 +149,9 @@ export function extract(doc: ParsedDocument, cache?: ExtractionCache): Extractio
     tables: [],
     tableBlocks: [],
     tableMentions: [],
+    tableReferences: [],
+    tableCaptions: [],
+    tableLabelMentions: [],
   };
   const legends: StarLegend[] = [];
   doc.segments.forEach((original, i) => {
@@ -194,6 +201,9 @@ export function extract(doc: ParsedDocument, cache?: ExtractionCache): Extractio
   out.tableBlocks = tables.blocks;
   nameTableRows(out.tests, segments, tables.blocks);
   out.tableMentions = findTableMentions(segments, tables.blocks, out.tables);
+  out.tableCaptions = readCaptions(segments);
+  out.tableReferences = findTableReferences(segments, out.tableCaptions);
+  out.tableLabelMentions = findLabelMentions(segments, out.tableReferences, tables.blocks);
   applyStarLegends(out.tests, legends);
   out.measureMentions = findMeasureMentions(segments, out.integerMeasures);
   return out;

@@ -2,6 +2,7 @@ import type { Segment } from '../parse/types.js';
 import { readNumber, sentenceOf, sourceSpan } from './numbers.js';
 import { findP, reportTailEnd } from './tTests.js';
 import type { Comparison, OtherStatistic, OtherStatisticKind, ReportedNumber, TTestReport } from './types.js';
+import { leadStart, topicStems } from './topic.js';
 
 // Bounded building blocks (see test/regex-safety).
 const OP = String.raw`(?:<=|>=|≤|≥|=|<|>)`;
@@ -86,7 +87,11 @@ const CORRECTION = /(Greenhouse|Huynh)/u;
  * one-way between-groups F of the groups' printed means and SDs: repeated or mixed designs,
  * covariates, Welch's or Brown–Forsythe's F, a factorial design's effects.
  */
-const NOT_ONE_WAY = /(repeated|within[- ]subjects?|within[- ]participants?|mixed|covariat\w{0,4}|ANCOVA|adjust\w{0,4}|Welch|Brown[- –]Forsythe|interaction|main effect|two-way|three-way|factorial|MANOVA|multivariate|over time|across time|time points?|timepoints?|sessions|waves)/iu;
+export const NOT_ONE_WAY = /(repeated|within[- ]subjects?|within[- ]participants?|mixed|covariat\w{0,4}|ANCOVA|adjust\w{0,4}|Welch|Brown[- –]Forsythe|interaction|main effect|two-way|three-way|factorial|MANOVA|multivariate|over time|across time|time points?|timepoints?|sessions|waves)/iu;
+/** Stems of the words that name the one-way ANOVA itself, not what it compares (common practice, no source). */
+const METHOD_STEMS = new Set(['anova', 'one-w', 'varia']);
+/** A paragraph that may name a table ("Table 2"): only there does an F need its sentence's words. */
+const TABLE_WORD = /Tab/u;
 /** Words of an F, χ², r or z report that are not other prose. */
 const OWN_WORDS = /^(?:mse|ms|ss|greenhouse|geisser|huynh|feldt|gg|hf|epsilon|ε|sphericity|likelihood|ratio|pearson|pearson's|pearson’s|yates|fisher|fisher's|fisher’s|wald|asymptotic|approximate|one-way|anova|ancova|manova|wilks|pillai|trace|lambda)$/iu;
 /** Words before an r that make p from t = r√(df/(1 − r²)) an approximation or its df another one. */
@@ -113,6 +118,10 @@ export function completeStatistics(seg: Segment, starts: number[], others: Other
   const hard: number[] = [];
   for (const t of tests) if (t.segment === seg.id) hard.push(textIndexOf(seg, t.span.start));
   for (const o of others) if (CHECKED.has(o.kind)) hard.push(textIndexOf(seg, o.span.start));
+  // what is the same for every F of the paragraph or sentence, read once
+  let paragraphWords: string | null | undefined;
+  const namesTable = TABLE_WORD.test(text);
+  const stemsBySentence = new Map<number, string[]>();
   return others.map((o) => {
     if (!CHECKED.has(o.kind) || !o.value) return o;
     const at = textIndexOf(seg, o.span.start);
@@ -151,6 +160,19 @@ export function completeStatistics(seg: Segment, starts: number[], others: Other
       if (c) out.dfCorrection = c[1] === 'Huynh' ? 'huynh-feldt' : 'greenhouse-geisser';
       const w = NOT_ONE_WAY.exec(text.slice(sentenceStart, tailEnd));
       if (w) out.analysisWords = w[1] as string;
+      if (paragraphWords === undefined) paragraphWords = NOT_ONE_WAY.exec(text)?.[1] ?? null;
+      if (paragraphWords !== null) out.paragraphAnalysisWords = paragraphWords;
+      // the paragraph's only statistic: its lead, for groups printed in the paragraph before
+      if (boundaries.length === 1) out.leadStems = topicStems(text.slice(leadStart(text, sentenceStart, at), at)).filter((w) => !METHOD_STEMS.has(w));
+      if (namesTable) {
+        const sentence = sentenceOf(starts, at);
+        let stems = stemsBySentence.get(sentence);
+        if (!stems) {
+          stems = topicStems(text.slice(sentenceStart, starts[sentence + 1] ?? text.length));
+          stemsBySentence.set(sentence, stems);
+        }
+        out.sentenceStems = stems;
+      }
     }
     if (o.kind === 'chi-square') {
       // a φ or V of the χ²'s own clause: the first one after its value and before the clause ends

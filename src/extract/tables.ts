@@ -94,7 +94,7 @@ function blockAt(blocks: readonly TableBlockRecord[], row: number): TableBlockRe
 }
 
 /** A caption's own number: "Table 2", "Table S1", "Table IV". */
-const CAPTION_NUMBER = /^\s?(?:Table|TABLE|Tab\.)[ \u00A0]{0,2}([A-Z]?\d{1,3}|[IVXLC]{1,7})(?![\p{L}\p{N}])/u;
+export const CAPTION_NUMBER = /^\s?(?:Table|TABLE|Tab\.)[ \u00A0]{0,2}([A-Z]?\d{1,3}|[IVXLC]{1,7})(?![\p{L}\p{N}])/u;
 
 /**
  * Gives each result printed in a table the words a reader finds it by: the table's name (the
@@ -159,6 +159,16 @@ interface Columns {
   spread?: { column: number; kind: 'SD' | 'SE'; printed: string };
   n?: number;
   group?: number;
+  /** The one `M (SD)` column of a long layout (a group per row, its n in the n column). */
+  longCell?: number;
+}
+
+/** The name and n of the group a long layout's row prints. */
+function longCellGroup(row: Map<number, Segment>, cols: Columns): { label?: string; n?: ReportedNumber } {
+  const nCell = cols.n !== undefined ? row.get(cols.n) : undefined;
+  const n = nCell ? cellNumber(nCell) : undefined;
+  const label = row.get(cols.group ?? 0)?.text.trim();
+  return { ...(label ? { label } : {}), ...(n ? { n } : {}) };
 }
 
 function columnsOf(grid: Grid): Columns {
@@ -195,6 +205,10 @@ function columnsOf(grid: Grid): Columns {
     else if (GROUP_HEADER.test(text)) c.group ??= column;
     else if (OTHER_STAT_HEADER.test(text)) others.push(column);
   }
+  // one group column without a name or n (`M (SD)`) beside an n column: a long layout whose
+  // cells print mean and spread together, one group per row
+  const only = c.groups[0];
+  if (c.groups.length === 1 && only && only.label === '' && !only.n && c.n !== undefined && c.mean === undefined) c.longCell = only.column;
   // a p column is the t's only when no other statistic's column is as near to it or between them
   // (a table of a χ² with its p and then a t, `χ²(1) | p | … | t(81)`: the p is the χ²'s)
   if (c.p !== undefined && c.t !== undefined && others.length > 0) {
@@ -228,17 +242,22 @@ function readGrid(grid: Grid, out: TableResults): void {
       const spreadText = (m[2] ?? m[3]) as string;
       const spread = mean ? numberAt(cell, spreadText, cell.text.indexOf(m[1] as string) + (m[1] as string).length) : undefined;
       if (!mean || !spread) continue;
+      // a long layout printing mean and spread in one cell (`Group | n | M (SD)`): the row is the
+      // group, its name in the group column (else the first) and its n in the n column
+      const rowGroup = cols.longCell !== undefined && g.column === cols.longCell ? longCellGroup(row, cols) : undefined;
+      const label = rowGroup ? rowGroup.label : g.label;
+      const n = rowGroup ? rowGroup.n : g.n;
       out.summaries.push({
         id: `${cell.id}:row`,
         segment: cell.id,
         block: cell.block,
         sentence: 0,
-        span: { start: mean.span.start, end: spread.span.end },
-        printed: `${g.label ? `${g.label}: ` : ''}${cell.text.trim()}`,
+        span: { start: Math.min(mean.span.start, n && rowGroup ? n.span.start : Infinity), end: Math.max(spread.span.end, n && rowGroup ? n.span.end : -Infinity) },
+        printed: rowGroup ? [label, cell.text.trim(), n?.printed].filter(Boolean).join(' | ') : `${label ? `${label}: ` : ''}${cell.text.trim()}`,
         mean,
         spread: { number: spread, kind: g.kind, printedKind: g.printedKind },
-        ...(g.n ? { n: g.n } : {}),
-        ...(g.label ? { label: g.label } : {}),
+        ...(n ? { n } : {}),
+        ...(label ? { label } : {}),
         percent: false,
         table: where,
       });
@@ -473,23 +492,34 @@ export function findTableMentions(segments: readonly Segment[], blocks: readonly
     if (names.length === 0) continue;
     for (const seg of segments) {
       if (seg.table || seg.kind === 'code' || seg.block < t.firstBlock - MENTION_REACH || seg.block > t.lastBlock + MENTION_REACH) continue;
-      const lower = seg.text.toLowerCase();
-      let starts: number[] | undefined;
-      const seen = new Set<string>();
-      for (const name of names) {
-        for (let at = lower.indexOf(name); at >= 0; at = lower.indexOf(name, at + 1)) {
-          if (/\p{L}/u.test(lower[at - 1] ?? '') || /\p{L}/u.test(lower[at + name.length] ?? '')) continue;
-          starts ??= sentenceStarts(seg.text);
-          const sentence = sentenceOf(starts, at);
-          if (seen.has(`${sentence}:${name}`)) continue;
-          seen.add(`${sentence}:${name}`);
-          out.push({ table: t.table, label: name, segment: seg.id, sentence });
-        }
-      }
+      labelsNamedIn(seg, t.table, names, out);
     }
   }
   return out;
 }
+
+/**
+ * Each sentence of a segment that names one of a table's labels (lower case) as whole words,
+ * once per label and sentence. `/\p{L}/` decides what a whole word is; callers that need a
+ * digit to join too check their labels' own edges.
+ */
+export function labelsNamedIn(seg: Segment, table: number, names: Iterable<string>, out: Array<{ table: number; label: string; segment: number; sentence: number }>, joins: RegExp = LETTER): void {
+  const lower = seg.text.toLowerCase();
+  let starts: number[] | undefined;
+  const seen = new Set<string>();
+  for (const name of names) {
+    for (let at = lower.indexOf(name); at >= 0; at = lower.indexOf(name, at + 1)) {
+      if (joins.test(lower[at - 1] ?? '') || joins.test(lower[at + name.length] ?? '')) continue;
+      starts ??= sentenceStarts(seg.text);
+      const sentence = sentenceOf(starts, at);
+      if (seen.has(`${sentence}:${name}`)) continue;
+      seen.add(`${sentence}:${name}`);
+      out.push({ table, label: name, segment: seg.id, sentence });
+    }
+  }
+}
+
+const LETTER = /\p{L}/u;
 
 /** How many blocks (paragraphs, captions) before or after a table a sentence may name its measures from. */
 const MENTION_REACH = 4;

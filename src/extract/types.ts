@@ -152,6 +152,23 @@ export interface OtherStatistic {
    * one-way between-groups ANOVA (`repeated`, `ANCOVA`, `Welch`, `interaction`, …), as printed.
    */
   analysisWords?: string;
+  /**
+   * For F: the first words of its whole paragraph that name such another analysis (the
+   * paragraph may say "we computed ANCOVAs" sentences before the F), as printed.
+   */
+  paragraphAnalysisWords?: string;
+  /**
+   * For F, in a paragraph that names a table: the stems of the content words of its sentence
+   * (src/extract/topic.ts), which the link layer compares with the table's caption.
+   */
+  sentenceStems?: string[];
+  /**
+   * For the one F of a paragraph that reports no other statistic: the stems of its lead's content
+   * words (its sentence up to it, from the last clause boundary), without the words that name the
+   * one-way ANOVA itself, so the link layer can tell whether groups printed in the paragraph
+   * before are of what the F is about.
+   */
+  leadStems?: string[];
   /** For F: an η² printed in its clause (`ηp2 = .10`, `partial η2 = .10`), and whether it is said to be partial. */
   etaSquared?: { partial: boolean; op: Comparison; value: ReportedNumber; span: Span; printed: string };
   /**
@@ -216,6 +233,39 @@ export interface Extraction {
   tableMentions: Array<{ table: number; label: string; segment: number; sentence: number }>;
   /** Blocks each table spans, so results can be joined to the table next to them. */
   tables: Array<{ table: number; firstBlock: number; lastBlock: number }>;
+  /** Prose that names a table by its caption's number ("see Table 2"), src/extract/tableReferences.ts. */
+  tableReferences: TableReference[];
+  /** Each captioned table's name and the stems of its caption's content words. */
+  tableCaptions: TableCaption[];
+  /**
+   * Sentences of a paragraph that names a table which name one of that table's row or block
+   * labels (its measures), found in every such paragraph however far from the table.
+   */
+  tableLabelMentions: Array<{ table: number; label: string; segment: number; sentence: number }>;
+}
+
+/**
+ * "Table 2" named in prose. `table` is the table whose caption gives it that number, when
+ * exactly one does; a plural ("Tables 2 and 3") or a number no caption gives leaves it open.
+ */
+export interface TableReference {
+  segment: number;
+  block: number;
+  sentence: number;
+  span: Span;
+  printed: string;
+  table?: number;
+  /** "Tables 2 and 3", "Tables 2–4": several tables named at once. */
+  plural: boolean;
+}
+
+export interface TableCaption {
+  table: number;
+  /** "Table 2", from the caption's own number. */
+  name: string;
+  /** The caption's content words (lower case, each once), and the stem of each, in the same order. */
+  words: string[];
+  stems: string[];
 }
 
 /** The kind of spread printed after a mean. */
@@ -256,6 +306,8 @@ export interface GroupSummary {
   table?: TableRow;
   /** Prose: the stems of the content words from its sentence's start to its end (src/extract/topic.ts). */
   topic?: string[];
+  /** Prose: the first words of its paragraph that name an analysis other than a one-way ANOVA ("adjusted for age"). */
+  paragraphAnalysisWords?: string;
 }
 
 /** A sample size printed on its own: `N = 60`, `(n = 30 per group)`, `24 participants`. */

@@ -7,11 +7,13 @@ import type {
   GroupAssignment,
   GroupSummary,
   IntervalReport,
+  OtherStatistic,
   ReferenceValue,
   ReportedNumber,
   SampleSize,
   SpreadKind,
   TableBlockRecord,
+  TableReference,
   TableRow,
   TTestReport,
 } from '../extract/types.js';
@@ -50,7 +52,7 @@ export interface IntervalLink extends Linked<IntervalReport> {
 
 /** The descriptives a result can be recomputed from, and how they were joined to it. */
 export interface DescriptiveLink {
-  scope: 'sentence' | 'paragraph' | 'table';
+  scope: 'sentence' | 'paragraph' | 'previous-paragraph' | 'table';
   /** One group (one-sample or differences) or two, in reading order. */
   groups: GroupSummary[];
   /** Each group's spread kind after statements such as "mean ± SEM" are applied. */
@@ -61,6 +63,12 @@ export interface DescriptiveLink {
   certain: boolean;
   /** Why the tie is not certain, when neither of those says it. */
   doubt?: string;
+  /**
+   * For groups in a table tied to an F by name (`fGroupsJoiner`): the table, the words that
+   * named it ("Table 2", in the F's sentence or paragraph), and the row or block label the F's
+   * sentence names, or the caption words it shares when the table holds one set of groups.
+   */
+  tableTie?: { name: string; named: { span: Span; printed: string; basis: 'sentence' | 'paragraph' }; outcome: { by: 'label' | 'caption'; words: string[] } };
 }
 
 export interface ResultContext {
@@ -707,11 +715,12 @@ const MAX_F_GROUPS = 12;
  * t-test: the prose groups of the F's sentence when it is the sentence's only test of means (t
  * or F); else the groups of its paragraph's sentences that report no statistic, when it is the
  * paragraph's only test of means, certain only when those groups stand in one sentence (groups
- * spread over several sentences may be of several measures). Groups in tables are not tied here.
- * Two to MAX_F_GROUPS groups; anything else gives nothing. Linear: each lookup is by sentence or
- * segment, counted once.
+ * spread over several sentences may be of several measures). With no prose groups in its
+ * paragraph, the groups of a table the F's words name (`tableGroupsFor`). Two to MAX_F_GROUPS
+ * groups; anything else gives nothing. Linear: each lookup is by sentence, segment or table,
+ * counted once.
  */
-export function fGroupsJoiner(x: Extraction): (o: { kind: string; segment: number; sentence: number; span: Span }) => DescriptiveLink | undefined {
+export function fGroupsJoiner(x: Extraction): (o: OtherStatistic) => DescriptiveLink | undefined {
   // nothing to index in a document without an F beside prose groups
   if (x.summaries.length < 2 || !x.otherStatistics.some((o) => o.kind === 'F')) return () => undefined;
   const clauses = clauseIndex(x);
@@ -724,6 +733,8 @@ export function fGroupsJoiner(x: Extraction): (o: { kind: string; segment: numbe
   };
   const prose = new SegmentList(x.summaries.filter((g) => !g.table && !overlapsTest(g)));
   const spreads = spreadStatements(x);
+  const tables = tableGroupsFor(x, clauses, spreads);
+  const before = previousParagraphGroupsFor(x, clauses, prose, spreads);
   return (o) => {
     if (o.kind !== 'F') return undefined;
     const inSentence = prose.inSentence(o.segment, o.sentence);
@@ -731,8 +742,10 @@ export function fGroupsJoiner(x: Extraction): (o: { kind: string; segment: numbe
       if (inSentence.length < 2 || inSentence.length > MAX_F_GROUPS || clauses.meanTestsInSentence(o.segment, o.sentence) !== 1) return undefined;
       return makeLink('sentence', [...inSentence], spreads, true);
     }
-    if (clauses.meanTestsInSegment(o.segment) !== 1) return undefined;
     const all = prose.all(o.segment);
+    // groups in its paragraph's prose are the F's or another's: never a table's beside them
+    if (all.length === 0) return tables(o) ?? before(o);
+    if (clauses.meanTestsInSegment(o.segment) !== 1) return undefined;
     if (all.length > 4 * MAX_F_GROUPS) return undefined;
     const groups = all.filter((g) => clauses.statisticsInSentence(g.segment, g.sentence) === 0);
     if (groups.length < 2 || groups.length > MAX_F_GROUPS) return undefined;
@@ -740,4 +753,211 @@ export function fGroupsJoiner(x: Extraction): (o: { kind: string; segment: numbe
     const link = makeLink('paragraph', groups, spreads, sentences === 1);
     return sentences === 1 ? link : { ...link, doubt: `the groups are printed in ${sentences} sentences of the paragraph, which may be of more than one measure` };
   };
+}
+
+/**
+ * The groups of the paragraph right before an F's, tied only where the tie is as certain as one
+ * in the F's own sentence: the F is the only statistic of its paragraph, which names no table
+ * and prints no groups; the paragraph before (the block right before, so no heading, table or
+ * other paragraph stands between) reports no statistic and prints its two to MAX_F_GROUPS groups
+ * in one sentence; every content word of the F's lead ("The composite index at follow-up
+ * differed across sites, F(…)", words naming the ANOVA itself aside) is in that sentence, and
+ * the lead names at least one; no words in either paragraph name another analysis than a
+ * one-way between-groups ANOVA, and the F's dfs are exactly (k − 1, N − k) of those groups.
+ * Anything short of that ties nothing.
+ */
+function previousParagraphGroupsFor(x: Extraction, clauses: ClauseIndex, prose: SegmentList<GroupSummary>, spreads: SpreadStatements): (o: OtherStatistic) => DescriptiveLink | undefined {
+  const byBlock = groupBy(
+    x.summaries.filter((g) => !g.table),
+    (g) => g.block,
+  );
+  const namingTables = new Set(x.tableReferences.map((r) => r.segment));
+  return (o) => {
+    if (!o.leadStems || o.leadStems.length === 0 || o.analysisWords || o.paragraphAnalysisWords || o.dfCorrection || o.sameAsT) return undefined;
+    const [df1, df2] = o.dfs ?? [];
+    if (!df1 || !df2 || df1.decimals > 0 || df2.decimals > 0) return undefined;
+    if (namingTables.has(o.segment) || clauses.statisticsInSegment(o.segment) !== 1) return undefined;
+    const groups = byBlock.get(o.block - 1) ?? [];
+    const first = groups[0];
+    if (!first || groups.length < 2 || groups.length > MAX_F_GROUPS) return undefined;
+    // every group of that block, unclaimed by a test, in one sentence of one paragraph without statistics
+    if (prose.all(first.segment).length !== groups.length) return undefined;
+    if (!groups.every((g) => g.segment === first.segment && g.sentence === first.sentence && !g.paragraphAnalysisWords)) return undefined;
+    if (clauses.statisticsInSegment(first.segment) !== 0) return undefined;
+    if (!groups.every((g) => g.mean && g.spread && g.n && g.n.decimals === 0 && g.n.value >= 1)) return undefined;
+    // each group's words run from its sentence's start to it: together, the sentence up to the last
+    const topic = new Set(groups.flatMap((g) => g.topic ?? []));
+    if (!o.leadStems.every((w) => topic.has(w))) return undefined;
+    const k = groups.length;
+    const total = groups.reduce((a, g) => a + (g.n as ReportedNumber).value, 0);
+    if (df1.value !== k - 1 || df2.value !== total - k) return undefined;
+    return makeLink('previous-paragraph', [...groups], spreads, true);
+  };
+}
+
+/** One set of groups in a table: a wide row (its label the row's), a long block, or a whole long table. */
+interface TableSet {
+  label?: string;
+  groups: GroupSummary[];
+}
+
+/**
+ * The groups of a table an F names, tied only where every link is certain:
+ * - the F's sentence names the table by its caption's number ("Table 2"), or else its paragraph
+ *   does and no sentence of it names another (a plural "Tables 2 and 3" names none for sure);
+ * - nothing beside the F names another analysis than a one-way between-groups ANOVA (in its
+ *   sentence or anywhere in its paragraph: "we computed ANCOVAs" two sentences before), nor a
+ *   sphericity correction, and it is its sentence's only test of means;
+ * - the table holds one set of groups for the outcome the F names: the one set whose row or
+ *   block label the F's sentence names (and no other label of the table), or, in a table of a
+ *   single set without labels, a word of the caption the F's sentence shares;
+ * - every group prints its mean, spread and n, and the F's dfs are exactly (k − 1, N − k).
+ * A single set whose caption shares no word with the F's sentence is tied without certainty (a
+ * finding on it is a note); anything else ties nothing. A table named only by the paragraph
+ * needs the F to be the paragraph's only test of means when it is chosen by its caption.
+ */
+function tableGroupsFor(x: Extraction, clauses: ClauseIndex, spreads: SpreadStatements): (o: OtherStatistic) => DescriptiveLink | undefined {
+  if (x.tableReferences.length === 0 || !x.summaries.some((g) => g.table)) return () => undefined;
+  const references = new SegmentList(x.tableReferences);
+  const captions = new Map(x.tableCaptions.map((c) => [c.table, c]));
+  const mentions = groupBy(x.tableLabelMentions, (m) => `${m.segment}:${m.sentence}:${m.table}`);
+  const summaries = groupBy(x.summaries.filter((g) => g.table), (g) => (g.table as TableRow).table);
+  const blocks = groupBy(x.tableBlocks, (b) => b.table);
+  const sets = new Map<number, TableSet[]>();
+  const setsOf = (table: number): TableSet[] => {
+    let found = sets.get(table);
+    if (!found) {
+      found = tableSets(summaries.get(table) ?? [], blocks.get(table) ?? []);
+      sets.set(table, found);
+    }
+    return found;
+  };
+  // the table a sentence or paragraph names, and the labels a sentence names, once each: a
+  // sentence of thousands of Fs naming a table stays linear
+  const namedBy = new Map<string, { reference: TableReference; own: boolean } | null>();
+  const nameOf = (list: readonly TableReference[], own: boolean) => {
+    const first = list[0];
+    return first && first.table !== undefined && list.every((r) => !r.plural && r.table === first.table) ? { reference: first, own } : null;
+  };
+  const tableNamed = (o: OtherStatistic) => {
+    const key = `${o.segment}:${o.sentence}`;
+    let found = namedBy.get(key);
+    if (found === undefined) {
+      const own = references.inSentence(o.segment, o.sentence);
+      if (own.length > 0) found = nameOf(own, true);
+      else {
+        const paragraph = `${o.segment}`;
+        found = namedBy.get(paragraph);
+        if (found === undefined) {
+          found = nameOf(references.all(o.segment), false);
+          namedBy.set(paragraph, found);
+        }
+      }
+      namedBy.set(key, found);
+    }
+    return found;
+  };
+  const saidIn = new Map<string, Set<string>>();
+  const sharedIn = new Map<string, { shared: string[]; missing: string[] }>();
+  return (o) => {
+    if (o.analysisWords || o.paragraphAnalysisWords || o.dfCorrection || o.sameAsT) return undefined;
+    const [df1, df2] = o.dfs ?? [];
+    if (!df1 || !df2 || df1.decimals > 0 || df2.decimals > 0) return undefined;
+    if (clauses.meanTestsInSentence(o.segment, o.sentence) !== 1) return undefined;
+    const named = tableNamed(o);
+    if (!named) return undefined;
+    const first = named.reference;
+    const own = named.own;
+    const table = first.table as number;
+    const caption = captions.get(table);
+    if (!caption) return undefined;
+    const all = setsOf(table);
+    if (all.length === 0) return undefined;
+    const sayKey = `${o.segment}:${o.sentence}:${table}`;
+    let said = saidIn.get(sayKey);
+    if (!said) {
+      said = new Set((mentions.get(sayKey) ?? []).map((m) => m.label));
+      saidIn.set(sayKey, said);
+    }
+    let set: TableSet | undefined;
+    let outcome: NonNullable<DescriptiveLink['tableTie']>['outcome'];
+    let doubt: string | undefined;
+    // the caption's words the F's sentence shares, and those it does not ("at baseline")
+    let words = sharedIn.get(sayKey);
+    if (!words) {
+      const stems = new Set(o.sentenceStems ?? []);
+      words = { shared: caption.words.filter((_, i) => stems.has(caption.stems[i] as string)), missing: caption.words.filter((_, i) => !stems.has(caption.stems[i] as string)) };
+      sharedIn.set(sayKey, words);
+    }
+    const only = all.length === 1 ? all[0] : undefined;
+    if (only && only.label === undefined) {
+      if (!own && clauses.meanTestsInSegment(o.segment) !== 1) return undefined;
+      set = only;
+      outcome = { by: 'caption', words: words.shared };
+      if (words.shared.length === 0) doubt = `the F's sentence shares no word with the caption of ${caption.name}, so the table's groups may be of another measure`;
+    } else {
+      if (said.size !== 1) return undefined;
+      const label = [...said][0] as string;
+      const matching = all.filter((s) => s.label?.toLowerCase() === label);
+      if (matching.length !== 1) return undefined;
+      set = matching[0] as TableSet;
+      outcome = { by: 'label', words: [set.label as string] };
+    }
+    // a caption naming what the F's sentence does not (a time, a subsample) may be of other data
+    if (!doubt && words.missing.length > 0) doubt = `the caption of ${caption.name} names "${words.missing.slice(0, 4).join(' ')}", which the F's sentence does not, so the table may be of another time, sample or measure`;
+    const groups = set.groups;
+    const k = groups.length;
+    if (k < 2 || k > MAX_F_GROUPS || !groups.every((g) => g.mean && g.spread && g.n && g.n.decimals === 0 && g.n.value >= 1)) return undefined;
+    const total = groups.reduce((a, g) => a + (g.n as ReportedNumber).value, 0);
+    if (df1.value !== k - 1 || df2.value !== total - k) return undefined;
+    const link = makeLink('table', [...groups], spreads, doubt === undefined);
+    return {
+      ...link,
+      ...(doubt ? { doubt } : {}),
+      tableTie: { name: caption.name, named: { span: first.span, printed: first.printed, basis: own ? 'sentence' : 'paragraph' }, outcome },
+    };
+  };
+}
+
+/**
+ * The sets of groups a table prints: each row holding two or more groups (a wide layout, one
+ * measure per row, labelled by its row's block); rows holding one group each (a long layout)
+ * form one set when each is a block of its own labelled by the group itself (the group's name
+ * in the first column), else one set per block, labelled by the block's measure. A table mixing
+ * both layouts gives no set.
+ */
+function tableSets(summaries: readonly GroupSummary[], blocks: readonly TableBlockRecord[]): TableSet[] {
+  const byRow = groupBy(summaries, (g) => (g.table as TableRow).row);
+  // blocks are in row order and do not overlap: a binary search finds a row's
+  const blockOf = (row: number): TableBlockRecord | undefined => {
+    let lo = 0;
+    let hi = blocks.length - 1;
+    while (lo <= hi) {
+      const mid = (lo + hi) >> 1;
+      const b = blocks[mid] as TableBlockRecord;
+      if (row < b.firstRow) hi = mid - 1;
+      else if (row > b.lastRow) lo = mid + 1;
+      else return b;
+    }
+    return undefined;
+  };
+  const wide: TableSet[] = [];
+  const long: GroupSummary[] = [];
+  for (const [row, groups] of byRow) {
+    if (groups.length >= 2) {
+      const label = blockOf(row)?.label;
+      wide.push({ ...(label ? { label } : {}), groups });
+    } else for (const g of groups) long.push(g);
+  }
+  if (wide.length > 0 && long.length > 0) return [];
+  if (wide.length > 0) return wide;
+  const byBlock = groupBy(long, (g) => blockOf((g.table as TableRow).row));
+  const ownBlocks = [...byBlock].every(([b, gs]) => b !== undefined && gs.length === 1 && (gs[0]?.label ?? '') === b.label);
+  if (ownBlocks) return long.length > 0 ? [{ groups: long }] : [];
+  const out: TableSet[] = [];
+  for (const [b, gs] of byBlock) {
+    if (!b) return [];
+    out.push({ label: b.label, groups: gs });
+  }
+  return out;
 }

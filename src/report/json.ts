@@ -2,7 +2,7 @@ import { CHUNK, jsonChunks } from './jsonChunks.js';
 import { CAUTIONS, countRun, type RunReport } from './types.js';
 
 /** Version of the JSON report's shape (schema/report.schema.json); bumped on any change. */
-export const JSON_REPORT_VERSION = '1.5.0';
+export const JSON_REPORT_VERSION = '1.6.0';
 
 /**
  * The JSON report: every extracted result with its spans, printed and recomputed values,

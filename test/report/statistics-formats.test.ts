@@ -139,3 +139,35 @@ describe('JSON: an F with its groups and a z with its coefficient carry those ti
   });
 });
 
+
+describe('JSON: an F tied to groups in a table it names, and to groups in the paragraph before (invented manuscript)', () => {
+  // the groups of rules/f-follows-from-group-summaries.md (NIST/SEMATECH e-Handbook example, from
+  // memory; F(2, 12) = 9.59), printed once in a table and once in a paragraph of their own
+  const text = [
+    'Table 2. Recall by room.',
+    '',
+    '| Room | n | M | SD |',
+    '|---|---|---|---|',
+    '| Quiet | 5 | 5.34 | 1.12 |',
+    '| Music | 5 | 7.72 | 1.10 |',
+    '| Noise | 5 | 8.56 | 1.38 |',
+    '',
+    'Recall differed by room (Table 2), F(2, 12) = 9.59, p = .003.',
+    '',
+    'On the retest, recall was 5.34 (SD = 1.12, n = 5) in the quiet room, 7.72 (SD = 1.10, n = 5) with music and 8.56 (SD = 1.38, n = 5) with noise.',
+    '',
+    'On the retest recall differed by room, F(2, 12) = 9.59, p = .003.',
+    '',
+  ].join('\n');
+  const file = checkSource('table-ties.md', text);
+  const data = JSON.parse(formatJson({ tool: { name: 'plumbline', version: '0.0.0-test' }, files: [file], failures: [], rules: [] }));
+  it('meets the schema, and says which table, which words named it and what the F named', () => {
+    const validate = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
+    expect(validate(data), JSON.stringify(validate.errors?.slice(0, 5), null, 1)).toBe(true);
+    const [inTable, before] = data.files[0].statistics as Array<{ groups?: { scope: string; certain: boolean; tableTie?: { name: string; named: { printed: string; basis: string; start: { line: number; column: number } }; outcome: { by: string; words: string[] } } } }>;
+    expect(inTable?.groups).toMatchObject({ scope: 'table', certain: true, tableTie: { name: 'Table 2', named: { printed: 'Table 2', basis: 'sentence', start: { line: 9, column: 26 } }, outcome: { by: 'caption', words: ['recall', 'room'] } } });
+    expect(before?.groups).toMatchObject({ scope: 'previous-paragraph', certain: true });
+    expect(before?.groups?.tableTie).toBeUndefined();
+    expect(file.findings.filter((x) => x.ruleId === 'f-follows-from-group-summaries')).toEqual([]);
+  });
+});
