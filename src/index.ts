@@ -11,6 +11,7 @@ export {
   formatLines,
   formatJson,
   formatJsonChunks,
+  readJsonReport,
   formatSarif,
   formatSarifChunks,
   formatChecklist,
