@@ -130,6 +130,9 @@ export class FileEncoder {
     return [this.text(template.join('')), runs.join(' ')];
   }
 
+  /** Each result's and statistic's `printed`, by id: a finding's `reported` that repeats it is left out. */
+  readonly printedOf = new Map<string, string>();
+
   /** The encoded file setting (`alpha`, `sidedness`) a result leaves out when its own is the same. */
   fileSettings: { alpha?: string; sidedness?: string } = {};
 
@@ -201,18 +204,37 @@ function resultDefaults(encoder: FileEncoder, r: JsonObject): JsonObject {
 /** The design a result has when nothing says what it is. */
 const UNKNOWN_DESIGN = { value: 'unknown', basis: 'default' };
 
-/** A finding's `gap.lastDigitUnits` is left out when it is exactly `absolute / (2 × roundingAllowance)`. */
-function findingDefaults(f: JsonObject): JsonObject {
+/**
+ * A finding's members left out when they repeat another: `gap.lastDigitUnits` when it is exactly
+ * `absolute / (2 × roundingAllowance)`; `reported` when it is the `printed` of the result or
+ * statistic its `resultId` names; an interval figure's `midpoint` when it is exactly the mean of
+ * `lower` and `upper` (low with low, high with high), and its `estimate` when it is the midpoint.
+ */
+function findingDefaults(encoder: FileEncoder, f: JsonObject): JsonObject {
   const g = f.gap;
   if (isObject(g) && typeof g.absolute === 'number' && typeof g.roundingAllowance === 'number' && typeof g.lastDigitUnits === 'number' && g.lastDigitUnits === g.absolute / (2 * g.roundingAllowance)) delete (g as JsonObject).lastDigitUnits;
+  if (typeof f.resultId === 'string' && typeof f.reported === 'string' && encoder.printedOf.get(f.resultId) === f.reported) delete f.reported;
+  const fig = f.figure;
+  if (isObject(fig) && fig.kind === 'interval') {
+    const figure = fig as JsonObject;
+    if (isRange(figure.midpoint) && isRange(figure.estimate) && figure.estimate.low === figure.midpoint.low && figure.estimate.high === figure.midpoint.high && Object.keys(figure.estimate).length === 2) delete figure.estimate;
+    const mid = midpointOf(figure.lower, figure.upper);
+    if (mid && isRange(figure.midpoint) && figure.midpoint.low === mid.low && figure.midpoint.high === mid.high && Object.keys(figure.midpoint).length === 2) delete figure.midpoint;
+  }
   return f;
+}
+
+/** The mean of two ranges, low with low and high with high, as the interval figure's midpoint is made. */
+function midpointOf(lower: unknown, upper: unknown): { low: number; high: number } | undefined {
+  return isRange(lower) && isRange(upper) ? { low: (lower.low + upper.low) / 2, high: (lower.high + upper.high) / 2 } : undefined;
 }
 
 /** One result, statistic, finding or checklist item of a file, encoded. */
 export function encodeItem(encoder: FileEncoder, member: string, item: unknown): Json {
   const e = encoder.encode(item);
+  if ((member === 'results' || member === 'statistics') && isObject(item) && typeof item.id === 'string' && typeof item.printed === 'string') encoder.printedOf.set(item.id, item.printed);
   if (member === 'results') return resultDefaults(encoder, e as JsonObject);
-  if (member === 'findings') return findingDefaults(e as JsonObject);
+  if (member === 'findings') return findingDefaults(encoder, e as JsonObject);
   return e ?? null;
 }
 
@@ -282,7 +304,15 @@ export function expandFile(file: Record<string, unknown>): Record<string, unknow
     }
   }
   if (Array.isArray(out.findings)) {
+    const printedOf = new Map<unknown, unknown>();
+    for (const list of [out.results, out.statistics]) if (Array.isArray(list)) for (const x of list as Array<Record<string, unknown>>) printedOf.set(x.id, x.printed);
     for (const f of out.findings as Array<Record<string, unknown>>) {
+      if (!('reported' in f) && printedOf.has(f.resultId)) f.reported = printedOf.get(f.resultId);
+      const fig = f.figure;
+      if (isObject(fig) && fig.kind === 'interval') {
+        if (!('midpoint' in fig)) fig.midpoint = midpointOf(fig.lower, fig.upper);
+        if (!('estimate' in fig) && isRange(fig.midpoint)) fig.estimate = { low: fig.midpoint.low, high: fig.midpoint.high };
+      }
       const g = f.gap;
       if (isObject(g) && typeof g.absolute === 'number' && typeof g.roundingAllowance === 'number' && !('lastDigitUnits' in g)) g.lastDigitUnits = g.absolute / (2 * g.roundingAllowance);
     }
