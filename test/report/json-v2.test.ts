@@ -10,6 +10,8 @@ import { describe, expect, it } from 'vitest';
 import { checkSource } from '../../src/engine/index.js';
 import { formatJson, readJsonReport, type RunReport } from '../../src/report/index.js';
 import { manyResults } from '../../bench/corpus.js';
+import { readDocxDocument } from '../../src/parse/docx/index.js';
+import { readPdf } from '../../src/parse/pdf/index.js';
 
 const runOf = (files: Array<[string, string]>): RunReport => ({
   tool: { name: 'plumbline', version: '0.0.0-test' },
@@ -40,6 +42,26 @@ describe('JSON report 2.x', () => {
     const read = readJsonReport(data);
     expect(read.files).toEqual(v1Files(run));
     expect(read.failures).toEqual(run.failures);
+  });
+  it('reads back Word and PDF places with their original, and checklist entries, as 1.x wrote them', async () => {
+    // invented files: fixtures/docx/features.docx (scripts/make-docx-fixtures.mjs) and a PDF of the fixtures
+    const docx = readDocxDocument('features.docx', new Uint8Array(readFileSync('fixtures/docx/features.docx')));
+    const pdf = await readPdf('columns.pdf', new Uint8Array(readFileSync('fixtures/pdf/chromium-columns.pdf')));
+    if (!docx.ok || !pdf.ok) throw new Error('the fixtures did not read');
+    const run: RunReport = {
+      tool: { name: 'plumbline', version: '0.0.0-test' },
+      files: [
+        checkSource('features.docx', docx.document.source, { document: docx.document, checklist: true }),
+        checkSource('columns.pdf', pdf.document.source, { document: pdf.document }),
+        checkSource('fixtures/demo/standing-desks.md', demo, { checklist: true }),
+      ],
+      failures: [],
+      rules: [],
+    };
+    expect(run.files[0]?.original?.kind).toBe('docx');
+    expect(run.files[1]?.results.some((r) => r.original !== undefined)).toBe(true);
+    expect(run.files[2]?.checklist.length).toBeGreaterThan(0);
+    expect(readJsonReport(JSON.parse(formatJson(run))).files).toEqual(v1Files(run));
   });
   it('writes each place as offsets only, and each repeated text once per file', () => {
     const run = runOf([['many.md', manyResults(300)]]);
