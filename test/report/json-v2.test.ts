@@ -9,6 +9,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { checkSource } from '../../src/engine/index.js';
 import { formatJson, readJsonReport, type RunReport } from '../../src/report/index.js';
+import { expandFile, FileEncoder } from '../../src/report/compact.js';
 import { manyResults } from '../../bench/corpus.js';
 import { readDocxDocument } from '../../src/parse/docx/index.js';
 import { readPdf } from '../../src/parse/pdf/index.js';
@@ -110,5 +111,29 @@ describe('JSON report 2.x against its schema', () => {
     const r = data.files[0].results[0];
     r.span = { start: r.at[0], end: r.at[1] };
     expect(validate(data)).toBe(false);
+  });
+});
+
+describe('the 2.x encoding of texts and printed numbers, one by one', () => {
+  // a file of invented records, written and read back through the same functions as a report
+  const roundTrip = (file: Record<string, unknown>) => {
+    const encoder = new FileEncoder('line one\nline two\n');
+    const written = JSON.parse(JSON.stringify(encoder.encode(file)));
+    return { written, read: expandFile({ ...written, lineStarts: encoder.lineSteps(), texts: encoder.texts }) };
+  };
+  it('a message with digits is a template and its runs; one holding # is written as it is; one without digits is an index', () => {
+    const { written, read } = roundTrip({ findings: [{ message: 'Reported p = .42 from t(23) = 1.12.' }, { message: 'Heading # 2 was read as text.' }, { message: 'the test it belongs to' }] });
+    expect(written.findings[0].message).toEqual([expect.any(Number), '.42 23 1.12']);
+    expect(written.findings[1].message).toBe('Heading # 2 was read as text.');
+    expect(typeof written.findings[2].message).toBe('number');
+    expect(read.findings).toEqual([{ message: 'Reported p = .42 from t(23) = 1.12.' }, { message: 'Heading # 2 was read as text.' }, { message: 'the test it belongs to' }]);
+  });
+  it('a printed number keeps value and decimals unless its plain decimal text gives them exactly', () => {
+    const n = (printed: string, value: number, decimals: number, exponent = 0) => ({ printed, value, decimals, exponent });
+    const numbers = [n('2.47', 2.47, 2), n('.021', 0.021, 3), n('-3', -3, 0), n('−2.47', -2.47, 2), n('1.5e1', 15, 1, 1), n('1.', 1, 0), n('2.50', 2.5, 2), n('2.5', 2.5, 1)];
+    const { written, read } = roundTrip({ results: numbers.map((t) => ({ t })) });
+    const kept = (written.results as Array<{ t: Record<string, unknown> }>).map(({ t }) => Object.keys(t).sort().join(' '));
+    expect(kept).toEqual(['printed', 'printed', 'printed', 'decimals printed value', 'decimals exponent printed value', 'decimals printed value', 'printed', 'printed']);
+    expect((read.results as Array<{ t: unknown }>).map((r) => r.t)).toEqual(numbers);
   });
 });
