@@ -132,12 +132,11 @@ export class CorpusTally {
     const byLevel = zeroLevels();
     const seen = new Set<string>();
     let findings = 0;
-    // report 2.x lines store a rule's id once per document, in `texts`, and leave out a gap's
-    // lastDigitUnits where it is absolute / (2 × roundingAllowance) (schema/report.schema.json)
-    const texts = Array.isArray(doc.texts) ? doc.texts : [];
+    // report 2.x lines leave out a gap's lastDigitUnits where it is absolute / (2 × roundingAllowance)
+    // (schema/report.schema.json); a rule's id is a plain string in 1.x and 2.x alike
     for (const f of doc.findings) {
       if (!isRecord(f)) continue;
-      const ruleId: unknown = typeof f.ruleId === 'number' ? texts[f.ruleId] : f.ruleId;
+      const ruleId: unknown = f.ruleId;
       if (typeof ruleId !== 'string') continue;
       const level: SummaryLevel = f.level === 'error' || f.level === 'warning' ? f.level : 'note';
       findings += 1;

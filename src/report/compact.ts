@@ -18,7 +18,7 @@
 import type { FileReport } from '../engine/types.js';
 
 /** Keys whose strings (or arrays of strings) are stored once per file, as an index into `texts`. */
-const TEXT_KEYS = new Set(['ruleId', 'messageId', 'check', 'quantity', 'assumptions', 'uncertain', 'doubt', 'unlinked', 'standing', 'basis', 'style', 'spreadKind', 'label', 'estimateSource']);
+const TEXT_KEYS = new Set(['messageId', 'check', 'quantity', 'assumptions', 'uncertain', 'doubt', 'unlinked', 'standing', 'basis', 'style', 'spreadKind', 'label', 'estimateSource']);
 /** Keys whose strings are written as pieces: the runs of digits inline, the words between them as indices into `texts`. */
 const PIECE_KEYS = new Set(['message', 'inputs']);
 /** Keys that hold printed numbers (t, df, p's number, a statistic's value, dfs and n). */
