@@ -12,6 +12,7 @@ export {
   formatLines,
   formatJson,
   formatJsonChunks,
+  readJsonReport,
   formatSarif,
   formatSarifChunks,
   formatChecklist,

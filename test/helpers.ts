@@ -1,5 +1,6 @@
 import { expect } from 'vitest';
 import { checkSource } from '../src/engine/index.js';
+import { readJsonReport } from '../src/report/json.js';
 
 /**
  * Relative-error assertion that prints inputs, got, expected, gap and tolerance on failure.
@@ -42,4 +43,15 @@ export function expectLinearCheck(name: string, make: (n: number) => string, n: 
     large = at(2 * n, 3);
   }
   expect(large / small, `${name}: ${small.toFixed(2)} s at ${n}, ${large.toFixed(2)} s at ${2 * n}`).toBeLessThan(3);
+}
+
+/**
+ * A JSON report's text (or a batch line's) read as a program reads it: in the 1.x shape, places
+ * with span/start/end and texts in full (readJsonReport, src/report/json.ts). Anything else
+ * parsed (SARIF, an array) is given as JSON.parse gives it.
+ */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+export function readReport(text: string): any {
+  const data: unknown = JSON.parse(text);
+  return typeof data === 'object' && data !== null && !Array.isArray(data) ? readJsonReport(data) : data;
 }

@@ -7,6 +7,8 @@ import type { CheckOptions } from '../engine/index.js';
 import { DEFAULT_MAX_FILE_BYTES, readManuscript, type ReadOutcome } from './read.js';
 import { checkAll, DEFAULT_BUDGET, type Budget, type Job } from './pool.js';
 import type { Io } from './run.js';
+import { wholeText } from '../report/chunks.js';
+import { fileChunks, JSON_REPORT_VERSION } from '../report/json.js';
 
 type JobFor = (path: string, source: string | ((maxBytes: number) => ReadOutcome | Promise<ReadOutcome>), configPath: string, format?: CheckOptions['format']) => Job | Promise<Job>;
 
@@ -91,35 +93,36 @@ export async function runBatch(io: Io, jobFor: JobFor, threads: number | 'auto',
       }
     }
   }
-  // a line's outcomes: its document first, then the files it includes (held until the last is done)
-  let held: { id: Id; main: Record<string, unknown>; included: Array<Record<string, unknown>>; left: number } | undefined;
-  const write = (x: unknown) => JSON.stringify(x, (_k, v: unknown) => (typeof v === 'number' && !Number.isFinite(v) ? null : v));
+  // a line's outcomes: its document first, then the files it includes (held until the last is done),
+  // each as the members of a JSON object: a file of the JSON report (its 2.x shape), or an error
+  let held: { id: Id; main: string; included: string[]; left: number } | undefined;
   await checkAll(lines(), threads, async (o, i) => {
-    let entry: Record<string, unknown>;
+    let members: string;
+    const count = lineJobs[i] ?? 0;
     if ('report' in o) {
-      const { source: _source, ...report } = o.report;
+      const report = o.report;
       results += report.results.length;
       findings += report.findings.length;
       if (report.findings.some((f) => f.level === 'error')) errorLevel += 1;
-      entry = { ...report };
+      members = wholeText(fileChunks(report)).slice(1, -1);
     } else {
       failed += 1;
-      entry = { error: o.error };
+      // an included file: named by its path, as the command line names it
+      members = `${count > 0 ? '' : `"path":${JSON.stringify(jobPaths[i])},`}"error":${JSON.stringify(o.error)}`;
     }
-    const count = lineJobs[i] ?? 0;
     if (count > 0) {
       documents += 1;
-      held = { id: ids[i] ?? null, main: entry, included: [], left: count - 1 };
+      held = { id: ids[i] ?? null, main: members, included: [], left: count - 1 };
     } else if (held) {
-      // an included file: named by its path, as the command line names it
-      if ('error' in entry) entry = { path: jobPaths[i], ...entry };
-      held.included.push(entry);
+      held.included.push(`{${members}}`);
       held.left -= 1;
     }
     if (!held || held.left > 0) return;
     const { id, main, included } = held;
     held = undefined;
-    await io.stdout(`${write({ id, ...main, ...(included.length > 0 ? { included } : {}) })}\n`);
+    // the version tells a reader the shape of the line's files (readJsonReport reads either)
+    const version = main.startsWith('"error"') ? '' : `"reportVersion":${JSON.stringify(JSON_REPORT_VERSION)},`;
+    await io.stdout(`{"id":${JSON.stringify(id)},${version}${main}${included.length > 0 ? `,"included":[${included.join(',')}]` : ''}}\n`);
   }, budget);
   io.stderr(`plumbline batch: ${documents} lines, ${results} results, ${findings} findings, ${failed} not checked\n`);
   if (failed > 0) return 2;

@@ -132,23 +132,30 @@ export class CorpusTally {
     const byLevel = zeroLevels();
     const seen = new Set<string>();
     let findings = 0;
+    // report 2.x lines leave out a gap's lastDigitUnits where it is absolute / (2 × roundingAllowance)
+    // (schema/report.schema.json); a rule's id is a plain string in 1.x and 2.x alike
     for (const f of doc.findings) {
-      if (!isRecord(f) || typeof f.ruleId !== 'string') continue;
+      if (!isRecord(f)) continue;
+      const ruleId: unknown = f.ruleId;
+      if (typeof ruleId !== 'string') continue;
       const level: SummaryLevel = f.level === 'error' || f.level === 'warning' ? f.level : 'note';
       findings += 1;
       byLevel[level] += 1;
-      let rule = this.rules.get(f.ruleId);
+      let rule = this.rules.get(ruleId);
       if (!rule) {
         rule = { byLevel: zeroLevels(), documents: 0, gaps: GAP_BINS.map(() => 0), withoutUnits: 0 };
-        this.rules.set(f.ruleId, rule);
+        this.rules.set(ruleId, rule);
       }
       rule.byLevel[level] += 1;
-      if (!seen.has(f.ruleId)) {
-        seen.add(f.ruleId);
+      if (!seen.has(ruleId)) {
+        seen.add(ruleId);
         rule.documents += 1;
       }
-      const units = isRecord(f.gap) && typeof f.gap.lastDigitUnits === 'number' && Number.isFinite(f.gap.lastDigitUnits) ? f.gap.lastDigitUnits : undefined;
-      if (units === undefined) rule.withoutUnits += 1;
+      const g = f.gap;
+      const stated = isRecord(g) && typeof g.lastDigitUnits === 'number' ? g.lastDigitUnits : undefined;
+      const derived = isRecord(g) && stated === undefined && typeof g.absolute === 'number' && typeof g.roundingAllowance === 'number' ? g.absolute / (2 * g.roundingAllowance) : undefined;
+      const units = stated ?? derived;
+      if (units === undefined || !Number.isFinite(units)) rule.withoutUnits += 1;
       else {
         const k = binOf(units);
         rule.gaps[k] = (rule.gaps[k] ?? 0) + 1;

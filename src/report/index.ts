@@ -1,6 +1,6 @@
 export { formatHuman, formatHumanChunks, type HumanOptions } from './human.js';
 export { inChunks } from './chunks.js';
-export { formatJson, formatJsonChunks, JSON_REPORT_VERSION } from './json.js';
+export { formatJson, formatJsonChunks, JSON_REPORT_VERSION, readJsonReport } from './json.js';
 export { formatSarif, formatSarifChunks, artifactUri } from './sarif.js';
 export { CAUTIONS, SKIPPED_LINK_REASON, countRun, type Counts, type RuleInfo, type RunReport } from './types.js';
 export { formatChecklist, formatChecklistChunks } from './checklist.js';

@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { cli } from './harness.js';
+import { readReport } from '../helpers.js';
 
 /**
  * Batch mode follows a LaTeX manuscript's \input and \include files when the line gives its path,
@@ -17,7 +18,7 @@ describe('batch mode: LaTeX includes', () => {
     writeFileSync(join(dir, 'parts', 'results.tex'), 'Scores rose, $t(23) = 5.90$, $p = .000$.\n\\include{missing}\n');
     const doc = JSON.stringify({ id: 'inline', text: 'x, t(46) = 0.84, p = .04.' });
     const out = await cli(['batch', '--jobs', '1'], { stdin: `${join(dir, 'main.tex')}\n${doc}\n` });
-    const rows = out.stdout.trim().split('\n').map((l) => JSON.parse(l) as { id: unknown; findings: Array<{ ruleId: string; message: string }>; included?: Array<{ path: string; findings: Array<{ ruleId: string; message: string }> }> });
+    const rows = out.stdout.trim().split('\n').map((l) => readReport(l) as { id: unknown; findings: Array<{ ruleId: string; message: string }>; included?: Array<{ path: string; findings: Array<{ ruleId: string; message: string }> }> });
     expect(rows.map((r) => r.id)).toEqual([join(dir, 'main.tex'), 'inline']);
     const [main] = rows;
     expect(main?.findings.filter((f) => f.ruleId === 'input-is-readable').map((f) => f.message)).toEqual([expect.stringContaining('\\input{/etc/hostname} (an absolute path')]);

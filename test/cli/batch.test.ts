@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { statDense } from '../../bench/corpus.js';
 import { BIN, cli as inProcess } from './harness.js';
+import { readReport } from '../helpers.js';
 
 const cli = BIN;
 const lines = (s: string) => s.split('\n').filter(Boolean);
@@ -25,7 +26,7 @@ describe('batch mode (plumbline batch)', () => {
     const { paths } = corpus(3);
     const input = [paths[0], '{"id": "inline", "text": "x, t(46) = 0.84, p = .04.\\n"}', '/nope.md', '{"id": 7, "text": 5}', '{broken', paths[1]].join('\n');
     const r = spawnSync(process.execPath, [cli, 'batch'], { input, encoding: 'utf8' });
-    const out = lines(r.stdout).map((l) => JSON.parse(l));
+    const out = lines(r.stdout).map((l) => readReport(l));
     expect(out.map((o) => o.id)).toEqual([paths[0], 'inline', '/nope.md', 7, null, paths[1]]);
     expect(out[1].findings[0].ruleId).toBe('significance-follows-from-t');
     expect(out[2].error).toBe('cannot read: no such file or folder');
@@ -39,7 +40,7 @@ describe('batch mode (plumbline batch)', () => {
   it('a blank line gets an error line of its own and the line numbers in messages stay physical', async () => {
     const doc = (id: string) => JSON.stringify({ id, text: 'x, t(46) = 0.84, p = .04.' });
     const out = await inProcess(['batch', '--jobs', '1'], { stdin: `${doc('a')}\n\n   \n{broken\n${doc('b')}\n` });
-    const rows = lines(out.stdout).map((l) => JSON.parse(l) as Record<string, unknown>);
+    const rows = lines(out.stdout).map((l) => readReport(l) as Record<string, unknown>);
     expect(rows).toHaveLength(5);
     expect(rows.map((r) => r.id)).toEqual(['a', null, null, null, 'b']);
     // a blank line is shaped exactly as an error line: same keys, so a reader of the stream needs no third case
@@ -55,7 +56,7 @@ describe('batch mode (plumbline batch)', () => {
     // the CR inside the JSON is whitespace between tokens, so this is one valid document
     const stdin = `{"id": "cr",\r"text": "x, t(46) = 0.84, p = .04."}\r\n{"id": "last", "text": "no findings here"}`;
     const out = await inProcess(['batch', '--jobs', '1'], { stdin });
-    const rows = lines(out.stdout).map((l) => JSON.parse(l) as Record<string, unknown>);
+    const rows = lines(out.stdout).map((l) => readReport(l) as Record<string, unknown>);
     expect(rows.map((r) => r.id)).toEqual(['cr', 'last']);
     expect(rows[0]?.findings).toHaveLength(1);
     // a path line with a lone CR inside is one (missing) path, not two
@@ -85,7 +86,7 @@ describe('batch mode (plumbline batch)', () => {
     const text = 'x, t(46) = 0.84, p = .04.';
     const stdin = [{ id: 42, text }, { id: '42', text }, { id: 4.5, text }, { text }, { id: true, text }].map((d) => JSON.stringify(d)).join('\n');
     const out = await inProcess(['batch', '--jobs', '1'], { stdin });
-    const rows = lines(out.stdout).map((l) => JSON.parse(l) as Record<string, unknown>);
+    const rows = lines(out.stdout).map((l) => readReport(l) as Record<string, unknown>);
     expect(rows.map((r) => r.id)).toEqual([42, '42', 4.5, null, null]);
     expect(lines(out.stdout)[0]).toMatch(/^\{"id":42,/);
     expect(lines(out.stdout)[1]).toMatch(/^\{"id":"42",/);

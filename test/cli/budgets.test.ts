@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { BIN } from './harness.js';
+import { readReport } from '../helpers.js';
 
 /**
  * One document never sinks the run: each is checked on a worker thread within a memory and a
@@ -34,7 +35,7 @@ describe('per-document budgets', () => {
     const dir = corpus();
     const r = spawnSync(process.execPath, [main, 'a.md', 'big.md', 'c.md', '-f', 'json', ...args], { cwd: dir, encoding: 'utf8', maxBuffer: 1 << 26 });
     expect(r.status).toBe(2);
-    const report = JSON.parse(r.stdout) as Report;
+    const report = readReport(r.stdout) as Report;
     expect(report.files.map((f) => [f.path, f.results.length])).toEqual([
       ['a.md', 1],
       ['c.md', 1],
@@ -48,7 +49,7 @@ describe('per-document budgets', () => {
     const dir = corpus();
     const r = spawnSync(process.execPath, [main, 'a.md', 'big.md', 'c.md', '-f', 'json', '--jobs', '1', '--time-budget', '1'], { cwd: dir, encoding: 'utf8', maxBuffer: 1 << 26 });
     expect(r.status).toBe(2);
-    const report = JSON.parse(r.stdout) as Report;
+    const report = readReport(r.stdout) as Report;
     expect(report.files.map((f) => [f.path, f.results.length])).toEqual([
       ['a.md', 1],
       ['c.md', 1],
@@ -60,7 +61,7 @@ describe('per-document budgets', () => {
     const docs = [{ id: 'a', text: GOOD }, { id: 'big', text: heavy() }, { id: 'c', text: GOOD }].map((d) => JSON.stringify(d)).join('\n');
     const r = spawnSync(process.execPath, [main, 'batch', '--memory-budget', '64'], { input: docs, encoding: 'utf8', maxBuffer: 1 << 26 });
     expect(r.status).toBe(2);
-    const lines = r.stdout.trim().split('\n').map((l) => JSON.parse(l) as { id: string; error?: string; results?: unknown[] });
+    const lines = r.stdout.trim().split('\n').map((l) => readReport(l) as { id: string; error?: string; results?: unknown[] });
     expect(lines.map((l) => [l.id, l.error ?? l.results?.length])).toEqual([
       ['a', 1],
       ['big', 'not checked: needed more than the memory budget of 64 MB (--memory-budget)'],
@@ -101,7 +102,7 @@ describe('batch documents have the size limit of files, applied while reading', 
     const input = [JSON.stringify({ id: 'a', text: GOOD }), long, inline, JSON.stringify({ id: 'c', text: GOOD })].join('\n');
     const r = spawnSync(process.execPath, [main, 'batch', '--max-file-bytes', '100000'], { input, encoding: 'utf8' });
     expect(r.status).toBe(2);
-    const lines = r.stdout.trim().split('\n').map((l) => JSON.parse(l) as { id: string | null; error?: string; results?: unknown[] });
+    const lines = r.stdout.trim().split('\n').map((l) => readReport(l) as { id: string | null; error?: string; results?: unknown[] });
     expect(lines.map((l) => [l.id, l.error ?? l.results?.length])).toEqual([
       ['a', 1],
       [null, 'line 2: skipped: longer than 201024 characters; reading of it stopped there (the size limit, --max-file-bytes, is 100000 bytes)'],

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { cli } from './harness.js';
+import { readReport } from '../helpers.js';
 
 /**
  * The reporting checklist through the real command line (run() in-process). Every manuscript
@@ -22,7 +23,7 @@ interface JsonFile {
 
 async function json(markdown: string): Promise<JsonFile> {
   const out = await cli(['--format', 'json', '--checklist', '-', '--stdin-name', 'paper.md'], { stdin: markdown });
-  return (JSON.parse(out.stdout) as { files: JsonFile[] }).files[0] as JsonFile;
+  return (readReport(out.stdout) as { files: JsonFile[] }).files[0] as JsonFile;
 }
 
 const statusesOf = (file: JsonFile, ruleId: string) => file.checklist.find((c) => c.ruleId === ruleId)?.entries.map((e) => e.status);
@@ -93,7 +94,7 @@ describe('"The test is named" is judged per result, from its own words', () => {
 
   it("on the demo manuscript only the Welch's result and the R output are named (once every result was credited by line 27)", async () => {
     const out = await cli(['--format', 'json', '--checklist', 'fixtures/demo/standing-desks.md']);
-    const file = (JSON.parse(out.stdout) as { files: JsonFile[] }).files[0] as JsonFile;
+    const file = (readReport(out.stdout) as { files: JsonFile[] }).files[0] as JsonFile;
     const found = file.checklist
       .find((c) => c.ruleId === 'test-is-named')
       ?.entries.flatMap((e, i) => (e.status === 'found' ? [`${file.results[i]?.start.line} ${e.detail}`] : []));
@@ -128,7 +129,7 @@ describe('outputs for people', () => {
   const run = async (format: string) => (await cli(['--format', format, '--checklist', demo])).stdout;
 
   it('carry no "(from memory)" and no internal result id, in any format', async () => {
-    const data = JSON.parse(await run('json')) as { files: JsonFile[] };
+    const data = readReport(await run('json')) as { files: JsonFile[] };
     const file = data.files[0] as JsonFile;
     const ids = file.results.map((r) => r.id);
     expect(ids.length).toBe(13);
@@ -170,7 +171,7 @@ describe('outputs for people', () => {
     const sarif = JSON.parse(await run('sarif')) as { runs: Array<{ results: Array<{ ruleId: string; locations: Array<{ physicalLocation: { region?: unknown } }> }> }> };
     const documentResult = sarif.runs[0]?.results.find((r) => r.ruleId === 'multiple-comparisons-addressed');
     expect(documentResult?.locations[0]?.physicalLocation.region).toBeUndefined();
-    const data = JSON.parse(await run('json')) as { files: JsonFile[] };
+    const data = readReport(await run('json')) as { files: JsonFile[] };
     expect(data.files[0]?.findings.find((f) => f.ruleId === 'multiple-comparisons-addressed')?.scope).toBe('document');
   });
 

@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { BIN, cli } from './harness.js';
 import { RULES } from '../../src/engine/index.js';
+import { readReport } from '../helpers.js';
 
 function tempTree(files: Record<string, string>): string {
   const dir = mkdtempSync(join(tmpdir(), 'plumbline-cli-'));
@@ -23,7 +24,7 @@ describe('the demo manuscript', () => {
   it('gives exactly the findings its invented results were written to show', async () => {
     const out = await cli(['fixtures/demo/standing-desks.md', '--format', 'json']);
     expect(out.code).toBe(1);
-    const report = JSON.parse(out.stdout);
+    const report = readReport(out.stdout);
     const found = report.files[0].findings.map((f: { start: { line: number; column: number }; level: string; ruleId: string; messageId: string }) =>
       `${f.start.line}:${f.start.column} ${f.level} ${f.ruleId}/${f.messageId}`);
     expect(found).toEqual([
@@ -49,7 +50,7 @@ describe('the demo manuscript', () => {
 describe('the descriptives demo manuscript', () => {
   it('finds each kind of error its invented results were written to show, and nothing else', async () => {
     const out = await cli(['fixtures/demo/hand-hygiene.md', '--format', 'json']);
-    const report = JSON.parse(out.stdout);
+    const report = readReport(out.stdout);
     const found = report.files[0].findings.map((f: { start: { line: number; column: number }; ruleId: string; messageId: string }) =>
       `${f.start.line}:${f.start.column} ${f.ruleId}/${f.messageId}`);
     expect(found).toEqual([
@@ -89,7 +90,7 @@ describe('exit codes', () => {
     const out = await cli([join(dir, 'nope.md'), join(dir, 'a.md'), '--format', 'json']);
     expect(out.code).toBe(2);
     expect(out.stderr).toContain(`${join(dir, 'nope.md')}: no such file or folder`);
-    const report = JSON.parse(out.stdout);
+    const report = readReport(out.stdout);
     expect(report.files).toHaveLength(1);
     expect(report.files[0].findings[0].ruleId).toBe('significance-follows-from-t');
     expect(report.failures).toEqual([{ path: join(dir, 'nope.md'), message: 'no such file or folder' }]);
@@ -117,17 +118,17 @@ describe('inputs', () => {
       '.git/x.md': FLIPPED,
     });
     const out = await cli([dir, '--format', 'json']);
-    const paths = JSON.parse(out.stdout).files.map((f: { path: string }) => f.path.slice(dir.length + 1));
+    const paths = readReport(out.stdout).files.map((f: { path: string }) => f.path.slice(dir.length + 1));
     expect(paths).toEqual(['notes/analysis.Rmd', 'notes/book.qmd', 'notes/draft.txt', 'notes/other.markdown', 'paper.md']);
   });
   it('expands a quoted glob', async () => {
     const dir = tempTree({ 'a.md': FLIPPED, 'b.md': RIGHT, 'c.txt': FLIPPED });
     const out = await cli([`${dir}/*.md`, '--format', 'json']);
-    expect(JSON.parse(out.stdout).files.map((f: { path: string }) => f.path)).toEqual([join(dir, 'a.md'), join(dir, 'b.md')]);
+    expect(readReport(out.stdout).files.map((f: { path: string }) => f.path)).toEqual([join(dir, 'a.md'), join(dir, 'b.md')]);
   });
   it('reads standard input under the given name', async () => {
     const out = await cli(['-', '--stdin-name', 'draft.txt', '--format', 'json'], { stdin: 'The effect was signifi-\ncant, t(46) = 0.84, p = .04.\n' });
-    const file = JSON.parse(out.stdout).files[0];
+    const file = readReport(out.stdout).files[0];
     expect(file.path).toBe('draft.txt');
     expect(file.format).toBe('text');
     expect(file.findings[0].start).toEqual({ line: 2, column: 7 });
@@ -137,20 +138,20 @@ describe('inputs', () => {
 describe('settings', () => {
   it('--alpha and --tails apply where the text is silent', async () => {
     const dir = tempTree({ 'a.md': 'x, t(30) = 3.25, p = 0.0014.\n' });
-    const two = JSON.parse((await cli([join(dir, 'a.md'), '--format', 'json'])).stdout);
+    const two = readReport((await cli([join(dir, 'a.md'), '--format', 'json'])).stdout);
     expect(two.files[0].findings.map((f: { ruleId: string }) => f.ruleId)).toEqual(['one-tailed-p-is-declared']);
-    const one = JSON.parse((await cli([join(dir, 'a.md'), '--format', 'json', '--tails', 'one'])).stdout);
+    const one = readReport((await cli([join(dir, 'a.md'), '--format', 'json', '--tails', 'one'])).stdout);
     expect(one.files[0].findings).toEqual([]);
   });
   it('finds configuration upward from the file and applies rule levels', async () => {
     const dir = tempTree({ '.plumbline.json': '{"rules": {"significance-follows-from-t": "warning"}}', 'sub/a.md': FLIPPED });
     const out = await cli([join(dir, 'sub/a.md'), '--format', 'json']);
     expect(out.code).toBe(0);
-    expect(JSON.parse(out.stdout).files[0].findings[0].level).toBe('warning');
+    expect(readReport(out.stdout).files[0].findings[0].level).toBe('warning');
   });
   it('reads YAML configuration', async () => {
     const dir = tempTree({ '.plumbline.yaml': 'rules:\n  significance-follows-from-t: "off"\n', 'a.md': FLIPPED });
-    expect(JSON.parse((await cli([join(dir, 'a.md'), '--format', 'json'])).stdout).files[0].findings).toEqual([]);
+    expect(readReport((await cli([join(dir, 'a.md'), '--format', 'json'])).stdout).files[0].findings).toEqual([]);
   });
   it('a JSON syntax error is reported with its line and column (exit 2)', async () => {
     const dir = tempTree({ '.plumbline.json': '{\n  "alpha": 0.05,\n  "rules": { oops }\n}\n', 'a.md': FLIPPED });
@@ -204,7 +205,7 @@ describe('the installed command', () => {
   it('runs from dist as `plumbline` would after npm ci', () => {
     const result = spawnSync(process.execPath, [BIN, 'fixtures/demo/standing-desks.md', '--format', 'sarif'], { encoding: 'utf8' });
     expect(result.status).toBe(1);
-    expect(JSON.parse(result.stdout).version).toBe('2.1.0');
+    expect(readReport(result.stdout).version).toBe('2.1.0');
     expect(execFileSync(process.execPath, [BIN, '--version'], { encoding: 'utf8' }).trim()).toMatch(/^\d+\.\d+\.\d+$/);
   });
 });

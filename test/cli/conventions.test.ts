@@ -8,6 +8,7 @@ import { checkFiles, formatJson, readBaseline } from '../../src/index.js';
 import { RULES } from '../../src/engine/index.js';
 import { BIN, cli } from './harness.js';
 import { COMMAND_NAMES, OPTIONS } from '../../src/cli/help.js';
+import { readReport } from '../helpers.js';
 
 /**
  * The command line behaves as users of command-line linters expect: output through links and
@@ -37,7 +38,7 @@ function tree(files: Record<string, string>): string {
   }
   return dir;
 }
-const json = (s: string) => JSON.parse(s) as ReturnType<typeof parseReport>;
+const json = (s: string) => readReport(s) as ReturnType<typeof parseReport>;
 function parseReport(s: string) {
   return JSON.parse(s) as {
     summary: { error: number; warning: number; note: number; hiddenByQuiet: number; hiddenByBaseline: number };
@@ -511,7 +512,7 @@ describe('a package ready to publish', () => {
   it('npm pack ships the offline page, the output-format docs, the schemas and the licence', () => {
     const r = spawnSync('npm', ['pack', '--dry-run', '--json', '--ignore-scripts'], { cwd: root, encoding: 'utf8' });
     expect(r.status, r.stderr).toBe(0);
-    const files = (JSON.parse(r.stdout) as Array<{ files: Array<{ path: string }> }>)[0]!.files.map((f) => f.path);
+    const files = (readReport(r.stdout) as Array<{ files: Array<{ path: string }> }>)[0]!.files.map((f) => f.path);
     for (const f of ['dist/web/index.html', 'docs/output-formats.md', 'schema/report.schema.json', 'schema/config.schema.json', 'schema/baseline.schema.json', 'schema/rules.schema.json', 'LICENSE', 'dist/src/index.d.ts', 'dist/bin/plumbline.js', 'dist/bin/worker.js'])
       expect(files).toContain(f);
     expect(files.filter((f) => f.startsWith('test/') || f.startsWith('src/'))).toEqual([]);
@@ -527,7 +528,7 @@ describe('a package ready to publish', () => {
     const baseline = { file: join(dir, 'b.json'), entries: [{ path: 'ms/a.md', rule: 'significance-follows-from-t', fingerprint: first.report.files[0]!.findings[0]!.fingerprint, text: '' }] };
     const second = await checkFiles(['ms'], { cwd: dir, baseline });
     expect(second.report.files[0]!.findings).toEqual([]);
-    expect(JSON.parse(formatJson(second.report)).summary.hiddenByBaseline).toBe(1);
+    expect(readReport(formatJson(second.report)).summary.hiddenByBaseline).toBe(1);
     const api = await import('../../src/index.js');
     for (const name of ['formatHuman', 'formatLines', 'formatJson', 'formatSarif', 'formatChecklist', 'formatHtml', 'formatRulesJson']) expect(typeof (api as Record<string, unknown>)[name]).toBe('function');
   });
@@ -674,14 +675,14 @@ describe('configuration and ignore details', () => {
     const dir = tree({ 'a/.plumbline.json': '{"rules": {', 'a/p.md': RIGHT });
     const out = await cli(['a', '-f', 'sarif'], { cwd: dir });
     expect(out.stderr).toContain("plumbline: a/.plumbline.json:1:12: configuration: invalid JSON: Expected property name or '}'");
-    const note = JSON.parse(out.stdout).runs[0].invocations[0].toolExecutionNotifications[0];
+    const note = readReport(out.stdout).runs[0].invocations[0].toolExecutionNotifications[0];
     expect(note.locations[0].physicalLocation).toEqual({ artifactLocation: { uri: 'a/.plumbline.json', uriBaseId: 'SRCROOT' }, region: { startLine: 1, startColumn: 12 } });
   });
 
   it('the summary counts the manuscripts a bad configuration kept from being checked; a human report in a file names them', async () => {
     const dir = tree({ 'n/.plumbline.json': '{"alpah": 1}', 'n/a.md': RIGHT, 'n/b.md': RIGHT, 'n/c/d.md': RIGHT, 'ok.md': RIGHT });
     const out = await cli(['.', '-f', 'json'], { cwd: dir });
-    expect(JSON.parse(out.stdout).summary.failures).toBe(3);
+    expect(readReport(out.stdout).summary.failures).toBe(3);
     await cli(['.', '-o', 'report.txt'], { cwd: dir });
     const text = readFileSync(join(dir, 'report.txt'), 'utf8');
     expect(text).toContain('not checked n/.plumbline.json: configuration: unknown key "alpah"');

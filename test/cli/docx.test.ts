@@ -5,6 +5,7 @@ import { Ajv2020 } from 'ajv/dist/2020.js';
 import AjvDraft04Module from 'ajv-draft-04';
 import { describe, expect, it } from 'vitest';
 import { cli } from './harness.js';
+import { readReport } from '../helpers.js';
 
 // fixtures/docx/features.docx is invented (scripts/make-docx-fixtures.mjs). Its footnote's
 // t(12) = 3.50, p = .40 cannot hold: scipy.stats.t.sf(3.50, 12) * 2 = 0.0044.
@@ -27,7 +28,7 @@ describe('Word files on the command line', () => {
   it('a folder walk reads .docx, names the encrypted one as not checked (exit 2) and checks the others', async () => {
     const out = await cli(['--format', 'json', '.'], { cwd: folder() });
     expect(out.code).toBe(2);
-    const report = JSON.parse(out.stdout) as { files: Array<{ path: string; format: string; original?: unknown; findings: Array<{ level: string; ruleId: string; original?: unknown }> }>; failures: Array<{ path: string; message: string }> };
+    const report = readReport(out.stdout) as { files: Array<{ path: string; format: string; original?: unknown; findings: Array<{ level: string; ruleId: string; original?: unknown }> }>; failures: Array<{ path: string; message: string }> };
     expect(report.files.map((f) => [f.path, f.format])).toEqual([['notes.md', 'markdown'], ['plants.docx', 'docx']]);
     expect(report.failures).toEqual([{ path: 'locked.docx', message: expect.stringMatching(/^encrypted: this Word file is protected by a password/) }]);
     expect(out.stderr).toContain('locked.docx: encrypted');
@@ -37,7 +38,7 @@ describe('Word files on the command line', () => {
       ['significance-follows-from-t', { kind: 'paragraph', paragraph: 1, char: 27, opening: 'A check of the pots gave …', note: { kind: 'footnote', number: 1 } }],
     ]);
     const validate = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
-    expect(validate(report), JSON.stringify(validate.errors?.slice(0, 3))).toBe(true);
+    expect(validate(JSON.parse(out.stdout)), JSON.stringify(validate.errors?.slice(0, 3))).toBe(true);
   });
 
   it('human and lines name the paragraph, its opening words and the character', async () => {
@@ -51,7 +52,7 @@ describe('Word files on the command line', () => {
 
   it('SARIF gives a logical location for a Word place, no line of the binary file, and stays schema-valid', async () => {
     const out = await cli(['--format', 'sarif', 'plants.docx'], { cwd: folder() });
-    const log = JSON.parse(out.stdout) as { runs: Array<{ results: Array<{ ruleId: string; locations: Array<{ physicalLocation: { region?: unknown }; logicalLocations?: Array<{ name: string }> }> }> }> };
+    const log = readReport(out.stdout) as { runs: Array<{ results: Array<{ ruleId: string; locations: Array<{ physicalLocation: { region?: unknown }; logicalLocations?: Array<{ name: string }> }> }> }> };
     const result = log.runs[0]?.results.find((r) => r.ruleId === 'significance-follows-from-t');
     expect(result?.locations[0]?.physicalLocation.region).toBeUndefined();
     expect(result?.locations[0]?.logicalLocations?.[0]?.name).toBe('footnote 1 ¶1');
@@ -61,7 +62,7 @@ describe('Word files on the command line', () => {
 
   it('standard input named .docx is read as Word', async () => {
     const out = await cli(['-', '--stdin-name', 'paper.docx', '--format', 'json'], { stdin: readFileSync(FEATURES) });
-    const report = JSON.parse(out.stdout) as { files: Array<{ format: string; results: unknown[] }> };
+    const report = readReport(out.stdout) as { files: Array<{ format: string; results: unknown[] }> };
     expect(report.files.map((f) => [f.format, f.results.length])).toEqual([['docx', 8]]);
   });
 });

@@ -11,6 +11,7 @@ import { join } from 'node:path';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import { describe, expect, it } from 'vitest';
 import { cli } from './harness.js';
+import { readReport } from '../helpers.js';
 
 // every report is checked against the JSON report's own schema (schema/report.schema.json, with ajv from npm)
 const reportSchema = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
@@ -23,8 +24,8 @@ async function check(name: string, bytes: string | Buffer): Promise<Json> {
   writeFileSync(join(dir, name), bytes);
   const out = await cli([name, '-f', 'json'], { cwd: dir });
   expect(out.stderr).toBe('');
-  const json: unknown = JSON.parse(out.stdout);
-  expect(reportSchema(json), JSON.stringify(reportSchema.errors)).toBe(true);
+  const json: unknown = readReport(out.stdout);
+  expect(reportSchema(JSON.parse(out.stdout)), JSON.stringify(reportSchema.errors)).toBe(true);
   return json as Json;
 }
 const found = (r: Json) => (r.files[0]?.findings ?? []).map((f) => `${f.start.line}:${f.start.column} ${f.ruleId}/${f.messageId}`);

@@ -11,6 +11,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { BIN, cli, type Outcome } from './harness.js';
+import { readReport } from '../helpers.js';
 
 function tempDir(): string {
   return mkdtempSync(join(tmpdir(), 'plumbline-hostile-'));
@@ -22,7 +23,7 @@ interface Json {
   failures: Array<{ path: string; message: string }>;
 }
 
-const json = (o: Outcome): Json => JSON.parse(o.stdout) as Json;
+const json = (o: Outcome): Json => readReport(o.stdout) as Json;
 const ids = (f: Json['files'][number]) => f.findings.map((x) => `${x.start.line}:${x.start.column} ${x.ruleId}/${x.messageId}`);
 const WRONG = 'Errors rose, t(40) = 3.10, p = .20.\n';
 const RIGHT = 'Fatigue fell, t(23) = 2.47, p = .021.\n';
@@ -198,7 +199,7 @@ describe('bad input, each class', () => {
     const start = performance.now();
     const out = await cli(['a.md', '-f', 'json'], { cwd: dir });
     expect(performance.now() - start).toBeLessThan(20_000);
-    const r = JSON.parse(out.stdout) as { files: Array<{ findings: Array<{ ruleId: string; message: string; start: { line: number } }> }> };
+    const r = readReport(out.stdout) as { files: Array<{ findings: Array<{ ruleId: string; message: string; start: { line: number } }> }> };
     const findings = r.files[0]?.findings ?? [];
     expect(findings.map((f) => `${f.start.line} ${f.ruleId}`)).toEqual(['1 front-matter-is-readable', '100003 significance-follows-from-t']);
     expect(findings[0]?.message).toMatch(/not read: \d+ characters is over the limit of 262144/);
@@ -299,7 +300,7 @@ describe('safety', () => {
     expect(r.stderr).not.toContain('blocked');
     expect(existsSync(log) ? readFileSync(log, 'utf8') : '').toBe('');
     expect(r.status).toBe(1);
-    const report = JSON.parse(r.stdout) as Json;
+    const report = readReport(r.stdout) as Json;
     expect(report.summary.files).toBe(readdirSync(fixtures).filter((n) => n.endsWith('.md')).length + 40);
     // the front matter's tags were read as plain strings, so the alpha was refused and said
     const manuscript = report.files.find((f) => f.path === 'manuscript.md')!;

@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { cli } from './harness.js';
+import { readReport } from '../helpers.js';
 
 // Invented manuscripts of our own. p = .045 is what t(28) = 2.10 gives two-sided (scipy.stats.t.sf(2.10, 28) * 2 = 0.0449…).
 
@@ -11,7 +12,7 @@ interface JsonReport {
   failures: Array<{ path: string; message: string }>;
 }
 
-const json = (stdout: string) => JSON.parse(stdout) as JsonReport;
+const json = (stdout: string) => readReport(stdout) as JsonReport;
 
 describe('LaTeX on the command line', () => {
   it('--stdin-name x.tex reads standard input as LaTeX: a result in a comment is not read', async () => {

@@ -19,6 +19,7 @@ import { Ajv2020 } from 'ajv/dist/2020.js';
 import AjvDraft04Module from 'ajv-draft-04';
 import { describe, expect, it } from 'vitest';
 import { cli, type Outcome } from './harness.js';
+import { readReport } from '../helpers.js';
 
 const tempDir = () => mkdtempSync(join(tmpdir(), 'plumbline-leaks-'));
 const WRONG = 'Errors rose, t(40) = 3.10, p = .20.\n';
@@ -29,7 +30,7 @@ const BIDI = /[\u202A-\u202E\u2066-\u2069]/;
 interface Json {
   files: Array<{ path: string; source: string; results: Array<{ printed: string; start: { line: number; column: number } }>; findings: Array<{ ruleId: string; messageId: string; level: string; start: { line: number; column: number } }> }>;
 }
-const json = (o: Outcome) => JSON.parse(o.stdout) as Json;
+const json = (o: Outcome) => readReport(o.stdout) as Json;
 
 /** A repository whose folder links out to a secret file and to a folder outside it. */
 function repoWithLinksOut(): string {
@@ -82,7 +83,7 @@ describe('folder walks never leave the folder named', () => {
 
     const data = JSON.parse((await cli(['repo', '-f', 'json'], { cwd: dir })).stdout) as { reportVersion: string; skippedLinks?: string[] };
     expect(reportSchema(data), JSON.stringify(reportSchema.errors?.slice(0, 3))).toBe(true);
-    expect(data.reportVersion).toBe('1.6.0');
+    expect(data.reportVersion).toBe('2.0.0');
     expect([...(data.skippedLinks ?? [])].sort()).toEqual(skipped);
 
     const log = JSON.parse((await cli(['repo', '-f', 'sarif'], { cwd: dir })).stdout) as { runs: Array<{ invocations: Array<{ executionSuccessful: boolean; toolExecutionNotifications: Array<{ level: string; message: { text: string }; locations: Array<{ physicalLocation: { artifactLocation: { uri: string } } }> }> }> }> };

@@ -19,6 +19,7 @@ import { formatChecklist, formatChecklistChunks, formatHtml, formatHtmlChunks, f
 import { CHUNK } from '../../src/report/jsonChunks.js';
 import { pAxisFor, resultRow } from '../../src/report/pictures.js';
 import { cli } from './harness.js';
+import { readReport } from '../helpers.js';
 
 const AjvDraft04 = AjvDraft04Module as unknown as typeof AjvDraft04Module.default;
 
@@ -40,12 +41,12 @@ describe('every format on a manuscript of many results', () => {
     // every result is an error-level inconsistency: exit 1, not a crash (which the harness would throw)
     expect(out.code).toBe(1);
     if (format === 'json') {
-      const data = JSON.parse(out.stdout) as { files: Array<{ results: unknown[] }> };
-      expect(reportSchema(data), JSON.stringify(reportSchema.errors?.slice(0, 3))).toBe(true);
+      const data = readReport(out.stdout) as { files: Array<{ results: unknown[] }> };
+      expect(reportSchema(JSON.parse(out.stdout)), JSON.stringify(reportSchema.errors?.slice(0, 3))).toBe(true);
       expect(data.files[0]?.results).toHaveLength(N);
     }
     if (format === 'sarif') {
-      const log = JSON.parse(out.stdout) as { runs: Array<{ results: Array<{ ruleId: string }> }> };
+      const log = readReport(out.stdout) as { runs: Array<{ results: Array<{ ruleId: string }> }> };
       expect(sarifSchema(log), JSON.stringify(sarifSchema.errors?.slice(0, 3))).toBe(true);
       expect(log.runs[0]?.results.filter((r) => r.ruleId === 'significance-follows-from-t')).toHaveLength(N);
     }

@@ -4,6 +4,7 @@ import { join, resolve } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { loadPdfJs } from '../../src/parse/pdf/index.js';
 import { cli } from './harness.js';
+import { readReport } from '../helpers.js';
 
 // The PDFs are drawn by scripts/make-pdf-fixtures.mjs from invented content (the reference for
 // where each word sits: the script's coordinates). t(30) = 1.20 gives a two-tailed p of .2395
@@ -40,7 +41,7 @@ describe('PDF files on the command line', () => {
   it('checks the PDFs it can read and names each refused one with its reason, exit 2', async () => {
     const out = await cli(['--format', 'json', 'two-columns.pdf', 'table.pdf', 'scanned.pdf', 'encrypted.pdf', 'damaged.pdf'], { cwd: dir });
     expect(out.code).toBe(2);
-    const report = JSON.parse(out.stdout) as { files: Array<{ path: string; findings: Array<{ ruleId: string; place?: unknown; original?: unknown }> }>; failures: Array<{ path: string; message: string }> };
+    const report = readReport(out.stdout) as { files: Array<{ path: string; findings: Array<{ ruleId: string; place?: unknown; original?: unknown }> }>; failures: Array<{ path: string; message: string }> };
     expect(report.files.map((f) => f.path)).toEqual(['two-columns.pdf', 'table.pdf']);
     expect(report.failures.map((f) => f.path).sort()).toEqual(['damaged.pdf', 'encrypted.pdf', 'scanned.pdf']);
     expect(out.stderr).toMatch(/scanned\.pdf: skipped: none of the PDF's 2 pages carries text.*OCR/);

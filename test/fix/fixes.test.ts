@@ -6,6 +6,7 @@ import { checkSource } from '../../src/engine/index.js';
 import { applyFixes } from '../../src/fix/apply.js';
 import { unifiedDiff } from '../../src/fix/diff.js';
 import { cli } from '../cli/harness.js';
+import { readReport } from '../helpers.js';
 
 /** The text after every safe fix, with the checklist on (p-precision-is-sensible is a checklist item). */
 const fixed = (markdown: string) => applyFixes(markdown, checkSource('x.md', markdown, { checklist: true }).findings).text;
@@ -95,7 +96,7 @@ describe('--fix and --fix-dry-run', () => {
     const out = await cli(['--fix', '-f', 'json', 'm.md'], { cwd: dir });
     expect(readFileSync(join(dir, 'm.md'), 'utf8')).toBe('Scores rose, t(23) = 5.90, p < .001.\n');
     expect(out.stderr).toContain('m.md: fixed 1 (bound-for-zero)');
-    const report = JSON.parse(out.stdout) as { files: Array<{ findings: Array<{ ruleId: string }> }> };
+    const report = readReport(out.stdout) as { files: Array<{ findings: Array<{ ruleId: string }> }> };
     expect(report.files[0]?.findings.map((f) => f.ruleId)).not.toContain('zero-p-is-a-bound');
   });
   it('a UTF-8 byte-order mark is kept', async () => {
@@ -125,9 +126,9 @@ describe('fixes in the JSON report', () => {
     const dir = mkdtempSync(join(tmpdir(), 'pl-fix-'));
     writeFileSync(join(dir, 'm.md'), 'Scores rose, t(23) = 5.90, p = .000.\n');
     const out = await cli(['-f', 'json', 'm.md'], { cwd: dir });
-    const report = JSON.parse(out.stdout) as { files: Array<{ findings: Array<{ fix?: { id: string } }> }> };
+    const report = readReport(out.stdout) as { files: Array<{ findings: Array<{ fix?: { id: string } }> }> };
     expect(report.files[0]?.findings.map((f) => f.fix?.id)).toContain('bound-for-zero');
-    expect(validate(report), JSON.stringify(validate.errors)).toBe(true);
+    expect(validate(JSON.parse(out.stdout)), JSON.stringify(validate.errors)).toBe(true);
   });
 });
 

@@ -5,6 +5,7 @@ import { Ajv2020 } from 'ajv/dist/2020.js';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { cli } from '../cli/harness.js';
+import { readReport } from '../helpers.js';
 
 /**
  * A fuzz run over the command line (fast-check): a good manuscript beside a hostile one built
@@ -69,11 +70,11 @@ describe('fuzz: the command line on hostile input', () => {
         expect([1, 2]).toContain(out.code);
         expect(out.stderr).not.toMatch(/\n\s+at \S+ \(/);
         if (fmt === 'json') {
-          const report = JSON.parse(out.stdout) as { files: Array<{ path: string; findings: Array<{ ruleId: string }> }> };
-          expect(validate(report), JSON.stringify(validate.errors?.slice(0, 3))).toBe(true);
+          const report = readReport(out.stdout) as { files: Array<{ path: string; findings: Array<{ ruleId: string }> }> };
+          expect(validate(JSON.parse(out.stdout)), JSON.stringify(validate.errors?.slice(0, 3))).toBe(true);
           expect(report.files.find((f) => f.path === 'good.md')?.findings.map((f) => f.ruleId)).toEqual(['significance-follows-from-t']);
         } else if (fmt === 'sarif') {
-          const log = JSON.parse(out.stdout) as { version: string; runs: Array<{ results: Array<{ ruleId: string; locations: Array<{ physicalLocation: { artifactLocation: { uri: string } } }> }> }> };
+          const log = readReport(out.stdout) as { version: string; runs: Array<{ results: Array<{ ruleId: string; locations: Array<{ physicalLocation: { artifactLocation: { uri: string } } }> }> }> };
           expect(log.version).toBe('2.1.0');
           const good = log.runs[0]!.results.filter((r) => r.locations[0]!.physicalLocation.artifactLocation.uri === 'good.md');
           expect(good.map((r) => r.ruleId)).toEqual(['significance-follows-from-t']);

@@ -7,6 +7,7 @@ import { readFileSync } from 'node:fs';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import { describe, expect, it } from 'vitest';
 import { cli } from '../cli/harness.js';
+import { readReport } from '../helpers.js';
 
 const P_FILE = 'test/fixtures/pictures/p-values.md';
 const OTHER_FILE = 'test/fixtures/pictures/other-quantities.md';
@@ -14,18 +15,24 @@ const OTHER_FILE = 'test/fixtures/pictures/other-quantities.md';
 type Figure = Record<string, unknown> & { kind: string };
 type Data = { files: Array<{ path: string; findings: Array<{ ruleId: string; figure?: Figure }> }> };
 
+/** The report as written (raw, for the schema) and as a program reads it (readJsonReport). */
+async function written(...files: string[]): Promise<{ raw: Data; data: Data }> {
+  const out = (await cli(['--format', 'json', ...files])).stdout;
+  return { raw: JSON.parse(out), data: readReport(out) };
+}
+
 async function json(...files: string[]): Promise<Data> {
-  return JSON.parse((await cli(['--format', 'json', ...files])).stdout);
+  return (await written(...files)).data;
 }
 
 describe('the figure data in the JSON report', () => {
   it('is described by the report schema', async () => {
     const validate = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
-    const data = await json(P_FILE, OTHER_FILE);
-    expect(validate(data), JSON.stringify(validate.errors, null, 1)).toBe(true);
+    const { raw, data } = await written(P_FILE, OTHER_FILE);
+    expect(validate(raw), JSON.stringify(validate.errors, null, 1)).toBe(true);
     const kinds = new Set(data.files.flatMap((f) => f.findings.map((x) => x.figure?.kind)).filter(Boolean));
     expect([...kinds].sort()).toEqual(['correlation', 'df', 'interval', 'lattice', 'p']);
-    const broken = structuredClone(data);
+    const broken = structuredClone(raw);
     (broken.files[1]!.findings[0]!.figure as Record<string, unknown>).kind = 'pie';
     expect(validate(broken)).toBe(false);
   });

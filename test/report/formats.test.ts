@@ -4,6 +4,7 @@ import AjvDraft04Module from 'ajv-draft-04';
 import { describe, expect, it } from 'vitest';
 import { checkSource, RULES } from '../../src/engine/index.js';
 import { formatHuman, formatJson, formatSarif, type RunReport } from '../../src/report/index.js';
+import { readReport } from '../helpers.js';
 
 const demoPath = 'fixtures/demo/standing-desks.md';
 const run = (extra: string[] = []): RunReport => ({
@@ -25,7 +26,7 @@ describe('JSON report', () => {
     expect(validate(data)).toBe(false);
   });
   it('holds every result with spans and recomputed values, and every finding as data', () => {
-    const data = JSON.parse(formatJson(run()));
+    const data = readReport(formatJson(run()));
     const file = data.files[0];
     expect(file.results).toHaveLength(13);
     const source = readFileSync(demoPath, 'utf8');
@@ -38,8 +39,9 @@ describe('JSON report', () => {
   it('lists F, χ², r and z results with their kind, printed values and spans, valid against the schema', () => {
     // invented text; the p of F(1, 38) = 4.21 is .0470 to .0472 (scipy.stats.f.sf), of z = 3.10 two-tailed .0019 (scipy.stats.norm.sf)
     const text = 'Groups differed, F(1, 38) = 4.21, p = .047, ηp2 = .10, and χ²(2, N = 120) = 6.1, p = .047; the scores correlated, r(48) = .32, p = .02; the indirect effect held, z = 3.10, p = .02.\n';
-    const data = JSON.parse(formatJson({ tool: { name: 'plumbline', version: '0.0.0-test' }, files: [checkSource('s.md', text)], failures: [], rules: [] }));
-    expect(validate(data), JSON.stringify(validate.errors, null, 1)).toBe(true);
+    const written = formatJson({ tool: { name: 'plumbline', version: '0.0.0-test' }, files: [checkSource('s.md', text)], failures: [], rules: [] });
+    expect(validate(JSON.parse(written)), JSON.stringify(validate.errors, null, 1)).toBe(true);
+    const data = readReport(written);
     const stats = data.files[0].statistics as Array<{ kind: string; printed: string; span: { start: number; end: number }; value: { printed: string; span: { start: number; end: number } }; dfs?: Array<{ printed: string }>; p?: { printed: string }; recomputed?: { fits: boolean } }>;
     expect(stats.map((s) => s.kind)).toEqual(['F', 'chi-square', 'r', 'z']);
     for (const s of stats) {

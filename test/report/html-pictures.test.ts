@@ -10,6 +10,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { cli } from '../cli/harness.js';
+import { readReport } from '../helpers.js';
 
 const P_FILE = 'test/fixtures/pictures/p-values.md';
 const OTHER_FILE = 'test/fixtures/pictures/other-quantities.md';
@@ -23,7 +24,7 @@ async function html(...files: string[]): Promise<string> {
 
 async function json(...files: string[]): Promise<{ files: Array<{ path: string; findings: Array<Record<string, unknown> & { ruleId: string; message: string; figure?: Record<string, unknown>; gap?: { absolute: number; lastDigitUnits?: number; roundingAllowance?: number } }> }> }> {
   const out = await cli(['--format', 'json', ...files]);
-  return JSON.parse(out.stdout);
+  return readReport(out.stdout);
 }
 
 // ---- a small reader for the SVG the report writes (its own markup, one element per tag) ----

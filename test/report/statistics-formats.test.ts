@@ -8,8 +8,9 @@ import AjvDraft04Module from 'ajv-draft-04';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import { describe, expect, it } from 'vitest';
 import { checkSource } from '../../src/engine/index.js';
-import { countRun, formatHtml, formatHuman, formatJson, formatLines, type RunReport } from '../../src/report/index.js';
+import { countRun, formatHtml, formatHuman, formatJson, formatLines, readJsonReport, type RunReport } from '../../src/report/index.js';
 import { cli } from '../cli/harness.js';
+import { readReport } from '../helpers.js';
 
 // Invented. The recomputed p values, over the printed rounding: t(28) = 2.10 two-tailed .0444 to .0453
 // (scipy.stats.t.sf); F(1, 38) = 4.21 upper tail .0470 to .0472 (scipy.stats.f.sf), so .030 is off;
@@ -94,10 +95,11 @@ describe('one F, χ², r and z finding each, in every format (invented manuscrip
   });
 
   it('JSON: the summary counts them beside the t results, each carries its tails, and the report meets its schema', () => {
-    const data = JSON.parse(formatJson(run));
+    const written = formatJson(run);
+    const data = readReport(written);
     // ajv (npm) validates against our schema as JSON Schema 2020-12, as in formats.test.ts
     const validate = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
-    expect(validate(data), JSON.stringify(validate.errors?.slice(0, 5), null, 1)).toBe(true);
+    expect(validate(JSON.parse(written)), JSON.stringify(validate.errors?.slice(0, 5), null, 1)).toBe(true);
     expect(data.summary).toMatchObject({ results: 1, checked: 1, statistics: 4, statisticsChecked: 4 });
     expect(countRun(run)).toMatchObject({ statistics: 4, statisticsChecked: 4 });
     const statistics = data.files[0].statistics as Array<{ kind: string; sidedness: { value: string; basis: string } }>;
@@ -125,10 +127,11 @@ describe('JSON: an F with its groups and a z with its coefficient carry those ti
     '',
   ].join('\n');
   const file = checkSource('ties.md', text);
-  const data = JSON.parse(formatJson({ tool: { name: 'plumbline', version: '0.0.0-test' }, files: [file], failures: [], rules: [] }));
+  const written = formatJson({ tool: { name: 'plumbline', version: '0.0.0-test' }, files: [file], failures: [], rules: [] });
+  const data = readReport(written);
   it('meets the schema, and each tie says its basis and certainty', () => {
     const validate = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
-    expect(validate(data), JSON.stringify(validate.errors?.slice(0, 5), null, 1)).toBe(true);
+    expect(validate(JSON.parse(written)), JSON.stringify(validate.errors?.slice(0, 5), null, 1)).toBe(true);
     const [f, z] = data.files[0].statistics as Array<{ kind: string; groups?: { scope: string; certain: boolean; groups: Array<{ printed: string; spreadKind: string }> }; coefficient?: { printed: string; basis: string; certain: boolean } }>;
     expect(f?.kind).toBe('F');
     expect(f?.groups).toMatchObject({ scope: 'sentence', certain: true });
@@ -164,7 +167,8 @@ describe('JSON: an F tied to groups in a table it names, and to groups in the pa
   it('meets the schema, and says which table, which words named it and what the F named', () => {
     const validate = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
     expect(validate(data), JSON.stringify(validate.errors?.slice(0, 5), null, 1)).toBe(true);
-    const [inTable, before] = data.files[0].statistics as Array<{ groups?: { scope: string; certain: boolean; tableTie?: { name: string; named: { printed: string; basis: string; start: { line: number; column: number } }; outcome: { by: string; words: string[] } } } }>;
+    // the 2.x text is validated as written, and read in the 1.x shape the facts are described in
+    const [inTable, before] = (readJsonReport(data) as { files: Array<{ statistics: unknown }> }).files[0]?.statistics as Array<{ groups?: { scope: string; certain: boolean; tableTie?: { name: string; named: { printed: string; basis: string; start: { line: number; column: number } }; outcome: { by: string; words: string[] } } } }>;
     expect(inTable?.groups).toMatchObject({ scope: 'table', certain: true, tableTie: { name: 'Table 2', named: { printed: 'Table 2', basis: 'sentence', start: { line: 9, column: 26 } }, outcome: { by: 'caption', words: ['recall', 'room'] } } });
     expect(before?.groups).toMatchObject({ scope: 'previous-paragraph', certain: true });
     expect(before?.groups?.tableTie).toBeUndefined();

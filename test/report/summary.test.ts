@@ -29,6 +29,29 @@ function tally() {
 }
 
 describe('the corpus summary (counting)', () => {
+  it('reads lines of report 2.x as 1.x ones: a gap in last-digit units left to be derived', () => {
+    // the same document as line a, written as report 2.0.0 writes it (schema/report.schema.json):
+    // 3 = 0.03 / (2 × 0.005); 0.7 stated; 250 = 2.5 / (2 × 0.005)
+    const v2 = JSON.stringify({
+      id: 'a',
+      reportVersion: '2.0.0',
+      path: 'a',
+      results: Array.from({ length: 4 }, (_, i) => ({ id: `0:${i}` })),
+      findings: [
+        { ruleId: 'p-follows-from-t', level: 'warning', gap: { absolute: 0.03, roundingAllowance: 0.005 } },
+        { ruleId: 'p-follows-from-t', level: 'note', gap: { absolute: 0.007, lastDigitUnits: 0.7, roundingAllowance: 0.005 } },
+        { ruleId: 'significance-follows-from-t', level: 'error', gap: { absolute: 2.5, roundingAllowance: 0.005 } },
+      ],
+      texts: [],
+    });
+    const t = new CorpusTally();
+    expect(t.add(v2)).toMatchObject({ id: 'a', results: 4, findings: 3, byLevel: { error: 1, warning: 1, note: 1 } });
+    const s = t.summary();
+    expect(s.rules.map((r) => r.ruleId)).toEqual(['p-follows-from-t', 'significance-follows-from-t']);
+    // 0.7 → [0, 1); 3 → [2, 5); 250 → [100, 1000)
+    expect(s.gaps.find((g) => g.ruleId === 'p-follows-from-t')?.counts).toEqual([1, 0, 1, 0, 0, 0, 0]);
+    expect(s.gaps.find((g) => g.ruleId === 'significance-follows-from-t')?.counts).toEqual([0, 0, 0, 0, 0, 1, 0]);
+  });
   it('counts documents, results and findings by level, as worked out by hand', () => {
     const { rows, summary: s } = tally();
     expect(rows.map((r) => r.status)).toEqual(['checked', 'checked', 'not-checked', 'checked', 'not-batch-output']);

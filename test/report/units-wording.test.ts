@@ -5,13 +5,14 @@
  */
 import { describe, expect, it } from 'vitest';
 import { cli } from '../cli/harness.js';
+import { readReport } from '../helpers.js';
 
 const P_FILE = 'test/fixtures/pictures/p-values.md';
 
 type Finding = { message: string; gap?: { absolute: number; lastDigitUnits?: number; roundingAllowance?: number } };
 
 async function json(...files: string[]): Promise<{ files: Array<{ findings: Finding[] }> }> {
-  return JSON.parse((await cli(['--format', 'json', ...files])).stdout);
+  return readReport((await cli(['--format', 'json', ...files])).stdout);
 }
 
 async function html(...files: string[]): Promise<string> {

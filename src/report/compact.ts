@@ -1,0 +1,324 @@
+/**
+ * The shape of a file in the JSON report 2.x (schema/report.schema.json), and the way back.
+ *
+ * A 1.x report repeated per number what is the same for all of them: three objects for every
+ * place (`span`, `start`, `end`), the same advice and assumption texts in every finding, and
+ * default values. A 60,000-result document gave 228 MB of JSON (bench figure 14). In 2.x:
+ * - a place is `at: [start, end]` (offsets); its lines and columns follow from the file's
+ *   `lineStarts` (where each line starts, written as differences), as the engine computes them.
+ *   A place whose line or column does not follow so keeps its `start`/`end`;
+ * - texts that repeat are stored once per file in `texts` and referred to by index: whole
+ *   (`TEXT_KEYS`), or, for messages and the inputs of a recomputation, as pieces (`PIECE_KEYS`:
+ *   an array of strings, written as they are, and indices, joined in order);
+ * - a printed number leaves out `exponent` when 0, and `value` and `decimals` when its printed
+ *   text is a plain decimal (`PLAIN_DECIMAL`) that gives them; a result leaves out
+ *   `inCode: false`, `plural: false` and an empty `context.effectSizes`.
+ * `expandFile` gives back every fact of the 1.x file. Serialisation only: nothing is computed.
+ */
+import type { FileReport } from '../engine/types.js';
+
+/** Keys whose strings (or arrays of strings) are stored once per file, as an index into `texts`. */
+const TEXT_KEYS = new Set(['messageId', 'check', 'quantity', 'assumptions', 'uncertain', 'doubt', 'unlinked', 'standing', 'basis', 'style', 'spreadKind', 'label', 'estimateSource']);
+/** Keys whose strings are written as pieces: the runs of digits inline, the words between them as indices into `texts`. */
+const PIECE_KEYS = new Set(['message', 'inputs']);
+/** Keys that hold printed numbers (t, df, p's number, a statistic's value, dfs and n). */
+const NUMBER_KEYS = new Set(['t', 'df', 'number', 'value', 'dfs', 'n']);
+
+type Json = null | boolean | number | string | Json[] | { [key: string]: Json };
+type JsonObject = { [key: string]: Json };
+
+const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+const isDigit = (c: number) => c >= 48 && c <= 57;
+
+/** The printed text of a number whose value and decimals JSON readers get from the text alone: `2.47`, `.021`, `-3`, `12`. */
+function plainDecimal(printed: string): { value: number; decimals: number } | undefined {
+  let i = printed.charCodeAt(0) === 45 ? 1 : 0;
+  let digits = 0;
+  let point = -1;
+  for (; i < printed.length; i += 1) {
+    const c = printed.charCodeAt(i);
+    if (isDigit(c)) digits += 1;
+    else if (c === 46 && point < 0) point = i;
+    else return undefined;
+  }
+  if (digits === 0 || point === printed.length - 1) return undefined;
+  return { value: Number(printed), decimals: point < 0 ? 0 : printed.length - point - 1 };
+}
+
+/** The lines' starts of a text as LineIndex (src/parse/lines.ts) finds them: after LF, CRLF or a lone CR; line 1 after a byte-order mark. */
+export function lineStartsOf(text: string): number[] {
+  const starts = [text.charCodeAt(0) === 0xfeff ? 1 : 0];
+  for (let i = 0; i < text.length; i += 1) {
+    const c = text.charCodeAt(i);
+    if (c === 10) starts.push(i + 1);
+    else if (c === 13) {
+      if (text.charCodeAt(i + 1) === 10) i += 1;
+      starts.push(i + 1);
+    }
+  }
+  return starts;
+}
+
+/** 1-based line and column of an offset: the last line starting at or before it; column at least 1. */
+function positionIn(starts: readonly number[], offset: number): { line: number; column: number } {
+  let lo = 0;
+  let hi = starts.length - 1;
+  while (lo < hi) {
+    const mid = (lo + hi + 1) >> 1;
+    if ((starts[mid] as number) <= offset) lo = mid;
+    else hi = mid - 1;
+  }
+  return { line: lo + 1, column: Math.max(1, offset - (starts[lo] as number) + 1) };
+}
+
+const samePosition = (a: unknown, b: { line: number; column: number }) => isObject(a) && a.line === b.line && a.column === b.column && Object.keys(a).length === 2;
+
+/** A place as the engine writes it: a span and both ends' positions. */
+function isPlace(v: Record<string, unknown>): boolean {
+  const { span, start, end } = v;
+  return isObject(span) && typeof span.start === 'number' && typeof span.end === 'number' && Object.keys(span).length === 2 && isObject(start) && isObject(end);
+}
+
+/** Writes one file of a report in the 2.x shape: the file's members, then its `texts`. */
+export class FileEncoder {
+  readonly texts: string[] = [];
+  private readonly ids = new Map<string, number>();
+  private readonly starts: number[];
+
+  constructor(source: string) {
+    this.starts = lineStartsOf(source);
+  }
+
+  /** `lineStarts` as written: the first line's start, then each line's start less the one before. */
+  lineSteps(): number[] {
+    return this.starts.map((s, i) => (i === 0 ? s : s - (this.starts[i - 1] as number)));
+  }
+
+  private text(s: string): number {
+    let id = this.ids.get(s);
+    if (id === undefined) {
+      id = this.texts.length;
+      this.texts.push(s);
+      this.ids.set(s, id);
+    }
+    return id;
+  }
+
+  /**
+   * A message or input: `[template, runs]`, the template (a shared text) being the string with
+   * each run of digits (with its decimal points) written as `#`, and `runs` those runs in order,
+   * separated by spaces. A string without digits is a shared text (its index); one holding `#`
+   * itself is written as it is.
+   */
+  private pieces(s: string): Json {
+    if (s.includes('#')) return s;
+    const template: string[] = [];
+    const runs: string[] = [];
+    const numeric = (i: number) => isDigit(s.charCodeAt(i)) || (s.charCodeAt(i) === 46 && isDigit(s.charCodeAt(i + 1)));
+    let at = 0;
+    while (at < s.length) {
+      const inNumber = numeric(at);
+      let end = at + 1;
+      while (end < s.length && numeric(end) === inNumber) end += 1;
+      if (inNumber) {
+        runs.push(s.slice(at, end));
+        template.push('#');
+      } else template.push(s.slice(at, end));
+      at = end;
+    }
+    if (runs.length === 0) return this.text(s);
+    return [this.text(template.join('')), runs.join(' ')];
+  }
+
+  /** Each result's and statistic's `printed`, by id: a finding's `reported` that repeats it is left out. */
+  readonly printedOf = new Map<string, string>();
+
+  /** The encoded file setting (`alpha`, `sidedness`) a result leaves out when its own is the same. */
+  fileSettings: { alpha?: string; sidedness?: string } = {};
+
+  /** A value of the in-memory report (as JSON.stringify would see it) in the 2.x shape. */
+  encode(v: unknown, key = ''): Json | undefined {
+    if (v === undefined || typeof v === 'function' || typeof v === 'symbol') return undefined;
+    if (v === null || typeof v === 'boolean') return v;
+    if (typeof v === 'number') return Number.isFinite(v) ? v : null;
+    if (typeof v === 'string') {
+      if (TEXT_KEYS.has(key)) return this.text(v);
+      if (PIECE_KEYS.has(key)) return this.pieces(v);
+      return v;
+    }
+    if (Array.isArray(v)) return v.map((x) => this.encode(x, key) ?? null);
+    const o = v as Record<string, unknown>;
+    const out: JsonObject = {};
+    const place = isPlace(o);
+    const plain = NUMBER_KEYS.has(key) && typeof o.printed === 'string' && typeof o.value === 'number' && typeof o.decimals === 'number' ? plainDecimal(o.printed) : undefined;
+    for (const k of Object.keys(o)) {
+      const x = o[k];
+      if (place && k === 'span') {
+        const span = x as { start: number; end: number };
+        out.at = [span.start, span.end];
+        continue;
+      }
+      if (place && k === 'start' && samePosition(x, positionIn(this.starts, (o.span as { start: number }).start))) continue;
+      if (place && k === 'end' && samePosition(x, positionIn(this.starts, (o.span as { end: number }).end))) continue;
+      if (NUMBER_KEYS.has(key) && typeof o.printed === 'string' && typeof o.decimals === 'number') {
+        if (k === 'exponent' && x === 0) continue;
+        if (plain && k === 'value' && Object.is(x, plain.value)) continue;
+        if (plain && k === 'decimals' && x === plain.decimals) continue;
+      }
+      const e = this.encode(x, k);
+      if (e !== undefined) out[k] = e;
+    }
+    return out;
+  }
+}
+
+const sameJson = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
+const isRange = (v: unknown): v is { low: number; high: number } => isObject(v) && typeof v.low === 'number' && typeof v.high === 'number';
+
+/**
+ * A result's members left out when they hold their default or repeat another: `inCode` and
+ * `plural` when false, `context.effectSizes` when empty, `context.design` when unknown by default,
+ * `alpha` and `sidedness` when the file's, `context.interval` when it is one of
+ * `context.intervals` (then its index there), `recomputed.oneTailed` when it is exactly half of
+ * `twoTailed`.
+ */
+function resultDefaults(encoder: FileEncoder, r: JsonObject): JsonObject {
+  if (r.inCode === false) delete r.inCode;
+  if (r.plural === false) delete r.plural;
+  for (const k of ['alpha', 'sidedness'] as const) if (encoder.fileSettings[k] !== undefined && JSON.stringify(r[k]) === encoder.fileSettings[k]) delete r[k];
+  const c = r.context;
+  if (isObject(c)) {
+    const context = c as JsonObject;
+    if (Array.isArray(context.effectSizes) && context.effectSizes.length === 0) delete context.effectSizes;
+    if (sameJson(context.design, encoder.encode(UNKNOWN_DESIGN, 'design'))) delete context.design;
+    if (context.interval !== undefined && Array.isArray(context.intervals)) {
+      const i = context.intervals.findIndex((x) => sameJson(x, context.interval));
+      if (i >= 0) context.interval = i;
+    }
+  }
+  const rec = r.recomputed;
+  if (isObject(rec) && isRange(rec.twoTailed) && isRange(rec.oneTailed) && rec.oneTailed.low === rec.twoTailed.low / 2 && rec.oneTailed.high === rec.twoTailed.high / 2) delete (rec as JsonObject).oneTailed;
+  return r;
+}
+
+/** The design a result has when nothing says what it is. */
+const UNKNOWN_DESIGN = { value: 'unknown', basis: 'default' };
+
+/**
+ * A finding's members left out when they repeat another: `gap.lastDigitUnits` when it is exactly
+ * `absolute / (2 × roundingAllowance)`; `reported` when it is the `printed` of the result or
+ * statistic its `resultId` names; an interval figure's `midpoint` when it is exactly the mean of
+ * `lower` and `upper` (low with low, high with high), and its `estimate` when it is the midpoint.
+ */
+function findingDefaults(encoder: FileEncoder, f: JsonObject): JsonObject {
+  const g = f.gap;
+  if (isObject(g) && typeof g.absolute === 'number' && typeof g.roundingAllowance === 'number' && typeof g.lastDigitUnits === 'number' && g.lastDigitUnits === g.absolute / (2 * g.roundingAllowance)) delete (g as JsonObject).lastDigitUnits;
+  if (typeof f.resultId === 'string' && typeof f.reported === 'string' && encoder.printedOf.get(f.resultId) === f.reported) delete f.reported;
+  const fig = f.figure;
+  if (isObject(fig) && fig.kind === 'interval') {
+    const figure = fig as JsonObject;
+    if (isRange(figure.midpoint) && isRange(figure.estimate) && figure.estimate.low === figure.midpoint.low && figure.estimate.high === figure.midpoint.high && Object.keys(figure.estimate).length === 2) delete figure.estimate;
+    const mid = midpointOf(figure.lower, figure.upper);
+    if (mid && isRange(figure.midpoint) && figure.midpoint.low === mid.low && figure.midpoint.high === mid.high && Object.keys(figure.midpoint).length === 2) delete figure.midpoint;
+  }
+  return f;
+}
+
+/** The mean of two ranges, low with low and high with high, as the interval figure's midpoint is made. */
+function midpointOf(lower: unknown, upper: unknown): { low: number; high: number } | undefined {
+  return isRange(lower) && isRange(upper) ? { low: (lower.low + upper.low) / 2, high: (lower.high + upper.high) / 2 } : undefined;
+}
+
+/** One result, statistic, finding or checklist item of a file, encoded. */
+export function encodeItem(encoder: FileEncoder, member: string, item: unknown): Json {
+  const e = encoder.encode(item);
+  if ((member === 'results' || member === 'statistics') && isObject(item) && typeof item.id === 'string' && typeof item.printed === 'string') encoder.printedOf.set(item.id, item.printed);
+  if (member === 'results') return resultDefaults(encoder, e as JsonObject);
+  if (member === 'findings') return findingDefaults(encoder, e as JsonObject);
+  return e ?? null;
+}
+
+/** The in-memory file members, in the order 2.x writes them; `results`, `statistics`, `findings` and `checklist` are written item by item. */
+export const STREAMED_MEMBERS = ['results', 'statistics', 'findings', 'checklist'] as const;
+
+/** Reads a file of a 2.x report back into the 1.x shape: every place with its span and positions, every text in full, every default in place. */
+export function expandFile(file: Record<string, unknown>): Record<string, unknown> {
+  const texts = Array.isArray(file.texts) ? (file.texts as string[]) : [];
+  const steps = Array.isArray(file.lineStarts) ? (file.lineStarts as number[]) : [0];
+  const starts: number[] = [];
+  for (const s of steps) starts.push(starts.length === 0 ? s : (starts[starts.length - 1] as number) + s);
+  const text = (i: unknown) => (typeof i === 'number' ? (texts[i] as string) : i);
+  const joined = (p: unknown) => {
+    if (typeof p === 'number') return texts[p];
+    if (!Array.isArray(p) || typeof p[0] !== 'number' || typeof p[1] !== 'string') return p;
+    const runs = p[1].split(' ');
+    const parts = (texts[p[0]] as string).split('#');
+    const out: string[] = [parts[0] as string];
+    for (let k = 1; k < parts.length; k += 1) out.push(runs[k - 1] as string, parts[k] as string);
+    return out.join('');
+  };
+  const decode = (v: unknown, key: string): unknown => {
+    if (TEXT_KEYS.has(key)) return Array.isArray(v) ? v.map(text) : text(v);
+    if (key === 'message') return joined(v);
+    if (key === 'inputs' && Array.isArray(v)) return v.map(joined);
+    if (Array.isArray(v)) return v.map((x) => decode(x, key));
+    if (!isObject(v)) return v;
+    const out: Record<string, unknown> = {};
+    for (const k of Object.keys(v)) {
+      const x = v[k];
+      if (k === 'at' && Array.isArray(x) && x.length === 2 && typeof x[0] === 'number' && typeof x[1] === 'number') {
+        out.span = { start: x[0], end: x[1] };
+        if (!('start' in v)) out.start = positionIn(starts, x[0]);
+        if (!('end' in v)) out.end = positionIn(starts, x[1]);
+        continue;
+      }
+      out[k] = decode(x, k);
+    }
+    if (NUMBER_KEYS.has(key) && typeof v.printed === 'string') {
+      const plain = plainDecimal(v.printed);
+      if (!('value' in v) && plain) out.value = plain.value;
+      if (!('decimals' in v) && plain) out.decimals = plain.decimals;
+      if (!('exponent' in v)) out.exponent = 0;
+    }
+    return out;
+  };
+  const out: Record<string, unknown> = {};
+  for (const k of Object.keys(file)) {
+    if (k === 'texts' || k === 'lineStarts') continue;
+    out[k] = decode(file[k], k);
+  }
+  if (Array.isArray(out.results)) {
+    for (const r of out.results as Array<Record<string, unknown>>) {
+      if (!('inCode' in r)) r.inCode = false;
+      if (!('plural' in r)) r.plural = false;
+      if (!('alpha' in r) && out.alpha !== undefined) r.alpha = structuredClone(out.alpha);
+      if (!('sidedness' in r) && out.sidedness !== undefined) r.sidedness = structuredClone(out.sidedness);
+      if (isObject(r.context)) {
+        const c = r.context;
+        if (!('effectSizes' in c)) c.effectSizes = [];
+        if (!('design' in c)) c.design = { ...UNKNOWN_DESIGN };
+        if (typeof c.interval === 'number' && Array.isArray(c.intervals)) c.interval = structuredClone(c.intervals[c.interval]);
+      }
+      const rec = r.recomputed;
+      if (isObject(rec) && isRange(rec.twoTailed) && !('oneTailed' in rec)) rec.oneTailed = { low: rec.twoTailed.low / 2, high: rec.twoTailed.high / 2 };
+    }
+  }
+  if (Array.isArray(out.findings)) {
+    const printedOf = new Map<unknown, unknown>();
+    for (const list of [out.results, out.statistics]) if (Array.isArray(list)) for (const x of list as Array<Record<string, unknown>>) printedOf.set(x.id, x.printed);
+    for (const f of out.findings as Array<Record<string, unknown>>) {
+      if (!('reported' in f) && printedOf.has(f.resultId)) f.reported = printedOf.get(f.resultId);
+      const fig = f.figure;
+      if (isObject(fig) && fig.kind === 'interval') {
+        if (!('midpoint' in fig)) fig.midpoint = midpointOf(fig.lower, fig.upper);
+        if (!('estimate' in fig) && isRange(fig.midpoint)) fig.estimate = { low: fig.midpoint.low, high: fig.midpoint.high };
+      }
+      const g = f.gap;
+      if (isObject(g) && typeof g.absolute === 'number' && typeof g.roundingAllowance === 'number' && !('lastDigitUnits' in g)) g.lastDigitUnits = g.absolute / (2 * g.roundingAllowance);
+    }
+  }
+  return out;
+}
+
+/** The file members of a FileReport, as the JSON report writes them (the source text is not repeated). */
+export type FileMembers = Omit<FileReport, 'source'>;
