@@ -29,8 +29,19 @@ type TableBlock = TableBlockRecord;
 
 // Bounded building blocks (see test/regex-safety).
 const NUM = String.raw`[-+]?(?:\d{1,9}(?:\.\d{1,12})?|\.\d{1,12})`;
+/**
+ * A df as the prose reader reads one (DF_NUM in tTests.ts): up to 400 digits, or grouped by
+ * commas, an `e` exponent; a longer run is not read at all, never cut. One of ten digits and
+ * more is read but no p is recomputed from it (evaluateP: a note).
+ */
+const DF = String.raw`[-+]?(?:\d{1,3}(?:,\d{3}){1,3}(?:\.\d{1,12})?|\d{1,400}(?:\.\d{1,12})?|\.\d{1,12})(?:[eE][-+]?\d{1,9})?`;
+/** A t as the prose reader reads one (T_NUM in tTests.ts): up to 400 digits, an `e` exponent. */
+const T_CELL_NUM = String.raw`[-+]?(?:\d{1,400}(?:\.\d{1,20})?|\.\d{1,20})(?:[eE][-+]?\d{1,9})?`;
 const STARS = String.raw`(\*{1,4}|†)?`;
-const T_HEADER = /^(?:(?:related|paired|independent|welch['’]?s?|student['’]?s?) )?t(?:[- ]?(?:value|test|stat(?:istic)?))?(?: ?\( ?(?:df ?= ?)?(\d{1,6}(?:\.\d{1,4})?) ?\)| ?\((?:df)\))?$/iu;
+const T_HEADER = new RegExp(
+  String.raw`^(?:(?:related|paired|independent|welch['’]?s?|student['’]?s?) )?t(?:[- ]?(?:value|test|stat(?:istic)?))?(?: ?\( ?(?:df ?= ?)?(${DF}) ?\)| ?\((?:df)\))?$`,
+  'iu',
+);
 const DF_HEADER = /^(?:df|d\.f\.|degrees of freedom)$/iu;
 const P_HEADER = /^(?:p|p[- ]?values?|sig\.?|significance)(?: ?\((?:two|2|one|1)[- ]?(?:tailed|sided|t)\))?$|^sig\. \(2-tailed\)$|^pr\(>\|t\|\)$/iu;
 const D_HEADER = /^(?:d|d_?z|d_?av|cohen['’]s d|hedges['’]? ?g|g|es|effect size|effect size \(d\))$/iu;
@@ -47,10 +58,12 @@ const GROUP_COLUMN = /(?:^|[\s,(])(?:m|mean|means)s? ?(?:\(\s?(sd|se|sem|s\.d\.|
 const HEADER_N = /\(\s?n ?= ?(\d{1,6})\s?\)/iu;
 
 const CELL_NUMBER = new RegExp(String.raw`^ ?(${NUM}) ?${STARS} ?$`, 'u');
+/** A df cell (see DF). */
+const CELL_DF = new RegExp(String.raw`^ ?(${DF}) ?${STARS} ?$`, 'u');
 /** A t cell: a number, or one in R's scientific form (`3.4e+01`, `2e1000`: beyond a double, read as its log10). */
-const CELL_T = new RegExp(String.raw`^ ?(${NUM}(?:[eE][-+]?\d{1,9})?) ?${STARS} ?$`, 'u');
+const CELL_T = new RegExp(String.raw`^ ?(${T_CELL_NUM}) ?${STARS} ?$`, 'u');
 /** A t cell under a `t (df)` header: the t, then its df in brackets (`20.86 (99)`), stars after either. */
-const CELL_T_DF = new RegExp(String.raw`^ ?(${NUM}) ?${STARS} ?\( ?(\d{1,6}(?:\.\d{1,4})?) ?\) ?(\*{1,4}|†)? ?$`, 'u');
+const CELL_T_DF = new RegExp(String.raw`^ ?(${NUM}) ?${STARS} ?\( ?(${DF}) ?\) ?(\*{1,4}|†)? ?$`, 'u');
 /** A `t (df)` header: the cells print the df in brackets after t. */
 const T_DF_HEADER = /\( ?df ?\)$/iu;
 /**
@@ -63,7 +76,7 @@ const CELL_MEAN_SPREAD = new RegExp(String.raw`^ ?(${NUM}) ?(?:\( ?(${NUM}) ?\)|
 const CELL_CI = new RegExp(String.raw`^ ?(?:(${NUM}) ?)?[(\[]? ?(${NUM}) ?(?:,|;|to|–|—| - |-(?=[.\d])) ?(${NUM}) ?[)\]]? ?$`, 'u');
 const LABELLED_T = new RegExp(String.raw`^ ?[tT] ?= ?(${NUM}) ?$`, 'u');
 const LABELLED_P = new RegExp(String.raw`^ ?[pP] ?(<=|>=|≤|≥|<|>|=) ?(\d{1,12}(?:\.\d{1,20})?|\.\d{1,20}) ?$`, 'u');
-const CAPTION_DF = /(?<![\p{L}])(?:df|d\.f\.) ?= ?(\d{1,6})(?![\d.])/u;
+const CAPTION_DF = /(?<![\p{L}])(?:df|d\.f\.) ?= ?(\d{1,400})(?![\d.])/u;
 
 interface Grid {
   table: number;
@@ -299,7 +312,7 @@ function readGrid(grid: Grid, out: TableResults): void {
       if (t && m) {
         const dfCell = cols.df !== undefined ? row.get(cols.df) : undefined;
         const inCell = withDf ? numberAt(tCell, withDf[3] as string, tCell.text.indexOf('(', tCell.text.indexOf(withDf[1] as string) + (withDf[1] as string).length)) : undefined;
-        const df = inCell ?? (dfCell ? cellNumber(dfCell) : undefined) ?? cols.t?.df ?? captionDf;
+        const df = inCell ?? (dfCell ? cellDf(dfCell) : undefined) ?? cols.t?.df ?? captionDf;
         const pCell = cols.p !== undefined ? row.get(cols.p) : undefined;
         const stars = m[2] ?? (withDf ? withDf[4] : undefined);
         const p = (pCell ? cellP(pCell) : undefined) ?? (stars ? starP(tCell, stars) : undefined);
@@ -412,6 +425,11 @@ function numberAt(cell: Segment, text: string, from: number): ReportedNumber | u
 
 function cellNumber(seg: Segment): ReportedNumber | undefined {
   const m = CELL_NUMBER.exec(seg.text);
+  return m ? numberAt(seg, m[1] as string, 0) : undefined;
+}
+
+function cellDf(seg: Segment): ReportedNumber | undefined {
+  const m = CELL_DF.exec(seg.text);
   return m ? numberAt(seg, m[1] as string, 0) : undefined;
 }
 

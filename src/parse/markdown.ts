@@ -16,7 +16,7 @@ import { markLegends } from './legends.js';
 import { defuseDenseMarkup, exceedsNesting } from './depth.js';
 import { LAZY_LIMIT, QUOTE_LIMIT, SETEXT_LIMIT, defuseSlowShapes, joinLongParagraphs, type SlowShape } from './shapes.js';
 import { BULK_CHUNK_ROWS, BULK_MIN_ROWS, blankRuns, findBulkRuns, plainCells, type BulkRun } from './bulkTable.js';
-import { PLAIN_MIN_GROUPS, findPlainRuns, lineShift, plainGroupText, standInRuns, type PlainRun } from './plainRuns.js';
+import { PLAIN_MIN_GROUPS, findPlainRuns, inlineTagText, lineShift, readPlainGroup, standInRuns, type PlainRun } from './plainRuns.js';
 import type { Directive, FrontMatter, ParsedDocument, ReadNote, Segment, SegmentKind, TablePlace } from './types.js';
 
 const processor = unified().use(remarkParse).use(remarkGfm).use(remarkFrontmatter, ['yaml']).use(remarkMath);
@@ -461,9 +461,7 @@ class Walker {
         if (run) {
           for (const group of run.groups) {
             const text = new MappedText();
-            const first = group.lines[0] as { start: number };
-            const last = group.lines[group.lines.length - 1] as { end: number };
-            text.pushAligned(plainGroupText(this.src, group), this.src, first.start, last.end);
+            readPlainGroup(this.src, group, text);
             this.emit('paragraph', text, this.startBlock());
           }
           return;
@@ -679,12 +677,11 @@ class Walker {
     }
   }
 
-  /** `<sup>` reads as an exponent mark, `<br>` as a line break; other inline tags vanish. */
+  /** A comment may be a directive; a tag reads as `inlineTagText` says (plainRuns.ts reads tags the same way). */
   private inlineHtml(value: string, start: number, end: number, out: MappedText): void {
-    if (/^<sup\b/i.test(value)) out.pushSynthetic('^', start, end);
-    else if (/^<br\b/i.test(value)) out.pushSynthetic('\n', start, end);
-    else if (/^<\/?(?:sub|span|em|i|b|strong)\b/i.test(value)) return;
-    else if (/^<!--/.test(value)) {
+    const read = inlineTagText(value);
+    if (read !== '') out.pushSynthetic(read, start, end);
+    else if (value.startsWith('<!--')) {
       const d = readDirective(value, { start: start + this.shift, end: end + this.shift });
       if (d) {
         this.directives.push(d);

@@ -17,14 +17,28 @@
  * fence, raw HTML or math this scan did not see).
  *
  * A plain line starts at its first column with a letter, a digit that opens no ordered list
- * item, a backslash escape, or any non-ASCII character; holds no tab, CR or trailing space; and none of
- * `` ` * _ ~ $ [ ] | @ `` (but any of them escaped by a backslash), no `\` ending it, no `<` or
- * `&` or `!` that could open a tag, a character reference or an image, and no `www.` or `://`
- * (autolink literals). Its paragraph's text is then its lines joined by line breaks with
- * backslash escapes resolved, exactly as the parser gives it. A run is also taken when it has
- * fewer paragraphs but spans PLAIN_MIN_CHARS (one long paragraph of escapes is slow too). test/parse/plain-runs.test.ts compares
- * both readings on generated documents.
+ * item, a backslash escape, `&`, an inline tag (below) or any non-ASCII character; holds no tab
+ * or CR, and no trailing space unless it ends its paragraph; and none of `` ` * _ ~ $ [ ] | ``
+ * (but any of them escaped by a backslash) outside a tag, no `\` ending it, and no `<` that
+ * opens anything but a whole tag on the line. What such a paragraph holds besides its words is
+ * read here as micromark reads it (remark-parse 11, micromark 4):
+ * - backslash escapes and character references (`&amp;`, `&#38;`, `&#x26;`: named ones only when
+ *   the name is HTML's, numeric ones with micromark's replacements), decoded;
+ * - inline HTML tags, open or closing, attributes and all (micromark's grammar, html-text), read
+ *   as the walker reads a tag (`<sup>` as `^`, `<br>` as a line break, any other as nothing); a
+ *   line may open with one when its name opens no HTML block (CommonMark's kinds 1 and 6) and
+ *   text follows it on the line (else kind 7); comments, declarations and the like are not taken;
+ * - autolink literals (`www.`, `://`, `@`), whose link text is the text as printed, in a
+ *   paragraph with no escape or reference (inside a literal micromark decodes neither).
+ * A paragraph's text is then its pieces between tags, decoded, each aligned with its source as
+ * the parser's text nodes are. A run is also taken when it has fewer paragraphs but spans
+ * PLAIN_MIN_CHARS (one long paragraph of escapes, tags or references is slow too).
+ * test/parse/plain-runs.test.ts compares both readings on generated documents.
  */
+
+import { decodeNamedCharacterReference } from 'decode-named-character-reference';
+import { htmlBlockNames, htmlRawNames } from 'micromark-util-html-tag-name';
+import type { MappedText } from './builder.js';
 
 /** Default: runs of at least this many plain paragraphs are read here. */
 export const PLAIN_MIN_GROUPS = 64;
@@ -32,9 +46,13 @@ export const PLAIN_MIN_GROUPS = 64;
 /** Runs of fewer paragraphs are read here too when they span at least this many characters. */
 export const PLAIN_MIN_CHARS = 65_536;
 
-/** One plain paragraph: its lines' ranges (no line ending). */
+/** One plain paragraph: its lines' ranges (no line ending, no trailing space). */
 export interface PlainGroup {
   lines: Array<{ start: number; end: number }>;
+  /** A line holds a backslash escape or something that may be a character reference. */
+  decodes?: boolean;
+  /** A line holds what may start an autolink literal (`www.`, `://`, `@`). */
+  literal?: boolean;
 }
 
 export interface PlainRun {
@@ -45,9 +63,13 @@ export interface PlainRun {
   groups: PlainGroup[];
 }
 
-/** ASCII characters that never appear in a plain line. */
+/** ASCII characters that never appear in a plain line outside a tag. */
 const BANNED = new Uint8Array(128);
-for (const c of '`*_~$[]|@\t\r') BANNED[c.charCodeAt(0)] = 1;
+for (const c of '`*_~$[]|\t\r') BANNED[c.charCodeAt(0)] = 1;
+
+/** What a plain line holds beyond words: `PLAIN_DECODES` and `PLAIN_LITERAL` (0 alone: nothing). */
+export const PLAIN_DECODES = 1;
+export const PLAIN_LITERAL = 2;
 
 /** ASCII punctuation: what a backslash escapes (CommonMark 2.4). */
 function isAsciiPunctuation(c: number): boolean {
@@ -62,43 +84,202 @@ function isDigit(c: number): boolean {
   return c >= 48 && c <= 57;
 }
 
-/** Whether text[start, end) is a plain line (see the module comment). */
-export function isPlainLine(text: string, start: number, end: number): boolean {
-  if (start >= end) return false;
+function isAlphanumeric(c: number): boolean {
+  return isAsciiLetter(c) || isDigit(c);
+}
+
+function isSpaceOrTab(c: number): boolean {
+  return c === 32 || c === 9;
+}
+
+/**
+ * An inline HTML tag, open or closing, starting with the `<` at `k` and ending before `end`, as
+ * micromark's html-text reads one (micromark-core-commonmark 2): the offset just past its `>`,
+ * else -1. Line endings, which the parser allows inside a tag, are not: the tag must close on
+ * its line.
+ */
+export function inlineTagEnd(text: string, k: number, end: number): number {
+  let p = k + 1;
+  if (text.charCodeAt(p) === 47) {
+    p += 1;
+    if (p >= end || !isAsciiLetter(text.charCodeAt(p))) return -1;
+    p += 1;
+    while (p < end && (isAlphanumeric(text.charCodeAt(p)) || text.charCodeAt(p) === 45)) p += 1;
+    while (p < end && isSpaceOrTab(text.charCodeAt(p))) p += 1;
+    return p < end && text.charCodeAt(p) === 62 ? p + 1 : -1;
+  }
+  if (p >= end || !isAsciiLetter(text.charCodeAt(p))) return -1;
+  p += 1;
+  while (p < end && (isAlphanumeric(text.charCodeAt(p)) || text.charCodeAt(p) === 45)) p += 1;
+  // the name ends at `/`, `>` or a space
+  const after = p < end ? text.charCodeAt(p) : -1;
+  if (!(after === 47 || after === 62 || isSpaceOrTab(after))) return -1;
+  for (;;) {
+    if (p >= end) return -1;
+    const c = text.charCodeAt(p);
+    if (c === 62) return p + 1;
+    if (c === 47) return p + 1 < end && text.charCodeAt(p + 1) === 62 ? p + 2 : -1;
+    if (isSpaceOrTab(c)) {
+      p += 1;
+      continue;
+    }
+    if (!(c === 58 || c === 95 || isAsciiLetter(c))) return -1;
+    // an attribute: its name, then `=` and a value, or not
+    p += 1;
+    for (let d = text.charCodeAt(p); p < end && (isAlphanumeric(d) || d === 45 || d === 46 || d === 58 || d === 95); d = text.charCodeAt(p)) p += 1;
+    while (p < end && isSpaceOrTab(text.charCodeAt(p))) p += 1;
+    if (p >= end || text.charCodeAt(p) !== 61) continue;
+    p += 1;
+    while (p < end && isSpaceOrTab(text.charCodeAt(p))) p += 1;
+    if (p >= end) return -1;
+    const q = text.charCodeAt(p);
+    if (q === 60 || q === 61 || q === 62 || q === 96) return -1;
+    if (q === 34 || q === 39) {
+      p += 1;
+      while (p < end && text.charCodeAt(p) !== q) p += 1;
+      if (p >= end) return -1;
+      p += 1;
+      // after a quoted value: `>`, `/` or a space
+      const a = p < end ? text.charCodeAt(p) : -1;
+      if (!(a === 62 || a === 47 || isSpaceOrTab(a))) return -1;
+      continue;
+    }
+    for (;;) {
+      if (p >= end) return -1;
+      const u = text.charCodeAt(p);
+      if (u === 34 || u === 39 || u === 60 || u === 61 || u === 96) return -1;
+      if (u === 47 || u === 62 || isSpaceOrTab(u)) break;
+      p += 1;
+    }
+  }
+}
+
+/** A tag's name, lower-cased (`<Div x>`, `</p>`). */
+function tagName(text: string, k: number, tagEnd: number): string {
+  let p = k + 1;
+  if (text.charCodeAt(p) === 47) p += 1;
+  const from = p;
+  while (p < tagEnd && (isAlphanumeric(text.charCodeAt(p)) || text.charCodeAt(p) === 45)) p += 1;
+  return text.slice(from, p).toLowerCase();
+}
+
+/**
+ * A character reference at the `&` at `k` (micromark's character-reference construct): its end
+ * and the text it stands for, else undefined (the `&` is then text).
+ */
+export function referenceAt(text: string, k: number, end: number): { end: number; value: string } | undefined {
+  let p = k + 1;
+  if (text.charCodeAt(p) === 35) {
+    p += 1;
+    const hex = text.charCodeAt(p) === 120 || text.charCodeAt(p) === 88;
+    if (hex) p += 1;
+    const from = p;
+    const max = hex ? 6 : 7;
+    while (p < end && p - from < max && (hex ? isHexDigit(text.charCodeAt(p)) : isDigit(text.charCodeAt(p)))) p += 1;
+    if (p === from || p >= end || text.charCodeAt(p) !== 59) return undefined;
+    return { end: p + 1, value: numericReference(Number.parseInt(text.slice(from, p), hex ? 16 : 10)) };
+  }
+  const from = p;
+  while (p < end && p - from < 31 && isAlphanumeric(text.charCodeAt(p))) p += 1;
+  if (p === from || p >= end || text.charCodeAt(p) !== 59) return undefined;
+  const value = decodeNamedCharacterReference(text.slice(from, p));
+  return value === false ? undefined : { end: p + 1, value };
+}
+
+function isHexDigit(c: number): boolean {
+  return isDigit(c) || (c >= 65 && c <= 70) || (c >= 97 && c <= 102);
+}
+
+/**
+ * What a numeric reference stands for, as micromark decodes one
+ * (micromark-util-decode-numeric-character-reference 2): U+FFFD for controls but tab and line
+ * endings, surrogates, noncharacters and values past Unicode.
+ */
+function numericReference(code: number): string {
+  if (
+    code < 9 ||
+    code === 11 ||
+    (code > 13 && code < 32) ||
+    (code > 126 && code < 160) ||
+    (code > 55_295 && code < 57_344) ||
+    (code > 64_975 && code < 65_008) ||
+    (code & 65_535) === 65_535 ||
+    (code & 65_535) === 65_534 ||
+    code > 1_114_111
+  ) {
+    return '\ufffd';
+  }
+  return String.fromCodePoint(code);
+}
+
+/**
+ * Whether text[start, end) is a plain line (see the module comment): -1 when it is not, else
+ * `PLAIN_DECODES` and `PLAIN_LITERAL` for what it holds. `end` excludes any trailing space (the
+ * caller allows them only on a paragraph's last line).
+ */
+export function plainLineKind(text: string, start: number, end: number): number {
+  if (start >= end) return -1;
   const first = text.charCodeAt(start);
   // a backslash escape opens no block (`\# x`, `\| a` are paragraph text)
   const escaped = first === 92 && start + 1 < end && isAsciiPunctuation(text.charCodeAt(start + 1));
-  if (first < 128 && !isAsciiLetter(first) && !isDigit(first) && !escaped) return false;
-  if (first >= 0xd800 && first <= 0xdfff && !(first <= 0xdbff && start + 1 < end)) return false;
+  if (first === 60) {
+    // a tag opening the line: not one that opens an HTML block, and text after it on the line
+    const tagEnd = inlineTagEnd(text, start, end);
+    if (tagEnd < 0) return -1;
+    const name = tagName(text, start, tagEnd);
+    if (htmlBlockNames.includes(name) || htmlRawNames.includes(name)) return -1;
+    let k = tagEnd;
+    while (k < end && isSpaceOrTab(text.charCodeAt(k))) k += 1;
+    if (k >= end) return -1;
+  } else if (first < 128 && !isAsciiLetter(first) && !isDigit(first) && !escaped && first !== 38) return -1;
+  if (first >= 0xd800 && first <= 0xdfff && !(first <= 0xdbff && start + 1 < end)) return -1;
   if (isDigit(first)) {
     // `1.` or `1)` followed by a space or the line's end opens an ordered list item
     let k = start;
     while (k < end && isDigit(text.charCodeAt(k))) k += 1;
     const after = text.charCodeAt(k);
-    if ((after === 46 || after === 41) && k - start <= 9 && (k + 1 >= end || text.charCodeAt(k + 1) === 32)) return false;
+    if ((after === 46 || after === 41) && k - start <= 9 && (k + 1 >= end || text.charCodeAt(k + 1) === 32)) return -1;
   }
-  if (text.charCodeAt(end - 1) === 32) return false;
+  if (text.charCodeAt(end - 1) === 32) return -1;
+  let kind = 0;
   for (let k = start; k < end; k += 1) {
     const c = text.charCodeAt(k);
     if (c >= 128) continue;
     if (c === 92) {
       // `\|` reads `|` (whatever it escapes is text); a backslash before anything else is
       // itself; one ending the line is a hard break
-      if (k + 1 >= end) return false;
-      if (isAsciiPunctuation(text.charCodeAt(k + 1))) k += 1;
+      if (k + 1 >= end) return -1;
+      if (isAsciiPunctuation(text.charCodeAt(k + 1))) {
+        kind |= PLAIN_DECODES;
+        k += 1;
+      }
       continue;
     }
-    if (BANNED[c] === 1) return false;
+    if (BANNED[c] === 1) return -1;
     const next = k + 1 < end ? text.charCodeAt(k + 1) : 32;
-    // a tag, a comment, a declaration or an autolink needs a letter, `/`, `!` or `?` after `<`
-    if (c === 60 && (isAsciiLetter(next) || next === 47 || next === 33 || next === 63)) return false;
-    // a character reference: `&amp;`, `&#38;`
-    if (c === 38 && (isAsciiLetter(next) || next === 35)) return false;
-    // `www.` and `://` start autolink literals
-    if (c === 46 && k >= start + 3 && (text.charCodeAt(k - 1) | 32) === 119 && (text.charCodeAt(k - 2) | 32) === 119 && (text.charCodeAt(k - 3) | 32) === 119) return false;
-    if (c === 58 && next === 47 && text.charCodeAt(k + 2) === 47) return false;
+    if (c === 60) {
+      // a whole tag is read; anything else a `<` may open (a comment, a declaration, an
+      // autolink, a tag closing on a later line) is not
+      if (isAsciiLetter(next) || next === 47) {
+        const tagEnd = inlineTagEnd(text, k, end);
+        if (tagEnd < 0) return -1;
+        k = tagEnd - 1;
+      } else if (next === 33 || next === 63) return -1;
+      continue;
+    }
+    // a character reference, or what may be one
+    if (c === 38 && (isAlphanumeric(next) || next === 35)) kind |= PLAIN_DECODES;
+    // `www.`, `://` and `@` start autolink literals
+    else if (c === 64) kind |= PLAIN_LITERAL;
+    else if (c === 46 && k >= start + 3 && (text.charCodeAt(k - 1) | 32) === 119 && (text.charCodeAt(k - 2) | 32) === 119 && (text.charCodeAt(k - 3) | 32) === 119) kind |= PLAIN_LITERAL;
+    else if (c === 58 && next === 47 && text.charCodeAt(k + 2) === 47) kind |= PLAIN_LITERAL;
   }
-  return true;
+  return kind;
+}
+
+/** Whether text[start, end) is a plain line that ends no paragraph (see plainLineKind). */
+export function isPlainLine(text: string, start: number, end: number): boolean {
+  return plainLineKind(text, start, end) >= 0;
 }
 
 function isBlankLine(text: string, start: number, end: number): boolean {
@@ -149,6 +330,8 @@ export function findPlainRuns(text: string, minGroups = PLAIN_MIN_GROUPS): Plain
   /** The current paragraph (non-blank lines) holds a line that is not plain. */
   let spoilt = false;
   let prevBlank = true;
+  /** The line before ended with a space: only a blank line may follow it in a plain paragraph. */
+  let trailing = false;
   let fence: { char: number; size: number } | undefined;
   let html: string | undefined;
   const closeRun = () => {
@@ -184,10 +367,11 @@ export function findPlainRuns(text: string, minGroups = PLAIN_MIN_GROUPS): Plain
       continue;
     }
     if (isBlankLine(text, pos, end)) {
-      if (group && !spoilt) groups.push(group);
+      if (group && !spoilt && takes(group)) groups.push(group);
       else if (group || spoilt) closeRun();
       group = undefined;
       spoilt = false;
+      trailing = false;
       prevBlank = true;
       pos = next;
       continue;
@@ -206,20 +390,34 @@ export function findPlainRuns(text: string, minGroups = PLAIN_MIN_GROUPS): Plain
       const h = longHtmlAt(text, pos, end);
       if (h !== undefined) html = text.slice(pos, end).toLowerCase().includes(h, 2) ? undefined : h;
     }
-    if (f || html !== undefined || !isPlainLine(text, pos, end)) {
+    // trailing spaces end a paragraph's last line only (elsewhere they may make a hard break)
+    let stop = end;
+    while (stop > pos && text.charCodeAt(stop - 1) === 32) stop -= 1;
+    const kind = f || html !== undefined || trailing ? -1 : plainLineKind(text, pos, stop);
+    if (kind < 0) {
       spoilt = true;
       group = undefined;
       closeRun();
     } else if (!spoilt) {
       if (prevBlank) group = { lines: [] };
-      group?.lines.push({ start: pos, end });
+      if (group) {
+        group.lines.push({ start: pos, end: stop });
+        if (kind & PLAIN_DECODES) group.decodes = true;
+        if (kind & PLAIN_LITERAL) group.literal = true;
+      }
     }
+    trailing = stop < end;
     prevBlank = false;
     pos = next;
   }
-  if (group && !spoilt) groups.push(group);
+  if (group && !spoilt && takes(group)) groups.push(group);
   closeRun();
   return runs;
+}
+
+/** Inside an autolink literal micromark decodes no escape or reference: a paragraph holding both is left to it. */
+function takes(group: PlainGroup): boolean {
+  return !(group.decodes === true && group.literal === true);
 }
 
 /**
@@ -277,10 +475,64 @@ export function lineShift(text: string, runs: readonly PlainRun[]): (offset: num
   };
 }
 
-/** A plain paragraph's text as the parser gives it: its lines joined by line breaks, escapes resolved. */
-export function plainGroupText(text: string, group: PlainGroup): string {
-  const joined = group.lines.map((l) => text.slice(l.start, l.end)).join('\n');
-  return joined.includes('\\') ? joined.replace(ESCAPE, '$1') : joined;
+/** `<sup>` reads as an exponent mark, `<br>` as a line break; any other tag as nothing (the walker's reading of an inline tag). */
+export function inlineTagText(tag: string): string {
+  return SUP.test(tag) ? '^' : BR.test(tag) ? '\n' : '';
 }
 
-const ESCAPE = /\\([!-/:-@[-`{-~])/g;
+const SUP = /^<sup\b/i;
+const BR = /^<br\b/i;
+
+/**
+ * A plain paragraph as the parser's tree gives it to the walker: the text between tags (text
+ * nodes, escapes and references decoded, each aligned with its source) and each tag read as the
+ * walker reads inline HTML.
+ */
+export function readPlainGroup(text: string, group: PlainGroup, out: MappedText): void {
+  const from = (group.lines[0] as { start: number }).start;
+  const to = (group.lines[group.lines.length - 1] as { end: number }).end;
+  let piece = from;
+  const pushText = (a: number, b: number) => {
+    if (b > a) out.pushAligned(decodeText(text, a, b), text, a, b);
+  };
+  for (const line of group.lines) {
+    for (let k = line.start; k < line.end; k += 1) {
+      const c = text.charCodeAt(k);
+      if (c === 92 && k + 1 < line.end && isAsciiPunctuation(text.charCodeAt(k + 1))) k += 1;
+      else if (c === 60) {
+        const tagEnd = inlineTagEnd(text, k, line.end);
+        if (tagEnd < 0) continue;
+        pushText(piece, k);
+        const read = inlineTagText(text.slice(k, tagEnd));
+        if (read !== '') out.pushSynthetic(read, k, tagEnd);
+        piece = tagEnd;
+        k = tagEnd - 1;
+      }
+    }
+  }
+  pushText(piece, to);
+}
+
+/** Source text of a plain paragraph between tags, escapes and character references decoded. */
+function decodeText(text: string, a: number, b: number): string {
+  const raw = text.slice(a, b);
+  if (!raw.includes('\\') && !raw.includes('&')) return raw;
+  const parts: string[] = [];
+  let at = a;
+  for (let k = a; k < b; k += 1) {
+    const c = text.charCodeAt(k);
+    if (c === 92 && k + 1 < b && isAsciiPunctuation(text.charCodeAt(k + 1))) {
+      parts.push(text.slice(at, k));
+      at = k + 1;
+      k += 1;
+    } else if (c === 38) {
+      const ref = referenceAt(text, k, b);
+      if (!ref) continue;
+      parts.push(text.slice(at, k), ref.value);
+      at = ref.end;
+      k = ref.end - 1;
+    }
+  }
+  parts.push(text.slice(at, b));
+  return parts.join('');
+}

@@ -265,6 +265,38 @@ describe('diagnostics go to standard error in every format', () => {
     expect(out.code).toBe(2);
     expect(out.stderr).toContain('not a regular file');
   });
+
+  // issue 18: a FIFO configuration blocked for ever; one linked to /dev/stdin swallowed the batch input
+  it('a configuration that is a FIFO is refused unread, without blocking', async () => {
+    const dir = tree({ 'a.md': RIGHT });
+    expect(spawnSync('mkfifo', [join(dir, '.plumbline.yaml')]).status).toBe(0);
+    const out = await cli(['a.md'], { cwd: dir });
+    expect(out.code).toBe(2);
+    expect(out.stderr).toContain('.plumbline.yaml: cannot read configuration: not a regular file (not checked because of it: a.md)');
+  });
+
+  it('in batch mode, a configuration linked to /dev/stdin reads none of the input: every line gets its own output line', () => {
+    const dir = tree({});
+    symlinkSync('/dev/stdin', join(dir, '.plumbline.json'));
+    const input = ['a', 'b', 'c'].map((id) => JSON.stringify({ id, text: RIGHT })).join('\n');
+    const r = spawnSync(process.execPath, [main, 'batch'], { cwd: dir, input, encoding: 'utf8', timeout: 60_000 });
+    const ids = r.stdout.split('\n').filter(Boolean).map((l) => (JSON.parse(l) as { id: string; error?: string }));
+    expect(ids.map((o) => o.id)).toEqual(['a', 'b', 'c']);
+    expect(ids.every((o) => o.error?.endsWith('cannot read configuration: not a regular file'))).toBe(true);
+    expect(r.status).toBe(2);
+  });
+
+  it('a JSON configuration beginning with a byte-order mark is read', async () => {
+    // read as without the mark: no error, and the same report (alpha .01 against a p of .021 said significant)
+    const dir = tree({ 'a.md': 'Recall improved with spacing, t(23) = 2.47, p = .021, a significant difference.\n' });
+    writeFileSync(join(dir, '.plumbline.json'), '\ufeff{ "alpha": 0.01 }');
+    const withBom = await cli(['a.md', '-f', 'json'], { cwd: dir });
+    expect(withBom.stderr).toBe('');
+    expect(withBom.code).not.toBe(2);
+    writeFileSync(join(dir, '.plumbline.json'), '{ "alpha": 0.01 }');
+    const without = await cli(['a.md', '-f', 'json'], { cwd: dir });
+    expect(withBom.stdout).toBe(without.stdout);
+  });
 });
 
 describe('the cautions and --quiet', () => {

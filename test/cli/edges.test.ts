@@ -94,6 +94,26 @@ const TABLE = `| Measure | t | df | p |
 | Reach | 2e1000 | 28 | 1e-27989 |
 `;
 
+// the df column, a `t (df)` cell and a `t(df)` header read dfs as prose does (DF_NUM): ten digits
+// and more read whole (no p recomputed, a note), 401 digits not read at all, never cut
+const DF_TABLE = `| Measure | t | df | p |
+| --- | --- | --- | --- |
+| Sleep | 2.10 | 1234567890 | .20 |
+| Mood | 2.10 | 12,345,678,901 | .036 |
+| Pace | 2.10 | 1${'0'.repeat(399)} | .20 |
+| Reach | 2.10 | 123456789 | .036 |
+| Step | 2.10 | 1e400 | .20 |
+| Grip | 2.10 | 1${'0'.repeat(400)} | .20 |
+
+| Measure | t (df) | p |
+| --- | --- | --- |
+| Gait | 2.10 (1234567890) | .20 |
+
+| Measure | t(12345678901) | p |
+| --- | --- | --- |
+| Tone | 2.10 | .20 |
+`;
+
 describe('numbers at the edges, through the CLI', () => {
   for (const row of rows) {
     it(row.name, async () => {
@@ -114,6 +134,14 @@ describe('numbers at the edges, through the CLI', () => {
     const ps = r.files[0]?.results.map((x) => x.p?.number?.log10) ?? [];
     expect(ps).toEqual([undefined, undefined, -4000, undefined, -27989]);
     expect(r.files[0]?.results.map((x) => x.t.log10)).toEqual([undefined, undefined, undefined, expect.closeTo(1000.30103, 5), expect.closeTo(1000.30103, 5)]);
+  });
+
+  it('in a table, dfs of ten digits and more are read whole as in prose: not recomputed, with a note', async () => {
+    const r = await check('table.md', DF_TABLE);
+    const results = r.files[0]?.results as Array<{ df?: { value: number; printed: string } }>;
+    expect(results.map((x) => x.df?.printed)).toEqual(['1234567890', '12,345,678,901', `1${'0'.repeat(399)}`, '123456789', '1e400', undefined, '1234567890', '12345678901']);
+    // t(123456789) = 2.10: normal p .0357 (scipy.stats.norm.sf doubled, from memory), so .036 fits
+    expect(found(r).filter((f) => f.includes('p-follows-from-t'))).toEqual(['3:11 p-follows-from-t/not-recomputed', '4:10 p-follows-from-t/not-recomputed', '5:10 p-follows-from-t/not-recomputed', '7:10 p-follows-from-t/not-recomputed', '12:10 p-follows-from-t/not-recomputed', '16:10 p-follows-from-t/not-recomputed']);
   });
 
   it('a p beyond the double range keeps its size in the JSON (value 0, log10 −400)', async () => {

@@ -24,6 +24,13 @@ const plainLine = fc.constantFrom(
   'a', 'x', 'Fatigue fell, t(23) = 2.47, p = .021.', 'M = 5.2, SD = 1.1', '12 (40%) of 30', '1', '2024 was long', 'é', '😀 ok', '\u200b a',
   'a < b and p < .05', 'a & b', 'wow!', 'Scores (n = 8) rose.', 'χ²(2) = 6.1', 'x # y', 'a - b', 'a > b', 'a = b', '3.5', 'a: b', 'a\u00a0b', 'a^2',
   'a \\| b', 'a\\*b\\*', '\\`x\\`', 'a \\q b', 'p \\< .05', 'a\\\\b', 'x \\[1\\] y', '\\&amp;', 'a\\\\', 'é\\_',
+  // inline tags, character references and autolink literals, read by the plain reader too
+  'a <b>x</b> c', '<b>Bold</b> start', '<span class="x" id=\'y\'>s</span> t', 'x<sup>2</sup> = 4', 'a<br>b', '<br/> after', 'H<sub>2</sub>O',
+  '<em>t</em>(23) = 2.47', 'a <div> b', '<a href="x" title=\'<b>\'>l</a> t', '<a b = "c" d=e f>g', '<a/> b', '</b> c', '<B>up</B> x',
+  'a <3 b', 'p <.05', '\\<b> not a tag', 'a\\<b>c', '<sup-x>s',
+  '&amp; &lt; &#38; &#x26;', '&nosuch; &#0; &#1234567; &#x110000;', '&AMP; &amp', '&#12345678; &#x1234567;', '&#x;', '&#1; &#65534; &#128; &#xD800;', '&ThisIsAVeryLongNameOfThirtyTwoCh;',
+  'a&#42;b', '&#10;x', '&copy 2024', 'é&eacute;',
+  'www.a.b', 'see www.example.org/x.', 'http://a.b/c?d=e', 'mail a@b.co now', 'x@y', 'www.a.b<b>c</b>', '(www.a.b)', 'a www.', 'https://a.b&c',
 );
 const nearMiss = fc.constantFrom(
   '1. item', '2) item', '- item', '* item', '+ item', '> quote', '# Heading', '===', '---', '***', '    indented', '  two spaces', '\tTab',
@@ -31,6 +38,8 @@ const nearMiss = fc.constantFrom(
   '-->', '<!-- plumbline quiet p-follows-from-t: checked -->', '&amp;', '&#38;', '[a]: b', '[^1]: note', '[l](u)', '![i](u)', 'www.a.b',
   'https://a.b', 'a@b.co', '| a | b |', '|---|---|', 'a | b', ':--', '<pre>', '</pre>', '<script>', '<?x', '?>', '<![CDATA[', ']]>',
   'Title\n===', 'x\n---', '  ```', '$$\nx\n$$', '```\ncode\n```',
+  '<x:y>t', '<a_b>t', '<a href=x/y>t', '<a b="c"d>t', '<a b=`c`>t', '<1> a', '<div>x', '<p>', '<b>', '<b >  ', '<script>x', '</div> x', '<a b="c', '<a\nb>x', '<http://a.b>', '<a@b.co>', '<!-- c --> x', 'a <? x ?>',
+  'a  ', 'a   ', 'x <b>  ', 'www.a.b\\_c', 'www.a.b&amp;c', 'a@b.co\\.', 'http://a.b\n&amp;', '<pre>x</pre> y', '<textarea> x', '<P class=x>y',
 );
 const line = fc.oneof({ weight: 10, arbitrary: plainLine }, { weight: 2, arbitrary: nearMiss });
 const block = fc.array(line, { minLength: 1, maxLength: 3 }).map((ls) => ls.join('\n'));
@@ -98,6 +107,15 @@ describe('the plain-run reader reads plain paragraphs exactly as the Markdown pa
     expect(parseMarkdown('t.md', doc).segments).toEqual(parseMarkdown('t.md', doc, { plainGroups: Infinity }).segments);
   });
 
+  it('one long line of tags, references or autolink literals, with a trailing space (hostile shapes of bench figure 7), is a run', () => {
+    for (const run of ['<b>a</b> ', '&amp; ', 'www.a.b ', '<sup>2</sup> x&#42; ']) {
+      const doc = `Fatigue fell, t(23) = 2.47, p = .021.\n\n${run.repeat(Math.ceil(70_000 / run.length))}\n\nErrors rose, t(40) = 3.10, p = .20.\n`;
+      const { plain } = parseWithBulkRuns(doc, Infinity);
+      expect([...plain.values()].map((r) => r.groups.length), run).toEqual([3]);
+      expect(parseMarkdown('t.md', doc).segments, run).toEqual(parseMarkdown('t.md', doc, { plainGroups: Infinity }).segments);
+    }
+  });
+
   it('a long table after a run is still read by the bulk table reader (line numbers past the run kept)', () => {
     const rows = Array.from({ length: 80 }, (_, i) => `| ${i} | t(3) = 2.5 |`).join('\n');
     const doc = `${'a\n\n'.repeat(100)}| x | y |\n|---|---|\n${rows}\n\nAfter.\n`;
@@ -115,7 +133,7 @@ describe('the plain-run reader reads plain paragraphs exactly as the Markdown pa
   });
 
   it('plain lines: what may open markup is never plain', () => {
-    for (const l of ['a', 'a < b', 'a & b', 'wow!', '12 (40%)', 'é', 'a \\| b', 'a \\q', 'a \\*b\\*', '\\| a', '\\# b']) expect(isPlainLine(l, 0, l.length), l).toBe(true);
-    for (const l of ['1. x', ' a', 'a ', 'a\\', 'a*b', '<b>', 'a <b', '&amp;', 'a ![i]', 'www.a.b', 'a://b', 'a@b', 'a|b', 'a\tb', '# h', '- x']) expect(isPlainLine(l, 0, l.length), l).toBe(false);
+    for (const l of ['a', 'a < b', 'a & b', 'wow!', '12 (40%)', 'é', 'a \\| b', 'a \\q', 'a \\*b\\*', '\\| a', '\\# b', '&amp;', 'www.a.b', 'a://b', 'a@b', 'a <b>x</b>', '<i>x</i> y']) expect(isPlainLine(l, 0, l.length), l).toBe(true);
+    for (const l of ['1. x', ' a', 'a ', 'a\\', 'a*b', '<b>', 'a <b', 'a <!-- c -->', '<div>x', '<pre>x', '<http://a.b>', 'a ![i]', 'a|b', 'a\tb', '# h', '- x']) expect(isPlainLine(l, 0, l.length), l).toBe(false);
   });
 });

@@ -100,3 +100,31 @@ describe('block shapes the Markdown parser reads in quadratic time are read as p
     expect(defuseSlowShapes(`\`\`\`\n${console}\n\`\`\`\n`)).toBeUndefined();
   });
 });
+
+/**
+ * The issue's other named shapes (issue 18): front matter left open (the text is parsed without
+ * the front-matter construct, which failing misreads the rest), and many link reference or
+ * footnote definitions (micromark keeps the defined labels in a list). Each must stay linear in
+ * its number with a result after it found at its exact place. Bench figure 7 times them at 1 MB.
+ */
+const linearShapes: Record<string, (n: number) => string> = {
+  'front matter left open': (n) => `---\n${lines(n, (i) => `key${i}: value ${i}`)}\n\n${RESULT}\n`,
+  'link reference definitions, each label its own': (n) => `${lines(n, (i) => `[ref${i}]: https://example.org/${i}`)}\n\n${RESULT}\n`,
+  'footnote definitions, each label its own': (n) => `${lines(n, (i) => `[^n${i}]: A note ${i}.`)}\n\n${RESULT}\n`,
+  'footnote definitions under one label': (n) => `${lines(n, () => '[^a]: b')}\n\n${RESULT}\n`,
+};
+
+describe('other shapes the issue names stay linear', () => {
+  for (const [name, make] of Object.entries(linearShapes)) {
+    it(`${name}: linear in their number, the result after them found at its exact place`, () => {
+      const n = 2000;
+      expectLinearCheck(name, make, n);
+      const source = make(n);
+      const report = checkSource('x.md', source);
+      expect(report.results).toHaveLength(1);
+      const res = report.results[0]!;
+      expect(res.span.start).toBe(source.indexOf(RESULT) + 'Recall improved, '.length);
+      expect(source.slice(res.span.start, res.span.end)).toBe('t(28) = 2.10, p = .045');
+    }, 120_000);
+  }
+});
