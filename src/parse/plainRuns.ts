@@ -17,7 +17,8 @@
  * fence, raw HTML or math this scan did not see).
  *
  * A plain line starts at its first column with a letter, a digit that opens no ordered list
- * item, a backslash escape, or any non-ASCII character; holds no tab, CR or trailing space; and none of
+ * item, a backslash escape, or any non-ASCII character; holds no tab, CR or trailing space (but
+ * a paragraph's last line may end in spaces, which the parser drops and so are left out); and none of
  * `` ` * _ ~ $ [ ] | @ `` (but any of them escaped by a backslash), no `\` ending it, no `<` or
  * `&` or `!` that could open a tag, a character reference or an image, and no `www.` or `://`
  * (autolink literals). Its paragraph's text is then its lines joined by line breaks with
@@ -158,6 +159,8 @@ export function findPlainRuns(text: string, minGroups = PLAIN_MIN_GROUPS): Plain
   let prevBlank = true;
   let fence: { char: number; size: number } | undefined;
   let html: string | undefined;
+  /** The current paragraph's last line had trailing spaces: it must be its last. */
+  let openEnd = false;
   const closeRun = () => {
     const first = groups[0]?.lines[0];
     if (first && (groups.length >= Math.max(1, minGroups) || runEnd({ start: first.start, standIn: 1, groups }) - first.start >= PLAIN_MIN_CHARS)) {
@@ -191,6 +194,7 @@ export function findPlainRuns(text: string, minGroups = PLAIN_MIN_GROUPS): Plain
       continue;
     }
     if (isBlankLine(text, pos, end)) {
+      openEnd = false;
       if (group && !spoilt) groups.push(group);
       else if (group || spoilt) closeRun();
       group = undefined;
@@ -213,13 +217,19 @@ export function findPlainRuns(text: string, minGroups = PLAIN_MIN_GROUPS): Plain
       const h = longHtmlAt(text, pos, end);
       if (h !== undefined) html = text.slice(pos, end).toLowerCase().includes(h, 2) ? undefined : h;
     }
-    if (f || html !== undefined || !isPlainLine(text, pos, end)) {
+    // trailing spaces end a paragraph's last line only (the parser drops them there; inside a
+    // paragraph they make a break): such a line is taken without them, and a line after it spoils
+    let bare = end;
+    while (bare > pos && text.charCodeAt(bare - 1) === 32) bare -= 1;
+    if (f || html !== undefined || openEnd || !isPlainLine(text, pos, bare)) {
       spoilt = true;
       group = undefined;
+      openEnd = false;
       closeRun();
     } else if (!spoilt) {
       if (prevBlank) group = { lines: [] };
-      group?.lines.push({ start: pos, end });
+      group?.lines.push({ start: pos, end: bare });
+      openEnd = bare < end;
     }
     prevBlank = false;
     pos = next;

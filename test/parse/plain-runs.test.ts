@@ -108,6 +108,13 @@ describe('the plain-run reader reads plain paragraphs exactly as the Markdown pa
     expect(parseMarkdown('t.md', doc).segments).toEqual(parseMarkdown('t.md', doc, { plainGroups: Infinity, bulkRows: Infinity }).segments);
   });
 
+  it('takes a paragraph whose last line ends in spaces, without them, and none with spaces inside', () => {
+    const doc = `First line.\nlast line, t(23) = 2.47, p = .021.   \n\nA hard  \nbreak.\n\n${'\\| '.repeat(30_000)}\n`;
+    const runs = findPlainRuns(doc, 1);
+    expect(runs.flatMap((r) => r.groups).map((g) => g.lines.map((l) => doc.slice(l.start, l.end)))).toEqual([['First line.', 'last line, t(23) = 2.47, p = .021.'], ['\\| '.repeat(30_000).trimEnd()]]);
+    expect(parseMarkdown('t.md', doc).segments).toEqual(parseMarkdown('t.md', doc, { plainGroups: Infinity }).segments);
+  });
+
   it('takes no line inside a fence, math or raw HTML that runs across blank lines', () => {
     const inner = 'a\n\n'.repeat(80);
     for (const doc of [`\`\`\`\n\n${inner}\`\`\`\n`, `~~~~\n\n${inner}~~~~\n`, `$$\n\n${inner}$$\n`, `<!--\n\n${inner}-->\n`, `<pre>\n\n${inner}</pre>\n`]) {
