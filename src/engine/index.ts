@@ -12,6 +12,7 @@ import { linkDoubts } from '../rule-api/doubts.js';
 import type { Guideline, Level, LevelSetting } from '../rule-api/types.js';
 import { followIncludes, type IncludeReader } from './includes.js';
 import { RULE_IDS, RULES } from './registry.js';
+import { hash64 } from './fingerprint.js';
 import type { ChecklistRecord, FileReport, Finding, LinkedRecord, NumberRecord, OriginalPlace, Place, ResultRecord, StatisticRecord } from './types.js';
 
 export type * from './types.js';
@@ -319,16 +320,6 @@ function addFingerprints(findings: Finding[], source: string): void {
     seen.set(key, n + 1);
     f.fingerprint = `${hash64(key)}:${n}`;
   }
-}
-
-/** 64-bit FNV-1a of a string's UTF-16 code units, as 16 hex digits (no Node API: the browser page runs this too). */
-function hash64(s: string): string {
-  let h = 0xcbf29ce484222325n;
-  for (let i = 0; i < s.length; i++) {
-    h ^= BigInt(s.charCodeAt(i));
-    h = (h * 0x100000001b3n) & 0xffffffffffffffffn;
-  }
-  return h.toString(16).padStart(16, '0');
 }
 
 /**

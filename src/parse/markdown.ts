@@ -16,7 +16,7 @@ import { markLegends } from './legends.js';
 import { defuseDenseMarkup, exceedsNesting } from './depth.js';
 import { LAZY_LIMIT, QUOTE_LIMIT, SETEXT_LIMIT, defuseSlowShapes, joinLongParagraphs, type SlowShape } from './shapes.js';
 import { BULK_CHUNK_ROWS, BULK_MIN_ROWS, blankRuns, findBulkRuns, plainCells, type BulkRun } from './bulkTable.js';
-import { PLAIN_MIN_GROUPS, findPlainRuns, inlineTagText, lineShift, readPlainGroup, standInRuns, type PlainRun } from './plainRuns.js';
+import { PLAIN_MIN_GROUPS, findPlainRuns, inlineTagText, lineShift, readPlainGroup, standInRuns, type PlainGroup, type PlainRun } from './plainRuns.js';
 import type { Directive, FrontMatter, ParsedDocument, ReadNote, Segment, SegmentKind, TablePlace } from './types.js';
 
 const processor = unified().use(remarkParse).use(remarkGfm).use(remarkFrontmatter, ['yaml']).use(remarkMath);
@@ -226,8 +226,6 @@ export function reparseEdit(prev: ParsedDocument, source: string): ParsedDocumen
   if (exceedsNesting(source) || defuseDenseMarkup(source) || defuseSlowShapes(source)) return undefined;
   if (reuse.options.paragraphLines !== Infinity && joinLongParagraphs(source, reuse.options.paragraphLines) !== undefined) return undefined;
   if (findBulkRuns(source, reuse.options.bulkRows ?? BULK_MIN_ROWS).length > 0) return undefined;
-  // a run of plain paragraphs is read outside the parser, as one piece with its neighbours
-  if (findPlainRuns(source, reuse.options.plainGroups ?? PLAIN_MIN_GROUPS).length > 0) return undefined;
   const end = b.end + delta;
   const piece = source.slice(b.start, end);
   const tree = processor.parse(piece) as Root;
@@ -383,6 +381,28 @@ class Walker {
   /** The document's top-level blocks, each recorded with the segments and blocks it made. */
   walkTop(nodes: RootContent[]): void {
     for (const node of nodes) {
+      // a stand-in for a run of plain paragraphs: each paragraph a top-level block of its own, as
+      // the parser would have read it, so an edit inside one is re-read as inside any paragraph
+      const run = node.type === 'paragraph' && node.position ? this.plain.get(node.position.start.offset as number) : undefined;
+      if (run) {
+        if (this.html.open) this.html.finish();
+        for (const group of run.groups) {
+          const firstSegment = this.segments.length;
+          const blockBefore = this.block;
+          this.plainParagraph(group);
+          this.topBlocks.push({
+            type: 'paragraph',
+            start: (group.lines[0] as { start: number }).start + this.shift,
+            end: (group.lines[group.lines.length - 1] as { end: number }).end + this.shift,
+            firstSegment,
+            endSegment: this.segments.length,
+            blockBefore,
+            blockEnd: this.block,
+            directives: 0,
+          });
+        }
+        continue;
+      }
       const firstSegment = this.segments.length;
       const blockBefore = this.block;
       const directives = this.directives.length;
@@ -400,9 +420,13 @@ class Walker {
     }
   }
 
-  /** No long table was read row by row and no run of plain paragraphs outside the parser (each depends on the text around it). */
+  /**
+   * No long table was read row by row (its rows depend on the table around them). Runs of plain
+   * paragraphs may have been read outside the parser: walkTop records each of their paragraphs
+   * as a top-level block, read exactly as the parser reads it.
+   */
   get bulkFree(): boolean {
-    return this.bulk.size === 0 && this.plain.size === 0;
+    return this.bulk.size === 0;
   }
 
   get blockNumber(): number {
@@ -451,6 +475,13 @@ class Walker {
     if (seg) seg.legendOf = { table: part.table, role: 'caption' };
   }
 
+  /** One paragraph of a run of plain paragraphs (plainRuns.ts), read here as the parser reads it. */
+  private plainParagraph(group: PlainGroup): void {
+    const text = new MappedText();
+    readPlainGroup(this.src, group, text);
+    this.emit('paragraph', text, this.startBlock());
+  }
+
   private walkBlock(node: RootContent): void {
     // an HTML table goes on across HTML blocks only (a blank line ends each)
     if (node.type !== 'html' && this.html.open) this.html.finish();
@@ -459,11 +490,7 @@ class Walker {
         // a top-level stand-in for a run of plain paragraphs (plainRuns.ts): read them here
         const run = node.position ? this.plain.get(node.position.start.offset as number) : undefined;
         if (run) {
-          for (const group of run.groups) {
-            const text = new MappedText();
-            readPlainGroup(this.src, group, text);
-            this.emit('paragraph', text, this.startBlock());
-          }
+          for (const group of run.groups) this.plainParagraph(group);
           return;
         }
         this.phrasingSegment('paragraph', node.children, this.startBlock(), undefined, node);
