@@ -84,7 +84,11 @@ export function readJsonReport(report: unknown): Record<string, unknown> {
   if (!(major >= 2)) return r;
   const file = (f: unknown) => (typeof f === 'object' && f !== null && Array.isArray((f as Record<string, unknown>).results) ? expandFile(f as Record<string, unknown>) : f);
   // a batch line: one file, with the files it includes
-  if (Array.isArray(r.results)) return { ...(file(r) as Record<string, unknown>), ...(Array.isArray(r.included) ? { included: r.included.map(file) } : {}) };
+  if (Array.isArray(r.results)) {
+    // each included file has texts of its own: the line's are not theirs
+    const { included, ...main } = r;
+    return { ...(file(main) as Record<string, unknown>), ...(Array.isArray(included) ? { included: included.map(file) } : {}) };
+  }
   if (!Array.isArray(r.files)) return r;
   return { ...r, files: r.files.map(file) };
 }

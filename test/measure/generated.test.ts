@@ -33,7 +33,7 @@ describe('invented manuscripts with a key written by scipy (fixtures/generated)'
   // a φ or V the χ² cannot give), each proved impossible in the generator over the printed rounding
   it('has seeded errors of every F, χ², r, z and regression type', () => {
     expect(Object.keys(figures.statisticRecallByType).sort()).toEqual([
-      'F-from-group-summaries', 'F-not-t-squared', 'F-p-mismatch', 'F-significance-flip', 'association-vs-chi-square', 'chi-square-df-vs-table',
+      'F-from-group-summaries', 'F-from-group-summaries-in-table', 'F-not-t-squared', 'F-p-mismatch', 'F-significance-flip', 'association-vs-chi-square', 'chi-square-df-vs-table',
       'chi-square-p-mismatch', 'chi-square-significance-flip', 'coefficient-t-mismatch',
       'r-df-vs-n', 'r-p-mismatch', 'r-significance-flip', 'z-p-mismatch', 'z-significance-flip',
     ]);
