@@ -6,9 +6,15 @@ import type { Position } from './types.js';
  * byte-order mark is not a column: line 1 starts after it, as in editors.
  */
 export class LineIndex {
-  private readonly starts: number[];
+  /** Each line's start offset, line 1 first. */
+  readonly starts: readonly number[];
 
-  constructor(text: string) {
+  /** The lines of `text`; or, given the starts themselves (a report's line table read back), those lines. */
+  constructor(text: string | readonly number[]) {
+    if (typeof text !== 'string') {
+      this.starts = text;
+      return;
+    }
     const starts = [text.charCodeAt(0) === 0xfeff ? 1 : 0];
     for (let i = 0; i < text.length; i += 1) {
       const c = text.charCodeAt(i);

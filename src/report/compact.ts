@@ -16,6 +16,7 @@
  * `expandFile` gives back every fact of the 1.x file. Serialisation only: nothing is computed.
  */
 import type { FileReport } from '../engine/types.js';
+import { LineIndex } from '../parse/lines.js';
 
 /** Keys whose strings (or arrays of strings) are stored once per file, as an index into `texts`. */
 const TEXT_KEYS = new Set(['messageId', 'check', 'quantity', 'assumptions', 'uncertain', 'doubt', 'unlinked', 'standing', 'basis', 'style', 'spreadKind', 'label', 'estimateSource']);
@@ -45,32 +46,6 @@ function plainDecimal(printed: string): { value: number; decimals: number } | un
   return { value: Number(printed), decimals: point < 0 ? 0 : printed.length - point - 1 };
 }
 
-/** The lines' starts of a text as LineIndex (src/parse/lines.ts) finds them: after LF, CRLF or a lone CR; line 1 after a byte-order mark. */
-export function lineStartsOf(text: string): number[] {
-  const starts = [text.charCodeAt(0) === 0xfeff ? 1 : 0];
-  for (let i = 0; i < text.length; i += 1) {
-    const c = text.charCodeAt(i);
-    if (c === 10) starts.push(i + 1);
-    else if (c === 13) {
-      if (text.charCodeAt(i + 1) === 10) i += 1;
-      starts.push(i + 1);
-    }
-  }
-  return starts;
-}
-
-/** 1-based line and column of an offset: the last line starting at or before it; column at least 1. */
-function positionIn(starts: readonly number[], offset: number): { line: number; column: number } {
-  let lo = 0;
-  let hi = starts.length - 1;
-  while (lo < hi) {
-    const mid = (lo + hi + 1) >> 1;
-    if ((starts[mid] as number) <= offset) lo = mid;
-    else hi = mid - 1;
-  }
-  return { line: lo + 1, column: Math.max(1, offset - (starts[lo] as number) + 1) };
-}
-
 const samePosition = (a: unknown, b: { line: number; column: number }) => isObject(a) && a.line === b.line && a.column === b.column && Object.keys(a).length === 2;
 
 /** A place as the engine writes it: a span and both ends' positions. */
@@ -83,15 +58,16 @@ function isPlace(v: Record<string, unknown>): boolean {
 export class FileEncoder {
   readonly texts: string[] = [];
   private readonly ids = new Map<string, number>();
-  private readonly starts: number[];
+  private readonly lines: LineIndex;
 
   constructor(source: string) {
-    this.starts = lineStartsOf(source);
+    this.lines = new LineIndex(source);
   }
 
   /** `lineStarts` as written: the first line's start, then each line's start less the one before. */
   lineSteps(): number[] {
-    return this.starts.map((s, i) => (i === 0 ? s : s - (this.starts[i - 1] as number)));
+    const starts = this.lines.starts;
+    return starts.map((s, i) => (i === 0 ? s : s - (starts[i - 1] as number)));
   }
 
   private text(s: string): number {
@@ -158,8 +134,8 @@ export class FileEncoder {
         out.at = [span.start, span.end];
         continue;
       }
-      if (place && k === 'start' && samePosition(x, positionIn(this.starts, (o.span as { start: number }).start))) continue;
-      if (place && k === 'end' && samePosition(x, positionIn(this.starts, (o.span as { end: number }).end))) continue;
+      if (place && k === 'start' && samePosition(x, this.lines.position((o.span as { start: number }).start))) continue;
+      if (place && k === 'end' && samePosition(x, this.lines.position((o.span as { end: number }).end))) continue;
       if (NUMBER_KEYS.has(key) && typeof o.printed === 'string' && typeof o.decimals === 'number') {
         if (k === 'exponent' && x === 0) continue;
         if (plain && k === 'value' && Object.is(x, plain.value)) continue;
@@ -247,6 +223,7 @@ export function expandFile(file: Record<string, unknown>): Record<string, unknow
   const steps = Array.isArray(file.lineStarts) ? (file.lineStarts as number[]) : [0];
   const starts: number[] = [];
   for (const s of steps) starts.push(starts.length === 0 ? s : (starts[starts.length - 1] as number) + s);
+  const lines = new LineIndex(starts);
   const text = (i: unknown) => (typeof i === 'number' ? (texts[i] as string) : i);
   const joined = (p: unknown) => {
     if (typeof p === 'number') return texts[p];
@@ -268,8 +245,8 @@ export function expandFile(file: Record<string, unknown>): Record<string, unknow
       const x = v[k];
       if (k === 'at' && Array.isArray(x) && x.length === 2 && typeof x[0] === 'number' && typeof x[1] === 'number') {
         out.span = { start: x[0], end: x[1] };
-        if (!('start' in v)) out.start = positionIn(starts, x[0]);
-        if (!('end' in v)) out.end = positionIn(starts, x[1]);
+        if (!('start' in v)) out.start = lines.position(x[0]);
+        if (!('end' in v)) out.end = lines.position(x[1]);
         continue;
       }
       out[k] = decode(x, k);
