@@ -93,7 +93,7 @@ export function readTables(segments: readonly Segment[]): TableResults {
 }
 
 /** The block holding a row (blocks in row order, not overlapping). */
-function blockAt(blocks: readonly TableBlockRecord[], row: number): TableBlockRecord | undefined {
+export function blockAt(blocks: readonly TableBlockRecord[], row: number): TableBlockRecord | undefined {
   let lo = 0;
   let hi = blocks.length - 1;
   while (lo <= hi) {

@@ -18,6 +18,7 @@ import type {
   TTestReport,
 } from '../extract/types.js';
 import type { Span } from '../parse/types.js';
+import { blockAt } from '../extract/tables.js';
 import { stem } from '../extract/topic.js';
 import { clauseIndex, type Clause, type ClauseIndex, type Placed } from './clauses.js';
 import type { Setting } from './types.js';
@@ -178,6 +179,20 @@ function lowerBound<T extends Placed>(list: T[], pos: number): number {
 }
 
 /**
+ * The groups printed in prose, by segment. A group overlapping a test is read inside it (a test
+ * printed within its descriptives) and left out.
+ */
+function proseGroups(x: Extraction, tests: SegmentList<TTestReport>): SegmentList<GroupSummary> {
+  const overlapsTest = (g: GroupSummary) => {
+    const list = tests.all(g.segment);
+    const i = lowerBound(list, g.span.end) - 1;
+    const t = list[i];
+    return t !== undefined && t.span.end > g.span.start;
+  };
+  return new SegmentList(x.summaries.filter((g) => !g.table && !overlapsTest(g)));
+}
+
+/**
  * Builds the joiner for one document (indexes built once, every lookup a binary search, so a
  * document of any size is joined in linear time). Each number goes to the result whose clause
  * holds it; a number outside every clause goes to the only statistic of its sentence, or, less
@@ -187,14 +202,7 @@ function lowerBound<T extends Placed>(list: T[], pos: number): number {
 export function contextJoiner(x: Extraction): (report: TTestReport) => ResultContext {
   const clauses = clauseIndex(x);
   const tests = new SegmentList(x.tests);
-  // a group overlapping a test is read inside it (a test printed within its descriptives)
-  const overlapsTest = (g: GroupSummary) => {
-    const list = tests.all(g.segment);
-    const i = lowerBound(list, g.span.end) - 1;
-    const t = list[i];
-    return t !== undefined && t.span.end > g.span.start;
-  };
-  const prose = new SegmentList(x.summaries.filter((g) => !g.table && !overlapsTest(g)));
+  const prose = proseGroups(x, tests);
   const tableRows = groupBy(x.summaries.filter((g) => g.table), (g) => (g.table as TableRow).table);
   const testsByBlock = groupBy(x.tests, (t) => t.block);
   const rowKey = (r: TableRow) => `${r.table}:${r.row}`;
@@ -724,14 +732,7 @@ export function fGroupsJoiner(x: Extraction): (o: OtherStatistic) => Descriptive
   // nothing to index in a document without an F beside prose groups
   if (x.summaries.length < 2 || !x.otherStatistics.some((o) => o.kind === 'F')) return () => undefined;
   const clauses = clauseIndex(x);
-  const tests = new SegmentList(x.tests);
-  const overlapsTest = (g: GroupSummary) => {
-    const list = tests.all(g.segment);
-    const i = lowerBound(list, g.span.end) - 1;
-    const t = list[i];
-    return t !== undefined && t.span.end > g.span.start;
-  };
-  const prose = new SegmentList(x.summaries.filter((g) => !g.table && !overlapsTest(g)));
+  const prose = proseGroups(x, new SegmentList(x.tests));
   const spreads = spreadStatements(x);
   const tables = tableGroupsFor(x, clauses, spreads);
   const before = previousParagraphGroupsFor(x, clauses, prose, spreads);
@@ -928,19 +929,7 @@ function tableGroupsFor(x: Extraction, clauses: ClauseIndex, spreads: SpreadStat
  */
 function tableSets(summaries: readonly GroupSummary[], blocks: readonly TableBlockRecord[]): TableSet[] {
   const byRow = groupBy(summaries, (g) => (g.table as TableRow).row);
-  // blocks are in row order and do not overlap: a binary search finds a row's
-  const blockOf = (row: number): TableBlockRecord | undefined => {
-    let lo = 0;
-    let hi = blocks.length - 1;
-    while (lo <= hi) {
-      const mid = (lo + hi) >> 1;
-      const b = blocks[mid] as TableBlockRecord;
-      if (row < b.firstRow) hi = mid - 1;
-      else if (row > b.lastRow) lo = mid + 1;
-      else return b;
-    }
-    return undefined;
-  };
+  const blockOf = (row: number): TableBlockRecord | undefined => blockAt(blocks, row);
   const wide: TableSet[] = [];
   const long: GroupSummary[] = [];
   for (const [row, groups] of byRow) {
