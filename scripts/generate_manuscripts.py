@@ -2676,6 +2676,30 @@ def max_oneway_f(means: list, sds: list, ns: list, dec: int, se: bool) -> float:
     return math.inf if within <= 0 else (best / (k - 1)) / (within / (N - k))
 
 
+
+def oneway_groups(rng: np.random.Generator, error):
+    """k groups (3 or 4) of 8 to 40 scores, their F and p by scipy.stats.f_oneway, the means and SDs
+    rounded to 2 decimals. With an error to seed, an F larger than any the printed summaries give at
+    every corner of their rounding, read as SDs or as SEs; the p printed is the wrong F's own, so
+    only the summaries show the error. Returns k, ns, means, sds, f, p, df2 and the error seeded."""
+    seeded = None
+    k = int(rng.choice([3, 4]))
+    ns = [int(rng.integers(8, 41)) for _ in range(k)]
+    xs = [rng.normal(5 + 0.6 * float(rng.standard_normal()), 1.2, n) for n in ns]
+    res = stats.f_oneway(*xs)
+    means = [float(dround(float(np.mean(x)), 2)) for x in xs]
+    sds = [float(dround(float(np.std(x, ddof=1)), 2)) for x in xs]
+    f, p = float(res.statistic), float(res.pvalue)
+    df2 = sum(ns) - k
+    if error is not None:
+        reach = max(max_oneway_f(means, sds, ns, 2, False), max_oneway_f(means, sds, ns, 2, True))
+        for _ in range(40):
+            cand = round(f * float(rng.choice([1.6, 2.0, 2.5, 3.0])) + float(rng.choice([0.0, 0.5, 1.0])), 2)
+            if cand - 0.005 > reach:
+                f, p, seeded = cand, float(stats.f.sf(cand, k - 1, df2)), error
+                break
+    return k, ns, means, sds, f, p, df2, seeded
+
 def make_late_distractor(arng: np.random.Generator, doc: Doc, did: str, kind: str) -> tuple[dict, list]:
     nt = doc.nt
     eq, js = nt.eq, nt.join
@@ -2685,22 +2709,7 @@ def make_late_distractor(arng: np.random.Generator, doc: Doc, did: str, kind: st
     seeded = None
     place = "sites" if doc.topic["domain"] != "mice" else "cage racks"
     if kind == "Fgroups":
-        k = int(arng.choice([3, 4]))
-        ns = [int(arng.integers(8, 41)) for _ in range(k)]
-        xs = [arng.normal(5 + 0.6 * float(arng.standard_normal()), 1.2, n) for n in ns]
-        res = stats.f_oneway(*xs)
-        means = [float(dround(float(np.mean(x)), 2)) for x in xs]
-        sds = [float(dround(float(np.std(x, ddof=1)), 2)) for x in xs]
-        f, p = float(res.statistic), float(res.pvalue)
-        df2 = sum(ns) - k
-        if error is not None:
-            reach = max(max_oneway_f(means, sds, ns, 2, False), max_oneway_f(means, sds, ns, 2, True))
-            for _ in range(40):
-                cand = round(f * float(arng.choice([1.6, 2.0, 2.5, 3.0])) + float(arng.choice([0.0, 0.5, 1.0])), 2)
-                if cand - 0.005 > reach:
-                    # the p printed is the wrong F's own, so only the summaries show the error
-                    f, p, seeded = cand, float(stats.f.sf(cand, k - 1, df2)), error
-                    break
+        k, ns, means, sds, f, p, df2, seeded = oneway_groups(arng, error)
         groups = "; ".join(f"{GROUP_ORDINALS[i]} site: {nt.M}{eq}{plain(means[i], 2, nt, True)}{js}{nt.SD}{eq}{plain(sds[i], 2, nt, True)}{js}{nt.n}{eq}{ns[i]}" for i in range(k))
         txt = f"F({k - 1}, {df2}){eq}{plain(f, 2, nt, True)}{js}{p_for_distractor(p, nt)}"
         # a composite of continuous scores, never one of the manuscript's whole-number measures
@@ -2773,24 +2782,9 @@ def make_table_f_distractor(trng: np.random.Generator, doc: Doc, did: str, pdf: 
     nt = doc.nt
     eq, js = nt.eq, nt.join
     error = TABLE_F_ERROR if trng.random() < 0.4 else None
-    seeded = None
     place = "sites" if doc.topic["domain"] != "mice" else "cage racks"
     unit = "site" if doc.topic["domain"] != "mice" else "rack"
-    k = int(trng.choice([3, 4]))
-    ns = [int(trng.integers(8, 41)) for _ in range(k)]
-    xs = [trng.normal(5 + 0.6 * float(trng.standard_normal()), 1.2, n) for n in ns]
-    res = stats.f_oneway(*xs)
-    means = [float(dround(float(np.mean(x)), 2)) for x in xs]
-    sds = [float(dround(float(np.std(x, ddof=1)), 2)) for x in xs]
-    f, p = float(res.statistic), float(res.pvalue)
-    df2 = sum(ns) - k
-    if error is not None:
-        reach = max(max_oneway_f(means, sds, ns, 2, False), max_oneway_f(means, sds, ns, 2, True))
-        for _ in range(40):
-            cand = round(f * float(trng.choice([1.6, 2.0, 2.5, 3.0])) + float(trng.choice([0.0, 0.5, 1.0])), 2)
-            if cand - 0.005 > reach:
-                f, p, seeded = cand, float(stats.f.sf(cand, k - 1, df2)), error
-                break
+    k, ns, means, sds, f, p, df2, seeded = oneway_groups(trng, error)
     wide = trng.random() < 0.5
     med = nt.name in ("med", "middot")
     mean_sd = "mean (SD)" if med else "M (SD)"
