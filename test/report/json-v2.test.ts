@@ -6,6 +6,7 @@
  * byte-order marks, tabs, astral characters, hostile text.
  */
 import { readdirSync, readFileSync } from 'node:fs';
+import type { ValidateFunction } from 'ajv';
 import { describe, expect, it } from 'vitest';
 import { checkSource } from '../../src/engine/index.js';
 import { formatJson, readJsonReport, type RunReport } from '../../src/report/index.js';
@@ -23,6 +24,11 @@ const runOf = (files: Array<[string, string]>): RunReport => ({
 
 /** What 1.5.0 wrote for a run: each file without its source, as JSON. */
 const v1Files = (run: RunReport) => JSON.parse(JSON.stringify(run.files.map(({ source: _source, ...file }) => file), (_k, v: unknown) => (typeof v === 'number' && !Number.isFinite(v) ? null : v)));
+
+/** schema/report.schema.json compiled once (JSON Schema 2020-12, by ajv). */
+let compiled: Promise<ValidateFunction> | undefined;
+const reportValidator = () =>
+  (compiled ??= import('ajv/dist/2020.js').then(({ Ajv2020 }) => new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')))));
 
 const demo = readFileSync('fixtures/demo/standing-desks.md', 'utf8');
 const statistics = 'Groups differed, F(1, 38) = 4.21, p = .047, ηp2 = .10, and χ²(2, N = 120) = 6.1, p = .047; the scores correlated, r(48) = .32, p = .02; the indirect effect held, z = 3.10, p = .02.\n';
@@ -108,16 +114,14 @@ describe('JSON report 2.x on F groups tied through a table or the paragraph befo
     expect(JSON.stringify(run.files.at(-1)?.statistics)).toContain('"previous-paragraph"');
     const data = JSON.parse(formatJson(run));
     expect(readJsonReport(data).files).toEqual(v1Files(run));
-    const { Ajv2020 } = await import('ajv/dist/2020.js');
-    const validate = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
+    const validate = await reportValidator();
     expect(validate(data), JSON.stringify(validate.errors?.slice(0, 5), null, 1)).toBe(true);
   });
 });
 
 describe('JSON report 2.x against its schema', () => {
   it('validates, with every kind of place, text and default in it', async () => {
-    const { Ajv2020 } = await import('ajv/dist/2020.js');
-    const validate = new Ajv2020({ allErrors: true, strict: false }).compile(JSON.parse(readFileSync('schema/report.schema.json', 'utf8')));
+    const validate = await reportValidator();
     const run = runOf([
       ['fixtures/demo/standing-desks.md', demo],
       ['s.md', statistics],
