@@ -5,7 +5,7 @@ import remarkGfm from 'remark-gfm';
 import remarkMath from 'remark-math';
 import remarkParse from 'remark-parse';
 import { unified } from 'unified';
-import { MappedText, alignedEnd, offsetArray } from './builder.js';
+import { MappedText, OffsetArena, alignedEnd } from './builder.js';
 import { readDirective } from './directives.js';
 import { readFrontMatter } from './frontMatter.js';
 import { normalize } from './normalize.js';
@@ -357,6 +357,8 @@ class Walker {
   private tables = 0;
   private section: string | undefined;
   private readonly html: HtmlTableReader;
+  /** Where the segments' maps are cut from (see OffsetArena). */
+  private readonly arena = new OffsetArena();
   /** The top-level blocks walked by walkTop, for an incremental re-read (reparseEdit). */
   topBlocks: TopBlock[] = [];
   /** Whether a link reference or footnote definition was met: a reference elsewhere may name it. */
@@ -726,8 +728,8 @@ class Walker {
       block,
       kind,
       text: text.text,
-      starts: offsetArray(text.starts, this.shift),
-      ends: offsetArray(text.ends, this.shift),
+      starts: this.arena.take(text.starts, this.shift),
+      ends: this.arena.take(text.ends, this.shift),
       ...(table ? { table } : {}),
       ...(this.section !== undefined && kind !== 'heading' ? { section: this.section } : {}),
     };
