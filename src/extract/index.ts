@@ -75,7 +75,29 @@ function fresh(finds: SegmentFinds): SegmentFinds {
   return { ...finds, tests: finds.tests.map((t) => (t.p ? { ...t, p: { ...t.p } } : { ...t })) };
 }
 
+/**
+ * A text of digits, spaces, points, commas and plus or minus signs alone: nothing any recogniser
+ * below reads can be made of it, since each needs a letter (a statistic's symbol, a word) or
+ * another mark (`±`, `%`, `(`, `=`, `<`, `*`, `×`, `/`, `α`, …) beside the numbers. A long table's
+ * cells are mostly such texts, and running some twenty recognisers over each of 300,000 of them
+ * (and collecting their empty lists) cost more than the rest of reading the table.
+ * test/extract/numbers-only.test.ts runs the recognisers on generated texts of this kind.
+ */
+export const NUMBERS_ONLY = /^[0-9 .,+-]*$/;
+
+/** What findInSegment gives a numbers-only text: nothing (shared, frozen: the lists are only read). */
+const NOTHING: SegmentFinds = Object.freeze({
+  legend: undefined, tests: [], otherStatistics: [], tableDimensions: [], statements: [], summaries: [], sampleSizes: [], groupSizes: [], intervals: [], estimates: [], effectSizes: [],
+  designs: [], assignments: [], references: [], integerMeasures: [], counts: [], powerStatements: [], mentions: [], pWithoutT: [],
+} satisfies SegmentFinds);
+for (const list of Object.values(NOTHING)) if (Array.isArray(list)) Object.freeze(list);
+
 function findInSegment(seg: Segment, source: string): SegmentFinds {
+  return NUMBERS_ONLY.test(seg.text) ? NOTHING : recogniseSegment(seg, source);
+}
+
+/** Every recogniser run on one segment (findInSegment skips those that cannot hold anything). */
+export function recogniseSegment(seg: Segment, source: string): SegmentFinds {
   const legend = seg.kind === 'code' ? undefined : findStarLegends(seg);
   const starts = sentenceStarts(seg.text);
   const tests = findTTests(seg, starts);

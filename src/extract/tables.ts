@@ -78,10 +78,17 @@ const LABELLED_T = new RegExp(String.raw`^ ?[tT] ?= ?(${NUM}) ?$`, 'u');
 const LABELLED_P = new RegExp(String.raw`^ ?[pP] ?(<=|>=|≤|≥|<|>|=) ?(\d{1,12}(?:\.\d{1,20})?|\.\d{1,20}) ?$`, 'u');
 const CAPTION_DF = /(?<![\p{L}])(?:df|d\.f\.) ?= ?(\d{1,400})(?![\d.])/u;
 
+/**
+ * A row's cells by column: an array with holes, not a Map (a table of 170,000 rows made as many
+ * Maps, and their garbage was much of the time it took to read).
+ */
+type Row = Array<Segment | undefined>;
+
 interface Grid {
   table: number;
   header: Map<number, Segment>;
-  rows: Map<number, Map<number, Segment>>;
+  /** Rows by number, in the order their first cell came. */
+  rows: Map<number, Row>;
   caption?: Segment;
 }
 
@@ -149,9 +156,13 @@ function gridsOf(segments: readonly Segment[]): Grid[] {
     grids.set(s.table.table, g);
     if (s.table.row === 0) g.header.set(s.table.column, s);
     else {
-      const row = g.rows.get(s.table.row) ?? new Map<number, Segment>();
-      row.set(s.table.column, s);
-      g.rows.set(s.table.row, row);
+      const row = g.rows.get(s.table.row);
+      if (row) row[s.table.column] = s;
+      else {
+        const fresh: Row = [];
+        fresh[s.table.column] = s;
+        g.rows.set(s.table.row, fresh);
+      }
     }
   }
   return [...grids.values()];
@@ -177,10 +188,10 @@ interface Columns {
 }
 
 /** The name and n of the group a long layout's row prints. */
-function longCellGroup(row: Map<number, Segment>, cols: Columns): { label?: string; n?: ReportedNumber } {
-  const nCell = cols.n !== undefined ? row.get(cols.n) : undefined;
+function longCellGroup(row: Row, cols: Columns): { label?: string; n?: ReportedNumber } {
+  const nCell = cols.n !== undefined ? row[cols.n] : undefined;
   const n = nCell ? cellNumber(nCell) : undefined;
-  const label = row.get(cols.group ?? 0)?.text.trim();
+  const label = row[cols.group ?? 0]?.text.trim();
   return { ...(label ? { label } : {}), ...(n ? { n } : {}) };
 }
 
@@ -239,16 +250,16 @@ function readGrid(grid: Grid, out: TableResults): void {
   // long layout: the measure named in the first column, blank in the rows below it
   let block: TableBlock | undefined;
   for (const r of rows) {
-    const row = grid.rows.get(r) as Map<number, Segment>;
+    const row = grid.rows.get(r) as Row;
     const where = { table: grid.table, row: r };
-    const label = row.get(0)?.text.trim() ?? '';
+    const label = row[0]?.text.trim() ?? '';
     if (label !== '' && !LABELLED_T.test(label) && !/^[tT] ?[(=]/.test(label)) {
       block = { table: grid.table, label, firstRow: r, lastRow: r };
       out.blocks.push(block);
     } else if (block) block.lastRow = r;
     // wide layout: one group per group column
     for (const g of cols.groups) {
-      const cell = row.get(g.column);
+      const cell = row[g.column];
       const m = cell ? CELL_MEAN_SPREAD.exec(cell.text) : null;
       if (!cell || !m) continue;
       const mean = numberAt(cell, m[1] as string, 0);
@@ -277,14 +288,14 @@ function readGrid(grid: Grid, out: TableResults): void {
     }
     // long layout: the row is a group
     if (cols.mean !== undefined) {
-      const meanCell = row.get(cols.mean);
+      const meanCell = row[cols.mean];
       const mean = meanCell ? cellNumber(meanCell) : undefined;
       if (meanCell && mean) {
-        const spreadCell = cols.spread ? row.get(cols.spread.column) : undefined;
+        const spreadCell = cols.spread ? row[cols.spread.column] : undefined;
         const spread = spreadCell ? cellNumber(spreadCell) : undefined;
-        const nCell = cols.n !== undefined ? row.get(cols.n) : undefined;
+        const nCell = cols.n !== undefined ? row[cols.n] : undefined;
         const n = nCell ? cellNumber(nCell) : undefined;
-        const labelCell = row.get(cols.group ?? 0);
+        const labelCell = row[cols.group ?? 0];
         const parts = [mean.span, spread?.span, n?.span].filter((s): s is { start: number; end: number } => s !== undefined);
         out.summaries.push({
           id: `${meanCell.id}:row`,
@@ -303,26 +314,26 @@ function readGrid(grid: Grid, out: TableResults): void {
       }
     }
     // the row's test
-    const tCell = cols.t ? row.get(cols.t.column) : undefined;
+    const tCell = cols.t ? row[cols.t.column] : undefined;
     if (tCell) {
       // under a `t (df)` header a cell may print its df in brackets after t (`20.86 (99)`)
       const withDf = cols.t?.dfInCell ? CELL_T_DF.exec(tCell.text) : null;
       const m = withDf ?? CELL_T.exec(tCell.text);
       const t = m ? numberAt(tCell, m[1] as string, 0) : undefined;
       if (t && m) {
-        const dfCell = cols.df !== undefined ? row.get(cols.df) : undefined;
+        const dfCell = cols.df !== undefined ? row[cols.df] : undefined;
         const inCell = withDf ? numberAt(tCell, withDf[3] as string, tCell.text.indexOf('(', tCell.text.indexOf(withDf[1] as string) + (withDf[1] as string).length)) : undefined;
         const df = inCell ?? (dfCell ? cellDf(dfCell) : undefined) ?? cols.t?.df ?? captionDf;
-        const pCell = cols.p !== undefined ? row.get(cols.p) : undefined;
+        const pCell = cols.p !== undefined ? row[cols.p] : undefined;
         const stars = m[2] ?? (withDf ? withDf[4] : undefined);
         const p = (pCell ? cellP(pCell) : undefined) ?? (stars ? starP(tCell, stars) : undefined);
         if (p || df) out.tests.push(tableTest(tCell, t, df, p, [tCell, dfCell, pCell], where));
       }
     }
-    const dCell = cols.d ? row.get(cols.d.column) : undefined;
+    const dCell = cols.d ? row[cols.d.column] : undefined;
     const d = dCell ? cellNumber(dCell) : undefined;
     if (dCell && d && cols.d) out.effectSizes.push({ segment: dCell.id, block: dCell.block, sentence: 0, span: d.span, printed: `${grid.header.get(cols.d.column)?.text.trim() ?? 'd'} = ${d.printed}`, kind: cols.d.kind, value: d, table: where });
-    const ciCell = cols.ci ? row.get(cols.ci.column) : undefined;
+    const ciCell = cols.ci ? row[cols.ci.column] : undefined;
     if (ciCell && cols.ci) readIntervalCell(ciCell, cols.ci.level, where, out);
   }
   readLabelledCells(grid, captionDf, out);
@@ -350,25 +361,27 @@ function readIntervalCell(cell: Segment, level: number, where: TableRow, out: Ta
 function readLabelledCells(grid: Grid, captionDf: ReportedNumber | undefined, out: TableResults): void {
   const spans = new Map<number, number>();
   for (const [r, row] of grid.rows) {
-    const label = row.get(0);
+    const label = row[0];
     if (label?.table?.rowSpan && label.table.rowSpan > 1) for (let k = 0; k < label.table.rowSpan; k += 1) spans.set(r + k, r);
   }
   for (const [r, row] of grid.rows) {
-    for (const [c, cell] of row) {
+    // (forEach skips a row's holes)
+    row.forEach((cell, c) => {
+      if (!cell) return;
       const t = LABELLED_T.exec(cell.text);
-      if (!t) continue;
-      const ps = [...row.values()].filter((x) => LABELLED_P.test(x.text));
+      if (!t) return;
+      const ps = row.filter((x): x is Segment => x !== undefined && LABELLED_P.test(x.text));
       let pCell = ps.length === 1 ? ps[0] : undefined;
       if (!pCell && spans.has(r)) {
         for (const other of [r - 1, r + 1]) {
-          const candidate = spans.get(other) === spans.get(r) ? grid.rows.get(other)?.get(c) : undefined;
+          const candidate = spans.get(other) === spans.get(r) ? grid.rows.get(other)?.[c] : undefined;
           if (candidate && LABELLED_P.test(candidate.text)) pCell = candidate;
         }
       }
       const tNumber = numberAt(cell, t[1] as string, 0);
       const p = pCell ? labelledP(pCell) : undefined;
       if (tNumber && p) out.tests.push(tableTest(cell, tNumber, captionDf, p, [cell, pCell], { table: grid.table, row: r }));
-    }
+    });
   }
 }
 

@@ -5,8 +5,9 @@
  * times the cost per byte of prose, so a data dump of 100,000 rows took longer than a
  * whole ordinary manuscript of the same size many times over. Here a long run of table
  * rows is found before parsing; all but its first few lines are blanked (replaced by spaces,
- * line endings kept, so every other offset stays where it was); the parser reads the table
- * head; and the blanked rows are then read here, in order, as rows of that same table.
+ * the line endings between them too, so every other offset stays where it was and the parser
+ * sees one blank line); the parser reads the table head; and the blanked rows are then read
+ * here, in order, as rows of that same table.
  *
  * Exactness: every blanked line starts (after at most three spaces) with `|`, or holds a `|`
  * and starts with a letter or a digit that is not a list marker, which no other block
@@ -159,19 +160,31 @@ export function findBulkRuns(text: string, minRows = BULK_MIN_ROWS): BulkRun[] {
   return runs;
 }
 
-/** The text with the runs' rows replaced by spaces (line endings kept, offsets unchanged). */
+/**
+ * The text with each run's rows replaced by spaces, the line endings between them too (offsets
+ * unchanged): one blank line where the rows stood. micromark's cost per line is high even for a
+ * blank line (see standInRuns in plainRuns.ts), so a run of 170,000 rows left as 170,000 blank
+ * lines cost more than all the rest of reading the table. The line after the run is blank (or
+ * the text ends), as findBulkRuns requires, so the table and its containers end where they did.
+ * Line numbers after a run are the parser's plus the line endings removed before them
+ * (`blankedRange` gives the range, `lineShift` in plainRuns.ts the shift).
+ */
 export function blankRuns(text: string, runs: readonly BulkRun[]): string {
   if (runs.length === 0) return text;
   const parts: string[] = [];
   let at = 0;
   for (const run of runs) {
-    for (const row of run.rows) {
-      parts.push(text.slice(at, row.lineStart), ' '.repeat(row.end - row.lineStart));
-      at = row.end;
-    }
+    const { start, end } = blankedRange(run);
+    parts.push(text.slice(at, start), ' '.repeat(end - start));
+    at = end;
   }
   parts.push(text.slice(at));
   return parts.join('');
+}
+
+/** The range blankRuns makes spaces of: from the run's first row's line start to its last row's end. */
+export function blankedRange(run: BulkRun): { start: number; end: number } {
+  return { start: (run.rows[0] as BulkLine).lineStart, end: (run.rows[run.rows.length - 1] as BulkLine).end };
 }
 
 /** ASCII punctuation: the characters a backslash escapes (CommonMark 2.4). */

@@ -5,7 +5,7 @@ import remarkGfm from 'remark-gfm';
 import remarkMath from 'remark-math';
 import remarkParse from 'remark-parse';
 import { unified } from 'unified';
-import { MappedText, alignedEnd, offsetArray } from './builder.js';
+import { MappedText, OffsetArena, alignedEnd } from './builder.js';
 import { readDirective } from './directives.js';
 import { readFrontMatter } from './frontMatter.js';
 import { normalize } from './normalize.js';
@@ -15,8 +15,8 @@ import { HtmlTableReader, type HtmlTablePart } from './htmlTable.js';
 import { markLegends } from './legends.js';
 import { defuseDenseMarkup, exceedsNesting } from './depth.js';
 import { LAZY_LIMIT, QUOTE_LIMIT, SETEXT_LIMIT, defuseSlowShapes, joinLongParagraphs, type SlowShape } from './shapes.js';
-import { BULK_CHUNK_ROWS, BULK_MIN_ROWS, blankRuns, findBulkRuns, plainCells, type BulkRun } from './bulkTable.js';
-import { PLAIN_MIN_GROUPS, findPlainRuns, inlineTagText, lineShift, readPlainGroup, standInRuns, type PlainGroup, type PlainRun } from './plainRuns.js';
+import { BULK_CHUNK_ROWS, BULK_MIN_ROWS, blankRuns, blankedRange, findBulkRuns, plainCells, type BulkRun } from './bulkTable.js';
+import { PLAIN_MIN_GROUPS, findPlainRuns, inlineTagText, lineShift, plainRange, readPlainGroup, standInRuns, type PlainGroup, type PlainRun } from './plainRuns.js';
 import type { Directive, FrontMatter, ParsedDocument, ReadNote, Segment, SegmentKind, TablePlace } from './types.js';
 
 const processor = unified().use(remarkParse).use(remarkGfm).use(remarkFrontmatter, ['yaml']).use(remarkMath);
@@ -305,8 +305,9 @@ export function parseWithBulkRuns(text: string, minRows: number, parser: { parse
   let plain = findPlainRuns(text, minGroups);
   for (let round = 0; ; round += 1) {
     const tree = parser.parse(standInRuns(blankRuns(text, runs), plain)) as Root;
-    // the parser's line numbers, in lines of `text` (a plain run's line endings are not parsed)
-    const shifted = lineShift(text, plain);
+    // the parser's line numbers, in lines of `text` (the line endings of a plain run and of a
+    // long table's rows are not parsed; plain lines hold no `|`, so the two never share a line)
+    const shifted = lineShift(text, [...plain.map(plainRange), ...runs.map(blankedRange)].sort((a, b) => a.start - b.start));
     const lineOf = (point: Point): number => point.line + shifted(point.offset as number);
     if (runs.length === 0 && plain.length === 0) return { tree, runs: new Map(), plain: new Map(), lineOf };
     const tables = tablesByEndLine(tree, lineOf);
@@ -356,6 +357,8 @@ class Walker {
   private tables = 0;
   private section: string | undefined;
   private readonly html: HtmlTableReader;
+  /** Where the segments' maps are cut from (see OffsetArena). */
+  private readonly arena = new OffsetArena();
   /** The top-level blocks walked by walkTop, for an incremental re-read (reparseEdit). */
   topBlocks: TopBlock[] = [];
   /** Whether a link reference or footnote definition was met: a reference elsewhere may name it. */
@@ -725,8 +728,8 @@ class Walker {
       block,
       kind,
       text: text.text,
-      starts: offsetArray(text.starts, this.shift),
-      ends: offsetArray(text.ends, this.shift),
+      starts: this.arena.take(text.starts, this.shift),
+      ends: this.arena.take(text.ends, this.shift),
       ...(table ? { table } : {}),
       ...(this.section !== undefined && kind !== 'heading' ? { section: this.section } : {}),
     };

@@ -455,19 +455,25 @@ export function runEnd(run: PlainRun): number {
   return (last.lines[last.lines.length - 1] as { end: number }).end;
 }
 
+/** The range standInRuns makes spaces of, line endings and all, with the stand-in before it. */
+export function plainRange(run: PlainRun): { start: number; end: number } {
+  return { start: run.start, end: runEnd(run) };
+}
+
 /**
  * How to turn a line number the parser gives for a place at or after `offset` into the line of
- * the original text: add the line endings the runs before `offset` had (standInRuns removed them).
+ * the original text: add the line endings that the ranges before `offset` had (the ranges made
+ * spaces for the parser: plain runs' by standInRuns, long tables' by blankRuns in bulkTable.ts;
+ * in order, not overlapping).
  */
-export function lineShift(text: string, runs: readonly PlainRun[]): (offset: number) => number {
-  if (runs.length === 0) return () => 0;
+export function lineShift(text: string, ranges: ReadonlyArray<{ start: number; end: number }>): (offset: number) => number {
+  if (ranges.length === 0) return () => 0;
   const ends: number[] = [];
   const removed: number[] = [];
   let total = 0;
-  for (const run of runs) {
-    const to = runEnd(run);
-    for (let k = run.start; k < to; k += 1) if (text.charCodeAt(k) === 10) total += 1;
-    ends.push(to);
+  for (const range of ranges) {
+    for (let k = range.start; k < range.end; k += 1) if (text.charCodeAt(k) === 10) total += 1;
+    ends.push(range.end);
     removed.push(total);
   }
   return (offset) => {

@@ -91,6 +91,25 @@ describe('the bulk table reader reads long tables exactly as the Markdown parser
     expect(bulk.segments).toEqual(parser.segments);
   });
 
+  it('reads long tables after other long tables and plain runs, where the parser counts fewer lines', () => {
+    // each run's rows reach the parser as one blank line, so every table after it ends on a line
+    // the parser numbers lower than the text does; all the runs must still be confirmed and read
+    const table = (n: number, prefix = '') => `${prefix}| a | b |\n${prefix}|---|---|\n${Array.from({ length: n }, (_, i) => `${prefix}| ${i} | ${i + 1} |`).join('\n')}\n`;
+    const plain = Array.from({ length: 40 }, (_, i) => `Plain paragraph ${i}.`).join('\n\n');
+    const docs = [
+      `${table(30)}\n${table(12)}\n${plain}\n\n${table(25)}\nAfter, t(40) = 3.10, p = .20.\n`,
+      `> ${table(20, '> ').slice(2)}\n${table(30)}\n- item\n\n${table(15, '  ')}`,
+      `${table(20)}\n${table(20)}`.replace(/\n/g, '\r\n'),
+    ];
+    for (const doc of docs) {
+      const runs = parseWithBulkRuns(doc, 1).runs;
+      expect(runs.size).toBe(findBulkRuns(doc, 1).length);
+      expect(runs.size).toBeGreaterThanOrEqual(2);
+      const { bulk, parser } = both(doc);
+      expect(bulk.segments).toEqual(parser.segments);
+    }
+  });
+
   it('the default threshold leaves short tables to the parser and takes long ones', () => {
     const long = `| a | b |\n|---|---|\n${'| 1 | 2 |\n'.repeat(200)}`;
     expect(findBulkRuns(long)).toHaveLength(1);
