@@ -41,8 +41,10 @@ const argv = process.argv.slice(2);
 const quick = quickAnswer(argv, process.stdout.columns);
 if (quick !== undefined) await writeStdout(quick);
 else {
-  const { run } = await import('./run.js');
-  process.exitCode = await run(argv, {
+  // the rest loads now: in the bundle, run.cjs with its code cache (load.ts)
+  const { loadRun } = await import('./load.js');
+  const loaded = await loadRun(argv, process.env);
+  process.exitCode = await loaded.run(argv, {
     stdout: writeStdout,
     stderr: (s) => {
       process.stderr.write(s);
@@ -54,4 +56,5 @@ else {
     stderrIsTTY: process.stderr.isTTY === true,
     columns: process.stdout.columns,
   });
+  loaded.save();
 }
