@@ -75,6 +75,8 @@ const startup = await build({
   entryPoints: { run: join(root, 'src/cli/run.ts') },
   outdir: out,
   outExtension: { '.js': '.cjs' },
+  // src/cli/load.ts reads an ASCII bundle as Latin-1, the fastest way to a string
+  charset: 'ascii',
   bundle: true,
   format: 'cjs',
   platform: 'node',

@@ -1,3 +1,4 @@
+import { isAscii } from 'node:buffer';
 import { existsSync, readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { dirname } from 'node:path';
@@ -41,7 +42,9 @@ export async function loadRun(argv: readonly string[], env: NodeJS.ProcessEnv = 
   const folder = kind === undefined ? undefined : cacheFolder(env);
   const id = folder !== undefined && kind !== undefined ? cacheIdentity([WRAP_START, bytes, WRAP_END], kind, env) : undefined;
   const cached = folder !== undefined && id !== undefined ? readCache(folder, id) : undefined;
-  const script = new vm.Script(`${WRAP_START}${bytes.toString('utf8')}${WRAP_END}`, { filename: file, ...(cached ? { cachedData: cached } : {}) });
+  // esbuild writes ASCII (charset 'ascii'): read as Latin-1, the text is the same and V8 takes it as is
+  const text = isAscii(bytes) ? bytes.toString('latin1') : bytes.toString('utf8');
+  const script = new vm.Script(`${WRAP_START}${text}${WRAP_END}`, { filename: file, ...(cached ? { cachedData: cached } : {}) });
   const accepted = cached !== undefined && !script.cachedDataRejected;
   const module: { exports: { run?: Run } } = { exports: {} };
   const importBeside = (specifier: string): Promise<unknown> => import(new URL(specifier, BUNDLE).href);
