@@ -29,6 +29,22 @@ const islands = [
   { entry: 'annotate-pdf', source: 'src/report/annotatePdf.ts', exports: ['annotatePdf'] },
 ];
 
+/**
+ * fdir (tinyglobby's folder walker) in its CommonJS build: its ES build looks picomatch up on
+ * disk as it loads (createRequire), some four files read and compiled on every start-up for a
+ * glob feature tinyglobby does not use, where the CommonJS build's require is bundled.
+ */
+const fdirCommonJs = {
+  name: 'fdir-commonjs',
+  setup(b) {
+    b.onResolve({ filter: /^fdir$/ }, async (args) => {
+      if (args.pluginData?.fdirCommonJs) return undefined;
+      const r = await b.resolve('fdir', { kind: 'require-call', resolveDir: args.resolveDir, pluginData: { fdirCommonJs: true } });
+      return r.errors.length > 0 ? undefined : { path: r.path };
+    });
+  },
+};
+
 const result = await build({
   // the worker sits beside the chunk that starts it: src/cli/pool.ts finds it as ./worker.js
   entryPoints: {
@@ -49,7 +65,7 @@ const result = await build({
   logLevel: 'warning',
   // CommonJS dependencies (Ajv's runtime, jstat, @stdlib, cli-progress) call require for Node's modules
   banner: { js: "import { createRequire as plumblineCreateRequire } from 'node:module'; const require = plumblineCreateRequire(import.meta.url);" },
-  plugins: [precompiledSchema(validator)],
+  plugins: [precompiledSchema(validator), fdirCommonJs],
 });
 chmodSync(join(out, 'plumbline.js'), 0o755);
 for (const island of islands) {
@@ -90,6 +106,7 @@ const startup = await build({
   banner: { js: "const plumblineBundleUrl = require('node:url').pathToFileURL(__filename).href;" },
   plugins: [
     precompiledSchema(validator),
+    fdirCommonJs,
     {
       name: 'islands',
       setup(b) {
