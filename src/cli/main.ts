@@ -57,4 +57,17 @@ else {
     columns: process.stdout.columns,
   });
   loaded.save();
+  // The run is over and its files are written (synchronously, output.ts). Once standard output
+  // and error have taken every byte, exit at once: the natural end of the process would first
+  // take the whole heap apart (some 10 ms after a 50 KB manuscript), which no one waits for.
+  await Promise.all([flushed(process.stdout), flushed(process.stderr)]);
+  process.exit();
+}
+
+/** Resolves once `stream` has handed on every byte written to it (at once where writes are synchronous). */
+function flushed(stream: NodeJS.WriteStream): Promise<void> {
+  if (stream.destroyed || stream.writableLength === 0) return Promise.resolve();
+  return new Promise<void>((done) => {
+    stream.write('', () => done());
+  });
 }
