@@ -1,7 +1,8 @@
 import { existsSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
-import { Worker } from 'node:worker_threads';
+import type { Worker } from 'node:worker_threads';
 import { checkSource, type CheckOptions, type FileReport } from '../engine/index.js';
 import { DEFAULT_BUDGET, type Budget } from './defaults.js';
 import { receivedReport, type ReportMessage } from './transfer.js';
@@ -46,6 +47,14 @@ export const MIN_CHARS_PER_WORKER = 1024 * 1024;
 export function threadsFor(documents: number, chars: number, cores = availableParallelism()): number {
   return Math.max(1, Math.min(cores, documents, Math.floor(chars / MIN_CHARS_PER_WORKER)));
 }
+
+/**
+ * node:worker_threads, loaded when the first worker starts: a lone document checked in this
+ * thread never loads it (it costs a few milliseconds of every start-up otherwise).
+ */
+const requireBuiltin = createRequire(import.meta.url);
+let workerThreads: typeof import('node:worker_threads') | undefined;
+const threadsModule = () => (workerThreads ??= requireBuiltin('node:worker_threads') as typeof import('node:worker_threads'));
 
 /**
  * The worker thread's script. It sits beside this module both when compiled by tsc
@@ -131,7 +140,7 @@ export async function checkAll(
       };
       /** A worker for a slot; it asks for work when it has loaded (the time budgets start only then). */
       const start = (slot: Slot) => {
-        const w = new Worker(workerFile, { resourceLimits: { maxOldGenerationSizeMb: budget.memoryMb, maxYoungGenerationSizeMb: 64 } });
+        const w = new (threadsModule().Worker)(workerFile, { resourceLimits: { maxOldGenerationSizeMb: budget.memoryMb, maxYoungGenerationSizeMb: 64 } });
         slot.worker = w;
         slot.ready = false;
         w.on('message', (m: { ready: true } | ReportMessage) => {

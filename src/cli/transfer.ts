@@ -1,5 +1,13 @@
-import { deserialize, serialize } from 'node:v8';
+import { createRequire } from 'node:module';
 import type { FileReport } from '../engine/index.js';
+
+/**
+ * node:v8, loaded when a report first crosses between threads: a run that checks in its own
+ * thread never loads it (it costs a few milliseconds of every start-up otherwise).
+ */
+const requireBuiltin = createRequire(import.meta.url);
+let v8: typeof import('node:v8') | undefined;
+const v8Module = () => (v8 ??= requireBuiltin('node:v8') as typeof import('node:v8'));
 
 /**
  * A worker's report crosses to the thread that asked for it as bytes: V8's serialisation (the
@@ -19,7 +27,7 @@ export type ReportMessage = { index: number; bytes: Uint8Array } | { index: numb
 
 /** Posts `report` as bytes, their buffer moved to the receiver. */
 export function postReport(post: (message: ReportMessage, transfer: ArrayBuffer[]) => void, index: number, report: SentReport): void {
-  const bytes = serialize(report);
+  const bytes = v8Module().serialize(report);
   // a buffer of its own (not a slice of a shared pool) can be moved; otherwise it is copied
   const own = bytes.byteOffset === 0 && bytes.byteLength === bytes.buffer.byteLength && bytes.buffer instanceof ArrayBuffer;
   post({ index, bytes }, own ? [bytes.buffer as ArrayBuffer] : []);
@@ -27,5 +35,5 @@ export function postReport(post: (message: ReportMessage, transfer: ArrayBuffer[
 
 /** The report a worker sent, rebuilt. */
 export function receivedReport(bytes: Uint8Array): SentReport {
-  return deserialize(bytes) as SentReport;
+  return v8Module().deserialize(bytes) as SentReport;
 }

@@ -1,5 +1,6 @@
 import { repairOf, repairText, type FontRecord, type FontRepair } from './glyphs.js';
 import { layoutPages } from './layout.js';
+import { importPdfJs } from './pdfjs.js';
 import type { PageRuns, PdfBlock, PdfLimits, PdfLine, TextRun } from './types.js';
 
 /** Pages read at most: a longer file is refused rather than read for minutes. */
@@ -44,11 +45,10 @@ let loading: Promise<PdfJs> | undefined;
  * parallelism a separate pdf.js worker would.
  */
 export function loadPdfJs(): Promise<PdfJs> {
-  loading ??= (async () => {
-    const worker = await import('pdfjs-dist/legacy/build/pdf.worker.mjs');
+  loading ??= importPdfJs().then(({ worker, pdfjs }) => {
     (globalThis as { pdfjsWorker?: unknown }).pdfjsWorker = worker;
-    return import('pdfjs-dist/legacy/build/pdf.mjs');
-  })();
+    return pdfjs;
+  });
   return loading;
 }
 

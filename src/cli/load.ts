@@ -1,0 +1,65 @@
+import { isAscii } from 'node:buffer';
+import { existsSync, readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { dirname } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import vm from 'node:vm';
+import { cacheFolder, cacheIdentity, cacheKind, readCache, writeCache } from './codeCache.js';
+
+type Run = (typeof import('./run.js'))['run'];
+
+/** The command line's run, and what to do once it is over. */
+export interface LoadedRun {
+  run: Run;
+  /** Writes the code cache when this run had none it could use (call once the run is over). */
+  save: () => void;
+}
+
+/**
+ * The start-up bundle (scripts/build-cli.mjs): run.ts and all it may load, as one CommonJS
+ * script beside the command's entry. Only the bundle has it; compiled by tsc, run.js is imported.
+ */
+const BUNDLE = new URL('./run.cjs', import.meta.url);
+
+/**
+ * The wrapper the bundle is compiled in: CommonJS's own parameters, and the one through which
+ * it imports the ES modules built beside it (pdf.js, pdf-lib: scripts/build-cli.mjs), since a
+ * script compiled by `vm.Script` cannot `import()` without an experimental flag.
+ */
+const WRAP_START = '(function (exports, require, module, __filename, __dirname, __plumblineImport) {';
+const WRAP_END = '\n})';
+
+/**
+ * Loads the command line's run. In the bundle it compiles run.cjs with the V8 code cache of
+ * the last run of the same kind (codeCache.ts), so its functions are not parsed and compiled
+ * again; `save` makes that cache when there was none.
+ */
+export async function loadRun(argv: readonly string[], env: NodeJS.ProcessEnv = process.env): Promise<LoadedRun> {
+  const file = fileURLToPath(BUNDLE);
+  if (!existsSync(file)) return { run: (await import('./run.js')).run, save: () => undefined };
+  const bytes = readFileSync(file);
+  const kind = cacheKind(argv);
+  const folder = kind === undefined ? undefined : cacheFolder(env);
+  const id = folder !== undefined && kind !== undefined ? cacheIdentity([WRAP_START, bytes, WRAP_END], kind, env) : undefined;
+  const cached = folder !== undefined && id !== undefined ? readCache(folder, id) : undefined;
+  // esbuild writes ASCII (charset 'ascii'): read as Latin-1, the text is the same and V8 takes it as is
+  const text = isAscii(bytes) ? bytes.toString('latin1') : bytes.toString('utf8');
+  const script = new vm.Script(`${WRAP_START}${text}${WRAP_END}`, { filename: file, ...(cached ? { cachedData: cached } : {}) });
+  const accepted = cached !== undefined && !script.cachedDataRejected;
+  const module: { exports: { run?: Run } } = { exports: {} };
+  const importBeside = (specifier: string): Promise<unknown> => import(new URL(specifier, BUNDLE).href);
+  (script.runInThisContext() as (...args: unknown[]) => void)(module.exports, createRequire(file), module, file, dirname(file), importBeside);
+  const run = module.exports.run;
+  if (typeof run !== 'function') throw new Error(`plumbline: ${file} does not export the command line's run`);
+  return {
+    run,
+    save: () => {
+      if (accepted || folder === undefined || id === undefined) return;
+      try {
+        writeCache(folder, id, script.createCachedData());
+      } catch {
+        // a cache is only a speed-up
+      }
+    },
+  };
+}

@@ -1,0 +1,175 @@
+import { spawnSync } from 'node:child_process';
+import { chmodSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, statSync, symlinkSync, utimesSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { cacheFile, cacheFolder, cacheIdentity, cacheKind, decodeCache, encodeCache, readCache, writeCache, type CacheIdentity } from '../../src/cli/codeCache.js';
+import { BIN, cli } from './harness.js';
+
+/**
+ * The code cache of the command's start-up bundle (src/cli/codeCache.ts, src/cli/load.ts): used
+ * only when it was made for this very bundle, Node and run, ignored safely otherwise, and never
+ * a cause of different output. Every manuscript here is invented.
+ */
+const id: CacheIdentity = { bundle: 'a'.repeat(64), node: 'v20.0.0', v8: '11.3', arch: 'x64', flags: '|', kind: 'check:json' };
+const payload = Buffer.from(Array.from({ length: 5000 }, (_, i) => (i * 7) % 256));
+
+describe('cache files', () => {
+  it('give back their payload for the identity they were made for', () => {
+    expect(decodeCache(encodeCache(id, payload), id)?.equals(payload)).toBe(true);
+  });
+
+  it('are ignored when made for another bundle, Node, V8, architecture, flags or kind of run', () => {
+    const bytes = encodeCache(id, payload);
+    for (const key of ['bundle', 'node', 'v8', 'arch', 'flags', 'kind'] as const) {
+      expect(decodeCache(bytes, { ...id, [key]: `${id[key]}x` }), key).toBeUndefined();
+    }
+  });
+
+  it('are ignored when cut short, lengthened, altered, empty or not ours', () => {
+    const bytes = encodeCache(id, payload);
+    const altered = Buffer.from(bytes);
+    altered[altered.length - 100] = (altered[altered.length - 100] as number) ^ 1;
+    const header = Buffer.from(bytes);
+    // the header's JSON made unreadable
+    header[header.indexOf(0x7b)] = 0x5b;
+    for (const [name, b] of [
+      ['cut short', bytes.subarray(0, bytes.length - 1)],
+      ['cut in the header', bytes.subarray(0, 40)],
+      ['lengthened', Buffer.concat([bytes, Buffer.from([0])])],
+      ['a payload byte changed', altered],
+      ['a broken header', header],
+      ['empty', Buffer.alloc(0)],
+      ['random bytes', Buffer.from(Array.from({ length: 3000 }, (_, i) => (i * 131 + 17) % 256))],
+    ] as const) {
+      expect(decodeCache(b, id), name).toBeUndefined();
+    }
+  });
+
+  it('are written whole, under a name of their identity, and old ones are removed', () => {
+    const folder = mkdtempSync(join(tmpdir(), 'plumbline-cache-test-'));
+    const old = join(folder, 'check-json-old.bin');
+    writeFileSync(old, 'x');
+    const long = Date.now() - 40 * 24 * 3600 * 1000;
+    utimesSync(old, long / 1000, long / 1000);
+    const recent = join(folder, 'check-human-recent.bin');
+    writeFileSync(recent, 'y');
+    writeCache(folder, id, payload);
+    expect(readCache(folder, id)?.equals(payload)).toBe(true);
+    expect(cacheFile(folder, id)).not.toBe(cacheFile(folder, { ...id, kind: 'rules:human' }));
+    expect(existsSync(old)).toBe(false);
+    expect(existsSync(recent)).toBe(true);
+    // no temporary file is left behind
+    expect(readdirSync(folder).filter((f) => f.endsWith('.tmp'))).toEqual([]);
+    // a folder that went away: nothing written, nothing thrown
+    expect(() => writeCache(join(folder, 'gone', 'deeper'), id, payload)).not.toThrow();
+  });
+
+  it('are kept only in a folder of this user that no one else can write to, or nowhere when turned off', () => {
+    const base = mkdtempSync(join(tmpdir(), 'plumbline-cache-test-'));
+    expect(cacheFolder({ PLUMBLINE_CODE_CACHE: 'off' })).toBeUndefined();
+    expect(cacheFolder({ PLUMBLINE_CODE_CACHE: join(base, 'made') })).toBe(join(base, 'made'));
+    if (process.platform !== 'win32') {
+      const shared = join(base, 'shared');
+      mkdirSync(shared);
+      chmodSync(shared, 0o777);
+      expect(cacheFolder({ PLUMBLINE_CODE_CACHE: shared })).toBeUndefined();
+      symlinkSync(join(base, 'made'), join(base, 'link'));
+      expect(cacheFolder({ PLUMBLINE_CODE_CACHE: join(base, 'link') })).toBeUndefined();
+    }
+    writeFileSync(join(base, 'file'), '');
+    expect(cacheFolder({ PLUMBLINE_CODE_CACHE: join(base, 'file') })).toBeUndefined();
+  });
+
+  it('are kept per kind of run, read from the raw arguments', () => {
+    expect(cacheKind(['paper.md', '-f', 'json'])).toBe('check:json');
+    expect(cacheKind(['--format=sarif', 'paper.md'])).toBe('check:sarif');
+    expect(cacheKind(['paper.md'])).toBe('check:human');
+    expect(cacheKind(['rules'])).toBe('rules:human');
+    expect(cacheKind(['batch', '--format', 'json'])).toBe('batch:json');
+    // a file named like a command after the first word is a file
+    expect(cacheKind(['paper.md', 'rules'])).toBe('check:human');
+    expect(cacheKind(['-f', '../x', 'a.md'])).toBe('check:other');
+    expect(cacheKind(['paper.md', '--watch'])).toBeUndefined();
+    // the identity names the kind and the script's every byte
+    expect(cacheIdentity(['a', Buffer.from('b')], 'check:json').bundle).not.toBe(cacheIdentity(['a', Buffer.from('c')], 'check:json').bundle);
+  });
+});
+
+const manuscript = [
+  '# Spacing and recall',
+  '',
+  'Recall improved with spacing, t(23) = 2.47, p = .021. Older readers gained less, t(40) = 1.10, p = .03.',
+  '',
+  'The practice group (M = 5.10, SD = 1.20, n = 20) outscored the reading group (M = 4.20, SD = 1.10, n = 20), t(38) = 2.47, p = .018.',
+  '',
+].join('\n');
+
+/** A run of the bundled command with the cache in `folder` (or turned off). */
+function bundled(args: string[], cwd: string, folder: string) {
+  const r = spawnSync(process.execPath, [BIN, ...args], { cwd, encoding: 'utf8', env: { ...process.env, PLUMBLINE_CODE_CACHE: folder } });
+  return { code: r.status, stdout: r.stdout, stderr: r.stderr };
+}
+
+describe('the bundled command with its code cache', () => {
+  const dir = mkdtempSync(join(tmpdir(), 'plumbline-cache-run-'));
+  writeFileSync(join(dir, 'paper.md'), manuscript);
+
+  it('writes the same report in every format without a cache, making one, and using it, as the sources do', async () => {
+    const folder = mkdtempSync(join(tmpdir(), 'plumbline-cache-'));
+    for (const format of ['json', 'sarif', 'html', 'checklist', 'human', 'lines']) {
+      const args = ['paper.md', '-f', format];
+      const sources = await cli(args, { cwd: dir });
+      const off = bundled(args, dir, 'off');
+      const making = bundled(args, dir, folder);
+      const files = readdirSync(folder).filter((f) => f.startsWith(`check-${format}-`));
+      expect(files, format).toHaveLength(1);
+      const made = statSync(join(folder, files[0] as string)).ino;
+      const using = bundled(args, dir, folder);
+      // V8 took the cache: a run that could not use it would have written another in its place
+      expect(statSync(join(folder, files[0] as string)).ino, format).toBe(made);
+      for (const [name, r] of [['cache off', off], ['making the cache', making], ['using the cache', using]] as const) {
+        expect([r.code, r.stdout, r.stderr], `${format}, ${name}`).toEqual([sources.code, sources.stdout, sources.stderr]);
+      }
+    }
+  }, 120_000);
+
+  it('ignores a damaged, altered or stale cache file, reports as always, and writes a good one in its place', () => {
+    const folder = mkdtempSync(join(tmpdir(), 'plumbline-cache-'));
+    const args = ['paper.md', '-f', 'json'];
+    const expected = bundled(args, dir, 'off');
+    bundled(args, dir, folder);
+    const [name] = readdirSync(folder).filter((f) => f.endsWith('.bin'));
+    const file = join(folder, name as string);
+    const good = readFileSync(file);
+    const headerEnd = good.indexOf(0x0a, good.indexOf(0x0a) + 1);
+    const header = JSON.parse(good.toString('utf8', good.indexOf(0x0a) + 1, headerEnd)) as CacheIdentity & { bytes: number; sha256: string };
+    const made = { bundle: header.bundle, node: header.node, v8: header.v8, arch: header.arch, flags: header.flags, kind: header.kind };
+    const altered = Buffer.from(good);
+    altered[altered.length - 1000] = (altered[altered.length - 1000] as number) ^ 0xff;
+    const cases: Array<[string, Buffer]> = [
+      ['cut short', good.subarray(0, good.length >> 1)],
+      ['a payload byte changed', altered],
+      ['made for another build', encodeCache({ ...made, bundle: 'b'.repeat(64) }, good.subarray(headerEnd + 1))],
+      // whole and of the right identity, but not V8's data: V8 itself rejects it
+      ['not code at all', encodeCache(made, Buffer.from(Array.from({ length: 4096 }, (_, i) => (i * 31 + 7) % 256)))],
+      ['empty', Buffer.alloc(0)],
+    ];
+    for (const [what, bytes] of cases) {
+      writeFileSync(file, bytes);
+      const r = bundled(args, dir, folder);
+      expect([r.code, r.stdout, r.stderr], what).toEqual([expected.code, expected.stdout, expected.stderr]);
+      // replaced by a cache this build can use
+      const now = readFileSync(file);
+      expect(now.equals(bytes), what).toBe(false);
+      expect(decodeCache(now, made), what).toBeDefined();
+    }
+  }, 120_000);
+
+  it('runs without a cache where none can be kept', () => {
+    const expected = bundled(['paper.md', '-f', 'json'], dir, 'off');
+    const notAFolder = resolve(dir, 'paper.md');
+    const r = bundled(['paper.md', '-f', 'json'], dir, notAFolder);
+    expect([r.code, r.stdout, r.stderr]).toEqual([expected.code, expected.stdout, expected.stderr]);
+  });
+});
