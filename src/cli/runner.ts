@@ -193,6 +193,8 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
     options.onProgress?.(done, jobs.length);
     },
     options.budget ?? DEFAULT_BUDGET,
+    // the default: this thread is one of the threads (pool.ts)
+    { here: options.jobs === undefined },
   );
 
   let shown = reports;
