@@ -87,7 +87,8 @@ export async function checkAll(
   budget: Budget = DEFAULT_BUDGET,
   how: PoolOptions = {},
 ): Promise<void> {
-  const here = how.here ?? false;
+  // a budget tighter than the default is held for every document: each is checked on a worker
+  const here = (how.here ?? false) && budget.memoryMb >= DEFAULT_BUDGET.memoryMb && budget.seconds >= DEFAULT_BUDGET.seconds;
   const workerFile = how.workerFile ?? WORKER_FILE;
   const list = Array.isArray(jobs) ? (jobs as Job[]) : undefined;
   const lone = list !== undefined && list.length <= 1 && list.every((j) => !('source' in j) || j.source.length <= IN_THREAD_MAX_CHARS);
@@ -310,7 +311,10 @@ export async function checkAll(
 
 /** How `checkAll` shares the work. */
 export interface PoolOptions {
-  /** This thread checks small documents too, in place of one of two or more workers (the default `--jobs`). */
+  /**
+   * This thread checks small documents too, in place of one of two or more workers (the default
+   * `--jobs`); only under budgets no tighter than DEFAULT_BUDGET, which such a document keeps.
+   */
   here?: boolean;
   /** The worker's script (default WORKER_FILE, the compiled one beside this module). */
   workerFile?: string;

@@ -60,11 +60,12 @@ describe.runIf(existsSync(WORKER))('this thread checking beside the workers', ()
     expect([...here].every((i) => i < 3)).toBe(true);
   }, 120_000);
 
-  it('a worker that runs out of its memory budget costs only its document; the rest are checked, in order', async () => {
+  it('under a budget tighter than the default every document goes to a worker; one out of memory costs only its document', async () => {
     const heavy = Array.from({ length: 120_000 }, (_, i) => `Item ${i} changed, t(40) = 3.10, p = .20.\n\n`).join('');
     const jobs = small(10);
     jobs.splice(2, 0, { path: 'heavy.md', source: heavy, options: {} });
-    const { order, outcomes } = await run(jobs, 2, { memoryMb: 64, seconds: 120 });
+    const { order, outcomes, here } = await run(jobs, 2, { memoryMb: 64, seconds: 120 });
+    expect(here.size).toBe(0);
     expect(order).toEqual(jobs.map((_, i) => i));
     expect(outcomes.map((o) => ('error' in o ? o.error : o.report.path))).toEqual(jobs.map((j) => (j.path === 'heavy.md' ? 'not checked: needed more than the memory budget of 64 MB (--memory-budget)' : j.path)));
   }, 120_000);
