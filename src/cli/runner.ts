@@ -209,8 +209,8 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
     options.onProgress?.(done, jobs.length);
     },
     options.budget ?? DEFAULT_BUDGET,
-    // the default: this thread is one of the threads (pool.ts)
-    { here: options.jobs === undefined },
+    // this thread keeps every report of the run (its old generation grows with them, and each
+    // collection there costs more): it checks nothing itself, unlike batch's (pool.ts, `here`)
   );
 
   let shown = shownNow;

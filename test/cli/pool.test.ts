@@ -8,7 +8,7 @@ import { checkAll, HERE_MAX_CHARS, MIN_CHARS_PER_WORKER, type Job, type Outcome 
 import { BIN } from './harness.js';
 
 /**
- * The pool with this thread sharing the work (`here`, the default `--jobs`): outcomes come in
+ * The pool with this thread sharing the work (`here`, batch's default `--jobs`): outcomes come in
  * input order, each once, equal to a check in this thread; small documents are checked here,
  * one too large is handed to a worker (and this thread then gives its place back to a worker);
  * a worker that fails costs only its document. Run against the bundled worker `npm run build`
