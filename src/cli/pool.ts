@@ -29,13 +29,6 @@ export const IN_THREAD_MAX_CHARS = 1024 * 1024;
 export const IN_FLIGHT_PER_WORKER = 2;
 
 /**
- * Documents a worker holds while this thread checks too (`here`): this thread answers the
- * worker only between its own checks, so the worker needs more in hand not to wait (a CPU
- * profile of 400 files with two held showed the worker idle 9 % of the run).
- */
-export const IN_FLIGHT_BESIDE_HERE = 4;
-
-/**
  * Text each worker thread should have to check before another one is started. A worker costs
  * its start (loading the bundled checker) and then runs its code cold for a while, and on a
  * machine with few cores it competes with this thread, which reads the files and writes the
@@ -285,7 +278,7 @@ export async function checkAll(
         if (slot.pulling) return;
         slot.pulling = true;
         try {
-          while (slot.ready && slot.queue.length < (checkingHere && !retired ? IN_FLIGHT_BESIDE_HERE : IN_FLIGHT_PER_WORKER) && !exhausted) {
+          while (slot.ready && slot.queue.length < IN_FLIGHT_PER_WORKER && !exhausted) {
             const step = await iterator.next();
             if (step.done) {
               exhausted = true;
