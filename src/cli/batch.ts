@@ -123,7 +123,7 @@ export async function runBatch(io: Io, jobFor: JobFor, threads: number | 'auto',
     // the version tells a reader the shape of the line's files (readJsonReport reads either)
     const version = main.startsWith('"error"') ? '' : `"reportVersion":${JSON.stringify(JSON_REPORT_VERSION)},`;
     await io.stdout(`{"id":${JSON.stringify(id)},${version}${main}${included.length > 0 ? `,"included":[${included.join(',')}]` : ''}}\n`);
-  }, budget);
+  }, budget, { here: threads === 'auto' });
   io.stderr(`plumbline batch: ${documents} lines, ${results} results, ${findings} findings, ${failed} not checked\n`);
   if (failed > 0) return 2;
   return errorLevel > 0 ? 1 : 0;

@@ -64,20 +64,41 @@ const threadsModule = () => (workerThreads ??= requireBuiltin('node:worker_threa
 export const WORKER_FILE = fileURLToPath(new URL('./worker.js', import.meta.url));
 
 /**
+ * The largest document this thread checks itself when it shares the work with the workers
+ * (`checkAll`'s `here`). A document that large is checked in some 0.3 s, so the workers are fed
+ * and the report written between two such checks; its garbage keeps this thread's heap small; and
+ * a larger one goes to a worker, where the memory and time budgets hold.
+ */
+export const HERE_MAX_CHARS = 256 * 1024;
+
+/**
+ * Documents this thread's share may run ahead of the output (submitted, not yet emitted): a
+ * worker's document that takes long holds every later outcome, which is then kept in memory.
+ */
+export const HERE_AHEAD = 16;
+
+/**
  * Checks jobs and hands each outcome to `emit` in input order, as soon as it and every earlier
  * one are done, so output stays deterministic and only out-of-order outcomes are held. Documents
  * are checked on at most `threads` worker threads within `budget`, except a lone small document
  * given as a list, which is checked in this thread. `threads` 'auto' starts one worker and adds
  * one each time the text read so far gives every worker MIN_CHARS_PER_WORKER (a stream's size
- * is known only as it is read), up to the cores. Resolves when all are emitted.
+ * is known only as it is read), up to the cores. With `here` (batch's default `--jobs`), this thread
+ * takes the place of one of two or more workers: it checks documents up to HERE_MAX_CHARS
+ * itself, between feeding the workers and emitting, and hands larger ones to a worker. On two
+ * cores that is one worker's start, one heap and the transfer of half the reports saved, and
+ * this thread, which would wait for the workers, checks instead. Resolves when all are emitted.
  */
 export async function checkAll(
   jobs: AsyncIterable<Job> | Iterable<Job>,
   threads: number | 'auto',
   emit: (o: Outcome, index: number) => void | Promise<void>,
   budget: Budget = DEFAULT_BUDGET,
+  how: PoolOptions = {},
 ): Promise<void> {
-  const workerFile = WORKER_FILE;
+  // a budget tighter than the default is held for every document: each is checked on a worker
+  const here = (how.here ?? false) && budget.memoryMb >= DEFAULT_BUDGET.memoryMb && budget.seconds >= DEFAULT_BUDGET.seconds;
+  const workerFile = how.workerFile ?? WORKER_FILE;
   const list = Array.isArray(jobs) ? (jobs as Job[]) : undefined;
   const lone = list !== undefined && list.length <= 1 && list.every((j) => !('source' in j) || j.source.length <= IN_THREAD_MAX_CHARS);
   // without the compiled worker (running from sources under a test runner) documents are checked here
@@ -97,23 +118,30 @@ export async function checkAll(
   let exhausted = false;
   let charsRead = 0;
   const slots = new Set<Slot>();
+  /** This thread checks documents too (`here`), from when two or more threads are wanted. */
+  let checkingHere = false;
+  /** This thread met a document too large for it and gave its place to a worker. */
+  let retired = false;
+  /** Wakes this thread's share when an outcome is emitted (it waits while too far ahead). */
+  let advanced: (() => void) | undefined;
   const flush = async () => {
     while (pending.has(nextToEmit)) {
       const o = pending.get(nextToEmit) as Outcome;
       pending.delete(nextToEmit);
       await emit(o, nextToEmit);
       nextToEmit += 1;
+      advanced?.();
     }
   };
   try {
     await new Promise<void>((resolve, reject) => {
       const iterator = (Symbol.asyncIterator in Object(jobs) ? (jobs as AsyncIterable<Job>)[Symbol.asyncIterator]() : (jobs as Iterable<Job>)[Symbol.iterator]()) as AsyncIterator<Job> | Iterator<Job>;
       const done = () => exhausted && nextToEmit === submitted && pending.size === 0;
-      const settle = (index: number, outcome: Outcome, slot: Slot) => {
+      const settle = (index: number, outcome: Outcome, slot?: Slot): Promise<void> => {
         pending.set(index, outcome);
-        flush()
-          .then(() => (done() ? resolve() : feed(slot)))
-          .catch(reject);
+        const flushed = flush().then(() => (done() ? resolve() : slot && feed(slot)));
+        flushed.catch(reject);
+        return flushed.catch(() => undefined);
       };
       /** The time budget of the slot's first document, which its worker is checking now. */
       const arm = (slot: Slot) => {
@@ -136,7 +164,7 @@ export async function checkAll(
         const old = slot.worker;
         start(slot);
         void old?.terminate();
-        if (head !== undefined) settle(head.index, { error: `not checked: ${why}` }, slot);
+        if (head !== undefined) void settle(head.index, { error: `not checked: ${why}` }, slot);
       };
       /** A worker for a slot; it asks for work when it has loaded (the time budgets start only then). */
       const start = (slot: Slot) => {
@@ -158,13 +186,13 @@ export async function checkAll(
           slot.queue.shift();
           arm(slot);
           if ('error' in m) {
-            settle(m.index, { error: m.error }, slot);
+            void settle(m.index, { error: m.error }, slot);
             return;
           }
           // the text is not sent back: it is the one sent
           const outcome = (): Outcome => ({ report: { ...receivedReport(m.bytes), source: head.job.source } });
           if (!exhausted || slot.queue.length > 0) {
-            settle(m.index, outcome(), slot);
+            void settle(m.index, outcome(), slot);
             return;
           }
           // the worker's last document: the worker is stopped, its heap given back, before the
@@ -182,11 +210,77 @@ export async function checkAll(
         });
       };
       const grow = () => {
-        const wanted = threads === 'auto' ? Math.min(limit, Math.max(1, Math.floor(charsRead / MIN_CHARS_PER_WORKER))) : limit;
+        let wanted = threads === 'auto' ? Math.min(limit, Math.max(1, Math.floor(charsRead / MIN_CHARS_PER_WORKER))) : limit;
+        if (retired) {
+          // this thread has handed its place back to a worker
+        } else if (here && wanted >= 2) {
+          // this thread is one of them
+          wanted -= 1;
+          if (!checkingHere) {
+            checkingHere = true;
+            checkHereLoop().catch(reject);
+          }
+        }
         while (slots.size < wanted) {
           const slot: Slot = { queue: [] };
           slots.add(slot);
           start(slot);
+        }
+      };
+      /** Gives a document to the worker with the fewest (this thread's share is too large for it). */
+      const handOver = (item: { index: number; job: { path: string; source: string; options: CheckOptions } }) => {
+        let slot: Slot | undefined;
+        for (const s of slots) if (slot === undefined || s.queue.length < slot.queue.length) slot = s;
+        if (slot === undefined) throw new Error('no worker to hand a document to');
+        slot.queue.push(item);
+        // a worker still loading is sent its queue when it is ready
+        if (slot.ready) {
+          slot.worker?.postMessage({ index: item.index, ...item.job });
+          if (slot.queue.length === 1) arm(slot);
+        }
+      };
+      /**
+       * This thread's share: the next document, checked here when small, else handed to a
+       * worker, and then, if fewer workers run than asked for, one more is started and this
+       * thread stops checking (a run with large documents is checked as without `here`); after each, its outcome is emitted (waiting for the output as a worker's feed
+       * does) and the event loop turns, so workers' reports and requests are served in between.
+       */
+      const checkHereLoop = async (): Promise<void> => {
+        while (!exhausted) {
+          // no further ahead of the output than HERE_AHEAD documents: they are held until emitted
+          while (submitted - nextToEmit >= HERE_AHEAD) await new Promise<void>((wake) => (advanced = wake));
+          advanced = undefined;
+          if (exhausted) return;
+          const step = await iterator.next();
+          if (step.done) {
+            exhausted = true;
+            if (done()) resolve();
+            return;
+          }
+          const index = submitted;
+          submitted += 1;
+          const job = step.value;
+          if ('error' in job) {
+            await settle(index, { error: job.error });
+            continue;
+          }
+          charsRead += job.source.length;
+          grow();
+          if (job.source.length > HERE_MAX_CHARS) {
+            handOver({ index, job });
+            // large documents are in the run: the workers take them all, as many as asked for
+            if (slots.size < limit) {
+              retired = true;
+              const slot: Slot = { queue: [] };
+              slots.add(slot);
+              start(slot);
+              return;
+            }
+            continue;
+          }
+          how.checkedHere?.(index);
+          await settle(index, checkHere(job));
+          await new Promise<void>((turn) => setImmediate(turn));
         }
       };
       const feed = async (slot: Slot): Promise<void> => {
@@ -203,7 +297,7 @@ export async function checkAll(
             const index = submitted;
             submitted += 1;
             if ('error' in step.value) {
-              settle(index, { error: step.value.error }, slot);
+              void settle(index, { error: step.value.error }, slot);
               continue;
             }
             charsRead += step.value.source.length;
@@ -222,6 +316,20 @@ export async function checkAll(
     for (const s of slots) clearTimeout(s.timer);
     await Promise.all([...slots].map((s) => s.worker?.terminate()));
   }
+}
+
+/** How `checkAll` shares the work. */
+export interface PoolOptions {
+  /**
+   * This thread checks small documents too, in place of one of two or more workers (batch's
+   * default `--jobs`, where this thread keeps no report once written); only under budgets no
+   * tighter than DEFAULT_BUDGET, which such a document keeps.
+   */
+  here?: boolean;
+  /** The worker's script (default WORKER_FILE, the compiled one beside this module). */
+  workerFile?: string;
+  /** Told the index of each document this thread checks itself (tests, diagnostics). */
+  checkedHere?: (index: number) => void;
 }
 
 interface Slot {

@@ -5,7 +5,7 @@ import { RULE_IDS, RULES, ruleById, type CheckOptions } from '../engine/index.js
 // the formatters load when the run knows which one it needs (write, below): start-up stays small
 import { CAUTIONS, SKIPPED_LINK_REASON, countRun, type RunReport } from '../report/types.js';
 import { say, terminalSafe } from '../report/text.js';
-import { inChunks } from '../report/chunks.js';
+import { inChunks, wholeText } from '../report/chunks.js';
 import { parseArguments, type CliOptions } from './args.js';
 import type { SingleBar } from 'cli-progress';
 import { applyBaseline, baselineText, BaselineError, readBaseline, recordBaseline, type Baseline } from './baseline.js';
@@ -16,7 +16,8 @@ import { checkFiles, configMessage } from './runner.js';
 import { fixFiles } from './fixFiles.js';
 import { ConfigError, ConfigFinder, readConfigFile, type Config } from '../config/index.js';
 import { DEFAULT_MAX_FILE_BYTES, type ReadOutcome } from './read.js';
-import { DEFAULT_BUDGET, type Budget, type Job } from './pool.js';
+import { DEFAULT_BUDGET, IN_THREAD_MAX_CHARS, type Budget, type Job } from './pool.js';
+import type { FileReport } from '../engine/index.js';
 
 export interface Io {
   /** Write to standard output; resolves once the stream can take more (back-pressure). */
@@ -168,6 +169,9 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
   let bar: SingleBar | undefined;
   let barLoading: Promise<void> | undefined;
   let latest = 0;
+  // the JSON report's files are laid out as they come in, while later ones are checked; not when
+  // the report's files are made again after the run (a new baseline) or the run is redone (--fix)
+  const early = options.format === 'json' && options.fix === undefined && options.writeBaseline === undefined ? await jsonFilesAsTheyCome() : undefined;
   const run = await checkFiles(options.files, {
     cwd: io.cwd,
     ...(options.alpha !== undefined ? { alpha: options.alpha } : {}),
@@ -184,6 +188,7 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
     ...(baseline ? { baseline } : {}),
     errorsOnly: options.quiet,
     withRulePages: options.format === 'sarif',
+    ...(early ? { onFile: early.add } : {}),
     onProgress: (done, total) => {
       // a progress bar on standard error for long runs, only on a terminal and never in CI; its
       // module loads then, and the bar starts at the count reached by the time it has loaded
@@ -257,7 +262,7 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
   for (const link of run.skippedLinks) io.stderr(say`plumbline: ${link}: ${SKIPPED_LINK_REASON}\n`);
   // diagnostics go to standard error in every format; reports carry them as data too
   for (const f of report.failures) io.stderr(say`plumbline: ${f.path}${f.line !== undefined ? `:${f.line}${f.column !== undefined ? `:${f.column}` : ''}` : ''}: ${f.message}\n`);
-  await write(report, options, io, toFile);
+  await write(report, options, io, toFile, early?.made);
 
   const counts = countRun(report);
   if (report.failures.length > 0) return EXIT.trouble;
@@ -265,7 +270,25 @@ async function check(options: CliOptions, io: Io, writes: string[], toFile = fal
   return EXIT.clean;
 }
 
-async function write(report: RunReport, options: CliOptions, io: Io, toFile: boolean): Promise<void> {
+/**
+ * The JSON report's files laid out as the run gives them (each file's text, by the very file
+ * object the report shows), so the main thread's share of the report is done while workers
+ * check: what is left at the end is the summary and joining. A file longer than
+ * IN_THREAD_MAX_CHARS is laid out at the end, straight to the output, so its report's text is
+ * never held whole beside its objects (bench figure 13).
+ */
+async function jsonFilesAsTheyCome(): Promise<{ add: (file: FileReport) => void; made: (file: FileReport) => string | undefined }> {
+  const { fileChunks } = await import('../report/json.js');
+  const texts = new WeakMap<FileReport, string>();
+  return {
+    add: (file) => {
+      if (file.source.length <= IN_THREAD_MAX_CHARS) texts.set(file, wholeText(fileChunks(file)));
+    },
+    made: (file) => texts.get(file),
+  };
+}
+
+async function write(report: RunReport, options: CliOptions, io: Io, toFile: boolean, made?: (file: FileReport) => string | undefined): Promise<void> {
   const counts = countRun(report);
   const shown = counts.error + counts.warning + counts.note;
   // every format in chunks of at most 64 KiB: a report of some 110,000 results in HTML, or
@@ -275,7 +298,7 @@ async function write(report: RunReport, options: CliOptions, io: Io, toFile: boo
   };
   switch (options.format) {
     case 'json':
-      return put((await import('../report/json.js')).formatJsonChunks(report));
+      return put((await import('../report/json.js')).formatJsonChunks(report, made));
     case 'sarif':
       return put((await import('../report/sarif.js')).formatSarifChunks(report, io.cwd));
     case 'checklist':

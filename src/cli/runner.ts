@@ -53,6 +53,13 @@ export interface RunnerOptions {
   withRulePages?: boolean;
   /** Called after each document, for a progress display. */
   onProgress?: (done: number, total: number) => void;
+  /**
+   * Called with each file of the report as it will be in `report.files` (the very object), in
+   * input order, as soon as it and every file before it are checked: a formatter can lay it out
+   * while later files are checked. Not called when a baseline is given (it is applied to all
+   * files once they are in).
+   */
+  onFile?: (file: FileReport, index: number) => void;
 }
 
 export interface FileRun {
@@ -182,27 +189,37 @@ export async function checkFiles(args: readonly string[], options: RunnerOptions
   }
 
   const reports: FileReport[] = [];
+  // without a baseline, each file is shown as soon as it is in (with --quiet, its errors only)
+  const shownNow: FileReport[] = [];
+  const errorsOf = (r: FileReport): FileReport => ({ ...r, findings: r.findings.filter((f) => f.level === 'error') });
   let done = 0;
   await checkAll(
     jobs,
     options.jobs ?? defaultThreads(jobs),
     (o, i) => {
-    if ('report' in o) reports.push(o.report);
-    else failures.push({ path: (jobs[i] as Job).path, message: o.error });
+    if ('report' in o) {
+      reports.push(o.report);
+      if (!options.baseline) {
+        const file = options.errorsOnly ? errorsOf(o.report) : o.report;
+        options.onFile?.(file, shownNow.length);
+        shownNow.push(file);
+      }
+    } else failures.push({ path: (jobs[i] as Job).path, message: o.error });
     done += 1;
     options.onProgress?.(done, jobs.length);
     },
     options.budget ?? DEFAULT_BUDGET,
+    // this thread keeps every report of the run (its old generation grows with them, and each
+    // collection there costs more): it checks nothing itself, unlike batch's (pool.ts, `here`)
   );
 
-  let shown = reports;
+  let shown = shownNow;
   let stale = 0;
   if (options.baseline) {
     const applied = applyBaseline(reports, options.baseline, cwd);
-    shown = applied.reports;
+    shown = options.errorsOnly ? applied.reports.map(errorsOf) : applied.reports;
     stale = applied.unmatched;
   }
-  if (options.errorsOnly) shown = shown.map((r) => ({ ...r, findings: r.findings.filter((f) => f.level === 'error') }));
   return { report: { tool: { name: 'plumbline', version: toolVersion() }, files: shown, failures, rules, ...linksSaid }, unfiltered: reports, staleBaselineEntries: stale, skippedLinks };
 }
 

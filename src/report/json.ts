@@ -26,12 +26,15 @@ export function formatJson(run: RunReport): string {
  * string (some 200,000 results are longer than any string can be) nor as a second tree of
  * objects beside the run's.
  */
-export function* formatJsonChunks(run: RunReport): Generator<string> {
+export function* formatJsonChunks(run: RunReport, made?: (file: FileReport) => string | undefined): Generator<string> {
   const counts = countRun(run);
   yield `{"reportVersion":${JSON.stringify(JSON_REPORT_VERSION)},"tool":${JSON.stringify(run.tool)},"summary":${JSON.stringify(counts)},"files":[`;
   for (const [i, file] of run.files.entries()) {
     if (i > 0) yield ',';
-    yield* fileChunks(file);
+    // a file laid out already, while the run's later files were checked (`made`: its fileChunks, joined)
+    const text = made?.(file);
+    if (text !== undefined) yield text;
+    else yield* fileChunks(file);
   }
   yield `],"failures":${JSON.stringify(run.failures)}`;
   // links a folder walk did not follow (they lead outside it); absent when there were none
