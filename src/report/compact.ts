@@ -106,6 +106,9 @@ export class FileEncoder {
     return [this.text(template.join('')), runs.join(' ')];
   }
 
+  /** The `check`, `recomputed.quantity` and `assumptions` last written for each rule and message (`sameAsBefore`). */
+  readonly lastOfKind = new Map<string, { check?: string; quantity?: string; assumptions?: string }>();
+
   /** Each result and statistic as in memory, by id: what a finding's left-out members repeat (its `printed`, place, recomputed p and p's last digit). */
   readonly itemOf = new Map<string, Record<string, unknown>>();
 
@@ -246,6 +249,7 @@ function findingDefaults(encoder: FileEncoder, f: JsonObject, raw: Record<string
     }
   }
   if (isObject(g)) for (const k of left) delete (g as JsonObject)[k];
+  sameAsBefore(encoder.lastOfKind, f);
   if (typeof raw.ruleId === 'string' && P_FIGURE_RULES.has(raw.ruleId)) {
     if (f.figure === undefined) f.figure = null;
     else if (sameJson(f.figure, P_FIGURE)) delete f.figure;
@@ -258,6 +262,38 @@ function findingDefaults(encoder: FileEncoder, f: JsonObject, raw: Record<string
     if (mid && isRange(figure.midpoint) && figure.midpoint.low === mid.low && figure.midpoint.high === mid.high && Object.keys(figure.midpoint).length === 2) delete figure.midpoint;
   }
   return f;
+}
+
+/** What a finding of each rule and message repeats from the one before it: the key of that pair. */
+const kindOf = (f: Record<string, unknown>) => `${String(f.ruleId)}\u0000${JSON.stringify(f.messageId)}`;
+
+/**
+ * 2.1.0: a finding's `check`, `recomputed.quantity` and `recomputed.assumptions` are left out
+ * when they are (as written) those of the last finding before it in the file with the same
+ * `ruleId` and `messageId` that has them. `last` holds those, by the pair; it is updated with
+ * this finding's own.
+ */
+function sameAsBefore(last: Map<string, { check?: string; quantity?: string; assumptions?: string }>, f: JsonObject): void {
+  const key = kindOf(f);
+  let before = last.get(key);
+  if (before === undefined) {
+    before = {};
+    last.set(key, before);
+  }
+  if (f.check !== undefined) {
+    const own = JSON.stringify(f.check);
+    if (before.check === own) delete f.check;
+    before.check = own;
+  }
+  const rec = f.recomputed;
+  if (isObject(rec)) {
+    for (const k of ['quantity', 'assumptions'] as const) {
+      if (rec[k] === undefined) continue;
+      const own = JSON.stringify(rec[k]);
+      if (before[k] === own) delete (rec as JsonObject)[k];
+      before[k] = own;
+    }
+  }
 }
 
 /**
@@ -387,7 +423,21 @@ export function expandFile(file: Record<string, unknown>): Record<string, unknow
   if (Array.isArray(out.findings)) {
     const itemOf = new Map<unknown, Record<string, unknown>>();
     for (const list of [out.results, out.statistics]) if (Array.isArray(list)) for (const x of list as Array<Record<string, unknown>>) itemOf.set(x.id, x);
+    const last = new Map<string, { check?: unknown; quantity?: unknown; assumptions?: unknown }>();
     for (const f of out.findings as Array<Record<string, unknown>>) {
+      // check, quantity and assumptions left out when the last finding of the same rule and message had them
+      const key = kindOf(f);
+      const before = last.get(key) ?? {};
+      last.set(key, before);
+      if (!('check' in f) && 'check' in before) f.check = before.check;
+      if ('check' in f) before.check = f.check;
+      const r = f.recomputed;
+      if (isObject(r)) {
+        for (const k of ['quantity', 'assumptions'] as const) {
+          if (!(k in r) && k in before) r[k] = structuredClone(before[k]);
+          if (k in r) before[k] = r[k];
+        }
+      }
       const host = itemOf.get(f.resultId);
       // in the order they were derived: the place, the recomputed range, then the gap's members from it
       if (host !== undefined) {

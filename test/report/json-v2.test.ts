@@ -79,14 +79,21 @@ describe('JSON report 2.x', () => {
     expect(r).not.toHaveProperty('start');
     expect(r.t).not.toHaveProperty('exponent');
     expect(new Set(file.texts).size).toBe(file.texts.length);
-    // a finding's advice is one index, the same for every finding of its rule and message
-    const checks = new Map<string, Set<number>>();
+    // a finding's advice is one index, the same for every finding of its rule and message: written
+    // on the first of them (2.1.0), as are a recomputation's quantity and assumptions when they repeat
+    const checks = new Map<string, number>();
     for (const f of file.findings) {
-      expect(typeof f.check).toBe('number');
       const k = `${f.ruleId}/${f.messageId}`;
-      checks.set(k, (checks.get(k) ?? new Set()).add(f.check));
+      if (checks.has(k)) expect(f).not.toHaveProperty('check');
+      else {
+        expect(typeof f.check).toBe('number');
+        checks.set(k, f.check);
+      }
     }
-    for (const s of checks.values()) expect(s.size).toBe(1);
+    const read = readJsonReport(JSON.parse(formatJson(run))) as { files: Array<{ findings: Array<{ ruleId: string; messageId: string; check: string }> }> };
+    const texts = new Map<string, Set<string>>();
+    for (const f of read.files[0]?.findings ?? []) texts.set(`${f.ruleId}/${f.messageId}`, (texts.get(`${f.ruleId}/${f.messageId}`) ?? new Set()).add(f.check));
+    expect([...texts.values()].every((s) => s.size === 1)).toBe(true);
   });
   it('is less than half the 1.x text of the same run', () => {
     const run = runOf([['many.md', manyResults(600)]]);
@@ -210,7 +217,14 @@ describe('the omissions of report 2.1.0, each written only where its derivation 
     f0.gap.roundingAllowance = 0.004;
     f2.gap.absolute += 1e-12;
     delete f1.figure;
+    // a check and assumptions of their own, against the finding of the same rule and message before
+    f2.check = 'Check the p against the output.';
+    if (f2.recomputed) f2.recomputed.assumptions = [...f2.recomputed.assumptions, 'an invented assumption'];
     const w = written(run);
+    expect(w.findings[1]).not.toHaveProperty('check');
+    expect(typeof w.findings[2]?.check).toBe('number');
+    expect(w.findings[1]?.recomputed).not.toHaveProperty('assumptions');
+    expect(w.findings[2]?.recomputed).toHaveProperty('assumptions');
     expect(w.results[0]?.t?.printed).toBe('1.120');
     expect(w.results[0]?.p?.op).toBe('~');
     expect(w.results[1]?.t?.op).toBe('>');
