@@ -4,6 +4,7 @@ import type { Readable } from 'node:stream';
 import { StringDecoder } from 'node:string_decoder';
 import { CorpusTally } from '../corpus/summary.js';
 import { DOCUMENTS_CSV_HEADER, documentCsvRow, gapsCsv, rulesCsv } from '../report/summaryCsv.js';
+import { readJsonReport } from '../report/json.js';
 import { formatSummaryHtml } from '../report/summaryHtml.js';
 import type { CliOptions } from './args.js';
 import { describeError } from './files.js';
@@ -34,7 +35,7 @@ export async function runSummarize(options: CliOptions, io: Io, writes: string[]
   }
   const csv = options.summaryFormat !== 'html';
   const documents = csv && options.table === 'documents';
-  const tally = new CorpusTally();
+  const tally = new CorpusTally(readJsonReport);
   let trouble = false;
   let unreadable = 0;
   if (documents) await io.stdout(DOCUMENTS_CSV_HEADER);

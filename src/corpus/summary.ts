@@ -98,6 +98,13 @@ interface RuleTally {
 const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 
 export class CorpusTally {
+  /**
+   * `read`: how a batch line is read into the 1.x shape (the command passes readJsonReport of
+   * src/report/json.ts: report 2.1.0 leaves out a gap's members its result gives back); by
+   * default the line as it is.
+   */
+  constructor(private readonly read: (doc: Record<string, unknown>) => Record<string, unknown> = (doc) => doc) {}
+
   private lines = 0;
   private checked = 0;
   private notChecked = 0;
@@ -132,9 +139,12 @@ export class CorpusTally {
     const byLevel = zeroLevels();
     const seen = new Set<string>();
     let findings = 0;
-    // report 2.x lines leave out a gap's lastDigitUnits where it is absolute / (2 × roundingAllowance)
-    // (schema/report.schema.json); a rule's id is a plain string in 1.x and 2.x alike
-    for (const f of doc.findings) {
+    // report 2.x lines leave out a gap's lastDigitUnits where it is absolute / (2 × roundingAllowance),
+    // and 2.1.0 also absolute and roundingAllowance where the result gives them back (schema/report.schema.json):
+    // read through `read`; a rule's id is a plain string in 1.x and 2.x alike
+    const full = this.read(doc);
+    const found = Array.isArray(full.findings) ? full.findings : doc.findings;
+    for (const f of found) {
       if (!isRecord(f)) continue;
       const ruleId: unknown = f.ruleId;
       if (typeof ruleId !== 'string') continue;

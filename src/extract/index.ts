@@ -72,7 +72,8 @@ export class ExtractionCache {
  * read, never written, after the segment's own recognisers.
  */
 function fresh(finds: SegmentFinds): SegmentFinds {
-  return { ...finds, tests: finds.tests.map((t) => (t.p ? { ...t, p: { ...t.p } } : { ...t })) };
+  // copied with Object.assign: a literal opening with a spread gives each copy a hidden class of its own (DEVELOPERS.md, Speed)
+  return { ...finds, tests: finds.tests.map((t) => Object.assign({}, t, t.p ? { p: Object.assign({}, t.p) } : undefined)) };
 }
 
 /**

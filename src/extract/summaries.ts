@@ -209,13 +209,13 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     push({ kind: 'n', start: m.index, end: m.index + m[0].length, a, percent: false, perGroup });
     const end = m.index + m[0].length;
     const subset = !perGroup && SUBSET_AFTER.test(text.slice(end, end + 16));
-    sampleSizes.push({ ...where(m.index, end), n: a, scope: perGroup ? 'per-group' : subset ? 'subset' : capital ? 'total' : 'unspecified' });
+    sampleSizes.push(Object.assign(where(m.index, end), { n: a, scope: perGroup ? ('per-group' as const) : subset ? ('subset' as const) : capital ? ('total' as const) : ('unspecified' as const) }));
   }
   const groupSizes: GroupSizes[] = [];
   if (/ and | vs|versus|, /.test(text)) for (const m of text.matchAll(N_PAIR)) {
     const a = num(seg, m, 1) ?? num(seg, m, 3);
     const b = num(seg, m, 2) ?? num(seg, m, 4);
-    if (a && b) groupSizes.push({ ...where(m.index, m.index + m[0].length), ns: [a, b] });
+    if (a && b) groupSizes.push(Object.assign(where(m.index, m.index + m[0].length), { ns: [a, b] as [ReportedNumber, ReportedNumber] }));
   }
   // the kinds of unit each sentence counts
   const kindsOfSentence = perSentence(unitKindsIn);
@@ -230,7 +230,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     // not say which the groups are of, so neither count is certainly their total
     if (!perGroup && otherKindIn(kindsOfSentence(m.index), m[2] as string)) continue;
     // "N = 60 staff" is one statement of the total, already read
-    if (a && !sampleSizes.some((s) => s.n.span.start === a.span.start)) sampleSizes.push({ ...where(m.index, end), n: a, scope: perGroup ? 'per-group' : 'total' });
+    if (a && !sampleSizes.some((s) => s.n.span.start === a.span.start)) sampleSizes.push(Object.assign(where(m.index, end), { n: a, scope: perGroup ? ('per-group' as const) : ('total' as const) }));
   }
   tokens.sort((x, y) => x.start - y.start);
 
@@ -281,7 +281,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     const low = num(seg, m, 2);
     const high = num(seg, m, 3);
     if (!low || !high || low.value > high.value) continue;
-    intervals.push({ ...where(m.index, m.index + m[0].length), level: Number(m[1]) / 100, low, high });
+    intervals.push(Object.assign(where(m.index, m.index + m[0].length), { level: Number(m[1]) / 100, low, high }));
   }
   const estimates: EstimateReport[] = [];
   if (/difference|MD|diff|\b[bB] ?[=:]|β|estimate|Δ|change/.test(text)) for (const m of text.matchAll(ESTIMATE)) {
@@ -293,13 +293,13 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     const seMatch = coefficient ? COEFFICIENT_SE.exec(text.slice(end, end + 40)) : null;
     const seAt = seMatch?.indices?.[1];
     const se = seAt ? readNumber(seg, end + seAt[0], end + seAt[1]) : undefined;
-    estimates.push({ ...where(m.index, end), value, ...(coefficient ? { kind: 'coefficient' as const } : {}), ...(se ? { se } : {}) });
+    estimates.push(Object.assign(where(m.index, end), { value, ...(coefficient ? { kind: 'coefficient' as const } : {}), ...(se ? { se } : {}) }));
   }
   const effectSizes: EffectSizeReport[] = [];
   if (/\b[dg](?:_?\{?(?:z|av)\}?)? ?=/.test(text)) for (const m of text.matchAll(EFFECT)) {
     const value = num(seg, m, 2);
     const k = (m[1] as string).replace(/[_{}]/g, '');
-    if (value) effectSizes.push({ ...where(m.index, m.index + m[0].length), value, kind: k === 'dz' ? 'dz' : k === 'dav' ? 'dav' : k === 'g' ? 'g' : 'd' });
+    if (value) effectSizes.push(Object.assign(where(m.index, m.index + m[0].length), { value, kind: k === 'dz' ? ('dz' as const) : k === 'dav' ? ('dav' as const) : k === 'g' ? ('g' as const) : ('d' as const) }));
   }
   const designs: DesignStatement[] = [];
   // whether a sentence names a study or experiment ("Experiment 2", "Study II"); an order of
@@ -314,13 +314,13 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
       if (design === 'paired' && !pairedInContext(text, m.index, m[0], namesBothTimes)) continue;
       // "paired Student's t-test" is a paired test
       if (design === 'independent' && /^student/iu.test(m[0]) && /paired $/iu.test(text.slice(Math.max(0, m.index - 7), m.index))) continue;
-      designs.push({ ...where(m.index, m.index + m[0].length), design, ...(namesStudy(m.index) ? { namesStudy: true } : {}) });
+      designs.push(Object.assign(where(m.index, m.index + m[0].length), { design, ...(namesStudy(m.index) ? { namesStudy: true } : {}) }));
     }
   }
   const references: ReferenceValue[] = [];
   if (/test value|hypothesi|reference value|population mean|norm|benchmark|target|recommended|midpoint|chance/i.test(text)) for (const m of text.matchAll(REFERENCE)) {
     const value = num(seg, m, 1);
-    if (value) references.push({ ...where(m.index, m.index + m[0].length), value });
+    if (value) references.push(Object.assign(where(m.index, m.index + m[0].length), { value }));
   }
   const counts: CountPercent[] = [];
   if (text.includes('%)') || text.includes('% )')) for (const m of text.matchAll(COUNT_PERCENT)) {
@@ -332,7 +332,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     if (lead) {
       const c = readNumber(seg, lead.start, lead.end);
       if (c) {
-        counts.push({ ...where(lead.start, m.index + m[0].length), count: c, percent, of: count });
+        counts.push(Object.assign(where(lead.start, m.index + m[0].length), { count: c, percent, of: count }));
         continue;
       }
     }
@@ -344,7 +344,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     const ofAt = after ? end + (after.indices?.[1]?.[0] ?? 0) : before ? sentenceStart + (before.indices?.[1]?.[0] ?? 0) : -1;
     const ofText = (after ?? before)?.[1];
     const of = ofText && ofAt >= 0 ? readNumber(seg, ofAt, ofAt + ofText.length) : undefined;
-    counts.push({ ...where(m.index, end), count, percent, ...(of ? { of } : {}) });
+    counts.push(Object.assign(where(m.index, end), { count, percent, ...(of ? { of } : {}) }));
   }
   return { summaries, sampleSizes, groupSizes, intervals, estimates, effectSizes, designs, references, counts };
 }

@@ -185,8 +185,9 @@ function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceSta
   const sentence = sentenceOf(sentenceStarts, anchor.start);
   const sentenceStart = sentenceStarts[sentence] as number;
   const lead = leads.start(sentenceStart, sentenceStarts[sentence + 1] ?? text.length, anchor.start);
-  const report: TTestReport = {
-    ...(lead < anchor.start ? { lead: { start: sourceSpan(seg, lead, anchor.start).start, words: leads.wordsOf(lead, anchor.start) } } : {}),
+  // Object.assign onto a fresh object: a literal opening with a spread gives each record a hidden
+  // class of its own in V8 (DEVELOPERS.md, Speed)
+  const report: TTestReport = Object.assign({}, lead < anchor.start ? { lead: { start: sourceSpan(seg, lead, anchor.start).start, words: leads.wordsOf(lead, anchor.start) } } : undefined, {
     id: `${seg.id}:${anchor.start}`,
     segment: seg.id,
     block: seg.block,
@@ -214,7 +215,7 @@ function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceSta
       : {}),
     ...(variant ? { namedVariant: variantName(variant[1] as string) } : {}),
     ...(seg.table ? { table: { table: seg.table.table, row: seg.table.row } } : {}),
-  };
+  });
   return report;
 }
 

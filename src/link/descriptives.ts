@@ -349,7 +349,7 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
   };
   const effectSizes = row ? inRow(t.rows.effectSizes, n.effectSizes) : owned(report, clause, clauses, n.effectSizes);
   const intervals = row
-    ? inRow(t.rows.intervals, n.intervals).map((ci): IntervalLink => ({ ...ci, of: 'estimate' }))
+    ? inRow(t.rows.intervals, n.intervals).map((ci): IntervalLink => Object.assign({}, ci, { of: 'estimate' as const }))
     : owned(report, clause, clauses, n.intervals).map((ci) => intervalTarget(ci, report, clause, n));
   const interval = intervals.find((i) => i.of === 'estimate');
   const leading = clause.leadingEstimate;
@@ -371,11 +371,12 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
   // test ("was above the target of 4, t(23) = …") unless two groups are tied to it
   const againstValue: Setting<Design> | undefined =
     sentenceReferences[0] && link?.groups.length !== 2 && !groupSizes ? { value: 'one-sample', basis: 'sentence', span: sentenceReferences[0].span, printed: sentenceReferences[0].printed } : undefined;
+  // no literal opening with a spread: V8 would give each context a hidden class of its own (DEVELOPERS.md, Speed)
   return {
-    ...(link ? { descriptives: link } : {}),
-    ...(unlinked ? { unlinked } : {}),
     // one group of descriptives is a one-sample test (or differences) before the Methods' design
     design: unlessUnequal(designFor(report, clause, clauses, n.designs, t.memo) ?? againstValue ?? (link?.groups.length === 1 ? oneGroup : undefined) ?? assignedGroups(link, t.assignments) ?? t.methodsDesign ?? { value: 'unknown', basis: 'default' }, link, groupSizes),
+    ...(link ? { descriptives: link } : {}),
+    ...(unlinked ? { unlinked } : {}),
     ...(groupSizes ? { groupSizes } : {}),
     ...(reference ? { reference } : {}),
     ...(interval ? { interval } : {}),
@@ -427,12 +428,12 @@ function intervalTarget(ci: Linked<IntervalReport>, report: TTestReport, clause:
   candidates.sort((a, b) => b.end - a.end);
   const nearest = candidates[0];
   // Nothing before it in the sentence: an interval opening the sentence of a lone test is the test's.
-  if (!nearest) return { ...ci, of: 'estimate' };
+  if (!nearest) return Object.assign({}, ci, { of: 'estimate' as const });
   if (nearest.effectSize && !canHold(ci.item, nearest.effectSize.value)) {
     const next = candidates.find((c) => c.of !== 'effect-size') ?? { of: 'estimate' as const };
-    return { ...ci, certain: false, doubt: `it follows ${nearest.effectSize.printed}, which it cannot hold, so it may be that effect size's interval mistyped`, of: next.of };
+    return Object.assign({}, ci, { certain: false, doubt: `it follows ${nearest.effectSize.printed}, which it cannot hold, so it may be that effect size's interval mistyped`, of: next.of });
   }
-  return { ...ci, of: nearest.of, ...(nearest.effectSize ? { effectSize: nearest.effectSize } : {}) };
+  return Object.assign({}, ci, { of: nearest.of }, nearest.effectSize ? { effectSize: nearest.effectSize } : undefined);
 }
 
 /** Whether an interval, widened by half a unit of its last printed digits, holds ±x (x widened likewise). */

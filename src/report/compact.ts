@@ -106,14 +106,22 @@ export class FileEncoder {
     return [this.text(template.join('')), runs.join(' ')];
   }
 
-  /** Each result's and statistic's `printed`, by id: a finding's `reported` that repeats it is left out. */
-  readonly printedOf = new Map<string, string>();
+  /** The `check`, `recomputed.quantity` and `assumptions` last written for each rule and message (`sameAsBefore`). */
+  readonly lastOfKind = new Map<string, { check?: string; quantity?: string; assumptions?: string }>();
+
+  /** Each result and statistic as in memory, by id: what a finding's left-out members repeat (its `printed`, place, recomputed p and p's last digit). */
+  readonly itemOf = new Map<string, Record<string, unknown>>();
 
   /** The encoded file setting (`alpha`, `sidedness`) a result leaves out when its own is the same. */
   fileSettings: { alpha?: string; sidedness?: string } = {};
 
-  /** A value of the in-memory report (as JSON.stringify would see it) in the 2.x shape. */
-  encode(v: unknown, key = ''): Json | undefined {
+  /**
+   * A value of the in-memory report (as JSON.stringify would see it) in the 2.x shape. `host`:
+   * the result or statistic the value is part of (its `printed` and where that starts), for the
+   * omissions of 2.1.0 inside it: a place's `printed` that is the slice of the host's `printed`
+   * at the place's offsets, a p's `kind` "value", and an `op` "=" of a p, t or statistic value.
+   */
+  encode(v: unknown, key = '', host?: Host, own?: Host): Json | undefined {
     if (v === undefined || typeof v === 'function' || typeof v === 'symbol') return undefined;
     if (v === null || typeof v === 'boolean') return v;
     if (typeof v === 'number') return Number.isFinite(v) ? v : null;
@@ -122,10 +130,13 @@ export class FileEncoder {
       if (PIECE_KEYS.has(key)) return this.pieces(v);
       return v;
     }
-    if (Array.isArray(v)) return v.map((x) => this.encode(x, key) ?? null);
+    if (Array.isArray(v)) return v.map((x) => this.encode(x, key, host) ?? null);
     const o = v as Record<string, unknown>;
     const out: JsonObject = {};
     const place = isPlace(o);
+    const sliced = host !== undefined && place && typeof o.printed === 'string' && sliceOf(host, (o.span as { start: number }).start, (o.span as { end: number }).end) === o.printed;
+    // a result's or statistic's own places and numbers are read inside it
+    const inner = own ?? host;
     const plain = NUMBER_KEYS.has(key) && typeof o.printed === 'string' && typeof o.value === 'number' && typeof o.decimals === 'number' ? plainDecimal(o.printed) : undefined;
     for (const k of Object.keys(o)) {
       const x = o[k];
@@ -141,12 +152,30 @@ export class FileEncoder {
         if (plain && k === 'value' && Object.is(x, plain.value)) continue;
         if (plain && k === 'decimals' && x === plain.decimals) continue;
       }
-      const e = this.encode(x, k);
+      if (sliced && k === 'printed') continue;
+      if (host !== undefined && place && k === 'kind' && x === 'value' && P_KEYS.has(key)) continue;
+      if (host !== undefined && place && k === 'op' && x === '=' && OP_KEYS.has(key)) continue;
+      const e = this.encode(x, k, inner);
       if (e !== undefined) out[k] = e;
     }
     return out;
   }
 }
+
+/** A result or statistic as the host of the places inside it: its printed text and the offset where that starts. */
+type Host = { printed: string; start: number };
+
+/** The text of the host's `printed` between two offsets of the file, or undefined when they are not inside it. */
+function sliceOf(host: Host, start: number, end: number): string | undefined {
+  const from = start - host.start;
+  const to = end - host.start;
+  return from >= 0 && to >= from && to <= host.printed.length ? host.printed.slice(from, to) : undefined;
+}
+
+/** Keys of a host's reported p (2.1.0: `kind` "value" and `op` "=" left out). */
+const P_KEYS = new Set(['p', 'adjustedP']);
+/** Keys of a host's values with a comparison (2.1.0: `op` "=" left out). */
+const OP_KEYS = new Set(['p', 'adjustedP', 't', 'value']);
 
 const sameJson = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
 const isRange = (v: unknown): v is { low: number; high: number } => isObject(v) && typeof v.low === 'number' && typeof v.high === 'number';
@@ -185,11 +214,46 @@ const UNKNOWN_DESIGN = { value: 'unknown', basis: 'default' };
  * `absolute / (2 × roundingAllowance)`; `reported` when it is the `printed` of the result or
  * statistic its `resultId` names; an interval figure's `midpoint` when it is exactly the mean of
  * `lower` and `upper` (low with low, high with high), and its `estimate` when it is the midpoint.
+ * 2.1.0, each only where the writer finds the derivation gives back the same value: `at` when it
+ * is that result's (and no `start`/`end` of its own is kept); `recomputed.low` and `high` when
+ * they are the result's `recomputed.twoTailed`; `gap.roundingAllowance` when it is half a unit of
+ * the last printed digit of the result's p (`10^-decimals × 10^exponent / 2`); `gap.absolute`
+ * when it is the distance from that p's value to `[recomputed.low, recomputed.high]` (a gap
+ * without a rounding allowance, where the result has a printed p, then says
+ * `"roundingAllowance": null`); `figure`
+ * when it is `{"kind": "p"}` and the rule is one of `P_FIGURE_RULES` (a finding of those rules
+ * without a figure then says `"figure": null`).
  */
-function findingDefaults(encoder: FileEncoder, f: JsonObject): JsonObject {
+function findingDefaults(encoder: FileEncoder, f: JsonObject, raw: Record<string, unknown>): JsonObject {
   const g = f.gap;
-  if (isObject(g) && typeof g.absolute === 'number' && typeof g.roundingAllowance === 'number' && typeof g.lastDigitUnits === 'number' && g.lastDigitUnits === g.absolute / (2 * g.roundingAllowance)) delete (g as JsonObject).lastDigitUnits;
-  if (typeof f.resultId === 'string' && typeof f.reported === 'string' && encoder.printedOf.get(f.resultId) === f.reported) delete f.reported;
+  const host = typeof raw.resultId === 'string' ? encoder.itemOf.get(raw.resultId) : undefined;
+  const left = new Set<string>();
+  if (isObject(g) && typeof g.absolute === 'number' && typeof g.roundingAllowance === 'number' && typeof g.lastDigitUnits === 'number' && g.lastDigitUnits === g.absolute / (2 * g.roundingAllowance)) left.add('lastDigitUnits');
+  if (host !== undefined) {
+    if (typeof host.printed === 'string' && raw.reported === host.printed) delete f.reported;
+    const span = host.span as { start: number; end: number };
+    if (Array.isArray(f.at) && f.at[0] === span.start && f.at[1] === span.end && !('start' in f) && !('end' in f)) delete f.at;
+    const rec = raw.recomputed;
+    const two = isObject(host.recomputed) ? host.recomputed.twoTailed : undefined;
+    if (isObject(rec) && isRange(two) && Object.is(rec.low, two.low) && Object.is(rec.high, two.high)) {
+      delete (f.recomputed as JsonObject).low;
+      delete (f.recomputed as JsonObject).high;
+    }
+    const gap = raw.gap;
+    const p = lastDigitOf(host);
+    if (isObject(gap) && p !== undefined) {
+      if (typeof gap.roundingAllowance === 'number' && Object.is(gap.roundingAllowance, p.unit / 2)) left.add('roundingAllowance');
+      // a gap without one (a p printed with < or >) says so, or the reader would give it one
+      else if (gap.roundingAllowance === undefined) (g as JsonObject).roundingAllowance = null;
+      if (isRange(rec) && typeof gap.absolute === 'number' && Object.is(gap.absolute, pointDistance(rec, p.value))) left.add('absolute');
+    }
+  }
+  if (isObject(g)) for (const k of left) delete (g as JsonObject)[k];
+  sameAsBefore(encoder.lastOfKind, f);
+  if (typeof raw.ruleId === 'string' && P_FIGURE_RULES.has(raw.ruleId)) {
+    if (f.figure === undefined) f.figure = null;
+    else if (sameJson(f.figure, P_FIGURE)) delete f.figure;
+  }
   const fig = f.figure;
   if (isObject(fig) && fig.kind === 'interval') {
     const figure = fig as JsonObject;
@@ -200,6 +264,71 @@ function findingDefaults(encoder: FileEncoder, f: JsonObject): JsonObject {
   return f;
 }
 
+/** What a finding of each rule and message repeats from the one before it: the key of that pair. */
+const kindOf = (f: Record<string, unknown>) => `${String(f.ruleId)}\u0000${JSON.stringify(f.messageId)}`;
+
+/**
+ * 2.1.0: a finding's `check`, `recomputed.quantity` and `recomputed.assumptions` are left out
+ * when they are (as written) those of the last finding before it in the file with the same
+ * `ruleId` and `messageId` that has them. `last` holds those, by the pair; it is updated with
+ * this finding's own.
+ */
+function sameAsBefore(last: Map<string, { check?: string; quantity?: string; assumptions?: string }>, f: JsonObject): void {
+  const key = kindOf(f);
+  let before = last.get(key);
+  if (before === undefined) {
+    before = {};
+    last.set(key, before);
+  }
+  if (f.check !== undefined) {
+    const own = JSON.stringify(f.check);
+    if (before.check === own) delete f.check;
+    before.check = own;
+  }
+  const rec = f.recomputed;
+  if (isObject(rec)) {
+    for (const k of ['quantity', 'assumptions'] as const) {
+      if (rec[k] === undefined) continue;
+      const own = JSON.stringify(rec[k]);
+      if (before[k] === own) delete (rec as JsonObject)[k];
+      before[k] = own;
+    }
+  }
+}
+
+/**
+ * The rules whose every finding with a picture draws the reported p against the recomputed one
+ * (`figure` `{"kind": "p"}`): the default table of 2.1.0, also in docs/output-formats.md and the
+ * schema. A finding of these rules leaves that figure out, and says `"figure": null` when it has none.
+ */
+export const P_FIGURE_RULES: ReadonlySet<string> = new Set([
+  'p-follows-from-t',
+  'significance-follows-from-t',
+  'one-tailed-p-is-declared',
+  'zero-p-is-a-bound',
+  'p-follows-from-f',
+  'p-follows-from-chi-square',
+  'p-follows-from-r',
+  'p-follows-from-z',
+  'significance-follows-from-statistic',
+]);
+const P_FIGURE = { kind: 'p' };
+
+/** The value of a result's or statistic's printed p and the unit of its last digit, as the rules take it (`lastDigitUnit(decimals) × 10^exponent`). */
+function lastDigitOf(item: Record<string, unknown>): { value: number; unit: number } | undefined {
+  const p = item.p;
+  const n = isObject(p) ? p.number : undefined;
+  if (!isObject(n) || typeof n.value !== 'number' || typeof n.decimals !== 'number' || typeof n.exponent !== 'number') return undefined;
+  return { value: n.value, unit: 10 ** -n.decimals * 10 ** n.exponent };
+}
+
+/** How far a value lies outside a range (0 inside), as the rules measure a gap. */
+function pointDistance(range: { low: number; high: number }, v: number): number {
+  if (range.high < v) return v - range.high;
+  if (range.low > v) return range.low - v;
+  return 0;
+}
+
 /** The mean of two ranges, low with low and high with high, as the interval figure's midpoint is made. */
 function midpointOf(lower: unknown, upper: unknown): { low: number; high: number } | undefined {
   return isRange(lower) && isRange(upper) ? { low: (lower.low + upper.low) / 2, high: (lower.high + upper.high) / 2 } : undefined;
@@ -207,10 +336,11 @@ function midpointOf(lower: unknown, upper: unknown): { low: number; high: number
 
 /** One result, statistic, finding or checklist item of a file, encoded. */
 export function encodeItem(encoder: FileEncoder, member: string, item: unknown): Json {
-  const e = encoder.encode(item);
-  if ((member === 'results' || member === 'statistics') && isObject(item) && typeof item.id === 'string' && typeof item.printed === 'string') encoder.printedOf.set(item.id, item.printed);
+  const hosting = (member === 'results' || member === 'statistics') && isObject(item) && typeof item.id === 'string' && typeof item.printed === 'string' && isPlace(item);
+  const e = hosting ? encoder.encode(item, '', undefined, { printed: item.printed as string, start: (item.span as { start: number }).start }) : encoder.encode(item);
+  if (hosting) encoder.itemOf.set(item.id as string, item);
   if (member === 'results') return resultDefaults(encoder, e as JsonObject);
-  if (member === 'findings') return findingDefaults(encoder, e as JsonObject);
+  if (member === 'findings' && isObject(item)) return findingDefaults(encoder, e as JsonObject, item);
   return e ?? null;
 }
 
@@ -234,25 +364,32 @@ export function expandFile(file: Record<string, unknown>): Record<string, unknow
     for (let k = 1; k < parts.length; k += 1) out.push(runs[k - 1] as string, parts[k] as string);
     return out.join('');
   };
-  const decode = (v: unknown, key: string): unknown => {
+  const isAt = (x: unknown): x is [number, number] => Array.isArray(x) && x.length === 2 && typeof x[0] === 'number' && typeof x[1] === 'number';
+  // host: the result or statistic being read, for the places inside it (2.1.0)
+  const decode = (v: unknown, key: string, host?: Host, own?: Host): unknown => {
     if (TEXT_KEYS.has(key)) return Array.isArray(v) ? v.map(text) : text(v);
     if (key === 'message') return joined(v);
     if (key === 'inputs' && Array.isArray(v)) return v.map(joined);
-    if (Array.isArray(v)) return v.map((x) => decode(x, key));
+    if (Array.isArray(v)) return v.map((x) => decode(x, key, host));
     if (!isObject(v)) return v;
     const out: Record<string, unknown> = {};
+    const at = v.at;
+    const place = isAt(at);
+    if (host !== undefined && place && !('printed' in v)) out.printed = sliceOf(host, at[0], at[1]);
+    if (host !== undefined && place && P_KEYS.has(key) && !('kind' in v)) out.kind = 'value';
+    if (host !== undefined && place && OP_KEYS.has(key) && !('op' in v)) out.op = '=';
     for (const k of Object.keys(v)) {
       const x = v[k];
-      if (k === 'at' && Array.isArray(x) && x.length === 2 && typeof x[0] === 'number' && typeof x[1] === 'number') {
+      if (k === 'at' && isAt(x)) {
         out.span = { start: x[0], end: x[1] };
         if (!('start' in v)) out.start = lines.position(x[0]);
         if (!('end' in v)) out.end = lines.position(x[1]);
         continue;
       }
-      out[k] = decode(x, k);
+      out[k] = decode(x, k, own ?? host);
     }
-    if (NUMBER_KEYS.has(key) && typeof v.printed === 'string') {
-      const plain = plainDecimal(v.printed);
+    if (NUMBER_KEYS.has(key) && typeof out.printed === 'string') {
+      const plain = plainDecimal(out.printed);
       if (!('value' in v) && plain) out.value = plain.value;
       if (!('decimals' in v) && plain) out.decimals = plain.decimals;
       if (!('exponent' in v)) out.exponent = 0;
@@ -262,7 +399,10 @@ export function expandFile(file: Record<string, unknown>): Record<string, unknow
   const out: Record<string, unknown> = {};
   for (const k of Object.keys(file)) {
     if (k === 'texts' || k === 'lineStarts') continue;
-    out[k] = decode(file[k], k);
+    const v = file[k];
+    // each result and statistic is the host of the places inside it
+    if ((k === 'results' || k === 'statistics') && Array.isArray(v)) out[k] = v.map((x) => (isObject(x) && typeof x.printed === 'string' && isAt(x.at) ? decode(x, '', undefined, { printed: x.printed, start: x.at[0] }) : decode(x, k)));
+    else out[k] = decode(v, k);
   }
   if (Array.isArray(out.results)) {
     for (const r of out.results as Array<Record<string, unknown>>) {
@@ -281,10 +421,51 @@ export function expandFile(file: Record<string, unknown>): Record<string, unknow
     }
   }
   if (Array.isArray(out.findings)) {
-    const printedOf = new Map<unknown, unknown>();
-    for (const list of [out.results, out.statistics]) if (Array.isArray(list)) for (const x of list as Array<Record<string, unknown>>) printedOf.set(x.id, x.printed);
+    const itemOf = new Map<unknown, Record<string, unknown>>();
+    for (const list of [out.results, out.statistics]) if (Array.isArray(list)) for (const x of list as Array<Record<string, unknown>>) itemOf.set(x.id, x);
+    const last = new Map<string, { check?: unknown; quantity?: unknown; assumptions?: unknown }>();
     for (const f of out.findings as Array<Record<string, unknown>>) {
-      if (!('reported' in f) && printedOf.has(f.resultId)) f.reported = printedOf.get(f.resultId);
+      // check, quantity and assumptions left out when the last finding of the same rule and message had them
+      const key = kindOf(f);
+      const before = last.get(key) ?? {};
+      last.set(key, before);
+      if (!('check' in f) && 'check' in before) f.check = before.check;
+      if ('check' in f) before.check = f.check;
+      const r = f.recomputed;
+      if (isObject(r)) {
+        for (const k of ['quantity', 'assumptions'] as const) {
+          if (!(k in r) && k in before) r[k] = structuredClone(before[k]);
+          if (k in r) before[k] = r[k];
+        }
+      }
+      const host = itemOf.get(f.resultId);
+      // in the order they were derived: the place, the recomputed range, then the gap's members from it
+      if (host !== undefined) {
+        if (!('reported' in f)) f.reported = host.printed;
+        const span = host.span as { start: number; end: number } | undefined;
+        if (!('span' in f) && span !== undefined) {
+          f.span = { start: span.start, end: span.end };
+          f.start = lines.position(span.start);
+          f.end = lines.position(span.end);
+        }
+        const rec = f.recomputed;
+        const two = isObject(host.recomputed) ? host.recomputed.twoTailed : undefined;
+        if (isObject(rec) && !('low' in rec) && !('high' in rec) && isRange(two)) {
+          rec.low = two.low;
+          rec.high = two.high;
+        }
+        const g = f.gap;
+        const p = lastDigitOf(host);
+        if (isObject(g) && p !== undefined) {
+          if (!('absolute' in g) && isRange(rec)) g.absolute = pointDistance(rec, p.value);
+          if (!('roundingAllowance' in g)) g.roundingAllowance = p.unit / 2;
+          else if (g.roundingAllowance === null) delete g.roundingAllowance;
+        }
+      }
+      if (typeof f.ruleId === 'string' && P_FIGURE_RULES.has(f.ruleId)) {
+        if (f.figure === null) delete f.figure;
+        else if (!('figure' in f)) f.figure = { ...P_FIGURE };
+      }
       const fig = f.figure;
       if (isObject(fig) && fig.kind === 'interval') {
         if (!('midpoint' in fig)) fig.midpoint = midpointOf(fig.lower, fig.upper);

@@ -8,7 +8,7 @@ import type { FileReport } from '../engine/types.js';
  * minor change, anything else a major one. 2.0.0: compact places, shared texts and no repeated
  * defaults (src/report/compact.ts); `readJsonReport` gives back the 1.x shape.
  */
-export const JSON_REPORT_VERSION = '2.0.0';
+export const JSON_REPORT_VERSION = '2.1.0';
 
 /**
  * The JSON report: every extracted result with its places, printed and recomputed values,

@@ -83,7 +83,7 @@ describe('folder walks never leave the folder named', () => {
 
     const data = JSON.parse((await cli(['repo', '-f', 'json'], { cwd: dir })).stdout) as { reportVersion: string; skippedLinks?: string[] };
     expect(reportSchema(data), JSON.stringify(reportSchema.errors?.slice(0, 3))).toBe(true);
-    expect(data.reportVersion).toBe('2.0.0');
+    expect(data.reportVersion).toBe('2.1.0');
     expect([...(data.skippedLinks ?? [])].sort()).toEqual(skipped);
 
     const log = JSON.parse((await cli(['repo', '-f', 'sarif'], { cwd: dir })).stdout) as { runs: Array<{ invocations: Array<{ executionSuccessful: boolean; toolExecutionNotifications: Array<{ level: string; message: { text: string }; locations: Array<{ physicalLocation: { artifactLocation: { uri: string } } }> }> }> }> };

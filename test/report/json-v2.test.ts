@@ -10,7 +10,7 @@ import type { ValidateFunction } from 'ajv';
 import { describe, expect, it } from 'vitest';
 import { checkSource } from '../../src/engine/index.js';
 import { formatJson, readJsonReport, type RunReport } from '../../src/report/index.js';
-import { expandFile, FileEncoder } from '../../src/report/compact.js';
+import { expandFile, FileEncoder, P_FIGURE_RULES } from '../../src/report/compact.js';
 import { manyResults } from '../../bench/corpus.js';
 import { readDocxDocument } from '../../src/parse/docx/index.js';
 import { readPdf } from '../../src/parse/pdf/index.js';
@@ -45,7 +45,7 @@ describe('JSON report 2.x', () => {
       ['many.md', manyResults(300)],
     ]);
     const data = JSON.parse(formatJson(run));
-    expect(data.reportVersion).toBe('2.0.0');
+    expect(data.reportVersion).toBe('2.1.0');
     const read = readJsonReport(data);
     expect(read.files).toEqual(v1Files(run));
     expect(read.failures).toEqual(run.failures);
@@ -79,14 +79,21 @@ describe('JSON report 2.x', () => {
     expect(r).not.toHaveProperty('start');
     expect(r.t).not.toHaveProperty('exponent');
     expect(new Set(file.texts).size).toBe(file.texts.length);
-    // a finding's advice is one index, the same for every finding of its rule and message
-    const checks = new Map<string, Set<number>>();
+    // a finding's advice is one index, the same for every finding of its rule and message: written
+    // on the first of them (2.1.0), as are a recomputation's quantity and assumptions when they repeat
+    const checks = new Map<string, number>();
     for (const f of file.findings) {
-      expect(typeof f.check).toBe('number');
       const k = `${f.ruleId}/${f.messageId}`;
-      checks.set(k, (checks.get(k) ?? new Set()).add(f.check));
+      if (checks.has(k)) expect(f).not.toHaveProperty('check');
+      else {
+        expect(typeof f.check).toBe('number');
+        checks.set(k, f.check);
+      }
     }
-    for (const s of checks.values()) expect(s.size).toBe(1);
+    const read = readJsonReport(JSON.parse(formatJson(run))) as { files: Array<{ findings: Array<{ ruleId: string; messageId: string; check: string }> }> };
+    const texts = new Map<string, Set<string>>();
+    for (const f of read.files[0]?.findings ?? []) texts.set(`${f.ruleId}/${f.messageId}`, (texts.get(`${f.ruleId}/${f.messageId}`) ?? new Set()).add(f.check));
+    expect([...texts.values()].every((s) => s.size === 1)).toBe(true);
   });
   it('is less than half the 1.x text of the same run', () => {
     const run = runOf([['many.md', manyResults(600)]]);
@@ -159,5 +166,88 @@ describe('the 2.x encoding of texts and printed numbers, one by one', () => {
     const kept = (written.results as Array<{ t: Record<string, unknown> }>).map(({ t }) => Object.keys(t).sort().join(' '));
     expect(kept).toEqual(['printed', 'printed', 'printed', 'decimals printed value', 'decimals exponent printed value', 'decimals printed value', 'printed', 'printed']);
     expect((read.results as Array<{ t: unknown }>).map((r) => r.t)).toEqual(numbers);
+  });
+});
+
+describe('the omissions of report 2.1.0, each written only where its derivation gives back the same value', () => {
+  // invented results: a p that its t does not give (significance flips), one printed with <, one with two digits
+  const text = 'Scores differed, t(23) = 1.12, p = .042. Ratings rose, t(30) = 0.42, p < .05. Mood fell, t(40) = 2.50, p = .21.\n';
+  const written = (run: RunReport) => JSON.parse(formatJson(run)).files[0] as { results: Array<Record<string, Record<string, unknown>>>; findings: Array<Record<string, unknown>> };
+
+  it('leaves out what the result gives back, and reads it back as 1.x wrote it', () => {
+    const run = runOf([['s.md', text]]);
+    const file = written(run);
+    expect(run.files[0]?.findings).toHaveLength(3);
+    const [r] = file.results;
+    // t, df, p and p's number: their printed is the slice of the result's printed at their offsets
+    for (const v of [r?.t, r?.df, r?.p, r?.p?.number as Record<string, unknown>]) {
+      expect(v).toHaveProperty('at');
+      expect(v).not.toHaveProperty('printed');
+    }
+    expect(r?.p).not.toHaveProperty('kind');
+    expect(r?.p).not.toHaveProperty('op');
+    expect(r?.t).not.toHaveProperty('op');
+    for (const f of file.findings) {
+      expect(f).not.toHaveProperty('at');
+      expect(f).not.toHaveProperty('figure');
+      expect(f.recomputed).not.toHaveProperty('low');
+      expect(f.recomputed).not.toHaveProperty('high');
+      expect(f.gap).not.toHaveProperty('absolute');
+    }
+    // .042 and .21: half a unit of the last digit; p < .05 has no allowance, and says so
+    expect(file.findings.map((f) => (f.gap as Record<string, unknown>).roundingAllowance)).toEqual([undefined, null, undefined]);
+    expect(readJsonReport(JSON.parse(formatJson(run))).files).toEqual(v1Files(run));
+  });
+
+  it('keeps each member where its derivation does not hold', () => {
+    const run = runOf([['s.md', text]]);
+    const file = run.files[0];
+    if (!file) throw new Error('no file');
+    const [r0, r1] = file.results;
+    const [f0, f1, f2] = file.findings;
+    if (!r0 || !r1 || !f0 || !f1 || !f2 || !r0.p || !f0.recomputed || !f0.gap || !f2.gap) throw new Error('the text gave other records');
+    // a printed text that is not the slice at the place's offsets; a p of another kind and op
+    r0.t.printed = '1.120';
+    r0.p.op = '~';
+    r1.t.op = '>';
+    // a finding at its own place, with its own range, allowance and distance, and one without a picture
+    f0.span = { start: f0.span.start + 1, end: f0.span.end };
+    f0.start = { line: f0.start.line, column: f0.start.column + 1 };
+    f0.recomputed.low += 1e-9;
+    f0.gap.roundingAllowance = 0.004;
+    f2.gap.absolute += 1e-12;
+    delete f1.figure;
+    // a check and assumptions of their own, against the finding of the same rule and message before
+    f2.check = 'Check the p against the output.';
+    if (f2.recomputed) f2.recomputed.assumptions = [...f2.recomputed.assumptions, 'an invented assumption'];
+    const w = written(run);
+    expect(w.findings[1]).not.toHaveProperty('check');
+    expect(typeof w.findings[2]?.check).toBe('number');
+    expect(w.findings[1]?.recomputed).not.toHaveProperty('assumptions');
+    expect(w.findings[2]?.recomputed).toHaveProperty('assumptions');
+    expect(w.results[0]?.t?.printed).toBe('1.120');
+    expect(w.results[0]?.p?.op).toBe('~');
+    expect(w.results[1]?.t?.op).toBe('>');
+    expect(w.findings[0]?.at).toEqual([f0.span.start, f0.span.end]);
+    expect(w.findings[0]?.recomputed).toMatchObject({ low: f0.recomputed.low, high: f0.recomputed.high });
+    expect(w.findings[0]?.gap).toMatchObject({ roundingAllowance: 0.004 });
+    expect(w.findings[1]?.figure).toBeNull();
+    expect(w.findings[2]?.gap).toMatchObject({ absolute: f2.gap.absolute });
+    expect(w.findings[2]?.gap).not.toHaveProperty('roundingAllowance');
+    expect(readJsonReport(JSON.parse(formatJson(run))).files).toEqual(v1Files(run));
+  });
+});
+
+describe('the default figure table of 2.1.0', () => {
+  it('names existing rules, and the docs and the schema list the same ones', () => {
+    for (const id of P_FIGURE_RULES) expect(readdirSync('rules')).toContain(`${id}.ts`);
+    const docs = readFileSync('docs/output-formats.md', 'utf8');
+    const table = docs.slice(docs.indexOf("| rules whose default `figure` is"));
+    const rows = table.slice(0, table.indexOf('\n\n')).split('\n').slice(2);
+    const listed = rows.flatMap((row) => [...row.matchAll(/`([a-z-]+)`/g)].map((m) => m[1]));
+    expect(new Set(listed)).toEqual(new Set(P_FIGURE_RULES));
+    const schema = JSON.parse(readFileSync('schema/report.schema.json', 'utf8')) as { $defs: { finding: { properties: { figure: { description: string } } } } };
+    const named = [...schema.$defs.finding.properties.figure.description.matchAll(/\b([a-z]+(?:-[a-z]+)+)\b/g)].map((m) => m[1]);
+    expect(new Set(named)).toEqual(new Set(P_FIGURE_RULES));
   });
 });

@@ -8,6 +8,8 @@ import { describe, expect, it } from 'vitest';
 import { CorpusTally, GAP_EDGES } from '../../src/corpus/summary.js';
 import { documentCsvRow, gapsCsv, rulesCsv } from '../../src/report/summaryCsv.js';
 import { formatSummaryHtml } from '../../src/report/summaryHtml.js';
+import { checkSource } from '../../src/engine/index.js';
+import { formatJson, readJsonReport } from '../../src/report/json.js';
 import { cli } from '../cli/harness.js';
 
 const finding = (ruleId: string, level: string, lastDigitUnits?: number) => ({ ruleId, level, ...(lastDigitUnits === undefined ? {} : { gap: { absolute: lastDigitUnits / 100, lastDigitUnits } }) });
@@ -52,6 +54,20 @@ describe('the corpus summary (counting)', () => {
     expect(s.gaps.find((g) => g.ruleId === 'p-follows-from-t')?.counts).toEqual([1, 0, 1, 0, 0, 0, 0]);
     expect(s.gaps.find((g) => g.ruleId === 'significance-follows-from-t')?.counts).toEqual([0, 0, 0, 0, 0, 1, 0]);
   });
+  it('reads lines of report 2.1.0, whose gaps leave out what the result gives back, as 1.x ones', () => {
+    // invented results whose p their t does not give: gaps of 230 and 19 units of the p's last digit, and one of p < .05
+    const file = checkSource('s.md', 'Scores differed, t(23) = 1.12, p = .042. Ratings rose, t(30) = 0.42, p < .05. Mood fell, t(40) = 2.50, p = .21.\n');
+    const run = { tool: { name: 'plumbline', version: '0' }, files: [file], failures: [], rules: [] };
+    const data = JSON.parse(formatJson(run)) as { reportVersion: string; files: Array<{ findings: Array<{ gap: object }> }> };
+    const v2 = JSON.stringify({ id: 'a', reportVersion: data.reportVersion, ...data.files[0] });
+    expect(v2).not.toContain('"roundingAllowance":0.0005');
+    const { source: _source, ...v1 } = file;
+    const counts = (line: string, t: CorpusTally) => (t.add(line), t.summary().gaps);
+    const expected = counts(JSON.stringify({ id: 'a', ...v1 }), new CorpusTally());
+    expect(expected.find((g) => g.ruleId === 'significance-follows-from-t')?.counts).toEqual([0, 0, 0, 0, 1, 1, 0]);
+    expect(counts(v2, new CorpusTally(readJsonReport))).toEqual(expected);
+  });
+
   it('counts documents, results and findings by level, as worked out by hand', () => {
     const { rows, summary: s } = tally();
     expect(rows.map((r) => r.status)).toEqual(['checked', 'checked', 'not-checked', 'checked', 'not-batch-output']);
