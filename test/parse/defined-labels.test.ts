@@ -191,7 +191,11 @@ function parseSeconds(parse: () => unknown, tries: number): number {
  * quadruples that part of the time. Short lines, so that the scans weigh: the parse layer sets
  * such bracket-dense text aside before the parser (depth.ts), which is why these tests time the
  * parser itself. The scans cost a few nanoseconds a label against some microseconds of parsing a
- * bracket, so only thousands of definitions show them.
+ * bracket, so only thousands of definitions show them. Measured here with
+ * PLUMBLINE_LABELS_PARSER=bare (load about 10): the footnote test failed, 4.75 s at 4,000 and
+ * 15.7 s at 8,000 (ratio 3.3); the link test stays under 3 at these sizes (a footnote definition
+ * scans too, a link reference definition does not), so for links it is the test above, of the
+ * lists the parsers hold, that fails first when the lists stop taking effect.
  */
 function definitionsAndUses(n: number, footnotes: boolean): string {
   const mark = footnotes ? '^' : '';
