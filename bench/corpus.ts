@@ -135,7 +135,26 @@ export const FURTHER_HOSTILE: Record<string, (bytes: number) => string> = {
   'unclosed front matter': (n) => `---\n${'key: value\n'.repeat(n / 11)}`,
   'reference definitions': (n) => '[a]: b\n'.repeat(n / 7),
   'footnote definitions': (n) => '[^a]: b\n'.repeat(n / 8),
+  // many labels, each defined and used, in prose thin enough in brackets that the density guard
+  // leaves them to micromark (its lists of defined labels: src/parse/definedLabels.ts)
+  'definitions, each used': (n) => citedDefinitions(n, false),
+  'footnotes, each called': (n) => citedDefinitions(n, true),
 };
+
+/**
+ * About `bytes` characters of paragraphs each citing a label of its own (`[ref12]`, or a footnote
+ * call `[^n12]`), then the definitions of all of them, one a line.
+ */
+function citedDefinitions(bytes: number, footnotes: boolean): string {
+  const count = Math.floor(bytes / 165);
+  const uses: string[] = [];
+  const definitions: string[] = [];
+  for (let i = 0; i < count; i += 1) {
+    uses.push(footnotes ? `Fatigue fell over the weeks of the invented trial, as note ${i} says.[^n${i}]` : `As an invented study reported [ref${i}], fatigue fell over the weeks.`);
+    definitions.push(footnotes ? `[^n${i}]: An invented note on the trial and its desks, number ${i}.` : `[ref${i}]: https://example.org/invented/works/${i} "An invented work"`);
+  }
+  return `${uses.join('\n\n')}\n\n${definitions.join('\n')}`;
+}
 
 export function adversarial(kind: string, bytes = 1_000_000): string {
   const run = ADVERSARIAL[kind] ?? FURTHER_HOSTILE[kind];

@@ -11,7 +11,8 @@
  *   7. further hostile 1 MB runs (code spans, strike-through, HTML tags, entities, escapes,
  *      backslashes, autolinks, one-character lines, "pre-test " and "randomly assigned to "
  *      repeated, setext headings, block quotes, lazy quote and list lines, unclosed front
- *      matter, reference and footnote definitions) ÷ ordinary text              (goal ≤ 3 each)
+ *      matter, reference and footnote definitions, and many labels each defined and used,
+ *      links and footnotes) ÷ ordinary text                                   (goal ≤ 3 each)
  *   8. whole process on one 50 KB manuscript (the bundled command, --format json) ÷ a bare
  *      process that imports unified, remark-parse and remark-gfm and parses it  (goal ≤ 1.1)
  *   9. `plumbline --version` ÷ `node -e 0`                                      (goal ≤ 1.5)

@@ -17,9 +17,11 @@ import { defuseDenseMarkup, exceedsNesting } from './depth.js';
 import { LAZY_LIMIT, QUOTE_LIMIT, SETEXT_LIMIT, defuseSlowShapes, joinLongParagraphs, type SlowShape } from './shapes.js';
 import { BULK_CHUNK_ROWS, BULK_MIN_ROWS, blankRuns, blankedRange, findBulkRuns, plainCells, type BulkRun } from './bulkTable.js';
 import { PLAIN_MIN_GROUPS, findPlainRuns, inlineTagText, lineShift, plainRange, readPlainGroup, standInRuns, type PlainGroup, type PlainRun } from './plainRuns.js';
+import { remarkLabelLists } from './definedLabels.js';
 import type { Directive, FrontMatter, ParsedDocument, ReadNote, Segment, SegmentKind, TablePlace } from './types.js';
 
-const processor = unified().use(remarkParse).use(remarkGfm).use(remarkFrontmatter, ['yaml']).use(remarkMath);
+// remarkLabelLists comes last: its constructs must be tried before remark-gfm's at `[` (see definedLabels.ts)
+const processor = unified().use(remarkParse).use(remarkGfm).use(remarkFrontmatter, ['yaml']).use(remarkMath).use(remarkLabelLists);
 /**
  * The same without front matter, for a text whose first line of `---` opens none: when no
  * closing `---` line follows, micromark's front-matter construct fails and leaves the rest of
@@ -28,7 +30,10 @@ const processor = unified().use(remarkParse).use(remarkGfm).use(remarkFrontmatte
  * matter starts right below the fence), or the block between the fences is not a YAML mapping,
  * it is the thematic break CommonMark makes of it and the text below is the manuscript.
  */
-const withoutFrontMatter = unified().use(remarkParse).use(remarkGfm).use(remarkMath);
+const withoutFrontMatter = unified().use(remarkParse).use(remarkGfm).use(remarkMath).use(remarkLabelLists);
+
+/** The two parsers above, for tests that look inside them (test/parse/defined-labels.test.ts). */
+export const markdownProcessors = { processor, withoutFrontMatter } as const;
 
 /** HTML that holds table markup (read by HtmlTableReader). */
 const HTML_TABLE = /<t(?:able|r|d|h)\b/i;

@@ -275,6 +275,22 @@ describe('diagnostics go to standard error in every format', () => {
     expect(out.stderr).toContain('.plumbline.yaml: cannot read configuration: not a regular file (not checked because of it: a.md)');
   });
 
+  // issue 18: configurations are read within a size limit, found or named with --config alike
+  it('a configuration over the size limit, found or named with --config, is refused unread; so is --config naming a device', async () => {
+    // a valid JSON configuration, padded with spaces past the limit: refused for its size, not its text
+    const big = `{"alpha": 0.05${' '.repeat(1024 * 1024)}}`;
+    const dir = tree({ 'a.md': RIGHT, 'sub/a.md': RIGHT, 'sub/.plumbline.json': big, 'named.json': big });
+    const found = await cli(['sub/a.md'], { cwd: dir });
+    expect(found.code).toBe(2);
+    expect(found.stderr).toContain(`.plumbline.json: cannot read configuration: ${big.length} bytes is over the limit of 1048576 (not checked because of it: sub/a.md)`);
+    const named = await cli(['a.md', '--config', 'named.json'], { cwd: dir });
+    expect(named.code).toBe(2);
+    expect(named.stderr).toContain(`named.json: cannot read configuration: ${big.length} bytes is over the limit of 1048576`);
+    const device = await cli(['a.md', '--config', '/dev/urandom'], { cwd: dir });
+    expect(device.code).toBe(2);
+    expect(device.stderr).toContain('/dev/urandom: cannot read configuration: not a regular file');
+  });
+
   it('in batch mode, a configuration linked to /dev/stdin reads none of the input: every line gets its own output line', () => {
     const dir = tree({});
     symlinkSync('/dev/stdin', join(dir, '.plumbline.json'));
