@@ -118,6 +118,8 @@ export async function checkAll(
   let exhausted = false;
   let charsRead = 0;
   const slots = new Set<Slot>();
+  /** The run is over (or failed): the workers are being stopped, and their exits are not failures. */
+  let closing = false;
   /** This thread checks documents too (`here`), from when two or more threads are wanted. */
   let checkingHere = false;
   /** This thread met a document too large for it and gave its place to a worker. */
@@ -205,8 +207,20 @@ export async function checkAll(
             .catch(reject);
         });
         w.on('error', (e: Error & { code?: string }) => {
-          if (slot.worker !== w) return;
-          replace(slot, e.code === 'ERR_WORKER_OUT_OF_MEMORY' ? `needed more than the memory budget of ${budget.memoryMb} MB (--memory-budget)` : `the check stopped: ${e.message}`);
+          if (slot.worker !== w || closing) return;
+          // before it loaded no document was sent to it: the fault is the worker's script, and a
+          // new worker would fail the same way, so the run stops with the reason
+          if (!slot.ready) reject(new Error(`a worker thread could not start: ${e.message}`));
+          else replace(slot, e.code === 'ERR_WORKER_OUT_OF_MEMORY' ? `needed more than the memory budget of ${budget.memoryMb} MB (--memory-budget)` : `the check stopped: ${e.message}`);
+        });
+        // a worker that ends without an error (its code exited, the thread was stopped from
+        // outside) would otherwise leave its documents unanswered and the run waiting for them
+        w.on('exit', (code: number) => {
+          if (slot.worker !== w || closing) return;
+          if (!slot.ready) reject(new Error(`a worker thread stopped while loading (exit code ${code})`));
+          else if (slot.queue.length > 0) replace(slot, `the check stopped: its worker thread exited (exit code ${code})`);
+          else if (!exhausted) start(slot);
+          else slot.worker = undefined;
         });
       };
       const grow = () => {
@@ -313,6 +327,7 @@ export async function checkAll(
       grow();
     });
   } finally {
+    closing = true;
     for (const s of slots) clearTimeout(s.timer);
     await Promise.all([...slots].map((s) => s.worker?.terminate()));
   }

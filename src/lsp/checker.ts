@@ -37,13 +37,14 @@ export class Checker {
   /** Without workers: each document's incremental checker, in this thread. */
   private readonly local = new Map<string, IncrementalChecker>();
   private nextId = 0;
-  private readonly workerFile = WORKER_FILE;
   private closed = false;
 
   constructor(
     private readonly budget: Budget,
     slots: number,
     private readonly log: (message: string) => void,
+    /** The worker's script: the compiled one beside the pool (tests pass their own). */
+    private readonly workerFile: string = WORKER_FILE,
   ) {
     if (!existsSync(this.workerFile)) return;
     for (let i = 0; i < slots; i++) {
@@ -54,22 +55,25 @@ export class Checker {
   }
 
   check(request: CheckRequest): Promise<CheckOutcome> {
-    if (this.slots.length === 0) {
-      try {
-        let checker = this.local.get(request.key);
-        if (!checker) {
-          checker = new IncrementalChecker();
-          this.local.set(request.key, checker);
-        }
-        return Promise.resolve({ report: checker.check(request.path, request.source, request.options) });
-      } catch (e) {
-        return Promise.resolve({ error: e instanceof Error ? e.message : String(e) });
-      }
-    }
+    if (this.slots.length === 0) return Promise.resolve(this.checkHere(request));
     return new Promise((done) => {
       this.queue.push({ request, done });
       this.pump();
     });
+  }
+
+  /** A check in this thread, keeping the document's last parse here. */
+  private checkHere(request: CheckRequest): CheckOutcome {
+    try {
+      let checker = this.local.get(request.key);
+      if (!checker) {
+        checker = new IncrementalChecker();
+        this.local.set(request.key, checker);
+      }
+      return { report: checker.check(request.path, request.source, request.options) };
+    } catch (e) {
+      return { error: e instanceof Error ? e.message : String(e) };
+    }
   }
 
   /** A document was closed: its last parse is dropped. */
@@ -109,16 +113,40 @@ export class Checker {
       this.pump();
     });
     w.on('error', (e: Error & { code?: string }) => {
-      if (slot.worker !== w) return;
-      const busy = slot.busy;
-      slot.busy = undefined;
-      void w.terminate();
-      this.start(slot);
-      if (!busy) return;
-      clearTimeout(busy.timer);
-      const why = e.code === 'ERR_WORKER_OUT_OF_MEMORY' ? `needed more than the memory budget of ${this.budget.memoryMb} MB` : `the check stopped: ${e.message}`;
-      busy.done({ error: `not checked: ${why}`, dropped: true });
+      if (slot.worker !== w || this.closed) return;
+      if (e.code === 'ERR_WORKER_OUT_OF_MEMORY') this.lost(slot, w, `needed more than the memory budget of ${this.budget.memoryMb} MB`, 'it ran out of memory');
+      else this.lost(slot, w, `the check stopped: ${e.message}`, e.message);
     });
+    // a worker that ends without an error would otherwise be sent checks it never answers
+    w.on('exit', (code: number) => {
+      if (slot.worker !== w || this.closed) return;
+      this.lost(slot, w, `the check stopped: its worker thread exited (exit code ${code})`, `it exited with code ${code}`);
+    });
+  }
+
+  /**
+   * The slot's worker stopped (`why` for the check it drops, `cause` for the log). After it had loaded, it is replaced and the check it was running,
+   * if any, is dropped with the reason. Before it had loaded, a new one would fail the same way
+   * (the fault is the worker's script): the slot is given up, and when none is left the checks
+   * run in this thread, as without the compiled worker.
+   */
+  private lost(slot: Slot, w: Worker, why: string, cause: string): void {
+    const busy = slot.busy;
+    slot.busy = undefined;
+    void w.terminate();
+    if (busy) {
+      clearTimeout(busy.timer);
+      busy.done({ error: `not checked: ${why}`, dropped: true });
+    }
+    if (slot.ready) {
+      this.start(slot);
+      return;
+    }
+    slot.worker = undefined;
+    this.slots.splice(this.slots.indexOf(slot), 1);
+    this.log(`plumbline: a worker thread could not start: ${cause}${this.slots.length === 0 ? '; checks run in this thread' : ''}`);
+    if (this.slots.length > 0) return;
+    for (const { request, done } of this.queue.splice(0)) done(this.checkHere(request));
   }
 
   private pump(): void {

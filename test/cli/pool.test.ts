@@ -1,6 +1,8 @@
 import { spawnSync } from 'node:child_process';
-import { existsSync } from 'node:fs';
+import { existsSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { statDense, statFree } from '../../bench/corpus.js';
 import { checkSource } from '../../src/engine/index.js';
@@ -74,6 +76,51 @@ describe.runIf(existsSync(WORKER))('this thread checking beside the workers', ()
     const { here, order } = await run(small(5), 1);
     expect(order).toEqual([0, 1, 2, 3, 4]);
     expect(here.size).toBe(0);
+  }, 120_000);
+});
+
+/**
+ * A worker script that ends its thread without an error: the command's own worker, preceded by a
+ * listener that calls process.exit on a document holding `EXIT-NOW` (it is registered first, so
+ * it runs before the worker's own), or, with `atLoad`, that exits before the worker loads.
+ */
+function exitingWorker(atLoad = false): string {
+  const dir = mkdtempSync(join(tmpdir(), 'plumbline-exit-worker-'));
+  const file = join(dir, 'worker.mjs');
+  writeFileSync(
+    file,
+    atLoad
+      ? 'process.exit(3);\n'
+      : `import { parentPort } from 'node:worker_threads';\nparentPort.on('message', (job) => { if (typeof job.source === 'string' && job.source.includes('EXIT-NOW')) process.exit(3); });\nawait import(${JSON.stringify(pathToFileURL(WORKER).href)});\n`,
+  );
+  return file;
+}
+
+describe.runIf(existsSync(WORKER))('a worker thread that exits without an error', () => {
+  it('costs only the document it was checking: the documents queued behind it go to a new worker, each answered once, in order', async () => {
+    const jobs = small(8);
+    jobs.splice(2, 0, { path: 'exits.md', source: 'EXIT-NOW: the worker checking this ends its thread, t(20) = 2.10, p = .048.\n', options: {} });
+    const order: number[] = [];
+    const outcomes: Outcome[] = [];
+    const workerFile = exitingWorker();
+    await checkAll(
+      jobs,
+      1,
+      (o, i) => {
+        order.push(i);
+        outcomes.push(o);
+      },
+      { memoryMb: 2048, seconds: 120 },
+      { workerFile },
+    );
+    expect(order).toEqual(jobs.map((_, i) => i));
+    expect(outcomes.map((o) => ('error' in o ? o.error : o.report.path))).toEqual(jobs.map((j) => (j.path === 'exits.md' ? 'not checked: the check stopped: its worker thread exited (exit code 3)' : j.path)));
+    expect(outcomes.map(said)).toEqual(jobs.map((j) => ('error' in j || j.path === 'exits.md' ? expect.any(String) : said({ report: checkSource(j.path, j.source, j.options) }))));
+  }, 120_000);
+
+  it('one that exits while loading stops the run with the reason, rather than leaving it waiting', async () => {
+    const workerFile = exitingWorker(true);
+    await expect(checkAll(small(3), 2, () => undefined, { memoryMb: 2048, seconds: 120 }, { workerFile })).rejects.toThrow('a worker thread stopped while loading (exit code 3)');
   }, 120_000);
 });
 

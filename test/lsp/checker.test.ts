@@ -1,4 +1,6 @@
-import { resolve } from 'node:path';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
 
@@ -39,6 +41,46 @@ describe('the language server\'s checker', { timeout: 60_000 }, () => {
       // the checker's report carries the text it checked, as a whole check's does
       expect('report' in outcome && outcome.report, `text ${i}`).toStrictEqual(checkSource('a.md', text));
     }
+    await checker.close();
+  });
+});
+
+/**
+ * A worker script that ends its thread without an error: the compiled worker, preceded by a
+ * listener that calls process.exit on a document holding `EXIT-NOW`, or, with `atLoad`, one that
+ * exits before the worker loads.
+ */
+function exitingWorker(atLoad = false): string {
+  const file = join(mkdtempSync(join(tmpdir(), 'plumbline-lsp-exit-')), 'worker.mjs');
+  const real = pathToFileURL(resolve('dist/src/cli/worker.js')).href;
+  writeFileSync(
+    file,
+    atLoad
+      ? 'process.exit(3);\n'
+      : `import { parentPort } from 'node:worker_threads';\nparentPort.on('message', (job) => { if (typeof job.source === 'string' && job.source.includes('EXIT-NOW')) process.exit(3); });\nawait import(${JSON.stringify(real)});\n`,
+  );
+  return file;
+}
+
+describe('the language server\'s checker when a worker thread exits without an error', { timeout: 60_000 }, () => {
+  it('drops only the check it was running, with the exit code, and checks the next document on a new worker', async () => {
+    const checker = new Checker({ memoryMb: 256, seconds: 30 }, 1, () => undefined, exitingWorker());
+    const dropped = await checker.check({ key: 'a', path: 'a.md', source: 'EXIT-NOW, t(23) = 2.90, p = .008.', options: {} });
+    expect(dropped).toEqual({ error: 'not checked: the check stopped: its worker thread exited (exit code 3)', dropped: true });
+    const next = await checker.check({ key: 'b', path: 'b.md', source: 'x, t(23) = 5.90, p = .000.', options: {} });
+    expect('report' in next && next.report.findings.map((f) => f.ruleId)).toContain('zero-p-is-a-bound');
+    await checker.close();
+  });
+
+  it('one that cannot load is given up with a logged message, and the checks run in this thread', async () => {
+    const logged: string[] = [];
+    const checker = new Checker({ memoryMb: 256, seconds: 30 }, 2, (m) => logged.push(m), exitingWorker(true));
+    const outcome = await checker.check({ key: 'b', path: 'b.md', source: 'x, t(23) = 5.90, p = .000.', options: {} });
+    expect('report' in outcome && outcome.report.findings.map((f) => f.ruleId)).toContain('zero-p-is-a-bound');
+    expect(logged).toEqual([
+      'plumbline: a worker thread could not start: it exited with code 3',
+      'plumbline: a worker thread could not start: it exited with code 3; checks run in this thread',
+    ]);
     await checker.close();
   });
 });
