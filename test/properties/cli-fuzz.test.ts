@@ -11,7 +11,8 @@ import { readReport } from '../helpers.js';
  * A fuzz run over the command line (fast-check): a good manuscript beside a hostile one built
  * from every class of bad input plumbline is documented to handle (README "Reliability"): control
  * and bidi characters, invisible characters inside statistics, numbers at the edges of the
- * double range, deep nesting, long runs of one construct, unclosed front matter, NUL bytes,
+ * double range, deep nesting, long runs of one construct, many distinct link and footnote labels
+ * each defined and used, unclosed front matter, NUL bytes,
  * byte-order marks, lone CRs. For every input the run ends well inside the time budget, the good
  * manuscript is still checked and reported with exactly its one finding, and the output is valid:
  * JSON against schema/report.schema.json, SARIF and the line format by their shape.
@@ -46,6 +47,11 @@ const piece = fc.oneof(
   fc.tuple(fc.constantFrom('> ', '- ', '* ', '1. ', '#', '*', '_', '[', '`', '$', '|', '='), fc.integer({ min: 1, max: 3000 })).map(([s, n]) => s.repeat(n)),
   fc.tuple(fc.constantFrom('Title\n===\n', 'Lazy quote line\n', '> quoted\nlazy\n', '[r]: http://x.invalid\n', '[^n]: note\n', 'pre-test ', 'randomly assigned to '), fc.integer({ min: 1, max: 400 })).map(([s, n]) => s.repeat(n)),
   fc.constantFrom('---\nplumbline:\n  alpha: 0.01\n', '---\n', '<!-- plumbline quiet p-follows-from-t -->\n'),
+  // many distinct labels, each defined and then used: links or footnotes
+  fc.tuple(fc.constantFrom('', '^'), fc.integer({ min: 1, max: 3000 })).map(([caret, n]) => {
+    const labels = Array.from({ length: n }, (_, i) => `${caret}l${i}`);
+    return `${labels.map((l) => `[${l}]: ${caret ? 'note' : 'http://x.invalid/'} ${l}\n`).join('')}\n${labels.map((l) => `[${l}]`).join(' ')}\n`;
+  }),
 );
 const hostile = fc.tuple(fc.array(piece, { maxLength: 12 }), fc.constantFrom('', '\ufeff', 'utf16le', 'utf32le', 'nul')).map(([parts, encoding]) => {
   const text = parts.join(' ');
