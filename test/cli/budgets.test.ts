@@ -45,6 +45,20 @@ describe('per-document budgets', () => {
     expect(r.stderr).not.toMatch(/\n\s+at /);
   }, 120_000);
 
+  it('a document of one long line (issue 18: 50 MB in one line crashed the process) is reported as not checked, not a crash', () => {
+    // the same shape, scaled to the test's memory budget: some 6 MB and 160,000 results, no line end
+    // (checked by hand at 50 MB under the default 2,048 MB budget: not checked, the reason said, exit 2)
+    const dir = mkdtempSync(join(tmpdir(), 'plumbline-budget-line-'));
+    writeFileSync(join(dir, 'a.md'), GOOD);
+    writeFileSync(join(dir, 'line.md'), 'Item changed, t(40) = 3.10, p = .20. '.repeat(160_000));
+    const r = spawnSync(process.execPath, [main, 'a.md', 'line.md', '-f', 'json', '--memory-budget', '64'], { cwd: dir, encoding: 'utf8', maxBuffer: 1 << 26 });
+    expect(r.status).toBe(2);
+    const report = readReport(r.stdout) as Report;
+    expect(report.files.map((f) => [f.path, f.results.length])).toEqual([['a.md', 1]]);
+    expect(report.failures).toEqual([{ path: 'line.md', message: 'not checked: needed more than the memory budget of 64 MB (--memory-budget)' }]);
+    expect(r.stderr).not.toMatch(/\n\s+at /);
+  }, 120_000);
+
   it('with one worker, the document queued behind one over its time budget goes to the new worker and is checked once', () => {
     const dir = corpus();
     const r = spawnSync(process.execPath, [main, 'a.md', 'big.md', 'c.md', '-f', 'json', '--jobs', '1', '--time-budget', '1'], { cwd: dir, encoding: 'utf8', maxBuffer: 1 << 26 });
