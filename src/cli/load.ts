@@ -5,6 +5,7 @@ import { dirname } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import vm from 'node:vm';
 import { cacheFolder, cacheIdentity, cacheKind, readCache, writeCache } from './codeCache.js';
+import { growHeapSlowly } from './heap.js';
 
 type Run = (typeof import('./run.js'))['run'];
 
@@ -35,10 +36,12 @@ const WRAP_END = '\n})';
  * again; `save` makes that cache when there was none.
  */
 export async function loadRun(argv: readonly string[], env: NodeJS.ProcessEnv = process.env): Promise<LoadedRun> {
+  const kind = cacheKind(argv);
+  // a batch run's heap policy (heap.ts), set before anything is compiled: the code cache is the flags' too
+  if (kind?.startsWith('batch:') === true) growHeapSlowly(process.execArgv, env.NODE_OPTIONS);
   const file = fileURLToPath(BUNDLE);
   if (!existsSync(file)) return { run: (await import('./run.js')).run, save: () => undefined };
   const bytes = readFileSync(file);
-  const kind = cacheKind(argv);
   const folder = kind === undefined ? undefined : cacheFolder(env);
   const id = folder !== undefined && kind !== undefined ? cacheIdentity([WRAP_START, bytes, WRAP_END], kind, env) : undefined;
   const cached = folder !== undefined && id !== undefined ? readCache(folder, id) : undefined;

@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { cacheFile, cacheFolder, cacheIdentity, cacheKind, decodeCache, encodeCache, readCache, writeCache, type CacheIdentity } from '../../src/cli/codeCache.js';
+import { growHeapSlowly, hasOwnHeapGrowing } from '../../src/cli/heap.js';
 import { BIN, cli } from './harness.js';
 
 /**
@@ -166,10 +167,36 @@ describe('the bundled command with its code cache', () => {
     }
   }, 120_000);
 
+  it('a batch run, which sets its heap policy (src/cli/heap.ts) before the bundle is compiled, uses the cache it made', () => {
+    // V8 rejects a cache made under other flags: set after compiling, the policy would make every batch run reject and rewrite its cache
+    const folder = mkdtempSync(join(tmpdir(), 'plumbline-cache-'));
+    const input = `${JSON.stringify({ id: 1, text: manuscript })}\n`;
+    const batch = (cache: string) => spawnSync(process.execPath, [BIN, 'batch'], { cwd: dir, input, encoding: 'utf8', env: { ...process.env, PLUMBLINE_CODE_CACHE: cache } });
+    const off = batch('off');
+    const making = batch(folder);
+    const files = readdirSync(folder).filter((f) => f.startsWith('batch-'));
+    expect(files).toHaveLength(1);
+    const made = statSync(join(folder, files[0] as string)).ino;
+    const using = batch(folder);
+    expect(statSync(join(folder, files[0] as string)).ino).toBe(made);
+    for (const r of [making, using]) expect([r.status, r.stdout, r.stderr]).toEqual([off.status, off.stdout, off.stderr]);
+  }, 120_000);
+
   it('runs without a cache where none can be kept', () => {
     const expected = bundled(['paper.md', '-f', 'json'], dir, 'off');
     const notAFolder = resolve(dir, 'paper.md');
     const r = bundled(['paper.md', '-f', 'json'], dir, notAFolder);
     expect([r.code, r.stdout, r.stderr]).toEqual([expected.code, expected.stdout, expected.stderr]);
+  });
+});
+
+describe('the batch heap policy', () => {
+  it('gives way to a heap-growing setting the process was started with, in its arguments or NODE_OPTIONS', () => {
+    expect(hasOwnHeapGrowing([], undefined)).toBe(false);
+    expect(hasOwnHeapGrowing(['--max-old-space-size=4096'], '--trace-warnings')).toBe(false);
+    expect(hasOwnHeapGrowing(['--heap-growing-percent=20'], undefined)).toBe(true);
+    expect(hasOwnHeapGrowing([], '--heap_growing_percent=80')).toBe(true);
+    // and then sets nothing
+    expect(growHeapSlowly(['--heap-growing-percent=20'], undefined)).toBe(false);
   });
 });
