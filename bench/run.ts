@@ -190,7 +190,8 @@ const ordinaryBare = hostileRuns ? best(() => bare.parse(ordinary)) / (ordinary.
 function hostileFigure(name: string, kinds: string[]): Array<{ kind: string; ratio: number }> {
   const runs = kinds.map((kind) => {
     const doc = adversarial(kind);
-    const ms = best(() => checkSource('hostile.md', doc), 1) / (doc.length / 1e6);
+    // best of three: with one timed run a figure near its goal went over it and back from run to run
+    const ms = best(() => checkSource('hostile.md', doc)) / (doc.length / 1e6);
     return { kind, ratio: ms / ordinaryMs };
   });
   const worst = runs.reduce((x, y) => (y.ratio > x.ratio ? y : x));
