@@ -139,6 +139,18 @@ export async function checkAll(
     await new Promise<void>((resolve, reject) => {
       const iterator = (Symbol.asyncIterator in Object(jobs) ? (jobs as AsyncIterable<Job>)[Symbol.asyncIterator]() : (jobs as Iterable<Job>)[Symbol.iterator]()) as AsyncIterator<Job> | Iterator<Job>;
       const done = () => exhausted && nextToEmit === submitted && pending.size === 0;
+      /** The next job with its index in the input; undefined once the input is over (the run ends there if all is emitted). */
+      const take = async (): Promise<{ index: number; job: Job } | undefined> => {
+        const step = await iterator.next();
+        if (step.done) {
+          exhausted = true;
+          if (done()) resolve();
+          return undefined;
+        }
+        const index = submitted;
+        submitted += 1;
+        return { index, job: step.value };
+      };
       const settle = (index: number, outcome: Outcome, slot?: Slot): Promise<void> => {
         pending.set(index, outcome);
         const flushed = flush().then(() => (done() ? resolve() : slot && feed(slot)));
@@ -265,15 +277,9 @@ export async function checkAll(
           while (submitted - nextToEmit >= HERE_AHEAD) await new Promise<void>((wake) => (advanced = wake));
           advanced = undefined;
           if (exhausted) return;
-          const step = await iterator.next();
-          if (step.done) {
-            exhausted = true;
-            if (done()) resolve();
-            return;
-          }
-          const index = submitted;
-          submitted += 1;
-          const job = step.value;
+          const next = await take();
+          if (next === undefined) return;
+          const { index, job } = next;
           if ('error' in job) {
             await settle(index, { error: job.error });
             continue;
@@ -302,21 +308,16 @@ export async function checkAll(
         slot.pulling = true;
         try {
           while (slot.ready && slot.queue.length < IN_FLIGHT_PER_WORKER && !exhausted) {
-            const step = await iterator.next();
-            if (step.done) {
-              exhausted = true;
-              if (done()) resolve();
-              return;
-            }
-            const index = submitted;
-            submitted += 1;
-            if ('error' in step.value) {
-              void settle(index, { error: step.value.error }, slot);
+            const next = await take();
+            if (next === undefined) return;
+            const { index, job } = next;
+            if ('error' in job) {
+              void settle(index, { error: job.error }, slot);
               continue;
             }
-            charsRead += step.value.source.length;
-            slot.queue.push({ index, job: step.value });
-            slot.worker?.postMessage({ index, ...step.value });
+            charsRead += job.source.length;
+            slot.queue.push({ index, job });
+            slot.worker?.postMessage({ index, ...job });
             if (slot.queue.length === 1) arm(slot);
             grow();
           }
