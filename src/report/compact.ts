@@ -347,8 +347,15 @@ export function encodeItem(encoder: FileEncoder, member: string, item: unknown):
 /** The in-memory file members, in the order 2.x writes them; `results`, `statistics`, `findings` and `checklist` are written item by item. */
 export const STREAMED_MEMBERS = ['results', 'statistics', 'findings', 'checklist'] as const;
 
-/** Reads a file of a 2.x report back into the 1.x shape: every place with its span and positions, every text in full, every default in place. */
-export function expandFile(file: Record<string, unknown>): Record<string, unknown> {
+/**
+ * Reads a file of a 2.x report back into the 1.x shape: every place with its span and positions,
+ * every text in full, every default in place. `minor` is the report's minor version: what 2.1.0
+ * began to leave out (places' printed slices and defaults, a finding's place, range, gap members
+ * and p figure taken from its result, check and assumptions written once) is filled in only from
+ * 2.1 on, so a 2.0.0 report that never had such a member does not gain one.
+ */
+export function expandFile(file: Record<string, unknown>, minor = Number.POSITIVE_INFINITY): Record<string, unknown> {
+  const since21 = minor >= 1;
   const texts = Array.isArray(file.texts) ? (file.texts as string[]) : [];
   const steps = Array.isArray(file.lineStarts) ? (file.lineStarts as number[]) : [0];
   const starts: number[] = [];
@@ -401,7 +408,7 @@ export function expandFile(file: Record<string, unknown>): Record<string, unknow
     if (k === 'texts' || k === 'lineStarts') continue;
     const v = file[k];
     // each result and statistic is the host of the places inside it
-    if ((k === 'results' || k === 'statistics') && Array.isArray(v)) out[k] = v.map((x) => (isObject(x) && typeof x.printed === 'string' && isAt(x.at) ? decode(x, '', undefined, { printed: x.printed, start: x.at[0] }) : decode(x, k)));
+    if (since21 && (k === 'results' || k === 'statistics') && Array.isArray(v)) out[k] = v.map((x) => (isObject(x) && typeof x.printed === 'string' && isAt(x.at) ? decode(x, '', undefined, { printed: x.printed, start: x.at[0] }) : decode(x, k)));
     else out[k] = decode(v, k);
   }
   if (Array.isArray(out.results)) {
@@ -424,7 +431,8 @@ export function expandFile(file: Record<string, unknown>): Record<string, unknow
     const itemOf = new Map<unknown, Record<string, unknown>>();
     for (const list of [out.results, out.statistics]) if (Array.isArray(list)) for (const x of list as Array<Record<string, unknown>>) itemOf.set(x.id, x);
     const last = new Map<string, { check?: unknown; quantity?: unknown; assumptions?: unknown }>();
-    for (const f of out.findings as Array<Record<string, unknown>>) {
+    /** What 2.1.0 leaves out of a finding, from its result (`host`) and the finding before of the same rule and message. */
+    const fill21 = (f: Record<string, unknown>, host: Record<string, unknown> | undefined) => {
       // check, quantity and assumptions left out when the last finding of the same rule and message had them
       const key = kindOf(f);
       const before = last.get(key) ?? {};
@@ -438,7 +446,6 @@ export function expandFile(file: Record<string, unknown>): Record<string, unknow
           if (k in r) before[k] = r[k];
         }
       }
-      const host = itemOf.get(f.resultId);
       // in the order they were derived: the place, the recomputed range, then the gap's members from it
       if (host !== undefined) {
         if (!('reported' in f)) f.reported = host.printed;
@@ -466,6 +473,13 @@ export function expandFile(file: Record<string, unknown>): Record<string, unknow
         if (f.figure === null) delete f.figure;
         else if (!('figure' in f)) f.figure = { ...P_FIGURE };
       }
+    };
+    for (const f of out.findings as Array<Record<string, unknown>>) {
+      const host = itemOf.get(f.resultId);
+      if (!since21) {
+        // 2.0.0 left out only the printed result
+        if (!('reported' in f) && host !== undefined) f.reported = host.printed;
+      } else fill21(f, host);
       const fig = f.figure;
       if (isObject(fig) && fig.kind === 'interval') {
         if (!('midpoint' in fig)) fig.midpoint = midpointOf(fig.lower, fig.upper);

@@ -83,9 +83,11 @@ export function* fileChunks(file: FileReport): Generator<string> {
 export function readJsonReport(report: unknown): Record<string, unknown> {
   if (typeof report !== 'object' || report === null || Array.isArray(report)) throw new TypeError('a JSON report is an object');
   const r = report as Record<string, unknown>;
-  const major = typeof r.reportVersion === 'string' ? Number(r.reportVersion.split('.')[0]) : NaN;
-  if (!(major >= 2)) return r;
-  const file = (f: unknown) => (typeof f === 'object' && f !== null && Array.isArray((f as Record<string, unknown>).results) ? expandFile(f as Record<string, unknown>) : f);
+  const [major, minor] = typeof r.reportVersion === 'string' ? r.reportVersion.split('.').map(Number) : [NaN, NaN];
+  if (!((major ?? NaN) >= 2)) return r;
+  // a later major version counts as the latest minor this reader knows
+  const known = major === 2 ? (minor ?? 0) : Number.POSITIVE_INFINITY;
+  const file = (f: unknown) => (typeof f === 'object' && f !== null && Array.isArray((f as Record<string, unknown>).results) ? expandFile(f as Record<string, unknown>, known) : f);
   // a batch line: one file, with the files it includes
   if (Array.isArray(r.results)) {
     // each included file has texts of its own: the line's are not theirs

@@ -251,3 +251,29 @@ describe('the default figure table of 2.1.0', () => {
     expect(new Set(named)).toEqual(new Set(P_FIGURE_RULES));
   });
 });
+
+describe('a 2.0.0 report read back', () => {
+  it('gains none of the members 2.1.0 began to leave out: a p bound keeps its gap without an allowance, and no p figure is made up', () => {
+    // an invented result whose p is a bound (no rounding allowance in any version)
+    const run = runOf([['s.md', 'Scores rose, t(10) = 1.0, p < .001.\n']]);
+    const report = JSON.parse(formatJson(run)) as { reportVersion: string; files: Array<{ results: Array<Record<string, unknown>>; findings: Array<Record<string, unknown>> }> };
+    const [file] = report.files;
+    const [r] = file?.results ?? [];
+    const [f] = file?.findings ?? [];
+    const full = run.files[0]?.findings[0];
+    if (!r || !f || !full?.gap || !full.recomputed) throw new Error('the text gave other records');
+    // as 2.0.0 wrote it: the finding's place, range and distance written out, the gap without
+    // roundingAllowance (2.0.0 wrote no null) and the finding without a figure
+    f.at = r.at;
+    f.recomputed = { ...(f.recomputed as Record<string, unknown>), low: full.recomputed.low, high: full.recomputed.high };
+    f.gap = { absolute: full.gap.absolute };
+    delete f.figure;
+    const read = (version: string) => (readJsonReport({ ...report, reportVersion: version }).files as Array<{ findings: Array<Record<string, unknown>> }>)[0]?.findings[0];
+    const old = read('2.0.0');
+    expect(old?.gap).toEqual({ absolute: full.gap.absolute });
+    expect(old).not.toHaveProperty('figure');
+    expect(old?.reported).toBe('t(10) = 1.0, p < .001');
+    // the same members read as 2.1.0, where an absent allowance means half the last digit's unit
+    expect(read('2.1.0')?.gap).toMatchObject({ roundingAllowance: 0.0005 });
+  });
+});
