@@ -152,6 +152,8 @@ export async function checkAll(
         return { index, job: step.value };
       };
       const settle = (index: number, outcome: Outcome, slot?: Slot): Promise<void> => {
+        // the run is over (it failed): nothing more is emitted
+        if (closing) return Promise.resolve();
         pending.set(index, outcome);
         const flushed = flush().then(() => (done() ? resolve() : slot && feed(slot)));
         flushed.catch(reject);
@@ -272,13 +274,13 @@ export async function checkAll(
        * does) and the event loop turns, so workers' reports and requests are served in between.
        */
       const checkHereLoop = async (): Promise<void> => {
-        while (!exhausted) {
+        while (!exhausted && !closing) {
           // no further ahead of the output than HERE_AHEAD documents: they are held until emitted
           while (submitted - nextToEmit >= HERE_AHEAD) await new Promise<void>((wake) => (advanced = wake));
           advanced = undefined;
-          if (exhausted) return;
+          if (exhausted || closing) return;
           const next = await take();
-          if (next === undefined) return;
+          if (next === undefined || closing) return;
           const { index, job } = next;
           if ('error' in job) {
             await settle(index, { error: job.error });
@@ -317,8 +319,12 @@ export async function checkAll(
             }
             charsRead += job.source.length;
             slot.queue.push({ index, job });
-            slot.worker?.postMessage({ index, ...job });
-            if (slot.queue.length === 1) arm(slot);
+            // its worker may have been replaced while the input was read: a new one is sent its
+            // whole queue when it has loaded, so the job is posted only to a worker that is ready
+            if (slot.ready) {
+              slot.worker?.postMessage({ index, ...job });
+              if (slot.queue.length === 1) arm(slot);
+            }
             grow();
           }
         } finally {

@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -116,6 +116,51 @@ describe.runIf(existsSync(WORKER))('a worker thread that exits without an error'
     expect(order).toEqual(jobs.map((_, i) => i));
     expect(outcomes.map((o) => ('error' in o ? o.error : o.report.path))).toEqual(jobs.map((j) => (j.path === 'exits.md' ? 'not checked: the check stopped: its worker thread exited (exit code 3)' : j.path)));
     expect(outcomes.map(said)).toEqual(jobs.map((j) => ('error' in j || j.path === 'exits.md' ? expect.any(String) : said({ report: checkSource(j.path, j.source, j.options) }))));
+  }, 120_000);
+
+  it('a document read while its worker is being replaced is sent to the new worker once', async () => {
+    // the first worker exits on the first document; its replacement takes 1.5 s to load, and the
+    // second document arrives from the input while it loads; the worker script logs every job it is sent
+    const dir = mkdtempSync(join(tmpdir(), 'plumbline-resend-'));
+    const log = join(dir, 'log.txt');
+    const workerFile = join(dir, 'worker.mjs');
+    writeFileSync(
+      workerFile,
+      [
+        "import { parentPort } from 'node:worker_threads';",
+        "import { appendFileSync, readFileSync } from 'node:fs';",
+        `const log = ${JSON.stringify(log)};`,
+        "appendFileSync(log, 'start\\n');",
+        "const starts = readFileSync(log, 'utf8').split('\\n').filter((l) => l === 'start').length;",
+        "parentPort.on('message', (job) => { appendFileSync(log, `job ${job.index}\\n`); if (String(job.source).includes('EXIT-NOW')) process.exit(3); });",
+        'if (starts > 1) await new Promise((wake) => setTimeout(wake, 1500));',
+        `await import(${JSON.stringify(pathToFileURL(WORKER).href)});`,
+        '',
+      ].join('\n'),
+    );
+    const second = { path: 'b.md', source: 'Recall improved, t(23) = 2.47, p = .021.\n', options: {} };
+    async function* input(): AsyncGenerator<Job> {
+      yield { path: 'a.md', source: 'EXIT-NOW, t(20) = 2.10, p = .048.\n', options: {} };
+      await new Promise((wake) => setTimeout(wake, 1000));
+      yield second;
+    }
+    const outcomes: Outcome[] = [];
+    await checkAll(input(), 1, (o) => void outcomes.push(o), { memoryMb: 2048, seconds: 120 }, { workerFile });
+    expect(outcomes.map((o) => ('error' in o ? o.error : o.report.path))).toEqual(['not checked: the check stopped: its worker thread exited (exit code 3)', 'b.md']);
+    const lines = readFileSync(log, 'utf8').split('\n').filter(Boolean);
+    expect(lines.filter((l) => l === 'start')).toHaveLength(2);
+    expect(lines.filter((l) => l === 'job 1')).toHaveLength(1);
+  }, 120_000);
+
+  it('when the run stops so, this thread stops checking and emitting too', async () => {
+    const workerFile = exitingWorker(true);
+    const emitted: number[] = [];
+    const run = checkAll(small(200), 2, (_o, i) => void emitted.push(i), { memoryMb: 2048, seconds: 120 }, { here: true, workerFile });
+    await expect(run).rejects.toThrow('a worker thread stopped while loading (exit code 3)');
+    const atFailure = emitted.length;
+    await new Promise((wake) => setTimeout(wake, 1500));
+    expect(emitted.length).toBe(atFailure);
+    expect(atFailure).toBeLessThan(200);
   }, 120_000);
 
   it('one that exits while loading stops the run with the reason, rather than leaving it waiting', async () => {
