@@ -12,11 +12,18 @@ export interface CheckRequest {
   options: CheckOptions;
 }
 
+/** Starts in a row a slot tries after a worker of it has loaded once, before it is given up. */
+const START_TRIES = 3;
+
 export type CheckOutcome = { report: FileReport } | { error: string; dropped?: boolean };
 
 interface Slot {
   worker?: Worker;
   ready: boolean;
+  /** A worker of this slot has loaded once: its script works, so a start that fails is retried (START_TRIES). */
+  loaded?: boolean;
+  /** Starts that failed in a row since a worker of this slot last loaded. */
+  failedStarts?: number;
   /** Documents whose last check ran here: their last parse is kept in this worker. */
   keys: Set<string>;
   busy?: { id: number; source: string; done: (o: CheckOutcome) => void; timer: NodeJS.Timeout };
@@ -101,6 +108,8 @@ export class Checker {
       if (slot.worker !== w) return;
       if ('ready' in m) {
         slot.ready = true;
+        slot.loaded = true;
+        slot.failedStarts = 0;
         this.pump();
         return;
       }
@@ -125,10 +134,12 @@ export class Checker {
   }
 
   /**
-   * The slot's worker stopped (`why` for the check it drops, `cause` for the log). After it had loaded, it is replaced and the check it was running,
-   * if any, is dropped with the reason. Before it had loaded, a new one would fail the same way
-   * (the fault is the worker's script): the slot is given up, and when none is left the checks
-   * run in this thread, as without the compiled worker.
+   * The slot's worker stopped (`why` for the check it drops, `cause` for the log). After it had
+   * loaded, it is replaced and the check it was running, if any, is dropped with the reason.
+   * Before it had loaded: when no worker of the slot ever loaded, a new one would fail the same
+   * way (the fault is the worker's script); otherwise it is tried again, up to START_TRIES starts
+   * in a row. A slot that cannot start a worker is given up, and when none is left the checks run
+   * in this thread, as without the compiled worker.
    */
   private lost(slot: Slot, w: Worker, why: string, cause: string): void {
     const busy = slot.busy;
@@ -139,6 +150,13 @@ export class Checker {
       busy.done({ error: `not checked: ${why}`, dropped: true });
     }
     if (slot.ready) {
+      this.start(slot);
+      return;
+    }
+    // a replacement that failed while loading, in a slot whose workers have loaded before (a
+    // thread that could not start for the moment): tried again, a few times in a row at most
+    slot.failedStarts = (slot.failedStarts ?? 0) + 1;
+    if (slot.loaded === true && slot.failedStarts < START_TRIES) {
       this.start(slot);
       return;
     }

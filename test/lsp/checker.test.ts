@@ -1,4 +1,4 @@
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -70,6 +70,38 @@ describe('the language server\'s checker when a worker thread exits without an e
     const next = await checker.check({ key: 'b', path: 'b.md', source: 'x, t(23) = 5.90, p = .000.', options: {} });
     expect('report' in next && next.report.findings.map((f) => f.ruleId)).toContain('zero-p-is-a-bound');
     await checker.close();
+  });
+
+  it('a replacement that fails while loading, in a slot whose worker loaded before, is tried again: the checks stay on workers', async () => {
+    // the first worker exits on a document; the second exits while loading; the third loads. The
+    // worker script logs each start and each job, so the test sees where the next check ran
+    const dir = mkdtempSync(join(tmpdir(), 'plumbline-lsp-retry-'));
+    const log = join(dir, 'log.txt');
+    const file = join(dir, 'worker.mjs');
+    const real = pathToFileURL(resolve('dist/src/cli/worker.js')).href;
+    writeFileSync(
+      file,
+      [
+        "import { parentPort } from 'node:worker_threads';",
+        "import { appendFileSync, readFileSync } from 'node:fs';",
+        `const log = ${JSON.stringify(log)};`,
+        "appendFileSync(log, 'start\\n');",
+        "const starts = readFileSync(log, 'utf8').split('\\n').filter((l) => l === 'start').length;",
+        'if (starts === 2) process.exit(4);',
+        "parentPort.on('message', (job) => { if (job.path !== undefined) appendFileSync(log, `job ${job.path}\\n`); if (String(job.source).includes('EXIT-NOW')) process.exit(3); });",
+        `await import(${JSON.stringify(real)});`,
+        '',
+      ].join('\n'),
+    );
+    const logged: string[] = [];
+    const checker = new Checker({ memoryMb: 256, seconds: 30 }, 1, (m) => logged.push(m), file);
+    const dropped = await checker.check({ key: 'a', path: 'a.md', source: 'EXIT-NOW, t(23) = 2.90, p = .008.', options: {} });
+    expect(dropped).toMatchObject({ dropped: true });
+    const next = await checker.check({ key: 'b', path: 'b.md', source: 'x, t(23) = 5.90, p = .000.', options: {} });
+    expect('report' in next && next.report.findings.map((f) => f.ruleId)).toContain('zero-p-is-a-bound');
+    await checker.close();
+    expect(readFileSync(log, 'utf8').split('\n').filter(Boolean)).toEqual(['start', 'job a.md', 'start', 'start', 'job b.md']);
+    expect(logged).toEqual([]);
   });
 
   it('one that cannot load is given up with a logged message, and the checks run in this thread', async () => {
