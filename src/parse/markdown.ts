@@ -18,6 +18,7 @@ import { LAZY_LIMIT, QUOTE_LIMIT, SETEXT_LIMIT, defuseSlowShapes, joinLongParagr
 import { BULK_CHUNK_ROWS, BULK_MIN_ROWS, blankRuns, blankedRange, findBulkRuns, plainCells, type BulkRun } from './bulkTable.js';
 import { PLAIN_MIN_GROUPS, findPlainRuns, inlineTagText, lineShift, plainRange, readPlainGroup, standInRuns, type PlainGroup, type PlainRun } from './plainRuns.js';
 import { remarkLabelLists } from './definedLabels.js';
+import { PIECE_CHARS, parseInPieces } from './pieces.js';
 import type { Directive, FrontMatter, ParsedDocument, ReadNote, Segment, SegmentKind, TablePlace } from './types.js';
 
 // remarkLabelLists comes last: its constructs must be tried before remark-gfm's at `[` (see definedLabels.ts)
@@ -74,6 +75,11 @@ export interface MarkdownOptions {
    * parser (same segments; see plainRuns.ts). `Infinity` turns that off (the tests compare both).
    */
   plainGroups?: number;
+  /**
+   * Texts of at least twice this many characters are parsed in pieces of about this size (same
+   * tree; see pieces.ts). `Infinity` turns that off (the tests compare both readings).
+   */
+  pieceChars?: number;
 }
 
 /**
@@ -291,7 +297,7 @@ function slowShapeMessage(s: SlowShape): string {
 }
 
 function walk(text: string, shift: number, options: MarkdownOptions, minRows: number, parser: { parse(text: string): unknown }): Walker {
-  const { tree, runs, plain, lineOf } = parseWithBulkRuns(text, minRows, parser, options.plainGroups ?? PLAIN_MIN_GROUPS);
+  const { tree, runs, plain, lineOf } = parseWithBulkRuns(text, minRows, parser, options.plainGroups ?? PLAIN_MIN_GROUPS, options.pieceChars ?? PIECE_CHARS);
   const walker = new Walker(text, shift, options, runs, plain, lineOf);
   walker.walkTop(tree.children);
   walker.finishHtml();
@@ -304,12 +310,12 @@ function walk(text: string, shift: number, options: MarkdownOptions, minRows: nu
  * tail of a table (a run inside a fenced block or raw HTML is put back and the text parsed
  * again; after two rounds of that, every run is put back).
  */
-export function parseWithBulkRuns(text: string, minRows: number, parser: { parse(text: string): unknown } = processor, minGroups = PLAIN_MIN_GROUPS): { tree: Root; runs: Map<number, BulkRun>; plain: Map<number, PlainRun>; lineOf: (point: Point) => number } {
+export function parseWithBulkRuns(text: string, minRows: number, parser: { parse(text: string): unknown } = processor, minGroups = PLAIN_MIN_GROUPS, pieceChars = PIECE_CHARS): { tree: Root; runs: Map<number, BulkRun>; plain: Map<number, PlainRun>; lineOf: (point: Point) => number } {
   let runs = findBulkRuns(text, minRows);
   // plain lines hold no `|`, so no plain run shares a line with a table run
   let plain = findPlainRuns(text, minGroups);
   for (let round = 0; ; round += 1) {
-    const tree = parser.parse(standInRuns(blankRuns(text, runs), plain)) as Root;
+    const tree = parseInPieces(parser, standInRuns(blankRuns(text, runs), plain), pieceChars);
     // the parser's line numbers, in lines of `text` (the line endings of a plain run and of a
     // long table's rows are not parsed; plain lines hold no `|`, so the two never share a line)
     const shifted = lineShift(text, [...plain.map(plainRange), ...runs.map(blankedRange)].sort((a, b) => a.start - b.start));
