@@ -6,6 +6,7 @@ import { fileURLToPath } from 'node:url';
 import vm from 'node:vm';
 import { cacheFolder, cacheIdentity, cacheKind, readCache, writeCache } from './codeCache.js';
 import { growHeapSlowly } from './heap.js';
+import { compileRegexpsAtOnce } from './regexps.js';
 
 type Run = (typeof import('./run.js'))['run'];
 
@@ -39,6 +40,8 @@ export async function loadRun(argv: readonly string[], env: NodeJS.ProcessEnv = 
   const kind = cacheKind(argv);
   // a batch run's heap policy (heap.ts), set before anything is compiled: the code cache is the flags' too
   if (kind?.startsWith('batch:') === true) growHeapSlowly(process.execArgv, env.NODE_OPTIONS);
+  // every run: regular expressions compiled on first use (regexps.ts), set before any is made
+  compileRegexpsAtOnce(process.execArgv, env.NODE_OPTIONS);
   const file = fileURLToPath(BUNDLE);
   if (!existsSync(file)) return { run: (await import('./run.js')).run, save: () => undefined };
   const bytes = readFileSync(file);

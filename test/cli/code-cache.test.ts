@@ -5,6 +5,7 @@ import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { cacheFile, cacheFolder, cacheIdentity, cacheKind, decodeCache, encodeCache, readCache, writeCache, type CacheIdentity } from '../../src/cli/codeCache.js';
 import { growHeapSlowly, hasOwnHeapGrowing } from '../../src/cli/heap.js';
+import { compileRegexpsAtOnce, hasOwnRegexpTier } from '../../src/cli/regexps.js';
 import { BIN, cli } from './harness.js';
 
 /**
@@ -198,5 +199,16 @@ describe('the batch heap policy', () => {
     expect(hasOwnHeapGrowing([], '--heap_growing_percent=80')).toBe(true);
     // and then sets nothing
     expect(growHeapSlowly(['--heap-growing-percent=20'], undefined)).toBe(false);
+  });
+});
+
+describe('regular expressions compiled on first use', () => {
+  it('gives way to a regexp tier-up setting the process was started with, in its arguments or NODE_OPTIONS', () => {
+    expect(hasOwnRegexpTier([], undefined)).toBe(false);
+    expect(hasOwnRegexpTier(['--max-old-space-size=4096'], '--trace-warnings')).toBe(false);
+    expect(hasOwnRegexpTier(['--regexp-tier-up'], undefined)).toBe(true);
+    expect(hasOwnRegexpTier([], '--regexp_tier_up_ticks=5')).toBe(true);
+    // and then sets nothing
+    expect(compileRegexpsAtOnce(['--regexp-tier-up-ticks=3'], undefined)).toBe(false);
   });
 });
