@@ -1,6 +1,7 @@
 import type { Segment } from '../parse/types.js';
 import { sentenceOf, sourceSpan } from './numbers.js';
 import type { GroupAssignment } from './types.js';
+import { matchesOf } from './matches.js';
 
 /** A group's name: one to three words, hyphens allowed ("no-incentive", "standing desk"). */
 const NAME = String.raw`(\p{L}[\p{L}\p{N}-]{0,30}(?: \p{L}[\p{L}\p{N}-]{0,30}){0,2}?)`;
@@ -30,7 +31,7 @@ export function findAssignments(seg: Segment, sentenceStarts: number[]): GroupAs
   const text = seg.text;
   if (!/assigned|allocated|randomi[sz]ed/i.test(text)) return [];
   const out: GroupAssignment[] = [];
-  for (const m of text.matchAll(ASSIGNED)) {
+  for (const m of matchesOf(ASSIGNED, text)) {
     const a = (m[1] ?? '').toLowerCase();
     const b = (m[2] ?? '').toLowerCase();
     if (!a || !b || a === b || NOT_A_NAME.test(a) || NOT_A_NAME.test(b)) continue;

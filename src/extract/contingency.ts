@@ -1,6 +1,7 @@
 import type { Segment } from '../parse/types.js';
 import { sentenceOf, sourceSpan } from './numbers.js';
 import type { TableDimensions } from './types.js';
+import { matchesOf } from './matches.js';
 
 const COUNT = String.raw`(\d{1,2}|two|three|four|five|six|seven|eight|nine|ten)`;
 const WORDS: Record<string, number> = { two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10 };
@@ -20,7 +21,7 @@ export function findTableDimensions(seg: Segment, starts: number[]): TableDimens
   const out: TableDimensions[] = [];
   if (!/table|tabulation|crosstab|across/iu.test(text)) return out;
   for (const re of [BY_SIZE, ACROSS]) {
-    for (const m of text.matchAll(re)) {
+    for (const m of matchesOf(re, text)) {
       const rows = countOf(m[1] as string);
       const cols = countOf(m[2] as string);
       if (!(rows >= 2 && cols >= 2)) continue;

@@ -1,4 +1,5 @@
 import type { Segment } from '../parse/types.js';
+import { matchesOf } from './matches.js';
 
 /** How a document writes the decimal mark: `2.10` or `2,10`. */
 export type DecimalConvention = 'point' | 'comma';
@@ -28,7 +29,7 @@ export function decimalConvention(segments: readonly Segment[]): DecimalConventi
   for (const seg of segments) {
     if (seg.kind === 'code') continue;
     const text = seg.text;
-    if (text.includes(',')) for (const m of text.matchAll(COMMA_VALUE)) if (isDecimalComma(m[1] as string, m[2] as string)) comma += 1;
+    if (text.includes(',')) for (const m of matchesOf(COMMA_VALUE, text)) if (isDecimalComma(m[1] as string, m[2] as string)) comma += 1;
     if (text.includes('.')) point += text.match(POINT_VALUE)?.length ?? 0;
   }
   return comma > point ? 'comma' : 'point';
@@ -58,17 +59,17 @@ export function withDecimalPoints(seg: Segment, convention: DecimalConvention): 
     changed = true;
   };
   if (convention === 'point') {
-    for (const m of text.matchAll(COMMA_VALUE)) {
+    for (const m of matchesOf(COMMA_VALUE, text)) {
       if (isDecimalComma(m[1] as string, m[2] as string)) rewrite(m.index + (m[1] as string).length);
     }
   } else {
     // `1.267,7`: points that group thousands before a decimal comma become commas, which every
     // reader takes as thousands separators (`1,267.7` once the decimal comma is a point)
-    if (text.includes('.')) for (const m of text.matchAll(THOUSANDS_POINTS)) {
+    if (text.includes('.')) for (const m of matchesOf(THOUSANDS_POINTS, text)) {
       for (let i = m.index; i < m.index + m[0].length; i += 1) if (text[i] === '.') chars[i] = ',';
       changed = true;
     }
-    for (const m of text.matchAll(COMMA_NUMBER)) {
+    for (const m of matchesOf(COMMA_NUMBER, text)) {
       const comma = m.index + (m[1] as string).length;
       if (inList(text, m.index, comma + 1 + (m[2] as string).length) || afterStatisticBracket(text, m.index)) continue;
       rewrite(comma);

@@ -2,6 +2,7 @@ import type { Segment } from '../parse/types.js';
 import { sentenceOf, sentenceStarts, sourceSpan } from './numbers.js';
 import { UNIT_WORDS } from './units.js';
 import type { IntegerStatement, MeasureMention } from './types.js';
+import { matchesOf } from './matches.js';
 
 const NUMBER_WORDS: Record<string, number> = { one: 1, two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10, eleven: 11, twelve: 12, fifteen: 15, twenty: 20 };
 const COUNT = String.raw`(\d{1,3}|one|two|three|four|five|six|seven|eight|nine|ten|eleven|twelve|fifteen|twenty)`;
@@ -150,7 +151,7 @@ export function findMeasureMentions(segments: readonly Segment[], declared: read
     if (seg.kind === 'code') continue;
     let starts: number[] | undefined;
     const seen = new Set<string>();
-    const words = [...seg.text.matchAll(/\p{L}[\p{L}'’-]{1,30}/gu)];
+    const words = [...matchesOf(/\p{L}[\p{L}'’-]{1,30}/gu, seg.text)];
     words.forEach((m, i) => {
       const candidates = byFirst.get(m[0].toLowerCase()) ?? byFirst.get(singular(m[0]));
       if (!candidates) return;

@@ -1,6 +1,7 @@
 import type { Segment } from '../parse/types.js';
 import { sentenceOf, sourceSpan } from './numbers.js';
 import type { Mention, TestNameWords } from './types.js';
+import { matchesOf } from './matches.js';
 
 const SOFTWARE = /(?<![\p{L}])(R|RStudio|SPSS|IBM SPSS Statistics|Stata|SAS|JASP|jamovi|Python|SciPy|statsmodels|GraphPad Prism|Prism|Minitab|MATLAB|Excel|G\*Power|Statistica|JMP)(?![\p{L}])(?:[^.;\n]{0,40}?(?:version |v\.? ?|\()?(\d{1,4}(?:\.\d{1,4}){1,3}))?/gu;
 const SOFTWARE_CONTEXT = /(?<![\p{L}])(software|package|statistical|analy[sz]ed|analyses|using|version|computed|performed)(?![\p{L}])/iu;
@@ -45,7 +46,7 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
   const add = (kind: Mention['kind'], m: RegExpMatchArray, version?: string) => {
     out.push({ kind, segment: seg.id, block: seg.block, sentence: sentenceOf(starts, m.index ?? 0), span: sourceSpan(seg, m.index ?? 0, (m.index ?? 0) + m[0].length), printed: m[0], ...(version ? { version } : {}) });
   };
-  if (MAY.software.test(text)) for (const m of text.matchAll(SOFTWARE)) {
+  if (MAY.software.test(text)) for (const m of matchesOf(SOFTWARE, text)) {
     // "R" alone is a software name only beside words about analysis, or with a version
     const sentence = starts[sentenceOf(starts, m.index)] as number;
     const context = text.slice(sentence, starts[sentenceOf(starts, m.index) + 1] ?? text.length);
@@ -54,10 +55,10 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
     add('software', m, m[2]);
   }
   for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion']] as const) {
-    if (MAY[kind].test(text)) for (const m of text.matchAll(re)) add(kind, m);
+    if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) add(kind, m);
   }
   if (MAY.assumption.test(text)) for (const m of assumptionChecks(text, starts)) add('assumption', m);
-  if (MAY['test-name'].test(text)) for (const m of text.matchAll(TEST_NAME)) {
+  if (MAY['test-name'].test(text)) for (const m of matchesOf(TEST_NAME, text)) {
     const test = testNameWords(m[0]);
     if (test) out.push({ ...placeOf(seg, starts, m), kind: 'test-name', test });
   }
@@ -97,7 +98,7 @@ export function testNameWords(words: string, source: TestNameWords['source'] = '
 export function findSoftwareHeaders(seg: Segment, starts: number[]): Mention[] {
   if (!seg.text.includes('t-test')) return [];
   const out: Mention[] = [];
-  for (const m of seg.text.matchAll(R_HEADER)) {
+  for (const m of matchesOf(R_HEADER, seg.text)) {
     const test = testNameWords(m[0], 'software-output');
     if (test) out.push({ ...placeOf(seg, starts, m), kind: 'test-name', test });
   }
@@ -117,7 +118,7 @@ function assumptionChecks(text: string, starts: number[]): RegExpMatchArray[] {
     const i = sentenceOf(starts, at);
     return [starts[i] as number, starts[i + 1] ?? text.length] as const;
   };
-  for (const m of text.matchAll(ASSUMPTION_CHECK)) {
+  for (const m of matchesOf(ASSUMPTION_CHECK, text)) {
     const at = m.index;
     const [from] = sentenceBounds(at);
     const before = text.slice(Math.max(from, at - 20), at);
@@ -126,7 +127,7 @@ function assumptionChecks(text: string, starts: number[]): RegExpMatchArray[] {
     out.push(m);
   }
   const withCheck = new Set(out.map((m) => sentenceOf(starts, m.index ?? 0)));
-  for (const m of text.matchAll(ASSUMPTION_TOPIC)) {
+  for (const m of matchesOf(ASSUMPTION_TOPIC, text)) {
     const at = m.index;
     // a sentence with a named check is credited once, at the check
     if (withCheck.has(sentenceOf(starts, at))) continue;
@@ -137,12 +138,12 @@ function assumptionChecks(text: string, starts: number[]): RegExpMatchArray[] {
     const hi = Math.min(to, end + CHECK_REACH);
     const window = text.slice(lo, hi);
     let checked = false;
-    for (const v of window.matchAll(CHECK_DONE)) {
+    for (const v of matchesOf(CHECK_DONE, window)) {
       const vAt = lo + v.index;
       if (vAt >= at && vAt < end) continue;
       if (!NEGATED_BEFORE.test(text.slice(Math.max(from, vAt - 30), vAt))) checked = true;
     }
-    for (const v of window.matchAll(CHECK_FOUND)) if (lo + v.index < at || lo + v.index >= end) checked = true;
+    for (const v of matchesOf(CHECK_FOUND, window)) if (lo + v.index < at || lo + v.index >= end) checked = true;
     if (checked) out.push(m);
   }
   return out;

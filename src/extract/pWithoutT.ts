@@ -3,6 +3,7 @@ import { sentenceOf, sourceSpan } from './numbers.js';
 import { NAMES_T_TEST } from './statements.js';
 import { findP } from './tTests.js';
 import type { PWithoutT, TTestReport } from './types.js';
+import { matchesOf } from './matches.js';
 
 /**
  * In a sentence that names a t-test ("a paired t-test showed …") but holds no t statistic,
@@ -12,7 +13,7 @@ export function findPWithoutT(seg: Segment, starts: number[], tests: TTestReport
   const out: PWithoutT[] = [];
   const withT = new Set(tests.map((t) => t.sentence));
   const done = new Set<number>();
-  for (const m of seg.text.matchAll(NAMES_T_TEST)) {
+  for (const m of matchesOf(NAMES_T_TEST, seg.text)) {
     const sentence = sentenceOf(starts, m.index);
     if (withT.has(sentence) || done.has(sentence)) continue;
     done.add(sentence);

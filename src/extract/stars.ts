@@ -1,6 +1,7 @@
 import type { Segment } from '../parse/types.js';
 import { sourceSpan } from './numbers.js';
 import type { TTestReport } from './types.js';
+import { matchesOf } from './matches.js';
 
 /** One symbol of a star legend: `***p < .001`, `† p < .10`, `* P ≤ 0.05`. */
 const LEGEND = /(?<![*†‡\p{L}\p{N}])(\*{1,4}|†|‡) ?(?:p|P)(?:[- ]?values?)? ?(<|≤|<=) ?(0?\.\d{1,4})(?!\d)/gu;
@@ -16,7 +17,7 @@ export function findStarLegends(seg: Segment): StarLegend | undefined {
   const thresholds = new Map<string, number>();
   let first = -1;
   let last = -1;
-  for (const m of seg.text.matchAll(LEGEND)) {
+  for (const m of matchesOf(LEGEND, seg.text)) {
     thresholds.set(m[1] as string, Number(m[3]));
     if (first < 0) first = m.index;
     last = m.index + m[0].length;

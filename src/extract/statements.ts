@@ -2,6 +2,7 @@ import type { Segment } from '../parse/types.js';
 import { sentenceOf, sourceSpan } from './numbers.js';
 import { comparisonsIn } from './comparisons.js';
 import type { AdjustMethod, ContextStatement } from './types.js';
+import { matchesOf } from './matches.js';
 
 const SIDED = /(?<![\p{L}])(one|two|1|2|single)[- ]?(tailed|sided)(?![\p{L}])|(?<![\p{L}])(non-?directional|directional)(?= (?:test|hypothes|predict))/giu;
 const EQUIVALENCE = /(?<![\p{L}])(equivalence test|test of equivalence|tests? for equivalence|TOST|two one-sided|non-?inferiority|equivalence bounds?)(?![\p{L}])/giu;
@@ -59,7 +60,7 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     }
     return r;
   };
-  if (/tail|sided|directional/i.test(text)) for (const m of text.matchAll(SIDED)) {
+  if (/tail|sided|directional/i.test(text)) for (const m of matchesOf(SIDED, text)) {
     const word = (m[1] ?? m[3] ?? '').toLowerCase();
     const one = word === 'one' || word === '1' || word === 'single' || word === 'directional';
     const near = text.slice(Math.max(0, m.index - 40), Math.min(text.length, m.index + m[0].length + 30));
@@ -68,10 +69,10 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     const planning = sentence.planning;
     out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: !planning && sentence.general, ...(planning ? { planning } : {}), ...base(m.index, m.index + m[0].length) });
   }
-  if (/equivalen|TOST|one-sided|inferiority/i.test(text)) for (const m of text.matchAll(EQUIVALENCE)) {
+  if (/equivalen|TOST|one-sided|inferiority/i.test(text)) for (const m of matchesOf(EQUIVALENCE, text)) {
     out.push({ kind: 'equivalence', sidedness: 'one', ...base(m.index, m.index + m[0].length) });
   }
-  if (/±|\+\/-|plus or minus/.test(text)) for (const m of text.matchAll(SPREAD_STATEMENT)) {
+  if (/±|\+\/-|plus or minus/.test(text)) for (const m of matchesOf(SPREAD_STATEMENT, text)) {
     const sd = /^(sd|s\.d\.|standard dev)/i.test(m[1] as string);
     out.push({ kind: 'spread', spread: sd ? 'SD' : 'SE', ...base(m.index, m.index + m[0].length) });
   }
@@ -92,7 +93,7 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     }
   }
   if (/α|alpha|significan|level/i.test(text)) for (const re of [ALPHA, ALPHA_AS_P]) {
-    for (const m of text.matchAll(re)) {
+    for (const m of matchesOf(re, text)) {
       const value = Number(m[1] ?? m[2]);
       const sentence = sentenceOfAt(m.index);
       const planning = sentence.planning;

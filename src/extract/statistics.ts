@@ -3,6 +3,7 @@ import { readNumber, sentenceOf, sourceSpan } from './numbers.js';
 import { findP, reportTailEnd } from './tTests.js';
 import type { Comparison, OtherStatistic, OtherStatisticKind, ReportedNumber, TTestReport } from './types.js';
 import { leadStart, topicStems } from './topic.js';
+import { matchesOf } from './matches.js';
 
 // Bounded building blocks (see test/regex-safety).
 const OP = String.raw`(?:<=|>=|≤|≥|=|<|>)`;
@@ -45,7 +46,7 @@ export function findOtherStatistics(seg: Segment, sentenceStarts: number[]): Oth
   const text = seg.text;
   for (const { kind, may, re } of PATTERNS) {
     if (!may.test(text)) continue;
-    for (const m of text.matchAll(re)) {
+    for (const m of matchesOf(re, text)) {
       const g = m[1];
       if (g === undefined) continue;
       const end = m.index + m[0].length;

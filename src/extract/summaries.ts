@@ -16,6 +16,7 @@ import type {
   SampleSize,
   SpreadKind,
 } from './types.js';
+import { matchesOf } from './matches.js';
 
 // Bounded building blocks (see test/regex-safety for the linearity argument).
 const NUM = String.raw`([-+]?(?:\d{1,3}(?:,\d{3}){1,3}|\d{1,12})(?:\.\d{1,12})?|[-+]?\.\d{1,12})`;
@@ -176,7 +177,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     if (lo === tokens.length) tokens.push(t);
     else tokens.splice(lo, 0, t);
   };
-  if (text.includes('±')) for (const m of text.matchAll(PLUS_MINUS)) {
+  if (text.includes('±')) for (const m of matchesOf(PLUS_MINUS, text)) {
     const a = num(seg, m, 1);
     const b = num(seg, m, 3);
     const k = m[5];
@@ -184,7 +185,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     push({ kind: 'pm', start: m.index, end: m.index + m[0].length, a, b, spreadKind: spreadKind(k), percent: m[2] !== undefined, ...(k ? { kindSpan: group(m, 5) as [number, number], printedKind: k } : {}) });
   }
   const headerKind = MEAN_PAREN_HEADER.exec(text)?.[1];
-  if (/\d ?%? ?\(/.test(text)) for (const m of text.matchAll(MEAN_PAREN)) {
+  if (/\d ?%? ?\(/.test(text)) for (const m of matchesOf(MEAN_PAREN, text)) {
     const a = num(seg, m, 1);
     const b = num(seg, m, 4);
     const k = m[3] ?? headerKind;
@@ -194,14 +195,14 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
   }
   for (const [re, kind, may] of [[MEAN, 'mean', /\bM|mean|avg|average/i], [SD, 'sd', /sd|s\.d|std|standard dev/i], [SE, 'se', /SE|s\.e\.|S\.E\.|standard error/]] as const) {
     if (!may.test(text)) continue;
-    for (const m of text.matchAll(re)) {
+    for (const m of matchesOf(re, text)) {
       const a = num(seg, m, 1);
       if (!a) continue;
       push({ kind, start: m.index, end: m.index + m[0].length, a, percent: m[2] !== undefined });
     }
   }
   const sampleSizes: SampleSize[] = [];
-  if (/\b[nN](?:_\S{1,20}|\d)? ?[=:]|[Ss]ample size/.test(text)) for (const m of text.matchAll(N)) {
+  if (/\b[nN](?:_\S{1,20}|\d)? ?[=:]|[Ss]ample size/.test(text)) for (const m of matchesOf(N, text)) {
     const a = num(seg, m, 2);
     if (!a) continue;
     const perGroup = m[3] !== undefined;
@@ -212,14 +213,14 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     sampleSizes.push(Object.assign(where(m.index, end), { n: a, scope: perGroup ? ('per-group' as const) : subset ? ('subset' as const) : capital ? ('total' as const) : ('unspecified' as const) }));
   }
   const groupSizes: GroupSizes[] = [];
-  if (/ and | vs|versus|, /.test(text)) for (const m of text.matchAll(N_PAIR)) {
+  if (/ and | vs|versus|, /.test(text)) for (const m of matchesOf(N_PAIR, text)) {
     const a = num(seg, m, 1) ?? num(seg, m, 3);
     const b = num(seg, m, 2) ?? num(seg, m, 4);
     if (a && b) groupSizes.push(Object.assign(where(m.index, m.index + m[0].length), { ns: [a, b] as [ReportedNumber, ReportedNumber] }));
   }
   // the kinds of unit each sentence counts
   const kindsOfSentence = perSentence(unitKindsIn);
-  if (/\d (?:[a-z]{3,12})/.test(text)) for (const m of text.matchAll(PARTICIPANTS)) {
+  if (/\d (?:[a-z]{3,12})/.test(text)) for (const m of matchesOf(PARTICIPANTS, text)) {
     const a = num(seg, m, 1);
     // "groups of 30 nurses each", "24 pupils per class": a group's size, not the total
     const end = m.index + m[0].length;
@@ -277,14 +278,14 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
   }
 
   const intervals: IntervalReport[] = [];
-  if (/CI|C\.I\.|KI|IC|confidence interval/.test(text)) for (const m of text.matchAll(CI)) {
+  if (/CI|C\.I\.|KI|IC|confidence interval/.test(text)) for (const m of matchesOf(CI, text)) {
     const low = num(seg, m, 2);
     const high = num(seg, m, 3);
     if (!low || !high || low.value > high.value) continue;
     intervals.push(Object.assign(where(m.index, m.index + m[0].length), { level: Number(m[1]) / 100, low, high }));
   }
   const estimates: EstimateReport[] = [];
-  if (/difference|MD|diff|\b[bB] ?[=:]|β|estimate|Δ|change/.test(text)) for (const m of text.matchAll(ESTIMATE)) {
+  if (/difference|MD|diff|\b[bB] ?[=:]|β|estimate|Δ|change/.test(text)) for (const m of matchesOf(ESTIMATE, text)) {
     const value = num(seg, m, 1);
     if (!value) continue;
     const label = m[0].replace(/^[^\p{L}β]+/u, '');
@@ -296,7 +297,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     estimates.push(Object.assign(where(m.index, end), { value, ...(coefficient ? { kind: 'coefficient' as const } : {}), ...(se ? { se } : {}) }));
   }
   const effectSizes: EffectSizeReport[] = [];
-  if (/\b[dg](?:_?\{?(?:z|av)\}?)? ?=/.test(text)) for (const m of text.matchAll(EFFECT)) {
+  if (/\b[dg](?:_?\{?(?:z|av)\}?)? ?=/.test(text)) for (const m of matchesOf(EFFECT, text)) {
     const value = num(seg, m, 2);
     const k = (m[1] as string).replace(/[_{}]/g, '');
     if (value) effectSizes.push(Object.assign(where(m.index, m.index + m[0].length), { value, kind: k === 'dz' ? ('dz' as const) : k === 'dav' ? ('dav' as const) : k === 'g' ? ('g' as const) : ('d' as const) }));
@@ -308,7 +309,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
   const namesOrder = perSentence((sentence) => ORDER_WORDS.test(sentence));
   const namesBothTimes = perSentence((sentence) => /pre-?test/iu.test(sentence) && /post-?test/iu.test(sentence));
   if (/paired|pre|post|before|baseline|same|within|repeated|cross|matched|twice|again|each|both|occasions|time ?points|related|dependent|counterbalanced|independent|separate|different|randomi|randomly|allocated|assigned|between|sample|welch|student/i.test(text)) for (const [re, design] of [[PAIRED_WORDS, 'paired'], [SAME_UNITS, 'paired'], [SAME_MEASURED, 'paired'], [INDEPENDENT_WORDS, 'independent'], [INDEPENDENT_TESTS, 'independent'], [ONE_SAMPLE_WORDS, 'one-sample']] as const) {
-    for (const m of text.matchAll(re)) {
+    for (const m of matchesOf(re, text)) {
       // "randomly assigned to the quiet condition first": an order of conditions, not separate groups
       if (design === 'independent' && RANDOM_ORDER.test(m[0]) && namesOrder(m.index)) continue;
       if (design === 'paired' && !pairedInContext(text, m.index, m[0], namesBothTimes)) continue;
@@ -318,12 +319,12 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     }
   }
   const references: ReferenceValue[] = [];
-  if (/test value|hypothesi|reference value|population mean|norm|benchmark|target|recommended|midpoint|chance/i.test(text)) for (const m of text.matchAll(REFERENCE)) {
+  if (/test value|hypothesi|reference value|population mean|norm|benchmark|target|recommended|midpoint|chance/i.test(text)) for (const m of matchesOf(REFERENCE, text)) {
     const value = num(seg, m, 1);
     if (value) references.push(Object.assign(where(m.index, m.index + m[0].length), { value }));
   }
   const counts: CountPercent[] = [];
-  if (text.includes('%)') || text.includes('% )')) for (const m of text.matchAll(COUNT_PERCENT)) {
+  if (text.includes('%)') || text.includes('% )')) for (const m of matchesOf(COUNT_PERCENT, text)) {
     const count = num(seg, m, 1);
     const percent = num(seg, m, 2);
     if (!count || !percent) continue;

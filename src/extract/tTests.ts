@@ -4,6 +4,7 @@ import { LeadReader } from './topic.js';
 import { comparisonsIn } from './comparisons.js';
 import { decimalsOf, starBound } from './stars.js';
 import type { AdjustMethod, Comparison, ReportedNumber, ReportedP, ReportStyle, Sidedness, TTestReport } from './types.js';
+import { matchesOf } from './matches.js';
 
 // Building blocks. Every quantifier is bounded or over a character class disjoint from what
 // follows it, so no pattern can backtrack super-linearly (checked by test/regex-safety).
@@ -123,13 +124,13 @@ function findAnchors(seg: Segment): Anchor[] {
     return last !== undefined && a < last.end;
   };
   const taken = (a: number, b: number) => overlaps(bracketed, a, b) || overlaps(attached, a, b);
-  for (const m of text.matchAll(BRACKETED)) {
+  for (const m of matchesOf(BRACKETED, text)) {
     const df = readNumber(seg, idx(m, 2), idx(m, 2) + (m[2] as string).length);
     const t = numberFromGroup(seg, m, 4);
     if (!df || !t) continue;
     bracketed.push({ start: m.index, end: m.index + m[0].length, style: 'bracketed-df', symbol: m[1] as string, tOp: comparison(m[3] as string), t, df });
   }
-  for (const m of text.matchAll(ATTACHED)) {
+  for (const m of matchesOf(ATTACHED, text)) {
     if (taken(m.index, m.index + m[0].length)) continue;
     const df = readNumber(seg, idx(m, 2), idx(m, 2) + (m[2] as string).length);
     const t = numberFromGroup(seg, m, 4);
@@ -138,7 +139,7 @@ function findAnchors(seg: Segment): Anchor[] {
   }
   // one list in the same order as before the labelled ones join (a spread would overflow the stack)
   const found = bracketed.concat(attached);
-  for (const m of text.matchAll(LABELLED)) {
+  for (const m of matchesOf(LABELLED, text)) {
     if (taken(m.index, m.index + m[0].length)) continue;
     const t = numberFromGroup(seg, m, 3);
     if (!t) continue;
@@ -249,7 +250,7 @@ export function reportTailEnd(text: string, from: number, to: number, ownWords?:
   const br = CLAUSE_BREAK.exec(gap);
   let end = br ? from + br.index : to;
   let prose = 0;
-  for (const m of gap.slice(0, end - from).matchAll(/\p{L}[\p{L}'’]{1,30}/gu)) {
+  for (const m of matchesOf(/\p{L}[\p{L}'’]{1,30}/gu, gap.slice(0, end - from))) {
     if (REPORT_WORD.test(m[0]) || ownWords?.test(m[0])) continue;
     prose += 1;
     // three words of other prose: whatever p follows belongs to another statement

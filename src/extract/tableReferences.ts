@@ -3,6 +3,7 @@ import { sentenceOf, sentenceStarts, sourceSpan } from './numbers.js';
 import { CAPTION_NUMBER, labelsNamedIn } from './tables.js';
 import { stem, topicWords } from './topic.js';
 import type { TableBlockRecord, TableCaption, TableReference } from './types.js';
+import { matchesOf } from './matches.js';
 
 /**
  * A table named in prose: "Table 2", "Tables 2 and 3", "Tab. 4", "Table S1", "Table IV". The
@@ -48,7 +49,7 @@ export function findTableReferences(segments: readonly Segment[], captions: read
     if (seg.table || seg.legendOf || seg.kind === 'code') continue;
     if (!seg.text.includes('Tab') && !seg.text.includes('TAB')) continue;
     let starts: number[] | undefined;
-    for (const m of seg.text.matchAll(TABLE_REFERENCE)) {
+    for (const m of matchesOf(TABLE_REFERENCE, seg.text)) {
       starts ??= sentenceStarts(seg.text);
       const word = m[1] as string;
       const plural = /s$/iu.test(word);

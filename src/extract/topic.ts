@@ -1,3 +1,5 @@
+import { matchesOf } from './matches.js';
+
 /**
  * What a stretch of prose is about, as the stems of its content words: the words left when the
  * words of reporting a test are set aside. The link layer compares a test's lead ("Over the
@@ -45,7 +47,7 @@ const LEAD_WORD = new RegExp(WORD.source, WORD.flags);
 /** The content words of a text (three letters or more, not reporting words), lower case, each once. */
 export function topicWords(text: string): string[] {
   const out = new Set<string>();
-  for (const m of text.matchAll(WORD)) {
+  for (const m of matchesOf(WORD, text)) {
     const w = m[0].toLowerCase().replace(/['’]s$/u, '');
     if (w.length < 3 || REPORTING.has(w)) continue;
     out.add(w);
@@ -78,7 +80,7 @@ export function leadStart(text: string, sentenceStart: number, at: number): numb
     else if ((c === ')' || c === ']') && d > 0) d -= 1;
   }
   let start = sentenceStart;
-  for (const m of stretch.matchAll(BOUNDARY)) if (depth[m.index] === 0) start = sentenceStart + m.index + m[0].length;
+  for (const m of matchesOf(BOUNDARY, stretch)) if (depth[m.index] === 0) start = sentenceStart + m.index + m[0].length;
   return start;
 }
 
@@ -127,7 +129,7 @@ export class LeadReader {
     const out: Array<{ index: number; end: number; top: boolean }> = [];
     let d = 0;
     let i = 0;
-    for (const m of stretch.matchAll(BOUNDARY)) {
+    for (const m of matchesOf(BOUNDARY, stretch)) {
       for (; i < m.index; i += 1) {
         const c = stretch[i];
         if (c === '(' || c === '[') d += 1;

@@ -1,0 +1,53 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { matchesOf } from '../../src/extract/matches.js';
+
+/**
+ * matchesOf (src/extract/matches.ts) must give exactly what ECMAScript's String.prototype.matchAll
+ * gives (the reference: Node 20's own implementation of ECMA-262 §22.1.3.14), match for match:
+ * the text, the index, every group and named group, and the `d` flag's indices. Seeded.
+ */
+const RUNS = Number(process.env.PLUMBLINE_PROPERTY_RUNS ?? 1_000);
+const SEED = Number(process.env.PLUMBLINE_PROPERTY_SEED ?? 20261204);
+
+// patterns that may match empty, span surrogate pairs, look behind, stick, fold case or index groups
+const PATTERNS: RegExp[] = [
+  /\d+/g, /\d*/g, /(?<![\p{L}])(a+|b)(?![\p{L}])/giu, /(?:)/g, /(?:)/gu, /x?/gu, /./gu, /./g, /(?<w>\p{L}+)|(\d)/gdu, /a|(?=b)/gy, /\b/g,
+  /(?<=\d) ?(%)?/gdu, /[\u{1F600}-\u{1F64F}]|é/giu, /^a|b$/gm, /t\((\d+)\) = (\d?\.\d+)/gd,
+];
+const piece = fc.constantFrom('a', 'b', 'A', 'é', 'É', '1', '23', ' ', '\n', '😀', '\ud83d', '\ude00', 'x', '%', 't(12) = 2.10', 'ß', 'ſ');
+
+/** Everything a match carries, as plain data. */
+const plain = (m: RegExpExecArray) => ({ all: [...m], index: m.index, groups: m.groups ? { ...m.groups } : undefined, indices: m.indices ? m.indices.map((p) => (p ? [...p] : p)) : undefined });
+
+describe('the matches of a global regular expression, without a copy of it', () => {
+  it('are the ones matchAll gives, for generated texts and patterns', () => {
+    fc.assert(
+      fc.property(fc.array(piece, { maxLength: 30 }), fc.integer({ min: 0, max: PATTERNS.length - 1 }), (parts, k) => {
+        const text = parts.join('');
+        const re = PATTERNS[k] as RegExp;
+        expect([...matchesOf(re, text)].map(plain)).toEqual([...text.matchAll(re)].map(plain));
+        expect(re.lastIndex).toBe(0);
+      }),
+      { numRuns: RUNS, seed: SEED },
+    );
+  });
+
+  it('keeps nested and interleaved loops over one expression apart, and leaves lastIndex at 0 after a loop left early', () => {
+    const re = /\d+/g;
+    const text = 'a 1 b 22 c 333';
+    const pairs: string[] = [];
+    for (const m of matchesOf(re, text)) for (const n of matchesOf(re, text)) pairs.push(`${m[0]}-${n[0]}`);
+    expect(pairs).toEqual(['1-1', '1-22', '1-333', '22-1', '22-22', '22-333', '333-1', '333-22', '333-333']);
+    const a = matchesOf(re, text);
+    const b = matchesOf(re, 'x 9 y 8');
+    expect([a.next().value?.[0], b.next().value?.[0], a.next().value?.[0], b.next().value?.[0], a.next().value?.[0]]).toEqual(['1', '9', '22', '8', '333']);
+    for (const m of matchesOf(re, text)) if (m[0] === '22') break;
+    expect(re.lastIndex).toBe(0);
+  });
+
+  it('refuses an expression without the g flag, as matchAll does', () => {
+    expect(() => [...'a1'.matchAll(/\d/ as RegExp)]).toThrow(TypeError);
+    expect(() => [...matchesOf(/\d/, 'a1')]).toThrow(TypeError);
+  });
+});
