@@ -315,7 +315,7 @@ export function parseWithBulkRuns(text: string, minRows: number, parser: { parse
   // plain lines hold no `|`, so no plain run shares a line with a table run
   let plain = findPlainRuns(text, minGroups);
   for (let round = 0; ; round += 1) {
-    const tree = parseInPieces(parser, standInRuns(blankRuns(text, runs), plain), pieceChars);
+    const tree = parseInPieces(parser, standInRuns(blankRuns(text, runs), plain), pieceChars, parser !== withoutFrontMatter);
     // the parser's line numbers, in lines of `text` (the line endings of a plain run and of a
     // long table's rows are not parsed; plain lines hold no `|`, so the two never share a line)
     const shifted = lineShift(text, [...plain.map(plainRange), ...runs.map(blankedRange)].sort((a, b) => a.start - b.start));

@@ -154,8 +154,13 @@ function movePlaces(nodes: readonly RootContent[], offset: number, lines: number
   }
 }
 
-/** The tree of `text` as `parser` gives it for the whole text, parsed in pieces of about `pieceChars` where that is exact (above). */
-export function parseInPieces(parser: Parser, text: string, pieceChars = PIECE_CHARS): Root {
+/**
+ * The tree of `text` as `parser` gives it for the whole text, parsed in pieces of about
+ * `pieceChars` where that is exact (above). `frontMatter` says whether the parser reads front
+ * matter: one that does not reads an opening `---` as any other line, and needs none of the
+ * front-matter rules.
+ */
+export function parseInPieces(parser: Parser, text: string, pieceChars = PIECE_CHARS, frontMatter = true): Root {
   // micromark drops a byte-order mark that opens the text and counts offsets without it
   if (text.length < 2 * pieceChars || text.includes(']:') || text.charCodeAt(0) === 0xfeff) return parser.parse(text) as Root;
   const children: RootContent[] = [];
@@ -164,7 +169,7 @@ export function parseInPieces(parser: Parser, text: string, pieceChars = PIECE_C
   let last: Root | undefined;
   let opening: Point | undefined;
   // front matter opening the text runs on across blank lines to a later `---` line: no piece ends before it
-  const opensWithFence = text.startsWith('---');
+  const opensWithFence = frontMatter && text.startsWith('---');
   const fence = opensWithFence ? LATER_FENCE.exec(text) : null;
   if (opensWithFence && fence === null) return parser.parse(text) as Root;
   const firstFrom = fence ? fence.index + fence[0].length : 0;

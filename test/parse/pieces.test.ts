@@ -46,7 +46,7 @@ describe('a text parsed in pieces gives the tree of one parse of the whole', () 
         const parser = front ? processor : withoutFrontMatter;
         const whole = plainTree(parser.parse(doc));
         const c = counting(parser);
-        expect(plainTree(parseInPieces(c, doc, size))).toEqual(whole);
+        expect(plainTree(parseInPieces(c, doc, size, front))).toEqual(whole);
         cases += 1;
         if (c.seen.parses > 1) pieced += 1;
       }),
@@ -80,6 +80,19 @@ describe('a text parsed in pieces gives the tree of one parse of the whole', () 
     expect(nextCut('a\n\nb  \n\nc\n\nd', 0)).toEqual({ end: 1, next: 3 });
     expect(nextCut('a\n\nb  \n\nc\n\nd', 2)).toEqual({ end: 9, next: 11 });
     for (const size of [1, 4, 12]) for (const p of [processor, withoutFrontMatter]) expect(plainTree(parseInPieces(p, text, size))).toEqual(plainTree(p.parse(text)));
+  });
+
+  it('cuts a text that opens with a rule, not front matter, when the parser reads none', () => {
+    // an opening `---` with a blank line below it, and a later `---` line: the processor without
+    // front matter reads both as rules, and the text is cut like any other
+    const doc = `---\n\n${'Plain prose here, t(12) = 2.1.\n\n'.repeat(400)}---\n\nEnd.\n`;
+    const c = counting(withoutFrontMatter);
+    expect(plainTree(parseInPieces(c, doc, 256, false))).toEqual(plainTree(withoutFrontMatter.parse(doc)));
+    expect(c.seen.parses).toBeGreaterThan(20);
+    expect(c.seen.chars).toBeLessThan(1.2 * doc.length);
+    // the processor that reads front matter: the first piece must reach past the later `---`
+    const d = counting(processor);
+    expect(plainTree(parseInPieces(d, doc, 256))).toEqual(plainTree(processor.parse(doc)));
   });
 
   it('keeps a list, block quote, fence, raw HTML or math block whole where it runs across blank lines', () => {
