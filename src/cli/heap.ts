@@ -1,4 +1,4 @@
-import { createRequire } from 'node:module';
+import { setFlagUnlessStartedWith, startedWithFlag } from './v8Flags.js';
 
 /**
  * How far V8 lets an old generation grow past its live size before the next full collection,
@@ -13,12 +13,9 @@ import { createRequire } from 'node:module';
  */
 export const BATCH_HEAP_GROWING_PERCENT = 50;
 
-const requireBuiltin = createRequire(import.meta.url);
-
 /** Whether the process was started with a heap-growing setting of its own (execArgv or NODE_OPTIONS), which then stands. */
 export function hasOwnHeapGrowing(execArgv: readonly string[], nodeOptions: string | undefined): boolean {
-  const flags = `${execArgv.join(' ')} ${nodeOptions ?? ''}`;
-  return flags.includes('heap-growing-percent') || flags.includes('heap_growing_percent');
+  return startedWithFlag('heap-growing-percent', execArgv, nodeOptions);
 }
 
 /**
@@ -28,7 +25,5 @@ export function hasOwnHeapGrowing(execArgv: readonly string[], nodeOptions: stri
  * run sets it at the same point whether it makes its cache or uses it. Returns whether it was set.
  */
 export function growHeapSlowly(execArgv: readonly string[] = process.execArgv, nodeOptions: string | undefined = process.env.NODE_OPTIONS): boolean {
-  if (hasOwnHeapGrowing(execArgv, nodeOptions)) return false;
-  (requireBuiltin('node:v8') as typeof import('node:v8')).setFlagsFromString(`--heap-growing-percent=${BATCH_HEAP_GROWING_PERCENT}`);
-  return true;
+  return setFlagUnlessStartedWith('heap-growing-percent', `--heap-growing-percent=${BATCH_HEAP_GROWING_PERCENT}`, execArgv, nodeOptions);
 }

@@ -1,4 +1,4 @@
-import { createRequire } from 'node:module';
+import { setFlagUnlessStartedWith, startedWithFlag } from './v8Flags.js';
 
 /**
  * V8 runs a regular expression's first match in its bytecode interpreter and compiles it to
@@ -6,17 +6,14 @@ import { createRequire } from 'node:module';
  * expressions, most of them with Unicode classes, nearly all on more than one text, so a run
  * made the bytecode and then the machine code of nearly every one, and read its first text in
  * the slower interpreter. Compiled at once instead, a whole run of `plumbline --format json` on
- * a 50 KB manuscript (bench figure 8) took some 80 ms less of about 500 (side by side, ten runs
- * each); a warm process checking many documents is not slower.
+ * a 50 KB manuscript (bench figure 8) took some 370 ms against 410 ms (interleaved, ten runs
+ * each, best five, on a quiet machine).
  */
 export const REGEXP_FLAG = '--no-regexp-tier-up';
 
-const requireBuiltin = createRequire(import.meta.url);
-
 /** Whether the process was started with a regexp tier-up setting of its own (execArgv or NODE_OPTIONS), which then stands. */
 export function hasOwnRegexpTier(execArgv: readonly string[], nodeOptions: string | undefined): boolean {
-  const flags = `${execArgv.join(' ')} ${nodeOptions ?? ''}`;
-  return /regexp[-_]tier[-_]up/.test(flags);
+  return startedWithFlag('regexp-tier-up', execArgv, nodeOptions);
 }
 
 /**
@@ -26,7 +23,5 @@ export function hasOwnRegexpTier(execArgv: readonly string[], nodeOptions: strin
  * with, so every run sets it at the same point. Returns whether it was set.
  */
 export function compileRegexpsAtOnce(execArgv: readonly string[] = process.execArgv, nodeOptions: string | undefined = process.env.NODE_OPTIONS): boolean {
-  if (hasOwnRegexpTier(execArgv, nodeOptions)) return false;
-  (requireBuiltin('node:v8') as typeof import('node:v8')).setFlagsFromString(REGEXP_FLAG);
-  return true;
+  return setFlagUnlessStartedWith('regexp-tier-up', REGEXP_FLAG, execArgv, nodeOptions);
 }
