@@ -36,6 +36,7 @@
  */
 import type { Root, RootContent } from 'mdast';
 import type { Point } from 'unist';
+import { LineIndex } from './lines.js';
 
 /**
  * The blocks that, last in a piece and ending where it ends, leave nothing open once a blank
@@ -123,20 +124,6 @@ function endsOnEmptyQuoteLine(text: string, end: number): boolean {
   return true;
 }
 
-/** How many line endings `text` holds between two offsets (CommonMark's: `\n`, `\r\n`, a lone `\r`). */
-function lineEndings(text: string, from: number, to: number): number {
-  let n = 0;
-  for (let i = from; i < to; i += 1) {
-    const c = text.charCodeAt(i);
-    if (c === 10) n += 1;
-    else if (c === 13) {
-      if (text.charCodeAt(i + 1) === 10 && i + 1 < to) i += 1;
-      n += 1;
-    }
-  }
-  return n;
-}
-
 /** Moves every place in `nodes` (and inside them) by `offset` characters and `lines` lines. */
 function movePlaces(nodes: readonly RootContent[], offset: number, lines: number): void {
   const move = (p: Point) => {
@@ -165,7 +152,9 @@ export function parseInPieces(parser: Parser, text: string, pieceChars = PIECE_C
   if (text.length < 2 * pieceChars || text.includes(']:') || text.charCodeAt(0) === 0xfeff) return parser.parse(text) as Root;
   const children: RootContent[] = [];
   let start = 0;
-  let lines = 0;
+  // the lines before an offset (a text opening with a byte-order mark is parsed whole, above)
+  let index: LineIndex | undefined;
+  const linesBefore = (offset: number) => (index ??= new LineIndex(text)).position(offset).line - 1;
   let last: Root | undefined;
   let opening: Point | undefined;
   // front matter opening the text runs on across blank lines to a later `---` line: no piece ends before it
@@ -201,11 +190,10 @@ export function parseInPieces(parser: Parser, text: string, pieceChars = PIECE_C
     }
     const kept = taken === tree.children.length ? tree.children : tree.children.slice(0, taken);
     if (start === 0) opening = tree.position?.start;
-    if (start > 0) movePlaces(kept, start, lines);
+    if (start > 0) movePlaces(kept, start, linesBefore(start));
     for (const child of kept) children.push(child);
     last = tree;
     if (next === undefined) break;
-    lines += lineEndings(text, start, next.next);
     // what this piece read past its last kept block had no place to end: the next piece reaches
     // beyond it, so that it is not read to the same cut again
     span = Math.max(pieceChars, 2 * (cut === undefined ? 0 : cut.end - next.next));
@@ -215,7 +203,7 @@ export function parseInPieces(parser: Parser, text: string, pieceChars = PIECE_C
   const end = last.position?.end;
   if (opening && end) {
     // the first tree's start, and the last tree's end in the lines and offsets of the whole text
-    root.position = { start: opening, end: { line: end.line + lines, column: end.column, offset: (end.offset ?? 0) + start } };
+    root.position = { start: opening, end: { line: end.line + (start > 0 ? linesBefore(start) : 0), column: end.column, offset: (end.offset ?? 0) + start } };
   }
   return root;
 }
