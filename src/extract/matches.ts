@@ -16,7 +16,6 @@
  */
 export function* matchesOf(re: RegExp, text: string): Generator<RegExpExecArray, void, undefined> {
   if (!re.global) throw new TypeError(`matchesOf needs a global regular expression: /${re.source}/${re.flags}`);
-  const unicode = re.unicode || re.flags.includes('v');
   let at = 0;
   try {
     while (at <= text.length) {
@@ -25,7 +24,7 @@ export function* matchesOf(re: RegExp, text: string): Generator<RegExpExecArray,
       if (m === null) return;
       at = re.lastIndex;
       // an empty match moves on by one character (a whole surrogate pair in Unicode mode), as matchAll does
-      if (m[0] === '') at = nextIndex(text, at, unicode);
+      if (m[0] === '') at = nextIndex(text, at, re.unicode || re.flags.includes('v'));
       yield m;
     }
   } finally {
