@@ -33,11 +33,14 @@ export const IN_FLIGHT_PER_WORKER = 2;
  * Text each worker thread should have to check before another one is started. A worker costs
  * its start (loading the bundled checker) and then runs its code cold for a while, and on a
  * machine with few cores it competes with this thread, which reads the files and writes the
- * report. Figure 11 of `npm run bench` measures the start as the text checked in the same time:
- * some 30 KB on the 2-core machine of DEVELOPERS.md (a 0.5 s start on a busy machine), so 1 MiB
- * is some thirty starts; the figure's goal keeps that margin at ten or more.
+ * report. Figure 11 of `npm run bench` measures the start as the text checked in the same time,
+ * and its goal keeps this share at ten such starts or more. On the 2-core machine of
+ * DEVELOPERS.md a start (80–150 ms) is worth 90–140 KB of text since checking reached 0.9–1.1
+ * MB/s (Dec 4), so 1 MiB was under ten starts in a whole bench run; 1.5 MiB is eleven at the
+ * worst measured. It still gives 400 files of 10 KB two workers on two cores, which checks them
+ * in 0.89 of the time `--jobs 1` takes (figure 3's detail).
  */
-export const MIN_CHARS_PER_WORKER = 1024 * 1024;
+export const MIN_CHARS_PER_WORKER = 1.5 * 1024 * 1024;
 
 /**
  * The worker threads a run starts for `chars` characters of text in `documents` documents, on

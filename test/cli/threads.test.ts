@@ -11,7 +11,8 @@ describe('threadsFor', () => {
   it.each([
     ['one small document', 1, 10_000, 8, 1],
     ['400 files of 10 KB on 2 cores', 400, 4_000_000, 2, 2],
-    ['400 files of 10 KB on 64 cores: one per MiB', 400, 4_000_000, 64, 3],
+    ['400 files of 10 KB on 64 cores: one per 1.5 MiB', 400, 4_000_000, 64, 2],
+    ['6 MiB on 64 cores: four shares', 400, 6 * 1024 * 1024, 64, 4],
     ['less text than one worker’s share', 50, M - 1, 16, 1],
     ['exactly two shares', 50, 2 * M, 16, 2],
     ['one large document cannot be split', 1, 50 * M, 16, 1],
