@@ -6,6 +6,7 @@ import type { CharBox, PdfLimits, PdfPiece } from './types.js';
 
 export { DEFAULT_PDF_LIMITS, PDF_MAX_OBJECTS, PDF_MAX_PAGES, PDF_MAX_RUNS, PdfRefusal, countObjects, loadPdfJs, readPdfText, type PdfText } from './read.js';
 export { layoutPages } from './layout.js';
+export { BoxList } from './boxes.js';
 export type * from './types.js';
 
 /** A PDF's blocks in the shared shape: one piece per printed line, with its page, line and first words. */
@@ -65,7 +66,7 @@ export function boxesOfSpan(text: PdfText, doc: ParsedDocument, span: Span): Pag
     if (!piece) return;
     const a = Math.max(span.start, u.start) - u.start;
     const z = Math.min(span.end, u.end) - u.start;
-    const boxes = piece.boxes.slice(a, z).filter((b) => b.x1 > b.x0);
+    const boxes = piece.boxes.boxes(a, z).filter((b) => b.x1 > b.x0);
     const last = out.at(-1);
     if (last && last.page === piece.page) last.boxes.push(...boxes);
     else out.push({ page: piece.page, boxes });

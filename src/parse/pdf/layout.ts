@@ -1,5 +1,6 @@
 import { openingWords } from '../blocks.js';
-import type { CharBox, PageRuns, PdfBlock, PdfLine, PdfPiece, TextRun } from './types.js';
+import { BoxList } from './boxes.js';
+import type { PageRuns, PdfBlock, PdfLine, PdfPiece, TextRun } from './types.js';
 
 /**
  * From the text runs of a PDF's pages to blocks in reading order. Everything here is geometry
@@ -29,7 +30,7 @@ const SUPERSCRIPT: Record<string, string> = {
 /** Text of a run with its character boxes. */
 interface Frag {
   text: string;
-  boxes: CharBox[];
+  boxes: BoxList;
   x0: number;
   x1: number;
   y: number;
@@ -45,7 +46,7 @@ interface Row {
 /** A stretch of a row with no wide gap inside. */
 interface Chunk {
   text: string;
-  boxes: CharBox[];
+  boxes: BoxList;
   x0: number;
   x1: number;
   /** The largest font size in the chunk. */
@@ -73,24 +74,47 @@ const PAGE_NUMBER = /^(?:[0-9]{1,4}|[ivxlcdm]{1,6}|(?:page|p\.) ?[0-9]{1,4}(?: o
 const DIGITS = /[0-9]+/g;
 const SPACES = /\s+/g;
 
-/** The characters of a run, ligatures spelled out, each with its box (the run's width shared evenly). */
+/** Characters a run's text spells otherwise: ligatures, and the hyphens read as `-`. */
+const RESPELLED = /[\uFB00-\uFB06\u2010\u2011]/;
+
+/** The number of code points in `s` (a lone surrogate counts as one, as the string iterator gives it). */
+function codePointCount(s: string): number {
+  let n = 0;
+  for (let i = 0; i < s.length; i += 1) {
+    const c = s.charCodeAt(i);
+    if (c >= 0xd800 && c <= 0xdbff && i + 1 < s.length) {
+      const d = s.charCodeAt(i + 1);
+      if (d >= 0xdc00 && d <= 0xdfff) i += 1;
+    }
+    n += 1;
+  }
+  return n;
+}
+
+/**
+ * The characters of a run, ligatures spelled out, each with its box: the run's width shared
+ * evenly between its code points, and a code point's share between the UTF-16 units it is
+ * spelled with.
+ */
 function fragOf(run: TextRun): Frag {
-  const text: string[] = [];
-  const boxes: CharBox[] = [];
-  const chars = [...run.str];
-  const step = chars.length > 0 ? run.width / chars.length : 0;
+  const str = run.str;
+  const respelled = RESPELLED.test(str);
+  const parts: string[] = [];
+  const boxes = new BoxList();
+  const count = codePointCount(str);
+  const step = count > 0 ? run.width / count : 0;
   const y0 = run.y - 0.22 * run.size;
   const y1 = run.y + 0.8 * run.size;
-  chars.forEach((c, i) => {
+  let i = 0;
+  for (const c of str) {
     const x0 = run.x + i * step;
-    const spelled = LIGATURES[c] ?? (c === '\u2010' || c === '\u2011' ? '-' : c);
+    const spelled = respelled ? (LIGATURES[c] ?? (c === '\u2010' || c === '\u2011' ? '-' : c)) : c;
+    if (respelled) parts.push(spelled);
     const sub = step / spelled.length;
-    for (let k = 0; k < spelled.length; k += 1) {
-      text.push(spelled[k] as string);
-      boxes.push({ x0: x0 + k * sub, x1: x0 + (k + 1) * sub, y0, y1 });
-    }
-  });
-  return { text: text.join(''), boxes, x0: run.x, x1: run.x + run.width, y: run.y, size: run.size };
+    for (let k = 0; k < spelled.length; k += 1) boxes.push(x0 + k * sub, x0 + (k + 1) * sub, y0, y1);
+    i += 1;
+  }
+  return { text: respelled ? parts.join('') : str, boxes, x0: run.x, x1: run.x + run.width, y: run.y, size: run.size };
 }
 
 function median(values: number[]): number {
@@ -192,11 +216,11 @@ function attach(host: Row, f: Frag, raised: boolean): void {
 
 function superscript(f: Frag): Frag {
   const text: string[] = [];
-  const boxes: CharBox[] = [];
+  const boxes = new BoxList();
   [...f.text].forEach((c, i) => {
     if (c.trim() === '') return;
     text.push(SUPERSCRIPT[c] ?? c);
-    boxes.push(f.boxes[i] as CharBox);
+    boxes.pushFrom(f.boxes, i);
   });
   return { ...f, text: text.join(''), boxes };
 }
@@ -209,14 +233,15 @@ function chunksOf(row: Row, wide: number): Chunk[] {
     if (f.text.trim() === '' && f.text.length > 0 && cur) continue;
     const gap = cur ? f.x0 - cur.x1 : 0;
     if (!cur || gap >= wide * row.size) {
-      cur = { text: '', boxes: [], x0: f.x0, x1: f.x1, size: f.size };
+      cur = { text: '', boxes: new BoxList(), x0: f.x0, x1: f.x1, size: f.size };
       chunks.push(cur);
     } else if (gap > 0.15 * row.size && !/\s$/.test(cur.text) && !/^\s/.test(f.text)) {
       cur.text += ' ';
-      cur.boxes.push({ x0: cur.x1, x1: f.x0, y0: f.boxes[0]?.y0 ?? row.y, y1: f.boxes[0]?.y1 ?? row.y });
+      const some = f.boxes.length > 0;
+      cur.boxes.push(cur.x1, f.x0, some ? f.boxes.y0(0) : row.y, some ? f.boxes.y1(0) : row.y);
     }
     cur.text += f.text;
-    cur.boxes.push(...f.boxes);
+    cur.boxes.append(f.boxes);
     cur.x1 = Math.max(cur.x1, f.x1);
     cur.size = Math.max(cur.size, f.size);
   }
@@ -224,20 +249,25 @@ function chunksOf(row: Row, wide: number): Chunk[] {
   return chunks.filter((c) => c.text.length > 0);
 }
 
+/** Whitespace that trimChunk changes inside a chunk: a run of it, or any but the plain space. */
+const UNEVEN_SPACE = /\s\s|[^\S ]/;
+
 function trimChunk(c: Chunk): void {
+  // most chunks are already trimmed, with single plain spaces: kept as they are, boxes uncopied
+  if (!UNEVEN_SPACE.test(c.text) && !c.text.startsWith(' ') && !c.text.endsWith(' ')) return;
   let a = 0;
   let b = c.text.length;
   while (a < b && /\s/.test(c.text[a] as string)) a += 1;
   while (b > a && /\s/.test(c.text[b - 1] as string)) b -= 1;
   // runs of spaces inside a chunk read as one
   const text: string[] = [];
-  const boxes: CharBox[] = [];
+  const boxes = new BoxList();
   for (let i = a; i < b; i += 1) {
     const ch = c.text[i] as string;
     const space = /\s/.test(ch);
     if (space && text.at(-1) === ' ') continue;
     text.push(space ? ' ' : ch);
-    boxes.push(c.boxes[i] as CharBox);
+    boxes.pushFrom(c.boxes, i);
   }
   c.text = text.join('');
   c.boxes = boxes;
@@ -426,7 +456,7 @@ interface Numbered {
   line: OrderedLine;
   number: number;
   text: string;
-  boxes: CharBox[];
+  boxes: BoxList;
 }
 
 /** Blocks in reading order from all pages' runs. */
@@ -436,14 +466,15 @@ export function layoutPages(pages: PageRuns[]): { blocks: PdfBlock[]; lines: Pdf
   for (const lines of ordered) {
     lines.forEach((l, i) => {
       const text: string[] = [];
-      const boxes: CharBox[] = [];
+      const boxes = new BoxList();
       l.chunks.forEach((c, k) => {
         if (k > 0) {
           text.push(' ');
-          boxes.push({ x0: (l.chunks[k - 1] as Chunk).x1, x1: c.x0, y0: c.boxes[0]?.y0 ?? l.y, y1: c.boxes[0]?.y1 ?? l.y });
+          const some = c.boxes.length > 0;
+          boxes.push((l.chunks[k - 1] as Chunk).x1, c.x0, some ? c.boxes.y0(0) : l.y, some ? c.boxes.y1(0) : l.y);
         }
         text.push(c.text);
-        boxes.push(...c.boxes);
+        boxes.append(c.boxes);
       });
       all.push({ line: l, number: i + 1, text: text.join(''), boxes });
     });

@@ -1,3 +1,5 @@
+import type { BoxList } from './boxes.js';
+
 /** A character's box on its page, in PDF user-space points (origin bottom left). */
 export interface CharBox {
   x0: number;
@@ -38,7 +40,7 @@ export interface PdfLine {
   /** 1-based line on the page in reading order, after running heads, footers and line numbers are removed. */
   line: number;
   text: string;
-  boxes: CharBox[];
+  boxes: BoxList;
   x0: number;
   x1: number;
   /** Baseline. */
@@ -57,7 +59,7 @@ export interface PdfTablePlace {
 /** A stretch of one printed line inside a block, with the boxes of its characters. */
 export interface PdfPiece {
   text: string;
-  boxes: CharBox[];
+  boxes: BoxList;
   page: number;
   line: number;
   /** Offset of the piece's first character in its printed line's text. */
