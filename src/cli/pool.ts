@@ -35,10 +35,10 @@ export const IN_FLIGHT_PER_WORKER = 2;
  * machine with few cores it competes with this thread, which reads the files and writes the
  * report. Figure 11 of `npm run bench` measures the start as the text checked in the same time,
  * and its goal keeps this share at ten such starts or more. On the 2-core machine of
- * DEVELOPERS.md a start (80–150 ms) is worth 90–140 KB of text since checking reached 0.9–1.1
- * MB/s (Dec 4), so 1 MiB was under ten starts in a whole bench run; 1.5 MiB is eleven at the
- * worst measured. It still gives 400 files of 10 KB two workers on two cores, which checks them
- * in 0.89 of the time `--jobs 1` takes (figure 3's detail).
+ * DEVELOPERS.md, since checking reached 0.9–1.2 MB/s, figure 11 has put a start (77–151 ms) at
+ * 88–138 KB of text (Dec 4, five runs): 1 MiB was 7.6 starts in one whole bench run, 1.5 MiB is
+ * 11.4 at the most measured. It still gives 400 files of 10 KB two workers on two cores, which
+ * took 0.89–1.03 of the time `--jobs 1` took in those runs (figure 3's detail): no slower.
  */
 export const MIN_CHARS_PER_WORKER = 1.5 * 1024 * 1024;
 

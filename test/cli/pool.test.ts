@@ -171,8 +171,9 @@ describe.runIf(existsSync(WORKER))('a worker thread that exits without an error'
 
 describe('batch mode with this thread sharing the work', () => {
   it('writes one line per input line, in order, the same bytes as --jobs 1, once the text read calls for two threads', () => {
-    // stat-free documents are cheap to check (the pre-filter skips their parse): some 2.5 MiB of
-    // them bring in the second thread; documents with results, blank and broken lines are among them
+    // stat-free documents are cheap to check (the pre-filter skips their parse): two and a half
+    // workers' shares of them (MIN_CHARS_PER_WORKER) bring in the second thread; documents with
+    // results, blank and broken lines are among them
     const docs: string[] = [];
     for (let i = 0; docs.join('\n').length < 2.5 * MIN_CHARS_PER_WORKER; i += 1) {
       if (i % 50 === 7) docs.push('');

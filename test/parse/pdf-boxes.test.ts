@@ -47,6 +47,13 @@ describe('BoxList', () => {
     );
   });
 
+  it('doubles a list appended to itself, and takes only whole boxes', () => {
+    const l = asList([{ x0: 0, x1: 1, y0: 2, y1: 3 }]);
+    l.append(l);
+    expect(l.boxes()).toEqual([{ x0: 0, x1: 1, y0: 2, y1: 3 }, { x0: 0, x1: 1, y0: 2, y1: 3 }]);
+    expect(() => new BoxList([1, 2, 3])).toThrow(RangeError);
+  });
+
   it('refuses a box it does not hold', () => {
     const l = asList([{ x0: 0, x1: 1, y0: 2, y1: 3 }]);
     expect(l.box(0)).toEqual({ x0: 0, x1: 1, y0: 2, y1: 3 });
@@ -115,6 +122,60 @@ describe('character boxes of the layout', () => {
     expect(line?.text).toBe('a b');
     // kept: 'a' (unit 2), the first of the inner spaces (unit 3), 'b' (unit 6), ten points each
     expect(line?.boxes.boxes().map((b) => b.x0)).toEqual([20, 30, 60]);
+  });
+
+  it('reads a tab or no-break space inside a run as a space, and drops a leading or trailing space, with their boxes', () => {
+    for (const inner of ['\t', '\u00A0', '\u2028']) {
+      const line = layoutPages([page([run(`a${inner}b`, 0, 400, 30)])]).lines[0];
+      expect(line?.text).toBe('a b');
+      expect(line?.boxes.boxes().map((b) => b.x0)).toEqual([0, 10, 20]);
+    }
+    const trailing = layoutPages([page([run('mean ', 0, 400, 50)])]).lines[0];
+    expect(trailing?.text).toBe('mean');
+    expect(trailing?.boxes.boxes().map((b) => b.x1)).toEqual([10, 20, 30, 40]);
+    const leading = layoutPages([page([run(' mean', 0, 400, 50)])]).lines[0];
+    expect(leading?.text).toBe('mean');
+    expect(leading?.boxes.boxes().map((b) => b.x0)).toEqual([10, 20, 30, 40]);
+  });
+
+  it('spells out every ligature U+FB00 to U+FB06 and reads U+2011 as -', () => {
+    const spelled: Array<[string, string]> = [['\uFB00', 'ff'], ['\uFB01', 'fi'], ['\uFB02', 'fl'], ['\uFB03', 'ffi'], ['\uFB04', 'ffl'], ['\uFB05', 'st'], ['\uFB06', 'st'], ['\u2011', '-']];
+    for (const [c, letters] of spelled) {
+      // 'x', the character, 'y': three code points of 12 points each
+      const line = layoutPages([page([run(`x${c}y`, 0, 300, 36)])]).lines[0];
+      expect(line?.text).toBe(`x${letters}y`);
+      const share = 12 / letters.length;
+      expect(line?.boxes.boxes().map((b) => [b.x0, b.x1])).toEqual([[0, 12], ...[...letters].map((_, k) => [12 + k * share, 12 + (k + 1) * share]), [24, 36]]);
+    }
+  });
+
+  it('counts a lone surrogate as one character, as the string iterator does', () => {
+    const line = layoutPages([page([run('\uD835x', 0, 300, 20)])]).lines[0];
+    expect(line?.boxes.boxes().map((b) => [b.x0, b.x1])).toEqual([
+      [0, 10],
+      [10, 20],
+    ]);
+  });
+
+  it('keeps a raised exponent’s own boxes when it is read as superscript characters', () => {
+    // 'p < 10' then '-3' set smaller and raised right after it: read as 'p < 10⁻³'
+    const host = run('p < 10', 100, 700, 30);
+    const raised = run('-3', 130.5, 704, 7, 7);
+    const line = layoutPages([page([host, raised])]).lines[0];
+    expect(line?.text).toBe('p < 10⁻³');
+    expect(line?.boxes.boxes(6)).toEqual([
+      { x0: 130.5, x1: 134, y0: y0(raised), y1: y1(raised) },
+      { x0: 134, x1: 137.5, y0: y0(raised), y1: y1(raised) },
+    ]);
+  });
+
+  it('gives the space between the chunks of a line (cut at a wide gap) the gap, at the next chunk’s height', () => {
+    const a = run('Mean', 72, 700, 20);
+    const b = run('4.1', 150, 700, 15, 12);
+    const line = layoutPages([page([a, b])]).lines[0];
+    expect(line?.text).toBe('Mean 4.1');
+    expect(line?.boxes.box(4)).toEqual({ x0: 92, x1: 150, y0: y0(b), y1: y1(b) });
+    expect(line?.boxes.length).toBe(8);
   });
 
   it('moves a hyphenated word’s boxes with its letters onto the first line', () => {

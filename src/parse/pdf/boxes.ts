@@ -16,7 +16,9 @@ import type { CharBox } from './types.js';
 export class BoxList {
   private readonly data: number[];
 
+  /** A list of the boxes in `data` (four numbers each), which becomes the list's own. */
   constructor(data: number[] = []) {
+    if (data.length % 4 !== 0) throw new RangeError(`boxes are four numbers each; got ${data.length}`);
     this.data = data;
   }
 
@@ -41,7 +43,9 @@ export class BoxList {
   /** Adds every box of `from`, in order. */
   append(from: BoxList): void {
     const s = from.data;
-    for (let k = 0; k < s.length; k += 1) this.data.push(s[k] as number);
+    // the length read once: a list appended to itself is doubled, as push(...array) did
+    const n = s.length;
+    for (let k = 0; k < n; k += 1) this.data.push(s[k] as number);
   }
 
   /** Boxes `start` up to `end` (not included) as a new list; the bounds are clamped to the list, as Array's slice does for bounds of 0 or more. */
