@@ -7,6 +7,7 @@
  */
 import { readdirSync, readFileSync } from 'node:fs';
 import type { ValidateFunction } from 'ajv';
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { checkSource } from '../../src/engine/index.js';
 import { formatJson, readJsonReport, type RunReport } from '../../src/report/index.js';
@@ -159,6 +160,32 @@ describe('the 2.x encoding of texts and printed numbers, one by one', () => {
     expect(typeof written.findings[2].message).toBe('number');
     expect(read.findings).toEqual([{ message: 'Reported p = .42 from t(23) = 1.12.' }, { message: 'Heading # 2 was read as text.' }, { message: 'the test it belongs to' }]);
   });
+  it('cuts any message into the runs of characters that are a digit or a point before a digit, and reads it back whole', () => {
+    // the runs by their definition, character by character (DIGIT_RUN in compact.ts is a regular expression)
+    const runsOf = (m: string) => {
+      const numeric = (i: number) => /[0-9]/.test(m[i] ?? '') || (m[i] === '.' && /[0-9]/.test(m[i + 1] ?? ''));
+      const runs: string[] = [];
+      for (let i = 0; i < m.length; ) {
+        let j = i;
+        while (j < m.length && numeric(j)) j += 1;
+        if (j > i) runs.push(m.slice(i, j));
+        i = Math.max(j, i + 1);
+      }
+      return runs;
+    };
+    fc.assert(
+      fc.property(fc.array(fc.constantFrom('0', '7', '.', '..', ' ', 'p = ', 'e', '-', '−', '٣', '𝟙', '\n', 'units'), { maxLength: 24 }), (parts) => {
+        const message = parts.join('');
+        const { written, read } = roundTrip({ findings: [{ message }] });
+        expect(read.findings).toEqual([{ message }]);
+        const runs = runsOf(message);
+        if (runs.length === 0) expect(typeof written.findings[0].message).toBe('number');
+        else expect(written.findings[0].message).toEqual([expect.any(Number), runs.join(' ')]);
+      }),
+      { numRuns: 500 },
+    );
+  });
+
   it('a printed number keeps value and decimals unless its plain decimal text gives them exactly', () => {
     const n = (printed: string, value: number, decimals: number, exponent = 0) => ({ printed, value, decimals, exponent });
     const numbers = [n('2.47', 2.47, 2), n('.021', 0.021, 3), n('-3', -3, 0), n('−2.47', -2.47, 2), n('1.5e1', 15, 1, 1), n('1.', 1, 0), n('2.50', 2.5, 2), n('2.5', 2.5, 1)];
