@@ -5,10 +5,10 @@ import type { CharBox } from './types.js';
  * numbers each (x0, x1, y0, y1) in one array of numbers. The layout carries a box for every
  * character it reads, beside the text, through every step (rows, chunks, lines, pieces), and
  * only an annotated copy of the PDF ever looks at them. As one object per character (an object
- * and four boxed numbers) they took a third of the layout's time and much of the collector's
- * when reading the 40-page bench PDF. An array that holds only numbers keeps them unboxed, in
- * one block of the heap; a typed array would too, but costs far more to create, and a list is
- * created for every run and chunk.
+ * and four boxed numbers) they took over a quarter of the layout's time, and much of the
+ * collector's, when reading the 40-page bench PDF. An array that holds only numbers keeps them
+ * unboxed, in one block of the heap; a typed array would too, but costs far more to create, and
+ * a list is created for every run and chunk.
  *
  * A list is only added to while it is being built: every step that changes boxes (slice,
  * concat, the characters kept) makes a new list, so lists may be shared, as the arrays were.
