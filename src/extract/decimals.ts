@@ -52,10 +52,12 @@ function isDecimalComma(before: string, after: string): boolean {
 export function withDecimalPoints(seg: Segment, convention: DecimalConvention): Segment {
   const text = seg.text;
   if (!text.includes(',')) return seg;
-  const chars = text.split('');
+  // the characters are copied only once one is rewritten: most segments with a comma have none
+  let chars: string[] | undefined;
+  const copy = () => (chars ??= text.split(''));
   let changed = false;
   const rewrite = (at: number) => {
-    chars[at] = '.';
+    copy()[at] = '.';
     changed = true;
   };
   if (convention === 'point') {
@@ -66,7 +68,7 @@ export function withDecimalPoints(seg: Segment, convention: DecimalConvention): 
     // `1.267,7`: points that group thousands before a decimal comma become commas, which every
     // reader takes as thousands separators (`1,267.7` once the decimal comma is a point)
     if (text.includes('.')) for (const m of matchesOf(THOUSANDS_POINTS, text)) {
-      for (let i = m.index; i < m.index + m[0].length; i += 1) if (text[i] === '.') chars[i] = ',';
+      for (let i = m.index; i < m.index + m[0].length; i += 1) if (text[i] === '.') copy()[i] = ',';
       changed = true;
     }
     for (const m of matchesOf(COMMA_NUMBER, text)) {
@@ -75,7 +77,7 @@ export function withDecimalPoints(seg: Segment, convention: DecimalConvention): 
       rewrite(comma);
     }
   }
-  return changed ? { ...seg, text: chars.join('') } : seg;
+  return changed ? { ...seg, text: chars ? chars.join('') : text } : seg;
 }
 
 /** `1,2,3`: the number is one of a comma-separated list without spaces. */

@@ -131,8 +131,10 @@ export function defuseSlowShapes(source: string): { text: string; shapes: SlowSh
   }
 
   const shapes: SlowShape[] = [];
-  const out = source.split('');
-  const blank = (at: number) => { out[at] = ZWSP; };
+  // the offsets whose marks are read as text; the text is copied only when there are any (most
+  // documents have none, and a copy of every character was a cost of every check)
+  const blanked: number[] = [];
+  const blank = (at: number) => { blanked.push(at); };
   if (underlines.length > SETEXT_LIMIT) {
     const later = underlines.slice(SETEXT_LIMIT);
     for (const u of later) for (let k = u.from; k < u.to; k++) blank(k);
@@ -149,6 +151,8 @@ export function defuseSlowShapes(source: string): { text: string; shapes: SlowSh
     shapes.push({ kind: 'lazy', blocks: lazy.length, firstLine: (lazy[0] as Container).line });
   }
   if (shapes.length === 0) return undefined;
+  const out = source.split('');
+  for (const at of blanked) out[at] = ZWSP;
   return { text: out.join(''), shapes };
 }
 
