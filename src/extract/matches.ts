@@ -38,3 +38,77 @@ function nextIndex(text: string, at: number, unicode: boolean): number {
   const c = text.charCodeAt(at);
   return c >= 0xd800 && c <= 0xdbff && (text.charCodeAt(at + 1) & 0xfc00) === 0xdc00 ? at + 2 : at + 1;
 }
+
+/**
+ * The first match of a pattern inside slices `text[from, to)` of one text, as
+ * `pattern.exec(text.slice(from, to))` finds it (its `index` counted in `text`), for many slices
+ * that share their start: every F of a sentence reads the sentence from its start to the F's
+ * own clause, and reading each such slice again made a sentence of n Fs cost n².
+ *
+ * The first match in `text[from, limit)` is found once per `from`, `limit` being an end no slice
+ * from there passes (the sentence's end: a search to the text's end would read the rest of the
+ * paragraph for every sentence). The pattern may have no anchors, word boundaries or look-arounds
+ * (refused), so a match inside a slice is one inside the region, found by the same alternatives
+ * on the same characters: when the region's first match ends by `to` it is also the slice's,
+ * and when it starts at or past `to` the slice has none. Only a match that runs across `to`, a
+ * slice past the region's end, or a pattern that matches the empty string needs the slice itself.
+ */
+export class FirstMatches {
+  /** The pattern without `g` or `y`: it starts at the string's start whatever its `lastIndex`. */
+  private readonly once: RegExp;
+  /**
+   * Whether the pattern matches the empty string: then a slice may hold an empty match where the
+   * region's first match does not fit (`a*` in `a`, sliced to nothing), and every slice is read.
+   * Without anchors or look-arounds, a pattern that matches empty somewhere matches `''`.
+   */
+  private readonly matchesEmpty: boolean;
+  private readonly firstFrom = new Map<number, { limit: number; m: RegExpExecArray | null }>();
+
+  constructor(
+    pattern: RegExp,
+    private readonly text: string,
+  ) {
+    this.once = onceOf(pattern);
+    this.matchesEmpty = this.once.exec('') !== null;
+  }
+
+  within(from: number, to: number, limit = this.text.length): RegExpExecArray | null {
+    if (this.matchesEmpty) return this.at(from, to);
+    let first = this.firstFrom.get(from);
+    if (first === undefined) {
+      first = { limit, m: this.at(from, limit) };
+      this.firstFrom.set(from, first);
+    }
+    const m = first.m;
+    if (to <= first.limit) {
+      if (m === null || m.index >= to) return null;
+      if (m.index + m[0].length <= to) return m;
+    }
+    return this.at(from, to);
+  }
+
+  /** The first match in text[from, to), its index counted in the text. */
+  private at(from: number, to: number): RegExpExecArray | null {
+    const m = this.once.exec(this.text.slice(from, to));
+    if (m !== null) m.index += from;
+    return m;
+  }
+}
+
+/**
+ * The pattern FirstMatches searches with, made once per pattern and kept with it: a copy made
+ * for every text would be compiled again whenever a collection dropped V8's cached code (see
+ * matchesOf).
+ */
+const onces = new WeakMap<RegExp, RegExp>();
+function onceOf(pattern: RegExp): RegExp {
+  let once = onces.get(pattern);
+  if (once === undefined) {
+    if (/\(\?<?[=!]|\\[bB]|[$^]/.test(pattern.source) || pattern.hasIndices) {
+      throw new TypeError(`FirstMatches needs a pattern without anchors, word boundaries, look-arounds or the d flag: /${pattern.source}/${pattern.flags}`);
+    }
+    once = pattern.global || pattern.sticky ? new RegExp(pattern.source, pattern.flags.replace(/[gy]/g, '')) : pattern;
+    onces.set(pattern, once);
+  }
+  return once;
+}

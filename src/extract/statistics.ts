@@ -3,7 +3,7 @@ import { readNumber, sentenceOf, sourceSpan } from './numbers.js';
 import { findP, reportTailEnd } from './tTests.js';
 import type { Comparison, OtherStatistic, OtherStatisticKind, ReportedNumber, TTestReport } from './types.js';
 import { leadStart, topicStems } from './topic.js';
-import { matchesOf } from './matches.js';
+import { FirstMatches, matchesOf } from './matches.js';
 
 // Bounded building blocks (see test/regex-safety).
 const OP = String.raw`(?:<=|>=|≤|≥|=|<|>)`;
@@ -113,9 +113,19 @@ export function completeStatistics(seg: Segment, starts: number[], others: Other
   for (const t of tests) if (t.segment === seg.id) boundaries.push(textIndexOf(seg, t.span.start));
   for (const o of others) if (!OWN_EFFECT.has(o.kind)) boundaries.push(textIndexOf(seg, o.span.start));
   boundaries.sort((a, b) => a - b);
+  const boundaryAt = boundaries.map((at) => ({ at }));
   // φ and V with their text starts, in order: each χ² finds the first after it by binary search
   const associations = others.filter((e) => e.kind === 'association' && e.value).map((e) => ({ ...e, at: textIndexOf(seg, e.span.start) })).sort((a, b) => a.at - b.at);
   const testStarts = tests.filter((t) => t.segment === seg.id).map((test) => ({ at: textIndexOf(seg, test.span.start), test })).sort((a, b) => a.at - b.at);
+  // each F's own η²: the first (in the records' order) after its value and before its clause ends.
+  // Records in text order, as the recognisers give them, are searched by binary search; in any
+  // other order, one by one as before (a scan per F was quadratic in a paragraph of Fs)
+  const etas = others.filter((e) => e.kind === 'eta-squared' && e.value).map((e) => ({ e, at: textIndexOf(seg, e.span.start) }));
+  const etasInOrder = etas.every((x, i) => i === 0 || (etas[i - 1] as { at: number }).at <= x.at);
+  const etaIn = (after: number, before: number): OtherStatistic | undefined => {
+    const x = etasInOrder ? firstAfter(etas, after) : etas.find((y) => y.at > after && y.at < before);
+    return x !== undefined && x.at < before ? x.e : undefined;
+  };
   const hard: number[] = [];
   for (const t of tests) if (t.segment === seg.id) hard.push(textIndexOf(seg, t.span.start));
   for (const o of others) if (CHECKED.has(o.kind)) hard.push(textIndexOf(seg, o.span.start));
@@ -123,6 +133,8 @@ export function completeStatistics(seg: Segment, starts: number[], others: Other
   let paragraphWords: string | null | undefined;
   const namesTable = TABLE_WORD.test(text);
   const stemsBySentence = new Map<number, string[]>();
+  // every F of a sentence reads it from its start to the F's clause: the sentence is read once
+  const analysisWords = new FirstMatches(NOT_ONE_WAY, text);
   return others.map((o) => {
     if (!CHECKED.has(o.kind) || !o.value) return o;
     const at = textIndexOf(seg, o.span.start);
@@ -130,7 +142,8 @@ export function completeStatistics(seg: Segment, starts: number[], others: Other
     const op = STAT_OP.exec(o.printed);
     const out: OtherStatistic = { ...o, ...(op ? { op: comparisonOf(op[1] as string) } : {}) };
     readOwnParts(seg, at, out);
-    const next = boundaries.find((b) => b > at) ?? text.length;
+    // the first boundary past this statistic, by binary search (a scan from the first was quadratic)
+    const next = firstAfter(boundaryAt, at)?.at ?? text.length;
     const sentenceEnd = starts[sentenceOf(starts, at) + 1] ?? text.length;
     const windowEnd = Math.min(next, sentenceEnd, valueEnd + 200);
     const tailEnd = reportTailEnd(text, valueEnd, windowEnd, OWN_WORDS);
@@ -149,7 +162,7 @@ export function completeStatistics(seg: Segment, starts: number[], others: Other
     const before = text.slice(Math.max(sentenceStart, at - 80), at);
     if (o.kind === 'F') {
       // an η² of the F's own clause: the first one after its value and before the clause ends
-      const eta = others.find((e) => e.kind === 'eta-squared' && e.value && textIndexOf(seg, e.span.start) > at && textIndexOf(seg, e.span.start) < Math.max(tailEnd, valueEnd + 1));
+      const eta = etaIn(at, Math.max(tailEnd, valueEnd + 1));
       if (eta?.value && /^(?:partial )?(?:η|eta)/iu.test(eta.printed)) {
         const etaOp = STAT_OP.exec(eta.printed);
         out.etaSquared = { partial: isPartialEta(eta.printed), op: etaOp ? comparisonOf(etaOp[1] as string) : '=', value: eta.value, span: eta.span, printed: eta.printed };
@@ -159,7 +172,7 @@ export function completeStatistics(seg: Segment, starts: number[], others: Other
       const near = text.slice(Math.max(sentenceStart, at - 80), tailEnd);
       const c = CORRECTION.exec(near);
       if (c) out.dfCorrection = c[1] === 'Huynh' ? 'huynh-feldt' : 'greenhouse-geisser';
-      const w = NOT_ONE_WAY.exec(text.slice(sentenceStart, tailEnd));
+      const w = analysisWords.within(sentenceStart, tailEnd, sentenceEnd);
       if (w) out.analysisWords = w[1] as string;
       if (paragraphWords === undefined) paragraphWords = NOT_ONE_WAY.exec(text)?.[1] ?? null;
       if (paragraphWords !== null) out.paragraphAnalysisWords = paragraphWords;

@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { matchesOf } from '../../src/extract/matches.js';
+import { FirstMatches, matchesOf } from '../../src/extract/matches.js';
+import { NOT_ONE_WAY } from '../../src/extract/statistics.js';
 
 /**
  * matchesOf (src/extract/matches.ts) must give exactly what ECMAScript's String.prototype.matchAll
@@ -49,5 +50,41 @@ describe('the matches of a global regular expression, without a copy of it', () 
   it('refuses an expression without the g flag, as matchAll does', () => {
     expect(() => [...'a1'.matchAll(/\d/ as RegExp)]).toThrow(TypeError);
     expect(() => [...matchesOf(/\d/, 'a1')]).toThrow(TypeError);
+  });
+});
+
+/**
+ * FirstMatches must give what `exec` on the slice itself gives (the reference: Node 20's
+ * RegExp.prototype.exec), index counted in the whole text, for any slices, in any order, of one
+ * text, with any region end given for a slice's start: here the analysis words an F reads (NOT_ONE_WAY, whose `\w{0,4}` and `points?` can be cut
+ * short at a slice's end), case-folded alternatives, a pattern that may match empty, and one
+ * whose later alternative only fits a shorter slice.
+ */
+describe('the first match inside slices of one text', () => {
+  const WORDS: RegExp[] = [NOT_ONE_WAY, /covariat\w{0,4}|cov/iu, /a*/u, /(ab|a)(c?)/, /sessions|session|ses/i, /time points?/iu];
+  const fragment = fc.constantFrom('repeated', 'covariate', 'covariates', 'adjusted', 'adjust', 'time point', 'time points', 'sessions', 'Welch', 'WITHIN-SUBJECTS', 'ab', 'abc', 'a', 'c', ' ', '; F(2, 12) = 9.1', 'x', 'é', '😀', 'ſessions');
+
+  it('is the slice’s own first match, for generated texts and slices asked in any order', () => {
+    fc.assert(
+      fc.property(fc.array(fragment, { maxLength: 25 }), fc.integer({ min: 0, max: WORDS.length - 1 }), fc.array(fc.tuple(fc.nat(300), fc.nat(300), fc.nat(300)), { minLength: 1, maxLength: 12 }), (parts, k, cuts) => {
+        const text = parts.join('');
+        const re = WORDS[k] as RegExp;
+        const first = new FirstMatches(re, text);
+        for (const [a, b, c] of cuts) {
+          const from = Math.min(a, text.length);
+          const to = Math.min(Math.max(from, b), text.length);
+          // the end no slice from `from` passes, as a sentence's end; some slices here pass it, and must still be right
+          const limit = Math.min(Math.max(from, c), text.length);
+          const got = first.within(from, to, limit);
+          const want = re.exec(text.slice(from, to));
+          expect(got === null ? null : { all: [...got], index: got.index }).toEqual(want === null ? null : { all: [...want], index: want.index + from });
+        }
+      }),
+      { numRuns: RUNS, seed: SEED },
+    );
+  });
+
+  it('refuses a pattern with an anchor, a word boundary, a look-around or the d flag', () => {
+    for (const re of [/^a/, /a$/, /\ba/, /(?=a)b/, /(?<!a)b/, /a/d]) expect(() => new FirstMatches(re, 'ab')).toThrow(TypeError);
   });
 });
