@@ -54,7 +54,7 @@ function nextIndex(text: string, at: number, unicode: boolean): number {
  * slice past the region's end, or a pattern that matches the empty string needs the slice itself.
  */
 export class FirstMatches {
-  /** The pattern without `g` or `y`: it starts at the string's start whatever its `lastIndex`. */
+  /** The pattern: without `g` or `y`, so each search starts at its string's start. */
   private readonly once: RegExp;
   /**
    * Whether the pattern matches the empty string: then a slice may hold an empty match where the
@@ -68,8 +68,11 @@ export class FirstMatches {
     pattern: RegExp,
     private readonly text: string,
   ) {
-    this.once = onceOf(pattern);
-    this.matchesEmpty = this.once.exec('') !== null;
+    if (pattern.global || pattern.sticky || pattern.hasIndices || /\(\?<?[=!]|\\[bB]|[$^]/.test(pattern.source)) {
+      throw new TypeError(`FirstMatches needs a pattern without the g, y or d flag, anchors, word boundaries or look-arounds: /${pattern.source}/${pattern.flags}`);
+    }
+    this.once = pattern;
+    this.matchesEmpty = pattern.exec('') !== null;
   }
 
   within(from: number, to: number, limit = this.text.length): RegExpExecArray | null {
@@ -93,22 +96,4 @@ export class FirstMatches {
     if (m !== null) m.index += from;
     return m;
   }
-}
-
-/**
- * The pattern FirstMatches searches with, made once per pattern and kept with it: a copy made
- * for every text would be compiled again whenever a collection dropped V8's cached code (see
- * matchesOf).
- */
-const onces = new WeakMap<RegExp, RegExp>();
-function onceOf(pattern: RegExp): RegExp {
-  let once = onces.get(pattern);
-  if (once === undefined) {
-    if (/\(\?<?[=!]|\\[bB]|[$^]/.test(pattern.source) || pattern.hasIndices) {
-      throw new TypeError(`FirstMatches needs a pattern without anchors, word boundaries, look-arounds or the d flag: /${pattern.source}/${pattern.flags}`);
-    }
-    once = pattern.global || pattern.sticky ? new RegExp(pattern.source, pattern.flags.replace(/[gy]/g, '')) : pattern;
-    onces.set(pattern, once);
-  }
-  return once;
 }
