@@ -109,11 +109,10 @@ const RANK_BEFORE = /(?<![\p{L}\p{N}_])(?:U|W|T|V)(?: ?\(\d{1,6}\))? ?[=<>]|Mann
 export function completeStatistics(seg: Segment, starts: number[], others: OtherStatistic[], tests: readonly TTestReport[]): OtherStatistic[] {
   const text = seg.text;
   // the text index of each record's start (spans are source offsets; the segment maps them)
-  const boundaries: number[] = [];
-  for (const t of tests) if (t.segment === seg.id) boundaries.push(textIndexOf(seg, t.span.start));
-  for (const o of others) if (!OWN_EFFECT.has(o.kind)) boundaries.push(textIndexOf(seg, o.span.start));
-  boundaries.sort((a, b) => a - b);
-  const boundaryAt = boundaries.map((at) => ({ at }));
+  const boundaries: Array<{ at: number }> = [];
+  for (const t of tests) if (t.segment === seg.id) boundaries.push({ at: textIndexOf(seg, t.span.start) });
+  for (const o of others) if (!OWN_EFFECT.has(o.kind)) boundaries.push({ at: textIndexOf(seg, o.span.start) });
+  boundaries.sort((a, b) => a.at - b.at);
   // φ and V with their text starts, in order: each χ² finds the first after it by binary search
   const associations = others.filter((e) => e.kind === 'association' && e.value).map((e) => ({ ...e, at: textIndexOf(seg, e.span.start) })).sort((a, b) => a.at - b.at);
   const testStarts = tests.filter((t) => t.segment === seg.id).map((test) => ({ at: textIndexOf(seg, test.span.start), test })).sort((a, b) => a.at - b.at);
@@ -143,7 +142,7 @@ export function completeStatistics(seg: Segment, starts: number[], others: Other
     const out: OtherStatistic = { ...o, ...(op ? { op: comparisonOf(op[1] as string) } : {}) };
     readOwnParts(seg, at, out);
     // the first boundary past this statistic, by binary search (a scan from the first was quadratic)
-    const next = firstAfter(boundaryAt, at)?.at ?? text.length;
+    const next = firstAfter(boundaries, at)?.at ?? text.length;
     const sentenceEnd = starts[sentenceOf(starts, at) + 1] ?? text.length;
     const windowEnd = Math.min(next, sentenceEnd, valueEnd + 200);
     const tailEnd = reportTailEnd(text, valueEnd, windowEnd, OWN_WORDS);

@@ -77,20 +77,6 @@ const SPACES = /\s+/g;
 /** Characters a run's text spells otherwise: ligatures, and the hyphens read as `-`. */
 const RESPELLED = /[\uFB00-\uFB06\u2010\u2011]/;
 
-/** The number of code points in `s` (a lone surrogate counts as one, as the string iterator gives it). */
-function codePointCount(s: string): number {
-  let n = 0;
-  for (let i = 0; i < s.length; i += 1) {
-    const c = s.charCodeAt(i);
-    if (c >= 0xd800 && c <= 0xdbff && i + 1 < s.length) {
-      const d = s.charCodeAt(i + 1);
-      if (d >= 0xdc00 && d <= 0xdfff) i += 1;
-    }
-    n += 1;
-  }
-  return n;
-}
-
 /**
  * The characters of a run, ligatures spelled out, each with its box: the run's width shared
  * evenly between its code points, and a code point's share between the UTF-16 units it is
@@ -101,19 +87,17 @@ function fragOf(run: TextRun): Frag {
   const respelled = RESPELLED.test(str);
   const parts: string[] = [];
   const boxes = new BoxList();
-  const count = codePointCount(str);
-  const step = count > 0 ? run.width / count : 0;
+  const chars = [...str];
+  const step = chars.length > 0 ? run.width / chars.length : 0;
   const y0 = run.y - 0.22 * run.size;
   const y1 = run.y + 0.8 * run.size;
-  let i = 0;
-  for (const c of str) {
+  chars.forEach((c, i) => {
     const x0 = run.x + i * step;
     const spelled = respelled ? (LIGATURES[c] ?? (c === '\u2010' || c === '\u2011' ? '-' : c)) : c;
     if (respelled) parts.push(spelled);
     const sub = step / spelled.length;
     for (let k = 0; k < spelled.length; k += 1) boxes.push(x0 + k * sub, x0 + (k + 1) * sub, y0, y1);
-    i += 1;
-  }
+  });
   return { text: respelled ? parts.join('') : str, boxes, x0: run.x, x1: run.x + run.width, y: run.y, size: run.size };
 }
 
