@@ -5,6 +5,7 @@ import {
 } from '../stats/index.js';
 import { fill, showBound, showInterval, showLastDigitUnits, showNumber } from './format.js';
 import { dfInterval, numberInterval, pInterval, pLastDigit } from './intervals.js';
+import { oncePer } from './once.js';
 import type { Gap, Recomputed, RuleFinding } from './types.js';
 
 /** One reading of a p from its statistic: its name, and the p range over the printed values' rounding box. */
@@ -72,8 +73,15 @@ function describeDfs(label: string, df: ReportedNumber): string {
  * two-tailed and one-tailed (half the two-tailed p): a rule speaks only when neither fits, so
  * a one-tailed p is never taken for an error here. An r whose bracket holds a number is read
  * both as df and as n (df = n − 2), as both are printed in that place.
+ *
+ * Made once per statistic (oncePer), as the report's record and the rules all ask for it.
+ * Shared by every caller: copy what is to be changed.
  */
 export function evaluateStatisticP(linked: LinkedStatistic): StatisticPEvaluation | undefined {
+  return evaluateStatisticPOncePer(linked);
+}
+
+function evaluateStatisticPOnce(linked: LinkedStatistic): StatisticPEvaluation | undefined {
   const s = linked.report;
   const p = s.p;
   const value = s.value;
@@ -205,3 +213,5 @@ export function statisticPFindings(
   }
   return out;
 }
+
+const evaluateStatisticPOncePer = oncePer(evaluateStatisticPOnce);
