@@ -39,7 +39,16 @@ export class LabelList extends Array<string> {
     return super.push(...items);
   }
 
+  /** Labels defined from the start of the parse (withDefinedLabels), held by reference: answered as if they opened the list. */
+  private seeded: ReadonlySet<string> | undefined;
+
+  /** Makes the list answer as if `labels` opened it (a set shared by every piece of a text, not copied into each). */
+  seed(labels: ReadonlySet<string>): void {
+    this.seeded = labels;
+  }
+
   override includes(label: string, fromIndex?: number): boolean {
+    if (fromIndex === undefined && this.seeded?.has(label) === true) return true;
     // the Set holds exactly the pushed labels while only `push` changed the list (the only
     // change micromark makes); SameValueZero, as `includes` compares, is what a Set compares by
     if (fromIndex === undefined && this.pushed === this.length) return this.labels.has(label);
@@ -87,13 +96,62 @@ function installer(install: (parser: LabelLists) => void): Construct {
   return { tokenize, partial: true };
 }
 
+/** Labels a parse is to hold as defined from its start, as micromark normalises them (normalizeIdentifier). */
+export interface LabelSeed {
+  /** Link reference definitions' labels. */
+  links: ReadonlySet<string>;
+  /** Footnote definitions' labels, without the `^`. */
+  footnotes: ReadonlySet<string>;
+}
+
+/** The seed of the parse under way (withDefinedLabels), and the parsers that have it. */
+let seed: LabelSeed | undefined;
+const seeded = new WeakSet<object>();
+
+/**
+ * Runs `parse` (one synchronous parse) with `labels` defined in it from the start, as if the
+ * text held their definitions somewhere: a reference or footnote call to one of them is a link
+ * or a call wherever it stands. A piece of a longer text (pieces.ts) is so parsed with the
+ * labels the whole text defines.
+ *
+ * micromark asks whether a label is defined only while it reads inline text, and it reads a
+ * text's inline content only after all its blocks (their definitions pushed, so every one of
+ * them is known there): at a `]` closing a label that `[` or `![` opened (label-end.js, and
+ * the footnote extension's potential call) and in a footnote call `[^a]`, which opens at `[`.
+ * So the labels are added at the first `[` or `!` of the inline text (`text` below, tried
+ * before every other construct there), before any such question; the lists then answer for
+ * them and for those the parse's own definitions push (micromark asks membership only). The
+ * sets are shared, not copied: each of a text's pieces costs the same whatever its labels.
+ */
+export function withDefinedLabels<T>(labels: LabelSeed, parse: () => T): T {
+  const before = seed;
+  seed = labels;
+  try {
+    return parse();
+  } finally {
+    seed = before;
+  }
+}
+
+/** Adds the seed of the parse under way to the lists, once per parse. */
+function installSeed(parser: LabelLists): void {
+  if (seed === undefined || seeded.has(parser)) return;
+  seeded.add(parser);
+  // in inline text no footnote definition is being read: both lists can be replaced
+  installAll(parser);
+  (parser.defined as LabelList).seed(seed.links);
+  (parser.gfmFootnotes as LabelList).seed(seed.footnotes);
+}
+
 /**
  * The micromark extension: at `[` in `document` (where GFM footnote definitions start) and in
- * `contentInitial` (where link reference definitions start).
+ * `contentInitial` (where link reference definitions start); and at `[` and `!` in `text`,
+ * where labels open, for a seed (withDefinedLabels).
  */
 export const labelListsSyntax: Extension = {
   document: { 91: installer(installAll) },
   contentInitial: { 91: installer(installDefined) },
+  text: { 33: installer(installSeed), 91: installer(installSeed) },
 };
 
 /** The unified plugin that adds labelListsSyntax to remark-parse's micromark (as remark-gfm adds its syntax). */

@@ -22,9 +22,18 @@
  *
  * One thing crosses blank lines at the root: the labels a document defines (link references and
  * footnotes, `[a]: …`, `[^a]: …`). A reference is a link only where its label is defined
- * anywhere in the text, before or after it; each definition holds `]:`, so a text holding `]:`
- * anywhere is parsed whole. So is a text that opens with a byte-order mark, which micromark
- * leaves out of its offsets.
+ * anywhere in the text, before or after it. So every piece of a text holding `]:` (each
+ * definition holds it) is parsed with the labels the whole text defines (definedLabels.ts,
+ * withDefinedLabels): first those its lines show (guessLabels); then the tree's definitions,
+ * read at their places (definedLabels), must define exactly those, else the pieces are parsed
+ * again with the ones they define (a definition is one whatever labels are defined, and the
+ * blocks are the whole text's). A definition whose label runs across lines has the text parsed
+ * whole, as has a text that opens with a byte-order mark, which micromark leaves out of its
+ * offsets.
+ *
+ * Inside a run of definitions, one a line with no blank line between them (a reference list, a
+ * document's footnotes), a piece may also end after a definition when the next line opens with
+ * `[` (definitionCut).
  *
  * A piece's tree is kept up to its last block at the root that closes so, where a piece may end
  * (cutAt); the text after that block is read again as the start of the next piece, which
@@ -36,6 +45,8 @@
  */
 import type { Root, RootContent } from 'mdast';
 import type { Point } from 'unist';
+import { normalizeIdentifier } from 'micromark-util-normalize-identifier';
+import { type LabelSeed, withDefinedLabels } from './definedLabels.js';
 import { LineIndex } from './lines.js';
 
 /**
@@ -94,15 +105,71 @@ export function cutAt(text: string, end: number, trailing: boolean): { end: numb
 }
 
 /**
+ * Where a piece may end at `end` inside a run of definitions: a line ending follows it at once
+ * and the next line opens with `[` (definitionCut settles it by the block that ends there).
+ * `next` is where that line starts; undefined otherwise.
+ */
+export function bracketLineAt(text: string, end: number): { end: number; next: number } | undefined {
+  const at = pastLineEnding(text, end);
+  return at >= 0 && text.charCodeAt(at) === 91 ? { end, next: at } : undefined;
+}
+
+/**
+ * A footnote definition's opening, `[^label]:`, as micromark-extension-gfm-footnote 2.1 reads
+ * one at a line's start: a label of one or more characters, none of them white space or an
+ * unescaped bracket (fewer than its limit of 1,000). Stricter than the extension (no other
+ * space, no backslash but before a bracket or a backslash), so each line it takes opens one.
+ */
+const FOOTNOTE_OPENING = /\[\^(?:[^\s[\]\\]|\\[[\]\\]){1,500}\]:/y;
+
+/**
+ * Whether a piece may end after `node`, a block at the root ending at `end` (in `text`), where a
+ * line that opens with `[` follows it at once (bracketLineAt): the whole text then reads that
+ * line as a text of its own read from its start does, and the block as the piece does.
+ * - After a link reference definition: the line is a container at the document's level (a
+ *   footnote definition) in both readings; else it goes on the definition's content, where
+ *   after a definition complete on its lines micromark tries a definition and then a paragraph
+ *   as at the start of content, unless a table interrupts there, as a table also starts there in
+ *   a text of its own. The definition ends as in the piece: its title may follow on the next
+ *   line only where that line opens with a quote or parenthesis.
+ * - After a footnote definition: only when the line opens another (FOOTNOTE_OPENING), which
+ *   closes the first and all it holds; any other line would go on it (indented or lazily). And
+ *   only when its last block, and the last inside that, is none that runs to the end of its
+ *   lines (OPEN_TO_LINE_END): closed by the next definition, such a block (a fence left open)
+ *   takes in the line ending before it, which the piece's end leaves out.
+ */
+function definitionCut(node: RootContent, text: string, end: number): { end: number; next: number } | undefined {
+  if (node.type !== 'definition' && node.type !== 'footnoteDefinition') return undefined;
+  const cut = bracketLineAt(text, end);
+  if (cut === undefined || node.type === 'definition') return cut;
+  FOOTNOTE_OPENING.lastIndex = cut.next;
+  if (!FOOTNOTE_OPENING.test(text)) return undefined;
+  for (let last: unknown = node; last !== undefined; ) {
+    const n = last as { type: string; children?: unknown[] };
+    if (OPEN_TO_LINE_END.has(n.type)) return undefined;
+    last = n.children?.at(-1);
+  }
+  return cut;
+}
+
+/**
+ * Blocks that a container's end may close with the line ending after their last line (fenced
+ * or indented code, raw HTML, math): in a footnote definition at a piece's end, not a place to
+ * end the piece.
+ */
+const OPEN_TO_LINE_END = new Set(['code', 'html', 'math']);
+
+/**
  * The first end of a line at or after `from` where a piece may end, with no space or tab before
- * its line ending (cutAt), or undefined when there is none.
+ * its line ending (cutAt, or bracketLineAt inside a run of definitions), or undefined when there
+ * is none.
  */
 export function nextCut(text: string, from: number): { end: number; next: number } | undefined {
   for (let k = from; k < text.length; k += 1) {
     const c = text.charCodeAt(k);
     if (c !== 10 && c !== 13) continue;
     const before = k > 0 ? text.charCodeAt(k - 1) : 10;
-    const cut = isBlankChar(before) || before === 10 || before === 13 ? undefined : cutAt(text, k, false);
+    const cut = isBlankChar(before) || before === 10 || before === 13 ? undefined : (cutAt(text, k, false) ?? bracketLineAt(text, k));
     if (cut) return cut;
     if (c === 13 && text.charCodeAt(k + 1) === 10) k += 1;
   }
@@ -149,7 +216,24 @@ function movePlaces(nodes: readonly RootContent[], offset: number, lines: number
  */
 export function parseInPieces(parser: Parser, text: string, pieceChars = PIECE_CHARS, frontMatter = true): Root {
   // micromark drops a byte-order mark that opens the text and counts offsets without it
-  if (text.length < 2 * pieceChars || text.includes(']:') || text.charCodeAt(0) === 0xfeff) return parser.parse(text) as Root;
+  if (text.length < 2 * pieceChars || text.charCodeAt(0) === 0xfeff) return parser.parse(text) as Root;
+  // no definition without `]:`: no label to share between pieces
+  if (!text.includes(']:')) return inPieces((piece) => parser.parse(piece) as Root, text, pieceChars, frontMatter) ?? (parser.parse(text) as Root);
+  // each piece holds the labels the whole text defines (seeded): first those a look at its lines
+  // finds, then, where the definitions in the tree are others, those
+  const guess = guessLabels(text);
+  const first = inPieces((piece) => withDefinedLabels(guess, () => parser.parse(piece) as Root), text, pieceChars, frontMatter);
+  const defined = first && definedLabels(first.children, text);
+  if (first === undefined || defined === undefined) return parser.parse(text) as Root;
+  if (sameLabels(defined, guess)) return first;
+  return inPieces((piece) => withDefinedLabels(defined, () => parser.parse(piece) as Root), text, pieceChars, frontMatter) ?? (parser.parse(text) as Root);
+}
+
+/**
+ * parseInPieces's pieces, each parsed by `parse`; undefined when the text must be parsed whole
+ * (front matter that no piece may end inside).
+ */
+function inPieces(parse: (piece: string) => Root, text: string, pieceChars: number, frontMatter: boolean): Root | undefined {
   const children: RootContent[] = [];
   let start = 0;
   // the lines before an offset (a text opening with a byte-order mark is parsed whole, above)
@@ -160,16 +244,16 @@ export function parseInPieces(parser: Parser, text: string, pieceChars = PIECE_C
   // front matter opening the text runs on across blank lines to a later `---` line: no piece ends before it
   const opensWithFence = frontMatter && text.startsWith('---');
   const fence = opensWithFence ? LATER_FENCE.exec(text) : null;
-  if (opensWithFence && fence === null) return parser.parse(text) as Root;
+  if (opensWithFence && fence === null) return undefined;
   const firstFrom = fence ? fence.index + fence[0].length : 0;
   // the length tried for the next piece: doubled after a piece whose blocks give no place to end
   let span = pieceChars;
   for (;;) {
     const cut = text.length - start >= span + pieceChars ? nextCut(text, Math.max(start + span, start === 0 ? firstFrom : 0)) : undefined;
     const piece = cut ? text.slice(start, cut.end) : text.slice(start);
-    const tree = parser.parse(piece) as Root;
+    const tree = parse(piece);
     // front matter not read in the first piece: the whole text is parsed as one
-    if (start === 0 && opensWithFence && cut !== undefined && tree.children[0]?.type !== 'yaml') return parser.parse(text) as Root;
+    if (start === 0 && opensWithFence && cut !== undefined && tree.children[0]?.type !== 'yaml') return undefined;
     let taken = tree.children.length;
     let next: { end: number; next: number } | undefined;
     if (cut !== undefined) {
@@ -180,6 +264,7 @@ export function parseInPieces(parser: Parser, text: string, pieceChars = PIECE_C
         const end = node.position?.end.offset;
         // trailing white space on the piece's last line may read otherwise before a line ending
         if (CLOSED.has(node.type) && end !== undefined && (node.type !== 'blockquote' || !endsOnEmptyQuoteLine(piece, end)) && (next = cutAt(text, start + end, end < piece.length)) !== undefined) break;
+        if (end !== undefined && (next = definitionCut(node, text, start + end)) !== undefined) break;
       }
       if (taken === 0) {
         // the next try must reach past this cut (the first cut after `start + span` may lie far
@@ -206,4 +291,80 @@ export function parseInPieces(parser: Parser, text: string, pieceChars = PIECE_C
     root.position = { start: opening, end: { line: end.line + (start > 0 ? linesBefore(start) : 0), column: end.column, offset: (end.offset ?? 0) + start } };
   }
   return root;
+}
+
+/**
+ * A line that may hold a definition: after marks that may open containers (`>`, list markers,
+ * indentation), `[label]:` or `[^label]:` on one line. A guess: a fence or raw HTML may hold
+ * such a line, and a label may run across lines; the tree settles it (definedLabels).
+ */
+const DEFINITION_LINE = /^[ \t>*+\-.)0-9]*\[(\^?)((?:[^\\[\]\r\n]|\\[^\r\n])+)\]:/gm;
+
+/** The labels of the lines of `text` that look like definitions (DEFINITION_LINE), normalised as micromark does. */
+export function guessLabels(text: string): LabelSeed {
+  const links = new Set<string>();
+  const footnotes = new Set<string>();
+  for (const m of text.matchAll(DEFINITION_LINE)) {
+    const label = m[2] as string;
+    // a footnote's label holds no space or tab (micromark-extension-gfm-footnote)
+    if (m[1] !== '^') links.add(normalizeIdentifier(label));
+    else if (!label.includes(' ') && !label.includes('\t')) footnotes.add(normalizeIdentifier(label));
+  }
+  return { links, footnotes };
+}
+
+/**
+ * The label of the definition that opens at `offset` (`[label]:`, or `[^label]:` when
+ * `footnote`) as micromark reads it: up to the first `]` that no backslash escapes. Undefined
+ * when `[` does not stand there, or the label runs across lines: inside a container, the
+ * container's marks on the next line are not part of the label micromark reads.
+ */
+function labelAt(text: string, offset: number | undefined, footnote: boolean): string | undefined {
+  if (offset === undefined || text.charCodeAt(offset) !== 91) return undefined;
+  let i = offset + 1;
+  if (footnote) {
+    if (text.charCodeAt(i) !== 94) return undefined;
+    i += 1;
+  }
+  const from = i;
+  for (; i < text.length; i += 1) {
+    const c = text.charCodeAt(i);
+    if (c === 10 || c === 13 || c === 91) return undefined;
+    if (c === 93) return text.slice(from, i);
+    // an escaped bracket or backslash belongs to the label (micromark-factory-label)
+    if (c === 92) {
+      const d = text.charCodeAt(i + 1);
+      if (d === 91 || d === 92 || d === 93) i += 1;
+    }
+  }
+  return undefined;
+}
+
+/**
+ * The labels that the definitions among `nodes` (and inside them) define, as micromark
+ * normalises them, read from `text` at each one's place; undefined when one of them cannot be
+ * read so, or reads as other than its node's identifier.
+ */
+export function definedLabels(nodes: readonly RootContent[], text: string): LabelSeed | undefined {
+  const links = new Set<string>();
+  const footnotes = new Set<string>();
+  const stack: unknown[] = [...nodes];
+  while (stack.length > 0) {
+    const node = stack.pop() as { type: string; identifier?: string; position?: { start: Point }; children?: unknown[] };
+    if (node.type === 'definition' || node.type === 'footnoteDefinition') {
+      const label = labelAt(text, node.position?.start.offset, node.type === 'footnoteDefinition');
+      if (label === undefined) return undefined;
+      const key = normalizeIdentifier(label);
+      if (key.toLowerCase() !== node.identifier) return undefined;
+      (node.type === 'definition' ? links : footnotes).add(key);
+    }
+    if (node.children) for (const child of node.children) stack.push(child);
+  }
+  return { links, footnotes };
+}
+
+/** Whether two seeds hold the same labels. */
+function sameLabels(a: LabelSeed, b: LabelSeed): boolean {
+  const same = (x: ReadonlySet<string>, y: ReadonlySet<string>) => x.size === y.size && [...x].every((l) => y.has(l));
+  return same(a.links, b.links) && same(a.footnotes, b.footnotes);
 }

@@ -6,8 +6,9 @@ import remarkMath from 'remark-math';
 import remarkParse from 'remark-parse';
 import { unified, type Processor } from 'unified';
 import { describe, expect, it } from 'vitest';
-import { LabelList } from '../../src/parse/definedLabels.js';
+import { LabelList, withDefinedLabels } from '../../src/parse/definedLabels.js';
 import { markdownProcessors } from '../../src/parse/markdown.js';
+import { definedLabels, guessLabels } from '../../src/parse/pieces.js';
 
 /**
  * micromark keeps defined labels in arrays it asks with `includes` (link reference definitions in
@@ -155,6 +156,53 @@ describe('label lists in place of micromark\'s arrays of defined labels', () => 
     }
   });
 
+  it('a text parsed with the labels another defines reads its references as one text holding both', () => {
+    // the references first, the definitions after a blank line: the first part's blocks keep
+    // their places in the whole, and parsed alone with the whole's labels they must be the same
+    // blocks; micromark without the lists (`bare`) parses the whole
+    const seen = { linkReference: 0, imageReference: 0, footnoteReference: 0 };
+    const definitionLine = fc.oneof(
+      fc.tuple(label, fc.constantFrom('/a', '<https://example.org/b c>')).map(([l, d]) => `[${l}]: ${d}`),
+      footLabel.map((l) => `[^${l}]: A note.`),
+    );
+    fc.assert(
+      fc.property(fc.array(inline, { minLength: 1, maxLength: 6 }), fc.array(definitionLine, { minLength: 1, maxLength: 10 }), (paragraphs, definitions) => {
+        const uses = paragraphs.map((p) => p.trim() || 'text').join('\n\n');
+        const whole = `${uses}\n\n${definitions.join('\n\n')}\n`;
+        const want = bare.processor.parse(whole);
+        const labels = definedLabels(want.children, whole);
+        if (labels === undefined) {
+          // only a label across lines is not read from the text (inside a container its marks would be in it)
+          expect(definitions.some((d) => /^\[[^\]]*\n/.test(d))).toBe(true);
+          return;
+        }
+        const got = withDefinedLabels(labels, () => hooked.processor.parse(uses) as Root);
+        expect(got.children).toEqual(want.children.slice(0, got.children.length));
+        for (const type of Object.keys(seen) as Array<keyof typeof seen>) seen[type] += count(got, type);
+        // without the labels the same text reads none of them (no definition of its own)
+        expect(count(hooked.processor.parse(uses) as Root, 'linkReference') + count(hooked.processor.parse(uses) as Root, 'footnoteReference')).toBe(0);
+        // the definitions one a line at the margin: a look at the lines finds the labels the tree defines
+        const guessed = guessLabels(whole);
+        expect(guessed.links).toEqual(labels.links);
+        expect(guessed.footnotes).toEqual(labels.footnotes);
+      }),
+      { numRuns: RUNS, seed: SEED },
+    );
+    for (const [type, n] of Object.entries(seen)) expect(n, type).toBeGreaterThan(RUNS / 20);
+  }, 300_000);
+
+  it('a seed holds for one parse only', () => {
+    const seed = { links: new Set(['A']), footnotes: new Set(['N']) };
+    const inside = withDefinedLabels(seed, () => hooked.processor.parse('See [a] and [^n].') as Root);
+    expect(count(inside, 'linkReference')).toBe(1);
+    expect(count(inside, 'footnoteReference')).toBe(1);
+    const after = hooked.processor.parse('See [a] and [^n].') as Root;
+    expect(count(after, 'linkReference') + count(after, 'footnoteReference')).toBe(0);
+    // also when the parse throws
+    expect(() => withDefinedLabels(seed, () => { throw new Error('stop'); })).toThrow('stop');
+    expect(count(hooked.processor.parse('See [a].') as Root, 'linkReference')).toBe(0);
+  });
+
   it('a label list answers includes as an array does, also once changed by something other than push', () => {
     const list = LabelList.holding(['a', 'B', 'a']);
     expect(list.includes('a')).toBe(true);
@@ -168,6 +216,18 @@ describe('label lists in place of micromark\'s arrays of defined labels', () => 
     // the Set still holds 'B': the list now answers by scanning
     expect(list.includes('B')).toBe(false);
     expect(list.includes('a')).toBe(true);
+    // a seed answers as if it opened the list, and is shared, not copied into it
+    const labels = new Set(['Y']);
+    const seeded = LabelList.holding(['x']);
+    seeded.seed(labels);
+    seeded.push('w');
+    expect(seeded.includes('Y')).toBe(true);
+    expect(seeded.includes('x')).toBe(true);
+    expect(seeded.includes('w')).toBe(true);
+    expect(seeded.includes('z')).toBe(false);
+    expect([...seeded]).toEqual(['x', 'w']);
+    labels.add('Z');
+    expect(seeded.includes('Z')).toBe(true);
   });
 });
 
