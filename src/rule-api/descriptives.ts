@@ -3,6 +3,7 @@ import type { Design, LinkedResult } from '../link/index.js';
 import { distanceBetween, oneSampleAbsT, studentAbsT, welchAbsT, welchDfRange, type Box, type Interval } from '../stats/index.js';
 import { showInterval } from './format.js';
 import { dfInterval, isWholeDf, numberInterval, tInterval } from './intervals.js';
+import { oncePer } from './once.js';
 
 export type Variant = 'one-sample' | 'student' | 'welch';
 export type Reading = 'as labelled' | 'spread read as SE' | 'spread read as SD';
@@ -45,6 +46,17 @@ const MAX_SPLITS = 5000;
  * t needs the SD of the differences, which is not in two groups' descriptives).
  */
 export function evaluateDescriptives(result: LinkedResult): DescriptiveEvaluation | undefined {
+  return evaluateDescriptivesOncePer(result);
+}
+
+/**
+ * evaluateDescriptives made once per linked result (once.ts): spread-kind-matches-t and
+ * t-follows-from-descriptives both ask for it, and each evaluation tries every reading, variant
+ * and split of the sizes. The rules copy what they keep of it into their findings.
+ */
+const evaluateDescriptivesOncePer = oncePer(evaluateDescriptivesOnce);
+
+function evaluateDescriptivesOnce(result: LinkedResult): DescriptiveEvaluation | undefined {
   const link = result.context.descriptives;
   const r = result.report;
   if (!link || r.tOp !== '=') return undefined;

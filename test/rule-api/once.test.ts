@@ -5,7 +5,7 @@ import { checkSource } from '../../src/engine/index.js';
 import { extract } from '../../src/extract/index.js';
 import { link } from '../../src/link/index.js';
 import { parseDocument } from '../../src/parse/index.js';
-import { evaluateP, evaluateStatisticP } from '../../src/rule-api/index.js';
+import { evaluateDescriptives, evaluateP, evaluateStatisticP } from '../../src/rule-api/index.js';
 import { oncePer } from '../../src/rule-api/once.js';
 
 // Invented results whose printed p is far from what t and F give (about .045 and .047; values
@@ -59,6 +59,28 @@ describe('evaluateP and evaluateStatisticP, made once per linked item', () => {
     expect(se?.fits).toBe(false);
     expect(evaluateStatisticP(s)).toBe(se);
     expect(evaluateStatisticP(other.statistics.find((x) => x.report.kind === 'F') as typeof s)).toEqual(se);
+  });
+});
+
+describe('evaluateDescriptives, made once per linked result', () => {
+  it('gives the same evaluation to every caller, equal to one made afresh from another linking of the text', () => {
+    // invented descriptives; t from them is some 2.3 (Student), not the printed 3.90 (value from
+    // memory, used only as "far from it": the numerics are checked against scipy in test/stats)
+    const text = 'Desk users (M = 5.1, SD = 1.2, n = 20) and chair users (M = 4.2, SD = 1.3, n = 20) differed, t(38) = 3.90, p = .001.\n';
+    const linkedText = () => {
+      const doc = parseDocument('desc.md', text);
+      return link(extract(doc), doc.directives);
+    };
+    const one = linkedText().results[0];
+    const other = linkedText().results[0];
+    expect(one).toBeDefined();
+    if (!one || !other) return;
+    const e = evaluateDescriptives(one);
+    expect(e?.attempts.length).toBeGreaterThan(0);
+    expect(e?.fitsAsLabelled).toBe(false);
+    expect(evaluateDescriptives(one)).toBe(e);
+    expect(evaluateDescriptives(other)).not.toBe(e);
+    expect(evaluateDescriptives(other)).toEqual(e);
   });
 });
 
