@@ -126,30 +126,92 @@ const FOOTNOTE_OPENING = /\[\^(?:[^\s[\]\\]|\\[[\]\\]){1,500}\]:/y;
  * Whether a piece may end after `node`, a block at the root ending at `end` (in `text`), where a
  * line that opens with `[` follows it at once (bracketLineAt): the whole text then reads that
  * line as a text of its own read from its start does, and the block as the piece does.
- * - After a link reference definition: the line is a container at the document's level (a
- *   footnote definition) in both readings; else it goes on the definition's content, where
- *   after a definition complete on its lines micromark tries a definition and then a paragraph
- *   as at the start of content, unless a table interrupts there, as a table also starts there in
- *   a text of its own. The definition ends as in the piece: its title may follow on the next
- *   line only where that line opens with a quote or parenthesis.
+ * - After a link reference definition: when the line opens a footnote definition, a container
+ *   that ends the definition's content in both readings. Else the line goes on that content,
+ *   which is exact only when it holds nothing but definitions to its end: a setext underline
+ *   below a paragraph in it makes a heading that micromark starts where the content starts,
+ *   definitions and all (the property test found that). So the line and each below it up to a
+ *   blank line, the text's end or a footnote definition must be a whole definition on its line
+ *   (definitionsToTheEnd); each is then one in both readings, as after a definition micromark
+ *   tries a definition as at the start of content, and none can take a title from the next.
  * - After a footnote definition: only when the line opens another (FOOTNOTE_OPENING), which
  *   closes the first and all it holds; any other line would go on it (indented or lazily). And
  *   only when its last block, and the last inside that, is none that runs to the end of its
  *   lines (OPEN_TO_LINE_END): closed by the next definition, such a block (a fence left open)
  *   takes in the line ending before it, which the piece's end leaves out.
  */
-function definitionCut(node: RootContent, text: string, end: number): { end: number; next: number } | undefined {
+function definitionCut(node: RootContent, text: string, end: number, runs: DefinitionRuns): { end: number; next: number } | undefined {
   if (node.type !== 'definition' && node.type !== 'footnoteDefinition') return undefined;
   const cut = bracketLineAt(text, end);
-  if (cut === undefined || node.type === 'definition') return cut;
+  if (cut === undefined) return undefined;
   FOOTNOTE_OPENING.lastIndex = cut.next;
-  if (!FOOTNOTE_OPENING.test(text)) return undefined;
+  const opensFootnote = FOOTNOTE_OPENING.test(text);
+  if (node.type === 'definition') return opensFootnote || definitionsToTheEnd(text, cut.next, runs) ? cut : undefined;
+  if (!opensFootnote) return undefined;
   for (let last: unknown = node; last !== undefined; ) {
     const n = last as { type: string; children?: unknown[] };
     if (OPEN_TO_LINE_END.has(n.type)) return undefined;
     last = n.children?.at(-1);
   }
   return cut;
+}
+
+/**
+ * A link reference definition whole on one line, as CommonMark reads one at a line's start: a
+ * label with no unescaped bracket, a destination (in `<>`, or with no space, parenthesis,
+ * backslash or control character), and optionally a title in double quotes, then only spaces
+ * or tabs. Stricter than CommonMark, so each line it takes is a definition wherever content may
+ * start a definition.
+ */
+const DEFINITION_ON_ITS_LINE = /\[(?:[^\\[\]\r\n]|\\[[\]\\]){1,999}\]:[ \t]*(?:<[^<>\\\r\n]*>|[^\s<()\\\x00-\x1f\x7f][^\s()\\\x00-\x1f\x7f]*)(?:[ \t]+"[^"\\\r\n]*")?[ \t]*(?=[\r\n]|$)/y;
+
+/** definitionsToTheEnd's last answer: the lines from `from` to `to` (a line's start) all hold definitions on their own, ending as it says. */
+interface DefinitionRuns {
+  from: number;
+  to: number;
+  ok: boolean;
+}
+
+/**
+ * Whether the lines from `at` (a line's start) to the next blank line, the text's end or a line
+ * opening a footnote definition are each a link reference definition on its own
+ * (DEFINITION_ON_ITS_LINE, with a label that is not all white space). Remembered in `runs`, so
+ * the lines of a run are read once, not once per piece that ends inside it.
+ */
+function definitionsToTheEnd(text: string, at: number, runs: DefinitionRuns): boolean {
+  if (at >= runs.from && at < runs.to) return runs.ok;
+  let line = at;
+  let ok = false;
+  for (;;) {
+    let k = line;
+    while (k < text.length && isBlankChar(text.charCodeAt(k))) k += 1;
+    const past = pastLineEnding(text, k);
+    // a blank line or the text's end closes the content
+    if (k >= text.length || past >= 0) {
+      ok = true;
+      break;
+    }
+    FOOTNOTE_OPENING.lastIndex = line;
+    if (FOOTNOTE_OPENING.test(text)) {
+      ok = true;
+      break;
+    }
+    DEFINITION_ON_ITS_LINE.lastIndex = line;
+    const m = DEFINITION_ON_ITS_LINE.exec(text);
+    if (m === null || text.slice(line + 1, text.indexOf(']:', line)).trim() === '') break;
+    const end = line + m[0].length;
+    const next = pastLineEnding(text, end);
+    if (next < 0) {
+      // the definition ends the text
+      ok = true;
+      break;
+    }
+    line = next;
+  }
+  runs.from = at;
+  runs.to = line;
+  runs.ok = ok;
+  return ok;
 }
 
 /**
@@ -235,6 +297,7 @@ export function parseInPieces(parser: Parser, text: string, pieceChars = PIECE_C
  */
 function inPieces(parse: (piece: string) => Root, text: string, pieceChars: number, frontMatter: boolean): Root | undefined {
   const children: RootContent[] = [];
+  const runs: DefinitionRuns = { from: 0, to: 0, ok: false };
   let start = 0;
   // the lines before an offset (a text opening with a byte-order mark is parsed whole, above)
   let index: LineIndex | undefined;
@@ -264,7 +327,7 @@ function inPieces(parse: (piece: string) => Root, text: string, pieceChars: numb
         const end = node.position?.end.offset;
         // trailing white space on the piece's last line may read otherwise before a line ending
         if (CLOSED.has(node.type) && end !== undefined && (node.type !== 'blockquote' || !endsOnEmptyQuoteLine(piece, end)) && (next = cutAt(text, start + end, end < piece.length)) !== undefined) break;
-        if (end !== undefined && (next = definitionCut(node, text, start + end)) !== undefined) break;
+        if (end !== undefined && (next = definitionCut(node, text, start + end, runs)) !== undefined) break;
       }
       if (taken === 0) {
         // the next try must reach past this cut (the first cut after `start + span` may lie far
