@@ -117,23 +117,27 @@ export function bracketLineAt(text: string, end: number): { end: number; next: n
 /**
  * A footnote definition's opening, `[^label]:`, as micromark-extension-gfm-footnote 2.1 reads
  * one at a line's start: a label of one or more characters, none of them white space or an
- * unescaped bracket (fewer than its limit of 1,000). Stricter than the extension (no other
- * space, no backslash but before a bracket or a backslash), so each line it takes opens one.
+ * unescaped bracket, at most 999 characters (an escape counts two; at most 499 pieces of at
+ * most two characters here). Stricter than the extension (no other space, no backslash but
+ * before a bracket or a backslash), so each line it takes opens one.
  */
-const FOOTNOTE_OPENING = /\[\^(?:[^\s[\]\\]|\\[[\]\\]){1,500}\]:/y;
+const FOOTNOTE_OPENING = /\[\^(?:[^\s[\]\\]|\\[[\]\\]){1,499}\]:/y;
 
 /**
  * Whether a piece may end after `node`, a block at the root ending at `end` (in `text`), where a
  * line that opens with `[` follows it at once (bracketLineAt): the whole text then reads that
  * line as a text of its own read from its start does, and the block as the piece does.
- * - After a link reference definition: when the line opens a footnote definition, a container
- *   that ends the definition's content in both readings. Else the line goes on that content,
- *   which is exact only when it holds nothing but definitions to its end: a setext underline
- *   below a paragraph in it makes a heading that micromark starts where the content starts,
- *   definitions and all (the property test found that). So the line and each below it up to a
- *   blank line, the text's end or a footnote definition must be a whole definition on its line
+ * - After a link reference definition: the line goes on the definition's content, which is
+ *   exact only when it holds nothing but definitions to its end: a setext underline below a
+ *   paragraph in it makes a heading that micromark starts where the content starts, definitions
+ *   and all (the property test found that). So the line and each below it up to a blank line,
+ *   the text's end or a footnote definition must be a whole definition on its line
  *   (definitionsToTheEnd); each is then one in both readings, as after a definition micromark
- *   tries a definition as at the start of content, and none can take a title from the next.
+ *   tries a definition as at the start of content, and none can take a title from the next. Not
+ *   before a footnote definition: opened on a line that interrupts the open content, its first
+ *   line may not open an ordered list from other than 1 or an empty item (micromark's interrupt
+ *   flag reaches the new container's content), which a piece opening there would (found in
+ *   review: `[^b]: 2019. Data …` read as a list).
  * - After a footnote definition: only when the line opens another (FOOTNOTE_OPENING), which
  *   closes the first and all it holds; any other line would go on it (indented or lazily). And
  *   only when its last block, and the last inside that, is none that runs to the end of its
@@ -146,7 +150,7 @@ function definitionCut(node: RootContent, text: string, end: number, runs: Defin
   if (cut === undefined) return undefined;
   FOOTNOTE_OPENING.lastIndex = cut.next;
   const opensFootnote = FOOTNOTE_OPENING.test(text);
-  if (node.type === 'definition') return opensFootnote || definitionsToTheEnd(text, cut.next, runs) ? cut : undefined;
+  if (node.type === 'definition') return !opensFootnote && definitionsToTheEnd(text, cut.next, runs) ? cut : undefined;
   if (!opensFootnote) return undefined;
   for (let last: unknown = node; last !== undefined; ) {
     const n = last as { type: string; children?: unknown[] };
@@ -158,12 +162,12 @@ function definitionCut(node: RootContent, text: string, end: number, runs: Defin
 
 /**
  * A link reference definition whole on one line, as CommonMark reads one at a line's start: a
- * label with no unescaped bracket, a destination (in `<>`, or with no space, parenthesis,
+ * label with no unescaped bracket, of at most 999 characters (499 pieces of at most two here), a destination (in `<>`, or with no space, parenthesis,
  * backslash or control character), and optionally a title in double quotes, then only spaces
  * or tabs. Stricter than CommonMark, so each line it takes is a definition wherever content may
  * start a definition.
  */
-const DEFINITION_ON_ITS_LINE = /\[(?:[^\\[\]\r\n]|\\[[\]\\]){1,999}\]:[ \t]*(?:<[^<>\\\r\n]*>|[^\s<()\\\x00-\x1f\x7f][^\s()\\\x00-\x1f\x7f]*)(?:[ \t]+"[^"\\\r\n]*")?[ \t]*(?=[\r\n]|$)/y;
+const DEFINITION_ON_ITS_LINE = /\[(?:[^\\[\]\r\n]|\\[[\]\\]){1,499}\]:[ \t]*(?:<[^<>\\\r\n]*>|[^\s<()\\\x00-\x1f\x7f][^\s()\\\x00-\x1f\x7f]*)(?:[ \t]+"[^"\\\r\n]*")?[ \t]*(?=[\r\n]|$)/y;
 
 /** definitionsToTheEnd's last answer: the lines from `from` to `to` (a line's start) all hold definitions on their own, ending as it says. */
 interface DefinitionRuns {
@@ -173,28 +177,36 @@ interface DefinitionRuns {
 }
 
 /**
- * Whether the lines from `at` (a line's start) to the next blank line, the text's end or a line
- * opening a footnote definition are each a link reference definition on its own
+ * Whether the line at `at` (a line's start) and each below it to the next blank line, the text's
+ * end or a line opening a footnote definition are each a link reference definition on its own
  * (DEFINITION_ON_ITS_LINE, with a label that is not all white space). Remembered in `runs`, so
- * the lines of a run are read once, not once per piece that ends inside it.
+ * the lines of a run are read once, not once per piece that ends inside it, also when the
+ * questions walk up the run (a piece's blocks are tried from its last).
  */
 function definitionsToTheEnd(text: string, at: number, runs: DefinitionRuns): boolean {
   if (at >= runs.from && at < runs.to) return runs.ok;
   let line = at;
   let ok = false;
   for (;;) {
-    let k = line;
-    while (k < text.length && isBlankChar(text.charCodeAt(k))) k += 1;
-    const past = pastLineEnding(text, k);
-    // a blank line or the text's end closes the content
-    if (k >= text.length || past >= 0) {
-      ok = true;
+    // the lines below were read before: their answer holds from here
+    if (line > at && line === runs.from && runs.to > runs.from) {
+      ok = runs.ok;
+      line = runs.to;
       break;
     }
-    FOOTNOTE_OPENING.lastIndex = line;
-    if (FOOTNOTE_OPENING.test(text)) {
-      ok = true;
-      break;
+    if (line > at) {
+      let k = line;
+      while (k < text.length && isBlankChar(text.charCodeAt(k))) k += 1;
+      // a blank line or the text's end closes the content
+      if (k >= text.length || pastLineEnding(text, k) >= 0) {
+        ok = true;
+        break;
+      }
+      FOOTNOTE_OPENING.lastIndex = line;
+      if (FOOTNOTE_OPENING.test(text)) {
+        ok = true;
+        break;
+      }
     }
     DEFINITION_ON_ITS_LINE.lastIndex = line;
     const m = DEFINITION_ON_ITS_LINE.exec(text);
