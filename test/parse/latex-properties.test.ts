@@ -93,7 +93,10 @@ function readTimes(a: string, b: string): [number, number] {
 describe('LaTeX reader cost', () => {
   // Shapes that would make a naive reader rescan the text: openings that never close, deep
   // groups, a long table. Reading twice the text must take less than 3× as long (about 2 when
-  // linear, about 4 when quadratic).
+  // linear, about 4 when quadratic), in one of three measurements: a linear reader reads 2.3–2.5×
+  // here, as past V8's young generation each line of a larger text costs more (many comments:
+  // 0.33 µs a line at 10,000 lines, 0.55 at 160,000; flat with a 64 MB young generation), and
+  // one loaded full run measured 3.29 once. A quadratic reader is over 3 in every measurement.
   const shapes: Array<[string, (n: number) => string]> = [
     ['unclosed \\( in one paragraph', (n) => 'a \\( t(28) = 2.10 '.repeat(n)],
     ['unclosed \\[ across paragraphs', (n) => 'a \\[ t(28) = 2.10\n\n'.repeat(n)],
@@ -109,7 +112,8 @@ describe('LaTeX reader cost', () => {
     it(name, () => {
       parseDocument('warm.tex', make(500));
       const n = 40_000;
-      const [small, large] = readTimes(make(n), make(2 * n));
+      let [small, large] = readTimes(make(n), make(2 * n));
+      for (let attempt = 1; attempt < 3 && large / small >= 3; attempt += 1) [small, large] = readTimes(make(n), make(2 * n));
       expect(large / small, `${name}: ${small.toFixed(3)} s at ${n}, ${large.toFixed(3)} s at ${2 * n}`).toBeLessThan(3);
     });
   }
