@@ -109,7 +109,7 @@ export function cutAt(text: string, end: number, trailing: boolean): { end: numb
  * and the next line opens with `[` (definitionCut settles it by the block that ends there).
  * `next` is where that line starts; undefined otherwise.
  */
-export function bracketLineAt(text: string, end: number): { end: number; next: number } | undefined {
+function bracketLineAt(text: string, end: number): { end: number; next: number } | undefined {
   const at = pastLineEnding(text, end);
   return at >= 0 && text.charCodeAt(at) === 91 ? { end, next: at } : undefined;
 }
@@ -235,15 +235,16 @@ const OPEN_TO_LINE_END = new Set(['code', 'html', 'math']);
 
 /**
  * The first end of a line at or after `from` where a piece may end, with no space or tab before
- * its line ending (cutAt, or bracketLineAt inside a run of definitions), or undefined when there
- * is none.
+ * its line ending (cutAt; and, in a text that may define labels, bracketLineAt, inside a run of
+ * definitions), or undefined when there is none. Without definitions no piece can end at a
+ * bracket line, so such a text is not cut there only to be read again from an earlier block.
  */
-export function nextCut(text: string, from: number): { end: number; next: number } | undefined {
+export function nextCut(text: string, from: number, definitions = false): { end: number; next: number } | undefined {
   for (let k = from; k < text.length; k += 1) {
     const c = text.charCodeAt(k);
     if (c !== 10 && c !== 13) continue;
     const before = k > 0 ? text.charCodeAt(k - 1) : 10;
-    const cut = isBlankChar(before) || before === 10 || before === 13 ? undefined : (cutAt(text, k, false) ?? bracketLineAt(text, k));
+    const cut = isBlankChar(before) || before === 10 || before === 13 ? undefined : (cutAt(text, k, false) ?? (definitions ? bracketLineAt(text, k) : undefined));
     if (cut) return cut;
     if (c === 13 && text.charCodeAt(k + 1) === 10) k += 1;
   }
@@ -289,25 +290,30 @@ function movePlaces(nodes: readonly RootContent[], offset: number, lines: number
  * front-matter rules.
  */
 export function parseInPieces(parser: Parser, text: string, pieceChars = PIECE_CHARS, frontMatter = true): Root {
+  const whole = () => parser.parse(text) as Root;
   // micromark drops a byte-order mark that opens the text and counts offsets without it
-  if (text.length < 2 * pieceChars || text.charCodeAt(0) === 0xfeff) return parser.parse(text) as Root;
+  if (text.length < 2 * pieceChars || text.charCodeAt(0) === 0xfeff) return whole();
+  /** The text in pieces, each parsed with `labels` defined in it when given (a text that may define labels). */
+  const pieces = (labels?: LabelSeed) =>
+    inPieces((piece) => (labels ? withDefinedLabels(labels, () => parser.parse(piece)) : parser.parse(piece)) as Root, text, pieceChars, frontMatter, labels !== undefined);
   // no definition without `]:`: no label to share between pieces
-  if (!text.includes(']:')) return inPieces((piece) => parser.parse(piece) as Root, text, pieceChars, frontMatter) ?? (parser.parse(text) as Root);
+  if (!text.includes(']:')) return pieces() ?? whole();
   // each piece holds the labels the whole text defines (seeded): first those a look at its lines
   // finds, then, where the definitions in the tree are others, those
   const guess = guessLabels(text);
-  const first = inPieces((piece) => withDefinedLabels(guess, () => parser.parse(piece) as Root), text, pieceChars, frontMatter);
+  const first = pieces(guess);
   const defined = first && definedLabels(first.children, text);
-  if (first === undefined || defined === undefined) return parser.parse(text) as Root;
+  if (first === undefined || defined === undefined) return whole();
   if (sameLabels(defined, guess)) return first;
-  return inPieces((piece) => withDefinedLabels(defined, () => parser.parse(piece) as Root), text, pieceChars, frontMatter) ?? (parser.parse(text) as Root);
+  return pieces(defined) ?? whole();
 }
 
 /**
  * parseInPieces's pieces, each parsed by `parse`; undefined when the text must be parsed whole
- * (front matter that no piece may end inside).
+ * (front matter that no piece may end inside). `definitions`: the text may define labels, so
+ * pieces may also end inside runs of definitions (definitionCut).
  */
-function inPieces(parse: (piece: string) => Root, text: string, pieceChars: number, frontMatter: boolean): Root | undefined {
+function inPieces(parse: (piece: string) => Root, text: string, pieceChars: number, frontMatter: boolean, definitions: boolean): Root | undefined {
   const children: RootContent[] = [];
   const runs: DefinitionRuns = { from: 0, to: 0, ok: false };
   let start = 0;
@@ -324,7 +330,7 @@ function inPieces(parse: (piece: string) => Root, text: string, pieceChars: numb
   // the length tried for the next piece: doubled after a piece whose blocks give no place to end
   let span = pieceChars;
   for (;;) {
-    const cut = text.length - start >= span + pieceChars ? nextCut(text, Math.max(start + span, start === 0 ? firstFrom : 0)) : undefined;
+    const cut = text.length - start >= span + pieceChars ? nextCut(text, Math.max(start + span, start === 0 ? firstFrom : 0), definitions) : undefined;
     const piece = cut ? text.slice(start, cut.end) : text.slice(start);
     const tree = parse(piece);
     // front matter not read in the first piece: the whole text is parsed as one
