@@ -26,6 +26,12 @@ const MULTIPLICITY = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidak|Hochberg|Benjam
 const TREND = /(?<![\p{L}])(trend(?:ed)? (?:towards?|to) (?:significance|be significant)|a trend|marginal(?:ly)? (?:significant|significance)|approach(?:ed|ing) (?:statistical )?significance|borderline significan\p{L}*|nearly significant|almost significant|tended to)(?![\p{L}])/giu;
 const EXCLUSION = /(?<![\p{L}])(exclu\p{L}+|dropped out|drop-?outs?|withdr[ae]w\p{L}*|lost to follow-?up|missing data|incomplete data|did not complete|attrition|removed from (?:the )?analys[ie]s)(?![\p{L}])/giu;
 const TEST_NAME = /(?<![\p{L}])((?:paired|unpaired|independent|one[- ]sample|single[- ]sample|two[- ]sample|dependent|related|repeated[- ]measures|within[- ]subjects?|between[- ]subjects?)(?:[- ]samples?)? t[- ]tests?|Welch['’]?s?(?: t)?(?:[- ]tests?)?|(?:paired )?Student(?:['’]s)? t(?:[- ]?tests?)?|t[- ]tests? for (?:paired|independent|dependent|related) samples|unequal[- ]variances? t[- ]tests?|t[- ]tests? (?:assuming|with) unequal variances)(?![\p{L}])/giu;
+/**
+ * Words naming an analysis of variance with repeated measures, or the sphericity correction that
+ * goes with one: an F of such an analysis may carry a corrected p beside its uncorrected dfs.
+ * A "mixed model" is not one of them (its F has dfs of its own).
+ */
+const REPEATED_MEASURES = /(?<![\p{L}])(repeated[- ]measures?(?: (?:analys[ie]s of variance|ANOVAs?|MANOVAs?))|(?:ANOVAs?|analys[ie]s of variance) (?:with|for|on) repeated measures|RM[- ]?ANOVAs?|within[- ]subjects?(?: (?:analys[ie]s of variance|ANOVAs?|factors?))|mixed(?:[- ]design)? ANOVAs?|split[- ]plot ANOVAs?|sphericity|Greenhouse[-–‐ ]Geisser|Huynh[-–‐ ]Feldt|Mauchly['’]?s?(?: test)?)(?![\p{L}])/giu;
 /** The header R prints above a t-test's output. */
 const R_HEADER = /(?<![\p{L}-])(Welch Two Sample t-test|Two Sample t-test|Paired t-test|One Sample t-test)(?![\p{L}-])/gu;
 
@@ -37,6 +43,7 @@ const MAY: Record<Mention['kind'], RegExp> = {
   trend: /trend|marginal|approach|borderline|nearly|almost|tended/i,
   exclusion: /exclu|drop|withdr|lost to|missing|incomplete|did not complete|attrition|removed/i,
   'test-name': /t[- ]test|Welch|Student t|Student['’]s t/i,
+  'repeated-measures': /ANOVA|analys[ie]s of variance|subjects? factor|spheric|Greenhouse|Huynh|Mauchly/i,
 };
 
 /** Guideline-relevant words in one prose segment. */
@@ -54,7 +61,7 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
     if (m[1] === 'R' && !m[2] && !/(?<![\p{L}])R (?:software|package|version|Core|\(R Core|statistical|environment)|in R(?![\p{L}])|using R(?![\p{L}])|R \d/u.test(context)) continue;
     add('software', m, m[2]);
   }
-  for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion']] as const) {
+  for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion'], [REPEATED_MEASURES, 'repeated-measures']] as const) {
     if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) add(kind, m);
   }
   if (MAY.assumption.test(text)) for (const m of assumptionChecks(text, starts)) add('assumption', m);

@@ -471,7 +471,7 @@ export interface PowerStatement {
  * what a test assumes ("Welch's test does not assume equal variances").
  */
 export interface Mention {
-  kind: 'software' | 'assumption' | 'multiplicity' | 'trend' | 'exclusion' | 'test-name';
+  kind: 'software' | 'assumption' | 'multiplicity' | 'trend' | 'exclusion' | 'test-name' | 'repeated-measures';
   segment: number;
   block: number;
   sentence: number;

@@ -1,4 +1,4 @@
-import type { ContextStatement, EstimateReport, Extraction, IntegerStatement, OtherStatistic, ReportedNumber, Sidedness, TableDimensions, TTestReport } from '../extract/types.js';
+import type { ContextStatement, EstimateReport, Extraction, IntegerStatement, Mention, OtherStatistic, ReportedNumber, Sidedness, TableDimensions, TTestReport } from '../extract/types.js';
 import type { Linked } from './descriptives.js';
 import type { Directive, Span } from '../parse/types.js';
 import type { DocumentSettings, LinkedDocument, LinkedResult, LinkedStatistic, Setting } from './types.js';
@@ -126,6 +126,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const dimensionsOf = tableDimensionsJoiner(extraction);
   const groupsOf = fGroupsJoiner(extraction);
   const coefficientOf = coefficientBeforeJoiner(extraction);
+  const repeatedMeasuresOf = repeatedMeasuresJoiner(extraction);
   for (const o of extraction.otherStatistics) {
     if (o.kind !== 'F' && o.kind !== 'chi-square' && o.kind !== 'correlation' && o.kind !== 'z') continue;
     const report = o as LinkedStatistic['report'];
@@ -135,6 +136,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     const dimensions = o.kind === 'chi-square' ? dimensionsOf(o) : undefined;
     const groups = o.kind === 'F' ? groupsOf(o) : undefined;
     const coefficient = o.kind === 'z' ? coefficientOf(o) : undefined;
+    const repeatedMeasures = o.kind === 'F' ? repeatedMeasuresOf(o) : undefined;
     statistics.push({
       id: `stat:${o.segment}:${o.span.start}`,
       report,
@@ -145,6 +147,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       ...(dimensions ? { dimensions } : {}),
       ...(groups ? { groups } : {}),
       ...(coefficient ? { coefficient } : {}),
+      ...(repeatedMeasures ? { repeatedMeasures } : {}),
     });
   }
   return {
@@ -162,6 +165,32 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     statements: extraction.statements,
     documentAlpha,
     documentSidedness,
+  };
+}
+
+/**
+ * The words naming a repeated-measures analysis or a sphericity correction nearest to a
+ * statistic: the first in its sentence, else in its paragraph, else in the text. Such words
+ * anywhere in a text make any F of it possibly corrected: they only ever make a finding less
+ * certain, never more, so they are read at the widest scope they could have.
+ */
+function repeatedMeasuresJoiner(extraction: Extraction): (o: OtherStatistic) => LinkedStatistic['repeatedMeasures'] {
+  const said = extraction.mentions.filter((m) => m.kind === 'repeated-measures');
+  const first = said[0];
+  if (!first) return () => undefined;
+  const bySentence = new Map<string, Mention>();
+  const bySegment = new Map<number, Mention>();
+  for (const m of said) {
+    const k = `${m.segment}:${m.sentence}`;
+    if (!bySentence.has(k)) bySentence.set(k, m);
+    if (!bySegment.has(m.segment)) bySegment.set(m.segment, m);
+  }
+  return (o) => {
+    const inSentence = bySentence.get(`${o.segment}:${o.sentence}`);
+    if (inSentence) return { mention: inSentence, basis: 'sentence' };
+    const inParagraph = bySegment.get(o.segment);
+    if (inParagraph) return { mention: inParagraph, basis: 'paragraph' };
+    return { mention: first, basis: 'document' };
   };
 }
 

@@ -1,4 +1,4 @@
-import type { ContextStatement, EstimateReport, Extraction, GroupSummary, IntegerStatement, OtherStatistic, PWithoutT, ReportedNumber, Sidedness, SpreadKind, TableDimensions, TTestReport } from '../extract/types.js';
+import type { ContextStatement, EstimateReport, Extraction, GroupSummary, IntegerStatement, Mention, OtherStatistic, PWithoutT, ReportedNumber, Sidedness, SpreadKind, TableDimensions, TTestReport } from '../extract/types.js';
 import type { Directive, ReadNote, Span } from '../parse/types.js';
 import type { DescriptiveLink, Linked, ResultContext } from './descriptives.js';
 import type { TestName } from './testNames.js';
@@ -61,6 +61,13 @@ export interface LinkedStatistic {
   groups?: DescriptiveLink;
   /** For χ²: the size of the contingency table its sentence (or else its paragraph) states, where nothing else could claim it. */
   dimensions?: Linked<TableDimensions>;
+  /**
+   * For F: the nearest words naming an analysis with repeated measures or a sphericity
+   * correction ("RM ANOVA", "Greenhouse–Geisser"): in its sentence, else its paragraph, else
+   * anywhere in the text. Such an F may carry a corrected p beside its uncorrected dfs, so a p
+   * that fits only so cannot be called wrong with certainty.
+   */
+  repeatedMeasures?: { mention: Mention; basis: 'sentence' | 'paragraph' | 'document' };
 }
 
 export interface DocumentSettings {

@@ -1,7 +1,7 @@
 import type { ReportedNumber } from '../extract/types.js';
 import type { LinkedStatistic } from '../link/types.js';
 import {
-  distanceBetween, meets, sideOfAlpha, twoSidedPRangeR, twoSidedPRangeZ, upperPRangeChiSquare, upperPRangeF, type Interval, type PInterval,
+  distanceBetween, meets, sideOfAlpha, twoSidedPRangeR, twoSidedPRangeZ, upperPRangeChiSquare, upperPRangeF, upperPRangeFSphericity, type Interval, type PInterval,
 } from '../stats/index.js';
 import { fill, showBound, showInterval, showLastDigitUnits, showNumber } from './format.js';
 import { dfInterval, numberInterval, pInterval, pLastDigit } from './intervals.js';
@@ -30,6 +30,13 @@ export interface StatisticPEvaluation {
   recomputed: Recomputed;
   gap: Gap;
   inputs: string[];
+  /**
+   * For an F whose p no reading reproduces, in a text that names a repeated-measures analysis
+   * (LinkedStatistic.repeatedMeasures), with whole dfs, df1 >= 2 and df2 a multiple of df1 (as a
+   * within-subject effect's error df is): the p range under a sphericity correction of any size,
+   * ε from 1/df1 to 1 on both dfs, and whether it holds the reported p.
+   */
+  sphericity?: { range: Interval; fits: boolean; epsilonLow: number };
 }
 
 /** The symbol a reader knows the statistic by. */
@@ -93,6 +100,8 @@ function evaluateStatisticPOnce(linked: LinkedStatistic): StatisticPEvaluation |
   const symbol = statisticName(s.kind);
   const readings: Array<{ name: string; range: Interval }> = [];
   let inputs: string[];
+  // an F's box with whole dfs, for the sphericity-corrected reading below
+  let wholeF: { lo: number; hi: number; df1: number; df2: number } | undefined;
   if (s.kind === 'F') {
     const [df1, df2] = s.dfs ?? [];
     if (!df1 || !df2 || value.value < 0) return undefined;
@@ -101,6 +110,7 @@ function evaluateStatisticPOnce(linked: LinkedStatistic): StatisticPEvaluation |
     if (!(a0 > 0 && b0 > 0)) return undefined;
     const [lo, hi] = valueInterval(s, value, 0, Infinity);
     readings.push({ name: 'p (upper tail of F)', range: upperPRangeF(lo, hi, a0, a1, b0, b1) });
+    if (a0 === a1 && b0 === b1 && Number.isInteger(a0) && Number.isInteger(b0)) wholeF = { lo, hi, df1: a0, df2: b0 };
     inputs = [describeValue(symbol, s, value, lo, hi), describeDfs('df1', df1), describeDfs('df2', df2)];
   } else if (s.kind === 'chi-square') {
     const df = s.dfs?.[0];
@@ -157,7 +167,26 @@ function evaluateStatisticPOnce(linked: LinkedStatistic): StatisticPEvaluation |
   const unit = p.op === '=' ? pLastDigit(p) : undefined;
   const point = p.number ? distanceBetween(nearest.range, p.number.value, p.number.value) : absolute;
   const gap: Gap = unit ? { absolute: point, lastDigitUnits: point / unit, roundingAllowance: unit / 2 } : { absolute };
-  return { readings: judged, fits, nearest, reported, reportedSide, recomputedSide, decisionFlips, recomputed, gap, inputs };
+  const sphericity = !fits && linked.repeatedMeasures && wholeF ? sphericityReading(wholeF, reported) : undefined;
+  return { readings: judged, fits, nearest, reported, reportedSide, recomputedSide, decisionFlips, recomputed, gap, inputs, ...(sphericity ? { sphericity } : {}) };
+}
+
+/**
+ * The p of an F under a sphericity correction that was not printed: only for an effect that can
+ * have one (df1 >= 2; with two levels ε is 1) and whose error df is a multiple of df1, as that of
+ * an effect within subjects is ((k − 1)(n − 1) in a one-way design; common practice, no source).
+ */
+function sphericityReading(f: { lo: number; hi: number; df1: number; df2: number }, reported: PInterval): StatisticPEvaluation['sphericity'] {
+  if (f.df1 < 2 || f.df2 % f.df1 !== 0) return undefined;
+  const range = upperPRangeFSphericity(f.lo, f.hi, f.df1, f.df2);
+  return { range, fits: meets(range, reported), epsilonLow: 1 / f.df1 };
+}
+
+/** Why a p that fits only a sphericity-corrected reading is not called wrong: the words that name such an analysis, and the corrected range. */
+function sphericityDoubt(linked: LinkedStatistic, sphericity: NonNullable<StatisticPEvaluation['sphericity']>): string {
+  const rm = linked.repeatedMeasures;
+  const where = rm?.basis === 'sentence' ? 'in its sentence' : rm?.basis === 'paragraph' ? 'in its paragraph' : 'elsewhere in the text';
+  return `a repeated-measures analysis is named ${where}, “${rm?.mention.printed ?? ''}”, and with a sphericity correction of both dfs (ε from ${showNumber(sphericity.epsilonLow)} to 1) the p would be ${showInterval(sphericity.range.low, sphericity.range.high)}, which holds the reported p: the p may be corrected while its dfs are printed uncorrected`;
 }
 
 /** Message placeholders shared by the rules that compare a p with its F, χ², r or z. */
@@ -197,6 +226,8 @@ export function statisticPFindings(
     const e = evaluateStatisticP(linked);
     if (!e || e.fits || e.decisionFlips !== flips) continue;
     const s = linked.report;
+    const doubts = e.sphericity?.fits ? [...linked.doubts, sphericityDoubt(linked, e.sphericity)] : linked.doubts;
+    const named = e.sphericity?.fits && linked.repeatedMeasures && linked.repeatedMeasures.basis !== 'sentence' ? linked.repeatedMeasures.mention : undefined;
     out.push({
       messageId: 'mismatch',
       span: s.reportSpan ?? s.span,
@@ -208,7 +239,8 @@ export function statisticPFindings(
       check,
       resultId: linked.id,
       block: s.block,
-      ...(linked.doubts.length > 0 ? { uncertain: linked.doubts } : {}),
+      ...(named ? { related: [{ span: named.span, message: 'a repeated-measures analysis named here' }] } : {}),
+      ...(doubts.length > 0 ? { uncertain: doubts } : {}),
     });
   }
   return out;

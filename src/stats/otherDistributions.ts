@@ -77,6 +77,63 @@ export function upperPRangeF(fLow: number, fHigh: number, df1Low: number, df1Hig
 }
 
 /**
+ * Range of the upper-tail p of F under a sphericity correction whose factor is not printed: both
+ * dfs multiplied by one ε from its lower bound 1/df1 to 1 (Greenhouse & Geisser, 1959, take
+ * ε·df1 and ε·df2, with ε ≥ 1/(k − 1) = 1/df1; Huynh–Feldt's ε is used the same way, capped at
+ * 1), and f over [fLow, fHigh]. p falls as f grows, so the lower end is taken at fHigh and the
+ * upper at fLow. Over ε, p is smooth but not monotone (for f a little above 1 it rises and then
+ * falls), so each end is found on a grid of ε and refined by a golden-section search around the
+ * best grid point. `df1` and `df2` are the uncorrected, whole dfs; df1 >= 2 (with df1 = 1, ε is 1).
+ */
+export function upperPRangeFSphericity(fLow: number, fHigh: number, df1: number, df2: number): Interval {
+  const eps0 = 1 / df1;
+  const at = (f: number) => (e: number) => upperPFromF(f, e * df1, e * df2);
+  const low = extremeOverEpsilon(at(fHigh), eps0, 1, 1);
+  const high = fLow <= 0 ? 1 : extremeOverEpsilon(at(fLow), eps0, 1, -1);
+  return { low: Math.max(0, low), high: Math.min(1, high) };
+}
+
+/** The smallest (sign 1) or largest (sign −1) value of a smooth g over [a, b]: a grid, then a golden-section search beside its best point. */
+function extremeOverEpsilon(g: (e: number) => number, a: number, b: number, sign: 1 | -1): number {
+  const steps = 64;
+  let best = 0;
+  let bestValue = Infinity;
+  for (let i = 0; i <= steps; i += 1) {
+    const v = sign * g(a + ((b - a) * i) / steps);
+    if (v < bestValue) {
+      bestValue = v;
+      best = i;
+    }
+  }
+  if (best > 0 && best < steps) {
+    let lo = a + ((b - a) * (best - 1)) / steps;
+    let hi = a + ((b - a) * (best + 1)) / steps;
+    const r = (Math.sqrt(5) - 1) / 2;
+    let x1 = hi - r * (hi - lo);
+    let x2 = lo + r * (hi - lo);
+    let f1 = sign * g(x1);
+    let f2 = sign * g(x2);
+    for (let k = 0; k < 60 && hi - lo > 1e-12; k += 1) {
+      if (f1 <= f2) {
+        hi = x2;
+        x2 = x1;
+        f2 = f1;
+        x1 = hi - r * (hi - lo);
+        f1 = sign * g(x1);
+      } else {
+        lo = x1;
+        x1 = x2;
+        f1 = f2;
+        x2 = lo + r * (hi - lo);
+        f2 = sign * g(x2);
+      }
+      bestValue = Math.min(bestValue, f1, f2);
+    }
+  }
+  return sign * bestValue;
+}
+
+/**
  * Range of the upper-tail p of χ² over x in [xLow, xHigh] and df in [dfLow, dfHigh]: p falls
  * as x grows and rises as df grows (χ²(k) is a sum of k squares, stochastically increasing in
  * k; common practice, no source), so the extremes are corners.

@@ -39,3 +39,68 @@ describe('a gap just over half a unit reads as more than the half unit rounding 
     expect(showLastDigitUnits(12.34)).toBe('12.3');
   });
 });
+
+describe('an F of a repeated-measures analysis whose p fits only a sphericity correction (invented cases)', () => {
+  // Reference values: scipy.stats.f.sf (Debian python3-scipy), the corrected range over a grid
+  // of 4,001 values of ε from 1/df1 to 1 on both dfs (as scripts/make_sphericity_reference.py).
+  // F(3, 45) = 0.62 (0.615 to 0.625): uncorrected p .6026 to .6089; corrected .4415 to .6089.
+  // F(3, 44) = 0.62: uncorrected .6027 to .6089. F(1, 15) = 0.62: .4415 to .4451.
+  // F(2, 38) = 3.41: uncorrected .04326 to .04363; corrected .04326 to .08064.
+  const named = 'Response times across the four cue conditions were compared with a repeated-measures ANOVA.';
+  const levels = (markdown: string, rule: string) =>
+    checkSource('rm.md', markdown)
+      .findings.filter((f) => f.ruleId === rule)
+      .map((f) => f.level);
+  const only = (markdown: string, rule: string) => {
+    const found = checkSource('rm.md', markdown).findings.filter((f) => f.ruleId === rule);
+    expect(found).toHaveLength(1);
+    return found[0]!;
+  };
+
+  it('is a note saying what could not be checked, with the corrected range, when the text names such an analysis', () => {
+    const f = only(`${named}\n\nThe cue had no effect, F(3, 45) = 0.62, p = .52.`, 'p-follows-from-f');
+    expect(f.level).toBe('note');
+    expect(f.message).toMatch(/^Not checked with certainty \(a repeated-measures analysis is named elsewhere in the text, “repeated-measures ANOVA”, and with a sphericity correction of both dfs \(ε from 0\.3333 to 1\) the p would be 0\.4415 to 0\.6089, which holds the reported p/);
+    // the uncorrected recomputation is still said in full
+    expect(f.message).toContain('df1 = 3, df2 = 45: 0.6026 to 0.6089');
+    // the words that name the analysis are a place of their own
+    expect(f.related?.map((r) => r.message)).toEqual(['a repeated-measures analysis named here']);
+    expect(f.related?.[0]?.start.line).toBe(1);
+  });
+  it('names the sentence when the words are in it, without a second place', () => {
+    const f = only('A repeated-measures ANOVA showed no effect of cue, F(3, 45) = 0.62, p = .52.', 'p-follows-from-f');
+    expect(f.level).toBe('note');
+    expect(f.message).toContain('is named in its sentence, “repeated-measures ANOVA”');
+    expect(f.related).toBeUndefined();
+    const g = only('We ran a repeated-measures ANOVA. It showed no effect of cue, F(3, 45) = 0.62, p = .52.', 'p-follows-from-f');
+    expect(g.message).toContain('is named in its paragraph, “repeated-measures ANOVA”');
+    expect(g.related?.[0]?.start.column).toBe(10);
+  });
+  it('reads the names of the corrections and other names of such an analysis', () => {
+    for (const words of ['Greenhouse–Geisser corrections were applied where sphericity was violated.', 'We ran RM ANOVAs on each measure.', 'Cue was a within-subjects factor.', 'An ANOVA with repeated measures on cue was run.', "Mauchly's test was run on each effect."]) {
+      expect(levels(`${words}\n\nThe cue had no effect, F(3, 45) = 0.62, p = .52.`, 'p-follows-from-f')).toEqual(['note']);
+    }
+  });
+  it('stays a warning where nothing names such an analysis (repeated measures alone, or a mixed model)', () => {
+    for (const words of ['', 'Each participant was measured twice, in repeated measures.', 'A linear mixed model with random intercepts was fitted.', 'The design was within-subject.']) {
+      expect(levels(`${words}\n\nThe cue had no effect, F(3, 45) = 0.62, p = .52.`, 'p-follows-from-f')).toEqual(['warning']);
+    }
+  });
+  it('stays a warning where no correction reproduces the p', () => {
+    expect(levels(`${named}\n\nThe cue had no effect, F(3, 45) = 0.62, p = .32.`, 'p-follows-from-f')).toEqual(['warning']);
+  });
+  it('stays a warning for an effect that cannot have a correction: df1 = 1, or an error df that is not a multiple of df1', () => {
+    expect(levels(`${named}\n\nThe cue had no effect, F(1, 15) = 0.62, p = .52.`, 'p-follows-from-f')).toEqual(['warning']);
+    expect(levels(`${named}\n\nThe cue had no effect, F(3, 44) = 0.62, p = .52.`, 'p-follows-from-f')).toEqual(['warning']);
+  });
+  it('makes a flipped significance call a note too (significance-follows-from-statistic)', () => {
+    const markdown = `${named}\n\nThe cue effect was not significant, F(2, 38) = 3.41, p = .06.`;
+    expect(levels(markdown, 'significance-follows-from-statistic')).toEqual(['note']);
+    expect(levels(markdown.replace(named, ''), 'significance-follows-from-statistic')).toEqual(['error']);
+  });
+  it('leaves the JSON record of the statistic as it was: its readings are the uncorrected ones', () => {
+    const report = checkSource('rm.md', `${named}\n\nThe cue had no effect, F(3, 45) = 0.62, p = .52.`);
+    expect(report.statistics?.[0]?.recomputed?.readings.map((r) => r.name)).toEqual(['p (upper tail of F)']);
+    expect(report.statistics?.[0]?.recomputed?.fits).toBe(false);
+  });
+});

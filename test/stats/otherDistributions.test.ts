@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import {
-  tFromR, twoSidedPFromR, twoSidedPFromZ, twoSidedPRangeR, twoSidedPRangeZ, upperPFromChiSquare, upperPFromF, upperPRangeChiSquare, upperPRangeF,
+  tFromR, twoSidedPFromR, twoSidedPFromZ, twoSidedPRangeR, twoSidedPRangeZ, upperPFromChiSquare, upperPFromF, upperPRangeChiSquare, upperPRangeF, upperPRangeFSphericity,
 } from '../../src/stats/index.js';
 
 // Reference values: mpmath at 60 digits, written by scripts/make_other_reference.py (scipy beside them).
@@ -86,5 +86,46 @@ describe('ranges over rounding boxes hold every point of the box', () => {
     expect(r.low).toBeCloseTo(twoSidedPFromR(0.325, 48), 15);
     expect(r.high).toBeCloseTo(twoSidedPFromR(0.315, 48), 15);
     expect(twoSidedPRangeZ(-0.005, 0.005).high).toBe(1);
+  });
+});
+
+// Reference: scripts/make_sphericity_reference.py (scipy.stats.f.sf over a 4,001-point ε grid,
+// refined with scipy.optimize.minimize_scalar; p at the ε found by mpmath betainc, 50 digits).
+const sphericity = JSON.parse(readFileSync(new URL('../../fixtures/reference/sphericity-ranges.json', import.meta.url), 'utf8')) as {
+  cases: Array<{ fLow: string; fHigh: string; df1: number; df2: number; low: string; high: string; epsilonAtLow: number; epsilonAtHigh: number }>;
+};
+
+describe('p of F with an unprinted sphericity correction (ε from 1/df1 to 1 on both dfs)', () => {
+  it('the range over ε and the rounding of F matches scipy and mpmath (fixtures/reference/sphericity-ranges.json)', () => {
+    expect(sphericity.cases.length).toBe(200);
+    let worst = 0;
+    for (const c of sphericity.cases) {
+      const r = upperPRangeFSphericity(Number(c.fLow), Number(c.fHigh), c.df1, c.df2);
+      worst = Math.max(worst, relErr(r.low, Number(c.low)), relErr(r.high, Number(c.high)));
+    }
+    expect(worst).toBeLessThan(1e-9);
+  });
+  it('holds the uncorrected p and the p at the lower bound of ε (both ends of the correction)', () => {
+    for (const c of sphericity.cases) {
+      const r = upperPRangeFSphericity(Number(c.fLow), Number(c.fHigh), c.df1, c.df2);
+      for (const f of [Number(c.fLow), Number(c.fHigh)]) {
+        for (const e of [1 / c.df1, 1]) {
+          const p = upperPFromF(f, e * c.df1, e * c.df2);
+          expect(p).toBeGreaterThanOrEqual(r.low * (1 - 1e-12));
+          expect(p).toBeLessThanOrEqual(r.high * (1 + 1e-12));
+        }
+      }
+    }
+  });
+  it('finds an inner extreme where p first rises and then falls over ε', () => {
+    // the reference puts the largest p at an ε strictly inside (1/df1, 1) for some cases
+    const inner = sphericity.cases.filter((c) => c.epsilonAtHigh > 1 / c.df1 + 1e-6 && c.epsilonAtHigh < 1 - 1e-6);
+    expect(inner.length).toBeGreaterThan(5);
+    for (const c of inner) {
+      const r = upperPRangeFSphericity(Number(c.fLow), Number(c.fHigh), c.df1, c.df2);
+      const ends = Math.max(upperPFromF(Number(c.fLow), 1, c.df2 / c.df1), upperPFromF(Number(c.fLow), c.df1, c.df2));
+      expect(Number(c.high)).toBeGreaterThan(ends);
+      expect(relErr(r.high, Number(c.high))).toBeLessThan(1e-9);
+    }
   });
 });
