@@ -1,4 +1,4 @@
-import { describeDf, describeT, dfInterval, fill, pInterval, showInterval, tInterval, type AdjustMethod, type ContextStatement, type LinkedResult, type ReportedP, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { describeResultDf, describeT, fill, pInterval, resultDfInterval, showInterval, tInterval, type AdjustMethod, type ContextStatement, type LinkedResult, type ReportedP, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 import { bonferroniAdjusted, oneSidedPRange, sidakAdjusted, twoSidedPRange, type Interval } from '../src/stats/index.js';
 
 const messages = {
@@ -104,10 +104,10 @@ function unadjustedP(result: LinkedResult): { range: Interval; source: string } 
   }
   if (!r.df || r.tOp !== '=') return undefined;
   const [tl, th] = tInterval(r);
-  const [dl, dh] = dfInterval(r.df);
+  const [dl, dh] = resultDfInterval(result);
   if (!(dl > 0)) return undefined;
   const lo = tl <= 0 && th >= 0 ? 0 : Math.min(Math.abs(tl), Math.abs(th));
   const hi = Math.max(Math.abs(tl), Math.abs(th));
   const range = result.sidedness.value === 'one' && result.sidedness.basis !== 'equivalence-test' ? oneSidedPRange(lo, hi, dl, dh) : twoSidedPRange(lo, hi, dl, dh);
-  return { range, source: `recomputed from ${describeT(r)}, ${describeDf(r.df)}` };
+  return { range, source: `recomputed from ${describeT(r)}, ${describeResultDf(result)}` };
 }

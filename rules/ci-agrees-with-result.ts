@@ -1,4 +1,4 @@
-import { dfInterval, fill, linkDoubts, numberInterval, showBound, showInterval, showNumber, tInterval, type IntervalFigure, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { fill, linkDoubts, numberInterval, showBound, showInterval, showNumber, resultDfInterval, tInterval, type IntervalFigure, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 import { sideOfAlpha, twoSidedCriticalT, twoSidedPRange, type Box } from '../src/stats/index.js';
 
 const messages = {
@@ -91,8 +91,8 @@ function judge(result: LinkedResult, ci: LinkedResult['context']['intervals'][nu
   if (!r.df) return undefined;
   const midBox = midpointOf(lo, hi);
   const df = r.df.value;
-  const [dfLow, dfHigh] = dfInterval(r.df);
-  // a fractional (Welch) df was rounded: the critical value spans its interval
+  const [dfLow, dfHigh] = resultDfInterval(result);
+  // a fractional (Welch) df, or a whole one of a test named Welch's, was rounded: the critical value spans its interval
   const tCrit = twoSidedCriticalT(1 - ci.level, df);
   const tCritRange: Box = [twoSidedCriticalT(1 - ci.level, dfHigh), twoSidedCriticalT(1 - ci.level, dfLow)];
   const absEst: Box = estimate.box[0] <= 0 && estimate.box[1] >= 0 ? [0, Math.max(-estimate.box[0], estimate.box[1])] : [Math.min(Math.abs(estimate.box[0]), Math.abs(estimate.box[1])), Math.max(Math.abs(estimate.box[0]), Math.abs(estimate.box[1]))];

@@ -1,7 +1,7 @@
 import type { LinkedResult } from '../link/types.js';
 import { checkLog10PAgainstLog10T, checkLog10PAgainstT, checkPAgainstT, distanceBetween, sideOfAlpha, type Interval, type PConsistency, type PInterval } from '../stats/index.js';
 import { showInterval } from './format.js';
-import { describeDf, describeT, dfInterval, log10Of, numberLog10Interval, pInterval, pLastDigit, pLog10Interval, tInterval } from './intervals.js';
+import { describeResultDf, describeT, log10Of, numberLog10Interval, pInterval, pLastDigit, pLog10Interval, resultDfInterval, tInterval } from './intervals.js';
 import { oncePer } from './once.js';
 import type { Gap, Recomputed } from './types.js';
 
@@ -101,7 +101,7 @@ function evaluatePOnce(result: LinkedResult): PEvaluation | undefined {
   const n = r.p.kind === 'value' ? r.p.number : undefined;
   // values-are-possible speaks for a p above 1, a negative p (`-0` too) and a bound at or below 0
   if (n && (n.value > 1 || n.value < 0 || Object.is(n.value, -0) || (n.value === 0 && !n.beyondDouble && (r.p.op === '<' || r.p.op === '<=')))) return undefined;
-  const [dfLow, dfHigh] = dfInterval(r.df);
+  const [dfLow, dfHigh] = resultDfInterval(result);
   if (!(dfLow > 0) || Number.isNaN(dfHigh)) return undefined;
   // a df of ten digits or more (`t(12345678901)`, `t(1e400)`), or a p whose exponent no double
   // holds exactly, is not recomputed (no finding can rest on it; p-follows-from-t says so in a
@@ -144,7 +144,7 @@ function evaluatePOnce(result: LinkedResult): PEvaluation | undefined {
   const reportedSide = log10 ? sideOfAlpha(log10.reported.low, log10.reported.high, Math.log10(alpha), log10.reported.highOpen) : sideOfAlpha(reported.low, reported.high, alpha, reported.highOpen);
   const recomputedSide = logApplicable ? sideOfAlpha(logApplicable.low, logApplicable.high, Math.log10(alpha)) : sideOfAlpha(applicable.low, applicable.high, alpha);
   const decisionFlips = reportedSide !== 'straddles' && recomputedSide !== 'straddles' && reportedSide !== recomputedSide;
-  const inputs = [describeT(r), describeDf(r.df)];
+  const inputs = [describeT(r), describeResultDf(result)];
   const recomputed: Recomputed = {
     quantity: applicableName,
     low: applicable.low,

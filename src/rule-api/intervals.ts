@@ -1,4 +1,5 @@
 import type { ReportedNumber, ReportedP, TTestReport } from '../extract/types.js';
+import type { LinkedResult } from '../link/types.js';
 import { lastDigitUnit, roundingInterval, type PInterval } from '../stats/index.js';
 import { showBound, showNumber } from './format.js';
 
@@ -132,6 +133,30 @@ export function describeDf(df: ReportedNumber): string {
   const [lo, hi] = dfInterval(df);
   return lo === hi ? `df = ${df.printed}` : `df = ${df.printed} (read as ${showBound(lo, df.decimals, df.exponent)} to ${showBound(hi, df.decimals, df.exponent)})`;
 }
+
+/**
+ * A result's df as an interval of true values. A Welch df is a real number, so a whole df
+ * printed for a result its own words name Welch's test (`LinkedResult.testName`) was rounded:
+ * `t(5)` stands for 4.5 to 5.5 there, as `t(5.4)` stands for 5.35 to 5.45. Any other whole df is
+ * a count and exact (dfInterval).
+ */
+export function resultDfInterval(result: LinkedResult): [number, number] {
+  const df = result.report.df;
+  if (!df) return [NaN, NaN];
+  if (roundedWelchDf(result)) return [Math.max(df.value - 0.5, Number.MIN_VALUE), df.value + 0.5];
+  return dfInterval(df);
+}
+
+/** The df as resultDfInterval reads it, in words. */
+export function describeResultDf(result: LinkedResult): string {
+  const df = result.report.df;
+  if (!df) return '';
+  if (!roundedWelchDf(result)) return describeDf(df);
+  const [lo, hi] = resultDfInterval(result);
+  return `df = ${df.printed} (Welch's test, a df printed whole: read as ${showNumber(lo)} to ${showNumber(hi)})`;
+}
+
+const roundedWelchDf = (result: LinkedResult): boolean => result.report.df !== undefined && isWholeDf(result.report.df) && result.testName?.variant === 'welch';
 
 /** The unit of the last printed digit of a reported p, when it is an `=` value. */
 export function pLastDigit(p: ReportedP): number | undefined {

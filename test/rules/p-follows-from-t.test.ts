@@ -46,3 +46,24 @@ describe('the message shows the rounding interval actually used, to one digit pa
     expect(message("x, Welch's t(17.8) = 2.31, p = .04.")).toContain('df = 17.8 (read as 17.75 to 17.85)');
   });
 });
+
+describe("a whole df of a result named Welch's test is read as rounded (invented cases)", () => {
+  // scipy.stats.t.sf (Debian python3-scipy), two-tailed: t = 2.60 (2.595 to 2.605) gives
+  // .04796 to .04854 on df 5, and .04380 (t 2.605, df 5.5) to .05375 (t 2.595, df 4.5) over
+  // df 4.5 to 5.5. A Welch df is a real number (common practice, no source), so "t(5)" printed
+  // for a Welch test stands for 4.5 to 5.5.
+  const found = (markdown: string) => checkSource('w.md', markdown).findings.filter((f) => f.ruleId === 'p-follows-from-t');
+  it('accepts a p that a df within the rounding of a Welch df gives', () => {
+    expect(found("Because the variances differed, Welch's t-test was used: the groups differed, t(5) = 2.60, p = .045.")).toEqual([]);
+    expect(found('A Welch test gave t(5) = 2.60, p = .045.')).toEqual([]);
+  });
+  it('keeps the whole df exact where the result is not named Welch, or named Student', () => {
+    expect(found('The groups differed, t(5) = 2.60, p = .045.')).toHaveLength(1);
+    expect(found("A Student's t-test gave t(5) = 2.60, p = .045.")).toHaveLength(1);
+  });
+  it('still reports a p no df within the rounding gives, and says how the df was read', () => {
+    const [f] = found('A Welch test gave t(5) = 2.60, p = .07.');
+    expect(f?.level).toBe('warning');
+    expect(f?.message).toContain("df = 5 (Welch's test, a df printed whole: read as 4.5 to 5.5): 0.0438 to 0.0537");
+  });
+});
