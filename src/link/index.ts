@@ -108,18 +108,22 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     }
     return r;
   };
+  // Welch's test named where no test is reported ("Welch's t-tests were used throughout")
+  const generalWelch = extraction.mentions.find((m) => m.kind === 'test-name' && m.test?.variant === 'welch' && !sentencesWithTests.has(`${m.segment}:${m.sentence}`));
   const results: LinkedResult[] = extraction.tests.map((report) => {
     const k = `${report.segment}:${report.sentence}`;
     const reading = readingOf(k, report.segment, report.sentence);
     const sidedness = sidednessFor(report.statedSidedness, report, reading, paragraphOf(report.segment), documentSidedness);
     const elsewhere = sidedness.basis === 'default' ? untiedOutside(report.segment) : undefined;
+    const named = names.get(report);
     return {
       report,
       sidedness,
       alpha: alphaFor(reading, paragraphOf(report.segment), documentAlpha),
       context: join(report),
-      ...(names.has(report) ? { testName: names.get(report) } : {}),
+      ...(named ? { testName: named } : {}),
       ...(elsewhere ? { untiedSidedness: elsewhere } : {}),
+      ...(generalWelch && named?.variant === undefined ? { untiedWelch: generalWelch } : {}),
     };
   });
   const statistics: LinkedStatistic[] = [];

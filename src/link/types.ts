@@ -26,6 +26,12 @@ export interface LinkedResult {
   testName?: TestName;
   /** A one-tailed statement elsewhere in the text that could not be tied to this result. */
   untiedSidedness?: ContextStatement;
+  /**
+   * Welch's test named in a sentence of the text that reports no test ("Welch's t-tests were
+   * used"), for a result whose own words name neither Welch's nor Student's: a whole df of it may
+   * be a Welch df printed rounded, which cannot be told from the text.
+   */
+  untiedWelch?: Mention;
 }
 
 /**

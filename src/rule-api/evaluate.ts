@@ -1,7 +1,8 @@
 import type { LinkedResult } from '../link/types.js';
+import type { Span } from '../parse/types.js';
 import { checkLog10PAgainstLog10T, checkLog10PAgainstT, checkPAgainstT, distanceBetween, sideOfAlpha, type Interval, type PConsistency, type PInterval } from '../stats/index.js';
-import { showInterval } from './format.js';
-import { describeResultDf, describeT, log10Of, numberLog10Interval, pInterval, pLastDigit, pLog10Interval, resultDfInterval, tInterval } from './intervals.js';
+import { showInterval, showNumber } from './format.js';
+import { describeResultDf, describeT, isWholeDf, log10Of, numberLog10Interval, pInterval, pLastDigit, pLog10Interval, resultDfInterval, tInterval } from './intervals.js';
 import { oncePer } from './once.js';
 import type { Gap, Recomputed } from './types.js';
 
@@ -36,6 +37,13 @@ export interface PEvaluation {
    * fields above then hold the same intervals as doubles, where such p values underflow to 0).
    */
   log10?: { check: PConsistency; reported: PInterval; applicable: Interval };
+  /**
+   * Set when the reading that applies does not reproduce the reported p with the whole df as
+   * printed, but does with that df read as a rounded Welch df (df − 0.5 to df + 0.5), and the
+   * text names Welch's test where it reports no test (LinkedResult.untiedWelch): the range of
+   * that reading. A finding then rests on the df being a count, which is not certain.
+   */
+  welchElsewhere?: { applicable: Interval; dfLow: number; dfHigh: number };
 }
 
 /** Below this a p is compared as log10 p: a double's precision thins out near its smallest values. */
@@ -160,9 +168,36 @@ function evaluatePOnce(result: LinkedResult): PEvaluation | undefined {
   const gap: Gap = unit && !log10
     ? { absolute: pointDistance, lastDigitUnits: pointDistance / unit, roundingAllowance: unit / 2 }
     : { absolute };
+  const welchElsewhere = standing !== 'consistent' && !log10 && result.untiedWelch && isWholeDf(r.df) ? asWelchDf({ tLow, tHigh, df: r.df.value, reported }, useOne) : undefined;
   return {
     standing, check, reported, applicable, applicableName, reportedSide, recomputedSide, decisionFlips, recomputed, gap,
     ...(log10 && logApplicable ? { log10: { ...log10, applicable: logApplicable } } : {}),
+    ...(welchElsewhere ? { welchElsewhere } : {}),
+  };
+}
+
+/** The applicable reading with a whole df read as a rounded Welch df, when it reproduces the reported p. */
+function asWelchDf(box: { tLow: number; tHigh: number; df: number; reported: PInterval }, useOne: boolean): PEvaluation['welchElsewhere'] {
+  const dfLow = Math.max(box.df - 0.5, Number.MIN_VALUE);
+  const dfHigh = box.df + 0.5;
+  const check = checkPAgainstT({ tLow: box.tLow, tHigh: box.tHigh, dfLow, dfHigh, reported: box.reported });
+  const fits = useOne ? check.fitsOneSidedSame || check.fitsOneSidedOpposite : check.fitsTwoSided;
+  if (!fits) return undefined;
+  const applicable = useOne ? nearer(check.oneSidedSame, check.oneSidedOpposite, box.reported) : check.twoSided;
+  return { applicable, dfLow, dfHigh };
+}
+
+/**
+ * `{ uncertain, related }` for a finding about a result's p that rests on its whole df being a
+ * count where the text names Welch's test elsewhere and a rounded Welch df would give the p.
+ */
+export function welchDoubts(result: LinkedResult, e: PEvaluation): { uncertain?: string[]; related?: Array<{ span: Span; message: string }> } {
+  const w = e.welchElsewhere;
+  const named = result.untiedWelch;
+  if (!w || !named || !result.report.df) return {};
+  return {
+    uncertain: [`Welch's test is named elsewhere in the text, “${named.printed}”, not with this result: if its df of ${result.report.df.printed.trim()} is a Welch df printed whole (${showNumber(w.dfLow)} to ${showNumber(w.dfHigh)}), the ${e.applicableName} would be ${showInterval(w.applicable.low, w.applicable.high)}, which holds the reported p`],
+    related: [{ span: named.span, message: "Welch's test named here" }],
   };
 }
 

@@ -67,3 +67,30 @@ describe("a whole df of a result named Welch's test is read as rounded (invented
     expect(f?.message).toContain("df = 5 (Welch's test, a df printed whole: read as 4.5 to 5.5): 0.0438 to 0.0537");
   });
 });
+
+describe("Welch's test named only for the whole text: a whole df that a rounded Welch df would fit is a note (invented cases)", () => {
+  // The same values as above (scipy.stats.t.sf): t(5) = 2.60 gives .0480 to .0485 on df 5 and
+  // .0438 to .0537 over df 4.5 to 5.5.
+  const methods = "Groups were compared with Welch's t-tests.";
+  const found = (markdown: string, rule = 'p-follows-from-t') => checkSource('w.md', markdown).findings.filter((f) => f.ruleId === rule);
+  it('is a note that says what could not be checked, and where Welch is named', () => {
+    const [f, ...rest] = found(`${methods}\n\nThe groups differed, t(5) = 2.60, p = .045.`);
+    expect(rest).toEqual([]);
+    expect(f?.level).toBe('note');
+    expect(f?.message).toMatch(/^Not checked with certainty \(Welch's test is named elsewhere in the text, “Welch's t-tests”, not with this result: if its df of 5 is a Welch df printed whole \(4\.5 to 5\.5\), the two-tailed p would be 0\.0438 to 0\.0537, which holds the reported p\)\. Reported p = \.045\./);
+    expect(f?.related).toEqual([expect.objectContaining({ message: "Welch's test named here", start: { line: 1, column: 27 } })]);
+  });
+  it('stays a warning where no rounded Welch df gives the p either', () => {
+    // .035: neither two-tailed (.0438 to .0537) nor one-tailed (.0219 to .0269), on the same side of .05
+    expect(found(`${methods}\n\nThe groups differed, t(5) = 2.60, p = .035.`).map((f) => f.level)).toEqual(['warning']);
+  });
+  it('stays a warning for a result named Student, and where Welch is named only beside another result', () => {
+    expect(found(`${methods}\n\nA Student's t-test gave t(5) = 2.60, p = .045.`).map((f) => f.level)).toEqual(['warning']);
+    expect(found("Welch's t(17.8) = 2.31, p = .033.\n\nThe groups differed, t(5) = 2.60, p = .045.").map((f) => f.level)).toEqual(['warning']);
+  });
+  it('makes a flipped significance call a note too (significance-follows-from-t)', () => {
+    // t(5) = 2.55 gives two-tailed .0510 to .0516 on df 5 (not significant) and .0467 to .0569 over df 4.5 to 5.5
+    expect(found(`${methods}\n\nThe groups differed, t(5) = 2.55, p = .049.`, 'significance-follows-from-t').map((f) => f.level)).toEqual(['note']);
+    expect(found('The groups differed, t(5) = 2.55, p = .049.', 'significance-follows-from-t').map((f) => f.level)).toEqual(['error']);
+  });
+});
