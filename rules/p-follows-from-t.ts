@@ -1,4 +1,4 @@
-import { evaluateP, fill, notRecomputed, pMessageId, pPlaceholders, type Rule, type RuleFinding, welchDoubts, NO_OPTIONS } from '../src/rule-api/index.js';
+import { evaluateP, fill, notRecomputed, pMessageId, pPlaceholders, type Rule, type RuleFinding, pDoubts, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   mismatch:
@@ -51,7 +51,7 @@ export const pFollowsFromT: Rule = {
         check: checks[id],
         resultId: result.report.id,
         block: result.report.block,
-        ...welchDoubts(result, e),
+        ...pDoubts(result, e),
       });
     }
     return out;

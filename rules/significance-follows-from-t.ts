@@ -1,4 +1,4 @@
-import { evaluateP, fill, pMessageId, pPlaceholders, type Rule, type RuleFinding, welchDoubts, NO_OPTIONS } from '../src/rule-api/index.js';
+import { evaluateP, fill, pMessageId, pPlaceholders, type Rule, type RuleFinding, pDoubts, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   mismatch:
@@ -36,7 +36,7 @@ export const significanceFollowsFromT: Rule = {
         check: 'Check t, df and p against the analysis output before drawing conclusions: the conclusion about significance depends on which number is right.',
         resultId: result.report.id,
         block: result.report.block,
-        ...welchDoubts(result, e),
+        ...pDoubts(result, e),
       });
     }
     return out;

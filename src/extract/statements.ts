@@ -87,6 +87,7 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
       out.push({
         kind: 'multiplicity',
         method: correctionMethod(method[1] as string),
+        general: sentenceOfAt(a + method.index).general,
         ...(comparisons !== undefined ? { comparisons } : {}),
         ...base(a + method.index, b),
       });

@@ -49,7 +49,10 @@ export interface ContextStatement {
   alpha?: number;
   /** For `spread`: what "mean ± x" stands for ("values are mean ± SEM"). */
   spread?: 'SD' | 'SE';
-  /** For `sidedness` and `alpha`: said of every test ("All tests were two-tailed"), not of one. */
+  /**
+   * For `sidedness`, `alpha` and `multiplicity`: said in words about every test ("All tests were
+   * two-tailed", "p values were Bonferroni-corrected"), not of one.
+   */
   general?: boolean;
   /**
    * For `sidedness` and `alpha`: said in a sentence that plans the study (a power or sample-size

@@ -108,6 +108,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     }
     return r;
   };
+  const adjustmentOf = adjustmentJoiner(extraction);
   // Welch's test named where no test is reported ("Welch's t-tests were used throughout")
   const generalWelch = extraction.mentions.find((m) => m.kind === 'test-name' && m.test?.variant === 'welch' && !sentencesWithTests.has(`${m.segment}:${m.sentence}`));
   const results: LinkedResult[] = extraction.tests.map((report) => {
@@ -124,6 +125,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       ...(named ? { testName: named } : {}),
       ...(elsewhere ? { untiedSidedness: elsewhere } : {}),
       ...(generalWelch && named?.variant === undefined ? { untiedWelch: generalWelch } : {}),
+      ...withAdjustment(adjustmentOf(report)),
     };
   });
   const statistics: LinkedStatistic[] = [];
@@ -152,6 +154,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       ...(groups ? { groups } : {}),
       ...(coefficient ? { coefficient } : {}),
       ...(repeatedMeasures ? { repeatedMeasures } : {}),
+      ...withAdjustment(adjustmentOf(o)),
     });
   }
   return {
@@ -171,6 +174,29 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     documentSidedness,
   };
 }
+
+/**
+ * The correction for multiple comparisons that may have been applied to a result's p without
+ * the p saying so: one named in the result's own sentence, else the first named in words about
+ * every test or p ("All p values were Holm-adjusted") in a sentence that reports no statistic.
+ * Tukey's HSD is not one. None where any p of the text is labelled
+ * adjusted (`p_adj`, "Bonferroni-corrected p = …"): such a text labels its adjusted p values,
+ * so an unlabelled p is not one.
+ */
+function adjustmentJoiner(extraction: Extraction): (at: { segment: number; sentence: number }) => ContextStatement | undefined {
+  const labelled = extraction.tests.some((t) => t.adjustedP !== undefined || t.p?.adjusted !== undefined) || extraction.otherStatistics.some((o) => o.p?.adjusted !== undefined);
+  // Tukey's HSD is a procedure of its own for an ANOVA's pairs, not a correction of other tests' p
+  const said = labelled ? [] : extraction.statements.filter((s) => s.kind === 'multiplicity' && s.method !== 'tukey');
+  if (said.length === 0) return () => undefined;
+  const key = (x: { segment: number; sentence: number }) => `${x.segment}:${x.sentence}`;
+  const withStatistics = new Set([...extraction.tests.map(key), ...extraction.otherStatistics.map(key)]);
+  const bySentence = new Map<string, ContextStatement>();
+  for (const s of said) if (!bySentence.has(key(s))) bySentence.set(key(s), s);
+  const general = said.find((s) => s.general === true && !withStatistics.has(key(s)));
+  return (at) => bySentence.get(key(at)) ?? general;
+}
+
+const withAdjustment = (s: ContextStatement | undefined) => (s ? { adjustmentSaid: s } : {});
 
 /**
  * The words naming a repeated-measures analysis or a sphericity correction nearest to a

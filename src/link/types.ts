@@ -32,6 +32,12 @@ export interface LinkedResult {
    * be a Welch df printed rounded, which cannot be told from the text.
    */
   untiedWelch?: Mention;
+  /**
+   * A correction for multiple comparisons named in its sentence, or in a sentence that reports
+   * no statistic ("All p values were Bonferroni-corrected"), in a text that labels no p as
+   * adjusted: its p may be an adjusted one, which cannot be told from the text.
+   */
+  adjustmentSaid?: ContextStatement;
 }
 
 /**
@@ -74,6 +80,8 @@ export interface LinkedStatistic {
    * that fits only so cannot be called wrong with certainty.
    */
   repeatedMeasures?: { mention: Mention; basis: 'sentence' | 'paragraph' | 'document' };
+  /** As LinkedResult.adjustmentSaid: a correction named for its p or for every p, where no p is labelled adjusted. */
+  adjustmentSaid?: ContextStatement;
 }
 
 export interface DocumentSettings {

@@ -1,3 +1,4 @@
+import type { ContextStatement } from '../extract/types.js';
 import type { LinkedResult } from '../link/types.js';
 import type { Span } from '../parse/types.js';
 import { checkLog10PAgainstLog10T, checkLog10PAgainstT, checkPAgainstT, distanceBetween, sideOfAlpha, type Interval, type PConsistency, type PInterval } from '../stats/index.js';
@@ -44,6 +45,12 @@ export interface PEvaluation {
    * that reading. A finding then rests on the df being a count, which is not certain.
    */
   welchElsewhere?: { applicable: Interval; dfLow: number; dfHigh: number };
+  /**
+   * Set when the reported p lies wholly above the range that applies and the text names a
+   * correction for multiple comparisons for it or for every p, labelling no p as adjusted
+   * (LinkedResult.adjustmentSaid): the p may be an adjusted one, which is never smaller.
+   */
+  maybeAdjusted?: true;
 }
 
 /** Below this a p is compared as log10 p: a double's precision thins out near its smallest values. */
@@ -173,6 +180,7 @@ function evaluatePOnce(result: LinkedResult): PEvaluation | undefined {
     standing, check, reported, applicable, applicableName, reportedSide, recomputedSide, decisionFlips, recomputed, gap,
     ...(log10 && logApplicable ? { log10: { ...log10, applicable: logApplicable } } : {}),
     ...(welchElsewhere ? { welchElsewhere } : {}),
+    ...(standing !== 'consistent' && result.adjustmentSaid && reported.low > applicable.high ? { maybeAdjusted: true as const } : {}),
   };
 }
 
@@ -188,17 +196,32 @@ function asWelchDf(box: { tLow: number; tHigh: number; df: number; reported: PIn
 }
 
 /**
- * `{ uncertain, related }` for a finding about a result's p that rests on its whole df being a
- * count where the text names Welch's test elsewhere and a rounded Welch df would give the p.
+ * `{ uncertain, related }` for a finding about a result's p that rests on a reading the text
+ * leaves open: its whole df being a count where the text names Welch's test elsewhere and a
+ * rounded Welch df would give the p (welchElsewhere), or its p being unadjusted where the text
+ * names a correction for it or for every p and the p is larger than t and df give
+ * (maybeAdjusted). Empty when neither applies.
  */
-export function welchDoubts(result: LinkedResult, e: PEvaluation): { uncertain?: string[]; related?: Array<{ span: Span; message: string }> } {
+export function pDoubts(result: LinkedResult, e: PEvaluation): { uncertain?: string[]; related?: Array<{ span: Span; message: string }> } {
+  const uncertain: string[] = [];
+  const related: Array<{ span: Span; message: string }> = [];
   const w = e.welchElsewhere;
   const named = result.untiedWelch;
-  if (!w || !named || !result.report.df) return {};
-  return {
-    uncertain: [`Welch's test is named elsewhere in the text, “${named.printed}”, not with this result: if its df of ${result.report.df.printed.trim()} is a Welch df printed whole (${showNumber(w.dfLow)} to ${showNumber(w.dfHigh)}), the ${e.applicableName} would be ${showInterval(w.applicable.low, w.applicable.high)}, which holds the reported p`],
-    related: [{ span: named.span, message: "Welch's test named here" }],
-  };
+  if (w && named && result.report.df) {
+    uncertain.push(`Welch's test is named elsewhere in the text, “${named.printed}”, not with this result: if its df of ${result.report.df.printed.trim()} is a Welch df printed whole (${showNumber(w.dfLow)} to ${showNumber(w.dfHigh)}), the ${e.applicableName} would be ${showInterval(w.applicable.low, w.applicable.high)}, which holds the reported p`);
+    related.push({ span: named.span, message: "Welch's test named here" });
+  }
+  const adjustment = result.adjustmentSaid;
+  if (e.maybeAdjusted && adjustment) {
+    uncertain.push(adjustmentDoubt(adjustment, 't and df give'));
+    related.push({ span: adjustment.span, message: 'the correction named here' });
+  }
+  return uncertain.length > 0 ? { uncertain, related } : {};
+}
+
+/** Why a p larger than its statistic gives may be an adjusted one: the correction the text names, and that it labels no p as adjusted. */
+export function adjustmentDoubt(said: ContextStatement, gives: string): string {
+  return `the text names a correction for multiple comparisons, “${said.printed}”, and labels no p as adjusted: this p, larger than ${gives}, may be an adjusted one`;
 }
 
 function logComparison(r: LinkedResult['report'], alpha: number, box: { tLow: number; tHigh: number; dfLow: number; dfHigh: number }): { check: PConsistency; reported: PInterval } {

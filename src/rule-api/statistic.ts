@@ -1,8 +1,10 @@
 import type { ReportedNumber } from '../extract/types.js';
 import type { LinkedStatistic } from '../link/types.js';
+import type { Span } from '../parse/types.js';
 import {
   distanceBetween, meets, sideOfAlpha, twoSidedPRangeR, twoSidedPRangeZ, upperPRangeChiSquare, upperPRangeF, upperPRangeFSphericity, type Interval, type PInterval,
 } from '../stats/index.js';
+import { adjustmentDoubt } from './evaluate.js';
 import { fill, showBound, showInterval, showLastDigitUnits, showNumber } from './format.js';
 import { dfInterval, numberInterval, pInterval, pLastDigit } from './intervals.js';
 import { oncePer } from './once.js';
@@ -37,6 +39,8 @@ export interface StatisticPEvaluation {
    * ε from 1/df1 to 1 on both dfs, and whether it holds the reported p.
    */
   sphericity?: { range: Interval; fits: boolean; epsilonLow: number };
+  /** As PEvaluation.maybeAdjusted: the p lies above every reading, and the text names a correction for it or for every p, labelling none as adjusted. */
+  maybeAdjusted?: true;
 }
 
 /** The symbol a reader knows the statistic by. */
@@ -168,7 +172,8 @@ function evaluateStatisticPOnce(linked: LinkedStatistic): StatisticPEvaluation |
   const point = p.number ? distanceBetween(nearest.range, p.number.value, p.number.value) : absolute;
   const gap: Gap = unit ? { absolute: point, lastDigitUnits: point / unit, roundingAllowance: unit / 2 } : { absolute };
   const sphericity = !fits && linked.repeatedMeasures && wholeF ? sphericityReading(wholeF, reported) : undefined;
-  return { readings: judged, fits, nearest, reported, reportedSide, recomputedSide, decisionFlips, recomputed, gap, inputs, ...(sphericity ? { sphericity } : {}) };
+  const maybeAdjusted = !fits && linked.adjustmentSaid !== undefined && judged.every((r) => reported.low > r.range.high);
+  return { readings: judged, fits, nearest, reported, reportedSide, recomputedSide, decisionFlips, recomputed, gap, inputs, ...(sphericity ? { sphericity } : {}), ...(maybeAdjusted ? { maybeAdjusted: true as const } : {}) };
 }
 
 /**
@@ -226,8 +231,16 @@ export function statisticPFindings(
     const e = evaluateStatisticP(linked);
     if (!e || e.fits || e.decisionFlips !== flips) continue;
     const s = linked.report;
-    const doubts = e.sphericity?.fits ? [...linked.doubts, sphericityDoubt(linked, e.sphericity)] : linked.doubts;
-    const named = e.sphericity?.fits && linked.repeatedMeasures && linked.repeatedMeasures.basis !== 'sentence' ? linked.repeatedMeasures.mention : undefined;
+    const doubts = [...linked.doubts];
+    const related: Array<{ span: Span; message: string }> = [];
+    if (e.sphericity?.fits) {
+      doubts.push(sphericityDoubt(linked, e.sphericity));
+      if (linked.repeatedMeasures && linked.repeatedMeasures.basis !== 'sentence') related.push({ span: linked.repeatedMeasures.mention.span, message: 'a repeated-measures analysis named here' });
+    }
+    if (e.maybeAdjusted && linked.adjustmentSaid) {
+      doubts.push(adjustmentDoubt(linked.adjustmentSaid, `${statisticName(s.kind)} gives`));
+      related.push({ span: linked.adjustmentSaid.span, message: 'the correction named here' });
+    }
     out.push({
       messageId: 'mismatch',
       span: s.reportSpan ?? s.span,
@@ -239,7 +252,7 @@ export function statisticPFindings(
       check,
       resultId: linked.id,
       block: s.block,
-      ...(named ? { related: [{ span: named.span, message: 'a repeated-measures analysis named here' }] } : {}),
+      ...(related.length > 0 ? { related } : {}),
       ...(doubts.length > 0 ? { uncertain: doubts } : {}),
     });
   }

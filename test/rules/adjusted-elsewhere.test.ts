@@ -1,0 +1,47 @@
+import { describe, expect, it } from 'vitest';
+import { checkSource } from '../../src/engine/index.js';
+
+// A p corrected for multiple comparisons is never smaller than the p its statistic gives
+// (Bonferroni, Holm, Šidák, Hochberg, Benjamini–Hochberg all multiply or step up; common practice,
+// no source). Values (scipy.stats.t.sf and f.sf, Debian python3-scipy): t(28) = 2.10 gives
+// two-tailed .0444 to .0454 (2.095 to 2.105); F(1, 38) = 4.21 gives .0470 to .0472.
+// The manuscripts are invented.
+const levels = (markdown: string, rule: string) =>
+  checkSource('adj.md', markdown)
+    .findings.filter((f) => f.ruleId === rule)
+    .map((f) => f.level);
+
+describe('a p larger than its statistic gives, where the text says p values were corrected and labels none as adjusted', () => {
+  const general = 'All p values were Bonferroni-corrected for the three comparisons.';
+  it('is a note, saying which correction the text names and pointing at it', () => {
+    const [f, ...rest] = checkSource('adj.md', `${general}\n\nThe groups differed, t(28) = 2.10, p = .135.`).findings.filter((x) => x.ruleId === 'significance-follows-from-t');
+    expect(rest).toEqual([]);
+    expect(f?.level).toBe('note');
+    expect(f?.message).toMatch(/^Not checked with certainty \(the text names a correction for multiple comparisons, “Bonferroni”, and labels no p as adjusted: this p, larger than t and df give, may be an adjusted one\)\. Reported p = \.135/);
+    expect(f?.related).toEqual([expect.objectContaining({ message: 'the correction named here', start: { line: 1, column: 19 } })]);
+  });
+  it('is an error without such words', () => {
+    expect(levels('The groups differed, t(28) = 2.10, p = .135.', 'significance-follows-from-t')).toEqual(['error']);
+  });
+  it('reads a correction named in the result\'s own sentence', () => {
+    expect(levels('After Bonferroni correction the groups differed, t(28) = 2.10, p = .135.', 'significance-follows-from-t')).toEqual(['note']);
+  });
+  it('stays a warning where the p is smaller than t and df give: no correction makes a p smaller', () => {
+    expect(levels(`${general}\n\nThe groups differed, t(28) = 2.10, p = .015.`, 'p-follows-from-t')).toEqual(['warning']);
+  });
+  it('stays an error where the text labels its adjusted p values: an unlabelled one is not adjusted', () => {
+    const markdown = `${general}\n\nThe groups differed, t(28) = 2.10, p = .135. The second outcome did not, t(28) = 1.10, p = .28, Bonferroni-adjusted p = .84.`;
+    expect(levels(markdown, 'significance-follows-from-t')).toEqual(['error']);
+  });
+  it("stays an error where the words are not said of every p, or name Tukey's HSD (an ANOVA's own procedure)", () => {
+    expect(levels('We used the Bonferroni method.\n\nThe groups differed, t(28) = 2.10, p = .135.', 'significance-follows-from-t')).toEqual(['error']);
+    expect(levels("All pairs of the ANOVA were compared with Tukey's HSD tests.\n\nThe groups differed, t(28) = 2.10, p = .135.", 'significance-follows-from-t')).toEqual(['error']);
+    // said in a sentence that reports another result, the words are that result's
+    expect(levels('The first outcome differed after Bonferroni correction of all p values, t(28) = 3.10, p = .013.\n\nThe groups differed, t(28) = 2.10, p = .135.', 'significance-follows-from-t')).toEqual(['error']);
+  });
+  it('applies to F, χ², r and z alike (significance-follows-from-statistic, p-follows-from-f)', () => {
+    expect(levels('All p values were Holm-adjusted.\n\nLoad mattered, F(1, 38) = 4.21, p = .094.', 'significance-follows-from-statistic')).toEqual(['note']);
+    expect(levels('Load mattered, F(1, 38) = 4.21, p = .094.', 'significance-follows-from-statistic')).toEqual(['error']);
+    expect(levels('All p values were Holm-adjusted.\n\nLoad mattered, F(1, 38) = 4.21, p = .03.', 'p-follows-from-f')).toEqual(['warning']);
+  });
+});
