@@ -32,6 +32,14 @@ const TEST_NAME = /(?<![\p{L}])((?:paired|unpaired|independent|one[- ]sample|sin
  * A "mixed model" is not one of them (its F has dfs of its own).
  */
 const REPEATED_MEASURES = /(?<![\p{L}])(repeated[- ]measures?(?: (?:analys[ie]s of variance|ANOVAs?|MANOVAs?))|(?:ANOVAs?|analys[ie]s of variance) (?:with|for|on) repeated measures|RM[- ]?ANOVAs?|within[- ]subjects?(?: (?:analys[ie]s of variance|ANOVAs?|factors?))|mixed(?:[- ]design)? ANOVAs?|split[- ]plot ANOVAs?|sphericity|Greenhouse[-–‐ ]Geisser|Huynh[-–‐ ]Feldt|Mauchly['’]?s?(?: test)?)(?![\p{L}])/giu;
+/**
+ * Words saying p values came from resampling rather than from a distribution ("p values were
+ * obtained from 10,000 permutations", "permutation-based p values"): such a p need not follow
+ * from its statistic.
+ */
+const RESAMPLED_P = /(?<![\p{L}])(?:p[- ]?values?|significance levels?)(?: (?:were|was|are|is))? (?:obtained|computed|calculated|derived|estimated|determined|assessed|based)(?: (?:by|with|using|from|through|via|on))(?: (?:a|an|the))?(?: \d[\d,]{0,12})? (?:permutations?|permutation tests?|permuting|bootstrap(?:ping|ped)?|resampling|Monte Carlo|randomi[sz]ations?|randomi[sz]ation tests?)(?![\p{L}])|(?<![\p{L}])(?:permutation|permuted|bootstrap(?:ped)?|resampling|Monte Carlo|randomi[sz]ation)[- ](?:based )?p[- ]?values?(?![\p{L}])/giu;
+/** A permutation or randomization test named: a p reported with it in its sentence came from resampling. */
+const RESAMPLING_TEST = /(?<![\p{L}])(?:permutation|randomi[sz]ation) (?:t[- ])?tests?(?![\p{L}])/giu;
 /** The header R prints above a t-test's output. */
 const R_HEADER = /(?<![\p{L}-])(Welch Two Sample t-test|Two Sample t-test|Paired t-test|One Sample t-test)(?![\p{L}-])/gu;
 
@@ -44,6 +52,8 @@ const MAY: Record<Mention['kind'], RegExp> = {
   exclusion: /exclu|drop|withdr|lost to|missing|incomplete|did not complete|attrition|removed/i,
   'test-name': /t[- ]test|Welch|Student t|Student['’]s t/i,
   'repeated-measures': /ANOVA|analys[ie]s of variance|subjects? factor|spheric|Greenhouse|Huynh|Mauchly/i,
+  'resampled-p': /permut|bootstrap|resampl|Monte Carlo|randomi[sz]ation/i,
+  'resampling-test': /permutation|randomi[sz]ation/i,
 };
 
 /** Guideline-relevant words in one prose segment. */
@@ -61,7 +71,7 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
     if (m[1] === 'R' && !m[2] && !/(?<![\p{L}])R (?:software|package|version|Core|\(R Core|statistical|environment)|in R(?![\p{L}])|using R(?![\p{L}])|R \d/u.test(context)) continue;
     add('software', m, m[2]);
   }
-  for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion'], [REPEATED_MEASURES, 'repeated-measures']] as const) {
+  for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion'], [REPEATED_MEASURES, 'repeated-measures'], [RESAMPLED_P, 'resampled-p'], [RESAMPLING_TEST, 'resampling-test']] as const) {
     if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) add(kind, m);
   }
   if (MAY.assumption.test(text)) for (const m of assumptionChecks(text, starts)) add('assumption', m);

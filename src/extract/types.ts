@@ -474,7 +474,7 @@ export interface PowerStatement {
  * what a test assumes ("Welch's test does not assume equal variances").
  */
 export interface Mention {
-  kind: 'software' | 'assumption' | 'multiplicity' | 'trend' | 'exclusion' | 'test-name' | 'repeated-measures';
+  kind: 'software' | 'assumption' | 'multiplicity' | 'trend' | 'exclusion' | 'test-name' | 'repeated-measures' | 'resampled-p' | 'resampling-test';
   segment: number;
   block: number;
   sentence: number;

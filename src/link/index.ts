@@ -109,6 +109,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     return r;
   };
   const adjustmentOf = adjustmentJoiner(extraction);
+  const resampledOf = resampledJoiner(extraction);
   // Welch's test named where no test is reported ("Welch's t-tests were used throughout")
   const generalWelch = extraction.mentions.find((m) => m.kind === 'test-name' && m.test?.variant === 'welch' && !sentencesWithTests.has(`${m.segment}:${m.sentence}`));
   const results: LinkedResult[] = extraction.tests.map((report) => {
@@ -126,6 +127,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       ...(elsewhere ? { untiedSidedness: elsewhere } : {}),
       ...(generalWelch && named?.variant === undefined ? { untiedWelch: generalWelch } : {}),
       ...withAdjustment(adjustmentOf(report)),
+      ...withResampled(resampledOf(report)),
     };
   });
   const statistics: LinkedStatistic[] = [];
@@ -155,6 +157,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       ...(coefficient ? { coefficient } : {}),
       ...(repeatedMeasures ? { repeatedMeasures } : {}),
       ...withAdjustment(adjustmentOf(o)),
+      ...withResampled(resampledOf(o)),
     });
   }
   return {
@@ -197,6 +200,25 @@ function adjustmentJoiner(extraction: Extraction): (at: { segment: number; sente
 }
 
 const withAdjustment = (s: ContextStatement | undefined) => (s ? { adjustmentSaid: s } : {});
+
+/**
+ * The words saying a result's p came from resampling: a permutation or randomization test, or
+ * words about p values, in its own sentence; else the first words about p values in a sentence
+ * that reports no statistic. A permutation test named elsewhere (for another analysis) says
+ * nothing of this p.
+ */
+function resampledJoiner(extraction: Extraction): (at: { segment: number; sentence: number }) => Mention | undefined {
+  const said = extraction.mentions.filter((m) => m.kind === 'resampled-p' || m.kind === 'resampling-test');
+  if (said.length === 0) return () => undefined;
+  const key = (x: { segment: number; sentence: number }) => `${x.segment}:${x.sentence}`;
+  const withStatistics = new Set([...extraction.tests.map(key), ...extraction.otherStatistics.map(key)]);
+  const bySentence = new Map<string, Mention>();
+  for (const m of said) if (!bySentence.has(key(m))) bySentence.set(key(m), m);
+  const general = said.find((m) => m.kind === 'resampled-p' && !withStatistics.has(key(m)));
+  return (at) => bySentence.get(key(at)) ?? general;
+}
+
+const withResampled = (m: Mention | undefined) => (m ? { resampledP: m } : {});
 
 /**
  * The words naming a repeated-measures analysis or a sphericity correction nearest to a

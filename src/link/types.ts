@@ -38,6 +38,12 @@ export interface LinkedResult {
    * adjusted: its p may be an adjusted one, which cannot be told from the text.
    */
   adjustmentSaid?: ContextStatement;
+  /**
+   * Words saying its p came from resampling: a permutation or randomization test named in its
+   * sentence, or words about p values ("p values were obtained from 10,000 permutations") there
+   * or in a sentence that reports no statistic. Such a p need not follow from the statistic.
+   */
+  resampledP?: Mention;
 }
 
 /**
@@ -82,6 +88,8 @@ export interface LinkedStatistic {
   repeatedMeasures?: { mention: Mention; basis: 'sentence' | 'paragraph' | 'document' };
   /** As LinkedResult.adjustmentSaid: a correction named for its p or for every p, where no p is labelled adjusted. */
   adjustmentSaid?: ContextStatement;
+  /** As LinkedResult.resampledP. */
+  resampledP?: Mention;
 }
 
 export interface DocumentSettings {

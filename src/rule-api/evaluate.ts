@@ -1,4 +1,4 @@
-import type { ContextStatement } from '../extract/types.js';
+import type { ContextStatement, Mention } from '../extract/types.js';
 import type { LinkedResult } from '../link/types.js';
 import type { Span } from '../parse/types.js';
 import { checkLog10PAgainstLog10T, checkLog10PAgainstT, checkPAgainstT, distanceBetween, sideOfAlpha, type Interval, type PConsistency, type PInterval } from '../stats/index.js';
@@ -216,7 +216,17 @@ export function pDoubts(result: LinkedResult, e: PEvaluation): { uncertain?: str
     uncertain.push(adjustmentDoubt(adjustment, 't and df give'));
     related.push({ span: adjustment.span, message: 'the correction named here' });
   }
+  const resampled = result.resampledP;
+  if (resampled && e.standing !== 'consistent') {
+    uncertain.push(resampledDoubt(resampled, 't and df'));
+    related.push({ span: resampled.span, message: 'resampling named here' });
+  }
   return uncertain.length > 0 ? { uncertain, related } : {};
+}
+
+/** Why a p may not follow from its statistic at all: the words saying it came from resampling. */
+export function resampledDoubt(said: Mention, from: string): string {
+  return `the text says its p came from resampling, “${said.printed}”: such a p need not follow from ${from}`;
 }
 
 /** Why a p larger than its statistic gives may be an adjusted one: the correction the text names, and that it labels no p as adjusted. */

@@ -4,7 +4,7 @@ import type { Span } from '../parse/types.js';
 import {
   distanceBetween, meets, sideOfAlpha, twoSidedPRangeR, twoSidedPRangeZ, upperPRangeChiSquare, upperPRangeF, upperPRangeFSphericity, type Interval, type PInterval,
 } from '../stats/index.js';
-import { adjustmentDoubt } from './evaluate.js';
+import { adjustmentDoubt, resampledDoubt } from './evaluate.js';
 import { fill, showBound, showInterval, showLastDigitUnits, showNumber } from './format.js';
 import { dfInterval, numberInterval, pInterval, pLastDigit } from './intervals.js';
 import { oncePer } from './once.js';
@@ -240,6 +240,10 @@ export function statisticPFindings(
     if (e.maybeAdjusted && linked.adjustmentSaid) {
       doubts.push(adjustmentDoubt(linked.adjustmentSaid, `${statisticName(s.kind)} gives`));
       related.push({ span: linked.adjustmentSaid.span, message: 'the correction named here' });
+    }
+    if (linked.resampledP) {
+      doubts.push(resampledDoubt(linked.resampledP, statisticName(s.kind)));
+      related.push({ span: linked.resampledP.span, message: 'resampling named here' });
     }
     out.push({
       messageId: 'mismatch',
