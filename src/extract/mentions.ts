@@ -29,9 +29,16 @@ const TEST_NAME = /(?<![\p{L}])((?:paired|unpaired|independent|one[- ]sample|sin
 /**
  * Words naming an analysis of variance with repeated measures, or the sphericity correction that
  * goes with one: an F of such an analysis may carry a corrected p beside its uncorrected dfs.
- * A "mixed model" is not one of them (its F has dfs of its own).
+ * A "mixed model" is not one of them (its F has dfs of its own); nor is "sphericity" alone (a
+ * shape), only its assumption, test, correction or violation.
  */
-const REPEATED_MEASURES = /(?<![\p{L}])(repeated[- ]measures?(?: (?:analys[ie]s of variance|ANOVAs?|MANOVAs?))|(?:ANOVAs?|analys[ie]s of variance) (?:with|for|on) repeated measures|RM[- ]?ANOVAs?|within[- ]subjects?(?: (?:analys[ie]s of variance|ANOVAs?|factors?))|mixed(?:[- ]design)? ANOVAs?|split[- ]plot ANOVAs?|sphericity|Greenhouse[-–‐ ]Geisser|Huynh[-–‐ ]Feldt|Mauchly['’]?s?(?: test)?)(?![\p{L}])/giu;
+const REPEATED_MEASURES = /(?<![\p{L}])(repeated[- ]measures?(?: (?:analys[ie]s of variance|ANOVAs?|MANOVAs?))|(?:ANOVAs?|analys[ie]s of variance) (?:with|for|on) repeated measures|RM[- ]?ANOVAs?|within[- ]subjects?(?: (?:analys[ie]s of variance|ANOVAs?|factors?))|mixed(?:[- ]design)? ANOVAs?|split[- ]plot ANOVAs?|sphericity (?:assumptions?|corrections?|(?:was|were|is|are) (?:violated|not assumed|not met))|(?:assumptions?|violations?|tests?|corrections?|corrected) (?:of|for) (?:the )?(?:assumption of )?sphericity|Greenhouse[-–‐ ]Geisser|Huynh[-–‐ ]Feldt|Mauchly['’]?s?(?: test)?)(?![\p{L}])/giu;
+/** A correction's name that says one was applied (not an analysis's name, which says nothing of a correction). */
+const CORRECTION_WORD = /^(?:sphericity|assumptions?|violations?|tests?|corrections?|corrected|Greenhouse|Huynh|Mauchly)/iu;
+/** A sentence saying no sphericity correction was applied or needed. */
+const NO_CORRECTION = /(?<![\p{L}])(?:no|not|without|never)(?: [\p{L}-]+){0,3} (?:correct\p{L}*|adjust\p{L}*|violat\p{L}*|needed|necessary|required)|sphericity (?:held|was met|could be assumed|was assumed)/iu;
+/** Words naming an analysis between groups only: an F said with them is not one of repeated measures. */
+const BETWEEN_SUBJECTS = /(?<![\p{L}])(?:between[- ](?:subjects?|groups?|participants?) (?:analys[ie]s of variance|ANOVAs?|designs?)|independent[- ]groups? (?:analys[ie]s of variance|ANOVAs?))(?![\p{L}])/giu;
 /**
  * Words saying p values came from resampling rather than from a distribution ("p values were
  * obtained from 10,000 permutations", "permutation-based p values"): such a p need not follow
@@ -52,8 +59,9 @@ const MAY: Record<Mention['kind'], RegExp> = {
   exclusion: /exclu|drop|withdr|lost to|missing|incomplete|did not complete|attrition|removed/i,
   'test-name': /t[- ]test|Welch|Student t|Student['’]s t/i,
   'repeated-measures': /ANOVA|analys[ie]s of variance|subjects? factor|spheric|Greenhouse|Huynh|Mauchly/i,
+  'between-subjects': /between[- ](?:subj|group|partic)|independent[- ]group/i,
   'resampled-p': /permut|bootstrap|resampl|Monte Carlo|randomi[sz]ation/i,
-  'resampling-test': /permutation|randomi[sz]ation/i,
+  'resampling-test': /(?:permutation|randomi[sz]ation) (?:t[- ])?test/i,
 };
 
 /** Guideline-relevant words in one prose segment. */
@@ -71,13 +79,24 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
     if (m[1] === 'R' && !m[2] && !/(?<![\p{L}])R (?:software|package|version|Core|\(R Core|statistical|environment)|in R(?![\p{L}])|using R(?![\p{L}])|R \d/u.test(context)) continue;
     add('software', m, m[2]);
   }
-  for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion'], [REPEATED_MEASURES, 'repeated-measures'], [RESAMPLED_P, 'resampled-p'], [RESAMPLING_TEST, 'resampling-test']] as const) {
+  for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion'], [RESAMPLED_P, 'resampled-p'], [RESAMPLING_TEST, 'resampling-test'], [BETWEEN_SUBJECTS, 'between-subjects']] as const) {
     if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) add(kind, m);
+  }
+  if (MAY['repeated-measures'].test(text)) for (const m of matchesOf(REPEATED_MEASURES, text)) {
+    // a correction's name in a sentence that says none was applied or needed is no sign of one
+    if (CORRECTION_WORD.test(m[0])) {
+      const i = sentenceOf(starts, m.index);
+      if (NO_CORRECTION.test(text.slice(starts[i] as number, starts[i + 1] ?? text.length))) continue;
+    }
+    add('repeated-measures', m);
   }
   if (MAY.assumption.test(text)) for (const m of assumptionChecks(text, starts)) add('assumption', m);
   if (MAY['test-name'].test(text)) for (const m of matchesOf(TEST_NAME, text)) {
     const test = testNameWords(m[0]);
-    if (test) out.push({ ...placeOf(seg, starts, m), kind: 'test-name', test });
+    if (!test) continue;
+    const i = sentenceOf(starts, m.index);
+    const negated = NEGATION.test(text.slice(starts[i] as number, starts[i + 1] ?? text.length));
+    out.push({ ...placeOf(seg, starts, m), kind: 'test-name', test, ...(negated ? { negated: true as const } : {}) });
   }
   const where = seg.table ? { table: { table: seg.table.table, row: seg.table.row } } : seg.legendOf ? { legendOf: seg.legendOf.table } : {};
   return out.map((x) => ({ ...x, ...where }));
@@ -88,6 +107,11 @@ function placeOf(seg: Segment, starts: number[], m: RegExpMatchArray): Omit<Ment
   return { segment: seg.id, block: seg.block, sentence: sentenceOf(starts, at), span: sourceSpan(seg, at, at + m[0].length), printed: m[0] };
 }
 
+/** Words that make a name one of a test: a t or "test" ("Welch's t", "Welch test"; not "Welch's" alone, as in "Welch's method"). */
+const NAMES_A_TEST = /(?<![\p{L}])t(?![\p{L}])|test/u;
+/** A negation in a sentence ("Welch's test was not needed", "without Welch's correction"). */
+export const NEGATION = /(?<![\p{L}])(?:not|no|never|without|instead of|rather than)(?![\p{L}])|n['’]t(?![\p{L}])/iu;
+
 /**
  * What a test's name says: paired words, one sample, independent groups, Welch's (independent
  * groups with unequal variances) or Student's (independent groups, unless said to be paired).
@@ -97,12 +121,12 @@ export function testNameWords(words: string, source: TestNameWords['source'] = '
   const plural = /tests$/u.test(w);
   if (source === 'software-output') {
     // R: t.test prints "Welch Two Sample t-test" by default and "Two Sample t-test" with var.equal = TRUE
-    if (w.startsWith('welch')) return { design: 'independent', variant: 'welch', plural, source };
+    if (w.startsWith('welch')) return { design: 'independent', variant: 'welch', plural, source, namesTest: true };
     if (w.startsWith('two sample')) return { design: 'independent', variant: 'student', plural, source };
     if (w.startsWith('paired')) return { design: 'paired', plural, source };
     return { design: 'one-sample', plural, source };
   }
-  if (w.startsWith('welch') || w.includes('unequal')) return { design: 'independent', variant: 'welch', plural, source };
+  if (w.startsWith('welch') || w.includes('unequal')) return { design: 'independent', variant: 'welch', plural, source, ...(NAMES_A_TEST.test(w) ? { namesTest: true as const } : {}) };
   if (w.startsWith('paired student')) return { design: 'paired', plural, source };
   if (w.startsWith('student')) return { design: 'independent', variant: 'student', plural, source };
   if (/^(?:paired|dependent|related|repeated|within)|for (?:paired|dependent|related)/u.test(w)) return { design: 'paired', plural, source };

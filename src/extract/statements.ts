@@ -3,6 +3,7 @@ import { sentenceOf, sourceSpan } from './numbers.js';
 import { comparisonsIn } from './comparisons.js';
 import type { AdjustMethod, ContextStatement } from './types.js';
 import { matchesOf } from './matches.js';
+import { NEGATION } from './mentions.js';
 
 const SIDED = /(?<![\p{L}])(one|two|1|2|single)[- ]?(tailed|sided)(?![\p{L}])|(?<![\p{L}])(non-?directional|directional)(?= (?:test|hypothes|predict))/giu;
 const EQUIVALENCE = /(?<![\p{L}])(equivalence test|test of equivalence|tests? for equivalence|TOST|two one-sided|non-?inferiority|equivalence bounds?)(?![\p{L}])/giu;
@@ -32,6 +33,12 @@ const GENERAL_WORDS = /(?<![\p{L}])(?:all|every|each|throughout|unless|tests|t-t
 const LOCAL_ALPHA = /(?<![\p{L}])(?:corrected|adjusted|Bonferroni|Holm|Šidák|Sidak|per comparison|for (?:this|these|each|the (?:primary|secondary))|family-?wise|power|detect|sample size)(?![\p{L}])/iu;
 /** Words of a power or sample-size calculation: its tails and alpha size the study, they do not say how its tests were run. */
 const PLANNING = /(?<![\p{L}])(?:power(?:ed)?|to detect|sample size|sample-size|G\*Power|minimum (?:detectable|effect))(?![\p{L}])/iu;
+
+/**
+ * A correction said of every p: words about p values, or about all, every or each test or
+ * comparison ("All p values were Bonferroni-corrected"; not "the post hoc comparisons").
+ */
+const EVERY_P = /(?<![\p{L}])(?:p[- ]?values?|(?:all|every|each)(?: [\p{L}-]+){0,3} (?:tests?|t-tests?|comparisons?|contrasts?|analyses|p[- ]?values?))(?![\p{L}])/iu;
 
 /** A correction for multiple comparisons named in a sentence. */
 const CORRECTION = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidak|Hochberg|Benjamini|false discovery rate|FDR|Tukey)(?![\p{L}])/iu;
@@ -87,7 +94,8 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
       out.push({
         kind: 'multiplicity',
         method: correctionMethod(method[1] as string),
-        general: sentenceOfAt(a + method.index).general,
+        general: EVERY_P.test(sentence),
+        ...(NEGATION.test(sentence) ? { negated: true as const } : {}),
         ...(comparisons !== undefined ? { comparisons } : {}),
         ...base(a + method.index, b),
       });

@@ -50,8 +50,8 @@ export interface ContextStatement {
   /** For `spread`: what "mean ± x" stands for ("values are mean ± SEM"). */
   spread?: 'SD' | 'SE';
   /**
-   * For `sidedness`, `alpha` and `multiplicity`: said in words about every test ("All tests were
-   * two-tailed", "p values were Bonferroni-corrected"), not of one.
+   * For `sidedness` and `alpha`: said in words about every test ("All tests were two-tailed"),
+   * not of one. For `multiplicity`: said of every p ("All p values were Bonferroni-corrected").
    */
   general?: boolean;
   /**
@@ -62,6 +62,8 @@ export interface ContextStatement {
   /** For `multiplicity`: the correction named, and the number of comparisons when printed. */
   method?: AdjustMethod;
   comparisons?: number;
+  /** For `multiplicity`: its sentence holds a negation ("We did not correct the p values", "would not survive a Bonferroni correction"). */
+  negated?: true;
   span: Span;
   segment: number;
   block: number;
@@ -474,7 +476,7 @@ export interface PowerStatement {
  * what a test assumes ("Welch's test does not assume equal variances").
  */
 export interface Mention {
-  kind: 'software' | 'assumption' | 'multiplicity' | 'trend' | 'exclusion' | 'test-name' | 'repeated-measures' | 'resampled-p' | 'resampling-test';
+  kind: 'software' | 'assumption' | 'multiplicity' | 'trend' | 'exclusion' | 'test-name' | 'repeated-measures' | 'between-subjects' | 'resampled-p' | 'resampling-test';
   segment: number;
   block: number;
   sentence: number;
@@ -488,6 +490,8 @@ export interface Mention {
   table?: TableRow;
   /** Said in a table's caption or note: that table. */
   legendOf?: number;
+  /** For a test name: its sentence holds a negation ("Welch's test was not needed"). */
+  negated?: true;
 }
 
 /** What a test's name says: the design, Student's or Welch's, and whether it names several tests. */
@@ -498,4 +502,9 @@ export interface TestNameWords {
   plural: boolean;
   /** `prose`, or the header software prints above a test's output ("Welch Two Sample t-test" in R). */
   source: 'prose' | 'software-output';
+  /**
+   * The words name a test, not only a person's method: a t or "test" is among them ("Welch's t",
+   * "Welch test"; not "Welch's" alone, as in "Welch's method" or "Welch's ANOVA").
+   */
+  namesTest?: true;
 }

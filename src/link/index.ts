@@ -111,7 +111,8 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const adjustmentOf = adjustmentJoiner(extraction);
   const resampledOf = resampledJoiner(extraction);
   // Welch's test named where no test is reported ("Welch's t-tests were used throughout")
-  const generalWelch = extraction.mentions.find((m) => m.kind === 'test-name' && m.test?.variant === 'welch' && !sentencesWithTests.has(`${m.segment}:${m.sentence}`));
+  // (as a test: not "Welch's method" or "Welch's ANOVA", and not in a sentence that negates it)
+  const generalWelch = extraction.mentions.find((m) => m.kind === 'test-name' && m.test?.variant === 'welch' && m.test.namesTest === true && m.negated !== true && !sentencesWithTests.has(`${m.segment}:${m.sentence}`));
   const results: LinkedResult[] = extraction.tests.map((report) => {
     const k = `${report.segment}:${report.sentence}`;
     const reading = readingOf(k, report.segment, report.sentence);
@@ -182,14 +183,15 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
  * The correction for multiple comparisons that may have been applied to a result's p without
  * the p saying so: one named in the result's own sentence, else the first named in words about
  * every test or p ("All p values were Holm-adjusted") in a sentence that reports no statistic.
- * Tukey's HSD is not one. None where any p of the text is labelled
+ * Tukey's HSD is not one, nor one in a sentence with a negation ("would not survive a Bonferroni
+ * correction"). None where any p of the text is labelled
  * adjusted (`p_adj`, "Bonferroni-corrected p = …"): such a text labels its adjusted p values,
  * so an unlabelled p is not one.
  */
 function adjustmentJoiner(extraction: Extraction): (at: { segment: number; sentence: number }) => ContextStatement | undefined {
   const labelled = extraction.tests.some((t) => t.adjustedP !== undefined || t.p?.adjusted !== undefined) || extraction.otherStatistics.some((o) => o.p?.adjusted !== undefined);
   // Tukey's HSD is a procedure of its own for an ANOVA's pairs, not a correction of other tests' p
-  const said = labelled ? [] : extraction.statements.filter((s) => s.kind === 'multiplicity' && s.method !== 'tukey');
+  const said = labelled ? [] : extraction.statements.filter((s) => s.kind === 'multiplicity' && s.method !== 'tukey' && s.negated !== true);
   if (said.length === 0) return () => undefined;
   const key = (x: { segment: number; sentence: number }) => `${x.segment}:${x.sentence}`;
   const withStatistics = new Set([...extraction.tests.map(key), ...extraction.otherStatistics.map(key)]);
@@ -222,14 +224,17 @@ const withResampled = (m: Mention | undefined) => (m ? { resampledP: m } : {});
 
 /**
  * The words naming a repeated-measures analysis or a sphericity correction nearest to a
- * statistic: the first in its sentence, else in its paragraph, else in the text. Such words
- * anywhere in a text make any F of it possibly corrected: they only ever make a finding less
- * certain, never more, so they are read at the widest scope they could have.
+ * statistic: the first in its sentence, else in its paragraph, else in the text, unless its own
+ * sentence names an analysis between groups only. Such words anywhere in a text make any F of it
+ * possibly corrected: they only ever make a finding less certain, never more, so they are read
+ * at the widest scope they could have.
  */
 function repeatedMeasuresJoiner(extraction: Extraction): (o: OtherStatistic) => LinkedStatistic['repeatedMeasures'] {
   const said = extraction.mentions.filter((m) => m.kind === 'repeated-measures');
   const first = said[0];
   if (!first) return () => undefined;
+  const key = (x: { segment: number; sentence: number }) => `${x.segment}:${x.sentence}`;
+  const between = new Set(extraction.mentions.filter((m) => m.kind === 'between-subjects').map(key));
   const bySentence = new Map<string, Mention>();
   const bySegment = new Map<number, Mention>();
   for (const m of said) {
@@ -240,6 +245,8 @@ function repeatedMeasuresJoiner(extraction: Extraction): (o: OtherStatistic) => 
   return (o) => {
     const inSentence = bySentence.get(`${o.segment}:${o.sentence}`);
     if (inSentence) return { mention: inSentence, basis: 'sentence' };
+    // its own sentence names an analysis between groups only
+    if (between.has(key(o))) return undefined;
     const inParagraph = bySegment.get(o.segment);
     if (inParagraph) return { mention: inParagraph, basis: 'paragraph' };
     return { mention: first, basis: 'document' };

@@ -17,6 +17,8 @@ export interface TestName {
   /** The words that name it, as printed (several joined by "; "). */
   printed: string;
   span: Span;
+  /** Welch's test is named as a test (a t or "test" with it, or on the statistic), not only "Welch's". */
+  namesWelchTest?: true;
 }
 
 type Named = Mention & { test: TestNameWords };
@@ -32,14 +34,17 @@ interface Said {
   printed: string[];
   first: Named;
   basis: TestNameBasis;
+  /** Some name in it names Welch's test as a test (TestNameWords.namesTest). */
+  welchTest: boolean;
 }
 
 const MAX_WORDS = 3;
 
 function say(into: Said | undefined, m: Named, basis: TestNameBasis): Said {
-  const s = into ?? { designs: new Set<string>(), variants: new Set<string>(), printed: [], first: m, basis };
+  const s = into ?? { designs: new Set<string>(), variants: new Set<string>(), printed: [], first: m, basis, welchTest: false };
   if (m.test.design) s.designs.add(m.test.design);
   if (m.test.variant) s.variants.add(m.test.variant);
+  if (m.test.variant === 'welch' && m.test.namesTest) s.welchTest = true;
   if (s.printed.length < MAX_WORDS && !s.printed.includes(m.printed)) s.printed.push(m.printed);
   return s;
 }
@@ -169,7 +174,8 @@ function combine(t: TTestReport, scopes: readonly Said[]): TestName | undefined 
     named || !first
       ? { basis: 'in-report' as const, printed: [ownWords(named ?? 'independent'), ...words.filter((p) => !sameName(p, named))].join('; '), span: t.span }
       : { basis: first.basis, printed: words.join('; '), span: first.first.span };
-  return { ...(design ? { design } : {}), ...(variant ? { variant } : {}), ...base };
+  const welchTest = variant === 'welch' && (named === 'welch' || scopes.some((s) => s.welchTest));
+  return { ...(design ? { design } : {}), ...(variant ? { variant } : {}), ...base, ...(welchTest ? { namesWelchTest: true as const } : {}) };
 }
 
 function ownWords(v: NonNullable<TTestReport['namedVariant']>): string {

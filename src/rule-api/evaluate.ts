@@ -1,7 +1,7 @@
 import type { ContextStatement, Mention } from '../extract/types.js';
 import type { LinkedResult } from '../link/types.js';
 import type { Span } from '../parse/types.js';
-import { checkLog10PAgainstLog10T, checkLog10PAgainstT, checkPAgainstT, distanceBetween, sideOfAlpha, type Interval, type PConsistency, type PInterval } from '../stats/index.js';
+import { adjustedPRange, checkLog10PAgainstLog10T, checkLog10PAgainstT, checkPAgainstT, distanceBetween, meets, sideOfAlpha, type Interval, type PConsistency, type PInterval } from '../stats/index.js';
 import { showInterval, showNumber } from './format.js';
 import { describeResultDf, describeT, isWholeDf, log10Of, numberLog10Interval, pInterval, pLastDigit, pLog10Interval, resultDfInterval, tInterval } from './intervals.js';
 import { oncePer } from './once.js';
@@ -175,18 +175,21 @@ function evaluatePOnce(result: LinkedResult): PEvaluation | undefined {
   const gap: Gap = unit && !log10
     ? { absolute: pointDistance, lastDigitUnits: pointDistance / unit, roundingAllowance: unit / 2 }
     : { absolute };
-  const welchElsewhere = standing !== 'consistent' && !log10 && result.untiedWelch && isWholeDf(r.df) ? asWelchDf({ tLow, tHigh, df: r.df.value, reported }, useOne) : undefined;
+  // a paired or one-sample test, or a regression coefficient's t, has a count for its df whatever the text says of Welch
+  const design = result.testName?.design ?? result.context.design.value;
+  const countDf = design === 'paired' || design === 'one-sample' || result.context.coefficient !== undefined;
+  const welchElsewhere = standing !== 'consistent' && !log10 && result.untiedWelch && !countDf && isWholeDf(r.df) ? asWelchDf({ tLow, tHigh, df: r.df.value, reported }, useOne) : undefined;
   return {
     standing, check, reported, applicable, applicableName, reportedSide, recomputedSide, decisionFlips, recomputed, gap,
     ...(log10 && logApplicable ? { log10: { ...log10, applicable: logApplicable } } : {}),
     ...(welchElsewhere ? { welchElsewhere } : {}),
-    ...(standing !== 'consistent' && result.adjustmentSaid && reported.low > applicable.high ? { maybeAdjusted: true as const } : {}),
+    ...(standing !== 'consistent' && !log10 && result.adjustmentSaid && mayBeAdjusted(result.adjustmentSaid, applicable, reported) ? { maybeAdjusted: true as const } : {}),
   };
 }
 
 /** The applicable reading with a whole df read as a rounded Welch df, when it reproduces the reported p. */
 function asWelchDf(box: { tLow: number; tHigh: number; df: number; reported: PInterval }, useOne: boolean): PEvaluation['welchElsewhere'] {
-  const dfLow = Math.max(box.df - 0.5, Number.MIN_VALUE);
+  const dfLow = Math.max(box.df - 0.5, 1);
   const dfHigh = box.df + 0.5;
   const check = checkPAgainstT({ tLow: box.tLow, tHigh: box.tHigh, dfLow, dfHigh, reported: box.reported });
   const fits = useOne ? check.fitsOneSidedSame || check.fitsOneSidedOpposite : check.fitsTwoSided;
@@ -213,7 +216,7 @@ export function pDoubts(result: LinkedResult, e: PEvaluation): { uncertain?: str
   }
   const adjustment = result.adjustmentSaid;
   if (e.maybeAdjusted && adjustment) {
-    uncertain.push(adjustmentDoubt(adjustment, 't and df give'));
+    uncertain.push(adjustmentDoubt(adjustment, 't and df give', e.applicable));
     related.push({ span: adjustment.span, message: 'the correction named here' });
   }
   const resampled = result.resampledP;
@@ -229,9 +232,22 @@ export function resampledDoubt(said: Mention, from: string): string {
   return `the text says its p came from resampling, “${said.printed}”: such a p need not follow from ${from}`;
 }
 
-/** Why a p larger than its statistic gives may be an adjusted one: the correction the text names, and that it labels no p as adjusted. */
-export function adjustmentDoubt(said: ContextStatement, gives: string): string {
-  return `the text names a correction for multiple comparisons, “${said.printed}”, and labels no p as adjusted: this p, larger than ${gives}, may be an adjusted one`;
+/** The values the correction a statement names could turn an unadjusted p in `unadjusted` into (adjustedPRange). */
+export function adjustedRangeOf(said: ContextStatement, unadjusted: Interval): Interval {
+  const method = said.method === undefined || said.method === 'tukey' ? 'unspecified' : said.method;
+  return adjustedPRange(method, said.comparisons, unadjusted);
+}
+
+/** The reported p lies wholly above the unadjusted range and within what the named correction could make of it. */
+export function mayBeAdjusted(said: ContextStatement, unadjusted: Interval, reported: PInterval): boolean {
+  return reported.low > unadjusted.high && meets(adjustedRangeOf(said, unadjusted), reported);
+}
+
+/** Why a p larger than its statistic gives may be an adjusted one: the correction the text names, that it labels no p as adjusted, and what the correction could give. */
+export function adjustmentDoubt(said: ContextStatement, gives: string, unadjusted: Interval): string {
+  const r = adjustedRangeOf(said, unadjusted);
+  const m = said.comparisons !== undefined ? ` for ${said.comparisons} comparisons` : '';
+  return `the text names a correction for multiple comparisons, “${said.printed}”, and labels no p as adjusted: this p, larger than ${gives}, may be an adjusted one (the correction${m} could give ${showInterval(r.low, r.high)})`;
 }
 
 function logComparison(r: LinkedResult['report'], alpha: number, box: { tLow: number; tHigh: number; dfLow: number; dfHigh: number }): { check: PConsistency; reported: PInterval } {

@@ -136,14 +136,16 @@ export function describeDf(df: ReportedNumber): string {
 
 /**
  * A result's df as an interval of true values. A Welch df is a real number, so a whole df
- * printed for a result its own words name Welch's test (`LinkedResult.testName`) was rounded:
+ * printed for a result its own words name Welch's test as a test (`LinkedResult.testName`, not
+ * "Welch's method") was rounded:
  * `t(5)` stands for 4.5 to 5.5 there, as `t(5.4)` stands for 5.35 to 5.45. Any other whole df is
  * a count and exact (dfInterval).
  */
 export function resultDfInterval(result: LinkedResult): [number, number] {
   const df = result.report.df;
   if (!df) return [NaN, NaN];
-  if (roundedWelchDf(result)) return [Math.max(df.value - 0.5, Number.MIN_VALUE), df.value + 0.5];
+  // a Welch df is never below 1 (the smaller group's n − 1; common practice, no source)
+  if (roundedWelchDf(result)) return [Math.max(df.value - 0.5, 1), df.value + 0.5];
   return dfInterval(df);
 }
 
@@ -156,7 +158,8 @@ export function describeResultDf(result: LinkedResult): string {
   return `df = ${df.printed} (Welch's test, a df printed whole: read as ${showNumber(lo)} to ${showNumber(hi)})`;
 }
 
-const roundedWelchDf = (result: LinkedResult): boolean => result.report.df !== undefined && isWholeDf(result.report.df) && result.testName?.variant === 'welch';
+const roundedWelchDf = (result: LinkedResult): boolean =>
+  result.report.df !== undefined && isWholeDf(result.report.df) && result.testName?.variant === 'welch' && result.testName.namesWelchTest === true && result.context.coefficient === undefined;
 
 /** The unit of the last printed digit of a reported p, when it is an `=` value. */
 export function pLastDigit(p: ReportedP): number | undefined {

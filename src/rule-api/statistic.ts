@@ -4,7 +4,7 @@ import type { Span } from '../parse/types.js';
 import {
   distanceBetween, meets, sideOfAlpha, twoSidedPRangeR, twoSidedPRangeZ, upperPRangeChiSquare, upperPRangeF, upperPRangeFSphericity, type Interval, type PInterval,
 } from '../stats/index.js';
-import { adjustmentDoubt, resampledDoubt } from './evaluate.js';
+import { adjustmentDoubt, mayBeAdjusted, resampledDoubt } from './evaluate.js';
 import { fill, showBound, showInterval, showLastDigitUnits, showNumber } from './format.js';
 import { dfInterval, numberInterval, pInterval, pLastDigit } from './intervals.js';
 import { oncePer } from './once.js';
@@ -172,7 +172,8 @@ function evaluateStatisticPOnce(linked: LinkedStatistic): StatisticPEvaluation |
   const point = p.number ? distanceBetween(nearest.range, p.number.value, p.number.value) : absolute;
   const gap: Gap = unit ? { absolute: point, lastDigitUnits: point / unit, roundingAllowance: unit / 2 } : { absolute };
   const sphericity = !fits && linked.repeatedMeasures && wholeF ? sphericityReading(wholeF, reported) : undefined;
-  const maybeAdjusted = !fits && linked.adjustmentSaid !== undefined && judged.every((r) => reported.low > r.range.high);
+  const said = linked.adjustmentSaid;
+  const maybeAdjusted = !fits && said !== undefined && judged.every((r) => reported.low > r.range.high) && judged.some((r) => mayBeAdjusted(said, r.range, reported));
   return { readings: judged, fits, nearest, reported, reportedSide, recomputedSide, decisionFlips, recomputed, gap, inputs, ...(sphericity ? { sphericity } : {}), ...(maybeAdjusted ? { maybeAdjusted: true as const } : {}) };
 }
 
@@ -191,7 +192,7 @@ function sphericityReading(f: { lo: number; hi: number; df1: number; df2: number
 function sphericityDoubt(linked: LinkedStatistic, sphericity: NonNullable<StatisticPEvaluation['sphericity']>): string {
   const rm = linked.repeatedMeasures;
   const where = rm?.basis === 'sentence' ? 'in its sentence' : rm?.basis === 'paragraph' ? 'in its paragraph' : 'elsewhere in the text';
-  return `a repeated-measures analysis is named ${where}, “${rm?.mention.printed ?? ''}”, and with a sphericity correction of both dfs (ε from ${showNumber(sphericity.epsilonLow)} to 1) the p would be ${showInterval(sphericity.range.low, sphericity.range.high)}, which holds the reported p: the p may be corrected while its dfs are printed uncorrected`;
+  return `the text speaks of repeated measures ${where}, “${rm?.mention.printed ?? ''}”, and with a sphericity correction of both dfs (ε from ${showNumber(sphericity.epsilonLow)} to 1) the p would be ${showInterval(sphericity.range.low, sphericity.range.high)}, which holds the reported p: the p may be corrected while its dfs are printed uncorrected`;
 }
 
 /** Message placeholders shared by the rules that compare a p with its F, χ², r or z. */
@@ -235,10 +236,10 @@ export function statisticPFindings(
     const related: Array<{ span: Span; message: string }> = [];
     if (e.sphericity?.fits) {
       doubts.push(sphericityDoubt(linked, e.sphericity));
-      if (linked.repeatedMeasures && linked.repeatedMeasures.basis !== 'sentence') related.push({ span: linked.repeatedMeasures.mention.span, message: 'a repeated-measures analysis named here' });
+      if (linked.repeatedMeasures && linked.repeatedMeasures.basis !== 'sentence') related.push({ span: linked.repeatedMeasures.mention.span, message: 'repeated measures named here' });
     }
     if (e.maybeAdjusted && linked.adjustmentSaid) {
-      doubts.push(adjustmentDoubt(linked.adjustmentSaid, `${statisticName(s.kind)} gives`));
+      doubts.push(adjustmentDoubt(linked.adjustmentSaid, `${statisticName(s.kind)} gives`, e.nearest.range));
       related.push({ span: linked.adjustmentSaid.span, message: 'the correction named here' });
     }
     if (linked.resampledP) {

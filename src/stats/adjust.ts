@@ -19,3 +19,25 @@ export function sidakAdjusted(p: Interval, m: number): Interval {
   const f = (x: number) => (x >= 1 ? 1 : -Math.expm1(m * Math.log1p(-x)));
   return { low: f(p.low), high: f(p.high) };
 }
+
+/**
+ * Every value an adjusted p can take when the unadjusted p lies in `p`, for a correction of the
+ * named kind over `m` comparisons (undefined when the text does not say how many; at least 2).
+ * Bonferroni and Šidák: their formulas. Holm, Hochberg and Benjamini–Hochberg: at least p and at
+ * most min(1, m·p), since each multiplies a p by at most m and gives no p below its own
+ * (Holm 1979; Hochberg 1988; Benjamini & Hochberg 1995; the bounds follow from their step-down
+ * and step-up formulas, from memory). Any other or unnamed correction: at least p.
+ */
+export function adjustedPRange(method: 'bonferroni' | 'sidak' | 'holm' | 'hochberg' | 'fdr' | 'unspecified', m: number | undefined, p: Interval): Interval {
+  const k = m ?? 2;
+  if (method === 'bonferroni') {
+    const r = bonferroniAdjusted(p, k);
+    return m === undefined ? { low: r.low, high: 1 } : r;
+  }
+  if (method === 'sidak') {
+    const r = sidakAdjusted(p, k);
+    return m === undefined ? { low: r.low, high: 1 } : r;
+  }
+  if (method === 'unspecified' || m === undefined) return { low: p.low, high: 1 };
+  return { low: p.low, high: Math.min(1, m * p.high) };
+}

@@ -7,7 +7,7 @@ export { dAverage, dFromMeansPooled, dFromTIndependent, dRepeatedMeasures, dzFro
 export { ciHalfWidthFromT, pFromConfidenceInterval } from './confidenceInterval.js';
 export { grimmerPossible, grimPossible, percentPossible } from './granularity.js';
 export { requiredN, tTestPower, type PowerDesign } from './power.js';
-export { bonferroniAdjusted, sidakAdjusted } from './adjust.js';
+export { adjustedPRange, bonferroniAdjusted, sidakAdjusted } from './adjust.js';
 export { partialEtaSquaredFromF, partialEtaSquaredRange, tFromR, twoSidedPFromR, twoSidedPFromZ, twoSidedPRangeR, twoSidedPRangeZ, upperPFromChiSquare, upperPFromF, upperPRangeChiSquare, upperPRangeF, upperPRangeFSphericity } from './otherDistributions.js';
 export { associationRange, cramersV, quotientRange } from './association.js';
 export { MAX_ANOVA_GROUPS, oneWayF, oneWayFRange, type GroupBox, type GroupMoments } from './oneWayAnova.js';

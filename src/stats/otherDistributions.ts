@@ -93,7 +93,11 @@ export function upperPRangeFSphericity(fLow: number, fHigh: number, df1: number,
   return { low: Math.max(0, low), high: Math.min(1, high) };
 }
 
-/** The smallest (sign 1) or largest (sign −1) value of a smooth g over [a, b]: a grid, then a golden-section search beside its best point. */
+/**
+ * The smallest (sign 1) or largest (sign −1) value of a smooth g over [a, b]: a grid, then a
+ * golden-section search over the grid cells beside its best point (the grid points stay
+ * candidates, so the search can only improve on them).
+ */
 function extremeOverEpsilon(g: (e: number) => number, a: number, b: number, sign: 1 | -1): number {
   const steps = 64;
   let best = 0;
@@ -105,30 +109,31 @@ function extremeOverEpsilon(g: (e: number) => number, a: number, b: number, sign
       best = i;
     }
   }
-  if (best > 0 && best < steps) {
-    let lo = a + ((b - a) * (best - 1)) / steps;
-    let hi = a + ((b - a) * (best + 1)) / steps;
-    const r = (Math.sqrt(5) - 1) / 2;
-    let x1 = hi - r * (hi - lo);
-    let x2 = lo + r * (hi - lo);
-    let f1 = sign * g(x1);
-    let f2 = sign * g(x2);
-    for (let k = 0; k < 60 && hi - lo > 1e-12; k += 1) {
-      if (f1 <= f2) {
-        hi = x2;
-        x2 = x1;
-        f2 = f1;
-        x1 = hi - r * (hi - lo);
-        f1 = sign * g(x1);
-      } else {
-        lo = x1;
-        x1 = x2;
-        f1 = f2;
-        x2 = lo + r * (hi - lo);
-        f2 = sign * g(x2);
-      }
-      bestValue = Math.min(bestValue, f1, f2);
+  // the cells on both sides of the best grid point; one cell at an end of [a, b], where the
+  // extreme may lie inside the first or the last cell
+  let lo = a + ((b - a) * Math.max(best - 1, 0)) / steps;
+  let hi = a + ((b - a) * Math.min(best + 1, steps)) / steps;
+  const r = (Math.sqrt(5) - 1) / 2;
+  let x1 = hi - r * (hi - lo);
+  let x2 = lo + r * (hi - lo);
+  let f1 = sign * g(x1);
+  let f2 = sign * g(x2);
+  bestValue = Math.min(bestValue, f1, f2);
+  for (let k = 0; k < 80 && hi - lo > 1e-13; k += 1) {
+    if (f1 <= f2) {
+      hi = x2;
+      x2 = x1;
+      f2 = f1;
+      x1 = hi - r * (hi - lo);
+      f1 = sign * g(x1);
+    } else {
+      lo = x1;
+      x1 = x2;
+      f1 = f2;
+      x2 = lo + r * (hi - lo);
+      f2 = sign * g(x2);
     }
+    bestValue = Math.min(bestValue, f1, f2);
   }
   return sign * bestValue;
 }

@@ -4,7 +4,7 @@ import { checkSource } from '../../src/engine/index.js';
 // A p corrected for multiple comparisons is never smaller than the p its statistic gives
 // (Bonferroni, Holm, Šidák, Hochberg, Benjamini–Hochberg all multiply or step up; common practice,
 // no source). Values (scipy.stats.t.sf and f.sf, Debian python3-scipy): t(28) = 2.10 gives
-// two-tailed .0444 to .0454 (2.095 to 2.105); F(1, 38) = 4.21 gives .0470 to .0472.
+// two-tailed .0444 to .0453 (2.095 to 2.105); F(1, 38) = 4.21 gives .0470 to .0472.
 // The manuscripts are invented.
 const levels = (markdown: string, rule: string) =>
   checkSource('adj.md', markdown)
@@ -17,7 +17,8 @@ describe('a p larger than its statistic gives, where the text says p values were
     const [f, ...rest] = checkSource('adj.md', `${general}\n\nThe groups differed, t(28) = 2.10, p = .135.`).findings.filter((x) => x.ruleId === 'significance-follows-from-t');
     expect(rest).toEqual([]);
     expect(f?.level).toBe('note');
-    expect(f?.message).toMatch(/^Not checked with certainty \(the text names a correction for multiple comparisons, “Bonferroni”, and labels no p as adjusted: this p, larger than t and df give, may be an adjusted one\)\. Reported p = \.135/);
+    // Bonferroni for three comparisons: 3 × (.0444 to .0453)
+    expect(f?.message).toMatch(/^Not checked with certainty \(the text names a correction for multiple comparisons, “Bonferroni”, and labels no p as adjusted: this p, larger than t and df give, may be an adjusted one \(the correction for 3 comparisons could give 0\.1332 to 0\.136\)\)\. Reported p = \.135/);
     expect(f?.related).toEqual([expect.objectContaining({ message: 'the correction named here', start: { line: 1, column: 19 } })]);
   });
   it('is an error without such words', () => {
@@ -38,6 +39,16 @@ describe('a p larger than its statistic gives, where the text says p values were
     expect(levels("All pairs of the ANOVA were compared with Tukey's HSD tests.\n\nThe groups differed, t(28) = 2.10, p = .135.", 'significance-follows-from-t')).toEqual(['error']);
     // said in a sentence that reports another result, the words are that result's
     expect(levels('The first outcome differed after Bonferroni correction of all p values, t(28) = 3.10, p = .013.\n\nThe groups differed, t(28) = 2.10, p = .135.', 'significance-follows-from-t')).toEqual(['error']);
+  });
+  it('stays an error where the words speak of other comparisons, deny a correction, or where the correction could not give the p', () => {
+    expect(levels('Bonferroni correction was applied to the post hoc comparisons that followed the ANOVA.\n\nThe groups differed, t(28) = 2.10, p = .135.', 'significance-follows-from-t')).toEqual(['error']);
+    expect(levels('We did not correct the p values for multiple comparisons (for example, with Bonferroni).\n\nThe groups differed, t(28) = 2.10, p = .135.', 'significance-follows-from-t')).toEqual(['error']);
+    expect(levels('The groups differed, t(28) = 2.10, p = .135, which would not survive a Bonferroni correction.', 'significance-follows-from-t')).toEqual(['error']);
+    // three comparisons allow at most 3 × .0453 = .136, and at least 3 × .0444 = .133
+    expect(levels(`${general}\n\nThe groups differed, t(28) = 2.10, p = .90.`, 'significance-follows-from-t')).toEqual(['error']);
+    expect(levels(`${general}\n\nThe groups differed, t(28) = 2.10, p = .047.`, 'p-follows-from-t')).toEqual(['warning']);
+    // Holm for three comparisons: anything from the p to 3 × p
+    expect(levels('All p values were Holm-adjusted for three comparisons.\n\nThe groups differed, t(28) = 2.10, p = .09.', 'significance-follows-from-t')).toEqual(['note']);
   });
   it('applies to F, χ², r and z alike (significance-follows-from-statistic, p-follows-from-f)', () => {
     expect(levels('All p values were Holm-adjusted.\n\nLoad mattered, F(1, 38) = 4.21, p = .094.', 'significance-follows-from-statistic')).toEqual(['note']);

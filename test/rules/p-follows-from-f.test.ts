@@ -60,20 +60,20 @@ describe('an F of a repeated-measures analysis whose p fits only a sphericity co
   it('is a note saying what could not be checked, with the corrected range, when the text names such an analysis', () => {
     const f = only(`${named}\n\nThe cue had no effect, F(3, 45) = 0.62, p = .52.`, 'p-follows-from-f');
     expect(f.level).toBe('note');
-    expect(f.message).toMatch(/^Not checked with certainty \(a repeated-measures analysis is named elsewhere in the text, “repeated-measures ANOVA”, and with a sphericity correction of both dfs \(ε from 0\.3333 to 1\) the p would be 0\.4415 to 0\.6089, which holds the reported p/);
+    expect(f.message).toMatch(/^Not checked with certainty \(the text speaks of repeated measures elsewhere in the text, “repeated-measures ANOVA”, and with a sphericity correction of both dfs \(ε from 0\.3333 to 1\) the p would be 0\.4415 to 0\.6089, which holds the reported p/);
     // the uncorrected recomputation is still said in full
     expect(f.message).toContain('df1 = 3, df2 = 45: 0.6026 to 0.6089');
     // the words that name the analysis are a place of their own
-    expect(f.related?.map((r) => r.message)).toEqual(['a repeated-measures analysis named here']);
+    expect(f.related?.map((r) => r.message)).toEqual(['repeated measures named here']);
     expect(f.related?.[0]?.start.line).toBe(1);
   });
   it('names the sentence when the words are in it, without a second place', () => {
     const f = only('A repeated-measures ANOVA showed no effect of cue, F(3, 45) = 0.62, p = .52.', 'p-follows-from-f');
     expect(f.level).toBe('note');
-    expect(f.message).toContain('is named in its sentence, “repeated-measures ANOVA”');
+    expect(f.message).toContain('speaks of repeated measures in its sentence, “repeated-measures ANOVA”');
     expect(f.related).toBeUndefined();
     const g = only('We ran a repeated-measures ANOVA. It showed no effect of cue, F(3, 45) = 0.62, p = .52.', 'p-follows-from-f');
-    expect(g.message).toContain('is named in its paragraph, “repeated-measures ANOVA”');
+    expect(g.message).toContain('speaks of repeated measures in its paragraph, “repeated-measures ANOVA”');
     expect(g.related?.[0]?.start.column).toBe(10);
   });
   it('reads the names of the corrections and other names of such an analysis', () => {
@@ -81,10 +81,28 @@ describe('an F of a repeated-measures analysis whose p fits only a sphericity co
       expect(levels(`${words}\n\nThe cue had no effect, F(3, 45) = 0.62, p = .52.`, 'p-follows-from-f')).toEqual(['note']);
     }
   });
-  it('stays a warning where nothing names such an analysis (repeated measures alone, or a mixed model)', () => {
-    for (const words of ['', 'Each participant was measured twice, in repeated measures.', 'A linear mixed model with random intercepts was fitted.', 'The design was within-subject.']) {
+  it('stays a warning where nothing names such an analysis (repeated measures alone, a mixed model, sphericity as a shape, or a correction said not to be applied)', () => {
+    for (const words of [
+      '',
+      'Each participant was measured twice, in repeated measures.',
+      'A linear mixed model with random intercepts was fitted.',
+      'The design was within-subject.',
+      'Pellet sphericity was scored on a five-point scale.',
+      "Mauchly's test showed that sphericity held, so no correction was applied.",
+      'The assumption of sphericity was not violated, and no correction was needed.',
+    ]) {
       expect(levels(`${words}\n\nThe cue had no effect, F(3, 45) = 0.62, p = .52.`, 'p-follows-from-f')).toEqual(['warning']);
     }
+  });
+  it('stays a warning where its own sentence names an analysis between groups only', () => {
+    expect(levels(`${named}\n\nA one-way between-subjects ANOVA showed no effect of cue, F(3, 45) = 0.62, p = .52.`, 'p-follows-from-f')).toEqual(['warning']);
+  });
+  it('finds the corrected p where it peaks inside the first cell of its ε grid', () => {
+    // F(20, 800) = 1.67 (1.665 to 1.675): the largest corrected p, .2047 at ε ≈ .0566, holds .205
+    // (fixtures/reference/sphericity-ranges.json; scipy.stats.f.sf and mpmath)
+    // uncorrected, F(20, 800) = 1.67 gives p below .05, so the call flips: the significance rule speaks
+    expect(levels(`${named}\n\nThe cue had no effect, F(20, 800) = 1.67, p = .205.`, 'significance-follows-from-statistic')).toEqual(['note']);
+    expect(levels('The cue had no effect, F(20, 800) = 1.67, p = .205.', 'significance-follows-from-statistic')).toEqual(['error']);
   });
   it('stays a warning where no correction reproduces the p', () => {
     expect(levels(`${named}\n\nThe cue had no effect, F(3, 45) = 0.62, p = .32.`, 'p-follows-from-f')).toEqual(['warning']);

@@ -94,3 +94,19 @@ describe("Welch's test named only for the whole text: a whole df that a rounded 
     expect(found('The groups differed, t(5) = 2.55, p = .049.', 'significance-follows-from-t').map((f) => f.level)).toEqual(['error']);
   });
 });
+
+describe("Welch's name that does not name this test's df (invented cases; t(5) = 2.60 gives .0480 to .0485 on df 5)", () => {
+  const levels = (markdown: string) => checkSource('w.md', markdown).findings.filter((f) => f.ruleId === 'p-follows-from-t').map((f) => f.level);
+  it("stays a warning where Welch's name names a method or an ANOVA, or is negated", () => {
+    expect(levels("Spectral power was estimated with Welch's method.\n\nThe groups differed, t(5) = 2.60, p = .045.")).toEqual(['warning']);
+    expect(levels("Welch's ANOVA compared the three sites.\n\nThe groups differed, t(5) = 2.60, p = .045.")).toEqual(['warning']);
+    expect(levels("Welch's test was not needed, as the variances were equal.\n\nThe groups differed, t(5) = 2.60, p = .045.")).toEqual(['warning']);
+    expect(levels("Alpha power, estimated with Welch's method, was higher in the morning, t(5) = 2.60, p = .045.")).toEqual(['warning']);
+  });
+  it('stays a warning for a paired test, a one-sample test, or the t of a regression coefficient', () => {
+    const methods = "Groups were compared with Welch's t-tests.";
+    expect(levels(`${methods}\n\nScores rose from the first visit to the second, paired t(5) = 2.60, p = .045.`)).toEqual(['warning']);
+    expect(levels(`${methods}\n\nScores were above the midpoint, one-sample t(5) = 2.60, p = .045.`)).toEqual(['warning']);
+    expect(levels(`${methods}\n\nDose predicted recovery, b = 0.42, SE = 0.16, t(5) = 2.60, p = .045.`)).toEqual(['warning']);
+  });
+});

@@ -97,7 +97,7 @@ const sphericity = JSON.parse(readFileSync(new URL('../../fixtures/reference/sph
 
 describe('p of F with an unprinted sphericity correction (ε from 1/df1 to 1 on both dfs)', () => {
   it('the range over ε and the rounding of F matches scipy and mpmath (fixtures/reference/sphericity-ranges.json)', () => {
-    expect(sphericity.cases.length).toBe(200);
+    expect(sphericity.cases.length).toBe(308);
     let worst = 0;
     for (const c of sphericity.cases) {
       const r = upperPRangeFSphericity(Number(c.fLow), Number(c.fHigh), c.df1, c.df2);
@@ -105,21 +105,35 @@ describe('p of F with an unprinted sphericity correction (ε from 1/df1 to 1 on 
     }
     expect(worst).toBeLessThan(1e-9);
   });
-  it('holds the uncorrected p and the p at the lower bound of ε (both ends of the correction)', () => {
+  it('holds p at every ε and F of the box (250 drawn points per case, off the grid)', () => {
+    // a fixed linear congruential sequence, so the points are the same on every run
+    let seed = 20261205;
+    const next = () => {
+      seed = (seed * 1103515245 + 12345) % 2147483648;
+      return seed / 2147483648;
+    };
     for (const c of sphericity.cases) {
       const r = upperPRangeFSphericity(Number(c.fLow), Number(c.fHigh), c.df1, c.df2);
-      for (const f of [Number(c.fLow), Number(c.fHigh)]) {
-        for (const e of [1 / c.df1, 1]) {
-          const p = upperPFromF(f, e * c.df1, e * c.df2);
-          expect(p).toBeGreaterThanOrEqual(r.low * (1 - 1e-12));
-          expect(p).toBeLessThanOrEqual(r.high * (1 + 1e-12));
-        }
+      for (let i = 0; i < 250; i += 1) {
+        const e = 1 / c.df1 + (1 - 1 / c.df1) * next();
+        const f = Number(c.fLow) + (Number(c.fHigh) - Number(c.fLow)) * next();
+        const p = upperPFromF(f, e * c.df1, e * c.df2);
+        expect(p).toBeGreaterThanOrEqual(r.low * (1 - 1e-12));
+        expect(p).toBeLessThanOrEqual(r.high * (1 + 1e-12));
       }
     }
   });
+  it('finds the largest p inside the first grid cell of ε (F(20, 800) = 1.67)', () => {
+    const c = sphericity.cases.find((x) => x.df1 === 20 && x.df2 === 800 && x.fLow === '1.665');
+    expect(c?.epsilonAtHigh).toBeGreaterThan(1 / 20 + 1e-4);
+    expect(c?.epsilonAtHigh).toBeLessThan(1 / 20 + (1 - 1 / 20) / 64);
+    const r = upperPRangeFSphericity(1.665, 1.675, 20, 800);
+    expect(relErr(r.high, Number(c?.high))).toBeLessThan(1e-9);
+  });
   it('finds an inner extreme where p first rises and then falls over ε', () => {
     // the reference puts the largest p at an ε strictly inside (1/df1, 1) for some cases
-    const inner = sphericity.cases.filter((c) => c.epsilonAtHigh > 1 / c.df1 + 1e-6 && c.epsilonAtHigh < 1 - 1e-6);
+    // (p of 1 to the last digit is flat in ε: its ε says nothing)
+    const inner = sphericity.cases.filter((c) => c.epsilonAtHigh > 1 / c.df1 + 1e-6 && c.epsilonAtHigh < 1 - 1e-6 && Number(c.high) < 1 - 1e-9);
     expect(inner.length).toBeGreaterThan(5);
     for (const c of inner) {
       const r = upperPRangeFSphericity(Number(c.fLow), Number(c.fHigh), c.df1, c.df2);
