@@ -95,7 +95,7 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
     const test = testNameWords(m[0]);
     if (!test) continue;
     const i = sentenceOf(starts, m.index);
-    const negated = NEGATION.test(text.slice(starts[i] as number, starts[i + 1] ?? text.length));
+    const negated = deniedAt(text, m.index, m.index + m[0].length, starts[i] as number, starts[i + 1] ?? text.length);
     out.push({ ...placeOf(seg, starts, m), kind: 'test-name', test, ...(negated ? { negated: true as const } : {}) });
   }
   const where = seg.table ? { table: { table: seg.table.table, row: seg.table.row } } : seg.legendOf ? { legendOf: seg.legendOf.table } : {};
@@ -109,8 +109,20 @@ function placeOf(seg: Segment, starts: number[], m: RegExpMatchArray): Omit<Ment
 
 /** Words that make a name one of a test: a t or "test" ("Welch's t", "Welch test"; not "Welch's" alone, as in "Welch's method"). */
 const NAMES_A_TEST = /(?<![\p{L}])t(?![\p{L}])|test/u;
-/** A negation in a sentence ("Welch's test was not needed", "without Welch's correction"). */
-export const NEGATION = /(?<![\p{L}])(?:not|no|never|without|instead of|rather than)(?![\p{L}])|n['’]t(?![\p{L}])/iu;
+/** A negation or "instead of" right before some words (up to two words between). */
+const DENIED_BEFORE = /(?:(?<![\p{L}])(?:not|never|no|without|nor|neither|instead of|rather than)|n['’]t)(?: [\p{L}'’-]{1,15}){0,2} $/iu;
+/** Some words said not to be so right after them ("… was not needed", "… were not applied"). */
+const DENIED_AFTER = /^(?: [\p{L}'’-]{1,15}){0,2} (?:(?:was|were|is|are|has been|have been) (?:not|never)(?![\p{L}])|(?:wasn|weren|isn|aren)['’]t(?![\p{L}]))/iu;
+
+/**
+ * Whether the words at [from, to) of `text` are denied: a negation or "instead of" right before
+ * them ("without Welch's correction", "would not survive a Bonferroni correction"), or said not
+ * to be so right after them ("Welch's test was not needed"). A negation elsewhere in the sentence
+ * ("Because the variances were not equal, Welch's t-tests were used") does not deny them.
+ */
+export function deniedAt(text: string, from: number, to: number, sentenceStart: number, sentenceEnd: number): boolean {
+  return DENIED_BEFORE.test(text.slice(Math.max(sentenceStart, from - 40), from)) || DENIED_AFTER.test(text.slice(to, Math.min(sentenceEnd, to + 50)));
+}
 
 /**
  * What a test's name says: paired words, one sample, independent groups, Welch's (independent

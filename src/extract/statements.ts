@@ -3,7 +3,7 @@ import { sentenceOf, sourceSpan } from './numbers.js';
 import { comparisonsIn } from './comparisons.js';
 import type { AdjustMethod, ContextStatement } from './types.js';
 import { matchesOf } from './matches.js';
-import { NEGATION } from './mentions.js';
+import { deniedAt } from './mentions.js';
 
 const SIDED = /(?<![\p{L}])(one|two|1|2|single)[- ]?(tailed|sided)(?![\p{L}])|(?<![\p{L}])(non-?directional|directional)(?= (?:test|hypothes|predict))/giu;
 const EQUIVALENCE = /(?<![\p{L}])(equivalence test|test of equivalence|tests? for equivalence|TOST|two one-sided|non-?inferiority|equivalence bounds?)(?![\p{L}])/giu;
@@ -39,6 +39,9 @@ const PLANNING = /(?<![\p{L}])(?:power(?:ed)?|to detect|sample size|sample-size|
  * comparison ("All p values were Bonferroni-corrected"; not "the post hoc comparisons").
  */
 const EVERY_P = /(?<![\p{L}])(?:p[- ]?values?|(?:all|every|each)(?: [\p{L}-]+){0,3} (?:tests?|t-tests?|comparisons?|contrasts?|analyses|p[- ]?values?))(?![\p{L}])/iu;
+
+/** Words saying p values were not corrected ("did not correct", "no adjustment", "uncorrected"). */
+const NOT_CORRECTED = /(?<![\p{L}])(?:(?:not|no|never|without)(?: [\p{L}'’-]{1,15}){0,2} (?:correct|adjust)\p{L}*|uncorrected|unadjusted)(?![\p{L}])/iu;
 
 /** A correction for multiple comparisons named in a sentence. */
 const CORRECTION = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidak|Hochberg|Benjamini|false discovery rate|FDR|Tukey)(?![\p{L}])/iu;
@@ -95,7 +98,7 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
         kind: 'multiplicity',
         method: correctionMethod(method[1] as string),
         general: EVERY_P.test(sentence),
-        ...(NEGATION.test(sentence) ? { negated: true as const } : {}),
+        ...(NOT_CORRECTED.test(sentence) || deniedAt(text, a + method.index, b, a, a + sentence.length) ? { negated: true as const } : {}),
         ...(comparisons !== undefined ? { comparisons } : {}),
         ...base(a + method.index, b),
       });

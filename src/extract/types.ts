@@ -62,7 +62,7 @@ export interface ContextStatement {
   /** For `multiplicity`: the correction named, and the number of comparisons when printed. */
   method?: AdjustMethod;
   comparisons?: number;
-  /** For `multiplicity`: its sentence holds a negation ("We did not correct the p values", "would not survive a Bonferroni correction"). */
+  /** For `multiplicity`: the correction is denied ("We did not correct the p values", "would not survive a Bonferroni correction", "uncorrected"). */
   negated?: true;
   span: Span;
   segment: number;
@@ -490,7 +490,7 @@ export interface Mention {
   table?: TableRow;
   /** Said in a table's caption or note: that table. */
   legendOf?: number;
-  /** For a test name: its sentence holds a negation ("Welch's test was not needed"). */
+  /** For a test name: the words are denied ("Welch's test was not needed", "instead of Welch's t-test"; mentions.ts deniedAt). */
   negated?: true;
 }
 

@@ -44,11 +44,16 @@ describe('a p larger than its statistic gives, where the text says p values were
     expect(levels('Bonferroni correction was applied to the post hoc comparisons that followed the ANOVA.\n\nThe groups differed, t(28) = 2.10, p = .135.', 'significance-follows-from-t')).toEqual(['error']);
     expect(levels('We did not correct the p values for multiple comparisons (for example, with Bonferroni).\n\nThe groups differed, t(28) = 2.10, p = .135.', 'significance-follows-from-t')).toEqual(['error']);
     expect(levels('The groups differed, t(28) = 2.10, p = .135, which would not survive a Bonferroni correction.', 'significance-follows-from-t')).toEqual(['error']);
+    expect(levels('No correction for multiple comparisons was applied, although Bonferroni would have been possible.\n\nThe groups differed, t(28) = 2.10, p = .135.', 'significance-follows-from-t')).toEqual(['error']);
+    expect(levels('All p values are uncorrected; a Bonferroni threshold is given for reference.\n\nThe groups differed, t(28) = 2.10, p = .135.', 'significance-follows-from-t')).toEqual(['error']);
     // three comparisons allow at most 3 × .0453 = .136, and at least 3 × .0444 = .133
     expect(levels(`${general}\n\nThe groups differed, t(28) = 2.10, p = .90.`, 'significance-follows-from-t')).toEqual(['error']);
     expect(levels(`${general}\n\nThe groups differed, t(28) = 2.10, p = .047.`, 'p-follows-from-t')).toEqual(['warning']);
     // Holm for three comparisons: anything from the p to 3 × p
     expect(levels('All p values were Holm-adjusted for three comparisons.\n\nThe groups differed, t(28) = 2.10, p = .09.', 'significance-follows-from-t')).toEqual(['note']);
+  });
+  it('reads a negation elsewhere in the sentence as no denial of the correction', () => {
+    expect(levels('Because the outcomes were not independent, all p values were Bonferroni-corrected for three comparisons.\n\nThe groups differed, t(28) = 2.10, p = .135.', 'significance-follows-from-t')).toEqual(['note']);
   });
   it('applies to F, χ², r and z alike (significance-follows-from-statistic, p-follows-from-f)', () => {
     expect(levels('All p values were Holm-adjusted.\n\nLoad mattered, F(1, 38) = 4.21, p = .094.', 'significance-follows-from-statistic')).toEqual(['note']);

@@ -80,6 +80,11 @@ describe("Welch's test named only for the whole text: a whole df that a rounded 
     expect(f?.message).toMatch(/^Not checked with certainty \(Welch's test is named elsewhere in the text, “Welch's t-tests”, not with this result: if its df of 5 is a Welch df printed whole \(4\.5 to 5\.5\), the two-tailed p would be 0\.0438 to 0\.0537, which holds the reported p\)\. Reported p = \.045\./);
     expect(f?.related).toEqual([expect.objectContaining({ message: "Welch's test named here", start: { line: 1, column: 27 } })]);
   });
+  it('reads a negation elsewhere in the sentence as no denial of the name', () => {
+    expect(found("Because the variances were not equal, Welch's t-tests were used.\n\nThe groups differed, t(5) = 2.60, p = .045.").map((f) => f.level)).toEqual(['note']);
+    expect(found("Welch's t-test was used instead of Student's.\n\nThe groups differed, t(5) = 2.60, p = .045.").map((f) => f.level)).toEqual(['note']);
+    expect(found("Student's t-test was used instead of Welch's t-test.\n\nThe groups differed, t(5) = 2.60, p = .045.").map((f) => f.level)).toEqual(['warning']);
+  });
   it('stays a warning where no rounded Welch df gives the p either', () => {
     // .035: neither two-tailed (.0438 to .0537) nor one-tailed (.0219 to .0269), on the same side of .05
     expect(found(`${methods}\n\nThe groups differed, t(5) = 2.60, p = .035.`).map((f) => f.level)).toEqual(['warning']);
