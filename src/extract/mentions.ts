@@ -35,8 +35,8 @@ const TEST_NAME = /(?<![\p{L}])((?:paired|unpaired|independent|one[- ]sample|sin
 const REPEATED_MEASURES = /(?<![\p{L}])(repeated[- ]measures?(?: (?:analys[ie]s of variance|ANOVAs?|MANOVAs?))|(?:ANOVAs?|analys[ie]s of variance) (?:with|for|on) repeated measures|RM[- ]?ANOVAs?|within[- ]subjects?(?: (?:analys[ie]s of variance|ANOVAs?|factors?))|mixed(?:[- ]design)? ANOVAs?|split[- ]plot ANOVAs?|sphericity (?:assumptions?|corrections?|(?:was|were|is|are) (?:violated|not assumed|not met))|(?:assumptions?|violations?|tests?|corrections?|corrected) (?:of|for) (?:the )?(?:assumption of )?sphericity|Greenhouse[-–‐ ]Geisser|Huynh[-–‐ ]Feldt|Mauchly['’]?s?(?: test)?)(?![\p{L}])/giu;
 /** A correction's name that says one was applied (not an analysis's name, which says nothing of a correction). */
 const CORRECTION_WORD = /^(?:sphericity|assumptions?|violations?|tests?|corrections?|corrected|Greenhouse|Huynh|Mauchly)/iu;
-/** A sentence saying no sphericity correction was applied or needed. */
-const NO_CORRECTION = /(?<![\p{L}])(?:no|not|without|never)(?: [\p{L}-]+){0,3} (?:correct\p{L}*|adjust\p{L}*|violat\p{L}*|needed|necessary|required)|sphericity (?:held|was met|could be assumed|was assumed)/iu;
+/** Words saying sphericity held, so that no correction was due ("Mauchly's test showed that sphericity held"). */
+const SPHERICITY_HELD = /(?<![\p{L}])(?:sphericity|(?:assumption of|the) sphericity(?: assumption)?) (?:held|was met|could be assumed|was assumed|was not violated|had not been violated)(?![\p{L}])/iu;
 /** Words naming an analysis between groups only: an F said with them is not one of repeated measures. */
 const BETWEEN_SUBJECTS = /(?<![\p{L}])(?:between[- ](?:subjects?|groups?|participants?) (?:analys[ie]s of variance|ANOVAs?|designs?)|independent[- ]groups? (?:analys[ie]s of variance|ANOVAs?))(?![\p{L}])/giu;
 /**
@@ -44,7 +44,7 @@ const BETWEEN_SUBJECTS = /(?<![\p{L}])(?:between[- ](?:subjects?|groups?|partici
  * obtained from 10,000 permutations", "permutation-based p values"): such a p need not follow
  * from its statistic.
  */
-const RESAMPLED_P = /(?<![\p{L}])(?:p[- ]?values?|significance levels?)(?: (?:were|was|are|is))? (?:obtained|computed|calculated|derived|estimated|determined|assessed|based)(?: (?:by|with|using|from|through|via|on))(?: (?:a|an|the))?(?: \d[\d,]{0,12})? (?:permutations?|permutation tests?|permuting|bootstrap(?:ping|ped)?|resampling|Monte Carlo|randomi[sz]ations?|randomi[sz]ation tests?)(?![\p{L}])|(?<![\p{L}])(?:permutation|permuted|bootstrap(?:ped)?|resampling|Monte Carlo|randomi[sz]ation)[- ](?:based )?p[- ]?values?(?![\p{L}])/giu;
+const RESAMPLED_P = /(?<![\p{L}])(?:p[- ]?values?|significance(?: levels?)?)(?: (?:were|was|are|is))? (?:obtained|computed|calculated|derived|estimated|determined|assessed|based)(?: (?:by|with|using|from|through|via|on))(?: (?:a|an|the))?(?: \d[\d,]{0,12})?(?: (?:random|Monte Carlo))? (?:permutations?|permutation tests?|permuting|bootstrap(?:ping|ped)?|resampling|Monte Carlo|randomi[sz]ations?|randomi[sz]ation tests?)(?![\p{L}])|(?<![\p{L}])(?:permutation|permuted|bootstrap(?:ped)?|resampling|Monte Carlo|randomi[sz]ation)[- ](?:based )?p(?:[- ]?values?)?(?![\p{L}])|(?<![\p{L}])p_?perm(?![\p{L}])/giu;
 /** A permutation or randomization test named: a p reported with it in its sentence came from resampling. */
 const RESAMPLING_TEST = /(?<![\p{L}])(?:permutation|randomi[sz]ation) (?:t[- ])?tests?(?![\p{L}])/giu;
 /** The header R prints above a t-test's output. */
@@ -60,7 +60,7 @@ const MAY: Record<Mention['kind'], RegExp> = {
   'test-name': /t[- ]test|Welch|Student t|Student['’]s t/i,
   'repeated-measures': /ANOVA|analys[ie]s of variance|subjects? factor|spheric|Greenhouse|Huynh|Mauchly/i,
   'between-subjects': /between[- ](?:subj|group|partic)|independent[- ]group/i,
-  'resampled-p': /permut|bootstrap|resampl|Monte Carlo|randomi[sz]ation/i,
+  'resampled-p': /permut|bootstrap|resampl|Monte Carlo|randomi[sz]ation|p_?perm/i,
   'resampling-test': /(?:permutation|randomi[sz]ation) (?:t[- ])?test/i,
 };
 
@@ -79,21 +79,34 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
     if (m[1] === 'R' && !m[2] && !/(?<![\p{L}])R (?:software|package|version|Core|\(R Core|statistical|environment)|in R(?![\p{L}])|using R(?![\p{L}])|R \d/u.test(context)) continue;
     add('software', m, m[2]);
   }
-  for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion'], [RESAMPLED_P, 'resampled-p'], [RESAMPLING_TEST, 'resampling-test'], [BETWEEN_SUBJECTS, 'between-subjects']] as const) {
+  for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion'], [BETWEEN_SUBJECTS, 'between-subjects']] as const) {
     if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) add(kind, m);
   }
+  // resampling denied at its words ("Permutation-based p values were not computed") says nothing of a p
+  for (const [re, kind] of [[RESAMPLED_P, 'resampled-p'], [RESAMPLING_TEST, 'resampling-test']] as const) {
+    if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) {
+      const i = sentenceOf(starts, m.index);
+      if (!deniedAt(text, m.index, m.index + m[0].length, starts[i] as number, starts[i + 1] ?? text.length)) add(kind, m);
+    }
+  }
   if (MAY['repeated-measures'].test(text)) for (const m of matchesOf(REPEATED_MEASURES, text)) {
-    // a correction's name in a sentence that says none was applied or needed is no sign of one
+    // a correction's name denied at its words ("no Greenhouse–Geisser correction"), or in a
+    // sentence saying sphericity held, is no sign of a correction
     if (CORRECTION_WORD.test(m[0])) {
       const i = sentenceOf(starts, m.index);
-      if (NO_CORRECTION.test(text.slice(starts[i] as number, starts[i + 1] ?? text.length))) continue;
+      const [from, to] = [starts[i] as number, starts[i + 1] ?? text.length];
+      // (a correction's own name is not denied by sphericity holding elsewhere: "applied unless sphericity was met")
+      const named = /^(?:Greenhouse|Huynh)/iu.test(m[0]);
+      if (deniedAt(text, m.index, m.index + m[0].length, from, to) || (!named && SPHERICITY_HELD.test(text.slice(from, to)))) continue;
     }
     add('repeated-measures', m);
   }
   if (MAY.assumption.test(text)) for (const m of assumptionChecks(text, starts)) add('assumption', m);
   if (MAY['test-name'].test(text)) for (const m of matchesOf(TEST_NAME, text)) {
-    const test = testNameWords(m[0]);
-    if (!test) continue;
+    const named = testNameWords(m[0]);
+    if (!named) continue;
+    // "Welch's correction", "Welch-corrected", "Welch–Satterthwaite", "t-tests with Welch's …": a test's df
+    const test = named.variant === 'welch' && !named.namesTest && (WELCH_AFTER.test(text.slice(m.index + m[0].length, m.index + m[0].length + 20)) || WELCH_BEFORE.test(text.slice(Math.max(0, m.index - 30), m.index))) ? { ...named, namesTest: true as const } : named;
     const i = sentenceOf(starts, m.index);
     const negated = deniedAt(text, m.index, m.index + m[0].length, starts[i] as number, starts[i + 1] ?? text.length);
     out.push({ ...placeOf(seg, starts, m), kind: 'test-name', test, ...(negated ? { negated: true as const } : {}) });
@@ -107,12 +120,20 @@ function placeOf(seg: Segment, starts: number[], m: RegExpMatchArray): Omit<Ment
   return { segment: seg.id, block: seg.block, sentence: sentenceOf(starts, at), span: sourceSpan(seg, at, at + m[0].length), printed: m[0] };
 }
 
+/** Words after "Welch" that make it a t-test's correction ("Welch's correction", "Welch-corrected", "Welch–Satterthwaite"). */
+const WELCH_AFTER = /^[-–‐ ](?:correct\p{L}*|adjust\p{L}*|Satterthwaite|approximation)/iu;
+/** A t-test named right before "Welch" ("t-tests with Welch's correction"). */
+const WELCH_BEFORE = /(?<![\p{L}])t[- ]tests? (?:with|using|under) (?:a |the )?$/iu;
 /** Words that make a name one of a test: a t or "test" ("Welch's t", "Welch test"; not "Welch's" alone, as in "Welch's method"). */
 const NAMES_A_TEST = /(?<![\p{L}])t(?![\p{L}])|test/u;
-/** A negation or "instead of" right before some words (up to two words between). */
-const DENIED_BEFORE = /(?:(?<![\p{L}])(?:not|never|no|without|nor|neither|instead of|rather than)|n['’]t)(?: [\p{L}'’-]{1,15}){0,2} $/iu;
-/** Some words said not to be so right after them ("… was not needed", "… were not applied"). */
-const DENIED_AFTER = /^(?: [\p{L}'’-]{1,15}){0,2} (?:(?:was|were|is|are|has been|have been) (?:not|never)(?![\p{L}])|(?:wasn|weren|isn|aren)['’]t(?![\p{L}]))/iu;
+/**
+ * A negation or "instead of" right before some words, with at most a verb of using or an article
+ * between ("no Greenhouse–Geisser", "did not use Welch's", "would not survive a Bonferroni"; not
+ * "did not differ after Bonferroni", where the negation is about something else).
+ */
+const DENIED_BEFORE = /(?:(?<![\p{L}])(?:not|never|no|without|nor|neither|instead of|rather than)|n['’]t)(?: (?:use|used|using|apply|applied|applying|survive|need|needed|require|required|perform|performed|run|a|an|the|any|further|with)){0,3} $/iu;
+/** Some words said not to be so right after them ("… was not needed", "… were not applied", "… were not computed"). */
+const DENIED_AFTER = /^(?: [\p{L}'’‐–-]{1,15}){0,2} (?:(?:was|were|is|are|has been|have been) (?:not|never)(?![\p{L}])|(?:wasn|weren|isn|aren)['’]t(?![\p{L}]))/iu;
 
 /**
  * Whether the words at [from, to) of `text` are denied: a negation or "instead of" right before

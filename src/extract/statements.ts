@@ -38,10 +38,14 @@ const PLANNING = /(?<![\p{L}])(?:power(?:ed)?|to detect|sample size|sample-size|
  * A correction said of every p: words about p values, or about all, every or each test or
  * comparison ("All p values were Bonferroni-corrected"; not "the post hoc comparisons").
  */
-const EVERY_P = /(?<![\p{L}])(?:p[- ]?values?|(?:all|every|each)(?: [\p{L}-]+){0,3} (?:tests?|t-tests?|comparisons?|contrasts?|analyses|p[- ]?values?))(?![\p{L}])/iu;
+const EVERY_P = /(?<![\p{L}])(?:p[- ]?values?|(?:all|every|each)(?: [\p{L}-]+){0,3} (?:tests?|t-tests?|comparisons?|contrasts?|analyses|outcomes|p[- ]?values?)|(?:two|three|four|five|six|seven|eight|nine|ten|\d{1,3}) (?:[\p{L}-]+ )?(?:tests|t-tests|comparisons|contrasts|analyses|outcomes|endpoints))(?![\p{L}])/iu;
+/** How far from the correction's name (characters, within its sentence) the words of EVERY_P may stand. */
+const EVERY_P_REACH = 60;
 
-/** Words saying p values were not corrected ("did not correct", "no adjustment", "uncorrected"). */
-const NOT_CORRECTED = /(?<![\p{L}])(?:(?:not|no|never|without)(?: [\p{L}'’-]{1,15}){0,2} (?:correct|adjust)\p{L}*|uncorrected|unadjusted)(?![\p{L}])/iu;
+/** Words saying p values were not corrected ("did not correct", "no adjustment", "were not adjusted", "uncorrected"). */
+const NOT_CORRECTED = /(?<![\p{L}])(?:(?:not|no|never|without)(?: (?:further|formal|explicit|any|a|the|be|been|were|was|is|are)){0,2} (?:correct|adjust)\p{L}*|uncorrected|unadjusted)(?![\p{L}])/iu;
+/** A correction of alpha rather than of the p values ("a Bonferroni-corrected alpha of .017", "α = .05/3"): the p values stay unadjusted. */
+const CORRECTED_ALPHA = /(?<![\p{L}])(?:(?:corrected|adjusted) (?:alpha|α|significance (?:level|threshold|criterion)|threshold|level)|(?:alpha|α|significance level|threshold)(?: level)?(?: was| of)? (?:corrected|adjusted|divided)|0?\.0[1-5] ?\/ ?\d)/iu;
 
 /** A correction for multiple comparisons named in a sentence. */
 const CORRECTION = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidak|Hochberg|Benjamini|false discovery rate|FDR|Tukey)(?![\p{L}])/iu;
@@ -94,11 +98,14 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
       if (!method) continue;
       const comparisons = comparisonsIn(sentence)?.m;
       const b = a + method.index + method[0].length;
+      const near = sentence.slice(Math.max(0, method.index - EVERY_P_REACH), method.index + method[0].length + EVERY_P_REACH);
+      const notOfP = NOT_CORRECTED.test(sentence) || CORRECTED_ALPHA.test(sentence) || deniedAt(text, a + method.index, b, a, a + sentence.length);
       out.push({
         kind: 'multiplicity',
-        method: correctionMethod(method[1] as string),
-        general: EVERY_P.test(sentence),
-        ...(NOT_CORRECTED.test(sentence) || deniedAt(text, a + method.index, b, a, a + sentence.length) ? { negated: true as const } : {}),
+        // "Bonferroni–Holm" is Holm's procedure; Benjamini–Yekutieli's bound is not Benjamini–Hochberg's
+        method: /Yekutieli/iu.test(sentence) ? 'unspecified' : /Holm/u.test(sentence) ? 'holm' : correctionMethod(method[1] as string),
+        general: EVERY_P.test(near),
+        ...(notOfP ? { notOfP: true as const } : {}),
         ...(comparisons !== undefined ? { comparisons } : {}),
         ...base(a + method.index, b),
       });

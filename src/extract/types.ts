@@ -51,7 +51,8 @@ export interface ContextStatement {
   spread?: 'SD' | 'SE';
   /**
    * For `sidedness` and `alpha`: said in words about every test ("All tests were two-tailed"),
-   * not of one. For `multiplicity`: said of every p ("All p values were Bonferroni-corrected").
+   * not of one. For `multiplicity`: said of every p, near the correction's name ("All p values
+   * were Bonferroni-corrected", "the three t-tests were Holm-adjusted").
    */
   general?: boolean;
   /**
@@ -62,8 +63,12 @@ export interface ContextStatement {
   /** For `multiplicity`: the correction named, and the number of comparisons when printed. */
   method?: AdjustMethod;
   comparisons?: number;
-  /** For `multiplicity`: the correction is denied ("We did not correct the p values", "would not survive a Bonferroni correction", "uncorrected"). */
-  negated?: true;
+  /**
+   * For `multiplicity`: the correction is not one of the p values: denied ("We did not correct
+   * the p values", "would not survive a Bonferroni correction", "uncorrected"), or of alpha ("a
+   * Bonferroni-corrected alpha of .017").
+   */
+  notOfP?: true;
   span: Span;
   segment: number;
   block: number;

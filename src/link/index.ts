@@ -183,15 +183,15 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
  * The correction for multiple comparisons that may have been applied to a result's p without
  * the p saying so: one named in the result's own sentence, else the first named in words about
  * every test or p ("All p values were Holm-adjusted") in a sentence that reports no statistic.
- * Tukey's HSD is not one, nor one in a sentence with a negation ("would not survive a Bonferroni
- * correction"). None where any p of the text is labelled
+ * Tukey's HSD is not one, nor one denied or said of alpha (`notOfP`: "would not survive a
+ * Bonferroni correction", "a Bonferroni-corrected alpha"). None where any p of the text is labelled
  * adjusted (`p_adj`, "Bonferroni-corrected p = …"): such a text labels its adjusted p values,
  * so an unlabelled p is not one.
  */
 function adjustmentJoiner(extraction: Extraction): (at: { segment: number; sentence: number }) => ContextStatement | undefined {
   const labelled = extraction.tests.some((t) => t.adjustedP !== undefined || t.p?.adjusted !== undefined) || extraction.otherStatistics.some((o) => o.p?.adjusted !== undefined);
   // Tukey's HSD is a procedure of its own for an ANOVA's pairs, not a correction of other tests' p
-  const said = labelled ? [] : extraction.statements.filter((s) => s.kind === 'multiplicity' && s.method !== 'tukey' && s.negated !== true);
+  const said = labelled ? [] : extraction.statements.filter((s) => s.kind === 'multiplicity' && s.method !== 'tukey' && s.notOfP !== true);
   if (said.length === 0) return () => undefined;
   const key = (x: { segment: number; sentence: number }) => `${x.segment}:${x.sentence}`;
   const withStatistics = new Set([...extraction.tests.map(key), ...extraction.otherStatistics.map(key)]);

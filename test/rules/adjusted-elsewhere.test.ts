@@ -61,3 +61,24 @@ describe('a p larger than its statistic gives, where the text says p values were
     expect(levels('All p values were Holm-adjusted.\n\nLoad mattered, F(1, 38) = 4.21, p = .03.', 'p-follows-from-f')).toEqual(['warning']);
   });
 });
+
+describe('what counts as a correction of every p (invented cases, second review)', () => {
+  const t = 'The groups differed, t(28) = 2.10, p = .135.';
+  it('reads corrections a negation elsewhere in the sentence does not deny', () => {
+    expect(levels('The groups did not differ after Bonferroni correction for three comparisons, t(28) = 2.10, p = .135.', 'significance-follows-from-t')).toEqual(['note']);
+    expect(levels(`All p values were Bonferroni-corrected; the manipulation showed no effect on accuracy.\n\n${t}`, 'significance-follows-from-t')).toEqual(['note']);
+  });
+  it('reads counted tests as every p, and "p values" only near the correction', () => {
+    expect(levels(`The three t-tests were Bonferroni-corrected.\n\n${t}`, 'significance-follows-from-t')).toEqual(['note']);
+    expect(levels(`Bonferroni correction was applied to the post hoc comparisons that followed the ANOVA; exact p values are given in Table 2.\n\n${t}`, 'significance-follows-from-t')).toEqual(['error']);
+  });
+  it('takes a corrected alpha as no correction of the p values', () => {
+    // t(28) = 1.50 gives two-tailed .1448 (scipy.stats.t.sf); .43 would be 3 × p
+    expect(levels('A Bonferroni-corrected alpha of .05/3 = .017 was applied to all three tests.\n\nThe groups differed, t(28) = 1.50, p = .43.', 'p-follows-from-t')).toEqual(['warning']);
+  });
+  it('reads Bonferroni–Holm as Holm, and Benjamini–Yekutieli as a correction of unknown bound', () => {
+    expect(levels('All p values were Bonferroni–Holm corrected for three comparisons.\n\nThe groups differed, t(28) = 2.10, p = .09.', 'significance-follows-from-t')).toEqual(['note']);
+    // Benjamini–Yekutieli can exceed m × p (up to m(1 + 1/2 + 1/3) p = .249 here)
+    expect(levels('All p values were Benjamini–Yekutieli adjusted for three comparisons.\n\nThe groups differed, t(28) = 2.10, p = .24.', 'significance-follows-from-t')).toEqual(['note']);
+  });
+});

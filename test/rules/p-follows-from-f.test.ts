@@ -94,6 +94,13 @@ describe('an F of a repeated-measures analysis whose p fits only a sphericity co
       expect(levels(`${words}\n\nThe cue had no effect, F(3, 45) = 0.62, p = .52.`, 'p-follows-from-f')).toEqual(['warning']);
     }
   });
+  it('reads a correction a negation elsewhere in the sentence does not deny, and one denied at its words as none', () => {
+    const f = 'The cue had no effect, F(3, 45) = 0.62, p = .52.';
+    expect(levels(`Greenhouse–Geisser corrected results are reported; no further adjustment for multiple comparisons was made.\n\n${f}`, 'p-follows-from-f')).toEqual(['note']);
+    expect(levels(`Greenhouse–Geisser corrections were applied unless sphericity was met.\n\n${f}`, 'p-follows-from-f')).toEqual(['note']);
+    expect(levels(`The sphericity assumption held.\n\n${f}`, 'p-follows-from-f')).toEqual(['warning']);
+    for (const dash of ['–', '-']) expect(levels(`We applied no Greenhouse${dash}Geisser correction.\n\n${f}`, 'p-follows-from-f')).toEqual(['warning']);
+  });
   it('stays a warning where its own sentence names an analysis between groups only', () => {
     expect(levels(`${named}\n\nA one-way between-subjects ANOVA showed no effect of cue, F(3, 45) = 0.62, p = .52.`, 'p-follows-from-f')).toEqual(['warning']);
   });

@@ -80,6 +80,12 @@ describe("Welch's test named only for the whole text: a whole df that a rounded 
     expect(f?.message).toMatch(/^Not checked with certainty \(Welch's test is named elsewhere in the text, “Welch's t-tests”, not with this result: if its df of 5 is a Welch df printed whole \(4\.5 to 5\.5\), the two-tailed p would be 0\.0438 to 0\.0537, which holds the reported p\)\. Reported p = \.045\./);
     expect(f?.related).toEqual([expect.objectContaining({ message: "Welch's test named here", start: { line: 1, column: 27 } })]);
   });
+  it("reads Welch's correction of a t-test, and the Welch–Satterthwaite approximation, as Welch's test", () => {
+    expect(found("A t-test with Welch's correction showed that the groups differed, t(5) = 2.60, p = .045.")).toEqual([]);
+    expect(found("Groups were compared with t-tests with Welch's correction.\n\nThe groups differed, t(5) = 2.60, p = .045.").map((f) => f.level)).toEqual(['note']);
+    expect(found('Degrees of freedom were adjusted with the Welch–Satterthwaite approximation.\n\nThe groups differed, t(5) = 2.60, p = .045.').map((f) => f.level)).toEqual(['note']);
+    expect(found("We used Welch's test, which does not assume equal variances.\n\nThe groups differed, t(5) = 2.60, p = .045.").map((f) => f.level)).toEqual(['note']);
+  });
   it('reads a negation elsewhere in the sentence as no denial of the name', () => {
     expect(found("Because the variances were not equal, Welch's t-tests were used.\n\nThe groups differed, t(5) = 2.60, p = .045.").map((f) => f.level)).toEqual(['note']);
     expect(found("Welch's t-test was used instead of Student's.\n\nThe groups differed, t(5) = 2.60, p = .045.").map((f) => f.level)).toEqual(['note']);

@@ -37,3 +37,15 @@ describe('a p the text says came from resampling is a note where it does not fol
     expect(found('The p values were obtained from 10,000 permutations.\n\nThe groups differed, t(28) = 2.10, p = .045.', 'p-follows-from-t')).toEqual([]);
   });
 });
+
+describe('resampling words, second review (invented cases)', () => {
+  const t = 'The groups differed, t(28) = 2.10, p = .037.';
+  it('reads more ways of saying it', () => {
+    expect(levels(`Significance was assessed with permutation tests.\n\n${t}`, 'p-follows-from-t')).toEqual(['note']);
+    expect(levels(`The p values were computed from 10000 random permutations.\n\n${t}`, 'p-follows-from-t')).toEqual(['note']);
+    expect(levels('The groups differed, t(28) = 2.10, permutation p = .037.', 'p-follows-from-t')).toEqual(['note']);
+  });
+  it('takes resampling denied at its words as none', () => {
+    expect(levels(`Permutation-based p values were not computed.\n\n${t}`, 'p-follows-from-t')).toEqual(['warning']);
+  });
+});
