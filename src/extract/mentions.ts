@@ -38,7 +38,9 @@ const CORRECTION_WORD = /^(?:sphericity|assumptions?|violations?|tests?|correcti
 /** Words saying sphericity held, so that no correction was due ("Mauchly's test showed that sphericity held"). */
 const SPHERICITY_HELD = /(?<![\p{L}])(?:sphericity|(?:assumption of|the) sphericity(?: assumption)?) (?:held|was met|could be assumed|was assumed|was not violated|had not been violated)(?![\p{L}])/iu;
 /** Words naming an analysis between groups only: an F said with them is not one of repeated measures. */
-const BETWEEN_SUBJECTS = /(?<![\p{L}])(?:between[- ](?:subjects?|groups?|participants?) (?:analys[ie]s of variance|ANOVAs?|designs?)|independent[- ]groups? (?:analys[ie]s of variance|ANOVAs?))(?![\p{L}])/giu;
+const BETWEEN_SUBJECTS = /(?<![\p{L}])(?:between[- ](?:subjects?|groups?|participants?) (?:analys[ie]s of variance|ANOVAs?|designs?|factors?)|independent[- ]groups? (?:analys[ie]s of variance|ANOVAs?)|(?:two|three|four|five|six|\d{1,2}) independent (?:groups|samples))(?![\p{L}])/giu;
+/** A sentence saying no sphericity correction was applied: sphericity held, or the dfs are uncorrected. */
+const NO_SPHERICITY_CORRECTION = /(?<![\p{L}])(?:(?:sphericity|Mauchly)[^.;]{0,80}?(?:held|was met|could be assumed|was assumed|not violated|no correction|uncorrected)|uncorrected (?:dfs|degrees of freedom))(?![\p{L}])/iu;
 /**
  * Words saying p values came from resampling rather than from a distribution ("p values were
  * obtained from 10,000 permutations", "permutation-based p values"): such a p need not follow
@@ -59,7 +61,8 @@ const MAY: Record<Mention['kind'], RegExp> = {
   exclusion: /exclu|drop|withdr|lost to|missing|incomplete|did not complete|attrition|removed/i,
   'test-name': /t[- ]test|Welch|Student t|Student['’]s t/i,
   'repeated-measures': /ANOVA|analys[ie]s of variance|subjects? factor|spheric|Greenhouse|Huynh|Mauchly/i,
-  'between-subjects': /between[- ](?:subj|group|partic)|independent[- ]group/i,
+  'between-subjects': /between[- ](?:subj|group|partic)|independent[- ]group|independent (?:groups|samples)/i,
+  'no-sphericity-correction': /spheric|Mauchly|uncorrected/i,
   'resampled-p': /permut|bootstrap|resampl|Monte Carlo|randomi[sz]ation|p_?perm/i,
   'resampling-test': /(?:permutation|randomi[sz]ation) (?:t[- ])?test/i,
 };
@@ -89,6 +92,13 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
       if (!deniedAt(text, m.index, m.index + m[0].length, starts[i] as number, starts[i + 1] ?? text.length)) add(kind, m);
     }
   }
+  if (MAY['no-sphericity-correction'].test(text)) {
+    for (let i = 0; i < starts.length; i += 1) {
+      const from = starts[i] as number;
+      const m = NO_SPHERICITY_CORRECTION.exec(text.slice(from, starts[i + 1] ?? text.length));
+      if (m) out.push({ kind: 'no-sphericity-correction', segment: seg.id, block: seg.block, sentence: i, span: sourceSpan(seg, from + m.index, from + m.index + m[0].length), printed: m[0] });
+    }
+  }
   if (MAY['repeated-measures'].test(text)) for (const m of matchesOf(REPEATED_MEASURES, text)) {
     // a correction's name denied at its words ("no Greenhouse–Geisser correction"), or in a
     // sentence saying sphericity held, is no sign of a correction
@@ -98,6 +108,10 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
       // (a correction's own name is not denied by sphericity holding elsewhere: "applied unless sphericity was met")
       const named = /^(?:Greenhouse|Huynh)/iu.test(m[0]);
       if (deniedAt(text, m.index, m.index + m[0].length, from, to) || (!named && SPHERICITY_HELD.test(text.slice(from, to)))) continue;
+      if (named) {
+        out.push({ ...placeOf(seg, starts, m), kind: 'repeated-measures', namesCorrection: true });
+        continue;
+      }
     }
     add('repeated-measures', m);
   }
@@ -131,9 +145,9 @@ const NAMES_A_TEST = /(?<![\p{L}])t(?![\p{L}])|test/u;
  * between ("no Greenhouse–Geisser", "did not use Welch's", "would not survive a Bonferroni"; not
  * "did not differ after Bonferroni", where the negation is about something else).
  */
-const DENIED_BEFORE = /(?:(?<![\p{L}])(?:not|never|no|without|nor|neither|instead of|rather than)|n['’]t)(?: (?:use|used|using|apply|applied|applying|survive|need|needed|require|required|perform|performed|run|a|an|the|any|further|with)){0,3} $/iu;
+const DENIED_BEFORE = /(?:(?<![\p{L}])(?:not|never|no|none|without|nor|neither|unlike|instead of|rather than)|n['’]t)(?: (?:use|used|using|apply|applied|applying|survive|need|needed|require|required|perform|performed|run|a|an|the|any|further|with|of|p|p-values?|values?|were|was)){0,4} $/iu;
 /** Some words said not to be so right after them ("… was not needed", "… were not applied", "… were not computed"). */
-const DENIED_AFTER = /^(?: [\p{L}'’‐–-]{1,15}){0,2} (?:(?:was|were|is|are|has been|have been) (?:not|never)(?![\p{L}])|(?:wasn|weren|isn|aren)['’]t(?![\p{L}]))/iu;
+const DENIED_AFTER = /^(?: [\p{L}'’‐–-]{1,15}){0,2} (?:(?:was|were|is|are|has been|have been) (?:not|never)(?![\p{L}])|(?:wasn|weren|isn|aren)['’]t(?![\p{L}])|(?:was|were) (?:considered but )?(?:rejected|dropped|abandoned|discarded)(?![\p{L}]))/iu;
 
 /**
  * Whether the words at [from, to) of `text` are denied: a negation or "instead of" right before

@@ -43,12 +43,12 @@ const EVERY_P = /(?<![\p{L}])(?:p[- ]?values?|(?:all|every|each)(?: [\p{L}-]+){0
 const EVERY_P_REACH = 60;
 
 /** Words saying p values were not corrected ("did not correct", "no adjustment", "were not adjusted", "uncorrected"). */
-const NOT_CORRECTED = /(?<![\p{L}])(?:(?:not|no|never|without)(?: (?:further|formal|explicit|any|a|the|be|been|were|was|is|are)){0,2} (?:correct|adjust)\p{L}*|uncorrected|unadjusted)(?![\p{L}])/iu;
+const NOT_CORRECTED = /(?<![\p{L}])(?:(?:not|no|none|never|without)(?: (?:further|formal|explicit|any|a|the|be|been|were|was|is|are|of|p|p-values?|values?)){0,5} (?:[\p{L}–-]+[- ])?(?:correct|adjust)\p{L}*|(?:did|do|does|was|were) not (?:apply|applied|use|used|perform|performed)|uncorrected|unadjusted|raw p|(?:are|were|is) raw)(?![\p{L}])/iu;
 /** A correction of alpha rather than of the p values ("a Bonferroni-corrected alpha of .017", "α = .05/3"): the p values stay unadjusted. */
-const CORRECTED_ALPHA = /(?<![\p{L}])(?:(?:corrected|adjusted) (?:alpha|α|significance (?:level|threshold|criterion)|threshold|level)|(?:alpha|α|significance level|threshold)(?: level)?(?: was| of)? (?:corrected|adjusted|divided)|0?\.0[1-5] ?\/ ?\d)/iu;
+const CORRECTED_ALPHA = /(?<![\p{L}])(?:(?:corrected|adjusted) (?:alpha|α|significance (?:level|threshold|criterion)|threshold|level)|(?:alpha|α|significance level|threshold)(?: level)?(?: was| of)? (?:[\p{L}–-]+[- ])?(?:corrected|adjusted|divided)|0?\.0[1-5] ?\/ ?\d|(?:alpha|α|threshold|level|criterion|p ?[<≤]|below|at|to) (?:(?:of|=|was|set at|set to) ?)?0?\.0(?:[0-4]\d*|5\d+)(?!\d))/iu;
 
 /** A correction for multiple comparisons named in a sentence. */
-const CORRECTION = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidak|Hochberg|Benjamini|false discovery rate|FDR|Tukey)(?![\p{L}])/iu;
+const CORRECTION = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidák|Sidak|Hochberg|Benjamini|false discovery rate|FDR|Tukey)(?![\p{L}])/iu;
 
 /** Statements about tails, equivalence testing, alpha and what ± stands for, in one segment. */
 export function findStatements(seg: Segment, sentenceStarts: number[]): ContextStatement[] {
@@ -130,7 +130,7 @@ function correctionMethod(word: string): AdjustMethod {
   if (w === 'bonferroni') return 'bonferroni';
   if (w === 'holm') return 'holm';
   if (w === 'hochberg') return 'hochberg';
-  if (w === 'sidak' || w === 'šidák') return 'sidak';
+  if (w === 'sidak' || w === 'šidák' || w === 'sidák') return 'sidak';
   if (w === 'tukey') return 'tukey';
   return 'fdr';
 }

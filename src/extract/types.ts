@@ -481,7 +481,7 @@ export interface PowerStatement {
  * what a test assumes ("Welch's test does not assume equal variances").
  */
 export interface Mention {
-  kind: 'software' | 'assumption' | 'multiplicity' | 'trend' | 'exclusion' | 'test-name' | 'repeated-measures' | 'between-subjects' | 'resampled-p' | 'resampling-test';
+  kind: 'software' | 'assumption' | 'multiplicity' | 'trend' | 'exclusion' | 'test-name' | 'repeated-measures' | 'between-subjects' | 'no-sphericity-correction' | 'resampled-p' | 'resampling-test';
   segment: number;
   block: number;
   sentence: number;
@@ -495,6 +495,8 @@ export interface Mention {
   table?: TableRow;
   /** Said in a table's caption or note: that table. */
   legendOf?: number;
+  /** For `repeated-measures`: a sphericity correction named as applied (Greenhouse–Geisser, Huynh–Feldt). */
+  namesCorrection?: true;
   /** For a test name: the words are denied ("Welch's test was not needed", "instead of Welch's t-test"; mentions.ts deniedAt). */
   negated?: true;
 }

@@ -112,7 +112,10 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const resampledOf = resampledJoiner(extraction);
   // Welch's test named where no test is reported ("Welch's t-tests were used throughout")
   // (as a test: not "Welch's method" or "Welch's ANOVA", and not in a sentence that negates it)
-  const generalWelch = extraction.mentions.find((m) => m.kind === 'test-name' && m.test?.variant === 'welch' && m.test.namesTest === true && m.negated !== true && !sentencesWithTests.has(`${m.segment}:${m.sentence}`));
+  // (and none where the text also names Student's test so: it then says which test its results are)
+  const generalName = (variant: 'welch' | 'student') =>
+    extraction.mentions.find((m) => m.kind === 'test-name' && m.test?.variant === variant && m.negated !== true && (variant === 'student' || m.test.namesTest === true) && !sentencesWithTests.has(`${m.segment}:${m.sentence}`));
+  const generalWelch = generalName('student') ? undefined : generalName('welch');
   const results: LinkedResult[] = extraction.tests.map((report) => {
     const k = `${report.segment}:${report.sentence}`;
     const reading = readingOf(k, report.segment, report.sentence);
@@ -209,15 +212,22 @@ const withAdjustment = (s: ContextStatement | undefined) => (s ? { adjustmentSai
  * that reports no statistic. A permutation test named elsewhere (for another analysis) says
  * nothing of this p.
  */
-function resampledJoiner(extraction: Extraction): (at: { segment: number; sentence: number }) => Mention | undefined {
+function resampledJoiner(extraction: Extraction): (at: { segment: number; sentence: number; span: Span; p?: { span: Span } }) => Mention | undefined {
   const said = extraction.mentions.filter((m) => m.kind === 'resampled-p' || m.kind === 'resampling-test');
   if (said.length === 0) return () => undefined;
   const key = (x: { segment: number; sentence: number }) => `${x.segment}:${x.sentence}`;
   const withStatistics = new Set([...extraction.tests.map(key), ...extraction.otherStatistics.map(key)]);
-  const bySentence = new Map<string, Mention>();
-  for (const m of said) if (!bySentence.has(key(m))) bySentence.set(key(m), m);
+  const bySentence = new Map<string, Mention[]>();
+  for (const m of said) {
+    const list = bySentence.get(key(m));
+    if (list) list.push(m);
+    else bySentence.set(key(m), [m]);
+  }
   const general = said.find((m) => m.kind === 'resampled-p' && !withStatistics.has(key(m)));
-  return (at) => bySentence.get(key(at)) ?? general;
+  // in its sentence, only words before its p speak of it ("A permutation test gave t(28) = …,
+  // p = …", "t(28) = …, permutation p = …"); words after it are another p's ("…, p = .072,
+  // whereas the permutation test gave p = .02")
+  return (at) => bySentence.get(key(at))?.find((m) => m.span.start < (at.p?.span.start ?? at.span.end)) ?? general;
 }
 
 const withResampled = (m: Mention | undefined) => (m ? { resampledP: m } : {});
@@ -234,7 +244,12 @@ function repeatedMeasuresJoiner(extraction: Extraction): (o: OtherStatistic) => 
   const first = said[0];
   if (!first) return () => undefined;
   const key = (x: { segment: number; sentence: number }) => `${x.segment}:${x.sentence}`;
-  const between = new Set(extraction.mentions.filter((m) => m.kind === 'between-subjects').map(key));
+  // a text saying no sphericity correction was applied, and naming none applied, prints uncorrected p values
+  const applied = said.some((m) => m.namesCorrection === true);
+  if (!applied && extraction.mentions.some((m) => m.kind === 'no-sphericity-correction')) return () => undefined;
+  const betweenMentions = extraction.mentions.filter((m) => m.kind === 'between-subjects');
+  const between = new Set(betweenMentions.map(key));
+  const betweenParagraphs = new Set(betweenMentions.map((m) => m.segment));
   const bySentence = new Map<string, Mention>();
   const bySegment = new Map<number, Mention>();
   for (const m of said) {
@@ -249,6 +264,8 @@ function repeatedMeasuresJoiner(extraction: Extraction): (o: OtherStatistic) => 
     if (between.has(key(o))) return undefined;
     const inParagraph = bySegment.get(o.segment);
     if (inParagraph) return { mention: inParagraph, basis: 'paragraph' };
+    // its paragraph names an analysis between groups only, and none with repeated measures
+    if (betweenParagraphs.has(o.segment)) return undefined;
     return { mention: first, basis: 'document' };
   };
 }

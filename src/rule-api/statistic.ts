@@ -239,7 +239,10 @@ export function statisticPFindings(
       if (linked.repeatedMeasures && linked.repeatedMeasures.basis !== 'sentence') related.push({ span: linked.repeatedMeasures.mention.span, message: 'repeated measures named here' });
     }
     if (e.maybeAdjusted && linked.adjustmentSaid) {
-      doubts.push(adjustmentDoubt(linked.adjustmentSaid, `${statisticName(s.kind)} gives`, e.nearest.range));
+      const said = linked.adjustmentSaid;
+      // the range of the reading the correction could have made the p from (maybeAdjusted found one)
+      const from = e.readings.find((r) => mayBeAdjusted(said, r.range, e.reported))?.range ?? e.nearest.range;
+      doubts.push(adjustmentDoubt(said, `${statisticName(s.kind)} gives`, from));
       related.push({ span: linked.adjustmentSaid.span, message: 'the correction named here' });
     }
     if (linked.resampledP) {

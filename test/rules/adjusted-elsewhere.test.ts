@@ -82,3 +82,24 @@ describe('what counts as a correction of every p (invented cases, second review)
     expect(levels('All p values were Benjamini–Yekutieli adjusted for three comparisons.\n\nThe groups differed, t(28) = 2.10, p = .24.', 'significance-follows-from-t')).toEqual(['note']);
   });
 });
+
+describe('third review (invented cases): denials, alpha thresholds and the reading the note names', () => {
+  // t(30) = 2.50 gives two-tailed .0179 to .0183; four Bonferroni comparisons would give .0716 to .0733
+  const t = 'The groups differed, t(30) = 2.50, p = .072.';
+  it('takes "no p values were", "none of", "did not apply" and raw p values as no correction', () => {
+    for (const words of ['No p values were Bonferroni-corrected.', 'None of the p values were Bonferroni-corrected.', 'We considered a Bonferroni correction for the four outcomes but did not apply one.', 'All p values in the text are raw; Bonferroni thresholds are given in Table 2.']) {
+      expect(levels(`${words}\n\n${t}`, 'significance-follows-from-t')).toEqual(['error']);
+    }
+  });
+  it('takes a threshold below .05 in the correction\'s sentence as a corrected alpha', () => {
+    for (const words of ['Each of the four tests was evaluated at an alpha of .0125 (Bonferroni).', 'All p values below .0125 were considered significant (Bonferroni correction for four tests).', 'The threshold was Bonferroni-adjusted to .0125 for all four tests.', 'All results were significant at p < .0125 (Bonferroni correction for four tests).']) {
+      expect(levels(`${words}\n\n${t}`, 'significance-follows-from-t')).toEqual(['error']);
+    }
+  });
+  it('names the range of the reading the correction could have made the p from (r, bracket as df)', () => {
+    // r(30) = .40: two-tailed .0215 to .0253 with df 30 (×3: .0644 to .0758), .0264 to .0308 with df 28
+    const [f] = checkSource('adj.md', 'All p values were Bonferroni-corrected for three comparisons.\n\nSleep and mood were related, r(30) = .40, p = .070.').findings.filter((x) => x.ruleId === 'significance-follows-from-statistic');
+    expect(f?.level).toBe('note');
+    expect(f?.message).toContain('(the correction for 3 comparisons could give 0.0644 to 0.0758)');
+  });
+});

@@ -101,6 +101,11 @@ describe('an F of a repeated-measures analysis whose p fits only a sphericity co
     expect(levels(`The sphericity assumption held.\n\n${f}`, 'p-follows-from-f')).toEqual(['warning']);
     for (const dash of ['–', '-']) expect(levels(`We applied no Greenhouse${dash}Geisser correction.\n\n${f}`, 'p-follows-from-f')).toEqual(['warning']);
   });
+  it('stays a warning where the text says no sphericity correction was applied, or the F\'s paragraph names independent groups', () => {
+    expect(levels(`${named} Mauchly's test indicated that sphericity held, so no correction was applied and uncorrected dfs are reported.\n\nThe cue had no effect, F(3, 45) = 0.62, p = .52.`, 'p-follows-from-f')).toEqual(['warning']);
+    // F(2, 60) = 3.50 gives .0363 to .0367 (scipy.stats.f.sf): significant, so .06 flips the call
+    expect(levels(`${named}\n\nScores of the three independent groups were compared with a one-way ANOVA. The groups did not differ, F(2, 60) = 3.50, p = .06.`, 'significance-follows-from-statistic')).toEqual(['error']);
+  });
   it('stays a warning where its own sentence names an analysis between groups only', () => {
     expect(levels(`${named}\n\nA one-way between-subjects ANOVA showed no effect of cue, F(3, 45) = 0.62, p = .52.`, 'p-follows-from-f')).toEqual(['warning']);
   });

@@ -49,3 +49,11 @@ describe('resampling words, second review (invented cases)', () => {
     expect(levels(`Permutation-based p values were not computed.\n\n${t}`, 'p-follows-from-t')).toEqual(['warning']);
   });
 });
+
+describe('resampling named after a result\'s p is another p\'s (third review, invented)', () => {
+  it('leaves the parametric result certain', () => {
+    // t(30) = 2.50 gives two-tailed .0179 to .0183
+    expect(levels('The parametric t-test gave t(30) = 2.50, p = .072, whereas the permutation test gave p = .02.', 'significance-follows-from-t')).toEqual(['error']);
+    expect(levels('The groups differed, t(28) = 2.10, p = .037, and a permutation test confirmed this (p = .041).', 'p-follows-from-t')).toEqual(['warning']);
+  });
+});
