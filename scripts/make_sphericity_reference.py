@@ -46,10 +46,10 @@ def extreme(f, d1, d2, sign):
 
 cases = []
 for d1 in (2, 3, 4, 6, 8, 12, 20):
-    for m in (1, 4, 14, 40):
+    for m in (1, 5, 13, 40):
         d2 = d1 * m
         # 1.67 with df1 = 20: the largest p lies inside the first grid cell of epsilon
-        for f, half in ((0.001, 0.0005), (0.41, 0.005), (0.9, 0.005), (1.01, 0.005), (1.25, 0.005), (1.5, 0.05), (1.67, 0.005), (2.6, 0.005), (4.2, 0.05), (9.5, 0.05), (25.3, 0.05)):
+        for f, half in ((0.002, 0.0005), (0.43, 0.005), (0.9, 0.005), (1.03, 0.005), (1.25, 0.005), (1.5, 0.05), (1.67, 0.005), (2.6, 0.005), (4.2, 0.05), (9.5, 0.05), (25.3, 0.05)):
             f_lo, f_hi = float(f"{f - half:.6g}"), float(f"{f + half:.6g}")
             e_low, p_low = extreme(f_hi, d1, d2, 1)
             e_high, p_high = extreme(f_lo, d1, d2, -1)

@@ -24,10 +24,10 @@ ruleTable('p-follows-from-f', [
 ]);
 
 describe('a gap just over half a unit reads as more than the half unit rounding allows', () => {
-  // F(2, 28) = 0.001 is read as 0.0005 to 0.0015; scipy.stats.f.sf(0.0015, 2, 28) = 0.9985012
+  // F(2, 44) = 0.001 is read as 0.0005 to 0.0015; scipy.stats.f.sf(0.0015, 2, 44) = 0.9985012
   // (Debian python3-scipy), so .998 misses by 0.5012 units of its last digit, not by "0.5".
   it('shows the units with the digits that tell them apart', () => {
-    const report = checkSource('gap.md', 'x, F(2, 28) = 0.001, p = .998.');
+    const report = checkSource('gap.md', 'x, F(2, 44) = 0.001, p = .998.');
     const finding = report.findings.find((f) => f.ruleId === 'p-follows-from-f');
     expect(finding?.message).toContain('(0.501 units of the last printed digit; rounding allows 0.5 units)');
   });
