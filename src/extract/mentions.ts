@@ -120,7 +120,7 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
     const named = testNameWords(m[0]);
     if (!named) continue;
     // "Welch's correction", "Welch-corrected", "Welch–Satterthwaite", "t-tests with Welch's …": a test's df
-    const test = named.variant === 'welch' && !named.namesTest && (WELCH_AFTER.test(text.slice(m.index + m[0].length, m.index + m[0].length + 20)) || WELCH_BEFORE.test(text.slice(Math.max(0, m.index - 30), m.index))) ? { ...named, namesTest: true as const } : named;
+    const test = named.variant === 'welch' && !named.namesTest && (WELCH_AFTER.test(text.slice(m.index + m[0].length, m.index + m[0].length + 40)) || WELCH_BEFORE.test(text.slice(Math.max(0, m.index - 30), m.index))) ? { ...named, namesTest: true as const } : named;
     const i = sentenceOf(starts, m.index);
     const negated = deniedAt(text, m.index, m.index + m[0].length, starts[i] as number, starts[i + 1] ?? text.length);
     out.push({ ...placeOf(seg, starts, m), kind: 'test-name', test, ...(negated ? { negated: true as const } : {}) });
@@ -134,8 +134,8 @@ function placeOf(seg: Segment, starts: number[], m: RegExpMatchArray): Omit<Ment
   return { segment: seg.id, block: seg.block, sentence: sentenceOf(starts, at), span: sourceSpan(seg, at, at + m[0].length), printed: m[0] };
 }
 
-/** Words after "Welch" that make it a t-test's correction ("Welch's correction", "Welch-corrected", "Welch–Satterthwaite"). */
-const WELCH_AFTER = /^[-–‐ ](?:correct\p{L}*|adjust\p{L}*|Satterthwaite|approximation)/iu;
+/** Words after "Welch" that make it a t-test or its correction ("Welch's correction", "Welch-corrected", "Welch–Satterthwaite", "Welch's two-sample t-tests", "Welch-type t"). */
+const WELCH_AFTER = /^[-–‐ ](?:correct\p{L}*|adjust\p{L}*|Satterthwaite|approximation|type t|(?:two|independent)[- ]samples? t(?![\p{L}])|(?:two|independent)[- ]samples? t[- ]tests?)/iu;
 /** A t-test named right before "Welch" ("t-tests with Welch's correction"). */
 const WELCH_BEFORE = /(?<![\p{L}])t[- ]tests? (?:with|using|under) (?:a |the )?$/iu;
 /** Words that make a name one of a test: a t or "test" ("Welch's t", "Welch test"; not "Welch's" alone, as in "Welch's method"). */

@@ -85,6 +85,9 @@ describe("Welch's test named only for the whole text: a whole df that a rounded 
     expect(found("Groups were compared with t-tests with Welch's correction.\n\nThe groups differed, t(5) = 2.60, p = .045.").map((f) => f.level)).toEqual(['note']);
     expect(found('Degrees of freedom were adjusted with the Welch–Satterthwaite approximation.\n\nThe groups differed, t(5) = 2.60, p = .045.').map((f) => f.level)).toEqual(['note']);
     expect(found("We used Welch's test, which does not assume equal variances.\n\nThe groups differed, t(5) = 2.60, p = .045.").map((f) => f.level)).toEqual(['note']);
+    for (const words of ["Groups were compared with Welch's two-sample t-tests.", "Groups were compared with Welch's independent-samples t-tests.", 'Groups were compared with Welch-type t statistics.']) {
+      expect(found(`${words}\n\nThe groups differed, t(5) = 2.60, p = .045.`).map((f) => f.level)).toEqual(['note']);
+    }
   });
   it("takes Welch's test said to be rejected, contrasted, or set beside Student's tests for the whole text as no sign of a Welch df", () => {
     for (const words of ["Because the variances were equal, Student's t-tests are reported; Welch's t-tests gave the same conclusions.", "Unlike Welch's t-test, Student's t-test pools the variances.", "Welch's t-test was considered but rejected."]) {
