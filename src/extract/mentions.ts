@@ -1,5 +1,5 @@
 import type { Segment } from '../parse/types.js';
-import { sentenceOf, sourceSpan } from './numbers.js';
+import { sentenceBounds, sentenceOf, sourceSpan } from './numbers.js';
 import type { Mention, TestNameWords } from './types.js';
 import { matchesOf } from './matches.js';
 
@@ -76,8 +76,7 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
   };
   if (MAY.software.test(text)) for (const m of matchesOf(SOFTWARE, text)) {
     // "R" alone is a software name only beside words about analysis, or with a version
-    const sentence = starts[sentenceOf(starts, m.index)] as number;
-    const context = text.slice(sentence, starts[sentenceOf(starts, m.index) + 1] ?? text.length);
+    const context = text.slice(...sentenceBounds(starts, m.index, text.length));
     if ((m[1] === 'R' || m[1] === 'Python' || m[1] === 'Excel' || m[1] === 'Prism') && !m[2] && !SOFTWARE_CONTEXT.test(context)) continue;
     if (m[1] === 'R' && !m[2] && !/(?<![\p{L}])R (?:software|package|version|Core|\(R Core|statistical|environment)|in R(?![\p{L}])|using R(?![\p{L}])|R \d/u.test(context)) continue;
     add('software', m, m[2]);
@@ -88,8 +87,7 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
   // resampling denied at its words ("Permutation-based p values were not computed") says nothing of a p
   for (const [re, kind] of [[RESAMPLED_P, 'resampled-p'], [RESAMPLING_TEST, 'resampling-test']] as const) {
     if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) {
-      const i = sentenceOf(starts, m.index);
-      if (!deniedAt(text, m.index, m.index + m[0].length, starts[i] as number, starts[i + 1] ?? text.length)) add(kind, m);
+      if (!deniedAt(text, m.index, m.index + m[0].length, starts)) add(kind, m);
     }
   }
   if (MAY['no-sphericity-correction'].test(text)) {
@@ -103,11 +101,10 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
     // a correction's name denied at its words ("no Greenhouse–Geisser correction"), or in a
     // sentence saying sphericity held, is no sign of a correction
     if (CORRECTION_WORD.test(m[0])) {
-      const i = sentenceOf(starts, m.index);
-      const [from, to] = [starts[i] as number, starts[i + 1] ?? text.length];
+      const [from, to] = sentenceBounds(starts, m.index, text.length);
       // (a correction's own name is not denied by sphericity holding elsewhere: "applied unless sphericity was met")
       const named = /^(?:Greenhouse|Huynh)/iu.test(m[0]);
-      if (deniedAt(text, m.index, m.index + m[0].length, from, to) || (!named && SPHERICITY_HELD.test(text.slice(from, to)))) continue;
+      if (deniedAt(text, m.index, m.index + m[0].length, starts) || (!named && SPHERICITY_HELD.test(text.slice(from, to)))) continue;
       if (named) {
         out.push({ ...placeOf(seg, starts, m), kind: 'repeated-measures', namesCorrection: true });
         continue;
@@ -121,8 +118,7 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
     if (!named) continue;
     // "Welch's correction", "Welch-corrected", "Welch–Satterthwaite", "t-tests with Welch's …": a test's df
     const test = named.variant === 'welch' && !named.namesTest && (WELCH_AFTER.test(text.slice(m.index + m[0].length, m.index + m[0].length + 40)) || WELCH_BEFORE.test(text.slice(Math.max(0, m.index - 30), m.index))) ? { ...named, namesTest: true as const } : named;
-    const i = sentenceOf(starts, m.index);
-    const negated = deniedAt(text, m.index, m.index + m[0].length, starts[i] as number, starts[i + 1] ?? text.length);
+    const negated = deniedAt(text, m.index, m.index + m[0].length, starts);
     out.push({ ...placeOf(seg, starts, m), kind: 'test-name', test, ...(negated ? { negated: true as const } : {}) });
   }
   const where = seg.table ? { table: { table: seg.table.table, row: seg.table.row } } : seg.legendOf ? { legendOf: seg.legendOf.table } : {};
@@ -154,8 +150,10 @@ const DENIED_AFTER = /^(?: [\p{L}'’‐–-]{1,15}){0,2} (?:(?:was|were|is|are|
  * them ("without Welch's correction", "would not survive a Bonferroni correction"), or said not
  * to be so right after them ("Welch's test was not needed"). A negation elsewhere in the sentence
  * ("Because the variances were not equal, Welch's t-tests were used") does not deny them.
+ * `sentenceStarts`: where the text's sentences start, as for sentenceOf.
  */
-export function deniedAt(text: string, from: number, to: number, sentenceStart: number, sentenceEnd: number): boolean {
+export function deniedAt(text: string, from: number, to: number, sentenceStarts: number[]): boolean {
+  const [sentenceStart, sentenceEnd] = sentenceBounds(sentenceStarts, from, text.length);
   return DENIED_BEFORE.test(text.slice(Math.max(sentenceStart, from - 40), from)) || DENIED_AFTER.test(text.slice(to, Math.min(sentenceEnd, to + 50)));
 }
 

@@ -90,6 +90,12 @@ export function sentenceOf(starts: number[], index: number): number {
   return lo;
 }
 
+/** Where the sentence holding `index` starts and ends in a text of `length` characters (`starts` as for sentenceOf). */
+export function sentenceBounds(starts: number[], index: number, length: number): [number, number] {
+  const i = sentenceOf(starts, index);
+  return [starts[i] as number, starts[i + 1] ?? length];
+}
+
 /** The text without white space or any of these characters at its end (a loop: a trailing-run pattern is quadratic). */
 export function trimEndOf(text: string, chars: string): string {
   let end = text.length;

@@ -99,7 +99,7 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
       const comparisons = comparisonsIn(sentence)?.m;
       const b = a + method.index + method[0].length;
       const near = sentence.slice(Math.max(0, method.index - EVERY_P_REACH), method.index + method[0].length + EVERY_P_REACH);
-      const notOfP = NOT_CORRECTED.test(sentence) || CORRECTED_ALPHA.test(sentence) || deniedAt(text, a + method.index, b, a, a + sentence.length);
+      const notOfP = NOT_CORRECTED.test(sentence) || CORRECTED_ALPHA.test(sentence) || deniedAt(text, a + method.index, b, sentenceStarts);
       out.push({
         kind: 'multiplicity',
         // "Bonferroni–Holm" is Holm's procedure; Benjamini–Yekutieli's bound is not Benjamini–Hochberg's

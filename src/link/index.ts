@@ -26,7 +26,7 @@ export const DEFAULT_ALPHA = 0.05;
  */
 export function link(extraction: Extraction, directives: Directive[], settings: DocumentSettings = {}): LinkedDocument {
   // Said of every test, in a sentence that reports none (one that reports a test speaks of it).
-  const sentencesWithTests = new Set(extraction.tests.map((t) => `${t.segment}:${t.sentence}`));
+  const sentencesWithTests = new Set(extraction.tests.map(sentenceKey));
   const general = extraction.statements.filter((s) => s.general === true && !sentencesWithTests.has(`${s.segment}:${s.sentence}`));
   const documentSidedness = agreeing(general.filter((s) => s.kind === 'sidedness'), (s) => s.sidedness as Sidedness, 'document-text')
     ?? settings.sidedness ?? { value: 'two' as Sidedness, basis: 'default' as const };
@@ -108,13 +108,14 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     }
     return r;
   };
-  const adjustmentOf = adjustmentJoiner(extraction);
-  const resampledOf = resampledJoiner(extraction);
+  const sentencesWithStatistics = new Set([...sentencesWithTests, ...extraction.otherStatistics.map(sentenceKey)]);
+  const adjustmentOf = adjustmentJoiner(extraction, sentencesWithStatistics);
+  const resampledOf = resampledJoiner(extraction, sentencesWithStatistics);
   // Welch's test named where no test is reported ("Welch's t-tests were used throughout")
   // (as a test: not "Welch's method" or "Welch's ANOVA", and not in a sentence that negates it)
   // (and none where the text also names Student's test so: it then says which test its results are)
   const generalName = (variant: 'welch' | 'student') =>
-    extraction.mentions.find((m) => m.kind === 'test-name' && m.test?.variant === variant && m.negated !== true && (variant === 'student' || m.test.namesTest === true) && !sentencesWithTests.has(`${m.segment}:${m.sentence}`));
+    extraction.mentions.find((m) => m.kind === 'test-name' && m.test?.variant === variant && m.negated !== true && (variant === 'student' || m.test.namesTest === true) && !sentencesWithTests.has(sentenceKey(m)));
   const generalWelch = generalName('student') ? undefined : generalName('welch');
   const results: LinkedResult[] = extraction.tests.map((report) => {
     const k = `${report.segment}:${report.sentence}`;
@@ -182,6 +183,9 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   };
 }
 
+/** A sentence's key: its segment and its index there. */
+const sentenceKey = (x: { segment: number; sentence: number }) => `${x.segment}:${x.sentence}`;
+
 /**
  * The correction for multiple comparisons that may have been applied to a result's p without
  * the p saying so: one named in the result's own sentence, else the first named in words about
@@ -191,17 +195,15 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
  * adjusted (`p_adj`, "Bonferroni-corrected p = …"): such a text labels its adjusted p values,
  * so an unlabelled p is not one.
  */
-function adjustmentJoiner(extraction: Extraction): (at: { segment: number; sentence: number }) => ContextStatement | undefined {
+function adjustmentJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>): (at: { segment: number; sentence: number }) => ContextStatement | undefined {
   const labelled = extraction.tests.some((t) => t.adjustedP !== undefined || t.p?.adjusted !== undefined) || extraction.otherStatistics.some((o) => o.p?.adjusted !== undefined);
   // Tukey's HSD is a procedure of its own for an ANOVA's pairs, not a correction of other tests' p
   const said = labelled ? [] : extraction.statements.filter((s) => s.kind === 'multiplicity' && s.method !== 'tukey' && s.notOfP !== true);
   if (said.length === 0) return () => undefined;
-  const key = (x: { segment: number; sentence: number }) => `${x.segment}:${x.sentence}`;
-  const withStatistics = new Set([...extraction.tests.map(key), ...extraction.otherStatistics.map(key)]);
   const bySentence = new Map<string, ContextStatement>();
-  for (const s of said) if (!bySentence.has(key(s))) bySentence.set(key(s), s);
-  const general = said.find((s) => s.general === true && !withStatistics.has(key(s)));
-  return (at) => bySentence.get(key(at)) ?? general;
+  for (const s of said) if (!bySentence.has(sentenceKey(s))) bySentence.set(sentenceKey(s), s);
+  const general = said.find((s) => s.general === true && !withStatistics.has(sentenceKey(s)));
+  return (at) => bySentence.get(sentenceKey(at)) ?? general;
 }
 
 const withAdjustment = (s: ContextStatement | undefined) => (s ? { adjustmentSaid: s } : {});
@@ -212,22 +214,20 @@ const withAdjustment = (s: ContextStatement | undefined) => (s ? { adjustmentSai
  * that reports no statistic. A permutation test named elsewhere (for another analysis) says
  * nothing of this p.
  */
-function resampledJoiner(extraction: Extraction): (at: { segment: number; sentence: number; span: Span; p?: { span: Span } }) => Mention | undefined {
+function resampledJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>): (at: { segment: number; sentence: number; span: Span; p?: { span: Span } }) => Mention | undefined {
   const said = extraction.mentions.filter((m) => m.kind === 'resampled-p' || m.kind === 'resampling-test');
   if (said.length === 0) return () => undefined;
-  const key = (x: { segment: number; sentence: number }) => `${x.segment}:${x.sentence}`;
-  const withStatistics = new Set([...extraction.tests.map(key), ...extraction.otherStatistics.map(key)]);
   const bySentence = new Map<string, Mention[]>();
   for (const m of said) {
-    const list = bySentence.get(key(m));
+    const list = bySentence.get(sentenceKey(m));
     if (list) list.push(m);
-    else bySentence.set(key(m), [m]);
+    else bySentence.set(sentenceKey(m), [m]);
   }
-  const general = said.find((m) => m.kind === 'resampled-p' && !withStatistics.has(key(m)));
+  const general = said.find((m) => m.kind === 'resampled-p' && !withStatistics.has(sentenceKey(m)));
   // in its sentence, only words before its p speak of it ("A permutation test gave t(28) = …,
   // p = …", "t(28) = …, permutation p = …"); words after it are another p's ("…, p = .072,
   // whereas the permutation test gave p = .02")
-  return (at) => bySentence.get(key(at))?.find((m) => m.span.start < (at.p?.span.start ?? at.span.end)) ?? general;
+  return (at) => bySentence.get(sentenceKey(at))?.find((m) => m.span.start < (at.p?.span.start ?? at.span.end)) ?? general;
 }
 
 const withResampled = (m: Mention | undefined) => (m ? { resampledP: m } : {});
@@ -243,25 +243,23 @@ function repeatedMeasuresJoiner(extraction: Extraction): (o: OtherStatistic) => 
   const said = extraction.mentions.filter((m) => m.kind === 'repeated-measures');
   const first = said[0];
   if (!first) return () => undefined;
-  const key = (x: { segment: number; sentence: number }) => `${x.segment}:${x.sentence}`;
   // a text saying no sphericity correction was applied, and naming none applied, prints uncorrected p values
   const applied = said.some((m) => m.namesCorrection === true);
   if (!applied && extraction.mentions.some((m) => m.kind === 'no-sphericity-correction')) return () => undefined;
   const betweenMentions = extraction.mentions.filter((m) => m.kind === 'between-subjects');
-  const between = new Set(betweenMentions.map(key));
+  const between = new Set(betweenMentions.map(sentenceKey));
   const betweenParagraphs = new Set(betweenMentions.map((m) => m.segment));
   const bySentence = new Map<string, Mention>();
   const bySegment = new Map<number, Mention>();
   for (const m of said) {
-    const k = `${m.segment}:${m.sentence}`;
-    if (!bySentence.has(k)) bySentence.set(k, m);
+    if (!bySentence.has(sentenceKey(m))) bySentence.set(sentenceKey(m), m);
     if (!bySegment.has(m.segment)) bySegment.set(m.segment, m);
   }
   return (o) => {
-    const inSentence = bySentence.get(`${o.segment}:${o.sentence}`);
+    const inSentence = bySentence.get(sentenceKey(o));
     if (inSentence) return { mention: inSentence, basis: 'sentence' };
     // its own sentence names an analysis between groups only
-    if (between.has(key(o))) return undefined;
+    if (between.has(sentenceKey(o))) return undefined;
     const inParagraph = bySegment.get(o.segment);
     if (inParagraph) return { mention: inParagraph, basis: 'paragraph' };
     // its paragraph names an analysis between groups only, and none with repeated measures

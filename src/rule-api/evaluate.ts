@@ -3,7 +3,7 @@ import type { LinkedResult } from '../link/types.js';
 import type { Span } from '../parse/types.js';
 import { adjustedPRange, checkLog10PAgainstLog10T, checkLog10PAgainstT, checkPAgainstT, distanceBetween, meets, sideOfAlpha, type Interval, type PConsistency, type PInterval } from '../stats/index.js';
 import { showInterval, showNumber } from './format.js';
-import { describeResultDf, describeT, isWholeDf, log10Of, numberLog10Interval, pInterval, pLastDigit, pLog10Interval, resultDfInterval, tInterval } from './intervals.js';
+import { describeResultDf, describeT, isWholeDf, log10Of, numberLog10Interval, pInterval, pLastDigit, pLog10Interval, resultDfInterval, tInterval, welchDfInterval } from './intervals.js';
 import { oncePer } from './once.js';
 import type { Gap, Recomputed } from './types.js';
 
@@ -153,9 +153,9 @@ function evaluatePOnce(result: LinkedResult): PEvaluation | undefined {
   const useOne = result.sidedness.value === 'one';
   // For one-tailed tests the same-direction tail is the usual reading; the opposite tail
   // (equivalence tests) is taken when it is the nearer one.
-  const applicable = useOne ? nearer(check.oneSidedSame, check.oneSidedOpposite, reported) : check.twoSided;
+  const applicable = applicableReading(check, reported, useOne);
   const applicableName = useOne ? 'one-tailed p' : 'two-tailed p';
-  const logApplicable = log10 ? (useOne ? nearer(log10.check.oneSidedSame, log10.check.oneSidedOpposite, log10.reported) : log10.check.twoSided) : undefined;
+  const logApplicable = log10 ? applicableReading(log10.check, log10.reported, useOne) : undefined;
   const reportedSide = log10 ? sideOfAlpha(log10.reported.low, log10.reported.high, Math.log10(alpha), log10.reported.highOpen) : sideOfAlpha(reported.low, reported.high, alpha, reported.highOpen);
   const recomputedSide = logApplicable ? sideOfAlpha(logApplicable.low, logApplicable.high, Math.log10(alpha)) : sideOfAlpha(applicable.low, applicable.high, alpha);
   const decisionFlips = reportedSide !== 'straddles' && recomputedSide !== 'straddles' && reportedSide !== recomputedSide;
@@ -189,13 +189,19 @@ function evaluatePOnce(result: LinkedResult): PEvaluation | undefined {
 
 /** The applicable reading with a whole df read as a rounded Welch df, when it reproduces the reported p. */
 function asWelchDf(box: { tLow: number; tHigh: number; df: number; reported: PInterval }, useOne: boolean): PEvaluation['welchElsewhere'] {
-  const dfLow = Math.max(box.df - 0.5, 1);
-  const dfHigh = box.df + 0.5;
+  const [dfLow, dfHigh] = welchDfInterval(box.df);
   const check = checkPAgainstT({ tLow: box.tLow, tHigh: box.tHigh, dfLow, dfHigh, reported: box.reported });
   const fits = useOne ? check.fitsOneSidedSame || check.fitsOneSidedOpposite : check.fitsTwoSided;
   if (!fits) return undefined;
-  const applicable = useOne ? nearer(check.oneSidedSame, check.oneSidedOpposite, box.reported) : check.twoSided;
-  return { applicable, dfLow, dfHigh };
+  return { applicable: applicableReading(check, box.reported, useOne), dfLow, dfHigh };
+}
+
+/**
+ * The range of the reading that applies to a result: two-tailed, or for a one-tailed test the
+ * same-direction tail, the opposite tail (equivalence tests) when it is the nearer one.
+ */
+function applicableReading(check: PConsistency, reported: PInterval, useOne: boolean): Interval {
+  return useOne ? nearer(check.oneSidedSame, check.oneSidedOpposite, reported) : check.twoSided;
 }
 
 /**

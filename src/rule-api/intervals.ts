@@ -144,9 +144,13 @@ export function describeDf(df: ReportedNumber): string {
 export function resultDfInterval(result: LinkedResult): [number, number] {
   const df = result.report.df;
   if (!df) return [NaN, NaN];
-  // a Welch df is never below 1 (the smaller group's n − 1; common practice, no source)
-  if (roundedWelchDf(result)) return [Math.max(df.value - 0.5, 1), df.value + 0.5];
+  if (roundedWelchDf(result)) return welchDfInterval(df.value);
   return dfInterval(df);
+}
+
+/** A Welch df printed whole as `df`, read as rounded: df − 0.5 to df + 0.5, never below 1 (the smaller group's n − 1; common practice, no source). */
+export function welchDfInterval(df: number): [number, number] {
+  return [Math.max(df - 0.5, 1), df + 0.5];
 }
 
 /** The df as resultDfInterval reads it, in words. */
