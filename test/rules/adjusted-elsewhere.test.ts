@@ -1,20 +1,17 @@
 import { describe, expect, it } from 'vitest';
-import { checkSource } from '../../src/engine/index.js';
+import { findingsOf, levelsOf } from './table.js';
 
 // A p corrected for multiple comparisons is never smaller than the p its statistic gives
 // (Bonferroni, Holm, Šidák, Hochberg, Benjamini–Hochberg all multiply or step up; common practice,
 // no source). Values (scipy.stats.t.sf and f.sf, Debian python3-scipy): t(28) = 2.10 gives
 // two-tailed .0444 to .0453 (2.095 to 2.105); F(1, 38) = 4.21 gives .0470 to .0472.
 // The manuscripts are invented.
-const levels = (markdown: string, rule: string) =>
-  checkSource('adj.md', markdown)
-    .findings.filter((f) => f.ruleId === rule)
-    .map((f) => f.level);
+const levels = levelsOf;
 
 describe('a p larger than its statistic gives, where the text says p values were corrected and labels none as adjusted', () => {
   const general = 'All p values were Bonferroni-corrected for the three comparisons.';
   it('is a note, saying which correction the text names and pointing at it', () => {
-    const [f, ...rest] = checkSource('adj.md', `${general}\n\nThe groups differed, t(28) = 2.10, p = .135.`).findings.filter((x) => x.ruleId === 'significance-follows-from-t');
+    const [f, ...rest] = findingsOf(`${general}\n\nThe groups differed, t(28) = 2.10, p = .135.`, 'significance-follows-from-t');
     expect(rest).toEqual([]);
     expect(f?.level).toBe('note');
     // Bonferroni for three comparisons: 3 × (.0444 to .0453)
@@ -98,7 +95,7 @@ describe('third review (invented cases): denials, alpha thresholds and the readi
   });
   it('names the range of the reading the correction could have made the p from (r, bracket as df)', () => {
     // r(30) = .40: two-tailed .0215 to .0253 with df 30 (×3: .0644 to .0758), .0264 to .0308 with df 28
-    const [f] = checkSource('adj.md', 'All p values were Bonferroni-corrected for three comparisons.\n\nSleep and mood were related, r(30) = .40, p = .070.').findings.filter((x) => x.ruleId === 'significance-follows-from-statistic');
+    const [f] = findingsOf('All p values were Bonferroni-corrected for three comparisons.\n\nSleep and mood were related, r(30) = .40, p = .070.', 'significance-follows-from-statistic');
     expect(f?.level).toBe('note');
     expect(f?.message).toContain('(the correction for 3 comparisons could give 0.0644 to 0.0758)');
   });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { checkSource } from '../../src/engine/index.js';
 import { showLastDigitUnits } from '../../src/rule-api/format.js';
-import { ruleTable } from './table.js';
+import { findingsOf, levelsOf, ruleTable } from './table.js';
 
 // Recomputed p values quoted in names were computed with scipy.stats.f.sf (Debian python3-scipy).
 ruleTable('p-follows-from-f', [
@@ -47,12 +47,9 @@ describe('an F of a repeated-measures analysis whose p fits only a sphericity co
   // F(3, 44) = 0.62: uncorrected .6027 to .6089. F(1, 15) = 0.62: .4415 to .4451.
   // F(2, 38) = 3.41: uncorrected .04326 to .04363; corrected .04326 to .08064.
   const named = 'Response times across the four cue conditions were compared with a repeated-measures ANOVA.';
-  const levels = (markdown: string, rule: string) =>
-    checkSource('rm.md', markdown)
-      .findings.filter((f) => f.ruleId === rule)
-      .map((f) => f.level);
+  const levels = levelsOf;
   const only = (markdown: string, rule: string) => {
-    const found = checkSource('rm.md', markdown).findings.filter((f) => f.ruleId === rule);
+    const found = findingsOf(markdown, rule);
     expect(found).toHaveLength(1);
     return found[0]!;
   };

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { checkSource } from '../../src/engine/index.js';
-import { ruleTable } from './table.js';
+import { findingsOf, levelsOf, ruleTable } from './table.js';
 
 // Recomputed p values quoted in names were checked with scipy.stats.t.sf (Debian python3-scipy).
 ruleTable('p-follows-from-t', [
@@ -52,7 +52,7 @@ describe("a whole df of a result named Welch's test is read as rounded (invented
   // .04796 to .04854 on df 5, and .04380 (t 2.605, df 5.5) to .05375 (t 2.595, df 4.5) over
   // df 4.5 to 5.5. A Welch df is a real number (common practice, no source), so "t(5)" printed
   // for a Welch test stands for 4.5 to 5.5.
-  const found = (markdown: string) => checkSource('w.md', markdown).findings.filter((f) => f.ruleId === 'p-follows-from-t');
+  const found = (markdown: string) => findingsOf(markdown, 'p-follows-from-t');
   it('accepts a p that a df within the rounding of a Welch df gives', () => {
     expect(found("Because the variances differed, Welch's t-test was used: the groups differed, t(5) = 2.60, p = .045.")).toEqual([]);
     expect(found('A Welch test gave t(5) = 2.60, p = .045.')).toEqual([]);
@@ -72,7 +72,7 @@ describe("Welch's test named only for the whole text: a whole df that a rounded 
   // The same values as above (scipy.stats.t.sf): t(5) = 2.60 gives .0480 to .0485 on df 5 and
   // .0438 to .0537 over df 4.5 to 5.5.
   const methods = "Groups were compared with Welch's t-tests.";
-  const found = (markdown: string, rule = 'p-follows-from-t') => checkSource('w.md', markdown).findings.filter((f) => f.ruleId === rule);
+  const found = (markdown: string, rule = 'p-follows-from-t') => findingsOf(markdown, rule);
   it('is a note that says what could not be checked, and where Welch is named', () => {
     const [f, ...rest] = found(`${methods}\n\nThe groups differed, t(5) = 2.60, p = .045.`);
     expect(rest).toEqual([]);
@@ -115,7 +115,7 @@ describe("Welch's test named only for the whole text: a whole df that a rounded 
 });
 
 describe("Welch's name that does not name this test's df (invented cases; t(5) = 2.60 gives .0480 to .0485 on df 5)", () => {
-  const levels = (markdown: string) => checkSource('w.md', markdown).findings.filter((f) => f.ruleId === 'p-follows-from-t').map((f) => f.level);
+  const levels = (markdown: string) => levelsOf(markdown, 'p-follows-from-t');
   it("stays a warning where Welch's name names a method or an ANOVA, or is negated", () => {
     expect(levels("Spectral power was estimated with Welch's method.\n\nThe groups differed, t(5) = 2.60, p = .045.")).toEqual(['warning']);
     expect(levels("Welch's ANOVA compared the three sites.\n\nThe groups differed, t(5) = 2.60, p = .045.")).toEqual(['warning']);

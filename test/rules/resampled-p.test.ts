@@ -1,13 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { checkSource } from '../../src/engine/index.js';
+import { findingsOf, levelsOf } from './table.js';
 
 // A p from a permutation, randomization or bootstrap procedure is an estimate from resampled
 // data, not the tail of the t (or F, χ², r, z) distribution, so it need not follow from the
 // printed statistic (common practice, no source). t(28) = 2.10 gives two-tailed .0444 to .0454
 // and F(1, 38) = 4.21 gives .0470 to .0472 (scipy.stats.t.sf, f.sf; Debian python3-scipy).
 // The manuscripts are invented.
-const found = (markdown: string, rule: string) => checkSource('perm.md', markdown).findings.filter((f) => f.ruleId === rule);
-const levels = (markdown: string, rule: string) => found(markdown, rule).map((f) => f.level);
+const found = findingsOf;
+const levels = levelsOf;
 
 describe('a p the text says came from resampling is a note where it does not follow', () => {
   it('words about every p value, in a sentence that reports none', () => {

@@ -33,3 +33,13 @@ export function ruleTable(ruleId: string, cases: RuleCase[]): void {
     });
   });
 }
+
+/** The findings of one rule on a text, in order (for cases that look at more than place and message id). */
+export function findingsOf(markdown: string, ruleId: string, options?: CheckOptions) {
+  return checkSource('case.md', markdown, options).findings.filter((f) => f.ruleId === ruleId);
+}
+
+/** The levels of one rule's findings on a text, in order: [] when it finds nothing. */
+export function levelsOf(markdown: string, ruleId: string, options?: CheckOptions): string[] {
+  return findingsOf(markdown, ruleId, options).map((f) => f.level);
+}
