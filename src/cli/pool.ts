@@ -209,7 +209,7 @@ export async function checkAll(
             return;
           }
           // the text is not sent back: it is the one sent
-          const outcome = (): Outcome => ({ report: { ...receivedReport(m.bytes), source: head.job.source } });
+          const outcome = (): Outcome => ({ report: { ...receivedReport(m.parts), source: head.job.source } });
           if (!exhausted || slot.queue.length > 0) {
             void settle(m.index, outcome(), slot);
             return;

@@ -118,7 +118,7 @@ export class Checker {
       clearTimeout(busy.timer);
       slot.busy = undefined;
       // the worker does not send the text back: it is the one sent
-      busy.done('error' in m ? { error: m.error } : { report: { ...receivedReport(m.bytes), source: busy.source } });
+      busy.done('error' in m ? { error: m.error } : { report: { ...receivedReport(m.parts), source: busy.source } });
       this.pump();
     });
     w.on('error', (e: Error & { code?: string }) => {
