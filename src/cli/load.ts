@@ -4,7 +4,7 @@ import { createRequire } from 'node:module';
 import { dirname } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import vm from 'node:vm';
-import { cacheFolder, cacheIdentity, cacheKind, readCache, writeCache } from './codeCache.js';
+import { cacheFolder, cacheIdentity, cacheKind, outgrown, readCache, writeCache } from './codeCache.js';
 import { growHeapSlowly } from './heap.js';
 import { compileRegexpsAtOnce } from './regexps.js';
 
@@ -13,7 +13,7 @@ type Run = (typeof import('./run.js'))['run'];
 /** The command line's run, and what to do once it is over. */
 export interface LoadedRun {
   run: Run;
-  /** Writes the code cache when this run had none it could use (call once the run is over). */
+  /** Writes the code cache when this run had none it could use, or outgrew it (call once the run is over). */
   save: () => void;
 }
 
@@ -22,6 +22,16 @@ export interface LoadedRun {
  * script beside the command's entry. Only the bundle has it; compiled by tsc, run.js is imported.
  */
 const BUNDLE = new URL('./run.cjs', import.meta.url);
+
+const requireBuiltin = createRequire(import.meta.url);
+
+/**
+ * The bytecode (with its metadata) in this thread's heap: what a code cache made now would hold
+ * at most. node:v8 is loaded already in most runs (regexps.ts sets a flag through it first).
+ */
+function compiledCode(): number {
+  return (requireBuiltin('node:v8') as typeof import('node:v8')).getHeapCodeStatistics().bytecode_and_metadata_size;
+}
 
 /**
  * The wrapper the bundle is compiled in: CommonJS's own parameters, and the one through which
@@ -34,7 +44,8 @@ const WRAP_END = '\n})';
 /**
  * Loads the command line's run. In the bundle it compiles run.cjs with the V8 code cache of
  * the last run of the same kind (codeCache.ts), so its functions are not parsed and compiled
- * again; `save` makes that cache when there was none.
+ * again; `save` makes that cache when there was none, or when this run compiled much more than
+ * the run that made it (`outgrown`).
  */
 export async function loadRun(argv: readonly string[], env: NodeJS.ProcessEnv = process.env): Promise<LoadedRun> {
   const kind = cacheKind(argv);
@@ -50,7 +61,7 @@ export async function loadRun(argv: readonly string[], env: NodeJS.ProcessEnv = 
   const cached = folder !== undefined && id !== undefined ? readCache(folder, id) : undefined;
   // esbuild writes ASCII (charset 'ascii'): read as Latin-1, the text is the same and V8 takes it as is
   const text = isAscii(bytes) ? bytes.toString('latin1') : bytes.toString('utf8');
-  const script = new vm.Script(`${WRAP_START}${text}${WRAP_END}`, { filename: file, ...(cached ? { cachedData: cached } : {}) });
+  const script = new vm.Script(`${WRAP_START}${text}${WRAP_END}`, { filename: file, ...(cached ? { cachedData: cached.payload } : {}) });
   const accepted = cached !== undefined && !script.cachedDataRejected;
   const module: { exports: { run?: Run } } = { exports: {} };
   const importBeside = (specifier: string): Promise<unknown> => import(new URL(specifier, BUNDLE).href);
@@ -60,9 +71,11 @@ export async function loadRun(argv: readonly string[], env: NodeJS.ProcessEnv = 
   return {
     run,
     save: () => {
-      if (accepted || folder === undefined || id === undefined) return;
+      if (folder === undefined || id === undefined) return;
+      const code = compiledCode();
+      if (accepted && !outgrown(cached.code, code)) return;
       try {
-        writeCache(folder, id, script.createCachedData());
+        writeCache(folder, id, script.createCachedData(), Date.now(), code);
       } catch {
         // a cache is only a speed-up
       }

@@ -3,7 +3,7 @@ import { chmodSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSyn
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { cacheFile, cacheFolder, cacheIdentity, cacheKind, decodeCache, encodeCache, readCache, writeCache, type CacheIdentity } from '../../src/cli/codeCache.js';
+import { cacheFile, cacheFolder, cacheIdentity, cacheKind, decodeCache, encodeCache, MIN_GROWTH, outgrown, readCache, RICHER, writeCache, type CacheIdentity } from '../../src/cli/codeCache.js';
 import { growHeapSlowly, hasOwnHeapGrowing } from '../../src/cli/heap.js';
 import { compileRegexpsAtOnce, hasOwnRegexpTier } from '../../src/cli/regexps.js';
 import { BIN, cli } from './harness.js';
@@ -18,7 +18,35 @@ const payload = Buffer.from(Array.from({ length: 5000 }, (_, i) => (i * 7) % 256
 
 describe('cache files', () => {
   it('give back their payload for the identity they were made for', () => {
-    expect(decodeCache(encodeCache(id, payload), id)?.equals(payload)).toBe(true);
+    expect(decodeCache(encodeCache(id, payload), id)?.payload.equals(payload)).toBe(true);
+  });
+
+  it('record the bytecode of the run that made them, read as 0 where absent or not a size', () => {
+    expect(decodeCache(encodeCache(id, payload, 123_456), id)?.code).toBe(123_456);
+    expect(decodeCache(encodeCache(id, payload), id)?.code).toBe(0);
+    // a file written before the size was recorded, or with a header no writer of ours makes
+    for (const code of [undefined, -1, '900000', null, 1e400]) {
+      const good = encodeCache(id, payload, 5);
+      const start = good.indexOf(0x0a) + 1;
+      const end = good.indexOf(0x0a, start);
+      const header = JSON.parse(good.toString('utf8', start, end)) as Record<string, unknown>;
+      if (code === undefined) delete header.code;
+      else header.code = code;
+      const bytes = Buffer.concat([good.subarray(0, start), Buffer.from(JSON.stringify(header)), good.subarray(end)]);
+      expect(decodeCache(bytes, id)?.code, String(code)).toBe(0);
+    }
+  });
+
+  it('are outgrown by a run that compiled a quarter more bytecode, and some 64 KiB at least', () => {
+    expect([RICHER, MIN_GROWTH]).toEqual([1.25, 65_536]);
+    expect(outgrown(1_000_000, 1_250_000)).toBe(true);
+    expect(outgrown(1_000_000, 1_249_999)).toBe(false);
+    // a small cache must grow by MIN_GROWTH too
+    expect(outgrown(100_000, 160_000)).toBe(false);
+    expect(outgrown(100_000, 165_536)).toBe(true);
+    // a file without a recorded size is outgrown by any real run
+    expect(outgrown(0, MIN_GROWTH)).toBe(true);
+    expect(outgrown(2_000_000, 1_000_000)).toBe(false);
   });
 
   it('are ignored when made for another bundle, Node, V8, architecture, flags or kind of run', () => {
@@ -57,7 +85,7 @@ describe('cache files', () => {
     const recent = join(folder, 'check-human-recent.bin');
     writeFileSync(recent, 'y');
     writeCache(folder, id, payload);
-    expect(readCache(folder, id)?.equals(payload)).toBe(true);
+    expect(readCache(folder, id)?.payload.equals(payload)).toBe(true);
     expect(cacheFile(folder, id)).not.toBe(cacheFile(folder, { ...id, kind: 'rules:human' }));
     expect(existsSync(old)).toBe(false);
     expect(existsSync(recent)).toBe(true);
@@ -107,6 +135,18 @@ const manuscript = [
   '',
 ].join('\n');
 
+/** The one cache file in `folder` whose name starts with `prefix`: its path, inode, bytes, header, identity and payload. */
+function cacheOnDisk(folder: string, prefix = '') {
+  const [name] = readdirSync(folder).filter((f) => f.startsWith(prefix) && f.endsWith('.bin'));
+  const file = join(folder, name as string);
+  const bytes = readFileSync(file);
+  const start = bytes.indexOf(0x0a) + 1;
+  const end = bytes.indexOf(0x0a, start);
+  const header = JSON.parse(bytes.toString('utf8', start, end)) as CacheIdentity & { bytes: number; sha256: string; code: number };
+  const made: CacheIdentity = { bundle: header.bundle, node: header.node, v8: header.v8, arch: header.arch, flags: header.flags, kind: header.kind };
+  return { file, ino: statSync(file).ino, bytes, header, made, payload: bytes.subarray(end + 1) };
+}
+
 /** A run of the bundled command with the cache in `folder` (or turned off). */
 function bundled(args: string[], cwd: string, folder: string) {
   const r = spawnSync(process.execPath, [BIN, ...args], { cwd, encoding: 'utf8', env: { ...process.env, PLUMBLINE_CODE_CACHE: folder } });
@@ -141,18 +181,13 @@ describe('the bundled command with its code cache', () => {
     const args = ['paper.md', '-f', 'json'];
     const expected = bundled(args, dir, 'off');
     bundled(args, dir, folder);
-    const [name] = readdirSync(folder).filter((f) => f.endsWith('.bin'));
-    const file = join(folder, name as string);
-    const good = readFileSync(file);
-    const headerEnd = good.indexOf(0x0a, good.indexOf(0x0a) + 1);
-    const header = JSON.parse(good.toString('utf8', good.indexOf(0x0a) + 1, headerEnd)) as CacheIdentity & { bytes: number; sha256: string };
-    const made = { bundle: header.bundle, node: header.node, v8: header.v8, arch: header.arch, flags: header.flags, kind: header.kind };
+    const { file, bytes: good, made, payload } = cacheOnDisk(folder);
     const altered = Buffer.from(good);
     altered[altered.length - 1000] = (altered[altered.length - 1000] as number) ^ 0xff;
     const cases: Array<[string, Buffer]> = [
       ['cut short', good.subarray(0, good.length >> 1)],
       ['a payload byte changed', altered],
-      ['made for another build', encodeCache({ ...made, bundle: 'b'.repeat(64) }, good.subarray(headerEnd + 1))],
+      ['made for another build', encodeCache({ ...made, bundle: 'b'.repeat(64) }, payload)],
       // whole and of the right identity, but not V8's data: V8 itself rejects it
       ['not code at all', encodeCache(made, Buffer.from(Array.from({ length: 4096 }, (_, i) => (i * 31 + 7) % 256)))],
       ['empty', Buffer.alloc(0)],
@@ -165,6 +200,52 @@ describe('the bundled command with its code cache', () => {
       const now = readFileSync(file);
       expect(now.equals(bytes), what).toBe(false);
       expect(decodeCache(now, made), what).toBeDefined();
+    }
+  }, 120_000);
+
+  it('a cache outgrown by a later run is replaced by that run, once; a run that compiled less keeps it', () => {
+    const folder = mkdtempSync(join(tmpdir(), 'plumbline-cache-'));
+    writeFileSync(join(dir, 'notes.md'), '# Reading list\n\nNo statistics here, only words.\n');
+    const header = () => {
+      const { ino, header: h } = cacheOnDisk(folder, 'check-json-');
+      return { ino, code: h.code };
+    };
+    const expected = { notes: bundled(['notes.md', '-f', 'json'], dir, 'off'), paper: bundled(['paper.md', '-f', 'json'], dir, 'off') };
+    // the first run of its kind checks a text without statistics: it compiles little
+    const runs = [bundled(['notes.md', '-f', 'json'], dir, folder)];
+    const small = header();
+    expect(small.code).toBeGreaterThan(0);
+    // a manuscript compiles the check: its run replaces that cache with its own
+    runs.push(bundled(['paper.md', '-f', 'json'], dir, folder));
+    const full = header();
+    expect(full.ino).not.toBe(small.ino);
+    expect(outgrown(small.code, full.code)).toBe(true);
+    // and then keeps it, as does a run of the text without statistics
+    runs.push(bundled(['paper.md', '-f', 'json'], dir, folder), bundled(['notes.md', '-f', 'json'], dir, folder));
+    expect(header()).toEqual(full);
+    const want = [expected.notes, expected.paper, expected.paper, expected.notes];
+    for (const [i, r] of runs.entries()) expect([r.code, r.stdout, r.stderr], `run ${i + 1}`).toEqual([want[i]?.code, want[i]?.stdout, want[i]?.stderr]);
+  }, 120_000);
+
+  it('a cache file whose recorded size is far below what a run compiles is replaced; one far above is kept', () => {
+    const folder = mkdtempSync(join(tmpdir(), 'plumbline-cache-'));
+    const args = ['paper.md', '-f', 'json'];
+    const expected = bundled(args, dir, 'off');
+    bundled(args, dir, folder);
+    const { file, header, made, payload } = cacheOnDisk(folder);
+    for (const [recorded, replaced] of [
+      [1, true],
+      [header.code * 100, false],
+    ] as const) {
+      writeFileSync(file, encodeCache(made, payload, recorded));
+      const before = statSync(file).ino;
+      const r = bundled(args, dir, folder);
+      expect([r.code, r.stdout, r.stderr], String(recorded)).toEqual([expected.code, expected.stdout, expected.stderr]);
+      expect(statSync(file).ino !== before, String(recorded)).toBe(replaced);
+      const now = decodeCache(readFileSync(file), made);
+      // replaced: by a cache recording what this run compiled (about what the first run did)
+      if (replaced) expect(outgrown(recorded, now?.code ?? 0), String(recorded)).toBe(true);
+      else expect(now?.code, String(recorded)).toBe(recorded);
     }
   }, 120_000);
 
