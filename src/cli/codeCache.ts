@@ -38,35 +38,35 @@ interface Header extends CacheIdentity {
   bytes: number;
   sha256: string;
   /**
-   * The bytecode in the heap of the run that made the cache (`compiledCode`), which bounds what
-   * the cache holds; absent in files made before it was recorded (read as 0).
+   * Results and statistics the run that made the cache checked in its own thread (pool.ts),
+   * which bound the functions it compiled; absent in files made before it was recorded (read as 0).
    */
-  code?: number;
+  checked?: number;
 }
 
-/** A cache file's payload, and the bytecode of the run that made it (Header.code). */
+/** A cache file's payload, and what the run that made it checked (Header.checked). */
 export interface CacheRead {
   payload: Buffer;
-  code: number;
+  checked: number;
 }
 
 /**
- * A cache holds the functions compiled by the run that made it. A run that checks in a worker,
- * a text without statistics or a short draft compiles little, and every later run of its kind
- * then compiled the rest again: on one machine a check of a 50 KB manuscript took 350 ms with the
- * cache a worker-checked run had made (490 KB), 265 ms with one made by such a check (1.7 MB), and
- * 355 ms with none. So a run that used a cache and compiled at least RICHER times the bytecode
- * of the run that made it (and MIN_GROWTH bytes more) writes its own in its place: each
- * replacement holds a quarter more at least, so a kind's cache is replaced a few times at most,
- * and a run that compiled less never replaces a fuller one.
+ * A cache holds the functions compiled by the run that made it. A run that checks in a worker
+ * (a document over 1 MB, a tight budget) or reads a text without statistics compiles little
+ * beyond the loader, and every later run of its kind then compiled the rest again: on one
+ * machine a check of a 50 KB manuscript took 350 ms with the cache a worker-checked run had made
+ * (490 KB), 265 ms with one made by such a check (1.7 MB), and 355 ms with none. So a run that
+ * used a cache and checked results in a higher decade than the run that made it (none, 1-9,
+ * 10-99, 100 or more: `outgrown`) writes its own in its place: a kind's cache is replaced three
+ * times at most, and a run that checked less never replaces a fuller one. Results, not
+ * bytecode: V8 counts the bytecode in the heap only by walking all of it (2-3 ms after a 50 KB
+ * check, far more after a large one), while the count is kept as the check goes.
  */
-export const RICHER = 1.25;
-export const MIN_GROWTH = 64 * 1024;
-
-/** Whether a run that compiled `now` bytes of bytecode replaces a cache made by one that compiled `made`. */
 export function outgrown(made: number, now: number): boolean {
-  return now >= made * RICHER && now - made >= MIN_GROWTH;
+  return band(now) > band(made);
 }
+
+const band = (results: number): number => (results <= 0 ? 0 : results < 10 ? 1 : results < 100 ? 2 : 3);
 
 const sha256 = (b: Uint8Array | string) => createHash('sha256').update(b).digest('hex');
 
@@ -146,13 +146,13 @@ export function cacheFile(folder: string, id: CacheIdentity): string {
   return join(folder, `${id.kind.replace(NOT_LETTER, '-')}-${key}.bin`);
 }
 
-/** A cache file's bytes: the magic line, the header as one JSON line, the payload. `code`: Header.code. */
-export function encodeCache(id: CacheIdentity, payload: Uint8Array, code = 0): Buffer {
-  const header: Header = { ...id, bytes: payload.length, sha256: sha256(payload), code };
+/** A cache file's bytes: the magic line, the header as one JSON line, the payload. `checked`: Header.checked. */
+export function encodeCache(id: CacheIdentity, payload: Uint8Array, checked = 0): Buffer {
+  const header: Header = { ...id, bytes: payload.length, sha256: sha256(payload), checked };
   return Buffer.concat([Buffer.from(`${MAGIC}${JSON.stringify(header)}\n`, 'utf8'), payload]);
 }
 
-/** The payload of a cache file's bytes, with Header.code, when they are whole and were made for `id`; undefined otherwise. */
+/** The payload of a cache file's bytes, with Header.checked, when they are whole and were made for `id`; undefined otherwise. */
 export function decodeCache(bytes: Buffer, id: CacheIdentity): CacheRead | undefined {
   if (bytes.length < MAGIC.length || bytes.toString('latin1', 0, MAGIC.length) !== MAGIC) return undefined;
   const end = bytes.indexOf(0x0a, MAGIC.length);
@@ -168,11 +168,11 @@ export function decodeCache(bytes: Buffer, id: CacheIdentity): CacheRead | undef
   for (const key of ['bundle', 'node', 'v8', 'arch', 'flags', 'kind'] as const) if (header[key] !== id[key]) return undefined;
   const payload = bytes.subarray(end + 1);
   if (header.bytes !== payload.length || header.sha256 !== sha256(payload)) return undefined;
-  const code = typeof header.code === 'number' && Number.isFinite(header.code) && header.code >= 0 ? header.code : 0;
-  return { payload, code };
+  const checked = typeof header.checked === 'number' && Number.isFinite(header.checked) && header.checked >= 0 ? header.checked : 0;
+  return { payload, checked };
 }
 
-/** The validated payload of the cache file for `id` in `folder`, with Header.code, or undefined (none, unreadable, stale, damaged). */
+/** The validated payload of the cache file for `id` in `folder`, with Header.checked, or undefined (none, unreadable, stale, damaged). */
 export function readCache(folder: string, id: CacheIdentity): CacheRead | undefined {
   try {
     return decodeCache(readFileSync(cacheFile(folder, id)), id);
@@ -191,11 +191,11 @@ const KEEP_FILES = 64;
  * cache file, so a reader sees the old file or the new one whole. Then removes old files.
  * Never throws.
  */
-export function writeCache(folder: string, id: CacheIdentity, payload: Uint8Array, now = Date.now(), code = 0): void {
+export function writeCache(folder: string, id: CacheIdentity, payload: Uint8Array, now = Date.now(), checked = 0): void {
   const target = cacheFile(folder, id);
   const temporary = `${target}.${process.pid}.${randomBytes(6).toString('hex')}.tmp`;
   try {
-    writeFileSync(temporary, encodeCache(id, payload, code), { flag: 'wx', mode: 0o600 });
+    writeFileSync(temporary, encodeCache(id, payload, checked), { flag: 'wx', mode: 0o600 });
     renameSync(temporary, target);
   } catch {
     try {

@@ -9,6 +9,7 @@ import { growHeapSlowly } from './heap.js';
 import { compileRegexpsAtOnce } from './regexps.js';
 
 type Run = (typeof import('./run.js'))['run'];
+type Checked = (typeof import('./run.js'))['resultsCheckedHere'];
 
 /** The command line's run, and what to do once it is over. */
 export interface LoadedRun {
@@ -23,16 +24,6 @@ export interface LoadedRun {
  */
 const BUNDLE = new URL('./run.cjs', import.meta.url);
 
-const requireBuiltin = createRequire(import.meta.url);
-
-/**
- * The bytecode (with its metadata) in this thread's heap: what a code cache made now would hold
- * at most. node:v8 is loaded already in most runs (regexps.ts sets a flag through it first).
- */
-function compiledCode(): number {
-  return (requireBuiltin('node:v8') as typeof import('node:v8')).getHeapCodeStatistics().bytecode_and_metadata_size;
-}
-
 /**
  * The wrapper the bundle is compiled in: CommonJS's own parameters, and the one through which
  * it imports the ES modules built beside it (pdf.js, pdf-lib: scripts/build-cli.mjs), since a
@@ -44,8 +35,8 @@ const WRAP_END = '\n})';
 /**
  * Loads the command line's run. In the bundle it compiles run.cjs with the V8 code cache of
  * the last run of the same kind (codeCache.ts), so its functions are not parsed and compiled
- * again; `save` makes that cache when there was none, or when this run compiled much more than
- * the run that made it (`outgrown`).
+ * again; `save` makes that cache when there was none, or when this run checked much more in this
+ * thread than the run that made it (`outgrown`).
  */
 export async function loadRun(argv: readonly string[], env: NodeJS.ProcessEnv = process.env): Promise<LoadedRun> {
   const kind = cacheKind(argv);
@@ -63,19 +54,19 @@ export async function loadRun(argv: readonly string[], env: NodeJS.ProcessEnv = 
   const text = isAscii(bytes) ? bytes.toString('latin1') : bytes.toString('utf8');
   const script = new vm.Script(`${WRAP_START}${text}${WRAP_END}`, { filename: file, ...(cached ? { cachedData: cached.payload } : {}) });
   const accepted = cached !== undefined && !script.cachedDataRejected;
-  const module: { exports: { run?: Run } } = { exports: {} };
+  const module: { exports: { run?: Run; resultsCheckedHere?: Checked } } = { exports: {} };
   const importBeside = (specifier: string): Promise<unknown> => import(new URL(specifier, BUNDLE).href);
   (script.runInThisContext() as (...args: unknown[]) => void)(module.exports, createRequire(file), module, file, dirname(file), importBeside);
-  const run = module.exports.run;
-  if (typeof run !== 'function') throw new Error(`plumbline: ${file} does not export the command line's run`);
+  const { run, resultsCheckedHere } = module.exports;
+  if (typeof run !== 'function' || typeof resultsCheckedHere !== 'function') throw new Error(`plumbline: ${file} does not export the command line's run`);
   return {
     run,
     save: () => {
       if (folder === undefined || id === undefined) return;
-      const code = compiledCode();
-      if (accepted && !outgrown(cached.code, code)) return;
+      const checked = resultsCheckedHere();
+      if (accepted && !outgrown(cached.checked, checked)) return;
       try {
-        writeCache(folder, id, script.createCachedData(), Date.now(), code);
+        writeCache(folder, id, script.createCachedData(), Date.now(), checked);
       } catch {
         // a cache is only a speed-up
       }

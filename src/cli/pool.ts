@@ -368,10 +368,19 @@ interface Slot {
   timer?: NodeJS.Timeout;
 }
 
+/**
+ * Results and statistics checked in this thread so far (checkHere): how much of the checker this
+ * thread has run, which the code cache of the command line rests on (load.ts, codeCache.ts).
+ */
+let checkedHere = 0;
+export const resultsCheckedHere = (): number => checkedHere;
+
 function checkHere(job: Job): Outcome {
   if ('error' in job) return { error: job.error };
   try {
-    return { report: checkSource(job.path, job.source, job.options) };
+    const report = checkSource(job.path, job.source, job.options);
+    checkedHere += report.results.length + (report.statistics?.length ?? 0);
+    return { report };
   } catch (e) {
     return { error: e instanceof Error ? e.message : String(e) };
   }

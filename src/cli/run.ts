@@ -38,6 +38,9 @@ const PROGRESS_FROM = 50;
 /** Exit codes: 0 clean, 1 findings over the limits, 2 usage, configuration or read errors. */
 export const EXIT = { clean: 0, findings: 1, trouble: 2 } as const;
 
+/** What load.ts asks of a run once it is over: the results this thread checked (pool.ts). */
+export { resultsCheckedHere } from './pool.js';
+
 /** The command line, as a function of its arguments and I/O so tests can call it in-process. */
 export async function run(argv: string[], rawIo: Io): Promise<number> {
   // every diagnostic reaches standard error terminal-safe, whatever path or message it quotes

@@ -3,7 +3,7 @@ import { chmodSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSyn
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { cacheFile, cacheFolder, cacheIdentity, cacheKind, decodeCache, encodeCache, MIN_GROWTH, outgrown, readCache, RICHER, writeCache, type CacheIdentity } from '../../src/cli/codeCache.js';
+import { cacheFile, cacheFolder, cacheIdentity, cacheKind, decodeCache, encodeCache, outgrown, readCache, writeCache, type CacheIdentity } from '../../src/cli/codeCache.js';
 import { growHeapSlowly, hasOwnHeapGrowing } from '../../src/cli/heap.js';
 import { compileRegexpsAtOnce, hasOwnRegexpTier } from '../../src/cli/regexps.js';
 import { BIN, cli } from './harness.js';
@@ -21,32 +21,36 @@ describe('cache files', () => {
     expect(decodeCache(encodeCache(id, payload), id)?.payload.equals(payload)).toBe(true);
   });
 
-  it('record the bytecode of the run that made them, read as 0 where absent or not a size', () => {
-    expect(decodeCache(encodeCache(id, payload, 123_456), id)?.code).toBe(123_456);
-    expect(decodeCache(encodeCache(id, payload), id)?.code).toBe(0);
-    // a file written before the size was recorded, or with a header no writer of ours makes
-    for (const code of [undefined, -1, '900000', null, 1e400]) {
+  it('record the results the run that made them checked in its thread, read as 0 where absent or not a count', () => {
+    expect(decodeCache(encodeCache(id, payload, 37), id)?.checked).toBe(37);
+    expect(decodeCache(encodeCache(id, payload), id)?.checked).toBe(0);
+    // a file written before the count was recorded, or with a header no writer of ours makes
+    for (const checked of [undefined, -1, '900', null, 1e400]) {
       const good = encodeCache(id, payload, 5);
       const start = good.indexOf(0x0a) + 1;
       const end = good.indexOf(0x0a, start);
       const header = JSON.parse(good.toString('utf8', start, end)) as Record<string, unknown>;
-      if (code === undefined) delete header.code;
-      else header.code = code;
+      if (checked === undefined) delete header.checked;
+      else header.checked = checked;
       const bytes = Buffer.concat([good.subarray(0, start), Buffer.from(JSON.stringify(header)), good.subarray(end)]);
-      expect(decodeCache(bytes, id)?.code, String(code)).toBe(0);
+      expect(decodeCache(bytes, id)?.checked, String(checked)).toBe(0);
     }
   });
 
-  it('are outgrown by a run that compiled a quarter more bytecode, and some 64 KiB at least', () => {
-    expect([RICHER, MIN_GROWTH]).toEqual([1.25, 65_536]);
-    expect(outgrown(1_000_000, 1_250_000)).toBe(true);
-    expect(outgrown(1_000_000, 1_249_999)).toBe(false);
-    // a small cache must grow by MIN_GROWTH too
-    expect(outgrown(100_000, 160_000)).toBe(false);
-    expect(outgrown(100_000, 165_536)).toBe(true);
-    // a file without a recorded size is outgrown by any real run
-    expect(outgrown(0, MIN_GROWTH)).toBe(true);
-    expect(outgrown(2_000_000, 1_000_000)).toBe(false);
+  it('are outgrown by a run that checked results in a higher band: none, 1-9, 10-99, 100 or more', () => {
+    const cases: Array<[number, number, boolean]> = [
+      [0, 0, false],
+      [0, 1, true],
+      [1, 9, false],
+      [9, 10, true],
+      [10, 99, false],
+      [99, 100, true],
+      [100, 100_000, false],
+      // a run that checked less never replaces a fuller cache
+      [100, 3, false],
+      [5, 0, false],
+    ];
+    for (const [made, now, replaced] of cases) expect(outgrown(made, now), `${made} then ${now}`).toBe(replaced);
   });
 
   it('are ignored when made for another bundle, Node, V8, architecture, flags or kind of run', () => {
@@ -142,7 +146,7 @@ function cacheOnDisk(folder: string, prefix = '') {
   const bytes = readFileSync(file);
   const start = bytes.indexOf(0x0a) + 1;
   const end = bytes.indexOf(0x0a, start);
-  const header = JSON.parse(bytes.toString('utf8', start, end)) as CacheIdentity & { bytes: number; sha256: string; code: number };
+  const header = JSON.parse(bytes.toString('utf8', start, end)) as CacheIdentity & { bytes: number; sha256: string; checked: number };
   const made: CacheIdentity = { bundle: header.bundle, node: header.node, v8: header.v8, arch: header.arch, flags: header.flags, kind: header.kind };
   return { file, ino: statSync(file).ino, bytes, header, made, payload: bytes.subarray(end + 1) };
 }
@@ -208,18 +212,19 @@ describe('the bundled command with its code cache', () => {
     writeFileSync(join(dir, 'notes.md'), '# Reading list\n\nNo statistics here, only words.\n');
     const header = () => {
       const { ino, header: h } = cacheOnDisk(folder, 'check-json-');
-      return { ino, code: h.code };
+      return { ino, checked: h.checked };
     };
     const expected = { notes: bundled(['notes.md', '-f', 'json'], dir, 'off'), paper: bundled(['paper.md', '-f', 'json'], dir, 'off') };
     // the first run of its kind checks a text without statistics: it compiles little
     const runs = [bundled(['notes.md', '-f', 'json'], dir, folder)];
     const small = header();
-    expect(small.code).toBeGreaterThan(0);
-    // a manuscript compiles the check: its run replaces that cache with its own
+    expect(small.checked).toBe(0);
+    // a manuscript runs the check: its run replaces that cache with its own
     runs.push(bundled(['paper.md', '-f', 'json'], dir, folder));
     const full = header();
     expect(full.ino).not.toBe(small.ino);
-    expect(outgrown(small.code, full.code)).toBe(true);
+    // its three t-tests
+    expect(full.checked).toBe(3);
     // and then keeps it, as does a run of the text without statistics
     runs.push(bundled(['paper.md', '-f', 'json'], dir, folder), bundled(['notes.md', '-f', 'json'], dir, folder));
     expect(header()).toEqual(full);
@@ -227,25 +232,23 @@ describe('the bundled command with its code cache', () => {
     for (const [i, r] of runs.entries()) expect([r.code, r.stdout, r.stderr], `run ${i + 1}`).toEqual([want[i]?.code, want[i]?.stdout, want[i]?.stderr]);
   }, 120_000);
 
-  it('a cache file whose recorded size is far below what a run compiles is replaced; one far above is kept', () => {
+  it('a cache file made by a run that checked less than this one is replaced; one that checked more is kept', () => {
     const folder = mkdtempSync(join(tmpdir(), 'plumbline-cache-'));
     const args = ['paper.md', '-f', 'json'];
     const expected = bundled(args, dir, 'off');
     bundled(args, dir, folder);
     const { file, header, made, payload } = cacheOnDisk(folder);
+    expect(header.checked).toBe(3);
     for (const [recorded, replaced] of [
-      [1, true],
-      [header.code * 100, false],
+      [0, true],
+      [500, false],
     ] as const) {
       writeFileSync(file, encodeCache(made, payload, recorded));
       const before = statSync(file).ino;
       const r = bundled(args, dir, folder);
       expect([r.code, r.stdout, r.stderr], String(recorded)).toEqual([expected.code, expected.stdout, expected.stderr]);
       expect(statSync(file).ino !== before, String(recorded)).toBe(replaced);
-      const now = decodeCache(readFileSync(file), made);
-      // replaced: by a cache recording what this run compiled (about what the first run did)
-      if (replaced) expect(outgrown(recorded, now?.code ?? 0), String(recorded)).toBe(true);
-      else expect(now?.code, String(recorded)).toBe(recorded);
+      expect(decodeCache(readFileSync(file), made)?.checked, String(recorded)).toBe(replaced ? 3 : recorded);
     }
   }, 120_000);
 
