@@ -59,11 +59,20 @@ const VERSION_GUESS = '        yargs.version();\n';
 const yargsWithoutVersionGuess = {
   name: 'yargs-without-version-guess',
   setup(b) {
+    // a build that bundles yargs from another file (a factory that moved) must stop too
+    let patched = false;
+    b.onStart(() => {
+      patched = false;
+    });
     b.onLoad({ filter: /[\\/]yargs[\\/]build[\\/]lib[\\/]yargs-factory\.js$/ }, (args) => {
       const text = readFileSync(args.path, 'utf8');
       const at = text.indexOf(VERSION_GUESS);
       if (at < 0 || text.indexOf(VERSION_GUESS, at + 1) >= 0) throw new Error(`build-cli: ${args.path} does not call yargs.version() once as expected; see yargsWithoutVersionGuess`);
+      patched = true;
       return { contents: `${text.slice(0, at)}${text.slice(at + VERSION_GUESS.length)}`, loader: 'js' };
+    });
+    b.onEnd((result) => {
+      if (!patched && result.errors.length === 0) throw new Error("build-cli: yargs' factory (yargs/build/lib/yargs-factory.js) was not bundled; see yargsWithoutVersionGuess");
     });
   },
 };

@@ -58,7 +58,10 @@ export interface CacheRead {
  * (490 KB), 265 ms with one made by such a check (1.7 MB), and 355 ms with none. So a run that
  * used a cache and checked results in a higher decade than the run that made it (none, 1-9,
  * 10-99, 100 or more: `outgrown`) writes its own in its place: a kind's cache is replaced three
- * times at most, and a run that checked less never replaces a fuller one. Results, not
+ * times at most, and a run that checked less does not replace a fuller one, even one another
+ * run wrote while it ran (load.ts reads the file again before it writes). The count stands in
+ * for the code a run compiled: a run in the same band that used other rules or readers keeps
+ * the cache it found, and compiles what that lacks. Results, not
  * bytecode: V8 counts the bytecode in the heap only by walking all of it (2-3 ms after a 50 KB
  * check, far more after a large one), while the count is kept as the check goes.
  */

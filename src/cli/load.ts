@@ -58,13 +58,18 @@ export async function loadRun(argv: readonly string[], env: NodeJS.ProcessEnv = 
   const importBeside = (specifier: string): Promise<unknown> => import(new URL(specifier, BUNDLE).href);
   (script.runInThisContext() as (...args: unknown[]) => void)(module.exports, createRequire(file), module, file, dirname(file), importBeside);
   const { run, resultsCheckedHere } = module.exports;
-  if (typeof run !== 'function' || typeof resultsCheckedHere !== 'function') throw new Error(`plumbline: ${file} does not export the command line's run`);
+  if (typeof run !== 'function') throw new Error(`plumbline: ${file} does not export the command line's run`);
+  if (typeof resultsCheckedHere !== 'function') throw new Error(`plumbline: ${file} does not export resultsCheckedHere`);
   return {
     run,
     save: () => {
       if (folder === undefined || id === undefined) return;
       const checked = resultsCheckedHere();
       if (accepted && !outgrown(cached.checked, checked)) return;
+      // another run of the same kind may have written its cache while this one ran: one that
+      // checked as much or more stays (the file this run read, or found unusable, does not count)
+      const onDisk = readCache(folder, id);
+      if (onDisk !== undefined && (cached === undefined || !onDisk.payload.equals(cached.payload)) && !outgrown(onDisk.checked, checked)) return;
       try {
         writeCache(folder, id, script.createCachedData(), Date.now(), checked);
       } catch {

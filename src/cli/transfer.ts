@@ -24,11 +24,12 @@ const v8Module = () => (v8 ??= requireBuiltin('node:v8') as typeof import('node:
 export type SentReport = Omit<FileReport, 'source'>;
 
 /**
- * Items of one array member (results, findings) serialised together at most. One call over a
- * whole large report made one buffer that V8 grows by copying as it writes: 200 MB of bytes for
- * 60,000 results cost some 400 MB at its peak, on top of the worker's heap (bench figure 13).
- * Slices of this many items are some 5 MB each. A report with no longer array crosses as one
- * part, as before.
+ * Items of one top-level array member of a report (results, findings, statistics, checklist)
+ * serialised together at most. One call over a whole large report made one buffer that V8 grows
+ * by copying as it writes: 200 MB of bytes for 60,000 results cost some 400 MB at its peak, on
+ * top of the worker's heap (bench figure 13). Slices of this many results or findings are some 5
+ * MB each. A report with no longer top-level array crosses as one part, as before; arrays nested
+ * deeper (a Word or PDF file's `original.lines`) always cross whole, in the first part.
  */
 export const SLICE_ITEMS = 2000;
 

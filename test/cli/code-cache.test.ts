@@ -1,4 +1,4 @@
-import { spawnSync } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import { chmodSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, statSync, symlinkSync, utimesSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
@@ -207,7 +207,7 @@ describe('the bundled command with its code cache', () => {
     }
   }, 120_000);
 
-  it('a cache outgrown by a later run is replaced by that run, once; a run that compiled less keeps it', () => {
+  it('a cache outgrown by a later run is replaced by that run, once; a run that checked less keeps it', () => {
     const folder = mkdtempSync(join(tmpdir(), 'plumbline-cache-'));
     writeFileSync(join(dir, 'notes.md'), '# Reading list\n\nNo statistics here, only words.\n');
     const header = () => {
@@ -230,6 +230,30 @@ describe('the bundled command with its code cache', () => {
     expect(header()).toEqual(full);
     const want = [expected.notes, expected.paper, expected.paper, expected.notes];
     for (const [i, r] of runs.entries()) expect([r.code, r.stdout, r.stderr], `run ${i + 1}`).toEqual([want[i]?.code, want[i]?.stdout, want[i]?.stderr]);
+  }, 120_000);
+
+  it('a cache another run wrote meanwhile stays when that run checked as much or more', async () => {
+    // the fuller cache, made in a folder of its own by a run on the manuscript
+    const elsewhere = mkdtempSync(join(tmpdir(), 'plumbline-cache-'));
+    bundled(['paper.md', '-f', 'json'], dir, elsewhere);
+    const full = cacheOnDisk(elsewhere);
+    expect(full.header.checked).toBe(3);
+    // a run on standard input finds no cache as it loads, then waits for its text
+    const folder = mkdtempSync(join(tmpdir(), 'plumbline-cache-'));
+    const child = spawn(process.execPath, [BIN, '-', '-f', 'json'], { cwd: dir, env: { ...process.env, PLUMBLINE_CODE_CACHE: folder } });
+    let stdout = '';
+    child.stdout.setEncoding('utf8').on('data', (d: string) => (stdout += d));
+    const ended = new Promise<number | null>((done) => child.on('close', done));
+    // loaded long since (some 0.1 s here): the other run's cache is written now, under the same name
+    await new Promise((done) => setTimeout(done, 2000));
+    const target = join(folder, full.file.slice(elsewhere.length + 1));
+    writeFileSync(target, full.bytes);
+    child.stdin.end('No statistics here, only words.\n');
+    expect(await ended).toBe(0);
+    expect(JSON.parse(stdout).summary.results).toBe(0);
+    // this run checked nothing here: it leaves the fuller cache as written
+    expect(readFileSync(target).equals(full.bytes)).toBe(true);
+    expect(readdirSync(folder).filter((f) => f.endsWith('.bin'))).toHaveLength(1);
   }, 120_000);
 
   it('a cache file made by a run that checked less than this one is replaced; one that checked more is kept', () => {

@@ -23,7 +23,9 @@ describe('a report sent as bytes', () => {
     if (!('parts' in message)) throw new Error('no parts');
     // no array longer than a slice: one part, the whole report
     expect(message.parts).toHaveLength(1);
-    expect(transfer).toEqual(message.parts.map((p) => p.bytes.buffer));
+    // the very buffers of the parts (toEqual would take any buffers of the same length)
+    expect(transfer).toHaveLength(1);
+    expect(transfer[0]).toBe(message.parts[0]?.bytes.buffer);
     const rebuilt = receivedReport(structuredClone(message.parts));
     expect(rebuilt).toStrictEqual(structuredClone(report));
     expect(JSON.stringify(rebuilt)).toBe(JSON.stringify(report));
@@ -42,12 +44,26 @@ describe('a report sent as bytes', () => {
     const expected = [undefined, ...long.flatMap(([k, v]) => Array.from({ length: Math.ceil(v.length / slice) }, () => k))];
     expect(message.parts.map((p) => p.member)).toEqual(expected);
     expect(transfer).toHaveLength(message.parts.length);
-    expect(new Set(transfer)).toEqual(new Set(message.parts.map((p) => p.bytes.buffer)));
+    for (const [i, p] of message.parts.entries()) expect(transfer[i], `part ${i}`).toBe(p.bytes.buffer);
     const parts = structuredClone(message.parts);
     const rebuilt = receivedReport(parts);
     expect(parts).toHaveLength(0);
     expect(rebuilt).toStrictEqual(structuredClone(report));
     expect(JSON.stringify(rebuilt)).toBe(JSON.stringify(report));
+  });
+
+  it('an array of exactly a slice crosses in the head; one item more makes two slices', () => {
+    const { source: _source, ...report } = checkSource('a.md', text);
+    const n = report.results.length;
+    const members = (slice: number) => {
+      let parts: ReportPart[] = [];
+      postReport((m) => (parts = 'parts' in m ? m.parts : []), 0, report, slice);
+      const rebuilt = receivedReport([...parts]);
+      expect(rebuilt, `slice ${slice}`).toStrictEqual(structuredClone(report));
+      return parts.map((p) => p.member).filter((m) => m === 'results').length;
+    };
+    expect(members(n)).toBe(0);
+    expect(members(n - 1)).toBe(2);
   });
 
   it('parts out of shape are refused, not rebuilt into a wrong report', () => {
