@@ -7,6 +7,12 @@ export interface Placed {
   span: { start: number; end: number };
 }
 
+/** A sentence's key in maps by sentence: its segment and its index there. */
+export const sentenceKeyOf = (segment: number, sentence: number): string => `${segment}:${sentence}`;
+
+/** The key of the sentence holding `x` (sentenceKeyOf). */
+export const sentenceKey = (x: { segment: number; sentence: number }): string => sentenceKeyOf(x.segment, x.sentence);
+
 /**
  * A t-test's clause: its report runs from its statistic (or the estimate printed right before
  * it, as in `b = 0.37, SE = 0.05, t(96) = 7.73`) to the next test statistic of its sentence,
@@ -105,7 +111,7 @@ export function clauseIndex(x: Extraction): ClauseIndex {
   const meanSegmentCounts = new Map<number, number>();
   for (const [seg, list] of openersBySegment) {
     for (const op of list) {
-      const k = `${seg}:${op.sentence}`;
+      const k = sentenceKeyOf(seg, op.sentence);
       sentenceCounts.set(k, (sentenceCounts.get(k) ?? 0) + 1);
       if (op.kind === 't' || op.statistic.kind === 'F') {
         meanSentenceCounts.set(k, (meanSentenceCounts.get(k) ?? 0) + 1);
@@ -134,10 +140,10 @@ export function clauseIndex(x: Extraction): ClauseIndex {
       if (!op || op.sentence !== item.sentence) return undefined;
       return op.kind === 't' ? { kind: 't', clause: clauses.get(op.test) as Clause } : { kind: 'other', statistic: op.statistic };
     },
-    statisticsInSentence: (segment, sentence) => sentenceCounts.get(`${segment}:${sentence}`) ?? 0,
+    statisticsInSentence: (segment, sentence) => sentenceCounts.get(sentenceKeyOf(segment, sentence)) ?? 0,
     statisticsInSegment: (segment) => openersBySegment.get(segment)?.length ?? 0,
     testsInSegment: (segment) => testsBySegment.get(segment)?.length ?? 0,
-    meanTestsInSentence: (segment, sentence) => meanSentenceCounts.get(`${segment}:${sentence}`) ?? 0,
+    meanTestsInSentence: (segment, sentence) => meanSentenceCounts.get(sentenceKeyOf(segment, sentence)) ?? 0,
     meanTestsInSegment: (segment) => meanSegmentCounts.get(segment) ?? 0,
   };
 }

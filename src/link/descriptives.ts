@@ -20,7 +20,7 @@ import type {
 import type { Span } from '../parse/types.js';
 import { blockAt } from '../extract/tables.js';
 import { stem } from '../extract/topic.js';
-import { clauseIndex, type Clause, type ClauseIndex, type Placed } from './clauses.js';
+import { clauseIndex, sentenceKey, sentenceKeyOf, type Clause, type ClauseIndex, type Placed } from './clauses.js';
 import type { Setting } from './types.js';
 
 export type Design = 'paired' | 'independent' | 'one-sample' | 'unknown';
@@ -130,7 +130,7 @@ class SegmentList<T extends Placed> {
   private readonly sentences = new Map<string, T[]>();
   /** Items of one sentence (sentence numbers grow with position in a segment); one list per sentence, shared by every caller. */
   inSentence(segment: number, sentence: number): readonly T[] {
-    const key = `${segment}:${sentence}`;
+    const key = sentenceKeyOf(segment, sentence);
     let found = this.sentences.get(key);
     if (!found) {
       found = this.sentenceItems(segment, sentence);
@@ -234,7 +234,7 @@ export function contextJoiner(x: Extraction): (report: TTestReport) => ResultCon
     },
     blocks: groupBy(x.tableBlocks, (b) => b.table),
     tablesWithTests: new Set(x.tests.flatMap((r) => (r.table ? [r.table.table] : []))),
-    mentions: groupBy(x.tableMentions, (m) => `${m.segment}:${m.sentence}`),
+    mentions: groupBy(x.tableMentions, sentenceKey),
     byId: firstById(x.tables),
     // the first table each block stands right after or right before (the order `find` met them in)
     beside: tablesBeside(x.tables),
@@ -359,7 +359,7 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
   const reference = sentenceReferences[0] ?? (clauses.testsInSegment(report.segment) === 1 ? n.references.all(report.segment)[0] : undefined);
   // The sentence's own first; then the paragraph's first few (rules take the first that fits,
   // and a bounded list keeps a paragraph of thousands of results linear).
-  const sizesKey = `${report.segment}:${report.sentence}`;
+  const sizesKey = sentenceKey(report);
   let sampleSizes = t.memo.sampleSizes.get(sizesKey);
   if (!sampleSizes) {
     sampleSizes = n.sampleSizes.inSentence(report.segment, report.sentence).concat(n.sampleSizes.all(report.segment).slice(0, PARAGRAPH_SIZES));
@@ -472,7 +472,7 @@ function descriptivesFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t:
   // measure the sentence names, when it names one
   // measure the sentence names, when it names one, the table reports no test of its own, and
   // the result's paragraph sits right beside it (a caption or note between them)
-  const named = t.mentions.get(`${report.segment}:${report.sentence}`) ?? [];
+  const named = t.mentions.get(sentenceKey(report)) ?? [];
   if (named.length === 1) {
     const m = named[0] as Extraction['tableMentions'][number];
     const table = t.byId.get(m.table);
@@ -577,15 +577,14 @@ export interface SpreadStatements {
 
 export function spreadStatements(x: Extraction): SpreadStatements {
   const statements = x.statements.filter((s) => s.kind === 'spread');
-  const key = (segment: number, sentence: number) => `${segment}:${sentence}`;
-  const withDescriptives = new Set(x.summaries.map((g) => key(g.segment, g.sentence)));
+  const withDescriptives = new Set(x.summaries.map((g) => sentenceKey(g)));
   const bySentence = new Map<string, Extraction['statements'][number]>();
-  for (const s of statements) if (!bySentence.has(key(s.segment, s.sentence))) bySentence.set(key(s.segment, s.sentence), s);
-  const general = statements.filter((s) => !withDescriptives.has(key(s.segment, s.sentence)));
+  for (const s of statements) if (!bySentence.has(sentenceKey(s))) bySentence.set(sentenceKey(s), s);
+  const general = statements.filter((s) => !withDescriptives.has(sentenceKey(s)));
   const bySegment = new Map<number, Extraction['statements'][number]>();
   for (const s of general) if (!bySegment.has(s.segment)) bySegment.set(s.segment, s);
   const agreed = general.length > 0 && general.every((s) => s.spread === general[0]?.spread) ? general[0] : undefined;
-  return { kindFor: (g) => bySentence.get(key(g.segment, g.sentence)) ?? bySegment.get(g.segment) ?? agreed };
+  return { kindFor: (g) => bySentence.get(sentenceKey(g)) ?? bySegment.get(g.segment) ?? agreed };
 }
 
 /**
@@ -606,11 +605,11 @@ function designFor(report: TTestReport, clause: Clause, clauses: ClauseIndex, de
   };
   const inClause = pick(designs.betweenInSentence(report.segment, report.sentence, clause.start, clause.end), 'sentence');
   if (inClause) return inClause;
-  const sentenceKey = `${report.segment}:${report.sentence}`;
-  let sentence = memo.sentenceDesign.get(sentenceKey);
+  const reportSentence = sentenceKey(report);
+  let sentence = memo.sentenceDesign.get(reportSentence);
   if (sentence === undefined) {
     sentence = pick(designs.inSentence(report.segment, report.sentence), 'sentence') ?? null;
-    memo.sentenceDesign.set(sentenceKey, sentence);
+    memo.sentenceDesign.set(reportSentence, sentence);
   }
   if (sentence) return sentence;
   // the paragraph's words about the design, from sentences that report no test: words beside
@@ -842,7 +841,7 @@ function tableGroupsFor(x: Extraction, clauses: ClauseIndex, spreads: SpreadStat
     return first && first.table !== undefined && list.every((r) => !r.plural && r.table === first.table) ? { reference: first, own } : null;
   };
   const tableNamed = (o: OtherStatistic) => {
-    const key = `${o.segment}:${o.sentence}`;
+    const key = sentenceKey(o);
     let found = namedBy.get(key);
     if (found === undefined) {
       const own = references.inSentence(o.segment, o.sentence);

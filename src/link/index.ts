@@ -7,6 +7,7 @@ export type * from './types.js';
 export type { DescriptiveLink, Design, IntervalLink, IntervalTarget, LinkBasis, Linked, ResultContext } from './descriptives.js';
 export { groupBy } from './descriptives.js';
 import { contextJoiner, fGroupsJoiner, spreadStatements } from './descriptives.js';
+import { sentenceKey, sentenceKeyOf } from './clauses.js';
 import { testNames } from './testNames.js';
 export type { TestName, TestNameBasis } from './testNames.js';
 
@@ -27,7 +28,7 @@ export const DEFAULT_ALPHA = 0.05;
 export function link(extraction: Extraction, directives: Directive[], settings: DocumentSettings = {}): LinkedDocument {
   // Said of every test, in a sentence that reports none (one that reports a test speaks of it).
   const sentencesWithTests = new Set(extraction.tests.map(sentenceKey));
-  const general = extraction.statements.filter((s) => s.general === true && !sentencesWithTests.has(`${s.segment}:${s.sentence}`));
+  const general = extraction.statements.filter((s) => s.general === true && !sentencesWithTests.has(sentenceKey(s)));
   const documentSidedness = agreeing(general.filter((s) => s.kind === 'sidedness'), (s) => s.sidedness as Sidedness, 'document-text')
     ?? settings.sidedness ?? { value: 'two' as Sidedness, basis: 'default' as const };
   const documentAlpha = agreeing(general.filter((s) => s.kind === 'alpha'), (s) => s.alpha as number, 'document-text')
@@ -64,14 +65,14 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   };
   const bySentence = new Map<string, ContextStatement[]>();
   for (const st of extraction.statements) {
-    const k = `${st.segment}:${st.sentence}`;
+    const k = sentenceKey(st);
     const list = bySentence.get(k);
     if (list) list.push(st);
     else bySentence.set(k, [st]);
   }
   const testsBySentence = new Map<string, TTestReport[]>();
   for (const t of extraction.tests) {
-    const k = `${t.segment}:${t.sentence}`;
+    const k = sentenceKey(t);
     const list = testsBySentence.get(k);
     if (list) list.push(t);
     else testsBySentence.set(k, [t]);
@@ -80,7 +81,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const names = testNames(extraction);
   // One-tailed words in a sentence without a test, said of no particular result: where they
   // cannot be tied to a result, a note says so rather than "nothing says one-tailed".
-  const untied = extraction.statements.filter((s) => s.kind === 'sidedness' && !generalSet.has(s) && !sentencesWithTests.has(`${s.segment}:${s.sentence}`));
+  const untied = extraction.statements.filter((s) => s.kind === 'sidedness' && !generalSet.has(s) && !sentencesWithTests.has(sentenceKey(s)));
   // The first one-tailed statement said of no result that is not in a given paragraph (or
   // plans a study): the first of them, or else the first that breaks from the first's paragraph.
   const untiedOne = untied.filter((s) => s.sidedness === 'one');
@@ -94,7 +95,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     let r = sentenceReadings.get(k);
     if (!r) {
       const own = bySentence.get(k) ?? [];
-      const previous = bySentence.get(`${segment}:${sentence - 1}`) ?? [];
+      const previous = bySentence.get(sentenceKeyOf(segment, sentence - 1)) ?? [];
       const peers = testsBySentence.get(k) ?? [];
       const sided = own.filter((s) => s.kind === 'sidedness');
       r = {
@@ -118,7 +119,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     extraction.mentions.find((m) => m.kind === 'test-name' && m.test?.variant === variant && m.negated !== true && (variant === 'student' || m.test.namesTest === true) && !sentencesWithTests.has(sentenceKey(m)));
   const generalWelch = generalName('student') ? undefined : generalName('welch');
   const results: LinkedResult[] = extraction.tests.map((report) => {
-    const k = `${report.segment}:${report.sentence}`;
+    const k = sentenceKey(report);
     const reading = readingOf(k, report.segment, report.sentence);
     const sidedness = sidednessFor(report.statedSidedness, report, reading, paragraphOf(report.segment), documentSidedness);
     const elsewhere = sidedness.basis === 'default' ? untiedOutside(report.segment) : undefined;
@@ -143,7 +144,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   for (const o of extraction.otherStatistics) {
     if (o.kind !== 'F' && o.kind !== 'chi-square' && o.kind !== 'correlation' && o.kind !== 'z') continue;
     const report = o as LinkedStatistic['report'];
-    const reading = readingOf(`${o.segment}:${o.sentence}`, o.segment, o.sentence);
+    const reading = readingOf(sentenceKey(o), o.segment, o.sentence);
     const sidedness = sidednessFor(report.p?.statedSidedness !== undefined ? { value: report.p.statedSidedness, span: report.p.span } : undefined, report, reading, paragraphOf(o.segment), documentSidedness);
     const elsewhere = sidedness.basis === 'default' ? untiedOutside(o.segment) : undefined;
     const dimensions = o.kind === 'chi-square' ? dimensionsOf(o) : undefined;
@@ -183,8 +184,6 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   };
 }
 
-/** A sentence's key: its segment and its index there. */
-const sentenceKey = (x: { segment: number; sentence: number }) => `${x.segment}:${x.sentence}`;
 
 /**
  * The correction for multiple comparisons that may have been applied to a result's p without
@@ -326,9 +325,8 @@ function alphaFor(sentence: SentenceReading, paragraph: ParagraphReading, fallba
 function integerDeclarations(x: Extraction): LinkedDocument['integerDeclarations'] {
   const out: LinkedDocument['integerDeclarations'] = new Map();
   if (x.integerMeasures.length === 0) return out;
-  const key = (segment: number, sentence: number) => `${segment}:${sentence}`;
   const bySentence = new Map<string, IntegerStatement>();
-  for (const d of x.integerMeasures) if (!bySentence.has(key(d.segment, d.sentence))) bySentence.set(key(d.segment, d.sentence), d);
+  for (const d of x.integerMeasures) if (!bySentence.has(sentenceKey(d))) bySentence.set(sentenceKey(d), d);
   const byName = new Map<string, IntegerStatement[]>();
   for (const d of x.integerMeasures) {
     for (const name of d.measures ?? []) {
@@ -339,7 +337,7 @@ function integerDeclarations(x: Extraction): LinkedDocument['integerDeclarations
   }
   const named = new Map<string, Set<string>>();
   for (const m of x.measureMentions) {
-    const k = key(m.segment, m.sentence);
+    const k = sentenceKey(m);
     const set = named.get(k) ?? new Set<string>();
     set.add(m.measure);
     named.set(k, set);
@@ -360,12 +358,12 @@ function integerDeclarations(x: Extraction): LinkedDocument['integerDeclarations
   const byNames = new Map<Set<string>, IntegerStatement | null>();
   for (const g of x.summaries) {
     if (!g.mean) continue;
-    const own = g.table ? undefined : bySentence.get(key(g.segment, g.sentence));
+    const own = g.table ? undefined : bySentence.get(sentenceKey(g));
     if (own) {
       out.set(g, { statement: own, basis: 'sentence' });
       continue;
     }
-    const names = g.table ? byRow.get(`${g.table.table}:${g.table.row}`) : named.get(key(g.segment, g.sentence));
+    const names = g.table ? byRow.get(`${g.table.table}:${g.table.row}`) : named.get(sentenceKey(g));
     if (!names) continue;
     // the same names give the same answer: decided once per set of names
     let agreed = byNames.get(names);
@@ -436,7 +434,7 @@ function tableDimensionsJoiner(x: Extraction): (o: OtherStatistic) => Linked<Tab
   // only whether a sentence or paragraph states exactly one size matters: at most two are kept
   for (const d of x.tableDimensions) {
     sizes.set(d.segment, [...(sizes.get(d.segment) ?? []).slice(0, 1), d]);
-    const key = `${d.segment}:${d.sentence}`;
+    const key = sentenceKey(d);
     sizesBySentence.set(key, [...(sizesBySentence.get(key) ?? []).slice(0, 1), d]);
   }
   if (sizes.size === 0) return () => undefined;
@@ -444,14 +442,14 @@ function tableDimensionsJoiner(x: Extraction): (o: OtherStatistic) => Linked<Tab
   const chiBySegment = new Map<number, number>();
   for (const o of x.otherStatistics) {
     if (o.kind !== 'chi-square') continue;
-    chiBySentence.set(`${o.segment}:${o.sentence}`, (chiBySentence.get(`${o.segment}:${o.sentence}`) ?? 0) + 1);
+    chiBySentence.set(sentenceKey(o), (chiBySentence.get(sentenceKey(o)) ?? 0) + 1);
     chiBySegment.set(o.segment, (chiBySegment.get(o.segment) ?? 0) + 1);
   }
   return (o) => {
     const list = sizes.get(o.segment);
     if (!list) return undefined;
-    const inSentence = sizesBySentence.get(`${o.segment}:${o.sentence}`) ?? [];
-    if (inSentence.length === 1 && chiBySentence.get(`${o.segment}:${o.sentence}`) === 1) return { item: inSentence[0] as TableDimensions, basis: 'sentence', certain: true };
+    const inSentence = sizesBySentence.get(sentenceKey(o)) ?? [];
+    if (inSentence.length === 1 && chiBySentence.get(sentenceKey(o)) === 1) return { item: inSentence[0] as TableDimensions, basis: 'sentence', certain: true };
     if (inSentence.length === 0 && list.length === 1 && chiBySegment.get(o.segment) === 1) return { item: list[0] as TableDimensions, basis: 'paragraph', certain: true };
     return undefined;
   };
@@ -472,20 +470,19 @@ const TESTS: ReadonlySet<OtherStatistic['kind']> = new Set(['F', 'chi-square', '
 function coefficientBeforeJoiner(x: Extraction): (o: OtherStatistic) => Linked<EstimateReport & { se: ReportedNumber }> | undefined {
   const coefficients = x.estimates.filter((e) => e.kind === 'coefficient' && !e.table);
   if (coefficients.length === 0) return () => undefined;
-  const key = (r: { segment: number; sentence: number }) => `${r.segment}:${r.sentence}`;
   const bySentence = new Map<string, EstimateReport[]>();
   for (const e of coefficients) {
-    const list = bySentence.get(key(e));
+    const list = bySentence.get(sentenceKey(e));
     if (list) list.push(e);
-    else bySentence.set(key(e), [e]);
+    else bySentence.set(sentenceKey(e), [e]);
   }
   for (const list of bySentence.values()) list.sort((a, b) => a.span.end - b.span.end);
   const tests = new Map<string, number[]>();
   const addTest = (r: { segment: number; sentence: number; span: Span }) => {
-    if (!bySentence.has(key(r))) return;
-    const list = tests.get(key(r));
+    if (!bySentence.has(sentenceKey(r))) return;
+    const list = tests.get(sentenceKey(r));
     if (list) list.push(r.span.start);
-    else tests.set(key(r), [r.span.start]);
+    else tests.set(sentenceKey(r), [r.span.start]);
   };
   for (const t of x.tests) addTest(t);
   for (const s of x.otherStatistics) if (TESTS.has(s.kind)) addTest(s);
@@ -504,7 +501,7 @@ function coefficientBeforeJoiner(x: Extraction): (o: OtherStatistic) => Linked<E
     return lo < starts.length && (starts[lo] as number) < to;
   };
   return (o) => {
-    const k = key(o);
+    const k = sentenceKey(o);
     const list = bySentence.get(k);
     if (!list) return undefined;
     // the last coefficient ending at or before the z

@@ -1,6 +1,6 @@
 import type { Extraction, Mention, TestNameWords, TTestReport } from '../extract/types.js';
 import type { Span } from '../parse/types.js';
-import { clauseIndex, type ClauseIndex } from './clauses.js';
+import { clauseIndex, sentenceKey, type ClauseIndex } from './clauses.js';
 
 /**
  * Where a result's test name was said: with its statistic ("Welch's t(21.6)"), in its clause
@@ -64,7 +64,7 @@ export function testNames(x: Extraction): Map<TTestReport, TestName> {
   const tableWide = new Map<number, Said>();
   const tableRow = new Map<string, Said>();
   const testsBySentence = new Map<string, TTestReport[]>();
-  for (const t of x.tests) push(testsBySentence, `${t.segment}:${t.sentence}`, t);
+  for (const t of x.tests) push(testsBySentence, sentenceKey(t), t);
   let clauses: ClauseIndex | undefined;
   const headersBySegment = new Map<number, Named[]>();
   for (const m of named) {
@@ -79,7 +79,7 @@ export function testNames(x: Extraction): Map<TTestReport, TestName> {
       else tableRow.set(`${table}:${m.table?.row}`, say(tableRow.get(`${table}:${m.table?.row}`), m, 'table'));
       continue;
     }
-    const key = `${m.segment}:${m.sentence}`;
+    const key = sentenceKey(m);
     const tests = testsBySentence.get(key);
     if (!tests) continue;
     if (m.test.plural) {
@@ -98,7 +98,7 @@ export function testNames(x: Extraction): Map<TTestReport, TestName> {
     const mine = own.get(t);
     if (mine) scopes.push(mine);
     if (!t.table) {
-      const plural = sentencePlural.get(`${t.segment}:${t.sentence}`);
+      const plural = sentencePlural.get(sentenceKey(t));
       if (plural) scopes.push(plural);
     } else {
       const row = tableRow.get(`${t.table.table}:${t.table.row}`);
