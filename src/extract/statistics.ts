@@ -108,14 +108,14 @@ const RANK_BEFORE = /(?<![\p{L}\p{N}_])(?:U|W|T|V)(?: ?\(\d{1,6}\))? ?[=<>]|Mann
  */
 export function completeStatistics(seg: Segment, starts: number[], others: OtherStatistic[], tests: readonly TTestReport[]): OtherStatistic[] {
   const text = seg.text;
-  // the text index of each record's start (spans are source offsets; the segment maps them)
-  const boundaries: Array<{ at: number }> = [];
-  for (const t of tests) if (t.segment === seg.id) boundaries.push({ at: textIndexOf(seg, t.span.start) });
+  // the text index of each record's start (spans are source offsets; the segment maps them),
+  // for this segment's t-tests once, in text order
+  const testStarts = tests.filter((t) => t.segment === seg.id).map((test) => ({ at: textIndexOf(seg, test.span.start), test })).sort((a, b) => a.at - b.at);
+  const boundaries: Array<{ at: number }> = testStarts.map((t) => ({ at: t.at }));
   for (const o of others) if (!OWN_EFFECT.has(o.kind)) boundaries.push({ at: textIndexOf(seg, o.span.start) });
   boundaries.sort((a, b) => a.at - b.at);
   // φ and V with their text starts, in order: each χ² finds the first after it by binary search
   const associations = others.filter((e) => e.kind === 'association' && e.value).map((e) => ({ ...e, at: textIndexOf(seg, e.span.start) })).sort((a, b) => a.at - b.at);
-  const testStarts = tests.filter((t) => t.segment === seg.id).map((test) => ({ at: textIndexOf(seg, test.span.start), test })).sort((a, b) => a.at - b.at);
   // each F's own η²: the first (in the records' order) after its value and before its clause ends.
   // Records in text order, as the recognisers give them, are searched by binary search; in any
   // other order, one by one as before (a scan per F was quadratic in a paragraph of Fs)
@@ -125,8 +125,7 @@ export function completeStatistics(seg: Segment, starts: number[], others: Other
     const x = etasInOrder ? firstAfter(etas, after) : etas.find((y) => y.at > after && y.at < before);
     return x !== undefined && x.at < before ? x.e : undefined;
   };
-  const hard: number[] = [];
-  for (const t of tests) if (t.segment === seg.id) hard.push(textIndexOf(seg, t.span.start));
+  const hard: number[] = testStarts.map((t) => t.at);
   for (const o of others) if (CHECKED.has(o.kind)) hard.push(textIndexOf(seg, o.span.start));
   // what is the same for every F of the paragraph or sentence, read once
   let paragraphWords: string | null | undefined;
