@@ -85,6 +85,24 @@ describe('the first match inside slices of one text', () => {
   });
 
   it('refuses a pattern with an anchor, a word boundary, a look-around, or the g, y or d flag', () => {
-    for (const re of [/^a/, /a$/, /\ba/, /(?=a)b/, /(?<!a)b/, /a/d, /a/g, /a/y]) expect(() => new FirstMatches(re, 'ab')).toThrow(TypeError);
+    for (const re of [/^a/, /a$/, /\ba/, /(?=a)b/, /(?<!a)b/, /a/d, /a/g, /a/y]) {
+      // every time it is given: a pattern refused once is not remembered as checked
+      expect(() => new FirstMatches(re, 'ab')).toThrow(TypeError);
+      expect(() => new FirstMatches(re, 'ba')).toThrow(TypeError);
+    }
+  });
+
+  it('checks a pattern once, and each text of a pattern that matches the empty string is read slice by slice', () => {
+    // the same pattern object over two texts: what it is found to be on the first holds for the second
+    const empty = /a*/;
+    for (const text of ['aab', 'baa']) {
+      const first = new FirstMatches(empty, text);
+      for (let from = 0; from <= text.length; from += 1)
+        for (let to = from; to <= text.length; to += 1) {
+          const want = empty.exec(text.slice(from, to));
+          const got = first.within(from, to);
+          expect([got?.[0], got?.index], `${text} [${from}, ${to})`).toEqual([want?.[0], want === null ? undefined : (want.index as number) + from]);
+        }
+    }
   });
 });
