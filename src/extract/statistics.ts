@@ -107,6 +107,8 @@ const RANK_BEFORE = /(?<![\p{L}\p{N}_])(?:U|W|T|V)(?: ?\(\d{1,6}\))? ?[=<>]|Mann
  * characters, and stops at a contrast or three words of other prose, as for a t-test.
  */
 export function completeStatistics(seg: Segment, starts: number[], others: OtherStatistic[], tests: readonly TTestReport[]): OtherStatistic[] {
+  // nothing to complete (most paragraphs): the records as they are, without the indices below
+  if (!others.some((o) => CHECKED.has(o.kind) && o.value)) return others;
   const text = seg.text;
   // the text index of each record's start (spans are source offsets; the segment maps them),
   // for this segment's t-tests once, in text order
