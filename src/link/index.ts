@@ -6,7 +6,7 @@ import type { DocumentSettings, LinkedDocument, LinkedResult, LinkedStatistic, S
 export type * from './types.js';
 export type { DescriptiveLink, Design, IntervalLink, IntervalTarget, LinkBasis, Linked, ResultContext } from './descriptives.js';
 export { groupBy } from './descriptives.js';
-import { contextJoiner, fGroupsJoiner, spreadStatements } from './descriptives.js';
+import { contextJoiner, fGroupsJoiner, groupBy, spreadStatements } from './descriptives.js';
 import { sentenceKey, sentenceKeyOf } from './clauses.js';
 import { testNames } from './testNames.js';
 export type { TestName, TestNameBasis } from './testNames.js';
@@ -35,18 +35,8 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     ?? settings.alpha ?? { value: DEFAULT_ALPHA, basis: 'default' as const };
 
   const join = contextJoiner(extraction);
-  const statementsBySegment = new Map<number, ContextStatement[]>();
-  for (const s of extraction.statements) {
-    const list = statementsBySegment.get(s.segment);
-    if (list) list.push(s);
-    else statementsBySegment.set(s.segment, [s]);
-  }
-  const testsBySegment = new Map<number, TTestReport[]>();
-  for (const t of extraction.tests) {
-    const list = testsBySegment.get(t.segment);
-    if (list) list.push(t);
-    else testsBySegment.set(t.segment, [t]);
-  }
+  const statementsBySegment = groupBy(extraction.statements, (s) => s.segment);
+  const testsBySegment = groupBy(extraction.tests, (t) => t.segment);
   // The statements of each paragraph's sentences that report no test (computed once per segment).
   // and the tails and alpha they agree on
   const paragraphStatements = new Map<number, ParagraphReading>();
@@ -216,12 +206,7 @@ const withAdjustment = (s: ContextStatement | undefined) => (s ? { adjustmentSai
 function resampledJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>): (at: { segment: number; sentence: number; span: Span; p?: { span: Span } }) => Mention | undefined {
   const said = extraction.mentions.filter((m) => m.kind === 'resampled-p' || m.kind === 'resampling-test');
   if (said.length === 0) return () => undefined;
-  const bySentence = new Map<string, Mention[]>();
-  for (const m of said) {
-    const list = bySentence.get(sentenceKey(m));
-    if (list) list.push(m);
-    else bySentence.set(sentenceKey(m), [m]);
-  }
+  const bySentence = groupBy(said, sentenceKey);
   const general = said.find((m) => m.kind === 'resampled-p' && !withStatistics.has(sentenceKey(m)));
   // in its sentence, only words before its p speak of it ("A permutation test gave t(28) = …,
   // p = …", "t(28) = …, permutation p = …"); words after it are another p's ("…, p = .072,
@@ -470,12 +455,7 @@ const TESTS: ReadonlySet<OtherStatistic['kind']> = new Set(['F', 'chi-square', '
 function coefficientBeforeJoiner(x: Extraction): (o: OtherStatistic) => Linked<EstimateReport & { se: ReportedNumber }> | undefined {
   const coefficients = x.estimates.filter((e) => e.kind === 'coefficient' && !e.table);
   if (coefficients.length === 0) return () => undefined;
-  const bySentence = new Map<string, EstimateReport[]>();
-  for (const e of coefficients) {
-    const list = bySentence.get(sentenceKey(e));
-    if (list) list.push(e);
-    else bySentence.set(sentenceKey(e), [e]);
-  }
+  const bySentence = groupBy(coefficients, sentenceKey);
   for (const list of bySentence.values()) list.sort((a, b) => a.span.end - b.span.end);
   const tests = new Map<string, number[]>();
   const addTest = (r: { segment: number; sentence: number; span: Span }) => {

@@ -180,12 +180,17 @@ describe('the bundled command with its code cache', () => {
     }
   }, 120_000);
 
-  it('ignores a damaged, altered or stale cache file, reports as always, and writes a good one in its place', () => {
+  /** A cache made by a run of `args` in a folder of its own, with the report the same run gives without a cache. */
+  const madeCache = (args: string[]) => {
     const folder = mkdtempSync(join(tmpdir(), 'plumbline-cache-'));
-    const args = ['paper.md', '-f', 'json'];
     const expected = bundled(args, dir, 'off');
     bundled(args, dir, folder);
-    const { file, bytes: good, made, payload } = cacheOnDisk(folder);
+    return { folder, expected, ...cacheOnDisk(folder) };
+  };
+
+  it('ignores a damaged, altered or stale cache file, reports as always, and writes a good one in its place', () => {
+    const args = ['paper.md', '-f', 'json'];
+    const { folder, expected, file, bytes: good, made, payload } = madeCache(args);
     const altered = Buffer.from(good);
     altered[altered.length - 1000] = (altered[altered.length - 1000] as number) ^ 0xff;
     const cases: Array<[string, Buffer]> = [
@@ -257,11 +262,8 @@ describe('the bundled command with its code cache', () => {
   }, 120_000);
 
   it('a cache file made by a run that checked less than this one is replaced; one that checked more is kept', () => {
-    const folder = mkdtempSync(join(tmpdir(), 'plumbline-cache-'));
     const args = ['paper.md', '-f', 'json'];
-    const expected = bundled(args, dir, 'off');
-    bundled(args, dir, folder);
-    const { file, header, made, payload } = cacheOnDisk(folder);
+    const { folder, expected, file, header, made, payload } = madeCache(args);
     expect(header.checked).toBe(3);
     for (const [recorded, replaced] of [
       [0, true],
