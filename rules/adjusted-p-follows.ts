@@ -68,11 +68,11 @@ export const adjustedPFollows: Rule = {
   },
 };
 
-/** The method named with the p, or, when it only says "adjusted", the one correction the document names. */
+/** The method named with the p, or, when it only says "adjusted", the one correction the document names (words that name none, "adjusted for multiple comparisons", do not count). */
 function methodOf(p: ReportedP, corrections: ContextStatement[]): AdjustMethod | undefined {
   const own = p.adjusted?.method;
   if (own && own !== 'unspecified') return own;
-  const methods = new Set(corrections.map((c) => c.method));
+  const methods = new Set(corrections.filter((c) => c.unnamed !== true).map((c) => c.method));
   return methods.size === 1 ? [...methods][0] : undefined;
 }
 

@@ -46,7 +46,7 @@ const NO_SPHERICITY_CORRECTION = /(?<![\p{L}])(?:(?:sphericity|Mauchly)[^.;]{0,8
  * obtained from 10,000 permutations", "permutation-based p values"): such a p need not follow
  * from its statistic.
  */
-const RESAMPLED_P = /(?<![\p{L}])(?:p[- ]?values?|significance(?: levels?)?)(?: (?:were|was|are|is))? (?:obtained|computed|calculated|derived|estimated|determined|assessed|based)(?: (?:by|with|using|from|through|via|on))(?: (?:a|an|the))?(?: \d[\d,]{0,12})?(?: (?:random|Monte Carlo))? (?:permutations?|permutation tests?|permuting|bootstrap(?:ping|ped)?|resampling|Monte Carlo|randomi[sz]ations?|randomi[sz]ation tests?)(?![\p{L}])|(?<![\p{L}])(?:permutation|permuted|bootstrap(?:ped)?|resampling|Monte Carlo|randomi[sz]ation)[- ](?:based )?p(?:[- ]?values?)?(?![\p{L}])|(?<![\p{L}])p_?perm(?![\p{L}])/giu;
+const RESAMPLED_P = /(?<![\p{L}])(?:p[- ]?values?|significance(?: levels?)?)(?: (?:were|was|are|is))? (?:obtained|computed|calculated|derived|estimated|determined|assessed|based)(?: (?:by|with|using|from|through|via|on))(?: (?:a|an|the))?(?: \d{1,3}(?:[, \u00A0\u2009\u202F]\d{3}){1,4}| \d{1,12})?(?: (?:random|Monte Carlo))? (?:permutations?|permutation tests?|permuting|bootstrap(?:ping|ped)?|resampling|Monte Carlo|randomi[sz]ations?|randomi[sz]ation tests?)(?![\p{L}])|(?<![\p{L}])(?:permutation|permuted|bootstrap(?:ped)?|resampling|Monte Carlo|randomi[sz]ation)[- ](?:based )?p(?:[- ]?values?)?(?![\p{L}])|(?<![\p{L}])p_?perm(?![\p{L}])/giu;
 /** A permutation or randomization test named: a p reported with it in its sentence came from resampling. */
 const RESAMPLING_TEST = /(?<![\p{L}])(?:permutation|randomi[sz]ation) (?:t[- ])?tests?(?![\p{L}])/giu;
 /** The header R prints above a t-test's output. */

@@ -48,7 +48,14 @@ const NOT_CORRECTED = /(?<![\p{L}])(?:(?:not|no|none|never|without)(?: (?:furthe
 const CORRECTED_ALPHA = /(?<![\p{L}])(?:(?:corrected|adjusted) (?:alpha|α|significance (?:level|threshold|criterion)|threshold|level)|(?:alpha|α|significance level|threshold)(?: level)?(?: was| of)? (?:[\p{L}–-]+[- ])?(?:corrected|adjusted|divided)|0?\.0[1-5] ?\/ ?\d|(?:alpha|α|threshold|level|criterion|p ?[<≤]|below|at|to) (?:(?:of|=|was|set at|set to) ?)?0?\.0(?:[0-4]\d*|5\d+)(?!\d))/iu;
 
 /** A correction for multiple comparisons named in a sentence. */
-const CORRECTION = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidák|Sidak|Hochberg|Benjamini|false discovery rate|FDR|Tukey)(?![\p{L}])/iu;
+const CORRECTION = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidák|Sidak|Hochberg|Hommel|Benjamini|false discovery rate|FDR|Tukey|Westfall)(?![\p{L}])/iu;
+/**
+ * A correction for multiple comparisons said without naming one ("adjusted for multiple
+ * comparisons", "multiplicity-adjusted", "corrected for multiple testing", "a correction for
+ * multiplicity"): read as a correction of unknown kind, which can give any p from the unadjusted
+ * one up to 1.
+ */
+const UNNAMED_CORRECTION = /(?<![\p{L}])(?:(?:adjust|correct)(?:ed|ing|ions?|ments?)? (?:\p{L}+ )?for (?:the )?(?:multiple (?:comparisons?|testing|tests|hypotheses|outcomes|endpoints)|multiplicity)|multiplicity[- ](?:adjusted|corrected)|(?:multiple[- ](?:comparisons?|testing)|multiplicity) (?:adjustments?|corrections?|adjusted|corrected))(?![\p{L}])/iu;
 
 /** Statements about tails, equivalence testing, alpha and what ± stands for, in one segment. */
 export function findStatements(seg: Segment, sentenceStarts: number[]): ContextStatement[] {
@@ -90,11 +97,12 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     const sd = /^(sd|s\.d\.|standard dev)/i.test(m[1] as string);
     out.push({ kind: 'spread', spread: sd ? 'SD' : 'SE', ...base(m.index, m.index + m[0].length) });
   }
-  if (/Bonferroni|Holm|id[aá]k|Hochberg|Benjamini|discovery|FDR|Tukey/i.test(text)) {
+  if (/Bonferroni|Holm|id[aá]k|Hochberg|Hommel|Benjamini|discovery|FDR|Tukey|Westfall|multipl/i.test(text)) {
     for (let i = 0; i < sentenceStarts.length; i += 1) {
       const a = sentenceStarts[i] as number;
       const sentence = text.slice(a, sentenceStarts[i + 1] ?? text.length);
-      const method = CORRECTION.exec(sentence);
+      // a named correction first: words without a name in the same sentence speak of it
+      const method = CORRECTION.exec(sentence) ?? UNNAMED_CORRECTION.exec(sentence);
       if (!method) continue;
       const comparisons = comparisonsIn(sentence)?.m;
       const b = a + method.index + method[0].length;
@@ -103,7 +111,8 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
       out.push({
         kind: 'multiplicity',
         // "Bonferroni–Holm" is Holm's procedure; Benjamini–Yekutieli's bound is not Benjamini–Hochberg's
-        method: /Yekutieli/iu.test(sentence) ? 'unspecified' : /Holm/u.test(sentence) ? 'holm' : correctionMethod(method[1] as string),
+        method: method[1] === undefined || /Yekutieli/iu.test(sentence) ? 'unspecified' : /Holm/u.test(sentence) ? 'holm' : correctionMethod(method[1]),
+        ...(method[1] === undefined ? { unnamed: true as const } : {}),
         general: EVERY_P.test(near),
         ...(notOfP ? { notOfP: true as const } : {}),
         ...(comparisons !== undefined ? { comparisons } : {}),
@@ -132,5 +141,8 @@ function correctionMethod(word: string): AdjustMethod {
   if (w === 'hochberg') return 'hochberg';
   if (w === 'sidak' || w === 'šidák' || w === 'sidák') return 'sidak';
   if (w === 'tukey') return 'tukey';
+  // Hommel's procedure and Westfall and Young's resampling are read as a correction of unknown
+  // kind (at least the unadjusted p, at most 1), not held to a formula
+  if (w === 'hommel' || w === 'westfall') return 'unspecified';
   return 'fdr';
 }

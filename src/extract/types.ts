@@ -63,6 +63,8 @@ export interface ContextStatement {
   /** For `multiplicity`: the correction named, and the number of comparisons when printed. */
   method?: AdjustMethod;
   comparisons?: number;
+  /** For `multiplicity`: said without naming a correction ("adjusted for multiple comparisons"); `method` is then `unspecified`. */
+  unnamed?: true;
   /**
    * For `multiplicity`: the correction is not one of the p values: denied ("We did not correct
    * the p values", "would not survive a Bonferroni correction", "uncorrected"), or of alpha ("a

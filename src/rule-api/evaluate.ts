@@ -253,7 +253,8 @@ export function mayBeAdjusted(said: ContextStatement, unadjusted: Interval, repo
 export function adjustmentDoubt(said: ContextStatement, gives: string, unadjusted: Interval): string {
   const r = adjustedRangeOf(said, unadjusted);
   const m = said.comparisons !== undefined ? ` for ${said.comparisons} comparisons` : '';
-  return `the text names a correction for multiple comparisons, “${said.printed}”, and labels no p as adjusted: this p, larger than ${gives}, may be an adjusted one (the correction${m} could give ${showInterval(r.low, r.high)})`;
+  const what = said.unnamed === true ? `says a correction for multiple comparisons was made, “${said.printed}”, without naming it,` : `names a correction for multiple comparisons, “${said.printed}”,`;
+  return `the text ${what} and labels no p as adjusted: this p, larger than ${gives}, may be an adjusted one (the correction${m} could give ${showInterval(r.low, r.high)})`;
 }
 
 function logComparison(r: LinkedResult['report'], alpha: number, box: { tLow: number; tHigh: number; dfLow: number; dfHigh: number }): { check: PConsistency; reported: PInterval } {

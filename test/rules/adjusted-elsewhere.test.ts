@@ -100,3 +100,38 @@ describe('third review (invented cases): denials, alpha thresholds and the readi
     expect(f?.message).toContain('(the correction for 3 comparisons could give 0.0644 to 0.0758)');
   });
 });
+
+describe('a correction said without a name, and corrections named by their authors (invented cases)', () => {
+  // t(28) = 2.10 gives two-tailed .0444 to .0453 (scipy.stats.t.sf, as above)
+  const t = 'The groups differed, t(28) = 2.10, p = .135.';
+  it('reads "adjusted for multiple comparisons" and its kin as a correction of unknown kind: a note, from the p up to 1', () => {
+    for (const words of ['All p values were adjusted for multiple comparisons.', 'P values are multiplicity-adjusted.', 'The p values were corrected for multiple testing.', 'A multiple-comparison correction was applied to all p values.', 'All p values are adjusted for multiplicity.']) {
+      const [f, ...rest] = findingsOf(`${words}\n\n${t}`, 'significance-follows-from-t');
+      expect(rest).toEqual([]);
+      expect(f?.level).toBe('note');
+      expect(f?.message).toContain('without naming it, and labels no p as adjusted: this p, larger than t and df give, may be an adjusted one (the correction could give 0.0444 to 1)');
+    }
+    // in the result's own sentence, before its p
+    expect(levels('After adjustment for multiple comparisons the groups differed, t(28) = 2.10, p = .135.', 'significance-follows-from-t')).toEqual(['note']);
+    // right after its p the words label that p as adjusted: it is not held to t and df at all
+    expect(levels('The groups differed, t(28) = 2.10, p = .135 (adjusted for multiple comparisons).', 'significance-follows-from-t')).toEqual([]);
+  });
+  it('stays an error where the words deny a correction, correct alpha, or speak of something else', () => {
+    for (const words of ['We did not correct for multiple comparisons.', 'No adjustment for multiple comparisons was made.', 'P values were not adjusted for multiple testing.', 'The alpha level was adjusted for multiple comparisons.', 'All estimates were adjusted for age and sex.', 'We adjusted for multiple comparisons in the secondary analyses.']) {
+      expect(levels(`${words}\n\n${t}`, 'significance-follows-from-t')).toEqual(['error']);
+    }
+  });
+  it('stays a warning where the p is smaller than t and df give', () => {
+    expect(levels('All p values were adjusted for multiple comparisons.\n\nThe groups differed, t(28) = 2.10, p = .015.', 'p-follows-from-t')).toEqual(['warning']);
+  });
+  it("reads Hommel's procedure and Westfall and Young's as corrections of unknown bound", () => {
+    // a bound of 3 × p would make .24 impossible for three comparisons; these are read up to 1
+    expect(levels('All p values were adjusted with the Hommel procedure for three comparisons.\n\nThe groups differed, t(28) = 2.10, p = .24.', 'significance-follows-from-t')).toEqual(['note']);
+    expect(levels('All p values were adjusted with the Westfall–Young step-down procedure.\n\nThe groups differed, t(28) = 2.10, p = .24.', 'significance-follows-from-t')).toEqual(['note']);
+  });
+  it('does not let unnamed words stand beside a named correction in adjusted-p-follows (the named one is the method)', () => {
+    // Bonferroni for three comparisons from p = .021 (.0205 to .0215): .0615 to .0645; .090 is outside
+    const markdown = 'We corrected for multiple comparisons. The Bonferroni method was used for the three comparisons.\n\nThe groups differed, t(28) = 2.45, p = .021, adjusted p = .090.';
+    expect(levels(markdown, 'adjusted-p-follows')).toEqual(['warning']);
+  });
+});
