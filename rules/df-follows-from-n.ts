@@ -1,5 +1,5 @@
-import { dfInterval, fill, inferDesign, numberInterval, showInterval, type DfFigure, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts, type LinkedResult, isWholeDf, type ReportedNumber } from '../src/rule-api/index.js';
-import { welchDfRange } from '../src/stats/index.js';
+import { dfInterval, fill, inferDesign, numberInterval, showInterval, showNumber, type DfFigure, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts, type LinkedResult, isWholeDf, type ReportedNumber } from '../src/rule-api/index.js';
+import { welchDfRange, type Interval } from '../src/stats/index.js';
 
 const messages = {
   'one-group': 'Reported df = {df} for one group of n = {n}; a one-sample or paired t has n − 1 = {expected} df.',
@@ -32,7 +32,14 @@ export const dfFollowsFromN: Rule = {
           // two groups' sizes printed with the test ("n = 25 and 23", "in 26 and 28 employees")
           const [n1, n2] = [pair[0].value, pair[1].value];
           if (df !== n1 + n2 - 2 && !(n1 === n2 && df === n1 - 1)) {
-            out.push({ ...base, messageId: 'student', message: fill(messages.student, { df: r.df.printed, n1, n2, expected: n1 + n2 - 2 }), check: 'Check the df and the group sizes against the output.', related: [{ span: pair[0].span, message: 'the group sizes' }], figure: dfFigure(r.df, studentAllowed(n1, n2)) });
+            const welch = wholeWelch(df, n1, n2);
+            if (result.testName?.variant === 'welch') {
+              // its own words name Welch's test: the df is Welch's, printed whole
+              if (!welch.fits) out.push({ ...base, ...welchRangeFinding(r.df, n1, n2), related: [{ span: pair[0].span, message: 'the group sizes' }] });
+              continue;
+            }
+            const doubt = result.testName?.variant === undefined && welch.fits && result.untiedWelch ? welchDoubt(result, welch) : undefined;
+            out.push({ ...base, ...(doubt ? { uncertain: [doubt.text] } : {}), messageId: 'student', message: fill(messages.student, { df: r.df.printed, n1, n2, expected: n1 + n2 - 2 }), check: 'Check the df and the group sizes against the output.', related: [{ span: pair[0].span, message: 'the group sizes' }, ...(doubt?.related ?? [])], figure: dfFigure(r.df, studentAllowed(n1, n2)) });
           }
           continue;
         }
@@ -70,39 +77,104 @@ export const dfFollowsFromN: Rule = {
       }
       if (isWholeDf(r.df)) {
         if (df !== n1 + n2 - 2 && !(design === 'independent' && n1 === n2 && df === n1 - 1) && !(n1 === n2 && df === n1 - 1)) {
-          out.push({ ...base, messageId: 'student', message: fill(messages.student, { df: r.df.printed, n1, n2, expected: n1 + n2 - 2 }), check: 'Check the df and the group sizes against the output.', figure: dfFigure(r.df, studentAllowed(n1, n2)) });
+          const sds = welchFromSpreads(link, n1, n2);
+          const welch = wholeWelch(df, n1, n2, sds);
+          if (result.testName?.variant === 'welch') {
+            // its own words name Welch's test: the df is Welch's, printed whole (rounded or cut)
+            if (!welch.fits) out.push({ ...base, ...(sds && welch.by === 'sds' ? welchSdsFinding(r.df, link, sds) : welchRangeFinding(r.df, n1, n2)) });
+            continue;
+          }
+          // named by no words, its own or the text's, the test is taken for Student's; a df that the
+          // SDs give as Welch's, printed whole, or one within Welch's range where the text names
+          // Welch's test elsewhere, leaves that reading open: the finding then rests on an
+          // uncertain link and is a note
+          const doubt = result.testName?.variant === undefined && !result.untiedStudent && welch.fits && (welch.by === 'sds' || result.untiedWelch) ? welchDoubt(result, welch) : undefined;
+          out.push({ ...base, ...(doubt ? { uncertain: [...(base.uncertain ?? []), doubt.text] } : {}), messageId: 'student', message: fill(messages.student, { df: r.df.printed, n1, n2, expected: n1 + n2 - 2 }), check: 'Check the df and the group sizes against the output.', ...(doubt?.related ? { related: doubt.related } : {}), figure: dfFigure(r.df, studentAllowed(n1, n2)) });
         }
         continue;
       }
-      const low = Math.min(n1, n2) - 1;
-      const high = n1 + n2 - 2;
-      if (dfHigh < low || dfLow > high) {
-        out.push({ ...base, messageId: 'welch-range', message: fill(messages['welch-range'], { df: r.df.printed, n1, n2, low, high }), check: 'Check the df and the group sizes against the output.', figure: dfFigure(r.df, [{ label: "Welch's range", low, high }]) });
+      if (dfHigh < Math.min(n1, n2) - 1 || dfLow > n1 + n2 - 2) {
+        out.push({ ...base, ...welchRangeFinding(r.df, n1, n2) });
         continue;
       }
-      const [g1, g2] = link.groups;
-      if (g1?.spread && g2?.spread) {
-        // SEs are SD/√n; spreads of unstated kind are tried both ways
-        const kinds = link.spreadKinds;
-        const readings = kinds.every((k) => k === 'SD') ? [false] : kinds.every((k) => k === 'SE') ? [true] : kinds.every((k) => k === 'unstated') ? [false, true] : [];
-        const sd = (b: [number, number], n: number, asSE: boolean): [number, number] => (asSE ? [b[0] * Math.sqrt(n), b[1] * Math.sqrt(n)] : b);
-        const ranges = readings.map((asSE) => welchDfRange(sd(numberInterval(g1.spread!.number), n1, asSE), n1, sd(numberInterval(g2.spread!.number), n2, asSE), n2));
-        const range = ranges[0];
-        if (range && ranges.every((x) => x.high < dfLow || x.low > dfHigh)) {
-          out.push({
-            ...base,
-            messageId: 'welch-sds',
-            message: fill(messages['welch-sds'], { df: r.df.printed, inputs: `${g1.printed}; ${g2.printed}`, expected: showInterval(range.low, range.high) }),
-            recomputed: { quantity: 'Welch–Satterthwaite df', low: range.low, high: range.high, inputs: [g1.printed, g2.printed], assumptions: [readings.length > 1 ? 'spreads read as SDs, and as SEs' : readings[0] ? 'spreads are SEs, as labelled (SD = SE·√n)' : 'spreads are SDs, as labelled'] },
-            check: 'Check the df, the SDs and the group sizes against the output.',
-            figure: dfFigure(r.df, ranges.map((x, k) => ({ label: readings.length > 1 ? `Welch–Satterthwaite, ${readings[k] ? 'as SEs' : 'as SDs'}` : 'Welch–Satterthwaite', low: x.low, high: x.high }))),
-          });
-        }
-      }
+      const sds = welchFromSpreads(link, n1, n2);
+      if (sds && sds.ranges.every((x) => x.high < dfLow || x.low > dfHigh)) out.push({ ...base, ...welchSdsFinding(r.df, link, sds) });
     }
     return out;
   },
 };
+
+/** The descriptives tied to a result. */
+type DescriptiveLink = NonNullable<LinkedResult['context']['descriptives']>;
+
+/** The Welch–Satterthwaite df of two groups from their printed spreads, for each way the spreads can be read (SEs are SD/√n; spreads of unstated kind are tried both ways). */
+interface WelchFromSpreads {
+  /** For each reading, whether the spreads were read as SEs. */
+  readings: boolean[];
+  ranges: Interval[];
+  inputs: [string, string];
+}
+
+function welchFromSpreads(link: DescriptiveLink, n1: number, n2: number): WelchFromSpreads | undefined {
+  const [g1, g2] = link.groups;
+  if (!g1?.spread || !g2?.spread) return undefined;
+  const kinds = link.spreadKinds;
+  const readings = kinds.every((k) => k === 'SD') ? [false] : kinds.every((k) => k === 'SE') ? [true] : kinds.every((k) => k === 'unstated') ? [false, true] : [];
+  if (readings.length === 0) return undefined;
+  const sd = (b: [number, number], n: number, asSE: boolean): [number, number] => (asSE ? [b[0] * Math.sqrt(n), b[1] * Math.sqrt(n)] : b);
+  const [s1, s2] = [g1.spread.number, g2.spread.number];
+  return { readings, ranges: readings.map((asSE) => welchDfRange(sd(numberInterval(s1), n1, asSE), n1, sd(numberInterval(s2), n2, asSE), n2)), inputs: [g1.printed, g2.printed] };
+}
+
+/**
+ * A whole df read as a Welch df printed whole: rounded (df − 0.5 to df + 0.5) or cut to its whole
+ * part (df to df + 1), so df − 0.5 to df + 1, never below 1 (common practice, no source). It fits
+ * when the Welch–Satterthwaite df from the spreads (any reading) reaches that span, or, without
+ * spreads, when Welch's range min(n1, n2) − 1 to n1 + n2 − 2 does.
+ */
+function wholeWelch(df: number, n1: number, n2: number, sds?: WelchFromSpreads): { fits: boolean; by: 'sds' | 'range'; low: number; high: number; welch: Interval } {
+  const low = Math.max(df - 0.5, 1);
+  const high = df + 1;
+  const reaches = (x: Interval) => x.high >= low && x.low < high;
+  if (sds) {
+    const welch = { low: Math.min(...sds.ranges.map((x) => x.low)), high: Math.max(...sds.ranges.map((x) => x.high)) };
+    return { fits: sds.ranges.some(reaches), by: 'sds', low, high, welch };
+  }
+  const welch = { low: Math.min(n1, n2) - 1, high: n1 + n2 - 2 };
+  return { fits: reaches(welch), by: 'range', low, high, welch };
+}
+
+/** Why a whole df that Student's test does not give may be a Welch df printed whole, in the words of a note. */
+function welchDoubt(result: LinkedResult, w: ReturnType<typeof wholeWelch>): { text: string; related?: Array<{ span: { start: number; end: number }; message: string }> } {
+  const df = result.report.df?.printed.trim() ?? '';
+  const printedWhole = `a Welch df printed whole (rounded or cut: ${showNumber(w.low)} to ${showNumber(w.high)})`;
+  const fit = w.by === 'sds' ? `the Welch–Satterthwaite df from the SDs and ns, ${showInterval(w.welch.low, w.welch.high)}, can be printed as ${df}` : `${df} lies within Welch's range, min(n1, n2) − 1 = ${w.welch.low} to n1 + n2 − 2 = ${w.welch.high}`;
+  const named = result.untiedWelch;
+  if (named) {
+    return { text: `Welch's test is named elsewhere in the text, “${named.printed}”, not with this result, and its df of ${df} may be ${printedWhole}: ${fit}`, related: [{ span: named.span, message: "Welch's test named here" }] };
+  }
+  return { text: `the text does not say which t-test gave this result, and its df of ${df} may be ${printedWhole}: ${fit}` };
+}
+
+/** A df outside Welch's range for the two group sizes. */
+function welchRangeFinding(df: ReportedNumber, n1: number, n2: number): Pick<RuleFinding, 'messageId' | 'message' | 'check' | 'figure'> {
+  const low = Math.min(n1, n2) - 1;
+  const high = n1 + n2 - 2;
+  return { messageId: 'welch-range', message: fill(messages['welch-range'], { df: df.printed, n1, n2, low, high }), check: 'Check the df and the group sizes against the output.', figure: dfFigure(df, [{ label: "Welch's range", low, high }]) };
+}
+
+/** A df the Welch–Satterthwaite value from the printed SDs and ns does not reach. */
+function welchSdsFinding(df: ReportedNumber, link: DescriptiveLink, sds: WelchFromSpreads): Pick<RuleFinding, 'messageId' | 'message' | 'check' | 'figure' | 'recomputed'> {
+  const { readings, ranges } = sds;
+  const range = ranges[0] as Interval;
+  return {
+    messageId: 'welch-sds',
+    message: fill(messages['welch-sds'], { df: df.printed, inputs: sds.inputs.join('; '), expected: showInterval(range.low, range.high) }),
+    recomputed: { quantity: 'Welch–Satterthwaite df', low: range.low, high: range.high, inputs: [...sds.inputs], assumptions: [readings.length > 1 ? 'spreads read as SDs, and as SEs' : readings[0] ? 'spreads are SEs, as labelled (SD = SE·√n)' : 'spreads are SDs, as labelled', ...(isWholeDf(df) ? [`Welch's test, as its words say: the whole df read as rounded or cut (${showNumber(Math.max(df.value - 0.5, 1))} to ${showNumber(df.value + 1)})`] : [])] },
+    check: 'Check the df, the SDs and the group sizes against the output.',
+    figure: dfFigure(df, ranges.map((x, k) => ({ label: readings.length > 1 ? `Welch–Satterthwaite, ${readings[k] ? 'as SEs' : 'as SDs'}` : 'Welch–Satterthwaite', low: x.low, high: x.high }))),
+  };
+}
 
 /** What a picture of a df finding draws: the printed df (its rounding, when fractional) and the df the sizes allow. */
 function dfFigure(df: ReportedNumber, allowed: DfFigure['allowed']): DfFigure {

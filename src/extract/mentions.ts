@@ -25,7 +25,7 @@ const CHECK_REACH = 80;
 const MULTIPLICITY = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidak|Hochberg|Benjamini|false discovery rate|FDR|family-?wise|multiple (?:comparisons|testing|tests)|multiplicity|adjusted p(?:[- ]values?)?|corrected for multiple|Tukey['’]?s?(?: HSD)?)(?![\p{L}])/giu;
 const TREND = /(?<![\p{L}])(trend(?:ed)? (?:towards?|to) (?:significance|be significant)|a trend|marginal(?:ly)? (?:significant|significance)|approach(?:ed|ing) (?:statistical )?significance|borderline significan\p{L}*|nearly significant|almost significant|tended to)(?![\p{L}])/giu;
 const EXCLUSION = /(?<![\p{L}])(exclu\p{L}+|dropped out|drop-?outs?|withdr[ae]w\p{L}*|lost to follow-?up|missing data|incomplete data|did not complete|attrition|removed from (?:the )?analys[ie]s)(?![\p{L}])/giu;
-const TEST_NAME = /(?<![\p{L}])((?:paired|unpaired|independent|one[- ]sample|single[- ]sample|two[- ]sample|dependent|related|repeated[- ]measures|within[- ]subjects?|between[- ]subjects?)(?:[- ]samples?)? t[- ]tests?|Welch['’]?s?(?: t)?(?:[- ]tests?)?|(?:paired )?Student(?:['’]s)? t(?:[- ]?tests?)?|t[- ]tests? for (?:paired|independent|dependent|related) samples|unequal[- ]variances? t[- ]tests?|t[- ]tests? (?:assuming|with) unequal variances)(?![\p{L}])/giu;
+const TEST_NAME = /(?<![\p{L}])((?:paired|unpaired|independent|one[- ]sample|single[- ]sample|two[- ]sample|dependent|related|repeated[- ]measures|within[- ]subjects?|between[- ]subjects?)(?:[- ]samples?)? t[- ]tests?|Welch['’]?s?(?: t)?(?:[- ]tests?)?|(?:paired )?Student(?:['’]s)? t(?:[- ]?tests?)?|t[- ]tests? for (?:paired|independent|dependent|related) samples|unequal[- ]variances? t[- ]tests?|t[- ]tests? (?:assuming|with) unequal variances|t[- ]tests? (?:(?:that|which) (?:did|does|do) not assume|not assuming|without assuming) equal variances|equal variances not assumed)(?![\p{L}])/giu;
 /**
  * Words naming an analysis of variance with repeated measures, or the sphericity correction that
  * goes with one: an F of such an analysis may carry a corrected p beside its uncorrected dfs.
@@ -59,7 +59,7 @@ const MAY: Record<Mention['kind'], RegExp> = {
   multiplicity: /Bonferroni|Holm|id[aá]k|Hochberg|Benjamini|discovery|FDR|family|multipl|adjusted|corrected|Tukey/i,
   trend: /trend|marginal|approach|borderline|nearly|almost|tended/i,
   exclusion: /exclu|drop|withdr|lost to|missing|incomplete|did not complete|attrition|removed/i,
-  'test-name': /t[- ]test|Welch|Student t|Student['’]s t/i,
+  'test-name': /t[- ]test|Welch|Student t|Student['’]s t|equal variances not/i,
   'repeated-measures': /ANOVA|analys[ie]s of variance|subjects? factor|spheric|Greenhouse|Huynh|Mauchly/i,
   'between-subjects': /between[- ](?:subj|group|partic)|independent[- ]group|independent (?:groups|samples)/i,
   'no-sphericity-correction': /spheric|Mauchly|uncorrected/i,
@@ -171,7 +171,7 @@ export function testNameWords(words: string, source: TestNameWords['source'] = '
     if (w.startsWith('paired')) return { design: 'paired', plural, source };
     return { design: 'one-sample', plural, source };
   }
-  if (w.startsWith('welch') || w.includes('unequal')) return { design: 'independent', variant: 'welch', plural, source, ...(NAMES_A_TEST.test(w) ? { namesTest: true as const } : {}) };
+  if (w.startsWith('welch') || w.includes('unequal') || w.includes('not assum') || w.includes('without assum') || w.includes('variances not')) return { design: 'independent', variant: 'welch', plural, source, ...(NAMES_A_TEST.test(w) ? { namesTest: true as const } : {}) };
   if (w.startsWith('paired student')) return { design: 'paired', plural, source };
   if (w.startsWith('student')) return { design: 'independent', variant: 'student', plural, source };
   if (/^(?:paired|dependent|related|repeated|within)|for (?:paired|dependent|related)/u.test(w)) return { design: 'paired', plural, source };

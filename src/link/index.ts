@@ -107,7 +107,8 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   // (and none where the text also names Student's test so: it then says which test its results are)
   const generalName = (variant: 'welch' | 'student') =>
     extraction.mentions.find((m) => m.kind === 'test-name' && m.test?.variant === variant && m.negated !== true && (variant === 'student' || m.test.namesTest === true) && !sentencesWithTests.has(sentenceKey(m)));
-  const generalWelch = generalName('student') ? undefined : generalName('welch');
+  const generalStudent = generalName('student');
+  const generalWelch = generalStudent ? undefined : generalName('welch');
   const results: LinkedResult[] = extraction.tests.map((report) => {
     const k = sentenceKey(report);
     const reading = readingOf(k, report.segment, report.sentence);
@@ -122,6 +123,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       ...(named ? { testName: named } : {}),
       ...(elsewhere ? { untiedSidedness: elsewhere } : {}),
       ...(generalWelch && named?.variant === undefined ? { untiedWelch: generalWelch } : {}),
+      ...(generalStudent && named?.variant === undefined ? { untiedStudent: generalStudent } : {}),
       ...withAdjustment(adjustmentOf(report)),
       ...withResampled(resampledOf(report)),
     };

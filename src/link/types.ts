@@ -33,6 +33,12 @@ export interface LinkedResult {
    */
   untiedWelch?: Mention;
   /**
+   * Student's test named in a sentence of the text that reports no test ("Student's t-tests were
+   * used"), for a result whose own words name neither Welch's nor Student's: the text then says
+   * which test its results are, and a whole df is read as Student's count.
+   */
+  untiedStudent?: Mention;
+  /**
    * A correction for multiple comparisons named in its sentence, or in a sentence that reports
    * no statistic ("All p values were Bonferroni-corrected"), in a text that labels no p as
    * adjusted: its p may be an adjusted one, which cannot be told from the text.
