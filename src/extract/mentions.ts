@@ -47,6 +47,12 @@ const NO_SPHERICITY_CORRECTION = /(?<![\p{L}])(?:(?:sphericity|Mauchly)[^.;]{0,8
  * from its statistic.
  */
 const RESAMPLED_P = /(?<![\p{L}])(?:p[- ]?values?|significance(?: levels?)?)(?: (?:were|was|are|is))? (?:obtained|computed|calculated|derived|estimated|determined|assessed|based)(?: (?:by|with|using|from|through|via|on))(?: (?:a|an|the))?(?: \d{1,3}(?:[, \u00A0\u2009\u202F]\d{3}){1,4}| \d{1,12})?(?: (?:random|Monte Carlo))? (?:permutations?|permutation tests?|permuting|bootstrap(?:ping|ped)?|resampling|Monte Carlo|randomi[sz]ations?|randomi[sz]ation tests?)(?![\p{L}])|(?<![\p{L}])(?:permutation|permuted|bootstrap(?:ped)?|resampling|Monte Carlo|randomi[sz]ation)[- ](?:based )?p(?:[- ]?values?)?(?![\p{L}])|(?<![\p{L}])p_?perm(?![\p{L}])/giu;
+/**
+ * A df approximated rather than counted (mixed models' Satterthwaite or Kenward–Roger dfs): such
+ * a df is a real number, and one printed whole may have been rounded. "Welch–Satterthwaite" is
+ * Welch's test's own df, read with Welch's test (TEST_NAME), not here.
+ */
+const APPROXIMATE_DF = /(?<![\p{L}])(?<!Welch[-–‐ ])(?:Satterthwaite|Kenward[-–‐ ]Roger)(?:['’]s)?(?![\p{L}])/giu;
 /** A permutation or randomization test named: a p reported with it in its sentence came from resampling. */
 const RESAMPLING_TEST = /(?<![\p{L}])(?:permutation|randomi[sz]ation) (?:t[- ])?tests?(?![\p{L}])/giu;
 /** The header R prints above a t-test's output. */
@@ -65,6 +71,7 @@ const MAY: Record<Mention['kind'], RegExp> = {
   'no-sphericity-correction': /spheric|Mauchly|uncorrected/i,
   'resampled-p': /permut|bootstrap|resampl|Monte Carlo|randomi[sz]ation|p_?perm/i,
   'resampling-test': /(?:permutation|randomi[sz]ation) (?:t[- ])?test/i,
+  'approximate-df': /Satterthwaite|Kenward/i,
 };
 
 /** Guideline-relevant words in one prose segment. */
@@ -84,8 +91,9 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
   for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion'], [BETWEEN_SUBJECTS, 'between-subjects']] as const) {
     if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) add(kind, m);
   }
-  // resampling denied at its words ("Permutation-based p values were not computed") says nothing of a p
-  for (const [re, kind] of [[RESAMPLED_P, 'resampled-p'], [RESAMPLING_TEST, 'resampling-test']] as const) {
+  // resampling or an approximated df denied at its words ("Permutation-based p values were not
+  // computed", "no Kenward–Roger correction") says nothing of a p
+  for (const [re, kind] of [[RESAMPLED_P, 'resampled-p'], [RESAMPLING_TEST, 'resampling-test'], [APPROXIMATE_DF, 'approximate-df']] as const) {
     if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) {
       if (!deniedAt(text, m.index, m.index + m[0].length, starts)) add(kind, m);
     }

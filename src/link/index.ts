@@ -102,6 +102,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const sentencesWithStatistics = new Set([...sentencesWithTests, ...extraction.otherStatistics.map(sentenceKey)]);
   const adjustmentOf = adjustmentJoiner(extraction, sentencesWithStatistics);
   const resampledOf = resampledJoiner(extraction, sentencesWithStatistics);
+  const approximateDfOf = approximateDfJoiner(extraction, sentencesWithStatistics);
   // Welch's test named where no test is reported ("Welch's t-tests were used throughout")
   // (as a test: not "Welch's method" or "Welch's ANOVA", and not in a sentence that negates it)
   // (and none where the text also names Student's test so: it then says which test its results are)
@@ -126,6 +127,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       ...(generalStudent && named?.variant === undefined ? { untiedStudent: generalStudent } : {}),
       ...withAdjustment(adjustmentOf(report)),
       ...withResampled(resampledOf(report)),
+      ...withApproximateDf(approximateDfOf(report)),
     };
   });
   const statistics: LinkedStatistic[] = [];
@@ -217,6 +219,20 @@ function resampledJoiner(extraction: Extraction, withStatistics: ReadonlySet<str
 }
 
 const withResampled = (m: Mention | undefined) => (m ? { resampledP: m } : {});
+const withApproximateDf = (m: Mention | undefined) => (m ? { approximateDf: m } : {});
+
+/**
+ * The words saying dfs were approximated (Satterthwaite, Kenward–Roger) that speak of a result:
+ * in its own sentence, else the first in a sentence that reports no statistic. Such words only
+ * ever make a finding less certain, as a whole df may then be a rounded one.
+ */
+function approximateDfJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>): (at: { segment: number; sentence: number }) => Mention | undefined {
+  const said = extraction.mentions.filter((m) => m.kind === 'approximate-df');
+  if (said.length === 0) return () => undefined;
+  const bySentence = groupBy(said, sentenceKey);
+  const general = said.find((m) => !withStatistics.has(sentenceKey(m)));
+  return (at) => bySentence.get(sentenceKey(at))?.[0] ?? general;
+}
 
 /**
  * The words naming a repeated-measures analysis or a sphericity correction nearest to a

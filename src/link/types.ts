@@ -50,6 +50,12 @@ export interface LinkedResult {
    * or in a sentence that reports no statistic. Such a p need not follow from the statistic.
    */
   resampledP?: Mention;
+  /**
+   * Words saying dfs were approximated rather than counted (Satterthwaite's or Kenward and Roger's
+   * dfs of a mixed model), in its sentence or in a sentence that reports no statistic: a whole df
+   * may then be such a df printed rounded, which cannot be told from the text.
+   */
+  approximateDf?: Mention;
 }
 
 /**

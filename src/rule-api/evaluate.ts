@@ -46,6 +46,12 @@ export interface PEvaluation {
    */
   welchElsewhere?: { applicable: Interval; dfLow: number; dfHigh: number };
   /**
+   * Set when the reported p lies outside the range that applies, the df is printed whole and the
+   * text says dfs were approximated (LinkedResult.approximateDf), and the df read as rounded gives
+   * the p: the range of that reading. A finding then rests on the df being exact, which is not certain.
+   */
+  approximateDf?: { applicable: Interval; dfLow: number; dfHigh: number };
+  /**
    * Set when the reported p lies wholly above the range that applies and the text names a
    * correction for multiple comparisons for it or for every p, labelling no p as adjusted
    * (LinkedResult.adjustmentSaid): the p may be an adjusted one, which is never smaller.
@@ -179,10 +185,13 @@ function evaluatePOnce(result: LinkedResult): PEvaluation | undefined {
   const design = result.testName?.design ?? result.context.design.value;
   const countDf = design === 'paired' || design === 'one-sample' || result.context.coefficient !== undefined;
   const welchElsewhere = standing !== 'consistent' && !log10 && result.untiedWelch && !countDf && isWholeDf(r.df) ? asWelchDf({ tLow, tHigh, df: r.df.value, reported }, useOne) : undefined;
+  // an approximated df (a mixed model's) printed whole, for a result its own words do not name a t-test
+  const approximateDf = standing !== 'consistent' && !log10 && !welchElsewhere && result.approximateDf && result.testName === undefined && isWholeDf(r.df) ? asWelchDf({ tLow, tHigh, df: r.df.value, reported }, useOne) : undefined;
   return {
     standing, check, reported, applicable, applicableName, reportedSide, recomputedSide, decisionFlips, recomputed, gap,
     ...(log10 && logApplicable ? { log10: { ...log10, applicable: logApplicable } } : {}),
     ...(welchElsewhere ? { welchElsewhere } : {}),
+    ...(approximateDf ? { approximateDf } : {}),
     ...(standing !== 'consistent' && !log10 && result.adjustmentSaid && mayBeAdjusted(result.adjustmentSaid, applicable, reported) ? { maybeAdjusted: true as const } : {}),
   };
 }
@@ -207,7 +216,8 @@ function applicableReading(check: PConsistency, reported: PInterval, useOne: boo
 /**
  * `{ uncertain, related }` for a finding about a result's p that rests on a reading the text
  * leaves open: its whole df being a count where the text names Welch's test elsewhere and a
- * rounded Welch df would give the p (welchElsewhere), or its p being unadjusted where the text
+ * rounded Welch df would give the p (welchElsewhere), or an approximated df printed whole would
+ * (approximateDf), or its p being unadjusted where the text
  * names a correction for it or for every p and the p is larger than t and df give
  * (maybeAdjusted). Empty when neither applies.
  */
@@ -219,6 +229,12 @@ export function pDoubts(result: LinkedResult, e: PEvaluation): { uncertain?: str
   if (w && named && result.report.df) {
     uncertain.push(`Welch's test is named elsewhere in the text, “${named.printed}”, not with this result: if its df of ${result.report.df.printed.trim()} is a Welch df printed whole (${showNumber(w.dfLow)} to ${showNumber(w.dfHigh)}), the ${e.applicableName} would be ${showInterval(w.applicable.low, w.applicable.high)}, which holds the reported p`);
     related.push({ span: named.span, message: "Welch's test named here" });
+  }
+  const approximate = e.approximateDf;
+  const words = result.approximateDf;
+  if (approximate && words && result.report.df) {
+    uncertain.push(`the text says dfs were approximated, “${words.printed}”: if its df of ${result.report.df.printed.trim()} is such a df printed whole (${showNumber(approximate.dfLow)} to ${showNumber(approximate.dfHigh)}), the ${e.applicableName} would be ${showInterval(approximate.applicable.low, approximate.applicable.high)}, which holds the reported p`);
+    related.push({ span: words.span, message: 'approximated dfs named here' });
   }
   const adjustment = result.adjustmentSaid;
   if (e.maybeAdjusted && adjustment) {
