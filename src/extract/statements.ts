@@ -31,6 +31,14 @@ const ANALYSIS_WORD = /(?<![\p{L}])(?:tests?|t-tests?|testing|tested|p|P|p[- ]va
 const GENERAL_WORDS = /(?<![\p{L}])(?:all|every|each|throughout|unless|tests|t-tests|p[- ]values|analyses|comparisons|hypotheses|contrasts|statistical significance|significance (?:was|is|level|threshold|criterion)|level of significance|alpha (?:level|was|of|=)|α ?(?:=|was|of|level))(?![\p{L}])/iu;
 /** Words that make an alpha local: a corrected or adjusted alpha, or the alpha of a power calculation. */
 const LOCAL_ALPHA = /(?<![\p{L}])(?:corrected|adjusted|Bonferroni|Holm|Šidák|Sidak|per comparison|for (?:this|these|each|the (?:primary|secondary))|family-?wise|power|detect|sample size)(?![\p{L}])/iu;
+/**
+ * Words that limit a statement to some of the tests: a kind of outcome or analysis ("for the
+ * secondary outcomes", "in the exploratory analyses"), a study of several ("in Study 2"), an
+ * exception ("except", "other than"), "only for", or a condition on the hypothesis ("where a
+ * direction was predicted"). Which results such a statement speaks of cannot be told from the
+ * text, so it is tied to none beyond its own sentence.
+ */
+const RESTRICTED_SCOPE = /(?<![\p{L}])(?:only (?:for|in|when|where|if)|(?:for|in) (?:the |our )?(?:secondary|exploratory|primary|additional|supplementary|supplemental|post[- ]hoc|subgroup|sensitivity|follow-?up|confirmatory|pre-?registered|planned|individual|selected|remaining|other) (?:[\p{L}-]+ )?(?:outcomes?|analys[ie]s|comparisons?|tests?|endpoints?|measures?|hypothes[ie]s|contrasts?|predictions?|effects?|variables?)|in (?:Study|Experiment|Sample|Phase|Cohort|Trial|Part) (?:\d+|[IVX]+|[A-Z])|except(?: for)?|with the exception of|apart from|other than|excluding|(?:where|when|if) (?:a |the |our )?(?:direction|hypothes[ie]s|prediction)\p{L}*)(?![\p{L}])/iu;
 /** Words of a power or sample-size calculation: its tails and alpha size the study, they do not say how its tests were run. */
 const PLANNING = /(?<![\p{L}])(?:power(?:ed)?|to detect|sample size|sample-size|G\*Power|minimum (?:detectable|effect))(?![\p{L}])/iu;
 
@@ -70,13 +78,13 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
   });
   // What each sentence's words say, read once per sentence: a sentence of thousands of
   // statements would otherwise be searched again for each.
-  const readings = new Map<number, { planning: boolean; general: boolean; local: boolean }>();
+  const readings = new Map<number, { planning: boolean; general: boolean; local: boolean; restricted: boolean }>();
   const sentenceOfAt = (at: number) => {
     const i = sentenceOf(sentenceStarts, at);
     let r = readings.get(i);
     if (!r) {
       const sentence = text.slice(sentenceStarts[i] as number, sentenceStarts[i + 1] ?? text.length);
-      r = { planning: PLANNING.test(sentence), general: GENERAL_WORDS.test(sentence), local: LOCAL_ALPHA.test(sentence) };
+      r = { planning: PLANNING.test(sentence), general: GENERAL_WORDS.test(sentence), local: LOCAL_ALPHA.test(sentence), restricted: RESTRICTED_SCOPE.test(sentence) };
       readings.set(i, r);
     }
     return r;
@@ -88,7 +96,7 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     if (!ANALYSIS_WORD.test(near)) continue;
     const sentence = sentenceOfAt(m.index);
     const planning = sentence.planning;
-    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: !planning && sentence.general, ...(planning ? { planning } : {}), ...base(m.index, m.index + m[0].length) });
+    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: !planning && sentence.general && !sentence.restricted, ...(planning ? { planning } : {}), ...(sentence.restricted ? { restricted: true as const } : {}), ...base(m.index, m.index + m[0].length) });
   }
   if (/equivalen|TOST|one-sided|inferiority/i.test(text)) for (const m of matchesOf(EQUIVALENCE, text)) {
     out.push({ kind: 'equivalence', sidedness: 'one', ...base(m.index, m.index + m[0].length) });
@@ -125,7 +133,7 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
       const value = Number(m[1] ?? m[2]);
       const sentence = sentenceOfAt(m.index);
       const planning = sentence.planning;
-      if (value > 0 && value < 0.5) out.push({ kind: 'alpha', alpha: value, general: sentence.general && !sentence.local, ...(planning ? { planning } : {}), ...base(m.index, m.index + m[0].length) });
+      if (value > 0 && value < 0.5) out.push({ kind: 'alpha', alpha: value, general: sentence.general && !sentence.local && !sentence.restricted, ...(planning ? { planning } : {}), ...(sentence.restricted ? { restricted: true as const } : {}), ...base(m.index, m.index + m[0].length) });
     }
   }
   return out;

@@ -60,6 +60,12 @@ export interface ContextStatement {
    * calculation), which fixes how the study was sized, not how its tests were run.
    */
   planning?: boolean;
+  /**
+   * For `sidedness` and `alpha`: said in a sentence that limits it to some of the tests ("for the
+   * secondary outcomes", "in Study 2", "except …", "where a direction was predicted"): it speaks
+   * of the results of its own sentence only, and of no other that can be told.
+   */
+  restricted?: true;
   /** For `multiplicity`: the correction named, and the number of comparisons when printed. */
   method?: AdjustMethod;
   comparisons?: number;

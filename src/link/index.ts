@@ -45,7 +45,8 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     if (!reading) {
       const withTests = new Set((testsBySegment.get(segment) ?? []).map((t) => t.sentence));
       // A power or sample-size calculation's tails and alpha size the study; they are not the tests'.
-      const list = (statementsBySegment.get(segment) ?? []).filter((s) => !withTests.has(s.sentence) && !s.planning);
+      // A statement limited to some tests ("for the secondary outcomes") is not its paragraph's.
+      const list = (statementsBySegment.get(segment) ?? []).filter((s) => !withTests.has(s.sentence) && !s.planning && s.restricted !== true);
       const sided = agreeing(list.filter((s) => s.kind === 'sidedness'), (s) => s.sidedness as Sidedness, 'paragraph');
       const alpha = agreeing(list.filter((s) => s.kind === 'alpha'), (s) => s.alpha as number, 'paragraph');
       reading = { ...(sided ? { sided } : {}), ...(alpha ? { alpha } : {}) };
@@ -76,8 +77,9 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   // plans a study): the first of them, or else the first that breaks from the first's paragraph.
   const untiedOne = untied.filter((s) => s.sidedness === 'one');
   const firstUntied = untiedOne[0];
-  const otherUntied = firstUntied ? untiedOne.find((s) => s.segment !== firstUntied.segment || s.planning === true) : undefined;
-  const untiedOutside = (segment: number) => (firstUntied && (firstUntied.segment !== segment || firstUntied.planning === true) ? firstUntied : otherUntied);
+  const apart = (s: ContextStatement) => s.planning === true || s.restricted === true;
+  const otherUntied = firstUntied ? untiedOne.find((s) => s.segment !== firstUntied.segment || apart(s)) : undefined;
+  const untiedOutside = (segment: number) => (firstUntied && (firstUntied.segment !== segment || apart(firstUntied)) ? firstUntied : otherUntied);
   // What each sentence says of tails and alpha, read once per sentence (a sentence of thousands
   // of results would otherwise be searched again for each).
   const sentenceReadings = new Map<string, SentenceReading>();

@@ -174,6 +174,30 @@ describe('statements apply only where they are about the analysis', () => {
     expect(warnings(r)).toEqual([]);
     expect(r.findings.map((f) => `${f.ruleId}/${f.messageId}`)).toContain('one-tailed-p-is-declared/one-tailed-power-calculation');
   });
+  it('a statement limited to some tests applies to no result beyond its own sentence: a p it would explain gets a note, a two-tailed p stays right', () => {
+    // t(28) = 2.10: two-tailed .0444 to .0453, one-tailed .0222 to .0227 (scipy.stats.t.sf, t from 2.095 to 2.105)
+    for (const words of [
+      'One-tailed tests were used for the secondary outcomes.',
+      'For the exploratory analyses only, tests were one-tailed.',
+      'One-tailed tests were used in Study 2.',
+      'All tests were one-tailed, except for the manipulation check.',
+      'One-tailed tests were used where a direction was predicted.',
+      'Tests were one-tailed only for the planned comparisons.',
+    ]) {
+      for (const layout of ['\n\n', ' ']) {
+        const r = run(`${words}${layout}The primary outcome fell, t(28) = 2.10, p = .045. The other outcome fell, t(28) = 2.10, p = .023.`);
+        expect(r.results.map((x) => x.sidedness.basis)).toEqual(['default', 'default']);
+        expect(warnings(r)).toEqual([]);
+        expect(r.findings.map((f) => `${f.ruleId}/${f.level}`)).toEqual(['one-tailed-p-is-declared/note']);
+      }
+    }
+    // the same words said of every test still apply to the document
+    expect(run('All tests were one-tailed.\n\nThe primary outcome fell, t(28) = 2.10, p = .023.').results[0]?.sidedness).toMatchObject({ value: 'one', basis: 'document-text' });
+  });
+  it('a limited alpha is not the document\'s either', () => {
+    const r = run('In Study 2, alpha was set at .01 for all tests.\n\nThe primary outcome fell, t(28) = 2.10, p = .045.');
+    expect(r.results[0]?.alpha).toMatchObject({ value: 0.05, basis: 'default' });
+  });
   it('a tails word in a result sentence does not make a statement about every test', () => {
     const r = run('Planned comparisons showed a rise (t(48) = 7.66, p < .0001, one-tailed).\n\nRecall improved, t(30) = 2.10, p = .045.');
     expect(r.results[1]?.sidedness.basis).toBe('default');
