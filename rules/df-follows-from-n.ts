@@ -76,14 +76,15 @@ export const dfFollowsFromN: Rule = {
         continue;
       }
       if (isWholeDf(r.df)) {
+        const sds = welchFromSpreads(link, n1, n2);
+        const welch = wholeWelch(df, n1, n2, sds);
+        if (result.testName?.variant === 'welch') {
+          // its own words name Welch's test: the df is Welch's, printed whole (rounded or cut),
+          // held to the SDs' Welch–Satterthwaite df even where it is n1 + n2 − 2
+          if (!welch.fits) out.push({ ...base, ...(sds && welch.by === 'sds' ? welchSdsFinding(r.df, link, sds) : welchRangeFinding(r.df, n1, n2)) });
+          continue;
+        }
         if (df !== n1 + n2 - 2 && !(design === 'independent' && n1 === n2 && df === n1 - 1) && !(n1 === n2 && df === n1 - 1)) {
-          const sds = welchFromSpreads(link, n1, n2);
-          const welch = wholeWelch(df, n1, n2, sds);
-          if (result.testName?.variant === 'welch') {
-            // its own words name Welch's test: the df is Welch's, printed whole (rounded or cut)
-            if (!welch.fits) out.push({ ...base, ...(sds && welch.by === 'sds' ? welchSdsFinding(r.df, link, sds) : welchRangeFinding(r.df, n1, n2)) });
-            continue;
-          }
           // named by no words, its own or the text's, the test is taken for Student's; a df that the
           // SDs give as Welch's, printed whole, or one within Welch's range where the text names
           // Welch's test elsewhere, leaves that reading open: the finding then rests on an
@@ -132,13 +133,13 @@ function welchFromSpreads(link: DescriptiveLink, n1: number, n2: number): WelchF
  * when the Welch–Satterthwaite df from the spreads (any reading) reaches that span, or, without
  * spreads, when Welch's range min(n1, n2) − 1 to n1 + n2 − 2 does.
  */
-function wholeWelch(df: number, n1: number, n2: number, sds?: WelchFromSpreads): { fits: boolean; by: 'sds' | 'range'; low: number; high: number; welch: Interval } {
+function wholeWelch(df: number, n1: number, n2: number, sds?: WelchFromSpreads): { fits: boolean; by: 'sds' | 'range'; low: number; high: number; welch: Interval; bothReadings?: true } {
   const low = Math.max(df - 0.5, 1);
   const high = df + 1;
   const reaches = (x: Interval) => x.high >= low && x.low < high;
   if (sds) {
     const welch = { low: Math.min(...sds.ranges.map((x) => x.low)), high: Math.max(...sds.ranges.map((x) => x.high)) };
-    return { fits: sds.ranges.some(reaches), by: 'sds', low, high, welch };
+    return { fits: sds.ranges.some(reaches), by: 'sds', low, high, welch, ...(sds.readings.length > 1 ? { bothReadings: true as const } : {}) };
   }
   const welch = { low: Math.min(n1, n2) - 1, high: n1 + n2 - 2 };
   return { fits: reaches(welch), by: 'range', low, high, welch };
@@ -148,7 +149,7 @@ function wholeWelch(df: number, n1: number, n2: number, sds?: WelchFromSpreads):
 function welchDoubt(result: LinkedResult, w: ReturnType<typeof wholeWelch>): { text: string; related?: Array<{ span: { start: number; end: number }; message: string }> } {
   const df = result.report.df?.printed.trim() ?? '';
   const printedWhole = `a Welch df printed whole (rounded or cut: ${showNumber(w.low)} to ${showNumber(w.high)})`;
-  const fit = w.by === 'sds' ? `the Welch–Satterthwaite df from the SDs and ns, ${showInterval(w.welch.low, w.welch.high)}, can be printed as ${df}` : `${df} lies within Welch's range, min(n1, n2) − 1 = ${w.welch.low} to n1 + n2 − 2 = ${w.welch.high}`;
+  const fit = w.by === 'sds' ? `the Welch–Satterthwaite df from the ${w.bothReadings ? 'spreads (read as SDs, and as SEs)' : 'SDs'} and ns, ${showInterval(w.welch.low, w.welch.high)}, can be printed as ${df}` : `${df} lies within Welch's range, min(n1, n2) − 1 = ${w.welch.low} to n1 + n2 − 2 = ${w.welch.high}`;
   const named = result.untiedWelch;
   if (named) {
     return { text: `Welch's test is named elsewhere in the text, “${named.printed}”, not with this result, and its df of ${df} may be ${printedWhole}: ${fit}`, related: [{ span: named.span, message: "Welch's test named here" }] };

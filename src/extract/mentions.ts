@@ -22,10 +22,10 @@ const ASSUMED_AFTER = /^ (?:(?:was|were|is|are|not|be) ){0,2}assumed(?![\p{L}])/
 const CHECK_NOT_RUN = /^[\p{L}'’ ]{0,20} (?:was|were) not (?:run|performed|conducted|used|done|applied|carried out|reported)(?![\p{L}])/iu;
 /** How far (characters) a verb of checking may stand from what it checks, within the sentence. */
 const CHECK_REACH = 80;
-const MULTIPLICITY = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidak|Hochberg|Benjamini|false discovery rate|FDR|family-?wise|multiple (?:comparisons|testing|tests)|multiplicity|adjusted p(?:[- ]values?)?|corrected for multiple|Tukey['’]?s?(?: HSD)?)(?![\p{L}])/giu;
+const MULTIPLICITY = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidak|Hochberg|Hommel(?=(?:['’]s)?[- ](?:procedure|method|correction|adjust\p{L}*|correct\p{L}*|test|approach))|Westfall(?=[-–‐ ](?:and )?Young)|Benjamini|false discovery rate|FDR|family-?wise|multiple (?:comparisons|testing|tests)|multiplicity|adjusted p(?:[- ]values?)?|corrected for multiple|Tukey['’]?s?(?: HSD)?)(?![\p{L}])/giu;
 const TREND = /(?<![\p{L}])(trend(?:ed)? (?:towards?|to) (?:significance|be significant)|a trend|marginal(?:ly)? (?:significant|significance)|approach(?:ed|ing) (?:statistical )?significance|borderline significan\p{L}*|nearly significant|almost significant|tended to)(?![\p{L}])/giu;
 const EXCLUSION = /(?<![\p{L}])(exclu\p{L}+|dropped out|drop-?outs?|withdr[ae]w\p{L}*|lost to follow-?up|missing data|incomplete data|did not complete|attrition|removed from (?:the )?analys[ie]s)(?![\p{L}])/giu;
-const TEST_NAME = /(?<![\p{L}])((?:paired|unpaired|independent|one[- ]sample|single[- ]sample|two[- ]sample|dependent|related|repeated[- ]measures|within[- ]subjects?|between[- ]subjects?)(?:[- ]samples?)? t[- ]tests?|Welch['’]?s?(?: t)?(?:[- ]tests?)?|(?:paired )?Student(?:['’]s)? t(?:[- ]?tests?)?|t[- ]tests? for (?:paired|independent|dependent|related) samples|unequal[- ]variances? t[- ]tests?|t[- ]tests? (?:assuming|with) unequal variances|t[- ]tests? (?:(?:that|which) (?:did|does|do) not assume|not assuming|without assuming) equal variances|equal variances not assumed)(?![\p{L}])/giu;
+const TEST_NAME = /(?<![\p{L}])((?:paired|unpaired|independent|one[- ]sample|single[- ]sample|two[- ]sample|dependent|related|repeated[- ]measures|within[- ]subjects?|between[- ]subjects?)(?:[- ]samples?)? t[- ]tests?|Welch['’]?s?(?: t)?(?:[- ]tests?)?|(?:paired )?Student(?:['’]s)? t(?:[- ]?tests?)?|t[- ]tests? for (?:paired|independent|dependent|related) samples|unequal[- ]variances? t[- ]tests?|t[- ]tests? (?:assuming|with) unequal variances|t[- ]tests? (?:(?:that|which) (?:did|does|do) not assume|not assuming|without assuming) equal variances|equal variances not assumed|pooled[- ]variances? t[- ]tests?|t[- ]tests? (?:(?:that|which) )?(?:assumed|assuming|assume|assumes|with) equal variances|equal variances assumed)(?![\p{L}])/giu;
 /**
  * Words naming an analysis of variance with repeated measures, or the sphericity correction that
  * goes with one: an F of such an analysis may carry a corrected p beside its uncorrected dfs.
@@ -49,10 +49,19 @@ const NO_SPHERICITY_CORRECTION = /(?<![\p{L}])(?:(?:sphericity|Mauchly)[^.;]{0,8
 const RESAMPLED_P = /(?<![\p{L}])(?:p[- ]?values?|significance(?: levels?)?)(?: (?:were|was|are|is))? (?:obtained|computed|calculated|derived|estimated|determined|assessed|based)(?: (?:by|with|using|from|through|via|on))(?: (?:a|an|the))?(?: \d{1,3}(?:[, \u00A0\u2009\u202F]\d{3}){1,4}| \d{1,12})?(?: (?:random|Monte Carlo))? (?:permutations?|permutation tests?|permuting|bootstrap(?:ping|ped)?|resampling|Monte Carlo|randomi[sz]ations?|randomi[sz]ation tests?)(?![\p{L}])|(?<![\p{L}])(?:permutation|permuted|bootstrap(?:ped)?|resampling|Monte Carlo|randomi[sz]ation)[- ](?:based )?p(?:[- ]?values?)?(?![\p{L}])|(?<![\p{L}])p_?perm(?![\p{L}])/giu;
 /**
  * A df approximated rather than counted (mixed models' Satterthwaite or Kenward–Roger dfs): such
- * a df is a real number, and one printed whole may have been rounded. "Welch–Satterthwaite" is
- * Welch's test's own df, read with Welch's test (TEST_NAME), not here.
+ * a df is a real number, and one printed whole may have been rounded. Only with words of a df or
+ * a method after the name ("Satterthwaite's approximation", "Kenward–Roger degrees of freedom",
+ * "the Satterthwaite method"), or words of a df before it ("degrees of freedom … with
+ * Satterthwaite's"), never a cited author ("Satterthwaite, F. E. (1946)"). "Welch–Satterthwaite"
+ * (any dash, a slash) is Welch's test's own df, read with Welch's test (TEST_NAME), not here.
  */
-const APPROXIMATE_DF = /(?<![\p{L}])(?<!Welch[-–‐ ])(?:Satterthwaite|Kenward[-–‐ ]Roger)(?:['’]s)?(?![\p{L}])/giu;
+const APPROXIMATE_DF = /(?<![\p{L}])(?<!Welch ?[-–—‐‑/] ?)(?<!Welch )(?:Satterthwaite|Kenward[-–—‐‑ ]Roger)(?:['’]s)?(?![\p{L}])/giu;
+/** Words of a method or a df right after the name ("approximation", "degrees of freedom", "-adjusted"). */
+const APPROXIMATE_DF_AFTER = /^(?: (?:approximation|method|correction|adjustment|df|dfs|d\.f\.|degrees? of freedom|denominator)|[-–—‐‑](?:approximated|adjusted|corrected))(?![\p{L}])/iu;
+/** Words of a df before the name, within its sentence ("degrees of freedom were computed with Satterthwaite's"). */
+const APPROXIMATE_DF_BEFORE = /(?<![\p{L}])(?:degrees of freedom|dfs?|d\.f\.)(?![\p{L}])/iu;
+/** How far before the name (characters, within its sentence) the words of a df may stand. */
+const APPROXIMATE_DF_REACH = 60;
 /** A permutation or randomization test named: a p reported with it in its sentence came from resampling. */
 const RESAMPLING_TEST = /(?<![\p{L}])(?:permutation|randomi[sz]ation) (?:t[- ])?tests?(?![\p{L}])/giu;
 /** The header R prints above a t-test's output. */
@@ -62,10 +71,10 @@ const R_HEADER = /(?<![\p{L}-])(Welch Two Sample t-test|Two Sample t-test|Paired
 const MAY: Record<Mention['kind'], RegExp> = {
   software: /SPSS|Stata|SAS|JASP|jamovi|Python|SciPy|statsmodels|Prism|Minitab|MATLAB|Excel|G\*Power|Statistica|JMP|R\b/,
   assumption: /normal|Shapiro|Kolmogorov|Lilliefors|Darling|Agostino|Q[-–‐ ]?Q|P[-–‐ ]?P|Levene|Forsythe|Bartlett|quantile|varianc|scedastic|distribution|assumption|histogram|skew/i,
-  multiplicity: /Bonferroni|Holm|id[aá]k|Hochberg|Benjamini|discovery|FDR|family|multipl|adjusted|corrected|Tukey/i,
+  multiplicity: /Bonferroni|Holm|id[aá]k|Hochberg|Hommel|Westfall|Benjamini|discovery|FDR|family|multipl|adjusted|corrected|Tukey/i,
   trend: /trend|marginal|approach|borderline|nearly|almost|tended/i,
   exclusion: /exclu|drop|withdr|lost to|missing|incomplete|did not complete|attrition|removed/i,
-  'test-name': /t[- ]test|Welch|Student t|Student['’]s t|equal variances not/i,
+  'test-name': /t[- ]test|Welch|Student t|Student['’]s t|equal variances/i,
   'repeated-measures': /ANOVA|analys[ie]s of variance|subjects? factor|spheric|Greenhouse|Huynh|Mauchly/i,
   'between-subjects': /between[- ](?:subj|group|partic)|independent[- ]group|independent (?:groups|samples)/i,
   'no-sphericity-correction': /spheric|Mauchly|uncorrected/i,
@@ -95,7 +104,13 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
   // computed", "no Kenward–Roger correction") says nothing of a p
   for (const [re, kind] of [[RESAMPLED_P, 'resampled-p'], [RESAMPLING_TEST, 'resampling-test'], [APPROXIMATE_DF, 'approximate-df']] as const) {
     if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) {
-      if (!deniedAt(text, m.index, m.index + m[0].length, starts)) add(kind, m);
+      const end = m.index + m[0].length;
+      // an approximated df only with words of a df or a method beside the name, not a cited author
+      if (kind === 'approximate-df' && !APPROXIMATE_DF_AFTER.test(text.slice(end, end + 30))) {
+        const [sentenceStart] = sentenceBounds(starts, m.index, text.length);
+        if (!APPROXIMATE_DF_BEFORE.test(text.slice(Math.max(sentenceStart, m.index - APPROXIMATE_DF_REACH), m.index))) continue;
+      }
+      if (!deniedAt(text, m.index, end, starts)) add(kind, m);
     }
   }
   if (MAY['no-sphericity-correction'].test(text)) {
@@ -122,6 +137,8 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
   }
   if (MAY.assumption.test(text)) for (const m of assumptionChecks(text, starts)) add('assumption', m);
   if (MAY['test-name'].test(text)) for (const m of matchesOf(TEST_NAME, text)) {
+    // "Student's t distribution" names a distribution, not the test that was run
+    if (STUDENT_DISTRIBUTION.test(text.slice(m.index + m[0].length, m.index + m[0].length + 14)) && /^student/iu.test(m[0])) continue;
     const named = testNameWords(m[0]);
     if (!named) continue;
     // "Welch's correction", "Welch-corrected", "Welch–Satterthwaite", "t-tests with Welch's …": a test's df
@@ -138,8 +155,10 @@ function placeOf(seg: Segment, starts: number[], m: RegExpMatchArray): Omit<Ment
   return { segment: seg.id, block: seg.block, sentence: sentenceOf(starts, at), span: sourceSpan(seg, at, at + m[0].length), printed: m[0] };
 }
 
+/** The word after "Student's t" that makes it the distribution. */
+const STUDENT_DISTRIBUTION = /^[- ]?distributions?(?![\p{L}])/iu;
 /** Words after "Welch" that make it a t-test or its correction ("Welch's correction", "Welch-corrected", "Welch–Satterthwaite", "Welch's two-sample t-tests", "Welch-type t"). */
-const WELCH_AFTER = /^[-–‐ ](?:correct\p{L}*|adjust\p{L}*|Satterthwaite|approximation|type t|(?:two|independent)[- ]samples? t(?![\p{L}])|(?:two|independent)[- ]samples? t[- ]tests?)/iu;
+const WELCH_AFTER = /^[-–—‐‑/ ](?:correct\p{L}*|adjust\p{L}*|Satterthwaite|approximation|type t|(?:two|independent)[- ]samples? t(?![\p{L}])|(?:two|independent)[- ]samples? t[- ]tests?)/iu;
 /** A t-test named right before "Welch" ("t-tests with Welch's correction"). */
 const WELCH_BEFORE = /(?<![\p{L}])t[- ]tests? (?:with|using|under) (?:a |the )?$/iu;
 /** Words that make a name one of a test: a t or "test" ("Welch's t", "Welch test"; not "Welch's" alone, as in "Welch's method"). */
@@ -149,7 +168,7 @@ const NAMES_A_TEST = /(?<![\p{L}])t(?![\p{L}])|test/u;
  * between ("no Greenhouse–Geisser", "did not use Welch's", "would not survive a Bonferroni"; not
  * "did not differ after Bonferroni", where the negation is about something else).
  */
-const DENIED_BEFORE = /(?:(?<![\p{L}])(?:not|never|no|none|without|nor|neither|unlike|instead of|rather than)|n['’]t)(?: (?:use|used|using|apply|applied|applying|survive|need|needed|require|required|perform|performed|run|a|an|the|any|further|with|of|p|p-values?|values?|were|was)){0,4} $/iu;
+const DENIED_BEFORE = /(?:(?<![\p{L}])(?:not|never|no|none|without|nor|neither|unlike|instead of|rather than)|n['’]t)(?: (?:use|used|using|apply|applied|applying|survive|need|needed|require|required|perform|performed|run|a|an|the|any|further|with|of|by|p|p-values?|values?|were|was|estimated|computed|calculated|obtained|approximated)){0,4} $/iu;
 /** Some words said not to be so right after them ("… was not needed", "… were not applied", "… were not computed"). */
 const DENIED_AFTER = /^(?: [\p{L}'’‐–-]{1,15}){0,2} (?:(?:was|were|is|are|has been|have been) (?:not|never)(?![\p{L}])|(?:wasn|weren|isn|aren)['’]t(?![\p{L}])|(?:was|were) (?:considered but )?(?:rejected|dropped|abandoned|discarded)(?![\p{L}]))/iu;
 
@@ -181,7 +200,8 @@ export function testNameWords(words: string, source: TestNameWords['source'] = '
   }
   if (w.startsWith('welch') || w.includes('unequal') || w.includes('not assum') || w.includes('without assum') || w.includes('variances not')) return { design: 'independent', variant: 'welch', plural, source, ...(NAMES_A_TEST.test(w) ? { namesTest: true as const } : {}) };
   if (w.startsWith('paired student')) return { design: 'paired', plural, source };
-  if (w.startsWith('student')) return { design: 'independent', variant: 'student', plural, source };
+  // Student's test by its name or by what it assumes ("pooled-variance t-tests", "t-tests assuming equal variances")
+  if (w.startsWith('student') || w.startsWith('pooled') || w.includes(' equal variances') || w.startsWith('equal variances')) return { design: 'independent', variant: 'student', plural, source };
   if (/^(?:paired|dependent|related|repeated|within)|for (?:paired|dependent|related)/u.test(w)) return { design: 'paired', plural, source };
   if (/^(?:one|single)/u.test(w)) return { design: 'one-sample', plural, source };
   if (/^(?:unpaired|independent|two|between)|for independent/u.test(w)) return { design: 'independent', plural, source };

@@ -34,11 +34,18 @@ const LOCAL_ALPHA = /(?<![\p{L}])(?:corrected|adjusted|Bonferroni|Holm|Šidák|S
 /**
  * Words that limit a statement to some of the tests: a kind of outcome or analysis ("for the
  * secondary outcomes", "in the exploratory analyses"), a study of several ("in Study 2"), an
- * exception ("except", "other than"), "only for", or a condition on the hypothesis ("where a
- * direction was predicted"). Which results such a statement speaks of cannot be told from the
- * text, so it is tied to none beyond its own sentence.
+ * exception of tests ("except for the manipulation check", "other than the safety outcomes"),
+ * "only for", "only when", or a condition on the prediction ("where a direction was predicted",
+ * "hypotheses that predicted a direction"). Which results such a statement speaks of cannot be told from the
+ * text, so it is tied to none beyond its own sentence. An exception or condition that is not
+ * about tests ("after excluding two participants", "every participant completed it except one",
+ * "as is usual when hypotheses are directional") limits nothing.
  */
-const RESTRICTED_SCOPE = /(?<![\p{L}])(?:only (?:for|in|when|where|if)|(?:for|in) (?:the |our )?(?:secondary|exploratory|primary|additional|supplementary|supplemental|post[- ]hoc|subgroup|sensitivity|follow-?up|confirmatory|pre-?registered|planned|individual|selected|remaining|other) (?:[\p{L}-]+ )?(?:outcomes?|analys[ie]s|comparisons?|tests?|endpoints?|measures?|hypothes[ie]s|contrasts?|predictions?|effects?|variables?)|in (?:Study|Experiment|Sample|Phase|Cohort|Trial|Part) (?:\d+|[IVX]+|[A-Z])|except(?: for)?|with the exception of|apart from|other than|excluding|(?:where|when|if) (?:a |the |our )?(?:direction|hypothes[ie]s|prediction)\p{L}*)(?![\p{L}])/iu;
+const TESTS_NOUN = String.raw`(?:outcomes?|analys[ie]s|comparisons?|tests?|t-tests?|endpoints?|measures?|hypothes[ie]s|contrasts?|predictions?|effects?|variables?|checks?|scales?|subscales?)`;
+const RESTRICTED_SCOPE = new RegExp(
+  String.raw`(?<![\p{L}])(?:only (?:for|in|when|where|if)|(?:for|in) (?:the |our )?(?:secondary|exploratory|primary|additional|supplementary|supplemental|post[- ]hoc|subgroup|sensitivity|follow-?up|confirmatory|pre-?registered|planned|individual|selected|remaining|other) (?:[\p{L}-]+ )?${TESTS_NOUN}|in (?:Study|Experiment|Sample|Phase|Cohort|Trial|Part) (?:\d+|[IVX]+|[A-Z])|(?:except(?: for)?|with the exception of|apart from|other than) (?:the |a |an |one |two |three |our )?(?:[\p{L}-]+ ){0,3}${TESTS_NOUN}|(?:where|when|if) (?:a |the )?direction (?:was|were|is|are|had been) (?:predicted|specified|stated|expected|hypothesi[sz]ed)|${TESTS_NOUN} (?:that|which) (?:predicted|specified|stated) a direction)(?![\p{L}])`,
+  'iu',
+);
 /** Words of a power or sample-size calculation: its tails and alpha size the study, they do not say how its tests were run. */
 const PLANNING = /(?<![\p{L}])(?:power(?:ed)?|to detect|sample size|sample-size|G\*Power|minimum (?:detectable|effect))(?![\p{L}])/iu;
 
@@ -55,15 +62,23 @@ const NOT_CORRECTED = /(?<![\p{L}])(?:(?:not|no|none|never|without)(?: (?:furthe
 /** A correction of alpha rather than of the p values ("a Bonferroni-corrected alpha of .017", "α = .05/3"): the p values stay unadjusted. */
 const CORRECTED_ALPHA = /(?<![\p{L}])(?:(?:corrected|adjusted) (?:alpha|α|significance (?:level|threshold|criterion)|threshold|level)|(?:alpha|α|significance level|threshold)(?: level)?(?: was| of)? (?:[\p{L}–-]+[- ])?(?:corrected|adjusted|divided)|0?\.0[1-5] ?\/ ?\d|(?:alpha|α|threshold|level|criterion|p ?[<≤]|below|at|to) (?:(?:of|=|was|set at|set to) ?)?0?\.0(?:[0-4]\d*|5\d+)(?!\d))/iu;
 
-/** A correction for multiple comparisons named in a sentence. */
-const CORRECTION = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidák|Sidak|Hochberg|Hommel|Benjamini|false discovery rate|FDR|Tukey|Westfall)(?![\p{L}])/iu;
 /**
- * A correction for multiple comparisons said without naming one ("adjusted for multiple
- * comparisons", "multiplicity-adjusted", "corrected for multiple testing", "a correction for
- * multiplicity"): read as a correction of unknown kind, which can give any p from the unadjusted
- * one up to 1.
+ * A correction for multiple comparisons named in a sentence. Hommel's and Westfall and Young's
+ * only with words of a procedure ("the Hommel procedure", "Hommel-adjusted", "Westfall–Young"),
+ * not as authors cited ("Hommel et al. (2001)", "Westfall, Kenny and Judd").
  */
-const UNNAMED_CORRECTION = /(?<![\p{L}])(?:(?:adjust|correct)(?:ed|ing|ions?|ments?)? (?:\p{L}+ )?for (?:the )?(?:multiple (?:comparisons?|testing|tests|hypotheses|outcomes|endpoints)|multiplicity)|multiplicity[- ](?:adjusted|corrected)|(?:multiple[- ](?:comparisons?|testing)|multiplicity) (?:adjustments?|corrections?|adjusted|corrected))(?![\p{L}])/iu;
+const CORRECTION = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidák|Sidak|Hochberg|Hommel(?=(?:['’]s)?[- ](?:procedure|method|correction|adjust\p{L}*|correct\p{L}*|test|approach))|Benjamini|false discovery rate|FDR|Tukey|Westfall(?=[-–‐ ](?:and )?Young))(?![\p{L}])/iu;
+/**
+ * A correction for multiple comparisons said to have been made without naming one: the p values
+ * or tests "were adjusted for multiple comparisons", "we corrected for multiple testing", "a
+ * correction for multiplicity was applied", "after adjustment for multiple comparisons",
+ * "multiplicity-adjusted". Read as a correction of unknown kind, which can give any p from the
+ * unadjusted one up to 1. Only such words of something done: mentions of a correction not made,
+ * not needed or weighed (UNDONE_CORRECTION) are none.
+ */
+const UNNAMED_CORRECTION = /(?<![\p{L}])(?:(?:were|was|are|is|been|we|after|following|with) (?:all |then |each |also |both )?(?:(?:the |their |all )?(?:p[- ]?values? |p |results |tests |analyses |comparisons )?)(?:adjust|correct)(?:ed|ing|ion|ment)? (?:(?:all |the |their |our )?(?:p[- ]?values?|p|results|tests|analyses|comparisons|estimates) )?for (?:the )?(?:multiple (?:comparisons?|testing|tests|hypotheses|outcomes|endpoints)|multiplicity)|multiplicity[- ](?:adjusted|corrected)|(?:multiple[- ](?:comparisons?|testing)|multiplicity) (?:adjustments?|corrections?) (?:was|were) (?:applied|made|used|performed|carried out))(?![\p{L}])/iu;
+/** Words that make a correction one not made, not needed, hypothetical or still to come ("deemed unnecessary", "reported before adjustment", "would not remain significant after correcting"). */
+const UNDONE_CORRECTION = /(?<![\p{L}])(?:would|could|might|should|had we|if we|unnecessary|not (?:needed|necessary|required|warranted)|deemed|before (?:any )?(?:adjustment|correction)|prior to (?:any )?(?:adjustment|correction)|unadjusted|uncorrected)(?![\p{L}])/iu;
 
 /** Statements about tails, equivalence testing, alpha and what ± stands for, in one segment. */
 export function findStatements(seg: Segment, sentenceStarts: number[]): ContextStatement[] {
@@ -110,7 +125,8 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
       const a = sentenceStarts[i] as number;
       const sentence = text.slice(a, sentenceStarts[i + 1] ?? text.length);
       // a named correction first: words without a name in the same sentence speak of it
-      const method = CORRECTION.exec(sentence) ?? UNNAMED_CORRECTION.exec(sentence);
+      const named = CORRECTION.exec(sentence);
+      const method = named ?? (UNDONE_CORRECTION.test(sentence) ? null : UNNAMED_CORRECTION.exec(sentence));
       if (!method) continue;
       const comparisons = comparisonsIn(sentence)?.m;
       const b = a + method.index + method[0].length;

@@ -185,8 +185,9 @@ function evaluatePOnce(result: LinkedResult): PEvaluation | undefined {
   const design = result.testName?.design ?? result.context.design.value;
   const countDf = design === 'paired' || design === 'one-sample' || result.context.coefficient !== undefined;
   const welchElsewhere = standing !== 'consistent' && !log10 && result.untiedWelch && !countDf && isWholeDf(r.df) ? asWelchDf({ tLow, tHigh, df: r.df.value, reported }, useOne) : undefined;
-  // an approximated df (a mixed model's) printed whole, for a result its own words do not name a t-test
-  const approximateDf = standing !== 'consistent' && !log10 && !welchElsewhere && result.approximateDf && result.testName === undefined && isWholeDf(r.df) ? asWelchDf({ tLow, tHigh, df: r.df.value, reported }, useOne) : undefined;
+  // an approximated df (a mixed model's) printed whole, for a result its own words do not name a
+  // t-test and whose df is not the count its own group sizes give
+  const approximateDf = standing !== 'consistent' && !log10 && !welchElsewhere && result.approximateDf && result.testName === undefined && isWholeDf(r.df) && !countsItsSizes(result, r.df.value) ? asWelchDf({ tLow, tHigh, df: r.df.value, reported }, useOne) : undefined;
   return {
     standing, check, reported, applicable, applicableName, reportedSide, recomputedSide, decisionFlips, recomputed, gap,
     ...(log10 && logApplicable ? { log10: { ...log10, applicable: logApplicable } } : {}),
@@ -196,7 +197,16 @@ function evaluatePOnce(result: LinkedResult): PEvaluation | undefined {
   };
 }
 
-/** The applicable reading with a whole df read as a rounded Welch df, when it reproduces the reported p. */
+/** The df is the count the result's own group sizes give: n − 1 for one group; n1 + n2 − 2, or n − 1 for two equal groups (pairs). */
+function countsItsSizes(result: LinkedResult, df: number): boolean {
+  const ns = result.context.descriptives?.groups.map((g) => g.n?.value) ?? [];
+  const [a, b] = ns;
+  if (ns.length === 1 && a !== undefined) return df === a - 1;
+  if (ns.length === 2 && a !== undefined && b !== undefined) return df === a + b - 2 || (a === b && df === a - 1);
+  return false;
+}
+
+/** The applicable reading with a whole df read as a real df printed whole (welchDfInterval), when it reproduces the reported p. */
 function asWelchDf(box: { tLow: number; tHigh: number; df: number; reported: PInterval }, useOne: boolean): PEvaluation['welchElsewhere'] {
   const [dfLow, dfHigh] = welchDfInterval(box.df);
   const check = checkPAgainstT({ tLow: box.tLow, tHigh: box.tHigh, dfLow, dfHigh, reported: box.reported });
@@ -227,13 +237,13 @@ export function pDoubts(result: LinkedResult, e: PEvaluation): { uncertain?: str
   const w = e.welchElsewhere;
   const named = result.untiedWelch;
   if (w && named && result.report.df) {
-    uncertain.push(`Welch's test is named elsewhere in the text, “${named.printed}”, not with this result: if its df of ${result.report.df.printed.trim()} is a Welch df printed whole (${showNumber(w.dfLow)} to ${showNumber(w.dfHigh)}), the ${e.applicableName} would be ${showInterval(w.applicable.low, w.applicable.high)}, which holds the reported p`);
+    uncertain.push(`Welch's test is named elsewhere in the text, “${named.printed}”, not with this result: if its df of ${result.report.df.printed.trim()} is a Welch df printed whole (rounded or cut: ${showNumber(w.dfLow)} to ${showNumber(w.dfHigh)}), the ${e.applicableName} would be ${showInterval(w.applicable.low, w.applicable.high)}, which holds the reported p`);
     related.push({ span: named.span, message: "Welch's test named here" });
   }
   const approximate = e.approximateDf;
   const words = result.approximateDf;
   if (approximate && words && result.report.df) {
-    uncertain.push(`the text says dfs were approximated, “${words.printed}”: if its df of ${result.report.df.printed.trim()} is such a df printed whole (${showNumber(approximate.dfLow)} to ${showNumber(approximate.dfHigh)}), the ${e.applicableName} would be ${showInterval(approximate.applicable.low, approximate.applicable.high)}, which holds the reported p`);
+    uncertain.push(`the text says dfs were approximated, “${words.printed}”: if its df of ${result.report.df.printed.trim()} is such a df printed whole (rounded or cut: ${showNumber(approximate.dfLow)} to ${showNumber(approximate.dfHigh)}), the ${e.applicableName} would be ${showInterval(approximate.applicable.low, approximate.applicable.high)}, which holds the reported p`);
     related.push({ span: words.span, message: 'approximated dfs named here' });
   }
   const adjustment = result.adjustmentSaid;

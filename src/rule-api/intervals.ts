@@ -137,8 +137,8 @@ export function describeDf(df: ReportedNumber): string {
 /**
  * A result's df as an interval of true values. A Welch df is a real number, so a whole df
  * printed for a result its own words name Welch's test as a test (`LinkedResult.testName`, not
- * "Welch's method") was rounded:
- * `t(5)` stands for 4.5 to 5.5 there, as `t(5.4)` stands for 5.35 to 5.45. Any other whole df is
+ * "Welch's method") was rounded or cut to its whole part:
+ * `t(5)` stands for 4.5 to 6 there, as `t(5.4)` stands for 5.35 to 5.45. Any other whole df is
  * a count and exact (dfInterval).
  */
 export function resultDfInterval(result: LinkedResult): [number, number] {
@@ -148,9 +148,13 @@ export function resultDfInterval(result: LinkedResult): [number, number] {
   return dfInterval(df);
 }
 
-/** A Welch df printed whole as `df`, read as rounded: df − 0.5 to df + 0.5, never below 1 (the smaller group's n − 1; common practice, no source). */
+/**
+ * A real-valued df (Welch's, or a mixed model's approximation) printed whole as `df`, read as
+ * rounded (df − 0.5 to df + 0.5) or cut to its whole part (df to df + 1): df − 0.5 to df + 1,
+ * never below 1 (the smaller group's n − 1; common practice, no source).
+ */
 export function welchDfInterval(df: number): [number, number] {
-  return [Math.max(df - 0.5, 1), df + 0.5];
+  return [Math.max(df - 0.5, 1), df + 1];
 }
 
 /** The df as resultDfInterval reads it, in words. */
@@ -159,7 +163,7 @@ export function describeResultDf(result: LinkedResult): string {
   if (!df) return '';
   if (!roundedWelchDf(result)) return describeDf(df);
   const [lo, hi] = resultDfInterval(result);
-  return `df = ${df.printed} (Welch's test, a df printed whole: read as ${showNumber(lo)} to ${showNumber(hi)})`;
+  return `df = ${df.printed} (Welch's test, a df printed whole, rounded or cut: read as ${showNumber(lo)} to ${showNumber(hi)})`;
 }
 
 const roundedWelchDf = (result: LinkedResult): boolean =>

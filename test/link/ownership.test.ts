@@ -296,3 +296,16 @@ describe('design words count only where they say units were measured twice, or k
     expect(design('We compared two independent school samples.')).toBe('independent');
   });
 });
+
+describe('a statement about every test keeps its reach beside words that limit something else (invented cases, second review)', () => {
+  it('an exclusion of participants, a justification or an aside limits no test', () => {
+    for (const words of [
+      'All tests were one-tailed, and analyses were run after excluding two participants who withdrew.',
+      'All tests were one-tailed, as is appropriate when the hypotheses are directional.',
+      'Apart from age, which was log-transformed, all variables were analysed as recorded and all tests were one-tailed.',
+    ]) {
+      expect(run(`${words}\n\nThe primary outcome fell, t(28) = 2.10, p = .023.`).results[0]?.sidedness).toMatchObject({ value: 'one', basis: 'document-text' });
+    }
+    expect(run('All tests used alpha = .01; every participant completed the study except one.\n\nThe primary outcome fell, t(28) = 2.10, p = .045.').results[0]?.alpha).toMatchObject({ value: 0.01, basis: 'document-text' });
+  });
+});

@@ -135,3 +135,27 @@ describe('a correction said without a name, and corrections named by their autho
     expect(levels(markdown, 'adjusted-p-follows')).toEqual(['warning']);
   });
 });
+
+describe('words about corrections that say none was made, or cite an author (invented cases, second review)', () => {
+  const t = 'The groups differed, t(28) = 2.10, p = .135.';
+  it('stays an error where a correction is not needed, still to come, hypothetical, or an author is cited', () => {
+    for (const words of [
+      'Power for all tests was computed following Westfall, Kenny and Judd (2014).',
+      'All p values follow the scoring of Hommel et al. (2001).',
+      'Because all p values are exploratory, adjustment for multiple comparisons was deemed unnecessary.',
+      'All p values are reported before adjustment for multiple comparisons.',
+    ]) {
+      expect(levels(`${words}\n\n${t}`, 'significance-follows-from-t')).toEqual(['error']);
+    }
+    expect(levels('The groups differed, t(28) = 2.10, p = .135, although this would not remain significant after correcting for multiple comparisons.', 'significance-follows-from-t')).toEqual(['error']);
+  });
+  it('reads "we corrected all p values for multiple testing" as a correction made', () => {
+    expect(levels(`We corrected all p values for multiple testing.\n\n${t}`, 'significance-follows-from-t')).toEqual(['note']);
+  });
+  it('counts a Hommel correction as multiplicity addressed (the checklist item)', () => {
+    const five = Array.from({ length: 5 }, (_, i) => `Outcome ${i + 1} differed, t(28) = 2.10, p = .045.`).join(' ');
+    const entries = (words: string) => findingsOf(`${words}\n\n${five}`, 'multiple-comparisons-addressed', { checklist: true });
+    expect(entries('All p values were Hommel-adjusted.')).toEqual([]);
+    expect(entries('The data were collected in spring.')).toHaveLength(1);
+  });
+});

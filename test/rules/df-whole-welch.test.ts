@@ -72,3 +72,33 @@ describe('a whole df beside two group sizes only (no SDs)', () => {
     expect(f?.message).toBe("Reported df = 8 for two groups of n = 14 and 30; Welch's df lies between min(n1, n2) − 1 = 13 and n1 + n2 − 2 = 42.");
   });
 });
+
+describe('second review (invented cases): what names which test, and one reading of a whole Welch df across rules', () => {
+  // (M = 54.2, SD = 8.7, n = 14) and (M = 44.7, SD = 2.3, n = 30): Welch t = 4.021, df = 13.86,
+  // p = .00129 (scipy.stats.ttest_ind_from_stats, equal_var=False; the df by the formula above)
+  const wide = 'Fatigue differed between desks (M = 54.2, SD = 8.7, n = 14; M = 44.7, SD = 2.3, n = 30)';
+  it("takes what a test assumes as its name: equal variances assumed or pooled is Student's, so the df finding stays a warning", () => {
+    for (const words of ['All t-tests assumed equal variances.', 'Pooled-variance t-tests were used throughout.', 'Equal variances assumed.']) {
+      expect(levelsOf(`${words}\n\n${wide}, t(14) = 4.02, p = .001.`, rule)).toEqual(['warning']);
+    }
+  });
+  it("does not take Student's t distribution for Student's test", () => {
+    expect(levelsOf(`All p values were taken from Student's t distribution.\n\n${wide}, t(14) = 4.02, p = .001.`, rule)).toEqual(['note']);
+  });
+  it("reads a whole Welch df cut to its whole part the same way in the p rule as in the df rule (13 for 13.86)", () => {
+    const markdown = `${wide}; Welch's t-test gave t(13) = 4.02, p = .00129.`;
+    expect(findingsOf(markdown, rule)).toEqual([]);
+    // read as rounded only (12.5 to 13.5) the p would be .00134 to .00158, and this p outside it
+    expect(findingsOf(markdown, 'p-follows-from-t')).toEqual([]);
+  });
+  it("holds a df of n1 + n2 − 2 to the SDs where the result's own words name Welch's test", () => {
+    const [f] = findingsOf(`${wide}; Welch's t-test gave t(42) = 4.02, p < .001.`, rule);
+    expect(f?.messageId).toBe('welch-sds');
+    expect(f?.level).toBe('warning');
+  });
+  it('says the spreads were read both ways where their kind is not stated', () => {
+    const [f] = findingsOf('Fatigue differed between desks (48.4 ± 8.7, n = 14; 44.7 ± 2.3, n = 30), t(14) = 1.57, p = .14.', rule);
+    expect(f?.level).toBe('note');
+    expect(f?.message).toContain('the Welch–Satterthwaite df from the spreads (read as SDs, and as SEs) and ns');
+  });
+});

@@ -64,20 +64,21 @@ describe("a whole df of a result named Welch's test is read as rounded (invented
   it('still reports a p no df within the rounding gives, and says how the df was read', () => {
     const [f] = found('A Welch test gave t(5) = 2.60, p = .07.');
     expect(f?.level).toBe('warning');
-    expect(f?.message).toContain("df = 5 (Welch's test, a df printed whole: read as 4.5 to 5.5): 0.0438 to 0.0537");
+    // df 4.5 to 6 (rounded or cut), t 2.595 to 2.605: .0404 to .0537 (scipy.stats.t.sf)
+    expect(f?.message).toContain("df = 5 (Welch's test, a df printed whole, rounded or cut: read as 4.5 to 6): 0.0404 to 0.0537");
   });
 });
 
 describe("Welch's test named only for the whole text: a whole df that a rounded Welch df would fit is a note (invented cases)", () => {
   // The same values as above (scipy.stats.t.sf): t(5) = 2.60 gives .0480 to .0485 on df 5 and
-  // .0438 to .0537 over df 4.5 to 5.5.
+  // .0404 to .0537 over df 4.5 to 6 (a whole df rounded or cut).
   const methods = "Groups were compared with Welch's t-tests.";
   const found = (markdown: string, rule = 'p-follows-from-t') => findingsOf(markdown, rule);
   it('is a note that says what could not be checked, and where Welch is named', () => {
     const [f, ...rest] = found(`${methods}\n\nThe groups differed, t(5) = 2.60, p = .045.`);
     expect(rest).toEqual([]);
     expect(f?.level).toBe('note');
-    expect(f?.message).toMatch(/^Not checked with certainty \(Welch's test is named elsewhere in the text, “Welch's t-tests”, not with this result: if its df of 5 is a Welch df printed whole \(4\.5 to 5\.5\), the two-tailed p would be 0\.0438 to 0\.0537, which holds the reported p\)\. Reported p = \.045\./);
+    expect(f?.message).toMatch(/^Not checked with certainty \(Welch's test is named elsewhere in the text, “Welch's t-tests”, not with this result: if its df of 5 is a Welch df printed whole \(rounded or cut: 4\.5 to 6\), the two-tailed p would be 0\.0404 to 0\.0537, which holds the reported p\)\. Reported p = \.045\./);
     expect(f?.related).toEqual([expect.objectContaining({ message: "Welch's test named here", start: { line: 1, column: 27 } })]);
   });
   it("reads Welch's correction of a t-test, and the Welch–Satterthwaite approximation, as Welch's test", () => {
