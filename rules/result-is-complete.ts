@@ -3,6 +3,7 @@ import { fill, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/i
 const messages = {
   'p-missing': 'Reported {reported} with no p value beside it, so the reader cannot see the result of the test.',
   't-missing': 'Reported {reported} for a t-test ("{mention}") without the t statistic and its df, so the p value cannot be checked.',
+  'p-untied': 'Reported {reported}, then {count} p values listed ({list}) after {tests} t value{s} without a p of {their} own: which p is this test\'s cannot be told, so its p was not checked.',
 };
 
 /** A reported t-test gives t, its df and p together. */
@@ -18,6 +19,11 @@ export const resultIsComplete: Rule = {
     const out: RuleFinding[] = [];
     for (const result of document.results) {
       const r = result.report;
+      if (r.listedPs) {
+        const l = r.listedPs;
+        out.push({ messageId: 'p-untied', span: r.span, message: fill(messages['p-untied'], { reported: r.printed, count: l.count, list: l.printed, tests: l.tests, s: l.tests === 1 ? '' : 's', their: l.tests === 1 ? 'its' : 'their' }), reported: r.printed, check: 'Give each t its own p, or list as many p values as t values, in the same order ("respectively").', related: [{ span: l.span, message: 'the p values listed' }], resultId: r.id, block: r.block });
+        continue;
+      }
       // "t(30) < 1" is itself a statement that the test was not significant.
       if (!r.p && r.df && r.tOp === '=') {
         out.push({ messageId: 'p-missing', span: r.span, message: fill(messages['p-missing'], { reported: r.printed }), reported: r.printed, check: 'Add the exact p value (or p < .001).', resultId: r.id, block: r.block });

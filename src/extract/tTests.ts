@@ -96,14 +96,83 @@ export function findTTests(seg: Segment, sentenceStarts: number[]): TTestReport[
   const leads = new LeadReader(text);
   const dfBefore = new DfBefore(seg, sentenceStarts);
   const out: TTestReport[] = [];
+  // where each report's t starts in the text, and how far its words may reach
+  const starts: number[] = [];
+  const limits: number[] = [];
   anchors.forEach((anchor, i) => {
     const next = anchors[i + 1];
     const sentenceEnd = sentenceStarts[sentenceOf(sentenceStarts, anchor.start) + 1] ?? text.length;
     const limit = Math.min(next ? next.start : text.length, sentenceEnd, anchor.end + 200);
     const report = completeReport(seg, anchor, limit, sentenceStarts, leads, dfBefore);
-    if (report) out.push(report);
+    if (report) {
+      out.push(report);
+      starts.push(anchor.start);
+      limits.push(Math.min(sentenceEnd, anchor.end + 400));
+    }
   });
+  if (out.length > 0) shareListedPs(seg, out, starts, limits);
   return out;
+}
+
+/** What joins the items of a list of p values: `p < .001 and p = .24`, `p = .024, p = .38`, `(p = .024; p = .38)`. */
+const P_LIST_LINK = /^\)?(?:,? (?:and|or|&) |, |; )\(?(?=[pP])/u;
+/** Items of a list of p values read at most. */
+const P_LIST_MAX = 12;
+
+/**
+ * A list of p values after a list of t values, each p its t's in order: `t(29) = 4.10 and
+ * t(29) = 1.20, p < .001 and p = .24, respectively`, `t(38) = 2.35 and t(38) = 0.88 (p = .024 and
+ * p = .38)`. The first p after the last t is not that t's alone: where as many p values are
+ * listed as there are t values before them in the sentence with no p of their own, each takes
+ * its p by position; where the counts differ, the listed p values are tied to none (a p tied to
+ * the wrong t would be checked against it). Each report's span and printed text end at its p.
+ */
+function shareListedPs(seg: Segment, out: TTestReport[], starts: number[], limits: number[]): void {
+  const text = seg.text;
+  for (let i = 0; i < out.length; i += 1) {
+    const last = out[i] as TTestReport;
+    const first = last.p;
+    if (!first || first.kind !== 'value' || first.adjusted || last.adjustedP) continue;
+    const ps: ReportedP[] = [first];
+    let at = indexOfSpanEnd(seg, first);
+    const limit = limits[i] as number;
+    while (ps.length < P_LIST_MAX) {
+      const link = P_LIST_LINK.exec(text.slice(at, Math.min(limit, at + 12)));
+      if (!link) break;
+      const from = at + link[0].length;
+      const next = findP(seg, from, Math.min(limit, from + 60));
+      if (!next || next.kind !== 'value' || next.adjusted) break;
+      const end = indexOfSpanEnd(seg, next);
+      // the next p must start right after the words that join it, not further on
+      if (end - next.printed.length !== from) break;
+      ps.push(next);
+      at = end;
+    }
+    if (ps.length < 2) continue;
+    // the t values before it in its sentence that have no p of their own
+    let j = i;
+    while (j > 0 && (out[j - 1] as TTestReport).sentence === last.sentence && (out[j - 1] as TTestReport).p === undefined) j -= 1;
+    const listed = out.slice(j, i + 1);
+    if (listed.length === ps.length) listed.forEach((r, k) => endAt(seg, r, starts[j + k] as number, ps[k] as ReportedP));
+    else {
+      const from = indexOfSpanEnd(seg, first) - first.printed.length;
+      last.listedPs = { span: sourceSpan(seg, from, at), printed: text.slice(from, at), count: ps.length, tests: listed.length };
+      endAt(seg, last, starts[i] as number, undefined);
+    }
+  }
+}
+
+/** A report given the p `p` (or none), its span and printed text ending at that p (or at its t and df). */
+function endAt(seg: Segment, r: TTestReport, start: number, p: ReportedP | undefined): void {
+  const fromP = r.p?.statedSidedness !== undefined && r.statedSidedness?.span === r.p.span;
+  if (p) r.p = p;
+  else delete r.p;
+  if (fromP) delete r.statedSidedness;
+  if (p?.statedSidedness && !r.statedSidedness) r.statedSidedness = { value: p.statedSidedness, span: p.span };
+  const endPart = p ?? (r.df && r.df.span.end > r.t.span.end ? r.df : r.t);
+  const end = indexOfSpanEnd(seg, endPart);
+  r.span = sourceSpan(seg, start, end);
+  r.printed = seg.text.slice(start, end);
 }
 
 function findAnchors(seg: Segment): Anchor[] {

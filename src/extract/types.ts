@@ -111,6 +111,12 @@ export interface TTestReport {
   t: ReportedNumber;
   df?: ReportedNumber;
   p?: ReportedP;
+  /**
+   * A list of p values printed after a list of t values that this report ends (`t(38) = 2.35 and
+   * t(38) = 0.88 (p = .024, p = .03 and p = .38)`), where the p values are not as many as the t
+   * values without a p of their own: which is this test's cannot be told, so it has none.
+   */
+  listedPs?: { span: Span; printed: string; count: number; tests: number };
   /** An adjusted p printed beside the unadjusted one (`p = .045, Bonferroni-corrected p = .135`). */
   adjustedP?: ReportedP;
   /** Tails stated inside the report itself, e.g. `p = .03, one-tailed`. */
