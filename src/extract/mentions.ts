@@ -46,7 +46,7 @@ const NO_SPHERICITY_CORRECTION = /(?<![\p{L}])(?:(?:sphericity|Mauchly)[^.;]{0,8
  * obtained from 10,000 permutations", "permutation-based p values"): such a p need not follow
  * from its statistic.
  */
-const RESAMPLED_P = /(?<![\p{L}])(?:p[- ]?values?|significance(?: levels?)?)(?: (?:were|was|are|is))? (?:obtained|computed|calculated|derived|estimated|determined|assessed|based)(?: (?:by|with|using|from|through|via|on))(?: (?:a|an|the))?(?: \d{1,3}(?:[, \u00A0\u2009\u202F]\d{3}){1,4}| \d{1,12})?(?: (?:random|Monte Carlo))? (?:permutations?|permutation tests?|permuting|bootstrap(?:ping|ped)?|resampling|Monte Carlo|randomi[sz]ations?|randomi[sz]ation tests?)(?![\p{L}])|(?<![\p{L}])(?:permutation|permuted|bootstrap(?:ped)?|resampling|Monte Carlo|randomi[sz]ation)[- ](?:based )?p(?:[- ]?values?)?(?![\p{L}])|(?<![\p{L}])p_?perm(?![\p{L}])/giu;
+const RESAMPLED_P = /(?<![\p{L}])(?:p[- ]?values?|significance(?: levels?)?)(?: (?:were|was|are|is))? (?:obtained|computed|calculated|derived|estimated|determined|assessed|based|come|comes|came)(?: [\p{L}-]{2,20}ly,?)?(?: (?:by|with|using|from|through|via|on))(?: (?:a|an|the))?(?: \d{1,3}(?:[, \u00A0\u2009\u202F]\d{3}){1,4}| \d{1,12})?(?: (?:random|Monte Carlo))? (?:permutations?|permutation tests?|permuting|bootstrap(?:ping|ped)?|resampling|Monte Carlo|randomi[sz]ations?|randomi[sz]ation tests?|(?:randomly )?(?:re)?shuffl(?:ing|ed|es?))(?![\p{L}])|(?<![\p{L}])(?:permutation|permuted|bootstrap(?:ped)?|resampling|Monte Carlo|randomi[sz]ation)[- ](?:based )?p(?:[- ]?values?)?(?![\p{L}])|(?<![\p{L}])p_?perm(?![\p{L}])/giu;
 /**
  * A df approximated rather than counted (mixed models' Satterthwaite or Kenward–Roger dfs): such
  * a df is a real number, and one printed whole may have been rounded. Only with words of a df or
@@ -78,7 +78,7 @@ const MAY: Record<Mention['kind'], RegExp> = {
   'repeated-measures': /ANOVA|analys[ie]s of variance|subjects? factor|spheric|Greenhouse|Huynh|Mauchly/i,
   'between-subjects': /between[- ](?:subj|group|partic)|independent[- ]group|independent (?:groups|samples)/i,
   'no-sphericity-correction': /spheric|Mauchly|uncorrected/i,
-  'resampled-p': /permut|bootstrap|resampl|Monte Carlo|randomi[sz]ation|p_?perm/i,
+  'resampled-p': /permut|bootstrap|resampl|Monte Carlo|randomi[sz]ation|shuffl|p_?perm/i,
   'resampling-test': /(?:permutation|randomi[sz]ation) (?:t[- ])?test/i,
   'approximate-df': /Satterthwaite|Kenward/i,
 };

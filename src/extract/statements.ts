@@ -33,7 +33,8 @@ const GENERAL_WORDS = /(?<![\p{L}])(?:all|every|each|throughout|unless|tests|t-t
 const LOCAL_ALPHA = /(?<![\p{L}])(?:corrected|adjusted|Bonferroni|Holm|Šidák|Sidak|per comparison|for (?:this|these|each|the (?:primary|secondary))|family-?wise|power|detect|sample size)(?![\p{L}])/iu;
 /**
  * Words that limit a statement to some of the tests: a kind of outcome or analysis ("for the
- * secondary outcomes", "in the exploratory analyses"), a study of several ("in Study 2"), an
+ * secondary outcomes", "in the exploratory analyses", and as a plural subject "Confirmatory tests
+ * were one-tailed"), a study of several ("in Study 2"), an
  * exception of tests ("except for the manipulation check", "other than the safety outcomes"),
  * "only for", "only when", or a condition on the prediction ("where a direction was predicted",
  * "hypotheses that predicted a direction"). Which results such a statement speaks of cannot be told from the
@@ -42,8 +43,10 @@ const LOCAL_ALPHA = /(?<![\p{L}])(?:corrected|adjusted|Bonferroni|Holm|Šidák|S
  * "as is usual when hypotheses are directional") limits nothing.
  */
 const TESTS_NOUN = String.raw`(?:outcomes?|analys[ie]s|comparisons?|tests?|t-tests?|endpoints?|measures?|hypothes[ie]s|contrasts?|predictions?|effects?|variables?|checks?|scales?|subscales?)`;
+/** Kinds of test or outcome that are some of a study's, not all. */
+const KINDS = String.raw`(?:secondary|exploratory|primary|additional|supplementary|supplemental|post[- ]hoc|subgroup|sensitivity|follow-?up|confirmatory|pre-?registered|planned|individual|selected|remaining|other)`;
 const RESTRICTED_SCOPE = new RegExp(
-  String.raw`(?<![\p{L}])(?:only (?:for|in|when|where|if)|(?:for|in) (?:the |our )?(?:secondary|exploratory|primary|additional|supplementary|supplemental|post[- ]hoc|subgroup|sensitivity|follow-?up|confirmatory|pre-?registered|planned|individual|selected|remaining|other) (?:[\p{L}-]+ )?${TESTS_NOUN}|in (?:Study|Experiment|Sample|Phase|Cohort|Trial|Part) (?:\d+|[IVX]+|[A-Z])|(?:except(?: for)?|with the exception of|apart from|other than) (?:the |a |an |one |two |three |our )?(?:[\p{L}-]+ ){0,3}${TESTS_NOUN}|(?:where|when|if) (?:a |the )?direction (?:was|were|is|are|had been) (?:predicted|specified|stated|expected|hypothesi[sz]ed)|${TESTS_NOUN} (?:that|which) (?:predicted|specified|stated) a direction)(?![\p{L}])`,
+  String.raw`(?<![\p{L}])(?:only (?:for|in|when|where|if)|(?:for|in) (?:the |our )?${KINDS} (?:[\p{L}-]+ )?${TESTS_NOUN}|${KINDS} (?:[\p{L}-]+ )?(?:outcomes|analyses|comparisons|tests|t-tests|endpoints|measures|hypotheses|contrasts)|in (?:Study|Experiment|Sample|Phase|Cohort|Trial|Part) (?:\d+|[IVX]+|[A-Z])|(?:except(?: for)?|with the exception of|apart from|other than) (?:the |a |an |one |two |three |our )?(?:[\p{L}-]+ ){0,3}${TESTS_NOUN}|(?:where|when|if) (?:a |the )?direction (?:was|were|is|are|had been) (?:predicted|specified|stated|expected|hypothesi[sz]ed)|${TESTS_NOUN} (?:that|which) (?:predicted|specified|stated) a direction)(?![\p{L}])`,
   'iu',
 );
 /** Words of a power or sample-size calculation: its tails and alpha size the study, they do not say how its tests were run. */

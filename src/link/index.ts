@@ -37,6 +37,10 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const join = contextJoiner(extraction);
   const statementsBySegment = groupBy(extraction.statements, (s) => s.segment);
   const testsBySegment = groupBy(extraction.tests, (t) => t.segment);
+  // Statements their paragraph's results do not take: a power calculation's, one limited to some
+  // tests, or one about a single test ("the hypothesis was tested one-tailed") in a paragraph
+  // that reports several (which of them it is cannot be told).
+  const apart = (s: ContextStatement) => s.planning === true || s.restricted === true || (s.general !== true && (testsBySegment.get(s.segment)?.length ?? 0) > 1);
   // The statements of each paragraph's sentences that report no test (computed once per segment).
   // and the tails and alpha they agree on
   const paragraphStatements = new Map<number, ParagraphReading>();
@@ -45,8 +49,10 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     if (!reading) {
       const withTests = new Set((testsBySegment.get(segment) ?? []).map((t) => t.sentence));
       // A power or sample-size calculation's tails and alpha size the study; they are not the tests'.
-      // A statement limited to some tests ("for the secondary outcomes") is not its paragraph's.
-      const list = (statementsBySegment.get(segment) ?? []).filter((s) => !withTests.has(s.sentence) && !s.planning && s.restricted !== true);
+      // A statement limited to some tests ("for the secondary outcomes") is not its paragraph's,
+      // nor one about a single test ("The hypothesis was tested one-tailed") where the paragraph
+      // reports several.
+      const list = (statementsBySegment.get(segment) ?? []).filter((s) => !withTests.has(s.sentence) && !apart(s));
       const sided = agreeing(list.filter((s) => s.kind === 'sidedness'), (s) => s.sidedness as Sidedness, 'paragraph');
       const alpha = agreeing(list.filter((s) => s.kind === 'alpha'), (s) => s.alpha as number, 'paragraph');
       reading = { ...(sided ? { sided } : {}), ...(alpha ? { alpha } : {}) };
@@ -77,7 +83,6 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   // plans a study): the first of them, or else the first that breaks from the first's paragraph.
   const untiedOne = untied.filter((s) => s.sidedness === 'one');
   const firstUntied = untiedOne[0];
-  const apart = (s: ContextStatement) => s.planning === true || s.restricted === true;
   const otherUntied = firstUntied ? untiedOne.find((s) => s.segment !== firstUntied.segment || apart(s)) : undefined;
   const untiedOutside = (segment: number) => (firstUntied && (firstUntied.segment !== segment || apart(firstUntied)) ? firstUntied : otherUntied);
   // What each sentence says of tails and alpha, read once per sentence (a sentence of thousands

@@ -309,3 +309,19 @@ describe('a statement about every test keeps its reach beside words that limit s
     expect(run('All tests used alpha = .01; every participant completed the study except one.\n\nThe primary outcome fell, t(28) = 2.10, p = .045.').results[0]?.alpha).toMatchObject({ value: 0.01, basis: 'document-text' });
   });
 });
+
+describe('a paragraph statement about one test, or about a kind of test, where the paragraph reports several (invented cases, probing)', () => {
+  // t(30) = 1.80: two-tailed .0818, one-tailed .0409; t(30) = 0.95: two-tailed .3497 (scipy.stats.t.sf)
+  it('is tied to none of them: a p only it would explain gets a note, a two-tailed p stays right', () => {
+    for (const words of ['The preregistered hypothesis was tested one-tailed.', 'Confirmatory tests were one-tailed.']) {
+      const r = run(`${words} Fatigue was lower on the first ward, t(30) = 1.80, p = .041. In an exploratory analysis, sleep did not differ, t(30) = 0.95, p = .35.`);
+      expect(r.results.map((x) => x.sidedness.basis)).toEqual(['default', 'default']);
+      expect(warnings(r)).toEqual([]);
+      expect(r.findings.map((f) => `${f.ruleId}/${f.level}`)).toEqual(['one-tailed-p-is-declared/note']);
+    }
+  });
+  it('still applies to the one result of its paragraph', () => {
+    const r = run('The preregistered hypothesis was tested one-tailed. Fatigue was lower on the first ward, t(30) = 1.80, p = .041.');
+    expect(r.results[0]?.sidedness).toMatchObject({ value: 'one', basis: 'paragraph' });
+  });
+});

@@ -43,6 +43,10 @@ describe('resampling words, second review (invented cases)', () => {
   it('reads more ways of saying it', () => {
     expect(levels(`Significance was assessed with permutation tests.\n\n${t}`, 'p-follows-from-t')).toEqual(['note']);
     expect(levels(`The p values were computed from 10000 random permutations.\n\n${t}`, 'p-follows-from-t')).toEqual(['note']);
+    // shuffled labels, a p that "comes from" a randomisation test, an adverb before "by"
+    for (const words of ['P values were obtained by randomly reshuffling the group labels 20,000 times.', 'P values come from a randomisation test with 20,000 random assignments.', 'Significance was assessed non-parametrically, by shuffling condition labels 10,000 times.']) {
+      expect(levels(`${words}\n\n${t}`, 'p-follows-from-t')).toEqual(['note']);
+    }
     // thousands grouped with a space, a no-break space or a thin space, as many journals print them
     for (const count of ['10 000', '10\u00A0000', '10\u2009000', '1 000 000']) {
       expect(levels(`P values were obtained from ${count} permutations.\n\n${t}`, 'p-follows-from-t')).toEqual(['note']);
