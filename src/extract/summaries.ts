@@ -403,12 +403,16 @@ function countOf(text: string, at: number): { start: number; end: number } | und
   return { start, end };
 }
 
+/** Words of an analysis step after "before and after" ("… adjustment for age", "… correction", "… excluding outliers"). */
+const ANALYSIS_STEP = /^ (?:the )?(?:adjust\p{L}*|correct\p{L}*|control\p{L}*|exclu\p{L}*|imputation|weighting|covariate)/iu;
+
 /**
  * Whether paired words say, where they stand, that one set of units was measured twice:
  * - "paired with a tutor" pairs people for a treatment, and says nothing of the analysis;
  * - "pre-test" or "post-test" alone names one time ("At pre-test, the tutored pupils …"); the
  *   sentence must name both;
- * - "staff hired before and after the change" are two cohorts;
+ * - "staff hired before and after the change" are two cohorts, and "before and after adjustment
+ *   for age" two steps of an analysis;
  * - "each participant received one of the two treatments" (or took part in one role only) is
  *   the opposite of a paired design, and "each participant was randomly assigned" says nothing
  *   of one.
@@ -419,6 +423,8 @@ function pairedInContext(text: string, at: number, words: string, namesBothTimes
   if (lower === 'paired' && /^ with(?![\p{L}])/u.test(after)) return false;
   if (/^(?:pre|post)-?test$/u.test(lower) && !namesBothTimes(at)) return false;
   if (lower.startsWith('before and after') && ENTRY_EVENT.test(text.slice(Math.max(0, at - 20), at))) return false;
+  // "before and after adjustment for age": two steps of the analysis, not two measurements
+  if (lower.startsWith('before and after') && ANALYSIS_STEP.test(after)) return false;
   if (lower.startsWith('each ') && (ONE_OF.test(after) || (/ was$/u.test(lower) && /^ (?:randomi[sz]ed|randomly|assigned|allocated)(?![\p{L}])/iu.test(after)))) return false;
   return true;
 }

@@ -282,6 +282,7 @@ interface Tables {
   memo: {
     /** Tests of a sentence in a block, by `segment:sentence:block`. */
     testsInSentence: Map<string, number>;
+    /** The design a sentence's words outside every statistic's clause give (null: none, or words that disagree). */
     sentenceDesign: Map<string, Setting<Design> | null>;
     paragraphDesign: Map<number, Setting<Design> | null>;
     sampleSizes: Map<string, SampleSize[]>;
@@ -374,7 +375,7 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
   // no literal opening with a spread: V8 would give each context a hidden class of its own (DEVELOPERS.md, Speed)
   return {
     // one group of descriptives is a one-sample test (or differences) before the Methods' design
-    design: unlessUnequal(designFor(report, clause, clauses, n.designs, t.memo) ?? againstValue ?? (link?.groups.length === 1 ? oneGroup : undefined) ?? assignedGroups(link, t.assignments) ?? t.methodsDesign ?? { value: 'unknown', basis: 'default' }, link, groupSizes),
+    design: unlessUnequal(designFor(report, clause, clauses, n.designs, n.tests, t.memo) ?? againstValue ?? (link?.groups.length === 1 ? oneGroup : undefined) ?? assignedGroups(link, t.assignments) ?? t.methodsDesign ?? { value: 'unknown', basis: 'default' }, link, groupSizes, n.sampleSizes, report),
     ...(link ? { descriptives: link } : {}),
     ...(unlinked ? { unlinked } : {}),
     ...(groupSizes ? { groupSizes } : {}),
@@ -593,7 +594,10 @@ export function spreadStatements(x: Extraction): SpreadStatements {
  * sentences of its paragraph that report no test (when they agree). Undefined when none do:
  * then structure (one group), the Methods' design, or unknown.
  */
-function designFor(report: TTestReport, clause: Clause, clauses: ClauseIndex, designs: SegmentList<DesignStatement>, memo: Tables['memo']): Setting<Design> | undefined {
+/** How far before a test's statistic (source characters) the words that name it stand ("paired t(29)", "a paired-samples t-test gave t(29)"). */
+const NAME_REACH = 40;
+
+function designFor(report: TTestReport, clause: Clause, clauses: ClauseIndex, designs: SegmentList<DesignStatement>, tests: SegmentList<TTestReport>, memo: Tables['memo']): Setting<Design> | undefined {
   const named = report.namedVariant;
   if (named === 'paired') return { value: 'paired', basis: 'in-report' };
   if (named === 'welch' || named === 'student' || named === 'independent') return { value: 'independent', basis: 'in-report' };
@@ -601,14 +605,25 @@ function designFor(report: TTestReport, clause: Clause, clauses: ClauseIndex, de
   const pick = (ds: readonly DesignStatement[], basis: Setting<Design>['basis']): Setting<Design> | undefined => {
     const first = ds[0];
     if (!first || !ds.every((d) => d.design === first.design)) return undefined;
-    return { value: first.design, basis, span: first.span, printed: first.printed };
+    return saidIn({ value: first.design, basis, span: first.span, printed: first.printed }, first);
   };
   const inClause = pick(designs.betweenInSentence(report.segment, report.sentence, clause.start, clause.end), 'sentence');
   if (inClause) return inClause;
+  // its lead: the words that lead up to it in its sentence ("…, but another paired t-test
+  // suggests that … (t(27) = …"), though another statistic's clause reaches over them
+  const lead = report.lead;
+  const inLead = lead ? pick(designs.betweenInSentence(report.segment, report.sentence, lead.start, report.span.start), 'sentence') : undefined;
+  if (inLead) return inLead;
   const reportSentence = sentenceKey(report);
+  // words in a statistic's clause are that statistic's ("paired t(29) = …, and the groups
+  // differed, t(58) = …"; its own clause was read above): the sentence's words outside every
+  // clause, read once per sentence
   let sentence = memo.sentenceDesign.get(reportSentence);
   if (sentence === undefined) {
-    sentence = pick(designs.inSentence(report.segment, report.sentence), 'sentence') ?? null;
+    // nor the words that name a test right before its statistic ("(paired t(29) = …")
+    const named = tests.inSentence(report.segment, report.sentence).filter((x) => x.namedVariant !== undefined);
+    const namesATest = (d: DesignStatement) => named.some((x) => x.span.start >= d.span.end && x.span.start - d.span.end <= NAME_REACH);
+    sentence = pick(designs.inSentence(report.segment, report.sentence).filter((d) => clauses.ownerOf(d) === undefined && !namesATest(d)), 'sentence') ?? null;
     memo.sentenceDesign.set(reportSentence, sentence);
   }
   if (sentence) return sentence;
@@ -661,17 +676,37 @@ function containsName(words: string, name: string): boolean {
   return false;
 }
 
+/** The design words a design read from the text rests on (their sentence), by the setting made from them. */
+const designSources = new WeakMap<Setting<Design>, DesignStatement>();
+const saidIn = (design: Setting<Design>, statement: DesignStatement): Setting<Design> => {
+  designSources.set(design, statement);
+  return design;
+};
+
 /**
  * A paired design read from words (not from the test's own name, "paired t(22)") does not hold
  * for a result whose two groups are printed with different sizes ("in the 14 men and 10
  * women"): one set of units measured twice has one size, so the words are about another
- * comparison, or units were lost between the measurements. Either way the design is not
+ * comparison, or units were lost between the measurements. Nor where the two groups' sizes add
+ * up to the number of units the design words' own sentence counts ("40 participants completed
+ * both sessions" beside women, n = 20, and men, n = 20): the groups split the units, so the
+ * comparison is between them, not of the units measured twice. Either way the design is not
  * certain: unknown.
  */
-function unlessUnequal(design: Setting<Design>, link: DescriptiveLink | undefined, groupSizes: readonly ReportedNumber[] | undefined): Setting<Design> {
+function unlessUnequal(design: Setting<Design>, link: DescriptiveLink | undefined, groupSizes: readonly ReportedNumber[] | undefined, sampleSizes: SegmentList<SampleSize>, report: TTestReport): Setting<Design> {
   if (design.value !== 'paired' || design.basis === 'in-report') return design;
-  const ns = link?.groups.length === 2 && link.groups.every((g) => g.n) ? link.groups.map((g) => g.n?.value) : groupSizes?.length === 2 ? groupSizes.map((g) => g.value) : undefined;
-  return ns && ns[0] !== ns[1] ? { value: 'unknown', basis: 'default' } : design;
+  // the two groups' sizes: with their descriptives, printed together, or the two sizes of its own sentence ("(n = 26) … (n = 26)")
+  const own = link ? [] : sampleSizes.inSentence(report.segment, report.sentence).filter((x) => x.scope !== 'total' && x.scope !== 'subset');
+  const ns = link?.groups.length === 2 && link.groups.every((g) => g.n) ? link.groups.map((g) => g.n?.value as number) : groupSizes?.length === 2 ? groupSizes.map((g) => g.value) : own.length === 2 ? own.map((x) => x.n.value) : undefined;
+  if (!ns) return design;
+  const [a, b] = ns as [number, number];
+  if (a !== b) return { value: 'unknown', basis: 'default' };
+  const source = designSources.get(design);
+  if (source) {
+    const counted = sampleSizes.inSentence(source.segment, source.sentence).filter((x) => x.scope === 'total' || x.scope === 'unspecified').map((x) => x.n.value);
+    if (counted.includes(a + b) && !counted.includes(a)) return { value: 'unknown', basis: 'default' };
+  }
+  return design;
 }
 
 /** Structure, when nothing beside the result says the design: one group is one-sample (or differences). */
@@ -712,7 +747,7 @@ function methodsDesign(x: Extraction, clauses: ClauseIndex): Setting<Design> | u
   const inMethods = x.designs.filter((d) => d.design !== 'one-sample' && METHODS_SECTION.test(x.sections[d.segment] ?? '') && clauses.statisticsInSentence(d.segment, d.sentence) === 0);
   const first = inMethods[0];
   if (!first || !inMethods.every((d) => d.design === first.design)) return undefined;
-  return { value: first.design, basis: 'methods', span: first.span, printed: first.printed };
+  return saidIn({ value: first.design, basis: 'methods', span: first.span, printed: first.printed }, first);
 }
 
 /** Most groups an F's summaries may count (the numerics search 2^k corners; see oneWayFRange). */

@@ -325,3 +325,32 @@ describe('a paragraph statement about one test, or about a kind of test, where t
     expect(r.results[0]?.sidedness).toMatchObject({ value: 'one', basis: 'paragraph' });
   });
 });
+
+describe('design words apply only to the comparison they describe (invented cases, probing)', () => {
+  // Student t for (412, 48, 20) and (400, 47, 20): 0.799, p = .43; for (14.8, 3.9, 26) and (12.2, 4.1, 26): 2.34, p = .023 (scipy.stats.ttest_ind_from_stats)
+  const dma = (r: FileReport) => r.findings.filter((f) => f.ruleId === 'design-matches-analysis').map((f) => f.level);
+  it("words naming another test in the sentence, or in another statistic's clause, are not this result's", () => {
+    const r = run('Within the yoga group pain fell (paired t(29) = −4.24, p < .001), and the yoga group (n = 30) improved more than the usual-care group (n = 30), t(58) = −2.25, p = .028.');
+    expect(r.results[1]?.context.design.value).not.toBe('paired');
+    expect(dma(r)).toEqual([]);
+  });
+  it('words in the lead of a result are its own, though the clause of the statistic before reaches over them', () => {
+    const r = run('The first pair differed (t(27) = 2.20, p = .037), but another paired t-test suggests that the third pair did not differ (t(27) = 0.23, p = .818).');
+    expect(r.results[1]?.context.design).toMatchObject({ value: 'paired', basis: 'sentence' });
+  });
+  it('"before and after adjustment" is two steps of an analysis, not two measurements', () => {
+    const r = run('Nurses who had worked abroad (M = 14.8, SD = 3.9, n = 26) reported more confidence than those who had not (M = 12.2, SD = 4.1, n = 26), t(50) = 2.34, p = .023, both before and after adjustment for age.');
+    expect(r.results[0]?.context.design.value).not.toBe('paired');
+    expect(dma(r)).toEqual([]);
+  });
+  it('two groups whose sizes add up to the units the design words count split those units: the comparison is between them', () => {
+    const within = run('## Methods\n\nIn this within-subject study, 40 participants completed both the caffeine and the placebo session.\n\n## Results\n\nWomen (M = 412, SD = 48, n = 20) and men (M = 400, SD = 47, n = 20) did not differ at the placebo session, t(38) = 0.80, p = .43.');
+    expect(within.results[0]?.context.design.value).toBe('unknown');
+    expect(dma(within)).toEqual([]);
+    const paragraph = run('All 52 residents were assessed before and after the installation. Residents on the lit corridor (n = 26) had fewer events than those on the unlit corridor (n = 26), t(50) = 2.34, p = .023.');
+    expect(dma(paragraph)).toEqual([]);
+    // the same units measured twice, counted once: still paired, and its 2n − 2 df still a warning
+    const paired = run('All 26 residents were assessed before and after the installation. Events fell from before (M = 14.8, SD = 3.9, n = 26) to after (M = 12.2, SD = 4.1, n = 26), t(50) = 2.34, p = .023.');
+    expect(dma(paired)).toEqual(['warning']);
+  });
+});
