@@ -326,6 +326,22 @@ function owned<T extends Placed>(report: TTestReport, clause: Clause, clauses: C
   return [];
 }
 
+/**
+ * Effect sizes of one kind printed together in a clause of a sentence that reports several
+ * statistics ("…, t(76) = 0.43, p = .67, differed by d = 0.51 and d = 0.10, respectively"): a list
+ * for the sentence's tests, in some order the text may or may not say, so which is this test's
+ * cannot be told. Each is then not certain.
+ */
+function listedTogether(links: Array<Linked<EffectSizeReport>>, statistics: number): Array<Linked<EffectSizeReport>> {
+  if (statistics < 2 || links.length < 2) return links;
+  const count = new Map<string, number>();
+  for (const l of links) if (l.basis === 'clause') count.set(l.item.kind, (count.get(l.item.kind) ?? 0) + 1);
+  return links.map((l) => {
+    const k = count.get(l.item.kind) ?? 0;
+    return l.basis === 'clause' && l.certain && k >= 2 ? Object.assign({}, l, { certain: false, doubt: `is one of ${k} effect sizes printed together in a sentence that reports ${statistics} tests, so which is this test's cannot be told` }) : l;
+  });
+}
+
 /** Whether no statistic other than the report's own claims the item by its clause. */
 function notOwnedByAnother(item: Placed, report: TTestReport, clauses: ClauseIndex): boolean {
   const owner = clauses.ownerOf(item);
@@ -348,10 +364,18 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
     if (own.length > 0) return own.map((item) => ({ item, basis: 'clause', certain: true }));
     return (items.get(row) ?? []).filter((item) => notOwnedByAnother(item, report, clauses)).map((item) => ({ item, basis: 'table-row', certain: true }));
   };
-  const effectSizes = row ? inRow(t.rows.effectSizes, n.effectSizes) : owned(report, clause, clauses, n.effectSizes);
+  // A number of its clause that stands in the lead of the next test of its sentence, after a
+  // boundary (a semicolon, ", and", ", but") that follows this result ("…, p = .27); the
+  // difference, −2.3 (95% CI …), was significant, t(58) = …"), may be that test's: not certain.
+  const next = clause.end !== undefined ? n.tests.betweenInSentence(report.segment, report.sentence, clause.end, clause.end + 1)[0] : undefined;
+  // (only a lead that starts after this result: one reaching back over it marks no boundary)
+  const nextLead = next?.lead && next.lead.start >= report.span.end ? next.lead.start : undefined;
+  const beforeNext = <T extends Placed>(links: Array<Linked<T>>): Array<Linked<T>> =>
+    nextLead === undefined ? links : links.map((l) => (l.basis === 'clause' && l.certain && l.item.span.start >= nextLead ? Object.assign({}, l, { certain: false, doubt: 'stands in the words that lead up to the next test of its sentence, so it may be that test\'s' }) : l));
+  const effectSizes = row ? inRow(t.rows.effectSizes, n.effectSizes) : listedTogether(beforeNext(owned(report, clause, clauses, n.effectSizes)), clauses.statisticsInSentence(report.segment, report.sentence));
   const intervals = row
     ? inRow(t.rows.intervals, n.intervals).map((ci): IntervalLink => Object.assign({}, ci, { of: 'estimate' as const }))
-    : owned(report, clause, clauses, n.intervals).map((ci) => intervalTarget(ci, report, clause, n));
+    : beforeNext(owned(report, clause, clauses, n.intervals)).map((ci) => intervalTarget(ci, report, clause, n));
   const interval = intervals.find((i) => i.of === 'estimate');
   const leading = clause.leadingEstimate;
   const estimate: Linked<EstimateReport> | undefined = row ? inRow(t.rows.estimates, n.estimates)[0] : leading ? { item: leading, basis: 'clause', certain: true } : owned(report, clause, clauses, n.estimates)[0];

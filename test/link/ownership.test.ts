@@ -354,3 +354,22 @@ describe('design words apply only to the comparison they describe (invented case
     expect(dma(paired)).toEqual(['warning']);
   });
 });
+
+describe('numbers between two tests of a sentence (invented cases, probing)', () => {
+  // t(58): −2.3 ± 2.0017 × (2.3 / 2.25) = −4.35 to −0.25, so the CI fits t(58), not t(29) (t critical from scipy.stats.t.ppf)
+  it('a CI after a semicolon, in the words leading up to the next test, may be that test\'s: only a note against the test before', () => {
+    const r = run('Pain in the usual-care group barely changed (paired t(29) = −1.12, p = .27); the between-group difference in change, −2.3 points (95% CI −4.34 to −0.26), was significant, t(58) = −2.25, p = .028.');
+    expect(r.results[0]?.context.intervals?.[0]).toMatchObject({ certain: false });
+    expect(warnings(r)).toEqual([]);
+  });
+  it('a d right after its own p, before the next test, stays certain', () => {
+    const r = run('Scores differed in alertness, t(36) = 3.03, p = .005, d = 0.50, in anxiety at week 9, t(36) = -0.32, p = .75, d = -0.05, and in reaction time, t(33) = 1.27, p = .21, d = 0.22.');
+    expect(r.results.map((x) => x.context.effectSizes.map((e) => e.certain))).toEqual([[true], [true], [true]]);
+  });
+  it('effect sizes listed together after the tests of a sentence are tied to none with certainty', () => {
+    // d from t: 2·2.27/√76 = 0.52 and 2·0.43/√76 = 0.099 (common practice, no source); the list is in order
+    const r = run('Self-efficacy, t(76) = 2.27, p = .026, and sleep, t(76) = 0.43, p = .67, differed by d = 0.51 and d = 0.10, respectively.');
+    expect(warnings(r)).toEqual([]);
+    expect(r.results[1]?.context.effectSizes.map((e) => e.certain)).toEqual([false, false]);
+  });
+});
