@@ -69,6 +69,16 @@ const GENERIC_HEAD = /^(?:score|rating|value|outcome|response|result|total|answe
  * measure's name when the sentence says it (its subject, or the thing counted), so that the
  * declaration can be tied by name to the results that report that measure.
  */
+/**
+ * Words that make a value per unit a rate or an average, not a whole number. A rate ("per hour",
+ * "per 100 discharges", "rate") undoes only a count the sentence implies ("the number of
+ * interruptions per hour"), not one it calls whole-number ("errors per shift were recorded as
+ * whole-number counts"); an average over occasions ("averaged over the four rounds", "the mean
+ * across visits") undoes any, since the unit's value is then a mean.
+ */
+const RATE = /(?<![\p{L}])(?:per (?:\d{1,6} |hundred |thousand )?(?:hours?|minutes?|days?|weeks?|months?|years?|shifts?|rounds?|visits?|sessions?|trials?|blocks?|admissions?|discharges?|patient-days?|bed-days?|\d{1,6}(?![\p{N}]))|rates?)(?![\p{L}])/iu;
+const AVERAGED = /(?<![\p{L}])(?:averag(?:ed|ing|es?)|mean) (?:over|across) /iu;
+
 export function findIntegerMeasures(seg: Segment, starts: number[]): IntegerStatement[] {
   const text = seg.text;
   if (!/integer|whole|item|count|number|tall|logged|coded/i.test(text)) return [];
@@ -87,6 +97,8 @@ export function findIntegerMeasures(seg: Segment, starts: number[]): IntegerStat
     const end = start + found.m[0].length;
     // "n is the number of mice": what n counts, not a measure
     if (SAMPLE_SIZE_DEFINITION.test(sentence)) continue;
+    // a count per hour or per 100 discharges is a rate, and one averaged over rounds a mean, not a whole number
+    if (found.m !== mean && found.m !== kItem && (AVERAGED.test(sentence) || (integerWords(sentence) === null && RATE.test(sentence)))) continue;
     const measures = measureNames(sentence);
     // "the number of participants" is a sample size, not a whole-number measure
     if (found.m !== mean && found.m !== sum && found.m !== kItem && integerWords(sentence) === null && measures.length === 0) continue;

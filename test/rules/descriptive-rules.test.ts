@@ -110,6 +110,12 @@ ruleTable('effect-size-follows', [
 ruleTable('mean-is-possible-for-integers', [
   { name: 'impossible mean of 19 single items (hand-checked: 2.39 × 19 = 45.41, no integer rounds there)', markdown: 'The number of reminders averaged M = 2.39 (SD = 1.10, n = 19).', expect: [{ at: '2.39', id: 'grim-mean' }] },
   { name: 'possible mean (45/19 = 2.368 → 2.37, hand-checked)', markdown: 'The number of reminders averaged M = 2.37 (SD = 1.07, n = 19).', expect: [] },
+  // 2.39 is impossible as a mean of whole numbers over 19 (above); as a rate or a mean over occasions it has no whole-number grain
+  { name: 'a count per hour is a rate: no whole-number grain', markdown: 'The number of reminders per hour was M = 2.39 (SD = 1.10, n = 19).', expect: [] },
+  { name: 'a count per 100 discharges is a rate', markdown: 'The number of calls per 100 discharges was M = 2.39 (SD = 1.10, n = 19).', expect: [] },
+  { name: 'a count averaged over rounds is a mean', markdown: 'The number of errors was counted on each of four rounds and averaged over the rounds for each nurse. Errors: M = 2.39 (SD = 1.10, n = 19).', expect: [] },
+  { name: 'a single-item rating averaged across visits is a mean', markdown: 'Satisfaction was rated on a single 7-point item, averaged across the three visits. Satisfaction: M = 2.39 (SD = 1.10, n = 19).', expect: [] },
+  { name: 'counts said whole per shift stay whole', markdown: 'Errors per shift were recorded as whole-number counts. Errors: M = 2.39 (SD = 1.10, n = 19).', expect: [{ at: '2.39', id: 'grim-mean' }] },
   { name: 'k items: 3.48 × 19 × 3 = 198.36; 198/57 = 3.474 and 199/57 = 3.491, so 3.48 is impossible (hand-checked)', markdown: 'A 3-item scale (M = 3.48, SD = 1.20, n = 19).', expect: [{ at: '3.48', id: 'grim-mean' }] },
   { name: 'on a 4-item scale 3.48 is impossible too (264/76 = 3.474, 265/76 = 3.487; hand-checked)', markdown: 'A 4-item scale (M = 3.48, SD = 1.20, n = 19).', expect: [{ at: '3.48', id: 'grim-mean' }] },
   { name: 'on a 5-item scale 3.48 is possible (331/95 = 3.484; hand-checked)', markdown: 'A 5-item scale (M = 3.48, SD = 1.20, n = 19).', expect: [] },
