@@ -19,6 +19,9 @@ export const powerStatementFollows: Rule = {
     const out: RuleFinding[] = [];
     for (const st of document.extraction.powerStatements) {
       if (!st.n) continue;
+      // groups of unequal sizes, or a loss allowed for at a rate the text does not give, are not
+      // what the equal-groups calculation below models: nothing certain can be said
+      if (st.unequalGroups || (st.allowsForLoss !== undefined && !(st.allowsForLoss > 0 && st.allowsForLoss < 1))) continue;
       const target = st.powerPercent ? st.power.value / 100 : st.power.value;
       if (!(target > 0 && target < 1)) continue;
       const alpha = st.alpha ?? 0.05;
@@ -27,11 +30,16 @@ export const powerStatementFollows: Rule = {
       const d = Math.abs(st.d.value);
       const [pLow, pHigh] = numberInterval(st.power).map((x) => (st.powerPercent ? x / 100 : x)) as [number, number];
       // Per-group n for two samples; a total, or a count of unspecified scope, may be either.
-      const candidates = st.design !== 'two-sample' ? [st.n.value] : st.nScope === 'per-group' ? [st.n.value] : st.nScope === 'total' ? [st.n.value / 2] : [st.n.value, st.n.value / 2];
+      const printed = st.design !== 'two-sample' ? [st.n.value] : st.nScope === 'per-group' ? [st.n.value] : st.nScope === 'total' ? [st.n.value / 2] : [st.n.value, st.n.value / 2];
+      // an n that allows for a loss of a proportion r is the needed n over (1 − r): the needed n is n(1 − r), either way rounded
+      const loss = st.allowsForLoss;
+      const candidates = loss === undefined ? printed : printed.flatMap((x) => [Math.floor(x * (1 - loss)), Math.ceil(x * (1 - loss))]);
       const required = requiredN(st.design, target, d, alpha, sides);
       const fits = candidates.some((n) => {
         if (!Number.isInteger(n)) return false;
         if (Math.abs(n - required) <= 1) return true; // Cohen's tables and software differ by one
+        // "more than 80% power": any n at or above the one needed
+        if (st.powerAtLeast && n >= required - 1) return true;
         // or the stated power is what this n gives, for some d within its rounding
         const lo = tTestPower(st.design, n, Math.abs(dLow) < Math.abs(dHigh) ? Math.abs(dLow) : Math.abs(dHigh), alpha, sides);
         const hi = tTestPower(st.design, n, Math.max(Math.abs(dLow), Math.abs(dHigh)), alpha, sides);

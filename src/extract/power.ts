@@ -14,6 +14,15 @@ const TOTAL = /(?<![\p{L}])(?:total (?:sample )?(?:size )?(?:of |N ?= ?|n ?= ?)?
 /** "22 shift workers give 90% power": the number before the verb that gives the power, whatever its noun. */
 const GIVES_POWER = /(?<![\p{L}\p{N}.,])(\d{1,3}(?:,\d{3})?|\d{1,7}) (?:\p{L}{2,20} ){1,2}(?:give|gives|gave|provide|provides|provided|yield|yields|yielded|would give|would provide)(?![\p{L}])/du;
 const PEOPLE = new RegExp(String.raw`(?<![\p{L}\p{N}.,])(\d{1,3}(?:,\d{3})?|\d{1,7}) ${UNITS}(?![\p{L}])`, 'du');
+/** Words right before a power value that make it a bound ("more than 80% power", "at least 80%", "power of at least .80"). */
+const AT_LEAST_BEFORE = /(?<![\p{L}])(?:more than|at least|over|above|greater than|in excess of|exceeding|no less than|>|≥|>=) ?$/iu;
+/** A loss the n allows for ("allowing for 20% attrition", "a 15% drop-out rate", "inflated for loss to follow-up"). */
+const LOSS = /(?<![\p{L}])(?:attrition|drop-?outs?|drop-?out rate|loss to follow-?up|lost to follow-?up|non-?response|withdrawals?)(?![\p{L}])/iu;
+const LOSS_RATE = /(?<![\p{N}.])(\d{1,2}(?:\.\d)?) ?% (?:\p{L}{1,15} ){0,2}(?:attrition|drop-?outs?|drop-?out rate|loss|lost|non-?response|withdrawals?)(?![\p{L}])/iu;
+/** An allocation ratio other than 1:1 ("a 2:1 allocation", "randomised 2:1"). */
+const RATIO = /(?<![\p{N}.:])([1-9]) ?: ?([1-9])(?![\p{N}.:])/u;
+/** Two group sizes printed in the sentence ("96 intervention and 48 control participants"). */
+const TWO_SIZES = /(?<![\p{L}\p{N}.,])(\d{1,5}) (?:\p{L}{2,20} )?and (\d{1,5}) (?:\p{L}{2,20} )?(?:participants|patients|people|subjects|children|adults|nurses|staff|pupils|students|per group|in the)(?![\p{L}])/iu;
 const PAIRED = /(?<![\p{L}])(paired|within-subjects?|repeated[- ]measures|crossover|pre-post|before and after)(?![\p{L}])/iu;
 const ONE_SAMPLE = /(?<![\p{L}])one-sample(?![\p{L}])/iu;
 
@@ -47,6 +56,12 @@ export function findPowerStatements(seg: Segment, starts: number[]): PowerStatem
     const alpha = ALPHA.exec(sentence);
     const sides = SIDES.exec(sentence);
     const design = PAIRED.test(sentence) ? 'paired' : ONE_SAMPLE.test(sentence) ? 'one-sample' : 'two-sample';
+    const atLeast = AT_LEAST_BEFORE.test(sentence.slice(Math.max(0, pv.index - 16), pv.index)) || (pv[2] !== undefined && /(?:at least|more than|over|above) $/iu.test(sentence.slice(Math.max(0, pv.index + pv[0].length - (pv[2] as string).length - 16), pv.index + pv[0].length - (pv[2] as string).length)));
+    const lossRate = LOSS_RATE.exec(sentence);
+    const loss = lossRate ? Number(lossRate[1]) / 100 : LOSS.test(sentence) ? NaN : undefined;
+    const ratio = RATIO.exec(sentence);
+    const sizes = TWO_SIZES.exec(sentence);
+    const unequal = (ratio !== null && ratio[1] !== ratio[2]) || (sizes !== null && sizes[1] !== sizes[2]);
     out.push({
       segment: seg.id,
       block: seg.block,
@@ -61,6 +76,9 @@ export function findPowerStatements(seg: Segment, starts: number[]): PowerStatem
       ...(n ? { n } : {}),
       nScope: perGroup ? 'per-group' : total && /total|N ?=/i.test(total[0]) ? 'total' : 'unspecified',
       design,
+      ...(atLeast ? { powerAtLeast: true } : {}),
+      ...(loss !== undefined ? { allowsForLoss: loss } : {}),
+      ...(unequal ? { unequalGroups: true } : {}),
     } as PowerStatement);
   }
   return out;

@@ -486,6 +486,12 @@ export interface PowerStatement {
   n?: ReportedNumber;
   nScope: 'per-group' | 'total' | 'unspecified';
   design: 'two-sample' | 'paired' | 'one-sample';
+  /** The power is a bound: "more than 80% power", "at least 80%", "over 90%". */
+  powerAtLeast?: true;
+  /** The n allows for a loss of this proportion ("after allowing for 20% attrition"); NaN when the words give no rate. */
+  allowsForLoss?: number;
+  /** Groups of unequal sizes ("a 2:1 allocation", "96 intervention and 48 control participants"), which the equal-groups calculation does not model. */
+  unequalGroups?: true;
 }
 
 /**

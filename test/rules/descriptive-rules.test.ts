@@ -141,6 +141,12 @@ ruleTable('percentage-matches-count', [
 
 ruleTable('power-statement-follows', [
   { name: "Cohen's example: 64 per group for d = 0.5", markdown: '80% power to detect d = 0.5 at α = .05 (two-sided) needed 64 per group.', expect: [] },
+  // power at d = 0.5, two-sided α = .05 (scipy.stats.nct, two groups): 40 per group .598, 64 .802, 80 .882, 100 .940
+  { name: 'a bound: more than 80% power from 80 per group (.882)', markdown: 'With 80 participants per group, the trial had more than 80% power to detect d = 0.5 at a two-sided alpha of .05.', expect: [] },
+  { name: 'a bound: at least 80% power that 40 per group cannot give (.598)', markdown: 'With 40 participants per group, the trial had at least 80% power to detect d = 0.5 at a two-sided alpha of .05.', expect: [{ at: '80% power', id: 'n-does-not-give-power' }] },
+  { name: 'an n that allows for 20% attrition: 80 × 0.8 = 64', markdown: 'To have 80% power to detect d = 0.5 at a two-sided alpha of .05 after allowing for 20% attrition, we recruited 80 participants per group.', expect: [] },
+  { name: 'an n that allows for 20% attrition but does not give the power: 100 × 0.8 = 80 (.882)', markdown: 'To have 80% power to detect d = 0.5 at a two-sided alpha of .05 after allowing for 20% attrition, we recruited 100 participants per group.', expect: [{ at: '80% power', id: 'n-does-not-give-power' }] },
+  { name: 'attrition allowed for at no stated rate, or unequal groups: not modelled, not flagged', markdown: 'To have 80% power to detect d = 0.5 at a two-sided alpha of .05 after allowing for attrition, we recruited 100 participants per group. With a 2:1 allocation, 96 intervention and 48 control participants give 80% power to detect d = 0.5 (two-sided alpha = .05).', expect: [] },
   { name: 'within one of the exact answer (393 vs 394)', markdown: '80% power to detect d = 0.2 at α = .05 needed 393 per group.', expect: [] },
   { name: 'a total N is halved', markdown: 'A total of 128 participants gives 80% power to detect d = 0.5.', expect: [] },
   { name: 'paired design', markdown: 'A paired design with 34 pairs gives 80% power to detect d = 0.5 at α = .05.', expect: [] },
