@@ -16,6 +16,12 @@ const ALPHA_AS_P = new RegExp(
   'giu',
 );
 
+/**
+ * What "±" stands for where it is neither an SD nor an SE: a multiple of either ("mean ± 2 SE",
+ * "± 1.96 SEM"), the half-width of a CI ("means ± half-width of the 95% CI", "mean ± 95% CI"), or
+ * a range.
+ */
+const SPREAD_OTHER = /(?<![\p{L}])(?:mean|M)s? ?(?:±|\+\/-|plus or minus) ?(?:(?:\d(?:\.\d{1,2})?|two|three) ?(?:SDs?|SEMs?|SEs?|standard (?:deviations?|errors?))|(?:the )?half[- ]widths?|(?:the )?(?:\d{2}(?:\.\d)? ?% )?(?:CI|confidence intervals?|confidence limits?)|(?:the )?range)(?![\p{L}])/giu;
 const SPREAD_STATEMENT = /(?<![\p{L}])(?:mean|M)s? ?(?:±|\+\/-|plus or minus) ?(SD|SEM|SE|s\.d\.|s\.e\.m\.|s\.e\.|standard deviations?|standard errors?)(?![\p{L}])/giu;
 
 /**
@@ -119,9 +125,12 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
   if (/equivalen|TOST|one-sided|inferiority/i.test(text)) for (const m of matchesOf(EQUIVALENCE, text)) {
     out.push({ kind: 'equivalence', sidedness: 'one', ...base(m.index, m.index + m[0].length) });
   }
-  if (/±|\+\/-|plus or minus/.test(text)) for (const m of matchesOf(SPREAD_STATEMENT, text)) {
-    const sd = /^(sd|s\.d\.|standard dev)/i.test(m[1] as string);
-    out.push({ kind: 'spread', spread: sd ? 'SD' : 'SE', ...base(m.index, m.index + m[0].length) });
+  if (/±|\+\/-|plus or minus/.test(text)) {
+    for (const m of matchesOf(SPREAD_STATEMENT, text)) {
+      const sd = /^(sd|s\.d\.|standard dev)/i.test(m[1] as string);
+      out.push({ kind: 'spread', spread: sd ? 'SD' : 'SE', ...base(m.index, m.index + m[0].length) });
+    }
+    for (const m of matchesOf(SPREAD_OTHER, text)) out.push({ kind: 'spread', spreadOther: true, ...base(m.index, m.index + m[0].length) });
   }
   if (/Bonferroni|Holm|id[aá]k|Hochberg|Hommel|Benjamini|discovery|FDR|Tukey|Westfall|multipl/i.test(text)) {
     for (let i = 0; i < sentenceStarts.length; i += 1) {

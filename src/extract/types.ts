@@ -49,6 +49,8 @@ export interface ContextStatement {
   alpha?: number;
   /** For `spread`: what "mean ± x" stands for ("values are mean ± SEM"). */
   spread?: 'SD' | 'SE';
+  /** For `spread`: "±" said to stand for neither an SD nor an SE ("mean ± 2 SE", "± half-width of the 95% CI"). */
+  spreadOther?: true;
   /**
    * For `sidedness` and `alpha`: said in words about every test ("All tests were two-tailed"),
    * not of one. For `multiplicity`: said of every p, near the correction's name ("All p values

@@ -576,6 +576,7 @@ function withLeadDoubt(report: TTestReport, link: DescriptiveLink): DescriptiveL
 function makeLink(scope: DescriptiveLink['scope'], groups: GroupSummary[], spreads: SpreadStatements, certain: boolean): DescriptiveLink {
   const kinds: SpreadKind[] = [];
   let source: DescriptiveLink['spreadKindSource'];
+  let other: Extraction['statements'][number] | undefined;
   for (const g of groups) {
     let kind: SpreadKind = g.spread?.kind ?? 'unstated';
     if (kind === 'unstated') {
@@ -583,10 +584,12 @@ function makeLink(scope: DescriptiveLink['scope'], groups: GroupSummary[], sprea
       if (st?.spread) {
         kind = st.spread;
         source = { span: st.span, printed: st.printed };
-      }
+      } else if (st?.spreadOther && g.spread) other = st;
     }
     kinds.push(kind);
   }
+  // "±" said to be neither an SD nor an SE: no reading of it as either is certain
+  if (other) return { scope, groups, spreadKinds: kinds, certain: false, doubt: `the text says "±" stands for "${other.printed}", neither an SD nor an SE` };
   return { scope, groups, spreadKinds: kinds, ...(source ? { spreadKindSource: source } : {}), certain };
 }
 

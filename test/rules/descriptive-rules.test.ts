@@ -190,3 +190,16 @@ describe('power-statement-follows quotes the statement it recomputes', () => {
     expect(f[0]?.message).toMatch(/^Reported "For the paired comparison, 12 pickers give 90% power to detect d = 0\.7 \(α = \.05\)"\. Recomputed/);
   });
 });
+
+describe('"±" said to stand for neither an SD nor an SE (invented cases, probing)', () => {
+  // 17.3 ± 1.86 (n = 22) and 14.1 ± 2.09 (n = 21) as CI half-widths give SDs 4.19 and 4.59 (half-width / t.ppf(.975, n − 1) × √n,
+  // scipy), and Student t(41) = 2.39; read as SDs or SEs they give t = 5.3 or 1.1: no certain reading
+  const levels = (markdown: string) => checkSource('x.md', `${markdown}\n`).findings.filter((f) => f.ruleId === 't-follows-from-descriptives').map((f) => f.level);
+  it('makes a recomputation from them a note, whatever the multiple or interval named', () => {
+    expect(levels('Recovery was higher after immersion (17.3 ± 1.86, n = 22) than after rest (14.1 ± 2.09, n = 21), t(41) = 2.38, p = .022; values are means ± half-width of the 95% CI.')).toEqual(['note']);
+    expect(levels('Recovery was higher after immersion (17.3 ± 1.79, n = 22) than after rest (14.1 ± 2.01, n = 21), t(41) = 2.38, p = .022 (mean ± 2 SE).')).toEqual(['note']);
+  });
+  it('leaves "mean ± SD" as SDs', () => {
+    expect(levels('Recovery was higher after immersion (17.3 ± 1.86, n = 22) than after rest (14.1 ± 2.09, n = 21), t(41) = 2.38, p = .022 (mean ± SD).')).toEqual(['warning']);
+  });
+});
