@@ -24,7 +24,7 @@ const CHECK_NOT_RUN = /^[\p{L}'’ ]{0,20} (?:was|were) not (?:run|performed|con
 const CHECK_REACH = 80;
 const MULTIPLICITY = /(?<![\p{L}])(Bonferroni|Holm|Šidák|Sidak|Hochberg|Hommel(?=(?:['’]s)?[- ](?:procedure|method|correction|adjust\p{L}*|correct\p{L}*|test|approach))|Westfall(?=[-–‐ ](?:and )?Young)|Benjamini|false discovery rate|FDR|family-?wise|multiple (?:comparisons|testing|tests)|multiplicity|adjusted p(?:[- ]values?)?|corrected for multiple|Tukey['’]?s?(?: HSD)?)(?![\p{L}])/giu;
 const TREND = /(?<![\p{L}])(trend(?:ed)? (?:towards?|to) (?:significance|be significant)|a trend|marginal(?:ly)? (?:significant|significance)|approach(?:ed|ing) (?:statistical )?significance|borderline significan\p{L}*|nearly significant|almost significant|tended to)(?![\p{L}])/giu;
-const EXCLUSION = /(?<![\p{L}])(exclu\p{L}+|dropped out|drop-?outs?|withdr[ae]w\p{L}*|lost to follow-?up|missing data|incomplete data|did not complete|attrition|removed from (?:the )?analys[ie]s)(?![\p{L}])/giu;
+const EXCLUSION = /(?<![\p{L}])(exclu\p{L}+|dropped out|drop-?outs?|withdr[ae]w\p{L}*|lost to follow-?up|missing data|incomplete data|did not complete|attrition|removed from (?:the )?analys[ie]s|(?:were|was) (?:in)?eligible|(?:which|who|that) \d{1,6} (?:\p{L}{2,20} )?(?:attended|returned|completed|responded))(?![\p{L}])/giu;
 const TEST_NAME = /(?<![\p{L}])((?:paired|unpaired|independent|one[- ]sample|single[- ]sample|two[- ]sample|dependent|related|repeated[- ]measures|within[- ]subjects?|between[- ]subjects?)(?:[- ]samples?)? t[- ]tests?|Welch['’]?s?(?: t)?(?:[- ]tests?)?|(?:paired )?Student(?:['’]s)? t(?:[- ]?tests?)?|t[- ]tests? for (?:paired|independent|dependent|related) samples|unequal[- ]variances? t[- ]tests?|t[- ]tests? (?:assuming|with) unequal variances|t[- ]tests? (?:(?:that|which) (?:did|does|do) not assume|not assuming|without assuming) equal variances|equal variances not assumed|pooled[- ]variances? t[- ]tests?|t[- ]tests? (?:(?:that|which) )?(?:assumed|assuming|assume|assumes|with) equal variances|equal variances assumed)(?![\p{L}])/giu;
 /**
  * Words naming an analysis of variance with repeated measures, or the sphericity correction that
@@ -73,7 +73,7 @@ const MAY: Record<Mention['kind'], RegExp> = {
   assumption: /normal|Shapiro|Kolmogorov|Lilliefors|Darling|Agostino|Q[-–‐ ]?Q|P[-–‐ ]?P|Levene|Forsythe|Bartlett|quantile|varianc|scedastic|distribution|assumption|histogram|skew/i,
   multiplicity: /Bonferroni|Holm|id[aá]k|Hochberg|Hommel|Westfall|Benjamini|discovery|FDR|family|multipl|adjusted|corrected|Tukey/i,
   trend: /trend|marginal|approach|borderline|nearly|almost|tended/i,
-  exclusion: /exclu|drop|withdr|lost to|missing|incomplete|did not complete|attrition|removed/i,
+  exclusion: /exclu|drop|withdr|lost to|missing|incomplete|did not complete|attrition|removed|eligible|attended|returned|completed|responded/i,
   'test-name': /t[- ]test|Welch|Student t|Student['’]s t|equal variances/i,
   'repeated-measures': /ANOVA|analys[ie]s of variance|subjects? factor|spheric|Greenhouse|Huynh|Mauchly/i,
   'between-subjects': /between[- ](?:subj|group|partic)|independent[- ]group|independent (?:groups|samples)/i,

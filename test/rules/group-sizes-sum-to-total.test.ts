@@ -4,6 +4,7 @@ import { ruleTable } from './table.js';
 ruleTable('group-sizes-sum-to-total', [
   { name: 'two groups that add up to the total', markdown: 'We enrolled N = 60 residents, n = 31 in the garden group and n = 29 in the reading group.', expect: [] },
   { name: 'two groups that do not add up, and nothing says who was left out', markdown: 'We enrolled N = 60 residents, n = 31 in the garden group and n = 25 in the reading group.', expect: [{ at: 'N = 60', id: 'sum-differs' }] },
+  { name: 'the screened total and the eligible ones randomised: the text says who was left out', markdown: 'We screened N = 212 patients; 80 were eligible and were randomised to socks (n = 40) or usual care (n = 40).', expect: [] },
   { name: 'a size stated for each arm says how the total splits; the counts of men inside the arms are not groups', markdown: 'We randomised N = 64 adults, n = 32 to each arm; n = 12 of the choir arm and n = 10 of the waiting list were men.', expect: [] },
   { name: 'sizes followed by "of the" are parts of a group, never groups of the total', markdown: 'We enrolled N = 60 residents, n = 30 in the garden group and n = 30 in the reading group; n = 14 of the gardeners and n = 9 of the readers lived alone.', expect: [] },
 ]);
