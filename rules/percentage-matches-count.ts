@@ -27,6 +27,9 @@ export const percentageMatchesCount: Rule = {
     for (const s of x.sampleSizes) add(key(s.segment, s.sentence), { n: s.n.value, printed: s.printed });
     for (const g of x.summaries) if (g.n) add(key(g.segment, g.sentence), { n: g.n.value, printed: g.printed });
     for (const c of x.counts) {
+      // a count of one group ("18 (60%) in the sock arm") is a percentage of that group, whose size
+      // is not the sentence's total (nor an "Of the 60 …" before it): no denominator to check against
+      if (c.inGroup) continue;
       // the denominator printed with it ("of the 21 beds"), else the one n of its sentence
       const ns = c.of ? [{ n: c.of.value, printed: c.of.printed }] : (sizes.get(key(c.segment, c.sentence)) ?? []).filter((s) => s.n >= c.count.value && s.n > 0);
       if (ns.length !== 1) continue; // none, or several to choose from: no guess

@@ -78,6 +78,8 @@ const INDEPENDENT_WORDS = /(?<![\p{L}])(independent[- ]samples?|two independent 
  * groups or cohorts with one word between ("two independent school samples").
  */
 const INDEPENDENT_TESTS = /(?<![\p{L}])(Welch(?:['’]s)?(?: corrected| unequal-variance)? (?:t[- ]?tests?|tests?|correction)|Student['’]s (?:unpaired |two-sample )?t[- ]?tests?|independent \p{L}{2,20} (?:samples|groups|cohorts))(?![\p{L}])/giu;
+/** A count said of one group right after it ("18 (60%) in the sock arm", "12 (40%) of those in the control group"): its base is that group's size. */
+const IN_GROUP_AFTER = /^ (?:(?:were|was) )?(?:in|of those in|from) the (?:[\p{L}-]+ ){0,3}(?:arm|group|condition|cohort|ward|clinic|site|sample)s?(?![\p{L}])/iu;
 /** A participle that says when units joined ("staff hired before and after the change"): two cohorts, not one measured twice. */
 const ENTRY_EVENT = /(?:admitted|hired|recruited|enrolled|born|employed|diagnosed|registered|appointed|joined|started|graduated|qualified|referred|discharged|operated on) $/iu;
 /** After "each participant received …": one of the conditions, not both. */
@@ -345,7 +347,8 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     const ofAt = after ? end + (after.indices?.[1]?.[0] ?? 0) : before ? sentenceStart + (before.indices?.[1]?.[0] ?? 0) : -1;
     const ofText = (after ?? before)?.[1];
     const of = ofText && ofAt >= 0 ? readNumber(seg, ofAt, ofAt + ofText.length) : undefined;
-    counts.push(Object.assign(where(m.index, end), { count, percent, ...(of ? { of } : {}) }));
+    const inGroup = !after && IN_GROUP_AFTER.test(text.slice(end, end + 60));
+    counts.push(Object.assign(where(m.index, end), { count, percent, ...(of ? { of } : {}), ...(inGroup ? { inGroup: true as const } : {}) }));
   }
   return { summaries, sampleSizes, groupSizes, intervals, estimates, effectSizes, designs, references, counts };
 }

@@ -468,6 +468,8 @@ export interface CountPercent {
   percent: ReportedNumber;
   /** The denominator printed with it: `5 (24%) of the 21 beds`, `Of the 14 beds …, 5 (36%)`. */
   of?: ReportedNumber;
+  /** Said of one group right after it (`18 (60%) in the sock arm`): a percentage of that group's size, which is not printed with it. */
+  inGroup?: true;
   span: Span;
   printed: string;
 }

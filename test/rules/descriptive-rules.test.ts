@@ -132,6 +132,9 @@ ruleTable('percentage-matches-count', [
   { name: '10 of 24 is 41.7%, not 40%', markdown: 'Of the 24 staff, 10 (40%) reported pain.', expect: ['1:18 percent-mismatch'] },
   { name: '10 of 24 printed as 42%', markdown: 'Of the 24 staff, 10 (42%) reported pain.', expect: [] },
   { name: 'group n in the sentence', markdown: 'In the poster ward (n = 32), 21 (65.6%) complied.', expect: [] },
+  // 18 of 30 is 60%, 18 of 60 is 30%: the percentage is of the arm, whose size is not tied to the count
+  { name: 'a count said of one arm is a percentage of that arm, not of the sentence\'s total', markdown: 'Of the 60 patients randomised, 18 (60%) in the sock arm and 12 (40%) in the control arm were women.', expect: [] },
+  { name: 'a count of the whole sentence\'s total is still checked', markdown: 'Of the 60 patients randomised, 18 (60%) were women.', expect: ['1:32 percent-mismatch'] },
   { name: 'two possible denominators: no guess', markdown: 'Of 24 staff and 30 patients, 10 (40%) reported pain.', expect: [] },
   { name: 'no denominator: no guess', markdown: 'Ten reported pain, 10 (40%).', expect: [] },
   // 55/202 = 27.23% (common practice, no source)
