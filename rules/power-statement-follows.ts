@@ -33,7 +33,8 @@ export const powerStatementFollows: Rule = {
       const printed = st.design !== 'two-sample' ? [st.n.value] : st.nScope === 'per-group' ? [st.n.value] : st.nScope === 'total' ? [st.n.value / 2] : [st.n.value, st.n.value / 2];
       // an n that allows for a loss of a proportion r is the needed n over (1 − r): the needed n is n(1 − r), either way rounded
       const loss = st.allowsForLoss;
-      const candidates = loss === undefined ? printed : printed.flatMap((x) => [Math.floor(x * (1 - loss)), Math.ceil(x * (1 - loss))]);
+      // (the printed n may be the one needed before the loss too: "64 per group give 80% power; allowing for 20% attrition we will recruit 80")
+      const candidates = loss === undefined ? printed : printed.flatMap((x) => [x, Math.floor(x * (1 - loss)), Math.ceil(x * (1 - loss))]);
       const required = requiredN(st.design, target, d, alpha, sides);
       const fits = candidates.some((n) => {
         if (!Number.isInteger(n)) return false;
@@ -62,10 +63,11 @@ export const powerStatementFollows: Rule = {
           unit: st.design === 'two-sample' ? 'per group' : st.design === 'paired' ? 'pairs' : 'participants',
           target: `${Math.round(target * 1000) / 10}%`,
           n: `${Math.floor(n)}${st.design === 'two-sample' ? ' per group' : ''}`,
+          // (the first candidate is the printed n as read, before any loss allowed for)
           achieved: showNumber(achieved),
         }),
         reported: st.printed,
-        recomputed: { quantity: 'required n', low: required, high: required, inputs: [`d = ${st.d.printed}`, `power ${st.power.printed}${st.powerPercent ? '%' : ''}`], assumptions: [`alpha ${alpha}${st.alpha === undefined ? ' (default)' : ''}`, `${sides === 2 ? 'two' : 'one'}-sided${st.sides === undefined ? ' (default)' : ''}`, st.design] },
+        recomputed: { quantity: 'required n', low: required, high: required, inputs: [`d = ${st.d.printed}`, `power ${st.power.printed}${st.powerPercent ? '%' : ''}`], assumptions: [`alpha ${alpha}${st.alpha === undefined ? ' (default)' : ''}`, `${sides === 2 ? 'two' : 'one'}-sided${st.sides === undefined ? ' (default)' : ''}`, st.design, ...(loss !== undefined ? [`the printed n read both as the n needed and as recruited allowing for the ${showNumber(loss * 100)}% loss the sentence states (then ${Math.floor(n * (1 - loss))} to ${Math.ceil(n * (1 - loss))} analysed)`] : [])] },
         check: 'Check the inputs of the sample-size calculation (d, alpha, tails, design) and say which software and settings were used.',
         block: st.block,
       });

@@ -3,7 +3,7 @@ import { fill, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/i
 const messages = {
   'p-missing': 'Reported {reported} with no p value beside it, so the reader cannot see the result of the test.',
   't-missing': 'Reported {reported} for a t-test ("{mention}") without the t statistic and its df, so the p value cannot be checked.',
-  'p-untied': 'Reported {reported}, then {count} p values listed ({list}) after {tests} t value{s} without a p of {their} own: which p is this test\'s cannot be told, so its p was not checked.',
+  'p-untied': 'Reported {reported}, then {count} p values listed "respectively" ({list}) for the {tests} t value{s} read here: which p is this test\'s cannot be told, so its p was not checked.',
 };
 
 /** A reported t-test gives t, its df and p together. */
@@ -21,7 +21,7 @@ export const resultIsComplete: Rule = {
       const r = result.report;
       if (r.listedPs) {
         const l = r.listedPs;
-        out.push({ messageId: 'p-untied', span: r.span, message: fill(messages['p-untied'], { reported: r.printed, count: l.count, list: l.printed, tests: l.tests, s: l.tests === 1 ? '' : 's', their: l.tests === 1 ? 'its' : 'their' }), reported: r.printed, check: 'Give each t its own p, or list as many p values as t values, in the same order ("respectively").', related: [{ span: l.span, message: 'the p values listed' }], resultId: r.id, block: r.block });
+        out.push({ messageId: 'p-untied', span: r.span, message: fill(messages['p-untied'], { reported: r.printed, count: l.count, list: l.printed, tests: l.tests, s: l.tests === 1 ? '' : 's' }), reported: r.printed, check: 'Give each t its own p, or list as many p values as t values, in the same order ("respectively").', related: [{ span: l.span, message: 'the p values listed' }], resultId: r.id, block: r.block });
         continue;
       }
       // "t(30) < 1" is itself a statement that the test was not significant.

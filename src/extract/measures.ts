@@ -71,13 +71,14 @@ const GENERIC_HEAD = /^(?:score|rating|value|outcome|response|result|total|answe
  */
 /**
  * Words that make a value per unit a rate or an average, not a whole number. A rate ("per hour",
- * "per 100 discharges", "rate") undoes only a count the sentence implies ("the number of
+ * "per 100 discharges") undoes only a count the sentence implies ("the number of
  * interruptions per hour"), not one it calls whole-number ("errors per shift were recorded as
  * whole-number counts"); an average over occasions ("averaged over the four rounds", "the mean
- * across visits") undoes any, since the unit's value is then a mean.
+ * across visits"; not "averaged across nurses", a mean over units) undoes any, since the unit's
+ * value is then a mean.
  */
-const RATE = /(?<![\p{L}])(?:per (?:\d{1,6} |hundred |thousand )?(?:hours?|minutes?|days?|weeks?|months?|years?|shifts?|rounds?|visits?|sessions?|trials?|blocks?|admissions?|discharges?|patient-days?|bed-days?|\d{1,6}(?![\p{N}]))|rates?)(?![\p{L}])/iu;
-const AVERAGED = /(?<![\p{L}])(?:averag(?:ed|ing|es?)|mean) (?:over|across) /iu;
+const RATE = /(?<![\p{L}])per (?:\d{2,6} |hundred |thousand )?(?:hours?|minutes?|days?|weeks?|months?|years?|shifts?|rounds?|visits?|sessions?|trials?|blocks?|admissions?|discharges?|patient-days?|bed-days?)(?![\p{L}])|(?<![\p{L}\p{N}])per (?:\d{2,6}|hundred|thousand)(?![\p{L}\p{N}])/iu;
+const AVERAGED = /(?<![\p{L}])(?:averag(?:ed|ing|es?)|mean) (?:over|across) (?:the |all |both |each |(?:\d{1,3}|two|three|four|five|six|seven|eight|nine|ten) )*(?:rounds?|visits?|sessions?|days?|weeks?|months?|trials?|blocks?|occasions?|time ?points?|measurements?|assessments?|shifts?|repetitions?|tasks?|days)(?![\p{L}])/iu;
 
 export function findIntegerMeasures(seg: Segment, starts: number[]): IntegerStatement[] {
   const text = seg.text;

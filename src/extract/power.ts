@@ -17,8 +17,8 @@ const PEOPLE = new RegExp(String.raw`(?<![\p{L}\p{N}.,])(\d{1,3}(?:,\d{3})?|\d{1
 /** Words right before a power value that make it a bound ("more than 80% power", "at least 80%", "power of at least .80"). */
 const AT_LEAST_BEFORE = /(?<![\p{L}])(?:more than|at least|over|above|greater than|in excess of|exceeding|no less than|>|≥|>=) ?$/iu;
 /** A loss the n allows for ("allowing for 20% attrition", "a 15% drop-out rate", "inflated for loss to follow-up"). */
-const LOSS = /(?<![\p{L}])(?:attrition|drop-?outs?|drop-?out rate|loss to follow-?up|lost to follow-?up|non-?response|withdrawals?)(?![\p{L}])/iu;
-const LOSS_RATE = /(?<![\p{N}.])(\d{1,2}(?:\.\d)?) ?% (?:\p{L}{1,15} ){0,2}(?:attrition|drop-?outs?|drop-?out rate|loss|lost|non-?response|withdrawals?)(?![\p{L}])/iu;
+const LOSS = /(?<![\p{L}])(?:allow(?:ing|ed|s)?|account(?:ing|ed|s)? for|inflat\p{L}*|adjust(?:ing|ed)? for|anticipat\p{L}*|expect(?:ing|ed)?|assum(?:ing|ed)?)(?: [\p{L}\p{N}%.-]+){0,4} (?:attrition|drop-?outs?|drop-?out rate|loss to follow-?up|withdrawals?|non-?response)(?![\p{L}])/iu;
+const LOSS_RATE = /(?<![\p{N}.])(\d{1,2}(?:\.\d)?) ?% (?:\p{L}{1,15} ){0,2}(?:attrition|drop-?outs?|drop-?out rate|loss to follow-?up|lost to follow-?up|non-?response|withdrawals?)(?![\p{L}])/iu;
 /** An allocation ratio other than 1:1 ("a 2:1 allocation", "randomised 2:1"). */
 const RATIO = /(?<![\p{N}.:])([1-9]) ?: ?([1-9])(?![\p{N}.:])/u;
 /** Two group sizes printed in the sentence ("96 intervention and 48 control participants"). */
@@ -58,7 +58,9 @@ export function findPowerStatements(seg: Segment, starts: number[]): PowerStatem
     const design = PAIRED.test(sentence) ? 'paired' : ONE_SAMPLE.test(sentence) ? 'one-sample' : 'two-sample';
     const atLeast = AT_LEAST_BEFORE.test(sentence.slice(Math.max(0, pv.index - 16), pv.index)) || (pv[2] !== undefined && /(?:at least|more than|over|above) $/iu.test(sentence.slice(Math.max(0, pv.index + pv[0].length - (pv[2] as string).length - 16), pv.index + pv[0].length - (pv[2] as string).length)));
     const lossRate = LOSS_RATE.exec(sentence);
-    const loss = lossRate ? Number(lossRate[1]) / 100 : LOSS.test(sentence) ? NaN : undefined;
+    // a loss allowed for in the calculation, at its rate where the words give one ("allowing for 20% attrition")
+    const allowed = LOSS.test(sentence);
+    const loss = allowed ? (lossRate ? Number(lossRate[1]) / 100 : NaN) : undefined;
     const ratio = RATIO.exec(sentence);
     const sizes = TWO_SIZES.exec(sentence);
     const unequal = (ratio !== null && ratio[1] !== ratio[2]) || (sizes !== null && sizes[1] !== sizes[2]);

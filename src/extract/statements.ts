@@ -49,10 +49,14 @@ const LOCAL_ALPHA = /(?<![\p{L}])(?:corrected|adjusted|Bonferroni|Holm|Šidák|S
  * "as is usual when hypotheses are directional") limits nothing.
  */
 const TESTS_NOUN = String.raw`(?:outcomes?|analys[ie]s|comparisons?|tests?|t-tests?|endpoints?|measures?|hypothes[ie]s|contrasts?|predictions?|effects?|variables?|checks?|scales?|subscales?)`;
+/** Words naming one test ("the hypothesis was tested one-tailed", "this comparison"): a statement about it is about one result. */
+const ONE_TEST = /(?<![\p{L}])(?:the|this|that|our|its|a|one) (?:[\p{L}-]+ ){0,2}(?:hypothesis|test|t-test|comparison|contrast|prediction)(?![\p{L}])/iu;
 /** Kinds of test or outcome that are some of a study's, not all. */
 const KINDS = String.raw`(?:secondary|exploratory|primary|additional|supplementary|supplemental|post[- ]hoc|subgroup|sensitivity|follow-?up|confirmatory|pre-?registered|planned|individual|selected|remaining|other)`;
+/** A sentence whose subject is a kind of test ("Confirmatory tests were one-tailed", "All exploratory analyses used …"). */
+const KIND_SUBJECT = new RegExp(String.raw`^\s*(?:the |all |our )?${KINDS} (?:[\p{L}-]+ )?(?:outcomes|analyses|comparisons|tests|t-tests|endpoints|measures|hypotheses|contrasts)(?![\p{L}])`, 'iu');
 const RESTRICTED_SCOPE = new RegExp(
-  String.raw`(?<![\p{L}])(?:only (?:for|in|when|where|if)|(?:for|in) (?:the |our )?${KINDS} (?:[\p{L}-]+ )?${TESTS_NOUN}|${KINDS} (?:[\p{L}-]+ )?(?:outcomes|analyses|comparisons|tests|t-tests|endpoints|measures|hypotheses|contrasts)|in (?:Study|Experiment|Sample|Phase|Cohort|Trial|Part) (?:\d+|[IVX]+|[A-Z])|(?:except(?: for)?|with the exception of|apart from|other than) (?:the |a |an |one |two |three |our )?(?:[\p{L}-]+ ){0,3}${TESTS_NOUN}|(?:where|when|if) (?:a |the )?direction (?:was|were|is|are|had been) (?:predicted|specified|stated|expected|hypothesi[sz]ed)|${TESTS_NOUN} (?:that|which) (?:predicted|specified|stated) a direction)(?![\p{L}])`,
+  String.raw`(?<![\p{L}])(?:only (?:for|in|when|where|if)|(?:for|in) (?:the |our )?${KINDS} (?:[\p{L}-]+ )?${TESTS_NOUN}|in (?:Study|Experiment|Sample|Phase|Cohort|Trial|Part) (?:\d+|[IVX]+|[A-Z])|(?:except(?: for)?|with the exception of|apart from|other than) (?:the |a |an |one |two |three |our )?(?:[\p{L}-]+ ){0,3}${TESTS_NOUN}|(?:where|when|if) (?:a |the )?direction (?:was|were|is|are|had been) (?:predicted|specified|stated|expected|hypothesi[sz]ed)|${TESTS_NOUN} (?:that|which) (?:predicted|specified|stated) a direction)(?![\p{L}])`,
   'iu',
 );
 /** Words of a power or sample-size calculation: its tails and alpha size the study, they do not say how its tests were run. */
@@ -102,13 +106,13 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
   });
   // What each sentence's words say, read once per sentence: a sentence of thousands of
   // statements would otherwise be searched again for each.
-  const readings = new Map<number, { planning: boolean; general: boolean; local: boolean; restricted: boolean }>();
+  const readings = new Map<number, { planning: boolean; general: boolean; local: boolean; restricted: boolean; single: boolean }>();
   const sentenceOfAt = (at: number) => {
     const i = sentenceOf(sentenceStarts, at);
     let r = readings.get(i);
     if (!r) {
       const sentence = text.slice(sentenceStarts[i] as number, sentenceStarts[i + 1] ?? text.length);
-      r = { planning: PLANNING.test(sentence), general: GENERAL_WORDS.test(sentence), local: LOCAL_ALPHA.test(sentence), restricted: RESTRICTED_SCOPE.test(sentence) };
+      r = { planning: PLANNING.test(sentence), general: GENERAL_WORDS.test(sentence), local: LOCAL_ALPHA.test(sentence), restricted: RESTRICTED_SCOPE.test(sentence) || KIND_SUBJECT.test(sentence), single: ONE_TEST.test(sentence) };
       readings.set(i, r);
     }
     return r;
@@ -120,7 +124,7 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     if (!ANALYSIS_WORD.test(near)) continue;
     const sentence = sentenceOfAt(m.index);
     const planning = sentence.planning;
-    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: !planning && sentence.general && !sentence.restricted, ...(planning ? { planning } : {}), ...(sentence.restricted ? { restricted: true as const } : {}), ...base(m.index, m.index + m[0].length) });
+    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: !planning && sentence.general && !sentence.restricted, ...(planning ? { planning } : {}), ...(sentence.restricted ? { restricted: true as const } : {}), ...(sentence.single && !sentence.general ? { single: true as const } : {}), ...base(m.index, m.index + m[0].length) });
   }
   if (/equivalen|TOST|one-sided|inferiority/i.test(text)) for (const m of matchesOf(EQUIVALENCE, text)) {
     out.push({ kind: 'equivalence', sidedness: 'one', ...base(m.index, m.index + m[0].length) });
@@ -161,7 +165,7 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
       const value = Number(m[1] ?? m[2]);
       const sentence = sentenceOfAt(m.index);
       const planning = sentence.planning;
-      if (value > 0 && value < 0.5) out.push({ kind: 'alpha', alpha: value, general: sentence.general && !sentence.local && !sentence.restricted, ...(planning ? { planning } : {}), ...(sentence.restricted ? { restricted: true as const } : {}), ...base(m.index, m.index + m[0].length) });
+      if (value > 0 && value < 0.5) out.push({ kind: 'alpha', alpha: value, general: sentence.general && !sentence.local && !sentence.restricted, ...(planning ? { planning } : {}), ...(sentence.restricted ? { restricted: true as const } : {}), ...(sentence.single && !sentence.general ? { single: true as const } : {}), ...base(m.index, m.index + m[0].length) });
     }
   }
   return out;

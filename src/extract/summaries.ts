@@ -407,7 +407,7 @@ function countOf(text: string, at: number): { start: number; end: number } | und
 }
 
 /** Words of an analysis step after "before and after" ("… adjustment for age", "… correction", "… excluding outliers"). */
-const ANALYSIS_STEP = /^ (?:the )?(?:adjust\p{L}*|correct\p{L}*|control\p{L}*|exclu\p{L}*|imputation|weighting|covariate)/iu;
+const ANALYSIS_STEP = /^ (?:the )?(?:adjustment|adjusting|correction|correcting|controlling for|exclusion|excluding|imputation|weighting)(?![\p{L}])/iu;
 
 /**
  * Whether paired words say, where they stand, that one set of units was measured twice:

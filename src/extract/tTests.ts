@@ -122,10 +122,12 @@ const P_LIST_MAX = 12;
 /**
  * A list of p values after a list of t values, each p its t's in order: `t(29) = 4.10 and
  * t(29) = 1.20, p < .001 and p = .24, respectively`, `t(38) = 2.35 and t(38) = 0.88 (p = .024 and
- * p = .38)`. The first p after the last t is not that t's alone: where as many p values are
- * listed as there are t values before them in the sentence with no p of their own, each takes
- * its p by position; where the counts differ, the listed p values are tied to none (a p tied to
- * the wrong t would be checked against it). Each report's span and printed text end at its p.
+ * p = .38)`. The first p after the last t is then not that t's alone. Only where the t values
+ * form a list themselves (joined by "and", commas or semicolons alone) or the p values are said
+ * to follow them "respectively": then, where as many p values are listed as there are t values in
+ * the list, each takes its p by position; where "respectively" says so but the counts differ, the
+ * listed p values are tied to none (a p tied to the wrong t would be checked against it). Any
+ * other p list (`p = .015, and p = .021 in the per-protocol analysis`) is left as read.
  */
 function shareListedPs(seg: Segment, out: TTestReport[], starts: number[], limits: number[]): void {
   const text = seg.text;
@@ -149,17 +151,35 @@ function shareListedPs(seg: Segment, out: TTestReport[], starts: number[], limit
       at = end;
     }
     if (ps.length < 2) continue;
-    // the t values before it in its sentence that have no p of their own
+    const respectively = RESPECTIVELY_AFTER.test(text.slice(at, Math.min(limit, at + 20)));
+    // the t values before it in its sentence with no p of their own, as many at most as there are
+    // p values, that form a list with it (or any, where "respectively" follows)
     let j = i;
-    while (j > 0 && (out[j - 1] as TTestReport).sentence === last.sentence && (out[j - 1] as TTestReport).p === undefined) j -= 1;
+    while (j > 0 && i - j < ps.length && (out[j - 1] as TTestReport).sentence === last.sentence && (out[j - 1] as TTestReport).p === undefined && (out[j - 1] as TTestReport).listedPs === undefined) {
+      if (!respectively && !joinsTValues(text.slice(indexOfSpanEnd(seg, out[j - 1] as TTestReport), starts[j] as number))) break;
+      j -= 1;
+    }
     const listed = out.slice(j, i + 1);
-    if (listed.length === ps.length) listed.forEach((r, k) => endAt(seg, r, starts[j + k] as number, ps[k] as ReportedP));
-    else {
+    if (listed.length === ps.length && (respectively || listed.length > 1)) {
+      listed.forEach((r, k) => {
+        if (r === last) endAt(seg, r, starts[j + k] as number, ps[k] as ReportedP);
+        else r.p = ps[k] as ReportedP;
+      });
+    } else if (respectively) {
       const from = indexOfSpanEnd(seg, first) - first.printed.length;
       last.listedPs = { span: sourceSpan(seg, from, at), printed: text.slice(from, at), count: ps.length, tests: listed.length };
       endAt(seg, last, starts[i] as number, undefined);
     }
   }
+}
+
+/** "respectively" right after a list of p values (a comma or bracket between). */
+const RESPECTIVELY_AFTER = /^[,;)\s]{0,3}respectively(?![\p{L}])/iu;
+/** What joins two t values of one list: "and", a comma or a semicolon, nothing more. */
+function joinsTValues(between: string): boolean {
+  let words = '';
+  for (const c of between) if (c !== ',' && c !== ';' && c.trim() !== '') words += c;
+  return words === '' || words === 'and' || words === '&';
 }
 
 /** A report given the p `p` (or none), its span and printed text ending at that p (or at its t and df). */

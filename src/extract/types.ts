@@ -68,6 +68,8 @@ export interface ContextStatement {
    * of the results of its own sentence only, and of no other that can be told.
    */
   restricted?: true;
+  /** For `sidedness` and `alpha`: said of one test ("the hypothesis was tested one-tailed"), in no words about every test. */
+  single?: true;
   /** For `multiplicity`: the correction named, and the number of comparisons when printed. */
   method?: AdjustMethod;
   comparisons?: number;

@@ -723,17 +723,37 @@ const saidIn = (design: Setting<Design>, statement: DesignStatement): Setting<De
 function unlessUnequal(design: Setting<Design>, link: DescriptiveLink | undefined, groupSizes: readonly ReportedNumber[] | undefined, sampleSizes: SegmentList<SampleSize>, report: TTestReport): Setting<Design> {
   if (design.value !== 'paired' || design.basis === 'in-report') return design;
   // the two groups' sizes: with their descriptives, printed together, or the two sizes of its own sentence ("(n = 26) … (n = 26)")
-  const own = link ? [] : sampleSizes.inSentence(report.segment, report.sentence).filter((x) => x.scope !== 'total' && x.scope !== 'subset');
+  const own = link ? [] : groupScoped(sampleSizes.inSentence(report.segment, report.sentence));
   const ns = link?.groups.length === 2 && link.groups.every((g) => g.n) ? link.groups.map((g) => g.n?.value as number) : groupSizes?.length === 2 ? groupSizes.map((g) => g.value) : own.length === 2 ? own.map((x) => x.n.value) : undefined;
   if (!ns) return design;
   const [a, b] = ns as [number, number];
   if (a !== b) return { value: 'unknown', basis: 'default' };
   const source = designSources.get(design);
   if (source) {
-    const counted = sampleSizes.inSentence(source.segment, source.sentence).filter((x) => x.scope === 'total' || x.scope === 'unspecified').map((x) => x.n.value);
-    if (counted.includes(a + b) && !counted.includes(a)) return { value: 'unknown', basis: 'default' };
+    const counted = countedIn(sampleSizes.inSentence(source.segment, source.sentence));
+    if (counted.has(a + b) && !counted.has(a)) return { value: 'unknown', basis: 'default' };
   }
   return design;
+}
+
+/** A sentence's sizes that may be a group's, and the totals it counts, each read once per sentence (its shared list): a sentence of thousands of results stays linear. */
+const groupScopedOf = new WeakMap<readonly SampleSize[], SampleSize[]>();
+const countedOf = new WeakMap<readonly SampleSize[], Set<number>>();
+function groupScoped(list: readonly SampleSize[]): SampleSize[] {
+  let own = groupScopedOf.get(list);
+  if (!own) {
+    own = list.filter((x) => x.scope !== 'total' && x.scope !== 'subset');
+    groupScopedOf.set(list, own);
+  }
+  return own;
+}
+function countedIn(list: readonly SampleSize[]): Set<number> {
+  let counted = countedOf.get(list);
+  if (!counted) {
+    counted = new Set(list.filter((x) => x.scope === 'total' || x.scope === 'unspecified').map((x) => x.n.value));
+    countedOf.set(list, counted);
+  }
+  return counted;
 }
 
 /** Structure, when nothing beside the result says the design: one group is one-sample (or differences). */

@@ -38,9 +38,9 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const statementsBySegment = groupBy(extraction.statements, (s) => s.segment);
   const testsBySegment = groupBy(extraction.tests, (t) => t.segment);
   // Statements their paragraph's results do not take: a power calculation's, one limited to some
-  // tests, or one about a single test ("the hypothesis was tested one-tailed") in a paragraph
-  // that reports several (which of them it is cannot be told).
-  const apart = (s: ContextStatement) => s.planning === true || s.restricted === true || (s.general !== true && (testsBySegment.get(s.segment)?.length ?? 0) > 1);
+  // tests, or one that names a single test ("the hypothesis was tested one-tailed") in a paragraph
+  // that reports several (which of them it is cannot be told); "We tested one-tailed" names none.
+  const apart = (s: ContextStatement) => s.planning === true || s.restricted === true || (s.single === true && (testsBySegment.get(s.segment)?.length ?? 0) > 1);
   // The statements of each paragraph's sentences that report no test (computed once per segment).
   // and the tails and alpha they agree on
   const paragraphStatements = new Map<number, ParagraphReading>();

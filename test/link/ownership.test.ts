@@ -373,3 +373,17 @@ describe('numbers between two tests of a sentence (invented cases, probing)', ()
     expect(r.results[1]?.context.effectSizes.map((e) => e.certain)).toEqual([false, false]);
   });
 });
+
+describe('second review of the scope fixes (invented cases)', () => {
+  // t(30) = 1.80: two-tailed .0818, one-tailed .0409 (scipy.stats.t.sf)
+  it('a kind of test named in another clause does not limit a statement about every test', () => {
+    const r = run('All tests were one-tailed; primary outcomes are listed in Table 1.\n\nFatigue fell, t(30) = 1.80, p = .082.');
+    expect(r.results[0]?.sidedness).toMatchObject({ value: 'one', basis: 'document-text' });
+  });
+  it('a paragraph statement that names no single test applies to all its results', () => {
+    const r = run('We tested one-tailed. Fatigue fell, t(30) = 1.80, p = .082. Sleep did not change, t(30) = 0.95, p = .35.');
+    expect(r.results.map((x) => x.sidedness.basis)).toEqual(['paragraph', 'paragraph']);
+    const a = run('Differences with p < .01 were deemed significant. Fatigue fell, t(30) = 2.30, p < .01. Sleep did not change, t(30) = 0.95, p = .35.');
+    expect(a.results.map((x) => x.alpha.value)).toEqual([0.01, 0.01]);
+  });
+});

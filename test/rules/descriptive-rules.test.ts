@@ -206,3 +206,23 @@ describe('"±" said to stand for neither an SD nor an SE (invented cases, probin
     expect(levels('Recovery was higher after immersion (17.3 ± 1.86, n = 22) than after rest (14.1 ± 2.09, n = 21), t(41) = 2.38, p = .022 (mean ± SD).')).toEqual(['warning']);
   });
 });
+
+describe('second review of the probing fixes (invented cases): words that only look like the new cues', () => {
+  const of = (markdown: string, rule: string) => checkSource('x.md', `${markdown}\n`).findings.filter((f) => f.ruleId === rule).map((f) => f.level);
+  // power at d = 0.5, two-sided α = .05 (scipy.stats.nct): 40 per group .598, 64 .802, 71 .841
+  it('a weight loss is no attrition, and a withdrawal outcome no allowance: the power statement is still checked', () => {
+    expect(of('Participants lost weight; a 10% weight loss was the outcome. With 64 participants per group the trial had 80% power to detect d = 0.5 at a two-sided alpha of .05.', 'power-statement-follows')).toEqual([]);
+    expect(of('The outcome was withdrawal symptoms. With 40 participants per group the trial had 80% power to detect d = 0.5 at a two-sided alpha of .05.', 'power-statement-follows')).toEqual(['warning']);
+  });
+  it('the printed n may be the one needed before the loss', () => {
+    expect(of('64 participants per group give 80% power to detect d = 0.5 at a two-sided alpha of .05; allowing for 20% attrition, we will recruit 80 per group.', 'power-statement-follows')).toEqual([]);
+  });
+  it('a mean across people is no mean over occasions, and a response rate no rate of the measure', () => {
+    // 2.39 × 19 = 45.41: no whole number of errors gives it (above)
+    expect(of('Each nurse reported the number of errors as a whole-number count; averaged across nurses, errors were M = 2.39 (SD = 1.10, n = 19).', 'mean-is-possible-for-integers')).toEqual(['warning']);
+    expect(of('The number of reminders was recorded, with a response rate of 95%: M = 2.39 (SD = 1.10, n = 19).', 'mean-is-possible-for-integers')).toEqual(['warning']);
+  });
+  it('"before and after corrective surgery" is two measurements', () => {
+    expect(of('All 30 patients were assessed before and after corrective surgery. Pain fell after surgery (n = 30), t(58) = 2.34, p = .023.', 'design-matches-analysis')).toEqual(['warning']);
+  });
+});
