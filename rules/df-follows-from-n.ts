@@ -1,4 +1,4 @@
-import { dfInterval, fill, inferDesign, numberInterval, showInterval, showNumber, type DfFigure, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts, type LinkedResult, isWholeDf, type ReportedNumber } from '../src/rule-api/index.js';
+import { dfInterval, fill, inferDesign, numberInterval, showInterval, showNumber, type DfFigure, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts, type LinkedResult, isWholeDf, type ReportedNumber, welchDfInterval } from '../src/rule-api/index.js';
 import { welchDfRange, type Interval } from '../src/stats/index.js';
 
 const messages = {
@@ -128,14 +128,12 @@ function welchFromSpreads(link: DescriptiveLink, n1: number, n2: number): WelchF
 }
 
 /**
- * A whole df read as a Welch df printed whole: rounded (df − 0.5 to df + 0.5) or cut to its whole
- * part (df to df + 1), so df − 0.5 to df + 1, never below 1 (common practice, no source). It fits
- * when the Welch–Satterthwaite df from the spreads (any reading) reaches that span, or, without
- * spreads, when Welch's range min(n1, n2) − 1 to n1 + n2 − 2 does.
+ * A whole df read as a Welch df printed whole, rounded or cut (welchDfInterval: df − 0.5 to df + 1).
+ * It fits when the Welch–Satterthwaite df from the spreads (any reading) reaches that span, or,
+ * without spreads, when Welch's range min(n1, n2) − 1 to n1 + n2 − 2 does.
  */
 function wholeWelch(df: number, n1: number, n2: number, sds?: WelchFromSpreads): { fits: boolean; by: 'sds' | 'range'; low: number; high: number; welch: Interval; bothReadings?: true } {
-  const low = Math.max(df - 0.5, 1);
-  const high = df + 1;
+  const [low, high] = welchDfInterval(df);
   const reaches = (x: Interval) => x.high >= low && x.low < high;
   if (sds) {
     const welch = { low: Math.min(...sds.ranges.map((x) => x.low)), high: Math.max(...sds.ranges.map((x) => x.high)) };
@@ -171,7 +169,7 @@ function welchSdsFinding(df: ReportedNumber, link: DescriptiveLink, sds: WelchFr
   return {
     messageId: 'welch-sds',
     message: fill(messages['welch-sds'], { df: df.printed, inputs: sds.inputs.join('; '), expected: showInterval(range.low, range.high) }),
-    recomputed: { quantity: 'Welch–Satterthwaite df', low: range.low, high: range.high, inputs: [...sds.inputs], assumptions: [readings.length > 1 ? 'spreads read as SDs, and as SEs' : readings[0] ? 'spreads are SEs, as labelled (SD = SE·√n)' : 'spreads are SDs, as labelled', ...(isWholeDf(df) ? [`Welch's test, as its words say: the whole df read as rounded or cut (${showNumber(Math.max(df.value - 0.5, 1))} to ${showNumber(df.value + 1)})`] : [])] },
+    recomputed: { quantity: 'Welch–Satterthwaite df', low: range.low, high: range.high, inputs: [...sds.inputs], assumptions: [readings.length > 1 ? 'spreads read as SDs, and as SEs' : readings[0] ? 'spreads are SEs, as labelled (SD = SE·√n)' : 'spreads are SDs, as labelled', ...(isWholeDf(df) ? [`Welch's test, as its words say: the whole df read as rounded or cut (${welchDfInterval(df.value).map(showNumber).join(' to ')})`] : [])] },
     check: 'Check the df, the SDs and the group sizes against the output.',
     figure: dfFigure(df, ranges.map((x, k) => ({ label: readings.length > 1 ? `Welch–Satterthwaite, ${readings[k] ? 'as SEs' : 'as SDs'}` : 'Welch–Satterthwaite', low: x.low, high: x.high }))),
   };

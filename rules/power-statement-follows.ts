@@ -47,6 +47,7 @@ export const powerStatementFollows: Rule = {
         return hi >= pLow && lo <= pHigh;
       });
       if (fits || !Number.isFinite(required)) continue;
+      // the first candidate is the printed n as read, before any loss allowed for
       const n = candidates[0] as number;
       const achieved = tTestPower(st.design, Math.floor(n), d, alpha, sides);
       out.push({
@@ -63,7 +64,6 @@ export const powerStatementFollows: Rule = {
           unit: st.design === 'two-sample' ? 'per group' : st.design === 'paired' ? 'pairs' : 'participants',
           target: `${Math.round(target * 1000) / 10}%`,
           n: `${Math.floor(n)}${st.design === 'two-sample' ? ' per group' : ''}`,
-          // (the first candidate is the printed n as read, before any loss allowed for)
           achieved: showNumber(achieved),
         }),
         reported: st.printed,

@@ -65,11 +65,6 @@ const POSSESSIVE = /^\p{L}[\p{L}-]*['’]s?$/u;
 const GENERIC_HEAD = /^(?:score|rating|value|outcome|response|result|total|answer|mark|number|count|reading)$/u;
 
 /**
- * Measures the text declares whole-number, one record per declaring sentence, with the
- * measure's name when the sentence says it (its subject, or the thing counted), so that the
- * declaration can be tied by name to the results that report that measure.
- */
-/**
  * Words that make a value per unit a rate or an average, not a whole number. A rate ("per hour",
  * "per 100 discharges") undoes only a count the sentence implies ("the number of
  * interruptions per hour"), not one it calls whole-number ("errors per shift were recorded as
@@ -80,6 +75,11 @@ const GENERIC_HEAD = /^(?:score|rating|value|outcome|response|result|total|answe
 const RATE = /(?<![\p{L}])per (?:\d{2,6} |hundred |thousand )?(?:hours?|minutes?|days?|weeks?|months?|years?|shifts?|rounds?|visits?|sessions?|trials?|blocks?|admissions?|discharges?|patient-days?|bed-days?)(?![\p{L}])|(?<![\p{L}\p{N}])per (?:\d{2,6}|hundred|thousand)(?![\p{L}\p{N}])/iu;
 const AVERAGED = /(?<![\p{L}])(?:averag(?:ed|ing|es?)|mean) (?:over|across) (?:the |all |both |each |(?:\d{1,3}|two|three|four|five|six|seven|eight|nine|ten) )*(?:rounds?|visits?|sessions?|days?|weeks?|months?|trials?|blocks?|occasions?|time ?points?|measurements?|assessments?|shifts?|repetitions?|tasks?|days)(?![\p{L}])/iu;
 
+/**
+ * Measures the text declares whole-number, one record per declaring sentence, with the
+ * measure's name when the sentence says it (its subject, or the thing counted), so that the
+ * declaration can be tied by name to the results that report that measure.
+ */
 export function findIntegerMeasures(seg: Segment, starts: number[]): IntegerStatement[] {
   const text = seg.text;
   if (!/integer|whole|item|count|number|tall|logged|coded/i.test(text)) return [];

@@ -14,7 +14,7 @@ const TOTAL = /(?<![\p{L}])(?:total (?:sample )?(?:size )?(?:of |N ?= ?|n ?= ?)?
 /** "22 shift workers give 90% power": the number before the verb that gives the power, whatever its noun. */
 const GIVES_POWER = /(?<![\p{L}\p{N}.,])(\d{1,3}(?:,\d{3})?|\d{1,7}) (?:\p{L}{2,20} ){1,2}(?:give|gives|gave|provide|provides|provided|yield|yields|yielded|would give|would provide)(?![\p{L}])/du;
 const PEOPLE = new RegExp(String.raw`(?<![\p{L}\p{N}.,])(\d{1,3}(?:,\d{3})?|\d{1,7}) ${UNITS}(?![\p{L}])`, 'du');
-/** Words right before a power value that make it a bound ("more than 80% power", "at least 80%", "power of at least .80"). */
+/** Words right before a power value that make it a bound ("more than 80% power", "at least 80%"). */
 const AT_LEAST_BEFORE = /(?<![\p{L}])(?:more than|at least|over|above|greater than|in excess of|exceeding|no less than|>|≥|>=) ?$/iu;
 /** A loss the n allows for ("allowing for 20% attrition", "a 15% drop-out rate", "inflated for loss to follow-up"). */
 const LOSS = /(?<![\p{L}])(?:allow(?:ing|ed|s)?|account(?:ing|ed|s)? for|inflat\p{L}*|adjust(?:ing|ed)? for|anticipat\p{L}*|expect(?:ing|ed)?|assum(?:ing|ed)?)(?: [\p{L}\p{N}%.-]+){0,4} (?:attrition|drop-?outs?|drop-?out rate|loss to follow-?up|withdrawals?|non-?response)(?![\p{L}])/iu;
@@ -56,7 +56,7 @@ export function findPowerStatements(seg: Segment, starts: number[]): PowerStatem
     const alpha = ALPHA.exec(sentence);
     const sides = SIDES.exec(sentence);
     const design = PAIRED.test(sentence) ? 'paired' : ONE_SAMPLE.test(sentence) ? 'one-sample' : 'two-sample';
-    const atLeast = AT_LEAST_BEFORE.test(sentence.slice(Math.max(0, pv.index - 16), pv.index)) || (pv[2] !== undefined && /(?:at least|more than|over|above) $/iu.test(sentence.slice(Math.max(0, pv.index + pv[0].length - (pv[2] as string).length - 16), pv.index + pv[0].length - (pv[2] as string).length)));
+    const atLeast = AT_LEAST_BEFORE.test(sentence.slice(Math.max(0, pv.index - 16), pv.index));
     const lossRate = LOSS_RATE.exec(sentence);
     // a loss allowed for in the calculation, at its rate where the words give one ("allowing for 20% attrition")
     const allowed = LOSS.test(sentence);

@@ -615,15 +615,15 @@ export function spreadStatements(x: Extraction): SpreadStatements {
   return { kindFor: (g) => bySentence.get(sentenceKey(g)) ?? bySegment.get(g.segment) ?? agreed };
 }
 
+/** How far before a test's statistic (source characters) the words that name it stand ("paired t(29)", "a paired-samples t-test gave t(29)"). */
+const NAME_REACH = 40;
+
 /**
  * The design as the words beside the result say it: the test named with the statistic
  * ("paired t(22)", "Welch's t"), design words in its clause, in its sentence, then in the
  * sentences of its paragraph that report no test (when they agree). Undefined when none do:
  * then structure (one group), the Methods' design, or unknown.
  */
-/** How far before a test's statistic (source characters) the words that name it stand ("paired t(29)", "a paired-samples t-test gave t(29)"). */
-const NAME_REACH = 40;
-
 function designFor(report: TTestReport, clause: Clause, clauses: ClauseIndex, designs: SegmentList<DesignStatement>, tests: SegmentList<TTestReport>, memo: Tables['memo']): Setting<Design> | undefined {
   const named = report.namedVariant;
   if (named === 'paired') return { value: 'paired', basis: 'in-report' };

@@ -48,10 +48,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     let reading = paragraphStatements.get(segment);
     if (!reading) {
       const withTests = new Set((testsBySegment.get(segment) ?? []).map((t) => t.sentence));
-      // A power or sample-size calculation's tails and alpha size the study; they are not the tests'.
-      // A statement limited to some tests ("for the secondary outcomes") is not its paragraph's,
-      // nor one about a single test ("The hypothesis was tested one-tailed") where the paragraph
-      // reports several.
+      // a power calculation's tails and alpha size the study, and other statements stand `apart` (above)
       const list = (statementsBySegment.get(segment) ?? []).filter((s) => !withTests.has(s.sentence) && !apart(s));
       const sided = agreeing(list.filter((s) => s.kind === 'sidedness'), (s) => s.sidedness as Sidedness, 'paragraph');
       const alpha = agreeing(list.filter((s) => s.kind === 'alpha'), (s) => s.alpha as number, 'paragraph');

@@ -1,7 +1,7 @@
 export type * from './types.js';
 export { fill, showBound, showInterval, showLastDigitUnits, showNumber } from './format.js';
 export { NO_OPTIONS } from './types.js';
-export { describeDf, describeResultDf, describeT, dfInterval, isWholeDf, numberInterval, pInterval, pLastDigit, resultDfInterval, tInterval } from './intervals.js';
+export { describeDf, describeResultDf, describeT, dfInterval, isWholeDf, numberInterval, pInterval, pLastDigit, resultDfInterval, tInterval, welchDfInterval } from './intervals.js';
 export { describeTails, evaluateP, notRecomputed, DF_RECOMPUTED_BELOW, showRange, type PEvaluation, type PStanding, adjustmentDoubt, pDoubts, resampledDoubt } from './evaluate.js';
 export { pMessageId, pPlaceholders } from './pMessages.js';
 export { describeAttempt, evaluateDescriptives, inferDesign, spreadReadings, type Attempt, type DescriptiveEvaluation, type Reading, type Variant } from './descriptives.js';
