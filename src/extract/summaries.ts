@@ -37,6 +37,15 @@ const PER_GROUP_BEFORE = /(?<![\p{L}])(?:groups|arms) of $/u;
 const SUBSET_AFTER = /^,? (?:of|among) (?:whom|them|those|these|each|both)(?![\p{L}])/u;
 /** "in the usual-routine group", "for the walking arm" right after a group's numbers. */
 const LABEL_AFTER = /^,? (?:in|for|among|from|of) (?:the |all )?(\p{L}[\p{L}\p{N}-]{0,30}(?: \p{L}[\p{L}\p{N}-]{0,30}){0,3})/u;
+/**
+ * An occasion of measurement ("baseline", "week 8", "pre-test", "follow-up", "T2"), as the words
+ * that end a group's label say it ("pain fell from baseline (M = …) to week 8 (M = …)") or as
+ * the words right after its numbers do ("18.2 (5.1) at baseline"). Only at that edge: an
+ * occasion further off ("at week 8 the yoga group (M = …)") may be the whole sentence's.
+ */
+const OCCASION_WORDS = String.raw`(?:baseline|pre-?(?:test|treatment|intervention|operative(?:ly)?|training)?|post-?(?:test|treatment|intervention|operative(?:ly)?|training)?|follow-?up|admission|discharge|(?:week|month|day|year|visit|session|wave|time) ?\d{1,3}|T\d{1,2}|(?:\d{1,3}|one|two|three|four|six|nine|twelve)[- ](?:weeks?|months?|years?|days?)(?: follow-?up)?)`;
+const OCCASION_END = new RegExp(String.raw`(?<![\p{L}\p{N}-])(${OCCASION_WORDS})$`, 'iu');
+const OCCASION_AFTER = new RegExp(String.raw`^,? (?:at|on|in|after|by) (?:the )?(${OCCASION_WORDS})(?![\p{L}\p{N}-])`, 'iu');
 /** A bare number (and %) up to 20 characters before the `(` of a lone spread: its mean. */
 const BARE_MEAN = /(?<![\p{L}\p{N}.,])([-+]?\d{1,9}(?:\.\d{1,9})?)( ?%)?[^\d()]{0,20}\($/u;
 /** A decimal number, then only words (its unit and a short phrase), before the `(` of a lone spread. */
@@ -510,6 +519,7 @@ function toSummary(seg: Segment, tokens: Token[], sentenceStarts: number[]): Gro
   const label = labelText.split(/[;)]|, |\. /).pop()?.trim();
   // "7.34 (1.97) in the usual-routine group vs …": whose the numbers are, said after them
   const after = LABEL_AFTER.exec(seg.text.slice(end, end + 60))?.[1];
+  const occasion = occasionOf(label, seg.text.slice(end, end + 40));
   return {
     id: `${seg.id}:${first.start}`,
     segment: seg.id,
@@ -522,8 +532,15 @@ function toSummary(seg: Segment, tokens: Token[], sentenceStarts: number[]): Gro
     ...(nTok?.a ? { n: nTok.a } : {}),
     ...(label ? { label } : {}),
     ...(after ? { labelAfter: after } : {}),
+    ...(occasion ? { occasion } : {}),
     percent: tokens.some((t) => t.percent),
   };
+}
+
+/** The occasion a group's numbers were measured on, said right after them or at the end of its label: lower case, no hyphen or space ("week8", "posttest"). */
+function occasionOf(label: string | undefined, following: string): string | undefined {
+  const said = OCCASION_AFTER.exec(following)?.[1] ?? (label ? OCCASION_END.exec(label)?.[1] : undefined);
+  return said?.toLowerCase().replace(/[- ]/g, '');
 }
 
 /** Whether each segment's source map runs in source order (checked once per segment). */

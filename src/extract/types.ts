@@ -328,6 +328,12 @@ export interface GroupSummary {
   label?: string;
   /** The words right after the descriptives when they say whose they are: "in the usual-routine group". */
   labelAfter?: string;
+  /**
+   * The occasion the numbers were measured on, when the words at the label's end or right
+   * after the numbers name one ("from baseline (M = …)", "… (4.8) at week 8"): lower case, without
+   * hyphens and spaces ("baseline", "week8", "posttest").
+   */
+  occasion?: string;
   /** The numbers were printed as percentages (`59.1% ± 9.1%`). */
   percent: boolean;
   /** For table rows: which table and row. */

@@ -399,7 +399,7 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
   // no literal opening with a spread: V8 would give each context a hidden class of its own (DEVELOPERS.md, Speed)
   return {
     // one group of descriptives is a one-sample test (or differences) before the Methods' design
-    design: unlessUnequal(designFor(report, clause, clauses, n.designs, n.tests, t.memo) ?? againstValue ?? (link?.groups.length === 1 ? oneGroup : undefined) ?? assignedGroups(link, t.assignments) ?? t.methodsDesign ?? { value: 'unknown', basis: 'default' }, link, groupSizes, n.sampleSizes, report),
+    design: unlessOccasions(unlessUnequal(designFor(report, clause, clauses, n.designs, n.tests, t.memo) ?? againstValue ?? (link?.groups.length === 1 ? oneGroup : undefined) ?? assignedGroups(link, t.assignments) ?? t.methodsDesign ?? { value: 'unknown', basis: 'default' }, link, groupSizes, n.sampleSizes, report), link),
     ...(link ? { descriptives: link } : {}),
     ...(unlinked ? { unlinked } : {}),
     ...(groupSizes ? { groupSizes } : {}),
@@ -734,6 +734,20 @@ function unlessUnequal(design: Setting<Design>, link: DescriptiveLink | undefine
     if (counted.has(a + b) && !counted.has(a)) return { value: 'unknown', basis: 'default' };
   }
   return design;
+}
+
+/**
+ * Independent groups read from words (not from the test's own name, "Welch's t") do not hold
+ * for a result whose two groups are, one each, two occasions of measurement: "In the yoga arm,
+ * pain fell from baseline (M = …) to week 8 (M = …), t(29) = …" compares one arm with itself,
+ * whatever the Methods say of the trial ("randomised to yoga or usual care"). The words are
+ * about another comparison, so the design is not certain: unknown. The same occasion on both
+ * sides ("the yoga arm at week 8 (…) and usual care at week 8 (…)") changes nothing.
+ */
+function unlessOccasions(design: Setting<Design>, link: DescriptiveLink | undefined): Setting<Design> {
+  if (design.value !== 'independent' || design.basis === 'in-report' || link?.groups.length !== 2) return design;
+  const [a, b] = link.groups.map((g) => g.occasion);
+  return a !== undefined && b !== undefined && a !== b ? { value: 'unknown', basis: 'default' } : design;
 }
 
 /** A sentence's sizes that may be a group's, and the totals it counts, each read once per sentence (its shared list): a sentence of thousands of results stays linear. */

@@ -387,3 +387,36 @@ describe('second review of the scope fixes (invented cases)', () => {
     expect(a.results.map((x) => x.alpha.value)).toEqual([0.01, 0.01]);
   });
 });
+
+describe('a comparison of two occasions is not the Methods\' comparison of arms (invented cases, probing)', () => {
+  // Methods: a two-arm trial. Results: one arm against itself, baseline to week 8.
+  const trial = '## Methods\n\nSixty inpatients were randomised to yoga (n = 30) or usual care (n = 30).\n\n## Results\n\n';
+  // t(29) = 2.93: two-sided p = .0065 (scipy.stats.t.sf(2.93, 29) * 2); a paired t of 2.93 from these
+  // means and SDs needs a correlation of some .83 between the occasions, which is possible
+  it('groups labelled by two occasions, before their numbers or right after them, leave the design unknown', () => {
+    for (const text of [
+      'In the yoga arm, pain fell from baseline (M = 18.2, SD = 5.1) to week 8 (M = 15.6, SD = 4.8), t(29) = 2.93, p = .007.',
+      'In the yoga arm, pain fell from M = 18.2 (SD = 5.1) at baseline to M = 15.6 (SD = 4.8) at week 8, t(29) = 2.93, p = .007.',
+      'Among the 30 yoga patients, pain scores went from admission (M = 18.2, SD = 5.1) to discharge (M = 15.6, SD = 4.8), t(29) = 2.93, p = .007.',
+    ]) {
+      const r = run(`${trial}${text}`);
+      expect(r.results[0]?.context.descriptives?.groups.length).toBe(2);
+      expect(r.results[0]?.context.design.value).toBe('unknown');
+      expect(warnings(r)).toEqual([]);
+    }
+    // words of repeated measurement in its own sentence make it paired, as before
+    const words = run(`${trial}Among the 30 yoga patients, pain scores went from pre-test (M = 18.2, SD = 5.1) to post-test (M = 15.6, SD = 4.8), t(29) = 2.93, p = .007.`);
+    expect(words.results[0]?.context.design).toMatchObject({ value: 'paired', basis: 'sentence' });
+    expect(warnings(words)).toEqual([]);
+  });
+  it('a t that no correlation between the occasions gives is still a warning', () => {
+    const r = run(`${trial}In the yoga arm, pain fell from baseline (M = 18.2, SD = 5.1) to week 8 (M = 15.6, SD = 4.8), t(29) = 100.00, p < .001.`);
+    expect(warnings(r)).toEqual(['t-follows-from-descriptives/mismatch@t(29) = 100.00, p < .001']);
+  });
+  it('the same occasion on both sides is a comparison of the arms: the Methods\' design holds', () => {
+    // Student t for (15.6, 4.8, 30) against (18.2, 5.1, 30): −2.03, p = .047 (scipy.stats.ttest_ind_from_stats)
+    const r = run(`${trial}Pain was lower in the yoga arm at week 8 (M = 15.6, SD = 4.8) than in usual care at week 8 (M = 18.2, SD = 5.1), t(58) = 2.93, p = .005.`);
+    expect(r.results[0]?.context.design).toMatchObject({ value: 'independent', basis: 'methods' });
+    expect(warnings(r)).toEqual(['t-follows-from-descriptives/mismatch@t(58) = 2.93, p = .005']);
+  });
+});
