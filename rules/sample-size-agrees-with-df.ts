@@ -42,11 +42,14 @@ export const sampleSizeAgreesWithDf: Rule = {
     const within = implied.filter((i) => i.ns.some((n) => n <= N));
     if (within.length === 0 || within.length * 2 < implied.length) return [];
     // The text may describe, elsewhere, the samples the tests do use (a second study, a
-    // subsample, those who returned a questionnaire): when each test's number is one of them,
-    // the N is about something else. The group sizes printed with the tests themselves
-    // describe no other sample.
+    // subsample, those who returned a questionnaire, the wards of a trial whose ward means are
+    // compared): when each test's number is one of them, the N is about something else. Any
+    // count of people or units, in digits or words ("Twelve wards … N = 240 patients"), may be
+    // it. The group sizes printed with the tests themselves describe no other sample.
     const withTests = new Set(document.results.map((r) => `${r.report.segment}:${r.report.sentence}`));
-    const statedElsewhere = new Set(x.sampleSizes.filter((s) => s !== stated && !withTests.has(`${s.segment}:${s.sentence}`)).map((s) => s.n.value));
+    const elsewhere = <T extends { segment: number; sentence: number }>(s: T) => !withTests.has(`${s.segment}:${s.sentence}`);
+    const statedElsewhere = new Set(x.sampleSizes.filter((s) => s !== stated && elsewhere(s)).map((s) => s.n.value));
+    for (const c of x.unitCounts) if (elsewhere(c) && c.span.start !== stated.n.span.start) statedElsewhere.add(c.value);
     if (within.every((i) => i.ns.some((n) => statedElsewhere.has(n)))) return [];
     // a loop, not Math.max(...): one entry per test, and a document may report tens of thousands
     let largest = -Infinity;

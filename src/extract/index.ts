@@ -31,6 +31,7 @@ interface SegmentFinds {
   statements: Extraction['statements'];
   summaries: Extraction['summaries'];
   sampleSizes: Extraction['sampleSizes'];
+  unitCounts: Extraction['unitCounts'];
   groupSizes: Extraction['groupSizes'];
   intervals: Extraction['intervals'];
   estimates: Extraction['estimates'];
@@ -88,7 +89,7 @@ export const NUMBERS_ONLY = /^[0-9 .,+-]*$/;
 
 /** What findInSegment gives a numbers-only text: nothing (shared, frozen: the lists are only read). */
 const NOTHING: SegmentFinds = Object.freeze({
-  legend: undefined, tests: [], otherStatistics: [], tableDimensions: [], statements: [], summaries: [], sampleSizes: [], groupSizes: [], intervals: [], estimates: [], effectSizes: [],
+  legend: undefined, tests: [], otherStatistics: [], tableDimensions: [], statements: [], summaries: [], sampleSizes: [], unitCounts: [], groupSizes: [], intervals: [], estimates: [], effectSizes: [],
   designs: [], assignments: [], references: [], integerMeasures: [], counts: [], powerStatements: [], mentions: [], pWithoutT: [],
 } satisfies SegmentFinds);
 for (const list of Object.values(NOTHING)) if (Array.isArray(list)) Object.freeze(list);
@@ -106,7 +107,7 @@ export function recogniseSegment(seg: Segment, source: string): SegmentFinds {
   if (seg.kind !== 'code') for (const test of tests) if (!test.inCode && test.t.value < 0 && source[test.t.span.start] === '-') test.t.hyphenMinus = true;
   if (seg.kind === 'code') {
     return {
-      legend, tests, otherStatistics: [], tableDimensions: [], statements: [], summaries: [], sampleSizes: [], groupSizes: [], intervals: [], estimates: [], effectSizes: [],
+      legend, tests, otherStatistics: [], tableDimensions: [], statements: [], summaries: [], sampleSizes: [], unitCounts: [], groupSizes: [], intervals: [], estimates: [], effectSizes: [],
       designs: [], assignments: [], references: [], integerMeasures: [], counts: [], powerStatements: [], mentions: findSoftwareHeaders(seg, starts), pWithoutT: [],
     };
   }
@@ -126,6 +127,7 @@ export function recogniseSegment(seg: Segment, source: string): SegmentFinds {
     statements,
     summaries: found.summaries,
     sampleSizes: found.sampleSizes,
+    unitCounts: found.unitCounts,
     groupSizes: found.groupSizes,
     intervals: found.intervals,
     estimates: found.estimates,
@@ -156,6 +158,7 @@ export function extract(doc: ParsedDocument, cache?: ExtractionCache): Extractio
     pWithoutT: [],
     summaries: [],
     sampleSizes: [],
+    unitCounts: [],
     groupSizes: [],
     intervals: [],
     estimates: [],
@@ -191,6 +194,7 @@ export function extract(doc: ParsedDocument, cache?: ExtractionCache): Extractio
     append(out.statements, finds.statements);
     append(out.summaries, finds.summaries);
     append(out.sampleSizes, finds.sampleSizes);
+    append(out.unitCounts, finds.unitCounts);
     append(out.groupSizes, finds.groupSizes);
     append(out.intervals, finds.intervals);
     append(out.estimates, finds.estimates);

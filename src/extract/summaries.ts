@@ -4,6 +4,7 @@ import { topicStems } from './topic.js';
 import { ORDER_WORDS } from './assignments.js';
 import { UNITS, unitKind } from './units.js';
 import type {
+  UnitCount,
   CountPercent,
   DesignStatement,
   EffectSizeReport,
@@ -51,6 +52,21 @@ const BARE_MEAN = /(?<![\p{L}\p{N}.,])([-+]?\d{1,9}(?:\.\d{1,9})?)( ?%)?[^\d()]{
 /** A decimal number, then only words (its unit and a short phrase), before the `(` of a lone spread. */
 const WORDED_MEAN = /(?<![\p{L}\p{N}.,])(?<![=<>≤≥] ?)([-+]?\d{1,9}\.\d{1,9})( ?%)? \p{L}[\p{L}'’ -]{0,38}\($/u;
 const PARTICIPANTS = new RegExp(String.raw`(?<![\p{L}\p{N}.,])${INT} (${UNITS})(?![\p{L}])`, 'dgu');
+/** Number words up to ninety-nine, by value. */
+const NUMBER_WORDS: ReadonlyMap<string, number> = new Map(
+  'one two three four five six seven eight nine ten eleven twelve thirteen fourteen fifteen sixteen seventeen eighteen nineteen'.split(' ').map((w, i) => [w, i + 1] as const).concat(
+    'twenty thirty forty fifty sixty seventy eighty ninety'.split(' ').map((w, i) => [w, 20 + 10 * i] as const),
+  ),
+);
+/**
+ * A count of people or units spelled out, as a sentence must open ("Forty participants took
+ * part", "Twenty-four registered nurses", "Twelve wards"): tens, a unit after them, or a number
+ * below twenty, and one word between it and the noun at most.
+ */
+const WORDED_COUNT = new RegExp(
+  String.raw`(?<![\p{L}-])(?:(twenty|thirty|forty|fifty|sixty|seventy|eighty|ninety)(?:[- ](one|two|three|four|five|six|seven|eight|nine))?|(one|two|three|four|five|six|seven|eight|nine|ten|eleven|twelve|thirteen|fourteen|fifteen|sixteen|seventeen|eighteen|nineteen)) (?:\p{L}{3,15} )?${UNITS}(?![\p{L}])`,
+  'giu',
+);
 // the look-behind starts a number only at the start of a digit run (recheck judges it linear then)
 const PLUS_MINUS = new RegExp(String.raw`(?<![\d.])${NUM}( ?%)? ?± ?${NUM}( ?%)?(?: ?\(? ?(SD|SE|SEM|s\.d\.|s\.e\.m\.|s\.e\.|standard deviations?|standard errors?)\)?)?`, 'dgu');
 const MEAN_PAREN = new RegExp(String.raw`(?<![\p{L}\p{N}_.(=])${NUM}( ?%)? ?\((?:(SD|SE|SEM|s\.d\.|s\.e\.)(?: ?=)? ?)?${NUM}( ?%)?\)`, 'dgu');
@@ -129,6 +145,7 @@ interface Token {
 export interface SegmentSummaries {
   summaries: GroupSummary[];
   sampleSizes: SampleSize[];
+  unitCounts: UnitCount[];
   groupSizes: GroupSizes[];
   intervals: IntervalReport[];
   estimates: EstimateReport[];
@@ -231,8 +248,10 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
   }
   // the kinds of unit each sentence counts
   const kindsOfSentence = perSentence(unitKindsIn);
+  const unitCounts: UnitCount[] = [];
   if (/\d (?:[a-z]{3,12})/.test(text)) for (const m of matchesOf(PARTICIPANTS, text)) {
     const a = num(seg, m, 1);
+    if (a) unitCounts.push(Object.assign(where(m.index, m.index + m[0].length), { value: a.value, worded: false }));
     // "groups of 30 nurses each", "24 pupils per class": a group's size, not the total
     const end = m.index + m[0].length;
     const perGroup = PER_GROUP_AFTER.test(text.slice(end, end + 20)) || PER_GROUP_BEFORE.test(text.slice(Math.max(0, m.index - 12), m.index));
@@ -243,6 +262,11 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     if (!perGroup && otherKindIn(kindsOfSentence(m.index), m[2] as string)) continue;
     // "N = 60 staff" is one statement of the total, already read
     if (a && !sampleSizes.some((s) => s.n.span.start === a.span.start)) sampleSizes.push(Object.assign(where(m.index, end), { n: a, scope: perGroup ? ('per-group' as const) : ('total' as const) }));
+  }
+  for (const m of matchesOf(WORDED_COUNT, text)) {
+    const tens = m[1] ? (NUMBER_WORDS.get(m[1].toLowerCase()) ?? 0) : 0;
+    const value = tens + (NUMBER_WORDS.get((m[2] ?? m[3] ?? '').toLowerCase()) ?? 0);
+    unitCounts.push(Object.assign(where(m.index, m.index + m[0].length), { value, worded: true }));
   }
   tokens.sort((x, y) => x.start - y.start);
 
@@ -359,7 +383,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     const inGroup = !after && IN_GROUP_AFTER.test(text.slice(end, end + 60));
     counts.push(Object.assign(where(m.index, end), { count, percent, ...(of ? { of } : {}), ...(inGroup ? { inGroup: true as const } : {}) }));
   }
-  return { summaries, sampleSizes, groupSizes, intervals, estimates, effectSizes, designs, references, counts };
+  return { summaries, sampleSizes, unitCounts, groupSizes, intervals, estimates, effectSizes, designs, references, counts };
 }
 
 /** The kinds of unit a sentence names (unitKind of each word). */

@@ -239,6 +239,8 @@ export interface Extraction {
   pWithoutT: PWithoutT[];
   summaries: GroupSummary[];
   sampleSizes: SampleSize[];
+  /** Every count of people or units the text prints, in digits or words (see UnitCount). */
+  unitCounts: UnitCount[];
   /** Two groups' sizes printed together, without their descriptives. */
   groupSizes: GroupSizes[];
   intervals: IntervalReport[];
@@ -352,6 +354,24 @@ export interface SampleSize {
   n: ReportedNumber;
   /** `subset`: a part of some group (`n = 12 of the choir arm`), never a group of a total. */
   scope: 'total' | 'per-group' | 'subset' | 'unspecified';
+  span: Span;
+  printed: string;
+}
+
+/**
+ * A count of people or units as printed, in digits or spelled out ("24 nurses", "Forty
+ * participants", "Twelve wards"), whatever it counts: a total, a group, those excluded, another
+ * kind of unit than the tests'. Never a sample size on its own word; rules read these counts
+ * only to find that the text accounts for a number otherwise unexplained (a test's units,
+ * another sample), never to speak of a number.
+ */
+export interface UnitCount {
+  segment: number;
+  block: number;
+  sentence: number;
+  value: number;
+  /** Spelled out in words, not digits. */
+  worded: boolean;
   span: Span;
   printed: string;
 }

@@ -11,6 +11,7 @@ import type {
   ReferenceValue,
   ReportedNumber,
   SampleSize,
+  UnitCount,
   SpreadKind,
   TableBlockRecord,
   TableReference,
@@ -213,6 +214,7 @@ export function contextJoiner(x: Extraction): (report: TTestReport) => ResultCon
     estimates: new SegmentList(x.estimates),
     effectSizes: new SegmentList(x.effectSizes),
     sampleSizes: new SegmentList(x.sampleSizes),
+    unitCounts: new SegmentList(x.unitCounts),
     designs: new SegmentList(x.designs),
     groupSizes: new SegmentList(x.groupSizes),
     prose,
@@ -249,6 +251,8 @@ interface Lists {
   estimates: SegmentList<EstimateReport>;
   effectSizes: SegmentList<EffectSizeReport>;
   sampleSizes: SegmentList<SampleSize>;
+  /** Every count of people or units, in digits or words: what a design's own sentence counts. */
+  unitCounts: SegmentList<UnitCount>;
   designs: SegmentList<DesignStatement>;
   groupSizes: SegmentList<GroupSizes>;
   prose: SegmentList<GroupSummary>;
@@ -399,7 +403,7 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
   // no literal opening with a spread: V8 would give each context a hidden class of its own (DEVELOPERS.md, Speed)
   return {
     // one group of descriptives is a one-sample test (or differences) before the Methods' design
-    design: unlessOccasions(unlessUnequal(designFor(report, clause, clauses, n.designs, n.tests, t.memo) ?? againstValue ?? (link?.groups.length === 1 ? oneGroup : undefined) ?? assignedGroups(link, t.assignments) ?? t.methodsDesign ?? { value: 'unknown', basis: 'default' }, link, groupSizes, n.sampleSizes, report), link),
+    design: unlessOccasions(unlessUnequal(designFor(report, clause, clauses, n.designs, n.tests, t.memo) ?? againstValue ?? (link?.groups.length === 1 ? oneGroup : undefined) ?? assignedGroups(link, t.assignments) ?? t.methodsDesign ?? { value: 'unknown', basis: 'default' }, link, groupSizes, n, report), link),
     ...(link ? { descriptives: link } : {}),
     ...(unlinked ? { unlinked } : {}),
     ...(groupSizes ? { groupSizes } : {}),
@@ -716,11 +720,12 @@ const saidIn = (design: Setting<Design>, statement: DesignStatement): Setting<De
  * women"): one set of units measured twice has one size, so the words are about another
  * comparison, or units were lost between the measurements. Nor where the two groups' sizes add
  * up to the number of units the design words' own sentence counts ("40 participants completed
- * both sessions" beside women, n = 20, and men, n = 20): the groups split the units, so the
+ * both sessions", or "Forty participants …" as a sentence opens, beside women, n = 20, and men, n = 20): the groups split the units, so the
  * comparison is between them, not of the units measured twice. Either way the design is not
  * certain: unknown.
  */
-function unlessUnequal(design: Setting<Design>, link: DescriptiveLink | undefined, groupSizes: readonly ReportedNumber[] | undefined, sampleSizes: SegmentList<SampleSize>, report: TTestReport): Setting<Design> {
+function unlessUnequal(design: Setting<Design>, link: DescriptiveLink | undefined, groupSizes: readonly ReportedNumber[] | undefined, lists: Pick<Lists, 'sampleSizes' | 'unitCounts'>, report: TTestReport): Setting<Design> {
+  const { sampleSizes } = lists;
   if (design.value !== 'paired' || design.basis === 'in-report') return design;
   // the two groups' sizes: with their descriptives, printed together, or the two sizes of its own sentence ("(n = 26) … (n = 26)")
   const own = link ? [] : groupScoped(sampleSizes.inSentence(report.segment, report.sentence));
@@ -730,8 +735,9 @@ function unlessUnequal(design: Setting<Design>, link: DescriptiveLink | undefine
   if (a !== b) return { value: 'unknown', basis: 'default' };
   const source = designSources.get(design);
   if (source) {
-    const counted = countedIn(sampleSizes.inSentence(source.segment, source.sentence));
-    if (counted.has(a + b) && !counted.has(a)) return { value: 'unknown', basis: 'default' };
+    const sizes = sampleSizes.inSentence(source.segment, source.sentence);
+    const worded = lists.unitCounts.inSentence(source.segment, source.sentence);
+    if (counts(sizes, worded, a + b) && !counts(sizes, worded, a)) return { value: 'unknown', basis: 'default' };
   }
   return design;
 }
@@ -768,6 +774,11 @@ function countedIn(list: readonly SampleSize[]): Set<number> {
     countedOf.set(list, counted);
   }
   return counted;
+}
+
+/** Whether a sentence counts `n` units: a total it states, or a count spelled out ("Forty participants took part in this within-subject study", as a sentence must open). */
+function counts(sizes: readonly SampleSize[], unitCounts: readonly UnitCount[], n: number): boolean {
+  return countedIn(sizes).has(n) || unitCounts.some((c) => c.worded && c.value === n);
 }
 
 /** Structure, when nothing beside the result says the design: one group is one-sample (or differences). */

@@ -349,6 +349,10 @@ describe('design words apply only to the comparison they describe (invented case
     expect(dma(within)).toEqual([]);
     const paragraph = run('All 52 residents were assessed before and after the installation. Residents on the lit corridor (n = 26) had fewer events than those on the unlit corridor (n = 26), t(50) = 2.34, p = .023.');
     expect(dma(paragraph)).toEqual([]);
+    // the count spelled out, as a sentence must open: the same (invented probe)
+    const worded = run('## Methods\n\nForty participants took part in this within-subject study; each completed both the caffeine and the placebo session.\n\n## Results\n\nWomen (n = 20) and men (n = 20) did not differ in placebo-session reaction time, t(38) = 0.80, p = .43.');
+    expect(worded.results[0]?.context.design.value).toBe('unknown');
+    expect(dma(worded)).toEqual([]);
     // the same units measured twice, counted once: still paired, and its 2n − 2 df still a warning
     const paired = run('All 26 residents were assessed before and after the installation. Events fell from before (M = 14.8, SD = 3.9, n = 26) to after (M = 12.2, SD = 4.1, n = 26), t(50) = 2.34, p = .023.');
     expect(dma(paired)).toEqual(['warning']);
