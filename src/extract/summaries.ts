@@ -443,6 +443,13 @@ function countOf(text: string, at: number): { start: number; end: number } | und
 const ANALYSIS_STEP = /^ (?:the )?(?:adjustment|adjusting|correction|correcting|controlling for|exclusion|excluding|imputation|weighting)(?![\p{L}])/iu;
 
 /**
+ * The words before "crossed over" when one arm or group is what crossed ("although the control
+ * arm later crossed over to mentoring", "participants in the wait-list group then crossed
+ * over"): a switch of treatment in one group, not units measured under both conditions.
+ */
+const ONE_GROUP_CROSSED = /(?<![\p{L}])(?:arm|group|controls)(?: (?:later|then|subsequently|eventually|also))? (?:had |have |were |was )?$/iu;
+
+/**
  * Whether paired words say, where they stand, that one set of units was measured twice:
  * - "paired with a tutor" pairs people for a treatment, and says nothing of the analysis;
  * - "pre-test" or "post-test" alone names one time ("At pre-test, the tutored pupils …"); the
@@ -451,12 +458,14 @@ const ANALYSIS_STEP = /^ (?:the )?(?:adjustment|adjusting|correction|correcting|
  *   for age" two steps of an analysis;
  * - "each participant received one of the two treatments" (or took part in one role only) is
  *   the opposite of a paired design, and "each participant was randomly assigned" says nothing
- *   of one.
+ *   of one;
+ * - "the control arm later crossed over to mentoring" is one group switching treatment.
  */
 function pairedInContext(text: string, at: number, words: string, namesBothTimes: (at: number) => boolean): boolean {
   const lower = words.toLowerCase();
   const after = text.slice(at + words.length, at + words.length + 40);
   if (lower === 'paired' && /^ with(?![\p{L}])/u.test(after)) return false;
+  if (lower === 'crossed over' && ONE_GROUP_CROSSED.test(text.slice(Math.max(0, at - 40), at))) return false;
   if (/^(?:pre|post)-?test$/u.test(lower) && !namesBothTimes(at)) return false;
   if (lower.startsWith('before and after') && ENTRY_EVENT.test(text.slice(Math.max(0, at - 20), at))) return false;
   // "before and after adjustment for age": two steps of the analysis, not two measurements

@@ -357,6 +357,13 @@ describe('design words apply only to the comparison they describe (invented case
     const paired = run('All 26 residents were assessed before and after the installation. Events fell from before (M = 14.8, SD = 3.9, n = 26) to after (M = 12.2, SD = 4.1, n = 26), t(50) = 2.34, p = .023.');
     expect(dma(paired)).toEqual(['warning']);
   });
+  it('one arm switching treatment is not units measured under both conditions', () => {
+    const switched = run('Confidence at six months was higher in the mentoring arm (M = 14.8, SD = 3.9, n = 26) than in the control arm (M = 12.2, SD = 4.1, n = 26), t(50) = 2.34, p = .023, although the control arm later crossed over to mentoring.');
+    expect(switched.results[0]?.context.design.value).not.toBe('paired');
+    expect(dma(switched)).toEqual([]);
+    const crossover = run('Each nurse crossed over to the other condition after a washout week. Confidence was higher with mentoring (M = 14.8, SD = 3.9, n = 26) than without it (M = 12.2, SD = 4.1, n = 26), t(50) = 2.34, p = .023.');
+    expect(dma(crossover)).toEqual(['warning']);
+  });
 });
 
 describe('numbers between two tests of a sentence (invented cases, probing)', () => {
