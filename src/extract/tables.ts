@@ -7,7 +7,7 @@ import type { EffectSizeReport, EstimateReport, GroupSummary, IntervalReport, Re
  * Results laid out in tables, read row by row. Columns are recognised by their header:
  * - wide layouts, one comparison per row: a column per group whose header names the group and
  *   says what its cells hold (`Walking (n = 36), mean (SD)`, `Mean ± SE`), then t (its df may
- *   stand in the header: `t(64)`, `Related t-value (df = 50)`), df, p (with stars or not), d and
+ *   stand in the header: `t(64)`, `Related t-value (df = 50)`, `Unrelated t-value (48)`), df, p (with stars or not), d and
  *   a CI (`Difference (95% CI)` cells such as `2.06 (0.78 to 3.35)`);
  * - long layouts, one group per row: Group, n, M, SD (or SE) columns; the rows of one measure
  *   form a block (the measure's name in the first column, blank below it), whose test is printed
@@ -39,7 +39,7 @@ const DF = String.raw`[-+]?(?:\d{1,3}(?:,\d{3}){1,3}(?:\.\d{1,12})?|\d{1,400}(?:
 const T_CELL_NUM = String.raw`[-+]?(?:\d{1,400}(?:\.\d{1,20})?|\.\d{1,20})(?:[eE][-+]?\d{1,9})?`;
 const STARS = String.raw`(\*{1,4}|†)?`;
 const T_HEADER = new RegExp(
-  String.raw`^(?:(?:related|paired|independent|welch['’]?s?|student['’]?s?) )?t(?:[- ]?(?:value|test|stat(?:istic)?))?(?: ?\( ?(?:df ?= ?)?(${DF}) ?\)| ?\((?:df)\))?$`,
+  String.raw`^(?:(?:related|unrelated|paired|unpaired|dependent|independent|(?:paired|independent|related|one|two)[- ]samples?|welch['’]?s?|student['’]?s?) )?t(?:[- ]?(?:value|test|stat(?:istic)?))?(?: ?\( ?(?:df ?= ?)?(${DF}) ?\)| ?\((?:df)\))?$`,
   'iu',
 );
 const DF_HEADER = /^(?:df|d\.f\.|degrees of freedom)$/iu;

@@ -120,3 +120,13 @@ describe('a p column beside another statistic', () => {
     expect(warnings(r).some((w) => w.startsWith('p-follows-from-t'))).toBe(true);
   });
 });
+
+describe('a t column named with its test and its df in brackets', () => {
+  // t = 3.01 from the groups above (scipy.stats.ttest_ind_from_stats: 3.008, p = .0046); 4.10 (1.00) against 4.00 (0.60): t = 0.383, p = .70 (the same)
+  for (const header of ['Unrelated t-value (38)', 'Independent-samples t (38)', 'Unpaired t (df = 38)', 'Related t-value (38)']) {
+    it(`reads "${header}"`, () => {
+      const r = run(['| | Standing (n = 20) | Seated (n = 20) | ' + header + ' | p-value (2-t) |', '|---|---|---|---|---|', '| Fatigue | 5.00 (1.00) | 4.00 (1.10) | 3.01 | .005 |', '| Comfort | 4.10 (1.00) | 4.00 (0.60) | 0.38 | .70 |', ''].join('\n'));
+      expect(r.results.map((x) => [x.t.value, x.df?.value, x.p?.number?.value])).toEqual([[3.01, 38, 0.005], [0.38, 38, 0.7]]);
+    });
+  }
+});
