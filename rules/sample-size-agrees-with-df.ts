@@ -24,8 +24,10 @@ export const sampleSizeAgreesWithDf: Rule = {
     // Each test implies the number analysed: df + 2 for two independent groups, df + 1 for one
     // group or pairs; with the design unknown, either.
     // A regression coefficient's t (`b = -0.53, SE = 0.26, t(69) = …`) has the model's df,
-    // N − k − 1 for k predictors unknown here: it implies no number analysed.
-    const tests = document.results.filter((r) => r.context.estimate?.item.kind !== 'coefficient');
+    // N − k − 1 for k predictors unknown here: it implies no number analysed. Nor does a t that
+    // may be a contrast within a larger analysis of variance (an F of its paragraph with its df as
+    // error df, words of planned or post hoc comparisons): its df is N − k for k groups unknown.
+    const tests = document.results.filter((r) => r.context.estimate?.item.kind !== 'coefficient' && r.pooledError === undefined);
     const implied = tests
       .filter((r) => r.report.df && isWholeDf(r.report.df) && !r.report.plural)
       .map((r) => {

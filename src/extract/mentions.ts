@@ -62,6 +62,14 @@ const APPROXIMATE_DF_AFTER = /^(?: (?:approximation|method|correction|adjustment
 const APPROXIMATE_DF_BEFORE = /(?<![\p{L}])(?:degrees of freedom|dfs?|d\.f\.)(?![\p{L}])/iu;
 /** How far before the name (characters, within its sentence) the words of a df may stand. */
 const APPROXIMATE_DF_REACH = 60;
+/**
+ * Words of comparisons made within a larger analysis of variance, whose t may take the whole
+ * analysis's pooled error term and its df (N − k): planned or post hoc contrasts, pairwise or
+ * follow-up comparisons, simple effects, and the named procedures (Tukey's HSD, Fisher's LSD,
+ * Scheffé, Dunnett). Not "in contrast" or "by contrast" (a connective), nor a contrast of
+ * colours or stimuli: "contrast" only in the plural after nothing, or after a kind of contrast.
+ */
+const CONTRAST = /(?<![\p{L}])(?:(?:planned|a[- ]priori|orthogonal|polynomial|linear|quadratic|Helmert|post[- ]hoc|custom|pairwise|interaction) contrasts?|contrasts (?:showed|revealed|indicated|confirmed|were|was)|post[- ]?hoc (?:tests?|t[- ]tests?|comparisons?|analys[ie]s|pairwise)|pairwise (?:comparisons?|t[- ]tests?)|follow[- ]up (?:comparisons?|contrasts?|pairwise)|simple (?:main )?effects?(?: analys[ie]s| tests?)?|Tukey['’]?s?(?: HSD)?|Fisher['’]?s (?:protected )?LSD|(?<![\p{L}])LSD(?= (?:tests?|post|comparisons?|procedure))|Scheff[eé]['’]?s?|Dunnett['’]?s?)(?![\p{L}])/giu;
 /** A permutation or randomization test named: a p reported with it in its sentence came from resampling. */
 const RESAMPLING_TEST = /(?<![\p{L}])(?:permutation|randomi[sz]ation) (?:t[- ])?tests?(?![\p{L}])/giu;
 /** The header R prints above a t-test's output. */
@@ -81,6 +89,7 @@ const MAY: Record<Mention['kind'], RegExp> = {
   'resampled-p': /permut|bootstrap|resampl|Monte Carlo|randomi[sz]ation|shuffl|p_?perm/i,
   'resampling-test': /(?:permutation|randomi[sz]ation) (?:t[- ])?test/i,
   'approximate-df': /Satterthwaite|Kenward/i,
+  contrast: /contrast|post[- ]?hoc|pairwise|follow[- ]up comp|simple (?:main )?effect|Tukey|LSD|Scheff|Dunnett/i,
 };
 
 /** Guideline-relevant words in one prose segment. */
@@ -97,7 +106,7 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
     if (m[1] === 'R' && !m[2] && !/(?<![\p{L}])R (?:software|package|version|Core|\(R Core|statistical|environment)|in R(?![\p{L}])|using R(?![\p{L}])|R \d/u.test(context)) continue;
     add('software', m, m[2]);
   }
-  for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion'], [BETWEEN_SUBJECTS, 'between-subjects']] as const) {
+  for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion'], [BETWEEN_SUBJECTS, 'between-subjects'], [CONTRAST, 'contrast']] as const) {
     if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) add(kind, m);
   }
   // resampling or an approximated df denied at its words ("Permutation-based p values were not

@@ -1,7 +1,7 @@
 import type { ContextStatement, EstimateReport, Extraction, IntegerStatement, Mention, OtherStatistic, ReportedNumber, Sidedness, TableDimensions, TTestReport } from '../extract/types.js';
 import type { Linked } from './descriptives.js';
 import type { Directive, Span } from '../parse/types.js';
-import type { DocumentSettings, LinkedDocument, LinkedResult, LinkedStatistic, Setting } from './types.js';
+import type { DocumentSettings, LinkedDocument, LinkedResult, LinkedStatistic, PooledError, Setting } from './types.js';
 
 export type * from './types.js';
 export type { DescriptiveLink, Design, IntervalLink, IntervalTarget, LinkBasis, Linked, ResultContext } from './descriptives.js';
@@ -107,6 +107,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const adjustmentOf = adjustmentJoiner(extraction, sentencesWithStatistics);
   const resampledOf = resampledJoiner(extraction, sentencesWithStatistics);
   const approximateDfOf = approximateDfJoiner(extraction, sentencesWithStatistics);
+  const pooledErrorOf = pooledErrorJoiner(extraction, sentencesWithStatistics);
   // Welch's test named where no test is reported ("Welch's t-tests were used throughout")
   // (as a test: not "Welch's method" or "Welch's ANOVA", and not in a sentence that negates it)
   // (and none where the text also names Student's test so: it then says which test its results are)
@@ -132,6 +133,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       ...withAdjustment(adjustmentOf(report)),
       ...withResampled(resampledOf(report)),
       ...withApproximateDf(approximateDfOf(report)),
+      ...withPooledError(pooledErrorOf(report)),
     };
   });
   const statistics: LinkedStatistic[] = [];
@@ -236,6 +238,39 @@ function approximateDfJoiner(extraction: Extraction, withStatistics: ReadonlySet
   const bySentence = groupBy(said, sentenceKey);
   const general = said.find((m) => !withStatistics.has(sentenceKey(m)));
   return (at) => bySentence.get(sentenceKey(at))?.[0] ?? general;
+}
+
+const withPooledError = (p: PooledError | undefined) => (p ? { pooledError: p } : {});
+
+/**
+ * What says that a t may be a comparison within a larger analysis of variance, whose pooled error
+ * term gives it the analysis's error df (N − k) and SE rather than its two groups' own: an F of its
+ * paragraph whose error df is the t's df (`F(2, 87) = 5.10. Planned contrasts: … t(87) = 2.37`);
+ * else words of contrasts or post hoc comparisons (`Planned contrasts showed …`) in its sentence,
+ * its paragraph, or a sentence that reports no statistic. Such a sign only ever makes a finding on
+ * the df or on the t from two groups' descriptives less certain, and only where the df is more
+ * than the two groups give (rule-api pooledErrorDoubt).
+ */
+function pooledErrorJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>): (report: TTestReport) => PooledError | undefined {
+  // by paragraph and error df: an F of another paragraph is of another analysis (the sites of a
+  // trial compared at baseline, F(2, 27), beside a paired t(27) of its conditions pages later)
+  const errorDfs = new Map<string, OtherStatistic>();
+  for (const o of extraction.otherStatistics) {
+    const df2 = o.kind === 'F' && o.dfs?.length === 2 ? o.dfs[1] : undefined;
+    const k = df2 && Number.isInteger(df2.value) ? `${o.segment}:${df2.value}` : undefined;
+    if (k !== undefined && !errorDfs.has(k)) errorDfs.set(k, o);
+  }
+  const said = extraction.mentions.filter((m) => m.kind === 'contrast');
+  if (errorDfs.size === 0 && said.length === 0) return () => undefined;
+  const bySentence = groupBy(said, sentenceKey);
+  const bySegment = groupBy(said, (m) => m.segment);
+  const general = said.find((m) => !withStatistics.has(sentenceKey(m)));
+  return (report) => {
+    const f = report.df && Number.isInteger(report.df.value) ? errorDfs.get(`${report.segment}:${report.df.value}`) : undefined;
+    if (f) return { basis: 'error-df', span: f.span, printed: f.printed };
+    const words = bySentence.get(sentenceKey(report))?.[0] ?? bySegment.get(report.segment)?.[0] ?? general;
+    return words ? { basis: 'words', span: words.span, printed: words.printed } : undefined;
+  };
 }
 
 /**

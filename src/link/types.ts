@@ -56,6 +56,20 @@ export interface LinkedResult {
    * may then be such a df printed rounded, which cannot be told from the text.
    */
   approximateDf?: Mention;
+  /**
+   * A sign that the t may be a comparison within a larger analysis of variance, whose pooled
+   * error term sets its df (N − k) and its SE: an F whose error df is the t's df, or words of
+   * contrasts or post hoc comparisons (link/index.ts pooledErrorJoiner). Its df and t then need not
+   * follow from its two groups alone.
+   */
+  pooledError?: PooledError;
+}
+
+/** What says a t may take a larger analysis's pooled error term: an F with its df as error df, or words of contrasts. */
+export interface PooledError {
+  basis: 'error-df' | 'words';
+  span: Span;
+  printed: string;
 }
 
 /**

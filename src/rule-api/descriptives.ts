@@ -198,6 +198,23 @@ export function spreadReadings(kinds: readonly string[]): boolean[] {
 
 
 /**
+ * The most df a result's own groups give, from the sizes printed with its descriptives (or a
+ * per-group n): n − 1 for one group or pairs (the size printed with either of the two), n1 + n2
+ * − 2 for two independent groups (the most Welch's df can be too). Undefined when a size it needs
+ * is not printed.
+ */
+export function ownGroupsDf(result: LinkedResult): number | undefined {
+  const perGroup = result.context.sampleSizes.find((s) => s.scope === 'per-group')?.n.value;
+  const groups = result.context.descriptives?.groups ?? [];
+  const ns = groups.map((g) => g.n?.value ?? perGroup).filter((n): n is number => n !== undefined);
+  if (groups.length === 1) return ns.length === 1 ? (ns[0] as number) - 1 : undefined;
+  if (groups.length !== 2 || ns.length === 0) return undefined;
+  // pairs have one size: printed with either group, it is the number of pairs
+  if (inferDesign(result) === 'paired') return Math.max(...ns) - 1;
+  return ns.length === 2 ? (ns[0] as number) + (ns[1] as number) - 2 : undefined;
+}
+
+/**
  * The design used for recomputation: the linked one; where unknown, the df decides when the
  * group sizes are printed (n1 + n2 − 2 is independent, n − 1 paired).
  */

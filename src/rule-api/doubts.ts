@@ -1,4 +1,5 @@
 import type { DescriptiveLink, Linked, LinkedResult } from '../link/index.js';
+import type { Span } from '../parse/types.js';
 
 /**
  * Why a tie between a result and the numbers a rule uses is not certain, in words for the
@@ -25,4 +26,30 @@ export function linkDoubts(parts: { descriptives?: DescriptiveLink | undefined; 
 export function descriptiveDoubts(result: LinkedResult): { uncertain?: string[] } {
   const d = linkDoubts({ descriptives: result.context.descriptives });
   return d.length > 0 ? { uncertain: d } : {};
+}
+
+/**
+ * Why a finding that holds a t to its two groups (its df to n1 + n2 − 2 or n − 1, its t to their
+ * descriptives) is not certain, where the text says the t may be a comparison within a larger
+ * analysis of variance (result.pooledError): such a t takes the analysis's pooled error term, whose
+ * df counts every group (N − k, or (n − 1)(k − 1) within subjects), so it is never below the two
+ * groups' own. Nothing when the t's own words name Welch's test (which pools nothing), or when
+ * its df is at most `ownDf`, the most its two groups give (undefined when their sizes are not
+ * printed): a smaller df is wrong whatever the error term.
+ */
+export function pooledErrorDoubt(result: LinkedResult, ownDf?: number): { uncertain: string[]; related: Array<{ span: Span; message: string }> } | undefined {
+  const p = result.pooledError;
+  const df = result.report.df;
+  if (!p || !df || result.testName?.variant === 'welch' || (ownDf !== undefined && df.value <= ownDf)) return undefined;
+  const text =
+    p.basis === 'error-df'
+      ? `an F with the same error df is reported ("${p.printed.trim()}"), so the t may be a comparison within that analysis, whose pooled error term counts every group`
+      : `the text speaks of comparisons within a larger analysis ("${p.printed.trim()}"), so the t may take that analysis's pooled error term, which counts every group`;
+  return { uncertain: [text], related: [{ span: p.span, message: p.basis === 'error-df' ? 'the F with the same error df' : 'the words about comparisons' }] };
+}
+
+/** A finding with the pooled-error doubt (pooledErrorDoubt) added to its own, if any. */
+export function withPooledErrorDoubt<F extends { uncertain?: string[]; related?: Array<{ span: Span; message: string }> }>(finding: F, doubt: ReturnType<typeof pooledErrorDoubt>): F {
+  if (!doubt) return finding;
+  return Object.assign({}, finding, { uncertain: [...(finding.uncertain ?? []), ...doubt.uncertain], related: [...(finding.related ?? []), ...doubt.related] });
 }
