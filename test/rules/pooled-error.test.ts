@@ -17,7 +17,7 @@ const run = (markdown: string): FileReport => checkSource('x.md', `${markdown}\n
 const said = (r: FileReport, rule: string) => r.findings.filter((f) => f.ruleId === rule).map((f) => f.level);
 const pooled = (markdown: string) => {
   const doc = parseDocument('x.md', `${markdown}\n`);
-  return link(extract(doc), doc.directives, { alpha: 0.05, sidedness: 'two' }).results.map((r) => r.pooledError?.printed);
+  return link(extract(doc), doc.directives).results.map((r) => r.pooledError?.printed);
 };
 const anova = 'A one-way ANOVA compared the three groups, F(2, 87) = 1.48, p = .233.';
 const contrast = 'The mindfulness group (M = 12.1, SD = 3.0, n = 30) and the control group (M = 10.2, SD = 3.2, n = 30) differed little, t(87) = 1.72, p = .090.';
