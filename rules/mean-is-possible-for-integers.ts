@@ -32,7 +32,16 @@ export const meanIsPossibleForIntegers: Rule = {
       const nSource = g.n ? '' : ` (n is not printed with it: ${inferred?.because})`;
       const [lo, hi] = numberInterval(g.mean);
       const grim = grimPossible(lo, hi, n, items);
-      const base = { reported: g.printed, block: g.block, ...(stated ? { related: [{ span: stated.span, message: 'where the text says the scores are whole numbers' }] } : {}) };
+      // a mean the text says is adjusted, estimated from a model or pooled over imputations
+      // need not be a multiple of 1/n: the finding is then a note saying so
+      const derived = document.derivedMeans.get(g);
+      const related = [...(stated ? [{ span: stated.span, message: 'where the text says the scores are whole numbers' }] : []), ...(derived ? [{ span: derived.span, message: 'the words about how the means were made' }] : [])];
+      const base = {
+        reported: g.printed,
+        block: g.block,
+        ...(related.length > 0 ? { related } : {}),
+        ...(derived ? { uncertain: [`the text says means are adjusted, estimated from a model or pooled over imputations ("${derived.printed}"), and such a mean need not be a plain mean of whole-number scores`] } : {}),
+      };
       const what = g.label ? `"${g.label}"` : 'this group';
       if (!grim.possible) {
         out.push({

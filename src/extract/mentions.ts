@@ -70,6 +70,13 @@ const APPROXIMATE_DF_REACH = 60;
  * colours or stimuli: "contrast" only in the plural after nothing, or after a kind of contrast.
  */
 const CONTRAST = /(?<![\p{L}])(?:(?:planned|a[- ]priori|orthogonal|polynomial|linear|quadratic|Helmert|post[- ]hoc|custom|pairwise|interaction) contrasts?|contrasts (?:showed|revealed|indicated|confirmed|were|was)|post[- ]?hoc (?:tests?|t[- ]tests?|comparisons?|analys[ie]s|pairwise)|pairwise (?:comparisons?|t[- ]tests?)|follow[- ]up (?:comparisons?|contrasts?|pairwise)|simple (?:main )?effects?(?: analys[ie]s| tests?)?|Tukey['’]?s?(?: HSD)?|Fisher['’]?s (?:protected )?LSD|(?<![\p{L}])LSD(?= (?:tests?|post|comparisons?|procedure))|Scheff[eé]['’]?s?|Dunnett['’]?s?)(?![\p{L}])/giu;
+/**
+ * Words saying the means printed are not plain means of the scores: adjusted for covariates,
+ * estimated from a model (estimated marginal, least-squares, model-based, predicted), pooled over
+ * multiply imputed data sets, or back-transformed. Such a mean of whole-number scores need not be
+ * a multiple of 1/n.
+ */
+const DERIVED_MEANS = /(?<![\p{L}])(?:(?:covariate[- ]|baseline[- ])?adjusted (?:group )?means?|estimated marginal means?|EMMs?|least[- ]squares? means?|LS[- ]?means?|model[- ](?:estimated|based|predicted|derived|adjusted) (?:group )?(?:means?|estimates?|values?)|predicted (?:group )?means?|back[- ]transformed (?:group )?means?|(?:means?|estimates?) (?:were|are|was|is) (?:pooled|combined) (?:over|across) (?:the )?(?:imputations|imputed)|multiple imputation|multiply imputed)(?![\p{L}])/giu;
 /** A permutation or randomization test named: a p reported with it in its sentence came from resampling. */
 const RESAMPLING_TEST = /(?<![\p{L}])(?:permutation|randomi[sz]ation) (?:t[- ])?tests?(?![\p{L}])/giu;
 /** The header R prints above a t-test's output. */
@@ -90,6 +97,7 @@ const MAY: Record<Mention['kind'], RegExp> = {
   'resampling-test': /(?:permutation|randomi[sz]ation) (?:t[- ])?test/i,
   'approximate-df': /Satterthwaite|Kenward/i,
   contrast: /contrast|post[- ]?hoc|pairwise|follow[- ]up comp|simple (?:main )?effect|Tukey|LSD|Scheff|Dunnett/i,
+  'derived-means': /adjusted|marginal|EMM|squares|LS|model|predicted|transformed|pooled|combined|imput/i,
 };
 
 /** Guideline-relevant words in one prose segment. */
@@ -106,7 +114,7 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
     if (m[1] === 'R' && !m[2] && !/(?<![\p{L}])R (?:software|package|version|Core|\(R Core|statistical|environment)|in R(?![\p{L}])|using R(?![\p{L}])|R \d/u.test(context)) continue;
     add('software', m, m[2]);
   }
-  for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion'], [BETWEEN_SUBJECTS, 'between-subjects'], [CONTRAST, 'contrast']] as const) {
+  for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion'], [BETWEEN_SUBJECTS, 'between-subjects'], [CONTRAST, 'contrast'], [DERIVED_MEANS, 'derived-means']] as const) {
     if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) add(kind, m);
   }
   // resampling or an approximated df denied at its words ("Permutation-based p values were not

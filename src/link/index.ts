@@ -170,6 +170,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
     results,
     statistics,
     integerDeclarations: integerDeclarations(extraction),
+    derivedMeans: derivedMeans(extraction, sentencesWithStatistics),
     inferredSizes: inferredSizes(results),
     spreadKinds: spreadKinds(extraction),
     pWithoutT: extraction.pWithoutT,
@@ -416,6 +417,27 @@ function integerDeclarations(x: Extraction): LinkedDocument['integerDeclarations
       byNames.set(names, agreed);
     }
     if (agreed) out.set(g, { statement: agreed, basis: 'measure-name' });
+  }
+  return out;
+}
+
+/**
+ * Words saying a group's printed mean is not a plain mean of its scores (adjusted, estimated from
+ * a model, pooled over imputations; extract's `derived-means`): in the group's own sentence, else
+ * in a sentence of the text that reports no statistic ("Missing outcomes were handled by
+ * multiple imputation", "model-estimated means are shown"), which may speak of every mean. Read
+ * only for whole-number groups (those with a declaration), once per sentence.
+ */
+function derivedMeans(x: Extraction, withStatistics: ReadonlySet<string>): LinkedDocument['derivedMeans'] {
+  const out: LinkedDocument['derivedMeans'] = new Map();
+  const said = x.mentions.filter((m) => m.kind === 'derived-means');
+  if (said.length === 0) return out;
+  const bySentence = groupBy(said, sentenceKey);
+  const general = said.find((m) => !withStatistics.has(sentenceKey(m)));
+  for (const g of x.summaries) {
+    if (!g.mean) continue;
+    const m = (g.table ? undefined : bySentence.get(sentenceKey(g))?.[0]) ?? general;
+    if (m) out.set(g, m);
   }
   return out;
 }

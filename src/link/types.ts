@@ -142,6 +142,12 @@ export interface LinkedDocument {
    */
   integerDeclarations: Map<GroupSummary, { statement: IntegerStatement; basis: 'sentence' | 'measure-name' }>;
   /**
+   * Words saying a group's mean is not a plain mean of its scores (adjusted for covariates,
+   * estimated from a model, pooled over imputations): in its own sentence, or in a sentence that
+   * reports no statistic. A whole-number measure's mean of that kind need not be a multiple of 1/n.
+   */
+  derivedMeans: Map<GroupSummary, Mention>;
+  /**
    * The size of a group printed without its n, where a certain link gives it: the other
    * condition of a paired design (the same units), or df + 1 of the paired or one-sample test
    * the group is certainly tied to.

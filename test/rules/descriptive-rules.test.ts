@@ -226,3 +226,21 @@ describe('second review of the probing fixes (invented cases): words that only l
     expect(of('All 30 patients were assessed before and after corrective surgery. Pain fell after surgery (n = 30), t(58) = 2.34, p = .023.', 'design-matches-analysis')).toEqual(['warning']);
   });
 });
+
+describe('a mean the text says is adjusted, modelled or pooled over imputations (invented cases, probing)', () => {
+  const of = (markdown: string) => checkSource('x.md', `${markdown}\n`).findings.filter((f) => f.ruleId === 'mean-is-possible-for-integers').map((f) => f.level);
+  // GRIM (common practice, no source): means of 25 whole numbers are multiples of 0.04, so 1.37
+  // is none (1.36, 1.40); of 24, multiples of 1/24 (2.083, 2.125), so 2.11 is none
+  const declared = '## Methods\n\nThe outcome was the number of falls over 12 months, a whole-number count.';
+  it('in its own sentence: the finding is a note that says so', () => {
+    expect(of(`${declared}\n\n## Results\n\nThe adjusted mean number of falls was 1.37 (SD 1.42, n = 25) with exercise and 2.11 (SD 1.63, n = 24) with usual care.`)).toEqual(['note', 'note']);
+  });
+  it('in a sentence that reports no statistic: the same', () => {
+    expect(of(`${declared} Missing outcomes were handled by multiple imputation.\n\n## Results\n\nThe mean number of falls was 1.37 (SD 1.42, n = 25) with exercise.`)).toEqual(['note']);
+    expect(of(`${declared} Model-estimated means are shown.\n\n## Results\n\nThe number of falls was M = 1.37 (SD 1.42, n = 25) with exercise.`)).toEqual(['note']);
+  });
+  it('without such words, or with them beside another statistic only, a plain mean is still a warning', () => {
+    expect(of(`${declared}\n\n## Results\n\nThe mean number of falls was 1.37 (SD 1.42, n = 25) with exercise.`)).toEqual(['warning']);
+    expect(of(`${declared}\n\n## Results\n\nThe mean number of falls was 1.37 (SD 1.42, n = 25) with exercise. Adjusted means gave the same picture, t(47) = 2.10, p = .041.`)).toEqual(['warning']);
+  });
+});
