@@ -8,7 +8,9 @@ import type { EffectSizeReport, EstimateReport, GroupSummary, IntervalReport, Re
  * - wide layouts, one comparison per row: a column per group whose header names the group and
  *   says what its cells hold (`Walking (n = 36), mean (SD)`, `Mean ± SE`), then t (its df may
  *   stand in the header: `t(64)`, `Related t-value (df = 50)`, `Unrelated t-value (48)`), df, p (with stars or not), d and
- *   a CI (`Difference (95% CI)` cells such as `2.06 (0.78 to 3.35)`);
+ *   a CI (`Difference (95% CI)` cells such as `2.06 (0.78 to 3.35)`, or a `95% CI` column beside a
+ *   `Difference` column; a header without a level takes the caption's, else 95% is assumed and
+ *   said: `levelAssumed`);
  * - long layouts, one group per row: Group, n, M, SD (or SE) columns; the rows of one measure
  *   form a block (the measure's name in the first column, blank below it), whose test is printed
  *   in a row of its own, in prose after the table, or in a t column of the block's first row;
@@ -45,7 +47,11 @@ const T_HEADER = new RegExp(
 const DF_HEADER = /^(?:df|d\.f\.|degrees of freedom)$/iu;
 const P_HEADER = /^(?:p|p[- ]?values?|sig\.?|significance)(?: ?\((?:two|2|one|1)[- ]?(?:tailed|sided|t)\))?$|^sig\. \(2-tailed\)$|^pr\(>\|t\|\)$/iu;
 const D_HEADER = /^(?:d|d_?z|d_?av|cohen['’]s d|hedges['’]? ?g|g|es|effect size|effect size \(d\))$/iu;
-const CI_HEADER = /(?:(\d{2}(?:\.\d)?) ?% ?(?:ci|c\.i\.|ki|ic|confidence interval)|^(?:ci|ki|confidence interval)$)/iu;
+/** The header of a column of estimates: `Difference`, `Mean difference`, `MD`, `Estimate`. */
+const ESTIMATE_HEADER = /^(?:(?:mean )?diff(?:erence|\.)?|md|estimate)$/iu;
+/** A level of confidence intervals a table's caption prints: "(99% confidence intervals)", "95% CI". */
+const CAPTION_CI_LEVEL = /(?<![\d.])(\d{2}(?:\.\d)?) ?% ?(?:CIs?|C\.I\.|confidence intervals?|confidence limits)(?![\p{L}])/iu;
+const CI_HEADER = /(?:(\d{2}(?:\.\d)?) ?% ?(?:ci|c\.i\.|ki|ic|confidence interval)|^(?:ci|ki|confidence interval)$|\((?:ci|c\.i\.|confidence interval)\)$)/iu;
 const MEAN_HEADER = /^(?:m|mean|means|avg|average|x̄)$/iu;
 const SD_HEADER = /^(?:sd|s\.d\.|std\.? ?dev\.?|standard deviation)$/iu;
 const SE_HEADER = /^(?:se|sem|s\.e\.|s\.e\.m\.|standard error)$/iu;
@@ -73,7 +79,12 @@ const T_DF_HEADER = /\( ?df ?\)$/iu;
  */
 const CELL_P = new RegExp(String.raw`^ ?(<=|>=|≤|≥|<|>|=)? ?(-)?(\d{1,12}(?:\.\d{1,20})?|\.\d{1,20})(?: ?(?:[eE] ?([-+]?\d{1,400})|[×xX*·] ?10 ?\^? ?([-+]?\d{1,400})))? ?(\*{1,4}|†)? ?$`, 'u');
 const CELL_MEAN_SPREAD = new RegExp(String.raw`^ ?(${NUM}) ?(?:\( ?(${NUM}) ?\)|± ?(${NUM})) ?$`, 'u');
-const CELL_CI = new RegExp(String.raw`^ ?(?:(${NUM}) ?)?[(\[]? ?(${NUM}) ?(?:,|;|to|–|—| - |-(?=[.\d])) ?(${NUM}) ?[)\]]? ?$`, 'u');
+/**
+ * A CI cell: its limits, after the estimate when the cell prints one (`2.06 (0.78 to 3.35)`). The
+ * estimate ends at a space or an opening bracket, so a lower limit is never split at its point
+ * (`-8.2 to 0.6` is the interval, not the estimate −8 and the limits .2 and 0.6).
+ */
+const CELL_CI = new RegExp(String.raw`^ ?(?:(${NUM})(?= |[(\[]) ?)?[(\[]? ?(${NUM}) ?(?:,|;|to|–|—| - |-(?=[.\d])) ?(${NUM}) ?[)\]]? ?$`, 'u');
 const LABELLED_T = new RegExp(String.raw`^ ?[tT] ?= ?(${NUM}) ?$`, 'u');
 const LABELLED_P = new RegExp(String.raw`^ ?[pP] ?(<=|>=|≤|≥|<|>|=) ?(\d{1,12}(?:\.\d{1,20})?|\.\d{1,20}) ?$`, 'u');
 const CAPTION_DF = /(?<![\p{L}])(?:df|d\.f\.) ?= ?(\d{1,400})(?![\d.])/u;
@@ -177,7 +188,9 @@ interface Columns {
   df?: number;
   p?: number;
   d?: { column: number; kind: EffectSizeReport['kind'] };
-  ci?: { column: number; level: number };
+  ci?: { column: number; level: number; levelAssumed?: true };
+  /** A column of the estimates the CI column's intervals are of (`Difference`, `MD`), beside it. */
+  estimate?: number;
   groups: Array<{ column: number; kind: 'SD' | 'SE'; printedKind: string; label: string; n?: ReportedNumber }>;
   mean?: number;
   spread?: { column: number; kind: 'SD' | 'SE'; printed: string };
@@ -220,9 +233,11 @@ function columnsOf(grid: Grid): Columns {
       const nNumber = n && nAt >= 0 ? readNumber(seg, nAt, nAt + (n[1] as string).length) : undefined;
       c.groups.push({ column, kind: /^s\.?d/i.test(kindWord) ? 'SD' : 'SE', printedKind: kindWord, label, ...(nNumber ? { n: nNumber } : {}) });
     } else if (CI_HEADER.test(text)) {
-      const level = Number(CI_HEADER.exec(text)?.[1] ?? 95) / 100;
-      c.ci ??= { column, level };
-    } else if (MEAN_HEADER.test(text)) c.mean ??= column;
+      // the level the header prints, else the caption's ("99% confidence intervals"), else 95% assumed
+      const printed = CI_HEADER.exec(text)?.[1] ?? (grid.caption ? CAPTION_CI_LEVEL.exec(grid.caption.text)?.[1] : undefined);
+      c.ci ??= printed !== undefined ? { column, level: Number(printed) / 100 } : { column, level: 0.95, levelAssumed: true };
+    } else if (ESTIMATE_HEADER.test(text)) c.estimate ??= column;
+    else if (MEAN_HEADER.test(text)) c.mean ??= column;
     else if (SD_HEADER.test(text)) c.spread ??= { column, kind: 'SD', printed: text };
     else if (SE_HEADER.test(text)) c.spread ??= { column, kind: 'SE', printed: text };
     else if (N_HEADER.test(text)) c.n ??= column;
@@ -334,23 +349,31 @@ function readGrid(grid: Grid, out: TableResults): void {
     const d = dCell ? cellNumber(dCell) : undefined;
     if (dCell && d && cols.d) out.effectSizes.push({ segment: dCell.id, block: dCell.block, sentence: 0, span: d.span, printed: `${grid.header.get(cols.d.column)?.text.trim() ?? 'd'} = ${d.printed}`, kind: cols.d.kind, value: d, table: where });
     const ciCell = cols.ci ? row[cols.ci.column] : undefined;
-    if (ciCell && cols.ci) readIntervalCell(ciCell, cols.ci.level, where, out);
+    if (ciCell && cols.ci) {
+      const before = out.estimates.length;
+      const read = readIntervalCell(ciCell, cols.ci, where, out);
+      // the estimate of its own column (`Difference | 95% CI`), when the CI cell prints none
+      const estimateCell = cols.estimate !== undefined && read && out.estimates.length === before ? row[cols.estimate] : undefined;
+      const estimate = estimateCell ? cellNumber(estimateCell) : undefined;
+      if (estimateCell && estimate) out.estimates.push({ segment: estimateCell.id, block: estimateCell.block, sentence: 0, span: estimate.span, printed: `estimate = ${estimate.printed}`, value: estimate, table: where });
+    }
   }
   readLabelledCells(grid, captionDf, out);
 }
 
 /** A cell `2.06 (0.78 to 3.35)` is an estimate with its interval; `(−3.4 to 2.1)` an interval alone. */
-function readIntervalCell(cell: Segment, level: number, where: TableRow, out: TableResults): void {
+function readIntervalCell(cell: Segment, { level, levelAssumed }: { level: number; levelAssumed?: true }, where: TableRow, out: TableResults): boolean {
   const m = CELL_CI.exec(cell.text);
-  if (!m) return;
+  if (!m) return false;
   let from = 0;
   const estimate = m[1] ? numberAt(cell, m[1], from) : undefined;
   if (estimate) from = cell.text.indexOf(m[1] as string) + (m[1] as string).length;
   const low = numberAt(cell, m[2] as string, from);
   const high = low ? numberAt(cell, m[3] as string, cell.text.indexOf(m[2] as string, from) + (m[2] as string).length) : undefined;
-  if (!low || !high || low.value > high.value) return;
+  if (!low || !high || low.value > high.value) return false;
   if (estimate) out.estimates.push({ segment: cell.id, block: cell.block, sentence: 0, span: estimate.span, printed: `estimate = ${estimate.printed}`, value: estimate, table: where });
-  out.intervals.push({ segment: cell.id, block: cell.block, sentence: 0, level, low, high, span: { start: low.span.start, end: high.span.end }, printed: `${Math.round(level * 100)}% CI ${cell.text.trim()}`, table: where });
+  out.intervals.push({ segment: cell.id, block: cell.block, sentence: 0, level, low, high, span: { start: low.span.start, end: high.span.end }, printed: `${Math.round(level * 100)}% CI ${cell.text.trim()}`, table: where, ...(levelAssumed ? { levelAssumed } : {}) });
+  return true;
 }
 
 /**

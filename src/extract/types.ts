@@ -398,6 +398,8 @@ export interface IntervalReport {
   printed: string;
   /** Printed in a table: its row. */
   table?: TableRow;
+  /** A table's interval whose level neither its column header nor the table's caption prints: 95% is assumed. */
+  levelAssumed?: true;
 }
 
 /** An estimate printed with a label: `difference = 10.31`, `b = 2.48`, `MD = 3.1`. */

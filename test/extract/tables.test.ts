@@ -130,3 +130,32 @@ describe('a t column named with its test and its df in brackets', () => {
     });
   }
 });
+
+describe('a CI column: its limits whole, its estimate and its level (invented cases, probing)', () => {
+  // Critical t(58): 2.0017 for 95%, 2.6633 for 99% (scipy.stats.t.ppf). Estimate −3.8 with 95% CI
+  // −8.2 to 0.6: SE = 4.4 / 2.0017, t = 1.73, p = .089; with 99% CI −8.4 to 0.8: SE = 4.6 / 2.6633,
+  // t = 2.20, p = .032 (scipy.stats.t.sf)
+  const interval = (r: FileReport) => r.results.map((x) => [x.context.interval?.printed, x.context.estimate?.printed]);
+  it('reads a negative lower limit whole, not as an estimate and a limit split at its point', () => {
+    for (const cell of ['-8.2 to 0.6', '-8.2, 0.6', '−8.2 to 0.6']) {
+      const r = run(`| Outcome | 95% CI | t(58) | p |\n|---|---|---|---|\n| Fatigue | ${cell} | -1.73 | .089 |\n`);
+      expect(interval(r)).toEqual([[`95% CI ${cell.replace('−', '-')}`, undefined]]);
+      expect(warnings(r)).toEqual([]);
+    }
+  });
+  it('takes the estimate from a Difference column beside it, and checks the centre with it', () => {
+    const r = run('| Outcome | Difference | 95% CI | t(58) | p |\n|---|---|---|---|---|\n| Fatigue | -3.8 | -8.2 to 0.6 | -1.73 | .089 |\n| Sleep | -3.8 | -9.2 to 0.6 | -1.73 | .089 |\n');
+    expect(interval(r)).toEqual([['95% CI -8.2 to 0.6', 'estimate = -3.8'], ['95% CI -9.2 to 0.6', 'estimate = -3.8']]);
+    expect(warnings(r)).toEqual(['ci-agrees-with-result/not-centred@4']);
+  });
+  it("reads the level from the caption when the header prints none, and otherwise assumes 95% only with a note", () => {
+    const table = '| Outcome | Difference (CI) | t(58) | p |\n|---|---|---|---|\n| Fatigue | -3.8 (-8.4 to 0.8) | -2.20 | .032 |\n';
+    const at99 = run(`Table 2. Outcomes (99% confidence intervals, for three primary comparisons)\n\n${table}`);
+    expect(at99.results[0]?.context.interval?.printed).toBe('99% CI -3.8 (-8.4 to 0.8)');
+    expect(at99.findings.filter((f) => f.ruleId === 'ci-agrees-with-result')).toEqual([]);
+    const unstated = run(`Table 2. Outcomes at 12 weeks\n\n${table}`);
+    expect(unstated.findings.filter((f) => f.ruleId === 'ci-agrees-with-result').map((f) => f.level)).toEqual(['note']);
+    const at95 = run(`Table 2. Outcomes (95% confidence intervals)\n\n${table}`);
+    expect(warnings(at95)).toEqual(['ci-agrees-with-result/width-vs-t@5']);
+  });
+});
