@@ -6,6 +6,9 @@ const messages = {
 
 const BEFORE_RESULTS = /abstract|summary|method|participant|sample|subject|design|procedure/i;
 
+/** Most groups a contrast said only in words ("Post hoc comparisons …") is taken to come from (common practice, no source: designs of more groups than this are rare). */
+const MAX_CONTRAST_GROUPS = 6;
+
 /** The total N stated for the study agrees with the df of the tests, or the text says why not. */
 export const sampleSizeAgreesWithDf: Rule = {
   id: 'sample-size-agrees-with-df',
@@ -24,16 +27,20 @@ export const sampleSizeAgreesWithDf: Rule = {
     // Each test implies the number analysed: df + 2 for two independent groups, df + 1 for one
     // group or pairs; with the design unknown, either.
     // A regression coefficient's t (`b = -0.53, SE = 0.26, t(69) = …`) has the model's df,
-    // N − k − 1 for k predictors unknown here: it implies no number analysed. Nor does a t that
-    // may be a contrast within a larger analysis of variance (an F of its paragraph with its df as
-    // error df, words of planned or post hoc comparisons): its df is N − k for k groups unknown.
-    const tests = document.results.filter((r) => r.context.estimate?.item.kind !== 'coefficient' && r.pooledError === undefined);
+    // N − k − 1 for k predictors unknown here: it implies no number analysed.
+    const tests = document.results.filter((r) => r.context.estimate?.item.kind !== 'coefficient');
     const implied = tests
       .filter((r) => r.report.df && isWholeDf(r.report.df) && !r.report.plural)
       .map((r) => {
         const df = r.report.df?.value as number;
         const d = inferDesign(r);
-        return { result: r, ns: d === 'independent' ? [df + 2] : d === 'paired' || d === 'one-sample' ? [df + 1] : [df + 1, df + 2] };
+        const own = d === 'independent' ? [df + 2] : d === 'paired' || d === 'one-sample' ? [df + 1] : [df + 1, df + 2];
+        // A t that may be a contrast within a larger analysis of variance takes its error df,
+        // N − k: with an F of k groups beside it (its df1 + 1), N = df + k too; with words of
+        // contrasts only, any N = df + k for up to MAX_CONTRAST_GROUPS groups.
+        const p = r.pooledError;
+        const pooled = p === undefined ? [] : p.groups !== undefined ? [df + p.groups] : Array.from({ length: MAX_CONTRAST_GROUPS - 2 }, (_, i) => df + 3 + i);
+        return { result: r, ns: [...own, ...pooled] };
       });
     if (implied.length === 0) return [];
     const N = stated.n.value;
@@ -58,15 +65,38 @@ export const sampleSizeAgreesWithDf: Rule = {
     for (const i of within) for (const n of i.ns) if (n <= N && n > largest) largest = n;
     const shown = [...new Set(within.map((i) => i.ns.join(' or ')))].slice(0, 6).join('; ');
     const first = within[0]?.result.report;
+    // Signs that no test need use the whole N: several studies, analyses of a part of the sample,
+    // three or more groups (a t compares two of them). The N is then not tied to the tests with
+    // certainty, and the finding is a note saying why.
+    const sign = (kind: 'several-studies' | 'part-of-sample' | 'many-arms') => x.mentions.find((m) => m.kind === kind);
+    const studies = sign('several-studies');
+    const part = sign('part-of-sample');
+    // (three group sizes in one sentence of the abstract or methods that reports no statistic:
+    // "randomised to strength training (n = 40), walking (n = 40) or advice (n = 40)"; a
+    // statistic's own sentence prints its groups, the sites of an F as well as a t's two)
+    const withStatistics = new Set(x.otherStatistics.map((o) => `${o.segment}:${o.sentence}`));
+    const bySentence = new Map<string, number>();
+    for (const s of x.sampleSizes) {
+      const k = `${s.segment}:${s.sentence}`;
+      if ((s.scope === 'per-group' || s.scope === 'unspecified') && elsewhere(s) && !withStatistics.has(k) && BEFORE_RESULTS.test(x.sections[s.segment] ?? '')) bySentence.set(k, (bySentence.get(k) ?? 0) + 1);
+    }
+    const threeSizes = x.sampleSizes.find((s) => (bySentence.get(`${s.segment}:${s.sentence}`) ?? 0) >= 3);
+    const arms = sign('many-arms') ?? threeSizes;
+    const uncertain = [
+      ...(studies ? [`the text reports several studies ("${studies.printed}"), so the total need not be the sample of any one test`] : []),
+      ...(part ? [`the text says an analysis uses part of the sample ("${part.printed}")`] : []),
+      ...(arms ? [`the text describes three or more groups ("${arms.printed}"), and a t-test compares two of them`] : []),
+    ];
     const out: RuleFinding[] = [{
       messageId: 'df-imply-other-n',
       span: stated.span,
       message: fill(messages['df-imply-other-n'], { stated: stated.printed, where: x.sections[stated.segment] ?? 'before the results', implied: shown }),
       reported: stated.printed,
-      recomputed: { quantity: 'largest number analysed (df + 1 or df + 2)', low: largest, high: largest, inputs: within.map((i) => i.result.report.printed), assumptions: ['df + 2 for two independent groups, df + 1 for one group or pairs'] },
+      recomputed: { quantity: 'largest number analysed (df + 1 or df + 2)', low: largest, high: largest, inputs: within.map((i) => i.result.report.printed), assumptions: ['df + 2 for two independent groups, df + 1 for one group or pairs', ...(within.some((i) => i.result.pooledError) ? ['df + k for a contrast within an analysis of variance of k groups'] : [])] },
       check: 'Say how many participants were analysed in each test and why some were left out (a flow diagram helps).',
       related: first ? [{ span: first.span, message: 'the first test' }] : [],
       block: stated.block,
+      ...(uncertain.length > 0 ? { uncertain } : {}),
     }];
     return out;
   },

@@ -67,9 +67,10 @@ const APPROXIMATE_DF_REACH = 60;
  * analysis's pooled error term and its df (N − k): planned or post hoc contrasts, pairwise or
  * follow-up comparisons, simple effects, and the named procedures (Tukey's HSD, Fisher's LSD,
  * Scheffé, Dunnett). Not "in contrast" or "by contrast" (a connective), nor a contrast of
- * colours or stimuli: "contrast" only in the plural after nothing, or after a kind of contrast.
+ * colours or stimuli: "contrast" only in the plural after nothing, or after a kind of contrast;
+ * not "Tukey" alone (Tukey's fences for outliers, a citation), only with HSD, a test or comparisons.
  */
-const CONTRAST = /(?<![\p{L}])(?:(?:planned|a[- ]priori|orthogonal|polynomial|linear|quadratic|Helmert|post[- ]hoc|custom|pairwise|interaction) contrasts?|contrasts (?:showed|revealed|indicated|confirmed|were|was)|post[- ]?hoc (?:tests?|t[- ]tests?|comparisons?|analys[ie]s|pairwise)|pairwise (?:comparisons?|t[- ]tests?)|follow[- ]up (?:comparisons?|contrasts?|pairwise)|simple (?:main )?effects?(?: analys[ie]s| tests?)?|Tukey['’]?s?(?: HSD)?|Fisher['’]?s (?:protected )?LSD|(?<![\p{L}])LSD(?= (?:tests?|post|comparisons?|procedure))|Scheff[eé]['’]?s?|Dunnett['’]?s?)(?![\p{L}])/giu;
+const CONTRAST = /(?<![\p{L}])(?:(?:planned|a[- ]priori|orthogonal|polynomial|linear|quadratic|Helmert|post[- ]hoc|custom|pairwise|interaction) contrasts?|contrasts (?:showed|revealed|indicated|confirmed|were|was)|post[- ]?hoc (?:tests?|t[- ]tests?|comparisons?|analys[ie]s|pairwise)|pairwise (?:comparisons?|t[- ]tests?)|follow[- ]up (?:comparisons?|contrasts?|pairwise)|simple (?:main )?effects?(?: analys[ie]s| tests?)?|Tukey['’]?s?(?: HSD| honest(?:ly)? significant difference| (?:post[- ]?hoc|tests?|comparisons?|procedure|correction|method|adjustment))|Fisher['’]?s (?:protected )?LSD|LSD(?= (?:tests?|post|comparisons?|procedure))|Scheff[eé]['’]?s?|Dunnett['’]?s?)(?![\p{L}])/giu;
 /**
  * Words saying the means printed are not plain means of the scores: adjusted for covariates,
  * estimated from a model (estimated marginal, least-squares, model-based, predicted), pooled over
@@ -77,6 +78,26 @@ const CONTRAST = /(?<![\p{L}])(?:(?:planned|a[- ]priori|orthogonal|polynomial|li
  * a multiple of 1/n.
  */
 const DERIVED_MEANS = /(?<![\p{L}])(?:(?:covariate[- ]|baseline[- ])?adjusted (?:group )?means?|estimated marginal means?|EMMs?|least[- ]squares? means?|LS[- ]?means?|model[- ](?:estimated|based|predicted|derived|adjusted) (?:group )?(?:means?|estimates?|values?)|predicted (?:group )?means?|back[- ]transformed (?:group )?means?|(?:means?|estimates?) (?:were|are|was|is) (?:pooled|combined) (?:over|across) (?:the )?(?:imputations|imputed)|multiple imputation|multiply imputed)(?![\p{L}])/giu;
+/**
+ * Words saying a document reports several studies or experiments ("Across two studies (total N =
+ * 146)", "Experiments 1 and 2", "Study 2"): a total stated for them need not be the sample of any
+ * one test.
+ */
+const SEVERAL_STUDIES = /(?<![\p{L}])(?:(?:two|three|four|five|six|2|3|4|5|6) (?:separate |independent |online |preregistered |pre-registered )?(?:studies|experiments)|(?:Studies|Experiments) \d{1,2}(?: ?(?:and|,|&|–|-) ?\d{1,2})+|(?:across|in both|in all|over) (?:the |our |these )?(?:studies|experiments)|(?:Study|Experiment) (?:2|3|4|II|III|IV|two|three|four))(?![\p{L}\p{N}])/giu;
+/**
+ * Words saying the analyses use a part of the sample stated ("this analysis concerns the women",
+ * "a subgroup analysis", "in a subsample of", "restricted to the 90 women"): the total is then not
+ * the number the tests analyse.
+ */
+const PART_OF_SAMPLE = /(?<![\p{L}])(?:sub-?group analys[ie]s|sub-?groups? of|sub-?samples?|(?:this|the present|these|our|the) (?:analys[ie]s|report|paper|study) (?:concerns?|concerned|includes?|included|(?:is|was|are|were) restricted to|(?:is|was|are|were) limited to|focus(?:es|ed)? on)|(?:restricted|limited) to (?:the )?(?:\d{1,6} )?(?:women|men|girls|boys|participants|patients|those|children|adults|completers))(?![\p{L}])/giu;
+/**
+ * Words of three or more groups or arms ("randomised to one of three groups", "a three-arm trial",
+ * "randomised to strength training, walking or advice"): a t compares two of them, so it uses part
+ * of the sample.
+ */
+const MANY_ARMS = /(?<![\p{L}])(?:(?:three|four|five|six|3|4|5|6)[- ](?:arm(?:ed)?|groups?|conditions?|arms|treatment groups|intervention groups)|(?:three|four|five|six|3|4|5|6) (?:parallel |randomi[sz]ed |study |treatment |intervention |experimental )?(?:groups|arms|conditions)|(?:randomi[sz]ed|allocated|assigned)(?: (?:equally|evenly|at random|randomly|in a 1:1:1 ratio))? to [\p{L}\p{N}' -]{2,40}, [\p{L}\p{N}' -]{2,40},? (?:or|and) [\p{L}\p{N}'-]{2,20})(?![\p{L}])/giu;
+/** The heading of a list of references. */
+const REFERENCE_LIST = /^(?:references?|reference list|bibliography|works cited|literature cited|sources)$/iu;
 /** A permutation or randomization test named: a p reported with it in its sentence came from resampling. */
 const RESAMPLING_TEST = /(?<![\p{L}])(?:permutation|randomi[sz]ation) (?:t[- ])?tests?(?![\p{L}])/giu;
 /** The header R prints above a t-test's output. */
@@ -98,6 +119,9 @@ const MAY: Record<Mention['kind'], RegExp> = {
   'approximate-df': /Satterthwaite|Kenward/i,
   contrast: /contrast|post[- ]?hoc|pairwise|follow[- ]up comp|simple (?:main )?effect|Tukey|LSD|Scheff|Dunnett/i,
   'derived-means': /adjusted|marginal|EMM|squares|LS|model|predicted|transformed|pooled|combined|imput/i,
+  'several-studies': /stud|experiment/i,
+  'part-of-sample': /sub-?group|sub-?sample|restricted|limited|concern|includ|focus/i,
+  'many-arms': /three|four|five|six|[3-6][- ]|randomi|allocated|assigned/i,
 };
 
 /** Guideline-relevant words in one prose segment. */
@@ -114,8 +138,16 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
     if (m[1] === 'R' && !m[2] && !/(?<![\p{L}])R (?:software|package|version|Core|\(R Core|statistical|environment)|in R(?![\p{L}])|using R(?![\p{L}])|R \d/u.test(context)) continue;
     add('software', m, m[2]);
   }
-  for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion'], [BETWEEN_SUBJECTS, 'between-subjects'], [CONTRAST, 'contrast'], [DERIVED_MEANS, 'derived-means']] as const) {
+  for (const [re, kind] of [[MULTIPLICITY, 'multiplicity'], [TREND, 'trend'], [EXCLUSION, 'exclusion'], [BETWEEN_SUBJECTS, 'between-subjects']] as const) {
     if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) add(kind, m);
+  }
+  // words that only make a finding less certain: not in a list of references (a cited title,
+  // "Multiple imputation for nonresponse in surveys"), nor where they are denied ("Multiple
+  // imputation was not used", "raw means rather than adjusted means")
+  if (!REFERENCE_LIST.test(seg.section ?? '')) {
+    for (const [re, kind] of [[CONTRAST, 'contrast'], [DERIVED_MEANS, 'derived-means'], [SEVERAL_STUDIES, 'several-studies'], [PART_OF_SAMPLE, 'part-of-sample'], [MANY_ARMS, 'many-arms']] as const) {
+      if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) if (!deniedAt(text, m.index, m.index + m[0].length, starts)) add(kind, m);
+    }
   }
   // resampling or an approximated df denied at its words ("Permutation-based p values were not
   // computed", "no Kenward–Roger correction") says nothing of a p

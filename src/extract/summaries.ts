@@ -39,14 +39,17 @@ const SUBSET_AFTER = /^,? (?:of|among) (?:whom|them|those|these|each|both)(?![\p
 /** "in the usual-routine group", "for the walking arm" right after a group's numbers. */
 const LABEL_AFTER = /^,? (?:in|for|among|from|of) (?:the |all )?(\p{L}[\p{L}\p{N}-]{0,30}(?: \p{L}[\p{L}\p{N}-]{0,30}){0,3})/u;
 /**
- * An occasion of measurement ("baseline", "week 8", "pre-test", "follow-up", "T2"), as the words
- * that end a group's label say it ("pain fell from baseline (M = …) to week 8 (M = …)") or as
- * the words right after its numbers do ("18.2 (5.1) at baseline"). Only at that edge: an
- * occasion further off ("at week 8 the yoga group (M = …)") may be the whole sentence's.
+ * An occasion of measurement ("baseline", "week 8", "pre-test", "follow-up", "T2", "the 6-month
+ * follow-up"), as the words that end a group's label say it ("pain fell from baseline (M = …) to
+ * week 8 (M = …)") or as the words right after its numbers do ("(SD = 5.1) at baseline"). Only at
+ * that edge: an occasion further off ("at week 8 the yoga group (M = …)") may be the whole
+ * sentence's. Not a duration, an age or a wave ("after 6 weeks", "aged 8 years", "wave 2"),
+ * which may label independent groups (those treated 2 or 6 weeks, children of two ages, two
+ * cohorts).
  */
-const OCCASION_WORDS = String.raw`(?:baseline|pre-?(?:test|treatment|intervention|operative(?:ly)?|training)?|post-?(?:test|treatment|intervention|operative(?:ly)?|training)?|follow-?up|admission|discharge|(?:week|month|day|year|visit|session|wave|time) ?\d{1,3}|T\d{1,2}|(?:\d{1,3}|one|two|three|four|six|nine|twelve)[- ](?:weeks?|months?|years?|days?)(?: follow-?up)?)`;
+const OCCASION_WORDS = String.raw`(?:baseline|pre-?(?:test|treatment|intervention|operative(?:ly)?|training)?|post-?(?:test|treatment|intervention|operative(?:ly)?|training)?|follow-?up|admission|discharge|(?:week|month|day|visit|session|time) ?\d{1,3}|T\d{1,2}|(?:\d{1,3}|one|two|three|four|six|nine|twelve)[- ](?:week|month|day)s? follow-?up)`;
 const OCCASION_END = new RegExp(String.raw`(?<![\p{L}\p{N}-])(${OCCASION_WORDS})$`, 'iu');
-const OCCASION_AFTER = new RegExp(String.raw`^,? (?:at|on|in|after|by) (?:the )?(${OCCASION_WORDS})(?![\p{L}\p{N}-])`, 'iu');
+const OCCASION_AFTER = new RegExp(String.raw`^\)?,? (?:at|on|in|after|by) (?:the )?(${OCCASION_WORDS})(?![\p{L}\p{N}-])`, 'iu');
 /** A bare number (and %) up to 20 characters before the `(` of a lone spread: its mean. */
 const BARE_MEAN = /(?<![\p{L}\p{N}.,])([-+]?\d{1,9}(?:\.\d{1,9})?)( ?%)?[^\d()]{0,20}\($/u;
 /** A decimal number, then only words (its unit and a short phrase), before the `(` of a lone spread. */
@@ -61,10 +64,11 @@ const NUMBER_WORDS: ReadonlyMap<string, number> = new Map(
 /**
  * A count of people or units spelled out, as a sentence must open ("Forty participants took
  * part", "Twenty-four registered nurses", "Twelve wards"): tens, a unit after them, or a number
- * below twenty, and one word between it and the noun at most.
+ * below twenty, and one word between it and the noun at most. Never part of a larger number
+ * ("Three hundred sixty residents", "One hundred participants"), which is not read at all.
  */
 const WORDED_COUNT = new RegExp(
-  String.raw`(?<![\p{L}-])(?:(twenty|thirty|forty|fifty|sixty|seventy|eighty|ninety)(?:[- ](one|two|three|four|five|six|seven|eight|nine))?|(one|two|three|four|five|six|seven|eight|nine|ten|eleven|twelve|thirteen|fourteen|fifteen|sixteen|seventeen|eighteen|nineteen)) (?:\p{L}{3,15} )?${UNITS}(?![\p{L}])`,
+  String.raw`(?<![\p{L}-])(?<!(?:hundred|thousand)(?: and)? )(?:(twenty|thirty|forty|fifty|sixty|seventy|eighty|ninety)(?:[- ](one|two|three|four|five|six|seven|eight|nine))?|(one|two|three|four|five|six|seven|eight|nine|ten|eleven|twelve|thirteen|fourteen|fifteen|sixteen|seventeen|eighteen|nineteen)) (?!hundred |thousand )(?:\p{L}{3,15} )?${UNITS}(?![\p{L}])`,
   'giu',
 );
 // the look-behind starts a number only at the start of a digit run (recheck judges it linear then)
@@ -443,11 +447,15 @@ function countOf(text: string, at: number): { start: number; end: number } | und
 const ANALYSIS_STEP = /^ (?:the )?(?:adjustment|adjusting|correction|correcting|controlling for|exclusion|excluding|imputation|weighting)(?![\p{L}])/iu;
 
 /**
- * The words before "crossed over" when one arm or group is what crossed ("although the control
- * arm later crossed over to mentoring", "participants in the wait-list group then crossed
- * over"): a switch of treatment in one group, not units measured under both conditions.
+ * The words before "crossed over" when one arm or group, named with "the", is what crossed
+ * ("although the control arm later crossed over to mentoring", "participants in the wait-list
+ * group then crossed over"): a switch of treatment in one group, not units measured under both
+ * conditions. Not "each group", "both arms", nor "the mentoring group and the control group"
+ * (every group crossed), nor a crossing "to the other condition" (ONE_GROUP_CROSSED_TO).
  */
-const ONE_GROUP_CROSSED = /(?<![\p{L}])(?:arm|group|controls)(?: (?:later|then|subsequently|eventually|also))? (?:had |have |were |was )?$/iu;
+const ONE_GROUP_CROSSED = /(?<![\p{L}])(?<!and )the (?:[\p{L}-]{2,20} ){1,2}(?:arm|group)(?: (?:later|then|subsequently|eventually|also))? (?:had |have |were |was )?$/iu;
+/** "crossed over to the other condition": the design's crossing, whoever is said to cross. */
+const ONE_GROUP_CROSSED_TO = /^ (?:to|into) the other (?:condition|treatment|arm|group|intervention|sequence|period|diet|drug)(?![\p{L}])/iu;
 
 /**
  * Whether paired words say, where they stand, that one set of units was measured twice:
@@ -465,7 +473,7 @@ function pairedInContext(text: string, at: number, words: string, namesBothTimes
   const lower = words.toLowerCase();
   const after = text.slice(at + words.length, at + words.length + 40);
   if (lower === 'paired' && /^ with(?![\p{L}])/u.test(after)) return false;
-  if (lower === 'crossed over' && ONE_GROUP_CROSSED.test(text.slice(Math.max(0, at - 40), at))) return false;
+  if (lower === 'crossed over' && ONE_GROUP_CROSSED.test(text.slice(Math.max(0, at - 50), at)) && !ONE_GROUP_CROSSED_TO.test(after)) return false;
   if (/^(?:pre|post)-?test$/u.test(lower) && !namesBothTimes(at)) return false;
   if (lower.startsWith('before and after') && ENTRY_EVENT.test(text.slice(Math.max(0, at - 20), at))) return false;
   // "before and after adjustment for age": two steps of the analysis, not two measurements

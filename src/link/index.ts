@@ -107,7 +107,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const adjustmentOf = adjustmentJoiner(extraction, sentencesWithStatistics);
   const resampledOf = resampledJoiner(extraction, sentencesWithStatistics);
   const approximateDfOf = approximateDfJoiner(extraction, sentencesWithStatistics);
-  const pooledErrorOf = pooledErrorJoiner(extraction, sentencesWithStatistics);
+  const pooledErrorOf = pooledErrorJoiner(extraction);
   // Welch's test named where no test is reported ("Welch's t-tests were used throughout")
   // (as a test: not "Welch's method" or "Welch's ANOVA", and not in a sentence that negates it)
   // (and none where the text also names Student's test so: it then says which test its results are)
@@ -245,19 +245,22 @@ const withPooledError = (p: PooledError | undefined) => (p ? { pooledError: p } 
 
 /**
  * What says that a t may be a comparison within a larger analysis of variance, whose pooled error
- * term gives it the analysis's error df (N − k) and SE rather than its two groups' own: an F of its
- * paragraph whose error df is the t's df (`F(2, 87) = 5.10. Planned contrasts: … t(87) = 2.37`);
- * else words of contrasts or post hoc comparisons (`Planned contrasts showed …`) in its sentence,
- * its paragraph, or a sentence that reports no statistic. Such a sign only ever makes a finding on
- * the df or on the t from two groups' descriptives less certain, and only where the df is more
- * than the two groups give (rule-api pooledErrorDoubt).
+ * term gives it the analysis's error df (N − k) and SE rather than its two groups' own: an F of
+ * more than two groups in its paragraph whose error df is the t's df (`F(2, 87) = 5.10. Planned
+ * contrasts: … t(87) = 2.37`); else words of contrasts or post hoc comparisons (`Planned contrasts
+ * showed …`) in its sentence or its paragraph (words elsewhere may be about another study or
+ * outcome). Such a sign only ever makes a finding less certain: on the df or on the t from two
+ * groups' descriptives where the df is more than the two groups give (rule-api pooledErrorDoubt),
+ * and on a total N, which such a t may or may not use (sample-size-agrees-with-df).
  */
-function pooledErrorJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>): (report: TTestReport) => PooledError | undefined {
+function pooledErrorJoiner(extraction: Extraction): (report: TTestReport) => PooledError | undefined {
   // by paragraph and error df: an F of another paragraph is of another analysis (the sites of a
   // trial compared at baseline, F(2, 27), beside a paired t(27) of its conditions pages later)
+  // (an F of more than two groups: one of two, F(1, 58), is the same comparison as the t, or
+  // Levene's test of its variances, whose error df is always the t's)
   const errorDfs = new Map<string, OtherStatistic>();
   for (const o of extraction.otherStatistics) {
-    const df2 = o.kind === 'F' && o.dfs?.length === 2 ? o.dfs[1] : undefined;
+    const df2 = o.kind === 'F' && o.dfs?.length === 2 && (o.dfs[0]?.value ?? 0) >= 2 ? o.dfs[1] : undefined;
     const k = df2 && Number.isInteger(df2.value) ? `${o.segment}:${df2.value}` : undefined;
     if (k !== undefined && !errorDfs.has(k)) errorDfs.set(k, o);
   }
@@ -265,11 +268,10 @@ function pooledErrorJoiner(extraction: Extraction, withStatistics: ReadonlySet<s
   if (errorDfs.size === 0 && said.length === 0) return () => undefined;
   const bySentence = groupBy(said, sentenceKey);
   const bySegment = groupBy(said, (m) => m.segment);
-  const general = said.find((m) => !withStatistics.has(sentenceKey(m)));
   return (report) => {
     const f = report.df && Number.isInteger(report.df.value) ? errorDfs.get(`${report.segment}:${report.df.value}`) : undefined;
-    if (f) return { basis: 'error-df', span: f.span, printed: f.printed };
-    const words = bySentence.get(sentenceKey(report))?.[0] ?? bySegment.get(report.segment)?.[0] ?? general;
+    if (f) return { basis: 'error-df', span: f.span, printed: f.printed, groups: (f.dfs?.[0]?.value ?? 1) + 1 };
+    const words = bySentence.get(sentenceKey(report))?.[0] ?? bySegment.get(report.segment)?.[0];
     return words ? { basis: 'words', span: words.span, printed: words.printed } : undefined;
   };
 }

@@ -70,6 +70,8 @@ export interface PooledError {
   basis: 'error-df' | 'words';
   span: Span;
   printed: string;
+  /** For `error-df`: the number of groups the F compares (its df1 + 1), whose pooled error df is N − groups. */
+  groups?: number;
 }
 
 /**

@@ -403,7 +403,7 @@ describe('a comparison of two occasions is not the Methods\' comparison of arms 
   // Methods: a two-arm trial. Results: one arm against itself, baseline to week 8.
   const trial = '## Methods\n\nSixty inpatients were randomised to yoga (n = 30) or usual care (n = 30).\n\n## Results\n\n';
   // t(29) = 2.93: two-sided p = .0065 (scipy.stats.t.sf(2.93, 29) * 2); a paired t of 2.93 from these
-  // means and SDs needs a correlation of some .83 between the occasions, which is possible
+  // means and SDs needs an SD of the differences of 4.86 (2.6 · √30 / 2.93), a correlation of some .52 between the occasions: possible
   it('groups labelled by two occasions, before their numbers or right after them, leave the design unknown', () => {
     for (const text of [
       'In the yoga arm, pain fell from baseline (M = 18.2, SD = 5.1) to week 8 (M = 15.6, SD = 4.8), t(29) = 2.93, p = .007.',

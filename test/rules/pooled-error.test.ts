@@ -41,7 +41,8 @@ describe('a t whose df is the error df of an F in its paragraph, or beside words
     expect(note?.related?.map((x) => x.message)).toContain('the F with the same error df');
   });
   it('without such a sign, the same numbers are warnings', () => {
-    const r = run(`## Methods\n\nWe recruited 90 participants.\n\n## Results\n\n${anova}\n\n${contrast}`);
+    // (the F in another paragraph, and not said to compare three groups: that would say a t compares part of the sample)
+    const r = run(`## Methods\n\nWe recruited 90 participants.\n\n## Results\n\nA one-way ANOVA compared the conditions, F(2, 87) = 1.48, p = .233.\n\n${contrast}`);
     expect(said(r, 'df-follows-from-n')).toEqual(['warning']);
     expect(said(r, 't-follows-from-descriptives')).toEqual(['warning']);
     expect(said(r, 'sample-size-agrees-with-df')).toEqual(['warning']);

@@ -1,0 +1,86 @@
+import { describe, expect, it } from 'vitest';
+import { checkSource, type FileReport } from '../../src/engine/index.js';
+import { extract } from '../../src/extract/index.js';
+import { parseDocument } from '../../src/parse/index.js';
+
+/**
+ * Words that only make a finding less certain are read within their scope, so that they hide no
+ * true finding: not in a list of references, not where they are denied, not for a test of another
+ * paragraph; and the cues of this kind do not match look-alikes. Invented cases; numbers with
+ * scipy 1.17.1: women (5.1, 1.2, 20) and men (4.3, 1.1, 20) give Student's t(38) = 2.20, p = .034
+ * (scipy.stats.ttest_ind_from_stats), so t(48) is a wrong df; t(48) = 2.20: p = .033, t(58) =
+ * 2.10: p = .040, t(78) = 2.43: p = .017 (scipy.stats.t.sf).
+ */
+const run = (markdown: string): FileReport => checkSource('x.md', `${markdown}\n`);
+const levels = (r: FileReport, rule: string) => r.findings.filter((f) => f.ruleId === rule).map((f) => f.level);
+const kinds = (text: string, kind: string) => extract(parseDocument('x.md', `${text}\n`)).mentions.filter((m) => m.kind === kind).map((m) => m.printed);
+const anxiety = 'Women (M = 5.1, SD = 1.2, n = 20) and men (M = 4.3, SD = 1.1, n = 20) differed in anxiety, t(48) = 2.20, p = .033.';
+
+describe('contrast words', () => {
+  it('are not "Tukey" alone, a cited title, or words of another paragraph', () => {
+    expect(kinds("Outliers were identified with Tukey's fences and removed.", 'contrast')).toEqual([]);
+    expect(kinds("Post hoc comparisons used Tukey's HSD.", 'contrast')).toEqual(['Post hoc comparisons', "Tukey's HSD"]);
+    expect(kinds('## References\n\nScheffé, H. (1959). The analysis of variance. Wiley.', 'contrast')).toEqual([]);
+    // the words in another paragraph (another study, the Discussion) leave the df finding a warning
+    expect(levels(run(`## Study 1\n\nPost hoc comparisons used Tukey's HSD.\n\n## Study 2\n\n${anxiety}`), 'df-follows-from-n')).toEqual(['warning']);
+    expect(levels(run(`Post hoc comparisons used Tukey's HSD. ${anxiety}`), 'df-follows-from-n')).toEqual(['note']);
+  });
+  it("an F of two groups (Levene's test, or the same comparison) is no sign of a pooled error term", () => {
+    // Levene's F(1, 58) beside t(58), and t(28) in a subgroup: the t(58) uses the whole 60
+    const r = run("## Methods\n\nWe recruited 60 participants.\n\n## Results\n\nLevene's test indicated equal variances, F(1, 58) = 0.40, p = .53; women and men differed in anxiety, t(58) = 2.10, p = .040.\n\nAmong women only, older and younger women differed, t(28) = 2.25, p = .032.");
+    expect(levels(r, 'sample-size-agrees-with-df')).toEqual([]);
+  });
+  it('a contrast said in words may come from up to six groups, not from any number', () => {
+    // t(60) with N = 72 stated: N − k = 60 needs 12 groups
+    const r = run("## Methods\n\nWe recruited 72 participants. Post hoc comparisons used Tukey's HSD.\n\n## Results\n\nPost hoc comparisons showed that cyclists were less stressed, t(60) = 2.10, p = .040.");
+    expect(levels(r, 'sample-size-agrees-with-df')).toEqual(['warning']);
+  });
+});
+
+describe('a total N, and the tests that may use part of it', () => {
+  const trial = (methods: string) => run(`## Methods\n\n${methods}\n\n## Results\n\nPain was lower with strength training than with advice, t(78) = -2.43, p = .017.`);
+  it('three or more arms, several studies, or an analysis of part of the sample make the finding a note', () => {
+    expect(levels(trial('A total of 120 adults were randomised to strength training (n = 40), walking (n = 40) or advice (n = 40).'), 'sample-size-agrees-with-df')).toEqual(['note']);
+    expect(levels(trial('N = 120 adults were randomised equally to strength training, walking or advice.'), 'sample-size-agrees-with-df')).toEqual(['note']);
+    expect(levels(trial('Across two studies (total N = 146), we tested whether strength training eased pain.'), 'sample-size-agrees-with-df')).toEqual(['note']);
+    expect(levels(trial('The cohort comprised N = 260 adults; this analysis concerns the women who trained.'), 'sample-size-agrees-with-df')).toEqual(['note']);
+  });
+  it('three group sizes beside another statistic (an F across sites) say nothing of the arms', () => {
+    expect(levels(trial('We recruited N = 120 adults. The sites (n = 40, n = 50 and n = 30) did not differ in age, F(2, 117) = 0.40, p = .67.'), 'sample-size-agrees-with-df')).toEqual(['warning']);
+  });
+});
+
+describe('crossing over', () => {
+  // paired t of 26 pairs has 25 df; t(50) = 2.34, p = .023 (scipy.stats.t.sf) is 2n − 2
+  const result = 'Confidence was higher with mentoring (M = 14.8, SD = 3.9, n = 26) than without it (M = 12.2, SD = 4.1, n = 26), t(50) = 2.34, p = .023.';
+  it('each group, both groups, or a crossing to the other condition is a crossover design', () => {
+    for (const words of ['After a one-week washout, each group crossed over to the other condition.', 'After a washout, the mentoring group and the control group crossed over.', 'After a washout, the mentoring group crossed over to the other condition.']) {
+      expect(levels(run(`${words} ${result}`), 'design-matches-analysis')).toEqual(['warning']);
+    }
+  });
+});
+
+describe('occasions and counts in words: look-alikes', () => {
+  const occasions = (text: string) => extract(parseDocument('x.md', `${text}\n`)).summaries.map((g) => g.occasion);
+  it('a duration, an age or a wave is no occasion; words right after a closing bracket are read', () => {
+    expect(occasions('Function was better after 6 weeks (M = 24.0, SD = 4.0, n = 40) than after 2 weeks (M = 22.0, SD = 4.2, n = 40).')).toEqual([undefined, undefined]);
+    expect(occasions('Children aged 8 years (M = 12.0, SD = 2.0) and aged 6 years (M = 10.0, SD = 2.0).')).toEqual([undefined, undefined]);
+    expect(occasions('Trust in wave 2 (M = 3.1, SD = 0.8) and wave 1 (M = 3.3, SD = 0.7).')).toEqual([undefined, undefined]);
+    expect(occasions('Pain (M = 18.2, SD = 5.1) at baseline fell to (M = 15.6, SD = 4.8) at week 8.')).toEqual(['baseline', 'week8']);
+  });
+  it('a number word that is part of a larger number is not read', () => {
+    const counts = (text: string) => extract(parseDocument('x.md', `${text}\n`)).unitCounts.filter((c) => c.worded).map((c) => c.value);
+    expect(counts('Three hundred sixty residents and one hundred participants replied.')).toEqual([]);
+    expect(counts('Sixty residents replied.')).toEqual([60]);
+  });
+});
+
+describe('derived-means words', () => {
+  const falls = (words: string) => levels(run(`## Methods\n\nThe outcome was the number of falls over 12 months, a whole-number count. ${words}\n\n## Results\n\nThe mean number of falls was 1.37 (SD 1.42, n = 25) with exercise.\n\n## References\n\nA. Author (1987). Multiple imputation for surveys. Invented Press.`), 'mean-is-possible-for-integers');
+  it('denied, or only in a cited title, leave the GRIM finding a warning', () => {
+    // GRIM (common practice, no source): 1.37 × 25 = 34.25, no whole number
+    expect(falls('Multiple imputation was not used: all participants completed follow-up.')).toEqual(['warning']);
+    expect(falls('We report raw means rather than adjusted means.')).toEqual(['warning']);
+    expect(falls('')).toEqual(['warning']);
+  });
+});
