@@ -59,6 +59,16 @@ const RESTRICTED_SCOPE = new RegExp(
   String.raw`(?<![\p{L}])(?:only (?:for|in|when|where|if)|(?:for|in) (?:the |our )?${KINDS} (?:[\p{L}-]+ )?${TESTS_NOUN}|in (?:Study|Experiment|Sample|Phase|Cohort|Trial|Part) (?:\d+|[IVX]+|[A-Z])|(?:except(?: for)?|with the exception of|apart from|other than) (?:the |a |an |one |two |three |our )?(?:[\p{L}-]+ ){0,3}${TESTS_NOUN}|(?:where|when|if) (?:a |the )?direction (?:was|were|is|are|had been) (?:predicted|specified|stated|expected|hypothesi[sz]ed)|${TESTS_NOUN} (?:that|which) (?:predicted|specified|stated) a direction)(?![\p{L}])`,
   'iu',
 );
+/**
+ * A side test named in the sentence: a check of an assumption (normality, equal variances,
+ * sphericity), of heterogeneity between sites or studies, of an interaction or effect
+ * modification, of goodness of fit. An alpha or tails said in such a sentence ("Normality was
+ * checked with the Shapiro–Wilk test at α = .10", "Interaction terms were tested at alpha = .10")
+ * is that test's, not the t-tests' (SIDE_TEST_AND_T: unless the sentence names the t-tests too).
+ */
+const SIDE_TEST = /(?<![\p{L}])(?:normality|Shapiro[-–‐ ]Wilk|Kolmogorov[-–‐ ]Smirnov|Lilliefors|Anderson[-–‐ ]Darling|Levene['’]?s?|Brown[-–‐ ]Forsythe|Bartlett['’]?s?|homogeneity|equality of variances?|equal variances|sphericity|Mauchly['’]?s?|heterogeneity|Cochran['’]?s Q|I²|I\^2|interaction(?:s| terms?| effects?)?|effect modification|modera(?:tion|tor|tors|ting)|goodness[- ]of[- ]fit|Hosmer[-–‐ ]Lemeshow|outliers?|Egger['’]?s?)(?![\p{L}])/iu;
+/** Words naming the t-tests themselves, or every test: a side test named beside them does not take the statement. */
+const SIDE_TEST_AND_T = /(?<![\p{L}])(?:t[- ]tests?|all (?:other |remaining )?(?:tests|analyses|comparisons|hypotheses)|every (?:other )?test|otherwise|main (?:analys[ie]s|comparisons?|effects?)|primary)(?![\p{L}])/iu;
 /** Words of a power or sample-size calculation: its tails and alpha size the study, they do not say how its tests were run. */
 const PLANNING = /(?<![\p{L}])(?:power(?:ed)?|to detect|sample size|sample-size|G\*Power|minimum (?:detectable|effect))(?![\p{L}])/iu;
 
@@ -112,7 +122,7 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     let r = readings.get(i);
     if (!r) {
       const sentence = text.slice(sentenceStarts[i] as number, sentenceStarts[i + 1] ?? text.length);
-      r = { planning: PLANNING.test(sentence), general: GENERAL_WORDS.test(sentence), local: LOCAL_ALPHA.test(sentence), restricted: RESTRICTED_SCOPE.test(sentence) || KIND_SUBJECT.test(sentence), single: ONE_TEST.test(sentence) };
+      r = { planning: PLANNING.test(sentence), general: GENERAL_WORDS.test(sentence), local: LOCAL_ALPHA.test(sentence), restricted: RESTRICTED_SCOPE.test(sentence) || KIND_SUBJECT.test(sentence) || (SIDE_TEST.test(sentence) && !SIDE_TEST_AND_T.test(sentence)), single: ONE_TEST.test(sentence) };
       readings.set(i, r);
     }
     return r;

@@ -84,3 +84,18 @@ describe('derived-means words', () => {
     expect(falls('')).toEqual(['warning']);
   });
 });
+
+describe('an alpha or tails said of a side test', () => {
+  // t(58) = 1.90: two-tailed p = .062, one-tailed .031 (scipy.stats.t.sf); "ns" is right at α = .05, wrong at .10
+  const result = '## Results\n\nMood did not differ between exercise and stretching, t(58) = 1.90, ns.';
+  const flip = (methods: string) => levels(run(`## Methods\n\n${methods}\n\n${result}`), 'significance-follows-from-t');
+  it('is the side test\'s: an assumption check, heterogeneity, an interaction', () => {
+    for (const words of ['Normality was checked with the Shapiro–Wilk test at α = .10.', 'Interaction terms were tested at alpha = .10, as is usual for effect modification.', "Heterogeneity between the sites was tested with Cochran's Q at a significance level of .10."]) {
+      expect(flip(words)).toEqual([]);
+    }
+  });
+  it('said of the t-tests or of every test beside it, it is theirs', () => {
+    expect(flip('Normality was checked with the Shapiro–Wilk test, and all tests used α = .10.')).toEqual(['error']);
+    expect(flip('Significance was set at α = .10.')).toEqual(['error']);
+  });
+});
