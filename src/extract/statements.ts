@@ -69,6 +69,15 @@ const RESTRICTED_SCOPE = new RegExp(
 const SIDE_TEST = /(?<![\p{L}])(?:normality|Shapiro[-–‐ ]Wilk|Kolmogorov[-–‐ ]Smirnov|Lilliefors|Anderson[-–‐ ]Darling|Levene['’]?s?|Brown[-–‐ ]Forsythe|Bartlett['’]?s?|homogeneity|equality of variances?|equal variances|sphericity|Mauchly['’]?s?|heterogeneity|Cochran['’]?s Q|I²|I\^2|interaction(?:s| terms?| effects?)?|effect modification|modera(?:tion|tor|tors|ting)|goodness[- ]of[- ]fit|Hosmer[-–‐ ]Lemeshow|outliers?|Egger['’]?s?)(?![\p{L}])/iu;
 /** Words naming the t-tests themselves, or every test: a side test named beside them does not take the statement. */
 const SIDE_TEST_AND_T = /(?<![\p{L}])(?:t[- ]tests?|all (?:other |remaining )?(?:tests|analyses|comparisons|hypotheses)|every (?:other )?test|otherwise|main (?:analys[ie]s|comparisons?|effects?)|primary)(?![\p{L}])/iu;
+/**
+ * Words after a tails word that make it the label of a p value printed right after it ("one-tailed
+ * p = .037", "one-sided p-value of .04", "a one-tailed test, as preregistered, gives p = .037").
+ */
+export const LABELS_P = /^[- ]?(?:\(? ?(?:p|P)(?:[- ]?values?)? ?(?:=|<|>|≤|≥|:|of|would be|was|is) ?0?\.\d|(?:test|tests|t-test|analysis|version),?(?: [\p{L}-]{1,20},?){0,4} (?:gives|gave|yields|yielded|returns|returned|would give) (?:a )?p ?(?:=|<|of) ?0?\.\d)/u;
+/** A p value printed right before a tails word ("or p = .037 one-tailed"): the tails are that p's. */
+export const P_BEFORE = /(?<![\p{L}])(?:p|P) ?(?:=|<|>|≤|≥) ?0?\.\d{1,12},? ?\(?$/u;
+/** A p value in the words between a result's own p and a tails word: the tails may be that second p's. */
+export const A_P_VALUE = /(?<![\p{L}])(?:p|P) ?(?:=|<|>|≤|≥) ?0?\.\d/u;
 /** Words of a power or sample-size calculation: its tails and alpha size the study, they do not say how its tests were run. */
 const PLANNING = /(?<![\p{L}])(?:power(?:ed)?|to detect|sample size|sample-size|G\*Power|minimum (?:detectable|effect))(?![\p{L}])/iu;
 
@@ -134,7 +143,9 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     if (!ANALYSIS_WORD.test(near)) continue;
     const sentence = sentenceOfAt(m.index);
     const planning = sentence.planning;
-    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: !planning && sentence.general && !sentence.restricted, ...(planning ? { planning } : {}), ...(sentence.restricted ? { restricted: true as const } : {}), ...(sentence.single && !sentence.general ? { single: true as const } : {}), ...base(m.index, m.index + m[0].length) });
+    const end = m.index + m[0].length;
+    const labelsP = LABELS_P.test(text.slice(end, end + 60)) ? ('after' as const) : P_BEFORE.test(text.slice(Math.max(0, m.index - 24), m.index)) ? ('before' as const) : undefined;
+    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: !planning && sentence.general && !sentence.restricted, ...(planning ? { planning } : {}), ...(sentence.restricted ? { restricted: true as const } : {}), ...(sentence.single && !sentence.general ? { single: true as const } : {}), ...(labelsP ? { labelsP } : {}), ...base(m.index, end) });
   }
   if (/equivalen|TOST|one-sided|inferiority/i.test(text)) for (const m of matchesOf(EQUIVALENCE, text)) {
     out.push({ kind: 'equivalence', sidedness: 'one', ...base(m.index, m.index + m[0].length) });

@@ -5,6 +5,7 @@ import { comparisonsIn } from './comparisons.js';
 import { decimalsOf, starBound } from './stars.js';
 import type { AdjustMethod, Comparison, ReportedNumber, ReportedP, ReportStyle, Sidedness, TTestReport } from './types.js';
 import { matchesOf } from './matches.js';
+import { A_P_VALUE, LABELS_P } from './statements.js';
 
 // Building blocks. Every quantifier is bounded or over a character class disjoint from what
 // follows it, so no pattern can backtrack super-linearly (checked by test/regex-safety).
@@ -269,7 +270,13 @@ function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceSta
   if (anchor.style === 'attached-df' && !p) return undefined;
   if (seg.kind === 'code' && !(df && p)) return undefined;
   const tailText = text.slice(anchor.start, Math.min(text.length, end + 40));
-  const sided = SIDED_NEAR.exec(tailText);
+  const near = SIDED_NEAR.exec(tailText);
+  // a tails word after the result's own p that labels a second p ("p = .075 (one-tailed p =
+  // .037)") is that p's, not this result's
+  const pEnd = p ? indexOfSpanEnd(seg, p) - anchor.start : -1;
+  const after = near ? anchor.start + near.index + near[0].length : 0;
+  const labelsAnother = near && p && near.index >= pEnd && (LABELS_P.test(text.slice(after, after + 60)) || A_P_VALUE.test(tailText.slice(pEnd, near.index)));
+  const sided = labelsAnother ? null : near;
   const before = text.slice(Math.max(0, anchor.start - 60), anchor.start);
   const variant = VARIANT_BEFORE.exec(before);
   const sentence = sentenceOf(sentenceStarts, anchor.start);

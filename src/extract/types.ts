@@ -70,6 +70,12 @@ export interface ContextStatement {
   restricted?: true;
   /** For `sidedness` and `alpha`: said of one test ("the hypothesis was tested one-tailed"), in no words about every test. */
   single?: true;
+  /**
+   * For `sidedness`: the tails word labels a p value printed right after it ("one-tailed p =
+   * .037", `after`) or right before it ("p = .037 one-tailed", `before`): that p's tails, not
+   * another's.
+   */
+  labelsP?: 'after' | 'before';
   /** For `multiplicity`: the correction named, and the number of comparisons when printed. */
   method?: AdjustMethod;
   comparisons?: number;

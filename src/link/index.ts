@@ -334,15 +334,23 @@ interface ParagraphReading {
   alpha?: Setting<number>;
 }
 
+/** Most characters between a result's own p and a tails word right after it that labels that p ("p = .037, one-tailed"). */
+const LABEL_GAP = 4;
+
 /**
  * A result's tails: said in the report itself, else by the tails word of its sentence nearest to
  * it (distances to the sentence's t-tests decide; a statistic takes a word no t-test is nearer
  * to), an equivalence test, its paragraph, the fallback.
  */
-function sidednessFor(stated: { value: Sidedness; span: Span } | undefined, report: { span: Span }, sentence: SentenceReading, paragraph: ParagraphReading, fallback: Setting<Sidedness>): Setting<Sidedness> {
+function sidednessFor(stated: { value: Sidedness; span: Span } | undefined, report: { span: Span; p?: { span: Span } }, sentence: SentenceReading, paragraph: ParagraphReading, fallback: Setting<Sidedness>): Setting<Sidedness> {
   if (stated) return { value: stated.value, basis: 'in-report', span: stated.span };
-  // With several tests in one sentence, a tails word belongs to the test nearest to it (ties: each).
-  const sided = sentence.sided.find((s, i) => distance(s, report) <= (sentence.nearestDistance[i] as number));
+  // With several tests in one sentence, a tails word belongs to the test nearest to it (ties: each);
+  // not one that labels a p printed after the result's own ("p = .075 (one-tailed p = .037)"): that
+  // is a second p, with tails of its own
+  const ownP = report.p;
+  const labelsAnother = (s: ContextStatement) =>
+    ownP !== undefined && ownP.span.end <= s.span.start && (s.labelsP === 'after' || (s.labelsP === 'before' && s.span.start - ownP.span.end > LABEL_GAP));
+  const sided = sentence.sided.find((s, i) => !labelsAnother(s) && distance(s, report) <= (sentence.nearestDistance[i] as number));
   if (sided) return { value: sided.sidedness as Sidedness, basis: 'sentence', span: sided.span, printed: sided.printed };
   const equivalence = sentence.equivalence;
   if (equivalence) return { value: 'one', basis: 'equivalence-test', span: equivalence.span, printed: equivalence.printed };

@@ -99,3 +99,23 @@ describe('an alpha or tails said of a side test', () => {
     expect(flip('Significance was set at α = .10.')).toEqual(['error']);
   });
 });
+
+describe('a tails word that labels a second p', () => {
+  // t(29) = 1.85: two-tailed p = .075, one-tailed .037 (scipy.stats.t.sf)
+  const of = (markdown: string) => run(markdown).findings.filter((f) => f.level !== 'note').map((f) => `${f.ruleId}/${f.level}`);
+  it('is that p\'s, not the result\'s own p\'s', () => {
+    for (const text of ['Wellbeing was higher, t(29) = 1.85, p = .075 (one-tailed p = .037).', 'Wellbeing was higher, t(29) = 1.85, p = .075, or p = .037 one-tailed.', 'Wellbeing was higher, t(29) = 1.85, p = .075; a one-tailed test, as preregistered, gives p = .037.']) {
+      const r = run(text);
+      expect(r.results[0]?.sidedness.value).toBe('two');
+      expect(of(text)).toEqual([]);
+    }
+  });
+  it("labelling the result's own p, the tails are its own", () => {
+    for (const text of ['Wellbeing was higher, t(29) = 1.85, one-tailed p = .037.', 'Wellbeing was higher, t(29) = 1.85, p = .037, one-tailed.', 'Wellbeing was higher, t(29) = 1.85, p = .037 (one-tailed).']) {
+      expect(run(text).results[0]?.sidedness.value).toBe('one');
+      expect(of(text)).toEqual([]);
+    }
+    // the two-tailed p labelled one-tailed is still an error
+    expect(of('Wellbeing was higher, t(29) = 1.85, p = .075, one-tailed.')).toEqual(['significance-follows-from-t/error']);
+  });
+});
