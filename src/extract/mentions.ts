@@ -96,6 +96,12 @@ const PART_OF_SAMPLE = /(?<![\p{L}])(?:sub-?group analys[ie]s|sub-?groups? of|su
  * of the sample.
  */
 const MANY_ARMS = /(?<![\p{L}])(?:(?:three|four|five|six|3|4|5|6)[- ](?:arm(?:ed)?|groups?|conditions?|arms|treatment groups|intervention groups)|(?:three|four|five|six|3|4|5|6) (?:parallel |randomi[sz]ed |study |treatment |intervention |experimental )?(?:groups|arms|conditions)|(?:randomi[sz]ed|allocated|assigned)(?: (?:equally|evenly|at random|randomly|in a 1:1:1 ratio))? to [\p{L}\p{N}' -]{2,40}, [\p{L}\p{N}' -]{2,40},? (?:or|and) [\p{L}\p{N}'-]{2,20})(?![\p{L}])/giu;
+/**
+ * Words saying values were transformed for the analysis ("log-transformed for the t-tests", "a
+ * t-test on log-transformed values", "analysed on the log scale", "geometric means"): a t of the
+ * transformed values does not follow from the untransformed means and SDs printed beside it.
+ */
+const TRANSFORMED = /(?<![\p{L}])(?:(?:natural[- ])?log(?:arithm(?:ic(?:ally)?)?)?(?:[- ]?(?:10|e|2))?[- ]?transform(?:ed|ation|ing)?|ln[- ]transform(?:ed|ation)?|(?:square[- ]root|cube[- ]root|reciprocal|inverse|Box[- ]Cox|arcsine|logit|rank(?:-based)? inverse[- ]normal)[- ]?transform(?:ed|ation|ing)?|(?:on|of|using) (?:the )?(?:log(?:arithms?)?|logged|natural log|ln)(?: |-)(?:values|scores|data|scale|concentrations|counts|times)|(?:analy[sz]ed|tested|compared) on (?:a|the) log(?:arithmic)? scale|geometric means?)(?![\p{L}])/giu;
 /** The heading of a list of references. */
 const REFERENCE_LIST = /^(?:references?|reference list|bibliography|works cited|literature cited|sources)$/iu;
 /** A permutation or randomization test named: a p reported with it in its sentence came from resampling. */
@@ -122,6 +128,7 @@ const MAY: Record<Mention['kind'], RegExp> = {
   'several-studies': /stud|experiment/i,
   'part-of-sample': /sub-?group|sub-?sample|restricted|limited|concern|includ|focus/i,
   'many-arms': /three|four|five|six|[3-6][- ]|randomi|allocated|assigned/i,
+  transformed: /transform|log|ln[- ]|geometric/i,
 };
 
 /** Guideline-relevant words in one prose segment. */
@@ -145,7 +152,7 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
   // "Multiple imputation for nonresponse in surveys"), nor where they are denied ("Multiple
   // imputation was not used", "raw means rather than adjusted means")
   if (!REFERENCE_LIST.test(seg.section ?? '')) {
-    for (const [re, kind] of [[CONTRAST, 'contrast'], [DERIVED_MEANS, 'derived-means'], [SEVERAL_STUDIES, 'several-studies'], [PART_OF_SAMPLE, 'part-of-sample'], [MANY_ARMS, 'many-arms']] as const) {
+    for (const [re, kind] of [[CONTRAST, 'contrast'], [DERIVED_MEANS, 'derived-means'], [SEVERAL_STUDIES, 'several-studies'], [PART_OF_SAMPLE, 'part-of-sample'], [MANY_ARMS, 'many-arms'], [TRANSFORMED, 'transformed']] as const) {
       if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) if (!deniedAt(text, m.index, m.index + m[0].length, starts)) add(kind, m);
     }
   }

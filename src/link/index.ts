@@ -108,6 +108,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const resampledOf = resampledJoiner(extraction, sentencesWithStatistics);
   const approximateDfOf = approximateDfJoiner(extraction, sentencesWithStatistics);
   const pooledErrorOf = pooledErrorJoiner(extraction);
+  const transformedOf = transformedJoiner(extraction, sentencesWithStatistics);
   // Welch's test named where no test is reported ("Welch's t-tests were used throughout")
   // (as a test: not "Welch's method" or "Welch's ANOVA", and not in a sentence that negates it)
   // (and none where the text also names Student's test so: it then says which test its results are)
@@ -134,6 +135,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       ...withResampled(resampledOf(report)),
       ...withApproximateDf(approximateDfOf(report)),
       ...withPooledError(pooledErrorOf(report)),
+      ...withTransformed(transformedOf(report)),
     };
   });
   const statistics: LinkedStatistic[] = [];
@@ -239,6 +241,24 @@ function approximateDfJoiner(extraction: Extraction, withStatistics: ReadonlySet
   const bySentence = groupBy(said, sentenceKey);
   const general = said.find((m) => !withStatistics.has(sentenceKey(m)));
   return (at) => bySentence.get(sentenceKey(at))?.[0] ?? general;
+}
+
+const withTransformed = (m: Mention | undefined) => (m ? { transformed: m } : {});
+
+/**
+ * Words saying values were transformed for the analysis (extract's `transformed`) that may speak
+ * of a result: in its sentence, its paragraph (a table's note is a paragraph of its own: "t-tests
+ * were performed on log-transformed values"), or a sentence of the text that reports no
+ * statistic. Such words only ever make a finding on the t from the printed descriptives less
+ * certain, so they are read at that scope.
+ */
+function transformedJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>): (report: TTestReport) => Mention | undefined {
+  const said = extraction.mentions.filter((m) => m.kind === 'transformed');
+  if (said.length === 0) return () => undefined;
+  const bySentence = groupBy(said, sentenceKey);
+  const bySegment = groupBy(said, (m) => m.segment);
+  const general = said.find((m) => !withStatistics.has(sentenceKey(m)));
+  return (report) => bySentence.get(sentenceKey(report))?.[0] ?? bySegment.get(report.segment)?.[0] ?? general;
 }
 
 const withPooledError = (p: PooledError | undefined) => (p ? { pooledError: p } : {});

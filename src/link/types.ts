@@ -63,6 +63,12 @@ export interface LinkedResult {
    * follow from its two groups alone.
    */
   pooledError?: PooledError;
+  /**
+   * Words saying values were transformed for the analysis ("log-transformed for the t-tests",
+   * "geometric means"), in its sentence, its paragraph or a sentence that reports no statistic:
+   * its t may be of the transformed values, which the untransformed descriptives do not give.
+   */
+  transformed?: Mention;
 }
 
 /** What says a t may take a larger analysis's pooled error term: an F with its df as error df, or words of contrasts. */

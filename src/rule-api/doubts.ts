@@ -48,8 +48,19 @@ export function pooledErrorDoubt(result: LinkedResult, ownDf?: number): { uncert
   return { uncertain: [text], related: [{ span: p.span, message: p.basis === 'error-df' ? 'the F with the same error df' : 'the words about comparisons' }] };
 }
 
-/** A finding with the pooled-error doubt (pooledErrorDoubt) added to its own, if any. */
-export function withPooledErrorDoubt<F extends { uncertain?: string[]; related?: Array<{ span: Span; message: string }> }>(finding: F, doubt: ReturnType<typeof pooledErrorDoubt>): F {
+/** A finding with a doubt (pooledErrorDoubt, transformedDoubt) added to its own uncertainty and related places, if there is one. */
+export function withDoubt<F extends { uncertain?: string[]; related?: Array<{ span: Span; message: string }> }>(finding: F, doubt: { uncertain: string[]; related: Array<{ span: Span; message: string }> } | undefined): F {
   if (!doubt) return finding;
   return Object.assign({}, finding, { uncertain: [...(finding.uncertain ?? []), ...doubt.uncertain], related: [...(finding.related ?? []), ...doubt.related] });
+}
+
+/**
+ * `{ uncertain, related }` for a finding that recomputes a t from the printed means and SDs, where
+ * the text says values were transformed for the analysis (result.transformed): the t may be of the
+ * transformed values, which the printed, untransformed descriptives do not give.
+ */
+export function transformedDoubt(result: LinkedResult): { uncertain: string[]; related: Array<{ span: Span; message: string }> } | undefined {
+  const m = result.transformed;
+  if (!m) return undefined;
+  return { uncertain: [`the text says values were transformed for the analysis ("${m.printed.trim()}"), so the t may be of transformed values, which the printed descriptives do not give`], related: [{ span: m.span, message: 'the words about the transformation' }] };
 }

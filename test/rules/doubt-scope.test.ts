@@ -119,3 +119,19 @@ describe('a tails word that labels a second p', () => {
     expect(of('Wellbeing was higher, t(29) = 1.85, p = .075, one-tailed.')).toEqual(['significance-follows-from-t/error']);
   });
 });
+
+describe('words saying values were transformed for the analysis', () => {
+  // untransformed (1.48, 0.78, 40) and (1.79, 0.67, 42): Student's t = −1.93 (scipy.stats.ttest_ind_from_stats);
+  // t(80) = −2.46 (p = .016, scipy.stats.t.sf) can only be of the log values, which are not printed
+  const result = 'Triglycerides were lower with fish oil (M = 1.48, SD = 0.78, n = 40) than with placebo (M = 1.79, SD = 0.67, n = 42), t(80) = -2.46, p = .016.';
+  const of = (markdown: string) => levels(run(markdown), 't-follows-from-descriptives');
+  it('in the Methods, the result\'s sentence or a table\'s note make the t from the descriptives a note', () => {
+    expect(of(`## Methods\n\nTriglycerides were log-transformed for the t-tests; untransformed means are shown.\n\n## Results\n\n${result}`)).toEqual(['note']);
+    expect(of(result.replace('p = .016.', 'p = .016 (t-test on log-transformed values).'))).toEqual(['note']);
+    expect(of(`## Methods\n\nGroups were compared on the log scale: geometric means are reported in Table 3.\n\n## Results\n\n${result}`)).toEqual(['note']);
+  });
+  it('denied, or absent, they leave it a warning', () => {
+    expect(of(`## Methods\n\nValues were not log-transformed.\n\n## Results\n\n${result}`)).toEqual(['warning']);
+    expect(of(`## Methods\n\nA logistic model was fitted to the adverse events.\n\n## Results\n\n${result}`)).toEqual(['warning']);
+  });
+});
