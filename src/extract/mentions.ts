@@ -102,6 +102,12 @@ const MANY_ARMS = /(?<![\p{L}])(?:(?:three|four|five|six|3|4|5|6)[- ](?:arm(?:ed
  * transformed values does not follow from the untransformed means and SDs printed beside it.
  */
 const TRANSFORMED = /(?<![\p{L}])(?:(?:natural[- ])?log(?:arithm(?:ic(?:ally)?)?)?(?:[- ]?(?:10|e|2))?[- ]?transform(?:ed|ation|ing)?|ln[- ]transform(?:ed|ation)?|(?:square[- ]root|cube[- ]root|reciprocal|inverse|Box[- ]Cox|arcsine|logit|rank(?:-based)? inverse[- ]normal)[- ]?transform(?:ed|ation|ing)?|(?:on|of|using) (?:the )?(?:log(?:arithms?)?|logged|natural log|ln)(?: |-)(?:values|scores|data|scale|concentrations|counts|times)|(?:analy[sz]ed|tested|compared) on (?:a|the) log(?:arithmic)? scale|geometric means?)(?![\p{L}])/giu;
+/**
+ * Words naming an exact test or a corrected χ² (Fisher's exact test, "exact p", Freeman–Halton,
+ * mid-p, Yates's continuity correction, Monte Carlo p): a p printed beside a χ² with them may be that
+ * test's, not the upper tail of the χ² printed.
+ */
+const EXACT_TEST = /(?<![\p{L}])(?:Fisher['’]?s?(?:[-–‐ ](?:Freeman[-–‐ ]Halton|Irwin))?(?: exact)?(?: tests?| p| probability| method)|Fisher['’]?s? exact|exact (?:p|p[- ]values?|tests?|binomial tests?|probabilit(?:y|ies))|Freeman[-–‐ ]Halton|mid[- ]p|Yates['’]?s?(?: continuity)? correct(?:ion|ed)|continuity[- ]correct(?:ion|ed)|Monte Carlo p|Barnard['’]?s? (?:exact )?test|Boschloo['’]?s? test)(?![\p{L}])/giu;
 /** The heading of a list of references. */
 const REFERENCE_LIST = /^(?:references?|reference list|bibliography|works cited|literature cited|sources)$/iu;
 /** A permutation or randomization test named: a p reported with it in its sentence came from resampling. */
@@ -129,6 +135,7 @@ const MAY: Record<Mention['kind'], RegExp> = {
   'part-of-sample': /sub-?group|sub-?sample|restricted|limited|concern|includ|focus/i,
   'many-arms': /three|four|five|six|[3-6][- ]|randomi|allocated|assigned/i,
   transformed: /transform|log|ln[- ]|geometric/i,
+  'exact-test': /Fisher|exact|Freeman|mid[- ]p|Yates|continuity|Monte Carlo|Barnard|Boschloo/i,
 };
 
 /** Guideline-relevant words in one prose segment. */
@@ -152,7 +159,7 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
   // "Multiple imputation for nonresponse in surveys"), nor where they are denied ("Multiple
   // imputation was not used", "raw means rather than adjusted means")
   if (!REFERENCE_LIST.test(seg.section ?? '')) {
-    for (const [re, kind] of [[CONTRAST, 'contrast'], [DERIVED_MEANS, 'derived-means'], [SEVERAL_STUDIES, 'several-studies'], [PART_OF_SAMPLE, 'part-of-sample'], [MANY_ARMS, 'many-arms'], [TRANSFORMED, 'transformed']] as const) {
+    for (const [re, kind] of [[CONTRAST, 'contrast'], [DERIVED_MEANS, 'derived-means'], [SEVERAL_STUDIES, 'several-studies'], [PART_OF_SAMPLE, 'part-of-sample'], [MANY_ARMS, 'many-arms'], [TRANSFORMED, 'transformed'], [EXACT_TEST, 'exact-test']] as const) {
       if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) if (!deniedAt(text, m.index, m.index + m[0].length, starts)) add(kind, m);
     }
   }

@@ -143,6 +143,13 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const groupsOf = fGroupsJoiner(extraction);
   const coefficientOf = coefficientBeforeJoiner(extraction);
   const repeatedMeasuresOf = repeatedMeasuresJoiner(extraction);
+  // an exact test or a corrected χ² named in a χ²'s sentence, or in a sentence that reports no
+  // statistic ("Fisher's exact test was used where expected counts were below 5"): its p may be that test's
+  const exactOf = approximateDfJoiner(extraction, sentencesWithStatistics, 'exact-test');
+  const exactDoubt = (o: OtherStatistic): string[] => {
+    const m = o.kind === 'chi-square' ? exactOf(o) : undefined;
+    return m ? [`"${m.printed.trim()}" is named beside χ², so its p may be that test's rather than the upper tail of the χ² printed`] : [];
+  };
   for (const o of extraction.otherStatistics) {
     if (o.kind !== 'F' && o.kind !== 'chi-square' && o.kind !== 'correlation' && o.kind !== 'z') continue;
     const report = o as LinkedStatistic['report'];
@@ -159,7 +166,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       alpha: alphaFor(reading, paragraphOf(o.segment), documentAlpha),
       sidedness,
       ...(elsewhere ? { untiedSidedness: elsewhere } : {}),
-      doubts: o.doubt ? [o.doubt] : [],
+      doubts: [...(o.doubt ? [o.doubt] : []), ...exactDoubt(o)],
       ...(dimensions ? { dimensions } : {}),
       ...(groups ? { groups } : {}),
       ...(coefficient ? { coefficient } : {}),
@@ -231,12 +238,13 @@ const withResampled = (m: Mention | undefined) => (m ? { resampledP: m } : {});
 const withApproximateDf = (m: Mention | undefined) => (m ? { approximateDf: m } : {});
 
 /**
- * The words saying dfs were approximated (Satterthwaite, Kenward–Roger) that speak of a result:
- * in its own sentence, else the first in a sentence that reports no statistic. Such words only
- * ever make a finding less certain, as a whole df may then be a rounded one.
+ * The words saying dfs were approximated (Satterthwaite, Kenward–Roger), or naming an exact test
+ * beside a χ² (`kind`), that speak of a result: in its own sentence, else the first in a sentence
+ * that reports no statistic. Such words only ever make a finding less certain, as a whole df may
+ * then be a rounded one, or a p an exact test's.
  */
-function approximateDfJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>): (at: { segment: number; sentence: number }) => Mention | undefined {
-  const said = extraction.mentions.filter((m) => m.kind === 'approximate-df');
+function approximateDfJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>, kind: 'approximate-df' | 'exact-test' = 'approximate-df'): (at: { segment: number; sentence: number }) => Mention | undefined {
+  const said = extraction.mentions.filter((m) => m.kind === kind);
   if (said.length === 0) return () => undefined;
   const bySentence = groupBy(said, sentenceKey);
   const general = said.find((m) => !withStatistics.has(sentenceKey(m)));

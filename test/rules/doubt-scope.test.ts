@@ -135,3 +135,17 @@ describe('words saying values were transformed for the analysis', () => {
     expect(of(`## Methods\n\nA logistic model was fitted to the adverse events.\n\n## Results\n\n${result}`)).toEqual(['warning']);
   });
 });
+
+describe('an exact test named beside a χ²', () => {
+  // χ²(1) = 5.57: upper-tail p = .018 (scipy.stats.chi2.sf); p = .047 is another test's p
+  const of = (markdown: string) => levels(run(markdown), 'p-follows-from-chi-square');
+  it('in its sentence or in the Methods, makes a p that does not follow from the χ² a note', () => {
+    expect(of('Escalation was more frequent after the training (9 of 12 vs 4 of 14; χ²(1) = 5.57, Fisher\'s exact p = .047).')).toEqual(['note']);
+    expect(of('Escalation was more frequent after the training, χ²(1) = 5.57, exact p = .047.')).toEqual(['note']);
+    expect(of("## Methods\n\nFisher's exact test was used where expected counts were below 5.\n\n## Results\n\nEscalation was more frequent after the training, χ²(1) = 5.57, p = .047.")).toEqual(['note']);
+  });
+  it('not named, or denied, it leaves the warning', () => {
+    expect(of('Escalation was more frequent after the training, χ²(1) = 5.57, p = .047.')).toEqual(['warning']);
+    expect(of("## Methods\n\nNo continuity correction was applied.\n\n## Results\n\nEscalation was more frequent after the training, χ²(1) = 5.57, p = .047.")).toEqual(['warning']);
+  });
+});
