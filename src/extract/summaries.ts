@@ -86,6 +86,15 @@ const ESTIMATE = new RegExp(String.raw`${START}(?:(?:mean difference|difference|
  * 0.15`, `, SE B = 0.15`, `, s.e. = 0.15`. Read on the few characters after the coefficient only.
  */
 const COEFFICIENT_SE = /^[,;]? ?\(? ?(?:SE|S\.E\.|s\.e\.|SE_?\{?[bB]\}?|SE ?\([bB]\)|SE [bB]|standard error) ?(?:=|:|of) ?(\d{1,9}(?:\.\d{1,12})?|\.\d{1,12})(?![\d.,]?\d)/du;
+/**
+ * Words right before an effect size that make it a reference rather than a result's: power or
+ * detection ("80% power only for effects of", "could detect only"), a minimum detectable,
+ * smallest or expected effect ("minimum detectable effect", "the expected d", "an assumed effect
+ * of"). Read back to the effect size's clause only (a comma, semicolon or bracket ends it), within
+ * REFERENCE_EFFECT_REACH characters.
+ */
+const REFERENCE_EFFECT = /(?<![\p{L}])(?:power|detect(?:ed|able|ing)?|sensitivity|minimum|smallest|expected|anticipated|assumed|hypothesi[sz]ed|target(?:ed)?|MDE|SESOI)(?![\p{L}])[^,;.()\[\]]{0,40}$/iu;
+const REFERENCE_EFFECT_REACH = 60;
 const EFFECT = new RegExp(String.raw`(?<![\p{L}\p{N}_'’])(?:(?:Cohen['’]s|Hedges['’]s?) ?)?(d_?\{?z\}?|d_?\{?av\}?|d|g)(?![\p{L}\p{N}′'’]) ?= ?${NUM}`, 'dgu');
 /**
  * Words that say one set of units was measured twice: the same participants, units or plots;
@@ -339,6 +348,9 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
   if (/\b[dg](?:_?\{?(?:z|av)\}?)? ?=/.test(text)) for (const m of matchesOf(EFFECT, text)) {
     const value = num(seg, m, 2);
     const k = (m[1] as string).replace(/[_{}]/g, '');
+    // a d of a power or sensitivity statement, or one expected ("could detect only d = 0.74",
+    // "minimum detectable effect d = 0.74", "the expected d = 0.50") is a reference, not a result's
+    if (value && REFERENCE_EFFECT.test(text.slice(Math.max(0, m.index - REFERENCE_EFFECT_REACH), m.index))) continue;
     if (value) effectSizes.push(Object.assign(where(m.index, m.index + m[0].length), { value, kind: k === 'dz' ? ('dz' as const) : k === 'dav' ? ('dav' as const) : k === 'g' ? ('g' as const) : ('d' as const) }));
   }
   const designs: DesignStatement[] = [];

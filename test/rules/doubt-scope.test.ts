@@ -149,3 +149,20 @@ describe('an exact test named beside a χ²', () => {
     expect(of("## Methods\n\nNo continuity correction was applied.\n\n## Results\n\nEscalation was more frequent after the training, χ²(1) = 5.57, p = .047.")).toEqual(['warning']);
   });
 });
+
+describe('an effect size of a power or sensitivity statement, or an expected one', () => {
+  // t(58) = 0.42 gives d = 2t/√df = 0.11 (common practice, no source): 0.74 and 0.50 are no result's d
+  const of = (markdown: string) => levels(run(markdown), 'effect-size-follows');
+  it('is a reference, not the result\'s d', () => {
+    for (const text of [
+      'Sleep quality did not differ, t(58) = 0.42, p = .676; with 30 per group the study had 80% power only for effects of d = 0.74 or larger.',
+      'Sleep quality did not differ, t(58) = 0.42, p = .676, although a sample of this size could detect only d = 0.74 or larger.',
+      'Mood did not differ between groups (t(58) = 0.42, p = .676; minimum detectable effect d = 0.74 at 80% power).',
+      'Mood did not differ between groups, t(58) = 0.42, p = .676, well short of the expected d = 0.50.',
+    ]) expect(of(text)).toEqual([]);
+  });
+  it("the result's own d after such words in another sentence or clause is still checked", () => {
+    expect(of('The study was powered for d = 0.5. Mood did not differ, t(58) = 0.42, p = .676, d = 0.74.')).toEqual(['warning']);
+    expect(of('As expected, mood did not differ, t(58) = 0.42, p = .676, d = 0.74.')).toEqual(['warning']);
+  });
+});
