@@ -30,6 +30,8 @@ export const percentageMatchesCount: Rule = {
       // a count of one group ("18 (60%) in the sock arm") is a percentage of that group, whose size
       // is not the sentence's total (nor an "Of the 60 …" before it): no denominator to check against
       if (c.inGroup) continue;
+      // nor one whose base may be a part of the sentence's n ("Of 120 invited, 80 responded; 60 (75%)")
+      if (c.baseOpen) continue;
       // the denominator printed with it ("of the 21 beds"), else the one n of its sentence
       const ns = c.of ? [{ n: c.of.value, printed: c.of.printed }] : (sizes.get(key(c.segment, c.sentence)) ?? []).filter((s) => s.n >= c.count.value && s.n > 0);
       if (ns.length !== 1) continue; // none, or several to choose from: no guess

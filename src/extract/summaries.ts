@@ -117,6 +117,14 @@ const INDEPENDENT_WORDS = /(?<![\p{L}])(independent[- ]samples?|two independent 
  */
 const INDEPENDENT_TESTS = /(?<![\p{L}])(Welch(?:['’]s)?(?: corrected| unequal-variance)? (?:t[- ]?tests?|tests?|correction)|Student['’]s (?:unpaired |two-sample )?t[- ]?tests?|independent \p{L}{2,20} (?:samples|groups|cohorts))(?![\p{L}])/giu;
 /** A count said of one group right after it ("18 (60%) in the sock arm", "12 (40%) of those in the control group"): its base is that group's size. */
+/** A unit of measure right after a count's percentage ("9 (10%) kilograms", "2 (25%) days"): the number is an amount, not a count. */
+const QUANTITY_AFTER = /^ ?(?:kg|kilo(?:gram)?s?|g|grams?|mg|µg|lbs?|pounds|days?|nights?|hours?|hrs?|h|minutes?|mins?|seconds?|s|weeks?|months?|years?|points?|percentage points|mmol\/(?:mol|l)|mg\/dl|mm ?hg|mmhg|cm|mm|km|m|ml|l|litres?|liters?|beats|bpm|units?|steps|kcal|calories|euros?|dollars?)(?![\p{L}])/iu;
+/** Words of a change right before a count ("fell by 9 (10%)", "rose by", "reduced by"): an amount. */
+const CHANGE_BY = /(?<![\p{L}])(?:fell|rose|dropped|declined|decreased|increased|reduced|improved|lower|higher|shorter|longer|gained|lost) by $/iu;
+/** "of them", "of these", "of whom" right after a count's percentage: a part of the count before it. */
+const OF_THEM_AFTER = /^,? (?:of|among) (?:them|these|those|whom|which)(?![\p{L}])/iu;
+/** A count before it in its sentence that is itself a part ("80 responded", "24 reported pain"): the base may be that part. */
+const SUBSET_BEFORE = /(?<![\p{L}\p{N}.,])\d{1,6} (?:(?:of (?:them|these|those)|[\p{L}-]{3,20}) )?(?:responded|replied|completed|attended|returned|consented|agreed|remained|reported|received|underwent|answered|participated|took part|were eligible|were included|were analy[sz]ed|had)(?![\p{L}])/iu;
 const IN_GROUP_AFTER = /^ (?:(?:were|was) )?(?:in|of those in|from) the (?:[\p{L}-]+ ){0,3}(?:arm|group|condition|cohort|ward|clinic|site|sample)s?(?![\p{L}])/iu;
 /** A participle that says when units joined ("staff hired before and after the change"): two cohorts, not one measured twice. */
 const ENTRY_EVENT = /(?:admitted|hired|recruited|enrolled|born|employed|diagnosed|registered|appointed|joined|started|graduated|qualified|referred|discharged|operated on) $/iu;
@@ -396,8 +404,12 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     const ofAt = after ? end + (after.indices?.[1]?.[0] ?? 0) : before ? sentenceStart + (before.indices?.[1]?.[0] ?? 0) : -1;
     const ofText = (after ?? before)?.[1];
     const of = ofText && ofAt >= 0 ? readNumber(seg, ofAt, ofAt + ofText.length) : undefined;
+    // "weight fell by 9 (10%) kg": an amount of a measure and its relative change, not a count
+    if (QUANTITY_AFTER.test(text.slice(end, end + 24)) || CHANGE_BY.test(text.slice(Math.max(0, m.index - 24), m.index))) continue;
     const inGroup = !after && IN_GROUP_AFTER.test(text.slice(end, end + 60));
-    counts.push(Object.assign(where(m.index, end), { count, percent, ...(of ? { of } : {}), ...(inGroup ? { inGroup: true as const } : {}) }));
+    // "24 reported pain, and 18 (75%) of them", "80 responded; 60 (75%)": a part of a part
+    const baseOpen = OF_THEM_AFTER.test(text.slice(end, end + 20)) || SUBSET_BEFORE.test(text.slice(sentenceStart, m.index));
+    counts.push(Object.assign(where(m.index, end), { count, percent, ...(of ? { of } : {}), ...(inGroup ? { inGroup: true as const } : {}), ...(baseOpen ? { baseOpen: true as const } : {}) }));
   }
   return { summaries, sampleSizes, unitCounts, groupSizes, intervals, estimates, effectSizes, designs, references, counts };
 }

@@ -506,6 +506,11 @@ export interface CountPercent {
   of?: ReportedNumber;
   /** Said of one group right after it (`18 (60%) in the sock arm`): a percentage of that group's size, which is not printed with it. */
   inGroup?: true;
+  /**
+   * Its base may be a part named before it ("Of 120 invited, 80 responded; 60 (75%) …", "24
+   * reported pain, and 18 (75%) of them"): not certainly the sentence's n.
+   */
+  baseOpen?: true;
   span: Span;
   printed: string;
 }

@@ -166,3 +166,19 @@ describe('an effect size of a power or sensitivity statement, or an expected one
     expect(of('As expected, mood did not differ, t(58) = 0.42, p = .676, d = 0.74.')).toEqual(['warning']);
   });
 });
+
+describe('a number with a percentage that is no count of the sentence\'s n', () => {
+  // 9 of 36 is 25%, 60 of 120 50%, 18 of 80 22.5% (arithmetic): none is the percentage printed,
+  // each of which is of another base (9 of 90 kg, 60 of 80 responders, 18 of 24 with pain)
+  const of = (markdown: string) => levels(run(markdown), 'percentage-matches-count');
+  it('an amount of a measure, or a part of a part, is not checked against the n', () => {
+    expect(of('Among the 36 participants, weight fell by 9 (10%) kilograms from a baseline of 90 kg.')).toEqual([]);
+    expect(of('In the 64 patients, the median stay was 2 (25%) days shorter.')).toEqual([]);
+    expect(of('Of 120 patients invited, 80 responded; 60 (75%) rated communication as good.')).toEqual([]);
+    expect(of('Among the 80 respondents, 24 reported pain at discharge, and 18 (75%) of them had had no written advice.')).toEqual([]);
+  });
+  it('a count of the n itself is still checked', () => {
+    expect(of('Among the 36 participants, 9 (10%) reported a fall.')).toEqual(['warning']);
+    expect(of('Of 120 patients invited, 60 (75%) rated communication as good.')).toEqual(['warning']);
+  });
+});
