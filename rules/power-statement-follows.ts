@@ -19,9 +19,10 @@ export const powerStatementFollows: Rule = {
     const out: RuleFinding[] = [];
     for (const st of document.extraction.powerStatements) {
       if (!st.n) continue;
-      // groups of unequal sizes, or a loss allowed for at a rate the text does not give, are not
-      // what the equal-groups calculation below models: nothing certain can be said
-      if (st.unequalGroups || (st.allowsForLoss !== undefined && !(st.allowsForLoss > 0 && st.allowsForLoss < 1))) continue;
+      // groups of unequal sizes, a loss allowed for at a rate the text does not give, or another
+      // model (clustering, adjustment for baseline, non-inferiority) are not what the
+      // equal-groups calculation below models: nothing certain can be said
+      if (st.unequalGroups || st.otherModel !== undefined || (st.allowsForLoss !== undefined && !(st.allowsForLoss > 0 && st.allowsForLoss < 1))) continue;
       const target = st.powerPercent ? st.power.value / 100 : st.power.value;
       if (!(target > 0 && target < 1)) continue;
       const alpha = st.alpha ?? 0.05;

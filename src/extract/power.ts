@@ -23,6 +23,12 @@ const LOSS_RATE = /(?<![\p{N}.])(\d{1,2}(?:\.\d)?) ?% (?:\p{L}{1,15} ){0,2}(?:at
 const RATIO = /(?<![\p{N}.:])([1-9]) ?: ?([1-9])(?![\p{N}.:])/u;
 /** Two group sizes printed in the sentence ("96 intervention and 48 control participants"). */
 const TWO_SIZES = /(?<![\p{L}\p{N}.,])(\d{1,5}) (?:\p{L}{2,20} )?and (\d{1,5}) (?:\p{L}{2,20} )?(?:participants|patients|people|subjects|children|adults|nurses|staff|pupils|students|per group|in the)(?![\p{L}])/iu;
+/**
+ * Words of a sample-size calculation for another model than two independent groups compared by a
+ * t-test: clustering (a design effect, an ICC), adjustment for baseline or covariates (ANCOVA, a
+ * baseline–outcome correlation), counts or survival, non-inferiority or equivalence margins.
+ */
+const OTHER_MODEL = /(?<![\p{L}])(?:design effect|ICC|intra-?class correlation|intra-?cluster correlation|cluster(?:s|ed|ing)?|ANCOVA|analysis of covariance|adjust(?:s|ed|ing|ment)? for (?:the )?(?:baseline|covariates?)|baseline[–-](?:outcome|follow-?up) correlation|correlation (?:of|between|with) (?:the )?baseline|covariates?|mixed[- ]models?|Poisson|negative binomial|log-?rank|survival|hazard ratio|non-?inferiority|equivalence margin|equivalence)(?![\p{L}])/iu;
 const PAIRED = /(?<![\p{L}])(paired|within-subjects?|repeated[- ]measures|crossover|pre-post|before and after)(?![\p{L}])/iu;
 const ONE_SAMPLE = /(?<![\p{L}])one-sample(?![\p{L}])/iu;
 
@@ -64,6 +70,7 @@ export function findPowerStatements(seg: Segment, starts: number[]): PowerStatem
     const ratio = RATIO.exec(sentence);
     const sizes = TWO_SIZES.exec(sentence);
     const unequal = (ratio !== null && ratio[1] !== ratio[2]) || (sizes !== null && sizes[1] !== sizes[2]);
+    const other = OTHER_MODEL.exec(sentence);
     out.push({
       segment: seg.id,
       block: seg.block,
@@ -81,6 +88,7 @@ export function findPowerStatements(seg: Segment, starts: number[]): PowerStatem
       ...(atLeast ? { powerAtLeast: true } : {}),
       ...(loss !== undefined ? { allowsForLoss: loss } : {}),
       ...(unequal ? { unequalGroups: true } : {}),
+      ...(other ? { otherModel: other[0] } : {}),
     } as PowerStatement);
   }
   return out;

@@ -537,6 +537,12 @@ export interface PowerStatement {
   allowsForLoss?: number;
   /** Groups of unequal sizes ("a 2:1 allocation", "96 intervention and 48 control participants"), which the equal-groups calculation does not model. */
   unequalGroups?: true;
+  /**
+   * Words of a calculation other than two independent groups' t-test ("design effect 1.9", "ICC
+   * 0.05", "With ANCOVA and an assumed baseline–outcome correlation of 0.5", "non-inferiority"):
+   * the plain calculation does not give its n.
+   */
+  otherModel?: string;
 }
 
 /**

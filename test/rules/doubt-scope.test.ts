@@ -182,3 +182,15 @@ describe('a number with a percentage that is no count of the sentence\'s n', () 
     expect(of('Of 120 patients invited, 60 (75%) rated communication as good.')).toEqual(['warning']);
   });
 });
+
+describe('a power statement for another model than two groups compared by a t-test', () => {
+  // power at d = 0.5, two-sided α = .05 (scipy.stats.nct): 48 per group .679, 64 .801
+  const of = (markdown: string) => levels(run(markdown), 'power-statement-follows');
+  it('clustering, adjustment for baseline, or non-inferiority: the plain calculation does not give its n', () => {
+    expect(of('With ANCOVA and an assumed baseline–outcome correlation of r = 0.5, 48 participants per group give 80% power to detect d = 0.5 (two-sided alpha .05).')).toEqual([]);
+    expect(of('Allowing for clustering (ICC 0.05, design effect 1.9), 122 pupils per arm give 80% power to detect d = 0.5 at alpha .05.')).toEqual([]);
+  });
+  it('without such words, the same n is still a warning', () => {
+    expect(of('48 participants per group give 80% power to detect d = 0.5 (two-sided alpha .05).')).toEqual(['warning']);
+  });
+});
