@@ -58,7 +58,10 @@ export const dfFollowsFromN: Rule = {
       if (ns.some((n) => n === undefined)) continue;
       const df = r.df.value;
       const [dfLow, dfHigh] = dfInterval(r.df);
-      const base = { span: r.df.span, reported: r.printed, resultId: r.id, block: r.block, ...descriptiveDoubts(result) };
+      // sizes said to be those randomised ("randomised n = 32") need not be those analysed
+      const assigned = link.groups.find((g) => g.nAssigned);
+      const doubts = [...(descriptiveDoubts(result).uncertain ?? []), ...(assigned ? [`the group sizes printed are those randomised or enrolled ("${assigned.printed.trim()}"), who need not be those analysed`] : [])];
+      const base = { span: r.df.span, reported: r.printed, resultId: r.id, block: r.block, ...(doubts.length > 0 ? { uncertain: doubts } : {}) };
       const design = inferDesign(result);
       if (ns.length === 1) {
         const n = ns[0] as number;

@@ -44,6 +44,8 @@ export const groupSizesSumToTotal: Rule = {
       return [...byStart.values()];
     };
     const perGroupSentences = new Set(x.sampleSizes.filter((s) => s.scope === 'per-group').map((s) => key(s.segment, s.sentence)));
+    // sizes said to be those randomised or enrolled ("randomised n = 32"), by the place of their number
+    const assigned = new Set([...x.summaries.filter((g) => g.nAssigned && g.n).map((g) => g.n?.span.start as number), ...x.sampleSizes.filter((s) => s.assigned).map((s) => s.n.span.start)]);
     for (const total of totals) {
       // A size stated for each group ("n = 32 to each arm") says how the total splits; the other
       // sizes of that sentence are parts of the groups, not the groups.
@@ -63,6 +65,9 @@ export const groupSizesSumToTotal: Rule = {
       if ((totalsBySegment.get(total.segment) ?? []).some((t) => t.n.value === sum)) continue;
       const excluded = withExclusions.has(total.segment);
       if (excluded && sum < total.n.value) continue;
+      // groups counted as randomised beside a total that is not (or the other way round) count
+      // two stages of the study: they need not add up
+      const stages = groups.some((n) => assigned.has(n.span.start) !== assigned.has(total.n.span.start));
       out.push({
         messageId: 'sum-differs',
         span: total.span,
@@ -71,6 +76,7 @@ export const groupSizesSumToTotal: Rule = {
         check: 'Check the total and the group sizes; say how many were excluded and why.',
         related: groups.map((n) => ({ span: n.span, message: 'a group size' })),
         block: total.block,
+        ...(stages ? { uncertain: ['the group sizes and the total count different stages (those randomised or enrolled, and those analysed or reported), which need not agree'] } : {}),
       });
     }
     return out;

@@ -117,6 +117,8 @@ const INDEPENDENT_WORDS = /(?<![\p{L}])(independent[- ]samples?|two independent 
  */
 const INDEPENDENT_TESTS = /(?<![\p{L}])(Welch(?:['’]s)?(?: corrected| unequal-variance)? (?:t[- ]?tests?|tests?|correction)|Student['’]s (?:unpaired |two-sample )?t[- ]?tests?|independent \p{L}{2,20} (?:samples|groups|cohorts))(?![\p{L}])/giu;
 /** A count said of one group right after it ("18 (60%) in the sock arm", "12 (40%) of those in the control group"): its base is that group's size. */
+/** Words right before an n that make it the number randomised, allocated or enrolled ("randomised n = 32", "ITT n ="). */
+const ASSIGNED_N_BEFORE = /(?<![\p{L}])(?:randomi[sz]ed|allocated|assigned|enrolled|recruited|ITT|intention[- ]to[- ]treat)[ :]?\(?$/iu;
 /** A unit of measure right after a count's percentage ("9 (10%) kilograms", "2 (25%) days"): the number is an amount, not a count. */
 const QUANTITY_AFTER = /^ ?(?:kg|kilo(?:gram)?s?|g|grams?|mg|µg|lbs?|pounds|days?|nights?|hours?|hrs?|h|minutes?|mins?|seconds?|s|weeks?|months?|years?|points?|percentage points|mmol\/(?:mol|l)|mg\/dl|mm ?hg|mmhg|cm|mm|km|m|ml|l|litres?|liters?|beats|bpm|units?|steps|kcal|calories|euros?|dollars?)(?![\p{L}])/iu;
 /** Words of a change right before a count ("fell by 9 (10%)", "rose by", "reduced by"): an amount. */
@@ -161,6 +163,8 @@ interface Token {
   printedKind?: string;
   percent: boolean;
   perGroup?: boolean;
+  /** An n said to be of those randomised, allocated or enrolled ("randomised n = 32"). */
+  assigned?: boolean;
 }
 
 export interface SegmentSummaries {
@@ -256,10 +260,12 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     if (!a) continue;
     const perGroup = m[3] !== undefined;
     const capital = m[1] === 'N';
-    push({ kind: 'n', start: m.index, end: m.index + m[0].length, a, percent: false, perGroup });
+    // "randomised n = 32": those randomised, which need not be those analysed
+    const assigned = ASSIGNED_N_BEFORE.test(text.slice(Math.max(0, m.index - 28), m.index));
+    push({ kind: 'n', start: m.index, end: m.index + m[0].length, a, percent: false, perGroup, ...(assigned ? { assigned } : {}) });
     const end = m.index + m[0].length;
     const subset = !perGroup && SUBSET_AFTER.test(text.slice(end, end + 16));
-    sampleSizes.push(Object.assign(where(m.index, end), { n: a, scope: perGroup ? ('per-group' as const) : subset ? ('subset' as const) : capital ? ('total' as const) : ('unspecified' as const) }));
+    sampleSizes.push(Object.assign(where(m.index, end), { n: a, scope: perGroup ? ('per-group' as const) : subset ? ('subset' as const) : capital ? ('total' as const) : ('unspecified' as const) }, assigned ? { assigned: true as const } : {}));
   }
   const groupSizes: GroupSizes[] = [];
   if (/ and | vs|versus|, /.test(text)) for (const m of matchesOf(N_PAIR, text)) {
@@ -595,6 +601,7 @@ function toSummary(seg: Segment, tokens: Token[], sentenceStarts: number[]): Gro
     ...(mean ? { mean } : {}),
     ...(spread ? { spread } : {}),
     ...(nTok?.a ? { n: nTok.a } : {}),
+    ...(nTok?.a && nTok.assigned ? { nAssigned: true as const } : {}),
     ...(label ? { label } : {}),
     ...(after ? { labelAfter: after } : {}),
     ...(occasion ? { occasion } : {}),

@@ -332,6 +332,8 @@ export interface GroupSummary {
   mean?: ReportedNumber;
   spread?: { number: ReportedNumber; kind: SpreadKind; kindSpan?: Span; printedKind?: string };
   n?: ReportedNumber;
+  /** Its n is said to count those randomised, allocated or enrolled ("randomised n = 32"), who need not be those analysed. */
+  nAssigned?: true;
   /** Up to a few words before the descriptives, e.g. "in the standing weeks". */
   label?: string;
   /** The words right after the descriptives when they say whose they are: "in the usual-routine group". */
@@ -360,6 +362,8 @@ export interface SampleSize {
   n: ReportedNumber;
   /** `subset`: a part of some group (`n = 12 of the choir arm`), never a group of a total. */
   scope: 'total' | 'per-group' | 'subset' | 'unspecified';
+  /** Said to count those randomised, allocated or enrolled ("randomised n = 32"), who need not be those analysed. */
+  assigned?: true;
   span: Span;
   printed: string;
 }

@@ -194,3 +194,18 @@ describe('a power statement for another model than two groups compared by a t-te
     expect(of('48 participants per group give 80% power to detect d = 0.5 (two-sided alpha .05).')).toEqual(['warning']);
   });
 });
+
+describe('group sizes said to be those randomised', () => {
+  // analysed 29 and 28 of 32 and 30 randomised: Student's t(55) = 2.06, p = .044 (scipy.stats.ttest_ind_from_stats)
+  const text = 'Symptom scores at 12 weeks were better with the app (M = 24.6, SD = 5.1; randomised n = 32) than with the leaflet (M = 21.9, SD = 4.8; randomised n = 30), t(55) = 2.06, p = .044, among the 57 women with 12-week data.';
+  it('need not be those analysed: the df and the sum are notes', () => {
+    const r = run(text);
+    expect(levels(r, 'df-follows-from-n')).toEqual(['note']);
+    expect(levels(r, 'group-sizes-sum-to-total')).toEqual(['note']);
+  });
+  it('sizes not so called are held to the df and the total', () => {
+    const r = run(text.replaceAll('randomised n', 'n'));
+    expect(levels(r, 'df-follows-from-n')).toEqual(['warning']);
+    expect(levels(r, 'group-sizes-sum-to-total')).toEqual(['warning']);
+  });
+});
