@@ -67,6 +67,12 @@ const RESTRICTED_SCOPE = new RegExp(
  * is that test's, not the t-tests' (SIDE_TEST_AND_T: unless the sentence names the t-tests too).
  */
 const SIDE_TEST = /(?<![\p{L}])(?:normality|Shapiro[-–‐ ]Wilk|Kolmogorov[-–‐ ]Smirnov|Lilliefors|Anderson[-–‐ ]Darling|Levene['’]?s?|Brown[-–‐ ]Forsythe|Bartlett['’]?s?|homogeneity|equality of variances?|equal variances|sphericity|Mauchly['’]?s?|heterogeneity|Cochran['’]?s Q|I²|I\^2|interaction(?:s| terms?| effects?)?|effect modification|modera(?:tion|tor|tors|ting)|goodness[- ]of[- ]fit|Hosmer[-–‐ ]Lemeshow|outliers?|Egger['’]?s?)(?![\p{L}])/iu;
+/**
+ * A non-inferiority or equivalence test named in the sentence: one-sided by design, so tails or an
+ * alpha said there ("The primary hypothesis, non-inferiority ..., was tested one-sided at α =
+ * 0.025") are that test's, whatever else the sentence names.
+ */
+const MARGIN_TEST = /(?<![\p{L}])(?:non-?inferiority|equivalence|TOST|two one-sided tests|superiority margin)(?![\p{L}])/iu;
 /** Words naming the t-tests themselves, or every test: a side test named beside them does not take the statement. */
 const SIDE_TEST_AND_T = /(?<![\p{L}])(?:t[- ]tests?|all (?:other |remaining )?(?:tests|analyses|comparisons|hypotheses)|every (?:other )?test|otherwise|main (?:analys[ie]s|comparisons?|effects?)|primary)(?![\p{L}])/iu;
 /**
@@ -131,7 +137,7 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     let r = readings.get(i);
     if (!r) {
       const sentence = text.slice(sentenceStarts[i] as number, sentenceStarts[i + 1] ?? text.length);
-      r = { planning: PLANNING.test(sentence), general: GENERAL_WORDS.test(sentence), local: LOCAL_ALPHA.test(sentence), restricted: RESTRICTED_SCOPE.test(sentence) || KIND_SUBJECT.test(sentence) || (SIDE_TEST.test(sentence) && !SIDE_TEST_AND_T.test(sentence)), single: ONE_TEST.test(sentence) };
+      r = { planning: PLANNING.test(sentence), general: GENERAL_WORDS.test(sentence), local: LOCAL_ALPHA.test(sentence), restricted: RESTRICTED_SCOPE.test(sentence) || KIND_SUBJECT.test(sentence) || MARGIN_TEST.test(sentence) || (SIDE_TEST.test(sentence) && !SIDE_TEST_AND_T.test(sentence)), single: ONE_TEST.test(sentence) };
       readings.set(i, r);
     }
     return r;

@@ -209,3 +209,16 @@ describe('group sizes said to be those randomised', () => {
     expect(levels(r, 'group-sizes-sum-to-total')).toEqual(['warning']);
   });
 });
+
+describe('tails and alpha said of a non-inferiority or equivalence test', () => {
+  // t(216) = −2.03: two-tailed p = .044, one-tailed .022 (scipy.stats.t.sf)
+  const result = '## Results\n\nAnxiety was lower with telephone follow-up (M = 14.2, SD = 5.0, n = 110) than with clinic follow-up (M = 15.6, SD = 5.2, n = 108), t(216) = -2.03, p = .044, a significant difference.';
+  const of = (methods: string) => run(`## Methods\n\n${methods}\n\n${result}`).findings.filter((f) => f.level !== 'note').map((f) => `${f.ruleId}/${f.level}`);
+  it('are that test\'s, even where the sentence calls it primary', () => {
+    expect(of('The primary hypothesis, non-inferiority of telephone follow-up for satisfaction, was tested one-sided at α = 0.025 against a margin of −3 points.')).toEqual([]);
+    expect(of('Equivalence was tested with two one-sided tests against bounds of ±4 points.')).toEqual([]);
+  });
+  it('said of every test, they apply', () => {
+    expect(of('All tests were one-sided at α = 0.025.')).toEqual(['significance-follows-from-t/error']);
+  });
+});
