@@ -47,6 +47,10 @@ export const ciAgreesWithResult: Rule = {
         ...(ofMean && ofMean.mu === undefined ? ['the test may be a one-sample test whose interval is that of the mean, and no test value is printed to turn it into the interval of the difference'] : []),
         // its width and its side of zero depend on the level; its centre does not
         ...(ci.levelAssumed && found.messageId !== 'not-centred' ? ["the interval's level is printed neither with it nor in its table's caption, and 95% was assumed"] : []),
+        // words of a model in the result's own sentence ("adjusted difference 1.9 kg (95% CI …)"):
+        // the interval may be the adjusted estimate's, not the t's (a coefficient's t and CI are
+        // both the model's: no doubt there)
+        ...(result.modelBased && result.modelBased.segment === r.segment && result.modelBased.sentence === r.sentence && result.context.estimate?.item.kind !== 'coefficient' && !result.context.coefficient ? [`the sentence speaks of a model ("${result.modelBased.printed.trim()}"), so the interval may be of an adjusted estimate rather than of the difference the t tests`] : []),
       ];
       out.push({
         ...found,

@@ -9,6 +9,9 @@ const BEFORE_RESULTS = /abstract|summary|method|participant|sample|subject|desig
 /** Most groups a contrast said only in words ("Post hoc comparisons …") is taken to come from (common practice, no source: designs of more groups than this are rare). */
 const MAX_CONTRAST_GROUPS = 6;
 
+/** Most covariates a model said only in words ("adjusted for age, sex and BMI") is taken to have (common practice, no source). */
+const MAX_COVARIATES = 6;
+
 /** The total N stated for the study agrees with the df of the tests, or the text says why not. */
 export const sampleSizeAgreesWithDf: Rule = {
   id: 'sample-size-agrees-with-df',
@@ -40,7 +43,9 @@ export const sampleSizeAgreesWithDf: Rule = {
         // contrasts only, any N = df + k for up to MAX_CONTRAST_GROUPS groups.
         const p = r.pooledError;
         const pooled = p === undefined ? [] : p.groups !== undefined ? [df + p.groups] : Array.from({ length: MAX_CONTRAST_GROUPS - 2 }, (_, i) => df + 3 + i);
-        return { result: r, ns: [...own, ...pooled] };
+        // a t from a model with k covariates ("adjusted for age, sex and BMI") has N − 2 − k df
+        const model = r.modelBased ? Array.from({ length: MAX_COVARIATES }, (_, i) => df + 3 + i) : [];
+        return { result: r, ns: [...new Set([...own, ...pooled, ...model])] };
       });
     if (implied.length === 0) return [];
     const N = stated.n.value;
@@ -92,7 +97,7 @@ export const sampleSizeAgreesWithDf: Rule = {
       span: stated.span,
       message: fill(messages['df-imply-other-n'], { stated: stated.printed, where: x.sections[stated.segment] ?? 'before the results', implied: shown }),
       reported: stated.printed,
-      recomputed: { quantity: 'largest number analysed (df + 1 or df + 2)', low: largest, high: largest, inputs: within.map((i) => i.result.report.printed), assumptions: ['df + 2 for two independent groups, df + 1 for one group or pairs', ...(within.some((i) => i.result.pooledError) ? ['df + k for a contrast within an analysis of variance of k groups'] : [])] },
+      recomputed: { quantity: 'largest number analysed (df + 1 or df + 2)', low: largest, high: largest, inputs: within.map((i) => i.result.report.printed), assumptions: ['df + 2 for two independent groups, df + 1 for one group or pairs', ...(within.some((i) => i.result.pooledError) ? ['df + k for a contrast within an analysis of variance of k groups'] : []), ...(within.some((i) => i.result.modelBased) ? [`df + 2 + k for a model with k covariates, k up to ${MAX_COVARIATES}`] : [])] },
       check: 'Say how many participants were analysed in each test and why some were left out (a flow diagram helps).',
       related: first ? [{ span: first.span, message: 'the first test' }] : [],
       block: stated.block,

@@ -1,4 +1,4 @@
-import { describeAttempt, evaluateDescriptives, fill, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts, ownGroupsDf, pooledErrorDoubt, transformedDoubt, withDoubt } from '../src/rule-api/index.js';
+import { describeAttempt, evaluateDescriptives, fill, type Rule, type RuleFinding, NO_OPTIONS, descriptiveDoubts, ownGroupsDf, modelDoubt, pooledErrorDoubt, transformedDoubt, withDoubt } from '../src/rule-api/index.js';
 
 const messages = {
   'se-labelled-sd': 'Reported {reported} with spreads labelled SD ({inputs}). Read as SDs they give {labelled}; the reported t is reproduced only if they are standard errors: {against}.',
@@ -22,7 +22,7 @@ export const spreadKindMatchesT: Rule = {
       const labelledAsSD = e.kinds.includes('SD');
       const id = labelledAsSD ? 'se-labelled-sd' : 'sd-labelled-se';
       const r = result.report;
-      out.push(withDoubt(withDoubt({
+      out.push(withDoubt(withDoubt(withDoubt({
         messageId: id,
         span: r.span,
         message: fill(messages[id], {
@@ -39,7 +39,7 @@ export const spreadKindMatchesT: Rule = {
         resultId: r.id,
         block: r.block,
         ...descriptiveDoubts(result),
-      }, pooledErrorDoubt(result, ownGroupsDf(result))), transformedDoubt(result)));
+      }, pooledErrorDoubt(result, ownGroupsDf(result))), transformedDoubt(result)), modelDoubt(result)));
     }
     return out;
   },

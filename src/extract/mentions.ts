@@ -83,7 +83,7 @@ const DERIVED_MEANS = /(?<![\p{L}])(?:(?:covariate[- ]|baseline[- ])?adjusted (?
  * 146)", "Experiments 1 and 2", "Study 2"): a total stated for them need not be the sample of any
  * one test.
  */
-const SEVERAL_STUDIES = /(?<![\p{L}])(?:(?:two|three|four|five|six|2|3|4|5|6) (?:separate |independent |online |preregistered |pre-registered )?(?:studies|experiments)|(?:Studies|Experiments) \d{1,2}(?: ?(?:and|,|&|–|-) ?\d{1,2})+|(?:across|in both|in all|over) (?:the |our |these )?(?:studies|experiments)|(?:Study|Experiment) (?:2|3|4|II|III|IV|two|three|four))(?![\p{L}\p{N}])/giu;
+const SEVERAL_STUDIES = /(?<![\p{L}])(?:(?:two|three|four|five|six|2|3|4|5|6) (?:separate |independent |online |preregistered |pre-registered )?(?:studies|experiments)|(?:Studies|Experiments) \d{1,2}(?: ?(?:and|,|&|–|-) ?\d{1,2})+|(?:across|in both|in all|over) (?:the |our |these )?(?:studies|experiments)|(?:Study|Experiment) (?:2|3|4|II|III|IV|two|three|four)(?! (?:of|in) (?:an?|the|their|our|a previous|an earlier) ?(?:earlier|previous|prior|related|original|published)?))(?![\p{L}\p{N}])/giu;
 /**
  * Words saying the analyses use a part of the sample stated ("this analysis concerns the women",
  * "a subgroup analysis", "in a subsample of", "restricted to the 90 women"): the total is then not
@@ -95,7 +95,7 @@ const PART_OF_SAMPLE = /(?<![\p{L}])(?:sub-?group analys[ie]s|sub-?groups? of|su
  * "randomised to strength training, walking or advice"): a t compares two of them, so it uses part
  * of the sample.
  */
-const MANY_ARMS = /(?<![\p{L}])(?:(?:three|four|five|six|3|4|5|6)[- ](?:arm(?:ed)?|groups?|conditions?|arms|treatment groups|intervention groups)|(?:three|four|five|six|3|4|5|6) (?:parallel |randomi[sz]ed |study |treatment |intervention |experimental )?(?:groups|arms|conditions)|(?:randomi[sz]ed|allocated|assigned)(?: (?:equally|evenly|at random|randomly|in a 1:1:1 ratio))? to [\p{L}\p{N}' -]{2,40}, [\p{L}\p{N}' -]{2,40},? (?:or|and) [\p{L}\p{N}'-]{2,20})(?![\p{L}])/giu;
+const MANY_ARMS = /(?<![\p{L}])(?:(?:three|four|five|six|3|4|5|6)[- ](?:arm(?:ed)?|groups?|conditions?|arms|treatment groups|intervention groups)|(?:three|four|five|six|3|4|5|6) (?:parallel |randomi[sz]ed |study |treatment |intervention |experimental )?(?:groups|arms|conditions)|(?:randomi[sz]ed|allocated|assigned)(?: (?:equally|evenly|at random|randomly|in a 1:1:1 ratio))? to (?:(?! or | and )[\p{L}\p{N}' -]){2,40}, (?:(?! or | and )[\p{L}\p{N}' -]){2,40},? (?:or|and) [\p{L}\p{N}'-]{2,20})(?![\p{L}])/giu;
 /**
  * Words saying values were transformed for the analysis ("log-transformed for the t-tests", "a
  * t-test on log-transformed values", "analysed on the log scale", "geometric means"): a t of the
@@ -103,11 +103,26 @@ const MANY_ARMS = /(?<![\p{L}])(?:(?:three|four|five|six|3|4|5|6)[- ](?:arm(?:ed
  */
 const TRANSFORMED = /(?<![\p{L}])(?:(?:natural[- ])?log(?:arithm(?:ic(?:ally)?)?)?(?:[- ]?(?:10|e|2))?[- ]?transform(?:ed|ation|ing)?|ln[- ]transform(?:ed|ation)?|(?:square[- ]root|cube[- ]root|reciprocal|inverse|Box[- ]Cox|arcsine|logit|rank(?:-based)? inverse[- ]normal)[- ]?transform(?:ed|ation|ing)?|(?:on|of|using) (?:the )?(?:log(?:arithms?)?|logged|natural log|ln)(?: |-)(?:values|scores|data|scale|concentrations|counts|times)|(?:analy[sz]ed|tested|compared) on (?:a|the) log(?:arithmic)? scale|geometric means?)(?![\p{L}])/giu;
 /**
- * Words naming an exact test or a corrected χ² (Fisher's exact test, "exact p", Freeman–Halton,
- * mid-p, Yates's continuity correction, Monte Carlo p): a p printed beside a χ² with them may be that
- * test's, not the upper tail of the χ² printed.
+ * Words naming an exact test or a corrected χ² (Fisher's exact test, Freeman–Halton, mid-p, Yates's
+ * continuity correction, Monte Carlo p): a p printed beside a χ² with them may be that test's, not
+ * the upper tail of the χ² printed. Not "exact p values" (a p printed in full), nor an exact
+ * binomial test (of a proportion, not of a table).
  */
-const EXACT_TEST = /(?<![\p{L}])(?:Fisher['’]?s?(?:[-–‐ ](?:Freeman[-–‐ ]Halton|Irwin))?(?: exact)?(?: tests?| p| probability| method)|Fisher['’]?s? exact|exact (?:p|p[- ]values?|tests?|binomial tests?|probabilit(?:y|ies))|Freeman[-–‐ ]Halton|mid[- ]p|Yates['’]?s?(?: continuity)? correct(?:ion|ed)|continuity[- ]correct(?:ion|ed)|Monte Carlo p|Barnard['’]?s? (?:exact )?test|Boschloo['’]?s? test)(?![\p{L}])/giu;
+const EXACT_TEST = /(?<![\p{L}])(?:Fisher['’]?s?(?:[-–‐ ](?:Freeman[-–‐ ]Halton|Irwin))?(?: exact)?(?: tests?| p| probability| method)|Fisher['’]?s? exact|exact tests?|Freeman[-–‐ ]Halton|mid[- ]p|Yates['’]?s?(?: continuity)? correct(?:ion|ed)|continuity[- ]correct(?:ion|ed)|Monte Carlo p|Barnard['’]?s? (?:exact )?test|Boschloo['’]?s? test)(?![\p{L}])/giu;
+/**
+ * Words saying comparisons were estimated from a model rather than by a t-test of two groups'
+ * scores: a mixed, multilevel or random-effects model, generalised estimating equations,
+ * regression, analysis of covariance, adjustment for covariates ("adjusted for age, sex and
+ * body-mass index", "controlling for"). Such a t need not follow from the groups' means and SDs,
+ * and its df need not be n1 + n2 − 2.
+ */
+const MODEL_BASED = /(?<![\p{L}])(?:(?:linear |generali[sz]ed linear |generali[sz]ed )?mixed[- ](?:effects? )?models?|multilevel models?|hierarchical (?:linear )?models?|random[- ](?:intercepts?|effects?)(?: models?)?|generali[sz]ed estimating equations?|GEE|(?:linear|multiple|multivariable|multivariate) regression|regression models?|regression|ANCOVA|analys[ie]s of covariance|adjust(?:ed|ing)? for (?!multiple|multiplicity)\p{L}+|controlling for \p{L}+|(?:covariate|baseline)[- ]adjusted|adjusted (?:difference|mean difference|analys[ie]s|models?|estimates?))(?![\p{L}])/giu;
+/** Words naming the tests or comparisons themselves ("All group comparisons", "t-tests were", "differences between the groups"). */
+const NAMES_TESTS = /(?<![\p{L}])(?:t[- ]tests?|(?:all|the|group|between-group|pairwise) (?:[\p{L}-]+ )?(?:comparisons|analyses|tests)|group (?:comparisons|differences)|differences between|comparisons between|(?:were|was) (?:compared|analy[sz]ed|tested))(?![\p{L}])/iu;
+/** Words saying the printed descriptives are themselves of the transformed values ("means and SDs of the log values are reported"). */
+const DESCRIPTIVES_TRANSFORMED = /(?<![\p{L}])(?:means?|SDs?|descriptives?|summary statistics)(?: and (?:SDs?|standard deviations?))? (?:of|on) the (?:log|logged|transformed)/iu;
+/** Words of small counts or a χ² beside an exact test: a statement of when the exact test was used. */
+const FOR_COUNTS = /(?<![\p{L}])(?:expected (?:cell )?(?:counts?|frequenc\p{L}+)|cell (?:counts?|sizes?|frequenc\p{L}+)|small (?:cells?|counts?|samples?|numbers)|fewer than \d|below \d|chi[- ]?squared?|χ)(?![\p{L}])/iu;
 /** The heading of a list of references. */
 const REFERENCE_LIST = /^(?:references?|reference list|bibliography|works cited|literature cited|sources)$/iu;
 /** A permutation or randomization test named: a p reported with it in its sentence came from resampling. */
@@ -136,6 +151,7 @@ const MAY: Record<Mention['kind'], RegExp> = {
   'many-arms': /three|four|five|six|[3-6][- ]|randomi|allocated|assigned/i,
   transformed: /transform|log|ln[- ]|geometric/i,
   'exact-test': /Fisher|exact|Freeman|mid[- ]p|Yates|continuity|Monte Carlo|Barnard|Boschloo/i,
+  'model-based': /model|random|estimating|GEE|regression|ANCOVA|covariance|adjust|controlling/i,
 };
 
 /** Guideline-relevant words in one prose segment. */
@@ -159,8 +175,17 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
   // "Multiple imputation for nonresponse in surveys"), nor where they are denied ("Multiple
   // imputation was not used", "raw means rather than adjusted means")
   if (!REFERENCE_LIST.test(seg.section ?? '')) {
-    for (const [re, kind] of [[CONTRAST, 'contrast'], [DERIVED_MEANS, 'derived-means'], [SEVERAL_STUDIES, 'several-studies'], [PART_OF_SAMPLE, 'part-of-sample'], [MANY_ARMS, 'many-arms'], [TRANSFORMED, 'transformed'], [EXACT_TEST, 'exact-test']] as const) {
-      if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) if (!deniedAt(text, m.index, m.index + m[0].length, starts)) add(kind, m);
+    for (const [re, kind] of [[CONTRAST, 'contrast'], [DERIVED_MEANS, 'derived-means'], [SEVERAL_STUDIES, 'several-studies'], [PART_OF_SAMPLE, 'part-of-sample'], [MANY_ARMS, 'many-arms'], [TRANSFORMED, 'transformed'], [EXACT_TEST, 'exact-test'], [MODEL_BASED, 'model-based']] as const) {
+      if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) {
+        if (deniedAt(text, m.index, m.index + m[0].length, starts)) continue;
+        // whether its sentence says what it is about: the tests or comparisons themselves ("All
+        // group comparisons were estimated by regression", "t-tests were performed on
+        // log-transformed values"), or, for an exact test, small counts or χ²
+        const [from, to] = sentenceBounds(starts, m.index, text.length);
+        const sentence = text.slice(from, to);
+        const about = kind === 'exact-test' ? FOR_COUNTS.test(sentence) : NAMES_TESTS.test(sentence) && !(kind === 'transformed' && DESCRIPTIVES_TRANSFORMED.test(sentence));
+        out.push({ kind, segment: seg.id, block: seg.block, sentence: sentenceOf(starts, m.index), span: sourceSpan(seg, m.index, m.index + m[0].length), printed: m[0], ...(about ? { aboutTests: true as const } : {}) });
+      }
     }
   }
   // resampling or an approximated df denied at its words ("Permutation-based p values were not

@@ -1,4 +1,5 @@
 import type { Segment } from '../parse/types.js';
+import { matchesOf } from './matches.js';
 import { readNumber, sentenceOf, sourceSpan } from './numbers.js';
 import type { PowerStatement, ReportedNumber } from './types.js';
 import { UNITS } from './units.js';
@@ -28,7 +29,11 @@ const TWO_SIZES = /(?<![\p{L}\p{N}.,])(\d{1,5}) (?:\p{L}{2,20} )?and (\d{1,5}) (
  * t-test: clustering (a design effect, an ICC), adjustment for baseline or covariates (ANCOVA, a
  * baseline–outcome correlation), counts or survival, non-inferiority or equivalence margins.
  */
-const OTHER_MODEL = /(?<![\p{L}])(?:design effect|ICC|intra-?class correlation|intra-?cluster correlation|cluster(?:s|ed|ing)?|ANCOVA|analysis of covariance|adjust(?:s|ed|ing|ment)? for (?:the )?(?:baseline|covariates?)|baseline[–-](?:outcome|follow-?up) correlation|correlation (?:of|between|with) (?:the )?baseline|covariates?|mixed[- ]models?|Poisson|negative binomial|log-?rank|survival|hazard ratio|non-?inferiority|equivalence margin|equivalence)(?![\p{L}])/iu;
+const OTHER_MODEL = /(?<![\p{L}])(?:design effect|ICC|intra-?class correlation|intra-?cluster correlation|clustering|clustered|cluster[- ]randomi[sz]ed|ANCOVA|analysis of covariance|adjust(?:s|ed|ing|ment)? for (?:the )?(?:baseline|covariates?)|baseline[–-](?:outcome|follow-?up) correlation|correlation (?:of|between|with) (?:the )?baseline|mixed[- ]models?|Poisson|negative binomial|log-?rank|hazard ratio|non-?inferiority|equivalence margin)(?![\p{L}])/giu;
+/** Words after them that deny them ("clustering was not expected"). */
+const OTHER_MODEL_DENIED_AFTER = /^ (?:was|were|is|are) (?:not|never)(?![\p{L}])/iu;
+/** A negation right before such words ("without adjustment for covariates", "no clustering was expected", "ignoring clustering"). */
+const OTHER_MODEL_DENIED = /(?<![\p{L}])(?:no|not|without|ignoring|never|nor)(?: [\p{L}-]{1,15}){0,2} $/iu;
 const PAIRED = /(?<![\p{L}])(paired|within-subjects?|repeated[- ]measures|crossover|pre-post|before and after)(?![\p{L}])/iu;
 const ONE_SAMPLE = /(?<![\p{L}])one-sample(?![\p{L}])/iu;
 
@@ -70,7 +75,12 @@ export function findPowerStatements(seg: Segment, starts: number[]): PowerStatem
     const ratio = RATIO.exec(sentence);
     const sizes = TWO_SIZES.exec(sentence);
     const unequal = (ratio !== null && ratio[1] !== ratio[2]) || (sizes !== null && sizes[1] !== sizes[2]);
-    const other = OTHER_MODEL.exec(sentence);
+    let other: RegExpExecArray | undefined;
+    for (const m of matchesOf(OTHER_MODEL, sentence)) {
+      if (OTHER_MODEL_DENIED.test(sentence.slice(Math.max(0, m.index - 40), m.index)) || OTHER_MODEL_DENIED_AFTER.test(sentence.slice(m.index + m[0].length, m.index + m[0].length + 30))) continue;
+      other = m;
+      break;
+    }
     out.push({
       segment: seg.id,
       block: seg.block,

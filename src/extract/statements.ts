@@ -1,5 +1,5 @@
 import type { Segment } from '../parse/types.js';
-import { sentenceOf, sourceSpan } from './numbers.js';
+import { sentenceBounds, sentenceOf, sourceSpan } from './numbers.js';
 import { comparisonsIn } from './comparisons.js';
 import type { AdjustMethod, ContextStatement } from './types.js';
 import { matchesOf } from './matches.js';
@@ -74,14 +74,14 @@ const SIDE_TEST = /(?<![\p{L}])(?:normality|Shapiro[-–‐ ]Wilk|Kolmogorov[-�
  */
 const MARGIN_TEST = /(?<![\p{L}])(?:non-?inferiority|equivalence|TOST|two one-sided tests|superiority margin)(?![\p{L}])/iu;
 /** Words naming the t-tests themselves, or every test: a side test named beside them does not take the statement. */
-const SIDE_TEST_AND_T = /(?<![\p{L}])(?:t[- ]tests?|all (?:other |remaining )?(?:tests|analyses|comparisons|hypotheses)|every (?:other )?test|otherwise|main (?:analys[ie]s|comparisons?|effects?)|primary)(?![\p{L}])/iu;
+const SIDE_TEST_AND_T = /(?<![\p{L}])(?:t[- ]tests?|all (?:other |remaining )?(?:statistical |hypothesis |significance )?(?:tests|analyses|comparisons|hypotheses)|every (?:other )?test|all p[- ]?values|p[- ]?values (?:were|are)|analyses (?:were|was|used)|throughout|otherwise|(?:statistical )?significance (?:was|is) set|group (?:differences|comparisons)|main (?:analys[ie]s|comparisons?|effects?)|primary)(?![\p{L}])/iu;
 /**
  * Words after a tails word that make it the label of a p value printed right after it ("one-tailed
  * p = .037", "one-sided p-value of .04", "a one-tailed test, as preregistered, gives p = .037").
  */
-export const LABELS_P = /^[- ]?(?:\(? ?(?:p|P)(?:[- ]?values?)? ?(?:=|<|>|≤|≥|:|of|would be|was|is) ?0?\.\d|(?:test|tests|t-test|analysis|version),?(?: [\p{L}-]{1,20},?){0,4} (?:gives|gave|yields|yielded|returns|returned|would give) (?:a )?p ?(?:=|<|of) ?0?\.\d)/u;
-/** A p value printed right before a tails word ("or p = .037 one-tailed"): the tails are that p's. */
-export const P_BEFORE = /(?<![\p{L}])(?:p|P) ?(?:=|<|>|≤|≥) ?0?\.\d{1,12},? ?\(?$/u;
+export const LABELS_P = /^[- ]?(?::? ?(?:p|P)(?:[- ]?values?)? ?(?:=|<|>|≤|≥|:|of|would be|was|is) ?0?\.\d|(?:test|tests|t-test|analysis|version),?(?: [\p{L}-]{1,20},?){0,4} (?:gives|gave|yields|yielded|returns|returned|would give) (?:a )?p ?(?:=|<|of) ?0?\.\d)/u;
+/** A p value printed right before a tails word ("or p = .037 one-tailed", "(.037 one-tailed)"): the tails are that p's. */
+export const P_BEFORE = /(?:(?<![\p{L}])(?:p|P) ?(?:=|<|>|≤|≥) ?|\( ?)0?\.\d{1,12},? ?\(?$/u;
 /** A p value in the words between a result's own p and a tails word: the tails may be that second p's. */
 export const A_P_VALUE = /(?<![\p{L}])(?:p|P) ?(?:=|<|>|≤|≥) ?0?\.\d/u;
 /** Words of a power or sample-size calculation: its tails and alpha size the study, they do not say how its tests were run. */
@@ -131,13 +131,44 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
   });
   // What each sentence's words say, read once per sentence: a sentence of thousands of
   // statements would otherwise be searched again for each.
-  const readings = new Map<number, { planning: boolean; general: boolean; local: boolean; restricted: boolean; single: boolean }>();
+  const readings = new Map<number, { planning: boolean; general: boolean; local: boolean; restricted: boolean; single: boolean; sideTests: boolean }>();
+  // a side test named in the clause of a tails or alpha word ("Normality was checked with the
+  // Shapiro–Wilk test at α = .10"), in a sentence that names neither the t-tests nor every test:
+  // the word is that test's (a clause ends at a semicolon or colon)
+  // (each sentence's clauses are read once: a sentence of thousands of statements stays linear)
+  const clausesOf = new Map<number, { ends: number[]; side: boolean[] }>();
+  const ofSideTest = (at: number, sentence: { sideTests: boolean }): boolean => {
+    if (!sentence.sideTests) return false;
+    const i = sentenceOf(sentenceStarts, at);
+    let c = clausesOf.get(i);
+    if (!c) {
+      const [from, to] = sentenceBounds(sentenceStarts, at, text.length);
+      c = { ends: [], side: [] };
+      let start = from;
+      for (let k = from; k <= to; k += 1) {
+        if (k === to || text[k] === ';' || text[k] === ':') {
+          c.ends.push(k);
+          c.side.push(SIDE_TEST.test(text.slice(start, k)));
+          start = k + 1;
+        }
+      }
+      clausesOf.set(i, c);
+    }
+    let lo = 0;
+    let hi = c.ends.length - 1;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if ((c.ends[mid] as number) < at) lo = mid + 1;
+      else hi = mid;
+    }
+    return c.side[lo] === true;
+  };
   const sentenceOfAt = (at: number) => {
     const i = sentenceOf(sentenceStarts, at);
     let r = readings.get(i);
     if (!r) {
       const sentence = text.slice(sentenceStarts[i] as number, sentenceStarts[i + 1] ?? text.length);
-      r = { planning: PLANNING.test(sentence), general: GENERAL_WORDS.test(sentence), local: LOCAL_ALPHA.test(sentence), restricted: RESTRICTED_SCOPE.test(sentence) || KIND_SUBJECT.test(sentence) || MARGIN_TEST.test(sentence) || (SIDE_TEST.test(sentence) && !SIDE_TEST_AND_T.test(sentence)), single: ONE_TEST.test(sentence) };
+      r = { planning: PLANNING.test(sentence), general: GENERAL_WORDS.test(sentence), local: LOCAL_ALPHA.test(sentence), restricted: RESTRICTED_SCOPE.test(sentence) || KIND_SUBJECT.test(sentence) || MARGIN_TEST.test(sentence), single: ONE_TEST.test(sentence), sideTests: !SIDE_TEST_AND_T.test(sentence) };
       readings.set(i, r);
     }
     return r;
@@ -151,7 +182,8 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     const planning = sentence.planning;
     const end = m.index + m[0].length;
     const labelsP = LABELS_P.test(text.slice(end, end + 60)) ? ('after' as const) : P_BEFORE.test(text.slice(Math.max(0, m.index - 24), m.index)) ? ('before' as const) : undefined;
-    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: !planning && sentence.general && !sentence.restricted, ...(planning ? { planning } : {}), ...(sentence.restricted ? { restricted: true as const } : {}), ...(sentence.single && !sentence.general ? { single: true as const } : {}), ...(labelsP ? { labelsP } : {}), ...base(m.index, end) });
+    const restricted = sentence.restricted || ofSideTest(m.index, sentence);
+    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: !planning && sentence.general && !restricted, ...(planning ? { planning } : {}), ...(restricted ? { restricted: true as const } : {}), ...(sentence.single && !sentence.general ? { single: true as const } : {}), ...(labelsP ? { labelsP } : {}), ...base(m.index, end) });
   }
   if (/equivalen|TOST|one-sided|inferiority/i.test(text)) for (const m of matchesOf(EQUIVALENCE, text)) {
     out.push({ kind: 'equivalence', sidedness: 'one', ...base(m.index, m.index + m[0].length) });
@@ -192,7 +224,8 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
       const value = Number(m[1] ?? m[2]);
       const sentence = sentenceOfAt(m.index);
       const planning = sentence.planning;
-      if (value > 0 && value < 0.5) out.push({ kind: 'alpha', alpha: value, general: sentence.general && !sentence.local && !sentence.restricted, ...(planning ? { planning } : {}), ...(sentence.restricted ? { restricted: true as const } : {}), ...(sentence.single && !sentence.general ? { single: true as const } : {}), ...base(m.index, m.index + m[0].length) });
+      const restricted = sentence.restricted || ofSideTest(m.index, sentence);
+      if (value > 0 && value < 0.5) out.push({ kind: 'alpha', alpha: value, general: sentence.general && !sentence.local && !restricted, ...(planning ? { planning } : {}), ...(restricted ? { restricted: true as const } : {}), ...(sentence.single && !sentence.general ? { single: true as const } : {}), ...base(m.index, m.index + m[0].length) });
     }
   }
   return out;

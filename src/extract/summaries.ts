@@ -87,13 +87,13 @@ const ESTIMATE = new RegExp(String.raw`${START}(?:(?:mean difference|difference|
  */
 const COEFFICIENT_SE = /^[,;]? ?\(? ?(?:SE|S\.E\.|s\.e\.|SE_?\{?[bB]\}?|SE ?\([bB]\)|SE [bB]|standard error) ?(?:=|:|of) ?(\d{1,9}(?:\.\d{1,12})?|\.\d{1,12})(?![\d.,]?\d)/du;
 /**
- * Words right before an effect size that make it a reference rather than a result's: power or
- * detection ("80% power only for effects of", "could detect only"), a minimum detectable,
- * smallest or expected effect ("minimum detectable effect", "the expected d", "an assumed effect
- * of"). Read back to the effect size's clause only (a comma, semicolon or bracket ends it), within
- * REFERENCE_EFFECT_REACH characters.
+ * Words right before an effect size that make it a reference rather than a result's: power to
+ * detect it ("80% power only for effects of", "powered to detect"), "could detect only", a
+ * detectable, minimum or smallest effect ("minimum detectable effect"), or one expected, assumed,
+ * hypothesised or targeted ("the expected d", "an assumed effect of"). Only right before it: not
+ * "Peak power did not differ with d", "less than expected: d", "the effect we detected was d".
  */
-const REFERENCE_EFFECT = /(?<![\p{L}])(?:power|detect(?:ed|able|ing)?|sensitivity|minimum|smallest|expected|anticipated|assumed|hypothesi[sz]ed|target(?:ed)?|MDE|SESOI)(?![\p{L}])[^,;.()\[\]]{0,40}$/iu;
+const REFERENCE_EFFECT = /(?<![\p{L}])(?:power(?:ed)?(?: [\p{L}%]{1,12}){0,3} (?:to detect|for)(?: (?:an? |effects? |effect sizes? )?(?:of|as small as|as large as))?|could (?:only )?detect(?: only)?|detectable(?: effects?(?: sizes?)?)?(?: of)?|(?:minimum|smallest)(?: clinically)?(?: important| detectable| relevant)? (?:effect|difference)(?: sizes?)?(?: of)?|(?:expected|assumed|anticipated|hypothesi[sz]ed|target(?:ed)?)(?: (?:effect(?: sizes?)?|difference)(?: of)?)?|MDE|SESOI) $/iu;
 const REFERENCE_EFFECT_REACH = 60;
 const EFFECT = new RegExp(String.raw`(?<![\p{L}\p{N}_'’])(?:(?:Cohen['’]s|Hedges['’]s?) ?)?(d_?\{?z\}?|d_?\{?av\}?|d|g)(?![\p{L}\p{N}′'’]) ?= ?${NUM}`, 'dgu');
 /**
@@ -116,17 +116,21 @@ const INDEPENDENT_WORDS = /(?<![\p{L}])(independent[- ]samples?|two independent 
  * groups or cohorts with one word between ("two independent school samples").
  */
 const INDEPENDENT_TESTS = /(?<![\p{L}])(Welch(?:['’]s)?(?: corrected| unequal-variance)? (?:t[- ]?tests?|tests?|correction)|Student['’]s (?:unpaired |two-sample )?t[- ]?tests?|independent \p{L}{2,20} (?:samples|groups|cohorts))(?![\p{L}])/giu;
-/** A count said of one group right after it ("18 (60%) in the sock arm", "12 (40%) of those in the control group"): its base is that group's size. */
-/** Words right before an n that make it the number randomised, allocated or enrolled ("randomised n = 32", "ITT n ="). */
-const ASSIGNED_N_BEFORE = /(?<![\p{L}])(?:randomi[sz]ed|allocated|assigned|enrolled|recruited|ITT|intention[- ]to[- ]treat)[ :]?\(?$/iu;
+/** Words right before an n that make it the number randomised, allocated or enrolled ("randomised n = 32"; not "ITT n", whose analysis is of those randomised). */
+const ASSIGNED_N_BEFORE = /(?<![\p{L}])(?:randomi[sz]ed|allocated|assigned|enrolled|recruited)[ :]?\(?$/iu;
+/** Words after a total that say it counts those randomised or enrolled ("N = 62 women were randomised"). */
+const ASSIGNED_AFTER = /^(?: [\p{L}-]{1,20}){0,2} (?:were|was) (?:randomi[sz]ed|allocated|assigned|enrolled|recruited)(?![\p{L}])/iu;
 /** A unit of measure right after a count's percentage ("9 (10%) kilograms", "2 (25%) days"): the number is an amount, not a count. */
-const QUANTITY_AFTER = /^ ?(?:kg|kilo(?:gram)?s?|g|grams?|mg|µg|lbs?|pounds|days?|nights?|hours?|hrs?|h|minutes?|mins?|seconds?|s|weeks?|months?|years?|points?|percentage points|mmol\/(?:mol|l)|mg\/dl|mm ?hg|mmhg|cm|mm|km|m|ml|l|litres?|liters?|beats|bpm|units?|steps|kcal|calories|euros?|dollars?)(?![\p{L}])/iu;
+const QUANTITY_AFTER = /^ ?(?:kg|kilo(?:gram)?s?|g|grams?|mg|µg|lbs?|pounds|days?|hours?|hrs?|h|minutes?|mins?|seconds?|s|months?|years?|points?|percentage points|mmol\/(?:mol|l)|mg\/dl|mm ?hg|mmhg|cm|mm|km|m|ml|l|litres?|liters?|beats|bpm|kcal|calories|euros?|dollars?)(?![\p{L}])/iu;
 /** Words of a change right before a count ("fell by 9 (10%)", "rose by", "reduced by"): an amount. */
 const CHANGE_BY = /(?<![\p{L}])(?:fell|rose|dropped|declined|decreased|increased|reduced|improved|lower|higher|shorter|longer|gained|lost) by $/iu;
 /** "of them", "of these", "of whom" right after a count's percentage: a part of the count before it. */
 const OF_THEM_AFTER = /^,? (?:of|among) (?:them|these|those|whom|which)(?![\p{L}])/iu;
 /** A count before it in its sentence that is itself a part ("80 responded", "24 reported pain"): the base may be that part. */
-const SUBSET_BEFORE = /(?<![\p{L}\p{N}.,])\d{1,6} (?:(?:of (?:them|these|those)|[\p{L}-]{3,20}) )?(?:responded|replied|completed|attended|returned|consented|agreed|remained|reported|received|underwent|answered|participated|took part|were eligible|were included|were analy[sz]ed|had)(?![\p{L}])/iu;
+const SUBSET_BEFORE = /(?<![\p{L}\p{N}.,])\d{1,6} (?:(?:of (?:them|these|those)|[\p{L}-]{3,20}) )?(?:responded|replied|completed|attended|returned|consented|agreed|remained|reported|received|underwent|answered|participated|took part|were eligible|were included|were analy[sz]ed|had)(?![\p{L}])/giu;
+/** A whole number, not part of a decimal or of a word. */
+const WHOLE_NUMBER = /(?<![\p{L}\p{N}.,])\d{1,6}(?![\p{N}.,]\d)/gu;
+/** A count said of one group right after it ("18 (60%) in the sock arm", "12 (40%) of those in the control group"): its base is that group's size. */
 const IN_GROUP_AFTER = /^ (?:(?:were|was) )?(?:in|of those in|from) the (?:[\p{L}-]+ ){0,3}(?:arm|group|condition|cohort|ward|clinic|site|sample)s?(?![\p{L}])/iu;
 /** A participle that says when units joined ("staff hired before and after the change"): two cohorts, not one measured twice. */
 const ENTRY_EVENT = /(?:admitted|hired|recruited|enrolled|born|employed|diagnosed|registered|appointed|joined|started|graduated|qualified|referred|discharged|operated on) $/iu;
@@ -261,7 +265,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     const perGroup = m[3] !== undefined;
     const capital = m[1] === 'N';
     // "randomised n = 32": those randomised, which need not be those analysed
-    const assigned = ASSIGNED_N_BEFORE.test(text.slice(Math.max(0, m.index - 28), m.index));
+    const assigned = ASSIGNED_N_BEFORE.test(text.slice(Math.max(0, m.index - 28), m.index)) || (capital && ASSIGNED_AFTER.test(text.slice(m.index + m[0].length, m.index + m[0].length + 50)));
     push({ kind: 'n', start: m.index, end: m.index + m[0].length, a, percent: false, perGroup, ...(assigned ? { assigned } : {}) });
     const end = m.index + m[0].length;
     const subset = !perGroup && SUBSET_AFTER.test(text.slice(end, end + 16));
@@ -389,6 +393,43 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     if (value) references.push(Object.assign(where(m.index, m.index + m[0].length), { value }));
   }
   const counts: CountPercent[] = [];
+  // whole numbers of the text, once: how many distinct ones stand before a place in its sentence,
+  // and where a part is said ("80 responded"), each found by a binary search (a sentence of
+  // thousands of counts stays linear)
+  const numbers: Array<{ at: number; sentence: number; distinct: number }> = [];
+  const subsets: number[] = [];
+  if (text.includes('%)') || text.includes('% )')) {
+    let sentence = -1;
+    let seen = new Set<string>();
+    for (const m of matchesOf(WHOLE_NUMBER, text)) {
+      const k = sentenceOf(sentenceStarts, m.index);
+      if (k !== sentence) {
+        sentence = k;
+        seen = new Set<string>();
+      }
+      seen.add(m[0]);
+      numbers.push({ at: m.index, sentence: k, distinct: seen.size });
+    }
+    for (const m of matchesOf(SUBSET_BEFORE, text)) subsets.push(m.index);
+  }
+  const lastBefore = <T>(list: readonly T[], at: (x: T) => number, before: number): T | undefined => {
+    let lo = 0;
+    let hi = list.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (at(list[mid] as T) < before) lo = mid + 1;
+      else hi = mid;
+    }
+    return lo > 0 ? list[lo - 1] : undefined;
+  };
+  const distinctBefore = (at: number): number => {
+    const n = lastBefore(numbers, (x) => x.at, at);
+    return n && n.sentence === sentenceOf(sentenceStarts, at) ? n.distinct : 0;
+  };
+  const subsetBefore = (at: number): boolean => {
+    const s = lastBefore(subsets, (x) => x, at);
+    return s !== undefined && sentenceOf(sentenceStarts, s) === sentenceOf(sentenceStarts, at);
+  };
   if (text.includes('%)') || text.includes('% )')) for (const m of matchesOf(COUNT_PERCENT, text)) {
     const count = num(seg, m, 1);
     const percent = num(seg, m, 2);
@@ -413,8 +454,10 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     // "weight fell by 9 (10%) kg": an amount of a measure and its relative change, not a count
     if (QUANTITY_AFTER.test(text.slice(end, end + 24)) || CHANGE_BY.test(text.slice(Math.max(0, m.index - 24), m.index))) continue;
     const inGroup = !after && IN_GROUP_AFTER.test(text.slice(end, end + 60));
-    // "24 reported pain, and 18 (75%) of them", "80 responded; 60 (75%)": a part of a part
-    const baseOpen = OF_THEM_AFTER.test(text.slice(end, end + 20)) || SUBSET_BEFORE.test(text.slice(sentenceStart, m.index));
+    // "24 reported pain, and 18 (75%) of them", "80 responded; 60 (75%)": a part of a part, where
+    // a second number stands before it in its sentence (with the n alone, "120 adults, 30 (25%)
+    // of whom", the part is of the n)
+    const baseOpen = (OF_THEM_AFTER.test(text.slice(end, end + 20)) || subsetBefore(m.index)) && distinctBefore(m.index) >= 2;
     counts.push(Object.assign(where(m.index, end), { count, percent, ...(of ? { of } : {}), ...(inGroup ? { inGroup: true as const } : {}), ...(baseOpen ? { baseOpen: true as const } : {}) }));
   }
   return { summaries, sampleSizes, unitCounts, groupSizes, intervals, estimates, effectSizes, designs, references, counts };

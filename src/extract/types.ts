@@ -556,7 +556,7 @@ export interface PowerStatement {
  * what a test assumes ("Welch's test does not assume equal variances").
  */
 export interface Mention {
-  kind: 'software' | 'assumption' | 'multiplicity' | 'trend' | 'exclusion' | 'test-name' | 'repeated-measures' | 'between-subjects' | 'no-sphericity-correction' | 'resampled-p' | 'resampling-test' | 'approximate-df' | 'contrast' | 'derived-means' | 'several-studies' | 'part-of-sample' | 'many-arms' | 'transformed' | 'exact-test';
+  kind: 'software' | 'assumption' | 'multiplicity' | 'trend' | 'exclusion' | 'test-name' | 'repeated-measures' | 'between-subjects' | 'no-sphericity-correction' | 'resampled-p' | 'resampling-test' | 'approximate-df' | 'contrast' | 'derived-means' | 'several-studies' | 'part-of-sample' | 'many-arms' | 'transformed' | 'exact-test' | 'model-based';
   segment: number;
   block: number;
   sentence: number;
@@ -574,6 +574,13 @@ export interface Mention {
   namesCorrection?: true;
   /** For a test name: the words are denied ("Welch's test was not needed", "instead of Welch's t-test"; mentions.ts deniedAt). */
   negated?: true;
+  /**
+   * For words that make a finding less certain (a transformation, a model, an exact test): their
+   * sentence says what they are about, the tests or comparisons themselves ("All group comparisons
+   * were estimated by regression"), or for an exact test small counts or χ². Only such a sentence
+   * speaks of results beyond its own paragraph.
+   */
+  aboutTests?: true;
 }
 
 /** What a test's name says: the design, Student's or Welch's, and whether it names several tests. */

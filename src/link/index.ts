@@ -106,9 +106,10 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const sentencesWithStatistics = new Set([...sentencesWithTests, ...extraction.otherStatistics.map(sentenceKey)]);
   const adjustmentOf = adjustmentJoiner(extraction, sentencesWithStatistics);
   const resampledOf = resampledJoiner(extraction, sentencesWithStatistics);
-  const approximateDfOf = approximateDfJoiner(extraction, sentencesWithStatistics);
+  const approximateDfOf = mentionJoiner(extraction, sentencesWithStatistics, 'approximate-df');
   const pooledErrorOf = pooledErrorJoiner(extraction);
   const transformedOf = transformedJoiner(extraction, sentencesWithStatistics);
+  const modelBasedOf = transformedJoiner(extraction, sentencesWithStatistics, 'model-based');
   // Welch's test named where no test is reported ("Welch's t-tests were used throughout")
   // (as a test: not "Welch's method" or "Welch's ANOVA", and not in a sentence that negates it)
   // (and none where the text also names Student's test so: it then says which test its results are)
@@ -136,6 +137,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       ...withApproximateDf(approximateDfOf(report)),
       ...withPooledError(pooledErrorOf(report)),
       ...withTransformed(transformedOf(report)),
+      ...withModelBased(modelBasedOf(report)),
     };
   });
   const statistics: LinkedStatistic[] = [];
@@ -145,7 +147,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const repeatedMeasuresOf = repeatedMeasuresJoiner(extraction);
   // an exact test or a corrected χ² named in a χ²'s sentence, or in a sentence that reports no
   // statistic ("Fisher's exact test was used where expected counts were below 5"): its p may be that test's
-  const exactOf = approximateDfJoiner(extraction, sentencesWithStatistics, 'exact-test');
+  const exactOf = mentionJoiner(extraction, sentencesWithStatistics, 'exact-test');
   const exactDoubt = (o: OtherStatistic): string[] => {
     const m = o.kind === 'chi-square' ? exactOf(o) : undefined;
     return m ? [`"${m.printed.trim()}" is named beside χ², so its p may be that test's rather than the upper tail of the χ² printed`] : [];
@@ -243,30 +245,39 @@ const withApproximateDf = (m: Mention | undefined) => (m ? { approximateDf: m } 
  * that reports no statistic. Such words only ever make a finding less certain, as a whole df may
  * then be a rounded one, or a p an exact test's.
  */
-function approximateDfJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>, kind: 'approximate-df' | 'exact-test' = 'approximate-df'): (at: { segment: number; sentence: number }) => Mention | undefined {
+function mentionJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>, kind: 'approximate-df' | 'exact-test'): (at: { segment: number; sentence: number }) => Mention | undefined {
   const said = extraction.mentions.filter((m) => m.kind === kind);
   if (said.length === 0) return () => undefined;
   const bySentence = groupBy(said, sentenceKey);
-  const general = said.find((m) => !withStatistics.has(sentenceKey(m)));
+  // an exact test said of a whole text only with small counts or χ² ("Fisher's exact test was used
+  // where expected counts were below 5"), not of baseline characteristics or a proportion
+  const general = said.find((m) => !withStatistics.has(sentenceKey(m)) && (kind !== 'exact-test' || m.aboutTests === true));
   return (at) => bySentence.get(sentenceKey(at))?.[0] ?? general;
 }
 
 const withTransformed = (m: Mention | undefined) => (m ? { transformed: m } : {});
+const withModelBased = (m: Mention | undefined) => (m ? { modelBased: m } : {});
+/** Sections that speak of other studies or of future work: an introduction, a background, a discussion, a conclusion. */
+const OTHER_STUDIES_SECTION = /introduction|background|discussion|conclusion|limitation|future|related work|literature/i;
 
 /**
- * Words saying values were transformed for the analysis (extract's `transformed`) that may speak
- * of a result: in its sentence, its paragraph (a table's note is a paragraph of its own: "t-tests
- * were performed on log-transformed values"), or a sentence of the text that reports no
- * statistic. Such words only ever make a finding on the t from the printed descriptives less
- * certain, so they are read at that scope.
+ * Words saying values were transformed for the analysis (extract's `transformed`), or that
+ * comparisons were estimated from a model (`model-based`), that may speak of a result: in its
+ * sentence; for a transformation, its paragraph too; else a sentence of the text that reports no
+ * statistic, says it is about the tests or comparisons ("All group comparisons were estimated by
+ * linear regression adjusted for age", "t-tests were performed on log-transformed values", a
+ * table's note) and stands in no introduction or discussion. A model's words in a paragraph are
+ * often about another analysis of it ("In a regression adjusting for age, ...").
  */
-function transformedJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>): (report: TTestReport) => Mention | undefined {
-  const said = extraction.mentions.filter((m) => m.kind === 'transformed');
+function transformedJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>, kind: 'transformed' | 'model-based' = 'transformed'): (report: TTestReport) => Mention | undefined {
+  const said = extraction.mentions.filter((m) => m.kind === kind);
   if (said.length === 0) return () => undefined;
   const bySentence = groupBy(said, sentenceKey);
   const bySegment = groupBy(said, (m) => m.segment);
-  const general = said.find((m) => !withStatistics.has(sentenceKey(m)));
-  return (report) => bySentence.get(sentenceKey(report))?.[0] ?? bySegment.get(report.segment)?.[0] ?? general;
+  // beyond its paragraph, only a sentence that reports no statistic, says it is about the tests or
+  // comparisons, and is not in an introduction or discussion (of other studies, of future work)
+  const general = said.find((m) => !withStatistics.has(sentenceKey(m)) && m.aboutTests === true && !OTHER_STUDIES_SECTION.test(extraction.sections[m.segment] ?? ''));
+  return (report) => bySentence.get(sentenceKey(report))?.[0] ?? (kind === 'model-based' ? undefined : bySegment.get(report.segment)?.[0]) ?? general;
 }
 
 const withPooledError = (p: PooledError | undefined) => (p ? { pooledError: p } : {});
@@ -374,7 +385,8 @@ function sidednessFor(stated: { value: Sidedness; span: Span } | undefined, repo
   if (stated) return { value: stated.value, basis: 'in-report', span: stated.span };
   // With several tests in one sentence, a tails word belongs to the test nearest to it (ties: each);
   // not one that labels a p printed after the result's own ("p = .075 (one-tailed p = .037)"): that
-  // is a second p, with tails of its own
+  // is a second p, with tails of its own; one right after the result's own p is that p's ("p =
+  // .075 one-tailed (p = .15 two-tailed)")
   const ownP = report.p;
   const labelsAnother = (s: ContextStatement) =>
     ownP !== undefined && ownP.span.end <= s.span.start && (s.labelsP === 'after' || (s.labelsP === 'before' && s.span.start - ownP.span.end > LABEL_GAP));

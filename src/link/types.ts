@@ -69,6 +69,12 @@ export interface LinkedResult {
    * its t may be of the transformed values, which the untransformed descriptives do not give.
    */
   transformed?: Mention;
+  /**
+   * Words saying comparisons were estimated from a model (a mixed model, regression, ANCOVA,
+   * "adjusted for age, sex and BMI"), in its sentence, its paragraph or a sentence that reports no
+   * statistic: its t need not follow from the groups' descriptives, nor its df from their sizes.
+   */
+  modelBased?: Mention;
 }
 
 /** What says a t may take a larger analysis's pooled error term: an F with its df as error df, or words of contrasts. */

@@ -64,3 +64,15 @@ export function transformedDoubt(result: LinkedResult): { uncertain: string[]; r
   if (!m) return undefined;
   return { uncertain: [`the text says values were transformed for the analysis ("${m.printed.trim()}"), so the t may be of transformed values, which the printed descriptives do not give`], related: [{ span: m.span, message: 'the words about the transformation' }] };
 }
+
+/**
+ * `{ uncertain, related }` for a finding that holds a t to its two groups (its t to their
+ * descriptives, its df to their sizes), where the text says comparisons were estimated from a
+ * model (result.modelBased): a mixed model's, a regression's or an adjusted t need not follow from
+ * them.
+ */
+export function modelDoubt(result: LinkedResult): { uncertain: string[]; related: Array<{ span: Span; message: string }> } | undefined {
+  const m = result.modelBased;
+  if (!m) return undefined;
+  return { uncertain: [`the text says comparisons were estimated from a model ("${m.printed.trim()}"), so the t and its df need not follow from the two groups' descriptives and sizes alone`], related: [{ span: m.span, message: 'the words about the model' }] };
+}

@@ -30,6 +30,11 @@ const SHAPES: Record<string, { make: (n: number) => string; n: number; each?: (r
       expect(r.context.effectSizes).toHaveLength(1);
     },
   },
+  'one sentence of counts with percentages after a part and a side test, beside results': {
+    // each count after "80 responded" and "of them" looks back for numbers and parts once per sentence
+    make: (n) => doc(`Of 120 patients, 80 responded and normality was checked with the Shapiro–Wilk test at α = .10; ${Array.from({ length: n }, (_, i) => { const x = value(i); return `${10 + (i % 60)} (${20 + (i % 50)}%) of them, t(${x.df}) = ${x.t}, p = ${x.p}`; }).join(', ')}.`),
+    n: 1500,
+  },
   'one sentence of labelled t values without a df': {
     make: (n) => doc(`With 20 degrees of freedom ${Array.from({ length: n }, (_, i) => { const x = value(i); return `t = ${x.t}, p = ${x.p}`; }).join(', ')}.`),
     n: 1500,

@@ -141,11 +141,12 @@ describe('an exact test named beside a χ²', () => {
   const of = (markdown: string) => levels(run(markdown), 'p-follows-from-chi-square');
   it('in its sentence or in the Methods, makes a p that does not follow from the χ² a note', () => {
     expect(of('Escalation was more frequent after the training (9 of 12 vs 4 of 14; χ²(1) = 5.57, Fisher\'s exact p = .047).')).toEqual(['note']);
-    expect(of('Escalation was more frequent after the training, χ²(1) = 5.57, exact p = .047.')).toEqual(['note']);
     expect(of("## Methods\n\nFisher's exact test was used where expected counts were below 5.\n\n## Results\n\nEscalation was more frequent after the training, χ²(1) = 5.57, p = .047.")).toEqual(['note']);
   });
   it('not named, or denied, it leaves the warning', () => {
     expect(of('Escalation was more frequent after the training, χ²(1) = 5.57, p = .047.')).toEqual(['warning']);
+    // "exact p" is a p printed in full, not a test
+    expect(of('Escalation was more frequent after the training, χ²(1) = 5.57, exact p = .047.')).toEqual(['warning']);
     expect(of("## Methods\n\nNo continuity correction was applied.\n\n## Results\n\nEscalation was more frequent after the training, χ²(1) = 5.57, p = .047.")).toEqual(['warning']);
   });
 });
@@ -220,5 +221,65 @@ describe('tails and alpha said of a non-inferiority or equivalence test', () => 
   });
   it('said of every test, they apply', () => {
     expect(of('All tests were one-sided at α = 0.025.')).toEqual(['significance-follows-from-t/error']);
+  });
+});
+
+describe('second review: look-alikes of the doubt words leave true findings as they were (invented cases)', () => {
+  // each text holds a real inconsistency: χ²(1) = 5.57 gives p = .018, not .18 (scipy.stats.chi2.sf);
+  // t(58) = 0.42 gives d = 0.11 (2t/√df), not 0.74; 20 per group give power .34 at d = 0.5, not .80
+  // (scipy.stats.nct); 30 of 120 is 25%, not 40%; t(58) = 1.90 is p = .062, not significant at .10
+  // (scipy.stats.t.sf); t(29) = 1.85 one-tailed is p = .037, not .075
+  const flagged = (markdown: string) => run(markdown).findings.filter((f) => f.level !== 'note').map((f) => f.ruleId);
+  const chi = '## Results\n\nEscalation was more frequent after the training, χ²(1) = 5.57, p = .18.';
+  const mood = '## Results\n\nMood did not differ between exercise and stretching, t(58) = 1.90, ns.';
+  const cases: Array<[string, string]> = [
+    [`## Methods\n\nExact p values are reported unless p < .001.\n\n${chi}`, 'significance-follows-from-statistic'],
+    [`## Methods\n\nBaseline characteristics were compared with Fisher's exact test.\n\n${chi}`, 'significance-follows-from-statistic'],
+    [`## Methods\n\nAdherence was compared with an exact binomial test against 50%.\n\n${chi}`, 'significance-follows-from-statistic'],
+    ['## Introduction\n\nEarlier trials log-transformed cortisol values before analysis.\n\n## Results\n\nAnxiety was lower with fish oil (M = 1.48, SD = 0.78, n = 40) than with placebo (M = 1.79, SD = 0.67, n = 42), t(80) = -2.46, p = .016.', 't-follows-from-descriptives'],
+    ['## Methods\n\nScores were log-transformed; means and SDs of the log values are reported.\n\n## Results\n\nAnxiety was lower with fish oil (M = 1.48, SD = 0.78, n = 40) than with placebo (M = 1.79, SD = 0.67, n = 42), t(80) = -2.46, p = .016.', 't-follows-from-descriptives'],
+    [`## Methods\n\nStatistical significance was set at α = .10 (two-tailed); interaction effects were also examined.\n\n${mood}`, 'significance-follows-from-t'],
+    [`## Methods\n\nAll statistical tests used α = .10, and outliers were retained.\n\n${mood}`, 'significance-follows-from-t'],
+    [`## Methods\n\nGroup differences were tested at α = .10; homogeneity of variance was assumed.\n\n${mood}`, 'significance-follows-from-t'],
+    ['Peak power did not differ with d = 0.74, t(58) = 0.42, p = .676.', 'effect-size-follows'],
+    ['Mood differed less than expected: d = 0.74, t(58) = 0.42, p = .676.', 'effect-size-follows'],
+    ['Mood did not differ, t(58) = 0.42, p = .676; the effect we detected was d = 0.74.', 'effect-size-follows'],
+    ['20 participants per group give 80% power to detect d = 0.5 (two-sided alpha .05), without adjustment for covariates.', 'power-statement-follows'],
+    ['In this trial of cluster headache, 20 patients per group give 80% power to detect d = 0.5 at alpha .05.', 'power-statement-follows'],
+    ['We recruited 120 adults, 30 (40%) of whom were women.', 'percentage-matches-count'],
+    ['A total of 120 patients completed the study; 30 (40%) were women.', 'percentage-matches-count'],
+    ['Of the 40 wards, 12 (45%) units adopted the checklist.', 'percentage-matches-count'],
+    ['Wellbeing was higher, t(29) = 1.85, p = .075 one-tailed (p = .15 two-tailed).', 'significance-follows-from-t'],
+    ['## Methods\n\nA total of 120 adults were randomised to strength training or advice, stratified by site and sex.\n\n## Results\n\nPain was lower with strength training than with advice, t(78) = -2.43, p = .017.', 'sample-size-agrees-with-df'],
+    ['## Methods\n\nA total of 120 adults took part. As in Study 2 of an earlier report, pain was rated daily.\n\n## Results\n\nPain was lower with strength training than with advice, t(78) = -2.43, p = .017.', 'sample-size-agrees-with-df'],
+  ];
+  for (const [markdown, rule] of cases) {
+    it(`still ${rule}: ${markdown.replace(/^## \w+\n\n/, '').slice(0, 70)}`, () => {
+      expect(flagged(markdown)).toContain(rule);
+    });
+  }
+  it('a tails word labelling the result\'s own p in brackets, or a bare second p, is read as such', () => {
+    expect(flagged('Wellbeing was higher, t(29) = 1.85, p = .075 (one-tailed: p = .037).')).toEqual([]);
+    expect(flagged('Wellbeing was higher, t(29) = 1.85, p = .075 (.037 one-tailed).')).toEqual([]);
+    expect(flagged('Wellbeing was higher, t(29) = 1.85, p = .037 one-tailed (p = .075 two-tailed).')).toEqual([]);
+  });
+  it('an ITT n is the n analysed', () => {
+    // Student's t from (24.6, 5.1, 32) and (21.9, 4.8, 30): 2.14 on 60 df (scipy.stats.ttest_ind_from_stats); t(55) is a wrong df
+    const r = run('Symptom scores were better with the app (M = 24.6, SD = 5.1; ITT n = 32) than with the leaflet (M = 21.9, SD = 4.8; ITT n = 30), t(55) = 2.14, p = .037.');
+    expect(levels(r, 'df-follows-from-n')).toEqual(['warning']);
+  });
+});
+
+describe('words of a model in the result\'s sentence, or in a sentence about the comparisons', () => {
+  // (138.2, 15.1, 88) and (133.9, 14.6, 212): Student's t on 298 df; adjusted for k covariates the df is 298 − k
+  const result = 'Systolic pressure was higher in lonely participants (M = 138.2, SD = 15.1, n = 88) than in others (M = 133.9, SD = 14.6, n = 212), t(295) = 2.78, p = .006.';
+  const of = (markdown: string) => levels(run(markdown), 'df-follows-from-n');
+  it('make the df a note: the model has covariates', () => {
+    expect(of(result.replace('t(295)', 'adjusted for age, t(297)'))).toEqual(['note']);
+    expect(of(`## Methods\n\nAll group comparisons were estimated by linear regression adjusted for age, sex and body-mass index.\n\n## Results\n\n${result}`)).toEqual(['note']);
+  });
+  it('not said of the comparisons, or in another paragraph of results, they leave the warning', () => {
+    expect(of(`## Methods\n\nBlood pressure was measured twice and the mean used.\n\n## Results\n\nIn a regression adjusting for age, loneliness predicted sleep, b = 0.31, SE = 0.12.\n\n${result}`)).toEqual(['warning']);
+    expect(of(`## Introduction\n\nEarlier studies estimated group comparisons by linear regression adjusted for age.\n\n## Results\n\n${result}`)).toEqual(['warning']);
   });
 });
