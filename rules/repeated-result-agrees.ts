@@ -4,7 +4,12 @@ const messages = {
   'numbers-differ': 'The abstract reports {first}, but the same comparison in "{section}" reads {second}.',
 };
 
-const SUMMARY_SECTION = /abstract|summary|highlights/i;
+/**
+ * The heading of an abstract or its like, as a whole: "Abstract", "Summary", "Structured
+ * abstract", "Highlights", "Key points" (not "Summary of secondary outcomes", "Summary statistics
+ * at baseline", "Summary of main findings" in a discussion).
+ */
+const SUMMARY_SECTION = /^\s*(?:(?:structured|plain[- ]language|lay|graphical|short) )?(?:abstract|summary|highlights|key (?:points|findings|messages))\s*[:.]?\s*$/i;
 
 /** A comparison reported twice (abstract and results, text and table) has the same numbers both times. */
 export const repeatedResultAgrees: Rule = {
@@ -20,16 +25,22 @@ export const repeatedResultAgrees: Rule = {
     const out: RuleFinding[] = [];
     const inSummary = document.results.filter((r) => SUMMARY_SECTION.test(x.sections[r.report.segment] ?? ''));
     const elsewhere = document.results.filter((r) => !SUMMARY_SECTION.test(x.sections[r.report.segment] ?? ''));
+    const severalStudies = x.mentions.find((m) => m.kind === 'several-studies');
     for (const a of inSummary) {
       const df = a.report.df;
       if (!df) continue;
-      // the same comparison: the one result elsewhere with the same df and the same sign of t
-      const same = elsewhere.filter((b) => b.report.df?.printed === df.printed && Math.sign(b.report.t.value) === Math.sign(a.report.t.value));
-      if (same.length === 0) continue;
-      // the abstract's numbers match one of them: nothing to say
-      if (same.some((b) => agrees(a, b))) continue;
-      if (same.length !== 1) continue; // several candidates: which one is meant is a guess
-      const b = same[0] as LinkedResult;
+      // the candidates: the results elsewhere with the same df printed
+      const same = elsewhere.filter((b) => b.report.df?.printed === df.printed);
+      // the abstract's numbers match one of them (either sign of t: the groups may be named the
+      // other way round), or a Welch df that rounds to its whole one with t of the same sign:
+      // nothing to say
+      const rounded = Number.isInteger(df.value) ? elsewhere.filter((b) => b.report.df !== undefined && !Number.isInteger(b.report.df.value) && Math.round(b.report.df.value) === df.value && Math.sign(b.report.t.value) === Math.sign(a.report.t.value)) : [];
+      if (same.some((b) => agrees(a, b)) || rounded.some((b) => agrees(a, b))) continue;
+      const sameSign = same.filter((b) => Math.sign(b.report.t.value) === Math.sign(a.report.t.value));
+      if (sameSign.length !== 1) continue; // none, or several candidates: which one is meant is a guess
+      const b = sameSign[0] as LinkedResult;
+      // in a report of several studies the abstract may speak of another one
+      const uncertain = severalStudies ? [`the text reports several studies ("${severalStudies.printed}"), and the abstract may report another study's result`] : [];
       out.push({
         messageId: 'numbers-differ',
         span: a.report.span,
@@ -39,21 +50,28 @@ export const repeatedResultAgrees: Rule = {
         related: [{ span: b.report.span, message: 'the same comparison in the results' }],
         resultId: a.report.id,
         block: a.report.block,
+        ...(uncertain.length > 0 ? { uncertain } : {}),
       });
     }
     return out;
   },
 };
 
-/** Two reports of one comparison agree when their t and p intervals overlap. */
+/**
+ * Two reports of one comparison agree when their |t| and p intervals overlap; a p labelled
+ * one-tailed beside one labelled two-tailed or unlabelled is compared at twice its value.
+ */
 function agrees(a: LinkedResult, b: LinkedResult): boolean {
-  const ta = numberInterval(a.report.t);
-  const tb = numberInterval(b.report.t);
+  const abs = (i: [number, number]): [number, number] => (i[0] <= 0 && i[1] >= 0 ? [0, Math.max(-i[0], i[1])] : [Math.min(Math.abs(i[0]), Math.abs(i[1])), Math.max(Math.abs(i[0]), Math.abs(i[1]))]);
+  const ta = abs(numberInterval(a.report.t));
+  const tb = abs(numberInterval(b.report.t));
   if (!(ta[0] <= tb[1] && tb[0] <= ta[1])) return false;
   const pa = a.report.p?.number;
   const pb = b.report.p?.number;
   if (!pa || !pb || a.report.p?.op !== '=' || b.report.p?.op !== '=') return true;
-  const ia = numberInterval(pa);
-  const ib = numberInterval(pb);
-  return ia[0] <= ib[1] && ib[0] <= ia[1];
+  const one = (r: LinkedResult) => r.sidedness.value === 'one' && r.sidedness.basis === 'in-report';
+  const scale = (r: LinkedResult) => (one(r) && !one(r === a ? b : a) ? 2 : 1);
+  const ia = numberInterval(pa).map((v) => v * scale(a));
+  const ib = numberInterval(pb).map((v) => v * scale(b));
+  return (ia[0] as number) <= (ib[1] as number) && (ib[0] as number) <= (ia[1] as number);
 }
