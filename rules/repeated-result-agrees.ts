@@ -9,7 +9,9 @@ const messages = {
  * abstract", "Highlights", "Key points" (not "Summary of secondary outcomes", "Summary statistics
  * at baseline", "Summary of main findings" in a discussion).
  */
-const SUMMARY_SECTION = /^\s*(?:(?:structured|plain[- ]language|lay|graphical|short) )?(?:abstract|summary|highlights|key (?:points|findings|messages))\s*[:.]?\s*$/i;
+const SUMMARY_SECTION = /^(?:(?:structured|plain[- ]language|lay|graphical|short) )?(?:abstract|summary|highlights|key (?:points|findings|messages))[:.]?$/i;
+/** Whether a segment's heading is an abstract's (SUMMARY_SECTION, the heading trimmed). */
+const isSummary = (heading: string | undefined): boolean => SUMMARY_SECTION.test((heading ?? '').trim());
 
 /** A comparison reported twice (abstract and results, text and table) has the same numbers both times. */
 export const repeatedResultAgrees: Rule = {
@@ -23,8 +25,8 @@ export const repeatedResultAgrees: Rule = {
   check({ document }) {
     const x = document.extraction;
     const out: RuleFinding[] = [];
-    const inSummary = document.results.filter((r) => SUMMARY_SECTION.test(x.sections[r.report.segment] ?? ''));
-    const elsewhere = document.results.filter((r) => !SUMMARY_SECTION.test(x.sections[r.report.segment] ?? ''));
+    const inSummary = document.results.filter((r) => isSummary(x.sections[r.report.segment]));
+    const elsewhere = document.results.filter((r) => !isSummary(x.sections[r.report.segment]));
     const severalStudies = x.mentions.find((m) => m.kind === 'several-studies');
     for (const a of inSummary) {
       const df = a.report.df;
