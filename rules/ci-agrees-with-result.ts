@@ -45,6 +45,8 @@ export const ciAgreesWithResult: Rule = {
       const doubts = [
         ...linkDoubts({ descriptives: fromMeans ? result.context.descriptives : undefined, linked: [link, estimate.source === 'as printed' ? result.context.estimate : undefined] }),
         ...(ofMean && ofMean.mu === undefined ? ['the test may be a one-sample test whose interval is that of the mean, and no test value is printed to turn it into the interval of the difference'] : []),
+        // an interval by another method (bootstrap, Wilson, exact) need not be estimate ± t × SE
+        ...(ci.method !== undefined ? [`the interval is a ${ci.method} interval, which need not be the estimate ± t × SE`] : []),
         // its width and its side of zero depend on the level; its centre does not
         ...(ci.levelAssumed && found.messageId !== 'not-centred' ? ["the interval's level is printed neither with it nor in its table's caption, and 95% was assumed"] : []),
         // words of a model in the result's own sentence ("adjusted difference 1.9 kg (95% CI …)"):

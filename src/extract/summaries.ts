@@ -75,6 +75,8 @@ const WORDED_COUNT = new RegExp(
 const PLUS_MINUS = new RegExp(String.raw`(?<![\d.])${NUM}( ?%)? ?± ?${NUM}( ?%)?(?: ?\(? ?(SD|SE|SEM|s\.d\.|s\.e\.m\.|s\.e\.|standard deviations?|standard errors?)\)?)?`, 'dgu');
 const MEAN_PAREN = new RegExp(String.raw`(?<![\p{L}\p{N}_.(=])${NUM}( ?%)? ?\((?:(SD|SE|SEM|s\.d\.|s\.e\.)(?: ?=)? ?)?${NUM}( ?%)?\)`, 'dgu');
 const MEAN_PAREN_HEADER = /(?<![\p{L}])(?:M|mean|means)s? ?\((SD|SE|SEM)\)/iu;
+/** Words right before a CI naming a method other than estimate ± t × SE ("bootstrap 95% CI", "BCa", "Wilson", "exact", "profile-likelihood"). */
+const NOT_T_INTERVAL_BEFORE = /(?<![\p{L}])(bootstrap(?:ped)?|BCa|bias[- ]corrected(?: and accelerated)?|percentile|Wilson|Clopper[-–‐ ]Pearson|exact|profile[- ]likelihood|Bayesian|credible|Hodges[-–‐ ]Lehmann|Newcombe)(?: (?:\p{L}{2,15}))? \(?$/iu;
 const CI = new RegExp(
   String.raw`(\d{2}(?:\.\d)?) ?(?:%|percent) ?(?:CI|C\.I\.|KI|IC|confidence intervals?)[^\d\-+.\n]{0,18}${NUM} ?(?:,|;|to|–|—| - | |-(?=\.?\d)) ?${NUM}(?: ?[\])])?`,
   'dgu',
@@ -348,7 +350,9 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     const low = num(seg, m, 2);
     const high = num(seg, m, 3);
     if (!low || !high || low.value > high.value) continue;
-    intervals.push(Object.assign(where(m.index, m.index + m[0].length), { level: Number(m[1]) / 100, low, high }));
+    // "bootstrap 95% CI", "percentile 95% CI", "Wilson 95% CI": not estimate ± t × SE
+    const method = NOT_T_INTERVAL_BEFORE.exec(text.slice(Math.max(0, m.index - 30), m.index))?.[1];
+    intervals.push(Object.assign(where(m.index, m.index + m[0].length), { level: Number(m[1]) / 100, low, high }, method ? { method } : {}));
   }
   const estimates: EstimateReport[] = [];
   if (/difference|MD|diff|\b[bB] ?[=:]|β|estimate|Δ|change/.test(text)) for (const m of matchesOf(ESTIMATE, text)) {

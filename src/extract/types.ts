@@ -410,6 +410,8 @@ export interface IntervalReport {
   table?: TableRow;
   /** A table's interval whose level neither its column header nor the table's caption prints: 95% is assumed. */
   levelAssumed?: true;
+  /** A method other than estimate ± t × SE named right before it ("bootstrap 95% CI"), as printed. */
+  method?: string;
 }
 
 /** An estimate printed with a label: `difference = 10.31`, `b = 2.48`, `MD = 3.1`. */

@@ -302,3 +302,15 @@ describe('a result repeated in the abstract', () => {
     expect(of('## Abstract\n\nIn Experiment 2, retrieval practice improved transfer, t(87) = 2.31, p = .023.\n\n## Experiment 1\n\nTransfer was higher after retrieval practice, t(87) = 1.22, p = .226.')).toEqual(['note']);
   });
 });
+
+describe('a CI named as another kind than estimate ± t × SE', () => {
+  // (1240, 410, 45) against (1480, 520, 44): t(87) = −2.42, p = .018 (scipy.stats.ttest_ind_from_stats);
+  // a bootstrap interval −452 to −61 is not centred on −240, and need not be
+  const of = (markdown: string) => levels(run(markdown), 'ci-agrees-with-result');
+  it('"bootstrap 95% CI" makes the finding a note', () => {
+    expect(of('Mean cost was 1240 (SD 410, n = 45) for day surgery and 1480 (SD 520, n = 44) for inpatient surgery, t(87) = -2.42, p = .018; difference -240 (bootstrap 95% CI -452 to -61).')).toEqual(['note']);
+  });
+  it('a plain 95% CI is still checked', () => {
+    expect(of('Mean cost was 1240 (SD 410, n = 45) for day surgery and 1480 (SD 520, n = 44) for inpatient surgery, t(87) = -2.42, p = .018; difference -240 (95% CI -452 to -61).')).toEqual(['warning']);
+  });
+});
