@@ -6,7 +6,7 @@ import { matchesOf } from './matches.js';
 import { deniedAt } from './mentions.js';
 
 const SIDED = /(?<![\p{L}])(one|two|1|2|single)[- ]?(tailed|sided)(?![\p{L}])|(?<![\p{L}])(non-?directional|directional)(?= (?:test|hypothes|predict))/giu;
-const EQUIVALENCE = /(?<![\p{L}])(equivalence test|test of equivalence|tests? for equivalence|TOST|two one-sided|non-?inferiority|equivalence bounds?)(?![\p{L}])/giu;
+const EQUIVALENCE = /(?<![\p{L}])(equivalence test|test of equivalence|tests? for equivalence|TOST|two one-sided|non-?inferiority|equivalence bounds?|(?:test )?against the (?:lower|upper) (?:equivalence )?(?:bound|margin)|(?:lower|upper)[- ]bound test)(?![\p{L}])/giu;
 const ALPHA = new RegExp(
   String.raw`(?<![\p{L}])(?:α|alpha|significance level|level of significance|significance threshold|significance criterion)(?: level)?(?: (?:of|was set at|set at|was set to|was|at|equal to))? ?(?:=|:)? ?(?:p ?[<≤=] ?)?(0?\.\d{1,4})(?![\d])`,
   'giu',
@@ -185,7 +185,7 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     const restricted = sentence.restricted || ofSideTest(m.index, sentence);
     out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: !planning && sentence.general && !restricted, ...(planning ? { planning } : {}), ...(restricted ? { restricted: true as const } : {}), ...(sentence.single && !sentence.general ? { single: true as const } : {}), ...(labelsP ? { labelsP } : {}), ...base(m.index, end) });
   }
-  if (/equivalen|TOST|one-sided|inferiority/i.test(text)) for (const m of matchesOf(EQUIVALENCE, text)) {
+  if (/equivalen|TOST|one-sided|inferiority|bound|margin/i.test(text)) for (const m of matchesOf(EQUIVALENCE, text)) {
     out.push({ kind: 'equivalence', sidedness: 'one', ...base(m.index, m.index + m[0].length) });
   }
   if (/±|\+\/-|plus or minus/.test(text)) {

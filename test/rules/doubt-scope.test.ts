@@ -314,3 +314,12 @@ describe('a CI named as another kind than estimate ± t × SE', () => {
     expect(of('Mean cost was 1240 (SD 410, n = 45) for day surgery and 1480 (SD 520, n = 44) for inpatient surgery, t(87) = -2.42, p = .018; difference -240 (95% CI -452 to -61).')).toEqual(['warning']);
   });
 });
+
+describe('the tests against the bounds of an equivalence margin', () => {
+  // t(118) = 3.56: one-tailed p = .0003; t(118) = −1.92: one-tailed .029; t(118) = 0.82: two-tailed .41 (scipy.stats.t)
+  it('are one-sided where they are named, though the text says all tests were two-tailed', () => {
+    const r = run('## Statistical analysis\n\nAll tests were two-tailed with alpha = .05. Equivalence was assessed with two one-sided tests (TOST) against bounds of ±1.0 points.\n\n## Results\n\nPain scores did not differ between dressings, t(118) = 0.82, p = .41. The dressings were equivalent: the test against the lower bound gave t(118) = 3.56, p < .001, and the test against the upper bound gave t(118) = −1.92, p = .029.');
+    expect(r.results.map((x) => x.sidedness.value)).toEqual(['two', 'one', 'one']);
+    expect(r.findings.filter((f) => f.level !== 'note')).toEqual([]);
+  });
+});
