@@ -20,6 +20,13 @@ export const dfFollowsFromN: Rule = {
   messages,
   check({ document }) {
     const out: RuleFinding[] = [];
+    // the numbers of cluster means each sentence says are compared ("the 12 school means"), once
+    const clusterMeans = new Map<string, Array<{ value: number; printed: string }>>();
+    for (const c of document.extraction.unitCounts) {
+      if (!c.clusterMeans) continue;
+      const k = `${c.segment}:${c.sentence}`;
+      clusterMeans.set(k, [...(clusterMeans.get(k) ?? []), { value: c.value, printed: c.printed }]);
+    }
     for (const result of document.results) {
       const r = result.report;
       const link = result.context.descriptives;
@@ -60,7 +67,14 @@ export const dfFollowsFromN: Rule = {
       const [dfLow, dfHigh] = dfInterval(r.df);
       // sizes said to be those randomised ("randomised n = 32") need not be those analysed
       const assigned = link.groups.find((g) => g.nAssigned);
-      const doubts = [...(descriptiveDoubts(result).uncertain ?? []), ...(assigned ? [`the group sizes printed are those randomised or enrolled ("${assigned.printed.trim()}"), who need not be those analysed`] : [])];
+      // a test of cluster means ("comparing the 12 school means, t(10)") counts the clusters
+      const dfValue = r.df.value;
+      const clusters = (clusterMeans.get(`${r.segment}:${r.sentence}`) ?? []).find((c) => c.value === dfValue + 2 || c.value === dfValue + 1);
+      const doubts = [
+        ...(descriptiveDoubts(result).uncertain ?? []),
+        ...(assigned ? [`the group sizes printed are those randomised or enrolled ("${assigned.printed.trim()}"), who need not be those analysed`] : []),
+        ...(clusters ? [`the sentence compares cluster means ("${clusters.printed}"), whose number the df may count rather than the group sizes`] : []),
+      ];
       const base = { span: r.df.span, reported: r.printed, resultId: r.id, block: r.block, ...(doubts.length > 0 ? { uncertain: doubts } : {}) };
       const design = inferDesign(result);
       if (ns.length === 1) {

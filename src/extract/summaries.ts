@@ -67,6 +67,8 @@ const NUMBER_WORDS: ReadonlyMap<string, number> = new Map(
  * below twenty, and one word between it and the noun at most. Never part of a larger number
  * ("Three hundred sixty residents", "One hundred participants"), which is not read at all.
  */
+/** A number of cluster means compared ("the 12 school means", "24 ward-level means", "means of the 30 practices"). */
+const CLUSTER_MEANS = /(?<![\p{L}\p{N}.,])(\d{1,4}) (?:(?:school|ward|class|classroom|clinic|practice|site|cluster|village|team|hospital|unit|home|district|community|household|farm|plot)(?:[- ]level)? (?:means|averages)|(?:means|averages) of (?:the )?(?:school|ward|class|classroom|clinic|practice|site|cluster|village|team|hospital|unit|home|district|community|household|farm|plot)s)(?![\p{L}])/gu;
 const WORDED_COUNT = new RegExp(
   String.raw`(?<![\p{L}-])(?<!(?:hundred|thousand)(?: and)? )(?:(twenty|thirty|forty|fifty|sixty|seventy|eighty|ninety)(?:[- ](one|two|three|four|five|six|seven|eight|nine))?|(one|two|three|four|five|six|seven|eight|nine|ten|eleven|twelve|thirteen|fourteen|fifteen|sixteen|seventeen|eighteen|nineteen)) (?!hundred |thousand )(?:\p{L}{3,15} )?${UNITS}(?![\p{L}])`,
   'giu',
@@ -300,6 +302,11 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     const tens = m[1] ? (NUMBER_WORDS.get(m[1].toLowerCase()) ?? 0) : 0;
     const value = tens + (NUMBER_WORDS.get((m[2] ?? m[3] ?? '').toLowerCase()) ?? 0);
     unitCounts.push(Object.assign(where(m.index, m.index + m[0].length), { value, worded: true }));
+  }
+  // "comparing the 12 school means": a test of cluster means, whose units are the clusters
+  if (/means/.test(text)) for (const m of matchesOf(CLUSTER_MEANS, text)) {
+    const value = Number(m[1]);
+    if (value > 0) unitCounts.push(Object.assign(where(m.index, m.index + m[0].length), { value, worded: false, clusterMeans: true as const }));
   }
   tokens.sort((x, y) => x.start - y.start);
 

@@ -382,6 +382,8 @@ export interface UnitCount {
   value: number;
   /** Spelled out in words, not digits. */
   worded: boolean;
+  /** A number of cluster means compared ("the 12 school means"): the units a test of them counts are the clusters. */
+  clusterMeans?: true;
   span: Span;
   printed: string;
 }

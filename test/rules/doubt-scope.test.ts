@@ -323,3 +323,14 @@ describe('the tests against the bounds of an equivalence margin', () => {
     expect(r.findings.filter((f) => f.level !== 'note')).toEqual([]);
   });
 });
+
+describe('a test of cluster means', () => {
+  // 12 school means, six per arm: t on 10 df; t(10) = 2.41, p = .037 (scipy.stats.t.sf)
+  const of = (markdown: string) => levels(run(markdown), 'df-follows-from-n');
+  it('counts the clusters: its df beside pupil-level sizes is a note', () => {
+    expect(of('Pupils in intervention schools drank fewer sugary drinks (M = 4.1, SD = 2.6, n = 612) than pupils in control schools (M = 5.0, SD = 2.8, n = 598); comparing the 12 school means, t(10) = -2.41, p = .037.')).toEqual(['note']);
+  });
+  it('a number of cluster means that is not df + 2 leaves the warning', () => {
+    expect(of('Pupils in intervention schools drank fewer sugary drinks (M = 4.1, SD = 2.6, n = 612) than pupils in control schools (M = 5.0, SD = 2.8, n = 598); comparing the 20 school means, t(10) = -2.41, p = .037.')).toEqual(['warning']);
+  });
+});
