@@ -46,7 +46,7 @@ export const dfFollowsFromN: Rule = {
               continue;
             }
             const doubt = result.testName?.variant === undefined && welch.fits && result.untiedWelch ? welchDoubt(result, welch) : undefined;
-            out.push(withDoubt(withDoubt({ ...base, ...(doubt ? { uncertain: [doubt.text] } : {}), messageId: 'student', message: fill(messages.student, { df: r.df.printed, n1, n2, expected: n1 + n2 - 2 }), check: 'Check the df and the group sizes against the output.', related: [{ span: pair[0].span, message: 'the group sizes' }, ...(doubt?.related ?? [])], figure: dfFigure(r.df, studentAllowed(n1, n2)) }, pooledErrorDoubt(result, n1 + n2 - 2)), modelDoubt(result)));
+            out.push(withDoubt({ ...base, ...(doubt ? { uncertain: [doubt.text] } : {}), messageId: 'student', message: fill(messages.student, { df: r.df.printed, n1, n2, expected: n1 + n2 - 2 }), check: 'Check the df and the group sizes against the output.', related: [{ span: pair[0].span, message: 'the group sizes' }, ...(doubt?.related ?? [])], figure: dfFigure(r.df, studentAllowed(n1, n2)) }, pooledErrorDoubt(result, n1 + n2 - 2), modelDoubt(result)));
           }
           continue;
         }
@@ -56,7 +56,7 @@ export const dfFollowsFromN: Rule = {
         const units = unitsInSentence(result);
         if (units !== undefined && isWholeDf(r.df) && df !== units.n - 1 && df !== 2 * units.n - 2) {
           const id = result.context.design.value === 'paired' ? 'paired' : 'one-group';
-          out.push(withDoubt(withDoubt({ ...base, messageId: id, message: fill(messages[id], { df: r.df.printed, n: units.n, expected: units.n - 1 }), check: id === 'paired' ? 'Check the df against the number of pairs.' : 'Check the df and n against the output; an n that counts excluded participants is a common cause.', related: [{ span: units.span, message: id === 'paired' ? 'the number of pairs' : 'the group size' }], figure: dfFigure(r.df, [{ label: 'n − 1', low: units.n - 1, high: units.n - 1 }]) }, pooledErrorDoubt(result, units.n - 1)), modelDoubt(result)));
+          out.push(withDoubt({ ...base, messageId: id, message: fill(messages[id], { df: r.df.printed, n: units.n, expected: units.n - 1 }), check: id === 'paired' ? 'Check the df against the number of pairs.' : 'Check the df and n against the output; an n that counts excluded participants is a common cause.', related: [{ span: units.span, message: id === 'paired' ? 'the number of pairs' : 'the group size' }], figure: dfFigure(r.df, [{ label: 'n − 1', low: units.n - 1, high: units.n - 1 }]) }, pooledErrorDoubt(result, units.n - 1), modelDoubt(result)));
         }
         continue;
       }
@@ -80,7 +80,7 @@ export const dfFollowsFromN: Rule = {
       if (ns.length === 1) {
         const n = ns[0] as number;
         if (isWholeDf(r.df) && df !== n - 1) {
-          out.push(withDoubt(withDoubt({ ...base, messageId: 'one-group', message: fill(messages['one-group'], { df: r.df.printed, n, expected: n - 1 }), check: 'Check the df and n against the output; an n that counts excluded participants is a common cause.', figure: dfFigure(r.df, [{ label: 'n − 1', low: n - 1, high: n - 1 }]) }, pooledErrorDoubt(result, n - 1)), modelDoubt(result)));
+          out.push(withDoubt({ ...base, messageId: 'one-group', message: fill(messages['one-group'], { df: r.df.printed, n, expected: n - 1 }), check: 'Check the df and n against the output; an n that counts excluded participants is a common cause.', figure: dfFigure(r.df, [{ label: 'n − 1', low: n - 1, high: n - 1 }]) }, pooledErrorDoubt(result, n - 1), modelDoubt(result)));
         }
         continue;
       }
@@ -88,7 +88,7 @@ export const dfFollowsFromN: Rule = {
       if (design === 'paired') {
         if (n1 === n2 && df !== n1 - 1) {
           // df = 2n − 2 is design-matches-analysis' finding, not a df typo
-          if (df !== n1 + n2 - 2) out.push(withDoubt(withDoubt({ ...base, messageId: 'paired', message: fill(messages.paired, { df: r.df.printed, n: n1, expected: n1 - 1 }), check: 'Check the df against the number of pairs.', figure: dfFigure(r.df, [{ label: 'n − 1', low: n1 - 1, high: n1 - 1 }]) }, pooledErrorDoubt(result, n1 - 1)), modelDoubt(result)));
+          if (df !== n1 + n2 - 2) out.push(withDoubt({ ...base, messageId: 'paired', message: fill(messages.paired, { df: r.df.printed, n: n1, expected: n1 - 1 }), check: 'Check the df against the number of pairs.', figure: dfFigure(r.df, [{ label: 'n − 1', low: n1 - 1, high: n1 - 1 }]) }, pooledErrorDoubt(result, n1 - 1), modelDoubt(result)));
         }
         continue;
       }
@@ -107,7 +107,7 @@ export const dfFollowsFromN: Rule = {
           // Welch's test elsewhere, leaves that reading open: the finding then rests on an
           // uncertain link and is a note
           const doubt = result.testName?.variant === undefined && !result.untiedStudent && welch.fits && (welch.by === 'sds' || result.untiedWelch) ? welchDoubt(result, welch) : undefined;
-          out.push(withDoubt(withDoubt({ ...base, ...(doubt ? { uncertain: [...(base.uncertain ?? []), doubt.text] } : {}), messageId: 'student', message: fill(messages.student, { df: r.df.printed, n1, n2, expected: n1 + n2 - 2 }), check: 'Check the df and the group sizes against the output.', ...(doubt?.related ? { related: doubt.related } : {}), figure: dfFigure(r.df, studentAllowed(n1, n2)) }, pooledErrorDoubt(result, n1 + n2 - 2)), modelDoubt(result)));
+          out.push(withDoubt({ ...base, ...(doubt ? { uncertain: [...(base.uncertain ?? []), doubt.text] } : {}), messageId: 'student', message: fill(messages.student, { df: r.df.printed, n1, n2, expected: n1 + n2 - 2 }), check: 'Check the df and the group sizes against the output.', ...(doubt?.related ? { related: doubt.related } : {}), figure: dfFigure(r.df, studentAllowed(n1, n2)) }, pooledErrorDoubt(result, n1 + n2 - 2), modelDoubt(result)));
         }
         continue;
       }

@@ -34,7 +34,7 @@ export const pairedCorrelationIsPossible: Rule = {
       const range = pairedImpliedCorrelation(numberInterval(g1.mean), sd(g1, link.spreadKinds[0] ?? 'SD'), numberInterval(g2.mean), sd(g2, link.spreadKinds[1] ?? 'SD'), n, absT);
       const id = range.low > 1 ? 'correlation-above-one' : range.high < -1 ? 'correlation-below-minus-one' : undefined;
       if (!id) continue;
-      out.push(withDoubt(withDoubt(withDoubt({
+      out.push(withDoubt({
         messageId: id,
         span: r.span,
         message: fill(messages[id], { reported: r.printed, inputs: `${g1.printed}; ${g2.printed}`, n, r: showInterval(range.low, range.high) }),
@@ -45,7 +45,7 @@ export const pairedCorrelationIsPossible: Rule = {
         resultId: r.id,
         block: r.block,
         ...descriptiveDoubts(result),
-      }, pooledErrorDoubt(result, ownGroupsDf(result))), transformedDoubt(result)), modelDoubt(result)));
+      }, pooledErrorDoubt(result, ownGroupsDf(result)), transformedDoubt(result), modelDoubt(result)));
     }
     return out;
   },

@@ -22,7 +22,7 @@ export const spreadKindMatchesT: Rule = {
       const labelledAsSD = e.kinds.includes('SD');
       const id = labelledAsSD ? 'se-labelled-sd' : 'sd-labelled-se';
       const r = result.report;
-      out.push(withDoubt(withDoubt(withDoubt({
+      out.push(withDoubt({
         messageId: id,
         span: r.span,
         message: fill(messages[id], {
@@ -39,7 +39,7 @@ export const spreadKindMatchesT: Rule = {
         resultId: r.id,
         block: r.block,
         ...descriptiveDoubts(result),
-      }, pooledErrorDoubt(result, ownGroupsDf(result))), transformedDoubt(result)), modelDoubt(result)));
+      }, pooledErrorDoubt(result, ownGroupsDf(result)), transformedDoubt(result), modelDoubt(result)));
     }
     return out;
   },

@@ -33,7 +33,7 @@ export const tFollowsFromDescriptives: Rule = {
         const named = r.namedVariant;
         const fitting = new Set(labelled.filter((a) => a.fits).map((a) => a.variant));
         if ((named === 'welch' && !fitting.has('welch') && fitting.has('student')) || (named === 'student' && !fitting.has('student') && fitting.has('welch'))) {
-          out.push(withDoubt(withDoubt(withDoubt({
+          out.push(withDoubt({
             messageId: 'named-variant-mismatch',
             span: r.span,
             message: fill(messages['named-variant-mismatch'], { ...values, named: named === 'welch' ? "Welch's test" : "Student's test", other: named === 'welch' ? "Student's pooled t" : "Welch's t" }),
@@ -42,7 +42,7 @@ export const tFollowsFromDescriptives: Rule = {
             resultId: r.id,
             block: r.block,
             ...descriptiveDoubts(result),
-          }, pooledErrorDoubt(result, ownGroupsDf(result))), transformedDoubt(result)), modelDoubt(result)));
+          }, pooledErrorDoubt(result, ownGroupsDf(result)), transformedDoubt(result), modelDoubt(result)));
         }
         continue;
       }
@@ -65,7 +65,7 @@ export const tFollowsFromDescriptives: Rule = {
         if (possible) continue;
         pairedNote = '; read as one group measured twice, the implied correlation would lie outside [−1, 1]';
       }
-      out.push(withDoubt(withDoubt(withDoubt({
+      out.push(withDoubt({
         messageId: 'mismatch',
         span: r.span,
         message: fill(messages.mismatch, { ...values, pairedNote }),
@@ -81,7 +81,7 @@ export const tFollowsFromDescriptives: Rule = {
         resultId: r.id,
         block: r.block,
         ...descriptiveDoubts(result),
-      }, pooledErrorDoubt(result, ownGroupsDf(result))), transformedDoubt(result)), modelDoubt(result)));
+      }, pooledErrorDoubt(result, ownGroupsDf(result)), transformedDoubt(result), modelDoubt(result)));
     }
     return out;
   },

@@ -80,6 +80,8 @@ const SIDE_TEST_AND_T = /(?<![\p{L}])(?:t[- ]tests?|all (?:other |remaining )?(?
  * p = .037", "one-sided p-value of .04", "a one-tailed test, as preregistered, gives p = .037").
  */
 export const LABELS_P = /^[- ]?(?::? ?(?:p|P)(?:[- ]?values?)? ?(?:=|<|>|≤|≥|:|of|would be|was|is) ?0?\.\d|(?:test|tests|t-test|analysis|version),?(?: [\p{L}-]{1,20},?){0,4} (?:gives|gave|yields|yielded|returns|returned|would give) (?:a )?p ?(?:=|<|of) ?0?\.\d)/u;
+/** Most characters between a result's own p and a tails word right after it that labels that p ("p = .037, one-tailed"); further off, a word after a second p is that p's. */
+export const OWN_P_LABEL_GAP = 4;
 /** A p value printed right before a tails word ("or p = .037 one-tailed", "(.037 one-tailed)"): the tails are that p's. */
 export const P_BEFORE = /(?:(?<![\p{L}])(?:p|P) ?(?:=|<|>|≤|≥) ?|\( ?)0?\.\d{1,12},? ?\(?$/u;
 /** A p value in the words between a result's own p and a tails word: the tails may be that second p's. */

@@ -5,7 +5,7 @@ import { comparisonsIn } from './comparisons.js';
 import { decimalsOf, starBound } from './stars.js';
 import type { AdjustMethod, Comparison, ReportedNumber, ReportedP, ReportStyle, Sidedness, TTestReport } from './types.js';
 import { matchesOf } from './matches.js';
-import { A_P_VALUE, LABELS_P, P_BEFORE } from './statements.js';
+import { A_P_VALUE, LABELS_P, OWN_P_LABEL_GAP, P_BEFORE } from './statements.js';
 
 // Building blocks. Every quantifier is bounded or over a character class disjoint from what
 // follows it, so no pattern can backtrack super-linearly (checked by test/regex-safety).
@@ -277,7 +277,7 @@ function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceSta
   const after = near ? anchor.start + near.index + near[0].length : 0;
   // (a tails word right after the result's own p, "p = .075 one-tailed (p = .15 two-tailed)", is
   // that p's unless a p follows it at once, "p = .075 (one-tailed p = .037)")
-  const labelsAnother = near && p && near.index >= pEnd && (LABELS_P.test(text.slice(after, after + 60)) || (near.index - pEnd > OWN_LABEL_GAP && (A_P_VALUE.test(tailText.slice(pEnd, near.index)) || P_BEFORE.test(tailText.slice(pEnd, near.index)))));
+  const labelsAnother = near && p && near.index >= pEnd && (LABELS_P.test(text.slice(after, after + 60)) || (near.index - pEnd > OWN_P_LABEL_GAP && (A_P_VALUE.test(tailText.slice(pEnd, near.index)) || P_BEFORE.test(tailText.slice(pEnd, near.index)))));
   const sided = labelsAnother ? null : near;
   const before = text.slice(Math.max(0, anchor.start - 60), anchor.start);
   const variant = VARIANT_BEFORE.exec(before);
@@ -317,9 +317,6 @@ function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceSta
   });
   return report;
 }
-
-/** Most characters between a result's own p and a tails word that labels that p ("p = .037, one-tailed"). */
-const OWN_LABEL_GAP = 4;
 
 /** Significance stars right after t (`5.63***`), read as a p bound; see `starBound`. */
 const STARS = /^\)?(\*{1,4}|†)(?![*\p{L}\p{N}])/u;

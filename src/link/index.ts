@@ -9,6 +9,7 @@ export { groupBy } from './descriptives.js';
 import { contextJoiner, fGroupsJoiner, groupBy, spreadStatements } from './descriptives.js';
 import { sentenceKey, sentenceKeyOf } from './clauses.js';
 import { testNames } from './testNames.js';
+import { OWN_P_LABEL_GAP } from '../extract/statements.js';
 export type { TestName, TestNameBasis } from './testNames.js';
 
 /** Default alpha when nothing sets one: .05 (common practice, no source). */
@@ -108,8 +109,8 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const resampledOf = resampledJoiner(extraction, sentencesWithStatistics);
   const approximateDfOf = mentionJoiner(extraction, sentencesWithStatistics, 'approximate-df');
   const pooledErrorOf = pooledErrorJoiner(extraction);
-  const transformedOf = transformedJoiner(extraction, sentencesWithStatistics);
-  const modelBasedOf = transformedJoiner(extraction, sentencesWithStatistics, 'model-based');
+  const transformedOf = scopedMentionJoiner(extraction, sentencesWithStatistics, 'transformed');
+  const modelBasedOf = scopedMentionJoiner(extraction, sentencesWithStatistics, 'model-based');
   // Welch's test named where no test is reported ("Welch's t-tests were used throughout")
   // (as a test: not "Welch's method" or "Welch's ANOVA", and not in a sentence that negates it)
   // (and none where the text also names Student's test so: it then says which test its results are)
@@ -269,7 +270,7 @@ const OTHER_STUDIES_SECTION = /introduction|background|discussion|conclusion|lim
  * table's note) and stands in no introduction or discussion. A model's words in a paragraph are
  * often about another analysis of it ("In a regression adjusting for age, ...").
  */
-function transformedJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>, kind: 'transformed' | 'model-based' = 'transformed'): (report: TTestReport) => Mention | undefined {
+function scopedMentionJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>, kind: 'transformed' | 'model-based'): (report: TTestReport) => Mention | undefined {
   const said = extraction.mentions.filter((m) => m.kind === kind);
   if (said.length === 0) return () => undefined;
   const bySentence = groupBy(said, sentenceKey);
@@ -373,9 +374,6 @@ interface ParagraphReading {
   alpha?: Setting<number>;
 }
 
-/** Most characters between a result's own p and a tails word right after it that labels that p ("p = .037, one-tailed"). */
-const LABEL_GAP = 4;
-
 /**
  * A result's tails: said in the report itself, else by the tails word of its sentence nearest to
  * it (distances to the sentence's t-tests decide; a statistic takes a word no t-test is nearer
@@ -389,7 +387,7 @@ function sidednessFor(stated: { value: Sidedness; span: Span } | undefined, repo
   // .075 one-tailed (p = .15 two-tailed)")
   const ownP = report.p;
   const labelsAnother = (s: ContextStatement) =>
-    ownP !== undefined && ownP.span.end <= s.span.start && (s.labelsP === 'after' || (s.labelsP === 'before' && s.span.start - ownP.span.end > LABEL_GAP));
+    ownP !== undefined && ownP.span.end <= s.span.start && (s.labelsP === 'after' || (s.labelsP === 'before' && s.span.start - ownP.span.end > OWN_P_LABEL_GAP));
   const sided = sentence.sided.find((s, i) => !labelsAnother(s) && distance(s, report) <= (sentence.nearestDistance[i] as number));
   if (sided) return { value: sided.sidedness as Sidedness, basis: 'sentence', span: sided.span, printed: sided.printed };
   const equivalence = sentence.equivalence;
@@ -475,8 +473,8 @@ function integerDeclarations(x: Extraction): LinkedDocument['integerDeclarations
  * Words saying a group's printed mean is not a plain mean of its scores (adjusted, estimated from
  * a model, pooled over imputations; extract's `derived-means`): in the group's own sentence, else
  * in a sentence of the text that reports no statistic ("Missing outcomes were handled by
- * multiple imputation", "model-estimated means are shown"), which may speak of every mean. Read
- * only for whole-number groups (those with a declaration), once per sentence.
+ * multiple imputation", "model-estimated means are shown"), which may speak of every mean. For
+ * every group with a mean (the GRIM rule asks only for whole-number ones).
  */
 function derivedMeans(x: Extraction, withStatistics: ReadonlySet<string>): LinkedDocument['derivedMeans'] {
   const out: LinkedDocument['derivedMeans'] = new Map();

@@ -48,10 +48,11 @@ export function pooledErrorDoubt(result: LinkedResult, ownDf?: number): { uncert
   return { uncertain: [text], related: [{ span: p.span, message: p.basis === 'error-df' ? 'the F with the same error df' : 'the words about comparisons' }] };
 }
 
-/** A finding with a doubt (pooledErrorDoubt, transformedDoubt) added to its own uncertainty and related places, if there is one. */
-export function withDoubt<F extends { uncertain?: string[]; related?: Array<{ span: Span; message: string }> }>(finding: F, doubt: { uncertain: string[]; related: Array<{ span: Span; message: string }> } | undefined): F {
-  if (!doubt) return finding;
-  return Object.assign({}, finding, { uncertain: [...(finding.uncertain ?? []), ...doubt.uncertain], related: [...(finding.related ?? []), ...doubt.related] });
+/** A finding with doubts (pooledErrorDoubt, transformedDoubt, modelDoubt) added to its own uncertainty and related places, those that there are. */
+export function withDoubt<F extends { uncertain?: string[]; related?: Array<{ span: Span; message: string }> }>(finding: F, ...doubts: Array<{ uncertain: string[]; related: Array<{ span: Span; message: string }> } | undefined>): F {
+  const some = doubts.filter((d): d is NonNullable<typeof d> => d !== undefined);
+  if (some.length === 0) return finding;
+  return Object.assign({}, finding, { uncertain: [...(finding.uncertain ?? []), ...some.flatMap((d) => d.uncertain)], related: [...(finding.related ?? []), ...some.flatMap((d) => d.related)] });
 }
 
 /**
