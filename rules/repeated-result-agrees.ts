@@ -1,17 +1,8 @@
-import { fill, numberInterval, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { fill, numberInterval, repeatDoubt, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   'numbers-differ': 'The abstract reports {first}, but the same comparison in "{section}" reads {second}.',
 };
-
-/**
- * The heading of an abstract or its like, as a whole: "Abstract", "Summary", "Structured
- * abstract", "Highlights", "Key points" (not "Summary of secondary outcomes", "Summary statistics
- * at baseline", "Summary of main findings" in a discussion).
- */
-const SUMMARY_SECTION = /^(?:(?:structured|plain[- ]language|lay|graphical|short) )?(?:abstract|summary|highlights|key (?:points|findings|messages))[:.]?$/i;
-/** Whether a segment's heading is an abstract's (SUMMARY_SECTION, the heading trimmed). */
-const isSummary = (heading: string | undefined): boolean => SUMMARY_SECTION.test((heading ?? '').trim());
 
 /** A comparison reported twice (abstract and results, text and table) has the same numbers both times. */
 export const repeatedResultAgrees: Rule = {
@@ -25,8 +16,10 @@ export const repeatedResultAgrees: Rule = {
   check({ document }) {
     const x = document.extraction;
     const out: RuleFinding[] = [];
-    const inSummary = document.results.filter((r) => isSummary(x.sections[r.report.segment]));
-    const elsewhere = document.results.filter((r) => !isSummary(x.sections[r.report.segment]));
+    // the topics of an abstract's tests and of the tests elsewhere that may share their df
+    const topics = new Map(x.topics.map((t) => [t.test, t]));
+    const inSummary = document.results.filter((r) => topics.get(r.report)?.inSummary === true);
+    const elsewhere = document.results.filter((r) => topics.get(r.report)?.inSummary === false);
     const severalStudies = x.mentions.find((m) => m.kind === 'several-studies');
     for (const a of inSummary) {
       const df = a.report.df;
@@ -42,11 +35,17 @@ export const repeatedResultAgrees: Rule = {
       if (sameSign.length !== 1) continue; // none, or several candidates: which one is meant is a guess
       const b = sameSign[0] as LinkedResult;
       // in a report of several studies the abstract may speak of another one
-      const uncertain = severalStudies ? [`the text reports several studies ("${severalStudies.printed}"), and the abstract may report another study's result`] : [];
+      const section = x.sections[b.report.segment] ?? 'the results';
+      // the df alone does not tie them: the words around both must name one comparison
+      const unlike = repeatDoubt(topics.get(a.report), topics.get(b.report), section);
+      const uncertain = [
+        ...(severalStudies ? [`the text reports several studies ("${severalStudies.printed}"), and the abstract may report another study's result`] : []),
+        ...(unlike !== undefined ? [unlike] : []),
+      ];
       out.push({
         messageId: 'numbers-differ',
         span: a.report.span,
-        message: fill(messages['numbers-differ'], { first: a.report.printed, second: b.report.printed, section: x.sections[b.report.segment] ?? 'the results' }),
+        message: fill(messages['numbers-differ'], { first: a.report.printed, second: b.report.printed, section }),
         reported: a.report.printed,
         check: 'Check both against the analysis output and make them the same.',
         related: [{ span: b.report.span, message: 'the same comparison in the results' }],

@@ -17,6 +17,7 @@ import { completeStatistics, findOtherStatistics, NOT_ONE_WAY } from './statisti
 import { findTableDimensions } from './contingency.js';
 import { applyStarLegends, findStarLegends, type StarLegend } from './stars.js';
 import { findTTests } from './tTests.js';
+import { findTopics } from './topic.js';
 import type { Extraction } from './types.js';
 
 export type * from './types.js';
@@ -172,6 +173,7 @@ export function extract(doc: ParsedDocument, cache?: ExtractionCache): Extractio
     powerStatements: [],
     mentions: [],
     sections: segments.map((s) => s.section),
+    topics: [],
     tables: [],
     tableBlocks: [],
     tableMentions: [],
@@ -233,6 +235,7 @@ export function extract(doc: ParsedDocument, cache?: ExtractionCache): Extractio
   out.tableLabelMentions = findLabelMentions(segments, out.tableReferences, tables.blocks);
   applyStarLegends(out.tests, legends);
   out.measureMentions = findMeasureMentions(segments, out.integerMeasures);
+  out.topics = findTopics(segments, out.tests);
   return out;
 }
 

@@ -4,6 +4,7 @@ import { findP, reportTailEnd } from './tTests.js';
 import type { Comparison, OtherStatistic, OtherStatisticKind, ReportedNumber, TTestReport } from './types.js';
 import { leadStart, topicStems } from './topic.js';
 import { FirstMatches, matchesOf } from './matches.js';
+import { textIndexOf } from './offsets.js';
 
 // Bounded building blocks (see test/regex-safety).
 const OP = String.raw`(?:<=|>=|≤|≥|=|<|>)`;
@@ -283,17 +284,6 @@ function readOwnParts(seg: Segment, at: number, out: OtherStatistic): void {
   } else if (out.kind === 'z') out.symbol = own.slice(0, 1);
 }
 
-/** The text index whose source start is `source` (first character at or after it). */
-function textIndexOf(seg: Segment, source: number): number {
-  let lo = 0;
-  let hi = seg.starts.length - 1;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if ((seg.starts[mid] as number) < source) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
-}
 
 function comparisonOf(s: string): Comparison {
   if (s === '<=' || s === '≤') return '<=';

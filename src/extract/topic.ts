@@ -1,4 +1,8 @@
+import type { Segment } from '../parse/types.js';
 import { matchesOf } from './matches.js';
+import { sentenceOf, sentenceStarts } from './numbers.js';
+import { textIndexOf } from './offsets.js';
+import type { TTestReport } from './types.js';
 
 /**
  * What a stretch of prose is about, as the stems of its content words: the words left when the
@@ -161,4 +165,166 @@ export class LeadReader {
     if (added || state.list.length !== state.seen.size) state.list = [...state.seen];
     return state.list;
   }
+}
+
+/**
+ * The heading of an abstract or its like, as a whole: "Abstract", "Summary", "Structured
+ * abstract", "Highlights", "Key points" (not "Summary of secondary outcomes", "Summary statistics
+ * at baseline", "Summary of main findings" in a discussion).
+ */
+const SUMMARY_SECTION = /^(?:(?:structured|plain[- ]language|lay|graphical|short) )?(?:abstract|summary|highlights|key (?:points|findings|messages))[:.]?$/i;
+/** Whether a segment's heading is an abstract's (SUMMARY_SECTION, the heading trimmed). */
+export const isSummaryHeading = (heading: string | undefined): boolean => SUMMARY_SECTION.test((heading ?? '').trim());
+
+/**
+ * Words that say which way a result went or who took part, not what was compared: an abstract
+ * says "exercise reduced fatigue" where the results say "fatigue was lower with exercise"
+ * (common practice, no source).
+ */
+const DIRECTION = new Set(
+  (
+    'reduced reduce reduces reducing reduction improved improve improves improving improvement lowered raised fell rose dropped ' +
+    'declined decline worsened worse benefit benefits benefited gain gains gained change changes changed changing rise fall drop ' +
+    'participants participant patients patient subjects people individuals respondents study'
+  ).split(' '),
+);
+
+/** Number words up to twenty, some round ones after, and ordinals to tenth, as time points are written in words ("six weeks", "the fourth visit"). */
+const NUMBER_WORDS: ReadonlyMap<string, number> = new Map([
+  ...'zero one two three four five six seven eight nine ten eleven twelve thirteen fourteen fifteen sixteen seventeen eighteen nineteen twenty'
+    .split(' ')
+    .map((w, i): [string, number] => [w, i]),
+  ['twenty-four', 24], ['thirty', 30], ['thirty-six', 36], ['forty-eight', 48], ['sixty', 60],
+  ...'first second third fourth fifth sixth seventh eighth ninth tenth'.split(' ').map((w, i): [string, number] => [w, i + 1]),
+]);
+const ORDINALS = new Set('first second third fourth fifth sixth seventh eighth ninth tenth'.split(' '));
+const TIME_UNIT = '(hour|day|week|month|year|session|visit|wave|cycle)s?';
+
+/**
+ * "at 12 months", "after six weeks", "the 6-month visit", "the fourth visit", "week 8", "visit
+ * 3": a number tied to a unit of time or occasion. A plain "12 weeks", "(ten weeks)" or "a
+ * 12-week programme" is a duration, the length of a study or a treatment, not a time point,
+ * unless "at", "after" or "by" before it, a follow-up, visit or assessment after it, or an
+ * ordinal says it is one.
+ */
+const TIME_POINT = new RegExp(`\\b(?:(?:(at|after|by) (?:the )?)?(\\d{1,3}|${[...NUMBER_WORDS.keys()].sort((a, b) => b.length - a.length).join('|')})[- ]${TIME_UNIT}\\b( follow-?up| assessment| visit| time ?point)?|\\b${TIME_UNIT} (\\d{1,3})\\b)`, 'gi');
+
+/** The time points a text names, each as "month 12" (unit, number). */
+export function timePoints(text: string): string[] {
+  const out = new Set<string>();
+  for (const m of matchesOf(TIME_POINT, text)) {
+    const [, said, printed, unitBefore, follower, unitAfter, after] = m;
+    // a duration: not said to be a point, not followed by one, not an ordinal
+    if (printed !== undefined && said === undefined && follower === undefined && !ORDINALS.has(printed.toLowerCase())) continue;
+    const number = printed !== undefined ? (/^\d/.test(printed) ? Number(printed) : NUMBER_WORDS.get(printed.toLowerCase())) : Number(after);
+    const unit = (unitBefore ?? unitAfter ?? '').toLowerCase();
+    if (number === undefined || unit === '') continue;
+    out.add(`${unit} ${number}`);
+  }
+  return [...out];
+}
+
+/** Words naming a sex, and the sex (common practice, no source). */
+const SEXES: ReadonlyMap<string, string> = new Map([
+  ...['women', 'woman', 'female', 'females', 'girls', 'girl', 'mothers', 'mother'].map((w): [string, string] => [w, 'female']),
+  ...['men', 'man', 'male', 'males', 'boys', 'boy', 'fathers', 'father'].map((w): [string, string] => [w, 'male']),
+]);
+
+/** The sexes a list of content words names. */
+const sexesOf = (words: readonly string[]): string[] => [...new Set(words.flatMap((w) => SEXES.get(w) ?? []))];
+
+/** "without dementia", "without prior surgery": the content word a "without" excludes. */
+const WITHOUT = /\bwithout (?:(?:a|an|any|the|prior|previous|known) )?(\p{L}[\p{L}'’-]{2,40})/giu;
+
+/**
+ * What a t-test is about, as repeated-result-agrees ties a result of an abstract to the one
+ * with the same df elsewhere: the content words around it (less the words of direction and
+ * of who took part, DIRECTION), the time points it names, and the words it names after
+ * "without".
+ */
+export interface TestTopic {
+  test: TTestReport;
+  /** In a section headed as an abstract or its like (isSummaryHeading). */
+  inSummary: boolean;
+  /**
+   * Content words: for a test of an abstract, those of its own lead (else of its sentence up
+   * to it); for another, those of its whole sentence (else of the sentence before, when its own
+   * has none: "The difference was significant, t(…)"), or of its table row's label and the
+   * table's caption.
+   */
+  words: string[];
+  /** The words' stems (`stem`), each once. */
+  stems: string[];
+  /** Time points in the same stretch of text (`timePoints`). */
+  times: string[];
+  /** The sexes named there ("women", "boys": "female", "male"), each once. */
+  subgroups: string[];
+  /** The words named after "without" there, lower case. */
+  without: string[];
+}
+
+/** How far back from its statistic an abstract's result is read for its words (characters). */
+const LEAD_REACH = 400;
+
+/** The words, stems, time points, sexes and excluded words of a stretch of text. */
+function topicOf(stretch: string): Omit<TestTopic, 'test' | 'inSummary'> {
+  const words = topicWords(stretch).filter((w) => !DIRECTION.has(w));
+  return { words, stems: [...new Set(words.map(stem))], times: timePoints(stretch), subgroups: sexesOf(words), without: [...new Set([...matchesOf(WITHOUT, stretch)].map((m) => (m[1] as string).toLowerCase()))] };
+}
+
+/**
+ * The topic of each t-test of an abstract with a df, and of each test elsewhere whose df could
+ * be the same (printed alike, or a Welch df that rounds to it). Nothing when no section is an
+ * abstract. Linear in the tests and in the text of their sentences.
+ */
+export function findTopics(segments: readonly Segment[], tests: readonly TTestReport[]): TestTopic[] {
+  const inSummary = (t: TTestReport) => isSummaryHeading(segments[t.segment]?.section);
+  const summaryDfs = new Set(tests.filter((t) => t.df !== undefined && inSummary(t)).map((t) => Math.round(t.df?.value ?? NaN)));
+  if (summaryDfs.size === 0) return [];
+  const starts = new Map<number, number[]>();
+  const startsOf = (seg: Segment) => {
+    let s = starts.get(seg.id);
+    if (!s) {
+      s = sentenceStarts(seg.text);
+      starts.set(seg.id, s);
+    }
+    return s;
+  };
+  // each table's caption, for the tests in its rows
+  const captions = new Map<number, string>();
+  for (const seg of segments) if (seg.legendOf?.role === 'caption' && !captions.has(seg.legendOf.table)) captions.set(seg.legendOf.table, seg.text);
+  const bySentence = new Map<string, Omit<TestTopic, 'test' | 'inSummary'>>();
+  const out: TestTopic[] = [];
+  for (const t of tests) {
+    if (t.df === undefined) continue;
+    const summary = inSummary(t);
+    if (!summary && !summaryDfs.has(Math.round(t.df.value))) continue;
+    const seg = segments[t.segment];
+    if (!seg || seg.id !== t.segment) continue;
+    const at = textIndexOf(seg, t.span.start);
+    const list = startsOf(seg);
+    const sentence = sentenceOf(list, at);
+    const from = list[sentence] as number;
+    const to = list[sentence + 1] ?? seg.text.length;
+    if (summary) {
+      // an abstract's result is named in its own clause; at most LEAD_REACH characters of it
+      // are read, so that a hostile abstract of thousands of results costs no more than its text
+      const lead = Math.max(leadStart(seg.text, Math.max(from, at - LEAD_REACH), at), at - LEAD_REACH);
+      const stretch = topicWords(seg.text.slice(lead, at)).length > 0 ? seg.text.slice(lead, at) : seg.text.slice(Math.max(from, at - LEAD_REACH), at);
+      out.push({ test: t, inSummary: true, ...topicOf(stretch) });
+      continue;
+    }
+    // the words of a sentence, read once for all its tests (a table row's are its own)
+    const key = seg.table ? undefined : `${seg.id}:${sentence}`;
+    let topic = key === undefined ? undefined : bySentence.get(key);
+    if (!topic) {
+      let stretch = seg.text.slice(from, to);
+      if (topicWords(stretch).length === 0 && sentence > 0) stretch = `${seg.text.slice(list[sentence - 1] as number, from)} ${stretch}`;
+      if (seg.table) stretch = `${t.table?.rowLabel ?? ''}. ${captions.get(seg.table.table) ?? ''}. ${stretch}`;
+      topic = topicOf(stretch);
+      if (key !== undefined) bySentence.set(key, topic);
+    }
+    out.push({ test: t, inSummary: false, ...topic });
+  }
+  return out;
 }

@@ -1,4 +1,5 @@
 import type { Span } from '../parse/types.js';
+import type { TestTopic } from './topic.js';
 
 /** A number as printed: its text, value, decimals (for its rounding interval) and place. */
 export interface ReportedNumber {
@@ -264,6 +265,8 @@ export interface Extraction {
   mentions: Mention[];
   /** The heading each segment sits under (by segment id), for abstract-versus-results checks. */
   sections: Array<string | undefined>;
+  /** What each t-test of an abstract, and each test elsewhere with a df it may share, is about (src/extract/topic.ts). */
+  topics: TestTopic[];
   /** The rows of each measure in long tables, and the sentences near a table that name one. */
   tableBlocks: TableBlockRecord[];
   tableMentions: Array<{ table: number; label: string; segment: number; sentence: number }>;
@@ -284,6 +287,8 @@ export interface Extraction {
  * "Table 2" named in prose. `table` is the table whose caption gives it that number, when
  * exactly one does; a plural ("Tables 2 and 3") or a number no caption gives leaves it open.
  */
+export type { TestTopic } from './topic.js';
+
 export interface TableReference {
   segment: number;
   block: number;

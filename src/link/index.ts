@@ -6,6 +6,7 @@ import type { DocumentSettings, LinkedDocument, LinkedResult, LinkedStatistic, P
 export type * from './types.js';
 export type { DescriptiveLink, Design, IntervalLink, IntervalTarget, LinkBasis, Linked, ResultContext } from './descriptives.js';
 export { groupBy } from './descriptives.js';
+export { repeatDoubt } from './repeats.js';
 import { contextJoiner, fGroupsJoiner, groupBy, spreadStatements } from './descriptives.js';
 import { sentenceKey, sentenceKeyOf } from './clauses.js';
 import { testNames } from './testNames.js';

@@ -1,0 +1,63 @@
+import type { TestTopic } from '../extract/types.js';
+import { stem } from '../extract/topic.js';
+
+/**
+ * Whether a result of an abstract and the one result elsewhere with its df are certainly one
+ * comparison, from the words around each (src/extract/topic.ts). The df alone does not tie
+ * them: an abstract reports outcomes, time points and subgroups whose tests share the study's
+ * df, and its own comparison may stand in the results only in a table without t. The tie is
+ * certain when at least half of the abstract's words for its result are named around the other
+ * one (the measure; the rest may be qualifiers the results give elsewhere), the two do not name
+ * different time points of one unit or different sexes (each naming one the other does not), and no word
+ * named beside one is excluded ("without …") beside the other.
+ * Otherwise the reason, in the words of a note.
+ */
+export function repeatDoubt(summary: TestTopic | undefined, other: TestTopic | undefined, section: string): string | undefined {
+  if (!summary || summary.stems.length === 0) return 'the abstract names nothing beside its result, so which comparison of the results it repeats is told by its df alone';
+  if (!other || other.stems.length === 0) return `the result in "${section}" has no words beside it, so that it is the abstract's comparison is told by its df alone`;
+  const own = new Set(other.stems);
+  const missing = summary.words.filter((w) => !own.has(stem(w)));
+  const shared = summary.stems.filter((s) => own.has(s)).length;
+  // the measure is named beside both: at least half the abstract's words (the rest may qualify
+  // it where the results say so elsewhere: "at follow-up", "on Thursdays")
+  if (shared === 0 || 2 * shared < summary.stems.length) {
+    return `the abstract's result and the one with its df in "${section}" may be different comparisons: the abstract's words ${quoteList(missing)} are not beside the one in "${section}"`;
+  }
+  const clash = timeClash(summary.times, other.times);
+  if (clash !== undefined) return `the abstract's result is at ${clash[0].join(', ')} and the one with its df in "${section}" at ${clash[1].join(', ')}`;
+  const groups = summary.subgroups.filter((g) => !other.subgroups.includes(g));
+  if (groups.length > 0 && other.subgroups.some((g) => !summary.subgroups.includes(g))) {
+    return `the abstract's result is of ${groups.join(', ')} and the one with its df in "${section}" of ${other.subgroups.join(', ')}`;
+  }
+  const excluded = excludedIn(summary, other) ?? excludedIn(other, summary);
+  if (excluded !== undefined) return `"${excluded.word}" is named beside one of the abstract's result and the one with its df in "${section}", and excluded ("without ${excluded.without}") beside the other`;
+  return undefined;
+}
+
+/** A word named beside one test that the other's text excludes ("without dementia"), with the excluded word as printed. */
+function excludedIn(named: TestTopic, excluding: TestTopic): { word: string; without: string } | undefined {
+  const own = new Set(named.without.map(stem));
+  for (const without of excluding.without) {
+    const s = stem(without);
+    if (own.has(s)) continue;
+    const word = named.words.find((w) => stem(w) === s);
+    if (word !== undefined) return { word, without };
+  }
+  return undefined;
+}
+
+/**
+ * Time points of one unit that differ: "month 12" against "month 6" (each side's of that unit).
+ * Points of different units ("visit 1", "month 3") may be one time and do not clash.
+ */
+function timeClash(a: readonly string[], b: readonly string[]): [string[], string[]] | undefined {
+  const unit = (t: string) => t.slice(0, t.indexOf(' '));
+  for (const u of new Set(a.map(unit))) {
+    const mine = a.filter((t) => unit(t) === u);
+    const theirs = b.filter((t) => unit(t) === u);
+    if (theirs.length > 0 && !mine.some((t) => theirs.includes(t))) return [mine, theirs];
+  }
+  return undefined;
+}
+
+const quoteList = (words: string[]) => words.map((w) => `"${w}"`).join(', ');
