@@ -236,6 +236,7 @@ export function contextJoiner(x: Extraction): (report: TTestReport) => ResultCon
     },
     blocks: groupBy(x.tableBlocks, (b) => b.table),
     tablesWithTests: new Set(x.tests.flatMap((r) => (r.table ? [r.table.table] : []))),
+    testRows: new Set(x.tests.flatMap((r) => (r.table ? [rowKey(r.table)] : []))),
     mentions: groupBy(x.tableMentions, sentenceKey),
     byId: firstById(x.tables),
     // the first table each block stands right after or right before (the order `find` met them in)
@@ -275,6 +276,8 @@ interface Tables {
   blocks: Map<number, TableBlockRecord[]>;
   /** Tables that print tests of their own: their rows are not the groups of a test in prose. */
   tablesWithTests: Set<number>;
+  /** The rows that print a test, by `table:row`. */
+  testRows: Set<string>;
   mentions: Map<string, Extraction['tableMentions']>;
   /** The design the Methods state for the whole study, when every statement there agrees. */
   methodsDesign: Setting<Design> | undefined;
@@ -534,9 +537,34 @@ function tableDescriptives(report: TTestReport, where: TableRow, t: Tables): { l
   if (own.length === 2) return { link: makeLink('table', own, t.spreads, true) };
   const block = (t.blocks.get(where.table) ?? []).find((b) => b.firstRow <= where.row && where.row <= b.lastRow);
   const groups = block ? blockGroups(block, t) : own;
+  // a table laid out one group per row, each row its own block ("Group | n | M (SD) | t | p"),
+  // the test in the first group's row: the next row is the other group when it is one group
+  // with no test of its own
+  const after = block && groups.length === 1 ? groupRowsAfter(block, t) : [];
+  if (after.length === 1) return { link: makeLink('table', [...groups, ...after], t.spreads, true) };
+  if (after.length > 1) return { unlinked: { reason: 'the test stands in the first of three or more group rows of its table, and which of them it compares is not said', span: report.span } };
   if (groups.length === 2 || groups.length === 1) return { link: makeLink('table', groups, t.spreads, true) };
   if (groups.length > 2) return { unlinked: { reason: `${groups.length} groups in the table rows of this test`, span: report.span } };
   return {};
+}
+
+/**
+ * The group rows right after a block, up to the next row that prints a test: each a block of
+ * one row holding one group and no test. One such row is the second group of a test printed in
+ * the first group's row; more leave which of them it is compared with open.
+ */
+function groupRowsAfter(block: TableBlockRecord, t: Tables): GroupSummary[] {
+  const blocks = t.blocks.get(block.table) ?? [];
+  const out: GroupSummary[] = [];
+  // two rows are enough to know the comparison is open
+  for (let row = block.lastRow + 1; out.length < 2; row += 1) {
+    const after = blockAt(blocks, row);
+    if (!after || after.firstRow !== row || after.lastRow !== row || t.testRows.has(`${block.table}:${row}`)) break;
+    const groups = blockGroups(after, t);
+    if (groups.length !== 1) break;
+    out.push(groups[0] as GroupSummary);
+  }
+  return out;
 }
 
 function blockGroups(block: TableBlockRecord, t: Tables): GroupSummary[] {
