@@ -6,7 +6,7 @@ import { matchesOf } from './matches.js';
 import { deniedAt } from './mentions.js';
 
 const SIDED = /(?<![\p{L}])(one|two|1|2|single)[- ]?(tailed|sided)(?![\p{L}])|(?<![\p{L}])(non-?directional|directional)(?= (?:test|hypothes|predict))/giu;
-const EQUIVALENCE = /(?<![\p{L}])(equivalence test|test of equivalence|tests? for equivalence|TOST|two one-sided|non-?inferiority|equivalence bounds?|(?:test )?against the (?:lower|upper) (?:equivalence )?(?:bound|margin)|(?:lower|upper)[- ]bound test)(?![\p{L}])/giu;
+const EQUIVALENCE = /(?<![\p{L}])(equivalence test|test of equivalence|tests? for equivalence|TOST|(?:two|both) one-sided|non-?inferiority|equivalence bounds?|(?:test )?against the (?:lower|upper) (?:equivalence )?(?:bound|margin)|(?:lower|upper)[- ]bound test)(?![\p{L}])/giu;
 const ALPHA = new RegExp(
   String.raw`(?<![\p{L}])(?:α|alpha|significance level|level of significance|significance threshold|significance criterion)(?: level)?(?: (?:of|was set at|set at|was set to|was|at|equal to))? ?(?:=|:)? ?(?:p ?[<≤=] ?)?(0?\.\d{1,4})(?![\d])`,
   'giu',
@@ -82,6 +82,15 @@ const SIDE_TEST_AND_T = /(?<![\p{L}])(?:t[- ]tests?|all (?:other |remaining )?(?
 export const LABELS_P = /^[- ]?(?::? ?(?:p|P)(?:[- ]?values?)? ?(?:=|<|>|≤|≥|:|of|would be|was|is) ?0?\.\d|(?:test|tests|t-test|analysis|version),?(?: [\p{L}-]{1,20},?){0,4} (?:gives|gave|yields|yielded|returns|returned|would give) (?:a )?p ?(?:=|<|of) ?0?\.\d)/u;
 /** Most characters between a result's own p and a tails word right after it that labels that p ("p = .037, one-tailed"); further off, a word after a second p is that p's. */
 export const OWN_P_LABEL_GAP = 4;
+/**
+ * A tails word that names other tests than a result before it: "both one-sided tests", "the two
+ * one-tailed tests" (the pair of an equivalence procedure), and "one-sided tests" (plural)
+ * further from the result's own p than a label of it.
+ */
+export const OTHER_TESTS_BEFORE = /(?:^|[^\p{L}])(?:two|both|pair of) $/iu;
+export const OTHER_TESTS_AFTER = /^ (?:t-)?tests\b/u;
+/** Words of an equivalence or non-inferiority procedure near a tails word. */
+const EQUIVALENCE_WORD = /equivalen|TOST|inferiority|margin|bounds?\b/iu;
 /** A p value printed right before a tails word ("or p = .037 one-tailed", "(.037 one-tailed)"): the tails are that p's. */
 export const P_BEFORE = /(?:(?<![\p{L}])(?:p|P) ?(?:=|<|>|≤|≥) ?|\( ?)0?\.\d{1,12},? ?\(?$/u;
 /** A p value in the words between a result's own p and a tails word: the tails may be that second p's. */
@@ -184,6 +193,9 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     const planning = sentence.planning;
     const end = m.index + m[0].length;
     const labelsP = LABELS_P.test(text.slice(end, end + 60)) ? ('after' as const) : P_BEFORE.test(text.slice(Math.max(0, m.index - 24), m.index)) ? ('before' as const) : undefined;
+    // "both one-sided tests", "two one-sided tests" beside words of equivalence: the pair of
+    // tests of that procedure (EQUIVALENCE below), not the tails of the sentence's other tests
+    if (OTHER_TESTS_BEFORE.test(text.slice(Math.max(0, m.index - 12), m.index)) && EQUIVALENCE_WORD.test(text.slice(Math.max(0, m.index - 80), end + 80))) continue;
     const restricted = sentence.restricted || ofSideTest(m.index, sentence);
     out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: !planning && sentence.general && !restricted, ...(planning ? { planning } : {}), ...(restricted ? { restricted: true as const } : {}), ...(sentence.single && !sentence.general ? { single: true as const } : {}), ...(labelsP ? { labelsP } : {}), ...base(m.index, end) });
   }

@@ -303,6 +303,19 @@ describe('the tests against the bounds of an equivalence margin', () => {
     expect(r.results.map((x) => x.sidedness.value)).toEqual(['two', 'one', 'one']);
     expect(r.findings.filter((f) => f.level !== 'note')).toEqual([]);
   });
+  // t(118) = 0.40: two-tailed p = .690, one-tailed .345; t(118) = 1.99: one-tailed p = .024 (scipy.stats.t.sf)
+  it('"both one-sided tests" after a conventional t are the equivalence pair, not its tails', () => {
+    const r = run('Healing did not differ, t(118) = 0.40, p = .689, and both one-sided tests rejected non-equivalence (p < .001).');
+    expect(r.results[0]?.sidedness.basis).toBe('equivalence-test');
+    expect(r.findings.filter((f) => f.level !== 'note')).toEqual([]);
+    // a p that neither tail gives still speaks
+    expect(run('Healing did not differ, t(118) = 0.40, p = .012, and both one-sided tests rejected non-equivalence (p < .001).').findings.map((f) => f.level)).toContain('error');
+  });
+  it('"two one-tailed t-tests" without words of equivalence still say the tails', () => {
+    const r = run('We ran two one-tailed t-tests. Healing differed, t(118) = 1.99, p = .024.');
+    expect(r.results[0]?.sidedness.value).toBe('one');
+    expect(r.findings.filter((f) => f.level !== 'note')).toEqual([]);
+  });
 });
 
 describe('a test of cluster means', () => {
