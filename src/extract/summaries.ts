@@ -26,7 +26,9 @@ const SUFFIX = String.raw`(?:_\{[^{}\n]{1,30}\}|_[\p{L}\p{N}]{1,20}|\([\p{L}\p{N
 const START = String.raw`(?<![\p{L}\p{N}_])`;
 
 const MEAN = new RegExp(String.raw`${START}(?:M|Mean|mean|Avg|avg|Average|average)(?:${SUFFIX}|[A-Z]{2,20}) ?(?:=|:|of|was) ?${NUM}( ?%)?`, 'dgu');
-const SD = new RegExp(String.raw`${START}\{?(?:SD|sd|s\.d\.|S\.D\.|Std\.? ?Dev\.?|[Ss]tandard deviation)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
+/** "SD of change 5.0", "SD of the differences = 3.1": the spread of change scores or differences. */
+const OF_CHANGE = String.raw`(?: (?:of|for) (?:the )?(?:changes?|change scores?|differences?|difference scores?))?`;
+const SD = new RegExp(String.raw`${START}\{?(?:SD|sd|s\.d\.|S\.D\.|Std\.? ?Dev\.?|[Ss]tandard deviation)\}?${SUFFIX}${OF_CHANGE} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
 const SE = new RegExp(String.raw`${START}\{?(?:SEM|SE|s\.e\.m\.|s\.e\.|S\.E\.|[Ss]tandard error(?: of the mean)?)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
 /** The sizes of two groups printed together: `n = 25 and 23`, `ns = 24 and 23`, `in 26 and 28 employees`, `n = 25 vs 23`. */
 const N_PAIR = new RegExp(String.raw`${START}(?:[nN]s?|sample sizes?) ?(?:=|:|of) ?${INT} ?(?:and|vs\.?|versus|,) ?${INT}(?![\d.,])|(?<![\p{L}\p{N}.,])in ${INT} and ${INT} ${UNITS}(?![\p{L}])`, 'dgu');

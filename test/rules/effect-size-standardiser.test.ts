@@ -1,0 +1,22 @@
+import { describe, expect, it } from 'vitest';
+import { checkSource, type FileReport } from '../../src/engine/index.js';
+
+/**
+ * Change scores with their SDs ("fell by 6.1 (SD of change 5.0, n = 50)"), and a d standardised by
+ * an SD the text names but does not print beside the result (the pooled baseline SD). Invented
+ * trial; numbers by scipy 1.17.1: (6.1, 5.0, 50) against (2.3, 5.4, 50) give Student's
+ * t(98) = 3.651, p = .0004 (scipy.stats.ttest_ind_from_stats). Standardised by a baseline SD of
+ * 12.0, d = 3.8 / 12.0 = 0.32 (by hand); by the groups' pooled SD it would be 0.73.
+ */
+const run = (markdown: string): FileReport => checkSource('x.md', `${markdown}\n`);
+const levels = (r: FileReport, rule: string) => r.findings.filter((f) => f.ruleId === rule).map((f) => f.level);
+const result = 'LDL fell by 6.1 mg/dL (SD of change 5.0, n = 50) with counselling and by 2.3 mg/dL (SD 5.4, n = 50) with usual care, t(98) = -3.65, p < .001, d = -0.32.';
+
+describe('an SD of change', () => {
+  it('is the group\'s SD: both groups are read, and their sizes give the df', () => {
+    const r = run(`## Results\n\n${result}`);
+    expect(r.results[0]?.context.descriptives?.groups).toHaveLength(2);
+    expect(levels(r, 'df-follows-from-n')).toEqual([]);
+    expect(levels(r, 't-follows-from-descriptives')).toEqual([]);
+  });
+});
