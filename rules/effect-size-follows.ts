@@ -1,4 +1,4 @@
-import { fill, inferDesign, linkDoubts, spreadReadings, numberInterval, showInterval, tInterval, type EffectSizeReport, type GroupSummary, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS, isWholeDf } from '../src/rule-api/index.js';
+import { fill, inferDesign, linkDoubts, standardiserDoubt, withDoubt, spreadReadings, numberInterval, showInterval, tInterval, type EffectSizeReport, type GroupSummary, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS, isWholeDf } from '../src/rule-api/index.js';
 import { dAverage, dFromMeansPooled, dFromTIndependent, dRepeatedMeasures, dzFromT, hedgesCorrection, studentAbsT, type Box, type Interval } from '../src/stats/index.js';
 
 const messages = {
@@ -31,7 +31,8 @@ export const effectSizeFollows: Rule = {
         const finding = checkOne(result, es.item);
         if (!finding) continue;
         const doubts = [...linkDoubts({ descriptives: result.context.descriptives, linked: [es] }), ...(finding.uncertain ?? [])];
-        out.push({ ...finding, ...(doubts.length > 0 ? { uncertain: doubts } : {}) });
+        // a d standardised by an SD the text names but does not print here cannot be recomputed
+        out.push(withDoubt({ ...finding, ...(doubts.length > 0 ? { uncertain: doubts } : {}) }, standardiserDoubt(result)));
       }
     }
     return out;

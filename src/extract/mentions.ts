@@ -117,6 +117,15 @@ const EXACT_TEST = /(?<![\p{L}])(?:Fisher['’]?s?(?:[-–‐ ](?:Freeman[-–�
  * and its df need not be n1 + n2 − 2.
  */
 const MODEL_BASED = /(?<![\p{L}])(?:(?:linear |generali[sz]ed linear |generali[sz]ed )?mixed[- ](?:effects? )?models?|multilevel models?|hierarchical (?:linear )?models?|random[- ](?:intercepts?|effects?)(?: models?)?|generali[sz]ed estimating equations?|GEE|(?:linear|multiple|multivariable|multivariate) regression|regression models?|regression|ANCOVA|analys[ie]s of covariance|adjust(?:ed|ing)? for (?!multiple|multiplicity)\p{L}+|controlling for \p{L}+|(?:covariate|baseline)[- ]adjusted|adjusted (?:difference|mean difference|analys[ie]s|models?|estimates?))(?![\p{L}])/giu;
+/**
+ * Words saying an effect size is standardised by another SD than the groups' own: the pooled
+ * baseline or pre-test SD, a reference or population SD ("Effect sizes were standardised by the
+ * pooled baseline SD", "d = difference in change ÷ pooled baseline SD"). Such a d does not follow
+ * from the t or the SDs printed beside it. (The control group's SD, Glass's Δ, is computed.)
+ */
+const D_STANDARDISER = /(?<![\p{L}])(?:(?:standardi[sz]ed|divided|scaled) by|using|with|relative to|over|÷|\/) ?(?:the )?(?:pooled )?(?:baseline|pre-?test|pre-?treatment|pre-?intervention|pre-?randomi[sz]ation|reference|population|normative) (?:SDs?|standard deviations?)(?![\p{L}])/giu;
+/** Words of an effect size in the sentence of D_STANDARDISER: a d, g, "effect size", "standardised". */
+const EFFECT_SIZE_WORDS = /(?<![\p{L}])(?:d|g|effect sizes?|standardi[sz]ed (?:mean )?differences?|SMDs?|Cohen['’]?s|Hedges['’]?)(?![\p{L}])/iu;
 /** Words naming the tests or comparisons themselves ("All group comparisons", "t-tests were", "differences between the groups"). */
 const NAMES_TESTS = /(?<![\p{L}])(?:t[- ]tests?|(?:all|the|group|between-group|pairwise) (?:[\p{L}-]+ )?(?:comparisons|analyses|tests)|group (?:comparisons|differences)|differences between|comparisons between|(?:were|was) (?:compared|analy[sz]ed|tested))(?![\p{L}])/iu;
 /** Words saying the printed descriptives are themselves of the transformed values ("means and SDs of the log values are reported"). */
@@ -152,6 +161,7 @@ const MAY: Record<Mention['kind'], RegExp> = {
   transformed: /transform|log|ln[- ]|geometric/i,
   'exact-test': /Fisher|exact|Freeman|mid[- ]p|Yates|continuity|Monte Carlo|Barnard|Boschloo/i,
   'model-based': /model|random|estimating|GEE|regression|ANCOVA|covariance|adjust|controlling/i,
+  'd-standardiser': /baseline|pre-?test|pre-?treatment|pre-?intervention|pre-?randomi|reference|population|normative/i,
 };
 
 /** Guideline-relevant words in one prose segment. */
@@ -186,6 +196,14 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
         const about = kind === 'exact-test' ? FOR_COUNTS.test(sentence) : NAMES_TESTS.test(sentence) && !(kind === 'transformed' && DESCRIPTIVES_TRANSFORMED.test(sentence));
         out.push({ kind, segment: seg.id, block: seg.block, sentence: sentenceOf(starts, m.index), span: sourceSpan(seg, m.index, m.index + m[0].length), printed: m[0], ...(about ? { aboutTests: true as const } : {}) });
       }
+    }
+  }
+  // another SD than the groups' as d's standardiser, said in a sentence about an effect size
+  if (MAY['d-standardiser'].test(text) && !REFERENCE_LIST.test(seg.section ?? '')) {
+    for (const m of matchesOf(D_STANDARDISER, text)) {
+      if (deniedAt(text, m.index, m.index + m[0].length, starts)) continue;
+      const [from, to] = sentenceBounds(starts, m.index, text.length);
+      if (EFFECT_SIZE_WORDS.test(text.slice(from, to))) add('d-standardiser', m);
     }
   }
   // resampling or an approximated df denied at its words ("Permutation-based p values were not

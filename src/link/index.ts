@@ -112,6 +112,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const pooledErrorOf = pooledErrorJoiner(extraction);
   const transformedOf = scopedMentionJoiner(extraction, sentencesWithStatistics, 'transformed');
   const modelBasedOf = scopedMentionJoiner(extraction, sentencesWithStatistics, 'model-based');
+  const standardiserOf = standardiserJoiner(extraction, sentencesWithStatistics);
   // Welch's test named where no test is reported ("Welch's t-tests were used throughout")
   // (as a test: not "Welch's method" or "Welch's ANOVA", and not in a sentence that negates it)
   // (and none where the text also names Student's test so: it then says which test its results are)
@@ -140,6 +141,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       ...withPooledError(pooledErrorOf(report)),
       ...withTransformed(transformedOf(report)),
       ...withModelBased(modelBasedOf(report)),
+      ...withStandardiser(standardiserOf(report)),
     };
   });
   const statistics: LinkedStatistic[] = [];
@@ -259,6 +261,22 @@ function mentionJoiner(extraction: Extraction, withStatistics: ReadonlySet<strin
 
 const withTransformed = (m: Mention | undefined) => (m ? { transformed: m } : {});
 const withModelBased = (m: Mention | undefined) => (m ? { modelBased: m } : {});
+const withStandardiser = (m: Mention | undefined) => (m ? { dStandardiser: m } : {});
+
+/**
+ * Words saying effect sizes are standardised by another SD than the groups' (the pooled baseline
+ * SD, a reference SD): in the result's sentence, its paragraph, or a sentence that reports no
+ * statistic outside an introduction or discussion (a definition in the Methods holds for every
+ * result; one in a discussion of other studies does not).
+ */
+function standardiserJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>): (report: TTestReport) => Mention | undefined {
+  const said = extraction.mentions.filter((m) => m.kind === 'd-standardiser');
+  if (said.length === 0) return () => undefined;
+  const bySentence = groupBy(said, sentenceKey);
+  const bySegment = groupBy(said, (m) => m.segment);
+  const general = said.find((m) => !withStatistics.has(sentenceKey(m)) && !OTHER_STUDIES_SECTION.test(extraction.sections[m.segment] ?? ''));
+  return (report) => bySentence.get(sentenceKey(report))?.[0] ?? bySegment.get(report.segment)?.[0] ?? general;
+}
 /** Sections that speak of other studies or of future work: an introduction, a background, a discussion, a conclusion. */
 const OTHER_STUDIES_SECTION = /introduction|background|discussion|conclusion|limitation|future|related work|literature/i;
 

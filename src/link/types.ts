@@ -75,6 +75,12 @@ export interface LinkedResult {
    * statistic: its t need not follow from the groups' descriptives, nor its df from their sizes.
    */
   modelBased?: Mention;
+  /**
+   * Words saying effect sizes are standardised by another SD than the groups' own ("standardised
+   * by the pooled baseline SD"), in its sentence, its paragraph or a sentence that reports no
+   * statistic: its d need not follow from its t or from the SDs printed beside it.
+   */
+  dStandardiser?: Mention;
 }
 
 /** What says a t may take a larger analysis's pooled error term: an F with its df as error df, or words of contrasts. */

@@ -56,6 +56,17 @@ export function withDoubt<F extends { uncertain?: string[]; related?: Array<{ sp
 }
 
 /**
+ * `{ uncertain, related }` for a finding on an effect size where the text says effect sizes are
+ * standardised by another SD than the groups' (result.dStandardiser): that SD is not printed
+ * beside the result, so the d cannot be recomputed.
+ */
+export function standardiserDoubt(result: LinkedResult): { uncertain: string[]; related: Array<{ span: Span; message: string }> } | undefined {
+  const m = result.dStandardiser;
+  if (!m) return undefined;
+  return { uncertain: [`the text names another SD as the effect sizes' standardiser ("${m.printed.trim()}"), which is not printed with this result, so its d cannot be recomputed`], related: [{ span: m.span, message: 'the words about the standardiser' }] };
+}
+
+/**
  * `{ uncertain, related }` for a finding that recomputes a t from the printed means and SDs, where
  * the text says values were transformed for the analysis (result.transformed): the t may be of the
  * transformed values, which the printed, untransformed descriptives do not give.

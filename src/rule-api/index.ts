@@ -6,7 +6,7 @@ export { describeTails, evaluateP, notRecomputed, DF_RECOMPUTED_BELOW, showRange
 export { pMessageId, pPlaceholders } from './pMessages.js';
 export { describeAttempt, evaluateDescriptives, inferDesign, ownGroupsDf, spreadReadings, type Attempt, type DescriptiveEvaluation, type Reading, type Variant } from './descriptives.js';
 export { checklistRule, resultEntries, statisticBase, type ChecklistRuleSpec } from './checklist.js';
-export { descriptiveDoubts, linkDoubts, modelDoubt, pooledErrorDoubt, transformedDoubt, withDoubt } from './doubts.js';
+export { descriptiveDoubts, linkDoubts, modelDoubt, pooledErrorDoubt, standardiserDoubt, transformedDoubt, withDoubt } from './doubts.js';
 export { groupBy, repeatDoubt } from '../link/index.js';
 export { evaluateStatisticP, statisticName, statisticPFindings, statisticPlaceholders, type StatisticPEvaluation, type StatisticReading } from './statistic.js';
 export { coefficientRatio, type CoefficientRatio } from './coefficient.js';

@@ -20,3 +20,20 @@ describe('an SD of change', () => {
     expect(levels(r, 't-follows-from-descriptives')).toEqual([]);
   });
 });
+
+describe('a d standardised by another SD than the groups\'', () => {
+  it('said in the Methods, makes the d finding a note that names the words', () => {
+    const r = run(`## Methods\n\nEffect sizes were standardised by the pooled baseline SD (12.0 mg/dL).\n\n## Results\n\n${result}`);
+    expect(levels(r, 'effect-size-follows')).toEqual(['note']);
+    expect(r.findings.find((f) => f.ruleId === 'effect-size-follows')?.message).toContain('("standardised by the pooled baseline SD")');
+  });
+  it('written as a formula in the result\'s paragraph, too', () => {
+    expect(levels(run(`## Results\n\n${result} Here d is the difference in change ÷ pooled baseline SD.`), 'effect-size-follows')).toEqual(['note']);
+  });
+  it('not said, or said of other trials in the Discussion, leaves the warning', () => {
+    expect(levels(run(`## Results\n\n${result}`), 'effect-size-follows')).toEqual(['warning']);
+    expect(levels(run(`## Results\n\n${result}\n\n## Discussion\n\nEarlier trials standardised effect sizes by the pooled baseline SD.`), 'effect-size-follows')).toEqual(['warning']);
+    // words of a baseline SD that are not about an effect size
+    expect(levels(run(`## Methods\n\nWeight change was compared with the baseline SD of the cohort.\n\n## Results\n\n${result}`), 'effect-size-follows')).toEqual(['warning']);
+  });
+});
