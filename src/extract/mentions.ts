@@ -126,6 +126,13 @@ const MODEL_BASED = /(?<![\p{L}])(?:(?:linear |generali[sz]ed linear |generali[s
 const D_STANDARDISER = /(?<![\p{L}])(?:(?:standardi[sz]ed|divided|scaled) by|using|with|relative to|over|÷|\/) ?(?:the )?(?:pooled )?(?:baseline|pre-?test|pre-?treatment|pre-?intervention|pre-?randomi[sz]ation|reference|population|normative) (?:SDs?|standard deviations?)(?![\p{L}])/giu;
 /** Words of an effect size in the sentence of D_STANDARDISER: a d, g, "effect size", "standardised". */
 const EFFECT_SIZE_WORDS = /(?<![\p{L}])(?:d|g|effect sizes?|standardi[sz]ed (?:mean )?differences?|SMDs?|Cohen['’]?s|Hedges['’]?)(?![\p{L}])/iu;
+/**
+ * Words saying a test compares cluster means without their number ("on school means",
+ * "school-level means", "at the cluster level"): its df counts the clusters, not the people the
+ * group sizes beside it count. (With a number, "the 12 school means", it is a unit count,
+ * src/extract/summaries.ts.)
+ */
+const CLUSTER_MEANS_WORDS = /(?<![\p{L}\p{N}])(?<!\d[ -])(?:(?:school|ward|class|classroom|clinic|practice|site|cluster|village|team|hospital|home|district|community|household|farm|plot)(?:[- ]level)? (?:means|averages)|(?:means|averages) of (?:the )?(?:schools|wards|classes|classrooms|clinics|practices|sites|clusters|villages|teams|hospitals|homes|districts|communities|households|farms|plots)|(?:at|on) the (?:school|ward|class|classroom|clinic|practice|site|cluster|village|team|hospital|district|community|household)[- ]level|cluster[- ]level (?:analys[ie]s|t[- ]tests?|comparisons?))(?![\p{L}])/giu;
 /** Words naming the tests or comparisons themselves ("All group comparisons", "t-tests were", "differences between the groups"). */
 const NAMES_TESTS = /(?<![\p{L}])(?:t[- ]tests?|(?:all|the|group|between-group|pairwise) (?:[\p{L}-]+ )?(?:comparisons|analyses|tests)|group (?:comparisons|differences)|differences between|comparisons between|(?:were|was) (?:compared|analy[sz]ed|tested))(?![\p{L}])/iu;
 /** Words saying the printed descriptives are themselves of the transformed values ("means and SDs of the log values are reported"). */
@@ -161,6 +168,7 @@ const MAY: Record<Mention['kind'], RegExp> = {
   transformed: /transform|log|ln[- ]|geometric/i,
   'exact-test': /Fisher|exact|Freeman|mid[- ]p|Yates|continuity|Monte Carlo|Barnard|Boschloo/i,
   'model-based': /model|random|estimating|GEE|regression|ANCOVA|covariance|adjust|controlling/i,
+  'cluster-means': /means|averages|level/i,
   'd-standardiser': /baseline|pre-?test|pre-?treatment|pre-?intervention|pre-?randomi|reference|population|normative/i,
 };
 
@@ -198,6 +206,7 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
       }
     }
   }
+  if (MAY['cluster-means'].test(text)) for (const m of matchesOf(CLUSTER_MEANS_WORDS, text)) if (!deniedAt(text, m.index, m.index + m[0].length, starts)) add('cluster-means', m);
   // another SD than the groups' as d's standardiser, said in a sentence about an effect size
   if (MAY['d-standardiser'].test(text) && !REFERENCE_LIST.test(seg.section ?? '')) {
     for (const m of matchesOf(D_STANDARDISER, text)) {

@@ -565,7 +565,7 @@ export interface PowerStatement {
  * what a test assumes ("Welch's test does not assume equal variances").
  */
 export interface Mention {
-  kind: 'software' | 'assumption' | 'multiplicity' | 'trend' | 'exclusion' | 'test-name' | 'repeated-measures' | 'between-subjects' | 'no-sphericity-correction' | 'resampled-p' | 'resampling-test' | 'approximate-df' | 'contrast' | 'derived-means' | 'several-studies' | 'part-of-sample' | 'many-arms' | 'transformed' | 'exact-test' | 'model-based' | 'd-standardiser';
+  kind: 'software' | 'assumption' | 'multiplicity' | 'trend' | 'exclusion' | 'test-name' | 'repeated-measures' | 'between-subjects' | 'no-sphericity-correction' | 'resampled-p' | 'resampling-test' | 'approximate-df' | 'contrast' | 'derived-means' | 'several-studies' | 'part-of-sample' | 'many-arms' | 'transformed' | 'exact-test' | 'model-based' | 'd-standardiser' | 'cluster-means';
   segment: number;
   block: number;
   sentence: number;

@@ -113,6 +113,8 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const transformedOf = scopedMentionJoiner(extraction, sentencesWithStatistics, 'transformed');
   const modelBasedOf = scopedMentionJoiner(extraction, sentencesWithStatistics, 'model-based');
   const standardiserOf = standardiserJoiner(extraction, sentencesWithStatistics);
+  // cluster means said in the result's own sentence only: elsewhere they may be of another analysis
+  const clusterMeansBySentence = groupBy(extraction.mentions.filter((m) => m.kind === 'cluster-means'), sentenceKey);
   // Welch's test named where no test is reported ("Welch's t-tests were used throughout")
   // (as a test: not "Welch's method" or "Welch's ANOVA", and not in a sentence that negates it)
   // (and none where the text also names Student's test so: it then says which test its results are)
@@ -142,6 +144,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
       ...withTransformed(transformedOf(report)),
       ...withModelBased(modelBasedOf(report)),
       ...withStandardiser(standardiserOf(report)),
+      ...withClusterMeans(clusterMeansBySentence.get(k)?.[0]),
     };
   });
   const statistics: LinkedStatistic[] = [];
@@ -262,6 +265,7 @@ function mentionJoiner(extraction: Extraction, withStatistics: ReadonlySet<strin
 const withTransformed = (m: Mention | undefined) => (m ? { transformed: m } : {});
 const withModelBased = (m: Mention | undefined) => (m ? { modelBased: m } : {});
 const withStandardiser = (m: Mention | undefined) => (m ? { dStandardiser: m } : {});
+const withClusterMeans = (m: Mention | undefined) => (m ? { clusterMeans: m } : {});
 
 /**
  * Words saying effect sizes are standardised by another SD than the groups' (the pooled baseline

@@ -81,6 +81,11 @@ export interface LinkedResult {
    * statistic: its d need not follow from its t or from the SDs printed beside it.
    */
   dStandardiser?: Mention;
+  /**
+   * Words in its sentence saying the test compares cluster means ("on school means", "at the
+   * cluster level"): its df counts the clusters, not the group sizes printed beside it.
+   */
+  clusterMeans?: Mention;
 }
 
 /** What says a t may take a larger analysis's pooled error term: an F with its df as error df, or words of contrasts. */

@@ -324,6 +324,12 @@ describe('a test of cluster means', () => {
   it('counts the clusters: its df beside pupil-level sizes is a note', () => {
     expect(of('Pupils in intervention schools drank fewer sugary drinks (M = 4.1, SD = 2.6, n = 612) than pupils in control schools (M = 5.0, SD = 2.8, n = 598); comparing the 12 school means, t(10) = -2.41, p = .037.')).toEqual(['note']);
   });
+  it('said without their number in the result\'s sentence ("on school means"), a note too; in another sentence, not', () => {
+    const pupils = 'Pupils in intervention schools drank fewer sugary drinks (M = 4.1, SD = 2.6, n = 612) than pupils in control schools (M = 5.0, SD = 2.8, n = 598)';
+    expect(of(`${pupils}; on school means, t(10) = -2.41, p = .037.`)).toEqual(['note']);
+    expect(of(`${pupils}; at the school level, t(10) = -2.41, p = .037.`)).toEqual(['note']);
+    expect(of(`School-level means are given in Table 3. ${pupils}, t(10) = -2.41, p = .037.`)).toEqual(['warning']);
+  });
   it('a number of cluster means that is not df + 2 leaves the warning', () => {
     expect(of('Pupils in intervention schools drank fewer sugary drinks (M = 4.1, SD = 2.6, n = 612) than pupils in control schools (M = 5.0, SD = 2.8, n = 598); comparing the 20 school means, t(10) = -2.41, p = .037.')).toEqual(['warning']);
   });
