@@ -2,6 +2,7 @@ import type { Segment } from '../parse/types.js';
 import { sentenceBounds, sentenceOf, sourceSpan } from './numbers.js';
 import type { Mention, TestNameWords } from './types.js';
 import { matchesOf } from './matches.js';
+import { stem, topicWords } from './topic.js';
 
 const SOFTWARE = /(?<![\p{L}])(R|RStudio|SPSS|IBM SPSS Statistics|Stata|SAS|JASP|jamovi|Python|SciPy|statsmodels|GraphPad Prism|Prism|Minitab|MATLAB|Excel|G\*Power|Statistica|JMP)(?![\p{L}])(?:[^.;\n]{0,40}?(?:version |v\.? ?|\()?(\d{1,4}(?:\.\d{1,4}){1,3}))?/gu;
 const SOFTWARE_CONTEXT = /(?<![\p{L}])(software|package|statistical|analy[sz]ed|analyses|using|version|computed|performed)(?![\p{L}])/iu;
@@ -202,7 +203,10 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
         const [from, to] = sentenceBounds(starts, m.index, text.length);
         const sentence = text.slice(from, to);
         const about = kind === 'exact-test' ? FOR_COUNTS.test(sentence) : NAMES_TESTS.test(sentence) && !(kind === 'transformed' && DESCRIPTIVES_TRANSFORMED.test(sentence));
-        out.push({ kind, segment: seg.id, block: seg.block, sentence: sentenceOf(starts, m.index), span: sourceSpan(seg, m.index, m.index + m[0].length), printed: m[0], ...(about ? { aboutTests: true as const } : {}) });
+        // the measure its sentence opens with ("Fatigue was rated weekly and analysed with a
+        // linear mixed model"): a result whose own words open with it is that measure's
+        const subject = (kind === 'transformed' || kind === 'model-based') && !about ? topicWords(sentence)[0] : undefined;
+        out.push({ kind, segment: seg.id, block: seg.block, sentence: sentenceOf(starts, m.index), span: sourceSpan(seg, m.index, m.index + m[0].length), printed: m[0], ...(about ? { aboutTests: true as const } : {}), ...(subject !== undefined ? { subject: stem(subject) } : {}) });
       }
     }
   }

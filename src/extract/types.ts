@@ -590,6 +590,12 @@ export interface Mention {
    * speaks of results beyond its own paragraph.
    */
   aboutTests?: true;
+  /**
+   * For a transformation or a model said in a sentence not about the tests: the stem of the
+   * sentence's first content word, the measure it is said of ("CRP values were log-transformed",
+   * "Fatigue was … analysed with a linear mixed model").
+   */
+  subject?: string;
 }
 
 /** What a test's name says: the design, Student's or Welch's, and whether it names several tests. */

@@ -11,6 +11,7 @@ import { contextJoiner, fGroupsJoiner, groupBy, spreadStatements } from './descr
 import { sentenceKey, sentenceKeyOf } from './clauses.js';
 import { testNames } from './testNames.js';
 import { OWN_P_LABEL_GAP } from '../extract/statements.js';
+import { stem } from '../extract/topic.js';
 export type { TestName, TestNameBasis } from './testNames.js';
 
 /** Default alpha when nothing sets one: .05 (common practice, no source). */
@@ -290,7 +291,8 @@ const OTHER_STUDIES_SECTION = /introduction|background|discussion|conclusion|lim
  * sentence; for a transformation, its paragraph too; else a sentence of the text that reports no
  * statistic, says it is about the tests or comparisons ("All group comparisons were estimated by
  * linear regression adjusted for age", "t-tests were performed on log-transformed values", a
- * table's note) and stands in no introduction or discussion. A model's words in a paragraph are
+ * table's note) and stands in no introduction or discussion; or such a sentence said of a measure
+ * (its first content word) that the result's own lead opens with. A model's words in a paragraph are
  * often about another analysis of it ("In a regression adjusting for age, ...").
  */
 function scopedMentionJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>, kind: 'transformed' | 'model-based'): (report: TTestReport) => Mention | undefined {
@@ -300,8 +302,17 @@ function scopedMentionJoiner(extraction: Extraction, withStatistics: ReadonlySet
   const bySegment = groupBy(said, (m) => m.segment);
   // beyond its paragraph, only a sentence that reports no statistic, says it is about the tests or
   // comparisons, and is not in an introduction or discussion (of other studies, of future work)
-  const general = said.find((m) => !withStatistics.has(sentenceKey(m)) && m.aboutTests === true && !OTHER_STUDIES_SECTION.test(extraction.sections[m.segment] ?? ''));
-  return (report) => bySentence.get(sentenceKey(report))?.[0] ?? (kind === 'model-based' ? undefined : bySegment.get(report.segment)?.[0]) ?? general;
+  const apart = (m: Mention) => !withStatistics.has(sentenceKey(m)) && !OTHER_STUDIES_SECTION.test(extraction.sections[m.segment] ?? '');
+  const general = said.find((m) => m.aboutTests === true && apart(m));
+  // or one said of a measure ("Fatigue was rated weekly and analysed with a linear mixed model"),
+  // for a result whose own words open with that measure ("Fatigue was lower with …, t(91.4)")
+  const ofMeasure = new Map<string, Mention>();
+  for (const m of said) if (m.subject !== undefined && apart(m) && !ofMeasure.has(m.subject)) ofMeasure.set(m.subject, m);
+  const measureOf = (report: TTestReport) => {
+    const first = report.lead?.words[0];
+    return first !== undefined && ofMeasure.size > 0 ? ofMeasure.get(stem(first)) : undefined;
+  };
+  return (report) => bySentence.get(sentenceKey(report))?.[0] ?? (kind === 'model-based' ? undefined : bySegment.get(report.segment)?.[0]) ?? general ?? measureOf(report);
 }
 
 const withPooledError = (p: PooledError | undefined) => (p ? { pooledError: p } : {});

@@ -284,6 +284,24 @@ describe('words of a model in the result\'s sentence, or in a sentence about the
   });
 });
 
+describe('a model or a transformation said of a measure, for a result that opens with it', () => {
+  // (4.2, 1.9, 48) against (5.0, 2.1, 47): Student's t(93) = −1.95, so t(91.4) = −2.26 (p = .026) is a
+  // model's; (3.1, 1.2, 40) against (2.4, 1.1, 40): Welch's t(77.4) = 2.72, so t(77.4) = 3.60 (p < .001), beyond the rounding of the printed values, is of
+  // the log values (scipy.stats.ttest_ind_from_stats, scipy.stats.t.sf)
+  const of = (markdown: string) => levels(run(markdown), 't-follows-from-descriptives');
+  const fatigue = 'Fatigue was lower with the exercise programme (M = 4.2, SD = 1.9, n = 48) than with usual care (M = 5.0, SD = 2.1, n = 47), t(91.4) = -2.26, p = .026.';
+  const crp = 'CRP was higher in smokers (M = 3.1, SD = 1.2, n = 40) than in non-smokers (M = 2.4, SD = 1.1, n = 40), t(77.4) = 3.60, p < .001.';
+  it('makes the t from the descriptives a note', () => {
+    expect(of(`## Methods\n\nFatigue was rated weekly for 8 weeks and analysed with a linear mixed model.\n\n## Results\n\n${fatigue}`)).toEqual(['note']);
+    expect(of(`## Methods\n\nCRP values were log-transformed before analysis.\n\n## Results\n\n${crp}`)).toEqual(['note']);
+  });
+  it('said of another measure, or in a discussion, leaves the warning', () => {
+    expect(of(`## Methods\n\nAdherence was recorded weekly and analysed with a linear mixed model.\n\n## Results\n\n${fatigue}`)).toEqual(['warning']);
+    expect(of(`## Methods\n\nIL-6 values were log-transformed before analysis.\n\n## Results\n\n${crp}`)).toEqual(['warning']);
+    expect(of(`## Results\n\n${crp}\n\n## Discussion\n\nCRP was log-transformed in earlier cohorts.`)).toEqual(['warning']);
+  });
+});
+
 describe('a CI named as another kind than estimate ± t × SE', () => {
   // (1240, 410, 45) against (1480, 520, 44): t(87) = −2.42, p = .018 (scipy.stats.ttest_ind_from_stats);
   // a bootstrap interval −452 to −61 is not centred on −240, and need not be
