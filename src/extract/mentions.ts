@@ -287,7 +287,7 @@ const NAMES_A_TEST = /(?<![\p{L}])t(?![\p{L}])|test/u;
  * between ("no Greenhouse–Geisser", "did not use Welch's", "would not survive a Bonferroni"; not
  * "did not differ after Bonferroni", where the negation is about something else).
  */
-const DENIED_BEFORE = /(?:(?<![\p{L}])(?:not|never|no|none|without|nor|neither|unlike|instead of|rather than)|n['’]t)(?: (?:use|used|using|apply|applied|applying|survive|need|needed|require|required|perform|performed|run|a|an|the|any|further|with|of|by|p|p-values?|values?|were|was|estimated|computed|calculated|obtained|approximated)){0,4} $/iu;
+const DENIED_BEFORE = /(?:(?<![\p{L}])(?:not|never|no|none|without|nor|neither|unlike|instead of|rather than|avoid|avoided|avoiding)|n['’]t)(?: (?:use|used|using|apply|applied|applying|survive|need|needed|require|required|perform|performed|run|a|an|the|any|further|with|of|by|p|p-values?|values?|were|was|estimated|computed|calculated|obtained|approximated)){0,4} $/iu;
 /** Some words said not to be so right after them ("… was not needed", "… were not applied", "… were not computed"). */
 const DENIED_AFTER = /^(?: [\p{L}'’‐–-]{1,15}){0,2} (?:(?:was|were|is|are|has been|have been) (?:not|never)(?![\p{L}])|(?:wasn|weren|isn|aren)['’]t(?![\p{L}])|(?:was|were) (?:considered but )?(?:rejected|dropped|abandoned|discarded)(?![\p{L}]))/iu;
 

@@ -34,6 +34,8 @@ const ANALYSIS_WORD = /(?<![\p{L}])(?:tests?|t-tests?|testing|tested|p|P|p[- ]va
  * A statement about every test of the document, not one of them: plural or universal words
  * ("All tests were two-tailed", "p values are two-sided", "Significance was set at α = .05").
  */
+/** Words of the authors' own work ("we", "our", "this study", "the present analysis"): a statement with them is about this study's tests. */
+const OWN_WORK = /(?<![\p{L}])(?:we|our|us|this (?:study|trial|paper|report|analysis|work|experiment)|the present (?:study|trial|analysis|work|experiment)|here)(?![\p{L}])/iu;
 const GENERAL_WORDS = /(?<![\p{L}])(?:all|every|each|throughout|unless|tests|t-tests|p[- ]values|analyses|comparisons|hypotheses|contrasts|statistical significance|significance (?:was|is|level|threshold|criterion)|level of significance|alpha (?:level|was|of|=)|α ?(?:=|was|of|level))(?![\p{L}])/iu;
 /** Words that make an alpha local: a corrected or adjusted alpha, or the alpha of a power calculation. */
 const LOCAL_ALPHA = /(?<![\p{L}])(?:corrected|adjusted|Bonferroni|Holm|Šidák|Sidak|per comparison|for (?:this|these|each|the (?:primary|secondary))|family-?wise|power|detect|sample size)(?![\p{L}])/iu;
@@ -142,7 +144,7 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
   });
   // What each sentence's words say, read once per sentence: a sentence of thousands of
   // statements would otherwise be searched again for each.
-  const readings = new Map<number, { planning: boolean; general: boolean; local: boolean; restricted: boolean; single: boolean; sideTests: boolean }>();
+  const readings = new Map<number, { planning: boolean; own: boolean; general: boolean; local: boolean; restricted: boolean; single: boolean; sideTests: boolean }>();
   // a side test named in the clause of a tails or alpha word ("Normality was checked with the
   // Shapiro–Wilk test at α = .10"), in a sentence that names neither the t-tests nor every test:
   // the word is that test's (a clause ends at a semicolon or colon)
@@ -179,7 +181,7 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     let r = readings.get(i);
     if (!r) {
       const sentence = text.slice(sentenceStarts[i] as number, sentenceStarts[i + 1] ?? text.length);
-      r = { planning: PLANNING.test(sentence), general: GENERAL_WORDS.test(sentence), local: LOCAL_ALPHA.test(sentence), restricted: RESTRICTED_SCOPE.test(sentence) || KIND_SUBJECT.test(sentence) || MARGIN_TEST.test(sentence), single: ONE_TEST.test(sentence), sideTests: !SIDE_TEST_AND_T.test(sentence) };
+      r = { planning: PLANNING.test(sentence), own: OWN_WORK.test(sentence), general: GENERAL_WORDS.test(sentence), local: LOCAL_ALPHA.test(sentence), restricted: RESTRICTED_SCOPE.test(sentence) || KIND_SUBJECT.test(sentence) || MARGIN_TEST.test(sentence), single: ONE_TEST.test(sentence), sideTests: !SIDE_TEST_AND_T.test(sentence) };
       readings.set(i, r);
     }
     return r;
@@ -196,8 +198,11 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
     // "both one-sided tests", "two one-sided tests" beside words of equivalence: the pair of
     // tests of that procedure (EQUIVALENCE below), not the tails of the sentence's other tests
     if (OTHER_TESTS_BEFORE.test(text.slice(Math.max(0, m.index - 12), m.index)) && EQUIVALENCE_WORD.test(text.slice(Math.max(0, m.index - 80), end + 80))) continue;
+    // "We did not use one-tailed tests", "No one-tailed tests were used", "we avoided one-tailed
+    // tests": no declaration of one tail
+    if (deniedAt(text, m.index, end, sentenceStarts)) continue;
     const restricted = sentence.restricted || ofSideTest(m.index, sentence);
-    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: !planning && sentence.general && !restricted, ...(planning ? { planning } : {}), ...(restricted ? { restricted: true as const } : {}), ...(sentence.single && !sentence.general ? { single: true as const } : {}), ...(labelsP ? { labelsP } : {}), ...base(m.index, end) });
+    out.push({ kind: 'sidedness', sidedness: one ? 'one' : 'two', general: !planning && sentence.general && !restricted, ...(sentence.own ? { ownWork: true as const } : {}), ...(planning ? { planning } : {}), ...(restricted ? { restricted: true as const } : {}), ...(sentence.single && !sentence.general ? { single: true as const } : {}), ...(labelsP ? { labelsP } : {}), ...base(m.index, end) });
   }
   if (/equivalen|TOST|one-sided|inferiority|bound|margin/i.test(text)) for (const m of matchesOf(EQUIVALENCE, text)) {
     out.push({ kind: 'equivalence', sidedness: 'one', ...base(m.index, m.index + m[0].length) });

@@ -69,6 +69,12 @@ export interface ContextStatement {
    * of the results of its own sentence only, and of no other that can be told.
    */
   restricted?: true;
+  /**
+   * For `sidedness`: its sentence speaks of the authors' own work ("we", "our", "this study"). In
+   * an introduction or discussion only such a sentence declares this study's tails: "Earlier
+   * trials often relied on one-tailed tests" is about others.
+   */
+  ownWork?: true;
   /** For `sidedness` and `alpha`: said of one test ("the hypothesis was tested one-tailed"), in no words about every test. */
   single?: true;
   /**

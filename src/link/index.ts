@@ -31,7 +31,9 @@ export const DEFAULT_ALPHA = 0.05;
 export function link(extraction: Extraction, directives: Directive[], settings: DocumentSettings = {}): LinkedDocument {
   // Said of every test, in a sentence that reports none (one that reports a test speaks of it).
   const sentencesWithTests = new Set(extraction.tests.map(sentenceKey));
-  const general = extraction.statements.filter((s) => s.general === true && !sentencesWithTests.has(sentenceKey(s)));
+  // (in an introduction or discussion, only words of the authors' own work: "Earlier trials often
+  // relied on one-tailed tests" is about other studies)
+  const general = extraction.statements.filter((s) => s.general === true && !sentencesWithTests.has(sentenceKey(s)) && (s.kind !== 'sidedness' || s.ownWork === true || !OTHER_STUDIES_SECTION.test(extraction.sections[s.segment] ?? '')));
   const documentSidedness = agreeing(general.filter((s) => s.kind === 'sidedness'), (s) => s.sidedness as Sidedness, 'document-text')
     ?? settings.sidedness ?? { value: 'two' as Sidedness, basis: 'default' as const };
   const documentAlpha = agreeing(general.filter((s) => s.kind === 'alpha'), (s) => s.alpha as number, 'document-text')
