@@ -35,6 +35,8 @@ const N_PAIR = new RegExp(String.raw`${START}(?:[nN]s?|sample sizes?) ?(?:=|:|of
 const N = new RegExp(String.raw`${START}(?:(n|N)(?:_\{[^{}\n]{1,20}\}|_?[0-9]|_[\p{L}]{1,20})?|[Ss]ample size) ?(?:=|:) ?${INT}(?: (per (?:group|condition|arm|cell|site|class)|(?:in|to|for|into) each (?:group|condition|arm|cell|site|class)|each))?(?!\d|\.\d)`, 'dgu');
 const PER_GROUP_AFTER = /^,? (?:each|per (?:group|arm|condition|cell|class|site)|(?:in|to|for|into) each (?:group|arm|condition|cell|class|site))(?![\p{L}])/u;
 const PER_GROUP_BEFORE = /(?<![\p{L}])(?:groups|arms) of $/u;
+/** A group's (or the total's) n right before a count, in its bracket ("(n = 30; 18 women)", "n = 30 (18 women)"): the count is part of it. */
+const GROUP_N_BEFORE = /(?<![\p{L}\p{N}])[nN] ?= ?\d{1,6}(?:[;,] ?| ?\()$/u;
 /** `n = 4 of whom`, `n = 6 of them`: a part of some group, not a group of the total. (`n = 21 of the
  *  garden group` is left open: it may be the group itself or a part of it.) */
 const SUBSET_AFTER = /^,? (?:of|among) (?:whom|them|those|these|each|both)(?![\p{L}])/u;
@@ -297,6 +299,8 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     // "forty plots … (a total of 1,200 plants)": a sentence that counts two kinds of unit does
     // not say which the groups are of, so neither count is certainly their total
     if (!perGroup && otherKindIn(kindsOfSentence(m.index), m[2] as string)) continue;
+    // "coaching (n = 30; 18 women)", "n = 30 (18 women)": how a group is made up, not a total
+    if (!perGroup && GROUP_N_BEFORE.test(text.slice(Math.max(0, m.index - 24), m.index))) continue;
     // "N = 60 staff" is one statement of the total, already read
     if (a && !sampleSizes.some((s) => s.n.span.start === a.span.start)) sampleSizes.push(Object.assign(where(m.index, end), { n: a, scope: perGroup ? ('per-group' as const) : ('total' as const) }));
   }

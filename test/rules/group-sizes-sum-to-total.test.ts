@@ -20,3 +20,9 @@ ruleTable('group-sizes-sum-to-total', [
   { name: 'a sentence counting two kinds of unit (plots and plants) does not say which the groups are of', markdown: 'Forty plots (a total of 1,200 plants) were randomly assigned to straw mulch (n = 20) or bare soil (n = 20).', expect: [] },
   { name: 'a total of the one kind of unit the sentence names is still checked', markdown: 'In all, 30 plants were randomly assigned to straw mulch (n = 20) or bare soil (n = 20).', expect: [{ at: '30 plants', id: 'sum-differs' }] },
 ]);
+
+ruleTable('group-sizes-sum-to-total', [
+  { name: 'a count in a group\'s bracket after its n says how the group is made up, not a total', markdown: 'Sixty adults were randomised to coaching (n = 30; 18 women) or usual care (n = 30; 16 women).', expect: [] },
+  { name: 'the same after a comma, or in a bracket of its own', markdown: 'Sixty adults were randomised to coaching (n = 30, 18 women) or usual care (n = 30 (16 women)).', expect: [] },
+  { name: 'a total stated beside such groups is still checked', markdown: 'A total of 64 adults were randomised to coaching (n = 30; 18 women) or usual care (n = 30; 16 women).', expect: [{ at: '64 adults', id: 'sum-differs' }] },
+]);
