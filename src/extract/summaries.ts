@@ -18,6 +18,7 @@ import type {
   SpreadKind,
 } from './types.js';
 import { matchesOf } from './matches.js';
+import { OTHER_ESTIMATE_BEFORE } from './otherEstimates.js';
 
 // Bounded building blocks (see test/regex-safety for the linearity argument).
 const NUM = String.raw`([-+]?(?:\d{1,3}(?:,\d{3}){1,3}|\d{1,12})(?:\.\d{1,12})?|[-+]?\.\d{1,12})`;
@@ -365,7 +366,9 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     if (!low || !high || low.value > high.value) continue;
     // "bootstrap 95% CI", "percentile 95% CI", "Wilson 95% CI": not estimate ± t × SE
     const method = NOT_T_INTERVAL_BEFORE.exec(text.slice(Math.max(0, m.index - 30), m.index))?.[1];
-    intervals.push(Object.assign(where(m.index, m.index + m[0].length), { level: Number(m[1]) / 100, low, high }, method ? { method } : {}));
+    // "ICC = 0.86 (95% CI …)", "SMD = −0.46 (95% CI …)": another estimate's interval
+    const of = OTHER_ESTIMATE_BEFORE.exec(text.slice(Math.max(0, m.index - 60), m.index))?.[1];
+    intervals.push(Object.assign(where(m.index, m.index + m[0].length), { level: Number(m[1]) / 100, low, high }, method ? { method } : {}, of ? { ofOther: of } : {}));
   }
   const estimates: EstimateReport[] = [];
   if (/difference|MD|diff|\b[bB] ?[=:]|β|estimate|Δ|change/.test(text)) for (const m of matchesOf(ESTIMATE, text)) {

@@ -2,6 +2,7 @@ import type { Segment } from '../parse/types.js';
 import { readNumber, sentenceOf, sentenceStarts, sourceSpan, trimEndOf } from './numbers.js';
 import { decimalsOf, starBound } from './stars.js';
 import type { EffectSizeReport, EstimateReport, GroupSummary, IntervalReport, ReportedNumber, ReportedP, TableBlockRecord, TableRow, TTestReport } from './types.js';
+import { OTHER_ESTIMATE_HEADER } from './otherEstimates.js';
 
 /**
  * Results laid out in tables, read row by row. Columns are recognised by their header:
@@ -188,7 +189,7 @@ interface Columns {
   df?: number;
   p?: number;
   d?: { column: number; kind: EffectSizeReport['kind'] };
-  ci?: { column: number; level: number; levelAssumed?: true };
+  ci?: { column: number; level: number; levelAssumed?: true; of?: string };
   /** A column of the estimates the CI column's intervals are of (`Difference`, `MD`), beside it. */
   estimate?: number;
   groups: Array<{ column: number; kind: 'SD' | 'SE'; printedKind: string; label: string; n?: ReportedNumber }>;
@@ -235,7 +236,9 @@ function columnsOf(grid: Grid): Columns {
     } else if (CI_HEADER.test(text)) {
       // the level the header prints, else the caption's ("99% confidence intervals"), else 95% assumed
       const printed = CI_HEADER.exec(text)?.[1] ?? (grid.caption ? CAPTION_CI_LEVEL.exec(grid.caption.text)?.[1] : undefined);
-      c.ci ??= printed !== undefined ? { column, level: Number(printed) / 100 } : { column, level: 0.95, levelAssumed: true };
+      // "ICC (95% CI)", "AUC [95% CI]": the column's estimates and intervals are another statistic's
+      const of = OTHER_ESTIMATE_HEADER.exec(text)?.[1];
+      c.ci ??= Object.assign(printed !== undefined ? { column, level: Number(printed) / 100 } : { column, level: 0.95, levelAssumed: true as const }, of ? { of } : {});
     } else if (ESTIMATE_HEADER.test(text)) c.estimate ??= column;
     else if (MEAN_HEADER.test(text)) c.mean ??= column;
     else if (SD_HEADER.test(text)) c.spread ??= { column, kind: 'SD', printed: text };
@@ -362,7 +365,7 @@ function readGrid(grid: Grid, out: TableResults): void {
 }
 
 /** A cell `2.06 (0.78 to 3.35)` is an estimate with its interval; `(−3.4 to 2.1)` an interval alone. */
-function readIntervalCell(cell: Segment, { level, levelAssumed }: { level: number; levelAssumed?: true }, where: TableRow, out: TableResults): boolean {
+function readIntervalCell(cell: Segment, { level, levelAssumed, of }: { level: number; levelAssumed?: true; of?: string }, where: TableRow, out: TableResults): boolean {
   const m = CELL_CI.exec(cell.text);
   if (!m) return false;
   let from = 0;
@@ -371,8 +374,9 @@ function readIntervalCell(cell: Segment, { level, levelAssumed }: { level: numbe
   const low = numberAt(cell, m[2] as string, from);
   const high = low ? numberAt(cell, m[3] as string, cell.text.indexOf(m[2] as string, from) + (m[2] as string).length) : undefined;
   if (!low || !high || low.value > high.value) return false;
-  if (estimate) out.estimates.push({ segment: cell.id, block: cell.block, sentence: 0, span: estimate.span, printed: `estimate = ${estimate.printed}`, value: estimate, table: where });
-  out.intervals.push({ segment: cell.id, block: cell.block, sentence: 0, level, low, high, span: { start: low.span.start, end: high.span.end }, printed: `${Math.round(level * 100)}% CI ${cell.text.trim()}`, table: where, ...(levelAssumed ? { levelAssumed } : {}) });
+  // (another statistic's estimate, an ICC or an AUC, is not the estimate of the row's test)
+  if (estimate && of === undefined) out.estimates.push({ segment: cell.id, block: cell.block, sentence: 0, span: estimate.span, printed: `estimate = ${estimate.printed}`, value: estimate, table: where });
+  out.intervals.push({ segment: cell.id, block: cell.block, sentence: 0, level, low, high, span: { start: low.span.start, end: high.span.end }, printed: `${Math.round(level * 100)}% CI ${cell.text.trim()}`, table: where, ...(levelAssumed ? { levelAssumed } : {}), ...(of !== undefined ? { ofOther: of } : {}) });
   return true;
 }
 

@@ -425,6 +425,11 @@ export interface IntervalReport {
   levelAssumed?: true;
   /** A method other than estimate ± t × SE named right before it ("bootstrap 95% CI"), as printed. */
   method?: string;
+  /**
+   * The label of another estimate it is the interval of, printed right before it or heading its
+   * table column ("ICC = 0.86 (95% CI …)", "SMD", "AUC"; src/extract/otherEstimates.ts).
+   */
+  ofOther?: string;
 }
 
 /** An estimate printed with a label: `difference = 10.31`, `b = 2.48`, `MD = 3.1`. */

@@ -381,8 +381,8 @@ function contextFor(report: TTestReport, clauses: ClauseIndex, n: Lists, t: Tabl
     nextLead === undefined ? links : links.map((l) => (l.basis === 'clause' && l.certain && l.item.span.start >= nextLead ? Object.assign({}, l, { certain: false, doubt: 'stands in the words that lead up to the next test of its sentence, so it may be that test\'s' }) : l));
   const effectSizes = row ? inRow(t.rows.effectSizes, n.effectSizes) : listedTogether(beforeNext(owned(report, clause, clauses, n.effectSizes)), clauses.statisticsInSentence(report.segment, report.sentence));
   const intervals = row
-    ? inRow(t.rows.intervals, n.intervals).map((ci): IntervalLink => Object.assign({}, ci, { of: 'estimate' as const }))
-    : beforeNext(owned(report, clause, clauses, n.intervals)).map((ci) => intervalTarget(ci, report, clause, n));
+    ? inRow(t.rows.intervals, n.intervals).filter(notAnother).map((ci): IntervalLink => Object.assign({}, ci, { of: 'estimate' as const }))
+    : beforeNext(owned(report, clause, clauses, n.intervals)).filter(notAnother).map((ci) => intervalTarget(ci, report, clause, n));
   const interval = intervals.find((i) => i.of === 'estimate');
   const leading = clause.leadingEstimate;
   const estimate: Linked<EstimateReport> | undefined = row ? inRow(t.rows.estimates, n.estimates)[0] : leading ? { item: leading, basis: 'clause', certain: true } : owned(report, clause, clauses, n.estimates)[0];
@@ -467,6 +467,12 @@ function intervalTarget(ci: Linked<IntervalReport>, report: TTestReport, clause:
   }
   return Object.assign({}, ci, { of: nearest.of }, nearest.effectSize ? { effectSize: nearest.effectSize } : undefined);
 }
+
+/**
+ * An interval printed right after another estimate than the test's ("ICC = 0.86 (95% CI …)", an
+ * "SMD", an "AUC (95% CI)" column; IntervalReport.ofOther) is that estimate's, not the result's.
+ */
+const notAnother = (ci: Linked<IntervalReport>): boolean => ci.item.ofOther === undefined;
 
 /** Whether an interval, widened by half a unit of its last printed digits, holds ±x (x widened likewise). */
 function canHold(ci: IntervalReport, x: ReportedNumber): boolean {
