@@ -6,7 +6,7 @@ import { matchesOf } from './matches.js';
 import { deniedAt } from './mentions.js';
 
 const SIDED = /(?<![\p{L}])(one|two|1|2|single)[- ]?(tailed|sided)(?![\p{L}])|(?<![\p{L}])(non-?directional|directional)(?= (?:test|hypothes|predict))/giu;
-const EQUIVALENCE = /(?<![\p{L}])(equivalence test|test of equivalence|tests? for equivalence|TOST|(?:two|both) one-sided|non-?inferiority|equivalence bounds?|(?:test )?against the (?:lower|upper) (?:equivalence )?(?:bound|margin)|(?:lower|upper)[- ]bound test)(?![\p{L}])/giu;
+const EQUIVALENCE = /(?<![\p{L}])(equivalence test|test of equivalence|tests? for equivalence|TOST|two one-sided|non-?inferiority|equivalence bounds?|(?:test )?against the (?:lower|upper) (?:equivalence )?(?:bound|margin)|(?:lower|upper)[- ]bound test)(?![\p{L}])/giu;
 const ALPHA = new RegExp(
   String.raw`(?<![\p{L}])(?:α|alpha|significance level|level of significance|significance threshold|significance criterion)(?: level)?(?: (?:of|was set at|set at|was set to|was|at|equal to))? ?(?:=|:)? ?(?:p ?[<≤=] ?)?(0?\.\d{1,4})(?![\d])`,
   'giu',
@@ -90,9 +90,9 @@ export const OWN_P_LABEL_GAP = 4;
  * further from the result's own p than a label of it.
  */
 export const OTHER_TESTS_BEFORE = /(?:^|[^\p{L}])(?:two|both|pair of) $/iu;
-export const OTHER_TESTS_AFTER = /^ (?:t-)?tests\b/u;
-/** Words of an equivalence or non-inferiority procedure near a tails word. */
-const EQUIVALENCE_WORD = /equivalen|TOST|inferiority|margin|bounds?\b/iu;
+export const OTHER_TESTS_AFTER = /^ (?:t-)?tests\b/iu;
+/** Words of an equivalence or non-inferiority procedure near a tails word (not "margin" or "bound" alone: "marginally", a CI's lower bound). */
+export const EQUIVALENCE_WORD = /(?<![\p{L}])(?:(?:non-?)?equivalen\p{L}*|TOST|(?:non-?)?inferiority)(?![\p{L}])/iu;
 /** A p value printed right before a tails word ("or p = .037 one-tailed", "(.037 one-tailed)"): the tails are that p's. */
 export const P_BEFORE = /(?:(?<![\p{L}])(?:p|P) ?(?:=|<|>|≤|≥) ?|\( ?)0?\.\d{1,12},? ?\(?$/u;
 /** A p value in the words between a result's own p and a tails word: the tails may be that second p's. */

@@ -5,7 +5,7 @@ import { comparisonsIn } from './comparisons.js';
 import { decimalsOf, starBound } from './stars.js';
 import type { AdjustMethod, Comparison, ReportedNumber, ReportedP, ReportStyle, Sidedness, TTestReport } from './types.js';
 import { matchesOf } from './matches.js';
-import { A_P_VALUE, LABELS_P, OTHER_TESTS_AFTER, OTHER_TESTS_BEFORE, OWN_P_LABEL_GAP, P_BEFORE } from './statements.js';
+import { A_P_VALUE, EQUIVALENCE_WORD, LABELS_P, OTHER_TESTS_AFTER, OTHER_TESTS_BEFORE, OWN_P_LABEL_GAP, P_BEFORE } from './statements.js';
 
 // Building blocks. Every quantifier is bounded or over a character class disjoint from what
 // follows it, so no pattern can backtrack super-linearly (checked by test/regex-safety).
@@ -278,10 +278,12 @@ function completeReport(seg: Segment, anchor: Anchor, limit: number, sentenceSta
   // (a tails word right after the result's own p, "p = .075 one-tailed (p = .15 two-tailed)", is
   // that p's unless a p follows it at once, "p = .075 (one-tailed p = .037)")
   const labelsAnother = near && p && near.index >= pEnd && (LABELS_P.test(text.slice(after, after + 60)) || (near.index - pEnd > OWN_P_LABEL_GAP && (A_P_VALUE.test(tailText.slice(pEnd, near.index)) || P_BEFORE.test(tailText.slice(pEnd, near.index)))));
-  // nor is one that names other tests after it ("…, p = .689, and both one-sided tests
-  // rejected non-equivalence": the two tests of an equivalence procedure)
+  // nor is one that names other tests after it: the pair of an equivalence procedure ("…, p =
+  // .689, and both one-sided tests rejected non-equivalence", with words of equivalence)
   // (plural "tests" right after the result's own p, "p = .02 (one-sided tests)", labels that p)
-  const namesOthers = near && p && near.index >= pEnd && (OTHER_TESTS_BEFORE.test(tailText.slice(Math.max(pEnd, near.index - 12), near.index)) || (near.index - pEnd > OWN_P_LABEL_GAP && OTHER_TESTS_AFTER.test(text.slice(after, after + 12))));
+  const namesOthers =
+    near && p && near.index >= pEnd &&
+    ((OTHER_TESTS_BEFORE.test(tailText.slice(Math.max(pEnd, near.index - 12), near.index)) && EQUIVALENCE_WORD.test(text.slice(anchor.start, after + 80))) || (near.index - pEnd > OWN_P_LABEL_GAP && OTHER_TESTS_AFTER.test(text.slice(after, after + 12))));
   const sided = labelsAnother || namesOthers ? null : near;
   const before = text.slice(Math.max(0, anchor.start - 60), anchor.start);
   const variant = VARIANT_BEFORE.exec(before);

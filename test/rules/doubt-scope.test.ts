@@ -324,10 +324,17 @@ describe('the tests against the bounds of an equivalence margin', () => {
   // t(118) = 0.40: two-tailed p = .690, one-tailed .345; t(118) = 1.99: one-tailed p = .024 (scipy.stats.t.sf)
   it('"both one-sided tests" after a conventional t are the equivalence pair, not its tails', () => {
     const r = run('Healing did not differ, t(118) = 0.40, p = .689, and both one-sided tests rejected non-equivalence (p < .001).');
-    expect(r.results[0]?.sidedness.basis).toBe('equivalence-test');
+    expect(r.results[0]?.sidedness.value).toBe('two');
     expect(r.findings.filter((f) => f.level !== 'note')).toEqual([]);
     // a p that neither tail gives still speaks
     expect(run('Healing did not differ, t(118) = 0.40, p = .012, and both one-sided tests rejected non-equivalence (p < .001).').findings.map((f) => f.level)).toContain('error');
+  });
+  it('"both one-tailed" without words of equivalence ("marginally", a CI\'s "lower bound") still says the tails (review)', () => {
+    // t(30) = 2.30: two-tailed p = .029, one-tailed .014; t(30) = 1.80: two-tailed .082, one-tailed .041 (scipy.stats.t.sf)
+    const levelsOf = (text: string) => run(text).findings.filter((f) => f.level !== 'note').map((f) => f.level);
+    expect(levelsOf('Recall was higher after sleep, t(30) = 1.80, p = .082, and recognition was higher, t(30) = 2.30, p = .029 (both one-tailed; the lower bound of each 95% CI was above zero).')).not.toEqual([]);
+    expect(levelsOf('Recognition was higher after sleep, t(30) = 2.30, p = .029, and recall marginally so, t(30) = 1.80, p = .082, both one-tailed.')).toContain('error');
+    expect(levelsOf('## Results\n\nBoth one-sided tests favoured sleep. Recognition was higher after sleep, t(30) = 2.30, p = .029.')).not.toEqual([]);
   });
   it('"two one-tailed t-tests" without words of equivalence still say the tails', () => {
     const r = run('We ran two one-tailed t-tests. Healing differed, t(118) = 1.99, p = .024.');
