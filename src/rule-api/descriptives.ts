@@ -173,11 +173,12 @@ function evaluateDescriptivesOnce(result: LinkedResult): DescriptiveEvaluation |
       }
     }
     if (splits.truncated) limits.push(`only ${MAX_SPLITS} splits of the total tried`);
-    // one group with its n, the other printed without one, and a one-sample df: the other may be
-    // a reference (published norms, a population) its mean is tested against ("our sample (M =
+    // one group with its n, the other named as a reference (published norms, a population), and a
+    // one-sample df: the sample's mean may be tested against the reference's ("our sample (M =
     // 16.8, SD = 3.1, n = 40) was lower than the published reference (M = 21.5, SD = 7.0), t(39)")
-    const sized = g1.n && !g2.n ? g1 : g2.n && !g1.n ? g2 : undefined;
-    if (sized?.n && r.df && isWholeDf(r.df) && r.df.value === sized.n.value - 1) {
+    // (only a group named as a reference, and not where the design is said to be two independent groups)
+    const sized = g2.asReference && g1.n ? g1 : g1.asReference && g2.n ? g2 : undefined;
+    if (sized?.n && design !== 'independent' && r.df && isWholeDf(r.df) && r.df.value === sized.n.value - 1) {
       const reference = (sized === g1 ? g2 : g1) as GroupSummary;
       const n = sized.n.value;
       const mu0 = box(reference.mean as NonNullable<GroupSummary['mean']>);
@@ -186,7 +187,7 @@ function evaluateDescriptivesOnce(result: LinkedResult): DescriptiveEvaluation |
         // the difference from the reference over both means' rounding
         const absT = oneSampleAbsT([mean[0] - mu0[1], mean[1] - mu0[0]], sdBox(sized, n, rd.asSE), n);
         const fits = fitsT(absT);
-        attempts.push({ variant: 'one-sample', reading: rd.reading, ns: [n], nSource: `n = ${sized.n.printed}, against the other mean (printed without n) as a reference value`, absT, fits });
+        attempts.push({ variant: 'one-sample', reading: rd.reading, ns: [n], nSource: `n = ${sized.n.printed}, against the reference's mean as a test value`, absT, fits });
         if (fits && rd.labelled) labelledFit = true;
         if (fits && !rd.labelled) againstFit = true;
       }

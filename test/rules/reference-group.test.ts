@@ -17,6 +17,18 @@ const run = (markdown: string): FileReport => checkSource('x.md', `${markdown}\n
 const levels = (r: FileReport, rule: string) => r.findings.filter((f) => f.ruleId === rule).map((f) => f.level);
 const sentence = (t: string) => `## Results\n\nGrip strength in our sample (M = 16.8 kg, SD = 3.1, n = 40) was lower than the published reference (M = 21.5 kg, SD = 7.0), t(39) = ${t}, p < .001.`;
 
+describe('a group not named as a reference (review)', () => {
+  it('a control group\'s mean taken as a fixed value is still a warning, and so where the text says independent samples', () => {
+    const control = '## Results\n\nPatients had lower grip strength (M = 16.8 kg, SD = 3.1, n = 40) than healthy controls (M = 21.5 kg, SD = 7.0), t(39) = -9.59, p < .001.';
+    expect(levels(run(control), 't-follows-from-descriptives')).toEqual(['warning']);
+    expect(levels(run(control.replace('## Results\n\n', '## Results\n\nGrip strength was compared between the two independent groups with an independent-samples t-test. ')), 't-follows-from-descriptives')).toEqual(['warning']);
+  });
+  it('a published norm printed with its own N is a reference: its df is the sample\'s n − 1', () => {
+    const r = run('## Results\n\nGrip strength in our sample (M = 16.8 kg, SD = 3.1, n = 40) was lower than the published norm (M = 21.5 kg, SD = 7.0, N = 1200), t(39) = -9.59, p < .001.');
+    expect(r.findings.filter((f) => f.level !== 'note')).toEqual([]);
+  });
+});
+
 describe('a reference printed with a mean and SD but no n', () => {
   it('the one-sample reading against its mean gives the t: nothing to say', () => {
     expect(levels(run(sentence('-9.59')), 't-follows-from-descriptives')).toEqual([]);
@@ -24,7 +36,7 @@ describe('a reference printed with a mean and SD but no n', () => {
   it('a t that no reading gives is still a warning, and names the one-sample reading', () => {
     const r = run(sentence('-12.59'));
     expect(levels(r, 't-follows-from-descriptives')).toEqual(['warning']);
-    expect(r.findings.find((f) => f.ruleId === 't-follows-from-descriptives')?.message).toContain('against the other mean (printed without n) as a reference value');
+    expect(r.findings.find((f) => f.ruleId === 't-follows-from-descriptives')?.message).toContain("against the reference's mean as a test value");
   });
   it('is tried only with the one-sample df, not with one that two groups give', () => {
     const variants = (text: string) => {
