@@ -124,9 +124,11 @@ const MODEL_BASED = /(?<![\p{L}])(?:(?:linear |generali[sz]ed linear |generali[s
  * pooled baseline SD", "d = difference in change ÷ pooled baseline SD"). Such a d does not follow
  * from the t or the SDs printed beside it. (The control group's SD, Glass's Δ, is computed.)
  */
-const D_STANDARDISER = /(?<![\p{L}])(?:(?:standardi[sz]ed|divided|scaled) by|using|with|relative to|over|÷|\/) ?(?:the )?(?:pooled )?(?:baseline|pre-?test|pre-?treatment|pre-?intervention|pre-?randomi[sz]ation|reference|population|normative) (?:SDs?|standard deviations?)(?![\p{L}])/giu;
-/** Words of an effect size in the sentence of D_STANDARDISER: a d, g, "effect size", "standardised". */
-const EFFECT_SIZE_WORDS = /(?<![\p{L}])(?:d|g|effect sizes?|standardi[sz]ed (?:mean )?differences?|SMDs?|Cohen['’]?s|Hedges['’]?)(?![\p{L}])/iu;
+const D_STANDARDISER = /(?<![\p{L}])(?:(?:standardi[sz]ed|divided|scaled) by|÷|\/) ?(?:the )?(?:pooled )?(?:(?:baseline|pre-?test|pre-?treatment|pre-?intervention|pre-?randomi[sz]ation|reference|population|normative) (?:SDs?|standard deviations?)|(?:SDs?|standard deviations?)(?: of(?: \p{L}{1,20}){1,4})? at (?:baseline|pre-?test|pre-?treatment))(?![\p{L}])/giu;
+/** Words of an effect size in the sentence of D_STANDARDISER: "effect size", "SMD", "Cohen's d", "d =", "d is" (not a bare "d", nor "14 d was", which are days). */
+const EFFECT_SIZE_WORDS = /(?<![\p{L}])(?:effect sizes?|standardi[sz]ed (?:mean )?differences?|SMDs?|Cohen['’]?s d|Hedges['’]? g|(?<!\d ?)[dg] ?(?:=|is|was)(?![\p{L}]))(?![\p{L}])/iu;
+/** A sentence that plans the study (power, sample size) or speaks of other studies: its words define no effect size of this report. */
+const NOT_THIS_REPORTS = /(?<![\p{L}])(?:power(?:ed)?|sample size|to detect|(?:earlier|previous|prior|pilot|other|published) (?:trials?|stud(?:y|ies)|work|research|reports?|meta-analys[ie]s)|et al)(?![\p{L}])/iu;
 /**
  * Words saying a test compares cluster means without their number ("on school means",
  * "school-level means", "at the cluster level"): its df counts the clusters, not the people the
@@ -211,12 +213,21 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
     }
   }
   if (MAY['cluster-means'].test(text)) for (const m of matchesOf(CLUSTER_MEANS_WORDS, text)) if (!deniedAt(text, m.index, m.index + m[0].length, starts)) add('cluster-means', m);
-  // another SD than the groups' as d's standardiser, said in a sentence about an effect size
+  // another SD than the groups' as d's standardiser, said in a sentence about an effect size that
+  // neither plans the study nor speaks of other studies (each sentence judged once)
   if (MAY['d-standardiser'].test(text) && !REFERENCE_LIST.test(seg.section ?? '')) {
+    const about = new Map<number, boolean>();
     for (const m of matchesOf(D_STANDARDISER, text)) {
       if (deniedAt(text, m.index, m.index + m[0].length, starts)) continue;
-      const [from, to] = sentenceBounds(starts, m.index, text.length);
-      if (EFFECT_SIZE_WORDS.test(text.slice(from, to))) add('d-standardiser', m);
+      const i = sentenceOf(starts, m.index);
+      let ok = about.get(i);
+      if (ok === undefined) {
+        const [from, to] = sentenceBounds(starts, m.index, text.length);
+        const sentence = text.slice(from, to);
+        ok = EFFECT_SIZE_WORDS.test(sentence) && !NOT_THIS_REPORTS.test(sentence);
+        about.set(i, ok);
+      }
+      if (ok) add('d-standardiser', m);
     }
   }
   // resampling or an approximated df denied at its words ("Permutation-based p values were not

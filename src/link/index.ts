@@ -273,8 +273,9 @@ const withClusterMeans = (m: Mention | undefined) => (m ? { clusterMeans: m } : 
 /**
  * Words saying effect sizes are standardised by another SD than the groups' (the pooled baseline
  * SD, a reference SD): in the result's sentence, its paragraph, or a sentence that reports no
- * statistic outside an introduction or discussion (a definition in the Methods holds for every
- * result; one in a discussion of other studies does not).
+ * statistic outside an introduction or discussion (such a sentence defines every d of the report;
+ * one in a discussion of other studies does not). extract/mentions.ts reads the words only in a
+ * sentence about an effect size that neither plans the study nor speaks of other studies.
  */
 function standardiserJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>): (report: TTestReport) => Mention | undefined {
   const said = extraction.mentions.filter((m) => m.kind === 'd-standardiser');

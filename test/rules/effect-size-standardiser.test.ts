@@ -37,3 +37,20 @@ describe('a d standardised by another SD than the groups\'', () => {
     expect(levels(run(`## Methods\n\nWeight change was compared with the baseline SD of the cohort.\n\n## Results\n\n${result}`), 'effect-size-follows')).toEqual(['warning']);
   });
 });
+
+describe('words that define no standardiser of this report\'s d (review)', () => {
+  // (24.1, 5.0, 30) against (21.0, 5.2, 30): Student's t(58) = 2.354, p = .022, pooled-SD d = 0.61
+  // (scipy.stats.ttest_ind_from_stats; d by hand), so d = 0.91 is wrong
+  const memory = 'Memory scores were higher after training (M = 24.1, SD = 5.0, n = 30) than after the control task (M = 21.0, SD = 5.2, n = 30), t(58) = 2.35, p = .022, d = 0.91.';
+  it('a power calculation, a T-score conversion, days written "d", another trial: the wrong d is still a warning', () => {
+    for (const methods of [
+      'Using the population standard deviation of 15 points, a difference of 7.5 points corresponds to an effect size of d = 0.50; 30 participants per group gave 80% power at alpha .05.',
+      "Raw scores were converted to T-scores using the normative SD, and Cohen's d was computed from the two groups' pooled SD.",
+      'Weight change over 14 d was divided by the baseline SD of the colony to flag outlying animals.',
+      'The sample size was based on an earlier trial that reported effect sizes standardised by the pooled baseline SD (d = 0.75).',
+    ]) expect(levels(run(`## Methods\n\n${methods}\n\n## Results\n\n${memory}`), 'effect-size-follows'), methods).toEqual(['warning']);
+  });
+  it('"divided by the SD of all participants at baseline" is a standardiser too', () => {
+    expect(levels(run(`## Methods\n\nEffect sizes were computed as the difference in change divided by the SD of all participants at baseline (12.0 mg/dL).\n\n## Results\n\n${result}`), 'effect-size-follows')).toEqual(['note']);
+  });
+});
