@@ -77,7 +77,8 @@ export const dfFollowsFromN: Rule = {
         ...(descriptiveDoubts(result).uncertain ?? []),
         ...(assigned ? [`the group sizes printed are those randomised or enrolled ("${assigned.printed.trim()}"), who need not be those analysed`] : []),
         ...(clusters ? [`the sentence compares cluster means ("${clusters.printed}"), whose number the df may count rather than the group sizes`] : []),
-        ...(!clusters && result.clusterMeans ? [`the sentence says the test is of cluster means ("${result.clusterMeans.printed}"), whose number the df counts rather than the group sizes`] : []),
+        // (without their number, only where the df is far below the people counted: fewer clusters than either group's size)
+        ...(!clusters && result.clusterMeans && ns.every((n) => n !== undefined && dfValue + 2 < n) ? [`the sentence says the test is of cluster means ("${result.clusterMeans.printed}"), whose number the df counts rather than the group sizes`] : []),
       ];
       const base = { span: r.df.span, reported: r.printed, resultId: r.id, block: r.block, ...(doubts.length > 0 ? { uncertain: doubts } : {}) };
       const design = inferDesign(result);

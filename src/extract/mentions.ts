@@ -130,12 +130,13 @@ const EFFECT_SIZE_WORDS = /(?<![\p{L}])(?:effect sizes?|standardi[sz]ed (?:mean 
 /** A sentence that plans the study (power, sample size) or speaks of other studies: its words define no effect size of this report. */
 const NOT_THIS_REPORTS = /(?<![\p{L}])(?:power(?:ed)?|sample size|to detect|(?:earlier|previous|prior|pilot|other|published) (?:trials?|stud(?:y|ies)|work|research|reports?|meta-analys[ie]s)|et al)(?![\p{L}])/iu;
 /**
- * Words saying a test compares cluster means without their number ("on school means",
- * "school-level means", "at the cluster level"): its df counts the clusters, not the people the
+ * Words saying a test compares cluster means without their number, in words that govern the test
+ * ("on school means", "comparing school-level means", "analysed at the school level"; not "school
+ * means varied", "randomised at the school level"): its df counts the clusters, not the people the
  * group sizes beside it count. (With a number, "the 12 school means", it is a unit count,
  * src/extract/summaries.ts.)
  */
-const CLUSTER_MEANS_WORDS = /(?<![\p{L}\p{N}])(?<!\d[ -])(?:(?:school|ward|class|classroom|clinic|practice|site|cluster|village|team|hospital|home|district|community|household|farm|plot)(?:[- ]level)? (?:means|averages)|(?:means|averages) of (?:the )?(?:schools|wards|classes|classrooms|clinics|practices|sites|clusters|villages|teams|hospitals|homes|districts|communities|households|farms|plots)|(?:at|on) the (?:school|ward|class|classroom|clinic|practice|site|cluster|village|team|hospital|district|community|household)[- ]level|cluster[- ]level (?:analys[ie]s|t[- ]tests?|comparisons?))(?![\p{L}])/giu;
+const CLUSTER_MEANS_WORDS = /(?<![\p{L}\p{N}])(?:(?:on|comparing|compared|using|across|between) (?:the )?(?:school|ward|class|classroom|clinic|practice|site|cluster|village|team|hospital|home|district|community|household|farm|plot)(?:[- ]level)? (?:means|averages)|(?:means|averages) of (?:the )?(?:schools|wards|classes|classrooms|clinics|practices|sites|clusters|villages|teams|hospitals|homes|districts|communities|households|farms|plots)|(?:analy[sz]ed|analys[ie]s|compared|tested|tests?) at the (?:school|ward|class|classroom|clinic|practice|site|cluster|village|team|hospital|district|community|household)[- ]level|cluster[- ]level (?:analys[ie]s|t[- ]tests?|comparisons?))(?![\p{L}])/giu;
 /** Words naming the tests or comparisons themselves ("All group comparisons", "t-tests were", "differences between the groups"). */
 const NAMES_TESTS = /(?<![\p{L}])(?:t[- ]tests?|(?:all|the|group|between-group|pairwise) (?:[\p{L}-]+ )?(?:comparisons|analyses|tests)|group (?:comparisons|differences)|differences between|comparisons between|(?:were|was) (?:compared|analy[sz]ed|tested))(?![\p{L}])/iu;
 /** Words saying the printed descriptives are themselves of the transformed values ("means and SDs of the log values are reported"). */

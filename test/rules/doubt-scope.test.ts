@@ -352,7 +352,11 @@ describe('a test of cluster means', () => {
   it('said without their number in the result\'s sentence ("on school means"), a note too; in another sentence, not', () => {
     const pupils = 'Pupils in intervention schools drank fewer sugary drinks (M = 4.1, SD = 2.6, n = 612) than pupils in control schools (M = 5.0, SD = 2.8, n = 598)';
     expect(of(`${pupils}; on school means, t(10) = -2.41, p = .037.`)).toEqual(['note']);
-    expect(of(`${pupils}; at the school level, t(10) = -2.41, p = .037.`)).toEqual(['note']);
+    expect(of(`${pupils}; analysed at the school level, t(10) = -2.41, p = .037.`)).toEqual(['note']);
+    // words that do not govern the test, or a df no test of a few clusters has (review)
+    expect(of(`${pupils}, t(10) = -2.41, p = .037, although school means varied widely.`)).toEqual(['warning']);
+    expect(of('Pupils in intervention schools, which were randomised at the school level, drank fewer sugary drinks (M = 4.1, SD = 2.6, n = 612) than pupils in control schools (M = 5.0, SD = 2.8, n = 598), t(1028) = -5.80, p < .001.')).toEqual(['warning']);
+    expect(of(`${pupils}, t(1028) = -5.80, p < .001, on school means.`)).toEqual(['warning']);
     expect(of(`School-level means are given in Table 3. ${pupils}, t(10) = -2.41, p = .037.`)).toEqual(['warning']);
   });
   it('a number of cluster means that is not df + 2 leaves the warning', () => {
