@@ -127,8 +127,10 @@ const MODEL_BASED = /(?<![\p{L}])(?:(?:linear |generali[sz]ed linear |generali[s
 const D_STANDARDISER = /(?<![\p{L}])(?:(?:standardi[sz]ed|divided|scaled) by|÷|\/) ?(?:the )?(?:pooled )?(?:(?:baseline|pre-?test|pre-?treatment|pre-?intervention|pre-?randomi[sz]ation|reference|population|normative) (?:SDs?|standard deviations?)|(?:SDs?|standard deviations?)(?: of(?: \p{L}{1,20}){1,4})? at (?:baseline|pre-?test|pre-?treatment))(?![\p{L}])/giu;
 /** Words of an effect size in the sentence of D_STANDARDISER: "effect size", "SMD", "Cohen's d", "d =", "d is" (not a bare "d", nor "14 d was", which are days). */
 const EFFECT_SIZE_WORDS = /(?<![\p{L}])(?:effect sizes?|standardi[sz]ed (?:mean )?differences?|SMDs?|Cohen['’]?s d|Hedges['’]? g|(?<!\d ?)[dg] ?(?:=|is|was)(?![\p{L}]))(?![\p{L}])/iu;
+/** Words of other studies than the report's own ("an earlier trial", "the pilot study", "et al."). */
+const OTHER_STUDY = /(?<![\p{L}])(?:(?:earlier|previous|prior|pilot|other|published) (?:trials?|stud(?:y|ies)|work|research|reports?|meta-analys[ie]s)|et al)(?![\p{L}])/iu;
 /** A sentence that plans the study (power, sample size) or speaks of other studies: its words define no effect size of this report. */
-const NOT_THIS_REPORTS = /(?<![\p{L}])(?:power(?:ed)?|sample size|to detect|(?:earlier|previous|prior|pilot|other|published) (?:trials?|stud(?:y|ies)|work|research|reports?|meta-analys[ie]s)|et al)(?![\p{L}])/iu;
+const NOT_THIS_REPORTS = new RegExp(String.raw`(?<![\p{L}])(?:power(?:ed)?|sample size|to detect)(?![\p{L}])|${OTHER_STUDY.source}`, 'iu');
 /**
  * Words saying a test compares cluster means without their number, in words that govern the test
  * ("on school means", "comparing school-level means", "analysed at the school level"; not "school
@@ -137,6 +139,30 @@ const NOT_THIS_REPORTS = /(?<![\p{L}])(?:power(?:ed)?|sample size|to detect|(?:e
  * src/extract/summaries.ts.)
  */
 const CLUSTER_MEANS_WORDS = /(?<![\p{L}\p{N}])(?:(?:on|comparing|compared|using|across|between) (?:the )?(?:school|ward|class|classroom|clinic|practice|site|cluster|village|team|hospital|home|district|community|household|farm|plot)(?:[- ]level)? (?:means|averages)|(?:means|averages) of (?:the )?(?:schools|wards|classes|classrooms|clinics|practices|sites|clusters|villages|teams|hospitals|homes|districts|communities|households|farms|plots)|(?:analy[sz]ed|analys[ie]s|compared|tested|tests?) at the (?:school|ward|class|classroom|clinic|practice|site|cluster|village|team|hospital|district|community|household)[- ]level|cluster[- ]level (?:analys[ie]s|t[- ]tests?|comparisons?))(?![\p{L}])/giu;
+/** The verb that ends a sentence's subject: "Fatigue was rated …", "CRP values were log-transformed". */
+const SUBJECT_END = /(?<![\p{L}])(?:was|were|is|are|has|have|had|been)(?![\p{L}])/iu;
+/** Words of a subject that name no measure by themselves ("Baseline scores", "All outcomes", "Secondary measures"). */
+const NO_MEASURE = new Set(['baseline', 'secondary', 'primary', 'total', 'mean', 'means', 'all', 'values', 'value', 'scores', 'score', 'data', 'outcome', 'outcomes', 'measure', 'measures', 'variable', 'variables', 'covariate', 'covariates', 'each', 'both']);
+/**
+ * The measure a sentence opens with, as the stems of its subject's content words up to its verb
+ * ("Blood glucose values were log-transformed": blood, gluco), less words that name no measure
+ * ("Baseline", "values"); undefined when the subject names none, or the sentence speaks of covariates (a statement about adjustment, not about the measure's
+ * own comparison).
+ */
+function measureOf(sentence: string): string[] | undefined {
+  if (/covariate/i.test(sentence)) return undefined;
+  const end = SUBJECT_END.exec(sentence);
+  if (!end) return undefined;
+  const words = topicWords(sentence.slice(0, end.index));
+  const measure = measureStems(words);
+  return measure.length > 0 && words.length <= 5 ? measure : undefined;
+}
+
+/** The stems of the words that name a measure, in order: less the words that name none ("Baseline", "scores"). */
+export function measureStems(words: readonly string[]): string[] {
+  return words.filter((w) => !NO_MEASURE.has(w.toLowerCase())).map(stem);
+}
+
 /** Words naming the tests or comparisons themselves ("All group comparisons", "t-tests were", "differences between the groups"). */
 const NAMES_TESTS = /(?<![\p{L}])(?:t[- ]tests?|(?:all|the|group|between-group|pairwise) (?:[\p{L}-]+ )?(?:comparisons|analyses|tests)|group (?:comparisons|differences)|differences between|comparisons between|(?:were|was) (?:compared|analy[sz]ed|tested))(?![\p{L}])/iu;
 /** Words saying the printed descriptives are themselves of the transformed values ("means and SDs of the log values are reported"). */
@@ -198,18 +224,28 @@ export function findMentions(seg: Segment, starts: number[]): Mention[] {
   // imputation was not used", "raw means rather than adjusted means")
   if (!REFERENCE_LIST.test(seg.section ?? '')) {
     for (const [re, kind] of [[CONTRAST, 'contrast'], [DERIVED_MEANS, 'derived-means'], [SEVERAL_STUDIES, 'several-studies'], [PART_OF_SAMPLE, 'part-of-sample'], [MANY_ARMS, 'many-arms'], [TRANSFORMED, 'transformed'], [EXACT_TEST, 'exact-test'], [MODEL_BASED, 'model-based']] as const) {
+      // what each sentence is about, read once per sentence and kind (a sentence of thousands of
+      // matches would otherwise be read again for each)
+      const readings = new Map<number, { about: boolean; measure: string[] | undefined }>();
       if (MAY[kind].test(text)) for (const m of matchesOf(re, text)) {
         if (deniedAt(text, m.index, m.index + m[0].length, starts)) continue;
-        // whether its sentence says what it is about: the tests or comparisons themselves ("All
-        // group comparisons were estimated by regression", "t-tests were performed on
-        // log-transformed values"), or, for an exact test, small counts or χ²
-        const [from, to] = sentenceBounds(starts, m.index, text.length);
-        const sentence = text.slice(from, to);
-        const about = kind === 'exact-test' ? FOR_COUNTS.test(sentence) : NAMES_TESTS.test(sentence) && !(kind === 'transformed' && DESCRIPTIVES_TRANSFORMED.test(sentence));
-        // the measure its sentence opens with ("Fatigue was rated weekly and analysed with a
-        // linear mixed model"): a result whose own words open with it is that measure's
-        const subject = (kind === 'transformed' || kind === 'model-based') && !about ? topicWords(sentence)[0] : undefined;
-        out.push({ kind, segment: seg.id, block: seg.block, sentence: sentenceOf(starts, m.index), span: sourceSpan(seg, m.index, m.index + m[0].length), printed: m[0], ...(about ? { aboutTests: true as const } : {}), ...(subject !== undefined ? { subject: stem(subject) } : {}) });
+        const i = sentenceOf(starts, m.index);
+        let reading = readings.get(i);
+        if (!reading) {
+          // whether its sentence says what it is about: the tests or comparisons themselves ("All
+          // group comparisons were estimated by regression", "t-tests were performed on
+          // log-transformed values"), or, for an exact test, small counts or χ²
+          const [from, to] = sentenceBounds(starts, m.index, text.length);
+          const sentence = text.slice(from, to);
+          // (not a sentence about another study: "… in the pilot study that preceded this trial")
+          const other = OTHER_STUDY.test(sentence);
+          const about = kind === 'exact-test' ? FOR_COUNTS.test(sentence) : !other && NAMES_TESTS.test(sentence) && !(kind === 'transformed' && DESCRIPTIVES_TRANSFORMED.test(sentence));
+          // the measure its sentence opens with ("Fatigue was rated weekly and analysed with a
+          // linear mixed model"): a result whose own words open with it is that measure's
+          reading = { about, measure: (kind === 'transformed' || kind === 'model-based') && !about && !other ? measureOf(sentence) : undefined };
+          readings.set(i, reading);
+        }
+        out.push({ kind, segment: seg.id, block: seg.block, sentence: i, span: sourceSpan(seg, m.index, m.index + m[0].length), printed: m[0], ...(reading.about ? { aboutTests: true as const } : {}), ...(reading.measure !== undefined ? { measure: reading.measure } : {}) });
       }
     }
   }

@@ -604,11 +604,11 @@ export interface Mention {
    */
   aboutTests?: true;
   /**
-   * For a transformation or a model said in a sentence not about the tests: the stem of the
-   * sentence's first content word, the measure it is said of ("CRP values were log-transformed",
-   * "Fatigue was … analysed with a linear mixed model").
+   * For a transformation or a model said in a sentence not about the tests: the stems of the
+   * measure it is said of, its subject up to its verb ("CRP values were log-transformed": crp;
+   * "Blood glucose was … analysed with a linear mixed model": blood, gluco).
    */
-  subject?: string;
+  measure?: string[];
 }
 
 /** What a test's name says: the design, Student's or Welch's, and whether it names several tests. */

@@ -11,7 +11,7 @@ import { contextJoiner, fGroupsJoiner, groupBy, spreadStatements } from './descr
 import { sentenceKey, sentenceKeyOf } from './clauses.js';
 import { testNames } from './testNames.js';
 import { OWN_P_LABEL_GAP } from '../extract/statements.js';
-import { stem } from '../extract/topic.js';
+import { measureStems } from '../extract/mentions.js';
 export type { TestName, TestNameBasis } from './testNames.js';
 
 /** Default alpha when nothing sets one: .05 (common practice, no source). */
@@ -309,11 +309,17 @@ function scopedMentionJoiner(extraction: Extraction, withStatistics: ReadonlySet
   const general = said.find((m) => m.aboutTests === true && apart(m));
   // or one said of a measure ("Fatigue was rated weekly and analysed with a linear mixed model"),
   // for a result whose own words open with that measure ("Fatigue was lower with …, t(91.4)")
-  const ofMeasure = new Map<string, Mention>();
-  for (const m of said) if (m.subject !== undefined && apart(m) && !ofMeasure.has(m.subject)) ofMeasure.set(m.subject, m);
+  // (by the measure's first stem; a result's lead must open with it and name every word of it:
+  // "Blood glucose" is not "Blood pressure")
+  const ofMeasure = groupBy(said.filter((m) => m.measure !== undefined && apart(m)), (m) => (m.measure as string[])[0]);
   const measureOf = (report: TTestReport) => {
-    const first = report.lead?.words[0];
-    return first !== undefined && ofMeasure.size > 0 ? ofMeasure.get(stem(first)) : undefined;
+    const words = report.lead?.words;
+    if (!words || words.length === 0 || ofMeasure.size === 0) return undefined;
+    const stems = measureStems(words);
+    const first = stems[0] === undefined ? undefined : ofMeasure.get(stems[0]);
+    if (!first) return undefined;
+    const lead = new Set(stems);
+    return first.find((m) => (m.measure as string[]).every((s) => lead.has(s)));
   };
   return (report) => bySentence.get(sentenceKey(report))?.[0] ?? (kind === 'model-based' ? undefined : bySegment.get(report.segment)?.[0]) ?? general ?? measureOf(report);
 }

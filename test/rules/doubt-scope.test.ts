@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { checkSource, type FileReport } from '../../src/engine/index.js';
 import { extract } from '../../src/extract/index.js';
 import { parseDocument } from '../../src/parse/index.js';
+import { expectLinearCheck } from '../helpers.js';
 
 /**
  * Words that only make a finding less certain are read within their scope, so that they hide no
@@ -300,6 +301,16 @@ describe('a model or a transformation said of a measure, for a result that opens
     expect(of(`## Methods\n\nIL-6 values were log-transformed before analysis.\n\n## Results\n\n${crp}`)).toEqual(['warning']);
     expect(of(`## Results\n\n${crp}\n\n## Discussion\n\nCRP was log-transformed in earlier cohorts.`)).toEqual(['warning']);
   });
+  it('the whole measure must be named, not its first word; covariates and other studies do not count (review)', () => {
+    // (128.4, 11.0, 48) against (134.1, 12.2, 47): t(93) = −2.39; (4.2, 1.9, 48) against (5.0, 2.1, 47): t(93) = −1.95 (scipy.stats.ttest_ind_from_stats)
+    expect(of('## Methods\n\nBlood glucose values were log-transformed before analysis.\n\n## Results\n\nBlood pressure was lower with the diet (M = 128.4, SD = 11.0, n = 48) than with usual care (M = 134.1, SD = 12.2, n = 47), t(93) = -3.41, p < .001.')).toEqual(['warning']);
+    expect(of('## Methods\n\nBaseline scores were entered as covariates in a linear regression model for each follow-up outcome.\n\n## Results\n\nBaseline anxiety did not differ between the groups (M = 4.2, SD = 1.9, n = 48 vs M = 5.0, SD = 2.1, n = 47), t(93) = -2.95, p = .004.')).toEqual(['warning']);
+    expect(of(`## Methods\n\nFatigue was analysed with a linear mixed model in the pilot study that preceded this trial; here, the two arms were compared with Student's t-test.\n\n## Results\n\n${fatigue.replace('t(91.4) = -2.26, p = .026', 't(93) = -2.95, p = .004')}`)).toEqual(['warning']);
+  });
+  it('each sentence is read once for its measure: thousands of matches in one sentence stay linear', () => {
+    const make = (n: number) => `## Methods\n\nFatigue item 0 was log-transformed${Array.from({ length: n }, (_, i) => `, item ${i + 1} was log-transformed`).join('')}.\n\n## Results\n\n${fatigue}\n`;
+    expectLinearCheck('log-transformed items in one sentence', make, 2000);
+  }, 120_000);
 });
 
 describe('a CI named as another kind than estimate ± t × SE', () => {
