@@ -1,4 +1,4 @@
-import { fill, numberInterval, repeatDoubt, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
+import { fill, groupBy, numberInterval, repeatDoubt, type LinkedResult, type Rule, type RuleFinding, NO_OPTIONS } from '../src/rule-api/index.js';
 
 const messages = {
   'numbers-differ': 'The abstract reports {first}, but the same comparison in "{section}" reads {second}.',
@@ -21,15 +21,19 @@ export const repeatedResultAgrees: Rule = {
     const inSummary = document.results.filter((r) => topics.get(r.report)?.inSummary === true);
     const elsewhere = document.results.filter((r) => topics.get(r.report)?.inSummary === false);
     const severalStudies = x.mentions.find((m) => m.kind === 'several-studies');
+    // the results elsewhere by their printed df, and the Welch ones by their df rounded (once:
+    // an abstract of many results would otherwise scan them all for each)
+    const byDf = groupBy(elsewhere.filter((b) => b.report.df !== undefined), (b) => b.report.df?.printed);
+    const welchByDf = groupBy(elsewhere.filter((b) => b.report.df !== undefined && !Number.isInteger(b.report.df.value)), (b) => Math.round(b.report.df?.value ?? NaN));
     for (const a of inSummary) {
       const df = a.report.df;
       if (!df) continue;
       // the candidates: the results elsewhere with the same df printed
-      const same = elsewhere.filter((b) => b.report.df?.printed === df.printed);
+      const same = byDf.get(df.printed) ?? [];
       // the abstract's numbers match one of them (either sign of t: the groups may be named the
       // other way round), or a Welch df that rounds to its whole one with t of the same sign:
       // nothing to say
-      const rounded = Number.isInteger(df.value) ? elsewhere.filter((b) => b.report.df !== undefined && !Number.isInteger(b.report.df.value) && Math.round(b.report.df.value) === df.value && Math.sign(b.report.t.value) === Math.sign(a.report.t.value)) : [];
+      const rounded = Number.isInteger(df.value) ? (welchByDf.get(df.value) ?? []).filter((b) => Math.sign(b.report.t.value) === Math.sign(a.report.t.value)) : [];
       if (same.some((b) => agrees(a, b)) || rounded.some((b) => agrees(a, b))) continue;
       const sameSign = same.filter((b) => Math.sign(b.report.t.value) === Math.sign(a.report.t.value));
       if (sameSign.length !== 1) continue; // none, or several candidates: which one is meant is a guess

@@ -219,7 +219,8 @@ export function timePoints(text: string): string[] {
     const number = printed !== undefined ? (/^\d/.test(printed) ? Number(printed) : NUMBER_WORDS.get(printed.toLowerCase())) : Number(after);
     const unit = (unitBefore ?? unitAfter ?? '').toLowerCase();
     if (number === undefined || unit === '') continue;
-    out.add(`${unit} ${number}`);
+    // a year is twelve months: "at one year" and "at 12 months" are one time point
+    out.add(unit === 'year' ? `month ${12 * number}` : `${unit} ${number}`);
   }
   return [...out];
 }
@@ -230,8 +231,16 @@ const SEXES: ReadonlyMap<string, string> = new Map([
   ...['men', 'man', 'male', 'males', 'boys', 'boy', 'fathers', 'father'].map((w): [string, string] => [w, 'male']),
 ]);
 
-/** The sexes a list of content words names. */
-const sexesOf = (words: readonly string[]): string[] => [...new Set(words.flatMap((w) => SEXES.get(w) ?? []))];
+/** Words naming an age group, and the group (common practice, no source). */
+const AGES: ReadonlyMap<string, string> = new Map([
+  ...['older', 'elderly', 'old'].map((w): [string, string] => [w, 'older']),
+  ...['younger', 'young'].map((w): [string, string] => [w, 'younger']),
+  ...['children', 'child', 'adolescents', 'adolescent', 'infants', 'infant', 'pupils'].map((w): [string, string] => [w, 'children']),
+  ...['adults', 'adult'].map((w): [string, string] => [w, 'adults']),
+]);
+
+/** The sexes and age groups a list of content words names. */
+const subgroupsOf = (words: readonly string[]): string[] => [...new Set(words.flatMap((w) => [SEXES.get(w), AGES.get(w)].filter((g): g is string => g !== undefined)))];
 
 /** "without dementia", "without prior surgery": the content word a "without" excludes. */
 const WITHOUT = /\bwithout (?:(?:a|an|any|the|prior|previous|known) )?(\p{L}[\p{L}'’-]{2,40})/giu;
@@ -249,18 +258,27 @@ export interface TestTopic {
   /**
    * Content words: for a test of an abstract, those of its own lead (else of its sentence up
    * to it); for another, those of its whole sentence (else of the sentence before, when its own
-   * has none: "The difference was significant, t(…)"), or of its table row's label and the
-   * table's caption.
+   * has none or points back to it: "This difference was significant, t(…)"), or of its table
+   * row's label and the table's caption.
    */
   words: string[];
   /** The words' stems (`stem`), each once. */
   stems: string[];
-  /** Time points in the same stretch of text (`timePoints`). */
+  /** Time points: an abstract's, in its words; another's, in its own clause (or the sentence it points back to), or its row and caption. */
   times: string[];
-  /** The sexes named there ("women", "boys": "female", "male"), each once. */
+  /** The sexes and age groups named there ("women": female; "older adults": older, adults), each once. */
   subgroups: string[];
   /** The words named after "without" there, lower case. */
   without: string[];
+}
+
+/** A sentence that opens by pointing back to the one before: "This difference was significant", "The effect …". */
+const POINTS_BACK = /^(?:This|That|These|Those|The|Such|Both) (?:\p{L}+ )?(?:differences?|effects?|changes?|comparisons?|gaps?|contrasts?|results?|improvements?|reductions?|increases?|decreases?)(?![\p{L}])/u;
+
+/** Two topics as one: the words, stems, time points, subgroups and excluded words of both. */
+function mergeTopics(a: Omit<TestTopic, 'test' | 'inSummary'>, b: Omit<TestTopic, 'test' | 'inSummary'>): Omit<TestTopic, 'test' | 'inSummary'> {
+  const union = (x: readonly string[], y: readonly string[]) => [...new Set([...x, ...y])];
+  return { words: union(a.words, b.words), stems: union(a.stems, b.stems), times: union(a.times, b.times), subgroups: union(a.subgroups, b.subgroups), without: union(a.without, b.without) };
 }
 
 /** How far back from its statistic an abstract's result is read for its words (characters). */
@@ -269,7 +287,18 @@ const LEAD_REACH = 400;
 /** The words, stems, time points, sexes and excluded words of a stretch of text. */
 function topicOf(stretch: string): Omit<TestTopic, 'test' | 'inSummary'> {
   const words = topicWords(stretch).filter((w) => !DIRECTION.has(w));
-  return { words, stems: [...new Set(words.map(stem))], times: timePoints(stretch), subgroups: sexesOf(words), without: [...new Set([...matchesOf(WITHOUT, stretch)].map((m) => (m[1] as string).toLowerCase()))] };
+  // a word after "without" that the stretch also names otherwise ("with and without dyslexia",
+  // "patients who exercised than … without exercise") is the comparison itself, not an exclusion
+  const excluded = [...matchesOf(WITHOUT, stretch)].map((m) => (m[1] as string).toLowerCase());
+  const count = (list: Iterable<string>) => {
+    const n = new Map<string, number>();
+    for (const w of list) n.set(stem(w), (n.get(stem(w)) ?? 0) + 1);
+    return n;
+  };
+  const afterWithout = count(excluded);
+  const named = excluded.length > 0 ? count([...matchesOf(WORD, stretch)].map((m) => m[0])) : afterWithout;
+  const without = [...new Set(excluded.filter((w) => (named.get(stem(w)) ?? 0) <= (afterWithout.get(stem(w)) ?? 0)))];
+  return { words, stems: [...new Set(words.map(stem))], times: timePoints(stretch), subgroups: subgroupsOf(words), without };
 }
 
 /**
@@ -294,6 +323,7 @@ export function findTopics(segments: readonly Segment[], tests: readonly TTestRe
   const captions = new Map<number, string>();
   for (const seg of segments) if (seg.legendOf?.role === 'caption' && !captions.has(seg.legendOf.table)) captions.set(seg.legendOf.table, seg.text);
   const bySentence = new Map<string, Omit<TestTopic, 'test' | 'inSummary'>>();
+  const captionTopics = new Map<number, Omit<TestTopic, 'test' | 'inSummary'>>();
   const out: TestTopic[] = [];
   for (const t of tests) {
     if (t.df === undefined) continue;
@@ -314,17 +344,32 @@ export function findTopics(segments: readonly Segment[], tests: readonly TTestRe
       out.push({ test: t, inSummary: true, ...topicOf(stretch) });
       continue;
     }
-    // the words of a sentence, read once for all its tests (a table row's are its own)
-    const key = seg.table ? undefined : `${seg.id}:${sentence}`;
-    let topic = key === undefined ? undefined : bySentence.get(key);
+    if (seg.table) {
+      // a table row: its label and cell, with its table's caption (read once per table)
+      const table = seg.table.table;
+      let caption = captionTopics.get(table);
+      if (!caption) {
+        caption = topicOf(captions.get(table) ?? '');
+        captionTopics.set(table, caption);
+      }
+      out.push({ test: t, inSummary: false, ...mergeTopics(topicOf(`${t.table?.rowLabel ?? ''}. ${seg.text.slice(from, to)}`), caption) });
+      continue;
+    }
+    // the words of a sentence, read once for all its tests; with the sentence before when it has
+    // none of its own or points back to it ("This difference was significant, t(…)")
+    const key = `${seg.id}:${sentence}`;
+    let topic = bySentence.get(key);
     if (!topic) {
       let stretch = seg.text.slice(from, to);
-      if (topicWords(stretch).length === 0 && sentence > 0) stretch = `${seg.text.slice(list[sentence - 1] as number, from)} ${stretch}`;
-      if (seg.table) stretch = `${t.table?.rowLabel ?? ''}. ${captions.get(seg.table.table) ?? ''}. ${stretch}`;
+      if (sentence > 0 && (topicWords(stretch).length === 0 || POINTS_BACK.test(stretch))) stretch = `${seg.text.slice(list[sentence - 1] as number, from)} ${stretch}`;
       topic = topicOf(stretch);
-      if (key !== undefined) bySentence.set(key, topic);
+      bySentence.set(key, topic);
     }
-    out.push({ test: t, inSummary: false, ...topic });
+    // its time points: those of its own clause (another clause may speak of another time: "…,
+    // t(98) = 2.58, having been similar at 6 months"), or of the sentence it points back to
+    const own = Math.max(leadStart(seg.text, Math.max(from, at - LEAD_REACH), at), at - LEAD_REACH);
+    const times = timePoints(seg.text.slice(own, Math.min(to, at + t.printed.length)));
+    out.push({ test: t, inSummary: false, ...topic, times: times.length > 0 || !POINTS_BACK.test(seg.text.slice(from, to)) ? times : topic.times });
   }
   return out;
 }

@@ -72,6 +72,32 @@ describe('the words around an abstract\'s result and the one with its df', () =>
   });
 });
 
+describe('the review\'s cases: true mismatches the words must not hide', () => {
+  // t(98) = 2.50: p = .014; 1.50: .137; 2.03: .045; 2.58: .011; t(58) = 3.10: .003; 2.10: .040 (scipy.stats.t.sf)
+  it('a control arm "without exercise", or groups "with and without dyslexia", is the comparison, not an exclusion', () => {
+    expect(of('## Abstract\n\nExercise reduced fatigue, t(98) = 2.50, p = .014.\n\n## Results\n\nFatigue was lower in patients who exercised than in patients without exercise, t(98) = 1.50, p = .137.')).toEqual(['warning']);
+    expect(of('## Abstract\n\nChildren with dyslexia read more slowly than children without dyslexia, t(58) = 3.10, p = .003.\n\n## Results\n\nReading speed was lower in children with dyslexia than in typical readers, t(58) = 2.10, p = .040.')).toEqual(['warning']);
+  });
+  it('a time point in another clause of the results sentence is not the result\'s', () => {
+    expect(of('## Abstract\n\nAt 12 months, craving was lower with counselling, t(98) = 2.03, p = .045.\n\n## Results\n\nCraving was lower with counselling at the final visit, t(98) = 2.58, p = .011, having been similar at 6 months.')).toEqual(['warning']);
+  });
+  it('"This difference …" is read with the sentence before it', () => {
+    expect(of('## Abstract\n\nExercise reduced fatigue, t(98) = 2.50, p = .014.\n\n## Results\n\nFatigue scores averaged 4.1 with exercise and 4.6 with usual care. This difference between the arms was statistically significant, t(98) = 1.50, p = .137.')).toEqual(['warning']);
+  });
+  it('near variants that are other comparisons: a year against months, older against younger adults', () => {
+    expect(of('## Abstract\n\nAt one year, craving was lower with counselling, t(98) = 2.03, p = .045.\n\n## Results\n\nAt 6 months, craving was lower with counselling, t(98) = 2.58, p = .011.')).toEqual(['note']);
+    expect(of('## Abstract\n\nIn older adults, training improved balance, t(78) = 2.20, p = .031.\n\n## Results\n\nIn younger adults, balance improved more with training, t(78) = 1.40, p = .166.')).toEqual(['note']);
+  });
+});
+
+describe('an abstract beside a long table with a long caption', () => {
+  // the caption's words are read once per table, not once per row
+  const make = (n: number) => `## Abstract\n\nNausea relief was greater with acupressure, t(58) = 2.50, p = .015.\n\n## Results\n\nTable 2. ${Array.from({ length: n }, (_, i) => `outcome${i} measured at visit ${(i % 9) + 1}`).join(' ')}.\n\n| Outcome | t | df | p |\n|---|---|---|---|\n${Array.from({ length: n }, (_, i) => `| Nausea item ${i} | 2.18 | 58 | .033 |`).join('\n')}\n`;
+  it('twice the rows and caption cost less than three times the time', () => {
+    expectLinearCheck('caption and rows', make, 1000);
+  }, 120_000);
+});
+
 describe('time points', () => {
   it('are read in digits, in words and as ordinals, with the unit before or after, and are not durations (common practice, no source)', () => {
     expect(timePoints('At 12 months and at the 6-month visit')).toEqual(['month 12', 'month 6']);
@@ -80,6 +106,8 @@ describe('time points', () => {
     // durations: the length of a study or a programme
     expect(timePoints('randomised for ten weeks (12 weeks in all) to a 12-week programme')).toEqual([]);
     expect(timePoints('at the 12-week follow-up, and the 6-month assessment')).toEqual(['week 12', 'month 6']);
+    // a year is twelve months
+    expect(timePoints('at one year and after 2 years')).toEqual(['month 12', 'month 24']);
   });
 });
 
