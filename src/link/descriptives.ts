@@ -546,9 +546,15 @@ function tableDescriptives(report: TTestReport, where: TableRow, t: Tables): { l
   // a table laid out one group per row, each row its own block ("Group | n | M (SD) | t | p"),
   // the test in the first group's row: the next row is the other group when it is one group
   // with no test of its own
-  const after = block && groups.length === 1 ? groupRowsAfter(block, t) : [];
+  // (not a row whose own test is one-sample: its df is its own n − 1), or in the last group's
+  // row, the row before it
+  const n = groups.length === 1 ? groups[0]?.n?.value : undefined;
+  const oneSample = n !== undefined && report.df !== undefined && report.df.value === n - 1;
+  const after = block && groups.length === 1 && !oneSample ? groupRowsAfter(block, t) : [];
+  const before = block && groups.length === 1 && !oneSample && after.length === 0 ? groupRowsBeside(block, t, -1) : [];
   if (after.length === 1) return { link: makeLink('table', [...groups, ...after], t.spreads, true) };
-  if (after.length > 1) return { unlinked: { reason: 'the test stands in the first of three or more group rows of its table, and which of them it compares is not said', span: report.span } };
+  if (before.length === 1) return { link: makeLink('table', [...before, ...groups], t.spreads, true) };
+  if (after.length > 1 || before.length > 1) return { unlinked: { reason: 'the test stands in one of three or more group rows of its table, and which of them it compares is not said', span: report.span } };
   if (groups.length === 2 || groups.length === 1) return { link: makeLink('table', groups, t.spreads, true) };
   if (groups.length > 2) return { unlinked: { reason: `${groups.length} groups in the table rows of this test`, span: report.span } };
   return {};
@@ -560,18 +566,30 @@ function tableDescriptives(report: TTestReport, where: TableRow, t: Tables): { l
  * the first group's row; more leave which of them it is compared with open.
  */
 function groupRowsAfter(block: TableBlockRecord, t: Tables): GroupSummary[] {
+  return groupRowsBeside(block, t, 1);
+}
+
+/**
+ * The group rows on one side of a block (`step` 1: after it, −1: before it), up to the next row
+ * that prints a test or is not one group alone, and never a row of the whole sample ("Total",
+ * "All", "Overall"), which is no group of a comparison. Two are enough to know the comparison is
+ * open.
+ */
+function groupRowsBeside(block: TableBlockRecord, t: Tables, step: 1 | -1): GroupSummary[] {
   const blocks = t.blocks.get(block.table) ?? [];
   const out: GroupSummary[] = [];
-  // two rows are enough to know the comparison is open
-  for (let row = block.lastRow + 1; out.length < 2; row += 1) {
-    const after = blockAt(blocks, row);
-    if (!after || after.firstRow !== row || after.lastRow !== row || t.testRows.has(`${block.table}:${row}`)) break;
-    const groups = blockGroups(after, t);
+  for (let row = step === 1 ? block.lastRow + 1 : block.firstRow - 1; out.length < 2 && row >= 0; row += step) {
+    const beside = blockAt(blocks, row);
+    if (!beside || beside.firstRow !== row || beside.lastRow !== row || t.testRows.has(`${block.table}:${row}`) || WHOLE_SAMPLE_ROW.test(beside.label)) break;
+    const groups = blockGroups(beside, t);
     if (groups.length !== 1) break;
     out.push(groups[0] as GroupSummary);
   }
   return out;
 }
+
+/** A table row of the whole sample: "Total", "All participants", "Overall", "Whole sample", "Combined". */
+const WHOLE_SAMPLE_ROW = /^(?:total|all|overall|whole|combined|both groups|full sample|entire sample)(?![\p{L}])/iu;
 
 function blockGroups(block: TableBlockRecord, t: Tables): GroupSummary[] {
   const out: GroupSummary[] = [];

@@ -32,7 +32,24 @@ describe('a test in the first of two group rows', () => {
   it('a third group row without a test leaves the comparison open', () => {
     const r = run(table('| Tutored | 40 | 31.2 (6.1) | 2.37 | .020 | 0.53 |\n| Not tutored | 41 | 27.9 (6.4) | | | |\n| Waiting list | 39 | 28.4 (6.0) | | | |'));
     expect(r.results[0]?.context.descriptives).toBeUndefined();
-    expect(r.results[0]?.context.unlinked).toContain('first of three or more group rows');
+    expect(r.results[0]?.context.unlinked).toContain('one of three or more group rows');
     expect(spoken(r)).toEqual([]);
+  });
+});
+
+describe('the review\'s cases', () => {
+  it('a "Total" row under the two groups is no third group: a t error is still a warning', () => {
+    const r = run(table('| Tutored | 40 | 31.2 (6.1) | 3.37 | .001 | 0.53 |\n| Not tutored | 41 | 27.9 (6.4) | | | |\n| Total | 81 | 29.5 (6.4) | | | |'));
+    expect(spoken(r)).toContain('t-follows-from-descriptives');
+  });
+  it('a one-sample row (its df its own n − 1) is not paired with the next row', () => {
+    const r = run('## Results\n\nTable 3. Score against the pass mark of 25 (one-sample t-tests)\n\n| Group | n | M (SD) | t | df | p |\n|---|---|---|---|---|---|\n| Tutored | 40 | 31.2 (6.1) | 6.43 | 39 | < .001 |\n| Not tutored | 41 | 27.9 (6.4) | — | — | — |');
+    expect(r.results[0]?.context.descriptives?.groups).toHaveLength(1);
+    expect(spoken(r)).not.toContain('df-follows-from-n');
+  });
+  it('a test in the last of two group rows compares it with the row before', () => {
+    const last = (t: string) => table(`| Tutored | 40 | 31.2 (6.1) | | | |\n| Not tutored | 41 | 27.9 (6.4) | ${t} | .020 | 0.53 |`);
+    expect(spoken(run(last('2.37')))).toEqual([]);
+    expect(spoken(run(last('3.37')))).toContain('t-follows-from-descriptives');
   });
 });
