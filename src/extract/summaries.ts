@@ -27,8 +27,12 @@ const SUFFIX = String.raw`(?:_\{[^{}\n]{1,30}\}|_[\p{L}\p{N}]{1,20}|\([\p{L}\p{N
 const START = String.raw`(?<![\p{L}\p{N}_])`;
 
 const MEAN = new RegExp(String.raw`${START}(?:M|Mean|mean|Avg|avg|Average|average)(?:${SUFFIX}|[A-Z]{2,20}) ?(?:=|:|of|was) ?${NUM}( ?%)?`, 'dgu');
-/** "SD of change 5.0", "SD of the differences = 3.1": the spread of change scores or differences. */
-const OF_CHANGE = String.raw`(?: (?:of|for) (?:the )?(?:changes?|change scores?|differences?|difference scores?))?`;
+/**
+ * "SD of change 5.0", "SD of change from baseline 5.0": the spread of a group's change scores (two
+ * groups' changes compared). Not "SD of the differences", the spread of a paired design's
+ * differences, which is no group of its own.
+ */
+const OF_CHANGE = String.raw`(?: (?:of|for) (?:the )?(?:changes?|change scores?)(?: from (?:baseline|pre-?test|pre-?treatment))?)?`;
 const SD = new RegExp(String.raw`${START}\{?(?:SD|sd|s\.d\.|S\.D\.|Std\.? ?Dev\.?|[Ss]tandard deviation)\}?${SUFFIX}${OF_CHANGE} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
 const SE = new RegExp(String.raw`${START}\{?(?:SEM|SE|s\.e\.m\.|s\.e\.|S\.E\.|[Ss]tandard error(?: of the mean)?)\}?${SUFFIX} ?(?:=|:|of|was)? ?${NUM}( ?%)?`, 'dgu');
 /** The sizes of two groups printed together: `n = 25 and 23`, `ns = 24 and 23`, `in 26 and 28 employees`, `n = 25 vs 23`. */

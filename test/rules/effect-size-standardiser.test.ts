@@ -21,6 +21,19 @@ describe('an SD of change', () => {
   });
 });
 
+describe('an SD of change from baseline, and an SD of the differences (review)', () => {
+  it('"SD of change from baseline" is the group\'s SD too', () => {
+    const r = run(`## Results\n\n${result.replace('SD of change 5.0', 'SD of change from baseline 5.0')}`);
+    expect(r.results[0]?.context.descriptives?.groups).toHaveLength(2);
+    expect(levels(r, 'df-follows-from-n')).toEqual([]);
+  });
+  it('"SD of the differences" of a paired design is no third group', () => {
+    // pre (20.1, 4.0) and post (22.3, 4.2), n = 30; 2.2 / (3.1 / √30) = 3.89, p < .001 (scipy.stats.t.sf)
+    const r = run('## Results\n\nScores rose from the pre-test (M = 20.1, SD = 4.0) to the post-test (M = 22.3, SD = 4.2), n = 30; the mean difference was 2.2 (SD of the differences = 3.1), t(29) = 3.89, p < .001.');
+    expect(levels(r, 'descriptives-link-is-unambiguous')).toEqual([]);
+  });
+});
+
 describe('a d standardised by another SD than the groups\'', () => {
   it('said in the Methods, makes the d finding a note that names the words', () => {
     const r = run(`## Methods\n\nEffect sizes were standardised by the pooled baseline SD (12.0 mg/dL).\n\n## Results\n\n${result}`);
