@@ -42,6 +42,8 @@ const PER_GROUP_AFTER = /^,? (?:each|per (?:group|arm|condition|cell|class|site)
 const PER_GROUP_BEFORE = /(?<![\p{L}])(?:groups|arms) of $/u;
 /** Words naming a reference a sample is compared with, at the end of a group's label ("than the published norm", "the population reference values"). */
 const REFERENCE_GROUP = /(?<![\p{L}])(?:published|reference|norms?|normative|population|national|benchmark|expected values?|pass mark|test value)(?: (?:\p{L}{2,15}))?$/iu;
+/** A number of pairs right before a count in brackets: "24 twin pairs (", "36 patient–carer dyads (", "60 couples (". */
+const PAIRS_BEFORE = /(?<![\p{L}\p{N}])\d{1,6} (?:[\p{L}–-]{1,30} ){0,2}(?:pairs|dyads|couples|twins) \($/u;
 /** A group's (or the total's) n right before a count, in its bracket ("(n = 30; 18 women)", "n = 30 (18 women)"): the count is part of it. */
 const GROUP_N_BEFORE = /(?<![\p{L}\p{N}])[nN] ?= ?\d{1,6}(?:[;,] ?| ?\()$/u;
 /** `n = 4 of whom`, `n = 6 of them`: a part of some group, not a group of the total. (`n = 21 of the
@@ -308,6 +310,9 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     if (!perGroup && otherKindIn(kindsOfSentence(m.index), m[2] as string)) continue;
     // "coaching (n = 30; 18 women)", "n = 30 (18 women)": how a group is made up, not a total
     if (!perGroup && GROUP_N_BEFORE.test(text.slice(Math.max(0, m.index - 24), m.index))) continue;
+    // "24 twin pairs (48 twins)", "60 couples (120 individuals)": the members of pairs, whose
+    // analysed units are the pairs (a paired test of them has the pairs' df)
+    if (!perGroup && PAIRS_BEFORE.test(text.slice(Math.max(0, m.index - 40), m.index))) continue;
     // "N = 60 staff" is one statement of the total, already read
     if (a && !sampleSizes.some((s) => s.n.span.start === a.span.start)) sampleSizes.push(Object.assign(where(m.index, end), { n: a, scope: perGroup ? ('per-group' as const) : ('total' as const) }));
   }

@@ -11,3 +11,9 @@ ruleTable('sample-size-agrees-with-df', [
   { name: 'the same count in digits, beside the N of another kind, accounts for it too', markdown: '## Abstract\n\nIn all, 12 wards with N = 240 patients took part.\n\n## Results\n\nSatisfaction was higher on huddle wards, t(10) = 2.50, p = .031.', expect: [] },
   { name: 'a count elsewhere that no test implies explains nothing: still a warning', markdown: '## Abstract\n\nTwelve wards with N = 240 patients took part.\n\n## Results\n\nSatisfaction was higher on huddle wards, t(60) = 2.10, p = .040.', expect: [{ at: 'N = 240', id: 'df-imply-other-n' }] },
 ]);
+
+// t(23) = 2.06: two-sided p = .051; t(59) = 3.17: p = .0024 (scipy.stats.t.sf). Pairs are the units of a within-pair t.
+ruleTable('sample-size-agrees-with-df', [
+  { name: 'the members of pairs in brackets ("24 monozygotic twin pairs (48 twins)") are no total against a within-pair df', markdown: '## Methods\n\nWe recruited 24 monozygotic twin pairs (48 twins) discordant for regular exercise. Within-pair differences were analysed with paired t-tests.\n\n## Results\n\nThe within-pair difference was −2.1 mmHg (SD 5.0), t(23) = −2.06, p = .051.', expect: [] },
+  { name: 'nor "60 couples (120 individuals)"', markdown: '## Methods\n\nWe enrolled 60 couples (120 individuals) and compared partners within couples.\n\n## Results\n\nWomen reported more household tasks than their partners, t(59) = 3.17, p = .002.', expect: [] },
+]);
