@@ -117,7 +117,7 @@ const EXACT_TEST = /(?<![\p{L}])(?:Fisher['’]?s?(?:[-–‐ ](?:Freeman[-–�
  * body-mass index", "controlling for"). Such a t need not follow from the groups' means and SDs,
  * and its df need not be n1 + n2 − 2.
  */
-const MODEL_BASED = /(?<![\p{L}])(?:(?:linear |generali[sz]ed linear |generali[sz]ed )?mixed[- ](?:effects? )?models?|multilevel models?|hierarchical (?:linear )?models?|random[- ](?:intercepts?|effects?)(?: models?)?|generali[sz]ed estimating equations?|GEE|(?:linear|multiple|multivariable|multivariate) regression|regression models?|regression|ANCOVA|analys[ie]s of covariance|adjust(?:ed|ing)? for (?!multiple|multiplicity)\p{L}+|controlling for \p{L}+|(?:covariate|baseline)[- ]adjusted|adjusted (?:difference|mean difference|analys[ie]s|models?|estimates?))(?![\p{L}])/giu;
+const MODEL_BASED = /(?<![\p{L}])(?:(?:linear |generali[sz]ed linear |generali[sz]ed )?mixed[- ](?:effects? )?models?|multilevel models?|hierarchical (?:linear )?models?|random[- ](?:intercepts?|effects?)(?: models?)?|generali[sz]ed estimating equations?|GEE|(?:linear|multiple|multivariable|multivariate) regression|regression models?|regression|ANCOVA|analys[ie]s of covariance|adjust(?:ed|ing|ment)? for (?!multiple|multiplicity)\p{L}+|controlling for \p{L}+|(?:covariate|baseline)[- ]adjusted|adjusted (?:difference|mean difference|analys[ie]s|models?|estimates?))(?![\p{L}])/giu;
 /**
  * Words saying an effect size is standardised by another SD than the groups' own: the pooled
  * baseline or pre-test SD, a reference or population SD ("Effect sizes were standardised by the

@@ -40,8 +40,8 @@ const N_PAIR = new RegExp(String.raw`${START}(?:[nN]s?|sample sizes?) ?(?:=|:|of
 const N = new RegExp(String.raw`${START}(?:(n|N)(?:_\{[^{}\n]{1,20}\}|_?[0-9]|_[\p{L}]{1,20})?|[Ss]ample size) ?(?:=|:) ?${INT}(?: (per (?:group|condition|arm|cell|site|class)|(?:in|to|for|into) each (?:group|condition|arm|cell|site|class)|each))?(?!\d|\.\d)`, 'dgu');
 const PER_GROUP_AFTER = /^,? (?:each|per (?:group|arm|condition|cell|class|site)|(?:in|to|for|into) each (?:group|arm|condition|cell|class|site))(?![\p{L}])/u;
 const PER_GROUP_BEFORE = /(?<![\p{L}])(?:groups|arms) of $/u;
-/** Words naming a reference a sample is compared with, at the end of a group's label ("than the published norm", "the population reference values"). */
-const REFERENCE_GROUP = /(?<![\p{L}])(?:published|reference|norms?|normative|population|national|benchmark|expected values?|pass mark|test value)(?: (?:\p{L}{2,15}))?$/iu;
+/** Words naming a reference a sample is compared with, near the end of a group's label ("than the published norm", "the published reference for women aged 70–79"; not "the reference group"). */
+const REFERENCE_GROUP = /(?<![\p{L}])(?:published|reference(?! (?:group|arm|condition|sample))|norms?|normative|population|national|benchmark|expected values?|pass mark|test value)(?![\p{L}])/iu;
 /** A number of pairs right before a count in brackets: "24 twin pairs (", "36 patient–carer dyads (", "60 couples (". */
 const PAIRS_BEFORE = /(?<![\p{L}\p{N}])\d{1,6} (?:[\p{L}–-]{1,30} ){0,2}(?:pairs|dyads|couples|twins) \($/u;
 /** A group's (or the total's) n right before a count, in its bracket ("(n = 30; 18 women)", "n = 30 (18 women)"): the count is part of it. */
@@ -330,7 +330,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
 
   const summaries = groupTokens(seg, tokens, sentenceStarts);
   // "than the published reference (M = 21.5, SD = 7.0)": a reference a sample is tested against
-  for (const s of summaries) if (s.label !== undefined && REFERENCE_GROUP.test(s.label.slice(-40))) s.asReference = true;
+  for (const s of summaries) if (s.label !== undefined && REFERENCE_GROUP.test(s.label.slice(-60))) s.asReference = true;
   // "33.88% of the time (SD = 31%)": a bare number just before a lone spread is its mean;
   // so is a decimal number followed only by words, as its unit and a short phrase ("saved
   // 20.43 keywords across their lists (N=14, SD=7.33)"), when no value sign precedes it.

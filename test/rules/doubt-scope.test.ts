@@ -320,6 +320,10 @@ describe('a CI named as another kind than estimate ± t × SE', () => {
   it('"bootstrap 95% CI" makes the finding a note', () => {
     expect(of('Mean cost was 1240 (SD 410, n = 45) for day surgery and 1480 (SD 520, n = 44) for inpatient surgery, t(87) = -2.42, p = .018; difference -240 (bootstrap 95% CI -452 to -61).')).toEqual(['note']);
   });
+  it('"after adjustment for baseline" in its sentence: the interval may be of an adjusted difference (a note)', () => {
+    // (27.4, 6.2, 55) against (26.1, 6.5, 54): Student's t(107) = 1.07, p = .288 (scipy.stats.ttest_ind_from_stats)
+    expect(of('Grip strength was 27.4 kg (SD 6.2, n = 55) with vitamin D and 26.1 kg (SD 6.5, n = 54) with placebo, t(107) = 1.07, p = .288; after adjustment for baseline, the difference was 1.9 kg (95% CI 0.4 to 3.4).')).toEqual(['note']);
+  });
   it('a plain 95% CI is still checked', () => {
     expect(of('Mean cost was 1240 (SD 410, n = 45) for day surgery and 1480 (SD 520, n = 44) for inpatient surgery, t(87) = -2.42, p = .018; difference -240 (95% CI -452 to -61).')).toEqual(['warning']);
   });

@@ -23,6 +23,9 @@ describe('a group not named as a reference (review)', () => {
     expect(levels(run(control), 't-follows-from-descriptives')).toEqual(['warning']);
     expect(levels(run(control.replace('## Results\n\n', '## Results\n\nGrip strength was compared between the two independent groups with an independent-samples t-test. ')), 't-follows-from-descriptives')).toEqual(['warning']);
   });
+  it('a reference named before words that qualify it ("the published reference for women aged 70–79")', () => {
+    expect(levels(run('## Results\n\nGrip strength in our sample (M = 16.8 kg, SD = 3.1, n = 40) was lower than the published reference for women aged 70–79 (M = 21.5 kg, SD = 7.0), t(39) = -9.59, p < .001.'), 't-follows-from-descriptives')).toEqual([]);
+  });
   it('a published norm printed with its own N is a reference: its df is the sample\'s n − 1', () => {
     const r = run('## Results\n\nGrip strength in our sample (M = 16.8 kg, SD = 3.1, n = 40) was lower than the published norm (M = 21.5 kg, SD = 7.0, N = 1200), t(39) = -9.59, p < .001.');
     expect(r.findings.filter((f) => f.level !== 'note')).toEqual([]);
