@@ -328,7 +328,9 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
   }
   tokens.sort((x, y) => x.start - y.start);
 
-  const summaries = groupTokens(seg, tokens, sentenceStarts);
+  // "12.0/10.2 (SD 3.0/3.3; n = 30/30)", "M = 6.8 vs 5.6; SD = 2.2 vs 2.4": two groups' values
+  // printed in pairs under one label, which the reader would take as one group's; not read
+  const summaries = /\/|vs|versus/.test(text) ? groupTokens(seg, tokens, sentenceStarts).filter((g) => !printedInPairs(seg, g)) : groupTokens(seg, tokens, sentenceStarts);
   // "than the published reference (M = 21.5, SD = 7.0)": a reference a sample is tested against
   for (const s of summaries) if (s.label !== undefined && REFERENCE_GROUP.test(s.label.slice(-60))) s.asReference = true;
   // "33.88% of the time (SD = 31%)": a bare number just before a lone spread is its mean;
@@ -699,6 +701,24 @@ const ascending = new WeakMap<Segment, boolean>();
  * segment's map is in source order (as the parse layer builds it), so a paragraph of thousands
  * of groups is not scanned once per group; a scan otherwise, with the same answer.
  */
+/**
+ * A number printed in a pair: "10.2" in "12.0/10.2", "3.0" in "3.0/3.3", "6.8" in "M = 6.8 vs
+ * 5.6;" (a bare value after "vs", not a group's own numbers: "10.96 ± 0.99 vs 12.48 ± 0.69").
+ */
+const PAIRED_AFTER = /^(?: ?\/ ?[-−]?\.?\d| (?:vs\.?|versus) [-−]?\.?\d[\d.,]*(?=[;)]|, |$))/u;
+const PAIRED_BEFORE = /\d ?\/ ?$/u;
+
+/** Whether any of a group's printed numbers (mean, spread, n) is one of a pair of values. */
+function printedInPairs(seg: Segment, g: GroupSummary): boolean {
+  for (const n of [g.mean, g.spread?.number, g.n]) {
+    if (!n) continue;
+    const from = indexOfSource(seg, n.span.start);
+    const to = indexOfSource(seg, n.span.end);
+    if (PAIRED_AFTER.test(seg.text.slice(to, to + 12)) || PAIRED_BEFORE.test(seg.text.slice(Math.max(0, from - 10), from))) return true;
+  }
+  return false;
+}
+
 function indexOfSource(seg: Segment, offset: number): number {
   const starts = seg.starts;
   let sorted = ascending.get(seg);
