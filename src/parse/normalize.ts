@@ -53,6 +53,9 @@ const REWRITES: Rewrite[] = [
   { pattern: /[\u200B-\u200D\u2060\u00AD]/g, replace: () => [] },
   { pattern: INVISIBLE, replace: () => [] },
   { pattern: LOOSE_MARKS, replace: () => [] },
+  // a thin, narrow no-break or no-break space between digit groups is a thousands separator
+  // ("2 391", "n = 1 204", SI and journal style): the number is read whole
+  { pattern: /(?<=(?<![0-9.,])[0-9]{1,3})[\u00A0\u2009\u202F](?=[0-9]{3}(?![0-9]))/g, replace: () => [] },
   { pattern: /[\u00A0\u2000-\u200A\u202F\u205F\u3000\t]/g, replace: whole(' ') },
   { pattern: /\r\n?|\n/g, replace: whole(' ') },
   { pattern: /\\(?:textit|emph|textbf|textsl|mathit|mathrm|mathbf|mathnormal|textrm|text|mbox)\{([^{}\n]{0,80})\}/dg, replace: keepGroup1 },
