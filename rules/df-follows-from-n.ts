@@ -67,7 +67,7 @@ export const dfFollowsFromN: Rule = {
       const [dfLow, dfHigh] = dfInterval(r.df);
       // a sample tested against a reference printed with its own N ("the published norm (M = 21.5,
       // SD = 7.0, N = 1200)"): a one-sample test, whose df is the sample's n − 1
-      if (link.groups.length === 2 && link.groups.some((g) => g.asReference) && link.groups.some((g) => !g.asReference && g.n !== undefined && g.n.value - 1 === df)) continue;
+      if (link.groups.length === 2 && inferDesign(result) !== 'independent' && link.groups.some((g) => g.asReference) && link.groups.some((g) => !g.asReference && g.n !== undefined && g.n.value - 1 === df)) continue;
       // sizes said to be those randomised ("randomised n = 32") need not be those analysed
       const assigned = link.groups.find((g) => g.nAssigned);
       // a test of cluster means ("comparing the 12 school means, t(10)") counts the clusters

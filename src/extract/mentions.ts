@@ -124,7 +124,7 @@ const MODEL_BASED = /(?<![\p{L}])(?:(?:linear |generali[sz]ed linear |generali[s
  * pooled baseline SD", "d = difference in change ÷ pooled baseline SD"). Such a d does not follow
  * from the t or the SDs printed beside it. (The control group's SD, Glass's Δ, is computed.)
  */
-const D_STANDARDISER = /(?<![\p{L}])(?:(?:standardi[sz]ed|divided|scaled) by|÷|\/) ?(?:the )?(?:pooled )?(?:(?:baseline|pre-?test|pre-?treatment|pre-?intervention|pre-?randomi[sz]ation|reference|population|normative) (?:SDs?|standard deviations?)|(?:SDs?|standard deviations?)(?: of(?: \p{L}{1,20}){1,4})? at (?:baseline|pre-?test|pre-?treatment))(?![\p{L}])/giu;
+const D_STANDARDISER = /(?<![\p{L}])(?:(?:standardi[sz]ed|divided|scaled) by|(?:computed|calculated|estimated|derived|expressed) (?:using|with|from|relative to)|÷|\/) ?(?:the )?(?:pooled )?(?:(?:baseline|pre-?test|pre-?treatment|pre-?intervention|pre-?randomi[sz]ation|reference|population|normative) (?:SDs?|standard deviations?)|(?:SDs?|standard deviations?)(?: of(?: \p{L}{1,20}){1,4})? at (?:baseline|pre-?test|pre-?treatment))(?![\p{L}])/giu;
 /** Words of an effect size in the sentence of D_STANDARDISER: "effect size", "SMD", "Cohen's d", "d =", "d is" (not a bare "d", nor "14 d was", which are days). */
 const EFFECT_SIZE_WORDS = /(?<![\p{L}])(?:effect sizes?|standardi[sz]ed (?:mean )?differences?|SMDs?|Cohen['’]?s d|Hedges['’]? g|(?<!\d ?)[dg] ?(?:=|is|was)(?![\p{L}]))(?![\p{L}])/iu;
 /** Words of other studies than the report's own ("an earlier trial", "the pilot study", "et al."). */

@@ -40,10 +40,10 @@ const N_PAIR = new RegExp(String.raw`${START}(?:[nN]s?|sample sizes?) ?(?:=|:|of
 const N = new RegExp(String.raw`${START}(?:(n|N)(?:_\{[^{}\n]{1,20}\}|_?[0-9]|_[\p{L}]{1,20})?|[Ss]ample size) ?(?:=|:) ?${INT}(?: (per (?:group|condition|arm|cell|site|class)|(?:in|to|for|into) each (?:group|condition|arm|cell|site|class)|each))?(?!\d|\.\d)`, 'dgu');
 const PER_GROUP_AFTER = /^,? (?:each|per (?:group|arm|condition|cell|class|site)|(?:in|to|for|into) each (?:group|arm|condition|cell|class|site))(?![\p{L}])/u;
 const PER_GROUP_BEFORE = /(?<![\p{L}])(?:groups|arms) of $/u;
-/** Words naming a reference a sample is compared with, near the end of a group's label ("than the published norm", "the published reference for women aged 70–79"; not "the reference group"). */
-const REFERENCE_GROUP = /(?<![\p{L}])(?:published|reference(?! (?:group|arm|condition|sample))|norms?|normative|population|national|benchmark|expected values?|pass mark|test value)(?![\p{L}])/iu;
+/** Words naming a reference a sample is compared with, near the end of a group's label ("than the published norm", "the published reference for women aged 70–79", "population norms"; not "the reference group", "population controls"). */
+const REFERENCE_GROUP = /(?<![\p{L}])(?:published|reference(?! (?:group|arm|condition|sample))|norms?|normative|(?:population|national) (?:norms?|means?|averages?|values|reference)|benchmark|expected values?|pass mark|test value)(?![\p{L}])/iu;
 /** A number of pairs right before a count in brackets: "24 twin pairs (", "36 patient–carer dyads (", "60 couples (". */
-const PAIRS_BEFORE = /(?<![\p{L}\p{N}])\d{1,6} (?:[\p{L}–-]{1,30} ){0,2}(?:pairs|dyads|couples|twins) \($/u;
+const PAIRS_BEFORE = /(?<![\p{L}\p{N}])(\d{1,6}) (?:[\p{L}–-]{1,30} ){0,2}(?:pairs|dyads|couples|twins) \($/u;
 /** A group's (or the total's) n right before a count, in its bracket ("(n = 30; 18 women)", "n = 30 (18 women)"): the count is part of it. */
 const GROUP_N_BEFORE = /(?<![\p{L}\p{N}])[nN] ?= ?\d{1,6}(?:[;,] ?| ?\()$/u;
 /** `n = 4 of whom`, `n = 6 of them`: a part of some group, not a group of the total. (`n = 21 of the
@@ -311,8 +311,16 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     // "coaching (n = 30; 18 women)", "n = 30 (18 women)": how a group is made up, not a total
     if (!perGroup && GROUP_N_BEFORE.test(text.slice(Math.max(0, m.index - 24), m.index))) continue;
     // "24 twin pairs (48 twins)", "60 couples (120 individuals)": the members of pairs, whose
-    // analysed units are the pairs (a paired test of them has the pairs' df)
-    if (!perGroup && PAIRS_BEFORE.test(text.slice(Math.max(0, m.index - 40), m.index))) continue;
+    // analysed units are the pairs (a paired test of them has the pairs' df): the total is the
+    // number of pairs
+    const reach = Math.max(0, m.index - 40);
+    const pairs = perGroup ? null : PAIRS_BEFORE.exec(text.slice(reach, m.index));
+    if (pairs) {
+      const at = reach + pairs.index;
+      const count = readNumber(seg, at, at + (pairs[1] as string).length);
+      if (count && !sampleSizes.some((x) => x.n.span.start === count.span.start)) sampleSizes.push(Object.assign(where(at, m.index - 2), { n: count, scope: 'total' as const }));
+      continue;
+    }
     // "N = 60 staff" is one statement of the total, already read
     if (a && !sampleSizes.some((s) => s.n.span.start === a.span.start)) sampleSizes.push(Object.assign(where(m.index, end), { n: a, scope: perGroup ? ('per-group' as const) : ('total' as const) }));
   }
@@ -697,28 +705,34 @@ function occasionOf(label: string | undefined, following: string): string | unde
 const ascending = new WeakMap<Segment, boolean>();
 
 /**
- * The first text index whose source start is at or after `offset`. A binary search when the
- * segment's map is in source order (as the parse layer builds it), so a paragraph of thousands
- * of groups is not scanned once per group; a scan otherwise, with the same answer.
- */
-/**
  * A number printed in a pair: "10.2" in "12.0/10.2", "3.0" in "3.0/3.3", "6.8" in "M = 6.8 vs
  * 5.6;" (a bare value after "vs", not a group's own numbers: "10.96 ± 0.99 vs 12.48 ± 0.69").
  */
 const PAIRED_AFTER = /^(?: ?\/ ?[-−]?\.?\d| (?:vs\.?|versus) [-−]?\.?\d[\d.,]*(?=[;)]|, |$))/u;
 const PAIRED_BEFORE = /\d ?\/ ?$/u;
 
-/** Whether any of a group's printed numbers (mean, spread, n) is one of a pair of values. */
+/**
+ * Whether two or more of a group's printed numbers (mean, spread, n) are each one of a pair of
+ * values: one alone may be a scale's maximum ("M = 4.1/5") or those analysed of those randomised
+ * ("n = 28/30").
+ */
 function printedInPairs(seg: Segment, g: GroupSummary): boolean {
+  let paired = 0;
   for (const n of [g.mean, g.spread?.number, g.n]) {
     if (!n) continue;
     const from = indexOfSource(seg, n.span.start);
     const to = indexOfSource(seg, n.span.end);
-    if (PAIRED_AFTER.test(seg.text.slice(to, to + 12)) || PAIRED_BEFORE.test(seg.text.slice(Math.max(0, from - 10), from))) return true;
+    if (PAIRED_AFTER.test(seg.text.slice(to, to + 12)) || PAIRED_BEFORE.test(seg.text.slice(Math.max(0, from - 10), from))) paired += 1;
   }
-  return false;
+  return paired >= 2;
 }
 
+
+/**
+ * The first text index whose source start is at or after `offset`. A binary search when the
+ * segment's map is in source order (as the parse layer builds it), so a paragraph of thousands
+ * of groups is not scanned once per group; a scan otherwise, with the same answer.
+ */
 function indexOfSource(seg: Segment, offset: number): number {
   const starts = seg.starts;
   let sorted = ascending.get(seg);

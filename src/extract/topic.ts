@@ -227,16 +227,16 @@ export function timePoints(text: string): string[] {
 
 /** Words naming a sex, and the sex (common practice, no source). */
 const SEXES: ReadonlyMap<string, string> = new Map([
-  ...['women', 'woman', 'female', 'females', 'girls', 'girl', 'mothers', 'mother'].map((w): [string, string] => [w, 'female']),
-  ...['men', 'man', 'male', 'males', 'boys', 'boy', 'fathers', 'father'].map((w): [string, string] => [w, 'male']),
+  ...['women', 'woman', 'female', 'females', 'girls', 'girl', 'mothers', 'mother'].map((w): [string, string] => [w, 'sex:female']),
+  ...['men', 'man', 'male', 'males', 'boys', 'boy', 'fathers', 'father'].map((w): [string, string] => [w, 'sex:male']),
 ]);
 
 /** Words naming an age group, and the group (common practice, no source). */
 const AGES: ReadonlyMap<string, string> = new Map([
-  ...['older', 'elderly', 'old'].map((w): [string, string] => [w, 'older']),
-  ...['younger', 'young'].map((w): [string, string] => [w, 'younger']),
-  ...['children', 'child', 'adolescents', 'adolescent', 'infants', 'infant', 'pupils'].map((w): [string, string] => [w, 'children']),
-  ...['adults', 'adult'].map((w): [string, string] => [w, 'adults']),
+  ...['older', 'elderly', 'old'].map((w): [string, string] => [w, 'age:older']),
+  ...['younger', 'young'].map((w): [string, string] => [w, 'age:younger']),
+  ...['children', 'child', 'adolescents', 'adolescent', 'infants', 'infant', 'pupils'].map((w): [string, string] => [w, 'stage:children']),
+  ...['adults', 'adult'].map((w): [string, string] => [w, 'stage:adults']),
 ]);
 
 /** The sexes and age groups a list of content words names. */
@@ -266,7 +266,7 @@ export interface TestTopic {
   stems: string[];
   /** Time points: an abstract's, in its words; another's, in its own clause (or the sentence it points back to), or its row and caption. */
   times: string[];
-  /** The sexes and age groups named there ("women": female; "older adults": older, adults), each once. */
+  /** The sexes and age groups named there, each with its dimension ("women": sex:female; "older adults": age:older, stage:adults), each once. */
   subgroups: string[];
   /** The words named after "without" there, lower case. */
   without: string[];
@@ -274,6 +274,9 @@ export interface TestTopic {
 
 /** A sentence that opens by pointing back to the one before: "This difference was significant", "The effect …". */
 const POINTS_BACK = /^(?:This|That|These|Those|The|Such|Both) (?:\p{L}+ )?(?:differences?|effects?|changes?|comparisons?|gaps?|contrasts?|results?|improvements?|reductions?|increases?|decreases?)(?![\p{L}])/u;
+
+/** A clause that opens by pointing back to the words before it: "and this difference was significant". */
+const CLAUSE_POINTS_BACK = /^(?:and |but |yet )?(?:this|that|these|the) (?:\p{L}+ )?(?:differences?|effects?|changes?|gaps?|contrasts?)(?![\p{L}])/iu;
 
 /** Two topics as one: the words, stems, time points, subgroups and excluded words of both. */
 function mergeTopics(a: Omit<TestTopic, 'test' | 'inSummary'>, b: Omit<TestTopic, 'test' | 'inSummary'>): Omit<TestTopic, 'test' | 'inSummary'> {
@@ -369,7 +372,9 @@ export function findTopics(segments: readonly Segment[], tests: readonly TTestRe
     // t(98) = 2.58, having been similar at 6 months"), or of the sentence it points back to
     const own = Math.max(leadStart(seg.text, Math.max(from, at - LEAD_REACH), at), at - LEAD_REACH);
     const times = timePoints(seg.text.slice(own, Math.min(to, at + t.printed.length)));
-    out.push({ test: t, inSummary: false, ...topic, times: times.length > 0 || !POINTS_BACK.test(seg.text.slice(from, to)) ? times : topic.times });
+    // (a clause that points back, "…, and this difference was significant, t(98)", takes the sentence's)
+    const pointsBack = POINTS_BACK.test(seg.text.slice(from, to)) || CLAUSE_POINTS_BACK.test(seg.text.slice(own, at));
+    out.push({ test: t, inSummary: false, ...topic, times: times.length > 0 || !pointsBack ? times : timePoints(seg.text.slice(from, Math.min(to, at + t.printed.length))).concat(topic.times) });
   }
   return out;
 }

@@ -361,7 +361,7 @@ export interface GroupSummary {
   table?: TableRow;
   /** Prose: the stems of the content words from its sentence's start to its end (src/extract/topic.ts). */
   topic?: string[];
-  /** Its label ends in words of a reference a sample is tested against ("than the published norm", "the population reference"). */
+  /** Its label's last words name a reference a sample is tested against ("than the published norm", "the published reference for women aged 70–79"). */
   asReference?: true;
   /** Prose: the first words of its paragraph that name an analysis other than a one-way ANOVA ("adjusted for age"). */
   paragraphAnalysisWords?: string;

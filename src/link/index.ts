@@ -314,7 +314,8 @@ function scopedMentionJoiner(extraction: Extraction, withStatistics: ReadonlySet
   const ofMeasure = groupBy(said.filter((m) => m.measure !== undefined && apart(m)), (m) => (m.measure as string[])[0]);
   const measureOf = (report: TTestReport) => {
     const words = report.lead?.words;
-    if (!words || words.length === 0 || ofMeasure.size === 0) return undefined;
+    // (a comparison at baseline is not the analysis of the outcome's follow-up)
+    if (!words || words.length === 0 || ofMeasure.size === 0 || words.some((w) => w.toLowerCase() === 'baseline')) return undefined;
     const stems = measureStems(words);
     const first = stems[0] === undefined ? undefined : ofMeasure.get(stems[0]);
     if (!first) return undefined;

@@ -25,9 +25,15 @@ export function repeatDoubt(summary: TestTopic | undefined, other: TestTopic | u
   }
   const clash = timeClash(summary.times, other.times);
   if (clash !== undefined) return `the abstract's result is at ${clash[0].join(', ')} and the one with its df in "${section}" at ${clash[1].join(', ')}`;
-  const groups = summary.subgroups.filter((g) => !other.subgroups.includes(g));
-  if (groups.length > 0 && other.subgroups.some((g) => !summary.subgroups.includes(g))) {
-    return `the abstract's result is of ${groups.join(', ')} and the one with its df in "${section}" of ${other.subgroups.join(', ')}`;
+  // subgroups clash within one dimension (sex, age, life stage): "women" against "men"; not
+  // "adolescents" against "young people"
+  const dimension = (g: string) => g.slice(0, g.indexOf(':'));
+  const label = (g: string) => g.slice(g.indexOf(':') + 1);
+  for (const g of summary.subgroups) {
+    const theirs = other.subgroups.filter((o) => dimension(o) === dimension(g));
+    if (theirs.length > 0 && !theirs.includes(g) && !summary.subgroups.some((x) => theirs.includes(x))) {
+      return `the abstract's result is of ${label(g)} participants and the one with its df in "${section}" of ${theirs.map(label).join(', ')}`;
+    }
   }
   const excluded = excludedIn(summary, other) ?? excludedIn(other, summary);
   if (excluded !== undefined) return `"${excluded.word}" is named beside one of the abstract's result and the one with its df in "${section}", and excluded ("without ${excluded.without}") beside the other`;

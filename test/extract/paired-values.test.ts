@@ -22,6 +22,9 @@ describe('values printed in pairs', () => {
     expect(spoken(slash)).toEqual([]);
     expect(spoken(vs)).toEqual([]);
   });
+  it('one number so printed is not a pair: "M = 4.1/5" is a rating out of 5 (second review)', () => {
+    expect(summaries('Satisfaction was higher with the app (M = 4.1/5, SD = 0.6, n = 30) than with the leaflet (M = 3.6/5, SD = 0.7, n = 30), t(58) = 5.10, p < .001.')).toHaveLength(2);
+  });
   it('two whole groups joined by "vs" are still two groups', () => {
     expect(summaries('Earthworm count was higher with bark: 10.96 ± 0.99 vs 12.48 ± 0.69 (n = 23 plots); t22 = 1.51, P = 0.145.')).toHaveLength(2);
   });

@@ -63,6 +63,9 @@ describe('words that define no standardiser of this report\'s d (review)', () =>
       'The sample size was based on an earlier trial that reported effect sizes standardised by the pooled baseline SD (d = 0.75).',
     ]) expect(levels(run(`## Methods\n\n${methods}\n\n## Results\n\n${memory}`), 'effect-size-follows'), methods).toEqual(['warning']);
   });
+  it('"Cohen\'s d was computed using the pooled baseline SD" is a standardiser (second review)', () => {
+    expect(levels(run(`## Methods\n\nCohen's d was computed using the pooled baseline SD of the two arms.\n\n## Results\n\n${result}`), 'effect-size-follows')).toEqual(['note']);
+  });
   it('"divided by the SD of all participants at baseline" is a standardiser too', () => {
     expect(levels(run(`## Methods\n\nEffect sizes were computed as the difference in change divided by the SD of all participants at baseline (12.0 mg/dL).\n\n## Results\n\n${result}`), 'effect-size-follows')).toEqual(['note']);
   });

@@ -26,6 +26,10 @@ describe('a group not named as a reference (review)', () => {
   it('a reference named before words that qualify it ("the published reference for women aged 70–79")', () => {
     expect(levels(run('## Results\n\nGrip strength in our sample (M = 16.8 kg, SD = 3.1, n = 40) was lower than the published reference for women aged 70–79 (M = 21.5 kg, SD = 7.0), t(39) = -9.59, p < .001.'), 't-follows-from-descriptives')).toEqual([]);
   });
+  it('controls "drawn from the national registry" are a control group, not a reference (second review)', () => {
+    const r = run('## Results\n\nPatients had lower grip strength (M = 16.8, SD = 3.1, n = 40) than controls drawn from the national registry (M = 21.5, SD = 7.0, n = 55), t(39) = -9.59, p < .001.');
+    expect(levels(r, 't-follows-from-descriptives')).toEqual(['warning']);
+  });
   it('a published norm printed with its own N is a reference: its df is the sample\'s n − 1', () => {
     const r = run('## Results\n\nGrip strength in our sample (M = 16.8 kg, SD = 3.1, n = 40) was lower than the published norm (M = 21.5 kg, SD = 7.0, N = 1200), t(39) = -9.59, p < .001.');
     expect(r.findings.filter((f) => f.level !== 'note')).toEqual([]);

@@ -90,6 +90,16 @@ describe('the review\'s cases: true mismatches the words must not hide', () => {
   });
 });
 
+describe('the second review\'s cases', () => {
+  // t(118) = 2.40: p = .018; 2.04: .043; t(98) = 2.85: p = .005; 2.58: .011 (scipy.stats.t.sf)
+  it('age words of different kinds ("Adolescents", "Young people") do not clash', () => {
+    expect(of('## Abstract\n\nAdolescents who used the app reported less loneliness than controls, t(118) = 2.40, p = .018.\n\n## Results\n\nYoung people who used the app reported less loneliness than controls (M = 20.1, SD = 5.0, n = 60 and M = 22.0, SD = 5.2, n = 60), t(118) = 2.04, p = .043.')).toEqual(['warning']);
+  });
+  it('a clause that points back ("and this difference was significant") takes its sentence\'s time point', () => {
+    expect(of('## Abstract\n\nAt 6 months, pain was lower with physiotherapy than with usual care, t(98) = 2.85, p = .005.\n\n## Results\n\nAt 12 months, pain was lower with physiotherapy than with usual care, and this difference was significant, t(98) = 2.58, p = .011.')).toEqual(['note']);
+  });
+});
+
 describe('an abstract beside a long table with a long caption', () => {
   // the caption's words are read once per table, not once per row
   const make = (n: number) => `## Abstract\n\nNausea relief was greater with acupressure, t(58) = 2.50, p = .015.\n\n## Results\n\nTable 2. ${Array.from({ length: n }, (_, i) => `outcome${i} measured at visit ${(i % 9) + 1}`).join(' ')}.\n\n| Outcome | t | df | p |\n|---|---|---|---|\n${Array.from({ length: n }, (_, i) => `| Nausea item ${i} | 2.18 | 58 | .033 |`).join('\n')}\n`;

@@ -15,5 +15,6 @@ ruleTable('sample-size-agrees-with-df', [
 // t(23) = 2.06: two-sided p = .051; t(59) = 3.17: p = .0024 (scipy.stats.t.sf). Pairs are the units of a within-pair t.
 ruleTable('sample-size-agrees-with-df', [
   { name: 'the members of pairs in brackets ("24 monozygotic twin pairs (48 twins)") are no total against a within-pair df', markdown: '## Methods\n\nWe recruited 24 monozygotic twin pairs (48 twins) discordant for regular exercise. Within-pair differences were analysed with paired t-tests.\n\n## Results\n\nThe within-pair difference was −2.1 mmHg (SD 5.0), t(23) = −2.06, p = .051.', expect: [] },
+  { name: 'the pairs are then the total: 24 twin pairs tested as 20 pairs (t(19)) is still reported (second review)', markdown: '## Methods\n\nWe recruited 24 monozygotic twin pairs (48 twins). Within-pair differences were analysed with paired t-tests.\n\n## Results\n\nThe within-pair difference was −2.1 mmHg (SD 5.0), t(19) = −1.88, p = .076.', expect: [{ at: '24 monozygotic twin pairs', id: 'df-imply-other-n' }] },
   { name: 'nor "60 couples (120 individuals)"', markdown: '## Methods\n\nWe enrolled 60 couples (120 individuals) and compared partners within couples.\n\n## Results\n\nWomen reported more household tasks than their partners, t(59) = 3.17, p = .002.', expect: [] },
 ]);
