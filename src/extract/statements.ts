@@ -4,6 +4,7 @@ import { comparisonsIn } from './comparisons.js';
 import type { AdjustMethod, ContextStatement } from './types.js';
 import { matchesOf } from './matches.js';
 import { deniedAt } from './mentions.js';
+import { lowerBound } from './offsets.js';
 
 const SIDED = /(?<![\p{L}])(one|two|1|2|single)[- ]?(tailed|sided)(?![\p{L}])|(?<![\p{L}])(non-?directional|directional)(?= (?:test|hypothes|predict))/giu;
 const EQUIVALENCE = /(?<![\p{L}])(equivalence test|test of equivalence|tests? for equivalence|TOST|two one-sided|non-?inferiority|equivalence bounds?|(?:test )?against the (?:lower|upper) (?:equivalence )?(?:bound|margin)|(?:lower|upper)[- ]bound test)(?![\p{L}])/giu;
@@ -167,14 +168,8 @@ export function findStatements(seg: Segment, sentenceStarts: number[]): ContextS
       }
       clausesOf.set(i, c);
     }
-    let lo = 0;
-    let hi = c.ends.length - 1;
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if ((c.ends[mid] as number) < at) lo = mid + 1;
-      else hi = mid;
-    }
-    return c.side[lo] === true;
+    // the clause holding `at`: the first whose end is at or after it (the last one ends the sentence)
+    return c.side[Math.min(lowerBound(c.ends, at), c.ends.length - 1)] === true;
   };
   const sentenceOfAt = (at: number) => {
     const i = sentenceOf(sentenceStarts, at);

@@ -18,6 +18,7 @@ import type {
   SpreadKind,
 } from './types.js';
 import { matchesOf } from './matches.js';
+import { indexOfSource, lowerBoundBy } from './offsets.js';
 import { OTHER_ESTIMATE_BEFORE } from './otherEstimates.js';
 
 // Bounded building blocks (see test/regex-safety for the linearity argument).
@@ -456,13 +457,7 @@ export function findSummaries(seg: Segment, sentenceStarts: number[]): SegmentSu
     for (const m of matchesOf(SUBSET_BEFORE, text)) subsets.push(m.index);
   }
   const lastBefore = <T>(list: readonly T[], at: (x: T) => number, before: number): T | undefined => {
-    let lo = 0;
-    let hi = list.length;
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (at(list[mid] as T) < before) lo = mid + 1;
-      else hi = mid;
-    }
+    const lo = lowerBoundBy(list, at, before);
     return lo > 0 ? list[lo - 1] : undefined;
   };
   const distinctBefore = (at: number): number => {
@@ -701,9 +696,6 @@ function occasionOf(label: string | undefined, following: string): string | unde
   return said?.toLowerCase().replace(/[- ]/g, '');
 }
 
-/** Whether each segment's source map runs in source order (checked once per segment). */
-const ascending = new WeakMap<Segment, boolean>();
-
 /**
  * A number printed in a pair: "10.2" in "12.0/10.2", "3.0" in "3.0/3.3", "6.8" in "M = 6.8 vs
  * 5.6;" (a bare value after "vs", not a group's own numbers: "10.96 ± 0.99 vs 12.48 ± 0.69").
@@ -725,34 +717,6 @@ function printedInPairs(seg: Segment, g: GroupSummary): boolean {
     if (PAIRED_AFTER.test(seg.text.slice(to, to + 12)) || PAIRED_BEFORE.test(seg.text.slice(Math.max(0, from - 10), from))) paired += 1;
   }
   return paired >= 2;
-}
-
-
-/**
- * The first text index whose source start is at or after `offset`. A binary search when the
- * segment's map is in source order (as the parse layer builds it), so a paragraph of thousands
- * of groups is not scanned once per group; a scan otherwise, with the same answer.
- */
-function indexOfSource(seg: Segment, offset: number): number {
-  const starts = seg.starts;
-  let sorted = ascending.get(seg);
-  if (sorted === undefined) {
-    sorted = true;
-    for (let i = 1; i < starts.length && sorted; i += 1) sorted = (starts[i - 1] as number) <= (starts[i] as number);
-    ascending.set(seg, sorted);
-  }
-  if (!sorted) {
-    const i = starts.findIndex((s) => s >= offset);
-    return i < 0 ? seg.text.length : i;
-  }
-  let lo = 0;
-  let hi = starts.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if ((starts[mid] as number) < offset) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo === starts.length ? seg.text.length : lo;
 }
 
 /** Whether some "(" in the text comes after a word (not only after spaces and , ; :) since the last parenthesis. */

@@ -1,7 +1,7 @@
 import type { Segment } from '../parse/types.js';
 import { matchesOf } from './matches.js';
 import { sentenceOf, sentenceStarts } from './numbers.js';
-import { textIndexOf } from './offsets.js';
+import { indexOfSource } from './offsets.js';
 import type { TTestReport } from './types.js';
 
 /**
@@ -334,7 +334,7 @@ export function findTopics(segments: readonly Segment[], tests: readonly TTestRe
     if (!summary && !summaryDfs.has(Math.round(t.df.value))) continue;
     const seg = segments[t.segment];
     if (!seg || seg.id !== t.segment) continue;
-    const at = textIndexOf(seg, t.span.start);
+    const at = indexOfSource(seg, t.span.start);
     const list = startsOf(seg);
     const sentence = sentenceOf(list, at);
     const from = list[sentence] as number;
