@@ -115,7 +115,7 @@ export function link(extraction: Extraction, directives: Directive[], settings: 
   const pooledErrorOf = pooledErrorJoiner(extraction);
   const transformedOf = scopedMentionJoiner(extraction, sentencesWithStatistics, 'transformed');
   const modelBasedOf = scopedMentionJoiner(extraction, sentencesWithStatistics, 'model-based');
-  const standardiserOf = standardiserJoiner(extraction, sentencesWithStatistics);
+  const standardiserOf = scopedMentionJoiner(extraction, sentencesWithStatistics, 'd-standardiser');
   // cluster means said in the result's own sentence only: elsewhere they may be of another analysis
   const clusterMeansBySentence = groupBy(extraction.mentions.filter((m) => m.kind === 'cluster-means'), sentenceKey);
   // Welch's test named where no test is reported ("Welch's t-tests were used throughout")
@@ -270,43 +270,41 @@ const withModelBased = (m: Mention | undefined) => (m ? { modelBased: m } : {});
 const withStandardiser = (m: Mention | undefined) => (m ? { dStandardiser: m } : {});
 const withClusterMeans = (m: Mention | undefined) => (m ? { clusterMeans: m } : {});
 
-/**
- * Words saying effect sizes are standardised by another SD than the groups' (the pooled baseline
- * SD, a reference SD): in the result's sentence, its paragraph, or a sentence that reports no
- * statistic outside an introduction or discussion (such a sentence defines every d of the report;
- * one in a discussion of other studies does not). extract/mentions.ts reads the words only in a
- * sentence about an effect size that neither plans the study nor speaks of other studies.
- */
-function standardiserJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>): (report: TTestReport) => Mention | undefined {
-  const said = extraction.mentions.filter((m) => m.kind === 'd-standardiser');
-  if (said.length === 0) return () => undefined;
-  const bySentence = groupBy(said, sentenceKey);
-  const bySegment = groupBy(said, (m) => m.segment);
-  const general = said.find((m) => !withStatistics.has(sentenceKey(m)) && !OTHER_STUDIES_SECTION.test(extraction.sections[m.segment] ?? ''));
-  return (report) => bySentence.get(sentenceKey(report))?.[0] ?? bySegment.get(report.segment)?.[0] ?? general;
-}
 /** Sections that speak of other studies or of future work: an introduction, a background, a discussion, a conclusion. */
 const OTHER_STUDIES_SECTION = /introduction|background|discussion|conclusion|limitation|future|related work|literature/i;
 
 /**
- * Words saying values were transformed for the analysis (extract's `transformed`), or that
- * comparisons were estimated from a model (`model-based`), that may speak of a result: in its
- * sentence; for a transformation, its paragraph too; else a sentence of the text that reports no
- * statistic, says it is about the tests or comparisons ("All group comparisons were estimated by
- * linear regression adjusted for age", "t-tests were performed on log-transformed values", a
- * table's note) and stands in no introduction or discussion; or such a sentence said of a measure
- * (its first content word) that the result's own lead opens with. A model's words in a paragraph are
- * often about another analysis of it ("In a regression adjusting for age, ...").
+ * Where words that make a finding less certain may speak of a result, by kind, beyond its own
+ * sentence: its paragraph, and a sentence of the text that reports no statistic and stands in no
+ * introduction or discussion, which must say it is about the tests or comparisons or not.
+ * - transformed (extract's `transformed`: "t-tests were performed on log-transformed values"):
+ *   its paragraph (a table's note is a paragraph of its own); elsewhere, words about the tests;
+ * - model-based ("All group comparisons were estimated by linear regression adjusted for age"):
+ *   not its paragraph, whose model words are often about another analysis ("In a regression
+ *   adjusting for age, ..."); elsewhere, words about the tests;
+ * - d-standardiser ("Effect sizes were standardised by the pooled baseline SD"): its paragraph;
+ *   elsewhere any such sentence, which defines every d of the report (extract reads the words
+ *   only in a sentence about an effect size that neither plans the study nor speaks of others).
+ * Transformations and models said of a measure also reach a result whose own lead opens with
+ * that measure (Mention.measure).
  */
-function scopedMentionJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>, kind: 'transformed' | 'model-based'): (report: TTestReport) => Mention | undefined {
+const MENTION_SCOPES = {
+  transformed: { paragraph: true, aboutTests: true },
+  'model-based': { paragraph: false, aboutTests: true },
+  'd-standardiser': { paragraph: true, aboutTests: false },
+} as const;
+
+/** The first mention of a kind that speaks of a result, within the kind's scope (MENTION_SCOPES). */
+function scopedMentionJoiner(extraction: Extraction, withStatistics: ReadonlySet<string>, kind: keyof typeof MENTION_SCOPES): (report: TTestReport) => Mention | undefined {
   const said = extraction.mentions.filter((m) => m.kind === kind);
   if (said.length === 0) return () => undefined;
+  const scope = MENTION_SCOPES[kind];
   const bySentence = groupBy(said, sentenceKey);
-  const bySegment = groupBy(said, (m) => m.segment);
-  // beyond its paragraph, only a sentence that reports no statistic, says it is about the tests or
-  // comparisons, and is not in an introduction or discussion (of other studies, of future work)
+  const bySegment = scope.paragraph ? groupBy(said, (m) => m.segment) : undefined;
+  // beyond its paragraph, only a sentence that reports no statistic and is not in an introduction
+  // or discussion (of other studies, of future work), and for some kinds says it is about the tests
   const apart = (m: Mention) => !withStatistics.has(sentenceKey(m)) && !OTHER_STUDIES_SECTION.test(extraction.sections[m.segment] ?? '');
-  const general = said.find((m) => m.aboutTests === true && apart(m));
+  const general = said.find((m) => (!scope.aboutTests || m.aboutTests === true) && apart(m));
   // or one said of a measure ("Fatigue was rated weekly and analysed with a linear mixed model"),
   // for a result whose own words open with that measure ("Fatigue was lower with …, t(91.4)")
   // (by the measure's first stem; a result's lead must open with it and name every word of it:
@@ -322,7 +320,7 @@ function scopedMentionJoiner(extraction: Extraction, withStatistics: ReadonlySet
     const lead = new Set(stems);
     return first.find((m) => (m.measure as string[]).every((s) => lead.has(s)));
   };
-  return (report) => bySentence.get(sentenceKey(report))?.[0] ?? (kind === 'model-based' ? undefined : bySegment.get(report.segment)?.[0]) ?? general ?? measureOf(report);
+  return (report) => bySentence.get(sentenceKey(report))?.[0] ?? bySegment?.get(report.segment)?.[0] ?? general ?? measureOf(report);
 }
 
 const withPooledError = (p: PooledError | undefined) => (p ? { pooledError: p } : {});
