@@ -342,8 +342,9 @@ export function findTopics(segments: readonly Segment[], tests: readonly TTestRe
     if (summary) {
       // an abstract's result is named in its own clause; at most LEAD_REACH characters of it
       // are read, so that a hostile abstract of thousands of results costs no more than its text
-      const lead = Math.max(leadStart(seg.text, Math.max(from, at - LEAD_REACH), at), at - LEAD_REACH);
-      const stretch = topicWords(seg.text.slice(lead, at)).length > 0 ? seg.text.slice(lead, at) : seg.text.slice(Math.max(from, at - LEAD_REACH), at);
+      const reach = Math.max(from, at - LEAD_REACH);
+      const lead = leadStart(seg.text, reach, at);
+      const stretch = topicWords(seg.text.slice(lead, at)).length > 0 ? seg.text.slice(lead, at) : seg.text.slice(reach, at);
       out.push({ test: t, inSummary: true, ...topicOf(stretch) });
       continue;
     }
@@ -370,7 +371,7 @@ export function findTopics(segments: readonly Segment[], tests: readonly TTestRe
     }
     // its time points: those of its own clause (another clause may speak of another time: "…,
     // t(98) = 2.58, having been similar at 6 months"), or of the sentence it points back to
-    const own = Math.max(leadStart(seg.text, Math.max(from, at - LEAD_REACH), at), at - LEAD_REACH);
+    const own = leadStart(seg.text, Math.max(from, at - LEAD_REACH), at);
     const times = timePoints(seg.text.slice(own, Math.min(to, at + t.printed.length)));
     // (a clause that points back, "…, and this difference was significant, t(98)", takes the sentence's)
     const pointsBack = POINTS_BACK.test(seg.text.slice(from, to)) || CLAUSE_POINTS_BACK.test(seg.text.slice(own, at));
